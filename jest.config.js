@@ -1,0 +1,24 @@
+/** Two projects: the server side (unit, API and browser tests under test/) and the Angular specs beside the components. */
+const swc = ['@swc/jest', { jsc: { parser: { syntax: 'typescript', decorators: true }, target: 'es2022' }, module: { type: 'commonjs' } }];
+
+module.exports = {
+  maxWorkers: 2,
+  projects: [
+    {
+      displayName: 'server',
+      testEnvironment: 'node',
+      testMatch: ['<rootDir>/test/**/*.test.ts', '<rootDir>/server/**/*.test.ts'],
+      transform: { '^.+\\.(t|j|mj)s$': swc },
+      // marked ships only ES modules.
+      transformIgnorePatterns: ['/node_modules/(?!marked/)'],
+      setupFilesAfterEnv: ['<rootDir>/test/helpers/jest-timeouts.ts'],
+    },
+    {
+      displayName: 'client',
+      preset: 'jest-preset-angular',
+      testEnvironment: 'jsdom',
+      testMatch: ['<rootDir>/src/**/*.spec.ts'],
+      setupFilesAfterEnv: ['<rootDir>/src/test-setup.ts'],
+    },
+  ],
+};

@@ -1,0 +1,37 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { UserRepository } from '../auth/user-repository';
+import { toSessionUser } from '../auth/user-repository';
+import { badRequest, notFound } from '../platform/app-error';
+import { requireRole } from '../platform/require-role';
+import { ROLES } from '../platform/roles';
+import { fields, parse } from '../platform/validate';
+
+const ListQuery = z.object({ q: z.string().trim().max(100).optional(), role: z.enum(ROLES).optional(), page: fields.page, pageSize: fields.pageSize });
+const RolesBody = z.object({
+  roles: z.array(z.enum(ROLES, { error: `Roles are ${ROLES.join(', ')}.` }), { error: 'Send a list of roles.' }).max(ROLES.length),
+});
+
+/** Accounts and their roles under /api/admin/users (admin only). */
+export function userAdminRoutes(users: UserRepository): Router {
+  const r = Router();
+  r.use(requireRole('admin'));
+
+  r.get('/', async function listUsers(req, res) {
+    const q = parse(ListQuery, req.query);
+    const { items, total } = await users.page(q);
+    res.json({ items: items.map((u) => ({ ...toSessionUser(u), createdAt: u.created_at })), total, page: q.page, pageSize: q.pageSize });
+  });
+
+  r.patch('/:id', async function setRoles(req, res) {
+    const id = parse(fields.id, req.params.id);
+    const { roles } = parse(RolesBody, req.body);
+    const unique = [...new Set(roles)];
+    if (id === req.user!.id && !unique.includes('admin')) throw badRequest('You cannot remove your own admin role.', { roles: 'Keep admin on your own account.' });
+    const row = await users.update(id, { roles: unique.length ? unique : ['fan'] });
+    if (!row) throw notFound('No such user.');
+    res.json({ user: toSessionUser(row) });
+  });
+
+  return r;
+}

@@ -1,0 +1,29 @@
+import type { OutgoingEmail } from '../mail/outbox';
+
+/** Texts of the account e-mails, in Padside's own words. */
+export function verificationEmail(to: string, name: string, link: string): OutgoingEmail {
+  return {
+    to,
+    template: 'verify-email',
+    subject: 'Confirm your e-mail for Padside',
+    text: `Hi ${name},\n\nPlease confirm this address so we can send your order and dues receipts here:\n\n${link}\n\nThe link works for 48 hours. If you did not create a Padside account, ignore this message.\n\n— Padside`,
+  };
+}
+
+export function passwordResetEmail(to: string, name: string, link: string): OutgoingEmail {
+  return {
+    to,
+    template: 'password-reset',
+    subject: 'Choose a new Padside password',
+    text: `Hi ${name},\n\nSomeone (hopefully you) asked to choose a new password for this Padside account. Open this link within 1 hour:\n\n${link}\n\nThe link works once. If you did not ask, your password is unchanged and you can ignore this message.\n\n— Padside`,
+  };
+}
+
+export function passwordChangedEmail(to: string, name: string): OutgoingEmail {
+  return {
+    to,
+    template: 'password-changed',
+    subject: 'Your Padside password was changed',
+    text: `Hi ${name},\n\nThe password for this Padside account was just changed. If that was not you, reset it now from the sign-in page and tell the club's admin.\n\n— Padside`,
+  };
+}

@@ -1,0 +1,93 @@
+import { Router, type Request } from 'express';
+import { z } from 'zod';
+import { csrfTokenFor } from '../platform/csrf';
+import { requireSignedIn } from '../platform/require-role';
+import { fields, parse } from '../platform/validate';
+import type { SessionUser } from '../platform/roles';
+import { PASSWORD_MAX } from './password-policy';
+import type { AuthService } from './auth-service';
+
+const password = z.string({ error: 'Password is required.' }).min(1, 'Password is required.').max(PASSWORD_MAX * 4, 'Password is too long.');
+const RegisterBody = z.object({
+  email: fields.email,
+  password,
+  displayName: z.string({ error: 'Name is required.' }).trim().min(1, 'Name is required.').max(80, 'Use at most 80 characters.'),
+});
+const LoginBody = z.object({ email: fields.email, password });
+const ResetRequestBody = z.object({ email: fields.email });
+const TokenBody = z.object({ token: z.string({ error: 'The link is incomplete.' }).min(10, 'The link is incomplete.').max(200) });
+const ResetConfirmBody = TokenBody.extend({ password });
+
+/** Starts a fresh session for the user (ASVS 4.0.3 3.2.1: a new session id on sign-in). */
+function signIn(req: Request, user: SessionUser): Promise<void> {
+  return new Promise((resolve, reject) =>
+    req.session.regenerate((err) => {
+      if (err) return reject(err);
+      req.login(user, (loginErr) => (loginErr ? reject(loginErr) : resolve()));
+    }),
+  );
+}
+
+/** Registration, sign-in and sign-out, verification and password reset under /api/auth. */
+export function authRoutes(auth: AuthService): Router {
+  const r = Router();
+
+  r.get('/csrf', function csrf(req, res) {
+    res.json({ csrfToken: csrfTokenFor(req) });
+  });
+
+  r.post('/register', async function register(req, res) {
+    const body = parse(RegisterBody, req.body);
+    const user = await auth.register(body);
+    await signIn(req, user);
+    res.status(201).json({ user });
+  });
+
+  r.post('/login', async function login(req, res) {
+    const body = parse(LoginBody, req.body);
+    const user = await auth.authenticate(body.email, body.password, req.ip ?? 'unknown');
+    await signIn(req, user);
+    res.json({ user });
+  });
+
+  r.post('/logout', function logout(req, res, next) {
+    // ASVS 4.0.3 3.3.1: the session is destroyed on the server, not just forgotten by the browser.
+    req.logout({ keepSessionInfo: false }, (err) => {
+      if (err) return next(err);
+      req.session.destroy((destroyErr) => {
+        if (destroyErr) return next(destroyErr);
+        res.clearCookie('padside.sid');
+        res.status(204).end();
+      });
+    });
+  });
+
+  r.get('/me', requireSignedIn, function me(req, res) {
+    res.json({ user: req.user });
+  });
+
+  r.post('/verify', async function verify(req, res) {
+    const { token } = parse(TokenBody, req.body);
+    await auth.verifyEmail(token);
+    res.status(204).end();
+  });
+
+  r.post('/verify/resend', requireSignedIn, async function resend(req, res) {
+    await auth.resendVerification(req.user!.id);
+    res.status(202).json({ queued: true });
+  });
+
+  r.post('/password-reset', async function requestReset(req, res) {
+    const { email } = parse(ResetRequestBody, req.body);
+    await auth.requestPasswordReset(email);
+    res.status(202).json({ queued: true });
+  });
+
+  r.post('/password-reset/confirm', async function confirmReset(req, res) {
+    const body = parse(ResetConfirmBody, req.body);
+    await auth.confirmPasswordReset(body.token, body.password);
+    res.status(204).end();
+  });
+
+  return r;
+}

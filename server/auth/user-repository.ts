@@ -1,0 +1,59 @@
+import type { Knex } from 'knex';
+import type { Role, SessionUser } from '../platform/roles';
+
+export interface UserRow {
+  id: string;
+  email: string;
+  password_hash: string;
+  display_name: string;
+  roles: Role[];
+  email_verified_at: Date | null;
+  marketing_opt_out: boolean;
+  created_at: Date;
+  updated_at: Date;
+}
+
+export function toSessionUser(row: UserRow): SessionUser {
+  return { id: Number(row.id), email: row.email, displayName: row.display_name, roles: row.roles, emailVerified: row.email_verified_at !== null };
+}
+
+/** Plain reads and writes of `users`. */
+export class UserRepository {
+  constructor(private readonly db: Knex) {}
+
+  byEmail(email: string, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
+    return trx<UserRow>('users').where('email', email.toLowerCase()).first();
+  }
+
+  byId(id: number, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
+    return trx<UserRow>('users').where('id', id).first();
+  }
+
+  async insert(trx: Knex.Transaction, user: { email: string; passwordHash: string; displayName: string; roles?: Role[] }): Promise<UserRow> {
+    const [row] = await trx<UserRow>('users')
+      .insert({ email: user.email.toLowerCase(), password_hash: user.passwordHash, display_name: user.displayName, roles: user.roles ?? ['fan'] })
+      .returning('*');
+    return row;
+  }
+
+  async update(id: number, patch: Partial<Pick<UserRow, 'password_hash' | 'display_name' | 'roles' | 'email_verified_at' | 'marketing_opt_out'>>, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
+    const [row] = await trx<UserRow>('users').where('id', id).update({ ...patch, updated_at: trx.fn.now() as unknown as Date }).returning('*');
+    return row;
+  }
+
+  /** Adds or removes one role atomically (used by features that drive a role, such as dues status). */
+  async setRole(id: number, role: Role, present: boolean, trx: Knex | Knex.Transaction = this.db): Promise<void> {
+    const expr = present ? trx.raw('(SELECT array_agg(DISTINCT r) FROM unnest(array_append(roles, ?::text)) r)', [role]) : trx.raw('array_remove(roles, ?::text)', [role]);
+    await trx('users').where('id', id).update({ roles: expr, updated_at: trx.fn.now() });
+  }
+
+  async page(opts: { q?: string; role?: Role; page: number; pageSize: number }): Promise<{ items: UserRow[]; total: number }> {
+    const base = this.db<UserRow>('users').modify((qb) => {
+      if (opts.q) qb.where((w) => w.whereILike('email', `%${opts.q}%`).orWhereILike('display_name', `%${opts.q}%`));
+      if (opts.role) qb.whereRaw('? = ANY(roles)', [opts.role]);
+    });
+    const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
+    const items = await base.clone().orderBy('id').limit(opts.pageSize).offset((opts.page - 1) * opts.pageSize);
+    return { items, total: Number(count) };
+  }
+}

@@ -1,0 +1,110 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { z } from 'zod';
+
+/** The project root: two levels up from both `server/` and `dist/server/`. */
+export const projectRoot = path.resolve(__dirname, __dirname.includes(`${path.sep}dist${path.sep}`) ? '../..' : '..');
+
+const port = z.coerce.number().int().min(1).max(65535);
+const timeZone = z.string().refine((tz) => {
+  try {
+    new Intl.DateTimeFormat('en-CA', { timeZone: tz });
+    return true;
+  } catch {
+    return false;
+  }
+}, 'is not an IANA time zone');
+
+const EnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: port.default(3000),
+  DATABASE_URL: z.string().optional(),
+  PGHOST: z.string().default('127.0.0.1'),
+  PGPORT: port.default(54329),
+  PGUSER: z.string().default('padside'),
+  PGPASSWORD: z.string().optional(),
+  PGDATABASE: z.string().default('padside'),
+  SESSION_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
+  SMTP_URL: z.url().default('smtp://127.0.0.1:1025'),
+  MAIL_FROM: z.string().default('Padside <hello@padside.test>'),
+  MAIL_POLL_MS: z.coerce.number().int().min(100).default(2000),
+  STRIPE_SECRET_KEY: z.string().default('sk_test_padside_local'),
+  STRIPE_API_BASE: z.url().default('http://127.0.0.1:12111'),
+  STRIPE_WEBHOOK_SECRET: z.string().default('whsec_padside_local_development'),
+  PUBLIC_URL: z.url().default('http://127.0.0.1:3000'),
+  CLUB_TIME_ZONE: timeZone.default('America/Winnipeg'),
+  DATA_DIR: z.string().optional(),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  WORKERS: z.coerce.number().int().min(1).max(64).default(1),
+});
+
+export interface Config {
+  env: 'development' | 'test' | 'production';
+  host: string;
+  port: number;
+  databaseUrl: string;
+  sessionSecret: string;
+  smtpUrl: string;
+  mailFrom: string;
+  mailPollMs: number;
+  stripe: { secretKey: string; apiBase: string; webhookSecret: string; isLocalFake: boolean };
+  publicUrl: string;
+  clubTimeZone: string;
+  dataDir: string;
+  logLevel: string;
+  workers: number;
+}
+
+/** Thrown when the environment is unusable; `main` prints the message as one line and exits 1. */
+export class ConfigError extends Error {}
+
+/** Reads and validates the environment once; development gets working defaults. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = EnvSchema.safeParse(env);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0];
+    throw new ConfigError(`Padside: ${String(issue.path[0])} ${issue.message}`);
+  }
+  const e = parsed.data;
+  const dataDir = path.resolve(projectRoot, e.DATA_DIR ?? '.data');
+  const databaseUrl =
+    e.DATABASE_URL ??
+    `postgres://${encodeURIComponent(e.PGUSER)}${e.PGPASSWORD ? ':' + encodeURIComponent(e.PGPASSWORD) : ''}@${e.PGHOST}:${e.PGPORT}/${encodeURIComponent(e.PGDATABASE)}`;
+  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) throw new ConfigError('Padside: SESSION_SECRET is required in production');
+  if (e.NODE_ENV === 'production' && e.STRIPE_WEBHOOK_SECRET.startsWith('whsec_padside_local')) {
+    throw new ConfigError('Padside: STRIPE_WEBHOOK_SECRET must be set in production');
+  }
+  return {
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    databaseUrl,
+    sessionSecret: e.SESSION_SECRET ?? developmentSessionSecret(dataDir),
+    smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
+    mailPollMs: e.MAIL_POLL_MS,
+    stripe: {
+      secretKey: e.STRIPE_SECRET_KEY,
+      apiBase: e.STRIPE_API_BASE,
+      webhookSecret: e.STRIPE_WEBHOOK_SECRET,
+      isLocalFake: !/^https:\/\/api\.stripe\.com\/?$/.test(e.STRIPE_API_BASE),
+    },
+    publicUrl: e.PUBLIC_URL.replace(/\/$/, ''),
+    clubTimeZone: e.CLUB_TIME_ZONE,
+    dataDir,
+    logLevel: e.LOG_LEVEL,
+    workers: e.WORKERS,
+  };
+}
+
+/** Generated once per checkout so development sessions survive restarts without a secret in the repo. */
+function developmentSessionSecret(dataDir: string): string {
+  const file = path.join(dataDir, 'session-secret');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  mkdirSync(dataDir, { recursive: true });
+  const secret = randomBytes(32).toString('hex');
+  writeFileSync(file, secret, { mode: 0o600 });
+  return secret;
+}

@@ -1,0 +1,96 @@
+import type { Knex } from 'knex';
+import nodemailer, { Transporter } from 'nodemailer';
+import type { Logger } from 'pino';
+
+const BATCH = 20;
+const MAX_ATTEMPTS = 12;
+
+/** Backoff between attempts: 30 s doubling, capped at 1 h (common practice, no source). */
+export function retryDelaySeconds(attempts: number): number {
+  return Math.min(3600, 30 * 2 ** Math.max(0, attempts - 1));
+}
+
+/** Delivers the outbox through SMTP. Rows are claimed with SKIP LOCKED so several processes never send one twice. */
+export class MailWorker {
+  private readonly transport: Transporter;
+  private timer?: NodeJS.Timeout;
+  private running?: Promise<number>;
+
+  constructor(
+    private readonly db: Knex,
+    smtpUrl: string,
+    private readonly from: string,
+    private readonly log: Logger,
+  ) {
+    const url = new URL(smtpUrl);
+    url.searchParams.set('connectionTimeout', '3000');
+    url.searchParams.set('greetingTimeout', '3000');
+    url.searchParams.set('socketTimeout', '5000');
+    this.transport = nodemailer.createTransport(url.toString());
+  }
+
+  /** Polls every `intervalMs` until stopped. */
+  start(intervalMs: number): void {
+    this.timer = setInterval(() => void this.deliverDue().catch((err) => this.log.warn({ err }, 'mail delivery pass failed')), intervalMs);
+  }
+
+  async stop(): Promise<void> {
+    clearInterval(this.timer);
+    await this.running;
+    this.transport.close();
+  }
+
+  /** Whether the SMTP server answers. */
+  async smtpReachable(): Promise<boolean> {
+    try {
+      await this.transport.verify();
+      return true;
+    } catch {
+      return false;
+    }
+  }
+
+  /** One pass over due mail; returns how many were sent. Concurrent calls in one process share a pass. */
+  deliverDue(): Promise<number> {
+    this.running ??= this.pass().finally(() => (this.running = undefined));
+    return this.running;
+  }
+
+  private async pass(): Promise<number> {
+    let sent = 0;
+    for (;;) {
+      const n = await this.db.transaction(async (trx) => {
+        const rows = await trx('outbound_emails')
+          .where('status', 'queued')
+          .andWhere('next_attempt_at', '<=', trx.fn.now())
+          .orderBy('id')
+          .limit(BATCH)
+          .forUpdate()
+          .skipLocked();
+        let ok = 0;
+        for (const row of rows) {
+          try {
+            await this.transport.sendMail({ from: this.from, to: row.to_address, subject: row.subject, text: row.text_body, html: row.html_body ?? undefined });
+            await trx('outbound_emails').where('id', row.id).update({ status: 'sent', sent_at: trx.fn.now(), attempts: row.attempts + 1, last_error: null });
+            ok++;
+          } catch (err) {
+            const attempts = row.attempts + 1;
+            await trx('outbound_emails')
+              .where('id', row.id)
+              .update({
+                attempts,
+                last_error: String((err as Error).message).slice(0, 500),
+                status: attempts >= MAX_ATTEMPTS ? 'failed' : 'queued',
+                next_attempt_at: trx.raw(`now() + make_interval(secs => ?)`, [retryDelaySeconds(attempts)]),
+              });
+            // The server is down: leave the rest of the batch for the next pass instead of timing each one out.
+            return -1;
+          }
+        }
+        return rows.length === 0 ? 0 : ok;
+      });
+      if (n <= 0) return sent;
+      sent += n;
+    }
+  }
+}

@@ -1,0 +1,93 @@
+import Stripe from 'stripe';
+
+/** What a charge attempt came to. `unknown` means the processor may or may not have taken the money. */
+export type ChargeResult =
+  | { outcome: 'paid'; chargeId: string; amountCents: number; feeCents: number | null; cardCountry: string | null }
+  | { outcome: 'declined'; message: string; declineCode: string | null }
+  | { outcome: 'unknown'; message: string };
+
+export interface ChargeRequest {
+  amountCents: number;
+  token: string;
+  description: string;
+  idempotencyKey: string;
+  metadata: Record<string, string>;
+  customerId?: string;
+}
+
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+/** Card charges and refunds through the Stripe SDK, with the retry rules of Stripe's idempotency guide. */
+export class PaymentGateway {
+  constructor(
+    readonly stripe: Stripe,
+    private readonly retryDelaysMs: number[] = [200, 600, 1500],
+  ) {}
+
+  /** Charges once: 429 and network errors retry with the same key; a 5xx leaves the outcome unknown. */
+  async charge(req: ChargeRequest): Promise<ChargeResult> {
+    for (let attempt = 0; ; attempt++) {
+      try {
+        const charge = await this.stripe.charges.create(
+          {
+            amount: req.amountCents,
+            currency: 'cad',
+            description: req.description,
+            metadata: req.metadata,
+            ...(req.customerId ? { customer: req.customerId, ...(req.token ? { source: req.token } : {}) } : { source: req.token }),
+          },
+          { idempotencyKey: req.idempotencyKey },
+        );
+        if (charge.status === 'failed') return { outcome: 'declined', message: charge.failure_message ?? 'The card was declined.', declineCode: charge.failure_code ?? null };
+        return { outcome: 'paid', chargeId: charge.id, amountCents: charge.amount, feeCents: null, cardCountry: cardCountry(charge) };
+      } catch (err) {
+        if (err instanceof Stripe.errors.StripeCardError) {
+          return { outcome: 'declined', message: err.message, declineCode: err.decline_code ?? err.code ?? null };
+        }
+        const retriable = err instanceof Stripe.errors.StripeRateLimitError || err instanceof Stripe.errors.StripeConnectionError;
+        if (retriable && attempt < this.retryDelaysMs.length) {
+          await sleep(this.retryDelaysMs[attempt]);
+          continue;
+        }
+        if (err instanceof Stripe.errors.StripeInvalidRequestError) {
+          return { outcome: 'declined', message: err.message, declineCode: err.code ?? null };
+        }
+        return { outcome: 'unknown', message: (err as Error).message };
+      }
+    }
+  }
+
+  /** The newest charge whose metadata has `key` = `value`, searching the most recent `scan` charges. */
+  async findCharge(key: string, value: string, scan = 500): Promise<Stripe.Charge | null> {
+    let found: Stripe.Charge | null = null;
+    let startingAfter: string | undefined;
+    for (let seen = 0; seen < scan && !found; ) {
+      const page = await this.stripe.charges.list({ limit: 100, ...(startingAfter ? { starting_after: startingAfter } : {}) });
+      found = page.data.find((c) => c.metadata?.[key] === value && c.status === 'succeeded') ?? null;
+      seen += page.data.length;
+      if (!page.has_more || page.data.length === 0) break;
+      startingAfter = page.data[page.data.length - 1].id;
+    }
+    return found;
+  }
+
+  /** Refunds part or all of a charge; the idempotency key makes a retried refund count once. */
+  async refund(chargeId: string, amountCents: number, idempotencyKey: string): Promise<Stripe.Refund> {
+    return this.stripe.refunds.create({ charge: chargeId, amount: amountCents }, { idempotencyKey });
+  }
+
+  /** Whether the processor answers at all. */
+  async reachable(): Promise<boolean> {
+    try {
+      await this.stripe.charges.list({ limit: 1 });
+      return true;
+    } catch {
+      return false;
+    }
+  }
+}
+
+function cardCountry(charge: Stripe.Charge): string | null {
+  const card = charge.payment_method_details?.card ?? (charge.source as Stripe.Card | null);
+  return (card && 'country' in card ? card.country : null) ?? null;
+}

@@ -1,0 +1,41 @@
+import type { Knex } from 'knex';
+import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
+import { tooManyRequests } from './app-error';
+
+/** A failure counter kept in PostgreSQL, so every server process shares it. */
+export class FailureLimiter {
+  private readonly limiter: RateLimiterPostgres;
+
+  constructor(db: Knex, keyPrefix: string, points: number, durationSeconds: number) {
+    this.limiter = new RateLimiterPostgres({
+      storeClient: db,
+      storeType: 'knex',
+      tableName: 'rate_limits',
+      tableCreated: true,
+      keyPrefix,
+      points,
+      duration: durationSeconds,
+      blockDuration: durationSeconds,
+    });
+  }
+
+  /** Throws 429 with Retry-After when the key has used up its failures. */
+  async check(key: string): Promise<void> {
+    const res = await this.limiter.get(key);
+    if (res && res.remainingPoints <= 0) throw tooManyRequests(res.msBeforeNext / 1000);
+  }
+
+  /** Counts one failure. */
+  async fail(key: string): Promise<void> {
+    try {
+      await this.limiter.consume(key);
+    } catch (e) {
+      // consume rejects with RateLimiterRes once the budget is spent; the next check() answers 429.
+      if (!(e instanceof RateLimiterRes)) throw e;
+    }
+  }
+
+  async reset(key: string): Promise<void> {
+    await this.limiter.delete(key);
+  }
+}

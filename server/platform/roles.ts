@@ -1,0 +1,15 @@
+/** Every role an account can hold. `member` follows dues status; the others are granted by an admin. */
+export const ROLES = ['fan', 'member', 'sponsor', 'editor', 'treasurer', 'admin'] as const;
+export type Role = (typeof ROLES)[number];
+
+/** Staff roles see the console. */
+export const STAFF_ROLES: readonly Role[] = ['editor', 'treasurer', 'admin'];
+
+/** The signed-in user as every route sees it. */
+export interface SessionUser {
+  id: number;
+  email: string;
+  displayName: string;
+  roles: Role[];
+  emailVerified: boolean;
+}

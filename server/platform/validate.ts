@@ -1,0 +1,29 @@
+import { z } from 'zod';
+import { AppError, FieldErrors } from './app-error';
+
+/** Parses a request part against a schema; a mismatch answers 400 with one message per field. */
+export function parse<T extends z.ZodType>(schema: T, value: unknown): z.infer<T> {
+  const result = schema.safeParse(value ?? {});
+  if (result.success) return result.data;
+  const fields: FieldErrors = {};
+  for (const issue of result.error.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '_';
+    fields[key] ??= issue.message;
+  }
+  throw new AppError(400, 'validation_failed', 'Some fields need attention.', fields);
+}
+
+/** Common field schemas, so every form words its errors the same way. */
+export const fields = {
+  email: z
+    .string({ error: 'E-mail is required.' })
+    .trim()
+    .toLowerCase()
+    .max(254, 'E-mail is too long.')
+    .pipe(z.email({ error: 'Enter a valid e-mail address.' })),
+  id: z.coerce.number({ error: 'Must be a number.' }).int('Must be a whole number.').positive('Must be positive.'),
+  date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use the form YYYY-MM-DD.').refine((s) => !Number.isNaN(Date.parse(s + 'T00:00:00Z')), 'Not a real date.'),
+  page: z.coerce.number().int().min(1).max(100000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(25),
+  cents: z.number({ error: 'Enter an amount in cents.' }).int('Amounts are whole cents.').min(0, 'Cannot be negative.').max(100_000_000),
+};

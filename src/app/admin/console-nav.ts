@@ -1,0 +1,19 @@
+import type { Role } from '../core/user';
+
+/** One entry of the console's side navigation, shown to the roles that may use it. */
+export interface ConsoleLink {
+  path: string;
+  label: string;
+  icon: string;
+  roles: readonly Role[];
+}
+
+export const CONSOLE_LINKS: readonly ConsoleLink[] = [
+  { path: '/console', label: 'Overview', icon: 'space_dashboard', roles: ['editor', 'treasurer', 'admin'] },
+  { path: '/console/orders', label: 'Orders', icon: 'local_shipping', roles: ['treasurer', 'admin'] },
+  { path: '/console/members', label: 'Members', icon: 'badge', roles: ['treasurer', 'admin'] },
+  { path: '/console/posts', label: 'Build logs', icon: 'edit_note', roles: ['editor', 'admin'] },
+  { path: '/console/sponsors', label: 'Sponsors', icon: 'handshake', roles: ['editor', 'treasurer', 'admin'] },
+  { path: '/console/books', label: 'Books', icon: 'account_balance', roles: ['treasurer', 'admin'] },
+  { path: '/console/users', label: 'Accounts', icon: 'manage_accounts', roles: ['admin'] },
+];

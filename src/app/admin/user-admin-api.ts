@@ -1,0 +1,26 @@
+import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable } from 'rxjs';
+import { QUIET_ERRORS } from '../core/error-interceptor';
+import type { Role, User } from '../core/user';
+
+export interface UserPage {
+  items: (User & { createdAt: string })[];
+  total: number;
+}
+
+/** Accounts and roles (admin only). */
+@Injectable({ providedIn: 'root' })
+export class UserAdminApi {
+  private readonly http = inject(HttpClient);
+
+  list(query: { q?: string; page: number; pageSize: number }): Observable<UserPage> {
+    let params = new HttpParams().set('page', query.page).set('pageSize', query.pageSize);
+    if (query.q) params = params.set('q', query.q);
+    return this.http.get<UserPage>('/api/admin/users', { params });
+  }
+
+  setRoles(id: number, roles: Role[]): Observable<{ user: User }> {
+    return this.http.patch<{ user: User }>(`/api/admin/users/${id}`, { roles }, { context: new HttpContext().set(QUIET_ERRORS, false) });
+  }
+}

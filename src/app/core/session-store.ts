@@ -1,0 +1,57 @@
+import { HttpClient, HttpContext } from '@angular/common/http';
+import { Injectable, computed, inject, signal } from '@angular/core';
+import { firstValueFrom } from 'rxjs';
+import { QUIET_ERRORS } from './error-interceptor';
+import { CsrfToken } from './csrf-token';
+import { STAFF_ROLES, type Role, type User } from './user';
+
+/** The signed-in user as signals; every sign-in and sign-out goes through here. */
+@Injectable({ providedIn: 'root' })
+export class SessionStore {
+  private readonly http = inject(HttpClient);
+  private readonly csrf = inject(CsrfToken);
+  private readonly current = signal<User | null>(null);
+
+  readonly user = this.current.asReadonly();
+  readonly signedIn = computed(() => this.current() !== null);
+  readonly isStaff = computed(() => this.hasAnyRole(STAFF_ROLES));
+
+  hasAnyRole(roles: readonly Role[]): boolean {
+    return this.current()?.roles.some((r) => roles.includes(r)) ?? false;
+  }
+
+  /** Reads the session once at start-up; a 401 simply means nobody is signed in. */
+  async load(): Promise<void> {
+    try {
+      const res = await firstValueFrom(this.http.get<{ user: User }>('/api/auth/me', { context: new HttpContext().set(QUIET_ERRORS, true) }));
+      this.current.set(res.user);
+    } catch {
+      this.current.set(null);
+    }
+  }
+
+  async signIn(email: string, password: string): Promise<User> {
+    const res = await firstValueFrom(this.http.post<{ user: User }>('/api/auth/login', { email, password }, { context: new HttpContext().set(QUIET_ERRORS, true) }));
+    this.csrf.forget();
+    this.current.set(res.user);
+    return res.user;
+  }
+
+  async register(email: string, password: string, displayName: string): Promise<User> {
+    const res = await firstValueFrom(this.http.post<{ user: User }>('/api/auth/register', { email, password, displayName }, { context: new HttpContext().set(QUIET_ERRORS, true) }));
+    this.csrf.forget();
+    this.current.set(res.user);
+    return res.user;
+  }
+
+  async signOut(): Promise<void> {
+    await firstValueFrom(this.http.post('/api/auth/logout', {}));
+    this.csrf.forget();
+    this.current.set(null);
+  }
+
+  /** After a profile change. */
+  replace(user: User): void {
+    this.current.set(user);
+  }
+}

@@ -1,0 +1,40 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatToolbarModule } from '@angular/material/toolbar';
+import { SessionStore } from '../session-store';
+
+/** Public sections in the top bar. */
+const SECTIONS = [
+  { path: '/shop', label: 'Merch' },
+  { path: '/membership', label: 'Club dues' },
+  { path: '/build-logs', label: 'Build logs' },
+  { path: '/sponsors', label: 'Sponsors' },
+];
+
+/** Padside's frame: top bar with the mark, sections and the account menu; footer with the flying caution. */
+@Component({
+  selector: 'ps-shell',
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatToolbarModule, MatButtonModule, MatIconModule, MatMenuModule],
+  templateUrl: './shell.html',
+  styleUrl: './shell.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class Shell {
+  protected readonly session = inject(SessionStore);
+  private readonly router = inject(Router);
+
+  protected readonly sections = SECTIONS;
+  protected readonly menuOpen = signal(false);
+
+  protected toggleMenu(): void {
+    this.menuOpen.update((open) => !open);
+  }
+
+  protected async signOut(): Promise<void> {
+    await this.session.signOut();
+    await this.router.navigateByUrl('/');
+  }
+}

@@ -1,0 +1,18 @@
+/** Roles as the server names them. */
+export type Role = 'fan' | 'member' | 'sponsor' | 'editor' | 'treasurer' | 'admin';
+
+export const STAFF_ROLES: readonly Role[] = ['editor', 'treasurer', 'admin'];
+
+/** The signed-in user, as `/api/auth/me` returns it. */
+export interface User {
+  id: number;
+  email: string;
+  displayName: string;
+  roles: Role[];
+  emailVerified: boolean;
+}
+
+/** The error body every API failure carries. */
+export interface ApiErrorBody {
+  error: { code: string; message: string; fields?: Record<string, string> };
+}
