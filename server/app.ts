@@ -1,8 +1,8 @@
+import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
-import express, { type Express } from 'express';
+import express, { type Express, type Router } from 'express';
 import pinoHttp from 'pino-http';
-import { randomUUID } from 'node:crypto';
 import { accountRoutes } from './account/account-routes';
 import { userAdminRoutes } from './admin/user-admin-routes';
 import { authRoutes } from './auth/auth-routes';
@@ -10,21 +10,43 @@ import { AuthService } from './auth/auth-service';
 import { configurePassport } from './auth/passport-setup';
 import { projectRoot } from './config';
 import type { AppDeps } from './deps';
+import { buildFeatures } from './features';
 import { healthRoutes } from './health/health-routes';
+import type { ScheduledJob } from './jobs/job-runner';
 import { csrfProtection } from './platform/csrf';
 import { apiNotFound, errorHandler } from './platform/error-handler';
+import type { Mount, Platform } from './platform/feature';
 import { securityHeaders } from './platform/security-headers';
 import { createSessionMiddleware } from './platform/session';
+import { SettingsService } from './settings/settings-service';
+import { DiskStorage } from './uploads/disk-storage';
+import { ImageUploads } from './uploads/image-uploads';
+import { uploadAdminRoutes, uploadServeRoutes } from './uploads/upload-routes';
 
-/** Paths that verify their own signature instead of a CSRF token. */
-export const CSRF_EXEMPT = ['/api/payments/webhook'];
+/** Paths under /api that verify their own signature instead of a CSRF token. */
+export const CSRF_EXEMPT = ['/payments/webhook'];
 
 export const browserDist = path.join(projectRoot, 'dist', 'padside', 'browser');
 
+/** A recorded mount: `prefix` is the full path prefix ('/api/auth'). */
+export interface MountRecord {
+  prefix: string;
+  router: Router;
+}
+
+export type PadsideApp = Express & { close(): Promise<void>; jobs: ScheduledJob[]; platform: Platform; mounts: MountRecord[] };
+
 /** Builds the Express app without listening; `close()` releases what the app itself opened. */
-export function createApp(deps: AppDeps): Express & { close(): Promise<void> } {
-  const app = express() as Express & { close(): Promise<void> };
+export function createApp(deps: AppDeps): PadsideApp {
+  const app = express() as PadsideApp;
   const auth = new AuthService(deps.db, deps.config.publicUrl, deps.clock);
+  const platform: Platform = {
+    deps,
+    auth,
+    settings: new SettingsService(deps.db),
+    images: new ImageUploads(deps.db, new DiskStorage(path.join(deps.config.dataDir, 'uploads'))),
+  };
+  const features = buildFeatures(platform);
   const passport = configurePassport(auth);
   const sessions = createSessionMiddleware(deps.config);
 
@@ -33,26 +55,43 @@ export function createApp(deps: AppDeps): Express & { close(): Promise<void> } {
   app.use(securityHeaders);
   app.use(pinoHttp({ logger: deps.log, genReqId: (req) => (req.headers['x-request-id'] as string) || randomUUID(), autoLogging: deps.config.env !== 'test' }));
 
+  const mounts: MountRecord[] = [];
   const api = express.Router();
-  api.use(express.json({ limit: '100kb' }));
-  api.use('/health', healthRoutes(deps));
+  const apiMount: Mount = (at, router) => {
+    mounts.push({ prefix: '/api' + at, router });
+    api.use(at, router);
+  };
+  // The webhook needs its raw body for the signature check, so JSON parsing skips it.
+  api.use((req, res, next) => (CSRF_EXEMPT.includes(req.path) ? next() : express.json({ limit: '100kb' })(req, res, next)));
+  apiMount('/health', healthRoutes(deps));
   api.use(sessions.middleware);
   api.use(passport.initialize());
   api.use(passport.session());
-  api.use(csrfProtection(CSRF_EXEMPT.map((p) => p.replace(/^\/api/, ''))));
-  api.use('/auth', authRoutes(auth));
-  api.use('/account', accountRoutes(auth));
-  api.use('/admin/users', userAdminRoutes(auth.users));
+  api.use(csrfProtection(CSRF_EXEMPT));
+  apiMount('/auth', authRoutes(auth));
+  apiMount('/account', accountRoutes(auth));
+  apiMount('/admin/users', userAdminRoutes(auth.users));
+  apiMount('/admin/uploads', uploadAdminRoutes(platform.images));
+  for (const feature of features) feature.mount(apiMount);
   api.use(apiNotFound);
   app.use('/api', api);
+  const siteMount: Mount = (at, router) => {
+    mounts.push({ prefix: at, router });
+    app.use(at, router);
+  };
+  siteMount('/uploads', uploadServeRoutes(platform.images));
+  for (const feature of features) feature.mountSite?.(siteMount);
 
   if (existsSync(browserDist)) {
     app.use(express.static(browserDist, { index: false, maxAge: '1h', setHeaders: (res, file) => /-[A-Z0-9]{8}\.(js|css)$/.test(file) && res.setHeader('Cache-Control', 'public, max-age=31536000, immutable') }));
-    app.get(/^\/(?!api\/).*/, function spaFallback(_req, res) {
+    app.get(/^\/(?!api\/|uploads\/).*/, function spaFallback(_req, res) {
       res.sendFile(path.join(browserDist, 'index.html'));
     });
   }
   app.use(errorHandler);
+  app.jobs = [{ name: 'mail-sweep', cron: '*/5 * * * *', run: () => deps.mail.deliverDue() }, ...features.flatMap((f) => f.jobs ?? [])];
+  app.platform = platform;
+  app.mounts = mounts;
   app.close = async () => {
     await sessions.pool.end();
   };

@@ -4,7 +4,6 @@ import { createApp } from './app';
 import { ConfigError, loadConfig, type Config } from './config';
 import { closeDeps, createDeps } from './deps';
 import { JobRunner } from './jobs/job-runner';
-import { scheduledJobs } from './jobs/scheduled-jobs';
 
 function readConfig(): Config {
   try {
@@ -30,7 +29,7 @@ async function serve(config: Config): Promise<void> {
   });
   await once(server, 'listening');
   deps.mail.start(config.mailPollMs);
-  await jobs.start(scheduledJobs(deps)).catch((err) => deps.log.error({ err }, 'scheduled jobs did not start'));
+  await jobs.start(app.jobs).catch((err) => deps.log.error({ err }, 'scheduled jobs did not start'));
   deps.log.info(`Padside listening on http://${config.host}:${config.port}`);
 
   const shutdown = async () => {

@@ -1,11 +1,10 @@
-import type { Express } from 'express';
-import { createApp } from '../../server/app';
+import { createApp, type PadsideApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config';
 import { closeDeps, createDeps, type AppDeps } from '../../server/deps';
 import type { Clock } from '../../server/platform/clock';
 
 export interface TestApp {
-  app: Express;
+  app: PadsideApp;
   deps: AppDeps;
   config: Config;
   close(): Promise<void>;

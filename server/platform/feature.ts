@@ -1,0 +1,28 @@
+import type { Router } from 'express';
+import type { AuthService } from '../auth/auth-service';
+import type { AppDeps } from '../deps';
+import type { ScheduledJob } from '../jobs/job-runner';
+import type { SettingsService } from '../settings/settings-service';
+import type { ImageUploads } from '../uploads/image-uploads';
+
+/** What every feature is built from: the side-effecting deps plus the services all features share. */
+export interface Platform {
+  deps: AppDeps;
+  auth: AuthService;
+  settings: SettingsService;
+  images: ImageUploads;
+}
+
+/**
+ * Mounts a flat router (routes only, no nested routers) at a path. Every mount is recorded so the access test
+ * can list every route the app serves.
+ */
+export type Mount = (path: string, router: Router) => void;
+
+/** A feature plugs its routers in under /api and may bring scheduled jobs; `site` routes sit outside /api (feeds). */
+export interface Feature {
+  name: string;
+  mount(api: Mount): void;
+  mountSite?(site: Mount): void;
+  jobs?: ScheduledJob[];
+}

@@ -1,0 +1,22 @@
+import type { RouteAccess } from './access-types';
+
+/** Routes of the foundation: health, auth, account, accounts admin, uploads. */
+export const foundationAccess: RouteAccess[] = [
+  { method: 'GET', path: '/api/health', allow: 'public' },
+  { method: 'GET', path: '/api/auth/csrf', allow: 'public' },
+  { method: 'POST', path: '/api/auth/register', allow: 'public' },
+  { method: 'POST', path: '/api/auth/login', allow: 'public' },
+  { method: 'POST', path: '/api/auth/logout', allow: 'public' },
+  { method: 'GET', path: '/api/auth/me', allow: 'signedIn' },
+  { method: 'POST', path: '/api/auth/verify', allow: 'public' },
+  { method: 'POST', path: '/api/auth/verify/resend', allow: 'signedIn' },
+  { method: 'POST', path: '/api/auth/password-reset', allow: 'public' },
+  { method: 'POST', path: '/api/auth/password-reset/confirm', allow: 'public' },
+  { method: 'GET', path: '/api/account/profile', allow: 'signedIn' },
+  { method: 'PATCH', path: '/api/account/profile', allow: 'signedIn' },
+  { method: 'POST', path: '/api/account/password', allow: 'signedIn' },
+  { method: 'GET', path: '/api/admin/users', allow: ['admin'] },
+  { method: 'PATCH', path: '/api/admin/users/:id', allow: ['admin'] },
+  { method: 'POST', path: '/api/admin/uploads', allow: ['editor', 'treasurer', 'admin'] },
+  { method: 'GET', path: '/uploads/:key', allow: 'public' },
+];
