@@ -8,7 +8,6 @@ import { userAdminRoutes } from './admin/user-admin-routes';
 import { authRoutes } from './auth/auth-routes';
 import { AuthService } from './auth/auth-service';
 import { configurePassport } from './auth/passport-setup';
-import { projectRoot } from './config';
 import type { AppDeps } from './deps';
 import { buildFeatures } from './features';
 import { healthRoutes } from './health/health-routes';
@@ -25,8 +24,6 @@ import { uploadAdminRoutes, uploadServeRoutes } from './uploads/upload-routes';
 
 /** Paths under /api that verify their own signature instead of a CSRF token. */
 export const CSRF_EXEMPT = ['/payments/webhook'];
-
-export const browserDist = path.join(projectRoot, 'dist', 'padside', 'browser');
 
 /** A recorded mount: `prefix` is the full path prefix ('/api/auth'). */
 export interface MountRecord {
@@ -82,6 +79,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   siteMount('/uploads', uploadServeRoutes(platform.images));
   for (const feature of features) feature.mountSite?.(siteMount);
 
+  const browserDist = deps.config.browserDist;
   if (existsSync(browserDist)) {
     app.use(express.static(browserDist, { index: false, maxAge: '1h', setHeaders: (res, file) => /-[A-Z0-9]{8}\.(js|css)$/.test(file) && res.setHeader('Cache-Control', 'public, max-age=31536000, immutable') }));
     app.get(/^\/(?!api\/|uploads\/).*/, function spaFallback(_req, res) {

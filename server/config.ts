@@ -38,6 +38,7 @@ const EnvSchema = z.object({
   DATA_DIR: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   WORKERS: z.coerce.number().int().min(1).max(64).default(1),
+  BROWSER_DIST: z.string().optional(),
 });
 
 export interface Config {
@@ -55,6 +56,8 @@ export interface Config {
   dataDir: string;
   logLevel: string;
   workers: number;
+  /** The built Angular app that the server serves. */
+  browserDist: string;
 }
 
 /** Thrown when the environment is unusable; `main` prints the message as one line and exits 1. */
@@ -96,6 +99,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     dataDir,
     logLevel: e.LOG_LEVEL,
     workers: e.WORKERS,
+    browserDist: e.BROWSER_DIST ? path.resolve(e.BROWSER_DIST) : path.join(projectRoot, 'dist', 'padside', 'browser'),
   };
 }
 

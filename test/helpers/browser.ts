@@ -1,0 +1,50 @@
+import { mkdirSync } from 'node:fs';
+import type { AddressInfo } from 'node:net';
+import path from 'node:path';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import type { TestApp } from './test-app';
+
+export const ARTIFACTS = path.resolve(__dirname, '..', 'artifacts');
+
+/** Debian's Chromium, headless, with the flags this machine needs (no sandbox as root, no background traffic). */
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    headless: true,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
+  });
+}
+
+/** Serves the test app on a free loopback port; the URL is also its PUBLIC_URL for links in e-mails. */
+export async function serve(t: TestApp): Promise<{ baseUrl: string; stop(): Promise<void> }> {
+  const server = t.app.listen(0, '127.0.0.1');
+  await new Promise<void>((resolve) => server.once('listening', () => resolve()));
+  const { port } = server.address() as AddressInfo;
+  return {
+    baseUrl: `http://127.0.0.1:${port}`,
+    stop: () => new Promise<void>((resolve) => server.close(() => resolve())),
+  };
+}
+
+/** Every request URL the page makes, to check that nothing leaves 127.0.0.1. */
+export function recordRequests(page: Page): string[] {
+  const urls: string[] = [];
+  page.on('request', (req) => urls.push(req.url()));
+  return urls;
+}
+
+export async function screenshot(page: Page, name: string): Promise<string> {
+  mkdirSync(ARTIFACTS, { recursive: true });
+  const file = path.join(ARTIFACTS, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}
+
+/** Signs in through the real form. */
+export async function signInThroughForm(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
+  await page.goto(`${baseUrl}/account/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/account/sign-in'));
+}
