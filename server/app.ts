@@ -13,6 +13,7 @@ import { buildFeatures } from './features';
 import { healthRoutes } from './health/health-routes';
 import type { ScheduledJob } from './jobs/job-runner';
 import { csrfProtection } from './platform/csrf';
+import { rotateSessionOnRoleChange } from './platform/session-rotation';
 import { apiNotFound, errorHandler } from './platform/error-handler';
 import type { Mount, Platform } from './platform/feature';
 import { securityHeaders } from './platform/security-headers';
@@ -50,7 +51,15 @@ export function createApp(deps: AppDeps): PadsideApp {
   app.disable('x-powered-by');
   app.set('trust proxy', deps.config.env === 'production' ? 1 : 'loopback');
   app.use(securityHeaders);
-  app.use(pinoHttp({ logger: deps.log, genReqId: (req) => (req.headers['x-request-id'] as string) || randomUUID(), autoLogging: deps.config.env !== 'test' }));
+  app.use(
+    pinoHttp({
+      logger: deps.log,
+      genReqId: (req) => (req.headers['x-request-id'] as string) || randomUUID(),
+      autoLogging: deps.config.env !== 'test',
+      // One short line per request; headers (cookies, CSRF tokens) stay out of the log.
+      serializers: { req: (req) => ({ id: req.id, method: req.method, url: req.url }), res: (res) => ({ status: res.statusCode }) },
+    }),
+  );
 
   const mounts: MountRecord[] = [];
   const api = express.Router();
@@ -64,6 +73,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   api.use(sessions.middleware);
   api.use(passport.initialize());
   api.use(passport.session());
+  api.use(rotateSessionOnRoleChange);
   api.use(csrfProtection(CSRF_EXEMPT));
   apiMount('/auth', authRoutes(auth));
   apiMount('/account', accountRoutes(auth));

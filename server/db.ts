@@ -1,5 +1,6 @@
 import path from 'node:path';
 import knex, { Knex } from 'knex';
+import type { Logger } from 'pino';
 import { projectRoot } from './config';
 
 /** Where migrations and seeds live, source or compiled. */
@@ -17,9 +18,10 @@ export const seedConfig: Knex.SeederConfig = {
   loadExtensions: compiled ? ['.js'] : ['.ts'],
 };
 
-/** Opens a connection pool; nothing connects until the first query. */
-export function createDb(databaseUrl: string, poolMax = 10): Knex {
+/** Opens a connection pool; nothing connects until the first query. Knex's own warnings go to our logger. */
+export function createDb(databaseUrl: string, poolMax = 10, log?: Logger): Knex {
   return knex({
+    ...(log ? { log: { warn: (m: unknown) => log.warn({ knex: m }), error: (m: unknown) => log.error({ knex: m }), deprecate: (m: unknown) => log.warn({ knex: m }), debug: () => undefined } } : {}),
     client: 'pg',
     connection: databaseUrl,
     pool: { min: 0, max: poolMax },

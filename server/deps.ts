@@ -19,7 +19,7 @@ export interface AppDeps {
 
 export function createDeps(config: Config, overrides: Partial<AppDeps> = {}): AppDeps {
   const log = overrides.log ?? pino({ level: config.logLevel });
-  const db = overrides.db ?? createDb(config.databaseUrl);
+  const db = overrides.db ?? createDb(config.databaseUrl, 10, log);
   return {
     config,
     db,

@@ -18,14 +18,9 @@ const ResetRequestBody = z.object({ email: fields.email });
 const TokenBody = z.object({ token: z.string({ error: 'The link is incomplete.' }).min(10, 'The link is incomplete.').max(200) });
 const ResetConfirmBody = TokenBody.extend({ password });
 
-/** Starts a fresh session for the user (ASVS 4.0.3 3.2.1: a new session id on sign-in). */
+/** Starts a fresh session for the user; passport's login regenerates the id (ASVS 4.0.3 3.2.1). */
 function signIn(req: Request, user: SessionUser): Promise<void> {
-  return new Promise((resolve, reject) =>
-    req.session.regenerate((err) => {
-      if (err) return reject(err);
-      req.login(user, (loginErr) => (loginErr ? reject(loginErr) : resolve()));
-    }),
-  );
+  return new Promise((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
 }
 
 /** Registration, sign-in and sign-out, verification and password reset under /api/auth. */

@@ -1,11 +1,44 @@
-import { Marked } from 'marked';
+import { Marked, type Token, type TokenizerAndRendererExtension, type Tokens } from 'marked';
 import sanitizeHtml from 'sanitize-html';
 
 /**
- * The one Markdown pipeline (editor preview, public pages, product descriptions): marked with GFM, then
+ * The one Markdown pipeline (editor preview, public pages, feeds, product descriptions): marked with GFM, then
  * sanitize-html with an allow-list. Raw HTML in the source is sanitized like everything else.
+ *
+ * Padside's own credit marker is a line of its own: `%thanks <sponsor-slug>` or `%thanks <sponsor-slug> | a note`.
+ * It renders an acknowledgement card and tells the ledger which sponsors a post credits.
  */
-const marked = new Marked({ gfm: true, breaks: false, async: false });
+const CREDIT_LINE = /^%thanks +([a-z0-9][a-z0-9-]{0,79})(?: *\| *([^\n]*))?(?:\n+|$)/;
+
+interface CreditToken extends Tokens.Generic {
+  type: 'psCredit';
+  slug: string;
+  note: string;
+  sponsorName?: string;
+}
+
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+
+const creditMarker: TokenizerAndRendererExtension = {
+  name: 'psCredit',
+  level: 'block',
+  start: (src) => /^%thanks /m.exec(src)?.index,
+  tokenizer(src) {
+    const m = CREDIT_LINE.exec(src);
+    if (!m) return undefined;
+    return { type: 'psCredit', raw: m[0], slug: m[1], note: (m[2] ?? '').trim() } satisfies CreditToken;
+  },
+  renderer(token) {
+    const t = token as CreditToken;
+    const name = t.sponsorName ?? t.slug;
+    return (
+      `<aside class="ps-credit" data-sponsor="${escapeHtml(t.slug)}"><span class="ps-credit-label">With thanks to</span>` +
+      `<div class="ps-credit-body"><strong>${escapeHtml(name)}</strong>${t.note ? ` — ${escapeHtml(t.note)}` : ''}</div></aside>\n`
+    );
+  },
+};
+
+const marked = new Marked({ gfm: true, breaks: false, async: false, extensions: [creditMarker] });
 
 const ALLOWED_TAGS = [
   'h1', 'h2', 'h3', 'h4', 'h5', 'h6', 'p', 'br', 'hr', 'blockquote', 'pre', 'code', 'em', 'strong', 'del', 's', 'sup', 'sub',
@@ -44,10 +77,27 @@ const SANITIZE: sanitizeHtml.IOptions = {
   exclusiveFilter: (frame) => frame.tag === 'img' && !frame.attribs.src,
 };
 
+/** Options of one rendering: the display names of sponsors that credit markers may name, by slug. */
+export interface RenderOptions {
+  sponsorNames?: ReadonlyMap<string, string>;
+}
+
 /** Markdown to HTML that is safe to put on a page. */
-export function renderMarkdown(markdown: string): string {
-  const html = marked.parse(markdown) as string;
-  return sanitizeHtml(html, SANITIZE);
+export function renderMarkdown(markdown: string, options: RenderOptions = {}): string {
+  const tokens = marked.lexer(markdown);
+  marked.walkTokens(tokens, (token: Token) => {
+    if (token.type === 'psCredit') (token as CreditToken).sponsorName = options.sponsorNames?.get((token as CreditToken).slug);
+  });
+  return sanitizeHtml(marked.parser(tokens), SANITIZE);
+}
+
+/** The sponsor slugs that credit markers name, in order of appearance, once each (markers inside code do not count). */
+export function creditMarkerSlugs(markdown: string): string[] {
+  const slugs: string[] = [];
+  marked.walkTokens(marked.lexer(markdown), (token: Token) => {
+    if (token.type === 'psCredit' && !slugs.includes((token as CreditToken).slug)) slugs.push((token as CreditToken).slug);
+  });
+  return slugs;
 }
 
 /** Sanitizes HTML produced elsewhere (for example, an extension's card markup) with the same allow-list. */

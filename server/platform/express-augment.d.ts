@@ -10,5 +10,7 @@ declare global {
 declare module 'express-session' {
   interface SessionData {
     csrfToken?: string;
+    /** The roles the session was issued for, to spot a role change. */
+    roleStamp?: string;
   }
 }

@@ -1,3 +1,4 @@
+import request from 'supertest';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { createUser, signedIn } from '../helpers/users';
 
@@ -42,5 +43,27 @@ describe('PATCH /api/admin/users/:id', () => {
     const { client, user } = await signedIn(t.app, t.deps.db, ['admin']);
     const res = await client.patch(`/api/admin/users/${user.id}`, { roles: ['fan'] });
     expect(res.status).toBe(400);
+  });
+});
+
+describe('when an admin changes a signed-in user’s roles', () => {
+  it('gives that user a new session id on their next request, and the old id stops working (ASVS 4.0.3 3.2.1)', async () => {
+    const { client: admin } = await signedIn(t.app, t.deps.db, ['admin']);
+    const { client, user } = await signedIn(t.app, t.deps.db, ['fan']);
+    const first = await client.get('/api/auth/me');
+    expect(first.status).toBe(200);
+    const cookieOf = (res: { headers: Record<string, unknown> }) => ((res.headers['set-cookie'] as string[] | undefined) ?? [])[0]?.split(';')[0];
+    const before = client.agent.jar.getCookie('padside.sid', { domain: '127.0.0.1', path: '/', secure: false, script: false })?.value;
+    expect(before).toBeDefined();
+    await admin.patch(`/api/admin/users/${user.id}`, { roles: ['fan', 'editor'] });
+    const next = await client.get('/api/auth/me');
+    expect(next.body.user.roles).toEqual(['fan', 'editor']);
+    const after = cookieOf(next);
+    expect(after).toBeDefined();
+    expect(after).not.toContain(before);
+    const replay = await request(t.app).get('/api/auth/me').set('Cookie', `padside.sid=${before}`);
+    expect(replay.status).toBe(401);
+    // The open form's CSRF token still works after the rotation.
+    expect((await client.patch('/api/account/profile', { displayName: 'Still Here' })).status).toBe(200);
   });
 });

@@ -1,0 +1,17 @@
+/** Words that mean a post is about flying: motors, flights, launches, ejection charges, igniters. */
+const FLYING_WORDS = /\b(motors?|flights?|flew|fly|flying|launch(?:es|ed|ing)?|ejection|igniters?|recovery charges?)\b/i;
+
+/**
+ * Whether a post must carry the hazard notice: tagged `rocketry`, or mentioning motors, flights or launches in
+ * its title, summary or body. An editor may add the notice to any other post but can never remove it from these.
+ */
+export function needsHazardNotice(post: { title: string; summary: string; markdown: string; tags: readonly string[] }): boolean {
+  if (post.tags.some((t) => t.toLowerCase() === 'rocketry')) return true;
+  return FLYING_WORDS.test(post.title) || FLYING_WORDS.test(post.summary) || FLYING_WORDS.test(post.markdown);
+}
+
+/** The notice, in Padside's words; the page, the feeds and the e-mails all use this one text. */
+export const HAZARD_NOTICE =
+  'Rocket motors and ejection charges burn and can injure. Fly only under your national rocketry association’s safety code and the local aviation and fire rules, ' +
+  'at a sanctioned launch where the range safety officer has the final word. High-power motors need the matching certification. ' +
+  'What we describe here is our own experience, not instructions.';

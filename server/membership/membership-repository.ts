@@ -1,0 +1,282 @@
+import type { Knex } from 'knex';
+import type { MembershipStatus } from './terms';
+
+type Db = Knex | Knex.Transaction;
+
+/** PostgreSQL `date` values arrive as local-midnight Date objects; read them back as `YYYY-MM-DD`. */
+export function dateOnly(value: Date | string | null | undefined): string | null {
+  if (value === null || value === undefined) return null;
+  if (typeof value === 'string') return value.slice(0, 10);
+  const p = (n: number) => String(n).padStart(2, '0');
+  return `${value.getFullYear()}-${p(value.getMonth() + 1)}-${p(value.getDate())}`;
+}
+
+/** A `date` column: read as a Date, written as a `YYYY-MM-DD` string. */
+export type DateCol = Date | string;
+
+export interface PlanRow {
+  id: string;
+  code: string;
+  name: string;
+  description: string;
+  eligibility: 'any' | 'junior' | 'family';
+  dues_cents: number;
+  joining_fee_cents: number;
+  active: boolean;
+  sort_order: number;
+}
+
+export interface MembershipRow {
+  id: string;
+  user_id: string;
+  member_number: string;
+  plan_id: string;
+  status: MembershipStatus;
+  term_start: DateCol | null;
+  term_end: DateCol | null;
+  legal_name: string;
+  date_of_birth: DateCol;
+  address: string;
+  phone: string;
+  emergency_contact: string;
+  association_number: string | null;
+  association_expires: DateCol | null;
+  certification_level: string;
+  certification_date: DateCol | null;
+  waiver_version: string;
+  waiver_accepted_at: Date;
+  safety_code_version: string;
+  safety_code_accepted_at: Date;
+  auto_renew: boolean;
+  processor_customer_id: string | null;
+  renewal_attempts: number;
+  next_renewal_attempt_on: DateCol | null;
+  renewal_failed_at: Date | null;
+  created_at: Date;
+  updated_at: Date;
+}
+
+export interface PaymentRow {
+  id: string;
+  membership_id: string;
+  plan_id: string;
+  entry: 'payment' | 'refund';
+  status: 'attempted' | 'paid' | 'declined' | 'unknown' | 'refunded';
+  method: 'card' | 'cash' | 'e-transfer' | 'cheque';
+  amount_cents: number;
+  receipt_number: string | null;
+  processor_charge_id: string | null;
+  idempotency_key: string;
+  term_start: DateCol | null;
+  term_end: DateCol | null;
+  previous_term_end: DateCol | null;
+  refund_of: string | null;
+  note: string | null;
+  failure_message: string | null;
+  recorded_by: string | null;
+  created_at: Date;
+}
+
+export interface AuditRow {
+  id: string;
+  membership_id: string;
+  actor_user_id: string | null;
+  actor_name: string | null;
+  action: string;
+  detail: Record<string, unknown>;
+  created_at: Date;
+}
+
+/** A roster line: the membership with its account e-mail, opt-out and plan. */
+export type RosterRow = MembershipRow & { email: string; marketing_opt_out: boolean; plan_code: string; plan_name: string };
+
+/** Roster filters as the staff table sends them. */
+export interface RosterQuery {
+  status?: MembershipStatus;
+  planId?: number;
+  certificationLevel?: string;
+  associationExpiresBefore?: string;
+  q?: string;
+  sort: 'memberNumber' | 'name' | 'termEnd' | 'status' | 'plan' | 'associationExpires';
+  dir: 'asc' | 'desc';
+}
+
+const SORT_COLUMNS: Record<RosterQuery['sort'], string> = {
+  memberNumber: 'm.member_number',
+  name: 'm.legal_name',
+  termEnd: 'm.term_end',
+  status: 'm.status',
+  plan: 'p.name',
+  associationExpires: 'm.association_expires',
+};
+
+/** Plain reads and writes of the membership tables. */
+export class MembershipRepository {
+  constructor(private readonly db: Knex) {}
+
+  plans(includeInactive: boolean, db: Db = this.db): Promise<PlanRow[]> {
+    return db<PlanRow>('membership_plans')
+      .modify((qb) => (includeInactive ? qb : qb.where('active', true)))
+      .orderBy([{ column: 'sort_order' }, { column: 'id' }]);
+  }
+
+  plan(id: number, db: Db = this.db): Promise<PlanRow | undefined> {
+    return db<PlanRow>('membership_plans').where('id', id).first();
+  }
+
+  async insertPlan(row: Omit<PlanRow, 'id'>, db: Db = this.db): Promise<PlanRow> {
+    const [created] = await db<PlanRow>('membership_plans').insert(row).returning('*');
+    return created;
+  }
+
+  async updatePlan(id: number, patch: Partial<Omit<PlanRow, 'id'>>, db: Db = this.db): Promise<PlanRow | undefined> {
+    const [row] = await db<PlanRow>('membership_plans').where('id', id).update({ ...patch, updated_at: db.fn.now() } as Partial<PlanRow>).returning('*');
+    return row;
+  }
+
+  byUser(userId: number, db: Db = this.db, lock = false): Promise<MembershipRow | undefined> {
+    return db<MembershipRow>('memberships').where('user_id', userId).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
+  }
+
+  byId(id: number, db: Db = this.db, lock = false): Promise<MembershipRow | undefined> {
+    return db<MembershipRow>('memberships').where('id', id).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
+  }
+
+  byNumber(memberNumber: string, db: Db = this.db): Promise<MembershipRow | undefined> {
+    return db<MembershipRow>('memberships').where('member_number', memberNumber).first();
+  }
+
+  /** Inserts a membership with the next member number from the sequence (never reused, even after a rollback). */
+  async insert(trx: Knex.Transaction, row: Omit<MembershipRow, 'id' | 'member_number' | 'created_at' | 'updated_at' | 'renewal_attempts' | 'next_renewal_attempt_on' | 'renewal_failed_at'>): Promise<MembershipRow> {
+    const [created] = await trx<MembershipRow>('memberships')
+      .insert({ ...row, member_number: trx.raw("lpad(nextval('membership_number_seq')::text, 5, '0')") as unknown as string })
+      .returning('*');
+    return created;
+  }
+
+  async update(trx: Db, id: number, patch: Partial<Omit<MembershipRow, 'id' | 'member_number' | 'user_id'>>): Promise<MembershipRow> {
+    const [row] = await trx<MembershipRow>('memberships').where('id', id).update({ ...patch, updated_at: trx.fn.now() as unknown as Date }).returning('*');
+    return row;
+  }
+
+  /** Changes the status only if it still is `from`; true for the one caller whose update won. */
+  async moveStatus(trx: Knex.Transaction, id: number, from: MembershipStatus, to: MembershipStatus): Promise<boolean> {
+    const n = await trx('memberships').where({ id, status: from }).update({ status: to, updated_at: trx.fn.now() });
+    return n === 1;
+  }
+
+  /** Claims the next auto-renew attempt: true only for the one caller that saw `attempts` still current. */
+  async claimRenewalAttempt(trx: Knex.Transaction, id: number, attempts: number): Promise<boolean> {
+    const n = await trx('memberships').where({ id, renewal_attempts: attempts }).update({ renewal_attempts: attempts + 1, updated_at: trx.fn.now() });
+    return n === 1;
+  }
+
+  family(membershipId: number, db: Db = this.db): Promise<{ id: string; name: string; date_of_birth: DateCol }[]> {
+    return db('membership_family_members').where('membership_id', membershipId).orderBy('id');
+  }
+
+  async replaceFamily(trx: Knex.Transaction, membershipId: number, people: { name: string; dateOfBirth: string }[]): Promise<void> {
+    await trx('membership_family_members').where('membership_id', membershipId).delete();
+    if (people.length) await trx('membership_family_members').insert(people.map((p) => ({ membership_id: membershipId, name: p.name, date_of_birth: p.dateOfBirth })));
+  }
+
+  async insertPayment(db: Db, row: Partial<PaymentRow> & Pick<PaymentRow, 'membership_id' | 'plan_id' | 'status' | 'method' | 'amount_cents' | 'idempotency_key'>): Promise<PaymentRow> {
+    const [created] = await db<PaymentRow>('membership_payments').insert(row).returning('*');
+    return created;
+  }
+
+  async updatePayment(db: Db, id: number, patch: Partial<PaymentRow>): Promise<PaymentRow> {
+    const [row] = await db<PaymentRow>('membership_payments').where('id', id).update(patch).returning('*');
+    return row;
+  }
+
+  payment(id: number, db: Db = this.db, lock = false): Promise<PaymentRow | undefined> {
+    return db<PaymentRow>('membership_payments').where('id', id).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
+  }
+
+  paymentByKey(key: string, db: Db = this.db): Promise<PaymentRow | undefined> {
+    return db<PaymentRow>('membership_payments').where('idempotency_key', key).first();
+  }
+
+  payments(membershipId: number, db: Db = this.db): Promise<PaymentRow[]> {
+    return db<PaymentRow>('membership_payments').where('membership_id', membershipId).orderBy([{ column: 'created_at', order: 'desc' }, { column: 'id', order: 'desc' }]);
+  }
+
+  /** Money already refunded against a payment (a positive number). */
+  async refundedCents(paymentId: number, db: Db = this.db): Promise<number> {
+    const [{ sum }] = await db('membership_payments').where({ refund_of: paymentId, entry: 'refund' }).sum<{ sum: string | null }[]>({ sum: 'amount_cents' });
+    return -Number(sum ?? 0);
+  }
+
+  async addAudit(db: Db, membershipId: number, actorUserId: number | null, action: string, detail: Record<string, unknown> = {}): Promise<void> {
+    await db('membership_audit').insert({ membership_id: membershipId, actor_user_id: actorUserId, action, detail: JSON.stringify(detail) });
+  }
+
+  audit(membershipId: number, db: Db = this.db): Promise<AuditRow[]> {
+    return db('membership_audit as a')
+      .leftJoin('users as u', 'u.id', 'a.actor_user_id')
+      .where('a.membership_id', membershipId)
+      .select('a.*', 'u.display_name as actor_name')
+      .orderBy([{ column: 'a.created_at', order: 'desc' }, { column: 'a.id', order: 'desc' }]);
+  }
+
+  private roster(q: Omit<RosterQuery, 'sort' | 'dir'>) {
+    return this.db('memberships as m')
+      .join('users as u', 'u.id', 'm.user_id')
+      .join('membership_plans as p', 'p.id', 'm.plan_id')
+      .modify((qb) => {
+        if (q.status) qb.where('m.status', q.status);
+        if (q.planId) qb.where('m.plan_id', q.planId);
+        if (q.certificationLevel) qb.where('m.certification_level', q.certificationLevel);
+        if (q.associationExpiresBefore) qb.where((w) => w.where('m.association_expires', '<', q.associationExpiresBefore!).orWhereNull('m.association_expires'));
+        if (q.q) {
+          const like = `%${q.q.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
+          qb.where((w) => w.whereILike('m.legal_name', like).orWhereILike('u.email', like).orWhereILike('m.member_number', like).orWhereILike('m.association_number', like));
+        }
+      });
+  }
+
+  /** One page of the roster, sorted by a whitelisted column with the member number as tie-break. */
+  async rosterPage(q: RosterQuery, page: number, pageSize: number): Promise<{ items: RosterRow[]; total: number }> {
+    const [{ count }] = await this.roster(q).count<{ count: string }[]>({ count: '*' });
+    const items = await this.rosterSorted(q).limit(pageSize).offset((page - 1) * pageSize);
+    return { items, total: Number(count) };
+  }
+
+  /** Every roster line matching the filters, in the table's order (for the export and roster e-mail). */
+  rosterAll(q: RosterQuery): Promise<RosterRow[]> {
+    return this.rosterSorted(q);
+  }
+
+  private rosterSorted(q: RosterQuery) {
+    return this.roster(q)
+      .select('m.*', 'u.email', 'u.marketing_opt_out', 'p.code as plan_code', 'p.name as plan_name')
+      .orderByRaw(`${SORT_COLUMNS[q.sort]} ${q.dir === 'desc' ? 'DESC' : 'ASC'} NULLS LAST, m.member_number ASC`);
+  }
+
+  /** Memberships that have paid at least once, with what the reminder and renewal jobs need. */
+  standing(db: Db = this.db): Promise<RosterRow[]> {
+    return db('memberships as m')
+      .join('users as u', 'u.id', 'm.user_id')
+      .join('membership_plans as p', 'p.id', 'm.plan_id')
+      .whereNot('m.status', 'pending')
+      .select('m.*', 'u.email', 'u.marketing_opt_out', 'p.code as plan_code', 'p.name as plan_name')
+      .orderBy('m.id');
+  }
+
+  /** Net dues per calendar month (club time zone) and plan, over paid payments and refunds. */
+  collectedByMonth(timeZone: string, db: Db = this.db): Promise<{ month: string; plan_code: string; plan_name: string; cents: string; payments: string }[]> {
+    return db('membership_payments as pay')
+      .join('membership_plans as p', 'p.id', 'pay.plan_id')
+      .whereIn('pay.status', ['paid', 'refunded'])
+      .select(db.raw("to_char(pay.created_at AT TIME ZONE ?, 'YYYY-MM') as month", [timeZone]), 'p.code as plan_code', 'p.name as plan_name')
+      .sum({ cents: 'pay.amount_cents' })
+      .select(db.raw("count(*) FILTER (WHERE pay.entry = 'payment') as payments"))
+      .groupByRaw('1, p.code, p.name')
+      .orderByRaw('1 DESC, p.code');
+  }
+
+  countsByStatus(db: Db = this.db): Promise<{ status: MembershipStatus; count: string }[]> {
+    return db('memberships').select('status').count({ count: '*' }).groupBy('status').orderBy('status');
+  }
+}

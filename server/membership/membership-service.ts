@@ -1,0 +1,289 @@
+import type { Knex } from 'knex';
+import QRCode from 'qrcode';
+import type { UserRepository } from '../auth/user-repository';
+import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
+import { dateInZone, type Clock } from '../platform/clock';
+import type { SessionUser } from '../platform/roles';
+import type { SettingsService } from '../settings/settings-service';
+import type { CardDues, CardSource } from './card-dues';
+import type { CheckInTokens } from './check-in-token';
+import { termPolicy, type DuesSettlement } from './dues-settlement';
+import type { MembershipRepository, MembershipRow, PlanRow } from './membership-repository';
+import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
+import { membershipView, planView } from './membership-views';
+import { duesFor, isJuniorOn, termForPayment, type Term } from './terms';
+
+/** The member profile as the join form sends it. */
+export interface ProfileInput {
+  legalName: string;
+  dateOfBirth: string;
+  address: string;
+  phone: string;
+  emergencyContact: string;
+  associationNumber?: string | null;
+  associationExpires?: string | null;
+  certificationLevel?: string;
+  certificationDate?: string | null;
+  familyMembers?: { name: string; dateOfBirth: string }[];
+}
+
+export interface JoinInput {
+  planId: number;
+  profile: ProfileInput;
+  waiverVersion: string;
+  safetyCodeVersion?: string;
+  paymentToken: string;
+  autoRenew?: boolean;
+}
+
+export interface RenewInput {
+  paymentToken?: string;
+  planId?: number;
+  waiverVersion?: string;
+  safetyCodeVersion?: string;
+  profile?: Partial<Pick<ProfileInput, 'associationNumber' | 'associationExpires' | 'certificationLevel' | 'certificationDate' | 'address' | 'phone' | 'emergencyContact'>>;
+}
+
+const declined = (message: string) => new AppError(402, 'payment_declined', message, { paymentToken: message });
+const unknownOutcome = () =>
+  new AppError(502, 'payment_unconfirmed', 'The card processor did not confirm the payment. It is recorded; the treasurer will check it before you are charged again.');
+
+/** Joining, renewing and the member's own card: the rules, with no HTTP. */
+export class MembershipService {
+  constructor(
+    private readonly db: Knex,
+    private readonly repo: MembershipRepository,
+    private readonly users: UserRepository,
+    private readonly settings: SettingsService,
+    private readonly settlement: DuesSettlement,
+    private readonly card: CardDues,
+    private readonly tokens: CheckInTokens,
+    private readonly clock: Clock,
+    private readonly timeZone: string,
+  ) {}
+
+  /** Today in the club's time zone. */
+  today(): string {
+    return dateInZone(this.clock.now(), this.timeZone);
+  }
+
+  async plans() {
+    return { items: (await this.repo.plans(false)).map(planView) };
+  }
+
+  /** What the join form shows: the waiver, versions, certification levels and the term rule. */
+  async policy() {
+    const s = await this.settings.get(MEMBERSHIP_SETTINGS);
+    return {
+      termRule: s.termRule,
+      lateSeasonFrom: s.lateSeasonFrom,
+      graceDays: s.graceDays,
+      prorate: s.prorate,
+      waiverVersion: s.waiverVersion,
+      waiverText: s.waiverText,
+      safetyCodeVersion: s.safetyCodeVersion,
+      associationName: s.associationName,
+      certificationLevels: s.certificationLevels,
+    };
+  }
+
+  /** Price and term of paying for a plan on `on` (default today), as a renewal if the caller already has a term. */
+  async quote(userId: number | null, planId: number, on?: string) {
+    const s = await this.settings.get(MEMBERSHIP_SETTINGS);
+    const plan = await this.activePlan(planId);
+    const m = userId ? await this.repo.byUser(userId) : undefined;
+    const priced = this.price(plan, m, on ?? this.today(), s);
+    return { amountCents: priced.amountCents, duesCents: priced.duesCents, joiningFeeCents: priced.joiningFeeCents, termStart: priced.term.start, termEnd: priced.term.end, renewal: priced.term.renewal };
+  }
+
+  async join(user: SessionUser, input: JoinInput) {
+    const s = await this.settings.get(MEMBERSHIP_SETTINGS);
+    const policy = termPolicy(s);
+    const plan = await this.activePlan(input.planId);
+    const existing = await this.repo.byUser(user.id);
+    if (existing && existing.status !== 'pending') throw conflict('already_member', 'You already have a membership; renew it instead.');
+    this.checkAcceptance(s, input.waiverVersion, input.safetyCodeVersion);
+    const today = this.today();
+    const priced = this.price(plan, undefined, today, s);
+    this.checkProfile(input.profile, plan, priced.term, s);
+    const at = this.clock.now();
+    const row = {
+      plan_id: plan.id,
+      legal_name: input.profile.legalName,
+      date_of_birth: input.profile.dateOfBirth,
+      address: input.profile.address,
+      phone: input.profile.phone,
+      emergency_contact: input.profile.emergencyContact,
+      association_number: input.profile.associationNumber ?? null,
+      association_expires: input.profile.associationExpires ?? null,
+      certification_level: input.profile.certificationLevel ?? 'none',
+      certification_date: input.profile.certificationDate ?? null,
+      waiver_version: s.waiverVersion,
+      waiver_accepted_at: at,
+      safety_code_version: s.safetyCodeVersion,
+      safety_code_accepted_at: at,
+      auto_renew: input.autoRenew ?? false,
+    };
+    let m = await this.db.transaction(async (trx) => {
+      const created = existing
+        ? await this.repo.update(trx, Number(existing.id), row)
+        : await this.repo.insert(trx, { ...row, user_id: String(user.id), status: 'pending', term_start: null, term_end: null, processor_customer_id: null });
+      await this.repo.replaceFamily(trx, Number(created.id), plan.eligibility === 'family' ? (input.profile.familyMembers ?? []) : []);
+      await this.repo.addAudit(trx, Number(created.id), user.id, existing ? 'profile_resubmitted' : 'joined', { plan: plan.code, waiverVersion: s.waiverVersion, safetyCodeVersion: s.safetyCodeVersion });
+      return created;
+    });
+    const source = input.autoRenew ? await this.saveCard(m, user, input.paymentToken) : { token: input.paymentToken };
+    if ('customerId' in source) m = (await this.repo.byId(Number(m.id)))!;
+    const result = await this.card.pay(m, plan, priced.term, priced.amountCents, source, { today, policy, actorUserId: user.id, at });
+    if (result.outcome === 'declined') throw declined(result.message);
+    if (result.outcome === 'unknown') throw unknownOutcome();
+    return { membership: membershipView(result.membership, plan, today, policy, s) };
+  }
+
+  async renew(user: SessionUser, input: RenewInput) {
+    const s = await this.settings.get(MEMBERSHIP_SETTINGS);
+    const policy = termPolicy(s);
+    const m = await this.repo.byUser(user.id);
+    if (!m) throw notFound('You have no membership yet; join first.');
+    if (m.status === 'pending') throw conflict('membership_pending', 'Your first payment has not gone through yet; finish joining first.');
+    const plan = await this.activePlan(input.planId ?? Number(m.plan_id));
+    if (m.waiver_version !== s.waiverVersion || m.safety_code_version !== s.safetyCodeVersion) this.checkAcceptance(s, input.waiverVersion, input.safetyCodeVersion);
+    const today = this.today();
+    const priced = this.price(plan, m, today, s);
+    if (plan.eligibility === 'junior' && !isJuniorOn(m.legal_name ? String(this.dob(m)) : '', priced.term.start)) {
+      throw badRequest('The junior plan is for members under 18 on the first day of the term; choose another plan.', { planId: 'You are 18 or over on the first day of the new term.' });
+    }
+    if (!input.paymentToken && !m.processor_customer_id) throw badRequest('Choose a card to pay with.', { paymentToken: 'Choose a card to pay with.' });
+    const at = this.clock.now();
+    const updated = await this.db.transaction(async (trx) => {
+      const patch: Partial<MembershipRow> = { plan_id: plan.id };
+      if (m.waiver_version !== s.waiverVersion || m.safety_code_version !== s.safetyCodeVersion) {
+        Object.assign(patch, { waiver_version: s.waiverVersion, waiver_accepted_at: at, safety_code_version: s.safetyCodeVersion, safety_code_accepted_at: at });
+      }
+      const p = input.profile ?? {};
+      if (p.associationNumber !== undefined) patch.association_number = p.associationNumber;
+      if (p.associationExpires !== undefined) patch.association_expires = p.associationExpires;
+      if (p.certificationLevel !== undefined) patch.certification_level = this.checkLevel(s, p.certificationLevel);
+      if (p.certificationDate !== undefined) patch.certification_date = p.certificationDate;
+      if (p.address !== undefined) patch.address = p.address;
+      if (p.phone !== undefined) patch.phone = p.phone;
+      if (p.emergencyContact !== undefined) patch.emergency_contact = p.emergencyContact;
+      const row = await this.repo.update(trx, Number(m.id), patch);
+      await this.repo.addAudit(trx, Number(m.id), user.id, 'renewal_started', { plan: plan.code, changed: Object.keys(patch) });
+      return row;
+    });
+    const source: CardSource = input.paymentToken ? { token: input.paymentToken } : { customerId: m.processor_customer_id!, attempt: 0 };
+    const result = await this.card.pay(updated, plan, priced.term, priced.amountCents, source, { today, policy, actorUserId: user.id, at });
+    if (result.outcome === 'declined') throw declined(result.message);
+    if (result.outcome === 'unknown') throw unknownOutcome();
+    return { membership: membershipView(result.membership, plan, today, policy, s) };
+  }
+
+  /** The caller's membership; the stored status and role catch up with the dates on the way. */
+  async me(userId: number) {
+    const s = await this.settings.get(MEMBERSHIP_SETTINGS);
+    const policy = termPolicy(s);
+    const today = this.today();
+    let m = await this.repo.byUser(userId);
+    if (!m) throw notFound('You have no membership yet.');
+    await this.db.transaction(async (trx) => this.settlement.refreshStatus(trx, (await this.repo.byId(Number(m!.id), trx, true))!, today, policy, userId));
+    m = (await this.repo.byId(Number(m.id)))!;
+    const family = await this.repo.family(Number(m.id));
+    return { membership: { ...membershipView(m, await this.repo.plan(Number(m.plan_id)), today, policy, s), familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: String(f.date_of_birth instanceof Date ? this.dob({ date_of_birth: f.date_of_birth } as MembershipRow) : f.date_of_birth) })) } };
+  }
+
+  /** Turns auto-renew on or off; `paymentToken` puts a new card on file. */
+  async setAutoRenew(user: SessionUser, input: { autoRenew: boolean; paymentToken?: string }) {
+    const m = await this.repo.byUser(user.id);
+    if (!m) throw notFound('You have no membership yet.');
+    if (input.autoRenew && !m.processor_customer_id && !input.paymentToken) throw badRequest('Choose a card to keep on file.', { paymentToken: 'Choose a card to keep on file.' });
+    if (input.paymentToken) await this.saveCard(m, user, input.paymentToken);
+    await this.db.transaction(async (trx) => {
+      await this.repo.update(trx, Number(m.id), { auto_renew: input.autoRenew, renewal_failed_at: input.paymentToken ? null : m.renewal_failed_at });
+      await this.repo.addAudit(trx, Number(m.id), user.id, 'auto_renew_changed', { autoRenew: input.autoRenew, newCard: Boolean(input.paymentToken) });
+    });
+    return this.me(user.id);
+  }
+
+  /** The printable card: who, number, plan, term end, certification and the signed check-in token as a QR code. */
+  async card(userId: number) {
+    const { membership } = await this.me(userId);
+    if (membership.status === 'pending') throw conflict('membership_pending', 'Your card is ready once your first payment has gone through.');
+    const s = await this.settings.get(MEMBERSHIP_SETTINGS);
+    const token = this.tokens.sign(membership.memberNumber, this.clock.now());
+    const qrSvg = await QRCode.toString(token, { type: 'svg', errorCorrectionLevel: 'M', margin: 1 });
+    const level = s.certificationLevels.find((l) => l.code === membership.certificationLevel);
+    return {
+      card: {
+        name: membership.legalName,
+        memberNumber: membership.memberNumber,
+        planName: membership.planName,
+        status: membership.status,
+        termEnd: membership.termEnd,
+        certificationLevel: membership.certificationLevel,
+        certificationLabel: level?.label ?? membership.certificationLevel,
+        associationName: s.associationName,
+        associationNumber: membership.associationNumber,
+        associationExpires: membership.associationExpires,
+        token,
+        qrSvg,
+      },
+    };
+  }
+
+  private async saveCard(m: MembershipRow, user: SessionUser, token: string): Promise<CardSource> {
+    const saved = m.processor_customer_id
+      ? await this.card.savedCards.replace(m.processor_customer_id, token)
+      : await this.card.savedCards.save(token, user.email, m.legal_name, `customer:${m.id}:${token}`);
+    if (saved.outcome === 'declined') throw declined(saved.message);
+    if (saved.customerId !== m.processor_customer_id) await this.repo.update(this.db, Number(m.id), { processor_customer_id: saved.customerId });
+    return { customerId: saved.customerId, attempt: 0 };
+  }
+
+  private async activePlan(planId: number): Promise<PlanRow> {
+    const plan = await this.repo.plan(planId);
+    if (!plan || !plan.active) throw badRequest('Choose one of the plans on offer.', { planId: 'Choose one of the plans on offer.' });
+    return plan;
+  }
+
+  private price(plan: PlanRow, m: MembershipRow | undefined, today: string, s: MembershipSettings) {
+    const policy = termPolicy(s);
+    const currentEnd = m?.term_end ? String(this.dateCol(m.term_end)) : null;
+    const term = termForPayment(today, currentEnd, policy);
+    const duesCents = duesFor(plan.dues_cents, term, policy);
+    const joiningFeeCents = currentEnd ? 0 : plan.joining_fee_cents;
+    return { term, duesCents, joiningFeeCents, amountCents: duesCents + joiningFeeCents };
+  }
+
+  private checkAcceptance(s: MembershipSettings, waiverVersion?: string, safetyCodeVersion?: string): void {
+    if (waiverVersion !== s.waiverVersion) throw badRequest('Read and accept the current waiver.', { waiverVersion: `Accept waiver version ${s.waiverVersion}.` });
+    if (safetyCodeVersion !== undefined && safetyCodeVersion !== s.safetyCodeVersion) {
+      throw badRequest('Read and accept the current safety code.', { safetyCodeVersion: `Accept safety code version ${s.safetyCodeVersion}.` });
+    }
+  }
+
+  private checkLevel(s: MembershipSettings, level: string): string {
+    if (!s.certificationLevels.some((l) => l.code === level)) throw badRequest('Choose a certification level from the list.', { 'profile.certificationLevel': 'Choose a level from the list.' });
+    return level;
+  }
+
+  private checkProfile(p: ProfileInput, plan: PlanRow, term: Term, s: MembershipSettings): void {
+    if (p.dateOfBirth > term.start) throw badRequest('Check the date of birth.', { 'profile.dateOfBirth': 'The date of birth is in the future.' });
+    if (plan.eligibility === 'junior' && !isJuniorOn(p.dateOfBirth, term.start)) {
+      throw badRequest('The junior plan is for members under 18 on the first day of the term.', { planId: 'You are 18 or over on the first day of the term; choose another plan.' });
+    }
+    if (plan.eligibility !== 'family' && p.familyMembers?.length) throw badRequest('Only the family plan covers more people.', { 'profile.familyMembers': 'Choose the family plan to add family members.' });
+    this.checkLevel(s, p.certificationLevel ?? 'none');
+  }
+
+  private dateCol(v: Date | string): string {
+    return typeof v === 'string' ? v.slice(0, 10) : this.dob({ date_of_birth: v } as MembershipRow);
+  }
+
+  private dob(m: Pick<MembershipRow, 'date_of_birth'>): string {
+    const v = m.date_of_birth;
+    if (typeof v === 'string') return v.slice(0, 10);
+    const p = (n: number) => String(n).padStart(2, '0');
+    return `${v.getFullYear()}-${p(v.getMonth() + 1)}-${p(v.getDate())}`;
+  }
+}

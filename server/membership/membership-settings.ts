@@ -1,0 +1,45 @@
+import { z } from 'zod';
+import { defineSetting } from '../settings/settings-service';
+
+/** Certification levels a member can record; associations differ, so staff can change the list. */
+const levelCode = z.string().trim().min(1).max(16).regex(/^[a-z0-9-]+$/i, 'Use letters, digits and dashes.');
+
+/**
+ * The club's membership rules. The late-season date (joining from it covers the rest of the year and all of next)
+ * is common club practice, no source; the demo club uses Sep 1 and a 30-day grace.
+ */
+export const MEMBERSHIP_SETTINGS = defineSetting(
+  'membership',
+  z.object({
+    termRule: z.enum(['calendar', 'anniversary']),
+    lateSeasonFrom: z.string().regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'Use MM-DD.'),
+    graceDays: z.number().int().min(0).max(180),
+    prorate: z.boolean(),
+    waiverVersion: z.string().trim().min(1).max(32),
+    waiverText: z.string().trim().min(1).max(8000),
+    safetyCodeVersion: z.string().trim().min(1).max(32),
+    associationName: z.string().trim().min(1).max(120),
+    certificationLevels: z.array(z.object({ code: levelCode, label: z.string().trim().min(1).max(80) })).min(1).max(12),
+  }),
+  {
+    termRule: 'calendar',
+    lateSeasonFrom: '09-01',
+    graceDays: 30,
+    prorate: false,
+    waiverVersion: '2026-1',
+    waiverText:
+      'I take part in club launches at my own risk. I will follow the safety code of your national rocketry association, ' +
+      'the local aviation and fire rules, and every instruction of the range safety officer, whose word on the range is final. ' +
+      'I will fly only motors my certification allows and will keep my association membership current while I fly.',
+    safetyCodeVersion: '2026-1',
+    associationName: 'your national rocketry association',
+    certificationLevels: [
+      { code: 'none', label: 'No high-power certification' },
+      { code: 'L1', label: 'Level 1' },
+      { code: 'L2', label: 'Level 2' },
+      { code: 'L3', label: 'Level 3' },
+    ],
+  },
+);
+
+export type MembershipSettings = z.infer<typeof MEMBERSHIP_SETTINGS.schema>;

@@ -1,0 +1,83 @@
+import { dateOnly, type MembershipRow, type PaymentRow, type PlanRow, type RosterRow } from './membership-repository';
+import type { MembershipSettings } from './membership-settings';
+import { addDays, statusOn, type MembershipStatus, type TermPolicy } from './terms';
+
+/** A plan as the API shows it. */
+export function planView(p: PlanRow) {
+  return { id: Number(p.id), code: p.code, name: p.name, description: p.description, eligibility: p.eligibility, duesCents: p.dues_cents, joiningFeeCents: p.joining_fee_cents, active: p.active, sortOrder: p.sort_order };
+}
+
+/** The status the dates give today (the stored one may be up to a day old). */
+export function liveStatus(m: MembershipRow, today: string, policy: TermPolicy): MembershipStatus {
+  return statusOn(today, dateOnly(m.term_end), policy, m.renewal_failed_at !== null);
+}
+
+/** A membership as its member (and staff) see it. */
+export function membershipView(m: MembershipRow, plan: PlanRow | undefined, today: string, policy: TermPolicy, s: MembershipSettings) {
+  const termEnd = dateOnly(m.term_end);
+  return {
+    id: Number(m.id),
+    memberNumber: m.member_number,
+    status: liveStatus(m, today, policy),
+    termStart: dateOnly(m.term_start),
+    termEnd,
+    graceEnds: termEnd ? addDays(termEnd, policy.graceDays) : null,
+    planId: Number(m.plan_id),
+    planCode: plan?.code ?? null,
+    planName: plan?.name ?? null,
+    legalName: m.legal_name,
+    dateOfBirth: dateOnly(m.date_of_birth),
+    address: m.address,
+    phone: m.phone,
+    emergencyContact: m.emergency_contact,
+    associationNumber: m.association_number,
+    associationExpires: dateOnly(m.association_expires),
+    certificationLevel: m.certification_level,
+    certificationDate: dateOnly(m.certification_date),
+    waiverVersion: m.waiver_version,
+    waiverAcceptedAt: m.waiver_accepted_at,
+    safetyCodeVersion: m.safety_code_version,
+    safetyCodeAcceptedAt: m.safety_code_accepted_at,
+    waiverCurrent: m.waiver_version === s.waiverVersion && m.safety_code_version === s.safetyCodeVersion,
+    autoRenew: m.auto_renew,
+    hasSavedCard: m.processor_customer_id !== null,
+    renewalFailed: m.renewal_failed_at !== null,
+  };
+}
+
+/** A roster line for the staff table and the CSV. */
+export function rosterView(r: RosterRow, today: string, policy: TermPolicy) {
+  return {
+    id: Number(r.id),
+    memberNumber: r.member_number,
+    name: r.legal_name,
+    email: r.email,
+    planId: Number(r.plan_id),
+    planName: r.plan_name,
+    status: liveStatus(r, today, policy),
+    termEnd: dateOnly(r.term_end),
+    certificationLevel: r.certification_level,
+    associationNumber: r.association_number,
+    associationExpires: dateOnly(r.association_expires),
+    autoRenew: r.auto_renew,
+    mailOptOut: r.marketing_opt_out,
+  };
+}
+
+/** A payment or refund line. */
+export function paymentView(p: PaymentRow) {
+  return {
+    id: Number(p.id),
+    entry: p.entry,
+    status: p.status,
+    method: p.method,
+    amountCents: p.amount_cents,
+    receiptNumber: p.receipt_number,
+    termStart: dateOnly(p.term_start),
+    termEnd: dateOnly(p.term_end),
+    refundOf: p.refund_of ? Number(p.refund_of) : null,
+    note: p.note,
+    failureMessage: p.failure_message,
+    createdAt: p.created_at,
+  };
+}

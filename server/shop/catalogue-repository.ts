@@ -1,0 +1,140 @@
+import type { Knex } from 'knex';
+
+export interface ProductRow {
+  id: number;
+  slug: string;
+  name: string;
+  description_md: string;
+  price_cents: number;
+  weight_grams: number;
+  size_chart: SizeChart | null;
+  images: ProductImage[];
+  active: boolean;
+  position: number;
+}
+export interface SizeChart {
+  columns: string[];
+  rows: string[][];
+}
+export interface ProductImage {
+  url: string;
+  thumbnailUrl: string;
+  alt: string;
+}
+export interface VariantRow {
+  id: number;
+  product_id: number;
+  label: string;
+  sku: string;
+  weight_grams: number | null;
+  price_cents: number | null;
+  stock_on_hand: number | null;
+  position: number;
+}
+export interface RunRow {
+  id: number;
+  product_id: number;
+  name: string;
+  cap: number;
+  reserved: number;
+  opens_at: Date;
+  closes_at: Date;
+  state: 'scheduled' | 'open' | 'closed' | 'in_production' | 'shipped';
+  unit_cost_cents: number | null;
+}
+export interface VariantCapRow {
+  run_id: number;
+  variant_id: number;
+  cap: number;
+  reserved: number;
+}
+
+/** A product with everything the storefront shows about it. */
+export interface ProductBundle {
+  product: ProductRow;
+  variants: VariantRow[];
+  run: RunRow | null;
+  caps: VariantCapRow[];
+}
+
+const num = <T extends { id: number }>(r: T): T => ({ ...r, id: Number(r.id) });
+
+/** Products, variants and runs as plain rows. */
+export class CatalogueRepository {
+  constructor(private readonly db: Knex) {}
+
+  /** Products with their variants and latest run; `activeOnly` for the storefront. */
+  async bundles(where: { activeOnly?: boolean; slug?: string; id?: number } = {}, db: Knex | Knex.Transaction = this.db): Promise<ProductBundle[]> {
+    const q = db<ProductRow>('shop_products').orderBy([{ column: 'position' }, { column: 'id' }]);
+    if (where.activeOnly) q.where('active', true);
+    if (where.slug) q.where('slug', where.slug);
+    if (where.id) q.where('id', where.id);
+    const products = (await q).map(num);
+    if (!products.length) return [];
+    const ids = products.map((p) => p.id);
+    const variants = (await db<VariantRow>('shop_variants').whereIn('product_id', ids).orderBy([{ column: 'position' }, { column: 'id' }])).map((v) => ({ ...num(v), product_id: Number(v.product_id) }));
+    const runs = (await db<RunRow>('shop_runs').whereIn('product_id', ids).orderBy('opens_at', 'desc').orderBy('id', 'desc')).map((r) => ({ ...num(r), product_id: Number(r.product_id) }));
+    const latest = new Map<number, RunRow>();
+    for (const r of runs) if (!latest.has(r.product_id)) latest.set(r.product_id, r);
+    const runIds = [...latest.values()].map((r) => r.id);
+    const caps = runIds.length ? (await db<VariantCapRow>('shop_run_variant_caps').whereIn('run_id', runIds)).map((c) => ({ ...c, run_id: Number(c.run_id), variant_id: Number(c.variant_id) })) : [];
+    return products.map((product) => {
+      const run = latest.get(product.id) ?? null;
+      return { product, variants: variants.filter((v) => v.product_id === product.id), run, caps: run ? caps.filter((c) => c.run_id === run.id) : [] };
+    });
+  }
+
+  /** The bundles that hold these variants (for a quote). */
+  async bundlesForVariants(variantIds: number[]): Promise<ProductBundle[]> {
+    const productIds = await this.db('shop_variants').whereIn('id', variantIds).distinct('product_id').pluck('product_id');
+    if (!productIds.length) return [];
+    const all = await Promise.all(productIds.map((id: string) => this.bundles({ id: Number(id) })));
+    return all.flat();
+  }
+
+  async insertProduct(trx: Knex.Transaction, row: Omit<ProductRow, 'id' | 'position' | 'active'>, variants: Omit<VariantRow, 'id' | 'product_id' | 'position'>[]): Promise<number> {
+    const [p] = await trx('shop_products').insert({ ...row, size_chart: row.size_chart ? JSON.stringify(row.size_chart) : null, images: JSON.stringify(row.images) }).returning('id');
+    const productId = Number(p.id);
+    await trx('shop_variants').insert(variants.map((v, i) => ({ ...v, product_id: productId, position: i })));
+    return productId;
+  }
+
+  async updateProduct(id: number, patch: Partial<Pick<ProductRow, 'name' | 'description_md' | 'price_cents' | 'weight_grams' | 'size_chart' | 'images' | 'active'>>): Promise<boolean> {
+    const row: Record<string, unknown> = { ...patch };
+    if (patch.size_chart !== undefined) row.size_chart = patch.size_chart ? JSON.stringify(patch.size_chart) : null;
+    if (patch.images) row.images = JSON.stringify(patch.images);
+    return (await this.db('shop_products').where('id', id).update(row)) > 0;
+  }
+
+  async insertRun(trx: Knex.Transaction, row: Omit<RunRow, 'id' | 'reserved' | 'state'>, caps: { variantId: number; cap: number }[]): Promise<number> {
+    const [r] = await trx('shop_runs').insert({ ...row, state: 'scheduled' }).returning('id');
+    const runId = Number(r.id);
+    if (caps.length) await trx('shop_run_variant_caps').insert(caps.map((c) => ({ run_id: runId, variant_id: c.variantId, cap: c.cap })));
+    return runId;
+  }
+
+  async run(id: number): Promise<RunRow | null> {
+    const r = await this.db<RunRow>('shop_runs').where('id', id).first();
+    return r ? { ...num(r), product_id: Number(r.product_id) } : null;
+  }
+
+  async runs(): Promise<(RunRow & { product_name: string; product_slug: string })[]> {
+    const rows = await this.db('shop_runs as r').join('shop_products as p', 'p.id', 'r.product_id').select('r.*', 'p.name as product_name', 'p.slug as product_slug').orderBy('r.opens_at', 'desc');
+    return rows.map((r) => ({ ...r, id: Number(r.id), product_id: Number(r.product_id) }));
+  }
+
+  async setRunState(id: number, state: RunRow['state']): Promise<void> {
+    await this.db('shop_runs').where('id', id).update({ state });
+  }
+
+  /** Paid units per variant of a run (paid, packed or shipped orders, less units returned to stock). */
+  async paidUnits(runId: number): Promise<Map<number, number>> {
+    const rows = await this.db('shop_order_items as i')
+      .join('shop_orders as o', 'o.id', 'i.order_id')
+      .where('i.run_id', runId)
+      .whereIn('o.status', ['paid', 'packed', 'shipped'])
+      .groupBy('i.variant_id')
+      .select('i.variant_id', this.db.raw('sum(i.quantity - i.restocked_quantity)::int as units'));
+    return new Map(rows.map((r: { variant_id: string; units: number }) => [Number(r.variant_id), r.units]));
+  }
+}

@@ -1,0 +1,255 @@
+import type { Knex } from 'knex';
+import type { Quote, QuoteRequest } from './quote-service';
+
+export type OrderStatus = 'pending' | 'paid' | 'failed' | 'packed' | 'shipped';
+
+export interface OrderRow {
+  id: number;
+  number: string;
+  user_id: number | null;
+  email: string;
+  status: OrderStatus;
+  ship_name: string;
+  ship_line1: string | null;
+  ship_line2: string | null;
+  ship_city: string | null;
+  ship_province: string | null;
+  ship_postal_code: string | null;
+  ship_country: string;
+  shipping_code: string;
+  shipping_name: string;
+  tax_jurisdiction: string | null;
+  priced_on: string;
+  weight_grams: number;
+  discount_percent: number;
+  subtotal_cents: number;
+  discount_cents: number;
+  shipping_cents: number;
+  tax_cents: number;
+  total_cents: number;
+  refunded_cents: number;
+  payment_attempts: number;
+  charge_id: string | null;
+  paid_outside_processor: boolean;
+  payment_message: string | null;
+  carrier: string | null;
+  tracking_number: string | null;
+  paid_at: Date | null;
+  packed_at: Date | null;
+  shipped_at: Date | null;
+  disputed_at: Date | null;
+  dispute_reason: string | null;
+  last_attempt_at: Date | null;
+  created_at: Date;
+}
+export interface OrderItemRow {
+  id: number;
+  order_id: number;
+  variant_id: number;
+  run_id: number | null;
+  product_name: string;
+  variant_label: string;
+  sku: string;
+  unit_price_cents: number;
+  quantity: number;
+  restocked_quantity: number;
+}
+export interface OrderTaxRow {
+  code: 'GST' | 'HST' | 'PST' | 'QST' | 'RST';
+  jurisdiction: string;
+  rate_percent: string;
+  taxable_cents: number;
+  amount_cents: number;
+}
+export interface RefundRow {
+  id: number;
+  order_id: number;
+  amount_cents: number;
+  restocked: boolean;
+  processor_refund_id: string | null;
+  origin: 'staff' | 'processor';
+  created_at: Date;
+}
+
+/** An order with its lines, taxes and refunds. */
+export interface OrderBundle {
+  order: OrderRow;
+  items: OrderItemRow[];
+  taxes: OrderTaxRow[];
+  refunds: RefundRow[];
+}
+
+export interface OrderFilter {
+  status?: OrderStatus;
+  runId?: number;
+  from?: string;
+  to?: string;
+  q?: string;
+  timeZone: string;
+}
+
+export const ORDER_SORTS = { created: 'o.created_at', number: 'o.number', email: 'o.email', total: 'o.total_cents', status: 'o.status' } as const;
+
+type Db = Knex | Knex.Transaction;
+const ORDER_COLUMNS = ['*', { priced_on: 'priced_on_text' }];
+const fix = (r: Record<string, unknown>): OrderRow => ({ ...(r as unknown as OrderRow), id: Number(r.id), user_id: r.user_id === null ? null : Number(r.user_id), priced_on: r.priced_on_text as string });
+
+/** Orders as plain rows; stock and run counts move only through the conditional updates here. */
+export class OrderRepository {
+  constructor(private readonly db: Knex) {}
+
+  /** Inserts a pending order from a quote; returns its id and number. */
+  async insert(trx: Knex.Transaction, q: Quote, req: QuoteRequest & { email: string }, userId: number | null, now: Date): Promise<{ id: number; number: string }> {
+    const [row] = await trx('shop_orders')
+      .insert({
+        user_id: userId,
+        email: req.email,
+        status: 'pending',
+        ship_name: req.shipTo.name,
+        ship_line1: req.shipTo.line1 || null,
+        ship_line2: req.shipTo.line2 || null,
+        ship_city: req.shipTo.city || null,
+        ship_province: req.shipTo.province || null,
+        ship_postal_code: req.shipTo.postalCode || null,
+        ship_country: req.shipTo.country,
+        shipping_method_id: q.shippingMethod.id,
+        shipping_code: q.shippingMethod.code,
+        shipping_name: q.shippingMethod.name,
+        tax_jurisdiction: q.province,
+        priced_on: q.pricedOn,
+        weight_grams: q.weightGrams,
+        discount_percent: q.discountPercent,
+        subtotal_cents: q.subtotalCents,
+        discount_cents: q.discountCents,
+        shipping_cents: q.shippingCents,
+        tax_cents: q.taxCents,
+        total_cents: q.totalCents,
+        created_at: now,
+      })
+      .returning(['id', 'number']);
+    const id = Number(row.id);
+    await trx('shop_order_items').insert(
+      q.lines.map((l) => ({ order_id: id, variant_id: l.variantId, run_id: l.runId, product_name: l.productName, variant_label: l.variantLabel, sku: l.sku, unit_price_cents: l.unitPriceCents, quantity: l.quantity })),
+    );
+    if (q.taxLines.length) {
+      await trx('shop_order_taxes').insert(q.taxLines.map((t) => ({ order_id: id, code: t.code, jurisdiction: t.jurisdiction, rate_percent: t.ratePercent, taxable_cents: t.taxableCents, amount_cents: t.amountCents })));
+    }
+    return { id, number: row.number };
+  }
+
+  /**
+   * Holds units for the lines with conditional updates, always in the same order (runs, variant caps, stock, each
+   * by id) so concurrent checkouts never deadlock. Returns false when any line no longer fits; the caller rolls back.
+   */
+  async reserve(trx: Knex.Transaction, lines: { variantId: number; runId: number | null; quantity: number }[], now: Date): Promise<boolean> {
+    const perRun = new Map<number, number>();
+    for (const l of lines) if (l.runId) perRun.set(l.runId, (perRun.get(l.runId) ?? 0) + l.quantity);
+    for (const [runId, qty] of [...perRun].sort((a, b) => a[0] - b[0])) {
+      const n = await trx('shop_runs')
+        .where('id', runId)
+        .whereIn('state', ['scheduled', 'open'])
+        .where('opens_at', '<=', now)
+        .where('closes_at', '>', now)
+        .whereRaw('reserved + ? <= cap', [qty])
+        .increment('reserved', qty);
+      if (n !== 1) return false;
+    }
+    const byVariant = [...lines].sort((a, b) => a.variantId - b.variantId);
+    for (const l of byVariant.filter((x) => x.runId)) {
+      const cap = await trx('shop_run_variant_caps').where({ run_id: l.runId, variant_id: l.variantId }).first();
+      if (cap && (await trx('shop_run_variant_caps').where({ run_id: l.runId, variant_id: l.variantId }).whereRaw('reserved + ? <= cap', [l.quantity]).increment('reserved', l.quantity)) !== 1) return false;
+    }
+    for (const l of byVariant.filter((x) => !x.runId)) {
+      const n = await trx('shop_variants').where('id', l.variantId).whereNotNull('stock_on_hand').where('stock_on_hand', '>=', l.quantity).decrement('stock_on_hand', l.quantity);
+      if (n !== 1) return false;
+    }
+    return true;
+  }
+
+  /** Gives units back to their run (and variant cap) or to stock. */
+  async release(trx: Knex.Transaction, lines: { variantId: number; runId: number | null; quantity: number }[]): Promise<void> {
+    const sorted = [...lines].filter((l) => l.quantity > 0).sort((a, b) => (a.runId ?? 0) - (b.runId ?? 0) || a.variantId - b.variantId);
+    for (const l of sorted.filter((x) => x.runId)) await trx('shop_runs').where('id', l.runId!).decrement('reserved', l.quantity);
+    for (const l of sorted.filter((x) => x.runId)) await trx('shop_run_variant_caps').where({ run_id: l.runId, variant_id: l.variantId }).decrement('reserved', l.quantity);
+    for (const l of sorted.filter((x) => !x.runId)) await trx('shop_variants').where('id', l.variantId).increment('stock_on_hand', l.quantity);
+  }
+
+  /** Moves an order between statuses only from the expected one; returns whether it moved. */
+  async transition(trx: Db, id: number, from: OrderStatus[], patch: Partial<OrderRow> & { status?: OrderStatus }): Promise<boolean> {
+    return (await trx('shop_orders').where('id', id).whereIn('status', from).update(patch)) === 1;
+  }
+
+  async update(trx: Db, id: number, patch: Record<string, unknown>): Promise<void> {
+    await trx('shop_orders').where('id', id).update(patch);
+  }
+
+  async find(id: number, trx: Db = this.db, forUpdate = false): Promise<OrderBundle | null> {
+    const q = trx('shop_orders').select(...ORDER_COLUMNS, trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('id', id).first();
+    if (forUpdate) q.forUpdate();
+    const row = await q;
+    if (!row) return null;
+    const items = (await trx<OrderItemRow>('shop_order_items').where('order_id', id).orderBy('id')).map((i) => ({ ...i, id: Number(i.id), order_id: id, variant_id: Number(i.variant_id), run_id: i.run_id === null ? null : Number(i.run_id) }));
+    const taxes = (await trx('shop_order_taxes').where('order_id', id).orderBy('code')).map((t) => ({ ...t, rate_percent: String(t.rate_percent) }));
+    const refunds = (await trx<RefundRow>('shop_refunds').where('order_id', id).orderBy('id')).map((r) => ({ ...r, id: Number(r.id), order_id: id }));
+    return { order: fix(row), items, taxes, refunds };
+  }
+
+  async byChargeId(chargeId: string, trx: Db = this.db): Promise<number | null> {
+    const row = await trx('shop_orders').where('charge_id', chargeId).first('id');
+    return row ? Number(row.id) : null;
+  }
+
+  async forUser(userId: number): Promise<OrderRow[]> {
+    const rows = await this.db('shop_orders').select(...ORDER_COLUMNS, this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('user_id', userId).orderBy('created_at', 'desc').limit(200);
+    return rows.map(fix);
+  }
+
+  /** Pending orders whose last payment attempt is older than `before`. */
+  async stalePending(before: Date): Promise<number[]> {
+    return (await this.db('shop_orders').where('status', 'pending').where((q) => q.where('last_attempt_at', '<', before).orWhereNull('last_attempt_at')).orderBy('id').limit(100).pluck('id')).map(Number);
+  }
+
+  private filtered(f: OrderFilter) {
+    const q = this.db('shop_orders as o');
+    if (f.status) q.where('o.status', f.status);
+    if (f.runId) q.whereExists(this.db('shop_order_items as i').whereRaw('i.order_id = o.id').where('i.run_id', f.runId));
+    if (f.from) q.whereRaw('(o.created_at AT TIME ZONE ?)::date >= ?', [f.timeZone, f.from]);
+    if (f.to) q.whereRaw('(o.created_at AT TIME ZONE ?)::date <= ?', [f.timeZone, f.to]);
+    if (f.q) {
+      const like = `%${f.q.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
+      q.where((w) => w.whereILike('o.email', like).orWhereILike('o.number', like));
+    }
+    return q;
+  }
+
+  /** One page of orders, sorted on the server. */
+  async page(f: OrderFilter, sort: keyof typeof ORDER_SORTS, dir: 'asc' | 'desc', page: number, pageSize: number): Promise<{ items: (OrderRow & { units: number })[]; total: number }> {
+    const [{ count }] = await this.filtered(f).count<{ count: string }[]>('* as count');
+    const rows = await this.rowsFor(f, sort, dir).limit(pageSize).offset((page - 1) * pageSize);
+    return { items: rows, total: Number(count) };
+  }
+
+  /** Every matching order (CSV export), at most 10,000. */
+  async all(f: OrderFilter, sort: keyof typeof ORDER_SORTS, dir: 'asc' | 'desc'): Promise<(OrderRow & { units: number })[]> {
+    return this.rowsFor(f, sort, dir).limit(10000);
+  }
+
+  private rowsFor(f: OrderFilter, sort: keyof typeof ORDER_SORTS, dir: 'asc' | 'desc') {
+    return this.filtered(f)
+      .select('o.*', this.db.raw("to_char(o.priced_on, 'YYYY-MM-DD') as priced_on_text"), this.db.raw('(SELECT coalesce(sum(quantity), 0)::int FROM shop_order_items WHERE order_id = o.id) as units'))
+      .orderBy(ORDER_SORTS[sort], dir)
+      .orderBy('o.id', dir)
+      .then((rows: Record<string, unknown>[]) => rows.map((r) => ({ ...fix(r), units: Number(r.units) })));
+  }
+
+  async insertRefund(trx: Knex.Transaction, r: { orderId: number; amountCents: number; restocked: boolean; processorRefundId: string | null; origin: 'staff' | 'processor'; createdBy: number | null; now: Date }): Promise<number> {
+    const [row] = await trx('shop_refunds')
+      .insert({ order_id: r.orderId, amount_cents: r.amountCents, restocked: r.restocked, processor_refund_id: r.processorRefundId, origin: r.origin, created_by: r.createdBy, created_at: r.now })
+      .returning('id');
+    return Number(row.id);
+  }
+
+  async markRestocked(trx: Knex.Transaction, orderId: number): Promise<void> {
+    await trx('shop_order_items').where('order_id', orderId).update({ restocked_quantity: trx.ref('quantity') });
+  }
+}

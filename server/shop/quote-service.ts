@@ -1,0 +1,172 @@
+import { z } from 'zod';
+import type { Config } from '../config';
+import { AppError, badRequest, conflict, type FieldErrors } from '../platform/app-error';
+import { dateInZone } from '../platform/clock';
+import type { Role } from '../platform/roles';
+import { fields } from '../platform/validate';
+import type { SettingsService } from '../settings/settings-service';
+import type { CatalogueRepository, ProductBundle } from './catalogue-repository';
+import { percentOf, shippingFor } from './pricing';
+import { productView, variantRemaining } from './product-view';
+import type { ShippingMethodRow, ShopConfigRepository } from './shop-config-repository';
+import { SHOP_SETTINGS } from './shop-settings';
+import { computeTaxes, PROVINCES, type Province, type TaxLine } from './tax';
+
+const text = (max: number, label: string) => z.string({ error: `${label} is required.` }).trim().max(max, `${label} is too long.`);
+
+/** The body of a quote; an order adds e-mail and payment token. */
+export const QuoteBody = z.object({
+  items: z
+    .array(z.object({ variantId: fields.id, quantity: z.number({ error: 'Enter a quantity.' }).int('Whole units only.').min(1, 'At least 1.').max(20, 'At most 20 of one item.') }), { error: 'The cart is empty.' })
+    .min(1, 'The cart is empty.')
+    .max(30, 'At most 30 different items.'),
+  shipTo: z.object({
+    name: text(120, 'Name').min(1, 'Name is required.'),
+    line1: text(200, 'Address').optional().default(''),
+    line2: text(200, 'Address line 2').optional().default(''),
+    city: text(100, 'City').optional().default(''),
+    province: text(40, 'Province or state').optional().default(''),
+    postalCode: text(20, 'Postal code').optional().default(''),
+    country: z.string({ error: 'Country is required.' }).trim().toUpperCase().regex(/^[A-Z]{2}$/, 'Use the two-letter country code.'),
+  }, { error: 'Shipping details are required.' }),
+  shippingMethodId: fields.id,
+});
+export type QuoteRequest = z.infer<typeof QuoteBody>;
+
+/** One priced line of a quote. */
+export interface QuoteLine {
+  variantId: number;
+  runId: number | null;
+  productName: string;
+  variantLabel: string;
+  sku: string;
+  unitPriceCents: number;
+  quantity: number;
+  lineCents: number;
+}
+
+/** Every figure of an order, computed by the server. */
+export interface Quote {
+  lines: QuoteLine[];
+  weightGrams: number;
+  shippingMethod: ShippingMethodRow;
+  province: Province | null;
+  pricedOn: string;
+  discountPercent: number;
+  subtotalCents: number;
+  discountCents: number;
+  shippingCents: number;
+  taxLines: TaxLine[];
+  taxCents: number;
+  totalCents: number;
+}
+
+const CA_POSTAL = /^[ABCEGHJ-NPRSTVXY]\d[ABCEGHJ-NPRSTV-Z] ?\d[ABCEGHJ-NPRSTV-Z]\d$/i;
+const US_ZIP = /^\d{5}(-\d{4})?$/;
+
+/** Prices a cart: availability, member discount, shipping by weight, Canadian tax by place of supply. */
+export class QuoteService {
+  constructor(
+    private readonly catalogue: CatalogueRepository,
+    private readonly config: ShopConfigRepository,
+    private readonly settings: SettingsService,
+    private readonly appConfig: Config,
+  ) {}
+
+  async quote(req: QuoteRequest, roles: Role[], now: Date): Promise<Quote> {
+    const wanted = new Map<number, number>();
+    for (const i of req.items) wanted.set(i.variantId, (wanted.get(i.variantId) ?? 0) + i.quantity);
+    const bundles = await this.catalogue.bundlesForVariants([...wanted.keys()]);
+    const lines: QuoteLine[] = [];
+    const problems: FieldErrors = {};
+    let soldOut = false;
+    let weight = 0;
+    [...wanted.entries()].forEach(([variantId, quantity]) => {
+      const field = `items.${req.items.findIndex((i) => i.variantId === variantId)}`;
+      const b = bundles.find((x) => x.variants.some((v) => v.id === variantId));
+      if (!b || !b.product.active) return void (problems[`${field}.variantId`] = 'This item is no longer sold.');
+      const view = productView(b, now);
+      const v = view.variants.find((x) => x.id === variantId)!;
+      if (b.run && view.run?.state !== 'open') {
+        soldOut ||= view.run?.state === 'sold_out';
+        return void (problems[`${field}.quantity`] = runClosedMessage(view.run?.state));
+      }
+      const left = variantRemaining(b, variantId);
+      if (quantity > left) {
+        soldOut = true;
+        return void (problems[`${field}.quantity`] = left === 0 ? `${b.product.name} (${v.label}) is sold out.` : `Only ${left} of ${b.product.name} (${v.label}) left.`);
+      }
+      weight += v.weightGrams * quantity;
+      lines.push(line(b, variantId, quantity, v.priceCents));
+    });
+    if (Object.keys(problems).length) {
+      throw soldOut ? conflict('sold_out', 'Part of the cart is sold out.', problems) : conflict('not_available', 'Part of the cart cannot be ordered now.', problems);
+    }
+
+    const shop = await this.settings.get(SHOP_SETTINGS);
+    const method = await this.config.shippingMethod(req.shippingMethodId);
+    if (!method || !method.active) throw badRequest('Choose a shipping method.', { shippingMethodId: 'Choose one of the shipping methods offered.' });
+    const province = this.placeOfSupply(req.shipTo, method, shop.sellerProvince);
+    const shippingCents = shippingFor(weight, method.brackets);
+    if (shippingCents === null) throw badRequest('This order is too heavy for that shipping method.', { shippingMethodId: 'Too heavy for this method; choose another or split the order.' });
+
+    const subtotalCents = lines.reduce((s, l) => s + l.lineCents, 0);
+    const discountPercent = roles.includes('member') ? shop.memberDiscountPercent : 0;
+    const discountCents = percentOf(subtotalCents, discountPercent);
+    const pricedOn = dateInZone(now, this.appConfig.clubTimeZone);
+    const taxLines = computeTaxes(
+      { goodsCents: subtotalCents - discountCents, shippingCents, province, date: pricedOn },
+      await this.config.taxRates(),
+      { gstHstRegistered: shop.gstHstRegistered, provincialRegistrations: shop.provincialRegistrations, provincialTaxOnShipping: shop.provincialTaxOnShipping },
+    );
+    const taxCents = taxLines.reduce((s, t) => s + t.amountCents, 0);
+    return { lines, weightGrams: weight, shippingMethod: method, province, pricedOn, discountPercent, subtotalCents, discountCents, shippingCents, taxLines, taxCents, totalCents: subtotalCents - discountCents + shippingCents + taxCents };
+  }
+
+  /** The province whose tax applies, checking the address against the method on the way. */
+  private placeOfSupply(to: QuoteRequest['shipTo'], method: ShippingMethodRow, seller: Province): Province | null {
+    if (method.code === 'pickup') return seller;
+    const f: FieldErrors = {};
+    if (!to.line1) f['shipTo.line1'] = 'Address is required.';
+    if (!to.city) f['shipTo.city'] = 'City is required.';
+    if (method.code === 'canada' && to.country !== 'CA') f.shippingMethodId = 'This method ships within Canada only.';
+    if (method.code === 'usa' && to.country !== 'US') f.shippingMethodId = 'This method ships to the USA only.';
+    if (method.code === 'international' && (to.country === 'CA' || to.country === 'US')) f.shippingMethodId = 'Choose the Canada or USA method for this address.';
+    const province = to.province.toUpperCase();
+    if (to.country === 'CA') {
+      if (!(PROVINCES as readonly string[]).includes(province)) f['shipTo.province'] = 'Choose a province or territory.';
+      if (!CA_POSTAL.test(to.postalCode)) f['shipTo.postalCode'] = 'Enter a Canadian postal code such as R0K 1A0.';
+    }
+    if (to.country === 'US' && !US_ZIP.test(to.postalCode)) f['shipTo.postalCode'] = 'Enter a ZIP code such as 58501.';
+    if (Object.keys(f).length) throw new AppError(400, 'validation_failed', 'Some fields need attention.', f);
+    return to.country === 'CA' ? (province as Province) : null;
+  }
+}
+
+function line(b: ProductBundle, variantId: number, quantity: number, unitPriceCents: number): QuoteLine {
+  const v = b.variants.find((x) => x.id === variantId)!;
+  return { variantId, runId: b.run?.id ?? null, productName: b.product.name, variantLabel: v.label, sku: v.sku, unitPriceCents, quantity, lineCents: unitPriceCents * quantity };
+}
+
+function runClosedMessage(state: string | undefined): string {
+  if (state === 'scheduled') return 'Orders for this run have not opened yet.';
+  if (state === 'sold_out') return 'This run is sold out.';
+  return 'Orders for this run have closed.';
+}
+
+/** The quote as the API answers it. */
+export function quoteJson(q: Quote) {
+  return {
+    lines: q.lines.map((l) => ({ variantId: l.variantId, productName: l.productName, variantLabel: l.variantLabel, sku: l.sku, unitPriceCents: l.unitPriceCents, quantity: l.quantity, lineCents: l.lineCents })),
+    weightGrams: q.weightGrams,
+    shippingMethod: { id: q.shippingMethod.id, code: q.shippingMethod.code, name: q.shippingMethod.name },
+    discountPercent: q.discountPercent,
+    subtotalCents: q.subtotalCents,
+    discountCents: q.discountCents,
+    shippingCents: q.shippingCents,
+    taxLines: q.taxLines.map((t) => ({ code: t.code, label: t.label, ratePercent: t.ratePercent, amountCents: t.amountCents })),
+    taxCents: q.taxCents,
+    totalCents: q.totalCents,
+    currency: 'CAD' as const,
+  };
+}

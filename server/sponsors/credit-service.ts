@@ -1,0 +1,67 @@
+import type { Knex } from 'knex';
+import { enqueueEmail } from '../mail/outbox';
+import { creditPublishedEmail } from './sponsor-emails';
+import { deliverableToCredit, type DeliverableKind } from './sponsor-ledger';
+import type { SponsorRepository } from './sponsor-repository';
+
+/** The post as the ledger needs it. */
+export interface CreditingPost {
+  id: number;
+  slug: string;
+  title: string;
+  published: boolean;
+}
+
+/** Records credits against open deliverables: from published posts automatically, and off-site ones by hand. */
+export class CreditService {
+  constructor(
+    private readonly repo: SponsorRepository,
+    private readonly publicUrl: string,
+  ) {}
+
+  /**
+   * Makes the post's live credits match what it should give: one per credited sponsor while published, none
+   * otherwise. New credits count against the sponsor's earliest open `build_log_credit` and e-mail each contact
+   * once per post and sponsor, however often the post is unpublished and published again.
+   */
+  async syncPostCredits(trx: Knex.Transaction, post: CreditingPost, sponsorIds: readonly number[], at: Date): Promise<void> {
+    const wanted = post.published ? new Set(sponsorIds) : new Set<number>();
+    const live = await this.repo.liveCreditSponsors(trx, post.id);
+    await this.repo.withdrawPostCredits(trx, post.id, live.filter((id) => !wanted.has(id)), at);
+    const link = `${this.publicUrl}/build-logs/${post.slug}`;
+    for (const sponsorId of [...wanted].filter((id) => !live.includes(id)).sort((a, b) => a - b)) {
+      await this.repo.lock(trx, sponsorId);
+      const deliverableId = await this.openDeliverable(trx, sponsorId, 'build_log_credit');
+      await this.repo.insertCredit(trx, { sponsorId, deliverableId, kind: 'build_log_credit', url: link, videoTimestamp: null, note: null, postId: post.id, recordedBy: null, creditedAt: at });
+      const sponsor = (await this.repo.byId(sponsorId, trx))!;
+      for (const c of await this.repo.contacts(sponsorId, trx)) {
+        await enqueueEmail(trx, {
+          ...creditPublishedEmail(c.email, c.display_name, sponsor.name, post.title, link, `${this.publicUrl}/sponsors/portal`),
+          dedupeKey: `sponsor-credit:${post.id}:${sponsorId}:${c.user_id}`,
+        });
+      }
+    }
+  }
+
+  /** An off-site credit (a video mention, a social post, a logo on a shirt run) recorded by staff. */
+  async recordByHand(
+    trx: Knex.Transaction,
+    sponsorId: number,
+    c: { kind: DeliverableKind; url: string | null; videoTimestamp: string | null; note: string | null; creditedAt: Date },
+    userId: number,
+  ): Promise<{ id: number; deliverableId: number | null }> {
+    await this.repo.lock(trx, sponsorId);
+    const deliverableId = await this.openDeliverable(trx, sponsorId, c.kind);
+    const id = await this.repo.insertCredit(trx, { sponsorId, deliverableId, kind: c.kind, url: c.url, videoTimestamp: c.videoTimestamp, note: c.note, postId: null, recordedBy: userId, creditedAt: c.creditedAt });
+    return { id, deliverableId };
+  }
+
+  private async openDeliverable(trx: Knex.Transaction, sponsorId: number, kind: DeliverableKind): Promise<number | null> {
+    const rows = await this.repo.deliverables(sponsorId, trx);
+    const open = deliverableToCredit(
+      rows.map((d) => ({ id: Number(d.id), kind: d.kind, quantity: d.quantity, dueOn: d.due_on, delivered: Number(d.delivered) })),
+      kind,
+    );
+    return open?.id ?? null;
+  }
+}

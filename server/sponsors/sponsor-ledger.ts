@@ -1,0 +1,52 @@
+/** Kinds of deliverable a sponsor can be promised. */
+export const DELIVERABLE_KINDS = ['build_log_credit', 'video_mention', 'logo_on_merch', 'sponsors_page', 'social_post'] as const;
+export type DeliverableKind = (typeof DELIVERABLE_KINDS)[number];
+
+export interface DeliverableInput {
+  id: number;
+  kind: DeliverableKind;
+  quantity: number;
+  dueOn: string;
+  /** Live (not withdrawn) credits recorded against it. */
+  delivered: number;
+}
+
+export interface DeliverableLine {
+  id: number;
+  kind: DeliverableKind;
+  promised: number;
+  delivered: number;
+  dueOn: string;
+  overdue: boolean;
+}
+
+export interface KindSummary {
+  kind: DeliverableKind;
+  promised: number;
+  delivered: number;
+}
+
+/** Overdue: due before today and still short of what was promised. A deliverable due today is not overdue yet. */
+export function ledgerLines(deliverables: readonly DeliverableInput[], today: string): DeliverableLine[] {
+  return [...deliverables]
+    .sort((a, b) => a.dueOn.localeCompare(b.dueOn) || a.id - b.id)
+    .map((d) => ({ id: d.id, kind: d.kind, promised: d.quantity, delivered: d.delivered, dueOn: d.dueOn, overdue: d.delivered < d.quantity && d.dueOn < today }));
+}
+
+/** Promised vs delivered per kind, in the order of DELIVERABLE_KINDS, only kinds that were promised. */
+export function summaryByKind(lines: readonly DeliverableLine[]): KindSummary[] {
+  return DELIVERABLE_KINDS.flatMap((kind) => {
+    const of = lines.filter((l) => l.kind === kind);
+    return of.length ? [{ kind, promised: of.reduce((s, l) => s + l.promised, 0), delivered: of.reduce((s, l) => s + l.delivered, 0) }] : [];
+  });
+}
+
+/** The earliest open deliverable due today or later; overdue ones are listed separately. */
+export function nextDue(lines: readonly DeliverableLine[], today: string): DeliverableLine | null {
+  return lines.find((l) => l.delivered < l.promised && l.dueOn >= today) ?? null;
+}
+
+/** Among open deliverables of a kind, the one a new credit counts against: the earliest due. */
+export function deliverableToCredit<T extends { id: number; kind: string; quantity: number; dueOn: string; delivered: number }>(deliverables: readonly T[], kind: string): T | null {
+  return [...deliverables].filter((d) => d.kind === kind && d.delivered < d.quantity).sort((a, b) => a.dueOn.localeCompare(b.dueOn) || a.id - b.id)[0] ?? null;
+}

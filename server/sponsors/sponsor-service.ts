@@ -1,0 +1,257 @@
+import type { Knex } from 'knex';
+import type { UserRepository } from '../auth/user-repository';
+import { recordMovement, type Movement } from '../books/ledger-writer';
+import { slugify, uniqueSlug } from '../build-logs/slug';
+import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
+import type { SettingsService } from '../settings/settings-service';
+import type { CreditService } from './credit-service';
+import { ledgerLines, nextDue, summaryByKind, type DeliverableKind, type DeliverableLine, type KindSummary } from './sponsor-ledger';
+import type { AgreementRow, CreditRow, SponsorRepository, SponsorRow } from './sponsor-repository';
+import { seasonOf, SPONSOR_TIERS, tierFor, type Tier } from './sponsor-tiers';
+
+export interface SponsorInput {
+  name: string;
+  website?: string | null;
+  blurb?: string | null;
+  logoUrl?: string | null;
+}
+
+export interface AgreementInput {
+  season: string;
+  cashCents?: number;
+  cashReceivedOn?: string | null;
+  note?: string | null;
+  inKind?: { description: string; valueCents: number; receivedOn?: string | null }[];
+  deliverables: { kind: DeliverableKind; quantity: number; dueOn: string }[];
+}
+
+export interface AgreementView {
+  id: number;
+  season: string;
+  cashCents: number;
+  cashReceivedOn: string | null;
+  inKind: { id: number; description: string; valueCents: number; receivedOn: string | null }[];
+  inKindCents: number;
+  totalCents: number;
+  note: string | null;
+  deliverables: DeliverableLine[];
+  byKind: KindSummary[];
+  overdue: DeliverableLine[];
+  nextDue: DeliverableLine | null;
+}
+
+export interface CreditView {
+  id: number;
+  kind: DeliverableKind;
+  url: string | null;
+  at: string;
+  postSlug: string | null;
+  postTitle: string | null;
+  videoTimestamp: string | null;
+  note: string | null;
+  counted: boolean;
+}
+
+export interface SponsorView {
+  id: number;
+  slug: string;
+  name: string;
+  website: string | null;
+  blurb: string | null;
+  logoUrl: string | null;
+}
+
+const toView = (s: SponsorRow): SponsorView => ({ id: Number(s.id), slug: s.slug, name: s.name, website: s.website, blurb: s.blurb, logoUrl: s.logo_url });
+
+const toCredit = (c: CreditRow): CreditView => ({
+  id: Number(c.id),
+  kind: c.kind,
+  url: c.url,
+  at: c.credited_at.toISOString(),
+  postSlug: c.post_slug,
+  postTitle: c.post_title,
+  videoTimestamp: c.video_timestamp,
+  note: c.note,
+  counted: c.deliverable_id !== null,
+});
+
+/** Sponsors, agreements, the ledger, tiers and the portal's view; no HTTP here. */
+export class SponsorService {
+  constructor(
+    private readonly db: Knex,
+    private readonly repo: SponsorRepository,
+    private readonly credits: CreditService,
+    private readonly users: UserRepository,
+    private readonly settings: SettingsService,
+  ) {}
+
+  async create(input: SponsorInput): Promise<SponsorView> {
+    return this.db.transaction(async (trx) => {
+      const base = slugify(input.name);
+      const slug = uniqueSlug(base, await this.repo.slugsLike(base, trx));
+      return toView(await this.repo.insert(trx, { slug, name: input.name, website: input.website ?? null, blurb: input.blurb ?? null, logoUrl: input.logoUrl ?? null }));
+    });
+  }
+
+  async update(id: number, input: SponsorInput): Promise<SponsorView> {
+    const row = await this.repo.update(id, { name: input.name, website: input.website ?? null, blurb: input.blurb ?? null, logoUrl: input.logoUrl ?? null });
+    if (!row) throw notFound('No such sponsor.');
+    return toView(row);
+  }
+
+  async get(id: number): Promise<SponsorView> {
+    const row = await this.repo.byId(id);
+    if (!row) throw notFound('No such sponsor.');
+    return toView(row);
+  }
+
+  async addAgreement(sponsorId: number, input: AgreementInput): Promise<{ id: number }> {
+    await this.get(sponsorId);
+    try {
+      return await this.db.transaction(async (trx) => {
+        const id = await this.repo.insertAgreement(trx, { sponsorId, season: input.season, cashCents: input.cashCents ?? 0, cashReceivedOn: null, note: input.note ?? null });
+        await this.repo.insertInKind(trx, id, (input.inKind ?? []).map((i) => ({ description: i.description, valueCents: i.valueCents, receivedOn: i.receivedOn ?? null })));
+        await this.repo.insertDeliverables(trx, id, input.deliverables);
+        return { id };
+      });
+    } catch (err) {
+      if ((err as { code?: string }).code === '23505') throw conflict('season_taken', `This sponsor already has an agreement for ${input.season}.`, { season: 'One agreement per season; edit the existing one.' });
+      throw err;
+    }
+  }
+
+  /** Staff record the promised cash as received: one money movement, in the same transaction, once. */
+  async recordCashReceived(agreementId: number, input: { receivedOn: string; method: Movement['method'] }, at: Date): Promise<{ movementId: number | null }> {
+    return this.db.transaction(async (trx) => {
+      const a = await trx<AgreementRow>('sponsor_agreements').where('id', agreementId).forUpdate().first();
+      if (!a) throw notFound('No such agreement.');
+      if (a.cash_movement_id !== null || a.cash_received_on !== null) throw conflict('cash_already_received', 'The cash for this agreement is already recorded as received.');
+      if (Number(a.cash_cents) === 0) throw badRequest('This agreement promises no cash.', { receivedOn: 'Nothing to receive.' });
+      const sponsor = (await this.repo.byId(Number(a.sponsor_id), trx))!;
+      const movementId = await recordMovement(trx, {
+        occurredAt: at,
+        kind: 'sponsor_cash',
+        source: 'sponsor',
+        reference: String(a.id),
+        counterparty: sponsor.name,
+        grossCents: Number(a.cash_cents),
+        method: input.method,
+        idempotencyKey: `sponsor-cash:${a.id}`,
+      });
+      await this.repo.markCashReceived(trx, agreementId, input.receivedOn, movementId);
+      return { movementId };
+    });
+  }
+
+  /** Every agreement of the sponsor with its ledger as of `today`. */
+  async agreements(sponsorId: number, today: string): Promise<AgreementView[]> {
+    const rows = await this.repo.agreements(sponsorId);
+    const ids = rows.map((a) => Number(a.id));
+    const [inKind, deliverables] = await Promise.all([this.repo.inKind(ids), this.repo.deliverables(sponsorId)]);
+    return rows.map((a) => {
+      const items = inKind.filter((i) => i.agreement_id === a.id).map((i) => ({ id: Number(i.id), description: i.description, valueCents: Number(i.value_cents), receivedOn: i.received_on }));
+      const lines = ledgerLines(
+        deliverables.filter((d) => d.agreement_id === a.id).map((d) => ({ id: Number(d.id), kind: d.kind, quantity: d.quantity, dueOn: d.due_on, delivered: Number(d.delivered) })),
+        today,
+      );
+      const inKindCents = items.reduce((s, i) => s + i.valueCents, 0);
+      return {
+        id: Number(a.id),
+        season: a.season,
+        cashCents: Number(a.cash_cents),
+        cashReceivedOn: a.cash_received_on,
+        inKind: items,
+        inKindCents,
+        totalCents: Number(a.cash_cents) + inKindCents,
+        note: a.note,
+        deliverables: lines,
+        byKind: summaryByKind(lines),
+        overdue: lines.filter((l) => l.overdue),
+        nextDue: nextDue(lines, today),
+      };
+    });
+  }
+
+  async creditsOf(sponsorId: number): Promise<CreditView[]> {
+    return (await this.repo.credits(sponsorId)).map(toCredit);
+  }
+
+  async recordCredit(sponsorId: number, input: { kind: DeliverableKind; url: string | null; videoTimestamp?: string | null; note?: string | null; creditedAt: Date }, userId: number): Promise<{ id: number; counted: boolean }> {
+    await this.get(sponsorId);
+    const r = await this.db.transaction((trx) => this.credits.recordByHand(trx, sponsorId, { ...input, videoTimestamp: input.videoTimestamp ?? null, note: input.note ?? null }, userId));
+    return { id: r.id, counted: r.deliverableId !== null };
+  }
+
+  /** Links an account as a contact; only accounts holding the `sponsor` role can be contacts. */
+  async addContact(sponsorId: number, who: { userId?: number; email?: string }): Promise<{ userId: number }> {
+    await this.get(sponsorId);
+    const user = who.userId !== undefined ? await this.users.byId(who.userId) : await this.users.byEmail(who.email ?? '');
+    if (!user) throw new AppError(404, 'not_found', 'No account matches.', { [who.userId !== undefined ? 'userId' : 'email']: 'No account matches.' });
+    if (!user.roles.includes('sponsor')) throw conflict('not_a_sponsor_account', 'That account does not hold the sponsor role; an admin can grant it on the accounts page.', { email: 'Needs the sponsor role first.' });
+    await this.repo.addContact(this.db, sponsorId, Number(user.id));
+    return { userId: Number(user.id) };
+  }
+
+  async removeContact(sponsorId: number, userId: number): Promise<void> {
+    if (!(await this.repo.removeContact(sponsorId, userId))) throw notFound('That account is not a contact of this sponsor.');
+  }
+
+  async contacts(sponsorId: number): Promise<{ userId: number; email: string; displayName: string }[]> {
+    return (await this.repo.contacts(sponsorId)).map((c) => ({ userId: Number(c.user_id), email: c.email, displayName: c.display_name }));
+  }
+
+  tiers(): Promise<{ tiers: Tier[] }> {
+    return this.settings.get(SPONSOR_TIERS);
+  }
+
+  setTiers(value: { tiers: Tier[] }): Promise<{ tiers: Tier[] }> {
+    return this.settings.put(SPONSOR_TIERS, { tiers: [...value.tiers].sort((a, b) => a.minCents - b.minCents) });
+  }
+
+  /** Every sponsor with the tier its current-season total reaches (null without an agreement this season). */
+  async withTiers(today: string): Promise<(SponsorView & { tier: string | null; seasonTotalCents: number })[]> {
+    const season = seasonOf(today);
+    const [rows, totals, { tiers }] = await Promise.all([this.repo.all(), this.repo.seasonTotals(season), this.tiers()]);
+    return rows.map((s) => {
+      const total = totals.get(Number(s.id));
+      return { ...toView(s), tier: total === undefined ? null : (tierFor(total, tiers)?.name ?? null), seasonTotalCents: total ?? 0 };
+    });
+  }
+
+  /** The public sponsors page: tiers from the highest down, each sponsor with the posts that credit it. */
+  async publicWall(today: string): Promise<{ season: string; tiers: { name: string; sponsors: (SponsorView & { posts: { slug: string; title: string }[] })[] }[] }> {
+    const [sponsors, posts, { tiers }] = await Promise.all([this.withTiers(today), this.repo.creditingPosts(), this.tiers()]);
+    const ordered = [...tiers].sort((a, b) => b.minCents - a.minCents);
+    return {
+      season: seasonOf(today),
+      tiers: ordered
+        .map((t) => ({
+          name: t.name,
+          sponsors: sponsors
+            .filter((s) => s.tier === t.name)
+            .sort((a, b) => b.seasonTotalCents - a.seasonTotalCents || a.name.localeCompare(b.name))
+            .map((s) => ({ id: s.id, slug: s.slug, name: s.name, website: s.website, blurb: s.blurb, logoUrl: s.logoUrl, posts: posts.filter((p) => Number(p.sponsor_id) === s.id).map((p) => ({ slug: p.slug, title: p.title })) })),
+        }))
+        .filter((t) => t.sponsors.length),
+    };
+  }
+
+  /** Overdue deliverables across every sponsor, for the staff dashboard card. */
+  async overdue(today: string): Promise<{ sponsorId: number; sponsorName: string; agreementId: number; kind: DeliverableKind; promised: number; delivered: number; dueOn: string }[]> {
+    const [rows, sponsors] = await Promise.all([this.repo.deliverables(null), this.repo.all()]);
+    const names = new Map(sponsors.map((s) => [Number(s.id), s.name]));
+    return ledgerLines(rows.map((d) => ({ id: Number(d.id), kind: d.kind, quantity: d.quantity, dueOn: d.due_on, delivered: Number(d.delivered) })), today)
+      .filter((l) => l.overdue)
+      .map((l) => {
+        const d = rows.find((r) => Number(r.id) === l.id)!;
+        return { sponsorId: Number(d.sponsor_id), sponsorName: names.get(Number(d.sponsor_id)) ?? '', agreementId: Number(d.agreement_id), kind: l.kind, promised: l.promised, delivered: l.delivered, dueOn: l.dueOn };
+      });
+  }
+
+  /** The sponsor an account is a contact of; 404 when it is linked to none. */
+  async sponsorOfUser(userId: number): Promise<SponsorView> {
+    const row = await this.repo.sponsorOfUser(userId);
+    if (!row) throw notFound('Your account is not linked to a sponsor yet. Ask the club’s treasurer to add you as a contact.');
+    return toView(row);
+  }
+}

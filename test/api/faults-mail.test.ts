@@ -1,0 +1,64 @@
+import { randomUUID } from 'node:crypto';
+import pino from 'pino';
+import { MailWorker } from '../../server/mail/mail-worker';
+import { enqueueEmail } from '../../server/mail/outbox';
+import { emailsTo } from '../helpers/maildev';
+import { freePort, SwitchableProxy } from '../helpers/tcp-proxy';
+import { buildTestApp, type TestApp } from '../helpers/test-app';
+
+let t: TestApp;
+let proxy: SwitchableProxy;
+beforeAll(async () => {
+  t = buildTestApp();
+  proxy = new SwitchableProxy(await freePort(), Number(process.env.SMTP_PORT ?? 1025));
+});
+afterAll(async () => {
+  await proxy.down();
+  await t.close();
+});
+
+describe('when the SMTP server is down for a while', () => {
+  it('keeps every queued e-mail and, once it is back, delivers each exactly once', async () => {
+    const to = `outage-${randomUUID().slice(0, 8)}@example.test`;
+    const log = pino({ level: 'silent' });
+    const workerA = new MailWorker(t.deps.db, `smtp://127.0.0.1:${proxy.port}`, 'Padside <hello@padside.test>', log);
+    const workerB = new MailWorker(t.deps.db, `smtp://127.0.0.1:${proxy.port}`, 'Padside <hello@padside.test>', log);
+    try {
+      await t.deps.db.transaction(async (trx) => {
+        for (let i = 1; i <= 5; i++) await enqueueEmail(trx, { to, subject: `Outage test ${i}`, text: `message ${i}`, template: 'test' });
+      });
+      // SMTP is down: nothing is sent, nothing is lost, each failure is recorded for a retry. A pass stops at its
+      // first failure (the outbox is shared with other tests), so keep passing until each of ours has been tried.
+      let queued = await t.deps.db('outbound_emails').where('to_address', to);
+      for (let pass = 0; pass < 200 && queued.some((m) => m.attempts === 0); pass++) {
+        expect(await workerA.deliverDue()).toBe(0);
+        queued = await t.deps.db('outbound_emails').where('to_address', to);
+      }
+      expect(queued).toHaveLength(5);
+      expect(queued.every((m) => m.status === 'queued' && m.attempts >= 1 && m.last_error)).toBe(true);
+
+      await proxy.up();
+      // Time passes beyond the retry delay.
+      await t.deps.db('outbound_emails').where('to_address', to).update({ next_attempt_at: t.deps.db.fn.now() });
+      // Two workers (as two server processes would) race for the same rows.
+      const [a, b] = await Promise.all([workerA.deliverDue(), workerB.deliverDue()]);
+      expect(a + b).toBe(5);
+      expect(await workerA.deliverDue()).toBe(0);
+      const caught = await emailsTo(to);
+      expect(caught.map((m) => m.subject).sort()).toEqual([1, 2, 3, 4, 5].map((i) => `Outage test ${i}`));
+      const rows = await t.deps.db('outbound_emails').where('to_address', to);
+      expect(rows.every((m) => m.status === 'sent' && m.sent_at)).toBe(true);
+    } finally {
+      await workerA.stop();
+      await workerB.stop();
+    }
+  });
+
+  it('queues a mail with a dedupe key only once', async () => {
+    const to = `dedupe-${randomUUID().slice(0, 8)}@example.test`;
+    const key = `test:${randomUUID()}`;
+    const results = await Promise.all([1, 2, 3].map(() => t.deps.db.transaction((trx) => enqueueEmail(trx, { to, subject: 'Once', text: 'x', template: 'test', dedupeKey: key }))));
+    expect(results.filter(Boolean)).toHaveLength(1);
+    expect(await t.deps.db('outbound_emails').where('dedupe_key', key)).toHaveLength(1);
+  });
+});
