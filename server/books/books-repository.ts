@@ -1,0 +1,139 @@
+import type { Knex } from 'knex';
+import type { DateRange } from './date-range';
+
+export interface TaxLineRow {
+  code: string;
+  jurisdiction: string;
+  taxableCents: number;
+  taxCents: number;
+  refundedCents: number;
+}
+
+export interface RevenueRow {
+  month: string;
+  source: string;
+  grossCents: number;
+  refundsCents: number;
+  feesCents: number;
+}
+
+export interface LedgerRow {
+  id: number;
+  date: string;
+  kind: string;
+  source: string;
+  reference: string;
+  counterparty: string;
+  method: string;
+  grossCents: number;
+  feeCents: number;
+  feeEstimated: boolean;
+  taxes: Record<string, number>;
+}
+
+/** A row as PostgreSQL returns it: bigint sums arrive as strings. */
+type RawRow = Record<string, string | number | boolean | null | Record<string, string | number>>;
+
+/** Aggregates over money_movements, all in SQL; instants are bucketed by day and month in the club's time zone. */
+export class BooksRepository {
+  constructor(
+    private readonly db: Knex,
+    private readonly timeZone: string,
+  ) {}
+
+  /** `occurred_at` within [from 00:00, to+1 00:00) in the club's zone. */
+  private inRange(qb: Knex.QueryBuilder, range: DateRange, column = 'm.occurred_at'): Knex.QueryBuilder {
+    return qb
+      .where(column, '>=', this.db.raw('(?::date)::timestamp AT TIME ZONE ?', [range.from, this.timeZone]))
+      .andWhere(column, '<', this.db.raw('((?::date + 1))::timestamp AT TIME ZONE ?', [range.to, this.timeZone]));
+  }
+
+  async taxLines(range: DateRange): Promise<TaxLineRow[]> {
+    const rows = await this.inRange(this.db('money_movement_taxes as t').join('money_movements as m', 'm.id', 't.movement_id'), range)
+      .groupBy('t.code', 't.jurisdiction')
+      .orderBy(['t.code', 't.jurisdiction'])
+      .select(
+        't.code',
+        't.jurisdiction',
+        this.db.raw('COALESCE(SUM(t.taxable_cents) FILTER (WHERE m.gross_cents >= 0), 0)::bigint AS taxable'),
+        this.db.raw('COALESCE(SUM(t.tax_cents) FILTER (WHERE m.gross_cents >= 0), 0)::bigint AS charged'),
+        this.db.raw('COALESCE(-SUM(t.tax_cents) FILTER (WHERE m.gross_cents < 0), 0)::bigint AS refunded'),
+      );
+    return (rows as RawRow[]).map((r) => ({
+      code: String(r.code),
+      jurisdiction: String(r.jurisdiction),
+      taxableCents: Number(r.taxable),
+      taxCents: Number(r.charged),
+      refundedCents: Number(r.refunded),
+    }));
+  }
+
+  async revenue(range: DateRange): Promise<RevenueRow[]> {
+    const month = this.db.raw("to_char(m.occurred_at AT TIME ZONE ?, 'YYYY-MM')", [this.timeZone]);
+    const rows = await this.inRange(this.db('money_movements as m'), range)
+      .groupByRaw('1, 2')
+      .orderByRaw('1, 2')
+      .select(
+        this.db.raw('? AS month', [month]),
+        'm.source',
+        this.db.raw('COALESCE(SUM(m.gross_cents) FILTER (WHERE m.gross_cents > 0), 0)::bigint AS gross'),
+        this.db.raw('COALESCE(-SUM(m.gross_cents) FILTER (WHERE m.gross_cents < 0), 0)::bigint AS refunds'),
+        this.db.raw('COALESCE(SUM(m.fee_cents), 0)::bigint AS fees'),
+      );
+    return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source), grossCents: Number(r.gross), refundsCents: Number(r.refunds), feesCents: Number(r.fees) }));
+  }
+
+  /** Movements in date order, one page at a time, so an export never holds every row in memory. */
+  async ledgerPage(range: DateRange, afterId: number, limit: number): Promise<LedgerRow[]> {
+    const rows = await this.inRange(this.db('money_movements as m'), range)
+      .leftJoin('money_movement_taxes as t', 't.movement_id', 'm.id')
+      .where('m.id', '>', afterId)
+      .groupBy('m.id')
+      .orderBy('m.id')
+      .limit(limit)
+      .select(
+        'm.id',
+        this.db.raw("to_char(m.occurred_at AT TIME ZONE ?, 'YYYY-MM-DD') AS date", [this.timeZone]),
+        'm.kind',
+        'm.source',
+        'm.reference',
+        'm.counterparty',
+        'm.method',
+        'm.gross_cents',
+        'm.fee_cents',
+        'm.fee_estimated',
+        this.db.raw("COALESCE(jsonb_object_agg(t.code, t.tax_cents) FILTER (WHERE t.code IS NOT NULL), '{}'::jsonb) AS taxes"),
+      );
+    return (rows as RawRow[]).map((r) => ({
+      id: Number(r.id),
+      date: String(r.date),
+      kind: String(r.kind),
+      source: String(r.source),
+      reference: String(r.reference),
+      counterparty: String(r.counterparty),
+      method: String(r.method),
+      grossCents: Number(r.gross_cents),
+      feeCents: Number(r.fee_cents),
+      feeEstimated: r.fee_estimated === true,
+      taxes: Object.fromEntries(Object.entries(r.taxes as Record<string, string | number>).map(([k, v]) => [k, Number(v)])),
+    }));
+  }
+
+  /** Replaces the estimated fee of the movement for a charge with the processor's actual fee. */
+  async setActualFee(chargeId: string, feeCents: number): Promise<number> {
+    return this.db('money_movements').where({ processor_charge_id: chargeId, fee_estimated: true }).whereIn('kind', ['order_payment', 'dues_payment']).update({ fee_cents: feeCents, fee_estimated: false });
+  }
+
+  async sumsForToday(today: string, monthStart: string): Promise<{ salesToday: number; salesMonth: number; duesMonth: number }> {
+    const [row] = await this.inRange(this.db('money_movements as m'), { from: monthStart, to: today })
+      .select(
+        this.db.raw(
+          "COALESCE(SUM(m.gross_cents) FILTER (WHERE m.source = 'merch' AND m.kind = 'order_payment' AND (m.occurred_at AT TIME ZONE ?)::date = ?::date), 0)::bigint AS sales_today",
+          [this.timeZone, today],
+        ),
+        this.db.raw("COALESCE(SUM(m.gross_cents) FILTER (WHERE m.source = 'merch' AND m.kind = 'order_payment'), 0)::bigint AS sales_month"),
+        this.db.raw("COALESCE(SUM(m.gross_cents) FILTER (WHERE m.source = 'dues' AND m.gross_cents > 0), 0)::bigint AS dues_month"),
+      );
+    return { salesToday: Number(row.sales_today), salesMonth: Number(row.sales_month), duesMonth: Number(row.dues_month) };
+  }
+}

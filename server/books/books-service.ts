@@ -1,0 +1,111 @@
+import { dateInZone, type Clock } from '../platform/clock';
+import { centsToDecimal, toCsv } from '../platform/csv';
+import type { SettingsService } from '../settings/settings-service';
+import { BooksRepository } from './books-repository';
+import type { DashboardSources } from './dashboard-sources';
+import { checkRange, type DateRange } from './date-range';
+import { PROCESSOR_FEES, type ProcessorFeeSettings } from './processor-fees';
+
+const TAX_CODES = ['GST', 'HST', 'PST', 'QST', 'RST'] as const;
+const LEDGER_PAGE = 1000;
+
+/** The treasurer's reports. Every number is an SQL aggregate over money_movements. */
+export class BooksService {
+  readonly repo: BooksRepository;
+
+  constructor(
+    repo: BooksRepository,
+    private readonly settings: SettingsService,
+    private readonly clock: Clock,
+    private readonly timeZone: string,
+    private readonly sources: () => Partial<DashboardSources>,
+  ) {
+    this.repo = repo;
+  }
+
+  async taxReport(range: DateRange) {
+    checkRange(range);
+    const lines = (await this.repo.taxLines(range)).map((l) => ({ ...l, netCents: l.taxCents - l.refundedCents }));
+    return { from: range.from, to: range.to, timeZone: this.timeZone, lines };
+  }
+
+  async taxCsv(range: DateRange): Promise<string> {
+    const { lines } = await this.taxReport(range);
+    return toCsv(
+      ['tax', 'jurisdiction', 'taxable_sales', 'tax_charged', 'tax_refunded', 'net_owed'],
+      lines.map((l) => [l.code, l.jurisdiction, centsToDecimal(l.taxableCents), centsToDecimal(l.taxCents), centsToDecimal(l.refundedCents), centsToDecimal(l.netCents)]),
+    );
+  }
+
+  async revenue(range: DateRange) {
+    checkRange(range);
+    const rows = (await this.repo.revenue(range)).map((r) => ({ ...r, netCents: r.grossCents - r.refundsCents - r.feesCents }));
+    return { from: range.from, to: range.to, timeZone: this.timeZone, rows };
+  }
+
+  /** The ledger as CSV chunks, a page of movements at a time. */
+  async *ledgerCsv(range: DateRange): AsyncGenerator<string> {
+    checkRange(range);
+    yield toCsv(['date', 'kind', 'source', 'reference', 'counterparty', 'method', 'gross', ...TAX_CODES.map((c) => c.toLowerCase()), 'fee', 'fee_estimated', 'net'], []);
+    for (let after = 0; ; ) {
+      const page = await this.repo.ledgerPage(range, after, LEDGER_PAGE);
+      if (!page.length) return;
+      const rows = page.map((m) => [
+        m.date,
+        m.kind,
+        m.source,
+        m.reference,
+        m.counterparty,
+        m.method,
+        centsToDecimal(m.grossCents),
+        ...TAX_CODES.map((c) => (m.taxes[c] === undefined ? '' : centsToDecimal(m.taxes[c]))),
+        centsToDecimal(m.feeCents),
+        m.feeEstimated ? 'yes' : 'no',
+        centsToDecimal(m.grossCents - m.feeCents),
+      ]);
+      yield toCsv([], rows).replace(/^\r\n/, '');
+      after = page[page.length - 1].id;
+    }
+  }
+
+  feeSettings(): Promise<ProcessorFeeSettings> {
+    return this.settings.get(PROCESSOR_FEES);
+  }
+
+  saveFeeSettings(value: ProcessorFeeSettings): Promise<ProcessorFeeSettings> {
+    return this.settings.put(PROCESSOR_FEES, value);
+  }
+
+  /** The cards' numbers; a number whose feature is not installed is null. */
+  async dashboard() {
+    const today = dateInZone(this.clock.now(), this.timeZone);
+    const monthStart = today.slice(0, 8) + '01';
+    const src = this.sources();
+    const sums = await this.repo.sumsForToday(today, monthStart);
+    const yearStart = `${Number(today.slice(0, 4)) - 1}${today.slice(4, 8)}01`;
+    const [ordersAwaitingShipment, runsClosingSoon, overdueDeliverables, membersLapsingSoon, membersByStatus, revenue] = await Promise.all([
+      src.ordersAwaitingShipment?.() ?? null,
+      src.runsClosingWithin?.(7) ?? null,
+      src.overdueDeliverables?.() ?? null,
+      src.membersLapsingWithin?.(30) ?? null,
+      src.membersByStatus?.() ?? null,
+      this.repo.revenue({ from: yearStart, to: today }),
+    ]);
+    return {
+      today,
+      salesTodayCents: sums.salesToday,
+      salesMonthCents: sums.salesMonth,
+      duesMonthCents: sums.duesMonth,
+      ordersAwaitingShipment,
+      runsClosingSoon,
+      overdueDeliverables,
+      membersLapsingSoon,
+      membersByStatus,
+      revenueByMonth: revenue.map((r) => ({ month: r.month, source: r.source, netCents: r.grossCents - r.refundsCents - r.feesCents, grossCents: r.grossCents })),
+    };
+  }
+
+  unitsBySize(runId: number) {
+    return this.sources().unitsBySize?.(runId) ?? Promise.resolve([]);
+  }
+}

@@ -1,0 +1,12 @@
+/**
+ * Numbers the dashboard shows that belong to other features; each feature's service provides its own, so the
+ * books never read another feature's tables.
+ */
+export interface DashboardSources {
+  ordersAwaitingShipment(): Promise<number>;
+  runsClosingWithin(days: number): Promise<{ id: number; name: string; closesAt: string }[]>;
+  unitsBySize(runId: number): Promise<{ label: string; units: number }[]>;
+  overdueDeliverables(): Promise<{ sponsor: string; kind: string; dueOn: string; missing: number }[]>;
+  membersLapsingWithin(days: number): Promise<number>;
+  membersByStatus(): Promise<Record<string, number>>;
+}
