@@ -1,22 +1,27 @@
 import { Routes } from '@angular/router';
 import { roleGuard } from '../core/role-guard';
-import { PlaceholderPage } from '../shared/placeholder-page';
 import { ConsoleFrame } from './console-frame';
-
-const later = (heading: string, text: string) => ({ component: PlaceholderPage, data: { heading, text }, title: `${heading} — Padside console` });
 
 export const adminRoutes: Routes = [
   {
     path: '',
     component: ConsoleFrame,
     children: [
-      { path: '', pathMatch: 'full', ...later('Overview', 'The treasurer’s dashboard (sales, dues, tax to remit, overdue sponsor credits) arrives with the books work (issue 6).') },
+      { path: '', pathMatch: 'full', loadComponent: () => import('./dashboard/dashboard').then((m) => m.Dashboard), title: 'Overview — Padside console' },
       { path: 'users', canMatch: [roleGuard(['admin'])], loadComponent: () => import('./user-list').then((m) => m.UserList), title: 'Accounts — Padside console' },
-      { path: 'orders', ...later('Orders', 'Orders, fulfilment, refunds and print-run sheets arrive with the storefront work (issue 3).') },
-      { path: 'members', ...later('Members', 'The roster, dues payments and launch-day check-in arrive with the membership work (issue 4).') },
-      { path: 'posts', ...later('Build logs', 'The post editor arrives with the build-log and sponsor work (issue 5).') },
-      { path: 'sponsors', ...later('Sponsors', 'Sponsors, agreements and the credit ledger arrive with the build-log and sponsor work (issue 5).') },
-      { path: 'books', ...later('Books', 'Tax to remit, processor fees and the ledger export arrive with the books work (issue 6).') },
+      { path: 'orders', canMatch: [roleGuard(['treasurer', 'admin'])], loadComponent: () => import('./orders/order-list').then((m) => m.OrderList), title: 'Orders — Padside console' },
+      { path: 'orders/:id', canMatch: [roleGuard(['treasurer', 'admin'])], loadComponent: () => import('./orders/order-detail').then((m) => m.OrderDetail), title: 'Order — Padside console' },
+      { path: 'runs', canMatch: [roleGuard(['treasurer', 'admin'])], loadComponent: () => import('./runs/run-list').then((m) => m.RunList), title: 'Runs — Padside console' },
+      { path: 'runs/:id/print-sheet', canMatch: [roleGuard(['treasurer', 'admin'])], loadComponent: () => import('./runs/print-sheet').then((m) => m.PrintSheetPage), title: 'Print-run sheet — Padside console' },
+      { path: 'products', canMatch: [roleGuard(['treasurer', 'admin'])], loadComponent: () => import('./runs/product-admin').then((m) => m.ProductAdmin), title: 'Products — Padside console' },
+      { path: 'shop-settings', canMatch: [roleGuard(['treasurer', 'admin'])], loadComponent: () => import('./shop-settings/shop-settings').then((m) => m.ShopSettingsPage), title: 'Shop settings — Padside console' },
+      { path: 'members', canMatch: [roleGuard(['treasurer', 'admin'])], loadChildren: () => import('./members/members.routes').then((m) => m.membersRoutes) },
+      { path: 'check-in', loadComponent: () => import('./check-in/check-in').then((m) => m.CheckIn), title: 'Launch check-in — Padside console' },
+      { path: 'posts', canMatch: [roleGuard(['editor', 'admin'])], loadComponent: () => import('./posts/post-table').then((m) => m.PostTable), title: 'Build logs — Padside console' },
+      { path: 'posts/:id', canMatch: [roleGuard(['editor', 'admin'])], loadComponent: () => import('./posts/post-editor').then((m) => m.PostEditor), title: 'Edit build log — Padside console' },
+      { path: 'sponsors', loadComponent: () => import('./sponsors/sponsor-table').then((m) => m.SponsorTable), title: 'Sponsors — Padside console' },
+      { path: 'sponsors/:id', loadComponent: () => import('./sponsors/sponsor-detail').then((m) => m.SponsorDetail), title: 'Sponsor — Padside console' },
+      { path: 'books', canMatch: [roleGuard(['treasurer', 'admin'])], loadComponent: () => import('./books/books-page').then((m) => m.BooksPage), title: 'Books — Padside console' },
     ],
   },
 ];

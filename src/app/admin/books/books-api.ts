@@ -1,0 +1,75 @@
+import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable } from 'rxjs';
+import { QUIET_ERRORS } from '../../core/error-interceptor';
+
+export interface Period {
+  from: string;
+  to: string;
+}
+
+export interface TaxLine {
+  code: string;
+  jurisdiction: string;
+  taxableCents: number;
+  taxCents: number;
+  refundedCents: number;
+  netCents: number;
+}
+
+export interface RevenueRow {
+  month: string;
+  source: 'merch' | 'dues' | 'sponsor';
+  grossCents: number;
+  refundsCents: number;
+  feesCents: number;
+  netCents: number;
+}
+
+export interface FeeSettings {
+  percentBasisPoints: number;
+  fixedCents: number;
+  internationalExtraBasisPoints: number;
+}
+
+export interface Dashboard {
+  today: string;
+  salesTodayCents: number;
+  salesMonthCents: number;
+  duesMonthCents: number;
+  ordersAwaitingShipment: number | null;
+  runsClosingSoon: { id: number; name: string; closesAt: string }[] | null;
+  overdueDeliverables: { sponsor: string; kind: string; dueOn: string; missing: number }[] | null;
+  membersLapsingSoon: number | null;
+  membersByStatus: Record<string, number> | null;
+  revenueByMonth: { month: string; source: string; netCents: number; grossCents: number }[];
+}
+
+/** The treasurer's reports. */
+@Injectable({ providedIn: 'root' })
+export class BooksApi {
+  private readonly http = inject(HttpClient);
+
+  tax(p: Period): Observable<{ lines: TaxLine[]; timeZone: string }> {
+    return this.http.get<{ lines: TaxLine[]; timeZone: string }>('/api/admin/reports/tax', { params: new HttpParams({ fromObject: { ...p } }) });
+  }
+  revenue(p: Period): Observable<{ rows: RevenueRow[] }> {
+    return this.http.get<{ rows: RevenueRow[] }>('/api/admin/reports/revenue', { params: new HttpParams({ fromObject: { ...p } }) });
+  }
+  dashboard(): Observable<Dashboard> {
+    return this.http.get<Dashboard>('/api/admin/dashboard');
+  }
+  unitsBySize(runId: number): Observable<{ items: { label: string; units: number }[] }> {
+    return this.http.get<{ items: { label: string; units: number }[] }>('/api/admin/reports/units-by-size', { params: { runId } });
+  }
+  fees(): Observable<FeeSettings> {
+    return this.http.get<FeeSettings>('/api/admin/settings/processor-fees');
+  }
+  saveFees(s: FeeSettings): Observable<FeeSettings> {
+    return this.http.put<FeeSettings>('/api/admin/settings/processor-fees', s, { context: new HttpContext().set(QUIET_ERRORS, true) });
+  }
+  /** A link the browser downloads directly (the session cookie authorises it). */
+  csvUrl(report: 'tax.csv' | 'ledger.csv', p: Period): string {
+    return `/api/admin/reports/${report}?${new HttpParams({ fromObject: { ...p } }).toString()}`;
+  }
+}

@@ -1,0 +1,50 @@
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { RouterLink } from '@angular/router';
+import { MatCardModule } from '@angular/material/card';
+import { BaseChartDirective, provideCharts, withDefaultRegisterables } from 'ng2-charts';
+import type { ChartConfiguration } from 'chart.js';
+import { SessionStore } from '../../core/session-store';
+import { MoneyPipe } from '../../shared/money-pipe';
+import { BooksApi } from '../books/books-api';
+
+const SOURCES = [
+  { key: 'merch', label: 'Merch', colour: '#376286' },
+  { key: 'dues', label: 'Dues', colour: '#c8561f' },
+  { key: 'sponsor', label: 'Sponsor cash', colour: '#6a7988' },
+];
+const STATUS_COLOURS: Record<string, string> = { active: '#376286', lapsing: '#e8703a', lapsed: '#9eadbd', pending: '#c5c6cb' };
+
+/** The console's overview: today's numbers as cards, each linking to the table behind it, and three charts. */
+@Component({
+  selector: 'ps-dashboard',
+  imports: [RouterLink, MatCardModule, BaseChartDirective, MoneyPipe],
+  providers: [provideCharts(withDefaultRegisterables())],
+  templateUrl: './dashboard.html',
+  styleUrl: './dashboard.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class Dashboard {
+  private readonly api = inject(BooksApi);
+  protected readonly session = inject(SessionStore);
+  protected readonly canSeeBooks = computed(() => this.session.hasAnyRole(['treasurer', 'admin']));
+  protected readonly data = rxResource({ params: () => this.canSeeBooks() || undefined, stream: () => this.api.dashboard() });
+
+  protected readonly revenueChart = computed<ChartConfiguration<'bar'>['data']>(() => {
+    const rows = this.data.value()?.revenueByMonth ?? [];
+    const months = [...new Set(rows.map((r) => r.month))];
+    return {
+      labels: months,
+      datasets: SOURCES.map((s) => ({ label: s.label, backgroundColor: s.colour, data: months.map((m) => (rows.find((r) => r.month === m && r.source === s.key)?.netCents ?? 0) / 100) })),
+    };
+  });
+  protected readonly statusChart = computed<ChartConfiguration<'doughnut'>['data'] | null>(() => {
+    const byStatus = this.data.value()?.membersByStatus;
+    if (!byStatus) return null;
+    const labels = Object.keys(byStatus);
+    return { labels, datasets: [{ data: labels.map((l) => byStatus[l]), backgroundColor: labels.map((l) => STATUS_COLOURS[l] ?? '#8f9196') }] };
+  });
+  protected readonly statusSummary = computed(() => Object.entries(this.data.value()?.membersByStatus ?? {}).map(([s, n]) => `${s} ${n}`).join(', '));
+  protected readonly barOptions: ChartConfiguration<'bar'>['options'] = { responsive: true, maintainAspectRatio: false, scales: { x: { stacked: true }, y: { stacked: true } } };
+  protected readonly doughnutOptions: ChartConfiguration<'doughnut'>['options'] = { responsive: true, maintainAspectRatio: false };
+}
