@@ -1,0 +1,42 @@
+import { writeFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { buildTestApp } from '../test/helpers/test-app';
+import { createUser } from '../test/helpers/users';
+import type { AddressInfo } from 'node:net';
+import { BenchClient } from './bench-client';
+import type { BenchResult } from './bench-result';
+import { catalogueBench } from './catalogue';
+import { dropBench } from './drop';
+import { frontEndBench } from './front-end';
+import { reportsBench } from './reports';
+
+/** Runs every benchmark once, prints the table and writes bench/results.json. */
+async function main(): Promise<void> {
+  const t = buildTestApp();
+  const results: BenchResult[] = [];
+  try {
+    const admin = await createUser(t.deps.db, ['fan', 'admin', 'treasurer'], 'Bench Admin');
+    results.push(frontEndBench(process.env.BENCH_APP_DIST!, process.env.BENCH_EMPTY_DIST!));
+    results.push(await catalogueBench(t.app));
+    results.push(...(await dropBench(t.app, t.deps.db, admin.email, admin.password)));
+    const server = t.app.listen(0, '127.0.0.1');
+    await new Promise((r) => server.once('listening', r));
+    const treasurer = new BenchClient(`http://127.0.0.1:${(server.address() as AddressInfo).port}`);
+    await treasurer.post('/api/auth/login', { email: admin.email, password: admin.password });
+    results.push(...(await reportsBench(t.deps.db, treasurer)));
+    server.close();
+  } finally {
+    await t.close();
+  }
+  const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, ${Math.round(os.totalmem() / 2 ** 30)} GiB, Node ${process.version}, ${os.platform()} ${os.release()}`;
+  const rows = results.map((r) => `| ${r.name} | ${r.value} ${r.unit} | ${r.baseline ? `${r.baseline.name}: ${r.baseline.value}` : ''} | ${r.baseline?.ratio ?? ''} | ${r.notes ?? ''} |`);
+  const table = ['| benchmark | result | baseline (same run) | ratio | notes |', '|---|---|---|---|---|', ...rows].join('\n');
+  console.log(`\n${table}\n\nMachine: ${machine}\n`);
+  writeFileSync(path.join(__dirname, 'results.json'), JSON.stringify({ ranAt: new Date().toISOString(), machine, results }, null, 2) + '\n');
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});
