@@ -34,7 +34,6 @@ export class BooksPage {
   protected readonly revenue = rxResource({ params: () => this.period(), stream: ({ params }) => this.api.revenue(params) });
   protected readonly taxColumns = ['tax', 'taxable', 'charged', 'refunded', 'net'];
   protected readonly revenueColumns = ['month', 'source', 'gross', 'refunds', 'fees', 'net'];
-  protected readonly sourceLabels = SOURCE_LABELS;
 
   protected readonly taxCsv = computed(() => this.api.csvUrl('tax.csv', this.period()));
   protected readonly ledgerCsv = computed(() => this.api.csvUrl('ledger.csv', this.period()));
@@ -60,6 +59,10 @@ export class BooksPage {
 
   protected setPeriod(from: string, to: string): void {
     if (from && to) this.period.set({ from, to });
+  }
+
+  protected sourceLabel(source: string): string {
+    return SOURCE_LABELS[source as RevenueRow['source']] ?? source;
   }
 
   protected print(): void {
