@@ -9,8 +9,8 @@ module.exports = {
       testEnvironment: 'node',
       testMatch: ['<rootDir>/test/**/*.test.ts', '<rootDir>/server/**/*.test.ts'],
       transform: { '^.+\\.(t|j|mj)s$': swc },
-      // marked ships only ES modules.
-      transformIgnorePatterns: ['/node_modules/(?!marked/)'],
+      // marked and feed ship only ES modules.
+      transformIgnorePatterns: ['/node_modules/(?!(marked|feed)/)'],
       setupFilesAfterEnv: ['<rootDir>/test/helpers/jest-timeouts.ts'],
     },
     {

@@ -1,6 +1,15 @@
+import { membershipFeature } from './membership/membership-feature';
+import { buildLogsFeature } from './build-logs/build-logs-feature';
+import { booksFeature } from './books/books-feature';
 import type { Feature, Platform } from './platform/feature';
+import { shopFeature } from './shop/shop-feature';
 
 /** Every feature of Padside, in mounting order. Add one line per feature. */
-export function buildFeatures(_platform: Platform): Feature[] {
-  return [];
+export function buildFeatures(platform: Platform): Feature[] {
+  return [
+    buildLogsFeature(platform),
+    membershipFeature(platform),
+    shopFeature(platform),
+    booksFeature(platform, () => ({})),
+  ];
 }

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
+import { conflict } from '../platform/app-error';
 import { estimateFeeCents, PROCESSOR_FEES } from '../books/processor-fees';
 import type { PaymentGateway } from '../payments/payment-gateway';
 import { SavedCards } from '../payments/saved-cards';
@@ -9,7 +10,7 @@ import type { MembershipRepository, MembershipRow, PlanRow } from './membership-
 import type { Term, TermPolicy } from './terms';
 
 /** How a term is paid by card: a one-time token, or the card saved with the processor. */
-export type CardSource = { token: string } | { customerId: string; attempt: number };
+export type CardSource = { token: string } | { customerId: string; keyTail: string };
 
 export type CardDuesResult = { outcome: 'paid'; membership: MembershipRow } | { outcome: 'declined' | 'unknown'; message: string };
 
@@ -32,11 +33,18 @@ export class CardDues {
 
   /** Charges the term and, when paid, settles it; a decline or unknown outcome is recorded on the payment row. */
   async pay(m: MembershipRow, plan: PlanRow, term: Term, amountCents: number, source: CardSource, ctx: { today: string; policy: TermPolicy; actorUserId: number | null; at: Date }): Promise<CardDuesResult> {
-    const tail = 'token' in source ? createHash('sha256').update(source.token).digest('hex').slice(0, 16) : `saved-${source.attempt}`;
+    const tail = 'token' in source ? createHash('sha256').update(source.token).digest('hex').slice(0, 16) : `saved-${source.keyTail}`;
     const key = `card:${m.id}:${term.end}:${tail}`;
     const earlier = await this.repo.paymentByKey(key);
     if (earlier?.status === 'paid') return { outcome: 'paid', membership: (await this.repo.byId(Number(m.id)))! };
-    const payment = earlier ?? (await this.repo.insertPayment(this.db, { membership_id: m.id, plan_id: plan.id, status: 'attempted', method: 'card', amount_cents: amountCents, idempotency_key: key, term_start: term.start, term_end: term.end }));
+    const payment =
+      earlier ??
+      (await this.repo
+        .insertPayment(this.db, { membership_id: m.id, plan_id: plan.id, status: 'attempted', method: 'card', amount_cents: amountCents, idempotency_key: key, term_start: term.start, term_end: term.end, created_at: ctx.at })
+        .catch((err: { code?: string }) => {
+          // A second submit of the same payment while the first is still with the processor.
+          throw err.code === '23505' ? conflict('payment_in_progress', 'This payment is already being processed; check your membership in a moment.') : err;
+        }));
     const description = `Club dues ${term.start} to ${term.end}, member ${m.member_number}`;
     const metadata = { membershipPayment: String(payment.id), memberNumber: m.member_number };
     const result =

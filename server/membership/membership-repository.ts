@@ -101,11 +101,22 @@ export interface RosterQuery {
   dir: 'asc' | 'desc';
 }
 
-const SORT_COLUMNS: Record<RosterQuery['sort'], string> = {
+/** The day and grace the roster's status is computed for, so filters match what the table shows. */
+export interface AsOf {
+  today: string;
+  graceDays: number;
+}
+
+/** The status the dates give (the same rule as `statusOn`), so a stale stored status never hides a member. */
+const LIVE_STATUS =
+  "(CASE WHEN m.term_end IS NULL THEN 'pending' WHEN m.term_end >= ?::date THEN 'active' " +
+  "WHEN m.renewal_failed_at IS NOT NULL OR m.term_end + ?::int < ?::date THEN 'lapsed' ELSE 'lapsing' END)";
+const liveBindings = (a: AsOf) => [a.today, a.graceDays, a.today];
+
+const SORT_COLUMNS: Record<Exclude<RosterQuery['sort'], 'status'>, string> = {
   memberNumber: 'm.member_number',
   name: 'm.legal_name',
   termEnd: 'm.term_end',
-  status: 'm.status',
   plan: 'p.name',
   associationExpires: 'm.association_expires',
 };
@@ -220,12 +231,12 @@ export class MembershipRepository {
       .orderBy([{ column: 'a.created_at', order: 'desc' }, { column: 'a.id', order: 'desc' }]);
   }
 
-  private roster(q: Omit<RosterQuery, 'sort' | 'dir'>) {
+  private roster(q: Omit<RosterQuery, 'sort' | 'dir'>, asOf: AsOf) {
     return this.db('memberships as m')
       .join('users as u', 'u.id', 'm.user_id')
       .join('membership_plans as p', 'p.id', 'm.plan_id')
       .modify((qb) => {
-        if (q.status) qb.where('m.status', q.status);
+        if (q.status) qb.whereRaw(`${LIVE_STATUS} = ?`, [...liveBindings(asOf), q.status]);
         if (q.planId) qb.where('m.plan_id', q.planId);
         if (q.certificationLevel) qb.where('m.certification_level', q.certificationLevel);
         if (q.associationExpiresBefore) qb.where((w) => w.where('m.association_expires', '<', q.associationExpiresBefore!).orWhereNull('m.association_expires'));
@@ -237,21 +248,23 @@ export class MembershipRepository {
   }
 
   /** One page of the roster, sorted by a whitelisted column with the member number as tie-break. */
-  async rosterPage(q: RosterQuery, page: number, pageSize: number): Promise<{ items: RosterRow[]; total: number }> {
-    const [{ count }] = await this.roster(q).count<{ count: string }[]>({ count: '*' });
-    const items = await this.rosterSorted(q).limit(pageSize).offset((page - 1) * pageSize);
+  async rosterPage(q: RosterQuery, page: number, pageSize: number, asOf: AsOf): Promise<{ items: RosterRow[]; total: number }> {
+    const [{ count }] = await this.roster(q, asOf).count<{ count: string }[]>({ count: '*' });
+    const items = await this.rosterSorted(q, asOf).limit(pageSize).offset((page - 1) * pageSize);
     return { items, total: Number(count) };
   }
 
   /** Every roster line matching the filters, in the table's order (for the export and roster e-mail). */
-  rosterAll(q: RosterQuery): Promise<RosterRow[]> {
-    return this.rosterSorted(q);
+  rosterAll(q: RosterQuery, asOf: AsOf): Promise<RosterRow[]> {
+    return this.rosterSorted(q, asOf);
   }
 
-  private rosterSorted(q: RosterQuery) {
-    return this.roster(q)
-      .select('m.*', 'u.email', 'u.marketing_opt_out', 'p.code as plan_code', 'p.name as plan_name')
-      .orderByRaw(`${SORT_COLUMNS[q.sort]} ${q.dir === 'desc' ? 'DESC' : 'ASC'} NULLS LAST, m.member_number ASC`);
+  private rosterSorted(q: RosterQuery, asOf: AsOf) {
+    const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
+    const base = this.roster(q, asOf).select('m.*', 'u.email', 'u.marketing_opt_out', 'p.code as plan_code', 'p.name as plan_name');
+    return q.sort === 'status'
+      ? base.orderByRaw(`${LIVE_STATUS} ${dir}, m.member_number ASC`, liveBindings(asOf))
+      : base.orderByRaw(`${SORT_COLUMNS[q.sort]} ${dir} NULLS LAST, m.member_number ASC`);
   }
 
   /** Memberships that have paid at least once, with what the reminder and renewal jobs need. */
@@ -276,7 +289,9 @@ export class MembershipRepository {
       .orderByRaw('1 DESC, p.code');
   }
 
-  countsByStatus(db: Db = this.db): Promise<{ status: MembershipStatus; count: string }[]> {
-    return db('memberships').select('status').count({ count: '*' }).groupBy('status').orderBy('status');
+  /** Members per status as the dates give it on `asOf.today`. */
+  async countsByStatus(asOf: AsOf): Promise<{ status: MembershipStatus; count: string }[]> {
+    const { rows } = await this.db.raw(`SELECT ${LIVE_STATUS} AS status, count(*) AS count FROM memberships m GROUP BY 1`, liveBindings(asOf));
+    return rows;
   }
 }

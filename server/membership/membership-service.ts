@@ -1,6 +1,6 @@
+import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import QRCode from 'qrcode';
-import type { UserRepository } from '../auth/user-repository';
 import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
 import { dateInZone, type Clock } from '../platform/clock';
 import type { SessionUser } from '../platform/roles';
@@ -8,7 +8,7 @@ import type { SettingsService } from '../settings/settings-service';
 import type { CardDues, CardSource } from './card-dues';
 import type { CheckInTokens } from './check-in-token';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
-import type { MembershipRepository, MembershipRow, PlanRow } from './membership-repository';
+import { dateOnly, type MembershipRepository, type MembershipRow, type PlanRow } from './membership-repository';
 import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
 import { membershipView, planView } from './membership-views';
 import { duesFor, isJuniorOn, termForPayment, type Term } from './terms';
@@ -53,10 +53,9 @@ export class MembershipService {
   constructor(
     private readonly db: Knex,
     private readonly repo: MembershipRepository,
-    private readonly users: UserRepository,
     private readonly settings: SettingsService,
     private readonly settlement: DuesSettlement,
-    private readonly card: CardDues,
+    private readonly cardDues: CardDues,
     private readonly tokens: CheckInTokens,
     private readonly clock: Clock,
     private readonly timeZone: string,
@@ -124,19 +123,23 @@ export class MembershipService {
       safety_code_accepted_at: at,
       auto_renew: input.autoRenew ?? false,
     };
-    let m = await this.db.transaction(async (trx) => {
-      const created = existing
-        ? await this.repo.update(trx, Number(existing.id), row)
-        : await this.repo.insert(trx, { ...row, user_id: String(user.id), status: 'pending', term_start: null, term_end: null, processor_customer_id: null });
-      await this.repo.replaceFamily(trx, Number(created.id), plan.eligibility === 'family' ? (input.profile.familyMembers ?? []) : []);
-      await this.repo.addAudit(trx, Number(created.id), user.id, existing ? 'profile_resubmitted' : 'joined', { plan: plan.code, waiverVersion: s.waiverVersion, safetyCodeVersion: s.safetyCodeVersion });
-      return created;
-    });
+    let m = await this.db
+      .transaction(async (trx) => {
+        const created = existing
+          ? await this.repo.update(trx, Number(existing.id), row)
+          : await this.repo.insert(trx, { ...row, user_id: String(user.id), status: 'pending', term_start: null, term_end: null, processor_customer_id: null });
+        await this.repo.replaceFamily(trx, Number(created.id), plan.eligibility === 'family' ? (input.profile.familyMembers ?? []) : []);
+        await this.repo.addAudit(trx, Number(created.id), user.id, existing ? 'profile_resubmitted' : 'joined', { plan: plan.code, waiverVersion: s.waiverVersion, safetyCodeVersion: s.safetyCodeVersion });
+        return created;
+      })
+      .catch((err: { code?: string }) => {
+        // Two join submits at once: the account's one membership row already exists.
+        throw err.code === '23505' ? conflict('already_member', 'Your membership is already being set up; reload the page.') : err;
+      });
     const source = input.autoRenew ? await this.saveCard(m, user, input.paymentToken) : { token: input.paymentToken };
     if ('customerId' in source) m = (await this.repo.byId(Number(m.id)))!;
-    const result = await this.card.pay(m, plan, priced.term, priced.amountCents, source, { today, policy, actorUserId: user.id, at });
-    if (result.outcome === 'declined') throw declined(result.message);
-    if (result.outcome === 'unknown') throw unknownOutcome();
+    const result = await this.cardDues.pay(m, plan, priced.term, priced.amountCents, source, { today, policy, actorUserId: user.id, at });
+    if (result.outcome !== 'paid') throw result.outcome === 'declined' ? declined(result.message) : unknownOutcome();
     return { membership: membershipView(result.membership, plan, today, policy, s) };
   }
 
@@ -150,7 +153,7 @@ export class MembershipService {
     if (m.waiver_version !== s.waiverVersion || m.safety_code_version !== s.safetyCodeVersion) this.checkAcceptance(s, input.waiverVersion, input.safetyCodeVersion);
     const today = this.today();
     const priced = this.price(plan, m, today, s);
-    if (plan.eligibility === 'junior' && !isJuniorOn(m.legal_name ? String(this.dob(m)) : '', priced.term.start)) {
+    if (plan.eligibility === 'junior' && !isJuniorOn(dateOnly(m.date_of_birth)!, priced.term.start)) {
       throw badRequest('The junior plan is for members under 18 on the first day of the term; choose another plan.', { planId: 'You are 18 or over on the first day of the new term.' });
     }
     if (!input.paymentToken && !m.processor_customer_id) throw badRequest('Choose a card to pay with.', { paymentToken: 'Choose a card to pay with.' });
@@ -160,22 +163,14 @@ export class MembershipService {
       if (m.waiver_version !== s.waiverVersion || m.safety_code_version !== s.safetyCodeVersion) {
         Object.assign(patch, { waiver_version: s.waiverVersion, waiver_accepted_at: at, safety_code_version: s.safetyCodeVersion, safety_code_accepted_at: at });
       }
-      const p = input.profile ?? {};
-      if (p.associationNumber !== undefined) patch.association_number = p.associationNumber;
-      if (p.associationExpires !== undefined) patch.association_expires = p.associationExpires;
-      if (p.certificationLevel !== undefined) patch.certification_level = this.checkLevel(s, p.certificationLevel);
-      if (p.certificationDate !== undefined) patch.certification_date = p.certificationDate;
-      if (p.address !== undefined) patch.address = p.address;
-      if (p.phone !== undefined) patch.phone = p.phone;
-      if (p.emergencyContact !== undefined) patch.emergency_contact = p.emergencyContact;
+      Object.assign(patch, this.profilePatch(s, input.profile ?? {}));
       const row = await this.repo.update(trx, Number(m.id), patch);
       await this.repo.addAudit(trx, Number(m.id), user.id, 'renewal_started', { plan: plan.code, changed: Object.keys(patch) });
       return row;
     });
-    const source: CardSource = input.paymentToken ? { token: input.paymentToken } : { customerId: m.processor_customer_id!, attempt: 0 };
-    const result = await this.card.pay(updated, plan, priced.term, priced.amountCents, source, { today, policy, actorUserId: user.id, at });
-    if (result.outcome === 'declined') throw declined(result.message);
-    if (result.outcome === 'unknown') throw unknownOutcome();
+    const source: CardSource = input.paymentToken ? { token: input.paymentToken } : { customerId: m.processor_customer_id!, keyTail: `member-${randomUUID()}` };
+    const result = await this.cardDues.pay(updated, plan, priced.term, priced.amountCents, source, { today, policy, actorUserId: user.id, at });
+    if (result.outcome !== 'paid') throw result.outcome === 'declined' ? declined(result.message) : unknownOutcome();
     return { membership: membershipView(result.membership, plan, today, policy, s) };
   }
 
@@ -189,7 +184,21 @@ export class MembershipService {
     await this.db.transaction(async (trx) => this.settlement.refreshStatus(trx, (await this.repo.byId(Number(m!.id), trx, true))!, today, policy, userId));
     m = (await this.repo.byId(Number(m.id)))!;
     const family = await this.repo.family(Number(m.id));
-    return { membership: { ...membershipView(m, await this.repo.plan(Number(m.plan_id)), today, policy, s), familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: String(f.date_of_birth instanceof Date ? this.dob({ date_of_birth: f.date_of_birth } as MembershipRow) : f.date_of_birth) })) } };
+    return { membership: { ...membershipView(m, await this.repo.plan(Number(m.plan_id)), today, policy, s), familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: dateOnly(f.date_of_birth) })) } };
+  }
+
+  /** The member's own corrections between renewals (a renewed association expiry, a new certification); audited. */
+  async updateProfile(user: SessionUser, input: NonNullable<RenewInput['profile']>) {
+    const s = await this.settings.get(MEMBERSHIP_SETTINGS);
+    const patch = this.profilePatch(s, input, 'certificationLevel');
+    await this.db.transaction(async (trx) => {
+      const m = await this.repo.byUser(user.id, trx, true);
+      if (!m) throw notFound('You have no membership yet.');
+      if (!Object.keys(patch).length) return;
+      await this.repo.update(trx, Number(m.id), patch);
+      await this.repo.addAudit(trx, Number(m.id), user.id, 'profile_updated', { changed: Object.keys(patch) });
+    });
+    return this.me(user.id);
   }
 
   /** Turns auto-renew on or off; `paymentToken` puts a new card on file. */
@@ -233,11 +242,11 @@ export class MembershipService {
 
   private async saveCard(m: MembershipRow, user: SessionUser, token: string): Promise<CardSource> {
     const saved = m.processor_customer_id
-      ? await this.card.savedCards.replace(m.processor_customer_id, token)
-      : await this.card.savedCards.save(token, user.email, m.legal_name, `customer:${m.id}:${token}`);
+      ? await this.cardDues.savedCards.replace(m.processor_customer_id, token)
+      : await this.cardDues.savedCards.save(token, user.email, m.legal_name, `customer:${m.id}:${token}`);
     if (saved.outcome === 'declined') throw declined(saved.message);
     if (saved.customerId !== m.processor_customer_id) await this.repo.update(this.db, Number(m.id), { processor_customer_id: saved.customerId });
-    return { customerId: saved.customerId, attempt: 0 };
+    return { customerId: saved.customerId, keyTail: `join-${randomUUID()}` };
   }
 
   private async activePlan(planId: number): Promise<PlanRow> {
@@ -248,7 +257,7 @@ export class MembershipService {
 
   private price(plan: PlanRow, m: MembershipRow | undefined, today: string, s: MembershipSettings) {
     const policy = termPolicy(s);
-    const currentEnd = m?.term_end ? String(this.dateCol(m.term_end)) : null;
+    const currentEnd = dateOnly(m?.term_end);
     const term = termForPayment(today, currentEnd, policy);
     const duesCents = duesFor(plan.dues_cents, term, policy);
     const joiningFeeCents = currentEnd ? 0 : plan.joining_fee_cents;
@@ -262,8 +271,20 @@ export class MembershipService {
     }
   }
 
-  private checkLevel(s: MembershipSettings, level: string): string {
-    if (!s.certificationLevels.some((l) => l.code === level)) throw badRequest('Choose a certification level from the list.', { 'profile.certificationLevel': 'Choose a level from the list.' });
+  private profilePatch(s: MembershipSettings, p: NonNullable<RenewInput['profile']>, field = 'profile.certificationLevel'): Partial<MembershipRow> {
+    const patch: Partial<MembershipRow> = {};
+    if (p.associationNumber !== undefined) patch.association_number = p.associationNumber;
+    if (p.associationExpires !== undefined) patch.association_expires = p.associationExpires;
+    if (p.certificationLevel !== undefined) patch.certification_level = this.checkLevel(s, p.certificationLevel, field);
+    if (p.certificationDate !== undefined) patch.certification_date = p.certificationDate;
+    if (p.address !== undefined) patch.address = p.address;
+    if (p.phone !== undefined) patch.phone = p.phone;
+    if (p.emergencyContact !== undefined) patch.emergency_contact = p.emergencyContact;
+    return patch;
+  }
+
+  private checkLevel(s: MembershipSettings, level: string, field = 'profile.certificationLevel'): string {
+    if (!s.certificationLevels.some((l) => l.code === level)) throw badRequest('Choose a certification level from the list.', { [field]: 'Choose a level from the list.' });
     return level;
   }
 
@@ -274,16 +295,5 @@ export class MembershipService {
     }
     if (plan.eligibility !== 'family' && p.familyMembers?.length) throw badRequest('Only the family plan covers more people.', { 'profile.familyMembers': 'Choose the family plan to add family members.' });
     this.checkLevel(s, p.certificationLevel ?? 'none');
-  }
-
-  private dateCol(v: Date | string): string {
-    return typeof v === 'string' ? v.slice(0, 10) : this.dob({ date_of_birth: v } as MembershipRow);
-  }
-
-  private dob(m: Pick<MembershipRow, 'date_of_birth'>): string {
-    const v = m.date_of_birth;
-    if (typeof v === 'string') return v.slice(0, 10);
-    const p = (n: number) => String(n).padStart(2, '0');
-    return `${v.getFullYear()}-${p(v.getMonth() + 1)}-${p(v.getDate())}`;
   }
 }

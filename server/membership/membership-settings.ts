@@ -8,19 +8,23 @@ const levelCode = z.string().trim().min(1).max(16).regex(/^[a-z0-9-]+$/i, 'Use l
  * The club's membership rules. The late-season date (joining from it covers the rest of the year and all of next)
  * is common club practice, no source; the demo club uses Sep 1 and a 30-day grace.
  */
-export const MEMBERSHIP_SETTINGS = defineSetting(
+export const MembershipSettingsSchema = z.object({
+  termRule: z.enum(['calendar', 'anniversary']),
+  lateSeasonFrom: z.string().regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'Use MM-DD.'),
+  graceDays: z.number().int().min(0).max(180),
+  prorate: z.boolean(),
+  waiverVersion: z.string().trim().min(1).max(32),
+  waiverText: z.string().trim().min(1).max(8000),
+  safetyCodeVersion: z.string().trim().min(1).max(32),
+  associationName: z.string().trim().min(1).max(120),
+  certificationLevels: z.array(z.object({ code: levelCode, label: z.string().trim().min(1).max(80) })).min(1).max(12),
+});
+
+export type MembershipSettings = z.infer<typeof MembershipSettingsSchema>;
+
+export const MEMBERSHIP_SETTINGS = defineSetting<MembershipSettings>(
   'membership',
-  z.object({
-    termRule: z.enum(['calendar', 'anniversary']),
-    lateSeasonFrom: z.string().regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'Use MM-DD.'),
-    graceDays: z.number().int().min(0).max(180),
-    prorate: z.boolean(),
-    waiverVersion: z.string().trim().min(1).max(32),
-    waiverText: z.string().trim().min(1).max(8000),
-    safetyCodeVersion: z.string().trim().min(1).max(32),
-    associationName: z.string().trim().min(1).max(120),
-    certificationLevels: z.array(z.object({ code: levelCode, label: z.string().trim().min(1).max(80) })).min(1).max(12),
-  }),
+  MembershipSettingsSchema,
   {
     termRule: 'calendar',
     lateSeasonFrom: '09-01',
@@ -41,5 +45,3 @@ export const MEMBERSHIP_SETTINGS = defineSetting(
     ],
   },
 );
-
-export type MembershipSettings = z.infer<typeof MEMBERSHIP_SETTINGS.schema>;

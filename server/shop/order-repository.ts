@@ -91,8 +91,9 @@ export interface OrderFilter {
 export const ORDER_SORTS = { created: 'o.created_at', number: 'o.number', email: 'o.email', total: 'o.total_cents', status: 'o.status' } as const;
 
 type Db = Knex | Knex.Transaction;
-const ORDER_COLUMNS = ['*', { priced_on: 'priced_on_text' }];
 const fix = (r: Record<string, unknown>): OrderRow => ({ ...(r as unknown as OrderRow), id: Number(r.id), user_id: r.user_id === null ? null : Number(r.user_id), priced_on: r.priced_on_text as string });
+
+const withUnits = (r: Record<string, unknown>) => ({ ...fix(r), units: Number(r.units) });
 
 /** Orders as plain rows; stock and run counts move only through the conditional updates here. */
 export class OrderRepository {
@@ -184,7 +185,7 @@ export class OrderRepository {
   }
 
   async find(id: number, trx: Db = this.db, forUpdate = false): Promise<OrderBundle | null> {
-    const q = trx('shop_orders').select(...ORDER_COLUMNS, trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('id', id).first();
+    const q = trx('shop_orders').select('*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('id', id).first();
     if (forUpdate) q.forUpdate();
     const row = await q;
     if (!row) return null;
@@ -200,7 +201,7 @@ export class OrderRepository {
   }
 
   async forUser(userId: number): Promise<OrderRow[]> {
-    const rows = await this.db('shop_orders').select(...ORDER_COLUMNS, this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('user_id', userId).orderBy('created_at', 'desc').limit(200);
+    const rows = await this.db('shop_orders').select('*', this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('user_id', userId).orderBy('created_at', 'desc').limit(200);
     return rows.map(fix);
   }
 
@@ -226,20 +227,19 @@ export class OrderRepository {
   async page(f: OrderFilter, sort: keyof typeof ORDER_SORTS, dir: 'asc' | 'desc', page: number, pageSize: number): Promise<{ items: (OrderRow & { units: number })[]; total: number }> {
     const [{ count }] = await this.filtered(f).count<{ count: string }[]>('* as count');
     const rows = await this.rowsFor(f, sort, dir).limit(pageSize).offset((page - 1) * pageSize);
-    return { items: rows, total: Number(count) };
+    return { items: rows.map(withUnits), total: Number(count) };
   }
 
   /** Every matching order (CSV export), at most 10,000. */
   async all(f: OrderFilter, sort: keyof typeof ORDER_SORTS, dir: 'asc' | 'desc'): Promise<(OrderRow & { units: number })[]> {
-    return this.rowsFor(f, sort, dir).limit(10000);
+    return (await this.rowsFor(f, sort, dir).limit(10000)).map(withUnits);
   }
 
   private rowsFor(f: OrderFilter, sort: keyof typeof ORDER_SORTS, dir: 'asc' | 'desc') {
     return this.filtered(f)
       .select('o.*', this.db.raw("to_char(o.priced_on, 'YYYY-MM-DD') as priced_on_text"), this.db.raw('(SELECT coalesce(sum(quantity), 0)::int FROM shop_order_items WHERE order_id = o.id) as units'))
       .orderBy(ORDER_SORTS[sort], dir)
-      .orderBy('o.id', dir)
-      .then((rows: Record<string, unknown>[]) => rows.map((r) => ({ ...fix(r), units: Number(r.units) })));
+      .orderBy('o.id', dir);
   }
 
   async insertRefund(trx: Knex.Transaction, r: { orderId: number; amountCents: number; restocked: boolean; processorRefundId: string | null; origin: 'staff' | 'processor'; createdBy: number | null; now: Date }): Promise<number> {

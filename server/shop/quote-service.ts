@@ -81,24 +81,29 @@ export class QuoteService {
     const problems: FieldErrors = {};
     let soldOut = false;
     let weight = 0;
-    [...wanted.entries()].forEach(([variantId, quantity]) => {
+    for (const [variantId, quantity] of wanted) {
       const field = `items.${req.items.findIndex((i) => i.variantId === variantId)}`;
       const b = bundles.find((x) => x.variants.some((v) => v.id === variantId));
-      if (!b || !b.product.active) return void (problems[`${field}.variantId`] = 'This item is no longer sold.');
+      if (!b || !b.product.active) {
+        problems[`${field}.variantId`] = 'This item is no longer sold.';
+        continue;
+      }
       const view = productView(b, now);
       const v = view.variants.find((x) => x.id === variantId)!;
       if (b.run && view.run?.state !== 'open') {
         soldOut ||= view.run?.state === 'sold_out';
-        return void (problems[`${field}.quantity`] = runClosedMessage(view.run?.state));
+        problems[`${field}.quantity`] = runClosedMessage(view.run?.state);
+        continue;
       }
       const left = variantRemaining(b, variantId);
       if (quantity > left) {
         soldOut = true;
-        return void (problems[`${field}.quantity`] = left === 0 ? `${b.product.name} (${v.label}) is sold out.` : `Only ${left} of ${b.product.name} (${v.label}) left.`);
+        problems[`${field}.quantity`] = left === 0 ? `${b.product.name} (${v.label}) is sold out.` : `Only ${left} of ${b.product.name} (${v.label}) left.`;
+        continue;
       }
       weight += v.weightGrams * quantity;
       lines.push(line(b, variantId, quantity, v.priceCents));
-    });
+    }
     if (Object.keys(problems).length) {
       throw soldOut ? conflict('sold_out', 'Part of the cart is sold out.', problems) : conflict('not_available', 'Part of the cart cannot be ordered now.', problems);
     }

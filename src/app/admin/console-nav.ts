@@ -11,7 +11,11 @@ export interface ConsoleLink {
 export const CONSOLE_LINKS: readonly ConsoleLink[] = [
   { path: '/console', label: 'Overview', icon: 'space_dashboard', roles: ['editor', 'treasurer', 'admin'] },
   { path: '/console/orders', label: 'Orders', icon: 'local_shipping', roles: ['treasurer', 'admin'] },
+  { path: '/console/runs', label: 'Runs', icon: 'checkroom', roles: ['treasurer', 'admin'] },
+  { path: '/console/products', label: 'Products', icon: 'sell', roles: ['treasurer', 'admin'] },
+  { path: '/console/shop-settings', label: 'Shop settings', icon: 'tune', roles: ['treasurer', 'admin'] },
   { path: '/console/members', label: 'Members', icon: 'badge', roles: ['treasurer', 'admin'] },
+  { path: '/console/check-in', label: 'Check-in', icon: 'qr_code_scanner', roles: ['editor', 'treasurer', 'admin'] },
   { path: '/console/posts', label: 'Build logs', icon: 'edit_note', roles: ['editor', 'admin'] },
   { path: '/console/sponsors', label: 'Sponsors', icon: 'handshake', roles: ['editor', 'treasurer', 'admin'] },
   { path: '/console/books', label: 'Books', icon: 'account_balance', roles: ['treasurer', 'admin'] },

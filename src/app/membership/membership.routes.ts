@@ -1,6 +1,7 @@
 import { Routes } from '@angular/router';
-import { PlaceholderPage } from '../shared/placeholder-page';
+import { signedInGuard } from '../core/role-guard';
 
 export const membershipRoutes: Routes = [
-  { path: '', component: PlaceholderPage, data: { heading: 'Club dues', text: 'Joining and renewing club membership arrives here with the membership work (issue 4).' }, title: 'Club dues — Padside' },
+  { path: '', loadComponent: () => import('./membership-home').then((m) => m.MembershipHome), title: 'Club dues — Padside' },
+  { path: 'card', canMatch: [signedInGuard], loadComponent: () => import('./member-card').then((m) => m.MemberCard), title: 'Member card — Padside' },
 ];

@@ -1,6 +1,11 @@
 import { Routes } from '@angular/router';
-import { PlaceholderPage } from '../shared/placeholder-page';
+import { signedInGuard } from '../core/role-guard';
 
 export const shopRoutes: Routes = [
-  { path: '', component: PlaceholderPage, data: { heading: 'Merch', text: 'Limited-run shirts and club merch arrive here with the storefront work (issue 3).' }, title: 'Merch — Padside' },
+  { path: '', loadComponent: () => import('./product-grid').then((m) => m.ProductGrid), title: 'Merch — Padside' },
+  { path: 'p/:slug', loadComponent: () => import('./product-page').then((m) => m.ProductPage), title: 'Merch — Padside' },
+  { path: 'cart', loadComponent: () => import('./cart-page').then((m) => m.CartPage), title: 'Your cart — Padside' },
+  { path: 'checkout', loadComponent: () => import('./checkout').then((m) => m.Checkout), title: 'Checkout — Padside' },
+  { path: 'orders', canMatch: [signedInGuard], loadComponent: () => import('./my-orders').then((m) => m.MyOrders), title: 'My orders — Padside' },
+  { path: 'orders/:id', loadComponent: () => import('./order-page').then((m) => m.OrderPage), title: 'Order — Padside' },
 ];

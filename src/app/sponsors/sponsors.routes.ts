@@ -1,6 +1,7 @@
 import { Routes } from '@angular/router';
-import { PlaceholderPage } from '../shared/placeholder-page';
+import { roleGuard } from '../core/role-guard';
 
 export const sponsorRoutes: Routes = [
-  { path: '', component: PlaceholderPage, data: { heading: 'Sponsors', text: 'The sponsors page and portal arrive here with the build-log and sponsor work (issue 5).' }, title: 'Sponsors — Padside' },
+  { path: '', loadComponent: () => import('./sponsor-wall').then((m) => m.SponsorWall), title: 'Sponsors — Padside' },
+  { path: 'portal', canMatch: [roleGuard(['sponsor'])], loadComponent: () => import('./sponsor-portal').then((m) => m.SponsorPortal), title: 'Sponsor portal — Padside' },
 ];

@@ -1,0 +1,25 @@
+// `npm run bench`: benchmarks against a throwaway stack; prints a table and writes bench/results.json.
+// Never part of `npm test`.
+import { spawnSync } from 'node:child_process';
+import path from 'node:path';
+
+const root = path.resolve(path.dirname(new URL(import.meta.url).pathname), '..');
+process.chdir(root);
+const { ensureChromium } = await import('./stack/system.mjs');
+const { startThrowawayStack } = await import('./stack/throwaway.mjs');
+
+const stack = await startThrowawayStack('bench');
+let code = 1;
+try {
+  const env = { ...stack.env, CHROMIUM_PATH: ensureChromium(), BENCH_APP_DIST: path.join(stack.tmp, 'app'), BENCH_EMPTY_DIST: path.join(stack.tmp, 'empty-app') };
+  const run = (cmd, args) => spawnSync(cmd, args, { stdio: 'inherit', env }).status === 0;
+  const ok =
+    run('npx', ['ng', 'build', '--output-path', env.BENCH_APP_DIST]) &&
+    run('npx', ['ng', 'build', '--configuration', 'production', '--project', 'empty-app', '--output-path', env.BENCH_EMPTY_DIST]) &&
+    run(process.execPath, ['node_modules/tsx/dist/cli.mjs', 'server/tasks/prepare-db.ts']) &&
+    run(process.execPath, ['node_modules/tsx/dist/cli.mjs', 'bench/run-all.ts']);
+  code = ok ? 0 : 1;
+} finally {
+  await stack.stop();
+}
+process.exit(code);

@@ -1,0 +1,33 @@
+import type { Feature, Platform } from '../platform/feature';
+import { CreditService } from '../sponsors/credit-service';
+import { SponsorRepository } from '../sponsors/sponsor-repository';
+import { clubToday, sponsorAdminRoutes, sponsorPortalRoutes, sponsorPublicRoutes } from '../sponsors/sponsor-routes';
+import { SponsorService } from '../sponsors/sponsor-service';
+import { feedRoutes } from './feed-routes';
+import { PostRepository } from './post-repository';
+import { postAdminRoutes, postPublicRoutes } from './post-routes';
+import { PostService } from './post-service';
+
+/** Build logs and the sponsor acknowledgement ledger: one feature, because publishing a post delivers credits. */
+export function buildLogsFeature(platform: Platform): Feature {
+  const { db, clock, config } = platform.deps;
+  const sponsorRepo = new SponsorRepository(db);
+  const credits = new CreditService(sponsorRepo, config.publicUrl);
+  const sponsors = new SponsorService(db, sponsorRepo, credits, platform.auth.users, platform.settings);
+  const posts = new PostService(db, new PostRepository(db), sponsorRepo, credits);
+  const today = clubToday(clock, config.clubTimeZone);
+  return {
+    name: 'build-logs',
+    mount(api) {
+      api('/posts', postPublicRoutes(posts));
+      api('/admin/posts', postAdminRoutes(posts, clock));
+      api('/sponsors', sponsorPublicRoutes(sponsors, today));
+      api('/admin/sponsors', sponsorAdminRoutes(sponsors, clock, today));
+      api('/sponsor-portal', sponsorPortalRoutes(sponsors, today));
+    },
+    mountSite(site) {
+      site('/feeds', feedRoutes(posts, config.publicUrl));
+    },
+    jobs: [{ name: 'publish-scheduled-posts', cron: '* * * * *', run: () => posts.publishDue(clock.now()) }],
+  };
+}

@@ -1,0 +1,144 @@
+import type { Knex } from 'knex';
+
+type Db = Knex | Knex.Transaction;
+
+export type PostStatus = 'draft' | 'scheduled' | 'published';
+
+export interface PostRow {
+  id: string;
+  slug: string;
+  title: string;
+  summary: string;
+  cover_url: string | null;
+  markdown: string;
+  tags: string[];
+  author_id: string | null;
+  author_name?: string | null;
+  status: PostStatus;
+  publish_at: Date | null;
+  published_at: Date | null;
+  members_only: boolean;
+  hazard_requested: boolean;
+  created_at: Date;
+  updated_at: Date;
+}
+
+export interface PostWrite {
+  slug: string;
+  title: string;
+  summary: string;
+  coverUrl: string | null;
+  markdown: string;
+  tags: string[];
+  status: PostStatus;
+  publishAt: Date | null;
+  publishedAt: Date | null;
+  membersOnly: boolean;
+  hazardRequested: boolean;
+}
+
+const columns = (p: PostWrite) => ({
+  slug: p.slug,
+  title: p.title,
+  summary: p.summary,
+  cover_url: p.coverUrl,
+  markdown: p.markdown,
+  tags: p.tags,
+  status: p.status,
+  publish_at: p.publishAt,
+  published_at: p.publishedAt,
+  members_only: p.membersOnly,
+  hazard_requested: p.hazardRequested,
+});
+
+/** Plain reads and writes of posts and the sponsors each credits. */
+export class PostRepository {
+  constructor(private readonly db: Knex) {}
+
+  private withAuthor(trx: Db) {
+    return trx<PostRow>('posts as p').leftJoin('users as u', 'u.id', 'p.author_id').select('p.*', 'u.display_name as author_name');
+  }
+
+  byId(id: number, trx: Db = this.db): Promise<PostRow | undefined> {
+    return this.withAuthor(trx).where('p.id', id).first();
+  }
+
+  /** Locks the row for an update in the same transaction. */
+  lockById(trx: Knex.Transaction, id: number): Promise<PostRow | undefined> {
+    return trx<PostRow>('posts').where('id', id).forUpdate().first();
+  }
+
+  publishedBySlug(slug: string): Promise<PostRow | undefined> {
+    return this.withAuthor(this.db).where({ 'p.slug': slug, 'p.status': 'published' }).first();
+  }
+
+  async slugsLike(base: string, trx: Db = this.db): Promise<Set<string>> {
+    const rows = await trx('posts').where('slug', base).orWhereLike('slug', `${base}-%`).select('slug');
+    return new Set(rows.map((r: { slug: string }) => r.slug));
+  }
+
+  async slugTaken(slug: string, exceptId: number | null, trx: Db = this.db): Promise<boolean> {
+    const row = await trx('posts').where('slug', slug).modify((q) => exceptId !== null && q.whereNot('id', exceptId)).first('id');
+    return Boolean(row);
+  }
+
+  async insert(trx: Knex.Transaction, p: PostWrite, authorId: number | null): Promise<number> {
+    const [row] = await trx('posts').insert({ ...columns(p), author_id: authorId }).returning('id');
+    return Number(row.id);
+  }
+
+  async update(trx: Knex.Transaction, id: number, p: PostWrite): Promise<void> {
+    await trx('posts').where('id', id).update({ ...columns(p), updated_at: trx.fn.now() });
+  }
+
+  async setCredits(trx: Knex.Transaction, postId: number, sponsorIds: readonly number[]): Promise<void> {
+    await trx('post_credits').where('post_id', postId).delete();
+    if (sponsorIds.length) await trx('post_credits').insert(sponsorIds.map((sponsor_id) => ({ post_id: postId, sponsor_id })));
+  }
+
+  /** Credited sponsors per post id. */
+  async creditsOf(postIds: readonly number[], trx: Db = this.db): Promise<Map<number, { sponsorId: number; name: string; slug: string }[]>> {
+    const out = new Map<number, { sponsorId: number; name: string; slug: string }[]>();
+    if (!postIds.length) return out;
+    const rows = await trx('post_credits as pc').join('sponsors as s', 's.id', 'pc.sponsor_id').whereIn('pc.post_id', postIds).select('pc.post_id', 's.id', 's.name', 's.slug').orderBy('s.name');
+    for (const r of rows as { post_id: string; id: string; name: string; slug: string }[]) {
+      const list = out.get(Number(r.post_id)) ?? [];
+      list.push({ sponsorId: Number(r.id), name: r.name, slug: r.slug });
+      out.set(Number(r.post_id), list);
+    }
+    return out;
+  }
+
+  async publishedPage(opts: { tag?: string; page: number; pageSize: number }): Promise<{ items: PostRow[]; total: number }> {
+    const base = this.db<PostRow>('posts').where('status', 'published').modify((q) => opts.tag && q.whereRaw('? = ANY(tags)', [opts.tag]));
+    const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
+    const items = await base.clone().orderBy([{ column: 'published_at', order: 'desc' }, { column: 'id', order: 'desc' }]).limit(opts.pageSize).offset((opts.page - 1) * opts.pageSize);
+    return { items, total: Number(count) };
+  }
+
+  async tagCounts(): Promise<{ tag: string; count: number }[]> {
+    const rows = await this.db.raw("SELECT t AS tag, count(*) AS count FROM posts, unnest(tags) t WHERE status = 'published' GROUP BY t ORDER BY count(*) DESC, t");
+    return rows.rows.map((r: { tag: string; count: string }) => ({ tag: r.tag, count: Number(r.count) }));
+  }
+
+  /** Every post for the editors' table, with sorting and paging done in SQL. */
+  async adminPage(opts: { status?: PostStatus; q?: string; sort: 'updated' | 'title' | 'published'; dir: 'asc' | 'desc'; page: number; pageSize: number }): Promise<{ items: PostRow[]; total: number }> {
+    const base = this.db<PostRow>('posts').modify((q) => {
+      if (opts.status) q.where('status', opts.status);
+      if (opts.q) q.whereILike('title', `%${opts.q}%`);
+    });
+    const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
+    const column = { updated: 'updated_at', title: 'title', published: 'published_at' }[opts.sort];
+    const items = await base.clone().orderByRaw(`${column} ${opts.dir} NULLS LAST, id desc`).limit(opts.pageSize).offset((opts.page - 1) * opts.pageSize);
+    return { items, total: Number(count) };
+  }
+
+  /** Scheduled posts whose time has come, locked so two processes do not publish the same one. */
+  dueScheduled(trx: Knex.Transaction, now: Date): Promise<PostRow[]> {
+    return trx<PostRow>('posts').where('status', 'scheduled').where('publish_at', '<=', now).forUpdate().skipLocked().orderBy('publish_at');
+  }
+
+  latestPublished(limit: number): Promise<PostRow[]> {
+    return this.withAuthor(this.db).where('p.status', 'published').orderBy('p.published_at', 'desc').limit(limit);
+  }
+}

@@ -1,0 +1,204 @@
+import type { Knex } from 'knex';
+import { creditMarkerSlugs, renderMarkdown } from '../markdown/render-markdown';
+import { badRequest, conflict, notFound } from '../platform/app-error';
+import type { Role } from '../platform/roles';
+import type { CreditService } from '../sponsors/credit-service';
+import type { SponsorRepository } from '../sponsors/sponsor-repository';
+import { needsHazardNotice } from './hazard-rule';
+import type { PostRepository, PostRow, PostStatus, PostWrite } from './post-repository';
+import { slugify, uniqueSlug } from './slug';
+
+/** What an editor sends to create or replace a post. */
+export interface PostInput {
+  title: string;
+  slug?: string;
+  markdown: string;
+  summary?: string;
+  coverUrl?: string | null;
+  tags?: string[];
+  membersOnly?: boolean;
+  status: PostStatus;
+  publishAt?: Date | null;
+  credits?: number[];
+  hazardNotice?: boolean;
+}
+
+/** Roles that may read members-only bodies. */
+const BODY_READERS: readonly Role[] = ['member', 'editor', 'admin'];
+
+/** Posts: writing, publishing (with sponsor credits), scheduling and reading; no HTTP here. */
+export class PostService {
+  constructor(
+    private readonly db: Knex,
+    private readonly posts: PostRepository,
+    private readonly sponsors: SponsorRepository,
+    private readonly credits: CreditService,
+  ) {}
+
+  async create(input: PostInput, authorId: number | null, now: Date): Promise<{ id: number; slug: string }> {
+    return this.db.transaction(async (trx) => {
+      const slug = input.slug ?? uniqueSlug(slugify(input.title), await this.posts.slugsLike(slugify(input.title), trx));
+      if (input.slug && (await this.posts.slugTaken(input.slug, null, trx))) throw conflict('slug_taken', 'Another post uses this address.', { slug: 'Already used by another post.' });
+      const sponsorIds = await this.creditedSponsors(trx, input);
+      const write = this.toWrite(input, slug, null, now);
+      const id = await this.posts.insert(trx, write, authorId);
+      await this.posts.setCredits(trx, id, sponsorIds);
+      await this.credits.syncPostCredits(trx, { id, slug, title: write.title, published: write.status === 'published' }, sponsorIds, now);
+      return { id, slug };
+    });
+  }
+
+  /** Replaces a post; setting the status back to draft unpublishes it and withdraws its credits. */
+  async update(id: number, input: PostInput, now: Date): Promise<{ id: number; slug: string }> {
+    return this.db.transaction(async (trx) => {
+      const current = await this.posts.lockById(trx, id);
+      if (!current) throw notFound('No such post.');
+      const slug = input.slug ?? current.slug;
+      if (await this.posts.slugTaken(slug, id, trx)) throw conflict('slug_taken', 'Another post uses this address.', { slug: 'Already used by another post.' });
+      const sponsorIds = await this.creditedSponsors(trx, input);
+      const write = this.toWrite(input, slug, current, now);
+      await this.posts.update(trx, id, write);
+      await this.posts.setCredits(trx, id, sponsorIds);
+      await this.credits.syncPostCredits(trx, { id, slug, title: write.title, published: write.status === 'published' }, sponsorIds, now);
+      return { id, slug };
+    });
+  }
+
+  /** Publishes scheduled posts whose time has come (the scheduled job). */
+  async publishDue(now: Date): Promise<{ published: number }> {
+    return this.db.transaction(async (trx) => {
+      const due = await this.posts.dueScheduled(trx, now);
+      for (const p of due) {
+        const input: PostInput = { title: p.title, markdown: p.markdown, summary: p.summary, coverUrl: p.cover_url, tags: p.tags, membersOnly: p.members_only, status: 'published', publishAt: p.publish_at, hazardNotice: p.hazard_requested };
+        const sponsorIds = [...(await this.posts.creditsOf([Number(p.id)], trx)).get(Number(p.id)) ?? []].map((c) => c.sponsorId);
+        await this.posts.update(trx, Number(p.id), { ...this.toWrite(input, p.slug, p, now), publishedAt: p.publish_at ?? now });
+        await this.credits.syncPostCredits(trx, { id: Number(p.id), slug: p.slug, title: p.title, published: true }, sponsorIds, now);
+      }
+      return { published: due.length };
+    });
+  }
+
+  /** The editor's live preview, through the same pipeline as the public page. */
+  async preview(input: { markdown: string; title?: string; summary?: string; tags?: string[] }): Promise<{ html: string; hazardNotice: boolean; unknownSponsors: string[] }> {
+    const slugs = creditMarkerSlugs(input.markdown);
+    const found = await this.sponsors.bySlugs(slugs);
+    return {
+      html: renderMarkdown(input.markdown, { sponsorNames: new Map(found.map((s) => [s.slug, s.name])) }),
+      hazardNotice: needsHazardNotice({ title: input.title ?? '', summary: input.summary ?? '', markdown: input.markdown, tags: input.tags ?? [] }),
+      unknownSponsors: slugs.filter((s) => !found.some((f) => f.slug === s)),
+    };
+  }
+
+  async publicPage(opts: { tag?: string; page: number; pageSize: number }) {
+    const { items, total } = await this.posts.publishedPage(opts);
+    return { items: items.map((p) => ({ slug: p.slug, title: p.title, summary: p.summary, coverUrl: p.cover_url, publishedAt: p.published_at!.toISOString(), tags: p.tags, membersOnly: p.members_only })), total, page: opts.page, pageSize: opts.pageSize };
+  }
+
+  tags() {
+    return this.posts.tagCounts();
+  }
+
+  /** A published post; members-only bodies are withheld (html null) from callers without a reading role. */
+  async publicPost(slug: string, roles: readonly Role[]) {
+    const p = await this.posts.publishedBySlug(slug);
+    if (!p) throw notFound('No build log at this address.');
+    const credits = (await this.posts.creditsOf([Number(p.id)])).get(Number(p.id)) ?? [];
+    const mayRead = !p.members_only || roles.some((r) => BODY_READERS.includes(r));
+    return {
+      slug: p.slug,
+      title: p.title,
+      summary: p.summary,
+      coverUrl: p.cover_url,
+      author: p.author_name ?? null,
+      html: mayRead ? this.render(p, credits) : null,
+      publishedAt: p.published_at!.toISOString(),
+      tags: p.tags,
+      membersOnly: p.members_only,
+      credits,
+      hazardNotice: this.hazardOf(p),
+    };
+  }
+
+  async adminPage(opts: Parameters<PostRepository['adminPage']>[0]) {
+    const { items, total } = await this.posts.adminPage(opts);
+    return { items: items.map((p) => ({ id: Number(p.id), slug: p.slug, title: p.title, status: p.status, publishAt: p.publish_at?.toISOString() ?? null, publishedAt: p.published_at?.toISOString() ?? null, updatedAt: p.updated_at.toISOString(), membersOnly: p.members_only, tags: p.tags })), total, page: opts.page, pageSize: opts.pageSize };
+  }
+
+  async adminGet(id: number) {
+    const p = await this.posts.byId(id);
+    if (!p) throw notFound('No such post.');
+    const credits = (await this.posts.creditsOf([id])).get(id) ?? [];
+    return {
+      id,
+      slug: p.slug,
+      title: p.title,
+      summary: p.summary,
+      coverUrl: p.cover_url,
+      markdown: p.markdown,
+      tags: p.tags,
+      status: p.status,
+      publishAt: p.publish_at?.toISOString() ?? null,
+      publishedAt: p.published_at?.toISOString() ?? null,
+      membersOnly: p.members_only,
+      hazardNotice: this.hazardOf(p),
+      hazardRequired: needsHazardNotice(p),
+      credits,
+      author: p.author_name ?? null,
+    };
+  }
+
+  /** Latest published posts for the feeds; members-only bodies never go into a feed. */
+  async feedItems(limit: number) {
+    const rows = await this.posts.latestPublished(limit);
+    const credits = await this.posts.creditsOf(rows.map((p) => Number(p.id)));
+    return rows.map((p) => ({
+      slug: p.slug,
+      title: p.title,
+      summary: p.summary,
+      author: p.author_name ?? null,
+      publishedAt: p.published_at!,
+      tags: p.tags,
+      membersOnly: p.members_only,
+      hazardNotice: this.hazardOf(p),
+      html: p.members_only ? null : this.render(p, credits.get(Number(p.id)) ?? []),
+    }));
+  }
+
+  private render(p: PostRow, credits: { name: string; slug: string }[]): string {
+    return renderMarkdown(p.markdown, { sponsorNames: new Map(credits.map((c) => [c.slug, c.name])) });
+  }
+
+  private hazardOf(p: Pick<PostRow, 'hazard_requested' | 'title' | 'summary' | 'markdown' | 'tags'>): boolean {
+    return p.hazard_requested || needsHazardNotice(p);
+  }
+
+  /** Sponsors from the editor's panel and from the credit markers in the body; an unknown one is a field error. */
+  private async creditedSponsors(trx: Knex.Transaction, input: PostInput): Promise<number[]> {
+    const ids = [...new Set(input.credits ?? [])];
+    const byId = await this.sponsors.byIds(ids, trx);
+    if (byId.length !== ids.length) throw badRequest('A credited sponsor does not exist.', { credits: 'Pick sponsors from the list.' });
+    const slugs = creditMarkerSlugs(input.markdown);
+    const bySlug = await this.sponsors.bySlugs(slugs, trx);
+    const unknown = slugs.filter((s) => !bySlug.some((b) => b.slug === s));
+    if (unknown.length) throw badRequest('A credit marker names a sponsor that does not exist.', { markdown: `No sponsor with the address “${unknown[0]}”. Use the credit picker to insert a marker.` });
+    return [...new Set([...ids, ...bySlug.map((s) => Number(s.id))])].sort((a, b) => a - b);
+  }
+
+  private toWrite(input: PostInput, slug: string, current: PostRow | null, now: Date): PostWrite {
+    if (input.status === 'scheduled' && (!input.publishAt || input.publishAt <= now)) throw badRequest('Pick a future time to schedule the post.', { publishAt: 'Must be in the future.' });
+    const publishedAt = input.status === 'published' ? (current?.status === 'published' && current.published_at ? current.published_at : now) : null;
+    return {
+      slug,
+      title: input.title,
+      summary: input.summary ?? '',
+      coverUrl: input.coverUrl ?? null,
+      markdown: input.markdown,
+      tags: [...new Set((input.tags ?? []).map((t) => t.toLowerCase()))],
+      status: input.status,
+      publishAt: input.status === 'scheduled' ? input.publishAt! : null,
+      publishedAt,
+      membersOnly: input.membersOnly ?? false,
+      hazardRequested: input.hazardNotice ?? current?.hazard_requested ?? false,
+    };
+  }
+}

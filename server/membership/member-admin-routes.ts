@@ -1,0 +1,124 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { fields, parse } from '../platform/validate';
+import { requireRole } from '../platform/require-role';
+import type { MemberAdminService } from './member-admin-service';
+import type { RosterQuery } from './membership-repository';
+import { MembershipSettingsSchema } from './membership-settings';
+
+const RosterSchema = z.object({
+  status: z.enum(['pending', 'active', 'lapsing', 'lapsed']).optional().or(z.literal('').transform(() => undefined)),
+  planId: fields.id.optional().or(z.literal('').transform(() => undefined)),
+  certificationLevel: z.string().trim().max(16).optional().transform((v) => v || undefined),
+  associationExpiresBefore: fields.date.optional().or(z.literal('').transform(() => undefined)),
+  q: z.string().trim().max(100).optional().transform((v) => v || undefined),
+  sort: z.enum(['memberNumber', 'name', 'termEnd', 'status', 'plan', 'associationExpires']).default('memberNumber'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+  page: fields.page,
+  pageSize: fields.pageSize,
+});
+
+const rosterQuery = (value: unknown): { query: RosterQuery; page: number; pageSize: number } => {
+  const { page, pageSize, ...query } = parse(RosterSchema, value);
+  return { query, page, pageSize };
+};
+
+const nullableDate = fields.date.nullable().or(z.literal('').transform(() => null));
+
+const PlanSchema = z.object({
+  code: z.string().trim().toLowerCase().regex(/^[a-z0-9-]{2,32}$/, 'Use 2-32 lower-case letters, digits or dashes.'),
+  name: z.string().trim().min(1, 'Name is required.').max(80),
+  description: z.string().trim().max(400).default(''),
+  eligibility: z.enum(['any', 'junior', 'family']).default('any'),
+  duesCents: fields.cents,
+  joiningFeeCents: fields.cents.default(0),
+  active: z.boolean().default(true),
+  sortOrder: z.number().int().min(0).max(1000).default(0),
+});
+
+/** The treasurer's console: roster, member records, payments, refunds, summary, roster e-mail, plans, settings. */
+export function memberAdminRoutes(service: MemberAdminService): Router {
+  const r = Router();
+  r.use(requireRole('treasurer', 'admin'));
+  r.get('/', async (req, res) => {
+    const { query, page, pageSize } = rosterQuery(req.query);
+    res.json(await service.roster(query, page, pageSize));
+  });
+  r.get('/export.csv', async (req, res) => {
+    const { query } = rosterQuery(req.query);
+    const csv = await service.exportCsv(query);
+    res.set('Content-Type', 'text/csv; charset=utf-8').set('Content-Disposition', 'attachment; filename="padside-roster.csv"').send(csv);
+  });
+  r.get('/summary', async (_req, res) => {
+    res.json(await service.summary());
+  });
+  r.post('/email', async (req, res) => {
+    const body = parse(z.object({ filters: z.record(z.string(), z.unknown()).default({}), subject: z.string().trim().min(1, 'Subject is required.').max(200), text: z.string().trim().min(1, 'Message is required.').max(20000) }), req.body);
+    res.json(await service.emailRoster(rosterQuery(body.filters).query, { subject: body.subject, text: body.text }));
+  });
+  r.get('/plans', async (_req, res) => {
+    res.json(await service.plans());
+  });
+  r.post('/plans', async (req, res) => {
+    res.status(201).json(await service.createPlan(parse(PlanSchema, req.body)));
+  });
+  r.patch('/plans/:id', async (req, res) => {
+    const { id } = parse(z.object({ id: fields.id }), req.params);
+    res.json(await service.updatePlan(id, parse(PlanSchema.omit({ code: true, eligibility: true }).partial(), req.body)));
+  });
+  r.get('/settings', async (_req, res) => {
+    res.json(await service.getSettings());
+  });
+  r.put('/settings', async (req, res) => {
+    res.json(await service.putSettings(parse(MembershipSettingsSchema, req.body)));
+  });
+  r.get('/:id', async (req, res) => {
+    const { id } = parse(z.object({ id: fields.id }), req.params);
+    res.json(await service.detail(id));
+  });
+  r.patch('/:id', async (req, res) => {
+    const { id } = parse(z.object({ id: fields.id }), req.params);
+    const body = parse(
+      z.object({
+        associationNumber: z.string().trim().max(40).nullable().optional(),
+        associationExpires: nullableDate.optional(),
+        certificationLevel: z.string().trim().max(16).optional(),
+        certificationDate: nullableDate.optional(),
+        address: z.string().trim().min(1).max(400).optional(),
+        phone: z.string().trim().min(7).max(40).optional(),
+        emergencyContact: z.string().trim().min(1).max(200).optional(),
+      }),
+      req.body,
+    );
+    res.json(await service.update(req.user!.id, id, body));
+  });
+  r.post('/:id/payments', async (req, res) => {
+    const { id } = parse(z.object({ id: fields.id }), req.params);
+    const body = parse(
+      z.object({
+        amountCents: fields.cents.refine((v) => v > 0, 'Enter the amount received.'),
+        method: z.enum(['cash', 'e-transfer', 'cheque'], { error: 'Choose cash, e-transfer or cheque.' }),
+        receiptNumber: z.string({ error: 'Receipt number is required.' }).trim().min(1, 'Receipt number is required.').max(40),
+        note: z.string().trim().max(400).optional(),
+      }),
+      req.body,
+    );
+    res.status(201).json(await service.manualPayment(req.user!.id, id, body));
+  });
+  r.post('/:id/refunds', async (req, res) => {
+    const { id } = parse(z.object({ id: fields.id }), req.params);
+    const body = parse(z.object({ paymentId: fields.id, amountCents: fields.cents, reason: z.string({ error: 'Give a reason.' }).trim().min(1, 'Give a reason.').max(400) }), req.body);
+    res.status(201).json(await service.refund(req.user!.id, id, body));
+  });
+  return r;
+}
+
+/** Launch-day check-in, for any staff member at the field. */
+export function checkInRoutes(service: MemberAdminService): Router {
+  const r = Router();
+  r.post('/', requireRole('editor', 'treasurer', 'admin'), async (req, res) => {
+    const { token } = parse(z.object({ token: z.string({ error: 'Paste or scan a card code.' }).trim().min(1, 'Paste or scan a card code.').max(500) }), req.body);
+    res.json(await service.checkIn(token));
+  });
+  return r;
+}

@@ -1,0 +1,279 @@
+import { randomUUID } from 'node:crypto';
+import type { Knex } from 'knex';
+import { recordMovement } from '../books/ledger-writer';
+import { enqueueEmail } from '../mail/outbox';
+import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
+import { dateInZone, type Clock } from '../platform/clock';
+import type { PaymentGateway } from '../payments/payment-gateway';
+import type { SettingsService } from '../settings/settings-service';
+import type { CheckInTokens } from './check-in-token';
+import { termPolicy, type DuesSettlement } from './dues-settlement';
+import { refundMail } from './membership-mail';
+import { dateOnly, type MembershipRepository, type AsOf, type PlanRow, type RosterQuery } from './membership-repository';
+import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
+import { liveStatus, membershipView, paymentView, planView, rosterView } from './membership-views';
+import { toCsv } from './roster-csv';
+import { termForPayment } from './terms';
+
+/** Staff edits of a member's record. */
+export interface MemberPatch {
+  associationNumber?: string | null;
+  associationExpires?: string | null;
+  certificationLevel?: string;
+  certificationDate?: string | null;
+  address?: string;
+  phone?: string;
+  emergencyContact?: string;
+}
+
+/** The treasurer's side: roster, member detail, manual payments, refunds, summary, roster e-mail, check-in, plans. */
+export class MemberAdminService {
+  constructor(
+    private readonly db: Knex,
+    private readonly repo: MembershipRepository,
+    private readonly settings: SettingsService,
+    private readonly settlement: DuesSettlement,
+    private readonly gateway: PaymentGateway,
+    private readonly tokens: CheckInTokens,
+    private readonly clock: Clock,
+    private readonly timeZone: string,
+  ) {}
+
+  private today(): string {
+    return dateInZone(this.clock.now(), this.timeZone);
+  }
+
+  private async policy() {
+    return termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS));
+  }
+
+  private async asOf(): Promise<AsOf> {
+    return { today: this.today(), graceDays: (await this.policy()).graceDays };
+  }
+
+  async roster(q: RosterQuery, page: number, pageSize: number) {
+    const [policy, today] = [await this.policy(), this.today()];
+    const result = await this.repo.rosterPage(q, page, pageSize, await this.asOf());
+    return { items: result.items.map((r) => rosterView(r, today, policy)), total: result.total, page, pageSize };
+  }
+
+  async exportCsv(q: RosterQuery): Promise<string> {
+    const [policy, today] = [await this.policy(), this.today()];
+    const rows = (await this.repo.rosterAll(q, await this.asOf())).map((r) => rosterView(r, today, policy));
+    return toCsv(
+      ['Member number', 'Name', 'E-mail', 'Plan', 'Status', 'Term end', 'Certification', 'Association number', 'Association expires', 'Auto-renew'],
+      rows.map((r) => [r.memberNumber, r.name, r.email, r.planName, r.status, r.termEnd, r.certificationLevel, r.associationNumber, r.associationExpires, r.autoRenew ? 'yes' : 'no']),
+    );
+  }
+
+  async detail(id: number) {
+    const s = await this.settings.get(MEMBERSHIP_SETTINGS);
+    const m = await this.repo.byId(id);
+    if (!m) throw notFound('No such member.');
+    const [plan, family, payments, audit] = [await this.repo.plan(Number(m.plan_id)), await this.repo.family(id), await this.repo.payments(id), await this.repo.audit(id)];
+    const user = await this.db('users').where('id', m.user_id).first('email', 'marketing_opt_out');
+    return {
+      member: { ...membershipView(m, plan, this.today(), termPolicy(s), s), email: user?.email ?? null, mailOptOut: user?.marketing_opt_out ?? false },
+      familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: dateOnly(f.date_of_birth) })),
+      payments: payments.map(paymentView),
+      audit: audit.map((a) => ({ id: Number(a.id), action: a.action, detail: a.detail, actor: a.actor_name, at: a.created_at })),
+    };
+  }
+
+  /** Staff correction of the record; every change lands in the audit with before and after. */
+  async update(actorId: number, id: number, patch: MemberPatch) {
+    const s = await this.settings.get(MEMBERSHIP_SETTINGS);
+    if (patch.certificationLevel !== undefined && !s.certificationLevels.some((l) => l.code === patch.certificationLevel)) {
+      throw badRequest('Choose a certification level from the list.', { certificationLevel: 'Choose a level from the list.' });
+    }
+    await this.db.transaction(async (trx) => {
+      const m = await this.repo.byId(id, trx, true);
+      if (!m) throw notFound('No such member.');
+      const map = { associationNumber: 'association_number', associationExpires: 'association_expires', certificationLevel: 'certification_level', certificationDate: 'certification_date', address: 'address', phone: 'phone', emergencyContact: 'emergency_contact' } as const;
+      const row: Record<string, unknown> = {};
+      const changes: Record<string, { from: unknown; to: unknown }> = {};
+      for (const [key, column] of Object.entries(map) as [keyof MemberPatch, (typeof map)[keyof MemberPatch]][]) {
+        if (patch[key] === undefined) continue;
+        const before = column.endsWith('expires') || column.endsWith('date') ? dateOnly(m[column] as Date | null) : m[column];
+        if (before === patch[key]) continue;
+        row[column] = patch[key];
+        changes[key] = { from: before, to: patch[key] };
+      }
+      if (!Object.keys(row).length) return;
+      await this.repo.update(trx, id, row);
+      await this.repo.addAudit(trx, id, actorId, 'record_edited', changes);
+    });
+    return this.detail(id);
+  }
+
+  /** Cash at the field, e-transfer or cheque: renews one term like a card payment, with the receipt number given. */
+  async manualPayment(actorId: number, id: number, input: { amountCents: number; method: 'cash' | 'e-transfer' | 'cheque'; receiptNumber: string; note?: string }) {
+    const policy = await this.policy();
+    const today = this.today();
+    await this.db.transaction(async (trx) => {
+      const m = await this.repo.byId(id, trx, true);
+      if (!m) throw notFound('No such member.');
+      const key = `manual:${m.id}:${input.receiptNumber.toLowerCase()}`;
+      if (await this.repo.paymentByKey(key, trx)) throw conflict('duplicate_receipt', 'That receipt number is already recorded for this member.', { receiptNumber: 'Already recorded for this member.' });
+      const term = termForPayment(today, dateOnly(m.term_end), policy);
+      const payment = await this.repo.insertPayment(trx, {
+        membership_id: m.id,
+        plan_id: m.plan_id,
+        status: 'attempted',
+        method: input.method,
+        amount_cents: input.amountCents,
+        receipt_number: input.receiptNumber,
+        idempotency_key: key,
+        note: input.note ?? null,
+        recorded_by: String(actorId),
+        created_at: this.clock.now(),
+      });
+      await this.settlement.settle(trx, m, payment, term, { today, policy, actorUserId: actorId, at: this.clock.now() });
+    });
+    return this.detail(id);
+  }
+
+  /**
+   * Refunds part or all of a payment: card payments through the processor, others recorded as paid back by the
+   * same method. A full refund of the payment that bought the current term takes the term back to where it was.
+   */
+  async refund(actorId: number, id: number, input: { paymentId: number; amountCents: number; reason: string }) {
+    const policy = await this.policy();
+    const today = this.today();
+    const payment = await this.repo.payment(input.paymentId);
+    if (!payment || Number(payment.membership_id) !== id || payment.entry !== 'payment') throw badRequest('Choose a payment of this member.', { paymentId: 'Choose a payment of this member.' });
+    if (payment.status !== 'paid' && payment.status !== 'refunded') throw badRequest('Only a paid payment can be refunded.', { paymentId: 'This payment was not paid.' });
+    const already = await this.repo.refundedCents(input.paymentId);
+    if (input.amountCents < 1 || input.amountCents > payment.amount_cents - already) {
+      throw badRequest('The refund is more than what is left of the payment.', { amountCents: `At most ${payment.amount_cents - already} cents can be refunded.` });
+    }
+    const key = `refund:${payment.id}:${already}:${input.amountCents}`;
+    if (payment.method === 'card') {
+      if (!payment.processor_charge_id) throw badRequest('This card payment has no processor charge to refund.', { paymentId: 'No processor charge on record.' });
+      try {
+        await this.gateway.refund(payment.processor_charge_id, input.amountCents, key);
+      } catch (err) {
+        throw new AppError(502, 'refund_failed', `The card processor refused the refund: ${(err as Error).message}`);
+      }
+    }
+    await this.db.transaction(async (trx) => {
+      const m = (await this.repo.byId(id, trx, true))!;
+      const refund = await this.repo.insertPayment(trx, {
+        membership_id: m.id,
+        plan_id: payment.plan_id,
+        entry: 'refund',
+        status: 'refunded',
+        method: payment.method,
+        amount_cents: -input.amountCents,
+        idempotency_key: key,
+        refund_of: payment.id,
+        note: input.reason,
+        processor_charge_id: payment.processor_charge_id,
+        recorded_by: String(actorId),
+        created_at: this.clock.now(),
+      });
+      const full = already + input.amountCents === payment.amount_cents;
+      if (full) await this.repo.updatePayment(trx, Number(payment.id), { status: 'refunded' });
+      let termEnd = dateOnly(m.term_end);
+      if (full && dateOnly(payment.term_end) === termEnd) {
+        termEnd = dateOnly(payment.previous_term_end);
+        const reverted = await this.repo.update(trx, id, { term_end: termEnd, term_start: termEnd ? m.term_start : null });
+        await this.settlement.refreshStatus(trx, reverted, today, policy, actorId);
+      }
+      await recordMovement(trx, {
+        occurredAt: this.clock.now(),
+        kind: 'refund',
+        source: 'dues',
+        reference: m.member_number,
+        counterparty: m.legal_name,
+        grossCents: -input.amountCents,
+        processorChargeId: payment.processor_charge_id,
+        method: payment.method,
+        idempotencyKey: `dues:${key}`,
+      });
+      await enqueueEmail(trx, refundMail(await this.settlement.mailContext(trx, m), { refundId: Number(refund.id), amountCents: input.amountCents, method: payment.method, termEnd }));
+      await this.repo.addAudit(trx, id, actorId, 'refunded', { paymentId: Number(payment.id), amountCents: input.amountCents, reason: input.reason, termEnd });
+    });
+    return this.detail(id);
+  }
+
+  /** Dues collected per month and plan (net of refunds, club time zone) and members by status. */
+  async summary() {
+    const collected = await this.repo.collectedByMonth(this.timeZone);
+    const byStatus = await this.repo.countsByStatus(await this.asOf());
+    const counts = { pending: 0, active: 0, lapsing: 0, lapsed: 0 };
+    for (const r of byStatus) counts[r.status] = Number(r.count);
+    return {
+      collected: collected.map((r) => ({ month: r.month, planCode: r.plan_code, planName: r.plan_name, cents: Number(r.cents), payments: Number(r.payments) })),
+      byStatus: counts,
+    };
+  }
+
+  /** A news e-mail to the filtered roster: non-essential, so members who opted out are skipped. */
+  async emailRoster(q: RosterQuery, mail: { subject: string; text: string }) {
+    const rows = await this.repo.rosterAll(q, await this.asOf());
+    const batch = randomUUID();
+    let queued = 0;
+    let skipped = 0;
+    await this.db.transaction(async (trx) => {
+      for (const r of rows) {
+        if (r.marketing_opt_out) {
+          skipped++;
+          continue;
+        }
+        const footer = '\n\n--\nYou get this as a club member. Turn off news e-mails in your Padside profile; receipts and dues notices still arrive.';
+        if (await enqueueEmail(trx, { to: r.email, subject: mail.subject, text: `Hello ${r.legal_name},\n\n${mail.text}${footer}`, template: 'membership-roster-news', dedupeKey: `membership-news:${batch}:${r.id}` })) queued++;
+      }
+    });
+    return { queued, skippedOptedOut: skipped };
+  }
+
+  /** Launch-day check-in: a tampered, foreign or unmatched token is `unknown`. */
+  async checkIn(token: string) {
+    const verified = this.tokens.verify(token);
+    const m = verified ? await this.repo.byNumber(verified.memberNumber) : undefined;
+    if (!m || m.status === 'pending') return { status: 'unknown' as const, memberNumber: null, name: null, associationExpires: null, associationCurrent: null, termEnd: null, certificationLevel: null };
+    const today = this.today();
+    const associationExpires = dateOnly(m.association_expires);
+    return {
+      status: liveStatus(m, today, await this.policy()),
+      memberNumber: m.member_number,
+      name: m.legal_name,
+      associationExpires,
+      associationCurrent: associationExpires !== null && associationExpires >= today,
+      termEnd: dateOnly(m.term_end),
+      certificationLevel: m.certification_level,
+    };
+  }
+
+  async plans() {
+    return { items: (await this.repo.plans(true)).map(planView) };
+  }
+
+  async createPlan(input: { code: string; name: string; description: string; eligibility: PlanRow['eligibility']; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }) {
+    if ((await this.repo.plans(true)).some((p) => p.code === input.code)) throw conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
+    const row = await this.repo.insertPlan({ code: input.code, name: input.name, description: input.description, eligibility: input.eligibility, dues_cents: input.duesCents, joining_fee_cents: input.joiningFeeCents, active: input.active, sort_order: input.sortOrder });
+    return { plan: planView(row) };
+  }
+
+  async updatePlan(id: number, input: Partial<{ name: string; description: string; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }>) {
+    const row = await this.repo.updatePlan(id, {
+      ...(input.name !== undefined ? { name: input.name } : {}),
+      ...(input.description !== undefined ? { description: input.description } : {}),
+      ...(input.duesCents !== undefined ? { dues_cents: input.duesCents } : {}),
+      ...(input.joiningFeeCents !== undefined ? { joining_fee_cents: input.joiningFeeCents } : {}),
+      ...(input.active !== undefined ? { active: input.active } : {}),
+      ...(input.sortOrder !== undefined ? { sort_order: input.sortOrder } : {}),
+    });
+    if (!row) throw notFound('No such plan.');
+    return { plan: planView(row) };
+  }
+
+  async getSettings(): Promise<{ settings: MembershipSettings }> {
+    return { settings: await this.settings.get(MEMBERSHIP_SETTINGS) };
+  }
+
+  async putSettings(value: MembershipSettings): Promise<{ settings: MembershipSettings }> {
+    return { settings: await this.settings.put(MEMBERSHIP_SETTINGS, value) };
+  }
+}

@@ -1,0 +1,35 @@
+import { UserRepository } from '../auth/user-repository';
+import type { Feature, Platform } from '../platform/feature';
+import { CardDues } from './card-dues';
+import { CheckInTokens } from './check-in-token';
+import { DuesSettlement } from './dues-settlement';
+import { memberAdminRoutes, checkInRoutes } from './member-admin-routes';
+import { MemberAdminService } from './member-admin-service';
+import { MembershipJobs } from './membership-jobs';
+import { MembershipRepository } from './membership-repository';
+import { membershipRoutes } from './membership-routes';
+import { MembershipService } from './membership-service';
+
+/** Club membership: dues, terms, reminders, auto-renew, member card and check-in, and the treasurer's roster. */
+export function membershipFeature(platform: Platform): Feature {
+  const { db, clock, config, payments } = platform.deps;
+  const repo = new MembershipRepository(db);
+  const settlement = new DuesSettlement(repo, new UserRepository(db), config.publicUrl);
+  const cardDues = new CardDues(db, repo, settlement, platform.settings, payments);
+  const tokens = new CheckInTokens(config.sessionSecret);
+  const members = new MembershipService(db, repo, platform.settings, settlement, cardDues, tokens, clock, config.clubTimeZone);
+  const admin = new MemberAdminService(db, repo, platform.settings, settlement, payments, tokens, clock, config.clubTimeZone);
+  const jobs = new MembershipJobs(db, repo, platform.settings, settlement, cardDues, clock, config.clubTimeZone);
+  return {
+    name: 'membership',
+    mount(api) {
+      api('/membership', membershipRoutes(members));
+      api('/admin/members', memberAdminRoutes(admin));
+      api('/admin/checkin', checkInRoutes(admin));
+    },
+    jobs: [
+      { name: 'membership-reminders', cron: '0 8 * * *', run: () => jobs.sendReminders() },
+      { name: 'membership-auto-renew', cron: '0 6 * * *', run: () => jobs.autoRenew() },
+    ],
+  };
+}

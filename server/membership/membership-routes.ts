@@ -1,0 +1,75 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { fields, parse } from '../platform/validate';
+import { requireSignedIn } from '../platform/require-role';
+import type { MembershipService } from './membership-service';
+
+const text = (label: string, max: number) => z.string({ error: `${label} is required.` }).trim().min(1, `${label} is required.`).max(max, `${label} is too long.`);
+const optionalText = (max: number) => z.string().trim().max(max, 'Too long.').transform((v) => v || null).nullish();
+const optionalDate = fields.date.nullish().or(z.literal('').transform(() => null));
+const token = z.string({ error: 'Choose a card.' }).trim().min(1, 'Choose a card.').max(200);
+
+const ProfileSchema = z.object({
+  legalName: text('Legal name', 120),
+  dateOfBirth: fields.date,
+  address: text('Address', 400),
+  phone: text('Phone', 40).regex(/^[0-9+() .-]{7,40}$/, 'Enter a phone number (digits, spaces, + ( ) - .).'),
+  emergencyContact: text('Emergency contact', 200),
+  associationNumber: optionalText(40),
+  associationExpires: optionalDate,
+  certificationLevel: z.string().trim().max(16).optional(),
+  certificationDate: optionalDate,
+  familyMembers: z.array(z.object({ name: text('Name', 120), dateOfBirth: fields.date })).max(10, 'At most 10 family members.').optional(),
+});
+
+const JoinSchema = z.object({
+  planId: fields.id,
+  profile: ProfileSchema,
+  waiverVersion: z.string({ error: 'Accept the waiver.' }).min(1, 'Accept the waiver.').max(32),
+  safetyCodeVersion: z.string().max(32).optional(),
+  paymentToken: token,
+  autoRenew: z.boolean().optional(),
+});
+
+const RenewSchema = z.object({
+  paymentToken: token.optional(),
+  planId: fields.id.optional(),
+  waiverVersion: z.string().max(32).optional(),
+  safetyCodeVersion: z.string().max(32).optional(),
+  profile: ProfileSchema.pick({ associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial().optional(),
+});
+
+/** The member's side: plans, quote, join, renew, own membership, auto-renew, card. */
+export function membershipRoutes(service: MembershipService): Router {
+  const r = Router();
+  r.get('/plans', async (_req, res) => {
+    res.json(await service.plans());
+  });
+  r.get('/policy', async (_req, res) => {
+    res.json(await service.policy());
+  });
+  r.post('/quote', async (req, res) => {
+    const body = parse(z.object({ planId: fields.id, on: fields.date.optional() }), req.body);
+    res.json(await service.quote(req.user?.id ?? null, body.planId, body.on));
+  });
+  r.post('/', requireSignedIn, async (req, res) => {
+    res.status(201).json(await service.join(req.user!, parse(JoinSchema, req.body)));
+  });
+  r.get('/me', requireSignedIn, async (req, res) => {
+    res.json(await service.me(req.user!.id));
+  });
+  r.patch('/me', requireSignedIn, async (req, res) => {
+    res.json(await service.updateProfile(req.user!, parse(ProfileSchema.pick({ address: true, phone: true, emergencyContact: true, associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial(), req.body)));
+  });
+  r.post('/renew', requireSignedIn, async (req, res) => {
+    res.json(await service.renew(req.user!, parse(RenewSchema, req.body)));
+  });
+  r.post('/auto-renew', requireSignedIn, async (req, res) => {
+    res.json(await service.setAutoRenew(req.user!, parse(z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: token.optional() }), req.body)));
+  });
+  r.get('/card', requireSignedIn, async (req, res) => {
+    res.set('Cache-Control', 'no-store');
+    res.json(await service.card(req.user!.id));
+  });
+  return r;
+}

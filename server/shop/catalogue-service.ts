@@ -1,0 +1,136 @@
+import type { Knex } from 'knex';
+import { z } from 'zod';
+import { renderMarkdown } from '../markdown/render-markdown';
+import { badRequest, conflict, notFound } from '../platform/app-error';
+import type { Clock } from '../platform/clock';
+import { fields } from '../platform/validate';
+import type { SettingsService } from '../settings/settings-service';
+import type { CatalogueRepository, ProductBundle } from './catalogue-repository';
+import { printQuantities } from './print-sheet';
+import { productView } from './product-view';
+import { effectiveRunState, nextRunStates, type StoredRunState } from './run-state';
+import { SHOP_SETTINGS } from './shop-settings';
+
+const name = z.string({ error: 'Name is required.' }).trim().min(2, 'Use at least 2 characters.').max(120, 'At most 120 characters.');
+const instant = z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-12-01T09:00:00-06:00.' });
+
+export const ProductBody = z.object({
+  name,
+  description: z.string().max(20000, 'At most 20,000 characters.').default(''),
+  priceCents: fields.cents.min(50, 'At least $0.50 (the card processor minimum).'),
+  weightGrams: z.number({ error: 'Enter a weight in grams.' }).int('Whole grams.').min(1, 'At least 1 g.').max(20000, 'At most 20 kg.'),
+  sizeChart: z.object({ columns: z.array(z.string().max(40)).min(1).max(10), rows: z.array(z.array(z.string().max(40)).max(10)).max(20) }).nullable().default(null),
+  images: z.array(z.object({ url: z.string().regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Use an uploaded image.'), thumbnailUrl: z.string().regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Use an uploaded image.'), alt: z.string().trim().max(200) })).max(8).default([]),
+  variants: z
+    .array(z.object({ label: z.string({ error: 'Label is required.' }).trim().min(1, 'Label is required.').max(60), sku: z.string().trim().regex(/^[A-Z0-9-]{2,60}$/i, 'Letters, digits and dashes.').optional(), weightGrams: z.number().int().min(1).max(20000).optional(), priceCents: fields.cents.optional(), stock: z.number().int().min(0).max(100000).optional() }))
+    .min(1, 'Add at least one variant.')
+    .max(30),
+  run: z.object({ name: z.string().trim().max(120).optional(), cap: z.number({ error: 'Enter a cap.' }).int().min(1, 'At least 1.').max(100000), opensAt: instant, closesAt: instant, unitCostCents: fields.cents.optional(), variantCaps: z.record(z.string(), z.number().int().min(0)).optional() }).optional(),
+});
+export type ProductInput = z.infer<typeof ProductBody>;
+
+export const ProductPatch = z.object({ name: name.optional(), description: z.string().max(20000).optional(), priceCents: fields.cents.min(50).optional(), active: z.boolean().optional(), sizeChart: ProductBody.shape.sizeChart.optional(), images: ProductBody.shape.images.optional() });
+
+const slugify = (s: string) => s.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 70) || 'item';
+
+/** The catalogue for buyers and staff, runs and their print sheets. */
+export class CatalogueService {
+  constructor(
+    private readonly db: Knex,
+    private readonly repo: CatalogueRepository,
+    private readonly settings: SettingsService,
+    private readonly clock: Clock,
+  ) {}
+
+  async list(activeOnly: boolean) {
+    const now = this.clock.now();
+    return (await this.repo.bundles({ activeOnly })).map((b) => ({ ...productView(b, now), active: b.product.active }));
+  }
+
+  async bySlug(slug: string) {
+    const [b] = await this.repo.bundles({ activeOnly: true, slug });
+    if (!b) throw notFound('No such product.');
+    return this.detail(b);
+  }
+
+  async byId(id: number) {
+    const [b] = await this.repo.bundles({ id });
+    if (!b) throw notFound('No such product.');
+    return { ...this.detail(b), active: b.product.active, description: b.product.description_md };
+  }
+
+  private detail(b: ProductBundle) {
+    return { ...productView(b, this.clock.now()), descriptionHtml: renderMarkdown(b.product.description_md) };
+  }
+
+  /** Creates a product with its variants and, optionally, its first limited run. */
+  async create(input: ProductInput) {
+    if (input.run && new Date(input.run.closesAt) <= new Date(input.run.opensAt)) throw badRequest('The run must close after it opens.', { 'run.closesAt': 'Must be after the opening.' });
+    const base = slugify(input.name);
+    const taken = await this.db('shop_products').where('slug', 'like', `${base}%`).pluck('slug');
+    const slug = taken.includes(base) ? `${base}-${taken.length + 1}` : base;
+    const skus = input.variants.map((v, i) => (v.sku ?? `${base.slice(0, 20)}-${slugify(v.label)}-${i + 1}`).toUpperCase());
+    if (new Set(skus).size !== skus.length) throw badRequest('Each variant needs its own SKU.', { variants: 'Two variants share a SKU.' });
+    const clash = await this.db('shop_variants').whereIn('sku', skus).first('sku');
+    if (clash) throw conflict('sku_taken', 'A SKU is already in use.', { variants: `SKU ${clash.sku} is already in use.` });
+    const id = await this.db.transaction(async (trx) => {
+      const productId = await this.repo.insertProduct(
+        trx,
+        { slug, name: input.name, description_md: input.description, price_cents: input.priceCents, weight_grams: input.weightGrams, size_chart: input.sizeChart, images: input.images },
+        input.variants.map((v, i) => ({ label: v.label, sku: skus[i], weight_grams: v.weightGrams ?? null, price_cents: v.priceCents ?? null, stock_on_hand: input.run ? null : (v.stock ?? 0) })),
+      );
+      if (input.run) {
+        const variants = await trx('shop_variants').where('product_id', productId).orderBy('position').select('id', 'label');
+        const caps = Object.entries(input.run.variantCaps ?? {}).map(([label, cap]) => ({ variantId: Number(variants.find((v) => v.label === label)?.id), cap })).filter((c) => c.variantId);
+        await this.repo.insertRun(trx, { product_id: productId, name: input.run.name || `${input.name} run`, cap: input.run.cap, opens_at: new Date(input.run.opensAt), closes_at: new Date(input.run.closesAt), unit_cost_cents: input.run.unitCostCents ?? null }, caps);
+      }
+      return productId;
+    });
+    return this.byId(id);
+  }
+
+  async update(id: number, patch: z.infer<typeof ProductPatch>) {
+    const ok = await this.repo.updateProduct(id, { name: patch.name, description_md: patch.description, price_cents: patch.priceCents, active: patch.active, size_chart: patch.sizeChart, images: patch.images });
+    if (!ok) throw notFound('No such product.');
+    return this.byId(id);
+  }
+
+  async runs() {
+    const now = this.clock.now();
+    return (await this.repo.runs()).map((r) => {
+      const state = effectiveRunState({ state: r.state, cap: r.cap, reserved: r.reserved, opensAt: r.opens_at, closesAt: r.closes_at }, now);
+      return { id: r.id, name: r.name, productName: r.product_name, productSlug: r.product_slug, state, nextStates: nextRunStates(state), cap: r.cap, reserved: r.reserved, remaining: r.cap - r.reserved, opensAt: r.opens_at, closesAt: r.closes_at, unitCostCents: r.unit_cost_cents };
+    });
+  }
+
+  /** Moves a run forward by hand (close early, into production, shipped). */
+  async setRunState(id: number, state: StoredRunState) {
+    const run = await this.repo.run(id);
+    if (!run) throw notFound('No such run.');
+    const now = effectiveRunState({ state: run.state, cap: run.cap, reserved: run.reserved, opensAt: run.opens_at, closesAt: run.closes_at }, this.clock.now());
+    if (!nextRunStates(now).includes(state)) throw conflict('wrong_state', `A run that is ${now.replace('_', ' ')} cannot move to ${state.replace('_', ' ')}.`, { state: 'Not allowed from the current state.' });
+    await this.repo.setRunState(id, state);
+    return (await this.runs()).find((r) => r.id === id)!;
+  }
+
+  /** Per variant: paid units, spares and pieces to print; a preview while orders can still arrive. */
+  async printSheet(id: number) {
+    const run = await this.repo.run(id);
+    if (!run) throw notFound('No such run.');
+    const [b] = await this.repo.bundles({ id: run.product_id });
+    const state = effectiveRunState({ state: run.state, cap: run.cap, reserved: run.reserved, opensAt: run.opens_at, closesAt: run.closes_at }, this.clock.now());
+    const rules = await this.settings.get(SHOP_SETTINGS);
+    const paid = await this.repo.paidUnits(id);
+    const sheet = printQuantities(b.variants.map((v) => ({ variantId: v.id, label: v.label, sku: v.sku, paid: paid.get(v.id) ?? 0 })), rules);
+    return {
+      run: { id: run.id, name: run.name, productName: b.product.name, state, cap: run.cap, opensAt: run.opens_at, closesAt: run.closes_at },
+      kind: state === 'scheduled' || state === 'open' || state === 'sold_out' ? ('preview' as const) : ('final' as const),
+      rules: { sparesPercent: rules.sparesPercent, packMultiple: rules.packMultiple, minimumPerDesign: rules.minimumPerDesign },
+      lines: sheet.lines,
+      totalPaid: sheet.totalPaid,
+      totalToPrint: sheet.totalToPrint,
+      unitCostCents: run.unit_cost_cents,
+      estimatedCostCents: run.unit_cost_cents === null ? null : run.unit_cost_cents * sheet.totalToPrint,
+    };
+  }
+}

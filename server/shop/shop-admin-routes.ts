@@ -1,0 +1,150 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { notFound } from '../platform/app-error';
+import { requireRole } from '../platform/require-role';
+import { fields, parse } from '../platform/validate';
+import type { SettingsService } from '../settings/settings-service';
+import type { CatalogueService } from './catalogue-service';
+import { ProductBody, ProductPatch } from './catalogue-service';
+import { toCsv } from './csv';
+import type { FulfilmentService } from './fulfilment-service';
+import { ORDER_SORTS, type OrderFilter, type OrderRepository } from './order-repository';
+import { orderJson } from './order-view';
+import type { ShopConfigRepository } from './shop-config-repository';
+import { SHOP_SETTINGS, ShopSettingsSchema } from './shop-settings';
+
+const SHOP_STAFF = ['treasurer', 'admin'] as const;
+
+const OrderQuery = z.object({
+  page: fields.page,
+  pageSize: fields.pageSize,
+  sort: z.enum(Object.keys(ORDER_SORTS) as [keyof typeof ORDER_SORTS], { error: 'Sort by created, number, email, total or status.' }).default('created'),
+  dir: z.enum(['asc', 'desc']).default('desc'),
+  status: z.enum(['pending', 'paid', 'failed', 'packed', 'shipped']).optional(),
+  runId: fields.id.optional(),
+  from: fields.date.optional(),
+  to: fields.date.optional(),
+  q: z.string().trim().max(100).optional(),
+});
+const ShipBody = z.object({
+  carrier: z.string({ error: 'Carrier is required.' }).trim().min(2, 'Carrier is required.').max(60, 'At most 60 characters.'),
+  trackingNumber: z.string({ error: 'Tracking number is required.' }).trim().min(4, 'Tracking number is required.').max(80, 'At most 80 characters.').regex(/^[A-Za-z0-9 -]+$/, 'Letters, digits, spaces and dashes only.'),
+});
+const RefundBody = z.object({ amountCents: fields.cents.min(1, 'Enter an amount.'), restock: z.boolean().default(false) });
+const RunStateBody = z.object({ state: z.enum(['closed', 'in_production', 'shipped'], { error: 'Choose closed, in production or shipped.' }) });
+const Bracket = z.object({ maxGrams: z.number().int().min(1).max(100000).nullable(), priceCents: fields.cents });
+const ShippingBody = z.object({ name: z.string().trim().min(2, 'Name is required.').max(80), brackets: z.array(Bracket).min(1, 'Add at least one weight bracket.').max(20), active: z.boolean() });
+
+export interface ShopAdminDeps {
+  catalogue: CatalogueService;
+  fulfilment: FulfilmentService;
+  orders: OrderRepository;
+  config: ShopConfigRepository;
+  settings: SettingsService;
+  timeZone: string;
+}
+
+const filterOf = (q: z.infer<typeof OrderQuery>, timeZone: string): OrderFilter => ({ status: q.status, runId: q.runId, from: q.from, to: q.to, q: q.q, timeZone });
+
+/** /api/admin/orders: the table, CSV, detail, pack, ship, refund. */
+export function orderAdminRoutes(d: ShopAdminDeps): Router {
+  const r = Router();
+  r.use(requireRole(...SHOP_STAFF));
+  r.get('/', async function listOrders(req, res) {
+    const q = parse(OrderQuery, req.query);
+    const { items, total } = await d.orders.page(filterOf(q, d.timeZone), q.sort, q.dir, q.page, q.pageSize);
+    res.json({ items: items.map((o) => ({ id: o.id, number: o.number, status: o.status, email: o.email, shipName: o.ship_name, units: o.units, totalCents: o.total_cents, refundedCents: o.refunded_cents, shippingName: o.shipping_name, createdAt: o.created_at, disputed: o.disputed_at !== null })), total, page: q.page, pageSize: q.pageSize });
+  });
+  r.get('/export', async function exportOrders(req, res) {
+    const q = parse(OrderQuery, req.query);
+    const rows = await d.orders.all(filterOf(q, d.timeZone), q.sort, q.dir);
+    const cents = (c: number) => (c / 100).toFixed(2);
+    res.type('text/csv; charset=utf-8').attachment('padside-orders.csv');
+    res.send(toCsv(['number', 'created_at', 'status', 'email', 'ship_to', 'country', 'shipping', 'units', 'subtotal', 'discount', 'shipping_cost', 'tax', 'total', 'refunded', 'carrier', 'tracking'], rows.map((o) => [o.number, o.created_at.toISOString(), o.status, o.email, o.ship_name, o.ship_country, o.shipping_name, o.units, cents(o.subtotal_cents), cents(o.discount_cents), cents(o.shipping_cents), cents(o.tax_cents), cents(o.total_cents), cents(o.refunded_cents), o.carrier, o.tracking_number])));
+  });
+  r.get('/:id', async function showOrderForStaff(req, res) {
+    const b = await d.orders.find(parse(fields.id, req.params.id));
+    if (!b) throw notFound('No such order.');
+    res.json({ order: orderJson(b, true) });
+  });
+  r.post('/:id/pack', async function packOrder(req, res) {
+    res.json({ order: orderJson(await d.fulfilment.pack(parse(fields.id, req.params.id)), true) });
+  });
+  r.post('/:id/ship', async function shipOrder(req, res) {
+    const id = parse(fields.id, req.params.id);
+    const body = parse(ShipBody, req.body);
+    res.json({ order: orderJson(await d.fulfilment.ship(id, body.carrier, body.trackingNumber), true) });
+  });
+  r.post('/:id/refund', async function refundOrder(req, res) {
+    const id = parse(fields.id, req.params.id);
+    const body = parse(RefundBody, req.body);
+    res.json({ order: orderJson(await d.fulfilment.refund(id, body.amountCents, body.restock, req.user!.id), true) });
+  });
+  return r;
+}
+
+/** /api/admin/products: list, create, show, edit. */
+export function productAdminRoutes(d: ShopAdminDeps): Router {
+  const r = Router();
+  r.use(requireRole(...SHOP_STAFF));
+  r.get('/', async function listProductsForStaff(_req, res) {
+    res.json({ items: await d.catalogue.list(false) });
+  });
+  r.post('/', async function createProduct(req, res) {
+    res.status(201).json({ product: await d.catalogue.create(parse(ProductBody, req.body)) });
+  });
+  r.get('/:id', async function showProductForStaff(req, res) {
+    res.json({ product: await d.catalogue.byId(parse(fields.id, req.params.id)) });
+  });
+  r.patch('/:id', async function editProduct(req, res) {
+    const id = parse(fields.id, req.params.id);
+    res.json({ product: await d.catalogue.update(id, parse(ProductPatch, req.body)) });
+  });
+  return r;
+}
+
+/** /api/admin/runs: list, move state, print-run sheet (JSON and CSV). */
+export function runAdminRoutes(d: ShopAdminDeps): Router {
+  const r = Router();
+  r.use(requireRole(...SHOP_STAFF));
+  r.get('/', async function listRuns(_req, res) {
+    res.json({ items: await d.catalogue.runs() });
+  });
+  r.post('/:id/state', async function moveRun(req, res) {
+    const id = parse(fields.id, req.params.id);
+    res.json({ run: await d.catalogue.setRunState(id, parse(RunStateBody, req.body).state) });
+  });
+  r.get('/:id/print-sheet', async function printSheet(req, res) {
+    res.json(await d.catalogue.printSheet(parse(fields.id, req.params.id)));
+  });
+  r.get('/:id/print-sheet.csv', async function printSheetCsv(req, res) {
+    const s = await d.catalogue.printSheet(parse(fields.id, req.params.id));
+    res.type('text/csv; charset=utf-8').attachment(`print-run-${s.run.id}.csv`);
+    res.send(toCsv(['sku', 'variant', 'paid', 'spares', 'to_print'], [...s.lines.map((l) => [l.sku, l.label, l.paid, l.spares, l.toPrint]), ['', 'total', s.totalPaid, '', s.totalToPrint]]));
+  });
+  return r;
+}
+
+/** /api/admin/shop: settings, shipping methods, the tax-rate table. */
+export function shopSettingsRoutes(d: ShopAdminDeps): Router {
+  const r = Router();
+  r.use(requireRole(...SHOP_STAFF));
+  r.get('/settings', async function showShopSettings(_req, res) {
+    res.json({ settings: await d.settings.get(SHOP_SETTINGS) });
+  });
+  r.put('/settings', async function saveShopSettings(req, res) {
+    res.json({ settings: await d.settings.put(SHOP_SETTINGS, parse(ShopSettingsSchema, req.body)) });
+  });
+  r.get('/shipping-methods', async function listShippingForStaff(_req, res) {
+    res.json({ items: await d.config.shippingMethods(false) });
+  });
+  r.put('/shipping-methods/:id', async function saveShippingMethod(req, res) {
+    const id = parse(fields.id, req.params.id);
+    if (!(await d.config.updateShippingMethod(id, parse(ShippingBody, req.body)))) throw notFound('No such shipping method.');
+    res.json({ method: await d.config.shippingMethod(id) });
+  });
+  r.get('/tax-rates', async function listTaxRates(_req, res) {
+    res.json({ items: await d.config.taxRateTable() });
+  });
+  return r;
+}

@@ -1,0 +1,65 @@
+import type { OutgoingEmail } from '../mail/outbox';
+import type { OrderBundle } from './order-repository';
+
+const cad = (cents: number) => new Intl.NumberFormat('en-CA', { style: 'currency', currency: 'CAD' }).format(cents / 100);
+
+function receipt(b: OrderBundle): string[] {
+  const o = b.order;
+  return [
+    ...b.items.map((i) => `${i.quantity} x ${i.product_name} (${i.variant_label}, ${i.sku}) @ ${cad(i.unit_price_cents)} = ${cad(i.unit_price_cents * i.quantity)}`),
+    '',
+    `Items: ${cad(o.subtotal_cents)}`,
+    ...(o.discount_cents ? [`Member discount (${o.discount_percent}%): -${cad(o.discount_cents)}`] : []),
+    `Shipping (${o.shipping_name}): ${cad(o.shipping_cents)}`,
+    ...b.taxes.map((t) => `${t.code} ${Number(t.rate_percent)}%: ${cad(t.amount_cents)}`),
+    `Total: ${cad(o.total_cents)}`,
+  ];
+}
+
+/** The order confirmation, once per order. */
+export function confirmationEmail(b: OrderBundle, publicUrl: string): OutgoingEmail {
+  const o = b.order;
+  const dest = o.shipping_code === 'pickup' ? 'Pick up at the next club launch; bring this e-mail.' : [o.ship_name, o.ship_line1, o.ship_line2, `${o.ship_city ?? ''} ${o.ship_province ?? ''} ${o.ship_postal_code ?? ''}`.trim(), o.ship_country].filter(Boolean).join('\n');
+  return {
+    to: o.email,
+    subject: `Padside order ${o.number}: thank you`,
+    template: 'shop-order-confirmation',
+    dedupeKey: `shop-confirmation-${o.id}`,
+    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', ...receipt(b), '', 'Delivery:', dest, '', `See your order: ${publicUrl}/shop/orders/${o.id}`, '', 'Thrust & Filament, via Padside'].join('\n'),
+  };
+}
+
+/** The shipped notice with carrier and tracking. */
+export function shippedEmail(b: OrderBundle, publicUrl: string): OutgoingEmail {
+  const o = b.order;
+  return {
+    to: o.email,
+    subject: `Padside order ${o.number} is on its way`,
+    template: 'shop-order-shipped',
+    dedupeKey: `shop-shipped-${o.id}`,
+    text: [`Your order ${o.number} has left the workshop.`, '', `Carrier: ${o.carrier}`, `Tracking number: ${o.tracking_number}`, '', `See your order: ${publicUrl}/shop/orders/${o.id}`].join('\n'),
+  };
+}
+
+/** A refund notice, once per refund. */
+export function refundEmail(b: OrderBundle, refundId: number, amountCents: number): OutgoingEmail {
+  const o = b.order;
+  return {
+    to: o.email,
+    subject: `Padside order ${o.number}: refund of ${cad(amountCents)}`,
+    template: 'shop-order-refund',
+    dedupeKey: `shop-refund-${refundId}`,
+    text: [`We have refunded ${cad(amountCents)} on order ${o.number}.`, `Refunded so far: ${cad(o.refunded_cents)} of ${cad(o.total_cents)}.`, '', 'Card refunds usually take a few business days to show on your statement.'].join('\n'),
+  };
+}
+
+/** Tells staff a buyer disputed a charge. */
+export function disputeEmail(b: OrderBundle, to: string, reason: string): OutgoingEmail {
+  return {
+    to,
+    subject: `Dispute opened on Padside order ${b.order.number}`,
+    template: 'shop-order-dispute',
+    dedupeKey: `shop-dispute-${b.order.id}`,
+    text: [`The card holder disputed the charge on order ${b.order.number} (${cad(b.order.total_cents)}).`, `Reason given: ${reason}`, '', 'Gather the order, shipping and tracking details and answer the dispute in the processor dashboard.'].join('\n'),
+  };
+}

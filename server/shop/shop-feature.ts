@@ -1,0 +1,43 @@
+import type { Feature, Platform } from '../platform/feature';
+import { CatalogueRepository } from './catalogue-repository';
+import { CatalogueService } from './catalogue-service';
+import { CheckoutService } from './checkout-service';
+import { FulfilmentService } from './fulfilment-service';
+import { OrderRepository } from './order-repository';
+import { paymentWebhookRoutes } from './payment-webhook-routes';
+import { QuoteService } from './quote-service';
+import { orderAdminRoutes, productAdminRoutes, runAdminRoutes, shopSettingsRoutes } from './shop-admin-routes';
+import { ShopConfigRepository } from './shop-config-repository';
+import { accountOrderRoutes, checkoutRoutes, orderRoutes, productRoutes, shippingMethodRoutes } from './shop-routes';
+import { WebhookService } from './webhook-service';
+
+/** The merch shop: catalogue, checkout, fulfilment, refunds, the payment webhook and reconciliation. */
+export function shopFeature(platform: Platform): Feature {
+  const { deps, settings } = platform;
+  const catalogueRepo = new CatalogueRepository(deps.db);
+  const config = new ShopConfigRepository(deps.db);
+  const orders = new OrderRepository(deps.db);
+  const quotes = new QuoteService(catalogueRepo, config, settings, deps.config);
+  const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock);
+  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, deps.config.publicUrl, deps.log);
+  const fulfilment = new FulfilmentService(deps.db, orders, deps.payments, deps.clock, deps.config.publicUrl);
+  const webhooks = new WebhookService(deps.db, orders, fulfilment, settings, deps.clock);
+  const pub = { catalogue, quotes, checkout, orders, config, now: () => deps.clock.now() };
+  const admin = { catalogue, fulfilment, orders, config, settings, timeZone: deps.config.clubTimeZone };
+  return {
+    name: 'shop',
+    mount(api) {
+      api('/products', productRoutes(pub));
+      api('/shipping-methods', shippingMethodRoutes(pub));
+      api('/checkout', checkoutRoutes(pub));
+      api('/orders', orderRoutes(pub));
+      api('/account/orders', accountOrderRoutes(pub));
+      api('/admin/orders', orderAdminRoutes(admin));
+      api('/admin/products', productAdminRoutes(admin));
+      api('/admin/runs', runAdminRoutes(admin));
+      api('/admin/shop', shopSettingsRoutes(admin));
+      api('/payments', paymentWebhookRoutes(deps.payments.stripe, deps.config.stripe.webhookSecret, webhooks));
+    },
+    jobs: [{ name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() }],
+  };
+}

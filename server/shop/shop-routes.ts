@@ -1,0 +1,109 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { forbidden, notFound } from '../platform/app-error';
+import { requireSignedIn } from '../platform/require-role';
+import { STAFF_ROLES } from '../platform/roles';
+import { fields, parse } from '../platform/validate';
+import type { CatalogueService } from './catalogue-service';
+import type { CheckoutService, PaymentOutcome } from './checkout-service';
+import type { OrderRepository } from './order-repository';
+import { orderJson } from './order-view';
+import { QuoteBody, quoteJson, type QuoteService } from './quote-service';
+import type { ShopConfigRepository } from './shop-config-repository';
+
+declare module 'express-session' {
+  interface SessionData {
+    /** Orders placed in this browser session, so a guest can see their own confirmation. */
+    shopOrderIds?: number[];
+  }
+}
+
+const token = z.string({ error: 'Choose a card.' }).trim().min(3, 'Choose a card.').max(200).regex(/^[A-Za-z0-9_|-]+$/, 'Not a card token.');
+const OrderBody = QuoteBody.extend({ email: fields.email, paymentToken: token });
+const PayBody = z.object({ paymentToken: token });
+
+export interface ShopDeps {
+  catalogue: CatalogueService;
+  quotes: QuoteService;
+  checkout: CheckoutService;
+  orders: OrderRepository;
+  config: ShopConfigRepository;
+  now(): Date;
+}
+
+/** GET /api/products ({items}), GET /api/products/:slug (the product itself). */
+export function productRoutes(d: ShopDeps): Router {
+  const r = Router();
+  r.get('/', async function listProducts(_req, res) {
+    res.json({ items: await d.catalogue.list(true) });
+  });
+  r.get('/:slug', async function showProduct(req, res) {
+    const slug = parse(z.string().regex(/^[a-z0-9-]{1,80}$/, 'Not a product address.'), req.params.slug);
+    res.json(await d.catalogue.bySlug(slug));
+  });
+  return r;
+}
+
+/** GET /api/shipping-methods. */
+export function shippingMethodRoutes(d: ShopDeps): Router {
+  const r = Router();
+  r.get('/', async function listShippingMethods(_req, res) {
+    res.json({ items: (await d.config.shippingMethods(true)).map((m) => ({ id: m.id, code: m.code, name: m.name, brackets: m.brackets })) });
+  });
+  return r;
+}
+
+/** POST /api/checkout/quote. */
+export function checkoutRoutes(d: ShopDeps): Router {
+  const r = Router();
+  r.post('/quote', async function quoteCart(req, res) {
+    const body = parse(QuoteBody, req.body);
+    res.json(quoteJson(await d.quotes.quote(body, req.user?.roles ?? [], d.now())));
+  });
+  return r;
+}
+
+function answer(res: import('express').Response, outcome: PaymentOutcome, created: boolean): void {
+  const order = orderJson(outcome.bundle);
+  if (outcome.status === 'pending') res.status(202).json({ order, message: outcome.message });
+  else res.status(created ? 201 : 200).json({ order });
+}
+
+/** POST /api/orders, GET /api/orders/:id (its buyer or staff), POST /api/orders/:id/pay (another attempt). */
+export function orderRoutes(d: ShopDeps): Router {
+  const r = Router();
+  const mayView = async (req: import('express').Request, id: number) => {
+    const b = await d.orders.find(id);
+    if (!b) throw notFound('No such order.');
+    const own = (req.user && b.order.user_id === req.user.id) || req.session.shopOrderIds?.includes(id);
+    if (!own && !req.user?.roles.some((x) => STAFF_ROLES.includes(x))) throw req.user ? forbidden('This is not your order.') : notFound('No such order.');
+    return b;
+  };
+  r.post('/', async function placeOrder(req, res) {
+    const body = parse(OrderBody, req.body);
+    const outcome = await d.checkout.placeOrder(body, req.user ?? null);
+    req.session.shopOrderIds = [...(req.session.shopOrderIds ?? []).slice(-19), outcome.bundle.order.id];
+    answer(res, outcome, true);
+  });
+  r.get('/:id', async function showOrder(req, res) {
+    const id = parse(fields.id, req.params.id);
+    res.json({ order: orderJson(await mayView(req, id)) });
+  });
+  r.post('/:id/pay', async function payAgain(req, res) {
+    const id = parse(fields.id, req.params.id);
+    await mayView(req, id);
+    const { paymentToken } = parse(PayBody, req.body);
+    answer(res, await d.checkout.pay(id, paymentToken), false);
+  });
+  return r;
+}
+
+/** GET /api/account/orders: the signed-in buyer's orders. */
+export function accountOrderRoutes(d: ShopDeps): Router {
+  const r = Router();
+  r.get('/', requireSignedIn, async function myOrders(req, res) {
+    const rows = await d.orders.forUser(req.user!.id);
+    res.json({ items: rows.map((o) => ({ id: o.id, number: o.number, status: o.status, createdAt: o.created_at, totalCents: o.total_cents, refundedCents: o.refunded_cents, shippingName: o.shipping_name, trackingNumber: o.tracking_number, carrier: o.carrier })) });
+  });
+  return r;
+}

@@ -1,0 +1,66 @@
+import PDFDocument from 'pdfkit';
+import { csvDocument } from './csv-cells';
+import type { AgreementView, CreditView, SponsorView } from './sponsor-service';
+
+/** What the report says about itself, in Padside's words; the PDF and the CSV carry the same sentence. */
+export const NOT_A_RECEIPT =
+  'This report acknowledges the support listed below and the credits Thrust & Filament delivered in return. It is not an official donation receipt for income tax purposes: ' +
+  'in Canada only registered charities and other qualified donees issue those. For how sponsorship is treated for tax, ask the Canada Revenue Agency or your accountant.';
+
+const KIND_LABELS: Record<string, string> = {
+  build_log_credit: 'Build log credit',
+  video_mention: 'Video mention',
+  logo_on_merch: 'Logo on merch',
+  sponsors_page: 'Sponsors page listing',
+  social_post: 'Social post',
+};
+
+const dollars = (cents: number) => new Intl.NumberFormat('en-CA', { style: 'currency', currency: 'CAD' }).format(cents / 100);
+
+export interface ReportData {
+  sponsor: SponsorView;
+  agreements: AgreementView[];
+  credits: CreditView[];
+  generatedOn: string;
+}
+
+/** The acknowledgement report as CSV: one row per support item and one per credit. */
+export function acknowledgementCsv(r: ReportData): string {
+  const rows: (string | number | null)[][] = [];
+  for (const a of r.agreements) {
+    if (a.cashCents) rows.push(['support', a.season, 'Cash', (a.cashCents / 100).toFixed(2), a.cashReceivedOn, '', '']);
+    for (const i of a.inKind) rows.push(['support', a.season, `In-kind: ${i.description}`, (i.valueCents / 100).toFixed(2), i.receivedOn, '', '']);
+  }
+  for (const c of r.credits) rows.push(['credit', '', KIND_LABELS[c.kind] ?? c.kind, '', c.at.slice(0, 10), c.postTitle ?? c.note ?? '', c.url]);
+  rows.push(['note', '', NOT_A_RECEIPT, '', r.generatedOn, '', '']);
+  return csvDocument(['line', 'season', 'item', 'declared_value_cad', 'date', 'title_or_note', 'link'], rows);
+}
+
+/** The acknowledgement report as a PDF (pdfkit's built-in Helvetica, so no font files are needed). */
+export function acknowledgementPdf(r: ReportData): Promise<Buffer> {
+  const doc = new PDFDocument({ size: 'LETTER', margin: 56, info: { Title: `Sponsor acknowledgement — ${r.sponsor.name}`, Author: 'Padside' } });
+  const chunks: Buffer[] = [];
+  doc.on('data', (c: Buffer) => chunks.push(c));
+  const done = new Promise<Buffer>((resolve) => doc.on('end', () => resolve(Buffer.concat(chunks))));
+
+  doc.font('Helvetica-Bold').fontSize(18).text('Sponsor acknowledgement');
+  doc.font('Helvetica').fontSize(11).text(`${r.sponsor.name} · prepared by Padside for Thrust & Filament · ${r.generatedOn}`);
+  doc.moveDown();
+  doc.font('Helvetica-Oblique').fontSize(10).text(NOT_A_RECEIPT);
+  doc.moveDown();
+  for (const a of r.agreements) {
+    doc.font('Helvetica-Bold').fontSize(13).text(`Season ${a.season}`);
+    doc.font('Helvetica').fontSize(10);
+    if (a.cashCents) doc.text(`Cash: ${dollars(a.cashCents)}${a.cashReceivedOn ? ` (received ${a.cashReceivedOn})` : ' (not yet received)'}`);
+    for (const i of a.inKind) doc.text(`In-kind: ${i.description}, declared value ${dollars(i.valueCents)}${i.receivedOn ? ` (received ${i.receivedOn})` : ''}`);
+    doc.text(`Declared total: ${dollars(a.totalCents)}`);
+    for (const k of a.byKind) doc.text(`${KIND_LABELS[k.kind]}: ${k.delivered} of ${k.promised} delivered`);
+    doc.moveDown(0.5);
+  }
+  doc.font('Helvetica-Bold').fontSize(13).text('Credits delivered');
+  doc.font('Helvetica').fontSize(10);
+  if (!r.credits.length) doc.text('No credits yet.');
+  for (const c of r.credits) doc.text(`${c.at.slice(0, 10)} · ${KIND_LABELS[c.kind] ?? c.kind} · ${c.postTitle ?? c.note ?? ''}${c.url ? ` · ${c.url}` : ''}`);
+  doc.end();
+  return done;
+}

@@ -1,0 +1,119 @@
+import { Router } from 'express';
+import type { Clock } from '../platform/clock';
+import { dateInZone } from '../platform/clock';
+import { requireRole } from '../platform/require-role';
+import { fields, parse } from '../platform/validate';
+import { acknowledgementCsv, acknowledgementPdf, type ReportData } from './acknowledgement-report';
+import { csvDocument } from './csv-cells';
+import { AgreementBody, CashReceivedBody, ContactBody, HandCreditBody, SponsorBody } from './sponsor-schemas';
+import type { SponsorService } from './sponsor-service';
+import { TiersSchema } from './sponsor-tiers';
+
+type Today = () => string;
+
+/** A function giving today's club date, for routes that judge "overdue" and "this season". */
+export const clubToday = (clock: Clock, timeZone: string): Today => () => dateInZone(clock.now(), timeZone);
+
+/** GET /api/sponsors (public): every sponsor with its current tier, and the sponsors page grouped by tier. */
+export function sponsorPublicRoutes(sponsors: SponsorService, today: Today): Router {
+  const r = Router();
+  r.get('/', async function listSponsors(_req, res) {
+    const items = await sponsors.withTiers(today());
+    res.json({ items: items.map((s) => ({ id: s.id, slug: s.slug, name: s.name, tier: s.tier })) });
+  });
+  r.get('/wall', async function sponsorWall(_req, res) {
+    res.json(await sponsors.publicWall(today()));
+  });
+  return r;
+}
+
+const STAFF = ['editor', 'treasurer', 'admin'] as const;
+const MONEY = ['treasurer', 'admin'] as const;
+
+/** /api/admin/sponsors: staff manage sponsors; agreements, cash, contacts and tiers are the treasurer's and admin's. */
+export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today: Today): Router {
+  const r = Router();
+  r.get('/', requireRole(...STAFF), async function listSponsorsAdmin(_req, res) {
+    res.json({ items: await sponsors.withTiers(today()) });
+  });
+  r.post('/', requireRole(...STAFF), async function createSponsor(req, res) {
+    const s = await sponsors.create(parse(SponsorBody, req.body));
+    res.status(201).json({ id: s.id, slug: s.slug });
+  });
+  r.get('/tiers', requireRole(...STAFF), async function getTiers(_req, res) {
+    res.json(await sponsors.tiers());
+  });
+  r.put('/tiers', requireRole(...MONEY), async function putTiers(req, res) {
+    res.json(await sponsors.setTiers(parse(TiersSchema, req.body)));
+  });
+  r.get('/overdue', requireRole(...STAFF), async function overdueDeliverables(_req, res) {
+    res.json({ items: await sponsors.overdue(today()) });
+  });
+  r.post('/agreements/:agreementId/cash-received', requireRole(...MONEY), async function cashReceived(req, res) {
+    const id = parse(fields.id, req.params.agreementId);
+    res.status(201).json(await sponsors.recordCashReceived(id, parse(CashReceivedBody, req.body), clock.now()));
+  });
+  r.get('/:id', requireRole(...STAFF), async function sponsorDetail(req, res) {
+    const id = parse(fields.id, req.params.id);
+    const sponsor = await sponsors.get(id);
+    const [contacts, credits] = await Promise.all([sponsors.contacts(id), sponsors.creditsOf(id)]);
+    res.json({ sponsor, contacts, credits });
+  });
+  r.put('/:id', requireRole(...STAFF), async function updateSponsor(req, res) {
+    res.json({ sponsor: await sponsors.update(parse(fields.id, req.params.id), parse(SponsorBody, req.body)) });
+  });
+  r.post('/:id/agreements', requireRole(...MONEY), async function addAgreement(req, res) {
+    res.status(201).json(await sponsors.addAgreement(parse(fields.id, req.params.id), parse(AgreementBody, req.body)));
+  });
+  r.get('/:id/ledger', requireRole(...STAFF), async function sponsorLedger(req, res) {
+    const id = parse(fields.id, req.params.id);
+    await sponsors.get(id);
+    res.json({ agreements: await sponsors.agreements(id, today()) });
+  });
+  r.get('/:id/ledger.csv', requireRole(...STAFF), async function sponsorLedgerCsv(req, res) {
+    const id = parse(fields.id, req.params.id);
+    const sponsor = await sponsors.get(id);
+    const rows = (await sponsors.agreements(id, today())).flatMap((a) => a.deliverables.map((l) => [a.season, l.kind, l.promised, l.delivered, l.dueOn, l.overdue ? 'overdue' : l.delivered >= l.promised ? 'done' : 'open']));
+    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="ledger-${sponsor.slug}-${today()}.csv"` });
+    res.send(csvDocument(['season', 'kind', 'promised', 'delivered', 'due_on', 'state'], rows));
+  });
+  r.post('/:id/credits', requireRole(...STAFF), async function recordCredit(req, res) {
+    const body = parse(HandCreditBody, req.body);
+    const creditedAt = body.creditedOn ? new Date(`${body.creditedOn}T12:00:00Z`) : clock.now();
+    res.status(201).json(await sponsors.recordCredit(parse(fields.id, req.params.id), { ...body, creditedAt }, req.user!.id));
+  });
+  r.post('/:id/contacts', requireRole(...MONEY), async function addContact(req, res) {
+    res.status(201).json(await sponsors.addContact(parse(fields.id, req.params.id), parse(ContactBody, req.body)));
+  });
+  r.delete('/:id/contacts/:userId', requireRole(...MONEY), async function removeContact(req, res) {
+    await sponsors.removeContact(parse(fields.id, req.params.id), parse(fields.id, req.params.userId));
+    res.status(204).end();
+  });
+  return r;
+}
+
+/** /api/sponsor-portal (role sponsor): the caller's own sponsor only; there is no sponsor id to choose. */
+export function sponsorPortalRoutes(sponsors: SponsorService, today: Today): Router {
+  const r = Router();
+  r.use(requireRole('sponsor'));
+  const report = async (userId: number): Promise<ReportData> => {
+    const sponsor = await sponsors.sponsorOfUser(userId);
+    const [agreements, credits] = await Promise.all([sponsors.agreements(sponsor.id, today()), sponsors.creditsOf(sponsor.id)]);
+    return { sponsor, agreements, credits, generatedOn: today() };
+  };
+  r.get('/me', async function portalMe(req, res) {
+    const { sponsor, agreements, credits } = await report(req.user!.id);
+    res.json({ sponsor, agreements, credits: credits.map((c) => ({ kind: c.kind, url: c.url, at: c.at, postSlug: c.postSlug ?? undefined, postTitle: c.postTitle ?? undefined, note: c.note, videoTimestamp: c.videoTimestamp })) });
+  });
+  r.get('/report.csv', async function portalReportCsv(req, res) {
+    const data = await report(req.user!.id);
+    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="acknowledgement-${data.sponsor.slug}-${data.generatedOn}.csv"` });
+    res.send(acknowledgementCsv(data));
+  });
+  r.get('/report.pdf', async function portalReportPdf(req, res) {
+    const data = await report(req.user!.id);
+    res.set({ 'Content-Type': 'application/pdf', 'Content-Disposition': `attachment; filename="acknowledgement-${data.sponsor.slug}-${data.generatedOn}.pdf"` });
+    res.send(await acknowledgementPdf(data));
+  });
+  return r;
+}

@@ -1,0 +1,71 @@
+import { z } from 'zod';
+import { fields } from '../platform/validate';
+import { DELIVERABLE_KINDS } from './sponsor-ledger';
+
+const optionalText = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, `Use at most ${max} characters.`)
+    .nullish()
+    .transform((s) => s || null);
+
+/** An http(s) address, or nothing. */
+export const webAddress = z
+  .string()
+  .trim()
+  .max(300, 'Use at most 300 characters.')
+  .refine((s) => s === '' || /^https?:\/\/[^\s/$.?#][^\s]*$/i.test(s), 'Enter an address starting with http:// or https://.')
+  .nullish()
+  .transform((s) => s || null);
+
+/** A file the upload endpoint stored, referenced by its own path. */
+export const uploadedImage = z
+  .string()
+  .regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Upload the image first, then use the address it returns.')
+  .nullish()
+  .transform((s) => s ?? null);
+
+export const SponsorBody = z.object({
+  name: z.string({ error: 'Name is required.' }).trim().min(1, 'Name is required.').max(120, 'Use at most 120 characters.'),
+  website: webAddress,
+  blurb: optionalText(1000),
+  logoUrl: uploadedImage,
+});
+
+const season = z.string({ error: 'Season is required.' }).regex(/^\d{4}$/, 'A season is a year, like 2026.');
+
+export const AgreementBody = z.object({
+  season,
+  cashCents: fields.cents.optional(),
+  note: optionalText(1000),
+  inKind: z
+    .array(z.object({ description: z.string({ error: 'Describe the item.' }).trim().min(1, 'Describe the item.').max(200, 'Use at most 200 characters.'), valueCents: fields.cents, receivedOn: fields.date.nullish() }))
+    .max(50)
+    .optional(),
+  deliverables: z
+    .array(z.object({ kind: z.enum(DELIVERABLE_KINDS, { error: `Kind is one of ${DELIVERABLE_KINDS.join(', ')}.` }), quantity: z.number({ error: 'Enter a quantity.' }).int('Whole numbers only.').min(1, 'At least 1.').max(1000), dueOn: fields.date }), {
+      error: 'List what was promised.',
+    })
+    .max(50),
+});
+
+export const CashReceivedBody = z.object({ receivedOn: fields.date, method: z.enum(['cash', 'e-transfer', 'cheque', 'card', 'other'], { error: 'Method is cash, e-transfer, cheque, card or other.' }) });
+
+export const HandCreditBody = z
+  .object({
+    kind: z.enum(['video_mention', 'logo_on_merch', 'sponsors_page', 'social_post'], { error: 'Build-log credits come from publishing a post; pick video_mention, logo_on_merch, sponsors_page or social_post.' }),
+    url: webAddress,
+    videoTimestamp: z
+      .string()
+      .regex(/^\d{1,2}(:\d{2}){1,2}$/, 'Use minutes and seconds, like 4:35 or 1:04:35.')
+      .nullish()
+      .transform((s) => s ?? null),
+    note: optionalText(500),
+    creditedOn: fields.date.optional(),
+  })
+  .refine((c) => c.kind === 'logo_on_merch' || c.kind === 'sponsors_page' || c.url !== null, { path: ['url'], message: 'Add the link where the credit can be seen.' });
+
+export const ContactBody = z
+  .object({ userId: fields.id.optional(), email: fields.email.optional() })
+  .refine((c) => c.userId !== undefined || c.email !== undefined, { path: ['email'], message: 'Enter the contact’s e-mail.' });

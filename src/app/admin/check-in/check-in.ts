@@ -1,0 +1,58 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { HttpClient, HttpContext } from '@angular/common/http';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { firstValueFrom } from 'rxjs';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { applyServerErrors } from '../../core/api-error';
+import { QUIET_ERRORS } from '../../core/error-interceptor';
+import { FlyingCaution } from '../../membership/flying-caution';
+import { FieldErrorPipe } from '../../shared/field-error-pipe';
+
+/** What the server says about a scanned card. */
+export interface CheckInResult {
+  status: 'active' | 'lapsing' | 'lapsed' | 'unknown';
+  memberNumber: string | null;
+  name: string | null;
+  associationExpires: string | null;
+  associationCurrent: boolean | null;
+  termEnd: string | null;
+  certificationLevel: string | null;
+}
+
+const VERDICT: Record<CheckInResult['status'], string> = {
+  active: 'Valid: dues are current',
+  lapsing: 'Lapsing: dues ended, still in grace',
+  lapsed: 'Lapsed: dues are not current',
+  unknown: 'Unknown card: the code does not match any member',
+};
+
+/** Launch-day check-in: a scanner types the card code into the field (or staff paste it) and the verdict shows. */
+@Component({
+  selector: 'ps-check-in',
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, FlyingCaution],
+  templateUrl: './check-in.html',
+  styleUrl: './check-in.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CheckIn {
+  private readonly http = inject(HttpClient);
+  protected readonly verdict = VERDICT;
+  protected readonly form = inject(NonNullableFormBuilder).group({ token: ['', Validators.required] });
+  protected readonly result = signal<CheckInResult | null>(null);
+  protected readonly problem = signal<string | null>(null);
+
+  /** `formDir` resets the submitted state too, so the empty field is ready for the next scan without an error. */
+  protected async check(formDir: FormGroupDirective): Promise<void> {
+    this.form.markAllAsTouched();
+    if (this.form.invalid) return;
+    this.problem.set(null);
+    try {
+      this.result.set(await firstValueFrom(this.http.post<CheckInResult>('/api/admin/checkin', this.form.getRawValue(), { context: new HttpContext().set(QUIET_ERRORS, true) })));
+      formDir.resetForm();
+    } catch (err) {
+      this.problem.set(applyServerErrors(this.form, err));
+    }
+  }
+}

@@ -1,0 +1,96 @@
+import { ChangeDetectionStrategy, Component, inject, input, numberAttribute, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { DatePipe, JsonPipe } from '@angular/common';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { RouterLink } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { HttpErrorResponse } from '@angular/common/http';
+import { applyServerErrors } from '../../core/api-error';
+import type { ApiErrorBody } from '../../core/user';
+import { EmptyState } from '../../shared/empty-state';
+import { FieldErrorPipe } from '../../shared/field-error-pipe';
+import { MoneyPipe } from '../../shared/money-pipe';
+import { MembersApi, type PaymentLine } from './members-api';
+
+/** One member: record, family, payments with refunds, manual payment entry and the audit of changes. */
+@Component({
+  selector: 'ps-member-detail',
+  imports: [ReactiveFormsModule, RouterLink, DatePipe, JsonPipe, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FieldErrorPipe, MoneyPipe],
+  templateUrl: './member-detail.html',
+  styleUrl: './members.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class MemberDetail {
+  private readonly api = inject(MembersApi);
+  private readonly fb = inject(NonNullableFormBuilder);
+
+  /** Route parameter. */
+  readonly id = input.required({ transform: numberAttribute });
+
+  protected readonly detail = rxResource({ params: () => this.id(), stream: ({ params }) => this.api.detail(params) });
+  protected readonly paymentForm = this.fb.group({
+    amount: ['', [Validators.required, Validators.pattern(/^\d+(\.\d{1,2})?$/)]],
+    method: ['cash', Validators.required],
+    receiptNumber: ['', [Validators.required, Validators.maxLength(40)]],
+    note: [''],
+  });
+  protected readonly refundForm = this.fb.group({ amount: ['', [Validators.required, Validators.pattern(/^\d+(\.\d{1,2})?$/)]], reason: ['', Validators.required] });
+  protected readonly refunding = signal<PaymentLine | null>(null);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly notice = signal<string | null>(null);
+
+  /** Server errors on `amountCents` belong beside the dollars field. */
+  private showErrors(form: typeof this.refundForm | typeof this.paymentForm, err: unknown): string {
+    const message = applyServerErrors(form, err);
+    const amount = err instanceof HttpErrorResponse ? (err.error as ApiErrorBody | null)?.error?.fields?.['amountCents'] : undefined;
+    if (amount) {
+      form.controls.amount.setErrors({ server: amount });
+      form.controls.amount.markAsTouched();
+    }
+    return message;
+  }
+
+  private cents(text: string): number {
+    return Math.round(Number(text) * 100);
+  }
+
+  protected async recordPayment(formDir: FormGroupDirective): Promise<void> {
+    this.paymentForm.markAllAsTouched();
+    if (this.paymentForm.invalid) return;
+    this.problem.set(null);
+    const v = this.paymentForm.getRawValue();
+    try {
+      await firstValueFrom(this.api.recordPayment(this.id(), { amountCents: this.cents(v.amount), method: v.method, receiptNumber: v.receiptNumber, ...(v.note ? { note: v.note } : {}) }));
+      this.notice.set(`Payment ${v.receiptNumber} recorded; a receipt is on its way to the member.`);
+      formDir.resetForm({ amount: '', method: 'cash', receiptNumber: '', note: '' });
+      this.detail.reload();
+    } catch (err) {
+      this.problem.set(this.showErrors(this.paymentForm, err));
+    }
+  }
+
+  protected startRefund(p: PaymentLine): void {
+    this.refunding.set(p);
+    this.refundForm.reset({ amount: (p.amountCents / 100).toFixed(2), reason: '' });
+  }
+
+  protected async refund(): Promise<void> {
+    const p = this.refunding();
+    this.refundForm.markAllAsTouched();
+    if (!p || this.refundForm.invalid) return;
+    this.problem.set(null);
+    try {
+      const v = this.refundForm.getRawValue();
+      await firstValueFrom(this.api.refund(this.id(), { paymentId: p.id, amountCents: this.cents(v.amount), reason: v.reason }));
+      this.notice.set('Refund recorded.');
+      this.refunding.set(null);
+      this.detail.reload();
+    } catch (err) {
+      this.problem.set(this.showErrors(this.refundForm, err));
+    }
+  }
+}

@@ -1,0 +1,148 @@
+import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable } from 'rxjs';
+import { QUIET_ERRORS } from '../../core/error-interceptor';
+import type { MembershipStatus, Plan } from '../../membership/membership-api';
+
+/** Roster filters, sort and page, as the server takes them. */
+export interface RosterQuery {
+  status: '' | MembershipStatus;
+  planId: '' | number;
+  certificationLevel: string;
+  associationExpiresBefore: string;
+  q: string;
+  sort: 'memberNumber' | 'name' | 'termEnd' | 'status' | 'plan' | 'associationExpires';
+  dir: 'asc' | 'desc';
+  page: number;
+  pageSize: number;
+}
+
+export interface RosterLine {
+  id: number;
+  memberNumber: string;
+  name: string;
+  email: string;
+  planName: string;
+  status: MembershipStatus;
+  termEnd: string | null;
+  certificationLevel: string;
+  associationNumber: string | null;
+  associationExpires: string | null;
+  autoRenew: boolean;
+  mailOptOut: boolean;
+}
+
+export interface PaymentLine {
+  id: number;
+  entry: 'payment' | 'refund';
+  status: string;
+  method: string;
+  amountCents: number;
+  receiptNumber: string | null;
+  termStart: string | null;
+  termEnd: string | null;
+  note: string | null;
+  failureMessage: string | null;
+  createdAt: string;
+}
+
+export interface MemberDetail {
+  member: {
+    id: number;
+    memberNumber: string;
+    status: MembershipStatus;
+    legalName: string;
+    email: string | null;
+    planName: string | null;
+    termStart: string | null;
+    termEnd: string | null;
+    dateOfBirth: string;
+    address: string;
+    phone: string;
+    emergencyContact: string;
+    associationNumber: string | null;
+    associationExpires: string | null;
+    certificationLevel: string;
+    certificationDate: string | null;
+    waiverVersion: string;
+    waiverAcceptedAt: string;
+    autoRenew: boolean;
+    mailOptOut: boolean;
+  };
+  familyMembers: { name: string; dateOfBirth: string }[];
+  payments: PaymentLine[];
+  audit: { id: number; action: string; detail: Record<string, unknown>; actor: string | null; at: string }[];
+}
+
+export interface DuesSummary {
+  collected: { month: string; planCode: string; planName: string; cents: number; payments: number }[];
+  byStatus: Record<MembershipStatus, number>;
+}
+
+/** The club's membership rules (term rule, grace, waiver and safety code versions). */
+export interface ClubRules {
+  termRule: 'calendar' | 'anniversary';
+  lateSeasonFrom: string;
+  graceDays: number;
+  prorate: boolean;
+  waiverVersion: string;
+  waiverText: string;
+  safetyCodeVersion: string;
+  associationName: string;
+  certificationLevels: { code: string; label: string }[];
+}
+
+/** Only the filters that are set, so URLs and the CSV link stay short. */
+export function filterParams(q: Partial<RosterQuery>): HttpParams {
+  let params = new HttpParams();
+  for (const [k, v] of Object.entries(q)) if (v !== '' && v !== undefined && v !== null) params = params.set(k, String(v));
+  return params;
+}
+
+const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
+
+/** The treasurer's membership endpoints. */
+@Injectable({ providedIn: 'root' })
+export class MembersApi {
+  private readonly http = inject(HttpClient);
+
+  roster(q: RosterQuery): Observable<{ items: RosterLine[]; total: number }> {
+    return this.http.get<{ items: RosterLine[]; total: number }>('/api/admin/members', { params: filterParams(q) });
+  }
+
+  detail(id: number): Observable<MemberDetail> {
+    return this.http.get<MemberDetail>(`/api/admin/members/${id}`);
+  }
+
+  recordPayment(id: number, body: { amountCents: number; method: string; receiptNumber: string; note?: string }): Observable<MemberDetail> {
+    return this.http.post<MemberDetail>(`/api/admin/members/${id}/payments`, body, quiet());
+  }
+
+  refund(id: number, body: { paymentId: number; amountCents: number; reason: string }): Observable<MemberDetail> {
+    return this.http.post<MemberDetail>(`/api/admin/members/${id}/refunds`, body, quiet());
+  }
+
+  summary(): Observable<DuesSummary> {
+    return this.http.get<DuesSummary>('/api/admin/members/summary');
+  }
+
+  emailRoster(filters: Partial<RosterQuery>, subject: string, text: string): Observable<{ queued: number; skippedOptedOut: number }> {
+    return this.http.post<{ queued: number; skippedOptedOut: number }>('/api/admin/members/email', { filters, subject, text }, quiet());
+  }
+
+  settings(): Observable<{ settings: ClubRules }> {
+    return this.http.get<{ settings: ClubRules }>('/api/admin/members/settings');
+  }
+
+  saveSettings(settings: ClubRules): Observable<{ settings: ClubRules }> {
+    return this.http.put<{ settings: ClubRules }>('/api/admin/members/settings', settings, quiet());
+  }
+
+  plans(): Observable<{ items: (Plan & { active: boolean })[] }> {
+    return this.http.get<{ items: (Plan & { active: boolean })[] }>('/api/admin/members/plans');
+  }
+
+  updatePlan(id: number, patch: { name?: string; duesCents?: number; joiningFeeCents?: number; active?: boolean }): Observable<{ plan: Plan }> {
+    return this.http.patch<{ plan: Plan }>(`/api/admin/members/plans/${id}`, patch, quiet());
+  }
+}

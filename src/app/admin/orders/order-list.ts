@@ -1,0 +1,51 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { DatePipe } from '@angular/common';
+import { FormsModule } from '@angular/forms';
+import { RouterLink } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSortModule, Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { EmptyState } from '../../shared/empty-state';
+import { MoneyPipe } from '../../shared/money-pipe';
+import { STATUS_LABELS } from '../../shop/shop-types';
+import { ShopAdminApi, type OrderQuery } from './shop-admin-api';
+
+/** The orders table: server paging and sorting, filters by status, run and dates, search, CSV of the same filter. */
+@Component({
+  selector: 'ps-order-list',
+  imports: [DatePipe, FormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatSelectModule, MatSortModule, MatTableModule, MoneyPipe, EmptyState],
+  templateUrl: './order-list.html',
+  styles: `.ps-page { max-width: none; } .filters .search { min-width: 300px; } .filters { display: flex; gap: 12px; flex-wrap: wrap; align-items: center; } table { width: 100%; } .disputed { color: var(--mat-sys-error); font-weight: 600; }`,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class OrderList {
+  private readonly api = inject(ShopAdminApi);
+  protected readonly columns = ['number', 'created', 'email', 'status', 'units', 'total'];
+  protected readonly statuses = Object.entries(STATUS_LABELS);
+  protected readonly query = signal<OrderQuery>({ page: 1, pageSize: 25, sort: 'created', dir: 'desc' });
+  protected readonly orders = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.orders(params) });
+  protected readonly runs = rxResource({ stream: () => this.api.runs() });
+  protected readonly csvHref = computed(() => {
+    const { page: _p, pageSize: _s, ...filter } = this.query();
+    return `/api/admin/orders/export?${ShopAdminApi.params(filter).toString()}`;
+  });
+
+  protected label(status: keyof typeof STATUS_LABELS): string {
+    return STATUS_LABELS[status];
+  }
+
+  protected filter(patch: Partial<OrderQuery>): void {
+    this.query.update((q) => ({ ...q, ...patch, page: 1 }));
+  }
+  protected sortBy(s: Sort): void {
+    this.query.update((q) => ({ ...q, sort: s.direction ? s.active : 'created', dir: s.direction || 'desc', page: 1 }));
+  }
+  protected changePage(e: PageEvent): void {
+    this.query.update((q) => ({ ...q, page: e.pageIndex + 1, pageSize: e.pageSize }));
+  }
+}

@@ -1,0 +1,93 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { RouterLink } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { applyServerErrors } from '../../core/api-error';
+import { FieldErrorPipe } from '../../shared/field-error-pipe';
+import { MoneyPipe } from '../../shared/money-pipe';
+import { RUN_STATE_LABELS } from '../../shop/countdown';
+import type { Product } from '../../shop/shop-types';
+import { ShopAdminApi } from '../orders/shop-admin-api';
+
+/** Products for staff: the list, on/off sale, and a form for a new product with its sizes and optional limited run. */
+@Component({
+  selector: 'ps-product-admin',
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe],
+  templateUrl: './product-admin.html',
+  styles: `.ps-page { max-width: none; } table { width: 100%; border-collapse: collapse; } th, td { text-align: left; padding: 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); } .grid { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 0 16px; } label.upload { margin-left: 8px; cursor: pointer; text-decoration: underline; } label.upload input { position: absolute; width: 1px; height: 1px; opacity: 0; } label.upload:focus-within { outline: 2px solid var(--ps-igniter); } fieldset { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; padding: 12px 16px; margin: 0 0 16px; }`,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ProductAdmin {
+  private readonly api = inject(ShopAdminApi);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly fb = inject(NonNullableFormBuilder);
+  protected readonly stateLabels = RUN_STATE_LABELS;
+  protected readonly products = rxResource({ stream: () => this.api.products() });
+  protected readonly problem = signal<string | null>(null);
+
+  protected readonly form = this.fb.group({
+    name: ['', [Validators.required, Validators.minLength(2)]],
+    description: [''],
+    price: ['', [Validators.required, Validators.pattern(/^\d+(\.\d{1,2})?$/)]],
+    weightGrams: [200, [Validators.required, Validators.min(1)]],
+    sizes: ['S, M, L, XL', Validators.required],
+    limited: [true],
+    cap: [100, Validators.min(1)],
+    opensAt: [''],
+    closesAt: [''],
+  });
+
+  protected async setActive(p: Product & { active: boolean }, active: boolean): Promise<void> {
+    await firstValueFrom(this.api.editProduct(p.id, { active }));
+    this.products.reload();
+  }
+
+  /** Uploads an image (the server checks its bytes and makes the thumbnail) and adds it to the product. */
+  protected async addImage(p: Product, input: HTMLInputElement): Promise<void> {
+    const file = input.files?.[0];
+    if (!file) return;
+    try {
+      const stored = await firstValueFrom(this.api.uploadImage(file));
+      await firstValueFrom(this.api.editProduct(p.id, { images: [...p.images, { url: stored.url, thumbnailUrl: stored.thumbnailUrl, alt: p.name }] }));
+      this.snackBar.open(`Image added to ${p.name}.`, undefined, { duration: 3000 });
+      this.products.reload();
+    } finally {
+      input.value = '';
+    }
+  }
+
+  protected async create(): Promise<void> {
+    this.form.markAllAsTouched();
+    if (this.form.invalid) return;
+    const v = this.form.getRawValue();
+    this.problem.set(null);
+    const body = {
+      name: v.name,
+      description: v.description,
+      priceCents: Math.round(Number(v.price) * 100),
+      weightGrams: Number(v.weightGrams),
+      variants: v.sizes.split(',').map((s) => s.trim()).filter(Boolean).map((label) => ({ label, ...(v.limited ? {} : { stock: 0 }) })),
+      ...(v.limited ? { run: { cap: Number(v.cap), opensAt: v.opensAt ? new Date(v.opensAt).toISOString() : '', closesAt: v.closesAt ? new Date(v.closesAt).toISOString() : '' } } : {}),
+    };
+    try {
+      await firstValueFrom(this.api.createProduct(body));
+      this.snackBar.open(`${v.name} created.`, undefined, { duration: 3000 });
+      this.form.reset();
+      this.products.reload();
+    } catch (err) {
+      this.problem.set(applyServerErrors(this.form, err));
+      const fields = (err as { error?: { error?: { fields?: Record<string, string> } } }).error?.error?.fields ?? {};
+      if (fields['priceCents']) this.form.controls.price.setErrors({ server: fields['priceCents'] });
+      if (fields['variants']) this.form.controls.sizes.setErrors({ server: fields['variants'] });
+      if (fields['run.cap']) this.form.controls.cap.setErrors({ server: fields['run.cap'] });
+      if (fields['run.opensAt']) this.form.controls.opensAt.setErrors({ server: fields['run.opensAt'] });
+      if (fields['run.closesAt']) this.form.controls.closesAt.setErrors({ server: fields['run.closesAt'] });
+    }
+  }
+}

@@ -1,0 +1,65 @@
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { DatePipe } from '@angular/common';
+import { RouterLink } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+import { MatButtonModule } from '@angular/material/button';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { EmptyState } from '../../shared/empty-state';
+import { RUN_STATE_LABELS } from '../../shop/countdown';
+import { ShopAdminApi } from '../orders/shop-admin-api';
+
+const MOVE_LABELS: Record<string, string> = { closed: 'Close now', in_production: 'Send to the printer', shipped: 'Mark shipped' };
+
+/** Limited runs: how full, the window, the next step, and the way to each print-run sheet. */
+@Component({
+  selector: 'ps-run-list',
+  imports: [DatePipe, RouterLink, MatButtonModule, MatProgressBarModule, EmptyState],
+  template: `
+    <section class="ps-page">
+      <h1>Runs</h1>
+      @if (runs.value(); as items) {
+        @if (items.length) {
+          <table>
+            <caption class="ps-visually-hidden">Limited runs</caption>
+            <thead><tr><th scope="col">Run</th><th scope="col">State</th><th scope="col">Sold</th><th scope="col">Window</th><th scope="col">Actions</th></tr></thead>
+            <tbody>
+              @for (r of items; track r.id) {
+                <tr>
+                  <td><strong>{{ r.name }}</strong><br /><small>{{ r.productName }}</small></td>
+                  <td>{{ stateLabels[r.state] }}</td>
+                  <td>
+                    {{ r.reserved }} of {{ r.cap }}
+                    <mat-progress-bar mode="determinate" [value]="(100 * r.reserved) / r.cap" [attr.aria-label]="r.reserved + ' of ' + r.cap + ' sold'" />
+                  </td>
+                  <td>{{ r.opensAt | date: 'mediumDate' }} – {{ r.closesAt | date: 'mediumDate' }}</td>
+                  <td>
+                    <a mat-stroked-button [routerLink]="['/console/runs', r.id, 'print-sheet']">Print-run sheet</a>
+                    @for (s of r.nextStates; track s) {
+                      <button mat-button type="button" (click)="move(r.id, s)">{{ moveLabels[s] }}</button>
+                    }
+                  </td>
+                </tr>
+              }
+            </tbody>
+          </table>
+        } @else {
+          <ps-empty-state icon="checkroom" message="No runs yet." />
+        }
+      }
+    </section>
+  `,
+  styles: `.ps-page { max-width: none; } table { width: 100%; border-collapse: collapse; } th, td { text-align: left; padding: 8px 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); vertical-align: top; } mat-progress-bar { max-width: 160px; margin-top: 4px; }`,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class RunList {
+  private readonly api = inject(ShopAdminApi);
+  protected readonly runs = rxResource({ stream: () => this.api.runs() });
+  protected readonly stateLabels = RUN_STATE_LABELS;
+  protected readonly moveLabels = MOVE_LABELS;
+
+  protected async move(id: number, state: string): Promise<void> {
+    await firstValueFrom(this.api.moveRun(id, state));
+    this.runs.reload();
+  }
+}

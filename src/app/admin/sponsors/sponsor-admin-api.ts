@@ -1,0 +1,89 @@
+import { HttpClient, HttpContext } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable } from 'rxjs';
+import { QUIET_ERRORS } from '../../core/error-interceptor';
+import type { Agreement, DeliverableKind } from '../../sponsors/sponsor-api';
+
+export interface AdminSponsorRow {
+  id: number;
+  slug: string;
+  name: string;
+  website: string | null;
+  blurb: string | null;
+  logoUrl: string | null;
+  tier: string | null;
+  seasonTotalCents: number;
+}
+
+export interface AdminCredit {
+  id: number;
+  kind: DeliverableKind;
+  url: string | null;
+  at: string;
+  postSlug: string | null;
+  postTitle: string | null;
+  videoTimestamp: string | null;
+  note: string | null;
+  counted: boolean;
+}
+
+export interface SponsorDetail {
+  sponsor: Omit<AdminSponsorRow, 'tier' | 'seasonTotalCents'>;
+  contacts: { userId: number; email: string; displayName: string }[];
+  credits: AdminCredit[];
+}
+
+export interface OverdueItem {
+  sponsorId: number;
+  sponsorName: string;
+  agreementId: number;
+  kind: DeliverableKind;
+  promised: number;
+  delivered: number;
+  dueOn: string;
+}
+
+const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
+
+/** Staff endpoints for sponsors, agreements, contacts, credits and tiers. */
+@Injectable({ providedIn: 'root' })
+export class SponsorAdminApi {
+  private readonly http = inject(HttpClient);
+
+  list(): Observable<{ items: AdminSponsorRow[] }> {
+    return this.http.get<{ items: AdminSponsorRow[] }>('/api/admin/sponsors');
+  }
+  overdue(): Observable<{ items: OverdueItem[] }> {
+    return this.http.get<{ items: OverdueItem[] }>('/api/admin/sponsors/overdue');
+  }
+  create(body: { name: string; website: string; blurb: string }): Observable<{ id: number; slug: string }> {
+    return this.http.post<{ id: number; slug: string }>('/api/admin/sponsors', body, quiet());
+  }
+  detail(id: number): Observable<SponsorDetail> {
+    return this.http.get<SponsorDetail>(`/api/admin/sponsors/${id}`);
+  }
+  update(id: number, body: { name: string; website: string; blurb: string; logoUrl: string | null }): Observable<unknown> {
+    return this.http.put(`/api/admin/sponsors/${id}`, body, quiet());
+  }
+  ledger(id: number): Observable<{ agreements: Agreement[] }> {
+    return this.http.get<{ agreements: Agreement[] }>(`/api/admin/sponsors/${id}/ledger`);
+  }
+  addAgreement(id: number, body: object): Observable<{ id: number }> {
+    return this.http.post<{ id: number }>(`/api/admin/sponsors/${id}/agreements`, body, quiet());
+  }
+  cashReceived(agreementId: number, body: { receivedOn: string; method: string }): Observable<unknown> {
+    return this.http.post(`/api/admin/sponsors/agreements/${agreementId}/cash-received`, body, quiet());
+  }
+  addCredit(id: number, body: object): Observable<{ id: number; counted: boolean }> {
+    return this.http.post<{ id: number; counted: boolean }>(`/api/admin/sponsors/${id}/credits`, body, quiet());
+  }
+  addContact(id: number, email: string): Observable<unknown> {
+    return this.http.post(`/api/admin/sponsors/${id}/contacts`, { email }, quiet());
+  }
+  tiers(): Observable<{ tiers: { name: string; minCents: number }[] }> {
+    return this.http.get<{ tiers: { name: string; minCents: number }[] }>('/api/admin/sponsors/tiers');
+  }
+  setTiers(tiers: { name: string; minCents: number }[]): Observable<unknown> {
+    return this.http.put('/api/admin/sponsors/tiers', { tiers }, quiet());
+  }
+}

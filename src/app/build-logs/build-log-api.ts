@@ -1,0 +1,42 @@
+import { HttpClient, HttpParams } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable } from 'rxjs';
+
+/** One row of the public list. */
+export interface PostSummary {
+  slug: string;
+  title: string;
+  summary: string;
+  coverUrl: string | null;
+  publishedAt: string;
+  tags: string[];
+  membersOnly: boolean;
+}
+
+/** A published post as the page shows it; `html` is null when the body is for members. */
+export interface PostDetail extends PostSummary {
+  author: string | null;
+  html: string | null;
+  credits: { sponsorId: number; name: string; slug: string }[];
+  hazardNotice: boolean;
+}
+
+/** The public build-log endpoints. */
+@Injectable({ providedIn: 'root' })
+export class BuildLogApi {
+  private readonly http = inject(HttpClient);
+
+  list(query: { tag?: string; page: number; pageSize: number }): Observable<{ items: PostSummary[]; total: number }> {
+    let params = new HttpParams().set('page', query.page).set('pageSize', query.pageSize);
+    if (query.tag) params = params.set('tag', query.tag);
+    return this.http.get<{ items: PostSummary[]; total: number }>('/api/posts', { params });
+  }
+
+  tags(): Observable<{ items: { tag: string; count: number }[] }> {
+    return this.http.get<{ items: { tag: string; count: number }[] }>('/api/posts/tags');
+  }
+
+  get(slug: string): Observable<PostDetail> {
+    return this.http.get<PostDetail>(`/api/posts/${encodeURIComponent(slug)}`);
+  }
+}

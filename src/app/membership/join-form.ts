@@ -1,0 +1,97 @@
+import { ChangeDetectionStrategy, Component, computed, inject, output, signal } from '@angular/core';
+import { rxResource, toSignal } from '@angular/core/rxjs-interop';
+import { FormArray, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { firstValueFrom } from 'rxjs';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { applyServerErrors } from '../core/api-error';
+import { FieldErrorPipe } from '../shared/field-error-pipe';
+import { MoneyPipe } from '../shared/money-pipe';
+import { MembershipApi, type Membership } from './membership-api';
+import { TEST_CARDS } from './test-cards';
+
+/** The join form: plan, member profile, family, association and certification, waiver, card and auto-renew. */
+@Component({
+  selector: 'ps-join-form',
+  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, MoneyPipe],
+  templateUrl: './join-form.html',
+  styleUrl: './membership-forms.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class JoinForm {
+  private readonly api = inject(MembershipApi);
+  private readonly fb = inject(NonNullableFormBuilder);
+
+  /** Emits the new membership once the first payment has gone through. */
+  readonly joined = output<Membership>();
+
+  protected readonly cards = TEST_CARDS;
+  protected readonly plans = rxResource({ stream: () => this.api.plans() });
+  protected readonly policy = rxResource({ stream: () => this.api.policy() });
+  protected readonly form = this.fb.group({
+    planId: this.fb.control<number | null>(null, Validators.required),
+    profile: this.fb.group({
+      legalName: ['', [Validators.required, Validators.maxLength(120)]],
+      dateOfBirth: ['', Validators.required],
+      address: ['', [Validators.required, Validators.maxLength(400)]],
+      phone: ['', Validators.required],
+      emergencyContact: ['', Validators.required],
+      associationNumber: [''],
+      associationExpires: [''],
+      certificationLevel: ['none'],
+      certificationDate: [''],
+      familyMembers: this.fb.array<FormGroup>([]),
+    }),
+    waiverAccepted: [false, Validators.requiredTrue],
+    waiverVersion: [''],
+    paymentToken: ['', Validators.required],
+    autoRenew: [false],
+  });
+  protected readonly problem = signal<string | null>(null);
+  protected readonly busy = signal(false);
+
+  private readonly planId = toSignal(this.form.controls.planId.valueChanges, { initialValue: null });
+  protected readonly selectedPlan = computed(() => this.plans.value()?.items.find((p) => p.id === this.planId()) ?? null);
+  protected readonly quote = rxResource({ params: () => this.planId() ?? undefined, stream: ({ params }) => this.api.quote(params) });
+
+  protected get family(): FormArray<FormGroup> {
+    return this.form.controls.profile.controls.familyMembers;
+  }
+
+  protected addFamilyMember(): void {
+    this.family.push(this.fb.group({ name: ['', Validators.required], dateOfBirth: ['', Validators.required] }));
+  }
+
+  protected removeFamilyMember(i: number): void {
+    this.family.removeAt(i);
+  }
+
+  protected async submit(): Promise<void> {
+    this.form.markAllAsTouched();
+    const policy = this.policy.value();
+    if (this.form.invalid || !policy) return;
+    this.busy.set(true);
+    this.problem.set(null);
+    const v = this.form.getRawValue();
+    try {
+      const res = await firstValueFrom(
+        this.api.join({
+          planId: v.planId!,
+          profile: { ...v.profile, familyMembers: this.selectedPlan()?.eligibility === 'family' ? v.profile.familyMembers : [] },
+          waiverVersion: policy.waiverVersion,
+          safetyCodeVersion: policy.safetyCodeVersion,
+          paymentToken: v.paymentToken,
+          autoRenew: v.autoRenew,
+        }),
+      );
+      this.joined.emit(res.membership);
+    } catch (err) {
+      this.problem.set(applyServerErrors(this.form, err));
+    } finally {
+      this.busy.set(false);
+    }
+  }
+}

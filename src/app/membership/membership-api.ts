@@ -1,0 +1,125 @@
+import { HttpClient, HttpContext } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable } from 'rxjs';
+import { QUIET_ERRORS } from '../core/error-interceptor';
+
+export type MembershipStatus = 'pending' | 'active' | 'lapsing' | 'lapsed';
+
+export interface Plan {
+  id: number;
+  code: string;
+  name: string;
+  description: string;
+  eligibility: 'any' | 'junior' | 'family';
+  duesCents: number;
+  joiningFeeCents: number;
+}
+
+export interface MembershipPolicy {
+  termRule: 'calendar' | 'anniversary';
+  lateSeasonFrom: string;
+  graceDays: number;
+  waiverVersion: string;
+  waiverText: string;
+  safetyCodeVersion: string;
+  associationName: string;
+  certificationLevels: { code: string; label: string }[];
+}
+
+export interface Quote {
+  amountCents: number;
+  duesCents: number;
+  joiningFeeCents: number;
+  termStart: string;
+  termEnd: string;
+  renewal: boolean;
+}
+
+export interface Membership {
+  memberNumber: string;
+  status: MembershipStatus;
+  termStart: string | null;
+  termEnd: string | null;
+  graceEnds: string | null;
+  planId: number;
+  planName: string | null;
+  legalName: string;
+  associationNumber: string | null;
+  associationExpires: string | null;
+  certificationLevel: string;
+  certificationDate: string | null;
+  waiverCurrent: boolean;
+  autoRenew: boolean;
+  hasSavedCard: boolean;
+  renewalFailed: boolean;
+}
+
+export interface MemberCard {
+  name: string;
+  memberNumber: string;
+  planName: string | null;
+  status: MembershipStatus;
+  termEnd: string | null;
+  certificationLabel: string;
+  associationName: string;
+  associationNumber: string | null;
+  associationExpires: string | null;
+  token: string;
+  qrSvg: string;
+}
+
+/** What the join form sends. */
+export interface JoinRequest {
+  planId: number;
+  profile: Record<string, unknown>;
+  waiverVersion: string;
+  safetyCodeVersion: string;
+  paymentToken: string;
+  autoRenew: boolean;
+}
+
+// Form errors are shown beside the fields, so these calls skip the global snack bar.
+const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
+
+/** Club dues: plans, quotes, joining, renewing and the member card. */
+@Injectable({ providedIn: 'root' })
+export class MembershipApi {
+  private readonly http = inject(HttpClient);
+
+  plans(): Observable<{ items: Plan[] }> {
+    return this.http.get<{ items: Plan[] }>('/api/membership/plans');
+  }
+
+  policy(): Observable<MembershipPolicy> {
+    return this.http.get<MembershipPolicy>('/api/membership/policy');
+  }
+
+  quote(planId: number): Observable<Quote> {
+    return this.http.post<Quote>('/api/membership/quote', { planId }, quiet());
+  }
+
+  /** The caller's membership; a 404 (no membership yet) is expected, so it stays quiet. */
+  me(): Observable<{ membership: Membership }> {
+    return this.http.get<{ membership: Membership }>('/api/membership/me', quiet());
+  }
+
+  join(body: JoinRequest): Observable<{ membership: Membership }> {
+    return this.http.post<{ membership: Membership }>('/api/membership', body, quiet());
+  }
+
+  renew(body: { paymentToken?: string; waiverVersion?: string; safetyCodeVersion?: string }): Observable<{ membership: Membership }> {
+    return this.http.post<{ membership: Membership }>('/api/membership/renew', body, quiet());
+  }
+
+  updateProfile(patch: { associationNumber?: string | null; associationExpires?: string | null; certificationLevel?: string; certificationDate?: string | null }): Observable<{ membership: Membership }> {
+    return this.http.patch<{ membership: Membership }>('/api/membership/me', patch, quiet());
+  }
+
+  setAutoRenew(autoRenew: boolean, paymentToken?: string): Observable<{ membership: Membership }> {
+    return this.http.post<{ membership: Membership }>('/api/membership/auto-renew', { autoRenew, ...(paymentToken ? { paymentToken } : {}) }, quiet());
+  }
+
+  card(): Observable<{ card: MemberCard }> {
+    return this.http.get<{ card: MemberCard }>('/api/membership/card');
+  }
+}

@@ -1,0 +1,52 @@
+import { Injectable, computed, effect, signal } from '@angular/core';
+
+/** One line of the cart as the browser keeps it; prices shown here are only a guide until the server quotes. */
+export interface CartLine {
+  variantId: number;
+  quantity: number;
+  productName: string;
+  variantLabel: string;
+  slug: string;
+  priceCents: number;
+}
+
+const KEY = 'padside.cart.v1';
+
+function load(): CartLine[] {
+  try {
+    const raw = JSON.parse(localStorage.getItem(KEY) ?? '[]') as unknown;
+    return Array.isArray(raw) ? raw.filter((l): l is CartLine => typeof l?.variantId === 'number' && typeof l?.quantity === 'number' && l.quantity > 0) : [];
+  } catch {
+    return [];
+  }
+}
+
+/** The cart in signals, saved to localStorage so it survives a reload; the server checks it on every quote. */
+@Injectable({ providedIn: 'root' })
+export class CartStore {
+  private readonly state = signal<CartLine[]>(load());
+  readonly lines = this.state.asReadonly();
+  readonly count = computed(() => this.state().reduce((s, l) => s + l.quantity, 0));
+  readonly guideTotalCents = computed(() => this.state().reduce((s, l) => s + l.priceCents * l.quantity, 0));
+  /** Whether the side panel is showing. */
+  readonly panelOpen = signal(false);
+
+  constructor() {
+    effect(() => localStorage.setItem(KEY, JSON.stringify(this.state())));
+  }
+
+  add(line: CartLine): void {
+    this.state.update((lines) => {
+      const found = lines.find((l) => l.variantId === line.variantId);
+      return found ? lines.map((l) => (l === found ? { ...l, quantity: Math.min(20, l.quantity + line.quantity) } : l)) : [...lines, line];
+    });
+  }
+
+  setQuantity(variantId: number, quantity: number): void {
+    this.state.update((lines) => (quantity <= 0 ? lines.filter((l) => l.variantId !== variantId) : lines.map((l) => (l.variantId === variantId ? { ...l, quantity: Math.min(20, quantity) } : l))));
+  }
+
+  clear(): void {
+    this.state.set([]);
+  }
+}

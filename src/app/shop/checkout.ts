@@ -1,0 +1,127 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { rxResource, takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { Router, RouterLink } from '@angular/router';
+import { StepperSelectionEvent } from '@angular/cdk/stepper';
+import { debounceTime, firstValueFrom } from 'rxjs';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatRadioModule } from '@angular/material/radio';
+import { MatSelectModule } from '@angular/material/select';
+import { MatStepperModule } from '@angular/material/stepper';
+import { applyServerErrors } from '../core/api-error';
+import { SessionStore } from '../core/session-store';
+import { FieldErrorPipe } from '../shared/field-error-pipe';
+import { MoneyPipe } from '../shared/money-pipe';
+import { CartStore } from './cart-store';
+import { ShopApi } from './shop-api';
+import type { Quote, QuoteRequest } from './shop-types';
+
+/** The payment processor's test tokens, offered while Padside talks to the local fake. */
+export const TEST_CARDS = [
+  { token: 'tok_visa', label: 'Test Visa (pays)' },
+  { token: 'tok_mastercard', label: 'Test Mastercard (pays)' },
+  { token: 'tok_chargeDeclined', label: 'Test card that is declined' },
+  { token: 'tok_chargeDeclinedInsufficientFunds', label: 'Test card with insufficient funds' },
+] as const;
+
+const PROVINCES = [['AB', 'Alberta'], ['BC', 'British Columbia'], ['MB', 'Manitoba'], ['NB', 'New Brunswick'], ['NL', 'Newfoundland and Labrador'], ['NS', 'Nova Scotia'], ['NT', 'Northwest Territories'], ['NU', 'Nunavut'], ['ON', 'Ontario'], ['PE', 'Prince Edward Island'], ['QC', 'Quebec'], ['SK', 'Saskatchewan'], ['YT', 'Yukon']] as const;
+const COUNTRIES = [['CA', 'Canada'], ['US', 'United States'], ['AU', 'Australia'], ['DE', 'Germany'], ['FR', 'France'], ['GB', 'United Kingdom'], ['JP', 'Japan'], ['MX', 'Mexico'], ['NZ', 'New Zealand']] as const;
+
+/** Checkout in four steps (contact, shipping, payment, review); every figure shown comes from the server's quote. */
+@Component({
+  selector: 'ps-checkout',
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, MatStepperModule, FieldErrorPipe, MoneyPipe],
+  templateUrl: './checkout.html',
+  styleUrl: './checkout.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class Checkout {
+  private readonly api = inject(ShopApi);
+  private readonly router = inject(Router);
+  protected readonly cart = inject(CartStore);
+  private readonly session = inject(SessionStore);
+  private readonly fb = inject(NonNullableFormBuilder);
+
+  protected readonly provinces = PROVINCES;
+  protected readonly countries = COUNTRIES;
+  protected readonly cards = TEST_CARDS;
+  protected readonly methods = rxResource({ stream: () => this.api.shippingMethods() });
+
+  protected readonly contact = this.fb.group({ email: [this.session.user()?.email ?? '', [Validators.required, Validators.email]] });
+  protected readonly shipping = this.fb.group({
+    shippingMethodId: [0, [Validators.required, Validators.min(1)]],
+    shipTo: this.fb.group({
+      name: [this.session.user()?.displayName ?? '', Validators.required],
+      line1: [''],
+      line2: [''],
+      city: [''],
+      province: ['MB'],
+      postalCode: [''],
+      country: ['CA', Validators.required],
+    }),
+  });
+  protected readonly payment = this.fb.group({ paymentToken: ['tok_visa', Validators.required] });
+
+  private readonly methodId = toSignal(this.shipping.controls.shippingMethodId.valueChanges, { initialValue: 0 });
+  private readonly country = toSignal(this.shipping.controls.shipTo.controls.country.valueChanges, { initialValue: 'CA' });
+  protected readonly isPickup = computed(() => this.methods.value()?.find((m) => m.id === this.methodId())?.code === 'pickup');
+  protected readonly inCanada = computed(() => this.country() === 'CA');
+
+  protected readonly quote = signal<Quote | null>(null);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly pending = signal<{ id: number; message: string } | null>(null);
+  protected readonly busy = signal(false);
+
+  constructor() {
+    // The summary follows the shipping form as the buyer types; field messages wait until they move on.
+    this.shipping.valueChanges.pipe(debounceTime(400), takeUntilDestroyed()).subscribe(() => {
+      if (this.shipping.controls.shippingMethodId.value > 0) void this.refreshQuote(false);
+    });
+  }
+
+  private request(): QuoteRequest {
+    const s = this.shipping.getRawValue();
+    return { items: this.cart.lines().map((l) => ({ variantId: l.variantId, quantity: l.quantity })), shipTo: s.shipTo, shippingMethodId: s.shippingMethodId };
+  }
+
+  /** Re-quotes when the buyer leaves the shipping step, so payment and review show the server's totals. */
+  protected async stepChanged(e: StepperSelectionEvent): Promise<void> {
+    if (e.previouslySelectedIndex === 1 && e.selectedIndex > 1) await this.refreshQuote(true);
+  }
+
+  protected async refreshQuote(showFieldErrors: boolean): Promise<void> {
+    try {
+      this.quote.set(await firstValueFrom(this.api.quote(this.request())));
+      this.problem.set(null);
+    } catch (err) {
+      this.quote.set(null);
+      if (showFieldErrors) this.problem.set(applyServerErrors(this.shipping, err));
+    }
+  }
+
+  protected async placeOrder(): Promise<void> {
+    if (this.busy() || !this.quote()) return;
+    this.busy.set(true);
+    this.problem.set(null);
+    try {
+      const token = this.payment.getRawValue().paymentToken;
+      const pending = this.pending();
+      const res = await firstValueFrom(pending ? this.api.payAgain(pending.id, token) : this.api.placeOrder({ ...this.request(), email: this.contact.getRawValue().email, paymentToken: token }));
+      if (res.order.status === 'pending') {
+        this.pending.set({ id: res.order.id, message: res.message ?? 'We could not confirm the payment.' });
+        return;
+      }
+      this.cart.clear();
+      await this.router.navigate(['/shop/orders', res.order.id], { queryParams: { placed: 1 } });
+    } catch (err) {
+      const message = applyServerErrors(this.contact, err);
+      applyServerErrors(this.shipping, err);
+      applyServerErrors(this.payment, err);
+      this.problem.set(message);
+    } finally {
+      this.busy.set(false);
+    }
+  }
+}

@@ -1,0 +1,29 @@
+import { ChangeDetectionStrategy, Component, inject, input, numberAttribute } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { DatePipe } from '@angular/common';
+import { RouterLink } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
+import { MoneyPipe } from '../shared/money-pipe';
+import { ShopApi } from './shop-api';
+import { STATUS_LABELS } from './shop-types';
+
+/** /shop/orders/:id: the confirmation right after checkout, and the receipt any time after. */
+@Component({
+  selector: 'ps-order-page',
+  imports: [DatePipe, RouterLink, MatButtonModule, MoneyPipe],
+  templateUrl: './order-page.html',
+  styleUrl: './order-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class OrderPage {
+  private readonly api = inject(ShopApi);
+  readonly id = input.required({ transform: numberAttribute });
+  /** Set by checkout, so the page thanks the buyer. */
+  readonly placed = input<string>();
+  protected readonly order = rxResource({ params: () => this.id(), stream: ({ params }) => this.api.order(params) });
+  protected readonly labels = STATUS_LABELS;
+
+  protected print(): void {
+    window.print();
+  }
+}

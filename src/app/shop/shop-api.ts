@@ -1,0 +1,39 @@
+import { HttpClient, HttpContext } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable, map } from 'rxjs';
+import { QUIET_ERRORS } from '../core/error-interceptor';
+import type { Order, OrderSummary, Product, Quote, QuoteRequest, ShippingMethod } from './shop-types';
+
+const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
+
+/** The storefront's calls: catalogue, quote, order, the buyer's orders. */
+@Injectable({ providedIn: 'root' })
+export class ShopApi {
+  private readonly http = inject(HttpClient);
+
+  products(): Observable<Product[]> {
+    return this.http.get<{ items: Product[] }>('/api/products').pipe(map((r) => r.items));
+  }
+  product(slug: string): Observable<Product> {
+    return this.http.get<Product>(`/api/products/${encodeURIComponent(slug)}`);
+  }
+  shippingMethods(): Observable<ShippingMethod[]> {
+    return this.http.get<{ items: ShippingMethod[] }>('/api/shipping-methods').pipe(map((r) => r.items));
+  }
+  /** Errors are the caller's to show (beside the fields). */
+  quote(body: QuoteRequest): Observable<Quote> {
+    return this.http.post<Quote>('/api/checkout/quote', body, quiet());
+  }
+  placeOrder(body: QuoteRequest & { email: string; paymentToken: string }): Observable<{ order: Order; message?: string }> {
+    return this.http.post<{ order: Order; message?: string }>('/api/orders', body, quiet());
+  }
+  payAgain(id: number, paymentToken: string): Observable<{ order: Order; message?: string }> {
+    return this.http.post<{ order: Order; message?: string }>(`/api/orders/${id}/pay`, { paymentToken }, quiet());
+  }
+  order(id: number): Observable<Order> {
+    return this.http.get<{ order: Order }>(`/api/orders/${id}`).pipe(map((r) => r.order));
+  }
+  myOrders(): Observable<OrderSummary[]> {
+    return this.http.get<{ items: OrderSummary[] }>('/api/account/orders').pipe(map((r) => r.items));
+  }
+}

@@ -1,0 +1,103 @@
+/** Shapes of the shop API, as the server sends them. */
+export interface RunSummary {
+  id: number;
+  name: string;
+  state: 'scheduled' | 'open' | 'sold_out' | 'closed' | 'in_production' | 'shipped';
+  cap: number;
+  remaining: number;
+  opensAt: string;
+  closesAt: string;
+}
+export interface Variant {
+  id: number;
+  sku: string;
+  label: string;
+  priceCents: number;
+  weightGrams: number;
+  remaining: number;
+}
+export interface Product {
+  id: number;
+  slug: string;
+  name: string;
+  priceCents: number;
+  currency: 'CAD';
+  images: { url: string; thumbnailUrl: string; alt: string }[];
+  sizeChart: { columns: string[]; rows: string[][] } | null;
+  orderable: boolean;
+  run: RunSummary | null;
+  variants: Variant[];
+  descriptionHtml?: string;
+}
+export interface ShippingMethod {
+  id: number;
+  code: 'pickup' | 'canada' | 'usa' | 'international';
+  name: string;
+}
+export interface TaxLine {
+  code: string;
+  label: string;
+  ratePercent: string;
+  amountCents: number;
+}
+export interface ShipTo {
+  name: string;
+  line1: string;
+  line2: string;
+  city: string;
+  province: string;
+  postalCode: string;
+  country: string;
+}
+export interface QuoteRequest {
+  items: { variantId: number; quantity: number }[];
+  shipTo: ShipTo;
+  shippingMethodId: number;
+}
+export interface Quote {
+  lines: { variantId: number; productName: string; variantLabel: string; sku: string; unitPriceCents: number; quantity: number; lineCents: number }[];
+  discountPercent: number;
+  subtotalCents: number;
+  discountCents: number;
+  shippingCents: number;
+  taxLines: TaxLine[];
+  taxCents: number;
+  totalCents: number;
+}
+export interface Order {
+  id: number;
+  number: string;
+  status: 'pending' | 'paid' | 'failed' | 'packed' | 'shipped';
+  email: string;
+  createdAt: string;
+  paidAt: string | null;
+  packedAt: string | null;
+  shippedAt: string | null;
+  shipTo: ShipTo;
+  shippingMethod: { code: string; name: string };
+  carrier: string | null;
+  trackingNumber: string | null;
+  items: { id: number; productName: string; variantLabel: string; sku: string; unitPriceCents: number; quantity: number; lineCents: number }[];
+  discountPercent: number;
+  subtotalCents: number;
+  discountCents: number;
+  shippingCents: number;
+  taxLines: TaxLine[];
+  taxCents: number;
+  totalCents: number;
+  refundedCents: number;
+  paymentMessage: string | null;
+}
+export interface OrderSummary {
+  id: number;
+  number: string;
+  status: Order['status'];
+  createdAt: string;
+  totalCents: number;
+  refundedCents: number;
+  shippingName: string;
+  carrier: string | null;
+  trackingNumber: string | null;
+}
+/** What the buyer sees for each status (Padside's own words). */
+export const STATUS_LABELS: Record<Order['status'], string> = { pending: 'Payment unconfirmed', paid: 'Paid', failed: 'Not paid', packed: 'Packed', shipped: 'Shipped' };

@@ -1,0 +1,80 @@
+import { HttpClient, HttpContext } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable } from 'rxjs';
+import { QUIET_ERRORS } from '../core/error-interceptor';
+
+export type DeliverableKind = 'build_log_credit' | 'video_mention' | 'logo_on_merch' | 'sponsors_page' | 'social_post';
+
+/** Padside's labels for deliverable kinds. */
+export const KIND_LABELS: Record<DeliverableKind, string> = {
+  build_log_credit: 'Build log credit',
+  video_mention: 'Video mention',
+  logo_on_merch: 'Logo on merch',
+  sponsors_page: 'Sponsors page listing',
+  social_post: 'Social post',
+};
+
+export interface SponsorCard {
+  id: number;
+  slug: string;
+  name: string;
+  website: string | null;
+  blurb: string | null;
+  logoUrl: string | null;
+  posts: { slug: string; title: string }[];
+}
+
+export interface DeliverableLine {
+  id: number;
+  kind: DeliverableKind;
+  promised: number;
+  delivered: number;
+  dueOn: string;
+  overdue: boolean;
+}
+
+export interface Agreement {
+  id: number;
+  season: string;
+  cashCents: number;
+  cashReceivedOn: string | null;
+  inKind: { id: number; description: string; valueCents: number; receivedOn: string | null }[];
+  inKindCents: number;
+  totalCents: number;
+  note: string | null;
+  deliverables: DeliverableLine[];
+  byKind: { kind: DeliverableKind; promised: number; delivered: number }[];
+  overdue: DeliverableLine[];
+  nextDue: DeliverableLine | null;
+}
+
+export interface PortalCredit {
+  kind: DeliverableKind;
+  url: string | null;
+  at: string;
+  postSlug?: string;
+  postTitle?: string;
+  note: string | null;
+  videoTimestamp: string | null;
+}
+
+export interface PortalView {
+  sponsor: { id: number; slug: string; name: string; website: string | null; blurb: string | null; logoUrl: string | null };
+  agreements: Agreement[];
+  credits: PortalCredit[];
+}
+
+/** The public sponsors page and the sponsor's own portal. */
+@Injectable({ providedIn: 'root' })
+export class SponsorApi {
+  private readonly http = inject(HttpClient);
+
+  wall(): Observable<{ season: string; tiers: { name: string; sponsors: SponsorCard[] }[] }> {
+    return this.http.get<{ season: string; tiers: { name: string; sponsors: SponsorCard[] }[] }>('/api/sponsors/wall');
+  }
+
+  /** Quiet: a sponsor account not linked yet gets a message on the page, not a snack bar. */
+  portal(): Observable<PortalView> {
+    return this.http.get<PortalView>('/api/sponsor-portal/me', { context: new HttpContext().set(QUIET_ERRORS, true) });
+  }
+}

@@ -1,0 +1,33 @@
+import { seed } from '../../seeds/03_membership';
+import { dateOnly } from '../../server/membership/membership-repository';
+import { statusOn } from '../../server/membership/terms';
+import { dateInZone } from '../../server/platform/clock';
+import { buildTestApp, type TestApp } from '../helpers/test-app';
+
+let t: TestApp;
+beforeAll(() => {
+  t = buildTestApp();
+});
+afterAll(() => t.close());
+
+describe('the membership demo seed', () => {
+  it('loads once, with the demo member active at L1 and invented members in every status, each paid term in the books', async () => {
+    await seed(t.deps.db);
+    await seed(t.deps.db);
+    const rows = await t.deps.db('memberships as m').join('users as u', 'u.id', 'm.user_id').where('u.email', 'like', '%@padside.test').select('m.*', 'u.email', 'u.roles');
+    const demo = rows.find((r) => r.email === 'member@padside.test');
+    expect(demo).toEqual(expect.objectContaining({ status: 'active', certification_level: 'L1', association_number: expect.any(String) }));
+    expect(demo.roles).toContain('member');
+    expect(new Set(rows.map((r) => r.status))).toEqual(new Set(['pending', 'active', 'lapsing', 'lapsed']));
+    const today = dateInZone(new Date(), 'America/Winnipeg');
+    for (const r of rows) {
+      expect(statusOn(today, dateOnly(r.term_end), { graceDays: 30 })).toBe(r.status);
+      expect(r.roles.includes('member')).toBe(r.status === 'active' || r.status === 'lapsing');
+    }
+    const paid = await t.deps.db('membership_payments').whereIn('membership_id', rows.map((r) => r.id)).where('status', 'paid');
+    expect(paid.length).toBe(rows.filter((r) => r.term_end).length);
+    expect(paid.filter((p) => p.method !== 'card').every((p) => p.receipt_number)).toBe(true);
+    const movements = await t.deps.db('money_movements').whereIn('idempotency_key', paid.map((p) => `dues:${p.idempotency_key}`));
+    expect(movements).toHaveLength(paid.length);
+  });
+});
