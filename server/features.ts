@@ -6,10 +6,8 @@ import { shopFeature } from './shop/shop-feature';
 
 /** Every feature of Padside, in mounting order. Add one line per feature. */
 export function buildFeatures(platform: Platform): Feature[] {
-  return [
-    buildLogsFeature(platform),
-    membershipFeature(platform),
-    shopFeature(platform),
-    booksFeature(platform, () => ({})),
-  ];
+  const features: Feature[] = [buildLogsFeature(platform), membershipFeature(platform), shopFeature(platform)];
+  // The books read other features' numbers through what each feature offers the dashboard.
+  const sources = Object.assign({}, ...features.map((f) => f.dashboard ?? {}));
+  return [...features, booksFeature(platform, () => sources)];
 }

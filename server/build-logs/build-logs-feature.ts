@@ -28,6 +28,9 @@ export function buildLogsFeature(platform: Platform): Feature {
     mountSite(site) {
       site('/feeds', feedRoutes(posts, config.publicUrl));
     },
+    dashboard: {
+      overdueDeliverables: async () => (await sponsors.overdue(today())).map((o) => ({ sponsor: o.sponsorName, kind: o.kind, dueOn: o.dueOn, missing: o.promised - o.delivered })),
+    },
     jobs: [{ name: 'publish-scheduled-posts', cron: '* * * * *', run: () => posts.publishDue(clock.now()) }],
   };
 }

@@ -12,7 +12,7 @@ import { refundMail } from './membership-mail';
 import { dateOnly, type MembershipRepository, type AsOf, type PlanRow, type RosterQuery } from './membership-repository';
 import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
 import { liveStatus, membershipView, paymentView, planView, rosterView } from './membership-views';
-import { toCsv } from './roster-csv';
+import { toCsv } from '../platform/csv';
 import { termForPayment } from './terms';
 
 /** Staff edits of a member's record. */
@@ -207,6 +207,11 @@ export class MemberAdminService {
       collected: collected.map((r) => ({ month: r.month, planCode: r.plan_code, planName: r.plan_name, cents: Number(r.cents), payments: Number(r.payments) })),
       byStatus: counts,
     };
+  }
+
+  /** Members whose dues run out within `days`: active with the term ending by then, or already in grace. */
+  async lapsingWithin(days: number): Promise<number> {
+    return this.repo.countLapsingWithin(await this.asOf(), days);
   }
 
   /** A news e-mail to the filtered roster: non-essential, so members who opted out are skipped. */

@@ -27,6 +27,7 @@ export function membershipFeature(platform: Platform): Feature {
       api('/admin/members', memberAdminRoutes(admin));
       api('/admin/checkin', checkInRoutes(admin));
     },
+    dashboard: { membersByStatus: async () => (await admin.summary()).byStatus, membersLapsingWithin: (days) => admin.lapsingWithin(days) },
     jobs: [
       { name: 'membership-reminders', cron: '0 8 * * *', run: () => jobs.sendReminders() },
       { name: 'membership-auto-renew', cron: '0 6 * * *', run: () => jobs.autoRenew() },

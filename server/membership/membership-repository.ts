@@ -289,6 +289,15 @@ export class MembershipRepository {
       .orderByRaw('1 DESC, p.code');
   }
 
+  /** Active members whose term ends within `days`, plus those in grace: the ones about to lapse. */
+  async countLapsingWithin(asOf: AsOf, days: number): Promise<number> {
+    const { rows } = await this.db.raw(
+      `SELECT count(*) AS n FROM memberships m WHERE ${LIVE_STATUS} IN ('active', 'lapsing') AND m.term_end < ?::date + ?::int`,
+      [...liveBindings(asOf), asOf.today, days],
+    );
+    return Number(rows[0].n);
+  }
+
   /** Members per status as the dates give it on `asOf.today`. */
   async countsByStatus(asOf: AsOf): Promise<{ status: MembershipStatus; count: string }[]> {
     const { rows } = await this.db.raw(`SELECT ${LIVE_STATUS} AS status, count(*) AS count FROM memberships m GROUP BY 1`, liveBindings(asOf));

@@ -7,7 +7,7 @@ export function csvCell(value: unknown): string {
   let s = value === null || value === undefined ? '' : String(value);
   // A plain negative number stays a number; anything else starting with a trigger character is neutralised.
   if (/^[=+\-@\t\r]/.test(s) && !/^-\d+(\.\d+)?$/.test(s)) s = `'${s}`;
-  return /[",\r\n']/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  return /[",\r\n']/.test(s) || s !== s.trim() ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
 /** Rows to CSV text with CRLF line ends (RFC 4180). */

@@ -1,5 +1,6 @@
 import type { Router } from 'express';
 import type { AuthService } from '../auth/auth-service';
+import type { DashboardSources } from '../books/dashboard-sources';
 import type { AppDeps } from '../deps';
 import type { ScheduledJob } from '../jobs/job-runner';
 import type { SettingsService } from '../settings/settings-service';
@@ -25,4 +26,6 @@ export interface Feature {
   mount(api: Mount): void;
   mountSite?(site: Mount): void;
   jobs?: ScheduledJob[];
+  /** The numbers this feature gives the staff dashboard. */
+  dashboard?: Partial<DashboardSources>;
 }

@@ -6,7 +6,7 @@ import { fields, parse } from '../platform/validate';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueService } from './catalogue-service';
 import { ProductBody, ProductPatch } from './catalogue-service';
-import { toCsv } from './csv';
+import { toCsv } from '../platform/csv';
 import type { FulfilmentService } from './fulfilment-service';
 import { ORDER_SORTS, type OrderFilter, type OrderRepository } from './order-repository';
 import { orderJson } from './order-view';

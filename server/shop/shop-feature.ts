@@ -6,6 +6,7 @@ import { FulfilmentService } from './fulfilment-service';
 import { OrderRepository } from './order-repository';
 import { paymentWebhookRoutes } from './payment-webhook-routes';
 import { QuoteService } from './quote-service';
+import { shopDashboard } from './shop-dashboard';
 import { orderAdminRoutes, productAdminRoutes, runAdminRoutes, shopSettingsRoutes } from './shop-admin-routes';
 import { ShopConfigRepository } from './shop-config-repository';
 import { accountOrderRoutes, checkoutRoutes, orderRoutes, productRoutes, shippingMethodRoutes } from './shop-routes';
@@ -39,5 +40,6 @@ export function shopFeature(platform: Platform): Feature {
       api('/payments', paymentWebhookRoutes(deps.payments.stripe, deps.config.stripe.webhookSecret, webhooks));
     },
     jobs: [{ name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() }],
+    dashboard: shopDashboard(deps.db, catalogueRepo, deps.clock),
   };
 }

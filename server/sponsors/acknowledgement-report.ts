@@ -1,5 +1,5 @@
 import PDFDocument from 'pdfkit';
-import { csvDocument } from './csv-cells';
+import { toCsv } from '../platform/csv';
 import type { AgreementView, CreditView, SponsorView } from './sponsor-service';
 
 /** What the report says about itself, in Padside's words; the PDF and the CSV carry the same sentence. */
@@ -33,7 +33,7 @@ export function acknowledgementCsv(r: ReportData): string {
   }
   for (const c of r.credits) rows.push(['credit', '', KIND_LABELS[c.kind] ?? c.kind, '', c.at.slice(0, 10), c.postTitle ?? c.note ?? '', c.url]);
   rows.push(['note', '', NOT_A_RECEIPT, '', r.generatedOn, '', '']);
-  return csvDocument(['line', 'season', 'item', 'declared_value_cad', 'date', 'title_or_note', 'link'], rows);
+  return toCsv(['line', 'season', 'item', 'declared_value_cad', 'date', 'title_or_note', 'link'], rows);
 }
 
 /** The acknowledgement report as a PDF (pdfkit's built-in Helvetica, so no font files are needed). */

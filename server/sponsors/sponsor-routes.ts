@@ -4,7 +4,7 @@ import { dateInZone } from '../platform/clock';
 import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import { acknowledgementCsv, acknowledgementPdf, type ReportData } from './acknowledgement-report';
-import { csvDocument } from './csv-cells';
+import { toCsv } from '../platform/csv';
 import { AgreementBody, CashReceivedBody, ContactBody, HandCreditBody, SponsorBody } from './sponsor-schemas';
 import type { SponsorService } from './sponsor-service';
 import { TiersSchema } from './sponsor-tiers';
@@ -75,7 +75,7 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
     const sponsor = await sponsors.get(id);
     const rows = (await sponsors.agreements(id, today())).flatMap((a) => a.deliverables.map((l) => [a.season, l.kind, l.promised, l.delivered, l.dueOn, l.overdue ? 'overdue' : l.delivered >= l.promised ? 'done' : 'open']));
     res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="ledger-${sponsor.slug}-${today()}.csv"` });
-    res.send(csvDocument(['season', 'kind', 'promised', 'delivered', 'due_on', 'state'], rows));
+    res.send(toCsv(['season', 'kind', 'promised', 'delivered', 'due_on', 'state'], rows));
   });
   r.post('/:id/credits', requireRole(...STAFF), async function recordCredit(req, res) {
     const body = parse(HandCreditBody, req.body);

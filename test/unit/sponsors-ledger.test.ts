@@ -1,6 +1,5 @@
 import { needsHazardNotice } from '../../server/build-logs/hazard-rule';
 import { slugify, uniqueSlug } from '../../server/build-logs/slug';
-import { csvDocument, csvRow } from '../../server/sponsors/csv-cells';
 import { deliverableToCredit, ledgerLines, nextDue, summaryByKind } from '../../server/sponsors/sponsor-ledger';
 import { seasonOf, tierFor } from '../../server/sponsors/sponsor-tiers';
 
@@ -49,15 +48,6 @@ describe('ledgerLines', () => {
     const list = [d(1, 'build_log_credit', 1, '2026-12-01', 1), d(2, 'build_log_credit', 2, '2027-01-01', 0), d(3, 'build_log_credit', 1, '2026-12-15', 0), d(4, 'video_mention', 1, '2026-01-01', 0)];
     expect(deliverableToCredit(list, 'build_log_credit')?.id).toBe(3);
     expect(deliverableToCredit([d(1, 'build_log_credit', 1, '2026-12-01', 1)], 'build_log_credit')).toBeNull();
-  });
-});
-
-describe('CSV cells (OWASP, "CSV Injection": prefix = + - @ tab CR with a single quote)', () => {
-  it('neutralises formula starts and quotes every field', () => {
-    expect(csvRow(['=1+1', '+SUM(A1)', '-2', '@cmd', '\tx', '\rx', 'plain', 'say "hi"', null, 12])).toBe(`"'=1+1","'+SUM(A1)","'-2","'@cmd","'\tx","'\rx","plain","say ""hi""","","12"`);
-  });
-  it('ends lines with CRLF (RFC 4180)', () => {
-    expect(csvDocument(['a'], [['b']])).toBe('"a"\r\n"b"\r\n');
   });
 });
 

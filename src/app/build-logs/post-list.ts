@@ -2,7 +2,7 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { Router, RouterLink } from '@angular/router';
-import { MatChipsModule } from '@angular/material/chips';
+import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { EmptyState } from '../shared/empty-state';
@@ -13,7 +13,7 @@ const PAGE_SIZE = 10;
 /** Published build logs, newest first, filtered by tag through the URL (?tag=&page=) so a filtered list can be shared. */
 @Component({
   selector: 'ps-post-list',
-  imports: [RouterLink, DatePipe, MatChipsModule, MatIconModule, MatPaginatorModule, EmptyState],
+  imports: [RouterLink, DatePipe, MatButtonModule, MatIconModule, MatPaginatorModule, EmptyState],
   templateUrl: './post-list.html',
   styleUrl: './post-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -29,10 +29,6 @@ export class PostList {
   protected readonly pageNumber = computed(() => Math.max(1, Number(this.page()) || 1));
   protected readonly posts = rxResource({ params: () => ({ tag: this.tag() || undefined, page: this.pageNumber(), pageSize: PAGE_SIZE }), stream: ({ params }) => this.api.list(params) });
   protected readonly tags = rxResource({ stream: () => this.api.tags() });
-
-  protected filter(tag: string | null): void {
-    void this.router.navigate([], { queryParams: { tag: tag ?? null, page: null } });
-  }
 
   protected changePage(e: PageEvent): void {
     void this.router.navigate([], { queryParams: { page: e.pageIndex + 1 }, queryParamsHandling: 'merge' });

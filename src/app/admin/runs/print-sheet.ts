@@ -39,7 +39,7 @@ import { ShopAdminApi } from '../orders/shop-admin-api';
       }
     </section>
   `,
-  styles: `table { width: 100%; border-collapse: collapse; margin: 16px 0; } th, td { text-align: left; padding: 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); } .kind { font-weight: 600; } .kind.final { color: var(--ps-igniter); } a[mat-stroked-button] { margin-left: 8px; }`,
+  styles: `table { width: 100%; border-collapse: collapse; margin: 16px 0; } th, td { text-align: left; padding: 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); } .kind { font-weight: 600; } .kind.final { color: var(--ps-igniter-text); } a[mat-stroked-button] { margin-left: 8px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PrintSheetPage {
