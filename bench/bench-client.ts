@@ -5,6 +5,14 @@ export class BenchClient {
 
   constructor(private readonly base: string) {}
 
+  /** The same session against another server (another process sharing the database). */
+  at(base: string): BenchClient {
+    const other = new BenchClient(base);
+    other.cookie = this.cookie;
+    other.csrf = this.csrf;
+    return other;
+  }
+
   async token(): Promise<string> {
     if (!this.csrf) this.csrf = ((await this.get('/api/auth/csrf')).body as { csrfToken: string }).csrfToken;
     return this.csrf;

@@ -1,25 +1,32 @@
 import { recordMovement } from '../../server/books/ledger-writer';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
 import { signedIn } from '../helpers/users';
 
 let t: TestApp;
-beforeAll(() => (t = buildTestApp()));
+// A day no other test writes money on, so the day's and month's sums are exactly this file's.
+const TODAY = '2032-06-15T18:00:00Z';
+beforeAll(() => (t = buildTestApp({ clock: fixedClock(TODAY) })));
 afterAll(() => t.close());
 
 describe('GET /api/admin/dashboard', () => {
   it('moves today’s sales and this month’s dues by what was just recorded, and counts what other features hold', async () => {
     const { client } = await signedIn(t.app, t.deps.db, ['treasurer']);
-    const before = (await client.get('/api/admin/dashboard')).body;
+    await t.deps.db('money_movements').where('occurred_at', '>=', '2032-06-01').andWhere('occurred_at', '<', '2032-07-02').delete();
     await t.deps.db.transaction(async (trx) => {
-      await recordMovement(trx, { occurredAt: new Date(), kind: 'order_payment', source: 'merch', reference: 'DASH-1', counterparty: 'Dash Buyer', grossCents: 1234, method: 'card' });
-      await recordMovement(trx, { occurredAt: new Date(), kind: 'dues_payment', source: 'dues', reference: 'DASH-2', counterparty: 'Dash Member', grossCents: 4500, method: 'cash' });
+      await recordMovement(trx, { occurredAt: new Date(TODAY), kind: 'order_payment', source: 'merch', reference: 'DASH-1', counterparty: 'Dash Buyer', grossCents: 1234, method: 'card' });
+      // Earlier this month (Winnipeg time): in the month's sales, not today's.
+      await recordMovement(trx, { occurredAt: new Date('2032-06-01T06:00:00Z'), kind: 'order_payment', source: 'merch', reference: 'DASH-3', counterparty: 'Dash Buyer', grossCents: 1000, method: 'card' });
+      // 2032-06-01T04:59Z is still May 31 in Winnipeg (CDT, UTC-5): outside the month.
+      await recordMovement(trx, { occurredAt: new Date('2032-06-01T04:59:00Z'), kind: 'order_payment', source: 'merch', reference: 'DASH-4', counterparty: 'Dash Buyer', grossCents: 777, method: 'card' });
+      await recordMovement(trx, { occurredAt: new Date(TODAY), kind: 'dues_payment', source: 'dues', reference: 'DASH-2', counterparty: 'Dash Member', grossCents: 4500, method: 'cash' });
     });
     const res = await client.get('/api/admin/dashboard');
     expect(res.status).toBe(200);
     const after = res.body;
-    expect(after.salesTodayCents - before.salesTodayCents).toBe(1234);
-    expect(after.salesMonthCents - before.salesMonthCents).toBe(1234);
-    expect(after.duesMonthCents - before.duesMonthCents).toBe(4500);
+    expect(after.today).toBe('2032-06-15');
+    expect(after.salesTodayCents).toBe(1234);
+    expect(after.salesMonthCents).toBe(2234);
+    expect(after.duesMonthCents).toBe(4500);
 
     // Each card's number equals the count taken straight from the feature's own table.
     const [{ n: toShip }] = await t.deps.db('shop_orders').whereIn('status', ['paid', 'packed']).count<{ n: string }[]>({ n: '*' });
