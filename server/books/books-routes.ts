@@ -41,6 +41,10 @@ export function reportRoutes(books: BooksService): Router {
     res.end();
   });
 
+  r.get('/sponsor-value', async function sponsorValue(_req, res) {
+    res.json(await books.sponsorValue());
+  });
+
   r.get('/units-by-size', async function unitsBySize(req, res) {
     const { runId } = parse(z.object({ runId: fields.id }), req.query);
     res.json({ items: await books.unitsBySize(runId) });

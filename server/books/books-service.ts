@@ -105,6 +105,10 @@ export class BooksService {
     };
   }
 
+  sponsorValue() {
+    return this.sources().sponsorValue?.() ?? Promise.resolve({ season: '', items: [] });
+  }
+
   unitsBySize(runId: number) {
     return this.sources().unitsBySize?.(runId) ?? Promise.resolve([]);
   }

@@ -9,4 +9,5 @@ export interface DashboardSources {
   overdueDeliverables(): Promise<{ sponsor: string; kind: string; dueOn: string; missing: number }[]>;
   membersLapsingWithin(days: number): Promise<number>;
   membersByStatus(): Promise<Record<string, number>>;
+  sponsorValue(): Promise<{ season: string; items: { sponsor: string; tier: string | null; cashCents: number; inKindCents: number; totalCents: number; promised: number; delivered: number }[] }>;
 }

@@ -29,6 +29,7 @@ export function buildLogsFeature(platform: Platform): Feature {
       site('/feeds', feedRoutes(posts, config.publicUrl));
     },
     dashboard: {
+      sponsorValue: () => sponsors.seasonValue(today()),
       overdueDeliverables: async () => (await sponsors.overdue(today())).map((o) => ({ sponsor: o.sponsorName, kind: o.kind, dueOn: o.dueOn, missing: o.promised - o.delivered })),
     },
     jobs: [{ name: 'publish-scheduled-posts', cron: '* * * * *', run: () => posts.publishDue(clock.now()) }],

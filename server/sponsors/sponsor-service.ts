@@ -218,6 +218,28 @@ export class SponsorService {
     });
   }
 
+  /** The season's sponsorship per sponsor: cash, declared in-kind value, tier, and deliverables promised vs delivered. */
+  async seasonValue(today: string): Promise<{ season: string; items: { sponsor: string; tier: string | null; cashCents: number; inKindCents: number; totalCents: number; promised: number; delivered: number }[] }> {
+    const season = seasonOf(today);
+    const sponsors = await this.withTiers(today);
+    const items = [];
+    for (const s of sponsors) {
+      const agreements = (await this.agreements(s.id, today)).filter((a) => a.season === season);
+      if (!agreements.length) continue;
+      const sum = (f: (a: AgreementView) => number) => agreements.reduce((n, a) => n + f(a), 0);
+      items.push({
+        sponsor: s.name,
+        tier: s.tier,
+        cashCents: sum((a) => a.cashCents),
+        inKindCents: sum((a) => a.inKindCents),
+        totalCents: sum((a) => a.totalCents),
+        promised: sum((a) => a.deliverables.reduce((n, d) => n + d.promised, 0)),
+        delivered: sum((a) => a.deliverables.reduce((n, d) => n + Math.min(d.delivered, d.promised), 0)),
+      });
+    }
+    return { season, items: items.sort((a, b) => b.totalCents - a.totalCents) };
+  }
+
   /** The public sponsors page: tiers from the highest down, each sponsor with the posts that credit it. */
   async publicWall(today: string): Promise<{ season: string; tiers: { name: string; sponsors: (SponsorView & { posts: { slug: string; title: string }[] })[] }[] }> {
     const [sponsors, posts, { tiers }] = await Promise.all([this.withTiers(today), this.repo.creditingPosts(), this.tiers()]);

@@ -43,3 +43,24 @@ describe('GET /api/admin/dashboard', () => {
     expect((await client.get('/api/admin/dashboard')).status).toBe(403);
   });
 });
+
+describe('GET /api/admin/reports/sponsor-value', () => {
+  it('sums a sponsor’s season cash and declared in-kind value, with promised and delivered counts', async () => {
+    // Season 2032 (the fixed clock's year), so no other test's agreements are in it.
+    const { client } = await signedIn(t.app, t.deps.db, ['treasurer']);
+    const name = `Value Test Supply ${Date.now()}`;
+    const created = await client.post('/api/admin/sponsors', { name, website: 'https://example.test', blurb: 'Invented for a test.' });
+    expect(created.status).toBe(201);
+    const agreement = await client.post(`/api/admin/sponsors/${created.body.id}/agreements`, {
+      season: '2032',
+      cashCents: 50_000,
+      inKind: [{ description: 'Filament, 10 spools', valueCents: 12_000 }, { description: 'Shock cord', valueCents: 1_500 }],
+      deliverables: [{ kind: 'build_log_credit', quantity: 2, dueOn: '2032-09-01' }, { kind: 'video_mention', quantity: 1, dueOn: '2032-10-01' }],
+    });
+    expect(agreement.status).toBe(201);
+    const res = await client.get('/api/admin/reports/sponsor-value');
+    expect(res.status).toBe(200);
+    expect(res.body.season).toBe('2032');
+    expect(res.body.items.find((i: { sponsor: string }) => i.sponsor === name)).toMatchObject({ cashCents: 50_000, inKindCents: 13_500, totalCents: 63_500, promised: 3, delivered: 0 });
+  });
+});

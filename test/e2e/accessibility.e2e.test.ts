@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, serve, signInThroughForm } from '../helpers/browser';
+import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 
@@ -76,7 +76,7 @@ describe('main pages have no serious or critical accessibility violations (axe-c
   ];
 
   // Rows as objects: with array rows of different lengths, jest would pass `done` as the missing role.
-  it.each(pages.map(([name, path, role]) => ({ name, path, role })))('$name', async ({ path, role }) => {
+  it.each(pages.map(([name, path, role]) => ({ name, path, role })))('$name', async ({ name, path, role }) => {
     const context = await browser.newContext();
     const page = await context.newPage();
     try {
@@ -88,6 +88,7 @@ describe('main pages have no serious or critical accessibility violations (axe-c
       await page.locator('h1').first().waitFor();
       await page.waitForLoadState('networkidle');
       expect(await page.locator('h1').first().textContent()).not.toMatch(/Off the pad|not found/i);
+      await screenshot(page, `page-${name.replace(/\W+/g, '-')}`);
       expect(await seriousViolations(page)).toEqual([]);
     } finally {
       await context.close();

@@ -26,6 +26,11 @@ export interface RevenueRow {
   netCents: number;
 }
 
+export interface SponsorValue {
+  season: string;
+  items: { sponsor: string; tier: string | null; cashCents: number; inKindCents: number; totalCents: number; promised: number; delivered: number }[];
+}
+
 export interface FeeSettings {
   percentBasisPoints: number;
   fixedCents: number;
@@ -55,6 +60,9 @@ export class BooksApi {
   }
   revenue(p: Period): Observable<{ rows: RevenueRow[] }> {
     return this.http.get<{ rows: RevenueRow[] }>('/api/admin/reports/revenue', { params: new HttpParams({ fromObject: { ...p } }) });
+  }
+  sponsorValue(): Observable<SponsorValue> {
+    return this.http.get<SponsorValue>('/api/admin/reports/sponsor-value');
   }
   dashboard(): Observable<Dashboard> {
     return this.http.get<Dashboard>('/api/admin/dashboard');

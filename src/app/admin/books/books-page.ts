@@ -32,6 +32,8 @@ export class BooksPage {
   protected readonly period = signal<Period>(currentQuarter());
   protected readonly tax = rxResource({ params: () => this.period(), stream: ({ params }) => this.api.tax(params) });
   protected readonly revenue = rxResource({ params: () => this.period(), stream: ({ params }) => this.api.revenue(params) });
+  protected readonly sponsorValue = rxResource({ stream: () => this.api.sponsorValue() });
+  protected readonly sponsorColumns = ['sponsor', 'tier', 'cash', 'inKind', 'total', 'credits'];
   protected readonly taxColumns = ['tax', 'taxable', 'charged', 'refunded', 'net'];
   protected readonly revenueColumns = ['month', 'source', 'gross', 'refunds', 'fees', 'net'];
 
