@@ -2,7 +2,6 @@ import { spawnSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
-import type { Knex } from 'knex';
 import type { PadsideApp } from '../server/app';
 import { withBaseline, type BenchResult } from './bench-result';
 import { BenchClient } from './bench-client';
@@ -15,7 +14,7 @@ function percentile(sorted: number[], p: number): number {
 }
 
 /** 500 buyers at once on a 200-unit run, against pgbench's single-row update rate on the same PostgreSQL. */
-export async function dropBench(app: PadsideApp, db: Knex, adminEmail: string, adminPassword: string): Promise<BenchResult[]> {
+export async function dropBench(app: PadsideApp, adminEmail: string, adminPassword: string): Promise<BenchResult[]> {
   const server = app.listen(0, '127.0.0.1');
   await new Promise((r) => server.once('listening', r));
   const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -64,7 +63,7 @@ export async function dropBench(app: PadsideApp, db: Knex, adminEmail: string, a
     const after = (await admin.get(`/api/products/${product.slug}`)).body as { run: { cap: number; remaining: number } };
     const sold = after.run.cap - after.run.remaining;
 
-    const tps = pgbenchUpdateTps(db);
+    const tps = pgbenchUpdateTps();
     const rate = Number((paid.length / seconds).toFixed(1));
     return [
       withBaseline({ name: `drop: ${BUYERS} buyers on a ${CAP}-unit run`, value: rate, unit: 'checkouts/s', notes: `units sold ${sold} of ${CAP}; paid ${paid.length}, sold out ${soldOut}, other ${other}; p50 ${percentile(latencies, 50).toFixed(0)} ms, p95 ${percentile(latencies, 95).toFixed(0)} ms, p99 ${percentile(latencies, 99).toFixed(0)} ms` }, 'pgbench single-row UPDATE', tps),
@@ -76,8 +75,8 @@ export async function dropBench(app: PadsideApp, db: Knex, adminEmail: string, a
 }
 
 /** pgbench with a one-row UPDATE script, 20 clients for 10 s, on the bench database. */
-function pgbenchUpdateTps(db: Knex): number {
-  const url = new URL(String((db.client.config as { connection: string }).connection));
+function pgbenchUpdateTps(): number {
+  const url = new URL(process.env.DATABASE_URL ?? '');
   const dir = process.env.TEST_TMP ?? '/tmp';
   const script = path.join(dir, 'pgbench-update.sql');
   writeFileSync(script, 'UPDATE bench_counter SET n = n + 1 WHERE id = 1;\n');

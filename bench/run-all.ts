@@ -19,7 +19,7 @@ async function main(): Promise<void> {
     const admin = await createUser(t.deps.db, ['fan', 'admin', 'treasurer'], 'Bench Admin');
     results.push(frontEndBench(process.env.BENCH_APP_DIST!, process.env.BENCH_EMPTY_DIST!));
     results.push(await catalogueBench(t.app));
-    results.push(...(await dropBench(t.app, t.deps.db, admin.email, admin.password)));
+    results.push(...(await dropBench(t.app, admin.email, admin.password)));
     const server = t.app.listen(0, '127.0.0.1');
     await new Promise((r) => server.once('listening', r));
     const treasurer = new BenchClient(`http://127.0.0.1:${(server.address() as AddressInfo).port}`);

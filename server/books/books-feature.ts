@@ -11,6 +11,7 @@ export function booksFeature(platform: Platform, sources: () => Partial<Dashboar
   return {
     name: 'books',
     books,
+    jobs: [{ name: 'books-actual-fees', cron: '*/15 * * * *', run: () => books.syncActualFees(deps.payments) }],
     mount(at) {
       at('/admin/reports', reportRoutes(books));
       at('/admin/dashboard', dashboardRoutes(books));

@@ -119,6 +119,12 @@ export class BooksRepository {
     }));
   }
 
+  /** Card payments whose fee is still an estimate, oldest first. */
+  async chargesWithEstimatedFees(limit: number): Promise<string[]> {
+    const rows = await this.db('money_movements').where('fee_estimated', true).whereNotNull('processor_charge_id').whereIn('kind', ['order_payment', 'dues_payment']).orderBy('id').limit(limit).pluck('processor_charge_id');
+    return rows as string[];
+  }
+
   /** Replaces the estimated fee of the movement for a charge with the processor's actual fee. */
   async setActualFee(chargeId: string, feeCents: number): Promise<number> {
     return this.db('money_movements').where({ processor_charge_id: chargeId, fee_estimated: true }).whereIn('kind', ['order_payment', 'dues_payment']).update({ fee_cents: feeCents, fee_estimated: false });

@@ -1,3 +1,4 @@
+import type { PaymentGateway } from '../payments/payment-gateway';
 import { dateInZone, type Clock } from '../platform/clock';
 import { centsToDecimal, toCsv } from '../platform/csv';
 import type { SettingsService } from '../settings/settings-service';
@@ -66,6 +67,16 @@ export class BooksService {
       yield toCsv([], rows).replace(/^\r\n/, '');
       after = page[page.length - 1].id;
     }
+  }
+
+  /** Replaces estimated fees with the processor's actual ones where it reports them; returns how many changed. */
+  async syncActualFees(payments: PaymentGateway, batch = 200): Promise<number> {
+    let updated = 0;
+    for (const chargeId of await this.repo.chargesWithEstimatedFees(batch)) {
+      const fee = await payments.actualFeeCents(chargeId);
+      if (fee !== null) updated += await this.repo.setActualFee(chargeId, fee);
+    }
+    return updated;
   }
 
   feeSettings(): Promise<ProcessorFeeSettings> {

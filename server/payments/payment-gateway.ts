@@ -76,6 +76,24 @@ export class PaymentGateway {
     return this.stripe.refunds.create({ charge: chargeId, amount: amountCents }, { idempotencyKey });
   }
 
+  /**
+   * The fee the processor actually kept on a charge, from the charge's balance transaction; null while it is not
+   * known (or, with the local fake, never: it has no balance transactions).
+   */
+  async actualFeeCents(chargeId: string): Promise<number | null> {
+    try {
+      const charge = await this.stripe.charges.retrieve(chargeId);
+      const bt = charge.balance_transaction;
+      if (!bt) return null;
+      const tx = typeof bt === 'string' ? await this.stripe.balanceTransactions.retrieve(bt) : bt;
+      return typeof tx.fee === 'number' ? tx.fee : null;
+    } catch (err) {
+      // Unknown charge or no balance-transaction endpoint: keep the estimate and try again on the next pass.
+      if (err instanceof Stripe.errors.StripeError) return null;
+      throw err;
+    }
+  }
+
   /** Whether the processor answers at all. */
   async reachable(): Promise<boolean> {
     try {

@@ -127,3 +127,21 @@ describe('PUT /api/admin/settings/processor-fees', () => {
     expect(bad.body.error.fields.percentBasisPoints).toBeDefined();
   });
 });
+
+describe('the actual-fee job', () => {
+  it('replaces an estimate with the fee the processor reports, and keeps it when the processor knows none', async () => {
+    const job = t.app.jobs.find((j) => j.name === 'books-actual-fees')!;
+    const gateway = t.deps.payments;
+    const original = gateway.actualFeeCents.bind(gateway);
+    // The local fake has no balance transactions, so this test plays the processor's answer for one charge.
+    gateway.actualFeeCents = async (chargeId: string) => (chargeId === `ch_${tag}` ? 341 : original(chargeId));
+    try {
+      await job.run();
+      const row = await t.deps.db('money_movements').where({ processor_charge_id: `ch_${tag}` }).first('fee_cents', 'fee_estimated');
+      expect(row).toEqual({ fee_cents: '341', fee_estimated: false });
+    } finally {
+      gateway.actualFeeCents = original;
+      await t.deps.db('money_movements').where({ processor_charge_id: `ch_${tag}` }).update({ fee_cents: 355, fee_estimated: true });
+    }
+  });
+});

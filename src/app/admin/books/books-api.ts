@@ -67,6 +67,9 @@ export class BooksApi {
   dashboard(): Observable<Dashboard> {
     return this.http.get<Dashboard>('/api/admin/dashboard');
   }
+  runs(): Observable<{ items: { id: number; name: string; productName: string; state: string }[] }> {
+    return this.http.get<{ items: { id: number; name: string; productName: string; state: string }[] }>('/api/admin/runs');
+  }
   unitsBySize(runId: number): Observable<{ items: { label: string; units: number }[] }> {
     return this.http.get<{ items: { label: string; units: number }[] }>('/api/admin/reports/units-by-size', { params: { runId } });
   }

@@ -1,7 +1,9 @@
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { RouterLink } from '@angular/router';
 import { MatCardModule } from '@angular/material/card';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatSelectModule } from '@angular/material/select';
 import { BaseChartDirective, provideCharts, withDefaultRegisterables } from 'ng2-charts';
 import type { ChartConfiguration } from 'chart.js';
 import { SessionStore } from '../../core/session-store';
@@ -18,7 +20,7 @@ const STATUS_COLOURS: Record<string, string> = { active: '#376286', lapsing: '#e
 /** The console's overview: today's numbers as cards, each linking to the table behind it, and three charts. */
 @Component({
   selector: 'ps-dashboard',
-  imports: [RouterLink, MatCardModule, BaseChartDirective, MoneyPipe],
+  imports: [RouterLink, MatCardModule, MatFormFieldModule, MatSelectModule, BaseChartDirective, MoneyPipe],
   providers: [provideCharts(withDefaultRegisterables())],
   templateUrl: './dashboard.html',
   styleUrl: './dashboard.scss',
@@ -30,6 +32,15 @@ export class Dashboard {
   protected readonly canSeeBooks = computed(() => this.session.hasAnyRole(['treasurer', 'admin']));
   protected readonly data = rxResource({ params: () => this.canSeeBooks() || undefined, stream: () => this.api.dashboard() });
 
+  protected readonly runs = rxResource({ params: () => this.canSeeBooks() || undefined, stream: () => this.api.runs() });
+  /** The run whose sizes are charted: the newest until the user picks another. */
+  protected readonly runId = linkedSignal<number | null>(() => this.runs.value()?.items[0]?.id ?? null);
+  protected readonly units = rxResource({ params: () => this.runId() ?? undefined, stream: ({ params }) => this.api.unitsBySize(params) });
+  protected readonly unitsChart = computed<ChartConfiguration<'bar'>['data']>(() => {
+    const items = this.units.value()?.items ?? [];
+    return { labels: items.map((i) => i.label), datasets: [{ label: 'Paid units', backgroundColor: '#376286', data: items.map((i) => i.units) }] };
+  });
+  protected readonly unitsSummary = computed(() => (this.units.value()?.items ?? []).map((i) => `${i.label} ${i.units}`).join(', '));
   protected readonly revenueChart = computed<ChartConfiguration<'bar'>['data']>(() => {
     const rows = this.data.value()?.revenueByMonth ?? [];
     const months = [...new Set(rows.map((r) => r.month))];
