@@ -16,7 +16,8 @@ try {
   const ok =
     run('npx', ['ng', 'build', '--output-path', env.BENCH_APP_DIST]) &&
     run('npx', ['ng', 'build', '--configuration', 'production', '--project', 'empty-app', '--output-path', env.BENCH_EMPTY_DIST]) &&
-    run(process.execPath, ['node_modules/tsx/dist/cli.mjs', 'server/tasks/prepare-db.ts']) &&
+    // The demo catalogue, so the catalogue benchmark serves real products.
+    run(process.execPath, ['node_modules/tsx/dist/cli.mjs', 'server/tasks/prepare-db.ts', '--demo-seed']) &&
     run(process.execPath, ['node_modules/tsx/dist/cli.mjs', 'bench/run-all.ts']);
   code = ok ? 0 : 1;
 } finally {
