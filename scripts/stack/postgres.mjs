@@ -1,6 +1,6 @@
 // A private PostgreSQL cluster in a folder of ours, listening on loopback only.
 import { spawnSync } from 'node:child_process';
-import { chmodSync, chownSync, existsSync, mkdirSync, writeFileSync } from 'node:fs';
+import { chmodSync, chownSync, existsSync, mkdirSync, statSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { ensurePostgres, isRoot } from './system.mjs';
 
@@ -21,9 +21,28 @@ function ownedByPostgres(dir) {
   chownSync(dir, Number(id.stdout), Number(gid.stdout));
 }
 
+/**
+ * As root, the `postgres` user must be able to reach the data folder. A checkout inside a private folder (mode
+ * 0700, as `mktemp -d` makes) blocks it, so such folders get the traverse bit for others (not read or write).
+ */
+function letPostgresReach(dir) {
+  if (!isRoot) return;
+  const parts = path.resolve(dir).split(path.sep).filter(Boolean);
+  for (let i = 1; i <= parts.length; i++) {
+    const d = path.sep + parts.slice(0, i).join(path.sep);
+    if (!existsSync(d)) break;
+    if (spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', d]).status !== 0) {
+      chmodSync(d, statSync(d).mode | 0o001);
+      console.log(`padside: let the postgres user pass through ${d} (o+x) so it can reach the cluster`);
+    }
+  }
+}
+
 /** Creates (once) and starts a cluster in `dataDir`; returns a stop function. */
 export function startCluster({ dataDir, port, user = 'padside', log }) {
   const bin = ensurePostgres();
+  mkdirSync(path.dirname(dataDir), { recursive: true });
+  letPostgresReach(path.dirname(dataDir));
   const socketDir = path.join(path.dirname(dataDir), 'pg-socket');
   mkdirSync(socketDir, { recursive: true });
   ownedByPostgres(socketDir);
