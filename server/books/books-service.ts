@@ -26,8 +26,9 @@ export class BooksService {
 
   async taxReport(range: DateRange) {
     checkRange(range);
-    const lines = (await this.repo.taxLines(range)).map((l) => ({ ...l, netCents: l.taxCents - l.refundedCents }));
-    return { from: range.from, to: range.to, timeZone: this.timeZone, lines };
+    const [rows, registrations] = await Promise.all([this.repo.taxLines(range), this.sources().taxRegistrations?.() ?? null]);
+    const lines = rows.map((l) => ({ ...l, netCents: l.taxCents - l.refundedCents }));
+    return { from: range.from, to: range.to, timeZone: this.timeZone, registrations, lines };
   }
 
   async taxCsv(range: DateRange): Promise<string> {

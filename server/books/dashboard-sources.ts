@@ -9,5 +9,7 @@ export interface DashboardSources {
   overdueDeliverables(): Promise<{ sponsor: string; kind: string; dueOn: string; missing: number }[]>;
   membersLapsingWithin(days: number): Promise<number>;
   membersByStatus(): Promise<Record<string, number>>;
+  /** The seller's tax registrations, shown at the top of the tax report. */
+  taxRegistrations(): Promise<{ sellerProvince: string; gstHstNumber: string; gstHstRegistered: boolean; provincialRegistrations: string[] }>;
   sponsorValue(): Promise<{ season: string; items: { sponsor: string; tier: string | null; cashCents: number; inKindCents: number; totalCents: number; promised: number; delivered: number }[] }>;
 }

@@ -1,12 +1,18 @@
 import type { Knex } from 'knex';
 import type { DashboardSources } from '../books/dashboard-sources';
 import type { Clock } from '../platform/clock';
+import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueRepository } from './catalogue-repository';
+import { SHOP_SETTINGS } from './shop-settings';
 import { effectiveRunState } from './run-state';
 
 /** The shop's numbers on the staff dashboard. */
-export function shopDashboard(db: Knex, catalogue: CatalogueRepository, clock: Clock): Pick<DashboardSources, 'ordersAwaitingShipment' | 'runsClosingWithin' | 'unitsBySize'> {
+export function shopDashboard(db: Knex, catalogue: CatalogueRepository, clock: Clock, settings: SettingsService): Pick<DashboardSources, 'ordersAwaitingShipment' | 'runsClosingWithin' | 'unitsBySize' | 'taxRegistrations'> {
   return {
+    async taxRegistrations() {
+      const s = await settings.get(SHOP_SETTINGS);
+      return { sellerProvince: s.sellerProvince, gstHstNumber: s.gstHstNumber, gstHstRegistered: s.gstHstRegistered, provincialRegistrations: s.provincialRegistrations };
+    },
     async ordersAwaitingShipment() {
       const [{ n }] = await db('shop_orders').whereIn('status', ['paid', 'packed']).count<{ n: string }[]>({ n: '*' });
       return Number(n);

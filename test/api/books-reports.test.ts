@@ -41,6 +41,8 @@ describe('GET /api/admin/reports/tax', () => {
   it('sums tax charged and refunded per kind and jurisdiction, refunds in the period they happen', async () => {
     const feb = await treasurer.get('/api/admin/reports/tax?from=2019-02-01&to=2019-02-28');
     expect(feb.status).toBe(200);
+    // The demo seller's position (shop settings defaults): Manitoba, GST/HST registered, collecting Manitoba RST.
+    expect(feb.body.registrations).toMatchObject({ sellerProvince: 'MB', gstHstRegistered: true, provincialRegistrations: ['MB'] });
     expect(feb.body.lines).toEqual([
       { code: 'GST', jurisdiction: 'CA', taxableCents: 15000, taxCents: 750, refundedCents: 0, netCents: 750 },
       { code: 'RST', jurisdiction: 'MB', taxableCents: 15000, taxCents: 1050, refundedCents: 0, netCents: 1050 },

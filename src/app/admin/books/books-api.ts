@@ -17,6 +17,12 @@ export interface TaxLine {
   netCents: number;
 }
 
+export interface TaxReport {
+  lines: TaxLine[];
+  timeZone: string;
+  registrations: { sellerProvince: string; gstHstNumber: string; gstHstRegistered: boolean; provincialRegistrations: string[] } | null;
+}
+
 export interface RevenueRow {
   month: string;
   source: 'merch' | 'dues' | 'sponsor';
@@ -55,8 +61,8 @@ export interface Dashboard {
 export class BooksApi {
   private readonly http = inject(HttpClient);
 
-  tax(p: Period): Observable<{ lines: TaxLine[]; timeZone: string }> {
-    return this.http.get<{ lines: TaxLine[]; timeZone: string }>('/api/admin/reports/tax', { params: new HttpParams({ fromObject: { ...p } }) });
+  tax(p: Period): Observable<TaxReport> {
+    return this.http.get<TaxReport>('/api/admin/reports/tax', { params: new HttpParams({ fromObject: { ...p } }) });
   }
   revenue(p: Period): Observable<{ rows: RevenueRow[] }> {
     return this.http.get<{ rows: RevenueRow[] }>('/api/admin/reports/revenue', { params: new HttpParams({ fromObject: { ...p } }) });
