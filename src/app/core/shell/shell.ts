@@ -7,11 +7,12 @@ import { MatToolbarModule } from '@angular/material/toolbar';
 import { SessionStore } from '../session-store';
 
 /** Public sections in the top bar. */
-const SECTIONS = [
+const SECTIONS: { path: string; label: string; exact?: boolean }[] = [
   { path: '/shop', label: 'Merch' },
   { path: '/membership', label: 'Club dues' },
   { path: '/build-logs', label: 'Build logs' },
-  { path: '/sponsors', label: 'Sponsors' },
+  // Exact, so the public page is not marked current inside the sponsor portal (/sponsors/portal).
+  { path: '/sponsors', label: 'Sponsors', exact: true },
 ];
 
 /** Padside's frame: top bar with the mark, sections and the account menu; footer with the flying caution. */
