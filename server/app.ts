@@ -50,7 +50,7 @@ export function createApp(deps: AppDeps): PadsideApp {
 
   app.disable('x-powered-by');
   app.set('trust proxy', deps.config.env === 'production' ? 1 : 'loopback');
-  app.use(securityHeaders);
+  app.use(securityHeaders({ stripeJs: deps.config.stripe.publishableKey !== null }));
   app.use(
     pinoHttp({
       logger: deps.log,

@@ -33,6 +33,7 @@ const EnvSchema = z.object({
   STRIPE_SECRET_KEY: z.string().default('sk_test_padside_local'),
   STRIPE_API_BASE: z.url().default('http://127.0.0.1:12111'),
   STRIPE_WEBHOOK_SECRET: z.string().default('whsec_padside_local_development'),
+  STRIPE_PUBLISHABLE_KEY: z.string().regex(/^pk_(test|live)_[A-Za-z0-9]+$/, 'must be a publishable key (pk_test_… or pk_live_…)').optional(),
   PUBLIC_URL: z.url().default('http://127.0.0.1:3000'),
   CLUB_TIME_ZONE: timeZone.default('America/Winnipeg'),
   DATA_DIR: z.string().optional(),
@@ -50,7 +51,8 @@ export interface Config {
   smtpUrl: string;
   mailFrom: string;
   mailPollMs: number;
-  stripe: { secretKey: string; apiBase: string; webhookSecret: string; isLocalFake: boolean };
+  /** `publishableKey` switches the payment step from labelled test tokens to Stripe.js card entry. */
+  stripe: { secretKey: string; apiBase: string; webhookSecret: string; publishableKey: string | null };
   publicUrl: string;
   clubTimeZone: string;
   dataDir: string;
@@ -79,6 +81,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   if (e.NODE_ENV === 'production' && e.STRIPE_WEBHOOK_SECRET.startsWith('whsec_padside_local')) {
     throw new ConfigError('Padside: STRIPE_WEBHOOK_SECRET must be set in production');
   }
+  // Test tokens only work against a test account or the fake; the real API needs real card entry.
+  if (/^https:\/\/api\.stripe\.com\/?$/.test(e.STRIPE_API_BASE) && !e.STRIPE_PUBLISHABLE_KEY) throw new ConfigError('Padside: STRIPE_PUBLISHABLE_KEY is required when STRIPE_API_BASE is the processor itself');
   return {
     env: e.NODE_ENV,
     host: e.HOST,
@@ -92,7 +96,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       secretKey: e.STRIPE_SECRET_KEY,
       apiBase: e.STRIPE_API_BASE,
       webhookSecret: e.STRIPE_WEBHOOK_SECRET,
-      isLocalFake: !/^https:\/\/api\.stripe\.com\/?$/.test(e.STRIPE_API_BASE),
+      publishableKey: e.STRIPE_PUBLISHABLE_KEY ?? null,
     },
     publicUrl: e.PUBLIC_URL.replace(/\/$/, ''),
     clubTimeZone: e.CLUB_TIME_ZONE,

@@ -14,6 +14,8 @@ import { SHOP_SETTINGS } from './shop-settings';
 const name = z.string({ error: 'Name is required.' }).trim().min(2, 'Use at least 2 characters.').max(120, 'At most 120 characters.');
 const instant = z.iso.datetime({ offset: true, error: 'Use a date and time such as 2026-12-01T09:00:00-06:00.' });
 
+const RunFields = z.object({ name: z.string().trim().max(120).optional(), cap: z.number({ error: 'Enter a cap.' }).int().min(1, 'At least 1.').max(100000, 'At most 100,000.'), opensAt: instant, closesAt: instant, unitCostCents: fields.cents.optional() });
+
 export const ProductBody = z.object({
   name,
   description: z.string().max(20000, 'At most 20,000 characters.').default(''),
@@ -25,9 +27,15 @@ export const ProductBody = z.object({
     .array(z.object({ label: z.string({ error: 'Label is required.' }).trim().min(1, 'Label is required.').max(60), sku: z.string().trim().regex(/^[A-Z0-9-]{2,60}$/i, 'Letters, digits and dashes.').optional(), weightGrams: z.number().int().min(1).max(20000).optional(), priceCents: fields.cents.optional(), stock: z.number().int().min(0).max(100000).optional() }))
     .min(1, 'Add at least one variant.')
     .max(30),
-  run: z.object({ name: z.string().trim().max(120).optional(), cap: z.number({ error: 'Enter a cap.' }).int().min(1, 'At least 1.').max(100000), opensAt: instant, closesAt: instant, unitCostCents: fields.cents.optional(), variantCaps: z.record(z.string(), z.number().int().min(0)).optional() }).optional(),
+  run: RunFields.extend({ variantCaps: z.record(z.string(), z.number().int().min(0)).optional() }).optional(),
 });
 export type ProductInput = z.infer<typeof ProductBody>;
+
+/** A further run of a product that already sells in runs (a new season's batch). */
+export const RunBody = RunFields.extend({
+  productId: fields.id,
+  variantCaps: z.array(z.object({ variantId: fields.id, cap: z.number({ error: 'Enter a cap.' }).int().min(0, 'At least 0.').max(100000) })).max(30).default([]),
+});
 
 export const ProductPatch = z.object({ name: name.optional(), description: z.string().max(20000).optional(), priceCents: fields.cents.min(50).optional(), active: z.boolean().optional(), sizeChart: ProductBody.shape.sizeChart.optional(), images: ProductBody.shape.images.optional() });
 
@@ -87,6 +95,28 @@ export class CatalogueService {
       return productId;
     });
     return this.byId(id);
+  }
+
+  /**
+   * Opens a product's next run. The product's latest run is the one buyers see, so the new one must open after it
+   * and may only be added once that run is over; the product row is locked so two staff cannot both add one.
+   */
+  async createRun(input: z.infer<typeof RunBody>) {
+    if (new Date(input.closesAt) <= new Date(input.opensAt)) throw badRequest('The run must close after it opens.', { closesAt: 'Must be after the opening.' });
+    const runId = await this.db.transaction(async (trx) => {
+      const product = await trx('shop_products').where('id', input.productId).forUpdate().first('id', 'name');
+      if (!product) throw badRequest('Choose a product.', { productId: 'No such product.' });
+      const [b] = await this.repo.bundles({ id: input.productId }, trx);
+      if (!b.run) throw conflict('sold_from_stock', `${product.name} is sold from stock, not in runs.`, { productId: 'This product is sold from stock.' });
+      const current = effectiveRunState({ state: b.run.state, cap: b.run.cap, reserved: b.run.reserved, opensAt: b.run.opens_at, closesAt: b.run.closes_at }, this.clock.now());
+      if (current === 'scheduled' || current === 'open' || current === 'sold_out') throw conflict('run_not_over', `Close “${b.run.name}” before adding the next run.`, { productId: 'Its current run is not closed yet.' });
+      if (new Date(input.opensAt) <= b.run.opens_at) throw badRequest('The new run must open after the last one opened.', { opensAt: 'Must be after the last run opened.' });
+      const variantIds = new Set(b.variants.map((v) => v.id));
+      const stray = input.variantCaps.find((c) => !variantIds.has(c.variantId));
+      if (stray) throw badRequest('A size cap names a variant of another product.', { variantCaps: `Variant ${stray.variantId} is not one of ${product.name}'s.` });
+      return this.repo.insertRun(trx, { product_id: input.productId, name: input.name || `${product.name} run`, cap: input.cap, opens_at: new Date(input.opensAt), closes_at: new Date(input.closesAt), unit_cost_cents: input.unitCostCents ?? null }, input.variantCaps);
+    });
+    return (await this.runs()).find((r) => r.id === runId)!;
   }
 
   async update(id: number, patch: z.infer<typeof ProductPatch>) {

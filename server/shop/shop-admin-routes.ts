@@ -5,7 +5,7 @@ import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueService } from './catalogue-service';
-import { ProductBody, ProductPatch } from './catalogue-service';
+import { ProductBody, ProductPatch, RunBody } from './catalogue-service';
 import { toCsv } from '../platform/csv';
 import type { FulfilmentService } from './fulfilment-service';
 import { ORDER_SORTS, type OrderFilter, type OrderRepository } from './order-repository';
@@ -83,12 +83,12 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
   return r;
 }
 
-/** /api/admin/products: list, create, show, edit. */
+/** /api/admin/products: list, create, show, edit. Lists carry the club's time zone: staff type run windows in club time. */
 export function productAdminRoutes(d: ShopAdminDeps): Router {
   const r = Router();
   r.use(requireRole(...SHOP_STAFF));
   r.get('/', async function listProductsForStaff(_req, res) {
-    res.json({ items: await d.catalogue.list(false) });
+    res.json({ items: await d.catalogue.list(false), timeZone: d.timeZone });
   });
   r.post('/', async function createProduct(req, res) {
     res.status(201).json({ product: await d.catalogue.create(parse(ProductBody, req.body)) });
@@ -103,12 +103,15 @@ export function productAdminRoutes(d: ShopAdminDeps): Router {
   return r;
 }
 
-/** /api/admin/runs: list, move state, print-run sheet (JSON and CSV). */
+/** /api/admin/runs: list, add a product's next run, move state, print-run sheet (JSON and CSV). */
 export function runAdminRoutes(d: ShopAdminDeps): Router {
   const r = Router();
   r.use(requireRole(...SHOP_STAFF));
   r.get('/', async function listRuns(_req, res) {
     res.json({ items: await d.catalogue.runs() });
+  });
+  r.post('/', async function addRun(req, res) {
+    res.status(201).json({ run: await d.catalogue.createRun(parse(RunBody, req.body)) });
   });
   r.post('/:id/state', async function moveRun(req, res) {
     const id = parse(fields.id, req.params.id);

@@ -4,7 +4,7 @@ import { CatalogueService } from './catalogue-service';
 import { CheckoutService } from './checkout-service';
 import { FulfilmentService } from './fulfilment-service';
 import { OrderRepository } from './order-repository';
-import { paymentWebhookRoutes } from './payment-webhook-routes';
+import { paymentRoutes } from './payment-routes';
 import { QuoteService } from './quote-service';
 import { shopDashboard } from './shop-dashboard';
 import { orderAdminRoutes, productAdminRoutes, runAdminRoutes, shopSettingsRoutes } from './shop-admin-routes';
@@ -37,7 +37,7 @@ export function shopFeature(platform: Platform): Feature {
       api('/admin/products', productAdminRoutes(admin));
       api('/admin/runs', runAdminRoutes(admin));
       api('/admin/shop', shopSettingsRoutes(admin));
-      api('/payments', paymentWebhookRoutes(deps.payments.stripe, deps.config.stripe.webhookSecret, webhooks));
+      api('/payments', paymentRoutes(deps.payments.stripe, deps.config.stripe, webhooks));
     },
     jobs: [{ name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() }],
     dashboard: shopDashboard(deps.db, catalogueRepo, deps.clock, settings),

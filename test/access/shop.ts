@@ -24,6 +24,7 @@ export const shopAccess: RouteAccess[] = [
   { method: 'GET', path: '/api/admin/products/:id', allow: SHOP_STAFF },
   { method: 'PATCH', path: '/api/admin/products/:id', allow: SHOP_STAFF },
   { method: 'GET', path: '/api/admin/runs', allow: SHOP_STAFF },
+  { method: 'POST', path: '/api/admin/runs', allow: SHOP_STAFF },
   { method: 'POST', path: '/api/admin/runs/:id/state', allow: SHOP_STAFF },
   { method: 'GET', path: '/api/admin/runs/:id/print-sheet', allow: SHOP_STAFF },
   { method: 'GET', path: '/api/admin/runs/:id/print-sheet.csv', allow: SHOP_STAFF },
@@ -32,5 +33,6 @@ export const shopAccess: RouteAccess[] = [
   { method: 'GET', path: '/api/admin/shop/shipping-methods', allow: SHOP_STAFF },
   { method: 'PUT', path: '/api/admin/shop/shipping-methods/:id', allow: SHOP_STAFF },
   { method: 'GET', path: '/api/admin/shop/tax-rates', allow: SHOP_STAFF },
+  { method: 'GET', path: '/api/payments/card-entry', allow: 'public' },
   { method: 'POST', path: '/api/payments/webhook', allow: 'public' },
 ];

@@ -1,7 +1,7 @@
 import { emailsTo, waitForEmails } from '../helpers/maildev';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, signedIn } from '../helpers/users';
-import { MB_ADDRESS, methodId, openShirt } from './shop-fixtures';
+import { MB_ADDRESS, methodId, openShirt, stockSticker } from './shop-fixtures';
 
 let t: TestApp;
 let staff: Client;
@@ -123,6 +123,66 @@ describe('GET /api/admin/runs/:id/print-sheet', () => {
     const closed = await c.post('/api/checkout/quote', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada') });
     expect(closed.status).toBe(409);
     expect(closed.body.error.fields['items.0.quantity']).toMatch(/closed/);
+  });
+});
+
+describe('POST /api/admin/runs', () => {
+  const inDays = (d: number) => new Date(Date.now() + d * 86400_000).toISOString();
+
+  it('adds a product’s next run once the last one is over; buyers then order from the new run', async () => {
+    const shirt = await openShirt(staff, { cap: 20 });
+    await order(shirt.variants[0].id, 2);
+    const next = { productId: shirt.id, name: 'Season two', cap: 3, opensAt: inDays(-0.01), closesAt: inDays(5), unitCostCents: 850, variantCaps: [{ variantId: shirt.variants[0].id, cap: 1 }] };
+
+    const early = await staff.post('/api/admin/runs', next);
+    expect(early.status).toBe(409);
+    expect(early.body.error).toMatchObject({ code: 'run_not_over', fields: { productId: expect.any(String) } });
+    expect((await staff.post(`/api/admin/runs/${shirt.run.id}/state`, { state: 'closed' })).status).toBe(200);
+
+    const backwards = await staff.post('/api/admin/runs', { ...next, closesAt: inDays(-1) });
+    expect(backwards.status).toBe(400);
+    expect(backwards.body.error.fields.closesAt).toMatch(/after the opening/);
+    const beforeLast = await staff.post('/api/admin/runs', { ...next, opensAt: inDays(-3) });
+    expect(beforeLast.status).toBe(400);
+    expect(beforeLast.body.error.fields.opensAt).toMatch(/after the last run opened/);
+    const sticker = await stockSticker(staff, 5);
+    const foreign = await staff.post('/api/admin/runs', { ...next, variantCaps: [{ variantId: sticker.variants[0].id, cap: 1 }] });
+    expect(foreign.status).toBe(400);
+    expect(foreign.body.error.fields.variantCaps).toMatch(/not one of/);
+    const fromStock = await staff.post('/api/admin/runs', { ...next, productId: sticker.id, variantCaps: [] });
+    expect(fromStock.status).toBe(409);
+    expect(fromStock.body.error.code).toBe('sold_from_stock');
+    const missing = await staff.post('/api/admin/runs', { ...next, productId: 99999999 });
+    expect(missing.status).toBe(400);
+    expect(missing.body.error.fields.productId).toBeDefined();
+    const noCap = await staff.post('/api/admin/runs', { ...next, cap: 0 });
+    expect(noCap.status).toBe(400);
+    expect(noCap.body.error.fields.cap).toBeDefined();
+
+    const made = await staff.post('/api/admin/runs', next);
+    expect(made.status).toBe(201);
+    expect(made.body.run).toMatchObject({ name: 'Season two', state: 'open', cap: 3, reserved: 0, unitCostCents: 850 });
+    const shown = (await new Client(t.app).get(`/api/products/${shirt.slug}`)).body;
+    expect(shown.run).toMatchObject({ id: made.body.run.id, state: 'open', cap: 3, remaining: 3 });
+    expect(shown.variants.map((v: { remaining: number }) => v.remaining)).toEqual([1, 3]);
+
+    await order(shirt.variants[0].id, 1);
+    const c = new Client(t.app);
+    const over = await c.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada'), email: 'late@example.test', paymentToken: 'tok_visa' });
+    expect(over.status).toBe(409);
+    expect(over.body.error.code).toBe('sold_out');
+    const newSheet = (await staff.get(`/api/admin/runs/${made.body.run.id}/print-sheet`)).body;
+    const oldSheet = (await staff.get(`/api/admin/runs/${shirt.run.id}/print-sheet`)).body;
+    expect([newSheet.totalPaid, oldSheet.totalPaid]).toEqual([1, 2]);
+  });
+
+  it('lets only one of two staff add the next run at the same moment', async () => {
+    const shirt = await openShirt(staff, { cap: 5 });
+    await staff.post(`/api/admin/runs/${shirt.run.id}/state`, { state: 'closed' });
+    const body = { productId: shirt.id, cap: 10, opensAt: inDays(1), closesAt: inDays(9) };
+    const answers = await Promise.all([staff.post('/api/admin/runs', body), staff.post('/api/admin/runs', body)]);
+    expect(answers.map((a) => a.status).sort()).toEqual([201, 409]);
+    expect((await staff.get('/api/admin/runs')).body.items.filter((r: { productSlug: string }) => r.productSlug === shirt.slug)).toHaveLength(2);
   });
 });
 

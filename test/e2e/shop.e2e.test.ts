@@ -4,6 +4,7 @@ import { waitForEmails } from '../helpers/maildev';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 import { openShirt } from '../api/shop-fixtures';
+import { toPaymentStep } from './checkout-steps';
 
 let t: TestApp;
 let browser: Browser;
@@ -38,23 +39,7 @@ describe('the merch shop in a browser', () => {
     const tile = page.getByRole('link', { name: new RegExp(shirt.slug.replace(/-/g, ' '), 'i') });
     await tile.click();
     await page.waitForURL(`**/shop/p/${shirt.slug}`);
-    await page.getByRole('heading', { level: 1, name: new RegExp(shirt.slug.replace(/-/g, ' '), 'i') }).waitFor();
-    // A single-choice toggle group is a radio group to assistive technology.
-    await page.getByRole('radio', { name: 'L', exact: true }).click();
-    await page.getByText('left in L').waitFor();
-    await screenshot(page, 'shop-product');
-    await page.getByRole('button', { name: 'Add to cart' }).click();
-    await page.getByRole('dialog', { name: 'Your cart' }).waitFor();
-    await screenshot(page, 'shop-cart-panel');
-    await page.getByRole('link', { name: 'Check out' }).click();
-
-    await page.getByRole('heading', { name: 'Checkout' }).waitFor();
-    await page.getByRole('button', { name: 'Next: shipping' }).click();
-    await page.getByRole('radio', { name: 'Mail within Canada' }).check();
-    await page.getByLabel('Address', { exact: true }).fill('12 Launch Rail Rd');
-    await page.getByLabel('City').fill('Gopher Flats');
-    await page.getByLabel('Postal code').fill('R0K 1A0');
-    await page.getByRole('button', { name: 'Next: payment' }).click();
+    await toPaymentStep(page, shirt.slug, { product: 'shop-product', cart: 'shop-cart-panel' });
     await page.getByRole('radio', { name: 'Test Visa (pays)' }).check();
     // 35.00 + 9.00 shipping, GST 5% 2.20 + RST 7% 3.08 (MB shipping taxable setting) = 49.28.
     await page.getByTestId('quote-total').getByText('$49.28').waitFor();
@@ -90,5 +75,41 @@ describe('the merch shop in a browser', () => {
     await screenshot(staffPage, 'shop-console-orders');
     await staffPage.close();
     expect((await t.deps.db('shop_orders').where('number', number).first()).status).toBe('shipped');
+  });
+
+  it('staff closes a run and opens the product’s next run from the Runs page', async () => {
+    const staffUser = await createUser(t.deps.db, ['fan', 'treasurer'], 'Ines Marlow');
+    const staffApi = new Client(t.app);
+    await staffApi.signIn(staffUser);
+    const shirt = await openShirt(staffApi, { cap: 20 });
+    const productName = (await staffApi.get(`/api/admin/products/${shirt.id}`)).body.product.name as string;
+    const page = await browser.newPage();
+    await signInThroughForm(page, site.baseUrl, staffUser.email, staffUser.password);
+    await page.goto(`${site.baseUrl}/console/runs`);
+    const row = page.getByRole('row', { name: new RegExp(productName) });
+    await row.getByRole('button', { name: 'Close now' }).click();
+    await row.getByRole('button', { name: 'Send to the printer' }).waitFor();
+
+    const form = page.getByRole('form', { name: 'Next run of a product' });
+    await form.getByRole('combobox', { name: 'Product' }).click();
+    await page.getByRole('option', { name: productName }).click();
+    await form.getByLabel('Run name (optional)').fill('Spring reprint');
+    await form.getByLabel('Cap (units)').fill('30');
+    await form.getByLabel('Opens').fill('2030-04-01T09:00');
+    await form.getByLabel('Closes').fill('2030-03-01T09:00');
+    await form.getByRole('button', { name: 'Add the run' }).click();
+    await form.getByText('Must be after the opening.').waitFor();
+    await form.getByLabel('Closes').fill('2030-04-20T21:00');
+    await form.getByLabel('L', { exact: true }).fill('10');
+    await screenshot(page, 'shop-console-next-run');
+    await form.getByRole('button', { name: 'Add the run' }).click();
+    await page.getByRole('row', { name: /Spring reprint/ }).waitFor();
+    await page.close();
+
+    const run = await t.deps.db('shop_runs').where({ product_id: shirt.id, name: 'Spring reprint' }).first();
+    expect(run).toMatchObject({ cap: 30, state: 'scheduled' });
+    // 09:00 in Winnipeg on 2030-04-01 is daylight time, -05:00 (IANA tz database, from memory).
+    expect(new Date(run.opens_at).toISOString()).toBe('2030-04-01T14:00:00.000Z');
+    expect((await t.deps.db('shop_run_variant_caps').where('run_id', run.id)).map((c) => [Number(c.variant_id), c.cap])).toEqual([[shirt.variants[1].id, 10]]);
   });
 });

@@ -15,12 +15,13 @@ export function apiErrorMessage(err: unknown): string {
 
 /**
  * Puts the server's per-field messages on the matching form controls (as the `server` error)
- * and returns the overall message for the form's banner.
+ * and returns the overall message for the form's banner. `rename` maps an API field to the control that
+ * edits it where the two differ (a price typed in dollars that the API takes as `priceCents`).
  */
-export function applyServerErrors(form: FormGroup, err: unknown): string {
+export function applyServerErrors(form: FormGroup, err: unknown, rename: Record<string, string> = {}): string {
   const fields = err instanceof HttpErrorResponse ? (err.error as ApiErrorBody | null)?.error?.fields : undefined;
   for (const [name, message] of Object.entries(fields ?? {})) {
-    const control: AbstractControl | null = form.get(name);
+    const control: AbstractControl | null = form.get(rename[name] ?? name);
     if (control) {
       control.setErrors({ ...(control.errors ?? {}), server: message });
       control.markAsTouched();

@@ -1,4 +1,5 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
+import { HttpErrorResponse } from '@angular/common/http';
 import { rxResource, takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { Router, RouterLink } from '@angular/router';
@@ -16,6 +17,7 @@ import { FieldErrorPipe } from '../shared/field-error-pipe';
 import { MoneyPipe } from '../shared/money-pipe';
 import { CartStore } from './cart-store';
 import { ShopApi } from './shop-api';
+import { StripeCard } from './stripe-card';
 import type { Quote, QuoteRequest } from './shop-types';
 
 /** The payment processor's test tokens, offered while Padside talks to the local fake. */
@@ -32,7 +34,7 @@ const COUNTRIES = [['CA', 'Canada'], ['US', 'United States'], ['AU', 'Australia'
 /** Checkout in four steps (contact, shipping, payment, review); every figure shown comes from the server's quote. */
 @Component({
   selector: 'ps-checkout',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, MatStepperModule, FieldErrorPipe, MoneyPipe],
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, MatStepperModule, FieldErrorPipe, MoneyPipe, StripeCard],
   templateUrl: './checkout.html',
   styleUrl: './checkout.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -63,6 +65,11 @@ export class Checkout {
     }),
   });
   protected readonly payment = this.fb.group({ paymentToken: ['tok_visa', Validators.required] });
+  /** With Stripe.js the payment step is done once its card frame reports a complete card. */
+  protected readonly cardForm = this.fb.group({ complete: [false, Validators.requiredTrue] });
+  protected readonly cardEntry = rxResource({ stream: () => this.api.cardEntry() });
+  protected readonly usesStripeJs = computed(() => this.cardEntry.value()?.mode === 'stripe-js');
+  private readonly stripeCard = viewChild(StripeCard);
 
   private readonly methodId = toSignal(this.shipping.controls.shippingMethodId.valueChanges, { initialValue: 0 });
   private readonly country = toSignal(this.shipping.controls.shipTo.controls.country.valueChanges, { initialValue: 'CA' });
@@ -106,7 +113,8 @@ export class Checkout {
     this.busy.set(true);
     this.problem.set(null);
     try {
-      const token = this.payment.getRawValue().paymentToken;
+      const card = this.stripeCard();
+      const token = card ? await card.token() : this.payment.getRawValue().paymentToken;
       const pending = this.pending();
       const res = await firstValueFrom(pending ? this.api.payAgain(pending.id, token) : this.api.placeOrder({ ...this.request(), email: this.contact.getRawValue().email, paymentToken: token }));
       if (res.order.status === 'pending') {
@@ -116,6 +124,11 @@ export class Checkout {
       this.cart.clear();
       await this.router.navigate(['/shop/orders', res.order.id], { queryParams: { placed: 1 } });
     } catch (err) {
+      if (!(err instanceof HttpErrorResponse)) {
+        // Stripe.js could not tokenise the card; it already shows why beside the card field.
+        this.problem.set(err instanceof Error ? err.message : 'The card details could not be used.');
+        return;
+      }
       const message = applyServerErrors(this.contact, err);
       applyServerErrors(this.shipping, err);
       applyServerErrors(this.payment, err);

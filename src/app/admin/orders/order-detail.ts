@@ -9,9 +9,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { HttpErrorResponse } from '@angular/common/http';
 import { applyServerErrors } from '../../core/api-error';
-import type { ApiErrorBody } from '../../core/user';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { STATUS_LABELS } from '../../shop/shop-types';
@@ -68,10 +66,7 @@ export class OrderDetail {
       await this.run(() => firstValueFrom(this.api.refund(this.id(), { amountCents, restock })), 'Refund sent.');
       this.refundForm.reset();
     } catch (err) {
-      this.refundProblem.set(applyServerErrors(this.refundForm, err));
-      // The server names the field in cents; the form asks in dollars.
-      const field = err instanceof HttpErrorResponse ? (err.error as ApiErrorBody | null)?.error?.fields?.['amountCents'] : undefined;
-      if (field) this.refundForm.controls.amount.setErrors({ server: field });
+      this.refundProblem.set(applyServerErrors(this.refundForm, err, { amountCents: 'amount' }));
     }
   }
 

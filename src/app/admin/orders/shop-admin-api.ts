@@ -51,6 +51,15 @@ export interface StaffRun {
   closesAt: string;
   unitCostCents: number | null;
 }
+export interface NewRun {
+  productId: number;
+  name?: string;
+  cap: number;
+  opensAt: string;
+  closesAt: string;
+  unitCostCents?: number;
+  variantCaps: { variantId: number; cap: number }[];
+}
 export interface PrintSheet {
   run: { id: number; name: string; productName: string; state: string; cap: number; opensAt: string; closesAt: string };
   kind: 'preview' | 'final';
@@ -108,8 +117,8 @@ export class ShopAdminApi {
   refund(id: number, body: { amountCents: number; restock: boolean }): Observable<StaffOrder> {
     return this.http.post<{ order: StaffOrder }>(`/api/admin/orders/${id}/refund`, body, quiet()).pipe(map((r) => r.order));
   }
-  products(): Observable<(Product & { active: boolean })[]> {
-    return this.http.get<{ items: (Product & { active: boolean })[] }>('/api/admin/products').pipe(map((r) => r.items));
+  products(): Observable<{ items: (Product & { active: boolean })[]; timeZone: string }> {
+    return this.http.get<{ items: (Product & { active: boolean })[]; timeZone: string }>('/api/admin/products');
   }
   createProduct(body: object): Observable<unknown> {
     return this.http.post('/api/admin/products', body, quiet());
@@ -125,6 +134,9 @@ export class ShopAdminApi {
   }
   runs(): Observable<StaffRun[]> {
     return this.http.get<{ items: StaffRun[] }>('/api/admin/runs').pipe(map((r) => r.items));
+  }
+  addRun(body: NewRun): Observable<StaffRun> {
+    return this.http.post<{ run: StaffRun }>('/api/admin/runs', body, quiet()).pipe(map((r) => r.run));
   }
   moveRun(id: number, state: string): Observable<StaffRun> {
     return this.http.post<{ run: StaffRun }>(`/api/admin/runs/${id}/state`, { state }).pipe(map((r) => r.run));

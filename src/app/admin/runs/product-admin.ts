@@ -11,6 +11,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { applyServerErrors } from '../../core/api-error';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
+import { wallTimeToIso } from '../../shared/zoned-time';
 import { RUN_STATE_LABELS } from '../../shop/countdown';
 import type { Product } from '../../shop/shop-types';
 import { ShopAdminApi } from '../orders/shop-admin-api';
@@ -66,6 +67,7 @@ export class ProductAdmin {
     this.form.markAllAsTouched();
     if (this.form.invalid) return;
     const v = this.form.getRawValue();
+    const zone = this.products.value()?.timeZone ?? 'UTC';
     this.problem.set(null);
     const body = {
       name: v.name,
@@ -73,7 +75,7 @@ export class ProductAdmin {
       priceCents: Math.round(Number(v.price) * 100),
       weightGrams: Number(v.weightGrams),
       variants: v.sizes.split(',').map((s) => s.trim()).filter(Boolean).map((label) => ({ label, ...(v.limited ? {} : { stock: 0 }) })),
-      ...(v.limited ? { run: { cap: Number(v.cap), opensAt: v.opensAt ? new Date(v.opensAt).toISOString() : '', closesAt: v.closesAt ? new Date(v.closesAt).toISOString() : '' } } : {}),
+      ...(v.limited ? { run: { cap: Number(v.cap), opensAt: wallTimeToIso(v.opensAt, zone), closesAt: wallTimeToIso(v.closesAt, zone) } } : {}),
     };
     try {
       await firstValueFrom(this.api.createProduct(body));
@@ -81,13 +83,7 @@ export class ProductAdmin {
       this.form.reset();
       this.products.reload();
     } catch (err) {
-      this.problem.set(applyServerErrors(this.form, err));
-      const fields = (err as { error?: { error?: { fields?: Record<string, string> } } }).error?.error?.fields ?? {};
-      if (fields['priceCents']) this.form.controls.price.setErrors({ server: fields['priceCents'] });
-      if (fields['variants']) this.form.controls.sizes.setErrors({ server: fields['variants'] });
-      if (fields['run.cap']) this.form.controls.cap.setErrors({ server: fields['run.cap'] });
-      if (fields['run.opensAt']) this.form.controls.opensAt.setErrors({ server: fields['run.opensAt'] });
-      if (fields['run.closesAt']) this.form.controls.closesAt.setErrors({ server: fields['run.closesAt'] });
+      this.problem.set(applyServerErrors(this.form, err, { priceCents: 'price', variants: 'sizes', 'run.cap': 'cap', 'run.opensAt': 'opensAt', 'run.closesAt': 'closesAt' }));
     }
   }
 }

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
@@ -8,13 +8,14 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { EmptyState } from '../../shared/empty-state';
 import { RUN_STATE_LABELS } from '../../shop/countdown';
 import { ShopAdminApi } from '../orders/shop-admin-api';
+import { RunForm } from './run-form';
 
 const MOVE_LABELS: Record<string, string> = { closed: 'Close now', in_production: 'Send to the printer', shipped: 'Mark shipped' };
 
-/** Limited runs: how full, the window, the next step, and the way to each print-run sheet. */
+/** Limited runs: how full, the window, the next step, the way to each print-run sheet, and a product's next run. */
 @Component({
   selector: 'ps-run-list',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatProgressBarModule, EmptyState],
+  imports: [DatePipe, RouterLink, MatButtonModule, MatProgressBarModule, EmptyState, RunForm],
   template: `
     <section class="ps-page">
       <h1>Runs</h1>
@@ -44,8 +45,11 @@ const MOVE_LABELS: Record<string, string> = { closed: 'Close now', in_production
             </tbody>
           </table>
         } @else {
-          <ps-empty-state icon="checkroom" message="No runs yet." />
+          <ps-empty-state icon="checkroom" message="No runs yet. A run starts with its product on the Products page." />
         }
+      }
+      @if (runProducts().length && products.value(); as p) {
+        <ps-run-form [products]="runProducts()" [timeZone]="p.timeZone" (added)="runs.reload(); products.reload()" />
       }
     </section>
   `,
@@ -55,6 +59,8 @@ const MOVE_LABELS: Record<string, string> = { closed: 'Close now', in_production
 export class RunList {
   private readonly api = inject(ShopAdminApi);
   protected readonly runs = rxResource({ stream: () => this.api.runs() });
+  protected readonly products = rxResource({ stream: () => this.api.products() });
+  protected readonly runProducts = computed(() => (this.products.value()?.items ?? []).filter((p) => p.run !== null));
   protected readonly stateLabels = RUN_STATE_LABELS;
   protected readonly moveLabels = MOVE_LABELS;
 
