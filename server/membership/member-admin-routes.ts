@@ -4,7 +4,7 @@ import { fields, parse } from '../platform/validate';
 import { requireRole } from '../platform/require-role';
 import type { MemberAdminService } from './member-admin-service';
 import type { RosterQuery } from './membership-repository';
-import { MembershipSettingsSchema } from './membership-settings';
+import { MembershipSettingsInputSchema } from './membership-settings';
 
 const RosterSchema = z.object({
   status: z.enum(['pending', 'active', 'lapsing', 'lapsed']).optional().or(z.literal('').transform(() => undefined)),
@@ -25,15 +25,23 @@ const rosterQuery = (value: unknown): { query: RosterQuery; page: number; pageSi
 
 const nullableDate = fields.date.nullable().or(z.literal('').transform(() => null));
 
-const PlanSchema = z.object({
-  code: z.string().trim().toLowerCase().regex(/^[a-z0-9-]{2,32}$/, 'Use 2-32 lower-case letters, digits or dashes.'),
+// Without defaults, so a PATCH of one field leaves the others as they are.
+const PlanFields = z.object({
   name: z.string().trim().min(1, 'Name is required.').max(80),
-  description: z.string().trim().max(400).default(''),
-  eligibility: z.enum(['any', 'junior', 'family']).default('any'),
+  description: z.string().trim().max(400),
   duesCents: fields.cents,
+  joiningFeeCents: fields.cents,
+  active: z.boolean(),
+  sortOrder: z.number().int().min(0).max(1000),
+});
+
+const NewPlanSchema = PlanFields.extend({
+  code: z.string().trim().toLowerCase().regex(/^[a-z0-9-]{2,32}$/, 'Use 2-32 lower-case letters, digits or dashes.'),
+  eligibility: z.enum(['any', 'junior', 'family']).default('any'),
+  description: PlanFields.shape.description.default(''),
   joiningFeeCents: fields.cents.default(0),
   active: z.boolean().default(true),
-  sortOrder: z.number().int().min(0).max(1000).default(0),
+  sortOrder: PlanFields.shape.sortOrder.default(0),
 });
 
 /** The treasurer's console: roster, member records, payments, refunds, summary, roster e-mail, plans, settings. */
@@ -60,17 +68,17 @@ export function memberAdminRoutes(service: MemberAdminService): Router {
     res.json(await service.plans());
   });
   r.post('/plans', async (req, res) => {
-    res.status(201).json(await service.createPlan(parse(PlanSchema, req.body)));
+    res.status(201).json(await service.createPlan(parse(NewPlanSchema, req.body)));
   });
   r.patch('/plans/:id', async (req, res) => {
     const { id } = parse(z.object({ id: fields.id }), req.params);
-    res.json(await service.updatePlan(id, parse(PlanSchema.omit({ code: true, eligibility: true }).partial(), req.body)));
+    res.json(await service.updatePlan(id, parse(PlanFields.partial(), req.body)));
   });
   r.get('/settings', async (_req, res) => {
     res.json(await service.getSettings());
   });
   r.put('/settings', async (req, res) => {
-    res.json(await service.putSettings(parse(MembershipSettingsSchema, req.body)));
+    res.json(await service.putSettings(parse(MembershipSettingsInputSchema, req.body)));
   });
   r.get('/:id', async (req, res) => {
     const { id } = parse(z.object({ id: fields.id }), req.params);

@@ -255,10 +255,18 @@ export class MemberAdminService {
     return { items: (await this.repo.plans(true)).map(planView) };
   }
 
+  /** Plans are never deleted: payments and members point at them, so staff switch one off instead. */
   async createPlan(input: { code: string; name: string; description: string; eligibility: PlanRow['eligibility']; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }) {
-    if ((await this.repo.plans(true)).some((p) => p.code === input.code)) throw conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
-    const row = await this.repo.insertPlan({ code: input.code, name: input.name, description: input.description, eligibility: input.eligibility, dues_cents: input.duesCents, joining_fee_cents: input.joiningFeeCents, active: input.active, sort_order: input.sortOrder });
-    return { plan: planView(row) };
+    const taken = () => conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
+    if ((await this.repo.plans(true)).some((p) => p.code === input.code)) throw taken();
+    try {
+      const row = await this.repo.insertPlan({ code: input.code, name: input.name, description: input.description, eligibility: input.eligibility, dues_cents: input.duesCents, joining_fee_cents: input.joiningFeeCents, active: input.active, sort_order: input.sortOrder });
+      return { plan: planView(row) };
+    } catch (err) {
+      // Two staff adding the same code at once: the unique index decides.
+      if ((err as { code?: string }).code === '23505') throw taken();
+      throw err;
+    }
   }
 
   async updatePlan(id: number, input: Partial<{ name: string; description: string; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }>) {
@@ -278,7 +286,13 @@ export class MemberAdminService {
     return { settings: await this.settings.get(MEMBERSHIP_SETTINGS) };
   }
 
+  /** Saves the club rules; a certification level still on a member's record cannot leave the list. */
   async putSettings(value: MembershipSettings): Promise<{ settings: MembershipSettings }> {
+    const held = await this.repo.levelsHeldOutside(value.certificationLevels.map((l) => l.code));
+    if (held.length) {
+      const list = held.map((h) => `${h.certification_level} (${h.count} ${h.count === '1' ? 'member' : 'members'})`).join(', ');
+      throw conflict('level_in_use', `Members still hold ${list}. Change their records first, or keep the level.`, { certificationLevels: `Still held: ${list}.` });
+    }
     return { settings: await this.settings.put(MEMBERSHIP_SETTINGS, value) };
   }
 }

@@ -86,7 +86,7 @@ export class MembershipJobs {
       if (!r.auto_renew || !r.processor_customer_id || !termEnd || r.renewal_failed_at !== null) continue;
       const attempt = r.renewal_attempts;
       if (attempt >= RENEWAL_TRY_OFFSETS.length || today < addDays(termEnd, RENEWAL_TRY_OFFSETS[attempt])) continue;
-      const claimed = await this.db.transaction((trx) => this.repo.claimRenewalAttempt(trx, Number(r.id), attempt));
+      const claimed = await this.db.transaction((trx) => this.repo.claimRenewalAttempt(trx, Number(r.id), attempt, termEnd));
       if (!claimed) continue;
       await this.tryOnce(r, termEnd, attempt, today, policy, out);
     }
@@ -101,6 +101,11 @@ export class MembershipJobs {
     const result = await this.cardDues.pay(r, plan, term, amount, { customerId: r.processor_customer_id!, keyTail: `auto-${attempt}` }, { today, policy, actorUserId: null, at: this.clock.now() });
     if (result.outcome === 'paid') {
       out.paid++;
+      return;
+    }
+    // The member's own renewal holds the term right now: this try never reached the card, so the next run may use it.
+    if (result.outcome === 'in_progress') {
+      await this.repo.releaseRenewalAttempt(Number(r.id), attempt);
       return;
     }
     const last = attempt + 1 >= RENEWAL_TRY_OFFSETS.length;

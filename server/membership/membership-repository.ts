@@ -74,6 +74,7 @@ export interface PaymentRow {
   note: string | null;
   failure_message: string | null;
   recorded_by: string | null;
+  attempted_at: Date | null;
   created_at: Date;
 }
 
@@ -145,6 +146,16 @@ export class MembershipRepository {
     return row;
   }
 
+  /** Members per certification level for the levels not in `codes` (records a new level list would orphan). */
+  levelsHeldOutside(codes: string[], db: Db = this.db): Promise<{ certification_level: string; count: string }[]> {
+    return db('memberships')
+      .whereNotIn('certification_level', codes)
+      .groupBy('certification_level')
+      .orderBy('certification_level')
+      .select('certification_level')
+      .count<{ certification_level: string; count: string }[]>({ count: '*' });
+  }
+
   byUser(userId: number, db: Db = this.db, lock = false): Promise<MembershipRow | undefined> {
     return db<MembershipRow>('memberships').where('user_id', userId).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
   }
@@ -176,10 +187,18 @@ export class MembershipRepository {
     return n === 1;
   }
 
-  /** Claims the next auto-renew attempt: true only for the one caller that saw `attempts` still current. */
-  async claimRenewalAttempt(trx: Knex.Transaction, id: number, attempts: number): Promise<boolean> {
-    const n = await trx('memberships').where({ id, renewal_attempts: attempts }).update({ renewal_attempts: attempts + 1, updated_at: trx.fn.now() });
+  /**
+   * Claims the next auto-renew attempt: true only for the one caller that saw `attempts` and the term end still
+   * current (a renewal paid meanwhile moves the term end, and the claim then fails).
+   */
+  async claimRenewalAttempt(trx: Knex.Transaction, id: number, attempts: number, termEnd: string): Promise<boolean> {
+    const n = await trx('memberships').where({ id, renewal_attempts: attempts, term_end: termEnd }).update({ renewal_attempts: attempts + 1, updated_at: trx.fn.now() });
     return n === 1;
+  }
+
+  /** Gives back an auto-renew attempt claimed with `attempts` that never reached the processor. */
+  async releaseRenewalAttempt(id: number, attempts: number, db: Db = this.db): Promise<void> {
+    await db('memberships').where({ id, renewal_attempts: attempts + 1 }).update({ renewal_attempts: attempts, updated_at: db.fn.now() });
   }
 
   family(membershipId: number, db: Db = this.db): Promise<{ id: string; name: string; date_of_birth: DateCol }[]> {
@@ -207,6 +226,11 @@ export class MembershipRepository {
 
   paymentByKey(key: string, db: Db = this.db): Promise<PaymentRow | undefined> {
     return db<PaymentRow>('membership_payments').where('idempotency_key', key).first();
+  }
+
+  /** The card payments (not refunds) of one membership for the term ending `termEnd`, oldest first. */
+  cardPaymentsForTerm(membershipId: number, termEnd: string, db: Db = this.db): Promise<PaymentRow[]> {
+    return db<PaymentRow>('membership_payments').where({ membership_id: String(membershipId), term_end: termEnd, entry: 'payment', method: 'card' }).orderBy('id');
   }
 
   payments(membershipId: number, db: Db = this.db): Promise<PaymentRow[]> {

@@ -1,11 +1,11 @@
-import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import QRCode from 'qrcode';
 import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
 import { dateInZone, type Clock } from '../platform/clock';
 import type { SessionUser } from '../platform/roles';
 import type { SettingsService } from '../settings/settings-service';
-import type { CardDues, CardSource } from './card-dues';
+import type { SaveCardResult } from '../payments/saved-cards';
+import type { CardDues, CardDuesResult, CardSource } from './card-dues';
 import type { CheckInTokens } from './check-in-token';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { dateOnly, type MembershipRepository, type MembershipRow, type PlanRow } from './membership-repository';
@@ -47,6 +47,13 @@ export interface RenewInput {
 const declined = (message: string) => new AppError(402, 'payment_declined', message, { paymentToken: message });
 const unknownOutcome = () =>
   new AppError(502, 'payment_unconfirmed', 'The card processor did not confirm the payment. It is recorded; the treasurer will check it before you are charged again.');
+
+/** The membership a card payment paid for, or the error the member sees. */
+function paidMembership(result: CardDuesResult, inProgress: () => AppError): MembershipRow {
+  if (result.outcome === 'paid') return result.membership;
+  if (result.outcome === 'in_progress') throw inProgress();
+  throw result.outcome === 'declined' ? declined(result.message) : unknownOutcome();
+}
 
 /** Joining, renewing and the member's own card: the rules, with no HTTP. */
 export class MembershipService {
@@ -123,8 +130,10 @@ export class MembershipService {
       safety_code_accepted_at: at,
       auto_renew: input.autoRenew ?? false,
     };
-    let m = await this.db
+    const m = await this.db
       .transaction(async (trx) => {
+        // A second submit that arrives after the first one paid finds the membership no longer pending.
+        if (existing && (await this.repo.byId(Number(existing.id), trx, true))!.status !== 'pending') throw conflict('already_member', 'You already have a membership; renew it instead.');
         const created = existing
           ? await this.repo.update(trx, Number(existing.id), row)
           : await this.repo.insert(trx, { ...row, user_id: String(user.id), status: 'pending', term_start: null, term_end: null, processor_customer_id: null });
@@ -136,11 +145,12 @@ export class MembershipService {
         // Two join submits at once: the account's one membership row already exists.
         throw err.code === '23505' ? conflict('already_member', 'Your membership is already being set up; reload the page.') : err;
       });
-    const source = input.autoRenew ? await this.saveCard(m, user, input.paymentToken) : { token: input.paymentToken };
-    if ('customerId' in source) m = (await this.repo.byId(Number(m.id)))!;
+    const source: CardSource = input.autoRenew
+      ? { keyTail: await this.cardDues.savedCardTail(m, priced.term, priced.amountCents, 'join'), saveCard: () => this.saveCard(m, user, input.paymentToken) }
+      : { token: input.paymentToken };
     const result = await this.cardDues.pay(m, plan, priced.term, priced.amountCents, source, { today, policy, actorUserId: user.id, at });
-    if (result.outcome !== 'paid') throw result.outcome === 'declined' ? declined(result.message) : unknownOutcome();
-    return { membership: membershipView(result.membership, plan, today, policy, s) };
+    const paid = paidMembership(result, () => conflict('payment_in_progress', 'Your first payment is already being processed; check your membership in a moment.'));
+    return { membership: membershipView(paid, plan, today, policy, s) };
   }
 
   async renew(user: SessionUser, input: RenewInput) {
@@ -168,10 +178,13 @@ export class MembershipService {
       await this.repo.addAudit(trx, Number(m.id), user.id, 'renewal_started', { plan: plan.code, changed: Object.keys(patch) });
       return row;
     });
-    const source: CardSource = input.paymentToken ? { token: input.paymentToken } : { customerId: m.processor_customer_id!, keyTail: `member-${randomUUID()}` };
+    // The saved card's key is the same for every request of one attempt, so simultaneous clicks share one charge.
+    const source: CardSource = input.paymentToken
+      ? { token: input.paymentToken }
+      : { customerId: m.processor_customer_id!, keyTail: await this.cardDues.savedCardTail(m, priced.term, priced.amountCents, 'member') };
     const result = await this.cardDues.pay(updated, plan, priced.term, priced.amountCents, source, { today, policy, actorUserId: user.id, at });
-    if (result.outcome !== 'paid') throw result.outcome === 'declined' ? declined(result.message) : unknownOutcome();
-    return { membership: membershipView(result.membership, plan, today, policy, s) };
+    const paid = paidMembership(result, () => conflict('renewal_in_progress', 'Your renewal is already being paid; check your membership in a moment.'));
+    return { membership: membershipView(paid, plan, today, policy, s) };
   }
 
   /** The caller's membership; the stored status and role catch up with the dates on the way. */
@@ -206,7 +219,10 @@ export class MembershipService {
     const m = await this.repo.byUser(user.id);
     if (!m) throw notFound('You have no membership yet.');
     if (input.autoRenew && !m.processor_customer_id && !input.paymentToken) throw badRequest('Choose a card to keep on file.', { paymentToken: 'Choose a card to keep on file.' });
-    if (input.paymentToken) await this.saveCard(m, user, input.paymentToken);
+    if (input.paymentToken) {
+      const saved = await this.saveCard(m, user, input.paymentToken);
+      if (saved.outcome === 'declined') throw declined(saved.message);
+    }
     await this.db.transaction(async (trx) => {
       await this.repo.update(trx, Number(m.id), { auto_renew: input.autoRenew, renewal_failed_at: input.paymentToken ? null : m.renewal_failed_at });
       await this.repo.addAudit(trx, Number(m.id), user.id, 'auto_renew_changed', { autoRenew: input.autoRenew, newCard: Boolean(input.paymentToken) });
@@ -240,13 +256,13 @@ export class MembershipService {
     };
   }
 
-  private async saveCard(m: MembershipRow, user: SessionUser, token: string): Promise<CardSource> {
+  /** Puts the card on file with the processor and keeps the customer id on the membership. */
+  private async saveCard(m: MembershipRow, user: SessionUser, token: string): Promise<SaveCardResult> {
     const saved = m.processor_customer_id
       ? await this.cardDues.savedCards.replace(m.processor_customer_id, token)
       : await this.cardDues.savedCards.save(token, user.email, m.legal_name, `customer:${m.id}:${token}`);
-    if (saved.outcome === 'declined') throw declined(saved.message);
-    if (saved.customerId !== m.processor_customer_id) await this.repo.update(this.db, Number(m.id), { processor_customer_id: saved.customerId });
-    return { customerId: saved.customerId, keyTail: `join-${randomUUID()}` };
+    if (saved.outcome === 'saved' && saved.customerId !== m.processor_customer_id) await this.repo.update(this.db, Number(m.id), { processor_customer_id: saved.customerId });
+    return saved;
   }
 
   private async activePlan(planId: number): Promise<PlanRow> {

@@ -22,6 +22,26 @@ export const MembershipSettingsSchema = z.object({
 
 export type MembershipSettings = z.infer<typeof MembershipSettingsSchema>;
 
+/** The level a member has when they give none; joining without a level records it, so it cannot go. */
+const NO_CERTIFICATION = 'none';
+
+/**
+ * What staff may save. Stricter than the stored schema on purpose: a list saved before these rules must still
+ * load, or every membership page would fail.
+ */
+export const MembershipSettingsInputSchema = MembershipSettingsSchema.superRefine((s, ctx) => {
+  if (s.certificationLevels[0]?.code !== NO_CERTIFICATION) {
+    ctx.addIssue({ code: 'custom', path: ['certificationLevels', 0, 'code'], message: `The first level must be "${NO_CERTIFICATION}": members who give no level get it.` });
+  }
+  // Codes are matched exactly, but "l1" beside "L1" would read as one level on every screen.
+  const seen = new Set<string>();
+  s.certificationLevels.forEach((l, i) => {
+    const key = l.code.toLowerCase();
+    if (seen.has(key)) ctx.addIssue({ code: 'custom', path: ['certificationLevels', i, 'code'], message: 'This code is already in the list.' });
+    seen.add(key);
+  });
+});
+
 export const MEMBERSHIP_SETTINGS = defineSetting<MembershipSettings>(
   'membership',
   MembershipSettingsSchema,

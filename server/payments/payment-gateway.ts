@@ -105,7 +105,7 @@ export class PaymentGateway {
   }
 }
 
-function cardCountry(charge: Stripe.Charge): string | null {
+export function cardCountry(charge: Stripe.Charge): string | null {
   const card = charge.payment_method_details?.card ?? (charge.source as Stripe.Card | null);
   return (card && 'country' in card ? card.country : null) ?? null;
 }

@@ -169,4 +169,26 @@ describe('club dues in a browser', () => {
     await page.getByTestId('check-in-verdict').getByText(/Unknown card/).waitFor();
     await page.close();
   });
+
+  it('lets the treasurer add a plan in the console, typed in dollars, that members then see', async () => {
+    const code = `crew-${tag.toLowerCase()}`;
+    const treasurer = await createUser(t.deps.db, ['fan', 'treasurer'], 'Dale Ledger');
+    const page = await browser.newPage();
+    await signInThroughForm(page, site.baseUrl, treasurer.email, treasurer.password);
+    await page.goto(`${site.baseUrl}/console/members/summary`);
+    await page.getByTestId('plan-table').waitFor();
+    await page.getByRole('button', { name: 'Add a plan' }).click();
+    await expect(page.evaluate(() => document.activeElement?.getAttribute('formcontrolname'))).resolves.toBe('code');
+    await page.keyboard.type(code);
+    await page.getByLabel('Name', { exact: true }).fill('Range crew');
+    await page.getByLabel('Dues a term (CAD)').fill('12.50');
+    await page.getByLabel('Joining fee (CAD)').fill('5.00');
+    await page.getByRole('button', { name: 'Add plan' }).click();
+    await page.getByRole('status').getByText('Plan Range crew saved.').waitFor();
+    await page.getByRole('row', { name: new RegExp(code) }).getByRole('cell', { name: '$12.50' }).waitFor();
+    await screenshot(page, 'membership-plan-added');
+    const listed = (await new Client(t.app).get('/api/membership/plans')).body.items.find((p: { code: string }) => p.code === code);
+    expect(listed).toEqual(expect.objectContaining({ name: 'Range crew', duesCents: 1250, joiningFeeCents: 500 }));
+    await page.close();
+  });
 });

@@ -92,6 +92,22 @@ export interface ClubRules {
   certificationLevels: { code: string; label: string }[];
 }
 
+/** A plan as staff see it, switched-off ones included. */
+export type AdminPlan = Plan & { active: boolean; sortOrder: number };
+
+/** What staff may change on a plan; the code and who may hold it are fixed once members can hold it. */
+export type PlanChanges = Pick<AdminPlan, 'name' | 'description' | 'duesCents' | 'joiningFeeCents' | 'active' | 'sortOrder'>;
+
+/** Who may hold a plan, as staff read it (the server checks junior ages and family members). */
+export const ELIGIBILITY_LABELS: Record<AdminPlan['eligibility'], string> = {
+  any: 'Anyone',
+  junior: 'Under 18 on the first day of the term',
+  family: 'A household at one address',
+};
+
+/** A new plan. */
+export type NewPlan = PlanChanges & Pick<AdminPlan, 'code' | 'eligibility'>;
+
 /** Only the filters that are set, so URLs and the CSV link stay short. */
 export function filterParams(q: Partial<RosterQuery>): HttpParams {
   let params = new HttpParams();
@@ -138,11 +154,15 @@ export class MembersApi {
     return this.http.put<{ settings: ClubRules }>('/api/admin/members/settings', settings, quiet());
   }
 
-  plans(): Observable<{ items: (Plan & { active: boolean })[] }> {
-    return this.http.get<{ items: (Plan & { active: boolean })[] }>('/api/admin/members/plans');
+  plans(): Observable<{ items: AdminPlan[] }> {
+    return this.http.get<{ items: AdminPlan[] }>('/api/admin/members/plans');
   }
 
-  updatePlan(id: number, patch: { name?: string; duesCents?: number; joiningFeeCents?: number; active?: boolean }): Observable<{ plan: Plan }> {
-    return this.http.patch<{ plan: Plan }>(`/api/admin/members/plans/${id}`, patch, quiet());
+  createPlan(plan: NewPlan): Observable<{ plan: AdminPlan }> {
+    return this.http.post<{ plan: AdminPlan }>('/api/admin/members/plans', plan, quiet());
+  }
+
+  updatePlan(id: number, patch: Partial<PlanChanges>): Observable<{ plan: AdminPlan }> {
+    return this.http.patch<{ plan: AdminPlan }>(`/api/admin/members/plans/${id}`, patch, quiet());
   }
 }
