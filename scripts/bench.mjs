@@ -1,4 +1,5 @@
 // `npm run bench`: benchmarks against a throwaway stack; prints a table and writes bench/results.json.
+// `npm run bench -- --front-end`: the bundle size and Lighthouse only, printed, results.json untouched.
 // Never part of `npm test`.
 import { spawnSync } from 'node:child_process';
 import path from 'node:path';
@@ -11,7 +12,16 @@ const { startThrowawayStack } = await import('./stack/throwaway.mjs');
 const stack = await startThrowawayStack('bench');
 let code = 1;
 try {
-  const env = { ...stack.env, CHROMIUM_PATH: ensureChromium(), BENCH_APP_DIST: path.join(stack.tmp, 'app'), BENCH_EMPTY_DIST: path.join(stack.tmp, 'empty-app') };
+  const appDist = path.join(stack.tmp, 'app');
+  const env = {
+    ...stack.env,
+    CHROMIUM_PATH: ensureChromium(),
+    BENCH_APP_DIST: appDist,
+    BENCH_EMPTY_DIST: path.join(stack.tmp, 'empty-app'),
+    // The app under Lighthouse serves this run's build, not whatever dist/ holds.
+    BROWSER_DIST: path.join(appDist, 'browser'),
+    ...(process.argv.includes('--front-end') ? { BENCH_ONLY: 'front-end' } : {}),
+  };
   const run = (cmd, args) => spawnSync(cmd, args, { stdio: 'inherit', env }).status === 0;
   const ok =
     run('npx', ['ng', 'build', '--output-path', env.BENCH_APP_DIST]) &&
