@@ -14,6 +14,8 @@ import { BenchClient } from './bench-client';
 const CATEGORIES = ['performance', 'accessibility', 'best-practices'] as const;
 /** Lighthouse's advice for noisy scores is the median of several runs (five, from memory); three keeps this part near two minutes. */
 const RUNS = 3;
+/** Runs Lighthouse itself could not record, tried again before the page counts as failed. */
+const MAX_RERUNS = 3;
 const CHROME_FLAGS = ['--headless=new', '--no-sandbox', '--disable-gpu', '--disable-background-networking'];
 
 type Scores = Record<(typeof CATEGORIES)[number], number>;
@@ -47,10 +49,16 @@ function summarise(lhr: Result): PageRun {
 /** The run with the median performance score, so its other scores and findings belong to one real run. */
 async function medianRun(url: string, port: number): Promise<PageRun> {
   const runs: PageRun[] = [];
-  for (let i = 0; i < RUNS; i++) {
+  for (let failures = 0; runs.length < RUNS; ) {
     // Asynchronously, so this process keeps serving the pages being audited.
     const { stdout } = await promisify(execFile)(process.execPath, [path.join(__dirname, 'lighthouse-audit.mjs'), url, String(port), CATEGORIES.join(',')], { maxBuffer: 256 * 2 ** 20 });
-    runs.push(summarise(JSON.parse(stdout) as Result));
+    const lhr = JSON.parse(stdout) as Result;
+    // A lost trace (NO_NAVSTART and the like) is Lighthouse's own hiccup; its message says to run it again.
+    if (lhr.runtimeError && ++failures <= MAX_RERUNS) {
+      console.log(`lighthouse ${url}: ${lhr.runtimeError.code}, running it again`);
+      continue;
+    }
+    runs.push(summarise(lhr));
   }
   return runs.sort((a, b) => a.scores.performance - b.scores.performance)[Math.floor(RUNS / 2)];
 }

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import compression from 'compression';
 import express, { type Express, type Router } from 'express';
 import pinoHttp from 'pino-http';
 import { accountRoutes } from './account/account-routes';
@@ -25,6 +26,8 @@ import { uploadAdminRoutes, uploadServeRoutes } from './uploads/upload-routes';
 
 /** Paths under /api that verify their own signature instead of a CSRF token. */
 export const CSRF_EXEMPT = ['/payments/webhook'];
+
+const HASHED_ASSET = /-[A-Z0-9]{8}\.(js|css|woff2?|ttf)$/;
 
 /** A recorded mount: `prefix` is the full path prefix ('/api/auth'). */
 export interface MountRecord {
@@ -91,7 +94,10 @@ export function createApp(deps: AppDeps): PadsideApp {
 
   const browserDist = deps.config.browserDist;
   if (existsSync(browserDist)) {
-    app.use(express.static(browserDist, { index: false, maxAge: '1h', setHeaders: (res, file) => /-[A-Z0-9]{8}\.(js|css)$/.test(file) && res.setHeader('Cache-Control', 'public, max-age=31536000, immutable') }));
+    // Only the app's own files are compressed: API answers carry the CSRF token beside text a user typed (BREACH).
+    app.use(compression());
+    // The build names its scripts, styles and fonts after their content, so those never change under one name.
+    app.use(express.static(browserDist, { index: false, maxAge: '1h', setHeaders: (res, file) => HASHED_ASSET.test(file) && res.setHeader('Cache-Control', 'public, max-age=31536000, immutable') }));
     app.get(/^\/(?!api\/|uploads\/).*/, function spaFallback(_req, res) {
       res.sendFile(path.join(browserDist, 'index.html'));
     });

@@ -41,9 +41,11 @@ describe('when the SMTP server is down for a while', () => {
       // Time passes beyond the retry delay.
       await t.deps.db('outbound_emails').where('to_address', to).update({ next_attempt_at: t.deps.db.fn.now() });
       // Two workers (as two server processes would) race for the same rows.
+      // The outbox is shared with suites running alongside, so the workers may send their mail too.
       const [a, b] = await Promise.all([workerA.deliverDue(), workerB.deliverDue()]);
-      expect(a + b).toBe(5);
-      expect(await workerA.deliverDue()).toBe(0);
+      expect(a + b).toBeGreaterThanOrEqual(5);
+      // Later passes find nothing of ours to send again: MailDev below holds each of the five once.
+      await Promise.all([workerA.deliverDue(), workerB.deliverDue()]);
       const caught = await emailsTo(to);
       expect(caught.map((m) => m.subject).sort()).toEqual([1, 2, 3, 4, 5].map((i) => `Outage test ${i}`));
       const rows = await t.deps.db('outbound_emails').where('to_address', to);

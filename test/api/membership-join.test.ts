@@ -193,20 +193,17 @@ describe('POST /api/membership/renew', () => {
     expect(res.body.membership).toEqual(expect.objectContaining({ termStart: '2027-01-01', termEnd: '2027-12-31', status: 'active', memberNumber: s.res.body.membership.memberNumber }));
   });
 
+  // The member's record is moved back a version rather than the club's setting forward: the setting is shared with
+  // every suite running at the same time.
   it('asks again for a new waiver version', async () => {
     const s = await join();
-    const settings = await s.client.get('/api/membership/policy');
-    await t.deps.db('settings').insert({ key: 'membership', value: JSON.stringify({ ...settings.body, waiverVersion: '2026-2' }) }).onConflict('key').merge();
-    try {
-      const refused = await s.client.post('/api/membership/renew', { paymentToken: 'tok_visa' });
-      expect(refused.status).toBe(400);
-      expect(refused.body.error.fields.waiverVersion).toMatch(/2026-2/);
-      const ok = await s.client.post('/api/membership/renew', { paymentToken: 'tok_visa', waiverVersion: '2026-2' });
-      expect(ok.status).toBe(200);
-      expect((await t.deps.db('memberships').where('user_id', s.user.id).first()).waiver_version).toBe('2026-2');
-    } finally {
-      await t.deps.db('settings').where('key', 'membership').delete();
-    }
+    await t.deps.db('memberships').where('user_id', s.user.id).update({ waiver_version: '2025-1' });
+    const refused = await s.client.post('/api/membership/renew', { paymentToken: 'tok_visa' });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.fields.waiverVersion).toMatch(/2026-1/);
+    const ok = await s.client.post('/api/membership/renew', { paymentToken: 'tok_visa', waiverVersion: '2026-1' });
+    expect(ok.status).toBe(200);
+    expect((await t.deps.db('memberships').where('user_id', s.user.id).first()).waiver_version).toBe('2026-1');
   });
 
   it('starts a new term after grace, keeps the number, and the card page carries a signed token', async () => {

@@ -36,7 +36,7 @@ beforeAll(async () => {
     run: { cap: 20, opensAt: new Date(now - 60_000).toISOString(), closesAt: new Date(now + 7 * 86_400_000).toISOString() },
   });
   productSlug = product.body.slug ?? product.body.product?.slug;
-  const post = await staff.post('/api/admin/posts', { title: `Access check build log ${now}`, summary: 'Fins and a flight.', markdown: '## The fin can\n\nPrinted in three parts, then flown on a small motor.', tags: ['rocketry'], status: 'published' });
+  const post = await staff.post('/api/admin/posts', { title: `Access check build log ${now}`, summary: 'Fins and a flight.', markdown: `## The fin can\n\nPrinted in three parts, then flown on a small motor.\n\n${'The layers were printed slowly and sanded smooth before the first coat of primer went on. '.repeat(12)}`, tags: ['rocketry'], status: 'published' });
   postSlug = post.body.slug;
   if (!productSlug || !postSlug) throw new Error(`fixtures not created: ${product.status} ${post.status}`);
 });
@@ -90,6 +90,37 @@ describe('main pages have no serious or critical accessibility violations (axe-c
       expect(await page.locator('h1').first().textContent()).not.toMatch(/Off the pad|not found/i);
       await screenshot(page, `page-${name.replace(/\W+/g, '-')}`);
       expect(await seriousViolations(page)).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
+
+// Content that moves under the reader's eyes or finger makes them lose their place or tap the wrong thing.
+// Threshold: Cumulative Layout Shift of 0.1 or less is "good" (web.dev, Core Web Vitals thresholds).
+describe('pages whose content arrives late do not shift what is already painted', () => {
+  it.each([
+    { name: 'product page', path: () => `/shop/p/${productSlug}`, api: '**/api/products/*' },
+    { name: 'a build log', path: () => `/build-logs/${postSlug}`, api: '**/api/posts/*' },
+  ])('$name, on a phone-sized screen, with its data 600 ms late', async ({ path, api }) => {
+    const context = await browser.newContext({ viewport: { width: 412, height: 823 } });
+    const page = await context.newPage();
+    try {
+      await page.addInitScript(() => {
+        const w = window as unknown as { shift: number };
+        w.shift = 0;
+        new PerformanceObserver((list) => {
+          for (const e of list.getEntries() as unknown as { value: number; hadRecentInput: boolean }[]) if (!e.hadRecentInput) w.shift += e.value;
+        }).observe({ type: 'layout-shift', buffered: true });
+      });
+      await page.route(api, async (route) => {
+        await new Promise((r) => setTimeout(r, 600));
+        await route.continue();
+      });
+      await page.goto(site.baseUrl + path());
+      await page.locator('h1').first().waitFor();
+      await page.waitForLoadState('networkidle');
+      expect(await page.evaluate(() => (window as unknown as { shift: number }).shift)).toBeLessThanOrEqual(0.1);
     } finally {
       await context.close();
     }
