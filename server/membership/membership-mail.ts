@@ -1,7 +1,5 @@
 import type { OutgoingEmail } from '../mail/outbox';
-
-const CAD = new Intl.NumberFormat('en-CA', { style: 'currency', currency: 'CAD' });
-const money = (cents: number) => CAD.format(cents / 100);
+import { formatCad } from '../platform/money';
 
 /** The safety line every dues e-mail ends with, in Padside's words. */
 const FLYING_NOTE =
@@ -27,7 +25,7 @@ export function receiptMail(c: MemberMailContext, p: { paymentId: number; amount
     text: [
       `Hello ${c.name},`,
       '',
-      `Thank you. We received ${money(p.amountCents)} (${p.method}${p.receiptNumber ? `, receipt ${p.receiptNumber}` : ''}) for the ${c.planName} plan.`,
+      `Thank you. We received ${formatCad(p.amountCents)} (${p.method}${p.receiptNumber ? `, receipt ${p.receiptNumber}` : ''}) for the ${c.planName} plan.`,
       `Member number: ${c.memberNumber}`,
       `Term: ${p.termStart} to ${p.termEnd}`,
       'Club dues carry no sales tax.',
@@ -46,7 +44,7 @@ export function refundMail(c: MemberMailContext, p: { refundId: number; amountCe
     template: 'membership-refund',
     dedupeKey: `membership-refund:${p.refundId}`,
     subject: `Dues refund: member ${c.memberNumber}`,
-    text: [`Hello ${c.name},`, '', `We refunded ${money(p.amountCents)} of your dues (${p.method}).`, p.termEnd ? `Your membership now runs to ${p.termEnd}.` : 'Your membership has no paid term now.', '', FLYING_NOTE].join('\n'),
+    text: [`Hello ${c.name},`, '', `We refunded ${formatCad(p.amountCents)} of your dues (${p.method}).`, p.termEnd ? `Your membership now runs to ${p.termEnd}.` : 'Your membership has no paid term now.', '', FLYING_NOTE].join('\n'),
   };
 }
 

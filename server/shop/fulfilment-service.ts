@@ -5,6 +5,7 @@ import { enqueueEmail } from '../mail/outbox';
 import type { PaymentGateway } from '../payments/payment-gateway';
 import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
+import { formatCad } from '../platform/money';
 import type { OrderBundle, OrderRepository } from './order-repository';
 import { shareProportionally } from './pricing';
 import { refundEmail, shippedEmail } from './shop-emails';
@@ -47,7 +48,7 @@ export class FulfilmentService {
     if (!['paid', 'packed', 'shipped'].includes(o.status)) throw conflict('wrong_status', 'Only a paid order can be refunded.');
     if (!o.charge_id) throw conflict('not_processor_paid', 'This order was not paid by card through the processor; refund it by hand and note it in the books.');
     const left = o.total_cents - o.refunded_cents;
-    if (amountCents < 1 || amountCents > left) throw badRequest('That refund is larger than what is left to refund.', { amountCents: `Enter between $0.01 and ${(left / 100).toFixed(2)}.` });
+    if (amountCents < 1 || amountCents > left) throw badRequest('That refund is larger than what is left to refund.', { amountCents: `Enter between ${formatCad(1)} and ${formatCad(left)}.` });
     let refund: Stripe.Refund;
     try {
       refund = await this.payments.refund(o.charge_id, amountCents, `padside-refund-${id}-${o.refunded_cents}-${amountCents}`);

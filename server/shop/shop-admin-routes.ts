@@ -6,7 +6,7 @@ import { fields, parse } from '../platform/validate';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueService } from './catalogue-service';
 import { ProductBody, ProductPatch, RunBody } from './catalogue-service';
-import { toCsv } from '../platform/csv';
+import { centsToDecimal, toCsv } from '../platform/csv';
 import type { FulfilmentService } from './fulfilment-service';
 import { ORDER_SORTS, type OrderFilter, type OrderRepository } from './order-repository';
 import { orderJson } from './order-view';
@@ -58,9 +58,8 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
   r.get('/export', async function exportOrders(req, res) {
     const q = parse(OrderQuery, req.query);
     const rows = await d.orders.all(filterOf(q, d.timeZone), q.sort, q.dir);
-    const cents = (c: number) => (c / 100).toFixed(2);
     res.type('text/csv; charset=utf-8').attachment('padside-orders.csv');
-    res.send(toCsv(['number', 'created_at', 'status', 'email', 'ship_to', 'country', 'shipping', 'units', 'subtotal', 'discount', 'shipping_cost', 'tax', 'total', 'refunded', 'carrier', 'tracking'], rows.map((o) => [o.number, o.created_at.toISOString(), o.status, o.email, o.ship_name, o.ship_country, o.shipping_name, o.units, cents(o.subtotal_cents), cents(o.discount_cents), cents(o.shipping_cents), cents(o.tax_cents), cents(o.total_cents), cents(o.refunded_cents), o.carrier, o.tracking_number])));
+    res.send(toCsv(['number', 'created_at', 'status', 'email', 'ship_to', 'country', 'shipping', 'units', 'subtotal', 'discount', 'shipping_cost', 'tax', 'total', 'refunded', 'carrier', 'tracking'], rows.map((o) => [o.number, o.created_at.toISOString(), o.status, o.email, o.ship_name, o.ship_country, o.shipping_name, o.units, centsToDecimal(o.subtotal_cents), centsToDecimal(o.discount_cents), centsToDecimal(o.shipping_cents), centsToDecimal(o.tax_cents), centsToDecimal(o.total_cents), centsToDecimal(o.refunded_cents), o.carrier, o.tracking_number])));
   });
   r.get('/:id', async function showOrderForStaff(req, res) {
     const b = await d.orders.find(parse(fields.id, req.params.id));

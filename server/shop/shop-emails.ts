@@ -1,18 +1,17 @@
 import type { OutgoingEmail } from '../mail/outbox';
+import { formatCad } from '../platform/money';
 import type { OrderBundle } from './order-repository';
-
-const cad = (cents: number) => new Intl.NumberFormat('en-CA', { style: 'currency', currency: 'CAD' }).format(cents / 100);
 
 function receipt(b: OrderBundle): string[] {
   const o = b.order;
   return [
-    ...b.items.map((i) => `${i.quantity} x ${i.product_name} (${i.variant_label}, ${i.sku}) @ ${cad(i.unit_price_cents)} = ${cad(i.unit_price_cents * i.quantity)}`),
+    ...b.items.map((i) => `${i.quantity} x ${i.product_name} (${i.variant_label}, ${i.sku}) @ ${formatCad(i.unit_price_cents)} = ${formatCad(i.unit_price_cents * i.quantity)}`),
     '',
-    `Items: ${cad(o.subtotal_cents)}`,
-    ...(o.discount_cents ? [`Member discount (${o.discount_percent}%): -${cad(o.discount_cents)}`] : []),
-    `Shipping (${o.shipping_name}): ${cad(o.shipping_cents)}`,
-    ...b.taxes.map((t) => `${t.code} ${Number(t.rate_percent)}%: ${cad(t.amount_cents)}`),
-    `Total: ${cad(o.total_cents)}`,
+    `Items: ${formatCad(o.subtotal_cents)}`,
+    ...(o.discount_cents ? [`Member discount (${o.discount_percent}%): -${formatCad(o.discount_cents)}`] : []),
+    `Shipping (${o.shipping_name}): ${formatCad(o.shipping_cents)}`,
+    ...b.taxes.map((t) => `${t.code} ${Number(t.rate_percent)}%: ${formatCad(t.amount_cents)}`),
+    `Total: ${formatCad(o.total_cents)}`,
   ];
 }
 
@@ -46,10 +45,10 @@ export function refundEmail(b: OrderBundle, refundId: number, amountCents: numbe
   const o = b.order;
   return {
     to: o.email,
-    subject: `Padside order ${o.number}: refund of ${cad(amountCents)}`,
+    subject: `Padside order ${o.number}: refund of ${formatCad(amountCents)}`,
     template: 'shop-order-refund',
     dedupeKey: `shop-refund-${refundId}`,
-    text: [`We have refunded ${cad(amountCents)} on order ${o.number}.`, `Refunded so far: ${cad(o.refunded_cents)} of ${cad(o.total_cents)}.`, '', 'Card refunds usually take a few business days to show on your statement.'].join('\n'),
+    text: [`We have refunded ${formatCad(amountCents)} on order ${o.number}.`, `Refunded so far: ${formatCad(o.refunded_cents)} of ${formatCad(o.total_cents)}.`, '', 'Card refunds usually take a few business days to show on your statement.'].join('\n'),
   };
 }
 
@@ -60,6 +59,6 @@ export function disputeEmail(b: OrderBundle, to: string, reason: string): Outgoi
     subject: `Dispute opened on Padside order ${b.order.number}`,
     template: 'shop-order-dispute',
     dedupeKey: `shop-dispute-${b.order.id}`,
-    text: [`The card holder disputed the charge on order ${b.order.number} (${cad(b.order.total_cents)}).`, `Reason given: ${reason}`, '', 'Gather the order, shipping and tracking details and answer the dispute in the processor dashboard.'].join('\n'),
+    text: [`The card holder disputed the charge on order ${b.order.number} (${formatCad(b.order.total_cents)}).`, `Reason given: ${reason}`, '', 'Gather the order, shipping and tracking details and answer the dispute in the processor dashboard.'].join('\n'),
   };
 }

@@ -1,5 +1,6 @@
 import PDFDocument from 'pdfkit';
-import { toCsv } from '../platform/csv';
+import { centsToDecimal, toCsv } from '../platform/csv';
+import { formatCad } from '../platform/money';
 import type { AgreementView, CreditView, SponsorView } from './sponsor-service';
 
 /** What the report says about itself, in Padside's words; the PDF and the CSV carry the same sentence. */
@@ -15,7 +16,6 @@ const KIND_LABELS: Record<string, string> = {
   social_post: 'Social post',
 };
 
-const dollars = (cents: number) => new Intl.NumberFormat('en-CA', { style: 'currency', currency: 'CAD' }).format(cents / 100);
 
 export interface ReportData {
   sponsor: SponsorView;
@@ -28,8 +28,8 @@ export interface ReportData {
 export function acknowledgementCsv(r: ReportData): string {
   const rows: (string | number | null)[][] = [];
   for (const a of r.agreements) {
-    if (a.cashCents) rows.push(['support', a.season, 'Cash', (a.cashCents / 100).toFixed(2), a.cashReceivedOn, '', '']);
-    for (const i of a.inKind) rows.push(['support', a.season, `In-kind: ${i.description}`, (i.valueCents / 100).toFixed(2), i.receivedOn, '', '']);
+    if (a.cashCents) rows.push(['support', a.season, 'Cash', centsToDecimal(a.cashCents), a.cashReceivedOn, '', '']);
+    for (const i of a.inKind) rows.push(['support', a.season, `In-kind: ${i.description}`, centsToDecimal(i.valueCents), i.receivedOn, '', '']);
   }
   for (const c of r.credits) rows.push(['credit', '', KIND_LABELS[c.kind] ?? c.kind, '', c.at.slice(0, 10), c.postTitle ?? c.note ?? '', c.url]);
   rows.push(['note', '', NOT_A_RECEIPT, '', r.generatedOn, '', '']);
@@ -51,9 +51,9 @@ export function acknowledgementPdf(r: ReportData): Promise<Buffer> {
   for (const a of r.agreements) {
     doc.font('Helvetica-Bold').fontSize(13).text(`Season ${a.season}`);
     doc.font('Helvetica').fontSize(10);
-    if (a.cashCents) doc.text(`Cash: ${dollars(a.cashCents)}${a.cashReceivedOn ? ` (received ${a.cashReceivedOn})` : ' (not yet received)'}`);
-    for (const i of a.inKind) doc.text(`In-kind: ${i.description}, declared value ${dollars(i.valueCents)}${i.receivedOn ? ` (received ${i.receivedOn})` : ''}`);
-    doc.text(`Declared total: ${dollars(a.totalCents)}`);
+    if (a.cashCents) doc.text(`Cash: ${formatCad(a.cashCents)}${a.cashReceivedOn ? ` (received ${a.cashReceivedOn})` : ' (not yet received)'}`);
+    for (const i of a.inKind) doc.text(`In-kind: ${i.description}, declared value ${formatCad(i.valueCents)}${i.receivedOn ? ` (received ${i.receivedOn})` : ''}`);
+    doc.text(`Declared total: ${formatCad(a.totalCents)}`);
     for (const k of a.byKind) doc.text(`${KIND_LABELS[k.kind]}: ${k.delivered} of ${k.promised} delivered`);
     doc.moveDown(0.5);
   }

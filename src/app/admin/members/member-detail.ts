@@ -15,6 +15,7 @@ import { EmptyState } from '../../shared/empty-state';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { MembersApi, type PaymentLine } from './members-api';
+import { centsToDollars, dollarsToCents } from '../../shared/dollars';
 
 /** One member: record, family, payments with refunds, manual payment entry and the audit of changes. */
 @Component({
@@ -54,17 +55,13 @@ export class MemberDetail {
     return message;
   }
 
-  private cents(text: string): number {
-    return Math.round(Number(text) * 100);
-  }
-
   protected async recordPayment(formDir: FormGroupDirective): Promise<void> {
     this.paymentForm.markAllAsTouched();
     if (this.paymentForm.invalid) return;
     this.problem.set(null);
     const v = this.paymentForm.getRawValue();
     try {
-      await firstValueFrom(this.api.recordPayment(this.id(), { amountCents: this.cents(v.amount), method: v.method, receiptNumber: v.receiptNumber, ...(v.note ? { note: v.note } : {}) }));
+      await firstValueFrom(this.api.recordPayment(this.id(), { amountCents: dollarsToCents(v.amount), method: v.method, receiptNumber: v.receiptNumber, ...(v.note ? { note: v.note } : {}) }));
       this.notice.set(`Payment ${v.receiptNumber} recorded; a receipt is on its way to the member.`);
       formDir.resetForm({ amount: '', method: 'cash', receiptNumber: '', note: '' });
       this.detail.reload();
@@ -75,7 +72,7 @@ export class MemberDetail {
 
   protected startRefund(p: PaymentLine): void {
     this.refunding.set(p);
-    this.refundForm.reset({ amount: (p.amountCents / 100).toFixed(2), reason: '' });
+    this.refundForm.reset({ amount: centsToDollars(p.amountCents), reason: '' });
   }
 
   protected async refund(): Promise<void> {
@@ -85,7 +82,7 @@ export class MemberDetail {
     this.problem.set(null);
     try {
       const v = this.refundForm.getRawValue();
-      await firstValueFrom(this.api.refund(this.id(), { paymentId: p.id, amountCents: this.cents(v.amount), reason: v.reason }));
+      await firstValueFrom(this.api.refund(this.id(), { paymentId: p.id, amountCents: dollarsToCents(v.amount), reason: v.reason }));
       this.notice.set('Refund recorded.');
       this.refunding.set(null);
       this.detail.reload();

@@ -11,6 +11,7 @@ import { applyServerErrors } from '../../core/api-error';
 import type { ApiErrorBody } from '../../core/user';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { ELIGIBILITY_LABELS, MembersApi, type AdminPlan, type PlanChanges } from './members-api';
+import { centsToDollars, dollarsToCents } from '../../shared/dollars';
 
 // Six dollar digits stay under the server's cap on amounts.
 const DOLLARS = /^\d{1,6}(\.\d{1,2})?$/;
@@ -67,10 +68,9 @@ export class PlanForm {
   }
 
   private load(p: AdminPlan | null): void {
-    const dollars = (cents: number) => (cents / 100).toFixed(2);
     this.form.reset(
       p
-        ? { code: p.code, name: p.name, description: p.description, eligibility: p.eligibility, dues: dollars(p.duesCents), joiningFee: dollars(p.joiningFeeCents), active: p.active, sortOrder: p.sortOrder }
+        ? { code: p.code, name: p.name, description: p.description, eligibility: p.eligibility, dues: centsToDollars(p.duesCents), joiningFee: centsToDollars(p.joiningFeeCents), active: p.active, sortOrder: p.sortOrder }
         : { code: '', name: '', description: '', eligibility: 'any', dues: '', joiningFee: '0.00', active: true, sortOrder: this.nextSortOrder() },
     );
     // Members and payments refer to the code, and the join rules to who may hold it.
@@ -81,16 +81,12 @@ export class PlanForm {
     this.problem.set(null);
   }
 
-  private cents(text: string): number {
-    return Math.round(Number(text) * 100);
-  }
-
   protected async save(): Promise<void> {
     this.form.markAllAsTouched();
     if (this.form.invalid || this.saving()) return;
     this.problem.set(null);
     const v = this.form.getRawValue();
-    const changes: PlanChanges = { name: v.name, description: v.description, duesCents: this.cents(v.dues), joiningFeeCents: this.cents(v.joiningFee), active: v.active, sortOrder: Number(v.sortOrder) };
+    const changes: PlanChanges = { name: v.name, description: v.description, duesCents: dollarsToCents(v.dues), joiningFeeCents: dollarsToCents(v.joiningFee), active: v.active, sortOrder: Number(v.sortOrder) };
     const p = this.plan();
     this.saving.set(true);
     try {

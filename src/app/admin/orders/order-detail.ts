@@ -14,6 +14,7 @@ import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { STATUS_LABELS } from '../../shop/shop-types';
 import { ShopAdminApi } from './shop-admin-api';
+import { dollarsToCents } from '../../shared/dollars';
 
 /** One order for staff: items, money, packing list to print, pack, ship with tracking, refund. */
 @Component({
@@ -61,7 +62,7 @@ export class OrderDetail {
     if (this.refundForm.invalid) return;
     this.refundProblem.set(null);
     const { amount, restock } = this.refundForm.getRawValue();
-    const amountCents = Math.round(Number(amount) * 100);
+    const amountCents = dollarsToCents(amount);
     try {
       await this.run(() => firstValueFrom(this.api.refund(this.id(), { amountCents, restock })), 'Refund sent.');
       this.refundForm.reset();

@@ -15,6 +15,7 @@ import { wallTimeToIso } from '../../shared/zoned-time';
 import { RUN_STATE_LABELS } from '../../shop/countdown';
 import type { Product } from '../../shop/shop-types';
 import { ShopAdminApi } from '../orders/shop-admin-api';
+import { dollarsToCents } from '../../shared/dollars';
 
 /** Products for staff: the list, on/off sale, and a form for a new product with its sizes and optional limited run. */
 @Component({
@@ -72,7 +73,7 @@ export class ProductAdmin {
     const body = {
       name: v.name,
       description: v.description,
-      priceCents: Math.round(Number(v.price) * 100),
+      priceCents: dollarsToCents(v.price),
       weightGrams: Number(v.weightGrams),
       variants: v.sizes.split(',').map((s) => s.trim()).filter(Boolean).map((label) => ({ label, ...(v.limited ? {} : { stock: 0 }) })),
       ...(v.limited ? { run: { cap: Number(v.cap), opensAt: wallTimeToIso(v.opensAt, zone), closesAt: wallTimeToIso(v.closesAt, zone) } } : {}),

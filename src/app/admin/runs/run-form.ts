@@ -12,6 +12,7 @@ import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { wallTimeToIso } from '../../shared/zoned-time';
 import type { Product } from '../../shop/shop-types';
 import { ShopAdminApi } from '../orders/shop-admin-api';
+import { dollarsToCents } from '../../shared/dollars';
 
 const CAP = [Validators.pattern(/^\d{0,6}$/)];
 
@@ -74,7 +75,7 @@ export class RunForm {
           cap: Number(v.cap),
           opensAt: wallTimeToIso(v.opensAt, this.timeZone()),
           closesAt: wallTimeToIso(v.closesAt, this.timeZone()),
-          ...(v.unitCost ? { unitCostCents: Math.round(Number(v.unitCost) * 100) } : {}),
+          ...(v.unitCost ? { unitCostCents: dollarsToCents(v.unitCost) } : {}),
           variantCaps: v.variantCaps.filter((c) => c.cap !== '').map((c) => ({ variantId: c.variantId, cap: Number(c.cap) })),
         }),
       );

@@ -1,3 +1,5 @@
+import { centsToDollars, dollarsToCents } from '../../shared/dollars';
+
 /** Weight brackets as staff type them: "500 g: 9.00, 1500 g: 14.00, any: 22.00". */
 export interface Bracket {
   maxGrams: number | null;
@@ -6,7 +8,7 @@ export interface Bracket {
 
 /** Brackets to the text form staff edit. */
 export function formatBrackets(brackets: Bracket[]): string {
-  return brackets.map((b) => `${b.maxGrams === null ? 'any' : `${b.maxGrams} g`}: ${(b.priceCents / 100).toFixed(2)}`).join(', ');
+  return brackets.map((b) => `${b.maxGrams === null ? 'any' : `${b.maxGrams} g`}: ${centsToDollars(b.priceCents)}`).join(', ');
 }
 
 /** The text form back to brackets; null when any part does not read. */
@@ -16,7 +18,7 @@ export function parseBrackets(text: string): Bracket[] | null {
   for (const p of parts) {
     const m = /^(any|(\d{1,6})\s*g?)\s*:\s*\$?(\d{1,5}(?:\.\d{1,2})?)$/i.exec(p);
     if (!m) return null;
-    out.push({ maxGrams: m[2] ? Number(m[2]) : null, priceCents: Math.round(Number(m[3]) * 100) });
+    out.push({ maxGrams: m[2] ? Number(m[2]) : null, priceCents: dollarsToCents(m[3]) });
   }
   return out.length ? out : null;
 }

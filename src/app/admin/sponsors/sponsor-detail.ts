@@ -16,6 +16,7 @@ import { MoneyPipe } from '../../shared/money-pipe';
 import { KIND_LABELS, type DeliverableKind } from '../../sponsors/sponsor-api';
 import { ImageUpload } from '../posts/image-upload';
 import { SponsorAdminApi } from './sponsor-admin-api';
+import { dollarsToCents } from '../../shared/dollars';
 
 const HAND_KINDS: DeliverableKind[] = ['video_mention', 'social_post', 'logo_on_merch', 'sponsors_page'];
 
@@ -88,8 +89,8 @@ export class SponsorDetail {
       await firstValueFrom(
         this.api.addAgreement(Number(this.id()), {
           season: v.season,
-          cashCents: Math.round(Number(v.cashDollars) * 100),
-          inKind: v.inKindDescription ? [{ description: v.inKindDescription, valueCents: Math.round(Number(v.inKindDollars) * 100), receivedOn: v.inKindReceivedOn || null }] : [],
+          cashCents: dollarsToCents(v.cashDollars),
+          inKind: v.inKindDescription ? [{ description: v.inKindDescription, valueCents: dollarsToCents(v.inKindDollars), receivedOn: v.inKindReceivedOn || null }] : [],
           deliverables: [{ kind: v.kind, quantity: Number(v.quantity), dueOn: v.dueOn }],
         }),
       );

@@ -16,6 +16,7 @@ import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { KIND_LABELS } from '../../sponsors/sponsor-api';
 import { SponsorAdminApi, type AdminSponsorRow } from './sponsor-admin-api';
+import { dollarsToCents } from '../../shared/dollars';
 
 /** Sponsors at a glance: overdue promises first, the sortable list, a quick add form and the tier thresholds. */
 @Component({
@@ -67,7 +68,7 @@ export class SponsorTable {
   protected async saveTiers(): Promise<void> {
     this.tierProblem.set(null);
     try {
-      await firstValueFrom(this.api.setTiers(this.tierRows.getRawValue().map((t: { name: string; dollars: number }) => ({ name: t.name, minCents: Math.round(Number(t.dollars) * 100) }))));
+      await firstValueFrom(this.api.setTiers(this.tierRows.getRawValue().map((t: { name: string; dollars: number }) => ({ name: t.name, minCents: dollarsToCents(t.dollars) }))));
       this.tierRows.clear();
       this.tiers.reload();
       this.sponsors.reload();
