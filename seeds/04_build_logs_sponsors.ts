@@ -74,7 +74,7 @@ export async function seed(knex: Knex): Promise<void> {
   const config = loadConfig();
   const users = new UserRepository(knex);
   const sponsorRepo = new SponsorRepository(knex);
-  const credits = new CreditService(sponsorRepo, config.publicUrl);
+  const credits = new CreditService(sponsorRepo, config.publicUrl, config.site.teamName);
   const sponsors = new SponsorService(knex, sponsorRepo, credits, users, new SettingsService(knex));
   const posts = new PostService(knex, new PostRepository(knex), sponsorRepo, credits);
 

@@ -12,6 +12,7 @@ import { configurePassport } from './auth/passport-setup';
 import type { AppDeps } from './deps';
 import { buildFeatures } from './features';
 import { healthRoutes } from './health/health-routes';
+import { siteRoutes } from './site/site-routes';
 import type { ScheduledJob } from './jobs/job-runner';
 import { csrfProtection } from './platform/csrf';
 import { rotateSessionOnRoleChange } from './platform/session-rotation';
@@ -73,6 +74,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   // The webhook needs its raw body for the signature check, so JSON parsing skips it.
   api.use((req, res, next) => (CSRF_EXEMPT.includes(req.path) ? next() : express.json({ limit: '100kb' })(req, res, next)));
   apiMount('/health', healthRoutes(deps));
+  apiMount('/site', siteRoutes(deps.config.site));
   api.use(sessions.middleware);
   api.use(passport.initialize());
   api.use(passport.session());

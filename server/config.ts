@@ -36,6 +36,9 @@ const EnvSchema = z.object({
   STRIPE_PUBLISHABLE_KEY: z.string().regex(/^pk_(test|live)_[A-Za-z0-9]+$/, 'must be a publishable key (pk_test_… or pk_live_…)').optional(),
   PUBLIC_URL: z.url().default('http://127.0.0.1:3000'),
   CLUB_TIME_ZONE: timeZone.default('America/Winnipeg'),
+  // The demo scenario's names outside production; a real team sets its own (required there).
+  TEAM_NAME: z.string().trim().min(1).max(80).optional(),
+  CLUB_NAME: z.string().trim().min(1).max(120).optional(),
   DATA_DIR: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   WORKERS: z.coerce.number().int().min(1).max(64).default(1),
@@ -55,6 +58,8 @@ export interface Config {
   stripe: { secretKey: string; apiBase: string; webhookSecret: string; publishableKey: string | null };
   publicUrl: string;
   clubTimeZone: string;
+  /** The maker team that sells, credits and signs mail, and the club members fly with. */
+  site: { teamName: string; clubName: string };
   dataDir: string;
   logLevel: string;
   workers: number;
@@ -81,6 +86,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   if (e.NODE_ENV === 'production' && e.STRIPE_WEBHOOK_SECRET.startsWith('whsec_padside_local')) {
     throw new ConfigError('Padside: STRIPE_WEBHOOK_SECRET must be set in production');
   }
+  if (e.NODE_ENV === 'production' && (!e.TEAM_NAME || !e.CLUB_NAME)) throw new ConfigError('Padside: TEAM_NAME and CLUB_NAME are required in production');
   // Test tokens only work against a test account or the fake; the real API needs real card entry.
   if (/^https:\/\/api\.stripe\.com\/?$/.test(e.STRIPE_API_BASE) && !e.STRIPE_PUBLISHABLE_KEY) throw new ConfigError('Padside: STRIPE_PUBLISHABLE_KEY is required when STRIPE_API_BASE is the processor itself');
   return {
@@ -100,6 +106,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     },
     publicUrl: e.PUBLIC_URL.replace(/\/$/, ''),
     clubTimeZone: e.CLUB_TIME_ZONE,
+    site: { teamName: e.TEAM_NAME ?? 'Thrust & Filament', clubName: e.CLUB_NAME ?? 'Gopher Flats Rocketry Society' },
     dataDir,
     logLevel: e.LOG_LEVEL,
     workers: e.WORKERS,

@@ -12,7 +12,7 @@ import { PostService } from './post-service';
 export function buildLogsFeature(platform: Platform): Feature {
   const { db, clock, config } = platform.deps;
   const sponsorRepo = new SponsorRepository(db);
-  const credits = new CreditService(sponsorRepo, config.publicUrl);
+  const credits = new CreditService(sponsorRepo, config.publicUrl, config.site.teamName);
   const sponsors = new SponsorService(db, sponsorRepo, credits, platform.auth.users, platform.settings);
   const posts = new PostService(db, new PostRepository(db), sponsorRepo, credits);
   const today = clubToday(clock, config.clubTimeZone);
@@ -23,10 +23,10 @@ export function buildLogsFeature(platform: Platform): Feature {
       api('/admin/posts', postAdminRoutes(posts, clock));
       api('/sponsors', sponsorPublicRoutes(sponsors, today));
       api('/admin/sponsors', sponsorAdminRoutes(sponsors, clock, today));
-      api('/sponsor-portal', sponsorPortalRoutes(sponsors, today));
+      api('/sponsor-portal', sponsorPortalRoutes(sponsors, today, config.site.teamName));
     },
     mountSite(site) {
-      site('/feeds', feedRoutes(posts, config.publicUrl));
+      site('/feeds', feedRoutes(posts, config.publicUrl, config.site.teamName));
     },
     dashboard: {
       sponsorValue: () => sponsors.seasonValue(today()),

@@ -6,17 +6,17 @@ import type { PostService } from './post-service';
 const escapeHtml = (s: string) => s.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]!);
 
 /** Builds the feed of the latest build logs; members-only posts carry their summary and a prompt only. */
-async function buildFeed(posts: PostService, publicUrl: string): Promise<Feed> {
+async function buildFeed(posts: PostService, publicUrl: string, teamName: string): Promise<Feed> {
   const items = await posts.feedItems(30);
   // feed 6 ships only ES modules; loading it on first use keeps every other route independent of it.
   const { Feed: FeedClass } = await import('feed');
   const feed = new FeedClass({
-    title: 'Thrust & Filament build logs — Padside',
+    title: `${teamName} build logs — Padside`,
     description: 'How our printed rockets, fin cans and altimeter bays were made, and how they flew.',
     id: `${publicUrl}/build-logs`,
     link: `${publicUrl}/build-logs`,
     language: 'en-CA',
-    copyright: 'Thrust & Filament',
+    copyright: teamName,
     updated: items[0]?.publishedAt ?? new Date(0),
     feedLinks: { rss: `${publicUrl}/feeds/build-logs.rss`, atom: `${publicUrl}/feeds/build-logs.atom` },
   });
@@ -30,13 +30,13 @@ async function buildFeed(posts: PostService, publicUrl: string): Promise<Feed> {
 }
 
 /** /feeds/build-logs.rss and /feeds/build-logs.atom, outside /api so feed readers get plain URLs. */
-export function feedRoutes(posts: PostService, publicUrl: string): Router {
+export function feedRoutes(posts: PostService, publicUrl: string, teamName: string): Router {
   const r = Router();
   r.get('/build-logs.rss', async function rssFeed(_req, res) {
-    res.type('application/rss+xml; charset=utf-8').send((await buildFeed(posts, publicUrl)).rss2());
+    res.type('application/rss+xml; charset=utf-8').send((await buildFeed(posts, publicUrl, teamName)).rss2());
   });
   r.get('/build-logs.atom', async function atomFeed(_req, res) {
-    res.type('application/atom+xml; charset=utf-8').send((await buildFeed(posts, publicUrl)).atom1());
+    res.type('application/atom+xml; charset=utf-8').send((await buildFeed(posts, publicUrl, teamName)).atom1());
   });
   return r;
 }

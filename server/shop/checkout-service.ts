@@ -33,6 +33,7 @@ export class CheckoutService {
     private readonly settings: SettingsService,
     private readonly clock: Clock,
     private readonly publicUrl: string,
+    private readonly teamName: string,
     private readonly log: Logger,
   ) {}
 
@@ -106,7 +107,7 @@ export class CheckoutService {
         idempotencyKey: `shop-payment-${orderId}`,
         taxes: b.taxes.map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, ratePercent: t.rate_percent, taxableCents: t.taxable_cents, taxCents: t.amount_cents })),
       });
-      await enqueueEmail(trx, confirmationEmail(b, this.publicUrl));
+      await enqueueEmail(trx, confirmationEmail(b, this.publicUrl, this.teamName));
     });
     return (await this.orders.find(orderId))!;
   }

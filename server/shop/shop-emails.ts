@@ -16,7 +16,7 @@ function receipt(b: OrderBundle): string[] {
 }
 
 /** The order confirmation, once per order. */
-export function confirmationEmail(b: OrderBundle, publicUrl: string): OutgoingEmail {
+export function confirmationEmail(b: OrderBundle, publicUrl: string, teamName: string): OutgoingEmail {
   const o = b.order;
   const dest = o.shipping_code === 'pickup' ? 'Pick up at the next club launch; bring this e-mail.' : [o.ship_name, o.ship_line1, o.ship_line2, `${o.ship_city ?? ''} ${o.ship_province ?? ''} ${o.ship_postal_code ?? ''}`.trim(), o.ship_country].filter(Boolean).join('\n');
   return {
@@ -24,7 +24,7 @@ export function confirmationEmail(b: OrderBundle, publicUrl: string): OutgoingEm
     subject: `Padside order ${o.number}: thank you`,
     template: 'shop-order-confirmation',
     dedupeKey: `shop-confirmation-${o.id}`,
-    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', ...receipt(b), '', 'Delivery:', dest, '', `See your order: ${publicUrl}/shop/orders/${o.id}`, '', 'Thrust & Filament, via Padside'].join('\n'),
+    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', ...receipt(b), '', 'Delivery:', dest, '', `See your order: ${publicUrl}/shop/orders/${o.id}`, '', `${teamName}, via Padside`].join('\n'),
   };
 }
 

@@ -20,7 +20,7 @@ export function shopFeature(platform: Platform): Feature {
   const orders = new OrderRepository(deps.db);
   const quotes = new QuoteService(catalogueRepo, config, settings, deps.config);
   const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock);
-  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, deps.config.publicUrl, deps.log);
+  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, deps.config.publicUrl, deps.config.site.teamName, deps.log);
   const fulfilment = new FulfilmentService(deps.db, orders, deps.payments, deps.clock, deps.config.publicUrl);
   const webhooks = new WebhookService(deps.db, orders, fulfilment, settings, deps.clock);
   const pub = { catalogue, quotes, checkout, orders, config, now: () => deps.clock.now() };

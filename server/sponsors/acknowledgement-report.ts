@@ -4,8 +4,8 @@ import { formatCad } from '../platform/money';
 import type { AgreementView, CreditView, SponsorView } from './sponsor-service';
 
 /** What the report says about itself, in Padside's words; the PDF and the CSV carry the same sentence. */
-export const NOT_A_RECEIPT =
-  'This report acknowledges the support listed below and the credits Thrust & Filament delivered in return. It is not an official donation receipt for income tax purposes: ' +
+const notAReceipt = (teamName: string) =>
+  `This report acknowledges the support listed below and the credits ${teamName} delivered in return. It is not an official donation receipt for income tax purposes: ` +
   'in Canada only registered charities and other qualified donees issue those. For how sponsorship is treated for tax, ask the Canada Revenue Agency or your accountant.';
 
 const KIND_LABELS: Record<string, string> = {
@@ -22,6 +22,7 @@ export interface ReportData {
   agreements: AgreementView[];
   credits: CreditView[];
   generatedOn: string;
+  teamName: string;
 }
 
 /** The acknowledgement report as CSV: one row per support item and one per credit. */
@@ -32,7 +33,7 @@ export function acknowledgementCsv(r: ReportData): string {
     for (const i of a.inKind) rows.push(['support', a.season, `In-kind: ${i.description}`, centsToDecimal(i.valueCents), i.receivedOn, '', '']);
   }
   for (const c of r.credits) rows.push(['credit', '', KIND_LABELS[c.kind] ?? c.kind, '', c.at.slice(0, 10), c.postTitle ?? c.note ?? '', c.url]);
-  rows.push(['note', '', NOT_A_RECEIPT, '', r.generatedOn, '', '']);
+  rows.push(['note', '', notAReceipt(r.teamName), '', r.generatedOn, '', '']);
   return toCsv(['line', 'season', 'item', 'declared_value_cad', 'date', 'title_or_note', 'link'], rows);
 }
 
@@ -44,9 +45,9 @@ export function acknowledgementPdf(r: ReportData): Promise<Buffer> {
   const done = new Promise<Buffer>((resolve) => doc.on('end', () => resolve(Buffer.concat(chunks))));
 
   doc.font('Helvetica-Bold').fontSize(18).text('Sponsor acknowledgement');
-  doc.font('Helvetica').fontSize(11).text(`${r.sponsor.name} · prepared by Padside for Thrust & Filament · ${r.generatedOn}`);
+  doc.font('Helvetica').fontSize(11).text(`${r.sponsor.name} · prepared by Padside for ${r.teamName} · ${r.generatedOn}`);
   doc.moveDown();
-  doc.font('Helvetica-Oblique').fontSize(10).text(NOT_A_RECEIPT);
+  doc.font('Helvetica-Oblique').fontSize(10).text(notAReceipt(r.teamName));
   doc.moveDown();
   for (const a of r.agreements) {
     doc.font('Helvetica-Bold').fontSize(13).text(`Season ${a.season}`);

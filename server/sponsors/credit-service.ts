@@ -17,6 +17,7 @@ export class CreditService {
   constructor(
     private readonly repo: SponsorRepository,
     private readonly publicUrl: string,
+    private readonly teamName: string,
   ) {}
 
   /**
@@ -36,7 +37,7 @@ export class CreditService {
       const sponsor = (await this.repo.byId(sponsorId, trx))!;
       for (const c of await this.repo.contacts(sponsorId, trx)) {
         await enqueueEmail(trx, {
-          ...creditPublishedEmail(c.email, c.display_name, sponsor.name, post.title, link, `${this.publicUrl}/sponsors/portal`),
+          ...creditPublishedEmail(c.email, c.display_name, sponsor.name, post.title, link, `${this.publicUrl}/sponsors/portal`, this.teamName),
           dedupeKey: `sponsor-credit:${post.id}:${sponsorId}:${c.user_id}`,
         });
       }

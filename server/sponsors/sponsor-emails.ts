@@ -1,13 +1,13 @@
 import type { OutgoingEmail } from '../mail/outbox';
 
 /** Tells a sponsor contact that a published build log credits their organisation. */
-export function creditPublishedEmail(to: string, contactName: string, sponsorName: string, postTitle: string, link: string, portalLink: string): OutgoingEmail {
+export function creditPublishedEmail(to: string, contactName: string, sponsorName: string, postTitle: string, link: string, portalLink: string, teamName: string): OutgoingEmail {
   return {
     to,
     template: 'sponsor-credit-published',
     subject: `${sponsorName} is credited in a new Padside build log`,
     text:
-      `Hi ${contactName},\n\nThank you for backing Thrust & Filament. Our new build log "${postTitle}" credits ${sponsorName}:\n\n${link}\n\n` +
+      `Hi ${contactName},\n\nThank you for backing ${teamName}. Our new build log "${postTitle}" credits ${sponsorName}:\n\n${link}\n\n` +
       `Every credit we have delivered under your agreement is listed in the sponsor portal, with a report you can download:\n\n${portalLink}\n\n— Padside`,
   };
 }

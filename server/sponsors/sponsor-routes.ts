@@ -93,13 +93,13 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
 }
 
 /** /api/sponsor-portal (role sponsor): the caller's own sponsor only; there is no sponsor id to choose. */
-export function sponsorPortalRoutes(sponsors: SponsorService, today: Today): Router {
+export function sponsorPortalRoutes(sponsors: SponsorService, today: Today, teamName: string): Router {
   const r = Router();
   r.use(requireRole('sponsor'));
   const report = async (userId: number): Promise<ReportData> => {
     const sponsor = await sponsors.sponsorOfUser(userId);
     const [agreements, credits] = await Promise.all([sponsors.agreements(sponsor.id, today()), sponsors.creditsOf(sponsor.id)]);
-    return { sponsor, agreements, credits, generatedOn: today() };
+    return { sponsor, agreements, credits, generatedOn: today(), teamName };
   };
   r.get('/me', async function portalMe(req, res) {
     const { sponsor, agreements, credits } = await report(req.user!.id);

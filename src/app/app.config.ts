@@ -5,6 +5,7 @@ import { routes } from './app.routes';
 import { csrfInterceptor } from './core/csrf-interceptor';
 import { errorInterceptor } from './core/error-interceptor';
 import { SessionStore } from './core/session-store';
+import { SiteNames } from './core/site-names';
 
 export const appConfig: ApplicationConfig = {
   providers: [
@@ -13,6 +14,6 @@ export const appConfig: ApplicationConfig = {
     provideRouter(routes, withComponentInputBinding(), withInMemoryScrolling({ scrollPositionRestoration: 'enabled' })),
     // Our own CSRF header (X-CSRF-Token from /api/auth/csrf) replaces Angular's cookie-based one.
     provideHttpClient(withXsrfConfiguration({ cookieName: 'unused', headerName: 'unused' }), withInterceptors([csrfInterceptor, errorInterceptor])),
-    provideAppInitializer(() => inject(SessionStore).load()),
+    provideAppInitializer(() => Promise.all([inject(SessionStore).load(), inject(SiteNames).load()])),
   ],
 };

@@ -1,8 +1,9 @@
 import type { RouteAccess } from './access-types';
 
-/** Routes of the foundation: health, auth, account, accounts admin, uploads. */
+/** Routes of the foundation: health, site names, auth, account, accounts admin, uploads. */
 export const foundationAccess: RouteAccess[] = [
   { method: 'GET', path: '/api/health', allow: 'public' },
+  { method: 'GET', path: '/api/site', allow: 'public' },
   { method: 'GET', path: '/api/auth/csrf', allow: 'public' },
   { method: 'POST', path: '/api/auth/register', allow: 'public' },
   { method: 'POST', path: '/api/auth/login', allow: 'public' },

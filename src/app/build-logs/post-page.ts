@@ -7,6 +7,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { SessionStore } from '../core/session-store';
 import { BuildLogApi } from './build-log-api';
 import { HazardNotice } from './hazard-notice';
+import { SiteNames } from '../core/site-names';
 
 /** One build log; members-only bodies arrive as null for others, who see the summary and a prompt to join. */
 @Component({
@@ -20,6 +21,7 @@ export class PostPage {
   private readonly api = inject(BuildLogApi);
   private readonly dom = inject(DomSanitizer);
   protected readonly session = inject(SessionStore);
+  protected readonly site = inject(SiteNames);
 
   readonly slug = input.required<string>();
 

@@ -5,6 +5,7 @@ import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { FlyingCaution } from './flying-caution';
 import { MembershipApi } from './membership-api';
+import { SiteNames } from '../core/site-names';
 
 /** The printable member card with the check-in QR code. */
 @Component({
@@ -17,6 +18,7 @@ import { MembershipApi } from './membership-api';
 export class MemberCard {
   private readonly sanitizer = inject(DomSanitizer);
   private readonly api = inject(MembershipApi);
+  protected readonly site = inject(SiteNames);
   protected readonly card = rxResource({ stream: () => this.api.card() });
   // The SVG is drawn by our own server from the signed token (paths only, no script), so it is trusted as is.
   protected readonly qr = computed(() => {

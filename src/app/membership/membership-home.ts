@@ -18,6 +18,7 @@ import { FlyingCaution } from './flying-caution';
 import { JoinForm } from './join-form';
 import { MembershipApi, type Membership } from './membership-api';
 import { TEST_CARDS } from './test-cards';
+import { SiteNames } from '../core/site-names';
 
 const STATUS_TEXT: Record<Membership['status'], string> = {
   pending: 'Waiting for the first payment',
@@ -37,6 +38,7 @@ const STATUS_TEXT: Record<Membership['status'], string> = {
 export class MembershipHome {
   private readonly api = inject(MembershipApi);
   protected readonly session = inject(SessionStore);
+  protected readonly site = inject(SiteNames);
 
   protected readonly cards = TEST_CARDS;
   protected readonly statusText = STATUS_TEXT;

@@ -19,6 +19,7 @@ import { CartStore } from './cart-store';
 import { ShopApi } from './shop-api';
 import { StripeCard } from './stripe-card';
 import type { Quote, QuoteRequest } from './shop-types';
+import { SiteNames } from '../core/site-names';
 
 /** The payment processor's test tokens, offered while Padside talks to the local fake. */
 export const TEST_CARDS = [
@@ -44,6 +45,7 @@ export class Checkout {
   private readonly router = inject(Router);
   protected readonly cart = inject(CartStore);
   private readonly session = inject(SessionStore);
+  protected readonly site = inject(SiteNames);
   private readonly fb = inject(NonNullableFormBuilder);
 
   protected readonly provinces = PROVINCES;

@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { RouterLink } from '@angular/router';
+import { SiteNames } from '../core/site-names';
 import { EmptyState } from '../shared/empty-state';
 import { SponsorApi } from './sponsor-api';
 
@@ -11,7 +12,7 @@ import { SponsorApi } from './sponsor-api';
   template: `
     <section class="ps-page">
       <h1>Our sponsors</h1>
-      <p class="form-note">Thrust &amp; Filament fly because these Manitoba businesses back us with cash, parts and know-how.</p>
+      <p class="form-note">{{ site.teamName() }} fly because these businesses back us with cash, parts and know-how.</p>
       @if (wall.value(); as w) {
         @for (tier of w.tiers; track tier.name) {
           <section class="tier" [attr.aria-labelledby]="'tier-' + $index">
@@ -60,5 +61,6 @@ import { SponsorApi } from './sponsor-api';
 })
 export class SponsorWall {
   private readonly api = inject(SponsorApi);
+  protected readonly site = inject(SiteNames);
   protected readonly wall = rxResource({ stream: () => this.api.wall() });
 }

@@ -5,6 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { SessionStore } from '../session-store';
+import { SiteNames } from '../site-names';
 
 /** Public sections in the top bar. */
 const SECTIONS: { path: string; label: string; exact?: boolean }[] = [
@@ -25,6 +26,7 @@ const SECTIONS: { path: string; label: string; exact?: boolean }[] = [
 })
 export class Shell {
   protected readonly session = inject(SessionStore);
+  protected readonly site = inject(SiteNames);
   private readonly router = inject(Router);
 
   protected readonly sections = SECTIONS;
