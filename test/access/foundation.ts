@@ -8,7 +8,7 @@ export const foundationAccess: RouteAccess[] = [
   { method: 'POST', path: '/api/auth/register', allow: 'public' },
   { method: 'POST', path: '/api/auth/login', allow: 'public' },
   { method: 'POST', path: '/api/auth/logout', allow: 'public' },
-  { method: 'GET', path: '/api/auth/me', allow: 'signedIn' },
+  { method: 'GET', path: '/api/auth/me', allow: 'public' },
   { method: 'POST', path: '/api/auth/verify', allow: 'public' },
   { method: 'POST', path: '/api/auth/verify/resend', allow: 'signedIn' },
   { method: 'POST', path: '/api/auth/password-reset', allow: 'public' },

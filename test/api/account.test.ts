@@ -34,6 +34,6 @@ describe('POST /api/account/password', () => {
     const ok = await client.post('/api/account/password', { currentPassword: user.password, newPassword: 'a much better passphrase' });
     expect(ok.status).toBe(204);
     expect((await client.get('/api/auth/me')).status).toBe(200);
-    expect((await other.get('/api/auth/me')).status).toBe(401);
+    expect((await other.get('/api/auth/me')).body).toEqual({ user: null });
   });
 });

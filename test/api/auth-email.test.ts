@@ -60,7 +60,7 @@ describe('POST /api/auth/password-reset', () => {
     const reused = await new Client(t.app).post('/api/auth/password-reset/confirm', { token, password: 'another new passphrase here' });
     expect(reused.status).toBe(400);
 
-    expect((await other.get('/api/auth/me')).status).toBe(401);
+    expect((await other.get('/api/auth/me')).body).toEqual({ user: null });
     const login = await new Client(t.app).post('/api/auth/login', { email: user.email, password: 'a brand new passphrase here' });
     expect(login.status).toBe(200);
     await t.deps.mail.deliverDue();

@@ -132,15 +132,16 @@ describe('POST /api/auth/logout', () => {
     expect(out.status).toBe(204);
     // Replaying the old cookie must not find a session.
     const replay = await request(t.app).get('/api/auth/me').set('Cookie', cookie);
-    expect(replay.status).toBe(401);
+    expect(replay.status).toBe(200);
+    expect(replay.body.user).toBeNull();
   });
 });
 
 describe('GET /api/auth/me', () => {
-  it('answers 401 when nobody is signed in', async () => {
+  it('answers user null when nobody is signed in', async () => {
     const res = await request(t.app).get('/api/auth/me');
-    expect(res.status).toBe(401);
-    expect(res.body.error.code).toBe('unauthenticated');
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ user: null });
   });
 });
 

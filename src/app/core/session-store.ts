@@ -20,10 +20,10 @@ export class SessionStore {
     return this.current()?.roles.some((r) => roles.includes(r)) ?? false;
   }
 
-  /** Reads the session once at start-up; a 401 simply means nobody is signed in. */
+  /** Reads the session once at start-up; `user: null` means nobody is signed in. */
   async load(): Promise<void> {
     try {
-      const res = await firstValueFrom(this.http.get<{ user: User }>('/api/auth/me', { context: new HttpContext().set(QUIET_ERRORS, true) }));
+      const res = await firstValueFrom(this.http.get<{ user: User | null }>('/api/auth/me', { context: new HttpContext().set(QUIET_ERRORS, true) }));
       this.current.set(res.user);
     } catch {
       this.current.set(null);
