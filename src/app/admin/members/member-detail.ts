@@ -8,14 +8,15 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { HttpErrorResponse } from '@angular/common/http';
 import { applyServerErrors } from '../../core/api-error';
-import type { ApiErrorBody } from '../../core/user';
 import { EmptyState } from '../../shared/empty-state';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { MembersApi, type PaymentLine } from './members-api';
 import { centsToDollars, dollarsToCents } from '../../shared/dollars';
+
+/** Server errors on `amountCents` belong beside the dollars field. */
+const AMOUNT_FIELD = { amountCents: 'amount' };
 
 /** One member: record, family, payments with refunds, manual payment entry and the audit of changes. */
 @Component({
@@ -44,16 +45,6 @@ export class MemberDetail {
   protected readonly problem = signal<string | null>(null);
   protected readonly notice = signal<string | null>(null);
 
-  /** Server errors on `amountCents` belong beside the dollars field. */
-  private showErrors(form: typeof this.refundForm | typeof this.paymentForm, err: unknown): string {
-    const message = applyServerErrors(form, err);
-    const amount = err instanceof HttpErrorResponse ? (err.error as ApiErrorBody | null)?.error?.fields?.['amountCents'] : undefined;
-    if (amount) {
-      form.controls.amount.setErrors({ server: amount });
-      form.controls.amount.markAsTouched();
-    }
-    return message;
-  }
 
   protected async recordPayment(formDir: FormGroupDirective): Promise<void> {
     this.paymentForm.markAllAsTouched();
@@ -66,7 +57,7 @@ export class MemberDetail {
       formDir.resetForm({ amount: '', method: 'cash', receiptNumber: '', note: '' });
       this.detail.reload();
     } catch (err) {
-      this.problem.set(this.showErrors(this.paymentForm, err));
+      this.problem.set(applyServerErrors(this.paymentForm, err, AMOUNT_FIELD));
     }
   }
 
@@ -87,7 +78,7 @@ export class MemberDetail {
       this.refunding.set(null);
       this.detail.reload();
     } catch (err) {
-      this.problem.set(this.showErrors(this.refundForm, err));
+      this.problem.set(applyServerErrors(this.refundForm, err, AMOUNT_FIELD));
     }
   }
 }

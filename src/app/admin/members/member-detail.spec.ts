@@ -1,0 +1,75 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+import { MemberDetail } from './member-detail';
+import type { MemberDetail as MemberDetailView } from './members-api';
+
+const detail: MemberDetailView = {
+  member: {
+    id: 7,
+    memberNumber: '01007',
+    status: 'active',
+    legalName: 'Odalys Fenwick-Tarrant',
+    email: 'odalys@example.test',
+    planName: 'Adult',
+    termStart: '2026-01-01',
+    termEnd: '2026-12-31',
+    dateOfBirth: '1990-04-02',
+    address: '3 Sod House Lane, Gopher Flats, MB',
+    phone: '204-555-0131',
+    emergencyContact: 'Rhys Fenwick 204-555-0132',
+    associationNumber: null,
+    associationExpires: null,
+    certificationLevel: 'none',
+    certificationDate: null,
+    waiverVersion: '2026-1',
+    waiverAcceptedAt: '2026-01-04T17:00:00Z',
+    autoRenew: false,
+    mailOptOut: false,
+  },
+  familyMembers: [],
+  payments: [],
+  audit: [],
+};
+
+describe('MemberDetail', () => {
+  let fixture: ComponentFixture<MemberDetail>;
+  let http: HttpTestingController;
+  let el: HTMLElement;
+
+  const settle = async () => {
+    await new Promise((resolve) => setTimeout(resolve));
+    await fixture.whenStable();
+  };
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(MemberDetail);
+    fixture.componentRef.setInput('id', '7');
+    fixture.detectChanges();
+    http.expectOne('/api/admin/members/7').flush(detail);
+    await settle();
+    el = fixture.nativeElement as HTMLElement;
+  });
+  afterEach(() => http.verify());
+
+  const type = (control: string, value: string) => {
+    const input = el.querySelector<HTMLInputElement>(`[formcontrolname=${control}]`)!;
+    input.value = value;
+    input.dispatchEvent(new Event('input'));
+  };
+
+  it('should send a cash payment typed as "45.00" as 4500 cents, and show the server’s amount message beside the dollars field', async () => {
+    type('amount', '45.00');
+    type('receiptNumber', 'GF-512');
+    el.querySelector<HTMLButtonElement>('form button[type=submit]')!.click();
+    const req = http.expectOne('/api/admin/members/7/payments');
+    expect(req.request.body).toEqual({ amountCents: 4500, method: 'cash', receiptNumber: 'GF-512' });
+    req.flush({ error: { code: 'bad_request', message: 'Check the amount.', fields: { amountCents: 'Enter the dues for one term.' } } }, { status: 400, statusText: 'Bad Request' });
+    await settle();
+    const field = el.querySelector('[formcontrolname=amount]')!.closest('mat-form-field')!;
+    expect(field.querySelector('mat-error')?.textContent?.trim()).toBe('Enter the dues for one term.');
+  });
+});
