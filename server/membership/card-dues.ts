@@ -108,7 +108,12 @@ export class CardDues {
         const membership = await this.settlePaid(m, p, term, { chargeId: charge.id, amountCents: charge.amount, cardCountry: cardCountry(charge) }, ctx);
         return { outcome: 'paid', membership, alreadyPaid: true };
       }
-      await this.repo.updatePayment(this.db, Number(p.id), { status: 'declined', failure_message: 'Not charged: the processor holds no charge for this attempt.' });
+      await this.db.transaction(async (trx) => {
+        // Only if no other request took the attempt up again (same key) while the processor was asked.
+        const current = await this.repo.payment(Number(p.id), trx, true);
+        if (current?.status !== p.status || current.attempted_at?.getTime() !== p.attempted_at?.getTime()) return;
+        await this.repo.updatePayment(trx, Number(p.id), { status: 'declined', failure_message: 'Not charged: the processor holds no charge for this attempt.' });
+      });
     }
     return null;
   }
@@ -119,8 +124,7 @@ export class CardDues {
     const feeCents = estimateFeeCents(charge.amountCents, charge.cardCountry !== null && charge.cardCountry !== 'CA', fees);
     return this.db.transaction(async (trx) => {
       const locked = (await this.repo.byId(Number(m.id), trx, true))!;
-      const current = (await this.repo.cardPaymentsForTerm(Number(m.id), term.end, trx)).find((p) => p.id === payment.id);
-      if (current?.status === 'paid') return locked;
+      if ((await this.repo.payment(Number(payment.id), trx, true))?.status === 'paid') return locked;
       return this.settlement.settle(trx, locked, payment, term, { ...ctx, feeCents, chargeId: charge.chargeId });
     });
   }
