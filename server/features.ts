@@ -6,7 +6,11 @@ import { shopFeature } from './shop/shop-feature';
 
 /** Every feature of Padside, in mounting order. Add one line per feature. */
 export function buildFeatures(platform: Platform): Feature[] {
-  const features: Feature[] = [buildLogsFeature(platform), membershipFeature(platform), shopFeature(platform)];
+  const buildLogs = buildLogsFeature(platform);
+  const membership = membershipFeature(platform);
+  // The shop receives the processor's events; refunds of other features' charges go to the feature that made them.
+  const otherCharges = async (chargeId: string) => (await membership.chargeRefunds?.(chargeId)) ?? false;
+  const features: Feature[] = [buildLogs, membership, shopFeature(platform, otherCharges)];
   // The books read other features' numbers through what each feature offers the dashboard.
   const sources = Object.assign({}, ...features.map((f) => f.dashboard ?? {}));
   return [...features, booksFeature(platform, () => sources)];

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { fields, parse } from '../platform/validate';
 import { requireRole } from '../platform/require-role';
+import type { DuesRefunds } from './dues-refunds';
 import type { MemberAdminService } from './member-admin-service';
 import type { RosterQuery } from './membership-repository';
 import { MembershipSettingsInputSchema } from './membership-settings';
@@ -45,7 +46,7 @@ const NewPlanSchema = PlanFields.extend({
 });
 
 /** The treasurer's console: roster, member records, payments, refunds, summary, roster e-mail, plans, settings. */
-export function memberAdminRoutes(service: MemberAdminService): Router {
+export function memberAdminRoutes(service: MemberAdminService, refunds: DuesRefunds): Router {
   const r = Router();
   r.use(requireRole('treasurer', 'admin'));
   r.get('/', async (req, res) => {
@@ -116,7 +117,10 @@ export function memberAdminRoutes(service: MemberAdminService): Router {
   r.post('/:id/refunds', async (req, res) => {
     const { id } = parse(z.object({ id: fields.id }), req.params);
     const body = parse(z.object({ paymentId: fields.id, amountCents: fields.cents, reason: z.string({ error: 'Give a reason.' }).trim().min(1, 'Give a reason.').max(400) }), req.body);
-    res.status(201).json(await service.refund(req.user!.id, id, body));
+    // The client's key for one refund: a retry with the same Idempotency-Key gets the first answer, never a second refund.
+    const { key } = parse(z.object({ key: z.string().trim().regex(/^[A-Za-z0-9_.:-]{8,120}$/, 'Use 8-120 letters, digits, dashes, dots, colons or underscores.').optional() }), { key: req.header('idempotency-key') });
+    await refunds.refund(req.user!.id, id, body, key ?? null);
+    res.status(201).json(await service.detail(id));
   });
   return r;
 }

@@ -1,14 +1,11 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
-import { recordMovement } from '../books/ledger-writer';
 import { enqueueEmail } from '../mail/outbox';
-import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
+import { badRequest, conflict, notFound } from '../platform/app-error';
 import { dateInZone, type Clock } from '../platform/clock';
-import type { PaymentGateway } from '../payments/payment-gateway';
 import type { SettingsService } from '../settings/settings-service';
 import type { CheckInTokens } from './check-in-token';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
-import { refundMail } from './membership-mail';
 import { dateOnly, type MembershipRepository, type AsOf, type PlanRow, type RosterQuery } from './membership-repository';
 import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
 import { liveStatus, membershipView, paymentView, planView, rosterView } from './membership-views';
@@ -33,7 +30,6 @@ export class MemberAdminService {
     private readonly repo: MembershipRepository,
     private readonly settings: SettingsService,
     private readonly settlement: DuesSettlement,
-    private readonly gateway: PaymentGateway,
     private readonly tokens: CheckInTokens,
     private readonly clock: Clock,
     private readonly timeZone: string,
@@ -129,70 +125,6 @@ export class MemberAdminService {
         created_at: this.clock.now(),
       });
       await this.settlement.settle(trx, m, payment, term, { today, policy, actorUserId: actorId, at: this.clock.now() });
-    });
-    return this.detail(id);
-  }
-
-  /**
-   * Refunds part or all of a payment: card payments through the processor, others recorded as paid back by the
-   * same method. A full refund of the payment that bought the current term takes the term back to where it was.
-   */
-  async refund(actorId: number, id: number, input: { paymentId: number; amountCents: number; reason: string }) {
-    const policy = await this.policy();
-    const today = this.today();
-    const payment = await this.repo.payment(input.paymentId);
-    if (!payment || Number(payment.membership_id) !== id || payment.entry !== 'payment') throw badRequest('Choose a payment of this member.', { paymentId: 'Choose a payment of this member.' });
-    if (payment.status !== 'paid' && payment.status !== 'refunded') throw badRequest('Only a paid payment can be refunded.', { paymentId: 'This payment was not paid.' });
-    const already = await this.repo.refundedCents(input.paymentId);
-    if (input.amountCents < 1 || input.amountCents > payment.amount_cents - already) {
-      throw badRequest('The refund is more than what is left of the payment.', { amountCents: `At most ${payment.amount_cents - already} cents can be refunded.` });
-    }
-    const key = `refund:${payment.id}:${already}:${input.amountCents}`;
-    if (payment.method === 'card') {
-      if (!payment.processor_charge_id) throw badRequest('This card payment has no processor charge to refund.', { paymentId: 'No processor charge on record.' });
-      try {
-        await this.gateway.refund(payment.processor_charge_id, input.amountCents, key);
-      } catch (err) {
-        throw new AppError(502, 'refund_failed', `The card processor refused the refund: ${(err as Error).message}`);
-      }
-    }
-    await this.db.transaction(async (trx) => {
-      const m = (await this.repo.byId(id, trx, true))!;
-      const refund = await this.repo.insertPayment(trx, {
-        membership_id: m.id,
-        plan_id: payment.plan_id,
-        entry: 'refund',
-        status: 'refunded',
-        method: payment.method,
-        amount_cents: -input.amountCents,
-        idempotency_key: key,
-        refund_of: payment.id,
-        note: input.reason,
-        processor_charge_id: payment.processor_charge_id,
-        recorded_by: String(actorId),
-        created_at: this.clock.now(),
-      });
-      const full = already + input.amountCents === payment.amount_cents;
-      if (full) await this.repo.updatePayment(trx, Number(payment.id), { status: 'refunded' });
-      let termEnd = dateOnly(m.term_end);
-      if (full && dateOnly(payment.term_end) === termEnd) {
-        termEnd = dateOnly(payment.previous_term_end);
-        const reverted = await this.repo.update(trx, id, { term_end: termEnd, term_start: termEnd ? m.term_start : null });
-        await this.settlement.refreshStatus(trx, reverted, today, policy, actorId);
-      }
-      await recordMovement(trx, {
-        occurredAt: this.clock.now(),
-        kind: 'refund',
-        source: 'dues',
-        reference: m.member_number,
-        counterparty: m.legal_name,
-        grossCents: -input.amountCents,
-        processorChargeId: payment.processor_charge_id,
-        method: payment.method,
-        idempotencyKey: `dues:${key}`,
-      });
-      await enqueueEmail(trx, refundMail(await this.settlement.mailContext(trx, m), { refundId: Number(refund.id), amountCents: input.amountCents, method: payment.method, termEnd }));
-      await this.repo.addAudit(trx, id, actorId, 'refunded', { paymentId: Number(payment.id), amountCents: input.amountCents, reason: input.reason, termEnd });
     });
     return this.detail(id);
   }

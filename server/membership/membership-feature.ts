@@ -2,6 +2,7 @@ import { UserRepository } from '../auth/user-repository';
 import type { Feature, Platform } from '../platform/feature';
 import { CardDues } from './card-dues';
 import { CheckInTokens } from './check-in-token';
+import { DuesRefunds } from './dues-refunds';
 import { DuesSettlement } from './dues-settlement';
 import { memberAdminRoutes, checkInRoutes } from './member-admin-routes';
 import { MemberAdminService } from './member-admin-service';
@@ -18,19 +19,22 @@ export function membershipFeature(platform: Platform): Feature {
   const cardDues = new CardDues(db, repo, settlement, platform.settings, payments);
   const tokens = new CheckInTokens(config.sessionSecret);
   const members = new MembershipService(db, repo, platform.settings, settlement, cardDues, tokens, clock, config.clubTimeZone);
-  const admin = new MemberAdminService(db, repo, platform.settings, settlement, payments, tokens, clock, config.clubTimeZone);
+  const admin = new MemberAdminService(db, repo, platform.settings, settlement, tokens, clock, config.clubTimeZone);
+  const refunds = new DuesRefunds(db, repo, platform.settings, settlement, payments, clock, config.clubTimeZone, platform.deps.log);
   const jobs = new MembershipJobs(db, repo, platform.settings, settlement, cardDues, clock, config.clubTimeZone);
   return {
     name: 'membership',
     mount(api) {
       api('/membership', membershipRoutes(members));
-      api('/admin/members', memberAdminRoutes(admin));
+      api('/admin/members', memberAdminRoutes(admin, refunds));
       api('/admin/checkin', checkInRoutes(admin));
     },
     dashboard: { membersByStatus: async () => (await admin.summary()).byStatus, membersLapsingWithin: (days) => admin.lapsingWithin(days) },
     jobs: [
       { name: 'membership-reminders', cron: '0 8 * * *', run: () => jobs.sendReminders() },
       { name: 'membership-auto-renew', cron: '0 6 * * *', run: () => jobs.autoRenew() },
+      { name: 'membership-reconcile-refunds', cron: '*/5 * * * *', run: () => refunds.settleStaleClaims() },
     ],
+    chargeRefunds: (chargeId) => refunds.syncCharge(chargeId),
   };
 }

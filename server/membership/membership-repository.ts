@@ -61,7 +61,7 @@ export interface PaymentRow {
   membership_id: string;
   plan_id: string;
   entry: 'payment' | 'refund';
-  status: 'attempted' | 'paid' | 'declined' | 'unknown' | 'refunded';
+  status: 'attempted' | 'paid' | 'declined' | 'unknown' | 'refunded' | 'requested' | 'failed';
   method: 'card' | 'cash' | 'e-transfer' | 'cheque';
   amount_cents: number;
   receipt_number: string | null;
@@ -71,6 +71,8 @@ export interface PaymentRow {
   term_end: DateCol | null;
   previous_term_end: DateCol | null;
   refund_of: string | null;
+  request_key: string | null;
+  processor_refund_id: string | null;
   note: string | null;
   failure_message: string | null;
   recorded_by: string | null;
@@ -237,10 +239,30 @@ export class MembershipRepository {
     return db<PaymentRow>('membership_payments').where('membership_id', membershipId).orderBy([{ column: 'created_at', order: 'desc' }, { column: 'id', order: 'desc' }]);
   }
 
-  /** Money already refunded against a payment (a positive number). */
-  async refundedCents(paymentId: number, db: Db = this.db): Promise<number> {
-    const [{ sum }] = await db('membership_payments').where({ refund_of: paymentId, entry: 'refund' }).sum<{ sum: string | null }[]>({ sum: 'amount_cents' });
+  /** Money refunded against a payment (a positive number): settled refunds, plus claims still `requested`. */
+  async refundedCents(paymentId: number, db: Db = this.db, statuses: PaymentRow['status'][] = ['refunded', 'requested']): Promise<number> {
+    const [{ sum }] = await db('membership_payments').where({ refund_of: paymentId, entry: 'refund' }).whereIn('status', statuses).sum<{ sum: string | null }[]>({ sum: 'amount_cents' });
     return -Number(sum ?? 0);
+  }
+
+  /** The refund a client key (Idempotency-Key) already asked for on this membership. */
+  refundByRequestKey(membershipId: number, key: string, db: Db = this.db): Promise<PaymentRow | undefined> {
+    return db<PaymentRow>('membership_payments').where({ membership_id: String(membershipId), request_key: key, entry: 'refund' }).first();
+  }
+
+  /** Refunds recorded against one payment, oldest first. */
+  refundsOf(paymentId: number, db: Db = this.db): Promise<PaymentRow[]> {
+    return db<PaymentRow>('membership_payments').where({ refund_of: String(paymentId), entry: 'refund' }).orderBy('id');
+  }
+
+  /** The paid card payment behind a processor charge. */
+  paymentByCharge(chargeId: string, db: Db = this.db): Promise<PaymentRow | undefined> {
+    return db<PaymentRow>('membership_payments').where({ processor_charge_id: chargeId, entry: 'payment' }).whereIn('status', ['paid', 'refunded']).first();
+  }
+
+  /** Card refund claims still waiting for the processor's answer since before `before`. */
+  staleRefundClaims(before: Date, db: Db = this.db): Promise<PaymentRow[]> {
+    return db<PaymentRow>('membership_payments').where({ entry: 'refund', status: 'requested' }).where('created_at', '<', before).orderBy('id').limit(100);
   }
 
   async addAudit(db: Db, membershipId: number, actorUserId: number | null, action: string, detail: Record<string, unknown> = {}): Promise<void> {

@@ -71,9 +71,31 @@ export class PaymentGateway {
     return found;
   }
 
-  /** Refunds part or all of a charge; the idempotency key makes a retried refund count once. */
+  /**
+   * Refunds part or all of a charge; the idempotency key makes a retried refund count once, and the same key in the
+   * refund's metadata lets reconciliation match a refund whose answer never came back to its claim.
+   */
   async refund(chargeId: string, amountCents: number, idempotencyKey: string): Promise<Stripe.Refund> {
-    return this.stripe.refunds.create({ charge: chargeId, amount: amountCents }, { idempotencyKey });
+    return this.stripe.refunds.create({ charge: chargeId, amount: amountCents, metadata: { padsideRefundKey: idempotencyKey } }, { idempotencyKey });
+  }
+
+  /** Every refund the processor holds for one charge, oldest first. */
+  async refundsOf(chargeId: string): Promise<Stripe.Refund[]> {
+    const all: Stripe.Refund[] = [];
+    for await (const r of this.stripe.refunds.list({ charge: chargeId, limit: 100 })) all.push(r);
+    return all.sort((a, b) => a.created - b.created || a.id.localeCompare(b.id));
+  }
+
+  /** The charges behind the processor's most recent `scan` refunds, newest first. */
+  async recentlyRefundedCharges(scan = 300): Promise<string[]> {
+    const charges = new Set<string>();
+    let seen = 0;
+    for await (const r of this.stripe.refunds.list({ limit: 100 })) {
+      if (typeof r.charge === 'string') charges.add(r.charge);
+      else if (r.charge) charges.add(r.charge.id);
+      if (++seen >= scan) break;
+    }
+    return [...charges];
   }
 
   /**

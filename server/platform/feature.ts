@@ -28,4 +28,6 @@ export interface Feature {
   jobs?: ScheduledJob[];
   /** The numbers this feature gives the staff dashboard. */
   dashboard?: Partial<DashboardSources>;
+  /** Records the processor's refunds of a charge this feature made, if it made it (true); the payment webhook calls it. */
+  chargeRefunds?: (chargeId: string) => Promise<boolean>;
 }

@@ -8,8 +8,10 @@ import type { CatalogueService } from './catalogue-service';
 import { ProductBody, ProductPatch, RunBody } from './catalogue-service';
 import { centsToDecimal, toCsv } from '../platform/csv';
 import type { FulfilmentService } from './fulfilment-service';
+import type { RefundRepository } from './refund-repository';
+import type { RefundService } from './refund-service';
+import { breakdownJson, refundJson, staffOrderJson } from './refund-view';
 import { ORDER_SORTS, type OrderFilter, type OrderRepository } from './order-repository';
-import { orderJson } from './order-view';
 import type { ShopConfigRepository } from './shop-config-repository';
 import { SHOP_SETTINGS, ShopSettingsSchema } from './shop-settings';
 
@@ -30,7 +32,15 @@ const ShipBody = z.object({
   carrier: z.string({ error: 'Carrier is required.' }).trim().min(2, 'Carrier is required.').max(60, 'At most 60 characters.'),
   trackingNumber: z.string({ error: 'Tracking number is required.' }).trim().min(4, 'Tracking number is required.').max(80, 'At most 80 characters.').regex(/^[A-Za-z0-9 -]+$/, 'Letters, digits, spaces and dashes only.'),
 });
-const RefundBody = z.object({ amountCents: fields.cents.min(1, 'Enter an amount.'), restock: z.boolean().default(false) });
+const RefundBody = z.object({
+  lines: z.array(z.object({ orderItemId: fields.id, quantity: z.number({ error: 'Enter a quantity.' }).int('Whole units only.').min(1, 'At least 1.').max(10000) }), { error: 'Lines must be a list.' }).max(100).default([]),
+  shipping: z.boolean({ error: 'Shipping is yes or no.' }).default(false),
+  amountCents: fields.cents.min(1, 'Enter an amount.').optional(),
+  restock: z.boolean({ error: 'Restock is yes or no.' }).default(false),
+  reason: z.string({ error: 'Reason must be text.' }).trim().max(400, 'At most 400 characters.').optional(),
+});
+// The client's key for one refund (the Idempotency-Key header): a retry with the same key gets the first answer.
+const RequestKey = z.string().trim().regex(/^[A-Za-z0-9_.:-]{8,120}$/, 'Use 8-120 letters, digits, dashes, dots, colons or underscores.').optional();
 const RunStateBody = z.object({ state: z.enum(['closed', 'in_production', 'shipped'], { error: 'Choose closed, in production or shipped.' }) });
 const Bracket = z.object({ maxGrams: z.number().int().min(1).max(100000).nullable(), priceCents: fields.cents });
 const ShippingBody = z.object({ name: z.string().trim().min(2, 'Name is required.').max(80), brackets: z.array(Bracket).min(1, 'Add at least one weight bracket.').max(20), active: z.boolean() });
@@ -38,6 +48,8 @@ const ShippingBody = z.object({ name: z.string().trim().min(2, 'Name is required
 export interface ShopAdminDeps {
   catalogue: CatalogueService;
   fulfilment: FulfilmentService;
+  refunds: RefundService;
+  refundRepo: RefundRepository;
   orders: OrderRepository;
   config: ShopConfigRepository;
   settings: SettingsService;
@@ -46,7 +58,7 @@ export interface ShopAdminDeps {
 
 const filterOf = (q: z.infer<typeof OrderQuery>, timeZone: string): OrderFilter => ({ status: q.status, runId: q.runId, from: q.from, to: q.to, q: q.q, timeZone });
 
-/** /api/admin/orders: the table, CSV, detail, pack, ship, refund. */
+/** /api/admin/orders: the table, CSV, detail, pack, ship, refund and its preview. */
 export function orderAdminRoutes(d: ShopAdminDeps): Router {
   const r = Router();
   r.use(requireRole(...SHOP_STAFF));
@@ -64,20 +76,28 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
   r.get('/:id', async function showOrderForStaff(req, res) {
     const b = await d.orders.find(parse(fields.id, req.params.id));
     if (!b) throw notFound('No such order.');
-    res.json({ order: orderJson(b, true) });
+    res.json({ order: await staffOrderJson(b, d.refundRepo) });
   });
   r.post('/:id/pack', async function packOrder(req, res) {
-    res.json({ order: orderJson(await d.fulfilment.pack(parse(fields.id, req.params.id)), true) });
+    res.json({ order: await staffOrderJson(await d.fulfilment.pack(parse(fields.id, req.params.id)), d.refundRepo) });
   });
   r.post('/:id/ship', async function shipOrder(req, res) {
     const id = parse(fields.id, req.params.id);
     const body = parse(ShipBody, req.body);
-    res.json({ order: orderJson(await d.fulfilment.ship(id, body.carrier, body.trackingNumber), true) });
+    res.json({ order: await staffOrderJson(await d.fulfilment.ship(id, body.carrier, body.trackingNumber), d.refundRepo) });
+  });
+  r.post('/:id/refund-preview', async function previewRefund(req, res) {
+    const id = parse(fields.id, req.params.id);
+    const body = parse(RefundBody, req.body);
+    res.json({ refund: breakdownJson(await d.refunds.preview(id, { ...body, reason: body.reason ?? null })) });
   });
   r.post('/:id/refund', async function refundOrder(req, res) {
     const id = parse(fields.id, req.params.id);
     const body = parse(RefundBody, req.body);
-    res.json({ order: orderJson(await d.fulfilment.refund(id, body.amountCents, body.restock, req.user!.id), true) });
+    const key = parse(z.object({ 'idempotency-key': RequestKey }), { 'idempotency-key': req.header('idempotency-key') })['idempotency-key'] ?? null;
+    const { bundle, refund } = await d.refunds.refund(id, { ...body, reason: body.reason ?? null }, key, req.user!.id);
+    const [lines, taxes] = [await d.refundRepo.lines([refund.id]), await d.refundRepo.taxes([refund.id])];
+    res.json({ order: await staffOrderJson(bundle, d.refundRepo), refund: refundJson(refund, lines, taxes) });
   });
   return r;
 }

@@ -6,14 +6,19 @@ import { FulfilmentService } from './fulfilment-service';
 import { OrderRepository } from './order-repository';
 import { paymentRoutes } from './payment-routes';
 import { QuoteService } from './quote-service';
+import { RefundRepository } from './refund-repository';
+import { RefundService } from './refund-service';
 import { shopDashboard } from './shop-dashboard';
 import { orderAdminRoutes, productAdminRoutes, runAdminRoutes, shopSettingsRoutes } from './shop-admin-routes';
 import { ShopConfigRepository } from './shop-config-repository';
 import { accountOrderRoutes, checkoutRoutes, orderRoutes, productRoutes, shippingMethodRoutes } from './shop-routes';
 import { WebhookService } from './webhook-service';
 
-/** The merch shop: catalogue, checkout, fulfilment, refunds, the payment webhook and reconciliation. */
-export function shopFeature(platform: Platform): Feature {
+/**
+ * The merch shop: catalogue, checkout, fulfilment, refunds, the payment webhook and reconciliation. `otherCharges`
+ * records processor refunds of charges other features made (dues), for the webhook and the refund reconciliation.
+ */
+export function shopFeature(platform: Platform, otherCharges: (chargeId: string) => Promise<boolean> = async () => false): Feature {
   const { deps, settings } = platform;
   const catalogueRepo = new CatalogueRepository(deps.db);
   const config = new ShopConfigRepository(deps.db);
@@ -21,10 +26,12 @@ export function shopFeature(platform: Platform): Feature {
   const quotes = new QuoteService(catalogueRepo, config, settings, deps.config);
   const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock);
   const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, deps.config.publicUrl, deps.config.site.teamName, deps.log);
-  const fulfilment = new FulfilmentService(deps.db, orders, deps.payments, deps.clock, deps.config.publicUrl);
-  const webhooks = new WebhookService(deps.db, orders, fulfilment, settings, deps.clock);
+  const fulfilment = new FulfilmentService(deps.db, orders, deps.clock, deps.config.publicUrl);
+  const refundRepo = new RefundRepository(deps.db);
+  const refunds = new RefundService(deps.db, orders, refundRepo, deps.payments, deps.clock, deps.log);
+  const webhooks = new WebhookService(deps.db, orders, refunds, settings, deps.clock, otherCharges);
   const pub = { catalogue, quotes, checkout, orders, config, now: () => deps.clock.now() };
-  const admin = { catalogue, fulfilment, orders, config, settings, timeZone: deps.config.clubTimeZone };
+  const admin = { catalogue, fulfilment, refunds, refundRepo, orders, config, settings, timeZone: deps.config.clubTimeZone };
   return {
     name: 'shop',
     mount(api) {
@@ -39,7 +46,10 @@ export function shopFeature(platform: Platform): Feature {
       api('/admin/shop', shopSettingsRoutes(admin));
       api('/payments', paymentRoutes(deps.payments.stripe, deps.config.stripe, webhooks));
     },
-    jobs: [{ name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() }],
+    jobs: [
+      { name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() },
+      { name: 'reconcile-refunds', cron: '*/5 * * * *', run: () => refunds.reconcile(otherCharges) },
+    ],
     dashboard: shopDashboard(deps.db, catalogueRepo, deps.clock, settings),
   };
 }

@@ -50,10 +50,14 @@ export function formatRate(ratePercent: string): string {
   return frac ? `${whole}.${frac}` : String(whole);
 }
 
+/** numerator / denominator rounded half-up (both non-negative integers): Padside's one rounding rule for money. */
+export function divideHalfUp(numerator: bigint, denominator: bigint): number {
+  return Number((2n * numerator + denominator) / (2n * denominator));
+}
+
 /** cents x rate, rounded half-up to the cent, in integers only (1 % = 10000 units, so divide by 1,000,000). */
 export function taxOn(cents: number, ratePercent: string): number {
-  const product = BigInt(cents) * BigInt(rateUnits(ratePercent));
-  return Number((product + 500000n) / 1000000n);
+  return divideHalfUp(BigInt(cents) * BigInt(rateUnits(ratePercent)), 1000000n);
 }
 
 /** The rates in force on `date` (YYYY-MM-DD) in one province: the newest row per tax not after the date. */

@@ -1,10 +1,11 @@
 import type { Knex } from 'knex';
-import type Stripe from 'stripe';
+import Stripe from 'stripe';
 import { enqueueEmail } from '../mail/outbox';
 import type { Clock } from '../platform/clock';
 import type { SettingsService } from '../settings/settings-service';
-import type { FulfilmentService } from './fulfilment-service';
+import { AppError } from '../platform/app-error';
 import type { OrderRepository } from './order-repository';
+import type { RefundService } from './refund-service';
 import { disputeEmail } from './shop-emails';
 import { SHOP_SETTINGS } from './shop-settings';
 
@@ -13,29 +14,38 @@ export class WebhookService {
   constructor(
     private readonly db: Knex,
     private readonly orders: OrderRepository,
-    private readonly fulfilment: FulfilmentService,
+    private readonly refunds: RefundService,
     private readonly settings: SettingsService,
     private readonly clock: Clock,
+    /** Charges of other features (dues): returns true when it knew the charge. */
+    private readonly otherCharges: (chargeId: string) => Promise<boolean> = async () => false,
   ) {}
 
-  /** Returns false for a replay (already handled). */
+  /**
+   * Returns false for a replay (already handled). A refund event is answered from the processor's own list of the
+   * charge's refunds (read before the transaction, never inside it), so a refund is recorded once whichever of the
+   * staff request, this event or reconciliation sees it first.
+   */
   async handle(event: Stripe.Event): Promise<boolean> {
+    if (await this.db('payment_events').where('id', event.id).first('id')) return false;
+    if (event.type === 'charge.refunded') await this.chargeRefunded(event.data.object);
     return this.db.transaction(async (trx) => {
       const fresh = await trx('payment_events').insert({ id: event.id, type: event.type, received_at: this.clock.now() }).onConflict('id').ignore().returning('id');
       if (!fresh.length) return false;
-      if (event.type === 'charge.refunded') await this.chargeRefunded(trx, event.data.object);
       if (event.type === 'charge.dispute.created') await this.disputeCreated(trx, event.data.object);
       return true;
     });
   }
 
-  /** A refund made outside Padside (the processor dashboard): record whatever is not recorded yet. */
-  private async chargeRefunded(trx: Knex.Transaction, charge: Stripe.Charge): Promise<void> {
-    const id = await this.orders.byChargeId(charge.id, trx);
-    if (!id) return;
-    const b = (await this.orders.find(id, trx, true))!;
-    const missing = Math.min(charge.amount_refunded, b.order.total_cents) - b.order.refunded_cents;
-    if (missing > 0) await this.fulfilment.recordRefund(trx, b, missing, false, null, 'processor', null);
+  /** A refund made outside Padside (the processor dashboard): record whatever the processor holds that Padside does not. */
+  private async chargeRefunded(charge: Stripe.Charge): Promise<void> {
+    try {
+      if (!(await this.refunds.syncCharge(charge.id))) await this.otherCharges(charge.id);
+    } catch (err) {
+      // Not recorded as seen: the processor sends the event again later.
+      if (err instanceof Stripe.errors.StripeError) throw new AppError(503, 'processor_unreachable', 'The payment processor could not be asked for the refunds; send the event again later.');
+      throw err;
+    }
   }
 
   private async disputeCreated(trx: Knex.Transaction, dispute: Stripe.Dispute): Promise<void> {

@@ -19,6 +19,7 @@ export const shopAccess: RouteAccess[] = [
   { method: 'POST', path: '/api/admin/orders/:id/pack', allow: SHOP_STAFF },
   { method: 'POST', path: '/api/admin/orders/:id/ship', allow: SHOP_STAFF },
   { method: 'POST', path: '/api/admin/orders/:id/refund', allow: SHOP_STAFF },
+  { method: 'POST', path: '/api/admin/orders/:id/refund-preview', allow: SHOP_STAFF },
   { method: 'GET', path: '/api/admin/products', allow: SHOP_STAFF },
   { method: 'POST', path: '/api/admin/products', allow: SHOP_STAFF },
   { method: 'GET', path: '/api/admin/products/:id', allow: SHOP_STAFF },

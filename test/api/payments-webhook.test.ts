@@ -41,6 +41,8 @@ describe('POST /api/payments/webhook', () => {
   describe('when charge.refunded arrives for a refund made in the processor dashboard, twice', () => {
     it('records one refund, one negative movement and one notice', async () => {
       const o = await paidOrder();
+      // The refund exists at the processor (made in its dashboard): the event only says to look.
+      await t.deps.payments.stripe.refunds.create({ charge: o.charge_id, amount: 1000 });
       const e = signed('charge.refunded', { id: o.charge_id, object: 'charge', amount: o.total_cents, amount_refunded: 1000 });
       const first = await post(e);
       expect(first.status).toBe(200);

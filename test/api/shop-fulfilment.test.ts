@@ -44,8 +44,10 @@ describe('POST /api/admin/orders/:id/refund', () => {
     const part = await staff.post(`/api/admin/orders/${o.id}/refund`, { amountCents: 1000 });
     expect(part.status).toBe(200);
     expect(part.body.order.refundedCents).toBe(1000);
+    // More than is left (the first refund took part of it) is a conflict with what was already refunded.
     const tooMuch = await staff.post(`/api/admin/orders/${o.id}/refund`, { amountCents: o.totalCents });
-    expect(tooMuch.status).toBe(400);
+    expect(tooMuch.status).toBe(409);
+    expect(tooMuch.body.error.code).toBe('over_refund');
     expect(tooMuch.body.error.fields).toHaveProperty('amountCents');
     expect((await t.deps.db('shop_runs').where('id', shirt.run.id).first()).reserved).toBe(2);
     const rest = await staff.post(`/api/admin/orders/${o.id}/refund`, { amountCents: o.totalCents - 1000, restock: true });
