@@ -1,3 +1,4 @@
+import request from 'supertest';
 import { CheckInTokens } from '../../server/membership/check-in-token';
 import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
 import { signedIn, type Client, type TestUser } from '../helpers/users';
@@ -114,6 +115,32 @@ describe('POST /api/admin/members/:id/refunds', () => {
     const refund = await t.deps.db('money_movements').where({ reference: m.number, kind: 'refund' }).first();
     expect(refund.gross_cents).toBe('-4500');
     expect((await t.deps.db('users').where('id', m.user.id).first()).roles).not.toContain('member');
+  });
+
+  it('answers 409 over_refund, beside the amount, once earlier refunds took what was left', async () => {
+    const m = await member('Fabiola');
+    const paid = (await treasurer.get(`/api/admin/members/${m.id}`)).body.payments.find((p: { status: string }) => p.status === 'paid');
+    expect((await treasurer.post(`/api/admin/members/${m.id}/refunds`, { paymentId: paid.id, amountCents: 4000, reason: 'Partial' })).status).toBe(201);
+    const over = await treasurer.post(`/api/admin/members/${m.id}/refunds`, { paymentId: paid.id, amountCents: 1000, reason: 'Again' });
+    expect(over.status).toBe(409);
+    expect(over.body.error).toMatchObject({ code: 'over_refund', fields: { amountCents: expect.stringMatching(/500 cents/) } });
+  });
+
+  it('records a refund made at the processor on a dues charge once, as the processor’s, from the payment event', async () => {
+    const m = await member('Florentyna');
+    const pay = await t.deps.db('membership_payments').where({ membership_id: m.id, entry: 'payment', status: 'paid' }).first();
+    await t.deps.payments.stripe.refunds.create({ charge: pay.processor_charge_id, amount: 1200 });
+    const send = () => {
+      const payload = JSON.stringify({ id: `evt_dues_${Date.now()}_${Math.random()}`, object: 'event', type: 'charge.refunded', data: { object: { id: pay.processor_charge_id, object: 'charge' } }, created: Math.floor(Date.now() / 1000), livemode: false, api_version: '2024-06-20' });
+      const header = t.deps.payments.stripe.webhooks.generateTestHeaderString({ payload, secret: t.config.stripe.webhookSecret });
+      return request(t.app).post('/api/payments/webhook').set('Content-Type', 'application/json').set('Stripe-Signature', header).send(payload);
+    };
+    expect((await send()).status).toBe(200);
+    expect((await send()).status).toBe(200);
+    const refunds = await t.deps.db('membership_payments').where({ refund_of: pay.id, entry: 'refund' });
+    expect(refunds.map((r) => [r.status, r.amount_cents, r.recorded_by])).toEqual([['refunded', -1200, null]]);
+    const moves = await t.deps.db('money_movements').where({ reference: m.number, kind: 'refund' });
+    expect(moves.map((x) => Number(x.gross_cents))).toEqual([-1200]);
   });
 });
 
