@@ -24,6 +24,9 @@ export class FulfilmentService {
   async ship(id: number, carrier: string, trackingNumber: string): Promise<OrderBundle> {
     await this.mustExist(id);
     await this.db.transaction(async (trx) => {
+      // A pre-order ships once its run is printed (the run marked shipped from the printer), never before.
+      const waiting = await this.orders.unprintedRuns(id, trx);
+      if (waiting.length) throw conflict('run_not_printed', `This order waits for its print run (${waiting.join(', ')}); ship it once the run is printed.`);
       if (!(await this.orders.transition(trx, id, ['paid', 'packed'], { status: 'shipped', shipped_at: this.clock.now(), carrier, tracking_number: trackingNumber }))) {
         throw conflict('wrong_status', 'Only a paid or packed order can be shipped.');
       }

@@ -249,7 +249,15 @@ export class OrderRepository {
     return Number(row.id);
   }
 
-  async markRestocked(trx: Knex.Transaction, orderId: number): Promise<void> {
-    await trx('shop_order_items').where('order_id', orderId).update({ restocked_quantity: trx.ref('quantity') });
+  /** Names of the runs this order still waits for: pre-order lines (not given back) whose run has not been printed. */
+  async unprintedRuns(orderId: number, db: Db = this.db): Promise<string[]> {
+    return db('shop_order_items as i')
+      .join('shop_runs as r', 'r.id', 'i.run_id')
+      .where('i.order_id', orderId)
+      .whereRaw('i.quantity > i.restocked_quantity')
+      .whereNot('r.state', 'shipped')
+      .distinct('r.id', 'r.name')
+      .orderBy('r.id')
+      .pluck('r.name');
   }
 }

@@ -1,4 +1,4 @@
-import type { OrderBundle } from './order-repository';
+import type { OrderBundle, OrderRepository } from './order-repository';
 import { orderJson } from './order-view';
 import type { RefundBreakdown } from './refund-arithmetic';
 import type { RefundLineRow, RefundRepository, RefundTaxRow, ShopRefundRow } from './refund-repository';
@@ -40,8 +40,8 @@ export function refundJson(r: ShopRefundRow, lines: RefundLineRow[], taxes: Refu
   };
 }
 
-/** The staff view of an order: lines with their refunded units, and every refund with its parts. */
-export async function staffOrderJson(b: OrderBundle, refunds: RefundRepository) {
+/** The staff view of an order: lines with their refunded units, the print runs it waits for, every refund with its parts. */
+export async function staffOrderJson(b: OrderBundle, refunds: RefundRepository, orders: OrderRepository) {
   const rows = await refunds.forOrder(b.order.id);
   const ids = rows.map((r) => r.id);
   const [lines, taxes] = [await refunds.lines(ids), await refunds.taxes(ids)];
@@ -51,6 +51,7 @@ export async function staffOrderJson(b: OrderBundle, refunds: RefundRepository) 
   return {
     ...base,
     items: base.items.map((i) => ({ ...i, refundedQuantity: refundedUnits(i.id), unitsToPack: i.quantity - refundedUnits(i.id) })),
+    awaitingPrint: await orders.unprintedRuns(b.order.id),
     shippingRefundedCents: rows.filter((r) => live.has(r.id)).reduce((s, r) => s + r.shipping_cents, 0),
     refunds: rows.map((r) => refundJson(r, lines, taxes)),
   };

@@ -76,15 +76,15 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
   r.get('/:id', async function showOrderForStaff(req, res) {
     const b = await d.orders.find(parse(fields.id, req.params.id));
     if (!b) throw notFound('No such order.');
-    res.json({ order: await staffOrderJson(b, d.refundRepo) });
+    res.json({ order: await staffOrderJson(b, d.refundRepo, d.orders) });
   });
   r.post('/:id/pack', async function packOrder(req, res) {
-    res.json({ order: await staffOrderJson(await d.fulfilment.pack(parse(fields.id, req.params.id)), d.refundRepo) });
+    res.json({ order: await staffOrderJson(await d.fulfilment.pack(parse(fields.id, req.params.id)), d.refundRepo, d.orders) });
   });
   r.post('/:id/ship', async function shipOrder(req, res) {
     const id = parse(fields.id, req.params.id);
     const body = parse(ShipBody, req.body);
-    res.json({ order: await staffOrderJson(await d.fulfilment.ship(id, body.carrier, body.trackingNumber), d.refundRepo) });
+    res.json({ order: await staffOrderJson(await d.fulfilment.ship(id, body.carrier, body.trackingNumber), d.refundRepo, d.orders) });
   });
   r.post('/:id/refund-preview', async function previewRefund(req, res) {
     const id = parse(fields.id, req.params.id);
@@ -97,7 +97,7 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
     const key = parse(z.object({ 'idempotency-key': RequestKey }), { 'idempotency-key': req.header('idempotency-key') })['idempotency-key'] ?? null;
     const { bundle, refund } = await d.refunds.refund(id, { ...body, reason: body.reason ?? null }, key, req.user!.id);
     const [lines, taxes] = [await d.refundRepo.lines([refund.id]), await d.refundRepo.taxes([refund.id])];
-    res.json({ order: await staffOrderJson(bundle, d.refundRepo), refund: refundJson(refund, lines, taxes) });
+    res.json({ order: await staffOrderJson(bundle, d.refundRepo, d.orders), refund: refundJson(refund, lines, taxes) });
   });
   return r;
 }

@@ -28,6 +28,13 @@ describe('POST /api/admin/orders/:id/ship', () => {
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['carrier', 'trackingNumber']);
     expect((await staff.post(`/api/admin/orders/${o.id}/pack`)).body.order.status).toBe('packed');
+    // A pre-order waits for its run: no shipping before the run is printed.
+    const early = await staff.post(`/api/admin/orders/${o.id}/ship`, { carrier: 'Canada Post', trackingNumber: '7023 1234 5678' });
+    expect(early.status).toBe(409);
+    expect(early.body.error.code).toBe('run_not_printed');
+    expect((await staff.get(`/api/admin/orders/${o.id}`)).body.order.awaitingPrint).toHaveLength(1);
+    for (const state of ['closed', 'in_production', 'shipped']) expect((await staff.post(`/api/admin/runs/${shirt.run.id}/state`, { state })).status).toBe(200);
+    expect((await staff.get(`/api/admin/orders/${o.id}`)).body.order.awaitingPrint).toEqual([]);
     const res = await staff.post(`/api/admin/orders/${o.id}/ship`, { carrier: 'Canada Post', trackingNumber: '7023 1234 5678' });
     expect(res.body.order).toMatchObject({ status: 'shipped', carrier: 'Canada Post', trackingNumber: '7023 1234 5678' });
     expect((await staff.post(`/api/admin/orders/${o.id}/ship`, { carrier: 'Canada Post', trackingNumber: '7023 1234 5678' })).status).toBe(409);

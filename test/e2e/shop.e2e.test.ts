@@ -56,6 +56,8 @@ describe('the merch shop in a browser', () => {
     expect(requests.filter((u) => !/^(http:\/\/127\.0\.0\.1[:/]|data:|blob:)/.test(u))).toEqual([]);
     await page.close();
 
+    // Orders of a run ship once the run is printed.
+    for (const state of ['closed', 'in_production', 'shipped']) await staffApi.post(`/api/admin/runs/${shirt.run.id}/state`, { state });
     const staffPage = await browser.newPage();
     await signInThroughForm(staffPage, site.baseUrl, staffUser.email, staffUser.password);
     await staffPage.goto(`${site.baseUrl}/console/orders`);
