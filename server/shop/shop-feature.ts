@@ -40,6 +40,6 @@ export function shopFeature(platform: Platform): Feature {
       api('/payments', paymentRoutes(deps.payments.stripe, deps.config.stripe, webhooks));
     },
     jobs: [{ name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() }],
-    dashboard: shopDashboard(deps.db, catalogueRepo, deps.clock, settings),
+    dashboard: shopDashboard(deps.db, catalogueRepo, deps.clock, settings, deps.config.clubTimeZone),
   };
 }
