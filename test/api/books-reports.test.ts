@@ -52,7 +52,8 @@ afterAll(async () => {
   await t.close();
 });
 
-const find = (lines: { code: string; jurisdiction: string }[], code: string) => lines.find((l) => l.code === code);
+type Line = { code: string; taxableCents: number; taxCents: number };
+const find = (lines: Line[], code: string): Line => lines.find((l) => l.code === code)!;
 
 describe('GET /api/admin/reports/tax', () => {
   it('reports per authority and per tax and jurisdiction: taxable sales net of refunds, collected, refunded, net', async () => {
