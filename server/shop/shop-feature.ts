@@ -6,6 +6,7 @@ import { FulfilmentService } from './fulfilment-service';
 import { OrderRepository } from './order-repository';
 import { paymentRoutes } from './payment-routes';
 import { QuoteService } from './quote-service';
+import { ReceiptService } from './receipt-service';
 import { shopDashboard } from './shop-dashboard';
 import { orderAdminRoutes, productAdminRoutes, runAdminRoutes, shopSettingsRoutes } from './shop-admin-routes';
 import { ShopConfigRepository } from './shop-config-repository';
@@ -20,10 +21,11 @@ export function shopFeature(platform: Platform): Feature {
   const orders = new OrderRepository(deps.db);
   const quotes = new QuoteService(catalogueRepo, config, settings, deps.config);
   const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock);
-  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, deps.config.publicUrl, deps.config.site.teamName, deps.log);
+  const receipts = new ReceiptService(settings, deps.config.site.teamName, deps.config.clubTimeZone);
+  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, deps.config.publicUrl, deps.config.site.teamName, deps.log, receipts);
   const fulfilment = new FulfilmentService(deps.db, orders, deps.payments, deps.clock, deps.config.publicUrl);
   const webhooks = new WebhookService(deps.db, orders, fulfilment, settings, deps.clock);
-  const pub = { catalogue, quotes, checkout, orders, config, now: () => deps.clock.now() };
+  const pub = { catalogue, quotes, checkout, orders, config, receipts, now: () => deps.clock.now() };
   const admin = { catalogue, fulfilment, orders, config, settings, timeZone: deps.config.clubTimeZone };
   return {
     name: 'shop',
