@@ -1,11 +1,22 @@
 import type { Knex } from 'knex';
 import { recordMovement } from '../server/books/ledger-writer';
 import { percentOf } from '../server/shop/pricing';
+import { SHOP_SETTINGS } from '../server/shop/shop-settings';
 import { computeTaxes, type TaxRate } from '../server/shop/tax';
+import { SettingsService } from '../server/settings/settings-service';
+
+/**
+ * Receipt details of the invented seller. The numbers only look like a business number and a provincial account
+ * (nine zeros, RT0001): they are demo values that belong to no one.
+ */
+export const DEMO_SELLER = { sellerName: 'Thrust & Filament Rocketry Team (demo)', gstHstNumber: '000000000 RT0001', provincialTaxNumbers: { MB: '000000-0' } };
 
 /** Demo merch of the invented Thrust & Filament team: an open shirt run, an earlier closed run, stickers and a pin. */
 export async function seed(knex: Knex): Promise<void> {
   if (await knex('shop_products').where('slug', 'season-3-shirt').first()) return;
+  const settings = new SettingsService(knex);
+  const shop = await settings.get(SHOP_SETTINGS);
+  if (!shop.gstHstNumber) await settings.put(SHOP_SETTINGS, { ...shop, ...DEMO_SELLER });
   const day = 86400_000;
   const now = Date.now();
   const sizes = ['XS', 'S', 'M', 'L', 'XL', '2XL', '3XL'];

@@ -1,21 +1,34 @@
 import type { Knex } from 'knex';
 import type { DateRange } from './date-range';
 
-export interface TaxLineRow {
+/** Taxable amount and tax per tax and jurisdiction. */
+export interface TaxTotalRow {
   code: string;
   jurisdiction: string;
   taxableCents: number;
   taxCents: number;
-  refundedCents: number;
+}
+
+/** Tax refunded, positive, per month, source, tax and jurisdiction. */
+export interface RefundTaxRow extends TaxTotalRow {
+  month: string;
+  source: string;
 }
 
 export interface RevenueRow {
   month: string;
   source: string;
+  /** Money received, tax included. */
   grossCents: number;
+  /** The tax inside `grossCents`. */
+  taxCents: number;
+  /** Money refunded, tax included. */
   refundsCents: number;
   feesCents: number;
 }
+
+/** The tax rows of one movement, summed (a correlated subquery on `m`). */
+const MOVEMENT_TAX = '(SELECT COALESCE(SUM(x.tax_cents), 0) FROM money_movement_taxes x WHERE x.movement_id = m.id)';
 
 export interface LedgerRow {
   id: number;
@@ -48,26 +61,40 @@ export class BooksRepository {
       .andWhere(column, '<', this.db.raw('((?::date + 1))::timestamp AT TIME ZONE ?', [range.to, this.timeZone]));
   }
 
-  async taxLines(range: DateRange): Promise<TaxLineRow[]> {
+  /** Tax collected on money coming in (sales, sponsorship invoiced with tax), per tax and jurisdiction. */
+  async taxCollected(range: DateRange): Promise<TaxTotalRow[]> {
     const rows = await this.inRange(this.db('money_movement_taxes as t').join('money_movements as m', 'm.id', 't.movement_id'), range)
+      .whereNot('m.kind', 'refund')
       .groupBy('t.code', 't.jurisdiction')
       .orderBy(['t.code', 't.jurisdiction'])
-      .select(
-        't.code',
-        't.jurisdiction',
-        this.db.raw('COALESCE(SUM(t.taxable_cents) FILTER (WHERE m.gross_cents >= 0), 0)::bigint AS taxable'),
-        this.db.raw('COALESCE(SUM(t.tax_cents) FILTER (WHERE m.gross_cents >= 0), 0)::bigint AS charged'),
-        this.db.raw('COALESCE(-SUM(t.tax_cents) FILTER (WHERE m.gross_cents < 0), 0)::bigint AS refunded'),
-      );
-    return (rows as RawRow[]).map((r) => ({
-      code: String(r.code),
-      jurisdiction: String(r.jurisdiction),
-      taxableCents: Number(r.taxable),
-      taxCents: Number(r.charged),
-      refundedCents: Number(r.refunded),
-    }));
+      .select('t.code', 't.jurisdiction', this.db.raw('COALESCE(SUM(t.taxable_cents), 0)::bigint AS taxable'), this.db.raw('COALESCE(SUM(t.tax_cents), 0)::bigint AS tax'));
+    return (rows as RawRow[]).map((r) => ({ code: String(r.code), jurisdiction: String(r.jurisdiction), taxableCents: Number(r.taxable), taxCents: Number(r.tax) }));
   }
 
+  /**
+   * Tax given back by refunds in the period, per month, source, tax and jurisdiction, as positive amounts. Every
+   * report reads refunded tax through this one function. Today it reads the refund movements' tax rows, which the
+   * shop writes as a share of the order's taxes in proportion to the amount; when refunds carry their own tax lines
+   * (a credit note per refunded line), only this query changes.
+   */
+  async refundedTax(range: DateRange): Promise<RefundTaxRow[]> {
+    const month = this.db.raw("to_char(m.occurred_at AT TIME ZONE ?, 'YYYY-MM')", [this.timeZone]);
+    const rows = await this.inRange(this.db('money_movement_taxes as t').join('money_movements as m', 'm.id', 't.movement_id'), range)
+      .where('m.kind', 'refund')
+      .groupByRaw('1, 2, 3, 4')
+      .orderByRaw('1, 2, 3, 4')
+      .select(
+        this.db.raw('? AS month', [month]),
+        'm.source',
+        't.code',
+        't.jurisdiction',
+        this.db.raw('COALESCE(-SUM(t.taxable_cents), 0)::bigint AS taxable'),
+        this.db.raw('COALESCE(-SUM(t.tax_cents), 0)::bigint AS tax'),
+      );
+    return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source), code: String(r.code), jurisdiction: String(r.jurisdiction), taxableCents: Number(r.taxable), taxCents: Number(r.tax) }));
+  }
+
+  /** Money in and out per month and source; `taxCents` is the tax inside the money that came in. */
   async revenue(range: DateRange): Promise<RevenueRow[]> {
     const month = this.db.raw("to_char(m.occurred_at AT TIME ZONE ?, 'YYYY-MM')", [this.timeZone]);
     const rows = await this.inRange(this.db('money_movements as m'), range)
@@ -77,10 +104,11 @@ export class BooksRepository {
         this.db.raw('? AS month', [month]),
         'm.source',
         this.db.raw('COALESCE(SUM(m.gross_cents) FILTER (WHERE m.gross_cents > 0), 0)::bigint AS gross'),
+        this.db.raw(`COALESCE(SUM(${MOVEMENT_TAX}) FILTER (WHERE m.gross_cents > 0), 0)::bigint AS tax`),
         this.db.raw('COALESCE(-SUM(m.gross_cents) FILTER (WHERE m.gross_cents < 0), 0)::bigint AS refunds'),
         this.db.raw('COALESCE(SUM(m.fee_cents), 0)::bigint AS fees'),
       );
-    return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source), grossCents: Number(r.gross), refundsCents: Number(r.refunds), feesCents: Number(r.fees) }));
+    return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source), grossCents: Number(r.gross), taxCents: Number(r.tax), refundsCents: Number(r.refunds), feesCents: Number(r.fees) }));
   }
 
   /** Movements in date order, one page at a time, so an export never holds every row in memory. */
@@ -130,15 +158,17 @@ export class BooksRepository {
     return this.db('money_movements').where({ processor_charge_id: chargeId, fee_estimated: true }).whereIn('kind', ['order_payment', 'dues_payment']).update({ fee_cents: feeCents, fee_estimated: false });
   }
 
+  /** The dashboard's sums, each net of the tax inside it: sales today and this month, dues this month. */
   async sumsForToday(today: string, monthStart: string): Promise<{ salesToday: number; salesMonth: number; duesMonth: number }> {
+    const net = `m.gross_cents - ${MOVEMENT_TAX}`;
     const [row] = await this.inRange(this.db('money_movements as m'), { from: monthStart, to: today })
       .select(
         this.db.raw(
-          "COALESCE(SUM(m.gross_cents) FILTER (WHERE m.source = 'merch' AND m.kind = 'order_payment' AND (m.occurred_at AT TIME ZONE ?)::date = ?::date), 0)::bigint AS sales_today",
+          `COALESCE(SUM(${net}) FILTER (WHERE m.source = 'merch' AND m.kind = 'order_payment' AND (m.occurred_at AT TIME ZONE ?)::date = ?::date), 0)::bigint AS sales_today`,
           [this.timeZone, today],
         ),
-        this.db.raw("COALESCE(SUM(m.gross_cents) FILTER (WHERE m.source = 'merch' AND m.kind = 'order_payment'), 0)::bigint AS sales_month"),
-        this.db.raw("COALESCE(SUM(m.gross_cents) FILTER (WHERE m.source = 'dues' AND m.gross_cents > 0), 0)::bigint AS dues_month"),
+        this.db.raw(`COALESCE(SUM(${net}) FILTER (WHERE m.source = 'merch' AND m.kind = 'order_payment'), 0)::bigint AS sales_month`),
+        this.db.raw(`COALESCE(SUM(${net}) FILTER (WHERE m.source = 'dues' AND m.gross_cents > 0), 0)::bigint AS dues_month`),
       );
     return { salesToday: Number(row.sales_today), salesMonth: Number(row.sales_month), duesMonth: Number(row.dues_month) };
   }

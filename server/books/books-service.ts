@@ -5,7 +5,9 @@ import type { SettingsService } from '../settings/settings-service';
 import { BooksRepository } from './books-repository';
 import type { DashboardSources } from './dashboard-sources';
 import { checkRange, type DateRange } from './date-range';
+import { incomeRows, incomeTotals } from './income';
 import { PROCESSOR_FEES, type ProcessorFeeSettings } from './processor-fees';
+import { byAuthority, reportLines, unregisteredProvinceNotes } from './tax-report';
 
 const TAX_CODES = ['GST', 'HST', 'PST', 'QST', 'RST'] as const;
 const LEDGER_PAGE = 1000;
@@ -24,25 +26,45 @@ export class BooksService {
     this.repo = repo;
   }
 
+  /**
+   * Tax per authority, per tax and jurisdiction: taxable sales net of refunds, collected, refunded, net collected.
+   * Input tax credits (tax the team paid) are not in Padside; the page says so.
+   */
   async taxReport(range: DateRange) {
     checkRange(range);
-    const [rows, registrations] = await Promise.all([this.repo.taxLines(range), this.sources().taxRegistrations?.() ?? null]);
-    const lines = rows.map((l) => ({ ...l, netCents: l.taxCents - l.refundedCents }));
-    return { from: range.from, to: range.to, timeZone: this.timeZone, registrations, lines };
+    const src = this.sources();
+    const [collected, refunded, registrations, sales] = await Promise.all([
+      this.repo.taxCollected(range),
+      this.repo.refundedTax(range),
+      src.taxRegistrations?.() ?? null,
+      src.salesByProvince?.(range) ?? null,
+    ]);
+    const lines = reportLines(collected, refunded);
+    return {
+      from: range.from,
+      to: range.to,
+      timeZone: this.timeZone,
+      registrations,
+      authorities: byAuthority(lines),
+      lines,
+      unregisteredProvinces: registrations && sales ? unregisteredProvinceNotes(sales, registrations.provincialRegistrations) : [],
+    };
   }
 
   async taxCsv(range: DateRange): Promise<string> {
-    const { lines } = await this.taxReport(range);
+    const { authorities } = await this.taxReport(range);
     return toCsv(
-      ['tax', 'jurisdiction', 'taxable_sales', 'tax_charged', 'tax_refunded', 'net_owed'],
-      lines.map((l) => [l.code, l.jurisdiction, centsToDecimal(l.taxableCents), centsToDecimal(l.taxCents), centsToDecimal(l.refundedCents), centsToDecimal(l.netCents)]),
+      ['authority', 'tax', 'jurisdiction', 'taxable_sales_net_of_refunds', 'tax_collected', 'tax_refunded', 'net_tax_collected'],
+      authorities.flatMap((a) => a.lines.map((l) => [a.name, l.code, l.jurisdiction, centsToDecimal(l.taxableCents), centsToDecimal(l.taxCents), centsToDecimal(l.refundedCents), centsToDecimal(l.netCents)])),
     );
   }
 
+  /** Gross received, tax collected, income net of tax, refunds, fees and net, by month and source, with totals. */
   async revenue(range: DateRange) {
     checkRange(range);
-    const rows = (await this.repo.revenue(range)).map((r) => ({ ...r, netCents: r.grossCents - r.refundsCents - r.feesCents }));
-    return { from: range.from, to: range.to, timeZone: this.timeZone, rows };
+    const [sums, refunded] = await Promise.all([this.repo.revenue(range), this.repo.refundedTax(range)]);
+    const rows = incomeRows(sums, refunded);
+    return { from: range.from, to: range.to, timeZone: this.timeZone, rows, totals: incomeTotals(rows) };
   }
 
   /** The ledger as CSV chunks, a page of movements at a time. */
@@ -88,20 +110,21 @@ export class BooksService {
     return this.settings.put(PROCESSOR_FEES, value);
   }
 
-  /** The cards' numbers; a number whose feature is not installed is null. */
+  /** The cards' numbers, sales and dues net of tax; a number whose feature is not installed is null. */
   async dashboard() {
     const today = dateInZone(this.clock.now(), this.timeZone);
     const monthStart = today.slice(0, 8) + '01';
     const src = this.sources();
     const sums = await this.repo.sumsForToday(today, monthStart);
     const yearStart = `${Number(today.slice(0, 4)) - 1}${today.slice(4, 8)}01`;
-    const [ordersAwaitingShipment, runsClosingSoon, overdueDeliverables, membersLapsingSoon, membersByStatus, revenue] = await Promise.all([
+    const [ordersAwaitingShipment, runsClosingSoon, overdueDeliverables, membersLapsingSoon, membersByStatus, monthly, refunded] = await Promise.all([
       src.ordersAwaitingShipment?.() ?? null,
       src.runsClosingWithin?.(7) ?? null,
       src.overdueDeliverables?.() ?? null,
       src.membersLapsingWithin?.(30) ?? null,
       src.membersByStatus?.() ?? null,
       this.repo.revenue({ from: yearStart, to: today }),
+      this.repo.refundedTax({ from: yearStart, to: today }),
     ]);
     return {
       today,
@@ -113,7 +136,8 @@ export class BooksService {
       overdueDeliverables,
       membersLapsingSoon,
       membersByStatus,
-      revenueByMonth: revenue.map((r) => ({ month: r.month, source: r.source, netCents: r.grossCents - r.refundsCents - r.feesCents, grossCents: r.grossCents })),
+      // Net of tax: the tax collected is owed to the authorities, not income.
+      revenueByMonth: incomeRows(monthly, refunded).map((r) => ({ month: r.month, source: r.source, netCents: r.netCents, grossCents: r.grossCents, incomeCents: r.incomeCents })),
     };
   }
 

@@ -11,5 +11,7 @@ export interface DashboardSources {
   membersByStatus(): Promise<Record<string, number>>;
   /** The seller's tax registrations, shown at the top of the tax report. */
   taxRegistrations(): Promise<{ sellerProvince: string; gstHstNumber: string; gstHstRegistered: boolean; provincialRegistrations: string[] }>;
+  /** Paid orders delivered into each province in the period (club days), with their sales net of tax. */
+  salesByProvince(range: { from: string; to: string }): Promise<{ province: string; orders: number; salesCents: number }[]>;
   sponsorValue(): Promise<{ season: string; items: { sponsor: string; tier: string | null; cashCents: number; inKindCents: number; totalCents: number; promised: number; delivered: number }[] }>;
 }

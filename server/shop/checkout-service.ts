@@ -10,6 +10,7 @@ import type { SessionUser } from '../platform/roles';
 import type { SettingsService } from '../settings/settings-service';
 import type { OrderBundle, OrderRepository } from './order-repository';
 import type { QuoteRequest, QuoteService } from './quote-service';
+import type { ReceiptService } from './receipt-service';
 import { confirmationEmail } from './shop-emails';
 
 /** How long a payment attempt may stay unanswered before reconciliation settles it (common practice, no source). */
@@ -35,6 +36,7 @@ export class CheckoutService {
     private readonly publicUrl: string,
     private readonly teamName: string,
     private readonly log: Logger,
+    private readonly receipts: ReceiptService,
   ) {}
 
   /** Quotes, reserves the units in one transaction (409 sold_out when they no longer fit), then pays. */
@@ -89,6 +91,7 @@ export class CheckoutService {
   /** Marks the order paid once, records the money movement and queues the confirmation, in one transaction. */
   async settlePaid(orderId: number, chargeId: string, amountCents: number, cardCountry: string | null): Promise<OrderBundle> {
     const fees = await this.settings.get(PROCESSOR_FEES);
+    const seller = await this.receipts.seller();
     const now = this.clock.now();
     await this.db.transaction(async (trx) => {
       if (!(await this.orders.transition(trx, orderId, ['pending'], { status: 'paid', charge_id: chargeId, paid_at: now, payment_message: null }))) return;
@@ -107,7 +110,7 @@ export class CheckoutService {
         idempotencyKey: `shop-payment-${orderId}`,
         taxes: b.taxes.map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, ratePercent: t.rate_percent, taxableCents: t.taxable_cents, taxCents: t.amount_cents })),
       });
-      await enqueueEmail(trx, confirmationEmail(b, this.publicUrl, this.teamName));
+      await enqueueEmail(trx, confirmationEmail(b, this.publicUrl, this.teamName, this.receipts.build(b, seller)));
     });
     return (await this.orders.find(orderId))!;
   }

@@ -9,6 +9,7 @@ import type { CatalogueRepository, ProductBundle } from './catalogue-repository'
 import { percentOf, shippingFor } from './pricing';
 import { productView, variantRemaining } from './product-view';
 import type { ShippingMethodRow, ShopConfigRepository } from './shop-config-repository';
+import { postalCodeFitsProvince, postalLettersOf } from './postal-code';
 import { SHOP_SETTINGS } from './shop-settings';
 import { computeTaxes, PROVINCES, type Province, type TaxLine } from './tax';
 
@@ -141,6 +142,9 @@ export class QuoteService {
     if (to.country === 'CA') {
       if (!(PROVINCES as readonly string[]).includes(province)) f['shipTo.province'] = 'Choose a province or territory.';
       if (!CA_POSTAL.test(to.postalCode)) f['shipTo.postalCode'] = 'Enter a Canadian postal code such as R0K 1A0.';
+      else if (!f['shipTo.province'] && !postalCodeFitsProvince(to.postalCode, province as Province)) {
+        f['shipTo.postalCode'] = `This postal code is not in ${province}: codes there start with ${postalLettersOf(province as Province).join(', ')}. Check the code and the province.`;
+      }
     }
     if (to.country === 'US' && !US_ZIP.test(to.postalCode)) f['shipTo.postalCode'] = 'Enter a ZIP code such as 58501.';
     if (Object.keys(f).length) throw new AppError(400, 'validation_failed', 'Some fields need attention.', f);

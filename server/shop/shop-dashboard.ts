@@ -7,8 +7,25 @@ import { SHOP_SETTINGS } from './shop-settings';
 import { effectiveRunState } from './run-state';
 
 /** The shop's numbers on the staff dashboard. */
-export function shopDashboard(db: Knex, catalogue: CatalogueRepository, clock: Clock, settings: SettingsService): Pick<DashboardSources, 'ordersAwaitingShipment' | 'runsClosingWithin' | 'unitsBySize' | 'taxRegistrations'> {
+export function shopDashboard(
+  db: Knex,
+  catalogue: CatalogueRepository,
+  clock: Clock,
+  settings: SettingsService,
+  timeZone: string,
+): Pick<DashboardSources, 'ordersAwaitingShipment' | 'runsClosingWithin' | 'unitsBySize' | 'taxRegistrations' | 'salesByProvince'> {
   return {
+    /** Paid orders by the province they were delivered to (their place of supply), before refunds, net of tax. */
+    async salesByProvince(range) {
+      const rows = await db('shop_orders')
+        .whereNotNull('paid_at')
+        .whereNotNull('tax_jurisdiction')
+        .where('paid_at', '>=', db.raw('(?::date)::timestamp AT TIME ZONE ?', [range.from, timeZone]))
+        .andWhere('paid_at', '<', db.raw('((?::date + 1))::timestamp AT TIME ZONE ?', [range.to, timeZone]))
+        .groupBy('tax_jurisdiction')
+        .select('tax_jurisdiction as province', db.raw('COUNT(*)::int AS orders'), db.raw('COALESCE(SUM(total_cents - tax_cents), 0)::bigint AS sales'));
+      return rows.map((r) => ({ province: String(r.province), orders: Number(r.orders), salesCents: Number(r.sales) }));
+    },
     async taxRegistrations() {
       const s = await settings.get(SHOP_SETTINGS);
       return { sellerProvince: s.sellerProvince, gstHstNumber: s.gstHstNumber, gstHstRegistered: s.gstHstRegistered, provincialRegistrations: s.provincialRegistrations };

@@ -1,6 +1,8 @@
 import type { OutgoingEmail } from '../mail/outbox';
 import { formatCad } from '../platform/money';
+import { formatRate } from './tax';
 import type { OrderBundle } from './order-repository';
+import { receiptText, type Receipt } from './receipt';
 
 function receipt(b: OrderBundle): string[] {
   const o = b.order;
@@ -10,13 +12,13 @@ function receipt(b: OrderBundle): string[] {
     `Items: ${formatCad(o.subtotal_cents)}`,
     ...(o.discount_cents ? [`Member discount (${o.discount_percent}%): -${formatCad(o.discount_cents)}`] : []),
     `Shipping (${o.shipping_name}): ${formatCad(o.shipping_cents)}`,
-    ...b.taxes.map((t) => `${t.code} ${Number(t.rate_percent)}%: ${formatCad(t.amount_cents)}`),
+    ...b.taxes.map((t) => `${t.code} ${formatRate(t.rate_percent)}%: ${formatCad(t.amount_cents)}`),
     `Total: ${formatCad(o.total_cents)}`,
   ];
 }
 
-/** The order confirmation, once per order. */
-export function confirmationEmail(b: OrderBundle, publicUrl: string, teamName: string): OutgoingEmail {
+/** The order confirmation, once per order; it is also the buyer's receipt. */
+export function confirmationEmail(b: OrderBundle, publicUrl: string, teamName: string, r: Receipt): OutgoingEmail {
   const o = b.order;
   const dest = o.shipping_code === 'pickup' ? 'Pick up at the next club launch; bring this e-mail.' : [o.ship_name, o.ship_line1, o.ship_line2, `${o.ship_city ?? ''} ${o.ship_province ?? ''} ${o.ship_postal_code ?? ''}`.trim(), o.ship_country].filter(Boolean).join('\n');
   return {
@@ -24,7 +26,7 @@ export function confirmationEmail(b: OrderBundle, publicUrl: string, teamName: s
     subject: `Padside order ${o.number}: thank you`,
     template: 'shop-order-confirmation',
     dedupeKey: `shop-confirmation-${o.id}`,
-    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', ...receipt(b), '', 'Delivery:', dest, '', `See your order: ${publicUrl}/shop/orders/${o.id}`, '', `${teamName}, via Padside`].join('\n'),
+    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', 'Receipt', ...receiptText(r, formatCad), '', ...receipt(b), '', 'Delivery:', dest, '', `See your order: ${publicUrl}/shop/orders/${o.id}`, '', `${teamName}, via Padside`].join('\n'),
   };
 }
 

@@ -6,6 +6,7 @@ import { FulfilmentService } from './fulfilment-service';
 import { OrderRepository } from './order-repository';
 import { paymentRoutes } from './payment-routes';
 import { QuoteService } from './quote-service';
+import { ReceiptService } from './receipt-service';
 import { RefundRepository } from './refund-repository';
 import { RefundService } from './refund-service';
 import { shopDashboard } from './shop-dashboard';
@@ -25,12 +26,13 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
   const orders = new OrderRepository(deps.db);
   const quotes = new QuoteService(catalogueRepo, config, settings, deps.config);
   const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock);
-  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, deps.config.publicUrl, deps.config.site.teamName, deps.log);
+  const receipts = new ReceiptService(settings, deps.config.site.teamName, deps.config.clubTimeZone);
+  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, deps.config.publicUrl, deps.config.site.teamName, deps.log, receipts);
   const fulfilment = new FulfilmentService(deps.db, orders, deps.clock, deps.config.publicUrl);
   const refundRepo = new RefundRepository(deps.db);
   const refunds = new RefundService(deps.db, orders, refundRepo, deps.payments, deps.clock, deps.log);
   const webhooks = new WebhookService(deps.db, orders, refunds, settings, deps.clock, otherCharges);
-  const pub = { catalogue, quotes, checkout, orders, config, now: () => deps.clock.now() };
+  const pub = { catalogue, quotes, checkout, orders, config, receipts, now: () => deps.clock.now() };
   const admin = { catalogue, fulfilment, refunds, refundRepo, orders, config, settings, timeZone: deps.config.clubTimeZone };
   return {
     name: 'shop',
@@ -50,6 +52,6 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
       { name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() },
       { name: 'reconcile-refunds', cron: '*/5 * * * *', run: () => refunds.reconcile(otherCharges) },
     ],
-    dashboard: shopDashboard(deps.db, catalogueRepo, deps.clock, settings),
+    dashboard: shopDashboard(deps.db, catalogueRepo, deps.clock, settings, deps.config.clubTimeZone),
   };
 }

@@ -6,9 +6,10 @@ import { STAFF_ROLES } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
 import type { CatalogueService } from './catalogue-service';
 import type { CheckoutService, PaymentOutcome } from './checkout-service';
-import type { OrderRepository } from './order-repository';
+import type { OrderBundle, OrderRepository } from './order-repository';
 import { orderJson } from './order-view';
 import { QuoteBody, quoteJson, type QuoteService } from './quote-service';
+import type { ReceiptService } from './receipt-service';
 import type { ShopConfigRepository } from './shop-config-repository';
 
 declare module 'express-session' {
@@ -28,6 +29,7 @@ export interface ShopDeps {
   checkout: CheckoutService;
   orders: OrderRepository;
   config: ShopConfigRepository;
+  receipts: ReceiptService;
   now(): Date;
 }
 
@@ -63,8 +65,13 @@ export function checkoutRoutes(d: ShopDeps): Router {
   return r;
 }
 
-function answer(res: import('express').Response, outcome: PaymentOutcome, created: boolean): void {
-  const order = orderJson(outcome.bundle);
+/** The buyer's view of an order: the order and, once paid, its receipt. */
+async function buyerView(d: ShopDeps, b: OrderBundle) {
+  return { ...orderJson(b), receipt: await d.receipts.forOrder(b) };
+}
+
+async function answer(d: ShopDeps, res: import('express').Response, outcome: PaymentOutcome, created: boolean): Promise<void> {
+  const order = await buyerView(d, outcome.bundle);
   if (outcome.status === 'pending') res.status(202).json({ order, message: outcome.message });
   else res.status(created ? 201 : 200).json({ order });
 }
@@ -83,17 +90,17 @@ export function orderRoutes(d: ShopDeps): Router {
     const body = parse(OrderBody, req.body);
     const outcome = await d.checkout.placeOrder(body, req.user ?? null);
     req.session.shopOrderIds = [...(req.session.shopOrderIds ?? []).slice(-19), outcome.bundle.order.id];
-    answer(res, outcome, true);
+    await answer(d, res, outcome, true);
   });
   r.get('/:id', async function showOrder(req, res) {
     const id = parse(fields.id, req.params.id);
-    res.json({ order: orderJson(await mayView(req, id)) });
+    res.json({ order: await buyerView(d, await mayView(req, id)) });
   });
   r.post('/:id/pay', async function payAgain(req, res) {
     const id = parse(fields.id, req.params.id);
     await mayView(req, id);
     const { paymentToken } = parse(PayBody, req.body);
-    answer(res, await d.checkout.pay(id, paymentToken), false);
+    await answer(d, res, await d.checkout.pay(id, paymentToken), false);
   });
   return r;
 }

@@ -6,7 +6,15 @@ const Province = z.enum(PROVINCES, { error: 'Choose a province or territory.' })
 
 export const ShopSettingsSchema = z.object({
   sellerProvince: Province,
-  gstHstNumber: z.string().trim().max(30, 'At most 30 characters.'),
+  /** The seller's legal or trading name on receipts; empty = the team's name. */
+  sellerName: z.string().trim().max(120, 'At most 120 characters.'),
+  gstHstNumber: z
+    .string()
+    .trim()
+    .max(30, 'At most 30 characters.')
+    .regex(/^(\d{9} ?RT ?\d{4})?$/, 'A business number: nine digits, RT and four digits, such as 123456789 RT0001.'),
+  /** Provincial sales tax account numbers, printed on receipts that charge that province's tax. */
+  provincialTaxNumbers: z.partialRecord(Province, z.string().trim().max(30, 'At most 30 characters.')),
   gstHstRegistered: z.boolean(),
   provincialRegistrations: z.array(Province).max(PROVINCES.length),
   provincialTaxOnShipping: z.partialRecord(Province, z.boolean()),
@@ -24,11 +32,14 @@ export type ShopSettings = z.infer<typeof ShopSettingsSchema>;
  * The shop's tax position, discount and printer rules. Defaults are the demo seller: Manitoba, registered for
  * GST/HST and Manitoba RST only, 10% member discount. Provincial tax on shipping: from memory (Manitoba RST and
  * Quebec QST on delivery charged by the seller; B.C. and Saskatchewan likewise): confirm with each province.
- * Spares 5%, packs of 6 and 12 pieces a design: common practice, no source.
+ * Spares 5%, packs of 6 and 12 pieces a design: common practice, no source. Seller name and registration numbers
+ * start empty (receipts then name the team and print no number); the demo seed fills in invented ones.
  */
 export const SHOP_SETTINGS = defineSetting<ShopSettings>('shop', ShopSettingsSchema, {
   sellerProvince: 'MB',
+  sellerName: '',
   gstHstNumber: '',
+  provincialTaxNumbers: {},
   gstHstRegistered: true,
   provincialRegistrations: ['MB'],
   provincialTaxOnShipping: { MB: true, QC: true, BC: true, SK: true },

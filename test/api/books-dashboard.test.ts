@@ -9,11 +9,19 @@ beforeAll(() => (t = buildTestApp({ clock: fixedClock(TODAY) })));
 afterAll(() => t.close());
 
 describe('GET /api/admin/dashboard', () => {
-  it('moves today’s sales and this month’s dues by what was just recorded, and counts what other features hold', async () => {
+  it('moves today’s sales (net of tax) and this month’s dues by what was just recorded, and counts what other features hold', async () => {
     const { client } = await signedIn(t.app, t.deps.db, ['treasurer']);
     await t.deps.db('money_movements').where('occurred_at', '>=', '2032-06-01').andWhere('occurred_at', '<', '2032-07-02').delete();
     await t.deps.db.transaction(async (trx) => {
-      await recordMovement(trx, { occurredAt: new Date(TODAY), kind: 'order_payment', source: 'merch', reference: 'DASH-1', counterparty: 'Dash Buyer', grossCents: 1234, method: 'card' });
+      // C$12.00 of goods to Manitoba + GST 5% 0.60 + RST 7% 0.84 = C$13.44 (CRA rate page; Manitoba Finance): the card
+      // counts C$12.00, since the tax is owed to the authorities and is not a sale.
+      await recordMovement(trx, {
+        occurredAt: new Date(TODAY), kind: 'order_payment', source: 'merch', reference: 'DASH-1', counterparty: 'Dash Buyer', grossCents: 1344, method: 'card',
+        taxes: [
+          { code: 'GST', jurisdiction: 'MB', ratePercent: '5', taxableCents: 1200, taxCents: 60 },
+          { code: 'RST', jurisdiction: 'MB', ratePercent: '7', taxableCents: 1200, taxCents: 84 },
+        ],
+      });
       // Earlier this month (Winnipeg time): in the month's sales, not today's.
       await recordMovement(trx, { occurredAt: new Date('2032-06-01T06:00:00Z'), kind: 'order_payment', source: 'merch', reference: 'DASH-3', counterparty: 'Dash Buyer', grossCents: 1000, method: 'card' });
       // 2032-06-01T04:59Z is still May 31 in Winnipeg (CDT, UTC-5): outside the month.
@@ -39,8 +47,10 @@ describe('GET /api/admin/dashboard', () => {
     }
     expect(settled).not.toBeNull();
     expect(after.today).toBe('2032-06-15');
-    expect(after.salesTodayCents).toBe(1234);
-    expect(after.salesMonthCents).toBe(2234);
+    expect(after.salesTodayCents).toBe(1200);
+    expect(after.salesMonthCents).toBe(2200);
+    const june = (after.revenueByMonth as { month: string; source: string; netCents: number; grossCents: number }[]).filter((r) => r.month === '2032-06');
+    expect(june.find((r) => r.source === 'merch')).toMatchObject({ grossCents: 2344, netCents: 2200 });
     expect(after.duesMonthCents).toBe(4500);
     expect(after.ordersAwaitingShipment).toBe(settled!.toShip);
     expect(Object.values(after.membersByStatus as Record<string, number>).reduce((a, b) => a + b, 0)).toBe(settled!.members);

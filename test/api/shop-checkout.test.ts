@@ -63,6 +63,20 @@ describe('POST /api/checkout/quote', () => {
       expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['items.0.variantId', 'items.0.quantity', 'shipTo']));
     });
   });
+  describe('when the postal code belongs to another province', () => {
+    it('answers 400 naming the postal code (Canada Post first letters, from memory: R is Manitoba, K Ontario)', async () => {
+      const shirt = await openShirt(staff);
+      const c = new Client(t.app);
+      const res = await c.post('/api/checkout/quote', await body(c, shirt.variants[0].id, 1, { shipTo: { ...MB_ADDRESS, province: 'ON', postalCode: 'R0K 1A0' } }));
+      expect(res.status).toBe(400);
+      expect(res.body.error.code).toBe('validation_failed');
+      expect(Object.keys(res.body.error.fields)).toEqual(['shipTo.postalCode']);
+      expect(res.body.error.fields['shipTo.postalCode']).toMatch(/not in ON.*K, L, M, N, P/);
+      // The same code with its own province is priced.
+      const ok = await c.post('/api/checkout/quote', await body(c, shirt.variants[0].id, 1, { shipTo: { ...MB_ADDRESS, province: 'mb', postalCode: 'r0k 1a0' } }));
+      expect(ok.status).toBe(200);
+    });
+  });
   describe('when shipping abroad', () => {
     it('charges no Canadian tax', async () => {
       const shirt = await openShirt(staff);

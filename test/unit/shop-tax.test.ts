@@ -11,6 +11,7 @@ const RATES: TaxRate[] = [
   { jurisdiction: 'NS', code: 'HST', ratePercent: '15.0000', effectiveFrom: '2010-07-01' },
   { jurisdiction: 'NS', code: 'HST', ratePercent: '14.0000', effectiveFrom: '2025-04-01' },
   { jurisdiction: 'BC', code: 'PST', ratePercent: '7.0000', effectiveFrom: '2013-04-01' },
+  { jurisdiction: 'MB', code: 'RST', ratePercent: '8.0000', effectiveFrom: '2013-07-01' },
   { jurisdiction: 'MB', code: 'RST', ratePercent: '7.0000', effectiveFrom: '2019-07-01' },
   { jurisdiction: 'QC', code: 'QST', ratePercent: '9.9750', effectiveFrom: '2013-01-01' },
   { jurisdiction: 'SK', code: 'PST', ratePercent: '6.0000', effectiveFrom: '2017-03-23' },
@@ -44,6 +45,11 @@ describe('sales tax on C$100.00 of goods, by province and territory (2026)', () 
 describe('Nova Scotia on both sides of 2025-04-01 (CRA GST/HST Notice 342 [2nd]: C$100 -> C$15.00, then C$14.00)', () => {
   it('charges 15% on 2025-03-31', () => expect(summary(on('NS', 10000, '2025-03-31'))).toEqual(['HST 15% 1500']));
   it('charges 14% on 2025-04-01', () => expect(summary(on('NS', 10000, '2025-04-01'))).toEqual(['HST 14% 1400']));
+});
+
+describe('Manitoba RST on both sides of 2019-07-01 (Manitoba Finance, from memory: 8% until 2019-06-30, 7% from 2019-07-01)', () => {
+  it('charges RST 8% on 2019-06-30', () => expect(summary(on('MB', 10000, '2019-06-30'))).toEqual(['GST 5% 500', 'RST 8% 800']));
+  it('charges RST 7% on 2019-07-01', () => expect(summary(on('MB', 10000, '2019-07-01'))).toEqual(['GST 5% 500', 'RST 7% 700']));
 });
 
 describe('registrations', () => {
