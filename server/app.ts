@@ -86,7 +86,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   api.use(csrfProtection(CSRF_EXEMPT));
   apiMount('/auth', authRoutes(auth));
   apiMount('/account', accountRoutes(auth));
-  apiMount('/admin/users', userAdminRoutes(auth.users));
+  apiMount('/admin/users', userAdminRoutes(auth.users, auth.signInGuard));
   apiMount('/admin/uploads', uploadAdminRoutes(platform.images));
   for (const feature of features) feature.mount(apiMount);
   api.use(apiNotFound);
