@@ -18,7 +18,7 @@ import { csrfProtection } from './platform/csrf';
 import { rotateSessionOnRoleChange } from './platform/session-rotation';
 import { apiNotFound, errorHandler } from './platform/error-handler';
 import type { Mount, Platform } from './platform/feature';
-import { securityHeaders } from './platform/security-headers';
+import { hstsOverHttps, noStore, permissionsPolicy, securityHeaders } from './platform/security-headers';
 import { createSessionMiddleware } from './platform/session';
 import { SettingsService } from './settings/settings-service';
 import { DiskStorage } from './uploads/disk-storage';
@@ -55,6 +55,8 @@ export function createApp(deps: AppDeps): PadsideApp {
   app.disable('x-powered-by');
   app.set('trust proxy', deps.config.env === 'production' ? 1 : 'loopback');
   app.use(securityHeaders({ stripeJs: deps.config.stripe.publishableKey !== null }));
+  app.use(permissionsPolicy);
+  app.use(hstsOverHttps);
   app.use(
     pinoHttp({
       logger: deps.log,
@@ -75,6 +77,8 @@ export function createApp(deps: AppDeps): PadsideApp {
   api.use((req, res, next) => (CSRF_EXEMPT.includes(req.path) ? next() : express.json({ limit: '100kb' })(req, res, next)));
   apiMount('/health', healthRoutes(deps));
   apiMount('/site', siteRoutes(deps.config.site));
+  // Everything from here on may depend on who is signed in, CSV and PDF downloads included.
+  api.use(noStore);
   api.use(sessions.middleware);
   api.use(passport.initialize());
   api.use(passport.session());
@@ -82,7 +86,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   api.use(csrfProtection(CSRF_EXEMPT));
   apiMount('/auth', authRoutes(auth));
   apiMount('/account', accountRoutes(auth));
-  apiMount('/admin/users', userAdminRoutes(auth.users));
+  apiMount('/admin/users', userAdminRoutes(auth.users, auth.signInGuard));
   apiMount('/admin/uploads', uploadAdminRoutes(platform.images));
   for (const feature of features) feature.mount(apiMount);
   api.use(apiNotFound);

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import type { SignInGuard } from '../auth/sign-in-guard';
 import type { UserRepository } from '../auth/user-repository';
 import { toSessionUser } from '../auth/user-repository';
 import { badRequest, notFound } from '../platform/app-error';
@@ -12,15 +13,16 @@ const RolesBody = z.object({
   roles: z.array(z.enum(ROLES, { error: `Roles are ${ROLES.join(', ')}.` }), { error: 'Send a list of roles.' }).max(ROLES.length),
 });
 
-/** Accounts and their roles under /api/admin/users (admin only). */
-export function userAdminRoutes(users: UserRepository): Router {
+/** Accounts, their roles and their sign-in locks under /api/admin/users (admin only). */
+export function userAdminRoutes(users: UserRepository, signIn: SignInGuard): Router {
   const r = Router();
   r.use(requireRole('admin'));
 
   r.get('/', async function listUsers(req, res) {
     const q = parse(ListQuery, req.query);
     const { items, total } = await users.page(q);
-    res.json({ items: items.map((u) => ({ ...toSessionUser(u), createdAt: u.created_at })), total, page: q.page, pageSize: q.pageSize });
+    const locks = await signIn.states(items.map((u) => u.email));
+    res.json({ items: items.map((u) => ({ ...toSessionUser(u), createdAt: u.created_at, signIn: locks.get(u.email) ?? { failures: 0, locked: false } })), total, page: q.page, pageSize: q.pageSize });
   });
 
   r.patch('/:id', async function setRoles(req, res) {
@@ -31,6 +33,14 @@ export function userAdminRoutes(users: UserRepository): Router {
     const row = await users.update(id, { roles: unique.length ? unique : ['fan'] });
     if (!row) throw notFound('No such user.');
     res.json({ user: toSessionUser(row) });
+  });
+
+  // Staff lift a lock once they know the owner is the one signing in (or the owner resets the password themselves).
+  r.delete('/:id/sign-in-lock', async function clearSignInLock(req, res) {
+    const row = await users.byId(parse(fields.id, req.params.id));
+    if (!row) throw notFound('No such user.');
+    await signIn.clear(row.email);
+    res.status(204).end();
   });
 
   return r;

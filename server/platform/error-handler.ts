@@ -1,5 +1,9 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { AppError } from './app-error';
+import { isDatabaseUnavailable } from './database-unavailable';
+
+/** Seconds a caller should wait after the database went away; a restart takes about a second (common practice, no source). */
+export const DATABASE_RETRY_AFTER_SECONDS = 5;
 
 /** JSON 404 for unknown API paths. */
 export const apiNotFound: RequestHandler = (req, _res, next) => {
@@ -14,7 +18,10 @@ interface HttpishError {
   code?: string;
 }
 
-/** The single error handler: AppError and body-parser errors answer as they are, anything else 500 without details. */
+/**
+ * The single error handler: AppError and body-parser errors answer as they are, a lost or refused database connection
+ * 503 with Retry-After, anything else 500 without details.
+ */
 export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next) => {
   if (err instanceof AppError) {
     if (err.headers) res.set(err.headers);
@@ -31,6 +38,12 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
       'charset.unsupported': 'The request body charset is not supported.',
     };
     res.status(status).json({ error: { code: (e.type ?? 'bad_request').replace(/\./g, '_'), message: messages[e.type ?? ''] ?? 'The request could not be read.' } });
+    return;
+  }
+  if (isDatabaseUnavailable(err)) {
+    req.log?.warn({ err }, 'database unavailable');
+    res.set('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS));
+    res.status(503).json({ error: { code: 'database_unavailable', message: 'Padside cannot reach its database just now. Please try again in a few seconds.' } });
     return;
   }
   req.log?.error({ err }, 'unhandled error');

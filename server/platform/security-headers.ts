@@ -1,3 +1,4 @@
+import type { RequestHandler } from 'express';
 import helmet from 'helmet';
 
 /**
@@ -26,5 +27,44 @@ export function securityHeaders(options: { stripeJs: boolean }) {
       },
     },
     crossOriginEmbedderPolicy: false,
+    // Sent by hstsOverHttps only when the request itself came over HTTPS.
+    strictTransportSecurity: false,
   });
 }
+
+/** Browser features Padside never uses; each is denied to every document (and every frame in it). */
+const DENIED_FEATURES = [
+  'accelerometer', 'autoplay', 'bluetooth', 'display-capture', 'encrypted-media', 'geolocation', 'gyroscope', 'hid',
+  'magnetometer', 'microphone', 'midi', 'payment', 'publickey-credentials-get', 'screen-wake-lock',
+  'serial', 'usb', 'xr-spatial-tracking',
+];
+
+/** The page that scans member QR codes with the camera; only a document loaded at this path may use it. */
+export const CAMERA_PAGES = ['/console/check-in'];
+
+/** The Permissions-Policy value for a document at `path`. */
+export function permissionsPolicyFor(path: string): string {
+  const camera = CAMERA_PAGES.includes(path.replace(/\/+$/, '')) ? 'camera=(self)' : 'camera=()';
+  return [camera, ...DENIED_FEATURES.map((f) => `${f}=()`)].join(', ');
+}
+
+/** Permissions-Policy on every answer; the policy is fixed per document, so the camera page is loaded in full. */
+export const permissionsPolicy: RequestHandler = (req, res, next) => {
+  res.setHeader('Permissions-Policy', permissionsPolicyFor(req.path));
+  next();
+};
+
+/**
+ * HSTS only on an answer to an HTTPS request (`req.secure`, which honours X-Forwarded-Proto from the trusted proxy):
+ * over plain HTTP the header is ignored by browsers anyway (RFC 6797 section 8.1) and only misleads.
+ */
+export const hstsOverHttps: RequestHandler = (req, res, next) => {
+  if (req.secure) res.setHeader('Strict-Transport-Security', 'max-age=31536000; includeSubDomains');
+  next();
+};
+
+/** Answers that depend on the session are never stored by a browser or a shared cache (ASVS 4.0.3 8.2.1). */
+export const noStore: RequestHandler = (_req, res, next) => {
+  res.setHeader('Cache-Control', 'no-store');
+  next();
+};

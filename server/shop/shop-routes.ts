@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { forbidden, notFound } from '../platform/app-error';
+import { notFound } from '../platform/app-error';
 import { requireSignedIn } from '../platform/require-role';
-import { STAFF_ROLES } from '../platform/roles';
+import type { Role } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
 import type { CatalogueService } from './catalogue-service';
 import type { CheckoutService, PaymentOutcome } from './checkout-service';
@@ -76,14 +76,17 @@ async function answer(d: ShopDeps, res: import('express').Response, outcome: Pay
   else res.status(created ? 201 : 200).json({ order });
 }
 
-/** POST /api/orders, GET /api/orders/:id (its buyer or staff), POST /api/orders/:id/pay (another attempt). */
+/** Besides the buyer, only these roles handle shop orders (an editor has no business with addresses or payments). */
+export const ORDER_ROLES: readonly Role[] = ['treasurer', 'admin'];
+
+/** POST /api/orders, GET /api/orders/:id (its buyer, treasurer, admin), POST /api/orders/:id/pay (another attempt). */
 export function orderRoutes(d: ShopDeps): Router {
   const r = Router();
+  // Anyone else gets the same 404 as an id that does not exist, so order ids are not confirmed to strangers (ASVS 4.0.3 4.2.1).
   const mayView = async (req: import('express').Request, id: number) => {
     const b = await d.orders.find(id);
-    if (!b) throw notFound('No such order.');
-    const own = (req.user && b.order.user_id === req.user.id) || req.session.shopOrderIds?.includes(id);
-    if (!own && !req.user?.roles.some((x) => STAFF_ROLES.includes(x))) throw req.user ? forbidden('This is not your order.') : notFound('No such order.');
+    const own = b && ((req.user && b.order.user_id === req.user.id) || req.session.shopOrderIds?.includes(id));
+    if (!b || !(own || req.user?.roles.some((x) => ORDER_ROLES.includes(x)))) throw notFound('No such order.');
     return b;
   };
   r.post('/', async function placeOrder(req, res) {

@@ -7,6 +7,7 @@ import { acknowledgementCsv, acknowledgementPdf, type ReportData } from './ackno
 import { toCsv } from '../platform/csv';
 import { AgreementBody, CashReceivedBody, ContactBody, HandCreditBody, SponsorBody } from './sponsor-schemas';
 import type { SponsorService } from './sponsor-service';
+import { deliverablesOnly, seesSponsorMoney, withoutEmail, withoutTotal } from './sponsor-staff-view';
 import { TiersSchema } from './sponsor-tiers';
 
 type Today = () => string;
@@ -30,11 +31,15 @@ export function sponsorPublicRoutes(sponsors: SponsorService, today: Today): Rou
 const STAFF = ['editor', 'treasurer', 'admin'] as const;
 const MONEY = ['treasurer', 'admin'] as const;
 
-/** /api/admin/sponsors: staff manage sponsors; agreements, cash, contacts and tiers are the treasurer's and admin's. */
+/**
+ * /api/admin/sponsors: staff manage sponsors; agreements, cash, declared values, contacts and tiers are the treasurer's
+ * and admin's (editors see the deliverables).
+ */
 export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today: Today): Router {
   const r = Router();
-  r.get('/', requireRole(...STAFF), async function listSponsorsAdmin(_req, res) {
-    res.json({ items: await sponsors.withTiers(today()) });
+  r.get('/', requireRole(...STAFF), async function listSponsorsAdmin(req, res) {
+    const items = await sponsors.withTiers(today());
+    res.json({ items: seesSponsorMoney(req.user!.roles) ? items : items.map(withoutTotal) });
   });
   r.post('/', requireRole(...STAFF), async function createSponsor(req, res) {
     const s = await sponsors.create(parse(SponsorBody, req.body));
@@ -57,7 +62,7 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
     const id = parse(fields.id, req.params.id);
     const sponsor = await sponsors.get(id);
     const [contacts, credits] = await Promise.all([sponsors.contacts(id), sponsors.creditsOf(id)]);
-    res.json({ sponsor, contacts, credits });
+    res.json({ sponsor, contacts: seesSponsorMoney(req.user!.roles) ? contacts : contacts.map(withoutEmail), credits });
   });
   r.put('/:id', requireRole(...STAFF), async function updateSponsor(req, res) {
     res.json({ sponsor: await sponsors.update(parse(fields.id, req.params.id), parse(SponsorBody, req.body)) });
@@ -68,7 +73,9 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
   r.get('/:id/ledger', requireRole(...STAFF), async function sponsorLedger(req, res) {
     const id = parse(fields.id, req.params.id);
     await sponsors.get(id);
-    res.json({ agreements: await sponsors.agreements(id, today()) });
+    const agreements = await sponsors.agreements(id, today());
+    // Editors record and publish credits; cash, declared values and the deal's note are the treasurer's and admin's.
+    res.json({ agreements: seesSponsorMoney(req.user!.roles) ? agreements : agreements.map(deliverablesOnly) });
   });
   r.get('/:id/ledger.csv', requireRole(...STAFF), async function sponsorLedgerCsv(req, res) {
     const id = parse(fields.id, req.params.id);

@@ -18,6 +18,7 @@ export const foundationAccess: RouteAccess[] = [
   { method: 'POST', path: '/api/account/password', allow: 'signedIn' },
   { method: 'GET', path: '/api/admin/users', allow: ['admin'] },
   { method: 'PATCH', path: '/api/admin/users/:id', allow: ['admin'] },
+  { method: 'DELETE', path: '/api/admin/users/:id/sign-in-lock', allow: ['admin'] },
   { method: 'POST', path: '/api/admin/uploads', allow: ['editor', 'treasurer', 'admin'] },
   { method: 'GET', path: '/uploads/:key', allow: 'public' },
 ];

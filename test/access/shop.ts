@@ -9,9 +9,9 @@ export const shopAccess: RouteAccess[] = [
   { method: 'GET', path: '/api/shipping-methods', allow: 'public' },
   { method: 'POST', path: '/api/checkout/quote', allow: 'public' },
   { method: 'POST', path: '/api/orders', allow: 'public' },
-  // Its buyer (signed in, or the guest's own session) or staff; anyone else gets 404/403, checked in shop-checkout.test.
-  { method: 'GET', path: '/api/orders/:id', allow: 'public' },
-  { method: 'POST', path: '/api/orders/:id/pay', allow: 'public' },
+  // Its buyer (signed in, or the guest's own session), the treasurer and the admin; anyone else gets 404.
+  { method: 'GET', path: '/api/orders/:id', allow: 'owner', ownerOr: SHOP_STAFF },
+  { method: 'POST', path: '/api/orders/:id/pay', allow: 'owner', ownerOr: SHOP_STAFF },
   { method: 'GET', path: '/api/account/orders', allow: 'signedIn' },
   { method: 'GET', path: '/api/admin/orders', allow: SHOP_STAFF },
   { method: 'GET', path: '/api/admin/orders/export', allow: SHOP_STAFF },

@@ -161,7 +161,7 @@ describe('POST /api/orders', () => {
 });
 
 describe('GET /api/account/orders', () => {
-  it('lists only the signed-in buyer’s orders, and another fan gets 403 on the order', async () => {
+  it('lists only the signed-in buyer’s orders, and another fan gets 404 on the order', async () => {
     const shirt = await openShirt(staff);
     const { client, user } = await signedIn(t.app, t.deps.db, ['fan']);
     const placed = await client.post('/api/orders', { ...(await body(client, shirt.variants[0].id)), email: user.email, paymentToken: 'tok_mastercard' });
@@ -169,7 +169,7 @@ describe('GET /api/account/orders', () => {
     const mine = await client.get('/api/account/orders');
     expect(mine.body.items.map((o: { id: number }) => o.id)).toEqual([placed.body.order.id]);
     const other = (await signedIn(t.app, t.deps.db, ['fan'])).client;
-    expect((await other.get(`/api/orders/${placed.body.order.id}`)).status).toBe(403);
+    expect((await other.get(`/api/orders/${placed.body.order.id}`)).status).toBe(404);
     expect((await staff.get(`/api/orders/${placed.body.order.id}`)).status).toBe(200);
   });
 });

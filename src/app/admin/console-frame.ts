@@ -1,7 +1,7 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
@@ -19,10 +19,17 @@ import { CONSOLE_LINKS } from './console-nav';
         <h2 class="title">Console</h2>
         <mat-nav-list aria-label="Console sections">
           @for (link of links(); track link.path) {
+            @if (link.fullLoad) {
+            <a mat-list-item [href]="link.path" [activated]="isCurrent(link.path)" [attr.aria-current]="isCurrent(link.path) ? 'page' : null">
+              <mat-icon matListItemIcon aria-hidden="true">{{ link.icon }}</mat-icon>
+              <span matListItemTitle>{{ link.label }}</span>
+            </a>
+            } @else {
             <a mat-list-item [routerLink]="link.path" routerLinkActive #rla="routerLinkActive" [routerLinkActiveOptions]="{ exact: link.path === '/console' }" [activated]="rla.isActive" [attr.aria-current]="rla.isActive ? 'page' : null" (click)="narrow() && nav.close()">
               <mat-icon matListItemIcon aria-hidden="true">{{ link.icon }}</mat-icon>
               <span matListItemTitle>{{ link.label }}</span>
             </a>
+            }
           }
         </mat-nav-list>
       </mat-sidenav>
@@ -44,9 +51,14 @@ import { CONSOLE_LINKS } from './console-nav';
 })
 export class ConsoleFrame {
   private readonly session = inject(SessionStore);
+  private readonly router = inject(Router);
   protected readonly narrow = toSignal(inject(BreakpointObserver).observe('(max-width: 800px)').pipe(map((s) => s.matches)), { initialValue: false });
   protected readonly links = computed(() => {
     this.session.user();
     return CONSOLE_LINKS.filter((l) => this.session.hasAnyRole(l.roles));
   });
+
+  protected isCurrent(path: string): boolean {
+    return this.router.url.split('?')[0] === path;
+  }
 }

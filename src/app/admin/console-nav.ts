@@ -6,6 +6,11 @@ export interface ConsoleLink {
   label: string;
   icon: string;
   roles: readonly Role[];
+  /**
+   * Opened with a full page load: the server grants the camera only to a document loaded at this path
+   * (Permissions-Policy is fixed for a document's lifetime).
+   */
+  fullLoad?: true;
 }
 
 export const CONSOLE_LINKS: readonly ConsoleLink[] = [
@@ -15,7 +20,7 @@ export const CONSOLE_LINKS: readonly ConsoleLink[] = [
   { path: '/console/products', label: 'Products', icon: 'sell', roles: ['treasurer', 'admin'] },
   { path: '/console/shop-settings', label: 'Shop settings', icon: 'tune', roles: ['treasurer', 'admin'] },
   { path: '/console/members', label: 'Members', icon: 'badge', roles: ['treasurer', 'admin'] },
-  { path: '/console/check-in', label: 'Check-in', icon: 'qr_code_scanner', roles: ['editor', 'treasurer', 'admin'] },
+  { path: '/console/check-in', label: 'Check-in', icon: 'qr_code_scanner', roles: ['editor', 'treasurer', 'admin'], fullLoad: true },
   { path: '/console/posts', label: 'Build logs', icon: 'edit_note', roles: ['editor', 'admin'] },
   { path: '/console/sponsors', label: 'Sponsors', icon: 'handshake', roles: ['editor', 'treasurer', 'admin'] },
   { path: '/console/books', label: 'Books', icon: 'account_balance', roles: ['treasurer', 'admin'] },

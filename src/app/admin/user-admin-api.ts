@@ -4,8 +4,14 @@ import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
 import type { Role, User } from '../core/user';
 
+/** Consecutive failed sign-ins on an account, and whether they locked it. */
+export interface SignInLock {
+  failures: number;
+  locked: boolean;
+}
+
 export interface UserPage {
-  items: (User & { createdAt: string })[];
+  items: (User & { createdAt: string; signIn: SignInLock })[];
   total: number;
 }
 
@@ -18,6 +24,10 @@ export class UserAdminApi {
     let params = new HttpParams().set('page', query.page).set('pageSize', query.pageSize);
     if (query.q) params = params.set('q', query.q);
     return this.http.get<UserPage>('/api/admin/users', { params });
+  }
+
+  clearSignInLock(id: number): Observable<void> {
+    return this.http.delete<void>(`/api/admin/users/${id}/sign-in-lock`);
   }
 
   setRoles(id: number, roles: Role[]): Observable<{ user: User }> {

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/cor
 import { rxResource } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { firstValueFrom } from 'rxjs';
+import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -14,12 +15,12 @@ import { UserAdminApi } from './user-admin-api';
 
 const EDITABLE_ROLES: Role[] = ['fan', 'member', 'sponsor', 'editor', 'treasurer', 'admin'];
 
-/** Accounts with server-side paging and search; roles toggled in place. */
+/** Accounts with server-side paging and search; roles toggled in place; sign-in locks cleared. */
 @Component({
   selector: 'ps-user-list',
-  imports: [FormsModule, MatTableModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatButtonToggleModule, EmptyState],
+  imports: [FormsModule, MatButtonModule, MatTableModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatButtonToggleModule, EmptyState],
   templateUrl: './user-list.html',
-  styles: `.ps-page { max-width: none; } table { width: 100%; } mat-button-toggle-group { flex-wrap: wrap; }`,
+  styles: `.ps-page { max-width: none; } table { width: 100%; } mat-button-toggle-group { flex-wrap: wrap; } .lock { color: var(--mat-sys-error); font-weight: 600; margin-right: 8px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class UserList {
@@ -27,7 +28,7 @@ export class UserList {
   private readonly snackBar = inject(MatSnackBar);
 
   protected readonly roles = EDITABLE_ROLES;
-  protected readonly columns = ['displayName', 'email', 'roles'];
+  protected readonly columns = ['displayName', 'email', 'roles', 'signIn'];
   protected readonly query = signal({ q: '', page: 1, pageSize: 25 });
   protected readonly users = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.list(params) });
 
@@ -37,6 +38,16 @@ export class UserList {
 
   protected changePage(e: PageEvent): void {
     this.query.update((v) => ({ ...v, page: e.pageIndex + 1, pageSize: e.pageSize }));
+  }
+
+  /** Lifts the account's sign-in lock and address blocks, once staff know the owner is the one signing in. */
+  protected async clearLock(user: User): Promise<void> {
+    try {
+      await firstValueFrom(this.api.clearSignInLock(user.id));
+      this.snackBar.open(`Sign-in lock cleared for ${user.displayName}.`, undefined, { duration: 3000 });
+    } finally {
+      this.users.reload();
+    }
   }
 
   protected async saveRoles(user: User, roles: Role[]): Promise<void> {

@@ -12,7 +12,8 @@ export interface AdminSponsorRow {
   blurb: string | null;
   logoUrl: string | null;
   tier: string | null;
-  seasonTotalCents: number;
+  /** Only for the treasurer and admin; editors are not sent sponsor money. */
+  seasonTotalCents?: number;
 }
 
 export interface AdminCredit {
@@ -29,7 +30,8 @@ export interface AdminCredit {
 
 export interface SponsorDetail {
   sponsor: Omit<AdminSponsorRow, 'tier' | 'seasonTotalCents'>;
-  contacts: { userId: number; email: string; displayName: string }[];
+  /** `email` only for the treasurer and admin. */
+  contacts: { userId: number; email?: string; displayName: string }[];
   credits: AdminCredit[];
 }
 
@@ -42,6 +44,10 @@ export interface OverdueItem {
   delivered: number;
   dueOn: string;
 }
+
+type MoneyField = 'cashCents' | 'cashReceivedOn' | 'inKind' | 'inKindCents' | 'totalCents' | 'note';
+/** An agreement as staff get it: the money fields only for the treasurer and admin. */
+export type StaffAgreement = Omit<Agreement, MoneyField> & Partial<Pick<Agreement, MoneyField>>;
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -65,8 +71,8 @@ export class SponsorAdminApi {
   update(id: number, body: { name: string; website: string; blurb: string; logoUrl: string | null }): Observable<unknown> {
     return this.http.put(`/api/admin/sponsors/${id}`, body, quiet());
   }
-  ledger(id: number): Observable<{ agreements: Agreement[] }> {
-    return this.http.get<{ agreements: Agreement[] }>(`/api/admin/sponsors/${id}/ledger`);
+  ledger(id: number): Observable<{ agreements: StaffAgreement[] }> {
+    return this.http.get<{ agreements: StaffAgreement[] }>(`/api/admin/sponsors/${id}/ledger`);
   }
   addAgreement(id: number, body: object): Observable<{ id: number }> {
     return this.http.post<{ id: number }>(`/api/admin/sponsors/${id}/agreements`, body, quiet());

@@ -34,7 +34,8 @@ export class SponsorTable {
   protected readonly session = inject(SessionStore);
 
   protected readonly labels: Record<string, string> = KIND_LABELS;
-  protected readonly columns = ['name', 'tier', 'seasonTotalCents'];
+  // Editors are not sent season totals, so they get no money column.
+  protected readonly columns = computed(() => (this.session.hasAnyRole(['treasurer', 'admin']) ? ['name', 'tier', 'seasonTotalCents'] : ['name', 'tier']));
   protected readonly sponsors = rxResource({ stream: () => this.api.list() });
   protected readonly overdue = rxResource({ stream: () => this.api.overdue() });
   protected readonly tiers = rxResource({ stream: () => this.api.tiers() });
