@@ -1,8 +1,11 @@
 import { z } from 'zod';
 import { AppError, FieldErrors } from './app-error';
+import { assertStorableText } from './text-guard';
 
 /** Parses a request part against a schema; a mismatch answers 400 with one message per field. */
 export function parse<T extends z.ZodType>(schema: T, value: unknown): z.infer<T> {
+  // The request guard already checked JSON bodies and query strings; this covers the rest (multipart fields).
+  assertStorableText(value);
   const result = schema.safeParse(value ?? {});
   if (result.success) return result.data;
   const fields: FieldErrors = {};
