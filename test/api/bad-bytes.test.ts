@@ -65,3 +65,45 @@ describe('ASVS 5.1.3: U+0000 and lone surrogates in any text', () => {
     expect((await staff.get('/api/admin/members/1%00')).status).toBe(404);
   });
 });
+
+// OWASP ASVS 4.0.3 5.1.4 (structured data checked against its rules, here nesting depth): Markdown nested 2,000
+// levels deep overflowed the renderer's stack, was stored anyway, and then broke its public page for every visitor.
+describe('ASVS 5.1.4: Markdown nested too deep', () => {
+  const deep = '>'.repeat(2000) + ' boom';
+
+  it('refuses a product description that cannot be rendered with 400 naming the field', async () => {
+    const res = await staff.post('/api/admin/products', product({ name: 'Deep tee', description: deep }));
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toEqual({ description: expect.stringContaining('nested too deeply') });
+    const made = await staff.post('/api/admin/products', product({ name: 'Shallow tee', description: '> fine' }));
+    expect(made.status).toBe(201);
+    const patched = await staff.patch(`/api/admin/products/${made.body.product.id}`, { description: deep });
+    expect(patched.status).toBe(400);
+    expect(patched.body.error.fields).toHaveProperty('description');
+  });
+
+  it('refuses a build log body and its preview with 400 naming the field', async () => {
+    const res = await staff.post('/api/admin/posts', { title: 'Deep post', markdown: deep, status: 'draft' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toHaveProperty('markdown');
+    const preview = await staff.post('/api/admin/posts/preview', { markdown: deep });
+    expect(preview.status).toBe(400);
+    expect(preview.body.error.fields).toHaveProperty('markdown');
+  });
+
+  it('still shows the public pages when such a value is already stored', async () => {
+    const made = await staff.post('/api/admin/products', product({ name: 'Stored deep tee', description: 'fine for now' }));
+    await t.deps.db('shop_products').where('id', made.body.product.id).update({ description_md: deep });
+    const page = await new Client(t.app).get(`/api/products/${made.body.product.slug}`);
+    expect(page.status).toBe(200);
+    expect(page.body.descriptionHtml).toContain('boom');
+    expect(page.body.descriptionHtml).not.toContain('<blockquote>');
+
+    const post = await staff.post('/api/admin/posts', { title: `Stored deep post ${Date.now()}`, markdown: 'fine for now', status: 'published' });
+    await t.deps.db('posts').where('id', post.body.id).update({ markdown: deep });
+    const read = await new Client(t.app).get(`/api/posts/${post.body.slug}`);
+    expect(read.status).toBe(200);
+    expect(read.body.html).toContain('boom');
+    expect((await new Client(t.app).get('/feeds/build-logs.rss')).status).toBe(200);
+  });
+});
