@@ -6,7 +6,9 @@ import type { MemberAdminService } from './member-admin-service';
 import type { RosterQuery } from './membership-repository';
 import { MembershipSettingsInputSchema } from './membership-settings';
 
-const RosterSchema = z.object({
+// Strict: these filters choose whom an e-mail goes to and what an export holds, so a misspelt key must not
+// quietly widen the choice to every member.
+const RosterSchema = z.strictObject({
   status: z.enum(['pending', 'active', 'lapsing', 'lapsed']).optional().or(z.literal('').transform(() => undefined)),
   planId: fields.id.optional().or(z.literal('').transform(() => undefined)),
   certificationLevel: z.string().trim().max(16).optional().transform((v) => v || undefined),
@@ -16,6 +18,12 @@ const RosterSchema = z.object({
   dir: z.enum(['asc', 'desc']).default('asc'),
   page: fields.page,
   pageSize: fields.pageSize,
+});
+
+const EmailSchema = z.strictObject({
+  filters: RosterSchema.default(RosterSchema.parse({})),
+  subject: z.string().trim().min(1, 'Subject is required.').max(200),
+  text: z.string().trim().min(1, 'Message is required.').max(20000),
 });
 
 const rosterQuery = (value: unknown): { query: RosterQuery; page: number; pageSize: number } => {
@@ -61,8 +69,9 @@ export function memberAdminRoutes(service: MemberAdminService): Router {
     res.json(await service.summary());
   });
   r.post('/email', async (req, res) => {
-    const body = parse(z.object({ filters: z.record(z.string(), z.unknown()).default({}), subject: z.string().trim().min(1, 'Subject is required.').max(200), text: z.string().trim().min(1, 'Message is required.').max(20000) }), req.body);
-    res.json(await service.emailRoster(rosterQuery(body.filters).query, { subject: body.subject, text: body.text }));
+    const body = parse(EmailSchema, req.body);
+    const { page: _page, pageSize: _pageSize, ...filters } = body.filters;
+    res.json(await service.emailRoster(filters, { subject: body.subject, text: body.text }));
   });
   r.get('/plans', async (_req, res) => {
     res.json(await service.plans());

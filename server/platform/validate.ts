@@ -10,8 +10,13 @@ export function parse<T extends z.ZodType>(schema: T, value: unknown): z.infer<T
   if (result.success) return result.data;
   const fields: FieldErrors = {};
   for (const issue of result.error.issues) {
-    const key = issue.path.length ? issue.path.join('.') : '_';
-    fields[key] ??= issue.message;
+    const at = issue.path.join('.');
+    // A strict object names each key it does not know, so a misspelt filter shows beside itself.
+    if (issue.code === 'unrecognized_keys') {
+      for (const k of issue.keys) fields[at ? `${at}.${k}` : k] ??= 'Not a field this request takes; check the spelling.';
+      continue;
+    }
+    fields[at || '_'] ??= issue.message;
   }
   throw new AppError(400, 'validation_failed', 'Some fields need attention.', fields);
 }
