@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { fields, parse } from '../platform/validate';
 import { requireRole } from '../platform/require-role';
 import type { MemberAdminService } from './member-admin-service';
+import type { FlyingStatusService } from './flying-status-service';
 import type { RosterQuery } from './membership-repository';
 import { MembershipSettingsInputSchema } from './membership-settings';
 
@@ -52,8 +53,19 @@ const NewPlanSchema = PlanFields.extend({
   sortOrder: PlanFields.shape.sortOrder.default(0),
 });
 
+const Part = z.enum(['association', 'certification'], { error: 'Choose the association membership or the certification.' });
+
+// The values staff saw come along, so a value the member changed meanwhile is not marked verified unseen.
+const VerifySchema = z.strictObject({
+  what: Part,
+  against: z.string({ error: 'Say what you checked it against.' }).trim().min(3, 'Say what you checked it against (for example: association card, seen at the field).').max(200, 'Use at most 200 characters.'),
+  associationNumber: z.string().trim().max(40).nullish(),
+  associationExpires: fields.date.nullish(),
+  certificationLevel: z.string().trim().max(16).optional(),
+});
+
 /** The treasurer's console: roster, member records, payments, refunds, summary, roster e-mail, plans, settings. */
-export function memberAdminRoutes(service: MemberAdminService): Router {
+export function memberAdminRoutes(service: MemberAdminService, flying: FlyingStatusService): Router {
   const r = Router();
   r.use(requireRole('treasurer', 'admin'));
   r.get('/', async (req, res) => {
@@ -109,6 +121,16 @@ export function memberAdminRoutes(service: MemberAdminService): Router {
     );
     res.json(await service.update(req.user!.id, id, body));
   });
+  r.post('/:id/verifications', async function verifyClaim(req, res) {
+    const { id } = parse(z.object({ id: fields.id }), req.params);
+    await flying.verify(req.user!.id, id, parse(VerifySchema, req.body));
+    res.json(await service.detail(id));
+  });
+  r.delete('/:id/verifications/:what', async function withdrawVerification(req, res) {
+    const { id, what } = parse(z.object({ id: fields.id, what: Part }), req.params);
+    await flying.withdraw(req.user!.id, id, what);
+    res.json(await service.detail(id));
+  });
   r.post('/:id/payments', async (req, res) => {
     const { id } = parse(z.object({ id: fields.id }), req.params);
     const body = parse(
@@ -131,7 +153,7 @@ export function memberAdminRoutes(service: MemberAdminService): Router {
 }
 
 /** Launch-day check-in, for any staff member at the field. */
-export function checkInRoutes(service: MemberAdminService): Router {
+export function checkInRoutes(service: FlyingStatusService): Router {
   const r = Router();
   r.post('/', requireRole('editor', 'treasurer', 'admin'), async (req, res) => {
     const { token } = parse(z.object({ token: z.string({ error: 'Paste or scan a card code.' }).trim().min(1, 'Paste or scan a card code.').max(500) }), req.body);

@@ -5,6 +5,7 @@ import { CheckInTokens } from './check-in-token';
 import { DuesSettlement } from './dues-settlement';
 import { memberAdminRoutes, checkInRoutes } from './member-admin-routes';
 import { MemberAdminService } from './member-admin-service';
+import { FlyingStatusService } from './flying-status-service';
 import { MembershipJobs } from './membership-jobs';
 import { MembershipRepository } from './membership-repository';
 import { membershipRoutes } from './membership-routes';
@@ -18,14 +19,15 @@ export function membershipFeature(platform: Platform): Feature {
   const cardDues = new CardDues(db, repo, settlement, platform.settings, payments);
   const tokens = new CheckInTokens(config.sessionSecret);
   const members = new MembershipService(db, repo, platform.settings, settlement, cardDues, tokens, clock, config.clubTimeZone);
-  const admin = new MemberAdminService(db, repo, platform.settings, settlement, payments, tokens, clock, config.clubTimeZone);
+  const admin = new MemberAdminService(db, repo, platform.settings, settlement, payments, clock, config.clubTimeZone);
+  const flying = new FlyingStatusService(db, repo, platform.settings, tokens, clock, config.clubTimeZone);
   const jobs = new MembershipJobs(db, repo, platform.settings, settlement, cardDues, clock, config.clubTimeZone);
   return {
     name: 'membership',
     mount(api) {
       api('/membership', membershipRoutes(members));
-      api('/admin/members', memberAdminRoutes(admin));
-      api('/admin/checkin', checkInRoutes(admin));
+      api('/admin/members', memberAdminRoutes(admin, flying));
+      api('/admin/checkin', checkInRoutes(flying));
     },
     dashboard: { membersByStatus: async () => (await admin.summary()).byStatus, membersLapsingWithin: (days) => admin.lapsingWithin(days) },
     jobs: [
