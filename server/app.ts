@@ -19,6 +19,7 @@ import { rotateSessionOnRoleChange } from './platform/session-rotation';
 import { apiNotFound, errorHandler } from './platform/error-handler';
 import type { Mount, Platform } from './platform/feature';
 import { hstsOverHttps, noStore, permissionsPolicy, securityHeaders } from './platform/security-headers';
+import { refuseUnstorableText } from './platform/text-guard';
 import { createSessionMiddleware } from './platform/session';
 import { SettingsService } from './settings/settings-service';
 import { DiskStorage } from './uploads/disk-storage';
@@ -84,6 +85,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   api.use(passport.session());
   api.use(rotateSessionOnRoleChange);
   api.use(csrfProtection(CSRF_EXEMPT));
+  api.use(refuseUnstorableText);
   apiMount('/auth', authRoutes(auth));
   apiMount('/account', accountRoutes(auth));
   apiMount('/admin/users', userAdminRoutes(auth.users, auth.signInGuard));

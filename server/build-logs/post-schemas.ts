@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { uploadedImage } from '../sponsors/sponsor-schemas';
 import { fields } from '../platform/validate';
+import { refuseUnrenderable } from '../markdown/markdown-field';
 
 const tag = z.string().trim().toLowerCase().regex(/^[a-z0-9][a-z0-9-]{0,29}$/, 'Tags are lower-case words or hyphenated words, up to 30 characters.');
 
@@ -12,7 +13,7 @@ export const PostBody = z.object({
     .regex(/^[a-z0-9][a-z0-9-]{0,119}$/, 'Use lower-case letters, digits and hyphens.')
     .optional()
     .or(z.literal('').transform(() => undefined)),
-  markdown: z.string({ error: 'Write the post first.' }).min(1, 'Write the post first.').max(200_000, 'The post is too long (200,000 characters at most).'),
+  markdown: z.string({ error: 'Write the post first.' }).min(1, 'Write the post first.').max(200_000, 'The post is too long (200,000 characters at most).').superRefine(refuseUnrenderable),
   summary: z.string().trim().max(400, 'Use at most 400 characters.').optional(),
   coverUrl: uploadedImage,
   tags: z.array(tag, { error: 'Send a list of tags.' }).max(12, 'At most 12 tags.').optional(),
@@ -27,7 +28,7 @@ export const PostBody = z.object({
 });
 
 export const PreviewBody = z.object({
-  markdown: z.string({ error: 'Send the Markdown to preview.' }).max(200_000, 'The post is too long (200,000 characters at most).'),
+  markdown: z.string({ error: 'Send the Markdown to preview.' }).max(200_000, 'The post is too long (200,000 characters at most).').superRefine(refuseUnrenderable),
   title: z.string().max(160).optional(),
   summary: z.string().max(400).optional(),
   tags: z.array(z.string().max(30)).max(12).optional(),

@@ -67,10 +67,16 @@ const SANITIZE: sanitizeHtml.IOptions = {
   transformTags: {
     // Task-list checkboxes only, and never editable.
     input: (tagName, attribs) => (attribs.type === 'checkbox' ? { tagName, attribs: { type: 'checkbox', disabled: '', ...(attribs.checked !== undefined ? { checked: '' } : {}) } } : { tagName: 'span', attribs: {} }),
+    // Browsers ignore spaces around an href, so the check must too (" https://x" is external); any link that opens
+    // another browsing context cannot hand it window.opener, whatever rel the author wrote.
     a: (tagName, attribs) => {
-      const href = attribs.href ?? '';
+      const { rel, ...rest } = attribs;
+      const href = (attribs.href ?? '').trim();
       const external = /^https?:\/\//i.test(href);
-      return { tagName, attribs: { ...attribs, ...(external ? { rel: 'noopener noreferrer', target: '_blank' } : {}) } };
+      const target = external ? '_blank' : rest.target;
+      const withHref = attribs.href === undefined ? rest : { ...rest, href };
+      if (target !== undefined) return { tagName, attribs: { ...withHref, rel: 'noopener noreferrer', target } };
+      return { tagName, attribs: { ...withHref, ...(rel !== undefined ? { rel } : {}) } };
     },
     img: (tagName, attribs) => ({ tagName, attribs: { ...attribs, loading: 'lazy' } }),
   },
@@ -82,19 +88,103 @@ export interface RenderOptions {
   sponsorNames?: ReadonlyMap<string, string>;
 }
 
-/** Markdown to HTML that is safe to put on a page. */
-export function renderMarkdown(markdown: string, options: RenderOptions = {}): string {
-  const tokens = marked.lexer(markdown);
+/** The longest Markdown any field stores (the post body); the shorter fields have their own caps in their schemas. */
+export const MAX_MARKDOWN_LENGTH = 200_000;
+
+/**
+ * How deep the token tree may go. marked and the HTML serialiser recurse per level, so a few thousand nested quotes
+ * or lists overflow the stack; 48 levels is far beyond what a build log uses (a list nested ten deep is about 30).
+ */
+export const MAX_MARKDOWN_DEPTH = 48;
+
+/** Markdown that the pipeline refuses to render: too long, nested too deep, or beyond the renderer's stack. */
+export class UnrenderableMarkdown extends Error {}
+
+const childrenOf = (t: Record<string, unknown>): unknown[] => {
+  const rows = Array.isArray(t.rows) ? (t.rows as unknown[]).flat() : [];
+  return [...(Array.isArray(t.tokens) ? t.tokens : []), ...(Array.isArray(t.items) ? t.items : []), ...(Array.isArray(t.header) ? t.header : []), ...rows];
+};
+
+/** The depth of a token tree, walked with an explicit stack so the walk itself cannot overflow. */
+function tokenDepth(tokens: unknown[]): number {
+  let deepest = 0;
+  const stack: [unknown, number][] = tokens.map((t) => [t, 1]);
+  while (stack.length) {
+    const [t, depth] = stack.pop()!;
+    if (depth > deepest) deepest = depth;
+    if (deepest > MAX_MARKDOWN_DEPTH) return deepest;
+    if (t && typeof t === 'object') for (const c of childrenOf(t as Record<string, unknown>)) stack.push([c, depth + 1]);
+  }
+  return deepest;
+}
+
+function lex(markdown: string): Token[] {
+  if (markdown.length > MAX_MARKDOWN_LENGTH) throw new UnrenderableMarkdown(`The text is too long (at most ${MAX_MARKDOWN_LENGTH.toLocaleString('en-CA')} characters).`);
+  const tooDeep = () => new UnrenderableMarkdown(`The text is nested too deeply (quotes, lists or emphasis more than ${MAX_MARKDOWN_DEPTH} levels inside each other).`);
+  let tokens: Token[];
+  try {
+    tokens = marked.lexer(markdown);
+  } catch (err) {
+    if (err instanceof RangeError) throw tooDeep();
+    throw err;
+  }
+  if (tokenDepth(tokens) > MAX_MARKDOWN_DEPTH) throw tooDeep();
+  return tokens;
+}
+
+/**
+ * Markdown to HTML that is safe to put on a page, for text about to be stored: throws UnrenderableMarkdown (with a
+ * message for the author) for text the pipeline cannot render, so it is refused before it is saved.
+ */
+export function renderMarkdownChecked(markdown: string, options: RenderOptions = {}): string {
+  const tokens = lex(markdown);
   marked.walkTokens(tokens, (token: Token) => {
     if (token.type === 'psCredit') (token as CreditToken).sponsorName = options.sponsorNames?.get((token as CreditToken).slug);
   });
-  return sanitizeHtml(marked.parser(tokens), SANITIZE);
+  try {
+    return sanitizeHtml(marked.parser(tokens), SANITIZE);
+  } catch (err) {
+    if (err instanceof RangeError) throw new UnrenderableMarkdown('The text is nested too deeply to show.');
+    throw err;
+  }
+}
+
+/** Why this Markdown cannot be stored, or null when it renders (the write paths' check). */
+export function markdownProblem(markdown: string): string | null {
+  try {
+    renderMarkdownChecked(markdown);
+    return null;
+  } catch (err) {
+    if (err instanceof UnrenderableMarkdown) return err.message;
+    throw err;
+  }
+}
+
+/**
+ * Markdown to HTML for reading: a value stored before the checks (or by a path that skipped them) never breaks the
+ * page; it is shown as escaped plain text instead.
+ */
+export function renderMarkdown(markdown: string, options: RenderOptions = {}): string {
+  try {
+    return renderMarkdownChecked(markdown, options);
+  } catch (err) {
+    if (!(err instanceof UnrenderableMarkdown)) throw err;
+    return `<p>${escapeHtml(markdown.slice(0, MAX_MARKDOWN_LENGTH))}</p>`;
+  }
 }
 
 /** The sponsor slugs that credit markers name, in order of appearance, once each (markers inside code do not count). */
 export function creditMarkerSlugs(markdown: string): string[] {
   const slugs: string[] = [];
-  marked.walkTokens(marked.lexer(markdown), (token: Token) => {
+  let tokens: Token[];
+  try {
+    tokens = lex(markdown);
+  } catch (err) {
+    // Text that cannot be rendered credits nobody; the write paths refuse it before this matters.
+    if (err instanceof UnrenderableMarkdown) return [];
+    throw err;
+  }
+  marked.walkTokens(tokens, (token: Token) => {
     if (token.type === 'psCredit' && !slugs.includes((token as CreditToken).slug)) slugs.push((token as CreditToken).slug);
   });
   return slugs;

@@ -4,10 +4,13 @@ import { fields, parse } from '../platform/validate';
 import { requireRole } from '../platform/require-role';
 import type { DuesRefunds } from './dues-refunds';
 import type { MemberAdminService } from './member-admin-service';
+import type { FlyingStatusService } from './flying-status-service';
 import type { RosterQuery } from './membership-repository';
 import { MembershipSettingsInputSchema } from './membership-settings';
 
-const RosterSchema = z.object({
+// Strict: these filters choose whom an e-mail goes to and what an export holds, so a misspelt key must not
+// quietly widen the choice to every member.
+const RosterSchema = z.strictObject({
   status: z.enum(['pending', 'active', 'lapsing', 'lapsed']).optional().or(z.literal('').transform(() => undefined)),
   planId: fields.id.optional().or(z.literal('').transform(() => undefined)),
   certificationLevel: z.string().trim().max(16).optional().transform((v) => v || undefined),
@@ -17,6 +20,12 @@ const RosterSchema = z.object({
   dir: z.enum(['asc', 'desc']).default('asc'),
   page: fields.page,
   pageSize: fields.pageSize,
+});
+
+const EmailSchema = z.strictObject({
+  filters: RosterSchema.default(RosterSchema.parse({})),
+  subject: z.string().trim().min(1, 'Subject is required.').max(200),
+  text: z.string().trim().min(1, 'Message is required.').max(20000),
 });
 
 const rosterQuery = (value: unknown): { query: RosterQuery; page: number; pageSize: number } => {
@@ -45,8 +54,19 @@ const NewPlanSchema = PlanFields.extend({
   sortOrder: PlanFields.shape.sortOrder.default(0),
 });
 
+const Part = z.enum(['association', 'certification'], { error: 'Choose the association membership or the certification.' });
+
+// The values staff saw come along, so a value the member changed meanwhile is not marked verified unseen.
+const VerifySchema = z.strictObject({
+  what: Part,
+  against: z.string({ error: 'Say what you checked it against.' }).trim().min(3, 'Say what you checked it against (for example: association card, seen at the field).').max(200, 'Use at most 200 characters.'),
+  associationNumber: z.string().trim().max(40).nullish(),
+  associationExpires: fields.date.nullish(),
+  certificationLevel: z.string().trim().max(16).optional(),
+});
+
 /** The treasurer's console: roster, member records, payments, refunds, summary, roster e-mail, plans, settings. */
-export function memberAdminRoutes(service: MemberAdminService, refunds: DuesRefunds): Router {
+export function memberAdminRoutes(service: MemberAdminService, refunds: DuesRefunds, flying: FlyingStatusService): Router {
   const r = Router();
   r.use(requireRole('treasurer', 'admin'));
   r.get('/', async (req, res) => {
@@ -62,8 +82,9 @@ export function memberAdminRoutes(service: MemberAdminService, refunds: DuesRefu
     res.json(await service.summary());
   });
   r.post('/email', async (req, res) => {
-    const body = parse(z.object({ filters: z.record(z.string(), z.unknown()).default({}), subject: z.string().trim().min(1, 'Subject is required.').max(200), text: z.string().trim().min(1, 'Message is required.').max(20000) }), req.body);
-    res.json(await service.emailRoster(rosterQuery(body.filters).query, { subject: body.subject, text: body.text }));
+    const body = parse(EmailSchema, req.body);
+    const { page: _page, pageSize: _pageSize, ...filters } = body.filters;
+    res.json(await service.emailRoster(filters, { subject: body.subject, text: body.text }));
   });
   r.get('/plans', async (_req, res) => {
     res.json(await service.plans());
@@ -101,6 +122,16 @@ export function memberAdminRoutes(service: MemberAdminService, refunds: DuesRefu
     );
     res.json(await service.update(req.user!.id, id, body));
   });
+  r.post('/:id/verifications', async function verifyClaim(req, res) {
+    const { id } = parse(z.object({ id: fields.id }), req.params);
+    await flying.verify(req.user!.id, id, parse(VerifySchema, req.body));
+    res.json(await service.detail(id));
+  });
+  r.delete('/:id/verifications/:what', async function withdrawVerification(req, res) {
+    const { id, what } = parse(z.object({ id: fields.id, what: Part }), req.params);
+    await flying.withdraw(req.user!.id, id, what);
+    res.json(await service.detail(id));
+  });
   r.post('/:id/payments', async (req, res) => {
     const { id } = parse(z.object({ id: fields.id }), req.params);
     const body = parse(
@@ -126,7 +157,7 @@ export function memberAdminRoutes(service: MemberAdminService, refunds: DuesRefu
 }
 
 /** Launch-day check-in, for any staff member at the field. */
-export function checkInRoutes(service: MemberAdminService): Router {
+export function checkInRoutes(service: FlyingStatusService): Router {
   const r = Router();
   r.post('/', requireRole('editor', 'treasurer', 'admin'), async (req, res) => {
     const { token } = parse(z.object({ token: z.string({ error: 'Paste or scan a card code.' }).trim().min(1, 'Paste or scan a card code.').max(500) }), req.body);

@@ -4,12 +4,13 @@ import { enqueueEmail } from '../mail/outbox';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import { dateInZone, type Clock } from '../platform/clock';
 import type { SettingsService } from '../settings/settings-service';
-import type { CheckInTokens } from './check-in-token';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { dateOnly, type MembershipRepository, type AsOf, type PlanRow, type RosterQuery } from './membership-repository';
 import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
-import { liveStatus, membershipView, paymentView, planView, rosterView } from './membership-views';
+import { membershipView, paymentView, planView, rosterView } from './membership-views';
 import { toCsv } from '../platform/csv';
+import { withVoidedVerifications } from './flying-status';
+import { verificationsView } from './flying-status-service';
 import { termForPayment } from './terms';
 
 /** Staff edits of a member's record. */
@@ -23,14 +24,13 @@ export interface MemberPatch {
   emergencyContact?: string;
 }
 
-/** The treasurer's side: roster, member detail, manual payments, refunds, summary, roster e-mail, check-in, plans. */
+/** The treasurer's side: roster, member detail, manual payments, refunds, summary, roster e-mail, plans. */
 export class MemberAdminService {
   constructor(
     private readonly db: Knex,
     private readonly repo: MembershipRepository,
     private readonly settings: SettingsService,
     private readonly settlement: DuesSettlement,
-    private readonly tokens: CheckInTokens,
     private readonly clock: Clock,
     private readonly timeZone: string,
   ) {}
@@ -70,6 +70,7 @@ export class MemberAdminService {
     const user = await this.db('users').where('id', m.user_id).first('email', 'marketing_opt_out');
     return {
       member: { ...membershipView(m, plan, this.today(), termPolicy(s), s), email: user?.email ?? null, mailOptOut: user?.marketing_opt_out ?? false },
+      verifications: await verificationsView(this.repo, m),
       familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: dateOnly(f.date_of_birth) })),
       payments: payments.map(paymentView),
       audit: audit.map((a) => ({ id: Number(a.id), action: a.action, detail: a.detail, actor: a.actor_name, at: a.created_at })),
@@ -96,8 +97,10 @@ export class MemberAdminService {
         changes[key] = { from: before, to: patch[key] };
       }
       if (!Object.keys(row).length) return;
-      await this.repo.update(trx, id, row);
-      await this.repo.addAudit(trx, id, actorId, 'record_edited', changes);
+      // A corrected value is no longer the one staff checked: it needs checking again.
+      const full = withVoidedVerifications(m, row);
+      await this.repo.update(trx, id, full);
+      await this.repo.addAudit(trx, id, actorId, 'record_edited', { ...changes, ...('association_verified_at' in full ? { associationVerification: 'voided' } : {}), ...('certification_verified_at' in full ? { certificationVerification: 'voided' } : {}) });
     });
     return this.detail(id);
   }
@@ -163,24 +166,6 @@ export class MemberAdminService {
       }
     });
     return { queued, skippedOptedOut: skipped };
-  }
-
-  /** Launch-day check-in: a tampered, foreign or unmatched token is `unknown`. */
-  async checkIn(token: string) {
-    const verified = this.tokens.verify(token);
-    const m = verified ? await this.repo.byNumber(verified.memberNumber) : undefined;
-    if (!m || m.status === 'pending') return { status: 'unknown' as const, memberNumber: null, name: null, associationExpires: null, associationCurrent: null, termEnd: null, certificationLevel: null };
-    const today = this.today();
-    const associationExpires = dateOnly(m.association_expires);
-    return {
-      status: liveStatus(m, today, await this.policy()),
-      memberNumber: m.member_number,
-      name: m.legal_name,
-      associationExpires,
-      associationCurrent: associationExpires !== null && associationExpires >= today,
-      termEnd: dateOnly(m.term_end),
-      certificationLevel: m.certification_level,
-    };
   }
 
   async plans() {

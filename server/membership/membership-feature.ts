@@ -6,6 +6,7 @@ import { DuesRefunds } from './dues-refunds';
 import { DuesSettlement } from './dues-settlement';
 import { memberAdminRoutes, checkInRoutes } from './member-admin-routes';
 import { MemberAdminService } from './member-admin-service';
+import { FlyingStatusService } from './flying-status-service';
 import { MembershipJobs } from './membership-jobs';
 import { MembershipRepository } from './membership-repository';
 import { membershipRoutes } from './membership-routes';
@@ -19,15 +20,16 @@ export function membershipFeature(platform: Platform): Feature {
   const cardDues = new CardDues(db, repo, settlement, platform.settings, payments);
   const tokens = new CheckInTokens(config.sessionSecret);
   const members = new MembershipService(db, repo, platform.settings, settlement, cardDues, tokens, clock, config.clubTimeZone);
-  const admin = new MemberAdminService(db, repo, platform.settings, settlement, tokens, clock, config.clubTimeZone);
+  const admin = new MemberAdminService(db, repo, platform.settings, settlement, clock, config.clubTimeZone);
   const refunds = new DuesRefunds(db, repo, platform.settings, settlement, payments, clock, config.clubTimeZone, platform.deps.log);
+  const flying = new FlyingStatusService(db, repo, platform.settings, tokens, clock, config.clubTimeZone);
   const jobs = new MembershipJobs(db, repo, platform.settings, settlement, cardDues, clock, config.clubTimeZone);
   return {
     name: 'membership',
     mount(api) {
       api('/membership', membershipRoutes(members));
-      api('/admin/members', memberAdminRoutes(admin, refunds));
-      api('/admin/checkin', checkInRoutes(admin));
+      api('/admin/members', memberAdminRoutes(admin, refunds, flying));
+      api('/admin/checkin', checkInRoutes(flying));
     },
     dashboard: { membersByStatus: async () => (await admin.summary()).byStatus, membersLapsingWithin: (days) => admin.lapsingWithin(days) },
     jobs: [

@@ -43,6 +43,12 @@ export interface MembershipRow {
   association_expires: DateCol | null;
   certification_level: string;
   certification_date: DateCol | null;
+  association_verified_at: Date | null;
+  association_verified_by: string | null;
+  association_verified_against: string | null;
+  certification_verified_at: Date | null;
+  certification_verified_by: string | null;
+  certification_verified_against: string | null;
   waiver_version: string;
   waiver_accepted_at: Date;
   safety_code_version: string;
@@ -55,6 +61,9 @@ export interface MembershipRow {
   created_at: Date;
   updated_at: Date;
 }
+
+/** The columns staff verification writes; a new membership starts with none of them. */
+export type VerificationColumn = `${'association' | 'certification'}_verified_${'at' | 'by' | 'against'}`;
 
 export interface PaymentRow {
   id: string;
@@ -166,12 +175,20 @@ export class MembershipRepository {
     return db<MembershipRow>('memberships').where('id', id).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
   }
 
+  /** Display names of staff by id (who verified a record). */
+  async userNames(ids: (string | null)[], db: Db = this.db): Promise<Map<string, string>> {
+    const wanted = [...new Set(ids.filter((i): i is string => i !== null))];
+    if (!wanted.length) return new Map();
+    const rows: { id: string; display_name: string }[] = await db('users').whereIn('id', wanted).select('id', 'display_name');
+    return new Map(rows.map((r) => [String(r.id), r.display_name]));
+  }
+
   byNumber(memberNumber: string, db: Db = this.db): Promise<MembershipRow | undefined> {
     return db<MembershipRow>('memberships').where('member_number', memberNumber).first();
   }
 
   /** Inserts a membership with the next member number from the sequence (never reused, even after a rollback). */
-  async insert(trx: Knex.Transaction, row: Omit<MembershipRow, 'id' | 'member_number' | 'created_at' | 'updated_at' | 'renewal_attempts' | 'next_renewal_attempt_on' | 'renewal_failed_at'>): Promise<MembershipRow> {
+  async insert(trx: Knex.Transaction, row: Omit<MembershipRow, 'id' | 'member_number' | 'created_at' | 'updated_at' | 'renewal_attempts' | 'next_renewal_attempt_on' | 'renewal_failed_at' | VerificationColumn>): Promise<MembershipRow> {
     const [created] = await trx<MembershipRow>('memberships')
       .insert({ ...row, member_number: trx.raw("lpad(nextval('membership_number_seq')::text, 5, '0')") as unknown as string })
       .returning('*');

@@ -11,6 +11,7 @@ import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { dateOnly, type MembershipRepository, type MembershipRow, type PlanRow } from './membership-repository';
 import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
 import { membershipView, planView } from './membership-views';
+import { withVoidedVerifications } from './flying-status';
 import { duesFor, isJuniorOn, termForPayment, type Term } from './terms';
 
 /** The member profile as the join form sends it. */
@@ -54,6 +55,12 @@ function paidMembership(result: CardDuesResult, inProgress: () => AppError): Mem
   if (result.outcome === 'in_progress') throw inProgress();
   throw result.outcome === 'declined' ? declined(result.message) : unknownOutcome();
 }
+
+/** For the audit: which verifications an edit voided. */
+const voidedNote = (patch: Partial<MembershipRow>) => {
+  const voided = [...('association_verified_at' in patch ? ['association'] : []), ...('certification_verified_at' in patch ? ['certification'] : [])];
+  return voided.length ? { verificationVoided: voided } : {};
+};
 
 /** Joining, renewing and the member's own card: the rules, with no HTTP. */
 export class MembershipService {
@@ -135,7 +142,7 @@ export class MembershipService {
         // A second submit that arrives after the first one paid finds the membership no longer pending.
         if (existing && (await this.repo.byId(Number(existing.id), trx, true))!.status !== 'pending') throw conflict('already_member', 'You already have a membership; renew it instead.');
         const created = existing
-          ? await this.repo.update(trx, Number(existing.id), row)
+          ? await this.repo.update(trx, Number(existing.id), withVoidedVerifications(existing, row))
           : await this.repo.insert(trx, { ...row, user_id: String(user.id), status: 'pending', term_start: null, term_end: null, processor_customer_id: null });
         await this.repo.replaceFamily(trx, Number(created.id), plan.eligibility === 'family' ? (input.profile.familyMembers ?? []) : []);
         await this.repo.addAudit(trx, Number(created.id), user.id, existing ? 'profile_resubmitted' : 'joined', { plan: plan.code, waiverVersion: s.waiverVersion, safetyCodeVersion: s.safetyCodeVersion });
@@ -174,8 +181,10 @@ export class MembershipService {
         Object.assign(patch, { waiver_version: s.waiverVersion, waiver_accepted_at: at, safety_code_version: s.safetyCodeVersion, safety_code_accepted_at: at });
       }
       Object.assign(patch, this.profilePatch(s, input.profile ?? {}));
-      const row = await this.repo.update(trx, Number(m.id), patch);
-      await this.repo.addAudit(trx, Number(m.id), user.id, 'renewal_started', { plan: plan.code, changed: Object.keys(patch) });
+      const locked = (await this.repo.byId(Number(m.id), trx, true))!;
+      const full = withVoidedVerifications(locked, patch);
+      const row = await this.repo.update(trx, Number(m.id), full);
+      await this.repo.addAudit(trx, Number(m.id), user.id, 'renewal_started', { plan: plan.code, changed: Object.keys(patch), ...voidedNote(full) });
       return row;
     });
     // The saved card's key is the same for every request of one attempt, so simultaneous clicks share one charge.
@@ -208,8 +217,10 @@ export class MembershipService {
       const m = await this.repo.byUser(user.id, trx, true);
       if (!m) throw notFound('You have no membership yet.');
       if (!Object.keys(patch).length) return;
-      await this.repo.update(trx, Number(m.id), patch);
-      await this.repo.addAudit(trx, Number(m.id), user.id, 'profile_updated', { changed: Object.keys(patch) });
+      // A member's own edit of a verified value makes it a claim again until staff check it anew.
+      const full = withVoidedVerifications(m, patch);
+      await this.repo.update(trx, Number(m.id), full);
+      await this.repo.addAudit(trx, Number(m.id), user.id, 'profile_updated', { changed: Object.keys(patch), ...voidedNote(full) });
     });
     return this.me(user.id);
   }
@@ -250,6 +261,9 @@ export class MembershipService {
         associationName: s.associationName,
         associationNumber: membership.associationNumber,
         associationExpires: membership.associationExpires,
+        // The card shows a claim as a claim: staff at the field read these before trusting the printed level.
+        associationVerified: membership.associationVerifiedAt !== null,
+        certificationVerified: membership.certificationVerifiedAt !== null,
         token,
         qrSvg,
       },

@@ -1,5 +1,6 @@
 import { dateOnly, type MembershipRow, type PaymentRow, type PlanRow, type RosterRow } from './membership-repository';
 import type { MembershipSettings } from './membership-settings';
+import { associationVerification, certificationVerification } from './flying-status';
 import { addDays, statusOn, type MembershipStatus, type TermPolicy } from './terms';
 
 /** A plan as the API shows it. */
@@ -34,6 +35,9 @@ export function membershipView(m: MembershipRow, plan: PlanRow | undefined, toda
     associationExpires: dateOnly(m.association_expires),
     certificationLevel: m.certification_level,
     certificationDate: dateOnly(m.certification_date),
+    // Claims until staff have seen the card or certificate; a changed value is a claim again.
+    associationVerifiedAt: associationVerification(m)?.at ?? null,
+    certificationVerifiedAt: certificationVerification(m)?.at ?? null,
     waiverVersion: m.waiver_version,
     waiverAcceptedAt: m.waiver_accepted_at,
     safetyCodeVersion: m.safety_code_version,

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { z } from 'zod';
+import { refuseUnrenderable } from '../markdown/markdown-field';
 import { renderMarkdown } from '../markdown/render-markdown';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
@@ -18,7 +19,7 @@ const RunFields = z.object({ name: z.string().trim().max(120).optional(), cap: z
 
 export const ProductBody = z.object({
   name,
-  description: z.string().max(20000, 'At most 20,000 characters.').default(''),
+  description: z.string().max(20000, 'At most 20,000 characters.').superRefine(refuseUnrenderable).default(''),
   priceCents: fields.cents.min(50, 'At least $0.50 (the card processor minimum).'),
   weightGrams: z.number({ error: 'Enter a weight in grams.' }).int('Whole grams.').min(1, 'At least 1 g.').max(20000, 'At most 20 kg.'),
   sizeChart: z.object({ columns: z.array(z.string().max(40)).min(1).max(10), rows: z.array(z.array(z.string().max(40)).max(10)).max(20) }).nullable().default(null),
@@ -37,7 +38,7 @@ export const RunBody = RunFields.extend({
   variantCaps: z.array(z.object({ variantId: fields.id, cap: z.number({ error: 'Enter a cap.' }).int().min(0, 'At least 0.').max(100000) })).max(30).default([]),
 });
 
-export const ProductPatch = z.object({ name: name.optional(), description: z.string().max(20000).optional(), priceCents: fields.cents.min(50).optional(), active: z.boolean().optional(), sizeChart: ProductBody.shape.sizeChart.optional(), images: ProductBody.shape.images.optional() });
+export const ProductPatch = z.object({ name: name.optional(), description: z.string().max(20000, 'At most 20,000 characters.').superRefine(refuseUnrenderable).optional(), priceCents: fields.cents.min(50).optional(), active: z.boolean().optional(), sizeChart: ProductBody.shape.sizeChart.optional(), images: ProductBody.shape.images.optional() });
 
 const slugify = (s: string) => s.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 70) || 'item';
 

@@ -17,7 +17,8 @@ import { SHOP_SETTINGS, ShopSettingsSchema } from './shop-settings';
 
 const SHOP_STAFF = ['treasurer', 'admin'] as const;
 
-const OrderQuery = z.object({
+// Strict: the same filters choose what the CSV export holds, so a misspelt key must not widen it to every order.
+const OrderQuery = z.strictObject({
   page: fields.page,
   pageSize: fields.pageSize,
   sort: z.enum(Object.keys(ORDER_SORTS) as [keyof typeof ORDER_SORTS], { error: 'Sort by created, number, email, total or status.' }).default('created'),

@@ -24,6 +24,8 @@ export const membershipAccess: RouteAccess[] = [
   { method: 'PUT', path: '/api/admin/members/settings', allow: TREASURY },
   { method: 'GET', path: '/api/admin/members/:id', allow: TREASURY },
   { method: 'PATCH', path: '/api/admin/members/:id', allow: TREASURY },
+  { method: 'POST', path: '/api/admin/members/:id/verifications', allow: TREASURY },
+  { method: 'DELETE', path: '/api/admin/members/:id/verifications/:what', allow: TREASURY },
   { method: 'POST', path: '/api/admin/members/:id/payments', allow: TREASURY },
   { method: 'POST', path: '/api/admin/members/:id/refunds', allow: TREASURY },
   { method: 'POST', path: '/api/admin/checkin', allow: ['editor', 'treasurer', 'admin'] },
