@@ -19,5 +19,6 @@ export const foundationAccess: RouteAccess[] = [
   { method: 'GET', path: '/api/admin/users', allow: ['admin'] },
   { method: 'PATCH', path: '/api/admin/users/:id', allow: ['admin'] },
   { method: 'POST', path: '/api/admin/uploads', allow: ['editor', 'treasurer', 'admin'] },
+  { method: 'DELETE', path: '/api/admin/uploads/:key', allow: ['editor', 'treasurer', 'admin'] },
   { method: 'GET', path: '/uploads/:key', allow: 'public' },
 ];
