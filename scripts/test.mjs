@@ -16,7 +16,7 @@ const chromium = ensureChromium();
 let stack;
 let code = 1;
 try {
-  console.log('padside test: starting a throwaway PostgreSQL, MailDev and payment fake');
+  console.log('padside test: starting a throwaway PostgreSQL, MailDev, payment fake and object store');
   stack = await startThrowawayStack('test');
   const skipBuild = Boolean(process.env.PADSIDE_SKIP_BUILD);
   const env = { ...stack.env, CHROMIUM_PATH: chromium, BROWSER_DIST: skipBuild ? '' : path.join(stack.tmp, 'app', 'browser') };

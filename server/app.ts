@@ -22,8 +22,8 @@ import { hstsOverHttps, noStore, permissionsPolicy, securityHeaders } from './pl
 import { refuseUnstorableText } from './platform/text-guard';
 import { createSessionMiddleware } from './platform/session';
 import { SettingsService } from './settings/settings-service';
-import { DiskStorage } from './uploads/disk-storage';
 import { ImageUploads } from './uploads/image-uploads';
+import { storageFromConfig } from './uploads/storage-from-config';
 import { uploadAdminRoutes, uploadServeRoutes } from './uploads/upload-routes';
 
 /** Paths under /api that verify their own signature instead of a CSRF token. */
@@ -47,7 +47,7 @@ export function createApp(deps: AppDeps): PadsideApp {
     deps,
     auth,
     settings: new SettingsService(deps.db),
-    images: new ImageUploads(deps.db, new DiskStorage(path.join(deps.config.dataDir, 'uploads'))),
+    images: new ImageUploads(deps.db, storageFromConfig(deps.config.storage)),
   };
   const features = buildFeatures(platform);
   const passport = configurePassport(auth);

@@ -43,7 +43,22 @@ const EnvSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   WORKERS: z.coerce.number().int().min(1).max(64).default(1),
   BROWSER_DIST: z.string().optional(),
+  // Unset: uploads on the local disk. `s3://bucket/prefix`: an S3-compatible object store (several machines).
+  STORAGE_URL: z
+    .string()
+    .regex(/^s3:\/\/[a-z0-9][a-z0-9.-]{1,61}[a-z0-9](\/[A-Za-z0-9!_.*'()\/-]*)?$/, 'must look like s3://bucket or s3://bucket/prefix (bucket: 3 to 63 lower-case letters, digits, dots and hyphens)')
+    .optional(),
+  S3_ENDPOINT: z.url({ protocol: /^https?$/, error: 'must be an http(s) URL' }).optional(),
+  S3_REGION: z.string().trim().regex(/^[a-z0-9-]{2,40}$/, 'must be a region name such as us-east-1').optional(),
+  S3_ACCESS_KEY_ID: z.string().trim().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  S3_FORCE_PATH_STYLE: z.enum(['true', 'false', '1', '0'], { error: 'must be true or false' }).default('false'),
 });
+
+/** Where uploaded images live: a folder on this machine, or a bucket every machine shares. */
+export type StorageConfig =
+  | { kind: 'disk'; dir: string }
+  | { kind: 's3'; bucket: string; prefix: string; endpoint: string; region: string; accessKeyId: string; secretAccessKey: string; forcePathStyle: boolean };
 
 export interface Config {
   env: 'development' | 'test' | 'production';
@@ -65,6 +80,7 @@ export interface Config {
   workers: number;
   /** The built Angular app that the server serves. */
   browserDist: string;
+  storage: StorageConfig;
 }
 
 /** Thrown when the environment is unusable; `main` prints the message as one line and exits 1. */
@@ -111,6 +127,27 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     logLevel: e.LOG_LEVEL,
     workers: e.WORKERS,
     browserDist: e.BROWSER_DIST ? path.resolve(e.BROWSER_DIST) : path.join(projectRoot, 'dist', 'padside', 'browser'),
+    storage: storageConfig(e, dataDir),
+  };
+}
+
+/** The disk unless STORAGE_URL names a bucket; then every S3 setting it needs must be there. */
+function storageConfig(e: z.infer<typeof EnvSchema>, dataDir: string): StorageConfig {
+  if (!e.STORAGE_URL) return { kind: 'disk', dir: path.join(dataDir, 'uploads') };
+  const missing = (['S3_ENDPOINT', 'S3_REGION', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const).filter((k) => !e[k]);
+  if (missing.length) throw new ConfigError(`Padside: ${missing.join(', ')} ${missing.length > 1 ? 'are' : 'is'} required when STORAGE_URL is set`);
+  const [, bucket, rest = ''] = /^s3:\/\/([^/]+)\/?(.*)$/.exec(e.STORAGE_URL)!;
+  if (bucket.includes('..') || /^\d+\.\d+\.\d+\.\d+$/.test(bucket)) throw new ConfigError('Padside: STORAGE_URL names a bucket that S3 does not allow (no "..", not an IP address)');
+  const prefix = rest.replace(/\/+$/, '');
+  return {
+    kind: 's3',
+    bucket,
+    prefix: prefix ? `${prefix}/` : '',
+    endpoint: e.S3_ENDPOINT!.replace(/\/$/, ''),
+    region: e.S3_REGION!,
+    accessKeyId: e.S3_ACCESS_KEY_ID!,
+    secretAccessKey: e.S3_SECRET_ACCESS_KEY!,
+    forcePathStyle: e.S3_FORCE_PATH_STYLE === 'true' || e.S3_FORCE_PATH_STYLE === '1',
   };
 }
 

@@ -20,5 +20,6 @@ export const foundationAccess: RouteAccess[] = [
   { method: 'PATCH', path: '/api/admin/users/:id', allow: ['admin'] },
   { method: 'DELETE', path: '/api/admin/users/:id/sign-in-lock', allow: ['admin'] },
   { method: 'POST', path: '/api/admin/uploads', allow: ['editor', 'treasurer', 'admin'] },
+  { method: 'DELETE', path: '/api/admin/uploads/:key', allow: ['editor', 'treasurer', 'admin'] },
   { method: 'GET', path: '/uploads/:key', allow: 'public' },
 ];

@@ -68,3 +68,56 @@ describe('POST /api/admin/uploads (images for build logs)', () => {
     expect(res.body.error.fields.file).toBe('Required.');
   });
 });
+
+/** A raw multipart body: supertest's `attach` would refuse to write what an attacker can. */
+const rawMultipart = async (body: string | Buffer, boundary = 'padside-boundary') =>
+  editor.agent
+    .post('/api/admin/uploads')
+    .set('X-CSRF-Token', await editor.token())
+    .set('Content-Type', `multipart/form-data; boundary=${boundary}`)
+    .send(Buffer.isBuffer(body) ? body : Buffer.from(body, 'latin1'));
+
+describe('malformed multipart bodies (OWASP ASVS 4.0.3 5.1.3: input validated, bad input refused with a 4xx)', () => {
+  it.each([
+    ['a body cut off inside a part', '--padside-boundary\r\nContent-Disposition: form-data; name="file"; filename="fin.png"\r\nContent-Type: image/png\r\n\r\n\x89PNG'],
+    ['a part header with no end', '--padside-boundary\r\nContent-Disposition: form-data; name="file"; filename="fin.png"'],
+    ['a body without its boundary', 'this is not a multipart body at all'],
+  ])('answers 400 bad_upload for %s', async (_what, body) => {
+    const res = await rawMultipart(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('bad_upload');
+    expect(res.body.error.fields.file).toBeDefined();
+  });
+
+  it('answers 400 for a multipart type without a boundary', async () => {
+    const res = await editor.agent.post('/api/admin/uploads').set('X-CSRF-Token', await editor.token()).set('Content-Type', 'multipart/form-data').send('--x\r\n');
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('bad_upload');
+  });
+});
+
+describe('a NUL byte in the file name (OWASP ASVS 4.0.3 12.3.1: user-supplied file names are never used as given)', () => {
+  const withName = async (disposition: string) => {
+    // A colour no other test uses, so this image's name (its hash) is new and nothing else can have stored it.
+    const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#20406a' } }).png().toBuffer();
+    return Buffer.concat([
+      Buffer.from(`--padside-boundary\r\nContent-Disposition: form-data; name="file"; ${disposition}\r\nContent-Type: image/png\r\n\r\n`, 'latin1'),
+      png,
+      Buffer.from('\r\n--padside-boundary--\r\n', 'latin1'),
+    ]);
+  };
+  const uploadsNamed = async (pattern: string) => Number((await t.deps.db('uploads').where('original_name', 'like', pattern).count<{ count: string }[]>('* as count'))[0].count);
+
+  it('answers 400 naming the file field for a NUL encoded in the name (RFC 5987 filename*), and stores nothing', async () => {
+    const res = await rawMultipart(await withName("filename*=UTF-8''nul-probe%00shot.png"));
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.file).toMatch(/name/i);
+    expect(await uploadsNamed('nul-probe%')).toBe(0);
+  });
+
+  it('answers 400 bad_upload for a raw NUL byte inside the part header', async () => {
+    const res = await rawMultipart(await withName('filename="fin\u0000can.png"'));
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('bad_upload');
+  });
+});

@@ -1,3 +1,6 @@
+import path from 'node:path';
+import sharp from 'sharp';
+import request from 'supertest';
 import { BenchClient } from '../../bench/bench-client';
 import { startServerProcess, type ServerProcess } from '../helpers/server-process';
 import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
@@ -16,8 +19,8 @@ afterAll(async () => {
   await t.close();
 });
 
-async function start(): Promise<ServerProcess> {
-  const s = await startServerProcess();
+async function start(env: Record<string, string> = {}): Promise<ServerProcess> {
+  const s = await startServerProcess(env);
   running.push(s);
   return s;
 }
@@ -103,6 +106,47 @@ describe('a server process killed in the middle of checkouts', () => {
       expect(charges.length).toBe(orders.filter((o) => o.status === 'paid').length);
     } finally {
       await later.close();
+    }
+  });
+});
+
+describe('two server processes on one database and one object store', () => {
+  it('serve through one what an editor uploaded and published through the other: the image and the credits', async () => {
+    // Each process with a data folder of its own, as on two machines: only the bucket is shared.
+    const machine = (name: string) => ({ STORAGE_URL: String(process.env.TEST_STORAGE_URL), DATA_DIR: path.join(String(process.env.TEST_TMP), `machine-${name}`) });
+    const [a, b] = await Promise.all([start(machine('a')), start(machine('b'))]);
+    const editorUser = await createUser(t.deps.db, ['fan', 'editor'], 'Scale Editor');
+    const editor = request.agent(a.url);
+    const csrf = async () => (await editor.get('/api/auth/csrf')).body.csrfToken as string;
+    // The token first: the agent attaches its cookies when the request is created.
+    const signInToken = await csrf();
+    expect((await editor.post('/api/auth/login').set('X-CSRF-Token', signInToken).send({ email: editorUser.email, password: editorUser.password })).status).toBe(200);
+    const token = await csrf();
+
+    const unique = `${Date.now()}-${Math.random().toString(36).slice(2, 6)}`;
+    const photo = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 200, g: Date.now() % 256, b: 40 } } }).jpeg().toBuffer();
+    const uploaded = await editor.post('/api/admin/uploads').set('X-CSRF-Token', token).attach('file', photo, { filename: 'nose-cone.jpg', contentType: 'image/jpeg' });
+    expect(uploaded.status).toBe(201);
+    const sponsor = await editor.post('/api/admin/sponsors').set('X-CSRF-Token', token).send({ name: `Prairie Filament Supply ${unique}` });
+    expect(sponsor.status).toBe(201);
+    const post = await editor
+      .post('/api/admin/posts')
+      .set('X-CSRF-Token', token)
+      .send({ title: `Printing the nose cone ${unique}`, markdown: `The cone, fresh off the printer:\n\n![Nose cone](${uploaded.body.url})`, coverUrl: uploaded.body.url, status: 'published', credits: [sponsor.body.id] });
+    expect(post.status).toBe(201);
+
+    // A visitor who never touched process a.
+    const visitor = request(b.url);
+    const page = await visitor.get(`/api/posts/${post.body.slug}`);
+    expect(page.status).toBe(200);
+    expect(page.body.coverUrl).toBe(uploaded.body.url);
+    expect(page.body.html).toContain(`src="${uploaded.body.url}"`);
+    expect(page.body.credits.map((c: { name: string }) => c.name)).toEqual([`Prairie Filament Supply ${unique}`]);
+    for (const url of [uploaded.body.url, uploaded.body.thumbnailUrl]) {
+      const image = await visitor.get(url).buffer(true);
+      expect(image.status).toBe(200);
+      expect(image.headers['x-content-type-options']).toBe('nosniff');
+      expect((await sharp(image.body as Buffer).metadata()).width).toBe(64);
     }
   });
 });

@@ -1,0 +1,60 @@
+import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, S3Client, S3ServiceException } from '@aws-sdk/client-s3';
+import { Upload } from '@aws-sdk/lib-storage';
+import type { Readable } from 'node:stream';
+import type { StorageConfig } from '../config';
+import { checkedKey, type FileStorage, type StoredObject } from './file-storage';
+
+type S3Settings = Extract<StorageConfig, { kind: 's3' }>;
+
+/** Objects in an S3-compatible bucket under a prefix, so every machine reads what any machine stored. */
+export class S3Storage implements FileStorage {
+  private readonly client: S3Client;
+
+  constructor(private readonly settings: S3Settings) {
+    this.client = new S3Client({
+      endpoint: settings.endpoint,
+      region: settings.region,
+      credentials: { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey },
+      forcePathStyle: settings.forcePathStyle,
+      // Checksums only where the protocol demands them: many self-hosted servers refuse the newer trailing ones.
+      requestChecksumCalculation: 'WHEN_REQUIRED',
+      responseChecksumValidation: 'WHEN_REQUIRED',
+      maxAttempts: 3,
+    });
+  }
+
+  async write(key: string, body: Readable, contentType: string): Promise<void> {
+    // lib-storage sends the stream in parts (multipart for large bodies), never the whole file at once.
+    const upload = new Upload({
+      client: this.client,
+      params: { Bucket: this.settings.bucket, Key: this.objectKey(key), Body: body, ContentType: contentType },
+      queueSize: 1,
+      leavePartsOnError: false,
+    });
+    await upload.done();
+  }
+
+  async read(key: string): Promise<StoredObject | null> {
+    try {
+      const out = await this.client.send(new GetObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key) }));
+      return { body: out.Body as Readable, length: Number(out.ContentLength) };
+    } catch (err) {
+      if (err instanceof NoSuchKey || (err instanceof S3ServiceException && err.$metadata.httpStatusCode === 404)) return null;
+      throw err;
+    }
+  }
+
+  async remove(keys: readonly string[]): Promise<void> {
+    // One request per key: DeleteObjects needs a Content-MD5 some compatible servers compute differently.
+    await Promise.all(keys.map((k) => this.client.send(new DeleteObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(k) }))));
+  }
+
+  /** Releases the client's sockets. */
+  close(): void {
+    this.client.destroy();
+  }
+
+  private objectKey(key: string): string {
+    return this.settings.prefix + checkedKey(key);
+  }
+}
