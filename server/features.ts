@@ -1,12 +1,13 @@
 import { membershipFeature } from './membership/membership-feature';
 import { buildLogsFeature } from './build-logs/build-logs-feature';
 import { booksFeature } from './books/books-feature';
+import { launchesFeature } from './launches/launches-feature';
 import type { Feature, Platform } from './platform/feature';
 import { shopFeature } from './shop/shop-feature';
 
 /** Every feature of Padside, in mounting order. Add one line per feature. */
 export function buildFeatures(platform: Platform): Feature[] {
-  const features: Feature[] = [buildLogsFeature(platform), membershipFeature(platform), shopFeature(platform)];
+  const features: Feature[] = [buildLogsFeature(platform), membershipFeature(platform), shopFeature(platform), launchesFeature(platform)];
   // The books read other features' numbers through what each feature offers the dashboard.
   const sources = Object.assign({}, ...features.map((f) => f.dashboard ?? {}));
   return [...features, booksFeature(platform, () => sources)];

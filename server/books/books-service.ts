@@ -95,13 +95,14 @@ export class BooksService {
     const src = this.sources();
     const sums = await this.repo.sumsForToday(today, monthStart);
     const yearStart = `${Number(today.slice(0, 4)) - 1}${today.slice(4, 8)}01`;
-    const [ordersAwaitingShipment, runsClosingSoon, overdueDeliverables, membersLapsingSoon, membersByStatus, revenue] = await Promise.all([
+    const [ordersAwaitingShipment, runsClosingSoon, overdueDeliverables, membersLapsingSoon, membersByStatus, revenue, launchSeason] = await Promise.all([
       src.ordersAwaitingShipment?.() ?? null,
       src.runsClosingWithin?.(7) ?? null,
       src.overdueDeliverables?.() ?? null,
       src.membersLapsingWithin?.(30) ?? null,
       src.membersByStatus?.() ?? null,
       this.repo.revenue({ from: yearStart, to: today }),
+      src.launchSeason?.() ?? null,
     ]);
     return {
       today,
@@ -113,6 +114,7 @@ export class BooksService {
       overdueDeliverables,
       membersLapsingSoon,
       membersByStatus,
+      launchSeason,
       revenueByMonth: revenue.map((r) => ({ month: r.month, source: r.source, netCents: r.grossCents - r.refundsCents - r.feesCents, grossCents: r.grossCents })),
     };
   }

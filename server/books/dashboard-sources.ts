@@ -11,5 +11,7 @@ export interface DashboardSources {
   membersByStatus(): Promise<Record<string, number>>;
   /** The seller's tax registrations, shown at the top of the tax report. */
   taxRegistrations(): Promise<{ sellerProvince: string; gstHstNumber: string; gstHstRegistered: boolean; provincialRegistrations: string[] }>;
+  /** The club's flying season (calendar year): launches by state, check-ins, flight cards, flown, best apogee. */
+  launchSeason(): Promise<{ season: string; scheduled: number; calledOff: number; done: number; checkIns: number; flights: number; flown: number; bestApogeeMetres: number | null }>;
   sponsorValue(): Promise<{ season: string; items: { sponsor: string; tier: string | null; cashCents: number; inKindCents: number; totalCents: number; promised: number; delivered: number }[] }>;
 }
