@@ -11,18 +11,11 @@ export function verifiedCertificationLevel(membership: { certification_level: st
   return membership?.certification_level ?? null;
 }
 
-/** The impulse classes a verified level allows by the club's setting; null when no level is verified. */
+/**
+ * The impulse classes a verified level allows by the club's setting (a list covers every class up to its largest);
+ * null when no level is verified, which covers model-rocket flights only.
+ */
 export function allowedClassesFor(level: string | null, settings: LaunchSettings): string[] | null {
   if (level === null) return null;
   return settings.classesByLevel[level] ?? settings.classesByLevel[NO_CERTIFICATION] ?? null;
-}
-
-/**
- * Whether a card goes beyond the flyer's verified certification: a motor class the level does not allow, or
- * a card needing high-power certification from a flyer without one.
- */
-export function beyondCertification(level: string | null, allowed: string[] | null, motorClasses: string[], needsHighPower: boolean): boolean {
-  if (needsHighPower && (level === null || level === NO_CERTIFICATION)) return true;
-  if (allowed === null) return false;
-  return motorClasses.some((c) => !allowed.includes(c));
 }

@@ -7,7 +7,7 @@ import { parseMotorDesignation, type MotorDesignation } from '../flights/motor-d
 import { AppError, badRequest, conflict, forbidden, notFound } from '../platform/app-error';
 import type { Role } from '../platform/roles';
 import type { SettingsService } from '../settings/settings-service';
-import { allowedClassesFor, beyondCertification } from './certification';
+import { allowedClassesFor } from './certification';
 import type { FlightRepository, FlightRow, StoredMotor } from './flight-repository';
 import { FLIGHT_CAUTION, flightDataView, flightView, OUTCOME_LABELS } from './flight-views';
 import type { FlyerStanding } from './flyer-standing';
@@ -38,6 +38,9 @@ export interface LogUpload {
 export const MAX_LOG_ROWS = 200_000;
 
 const RANGE_STAFF: Role[] = ['range_officer', 'admin'];
+
+/** The warning that stops an approval: the card needs more than the flyer's verified certification. */
+const BEYOND_CERTIFICATION = 'beyond_certification';
 
 const stored = (m: MotorDesignation): StoredMotor => ({ designation: m.designation, impulseClass: m.impulseClass, averageThrustN: m.averageThrustN, delayS: m.delayS, plugged: m.plugged, totalImpulseMinNs: m.totalImpulseMinNs, totalImpulseMaxNs: m.totalImpulseMaxNs });
 
@@ -118,8 +121,11 @@ export class FlightService {
     const f = await this.find(id);
     if (f.status !== 'filed') throw conflict('already_decided', `This card is already ${f.status === 'sent_back' ? 'sent back' : f.status}.`);
     if (approve) {
-      const { level, allowed } = await this.certification(Number(f.user_id));
-      if (beyondCertification(level, allowed, f.motors.map((m) => m.impulseClass), f.needs_high_power)) {
+      // The same checks as at filing, against the flyer's verified level as it stands now.
+      const { allowed } = await this.certification(Number(f.user_id));
+      const launch = await this.launches.find(Number(f.launch_id));
+      const now = flightWarnings({ liftoffMassGrams: f.liftoff_mass_grams, motors: f.motors, expectedAltitudeMetres: f.expected_altitude_metres, ceilingMetres: launch.ceiling_metres, allowedClasses: allowed });
+      if (now.warnings.some((w) => w.code === BEYOND_CERTIFICATION)) {
         throw conflict('not_certified', "This card goes beyond the flyer's verified certification level, so Padside cannot record it as cleared.");
       }
     } else if (!reason) {

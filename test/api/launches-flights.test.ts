@@ -48,8 +48,8 @@ describe('POST /api/launches/:id/flights', () => {
     const flight = await file(m.client, { liftoffMassGrams: 250, expectedAltitudeMetres: 800 });
     // 6 N / (0.250 kg x 9.80665) = 2.45, below 5:1 (common practice, no source); 800 m is above the 600 m ceiling.
     expect(flight.thrustToWeight).toBeCloseTo(2.45, 1);
-    expect(flight.warnings.length).toBeGreaterThanOrEqual(2);
-    for (const w of flight.warnings) expect(w).toEqual({ code: expect.any(String), message: expect.any(String) });
+    expect(flight.warnings.map((w: { code: string }) => w.code).sort()).toEqual(['above_ceiling', 'low_thrust_to_weight']);
+    for (const w of flight.warnings) expect(w.message.length).toBeGreaterThan(20);
     expect(flight.status).toBe('filed');
   });
 
@@ -84,13 +84,17 @@ describe('POST /api/admin/flights/:id/decision', () => {
   it('answers 409 not_certified for a motor class beyond the verified level, and approves it at a level that allows it', async () => {
     const none = await checkedIn();
     const hp = await file(none.client, { liftoffMassGrams: 1800, motors: ['H128W-M'], expectedAltitudeMetres: 500 });
-    expect(hp.motors[0]).toEqual(expect.objectContaining({ impulseClass: 'H', averageThrustN: 128 }));
+    // H128W-M: class H, 128 N average, an adjustable medium delay without a number.
+    expect(hp.motors[0]).toEqual(expect.objectContaining({ impulseClass: 'H', averageThrustN: 128, delayS: null, plugged: false }));
+    expect(hp.needsHighPower).toBe(true);
+    expect(hp.warnings.map((w: { code: string }) => w.code)).toEqual(expect.arrayContaining(['high_power', 'beyond_certification']));
     const refused = await rso.post(`/api/admin/flights/${hp.id}/decision`, { approve: true });
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('not_certified');
     expect((await new Client(t.app).get(`/api/flights/${hp.id}`)).body.flight.status).toBe('filed');
     const l1 = await checkedIn({ certificationLevel: 'L1' });
     const ok = await file(l1.client, { liftoffMassGrams: 1800, motors: ['H128W-M'], expectedAltitudeMetres: 500 });
+    expect(ok.warnings.map((w: { code: string }) => w.code)).not.toContain('beyond_certification');
     expect((await rso.post(`/api/admin/flights/${ok.id}/decision`, { approve: true })).status).toBe(200);
   });
 
