@@ -39,7 +39,7 @@ describe('RangeTable', () => {
 
   it('should show the refusal on the card when Padside will not record it as cleared', async () => {
     const { fixture, http, el } = await open();
-    const approve = [...el.querySelectorAll<HTMLButtonElement>('[data-testid=queue-card-11] button')].find((b) => b.textContent!.includes('Approve'))!;
+    const approve = Array.from(el.querySelectorAll<HTMLButtonElement>('[data-testid=queue-card-11] button')).find((b) => b.textContent!.includes('Approve'))!;
     approve.click();
     fixture.detectChanges();
     const req = http.expectOne('/api/admin/flights/11/decision');
@@ -55,7 +55,7 @@ describe('RangeTable', () => {
     const reason = el.querySelector<HTMLInputElement>('[data-testid=queue-card-11] .send-back input')!;
     reason.value = 'Fins loose';
     reason.dispatchEvent(new Event('input'));
-    [...el.querySelectorAll<HTMLButtonElement>('[data-testid=queue-card-11] button')].find((b) => b.textContent!.includes('Send back'))!.click();
+    Array.from(el.querySelectorAll<HTMLButtonElement>('[data-testid=queue-card-11] button')).find((b) => b.textContent!.includes('Send back'))!.click();
     fixture.detectChanges();
     const req = http.expectOne('/api/admin/flights/11/decision');
     expect(req.request.body).toEqual({ approve: false, reason: 'Fins loose' });
