@@ -16,6 +16,8 @@ import {
  * analysis. The file is never held whole in memory; the readings are (at most 200,000 rows of a few numbers).
  */
 
+export type { FlightEvent, FlightSeriesPoint, FlightSummary } from './flight-analysis';
+
 /** The most data rows one log may hold. */
 export const MAX_LOG_ROWS = 200_000;
 const STANDARD_GRAVITY = 9.80665;
