@@ -117,7 +117,7 @@ export class BooksService {
     const src = this.sources();
     const sums = await this.repo.sumsForToday(today, monthStart);
     const yearStart = `${Number(today.slice(0, 4)) - 1}${today.slice(4, 8)}01`;
-    const [ordersAwaitingShipment, runsClosingSoon, overdueDeliverables, membersLapsingSoon, membersByStatus, monthly, refunded] = await Promise.all([
+    const [ordersAwaitingShipment, runsClosingSoon, overdueDeliverables, membersLapsingSoon, membersByStatus, monthly, refunded, launchSeason] = await Promise.all([
       src.ordersAwaitingShipment?.() ?? null,
       src.runsClosingWithin?.(7) ?? null,
       src.overdueDeliverables?.() ?? null,
@@ -125,6 +125,7 @@ export class BooksService {
       src.membersByStatus?.() ?? null,
       this.repo.revenue({ from: yearStart, to: today }),
       this.repo.refundedTax({ from: yearStart, to: today }),
+      src.launchSeason?.() ?? null,
     ]);
     return {
       today,
@@ -136,6 +137,7 @@ export class BooksService {
       overdueDeliverables,
       membersLapsingSoon,
       membersByStatus,
+      launchSeason,
       // Net of tax: the tax collected is owed to the authorities, not income.
       revenueByMonth: incomeRows(monthly, refunded).map((r) => ({ month: r.month, source: r.source, netCents: r.netCents, grossCents: r.grossCents, incomeCents: r.incomeCents })),
     };

@@ -13,5 +13,7 @@ export interface DashboardSources {
   taxRegistrations(): Promise<{ sellerProvince: string; gstHstNumber: string; gstHstRegistered: boolean; provincialRegistrations: string[] }>;
   /** Paid orders delivered into each province in the period (club days), with their sales net of tax. */
   salesByProvince(range: { from: string; to: string }): Promise<{ province: string; orders: number; salesCents: number }[]>;
+  /** The club's flying season (calendar year): launches by state, check-ins, flight cards, flown, best apogee. */
+  launchSeason(): Promise<{ season: string; scheduled: number; calledOff: number; done: number; checkIns: number; flights: number; flown: number; bestApogeeMetres: number | null }>;
   sponsorValue(): Promise<{ season: string; items: { sponsor: string; tier: string | null; cashCents: number; inKindCents: number; totalCents: number; promised: number; delivered: number }[] }>;
 }

@@ -7,6 +7,9 @@ import sanitizeHtml from 'sanitize-html';
  *
  * Padside's own credit marker is a line of its own: `%thanks <sponsor-slug>` or `%thanks <sponsor-slug> | a note`.
  * It renders an acknowledgement card and tells the ledger which sponsors a post credits.
+ *
+ * The flight marker is a line of its own too: `%flight <id>`. It renders an empty placeholder that the post page
+ * fills with that flight's chart and summary; elsewhere (feeds, previews) a short line of text stands in.
  */
 const CREDIT_LINE = /^%thanks +([a-z0-9][a-z0-9-]{0,79})(?: *\| *([^\n]*))?(?:\n+|$)/;
 
@@ -38,7 +41,29 @@ const creditMarker: TokenizerAndRendererExtension = {
   },
 };
 
-const marked = new Marked({ gfm: true, breaks: false, async: false, extensions: [creditMarker] });
+const FLIGHT_LINE = /^%flight +([1-9][0-9]{0,9})[ \t]*(?:\n+|$)/;
+
+interface FlightToken extends Tokens.Generic {
+  type: 'psFlight';
+  flightId: number;
+}
+
+const flightMarker: TokenizerAndRendererExtension = {
+  name: 'psFlight',
+  level: 'block',
+  start: (src) => /^%flight /m.exec(src)?.index,
+  tokenizer(src) {
+    const m = FLIGHT_LINE.exec(src);
+    if (!m) return undefined;
+    return { type: 'psFlight', raw: m[0], flightId: Number(m[1]) } satisfies FlightToken;
+  },
+  renderer(token) {
+    const id = (token as FlightToken).flightId;
+    return `<div class="ps-flight" data-flight="${id}"><p class="ps-flight-note">Flight data: altitude and speed chart for flight ${id}.</p></div>\n`;
+  },
+};
+
+const marked = new Marked({ gfm: true, breaks: false, async: false, extensions: [creditMarker, flightMarker] });
 
 const ALLOWED_TAGS = [
   'h1', 'h2', 'h3', 'h4', 'h5', 'h6', 'p', 'br', 'hr', 'blockquote', 'pre', 'code', 'em', 'strong', 'del', 's', 'sup', 'sub',
@@ -56,10 +81,17 @@ const SANITIZE: sanitizeHtml.IOptions = {
     ol: ['start'],
     input: ['type', 'checked', 'disabled'],
     aside: ['class', 'data-sponsor'],
-    div: ['class'],
+    div: ['class', 'data-flight'],
+    p: ['class'],
     span: ['class'],
   },
-  allowedClasses: { code: [/^language-[a-z0-9+-]+$/], aside: ['ps-credit'], div: ['ps-credit-body'], span: ['ps-credit-label'] },
+  allowedClasses: {
+    code: [/^language-[a-z0-9+-]+$/],
+    aside: ['ps-credit'],
+    div: ['ps-credit-body', 'ps-flight'],
+    span: ['ps-credit-label'],
+    p: ['ps-flight-note'],
+  },
   allowedSchemes: ['http', 'https', 'mailto'],
   allowedSchemesByTag: { img: ['http', 'https'] },
   allowProtocolRelative: false,
@@ -79,8 +111,14 @@ const SANITIZE: sanitizeHtml.IOptions = {
       return { tagName, attribs: { ...withHref, ...(rel !== undefined ? { rel } : {}) } };
     },
     img: (tagName, attribs) => ({ tagName, attribs: { ...attribs, loading: 'lazy' } }),
+    // data-flight names a flight by its number and nothing else; any other value goes with the attribute.
+    div: (tagName, attribs) => {
+      const { 'data-flight': flight, ...rest } = attribs;
+      return { tagName, attribs: flight !== undefined && /^[1-9][0-9]{0,9}$/.test(flight) ? { ...rest, 'data-flight': flight } : rest };
+    },
   },
   exclusiveFilter: (frame) => frame.tag === 'img' && !frame.attribs.src,
+
 };
 
 /** Options of one rendering: the display names of sponsors that credit markers may name, by slug. */
@@ -188,6 +226,15 @@ export function creditMarkerSlugs(markdown: string): string[] {
     if (token.type === 'psCredit' && !slugs.includes((token as CreditToken).slug)) slugs.push((token as CreditToken).slug);
   });
   return slugs;
+}
+
+/** The flight ids that flight markers name, in order of appearance, once each (markers inside code do not count). */
+export function flightMarkerIds(markdown: string): number[] {
+  const ids: number[] = [];
+  marked.walkTokens(marked.lexer(markdown), (token: Token) => {
+    if (token.type === 'psFlight' && !ids.includes((token as FlightToken).flightId)) ids.push((token as FlightToken).flightId);
+  });
+  return ids;
 }
 
 /** Sanitizes HTML produced elsewhere (for example, an extension's card markup) with the same allow-list. */

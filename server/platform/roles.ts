@@ -1,8 +1,8 @@
 /** Every role an account can hold. `member` follows dues status; the others are granted by an admin. */
-export const ROLES = ['fan', 'member', 'sponsor', 'editor', 'treasurer', 'admin'] as const;
+export const ROLES = ['fan', 'member', 'sponsor', 'editor', 'treasurer', 'admin', 'range_officer'] as const;
 export type Role = (typeof ROLES)[number];
 
-/** Staff roles see the console. */
+/** Staff roles see the console. (Range officers see its launch pages only; the client lists them there.) */
 export const STAFF_ROLES: readonly Role[] = ['editor', 'treasurer', 'admin'];
 
 /** The signed-in user as every route sees it. */

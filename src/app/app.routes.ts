@@ -6,6 +6,7 @@ export const routes: Routes = [
   { path: 'shop', loadChildren: () => import('./shop/shop.routes').then((m) => m.shopRoutes) },
   { path: 'membership', loadChildren: () => import('./membership/membership.routes').then((m) => m.membershipRoutes) },
   { path: 'build-logs', loadChildren: () => import('./build-logs/build-logs.routes').then((m) => m.buildLogRoutes) },
+  { path: 'launches', loadChildren: () => import('./launches/launches.routes').then((m) => m.launchRoutes) },
   { path: 'sponsors', loadChildren: () => import('./sponsors/sponsors.routes').then((m) => m.sponsorRoutes) },
   { path: 'account', loadChildren: () => import('./account/account.routes').then((m) => m.accountRoutes) },
   { path: 'console', canMatch: [staffGuard], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },

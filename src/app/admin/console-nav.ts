@@ -14,7 +14,9 @@ export interface ConsoleLink {
 }
 
 export const CONSOLE_LINKS: readonly ConsoleLink[] = [
-  { path: '/console', label: 'Overview', icon: 'space_dashboard', roles: ['editor', 'treasurer', 'admin'] },
+  { path: '/console', label: 'Overview', icon: 'space_dashboard', roles: ['editor', 'treasurer', 'admin', 'range_officer'] },
+  { path: '/console/launches', label: 'Launch days', icon: 'rocket_launch', roles: ['range_officer', 'admin'] },
+  { path: '/console/range', label: 'Range table', icon: 'flag', roles: ['range_officer', 'admin'] },
   { path: '/console/orders', label: 'Orders', icon: 'local_shipping', roles: ['treasurer', 'admin'] },
   { path: '/console/runs', label: 'Runs', icon: 'checkroom', roles: ['treasurer', 'admin'] },
   { path: '/console/products', label: 'Products', icon: 'sell', roles: ['treasurer', 'admin'] },

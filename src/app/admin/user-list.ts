@@ -13,7 +13,7 @@ import type { Role, User } from '../core/user';
 import { EmptyState } from '../shared/empty-state';
 import { UserAdminApi } from './user-admin-api';
 
-const EDITABLE_ROLES: Role[] = ['fan', 'member', 'sponsor', 'editor', 'treasurer', 'admin'];
+const EDITABLE_ROLES: Role[] = ['fan', 'member', 'sponsor', 'editor', 'treasurer', 'range_officer', 'admin'];
 
 /** Accounts with server-side paging and search; roles toggled in place; sign-in locks cleared. */
 @Component({

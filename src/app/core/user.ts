@@ -1,7 +1,8 @@
 /** Roles as the server names them. */
-export type Role = 'fan' | 'member' | 'sponsor' | 'editor' | 'treasurer' | 'admin';
+export type Role = 'fan' | 'member' | 'sponsor' | 'editor' | 'treasurer' | 'admin' | 'range_officer';
 
-export const STAFF_ROLES: readonly Role[] = ['editor', 'treasurer', 'admin'];
+/** Roles that see the console (each sees only its own sections there). */
+export const STAFF_ROLES: readonly Role[] = ['editor', 'treasurer', 'admin', 'range_officer'];
 
 /** The signed-in user, as `/api/auth/me` returns it. */
 export interface User {

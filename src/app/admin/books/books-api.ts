@@ -53,6 +53,7 @@ export interface Dashboard {
   overdueDeliverables: { sponsor: string; kind: string; dueOn: string; missing: number }[] | null;
   membersLapsingSoon: number | null;
   membersByStatus: Record<string, number> | null;
+  launchSeason: { season: string; scheduled: number; calledOff: number; done: number; checkIns: number; flights: number; flown: number; bestApogeeMetres: number | null } | null;
   revenueByMonth: { month: string; source: string; netCents: number; grossCents: number }[];
 }
 

@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
+import { DecimalPipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
 import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -20,7 +21,7 @@ const STATUS_COLOURS: Record<string, string> = { active: '#376286', lapsing: '#e
 /** The console's overview: today's numbers as cards, each linking to the table behind it, and three charts. */
 @Component({
   selector: 'ps-dashboard',
-  imports: [RouterLink, MatCardModule, MatFormFieldModule, MatSelectModule, BaseChartDirective, MoneyPipe],
+  imports: [RouterLink, DecimalPipe, MatCardModule, MatFormFieldModule, MatSelectModule, BaseChartDirective, MoneyPipe],
   providers: [provideCharts(withDefaultRegisterables())],
   templateUrl: './dashboard.html',
   styleUrl: './dashboard.scss',

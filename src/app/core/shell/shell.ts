@@ -12,6 +12,7 @@ const SECTIONS: { path: string; label: string; exact?: boolean }[] = [
   { path: '/shop', label: 'Merch' },
   { path: '/membership', label: 'Club dues' },
   { path: '/build-logs', label: 'Build logs' },
+  { path: '/launches', label: 'Launch days' },
   // Exact, so the public page is not marked current inside the sponsor portal (/sponsors/portal).
   { path: '/sponsors', label: 'Sponsors', exact: true },
 ];

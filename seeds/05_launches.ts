@@ -1,0 +1,105 @@
+import type { Knex } from 'knex';
+import { hashPassword } from '../server/auth/password-hash';
+import { flightWarnings } from '../server/flights/flight-warnings';
+import { parseMotorDesignation } from '../server/flights/motor-designation';
+import { allowedClassesFor } from '../server/launches/certification';
+import { LAUNCH_SETTINGS } from '../server/launches/launch-settings';
+import { addDays } from '../server/membership/terms';
+import { dateInZone } from '../server/platform/clock';
+import { DEMO_PASSWORD } from './01_demo_accounts';
+
+/** The demo range officer (README's table). */
+export const DEMO_RANGE_OFFICER = { email: 'rso@padside.test', name: 'Agathe Thunderbird-Voss', roles: ['fan', 'range_officer'] };
+
+/** The invented field the Gopher Flats Rocketry Society flies from. */
+const SITE = { site_name: 'Coulee Flats Field', site_address: 'Range Road 41, 6 km south of Gopher Flats, MB', site_lat: '49.712000', site_lon: '-98.903000' };
+
+/** Invented launch days, `inDays` from the day of seeding. */
+const LAUNCHES = [
+  { key: 'spring-shakedown', title: 'Spring shakedown launch', inDays: -24, status: 'done', ceiling: 900, notes: 'First launch of the season. Bring your member card to the range table.' },
+  { key: 'windy-saturday', title: 'Saturday club launch', inDays: -10, status: 'called_off', ceiling: 900, notes: '', reason: 'Gusts over 35 km/h forecast all day' },
+  { key: 'summer-fly-day', title: 'Summer fly day', inDays: 11, status: 'scheduled', ceiling: 1500, notes: 'Airspace arrangement to 1,500 m. Pads 1-4 model, pads 5-6 high power.' },
+  { key: 'harvest-moon', title: 'Harvest moon high-power day', inDays: 39, status: 'scheduled', ceiling: 3000, notes: 'High-power pads open; certification cards checked at the table.' },
+] as const;
+
+/** Cards flown at the done launch: flyer e-mail, rocket, mass, motors, expected altitude, recovery, pad, outcome. */
+const FLOWN = [
+  { email: 'member@padside.test', rocket: 'Filament Falcon', mass: 96, motors: ['C6-5'], expected: 180, recovery: 'parachute', pad: '2', outcome: 'recovered', notes: 'Straight boost, chute out just past apogee.' },
+  { email: 'member@padside.test', rocket: 'PLA Prairie Dog', mass: 410, motors: ['F32-6T'], expected: 420, recovery: 'parachute', pad: '3', outcome: 'damaged', notes: 'One fin cracked on landing in the stubble.' },
+  { email: 'hollis.quarrie@padside.test', rocket: 'Coulee Crow', mass: 1650, motors: ['H128W-M'], expected: 650, recovery: 'dual_deploy', pad: '5', outcome: 'recovered', notes: 'Drogue at apogee, main at 150 m.' },
+] as const;
+
+/** Launch days, the range officer, and a few flown cards. Development only; loads once (prepare-db). */
+export async function seed(knex: Knex): Promise<void> {
+  const hash = await hashPassword(DEMO_PASSWORD);
+  await knex('users')
+    .insert({ email: DEMO_RANGE_OFFICER.email, password_hash: hash, display_name: DEMO_RANGE_OFFICER.name, roles: DEMO_RANGE_OFFICER.roles, email_verified_at: knex.fn.now() })
+    .onConflict('email')
+    .ignore();
+  const rso = await knex('users').where('email', DEMO_RANGE_OFFICER.email).first('id');
+  // Already seeded: the first launch's title and date are there.
+  if (await knex('launches').where({ title: LAUNCHES[0].title, created_by: rso.id }).first('id')) return;
+
+  const today = dateInZone(new Date(), process.env.CLUB_TIME_ZONE ?? 'America/Winnipeg');
+  const ids: Record<string, number> = {};
+  for (const l of LAUNCHES) {
+    const [row] = await knex('launches')
+      .insert({
+        title: l.title,
+        launch_date: addDays(today, l.inDays),
+        starts_at: '10:00',
+        ends_at: '17:00',
+        ...SITE,
+        ceiling_metres: l.ceiling,
+        waiver_version: '2026-1',
+        notes: l.notes,
+        status: l.status,
+        call_off_reason: 'reason' in l ? l.reason : null,
+        called_off_at: l.status === 'called_off' ? knex.fn.now() : null,
+        sequence: l.status === 'scheduled' ? 0 : 1,
+        created_by: rso.id,
+      })
+      .returning('id');
+    ids[l.key] = Number(row.id);
+  }
+
+  // The demo member says they are coming to the next launch (and said so for the called-off one).
+  const member = await knex('users').where('email', 'member@padside.test').first('id');
+  if (member) {
+    await knex('launch_rsvps').insert([
+      { launch_id: ids['windy-saturday'], user_id: member.id, going: true },
+      { launch_id: ids['summer-fly-day'], user_id: member.id, going: true },
+    ]);
+  }
+
+  const settings = (await knex('settings').where('key', LAUNCH_SETTINGS.key).first())?.value ?? LAUNCH_SETTINGS.defaults;
+  const done = ids['spring-shakedown'];
+  for (const f of FLOWN) {
+    const flyer = await knex('users as u').join('memberships as m', 'm.user_id', 'u.id').where('u.email', f.email).first('u.id', 'm.member_number', 'm.certification_level');
+    if (!flyer) continue;
+    await knex('launch_attendance').insert({ launch_id: done, user_id: flyer.id, member_number: flyer.member_number, checked_in_by: rso.id }).onConflict(['launch_id', 'user_id']).ignore();
+    const motors = f.motors.map((m) => parseMotorDesignation(m)!);
+    const checked = flightWarnings({ liftoffMassGrams: f.mass, motors, expectedAltitudeMetres: f.expected, ceilingMetres: 900, allowedClasses: allowedClassesFor(flyer.certification_level, settings) });
+    await knex('flights').insert({
+      launch_id: done,
+      user_id: flyer.id,
+      rocket_name: f.rocket,
+      liftoff_mass_grams: f.mass,
+      motors: JSON.stringify(motors),
+      expected_altitude_metres: f.expected,
+      recovery: f.recovery,
+      pad: f.pad,
+      notes: '',
+      thrust_to_weight: Math.round(checked.thrustToWeight * 100) / 100,
+      warnings: JSON.stringify(checked.warnings),
+      needs_high_power: checked.needsHighPower,
+      certification_level: flyer.certification_level,
+      status: 'flown',
+      decided_by: rso.id,
+      decided_at: knex.fn.now(),
+      outcome: f.outcome,
+      outcome_notes: f.notes,
+      flown_at: knex.fn.now(),
+    });
+  }
+}

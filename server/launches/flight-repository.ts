@@ -1,0 +1,130 @@
+import type { Knex } from 'knex';
+
+type Db = Knex | Knex.Transaction;
+
+/** A motor as stored on a card: what Padside read from its designation. */
+export interface StoredMotor {
+  designation: string;
+  impulseClass: string;
+  averageThrustN: number;
+  delayS: number | null;
+  plugged: boolean;
+  totalImpulseMinNs: number;
+  totalImpulseMaxNs: number;
+}
+
+/** A flight card as stored, with its flyer's and launch's names. */
+export interface FlightRow {
+  id: string;
+  launch_id: string;
+  user_id: string;
+  rocket_name: string;
+  post_slug: string | null;
+  liftoff_mass_grams: number;
+  motors: StoredMotor[];
+  expected_altitude_metres: number | null;
+  recovery: string | null;
+  pad: string | null;
+  notes: string;
+  thrust_to_weight: string;
+  warnings: { code: string; message: string }[];
+  needs_high_power: boolean;
+  certification_level: string;
+  status: 'filed' | 'approved' | 'sent_back' | 'flown';
+  decision_reason: string | null;
+  decided_at: Date | null;
+  outcome: string | null;
+  outcome_notes: string | null;
+  flown_at: Date | null;
+  created_at: Date;
+  flyer_name: string;
+  launch_title: string;
+  launch_date: string;
+  apogee_metres?: number | null;
+}
+
+/** The stored analysis of a flight's altimeter log. */
+export interface FlightDataRow {
+  flight_id: string;
+  summary: Record<string, number>;
+  series: unknown[];
+  events: unknown[];
+  mapping: unknown;
+  filter: string;
+  file_name: string | null;
+  uploaded_at: Date;
+}
+
+/** A new card's columns. */
+export type NewFlight = Pick<FlightRow, 'rocket_name' | 'post_slug' | 'liftoff_mass_grams' | 'expected_altitude_metres' | 'recovery' | 'pad' | 'notes' | 'needs_high_power' | 'certification_level'> & {
+  launch_id: number;
+  user_id: number;
+  motors: StoredMotor[];
+  thrust_to_weight: number;
+  warnings: { code: string; message: string }[];
+};
+
+/** Plain reads and writes of flight cards and their data. */
+export class FlightRepository {
+  constructor(private readonly db: Knex) {}
+
+  private select(db: Db) {
+    return db('flights as f')
+      .join('users as u', 'u.id', 'f.user_id')
+      .join('launches as l', 'l.id', 'f.launch_id')
+      .leftJoin('flight_data as d', 'd.flight_id', 'f.id')
+      .select('f.*', 'u.display_name as flyer_name', 'l.title as launch_title', db.raw("to_char(l.launch_date, 'YYYY-MM-DD') AS launch_date"), db.raw("(d.summary->>'apogeeMetres')::float AS apogee_metres"));
+  }
+
+  async insert(db: Db, row: NewFlight): Promise<number> {
+    const [created] = await db('flights').insert({ ...row, motors: JSON.stringify(row.motors), warnings: JSON.stringify(row.warnings) }).returning('id');
+    return Number(created.id);
+  }
+
+  byId(id: number, db: Db = this.db): Promise<FlightRow | undefined> {
+    return this.select(db).where('f.id', id).first();
+  }
+
+  forLaunch(launchId: number, db: Db = this.db): Promise<FlightRow[]> {
+    return this.select(db).where('f.launch_id', launchId).orderBy([{ column: 'f.pad', order: 'asc', nulls: 'last' }, { column: 'f.id' }]);
+  }
+
+  forUser(userId: number, db: Db = this.db): Promise<FlightRow[]> {
+    return this.select(db).where('f.user_id', userId).orderBy([{ column: 'l.launch_date', order: 'desc' }, { column: 'f.id', order: 'desc' }]);
+  }
+
+  /** Moves a card on from `from`; true only for the one caller whose update won. */
+  async decide(db: Db, id: number, from: FlightRow['status'], to: 'approved' | 'sent_back', reason: string | null, by: number): Promise<boolean> {
+    const n = await db('flights').where({ id, status: from }).update({ status: to, decision_reason: reason, decided_by: by, decided_at: db.fn.now(), updated_at: db.fn.now() });
+    return n === 1;
+  }
+
+  /** Records how an approved (or already flown) card's flight went. */
+  async recordOutcome(db: Db, id: number, outcome: string, notes: string | null): Promise<boolean> {
+    const n = await db('flights')
+      .where('id', id)
+      .whereIn('status', ['approved', 'flown'])
+      .update({ status: 'flown', outcome, outcome_notes: notes, flown_at: db.raw('coalesce(flown_at, now())'), updated_at: db.fn.now() });
+    return n === 1;
+  }
+
+  /** Stores (or replaces) a flight's analysed log. */
+  async putData(db: Db, row: Omit<FlightDataRow, 'uploaded_at'> & { uploaded_by: number }): Promise<void> {
+    const value = { ...row, summary: JSON.stringify(row.summary), series: JSON.stringify(row.series), events: JSON.stringify(row.events), mapping: JSON.stringify(row.mapping) };
+    await db('flight_data').insert(value).onConflict('flight_id').merge({ ...value, uploaded_at: db.fn.now() });
+  }
+
+  data(flightId: number, db: Db = this.db): Promise<FlightDataRow | undefined> {
+    return db('flight_data').where('flight_id', flightId).first();
+  }
+
+  /** Flown cards and the best apogee in [from, to], for the dashboard. */
+  async seasonTotals(from: string, to: string, db: Db = this.db): Promise<{ flights: number; flown: number; bestApogeeMetres: number | null }> {
+    const row = await db('flights as f')
+      .join('launches as l', 'l.id', 'f.launch_id')
+      .leftJoin('flight_data as d', 'd.flight_id', 'f.id')
+      .whereBetween('l.launch_date', [from, to])
+      .first(db.raw('count(*) AS flights'), db.raw("count(*) FILTER (WHERE f.status = 'flown') AS flown"), db.raw("max((d.summary->>'apogeeMetres')::float) AS best"));
+    return { flights: Number(row?.flights ?? 0), flown: Number(row?.flown ?? 0), bestApogeeMetres: row?.best == null ? null : Number(row.best) };
+  }
+}

@@ -1,0 +1,128 @@
+import type { Knex } from 'knex';
+
+type Db = Knex | Knex.Transaction;
+
+/** A launch as stored. */
+export interface LaunchRow {
+  id: string;
+  uid: string;
+  title: string;
+  launch_date: string;
+  starts_at: string;
+  ends_at: string;
+  site_name: string;
+  site_address: string | null;
+  site_lat: string | null;
+  site_lon: string | null;
+  ceiling_metres: number | null;
+  waiver_version: string | null;
+  notes: string;
+  status: 'scheduled' | 'called_off' | 'done';
+  call_off_reason: string | null;
+  called_off_at: Date | null;
+  sequence: number;
+  updated_at: Date;
+  rsvp_count?: string;
+}
+
+/** The writable columns of a launch. */
+export type LaunchFields = Pick<LaunchRow, 'title' | 'launch_date' | 'starts_at' | 'ends_at' | 'site_name' | 'site_address' | 'site_lat' | 'site_lon' | 'ceiling_metres' | 'waiver_version' | 'notes'>;
+
+/** Someone to write to about a launch. */
+export interface Recipient {
+  user_id: string;
+  email: string;
+  display_name: string;
+}
+
+const RSVP_COUNT = "(SELECT count(*) FROM launch_rsvps r WHERE r.launch_id = launches.id AND r.going) AS rsvp_count";
+
+/** Plain reads and writes of launches, RSVPs and attendance. */
+export class LaunchRepository {
+  constructor(private readonly db: Knex) {}
+
+  // The date comes back as text, so it never shifts with the server's time zone.
+  private select(db: Db) {
+    return db<LaunchRow>('launches').select('launches.*', db.raw("to_char(launch_date, 'YYYY-MM-DD') AS launch_date"), db.raw(RSVP_COUNT));
+  }
+
+  list(range: { from?: string; to?: string }, db: Db = this.db): Promise<LaunchRow[]> {
+    return this.select(db)
+      .modify((qb) => (range.from ? qb.where('launch_date', '>=', range.from) : qb))
+      .modify((qb) => (range.to ? qb.where('launch_date', '<=', range.to) : qb))
+      .orderBy([{ column: 'launches.launch_date' }, { column: 'launches.starts_at' }, { column: 'launches.id' }]);
+  }
+
+  byId(id: number, db: Db = this.db, lock = false): Promise<LaunchRow | undefined> {
+    return this.select(db).where('launches.id', id).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
+  }
+
+  async insert(db: Db, row: LaunchFields & { created_by: number }): Promise<number> {
+    const [created] = await db('launches').insert(row).returning('id');
+    return Number(created.id);
+  }
+
+  async update(db: Db, id: number, patch: Partial<LaunchFields>): Promise<boolean> {
+    return (await db('launches').where('id', id).update({ ...patch, updated_at: db.fn.now() })) === 1;
+  }
+
+  /** Calls a scheduled launch off; true only for the one caller whose update won. */
+  async callOff(trx: Knex.Transaction, id: number, reason: string): Promise<boolean> {
+    const n = await trx('launches')
+      .where({ id, status: 'scheduled' })
+      .update({ status: 'called_off', call_off_reason: reason, called_off_at: trx.fn.now(), sequence: trx.raw('sequence + 1'), updated_at: trx.fn.now() });
+    return n === 1;
+  }
+
+  /** Marks a scheduled launch done; true only if it was scheduled. */
+  async markDone(db: Db, id: number): Promise<boolean> {
+    return (await db('launches').where({ id, status: 'scheduled' }).update({ status: 'done', sequence: db.raw('sequence + 1'), updated_at: db.fn.now() })) === 1;
+  }
+
+  async setRsvp(db: Db, launchId: number, userId: number, going: boolean): Promise<void> {
+    await db('launch_rsvps').insert({ launch_id: launchId, user_id: userId, going }).onConflict(['launch_id', 'user_id']).merge({ going, updated_at: db.fn.now() });
+  }
+
+  async rsvpOf(launchId: number, userId: number, db: Db = this.db): Promise<boolean | null> {
+    const row = await db('launch_rsvps').where({ launch_id: launchId, user_id: userId }).first('going');
+    return row ? Boolean(row.going) : null;
+  }
+
+  /** Everyone who said they would come, with their e-mail. */
+  goingTo(launchId: number, db: Db = this.db): Promise<Recipient[]> {
+    return db('launch_rsvps as r')
+      .join('users as u', 'u.id', 'r.user_id')
+      .where({ 'r.launch_id': launchId, 'r.going': true })
+      .orderBy('u.id')
+      .select('u.id as user_id', 'u.email', 'u.display_name');
+  }
+
+  /** Scheduled launches with a date in [from, to]. */
+  scheduledBetween(from: string, to: string, db: Db = this.db): Promise<LaunchRow[]> {
+    return this.select(db).where('status', 'scheduled').whereBetween('launch_date', [from, to]).orderBy('launches.id');
+  }
+
+  /** Records a check-in; false when the member was already checked in for this launch. */
+  async addAttendance(db: Db, row: { launch_id: number; user_id: number; member_number: string; checked_in_by: number }): Promise<boolean> {
+    const rows = await db('launch_attendance').insert(row).onConflict(['launch_id', 'user_id']).ignore().returning('user_id');
+    return rows.length === 1;
+  }
+
+  async isCheckedIn(launchId: number, userId: number, db: Db = this.db): Promise<boolean> {
+    return (await db('launch_attendance').where({ launch_id: launchId, user_id: userId }).first('user_id')) !== undefined;
+  }
+
+  attendance(launchId: number, db: Db = this.db): Promise<{ user_id: string; display_name: string; member_number: string; checked_in_at: Date }[]> {
+    return db('launch_attendance as a').join('users as u', 'u.id', 'a.user_id').where('a.launch_id', launchId).orderBy('a.checked_in_at').select('a.user_id', 'u.display_name', 'a.member_number', 'a.checked_in_at');
+  }
+
+  /** Launches per status with a date in [from, to], for the dashboard. */
+  countsByStatus(from: string, to: string, db: Db = this.db): Promise<{ status: string; count: string }[]> {
+    return db('launches').whereBetween('launch_date', [from, to]).groupBy('status').select('status').count<{ status: string; count: string }[]>({ count: '*' });
+  }
+
+  async attendanceBetween(from: string, to: string, db: Db = this.db): Promise<number> {
+    const row = await db('launch_attendance as a').join('launches as l', 'l.id', 'a.launch_id').whereBetween('l.launch_date', [from, to]).count<{ count: string }[]>({ count: '*' }).first();
+    return Number(row?.count ?? 0);
+  }
+}

@@ -1,0 +1,27 @@
+import type { LaunchRow } from './launch-repository';
+
+/** Padside's words for a launch's state. */
+export const LAUNCH_STATUS_LABELS: Record<LaunchRow['status'], string> = { scheduled: 'On the calendar', called_off: 'Called off', done: 'Flown and closed' };
+
+const num = (v: string | null) => (v === null ? null : Number(v));
+
+/** A launch as every answer shows it. */
+export function launchView(l: LaunchRow) {
+  return {
+    id: Number(l.id),
+    title: l.title,
+    date: l.launch_date,
+    startsAt: l.starts_at,
+    endsAt: l.ends_at,
+    status: l.status,
+    statusLabel: LAUNCH_STATUS_LABELS[l.status],
+    callOffReason: l.call_off_reason,
+    site: { name: l.site_name, address: l.site_address, lat: num(l.site_lat), lon: num(l.site_lon) },
+    ceilingMetres: l.ceiling_metres,
+    waiverVersion: l.waiver_version,
+    notes: l.notes,
+    rsvpCount: Number(l.rsvp_count ?? 0),
+  };
+}
+
+export type LaunchView = ReturnType<typeof launchView>;

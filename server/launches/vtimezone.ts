@@ -1,0 +1,69 @@
+const formats = new Map<string, Intl.DateTimeFormat>();
+
+/** UTC offset in minutes of a time zone at an instant, from the platform's time zone data. */
+export function offsetMinutes(timeZone: string, at: Date): number {
+  let format = formats.get(timeZone);
+  if (!format) formats.set(timeZone, (format = new Intl.DateTimeFormat('en-US', { timeZone, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit' })));
+  const parts = format.formatToParts(at);
+  const n = (type: string) => Number(parts.find((p) => p.type === type)!.value);
+  const asUtc = Date.UTC(n('year'), n('month') - 1, n('day'), n('hour'), n('minute'), n('second'));
+  return Math.round((asUtc - Math.floor(at.getTime() / 1000) * 1000) / 60000);
+}
+
+/** The instant a wall-clock time (`YYYY-MM-DD`, `HH:MM`) in a time zone stands for. */
+export function zonedInstant(date: string, time: string, timeZone: string): Date {
+  const guess = new Date(`${date}T${time}:00Z`);
+  // Two passes settle the offset on both sides of a change.
+  let instant = new Date(guess.getTime() - offsetMinutes(timeZone, guess) * 60000);
+  instant = new Date(guess.getTime() - offsetMinutes(timeZone, instant) * 60000);
+  return instant;
+}
+
+const pad = (n: number, w = 2) => String(Math.abs(n)).padStart(w, '0');
+const utcOffset = (min: number) => `${min < 0 ? '-' : '+'}${pad(Math.floor(Math.abs(min) / 60))}${pad(Math.abs(min) % 60)}`;
+const localStamp = (instantMs: number, offsetMin: number) => {
+  const d = new Date(instantMs + offsetMin * 60000);
+  return `${d.getUTCFullYear()}${pad(d.getUTCMonth() + 1)}${pad(d.getUTCDate())}T${pad(d.getUTCHours())}${pad(d.getUTCMinutes())}${pad(d.getUTCSeconds())}`;
+};
+
+/** Every offset change of a zone in a year: the instant and the offsets before and after. */
+function transitions(timeZone: string, year: number): { at: number; from: number; to: number }[] {
+  const out: { at: number; from: number; to: number }[] = [];
+  const end = Date.UTC(year + 1, 0, 1);
+  // Steps of six hours: a zone's offset changes at most a few times a year, never twice within six hours.
+  const STEP = 6 * 3600000;
+  for (let t = Date.UTC(year, 0, 1); t < end; t += STEP) {
+    const before = offsetMinutes(timeZone, new Date(t));
+    const after = offsetMinutes(timeZone, new Date(t + STEP));
+    if (before === after) continue;
+    // Narrow the change down to the minute.
+    let lo = t;
+    let hi = t + STEP;
+    while (hi - lo > 60000) {
+      const mid = lo + Math.floor((hi - lo) / 120000) * 60000;
+      if (offsetMinutes(timeZone, new Date(mid)) === before) lo = mid;
+      else hi = mid;
+    }
+    out.push({ at: hi, from: before, to: after });
+  }
+  return out;
+}
+
+/**
+ * A VTIMEZONE (RFC 5545 3.6.5) for the years given, built from the platform's time zone data: one STANDARD or
+ * DAYLIGHT part per actual change, so no recurrence rule has to be right for every zone.
+ */
+export function vtimezone(timeZone: string, years: number[]): string {
+  const lines = ['BEGIN:VTIMEZONE', `TZID:${timeZone}`];
+  const changes = [...new Set(years)].sort().flatMap((y) => transitions(timeZone, y));
+  if (changes.length === 0) {
+    const off = offsetMinutes(timeZone, new Date(Date.UTC(Math.min(...years, 1970), 0, 1)));
+    lines.push('BEGIN:STANDARD', 'DTSTART:19700101T000000', `TZOFFSETFROM:${utcOffset(off)}`, `TZOFFSETTO:${utcOffset(off)}`, 'END:STANDARD');
+  }
+  for (const c of changes) {
+    const kind = c.to > c.from ? 'DAYLIGHT' : 'STANDARD';
+    lines.push(`BEGIN:${kind}`, `DTSTART:${localStamp(c.at, c.from)}`, `TZOFFSETFROM:${utcOffset(c.from)}`, `TZOFFSETTO:${utcOffset(c.to)}`, `END:${kind}`);
+  }
+  lines.push('END:VTIMEZONE');
+  return lines.join('\r\n');
+}

@@ -1,0 +1,41 @@
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { NgTemplateOutlet } from '@angular/common';
+import { RouterLink } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { EmptyState } from '../shared/empty-state';
+import { LaunchesApi, type Launch } from './launches-api';
+
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+/** Today's date in a time zone, as YYYY-MM-DD. */
+export function todayIn(timeZone: string): string {
+  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+}
+
+/** The club's launch calendar: coming launch days first, then the recent ones, and the feed to subscribe to. */
+@Component({
+  selector: 'ps-launch-calendar',
+  imports: [RouterLink, NgTemplateOutlet, MatButtonModule, MatIconModule, EmptyState],
+  templateUrl: './launch-calendar.html',
+  styleUrl: './launches.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class LaunchCalendar {
+  private readonly api = inject(LaunchesApi);
+  protected readonly launches = rxResource({ stream: () => this.api.list() });
+  protected readonly timeZone = computed(() => this.launches.value()?.timeZone ?? '');
+  private readonly today = computed(() => (this.timeZone() ? todayIn(this.timeZone()) : ''));
+  protected readonly upcoming = computed(() => (this.launches.value()?.items ?? []).filter((l) => l.date >= this.today()));
+  protected readonly past = computed(() => (this.launches.value()?.items ?? []).filter((l) => l.date < this.today()).reverse());
+  protected readonly feedUrl = `${typeof location === 'undefined' ? '' : location.origin}/feeds/launches.ics`;
+  protected readonly webcalUrl = this.feedUrl.replace(/^https?:/, 'webcal:');
+
+  protected month(l: Launch): string {
+    return MONTHS[Number(l.date.slice(5, 7)) - 1];
+  }
+  protected dayNumber(l: Launch): number {
+    return Number(l.date.slice(8, 10));
+  }
+}

@@ -1,0 +1,46 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { RouterLink } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { apiErrorMessage } from '../core/api-error';
+import { SessionStore } from '../core/session-store';
+import { FlightCaution } from './flight-caution';
+import { LaunchesApi } from './launches-api';
+
+/** One launch day: when and where, the reply (coming or not), and the flight card once checked in at the field. */
+@Component({
+  selector: 'ps-launch-page',
+  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, FlightCaution],
+  templateUrl: './launch-page.html',
+  styleUrl: './launches.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class LaunchPage {
+  private readonly api = inject(LaunchesApi);
+  protected readonly session = inject(SessionStore);
+  readonly id = input.required<string>();
+
+  protected readonly page = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.show(params) });
+  protected readonly launch = computed(() => this.page.value()?.launch ?? null);
+  protected readonly going = signal<boolean | null | undefined>(undefined);
+  /** The reply shown: the one just sent, else the stored one. */
+  protected readonly reply = computed(() => (this.going() !== undefined ? this.going() : this.page.value()?.me?.going ?? null));
+  protected readonly problem = signal<string | null>(null);
+  protected readonly mapUrl = computed(() => {
+    const s = this.launch()?.site;
+    return s?.lat != null && s?.lon != null ? `https://www.openstreetmap.org/?mlat=${s.lat}&mlon=${s.lon}#map=14/${s.lat}/${s.lon}` : null;
+  });
+
+  protected async answer(going: boolean): Promise<void> {
+    this.problem.set(null);
+    try {
+      const res = await firstValueFrom(this.api.rsvp(Number(this.id()), going));
+      this.going.set(res.going);
+      this.page.value.update((p) => (p ? { ...p, launch: res.launch } : p));
+    } catch (err) {
+      this.problem.set(apiErrorMessage(err));
+    }
+  }
+}

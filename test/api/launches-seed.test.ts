@@ -1,0 +1,32 @@
+import { seed as seedAccounts } from '../../seeds/01_demo_accounts';
+import { seed as seedMembers } from '../../seeds/03_membership';
+import { DEMO_RANGE_OFFICER, seed } from '../../seeds/05_launches';
+import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { Client } from '../helpers/users';
+
+let t: TestApp;
+beforeAll(() => {
+  t = buildTestApp();
+});
+afterAll(() => t.close());
+
+describe('the launches demo seed', () => {
+  it('loads once: the range officer, launch days in each state, and flown cards at the done one', async () => {
+    await seedAccounts(t.deps.db);
+    await seedMembers(t.deps.db);
+    await seed(t.deps.db);
+    await seed(t.deps.db);
+    const rso = await t.deps.db('users').where('email', DEMO_RANGE_OFFICER.email).first();
+    expect(rso.roles).toContain('range_officer');
+    const launches = await t.deps.db('launches').where('created_by', rso.id);
+    expect(launches.map((l) => l.status).sort()).toEqual(['called_off', 'done', 'scheduled', 'scheduled']);
+    const done = launches.find((l) => l.status === 'done')!;
+    const flights = await t.deps.db('flights').where('launch_id', done.id);
+    expect(flights).toHaveLength(3);
+    expect(flights.every((f) => f.status === 'flown' && f.outcome)).toBe(true);
+    // The demo member's cards show in their logbook and the range officer signs in with the demo password.
+    const client = new Client(t.app);
+    await client.signIn({ email: DEMO_RANGE_OFFICER.email, password: 'padside-demo-2026' });
+    expect((await client.get(`/api/admin/launches/${done.id}/queue`)).status).toBe(200);
+  });
+});
