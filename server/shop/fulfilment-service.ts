@@ -6,6 +6,7 @@ import type { PaymentGateway } from '../payments/payment-gateway';
 import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
 import { formatCad } from '../platform/money';
+import type { OrderLinks } from './order-links';
 import type { OrderBundle, OrderRepository } from './order-repository';
 import { shareProportionally } from './pricing';
 import { refundEmail, shippedEmail } from './shop-emails';
@@ -17,7 +18,7 @@ export class FulfilmentService {
     private readonly orders: OrderRepository,
     private readonly payments: PaymentGateway,
     private readonly clock: Clock,
-    private readonly publicUrl: string,
+    private readonly links: OrderLinks,
   ) {}
 
   async pack(id: number): Promise<OrderBundle> {
@@ -33,7 +34,8 @@ export class FulfilmentService {
       if (!(await this.orders.transition(trx, id, ['paid', 'packed'], { status: 'shipped', shipped_at: this.clock.now(), carrier, tracking_number: trackingNumber }))) {
         throw conflict('wrong_status', 'Only a paid or packed order can be shipped.');
       }
-      await enqueueEmail(trx, shippedEmail((await this.orders.find(id, trx))!, this.publicUrl));
+      const shipped = (await this.orders.find(id, trx))!;
+      await enqueueEmail(trx, shippedEmail(shipped, this.links.urlFor(shipped.order.id, shipped.order.email)));
     });
     return (await this.orders.find(id))!;
   }

@@ -6,6 +6,7 @@ import { STAFF_ROLES } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
 import type { CatalogueService } from './catalogue-service';
 import type { CheckoutService, PaymentOutcome } from './checkout-service';
+import type { OrderLinks } from './order-links';
 import type { OrderRepository } from './order-repository';
 import { orderJson } from './order-view';
 import { QuoteBody, quoteJson, type QuoteService } from './quote-service';
@@ -28,6 +29,7 @@ export interface ShopDeps {
   checkout: CheckoutService;
   orders: OrderRepository;
   config: ShopConfigRepository;
+  links: OrderLinks;
   now(): Date;
 }
 
@@ -69,20 +71,33 @@ function answer(res: import('express').Response, outcome: PaymentOutcome, create
   else res.status(created ? 201 : 200).json({ order });
 }
 
+/** Keeps the last 20 orders placed or opened in this browser session, so their buyer sees them without an account. */
+function rememberOrder(req: import('express').Request, orderId: number): void {
+  const ids = (req.session.shopOrderIds ?? []).filter((x) => x !== orderId);
+  req.session.shopOrderIds = [...ids.slice(-19), orderId];
+}
+
 /** POST /api/orders, GET /api/orders/:id (its buyer or staff), POST /api/orders/:id/pay (another attempt). */
 export function orderRoutes(d: ShopDeps): Router {
   const r = Router();
+  // The e-mailed link's key opens the order in any browser; the session then remembers it like a guest's own order.
+  const opensWithKey = (req: import('express').Request, orderId: number, email: string) => {
+    const key = typeof req.query.key === 'string' ? req.query.key : '';
+    if (!key || !d.links.verify(orderId, email, key)) return false;
+    rememberOrder(req, orderId);
+    return true;
+  };
   const mayView = async (req: import('express').Request, id: number) => {
     const b = await d.orders.find(id);
     if (!b) throw notFound('No such order.');
-    const own = (req.user && b.order.user_id === req.user.id) || req.session.shopOrderIds?.includes(id);
+    const own = (req.user && b.order.user_id === req.user.id) || req.session.shopOrderIds?.includes(id) || opensWithKey(req, b.order.id, b.order.email);
     if (!own && !req.user?.roles.some((x) => STAFF_ROLES.includes(x))) throw req.user ? forbidden('This is not your order.') : notFound('No such order.');
     return b;
   };
   r.post('/', async function placeOrder(req, res) {
     const body = parse(OrderBody, req.body);
     const outcome = await d.checkout.placeOrder(body, req.user ?? null);
-    req.session.shopOrderIds = [...(req.session.shopOrderIds ?? []).slice(-19), outcome.bundle.order.id];
+    rememberOrder(req, outcome.bundle.order.id);
     answer(res, outcome, true);
   });
   r.get('/:id', async function showOrder(req, res) {
