@@ -56,7 +56,7 @@ export function membershipRoutes(service: MembershipService): Router {
     res.status(201).json(await service.join(req.user!, parse(JoinSchema, req.body)));
   });
   r.get('/me', requireSignedIn, async (req, res) => {
-    res.json(await service.me(req.user!.id));
+    res.json(await service.meOrNone(req.user!.id));
   });
   r.patch('/me', requireSignedIn, async (req, res) => {
     res.json(await service.updateProfile(req.user!, parse(ProfileSchema.pick({ address: true, phone: true, emergencyContact: true, associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial(), req.body)));

@@ -197,6 +197,15 @@ export class MembershipService {
   }
 
   /** The caller's membership; the stored status and role catch up with the dates on the way. */
+  /**
+   * The caller's membership, or {membership: null} before they join: a signed-in fan without one is an ordinary
+   * state, and a 404 would be written to the browser console as an error on every visit to the dues page.
+   */
+  async meOrNone(userId: number) {
+    if (!(await this.repo.byUser(userId))) return { membership: null };
+    return this.me(userId);
+  }
+
   async me(userId: number) {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const policy = termPolicy(s);

@@ -9,6 +9,8 @@ export interface ProductRow {
   weight_grams: number;
   size_chart: SizeChart | null;
   images: ProductImage[];
+  /** Units of this product one order may hold. */
+  max_per_order: number;
   active: boolean;
   position: number;
 }
@@ -92,14 +94,14 @@ export class CatalogueRepository {
     return all.flat();
   }
 
-  async insertProduct(trx: Knex.Transaction, row: Omit<ProductRow, 'id' | 'position' | 'active'>, variants: Omit<VariantRow, 'id' | 'product_id' | 'position'>[]): Promise<number> {
+  async insertProduct(trx: Knex.Transaction, row: Omit<ProductRow, 'id' | 'position' | 'active' | 'max_per_order'> & { max_per_order?: number }, variants: Omit<VariantRow, 'id' | 'product_id' | 'position'>[]): Promise<number> {
     const [p] = await trx('shop_products').insert({ ...row, size_chart: row.size_chart ? JSON.stringify(row.size_chart) : null, images: JSON.stringify(row.images) }).returning('id');
     const productId = Number(p.id);
     await trx('shop_variants').insert(variants.map((v, i) => ({ ...v, product_id: productId, position: i })));
     return productId;
   }
 
-  async updateProduct(id: number, patch: Partial<Pick<ProductRow, 'name' | 'description_md' | 'price_cents' | 'weight_grams' | 'size_chart' | 'images' | 'active'>>): Promise<boolean> {
+  async updateProduct(id: number, patch: Partial<Pick<ProductRow, 'name' | 'description_md' | 'price_cents' | 'weight_grams' | 'size_chart' | 'images' | 'active' | 'max_per_order'>>): Promise<boolean> {
     const row: Record<string, unknown> = { ...patch };
     if (patch.size_chart !== undefined) row.size_chart = patch.size_chart ? JSON.stringify(patch.size_chart) : null;
     if (patch.images) row.images = JSON.stringify(patch.images);

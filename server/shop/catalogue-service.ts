@@ -23,6 +23,7 @@ export const ProductBody = z.object({
   priceCents: fields.cents.min(50, 'At least $0.50 (the card processor minimum).'),
   weightGrams: z.number({ error: 'Enter a weight in grams.' }).int('Whole grams.').min(1, 'At least 1 g.').max(20000, 'At most 20 kg.'),
   sizeChart: z.object({ columns: z.array(z.string().max(40)).min(1).max(10), rows: z.array(z.array(z.string().max(40)).max(10)).max(20) }).nullable().default(null),
+  maxPerOrder: z.number({ error: 'Enter a number of units.' }).int('Whole units only.').min(1, 'At least 1.').max(100, 'At most 100.').default(20),
   images: z.array(z.object({ url: z.string().regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Use an uploaded image.'), thumbnailUrl: z.string().regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Use an uploaded image.'), alt: z.string().trim().max(200) })).max(8).default([]),
   variants: z
     .array(z.object({ label: z.string({ error: 'Label is required.' }).trim().min(1, 'Label is required.').max(60), sku: z.string().trim().regex(/^[A-Z0-9-]{2,60}$/i, 'Letters, digits and dashes.').optional(), weightGrams: z.number().int().min(1).max(20000).optional(), priceCents: fields.cents.optional(), stock: z.number().int().min(0).max(100000).optional() }))
@@ -38,7 +39,7 @@ export const RunBody = RunFields.extend({
   variantCaps: z.array(z.object({ variantId: fields.id, cap: z.number({ error: 'Enter a cap.' }).int().min(0, 'At least 0.').max(100000) })).max(30).default([]),
 });
 
-export const ProductPatch = z.object({ name: name.optional(), description: z.string().max(20000, 'At most 20,000 characters.').superRefine(refuseUnrenderable).optional(), priceCents: fields.cents.min(50).optional(), active: z.boolean().optional(), sizeChart: ProductBody.shape.sizeChart.optional(), images: ProductBody.shape.images.optional() });
+export const ProductPatch = z.object({ name: name.optional(), description: z.string().max(20000, 'At most 20,000 characters.').superRefine(refuseUnrenderable).optional(), priceCents: fields.cents.min(50).optional(), active: z.boolean().optional(), sizeChart: ProductBody.shape.sizeChart.optional(), images: ProductBody.shape.images.optional(), maxPerOrder: ProductBody.shape.maxPerOrder.unwrap().optional() });
 
 const slugify = (s: string) => s.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 70) || 'item';
 
@@ -85,7 +86,7 @@ export class CatalogueService {
     const id = await this.db.transaction(async (trx) => {
       const productId = await this.repo.insertProduct(
         trx,
-        { slug, name: input.name, description_md: input.description, price_cents: input.priceCents, weight_grams: input.weightGrams, size_chart: input.sizeChart, images: input.images },
+        { slug, name: input.name, description_md: input.description, price_cents: input.priceCents, weight_grams: input.weightGrams, size_chart: input.sizeChart, images: input.images, max_per_order: input.maxPerOrder },
         input.variants.map((v, i) => ({ label: v.label, sku: skus[i], weight_grams: v.weightGrams ?? null, price_cents: v.priceCents ?? null, stock_on_hand: input.run ? null : (v.stock ?? 0) })),
       );
       if (input.run) {
@@ -121,7 +122,7 @@ export class CatalogueService {
   }
 
   async update(id: number, patch: z.infer<typeof ProductPatch>) {
-    const ok = await this.repo.updateProduct(id, { name: patch.name, description_md: patch.description, price_cents: patch.priceCents, active: patch.active, size_chart: patch.sizeChart, images: patch.images });
+    const ok = await this.repo.updateProduct(id, { name: patch.name, description_md: patch.description, price_cents: patch.priceCents, active: patch.active, size_chart: patch.sizeChart, images: patch.images, max_per_order: patch.maxPerOrder });
     if (!ok) throw notFound('No such product.');
     return this.byId(id);
   }

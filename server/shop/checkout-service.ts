@@ -8,6 +8,7 @@ import { AppError, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
 import type { SessionUser } from '../platform/roles';
 import type { SettingsService } from '../settings/settings-service';
+import type { OrderLinks } from './order-links';
 import type { OrderBundle, OrderRepository } from './order-repository';
 import type { QuoteRequest, QuoteService } from './quote-service';
 import type { ReceiptService } from './receipt-service';
@@ -33,7 +34,7 @@ export class CheckoutService {
     private readonly payments: PaymentGateway,
     private readonly settings: SettingsService,
     private readonly clock: Clock,
-    private readonly publicUrl: string,
+    private readonly links: OrderLinks,
     private readonly teamName: string,
     private readonly log: Logger,
     private readonly receipts: ReceiptService,
@@ -110,7 +111,7 @@ export class CheckoutService {
         idempotencyKey: `shop-payment-${orderId}`,
         taxes: b.taxes.map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, ratePercent: t.rate_percent, taxableCents: t.taxable_cents, taxCents: t.amount_cents })),
       });
-      await enqueueEmail(trx, confirmationEmail(b, this.publicUrl, this.teamName, this.receipts.build(b, seller)));
+      await enqueueEmail(trx, confirmationEmail(b, this.links.urlFor(b.order.id, b.order.email), this.teamName, this.receipts.build(b, seller)));
     });
     return (await this.orders.find(orderId))!;
   }

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { enqueueEmail } from '../mail/outbox';
 import { conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
+import type { OrderLinks } from './order-links';
 import type { OrderBundle, OrderRepository } from './order-repository';
 import { shippedEmail } from './shop-emails';
 
@@ -11,7 +12,7 @@ export class FulfilmentService {
     private readonly db: Knex,
     private readonly orders: OrderRepository,
     private readonly clock: Clock,
-    private readonly publicUrl: string,
+    private readonly links: OrderLinks,
   ) {}
 
   async pack(id: number): Promise<OrderBundle> {
@@ -30,7 +31,8 @@ export class FulfilmentService {
       if (!(await this.orders.transition(trx, id, ['paid', 'packed'], { status: 'shipped', shipped_at: this.clock.now(), carrier, tracking_number: trackingNumber }))) {
         throw conflict('wrong_status', 'Only a paid or packed order can be shipped.');
       }
-      await enqueueEmail(trx, shippedEmail((await this.orders.find(id, trx))!, this.publicUrl));
+      const shipped = (await this.orders.find(id, trx))!;
+      await enqueueEmail(trx, shippedEmail(shipped, this.links.urlFor(shipped.order.id, shipped.order.email)));
     });
     return (await this.orders.find(id))!;
   }

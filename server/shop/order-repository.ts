@@ -80,7 +80,8 @@ export interface OrderBundle {
 }
 
 export interface OrderFilter {
-  status?: OrderStatus;
+  /** `placed`: every order but never-paid attempts (status failed), the console's default view. */
+  status?: OrderStatus | 'placed';
   runId?: number;
   from?: string;
   to?: string;
@@ -200,8 +201,9 @@ export class OrderRepository {
     return row ? Number(row.id) : null;
   }
 
+  /** The buyer's own orders; attempts whose payment failed were never orders to them, so they are left out. */
   async forUser(userId: number): Promise<OrderRow[]> {
-    const rows = await this.db('shop_orders').select('*', this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('user_id', userId).orderBy('created_at', 'desc').limit(200);
+    const rows = await this.db('shop_orders').select('*', this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('user_id', userId).whereNot('status', 'failed').orderBy('created_at', 'desc').limit(200);
     return rows.map(fix);
   }
 
@@ -212,7 +214,8 @@ export class OrderRepository {
 
   private filtered(f: OrderFilter) {
     const q = this.db('shop_orders as o');
-    if (f.status) q.where('o.status', f.status);
+    if (f.status === 'placed') q.whereNot('o.status', 'failed');
+    else if (f.status) q.where('o.status', f.status);
     if (f.runId) q.whereExists(this.db('shop_order_items as i').whereRaw('i.order_id = o.id').where('i.run_id', f.runId));
     if (f.from) q.whereRaw('(o.created_at AT TIME ZONE ?)::date >= ?', [f.timeZone, f.from]);
     if (f.to) q.whereRaw('(o.created_at AT TIME ZONE ?)::date <= ?', [f.timeZone, f.to]);

@@ -9,6 +9,8 @@ export interface ProductView {
   priceCents: number;
   currency: 'CAD';
   weightGrams: number;
+  /** Units of this product one order may hold. */
+  maxPerOrder: number;
   images: { url: string; thumbnailUrl: string; alt: string }[];
   sizeChart: { columns: string[]; rows: string[][] } | null;
   orderable: boolean;
@@ -37,6 +39,7 @@ export function productView(b: ProductBundle, now: Date): ProductView {
     priceCents: p.price_cents,
     currency: 'CAD',
     weightGrams: p.weight_grams,
+    maxPerOrder: p.max_per_order,
     images: p.images,
     sizeChart: p.size_chart,
     orderable: p.active && (run ? state === 'open' : b.variants.some((v) => (v.stock_on_hand ?? 0) > 0)),

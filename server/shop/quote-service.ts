@@ -18,7 +18,7 @@ const text = (max: number, label: string) => z.string({ error: `${label} is requ
 /** The body of a quote; an order adds e-mail and payment token. */
 export const QuoteBody = z.object({
   items: z
-    .array(z.object({ variantId: fields.id, quantity: z.number({ error: 'Enter a quantity.' }).int('Whole units only.').min(1, 'At least 1.').max(20, 'At most 20 of one item.') }), { error: 'The cart is empty.' })
+    .array(z.object({ variantId: fields.id, quantity: z.number({ error: 'Enter a quantity.' }).int('Whole units only.').min(1, 'At least 1.').max(100, 'At most 100 of one item.') }), { error: 'The cart is empty.' })
     .min(1, 'The cart is empty.')
     .max(30, 'At most 30 different items.'),
   shipTo: z.object({
@@ -80,6 +80,7 @@ export class QuoteService {
     const bundles = await this.catalogue.bundlesForVariants([...wanted.keys()]);
     const lines: QuoteLine[] = [];
     const problems: FieldErrors = {};
+    const overLimit: FieldErrors = {};
     let soldOut = false;
     let weight = 0;
     for (const [variantId, quantity] of wanted) {
@@ -91,6 +92,11 @@ export class QuoteService {
       }
       const view = productView(b, now);
       const v = view.variants.find((x) => x.id === variantId)!;
+      const ofProduct = req.items.filter((i) => b.variants.some((x) => x.id === i.variantId)).reduce((s, i) => s + i.quantity, 0);
+      if (ofProduct > b.product.max_per_order) {
+        overLimit[`${field}.quantity`] = `At most ${b.product.max_per_order} of ${b.product.name} per order.`;
+        continue;
+      }
       if (b.run && view.run?.state !== 'open') {
         soldOut ||= view.run?.state === 'sold_out';
         problems[`${field}.quantity`] = runClosedMessage(view.run?.state);
@@ -105,6 +111,7 @@ export class QuoteService {
       weight += v.weightGrams * quantity;
       lines.push(line(b, variantId, quantity, v.priceCents));
     }
+    if (Object.keys(overLimit).length) throw badRequest('Part of the cart is over the per-order limit.', overLimit);
     if (Object.keys(problems).length) {
       throw soldOut ? conflict('sold_out', 'Part of the cart is sold out.', problems) : conflict('not_available', 'Part of the cart cannot be ordered now.', problems);
     }

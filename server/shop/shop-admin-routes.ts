@@ -23,7 +23,7 @@ const OrderQuery = z.strictObject({
   pageSize: fields.pageSize,
   sort: z.enum(Object.keys(ORDER_SORTS) as [keyof typeof ORDER_SORTS], { error: 'Sort by created, number, email, total or status.' }).default('created'),
   dir: z.enum(['asc', 'desc']).default('desc'),
-  status: z.enum(['pending', 'paid', 'failed', 'packed', 'shipped']).optional(),
+  status: z.enum(['placed', 'pending', 'paid', 'failed', 'packed', 'shipped'], { error: 'Choose placed or an order status.' }).optional(),
   runId: fields.id.optional(),
   from: fields.date.optional(),
   to: fields.date.optional(),

@@ -17,8 +17,8 @@ function receipt(b: OrderBundle): string[] {
   ];
 }
 
-/** The order confirmation, once per order; it is also the buyer's receipt. */
-export function confirmationEmail(b: OrderBundle, publicUrl: string, teamName: string, r: Receipt): OutgoingEmail {
+/** The order confirmation, once per order; it is also the buyer's receipt. `orderUrl` is the signed link that opens the order without an account. */
+export function confirmationEmail(b: OrderBundle, orderUrl: string, teamName: string, r: Receipt): OutgoingEmail {
   const o = b.order;
   const dest = o.shipping_code === 'pickup' ? 'Pick up at the next club launch; bring this e-mail.' : [o.ship_name, o.ship_line1, o.ship_line2, `${o.ship_city ?? ''} ${o.ship_province ?? ''} ${o.ship_postal_code ?? ''}`.trim(), o.ship_country].filter(Boolean).join('\n');
   return {
@@ -26,19 +26,19 @@ export function confirmationEmail(b: OrderBundle, publicUrl: string, teamName: s
     subject: `Padside order ${o.number}: thank you`,
     template: 'shop-order-confirmation',
     dedupeKey: `shop-confirmation-${o.id}`,
-    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', 'Receipt', ...receiptText(r, formatCad), '', ...receipt(b), '', 'Delivery:', dest, '', `See your order: ${publicUrl}/shop/orders/${o.id}`, '', `${teamName}, via Padside`].join('\n'),
+    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', 'Receipt', ...receiptText(r, formatCad), '', ...receipt(b), '', 'Delivery:', dest, '', `See your order: ${orderUrl}`, '', `${teamName}, via Padside`].join('\n'),
   };
 }
 
-/** The shipped notice with carrier and tracking. */
-export function shippedEmail(b: OrderBundle, publicUrl: string): OutgoingEmail {
+/** The shipped notice with carrier and tracking; `orderUrl` as for the confirmation. */
+export function shippedEmail(b: OrderBundle, orderUrl: string): OutgoingEmail {
   const o = b.order;
   return {
     to: o.email,
     subject: `Padside order ${o.number} is on its way`,
     template: 'shop-order-shipped',
     dedupeKey: `shop-shipped-${o.id}`,
-    text: [`Your order ${o.number} has left the workshop.`, '', `Carrier: ${o.carrier}`, `Tracking number: ${o.tracking_number}`, '', `See your order: ${publicUrl}/shop/orders/${o.id}`].join('\n'),
+    text: [`Your order ${o.number} has left the workshop.`, '', `Carrier: ${o.carrier}`, `Tracking number: ${o.tracking_number}`, '', `See your order: ${orderUrl}`].join('\n'),
   };
 }
 

@@ -6,6 +6,7 @@ import type { Role } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
 import type { CatalogueService } from './catalogue-service';
 import type { CheckoutService, PaymentOutcome } from './checkout-service';
+import type { OrderLinks } from './order-links';
 import type { OrderBundle, OrderRepository } from './order-repository';
 import { orderJson } from './order-view';
 import { QuoteBody, quoteJson, type QuoteService } from './quote-service';
@@ -30,6 +31,7 @@ export interface ShopDeps {
   orders: OrderRepository;
   config: ShopConfigRepository;
   receipts: ReceiptService;
+  links: OrderLinks;
   now(): Date;
 }
 
@@ -79,20 +81,33 @@ async function answer(d: ShopDeps, res: import('express').Response, outcome: Pay
 /** Besides the buyer, only these roles handle shop orders (an editor has no business with addresses or payments). */
 export const ORDER_ROLES: readonly Role[] = ['treasurer', 'admin'];
 
+/** Keeps the last 20 orders placed or opened in this browser session, so their buyer sees them without an account. */
+function rememberOrder(req: import('express').Request, orderId: number): void {
+  const ids = (req.session.shopOrderIds ?? []).filter((x) => x !== orderId);
+  req.session.shopOrderIds = [...ids.slice(-19), orderId];
+}
+
 /** POST /api/orders, GET /api/orders/:id (its buyer, treasurer, admin), POST /api/orders/:id/pay (another attempt). */
 export function orderRoutes(d: ShopDeps): Router {
   const r = Router();
+  // The e-mailed link's key opens the order in any browser; the session then remembers it like a guest's own order.
+  const opensWithKey = (req: import('express').Request, orderId: number, email: string) => {
+    const key = typeof req.query.key === 'string' ? req.query.key : '';
+    if (!key || !d.links.verify(orderId, email, key)) return false;
+    rememberOrder(req, orderId);
+    return true;
+  };
   // Anyone else gets the same 404 as an id that does not exist, so order ids are not confirmed to strangers (ASVS 4.0.3 4.2.1).
   const mayView = async (req: import('express').Request, id: number) => {
     const b = await d.orders.find(id);
-    const own = b && ((req.user && b.order.user_id === req.user.id) || req.session.shopOrderIds?.includes(id));
+    const own = b && ((req.user && b.order.user_id === req.user.id) || req.session.shopOrderIds?.includes(id) || opensWithKey(req, b.order.id, b.order.email));
     if (!b || !(own || req.user?.roles.some((x) => ORDER_ROLES.includes(x)))) throw notFound('No such order.');
     return b;
   };
   r.post('/', async function placeOrder(req, res) {
     const body = parse(OrderBody, req.body);
     const outcome = await d.checkout.placeOrder(body, req.user ?? null);
-    req.session.shopOrderIds = [...(req.session.shopOrderIds ?? []).slice(-19), outcome.bundle.order.id];
+    rememberOrder(req, outcome.bundle.order.id);
     await answer(d, res, outcome, true);
   });
   r.get('/:id', async function showOrder(req, res) {

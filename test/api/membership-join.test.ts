@@ -165,8 +165,10 @@ describe('POST /api/membership', () => {
 });
 
 describe('GET /api/membership/me', () => {
-  it('answers 404 without a membership', async () => {
-    expect((await (await signedIn(t.app, t.deps.db)).client.get('/api/membership/me')).status).toBe(404);
+  it('answers 200 with no membership before the caller joins (not a 404 the browser logs as an error)', async () => {
+    const res = await (await signedIn(t.app, t.deps.db)).client.get('/api/membership/me');
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ membership: null });
   });
 });
 

@@ -1,6 +1,7 @@
-import { HttpClient, HttpParams } from '@angular/common/http';
+import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
+import { QUIET_ERRORS } from '../core/error-interceptor';
 
 /** One row of the public list. */
 export interface PostSummary {
@@ -36,7 +37,8 @@ export class BuildLogApi {
     return this.http.get<{ items: { tag: string; count: number }[] }>('/api/posts/tags');
   }
 
+  /** An unknown slug is the post page's to say ("not found"), not a snack bar's. */
   get(slug: string): Observable<PostDetail> {
-    return this.http.get<PostDetail>(`/api/posts/${encodeURIComponent(slug)}`);
+    return this.http.get<PostDetail>(`/api/posts/${encodeURIComponent(slug)}`, { context: new HttpContext().set(QUIET_ERRORS, true) });
   }
 }

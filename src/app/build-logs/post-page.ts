@@ -31,7 +31,8 @@ export class PostPage {
    * script); Angular's own sanitizer would also strip the task-list checkboxes that allow-list keeps.
    */
   protected readonly body = computed<SafeHtml | null>(() => {
-    const html = this.post.value()?.html;
+    // value() throws while the resource holds an error (an unknown address).
+    const html = this.post.hasValue() ? this.post.value().html : null;
     return html ? this.dom.bypassSecurityTrustHtml(html) : null;
   });
 }

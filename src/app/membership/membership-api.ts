@@ -98,9 +98,9 @@ export class MembershipApi {
     return this.http.post<Quote>('/api/membership/quote', { planId }, quiet());
   }
 
-  /** The caller's membership; a 404 (no membership yet) is expected, so it stays quiet. */
-  me(): Observable<{ membership: Membership }> {
-    return this.http.get<{ membership: Membership }>('/api/membership/me', quiet());
+  /** The caller's membership; null before they join. */
+  me(): Observable<{ membership: Membership | null }> {
+    return this.http.get<{ membership: Membership | null }>('/api/membership/me', quiet());
   }
 
   join(body: JoinRequest): Observable<{ membership: Membership }> {

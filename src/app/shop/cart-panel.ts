@@ -24,7 +24,7 @@ import { CartStore } from './cart-store';
       </aside>
     }
   `,
-  styles: `.scrim { position: fixed; inset: 0; background: rgb(0 0 0 / 35%); z-index: 20; } .panel { position: fixed; top: 0; right: 0; bottom: 0; width: min(420px, 100vw); background: var(--mat-sys-surface); z-index: 21; padding: 16px 20px; overflow: auto; box-shadow: -8px 0 24px rgb(0 0 0 / 20%); } header { display: flex; justify-content: space-between; align-items: center; } a[mat-flat-button] { margin-top: 16px; width: 100%; }`,
+  styles: `.scrim { position: fixed; inset: 0; background: rgb(0 0 0 / 35%); z-index: 20; } .panel { position: fixed; top: 0; right: 0; bottom: 0; box-sizing: border-box; width: min(420px, 100vw); background: var(--mat-sys-surface); z-index: 21; padding: 16px 20px; overflow: auto; box-shadow: -8px 0 24px rgb(0 0 0 / 20%); } header { display: flex; justify-content: space-between; align-items: center; } a[mat-flat-button] { margin-top: 16px; width: 100%; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CartPanel {

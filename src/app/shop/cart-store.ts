@@ -8,6 +8,8 @@ export interface CartLine {
   variantLabel: string;
   slug: string;
   priceCents: number;
+  /** The product's per-order limit when the line was added (the server checks it again on every quote). */
+  maxPerOrder?: number;
 }
 
 const KEY = 'padside.cart.v1';
@@ -35,15 +37,18 @@ export class CartStore {
     effect(() => localStorage.setItem(KEY, JSON.stringify(this.state())));
   }
 
-  add(line: CartLine): void {
+  /** Adds units, never past the line's per-order limit; returns how many the line now holds. */
+  add(line: CartLine): number {
+    const max = line.maxPerOrder ?? 20;
     this.state.update((lines) => {
       const found = lines.find((l) => l.variantId === line.variantId);
-      return found ? lines.map((l) => (l === found ? { ...l, quantity: Math.min(20, l.quantity + line.quantity) } : l)) : [...lines, line];
+      return found ? lines.map((l) => (l === found ? { ...l, maxPerOrder: max, quantity: Math.min(max, l.quantity + line.quantity) } : l)) : [...lines, { ...line, quantity: Math.min(max, line.quantity) }];
     });
+    return this.state().find((l) => l.variantId === line.variantId)!.quantity;
   }
 
   setQuantity(variantId: number, quantity: number): void {
-    this.state.update((lines) => (quantity <= 0 ? lines.filter((l) => l.variantId !== variantId) : lines.map((l) => (l.variantId === variantId ? { ...l, quantity: Math.min(20, quantity) } : l))));
+    this.state.update((lines) => (quantity <= 0 ? lines.filter((l) => l.variantId !== variantId) : lines.map((l) => (l.variantId === variantId ? { ...l, quantity: Math.min(l.maxPerOrder ?? 20, quantity) } : l))));
   }
 
   clear(): void {

@@ -10,8 +10,8 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
-import { MatStepperModule } from '@angular/material/stepper';
-import { applyServerErrors } from '../core/api-error';
+import { MatStepper, MatStepperModule } from '@angular/material/stepper';
+import { apiErrorMessage, applyServerErrors } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
 import { FieldErrorPipe } from '../shared/field-error-pipe';
 import { MoneyPipe } from '../shared/money-pipe';
@@ -72,6 +72,9 @@ export class Checkout {
   protected readonly cardEntry = rxResource({ stream: () => this.api.cardEntry() });
   protected readonly usesStripeJs = computed(() => this.cardEntry.value()?.mode === 'stripe-js');
   private readonly stripeCard = viewChild(StripeCard);
+  private readonly stepper = viewChild(MatStepper);
+  /** Why the chosen card was refused; shown beside the card choice and cleared when the buyer changes it. */
+  protected readonly cardProblem = signal<string | null>(null);
 
   private readonly methodId = toSignal(this.shipping.controls.shippingMethodId.valueChanges, { initialValue: 0 });
   private readonly country = toSignal(this.shipping.controls.shipTo.controls.country.valueChanges, { initialValue: 'CA' });
@@ -84,6 +87,7 @@ export class Checkout {
   protected readonly busy = signal(false);
 
   constructor() {
+    this.payment.controls.paymentToken.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.cardProblem.set(null));
     // The summary follows the shipping form as the buyer types; field messages wait until they move on.
     this.shipping.valueChanges.pipe(debounceTime(400), takeUntilDestroyed()).subscribe(() => {
       if (this.shipping.controls.shippingMethodId.value > 0) void this.refreshQuote(false);
@@ -110,10 +114,17 @@ export class Checkout {
     }
   }
 
+  /** The Stripe.js frame reports whether its card is complete; typing a new card clears a refusal. */
+  protected cardComplete(complete: boolean): void {
+    this.cardForm.controls.complete.setValue(complete);
+    this.cardProblem.set(null);
+  }
+
   protected async placeOrder(): Promise<void> {
     if (this.busy() || !this.quote()) return;
     this.busy.set(true);
     this.problem.set(null);
+    this.cardProblem.set(null);
     try {
       const card = this.stripeCard();
       const token = card ? await card.token() : this.payment.getRawValue().paymentToken;
@@ -129,6 +140,13 @@ export class Checkout {
       if (!(err instanceof HttpErrorResponse)) {
         // Stripe.js could not tokenise the card; it already shows why beside the card field.
         this.problem.set(err instanceof Error ? err.message : 'The card details could not be used.');
+        return;
+      }
+      if (err.status === 402) {
+        // A refused card is about the card: back to the card choice, with the reason beside it.
+        this.cardProblem.set(apiErrorMessage(err));
+        const stepper = this.stepper();
+        if (stepper) stepper.selectedIndex = 2;
         return;
       }
       const message = applyServerErrors(this.contact, err);

@@ -20,7 +20,9 @@ export class OrderPage {
   readonly id = input.required({ transform: numberAttribute });
   /** Set by checkout, so the page thanks the buyer. */
   readonly placed = input<string>();
-  protected readonly order = rxResource({ params: () => this.id(), stream: ({ params }) => this.api.order(params) });
+  /** From the e-mailed link: opens the order in a browser that has no account or session for it. */
+  readonly key = input<string>();
+  protected readonly order = rxResource({ params: () => ({ id: this.id(), key: this.key() }), stream: ({ params }) => this.api.order(params.id, params.key) });
   protected readonly labels = STATUS_LABELS;
 
   protected print(): void {

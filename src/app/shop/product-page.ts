@@ -27,14 +27,25 @@ export class ProductPage {
   readonly slug = input.required<string>();
 
   protected readonly product = rxResource({ params: () => this.slug(), stream: ({ params }) => this.api.product(params) });
-  protected readonly chosenId = signal<number | null>(null);
+  /** The product once loaded; value() itself throws while the resource holds an error (an unknown address). */
+  private readonly loaded = computed(() => (this.product.hasValue() ? this.product.value() : undefined));
+  private readonly pickedId = signal<number | null>(null);
+  /** The buyer's pick, or the product's sole option when there is nothing to choose. */
+  protected readonly chosenId = computed(() => {
+    const variants = this.loaded()?.variants ?? [];
+    return this.pickedId() ?? (variants.length === 1 && variants[0].remaining > 0 ? variants[0].id : null);
+  });
   protected readonly quantity = signal(1);
-  protected readonly added = signal(false);
+  /** What became of the typed quantity, said beside the field: capped at the limit, or refused. */
+  protected readonly quantityNote = signal<{ kind: 'capped' | 'refused'; text: string } | null>(null);
+  /** What "Add to cart" did, said beside the button. */
+  protected readonly added = signal<string | null>(null);
+  protected readonly limit = computed(() => this.loaded()?.maxPerOrder ?? 20);
   protected readonly stateLabel = RUN_STATE_LABELS;
   private readonly now = signal(Date.now());
   /** The countdown, refreshed every 30 seconds while the page is open. */
   protected readonly closesIn = computed(() => {
-    const run = this.product.value()?.run;
+    const run = this.loaded()?.run;
     return run ? timeLeft(run.closesAt, this.now()) : '';
   });
 
@@ -43,29 +54,45 @@ export class ProductPage {
     inject(DestroyRef).onDestroy(() => clearInterval(timer));
   }
 
-  protected readonly chosen = computed<Variant | null>(() => this.product.value()?.variants.find((v) => v.id === this.chosenId()) ?? null);
+  protected readonly chosen = computed<Variant | null>(() => this.loaded()?.variants.find((v) => v.id === this.chosenId()) ?? null);
   protected readonly canAdd = computed(() => {
-    const p = this.product.value();
+    const p = this.loaded();
     const v = this.chosen();
-    return !!p && p.orderable && !!v && v.remaining >= this.quantity() && this.quantity() >= 1;
+    return !!p && p.orderable && !!v && v.remaining >= this.quantity() && this.quantity() >= 1 && this.quantityNote()?.kind !== 'refused';
   });
 
   protected pick(id: number): void {
-    this.chosenId.set(id);
-    this.added.set(false);
+    this.pickedId.set(id);
+    this.added.set(null);
   }
 
-  protected setQuantity(value: string): void {
-    const n = Math.floor(Number(value));
-    this.quantity.set(Number.isFinite(n) ? Math.max(1, Math.min(20, n)) : 1);
+  /** Takes the typed quantity: over the limit is capped (and said so), below 1 or not a whole number is refused. */
+  protected setQuantity(input: HTMLInputElement): void {
+    this.added.set(null);
+    const n = Number(input.value);
+    const max = this.limit();
+    if (input.value.trim() === '' || !Number.isInteger(n) || n < 1) {
+      this.quantityNote.set({ kind: 'refused', text: 'Enter a whole number of at least 1.' });
+      return;
+    }
+    if (n > max) {
+      this.quantity.set(max);
+      input.value = String(max);
+      this.quantityNote.set({ kind: 'capped', text: `Changed to ${max}: at most ${max} per order.` });
+      return;
+    }
+    this.quantity.set(n);
+    this.quantityNote.set(null);
   }
 
   protected add(): void {
-    const p = this.product.value();
+    const p = this.loaded();
     const v = this.chosen();
     if (!p || !v || !this.canAdd()) return;
-    this.cart.add({ variantId: v.id, quantity: this.quantity(), productName: p.name, variantLabel: v.label, slug: p.slug, priceCents: v.priceCents });
-    this.added.set(true);
+    const before = this.cart.lines().find((l) => l.variantId === v.id)?.quantity ?? 0;
+    const now = this.cart.add({ variantId: v.id, quantity: this.quantity(), productName: p.name, variantLabel: v.label, slug: p.slug, priceCents: v.priceCents, maxPerOrder: p.maxPerOrder });
+    const took = now - before;
+    this.added.set(took < this.quantity() ? `Added ${took}: the cart now holds ${now}, the most one order may have.` : `Added ${took} to the cart.`);
     this.cart.panelOpen.set(true);
   }
 }

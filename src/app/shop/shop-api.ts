@@ -14,8 +14,9 @@ export class ShopApi {
   products(): Observable<Product[]> {
     return this.http.get<{ items: Product[] }>('/api/products').pipe(map((r) => r.items));
   }
+  /** An unknown slug is the page's to say (its not-found message), not a snack bar's. */
   product(slug: string): Observable<Product> {
-    return this.http.get<Product>(`/api/products/${encodeURIComponent(slug)}`);
+    return this.http.get<Product>(`/api/products/${encodeURIComponent(slug)}`, quiet());
   }
   /** How the payment step takes a card: labelled test tokens against the local fake, or Stripe.js. */
   cardEntry(): Observable<CardEntry> {
@@ -34,8 +35,10 @@ export class ShopApi {
   payAgain(id: number, paymentToken: string): Observable<{ order: Order; message?: string }> {
     return this.http.post<{ order: Order; message?: string }>(`/api/orders/${id}/pay`, { paymentToken }, quiet());
   }
-  order(id: number): Observable<Order> {
-    return this.http.get<{ order: Order }>(`/api/orders/${id}`).pipe(map((r) => r.order));
+  /** `key` is the one from the e-mailed link, which opens the order without an account. */
+  order(id: number, key?: string): Observable<Order> {
+    // The page says "not found" itself; no snack bar on top of it.
+    return this.http.get<{ order: Order }>(`/api/orders/${id}`, { ...quiet(), ...(key ? { params: { key } } : {}) }).pipe(map((r) => r.order));
   }
   myOrders(): Observable<OrderSummary[]> {
     return this.http.get<{ items: OrderSummary[] }>('/api/account/orders').pipe(map((r) => r.items));

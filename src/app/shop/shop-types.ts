@@ -22,6 +22,8 @@ export interface Product {
   name: string;
   priceCents: number;
   currency: 'CAD';
+  /** Units of this product one order may hold. */
+  maxPerOrder: number;
   images: { url: string; thumbnailUrl: string; alt: string }[];
   sizeChart: { columns: string[]; rows: string[][] } | null;
   orderable: boolean;

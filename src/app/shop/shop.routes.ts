@@ -6,6 +6,7 @@ export const shopRoutes: Routes = [
   { path: 'p/:slug', loadComponent: () => import('./product-page').then((m) => m.ProductPage), title: 'Merch — Padside' },
   { path: 'cart', loadComponent: () => import('./cart-page').then((m) => m.CartPage), title: 'Your cart — Padside' },
   { path: 'checkout', loadComponent: () => import('./checkout').then((m) => m.Checkout), title: 'Checkout — Padside' },
-  { path: 'orders', canMatch: [signedInGuard], loadComponent: () => import('./my-orders').then((m) => m.MyOrders), title: 'My orders — Padside' },
+  // Full match: a prefix match would send /shop/orders/:id (a guest's confirmation) through the sign-in guard.
+  { path: 'orders', pathMatch: 'full', canMatch: [signedInGuard], loadComponent: () => import('./my-orders').then((m) => m.MyOrders), title: 'My orders — Padside' },
   { path: 'orders/:id', loadComponent: () => import('./order-page').then((m) => m.OrderPage), title: 'Order — Padside' },
 ];

@@ -27,7 +27,8 @@ export class OrderList {
   private readonly api = inject(ShopAdminApi);
   protected readonly columns = ['number', 'created', 'email', 'status', 'units', 'total'];
   protected readonly statuses = Object.entries(STATUS_LABELS);
-  protected readonly query = signal<OrderQuery>({ page: 1, pageSize: 25, sort: 'created', dir: 'desc' });
+  // Never-paid attempts (declined cards) are hidden by default; "Any status" or "Not paid" shows them.
+  protected readonly query = signal<OrderQuery>({ page: 1, pageSize: 25, sort: 'created', dir: 'desc', status: 'placed' });
   protected readonly orders = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.orders(params) });
   protected readonly runs = rxResource({ stream: () => this.api.runs() });
   protected readonly csvHref = computed(() => {
