@@ -138,14 +138,17 @@ describe('RefundPanel', () => {
     expect(emitted).toEqual([]);
   });
 
-  it('should leave no stale error on the amount once the refunded order comes back', async () => {
+  it('should leave no stale error or tick once the refunded order comes back', async () => {
     await submit();
+    expect(el.querySelector('[role=alert]')?.textContent).toMatch(/Tick a line or the shipping, or enter an amount/);
+    await tick(0);
     expect(el.querySelector('[role=alert]')?.textContent).toMatch(/Tick a line or the shipping, or enter an amount/);
     fixture.componentRef.setInput('order', order({ refundedCents: 3920, items: order().items.map((i) => (i.id === 501 ? { ...i, refundedQuantity: 1, unitsToPack: 1 } : i)) }));
     await settle();
     expect(el.querySelector('[role=alert]')).toBeNull();
     expect(el.querySelectorAll('mat-error')).toHaveLength(0);
     expect(el.textContent).toContain('1 of 2 left');
+    expect(Array.from(el.querySelectorAll<HTMLInputElement>('fieldset mat-checkbox input[type=checkbox]')).map((c) => c.checked)).toEqual([false, false]);
   });
 
   it('should show the server’s message beside the units of the line it is about', async () => {

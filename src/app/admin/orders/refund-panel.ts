@@ -57,13 +57,29 @@ export class RefundPanel {
   }
 
   private lineGroup(open: number) {
-    return this.fb.group({ ticked: [{ value: false, disabled: open === 0 }], quantity: [Math.max(1, open), [Validators.required, Validators.min(1), Validators.max(Math.max(1, open))]] });
+    return this.fb.group({ ticked: [{ value: false, disabled: open === 0 }], quantity: [Math.max(1, open), this.unitRules(open)] });
+  }
+
+  private unitRules(open: number) {
+    return [Validators.required, Validators.min(1), Validators.max(Math.max(1, open))];
   }
 
   private rebuild(o: StaffOrder): void {
-    this.lines.clear();
-    for (const i of o.items) this.lines.push(this.lineGroup(i.quantity - i.refundedQuantity));
-    const fresh = { lines: this.lines.getRawValue(), shipping: false, amount: '', restock: false, reason: '' };
+    const open = o.items.map((i) => i.quantity - i.refundedQuantity);
+    // Same lines: keep the controls the rows are bound to and only reset them (replaced controls would leave the
+    // rows showing the old ticks).
+    if (this.lines.length === open.length) {
+      this.lines.controls.forEach((g, n) => {
+        g.controls.quantity.setValidators(this.unitRules(open[n]));
+        if (open[n] === 0) g.controls.ticked.disable();
+        else g.controls.ticked.enable();
+      });
+    } else {
+      this.lines.clear();
+      for (const n of open) this.lines.push(this.lineGroup(n));
+    }
+    const lines = open.map((n) => ({ ticked: false, quantity: Math.max(1, n) }));
+    const fresh = { lines, shipping: false, amount: '', restock: false, reason: '' };
     // resetForm also clears the directive's "submitted" state, which would otherwise keep showing errors.
     const directive = this.formDirective();
     if (directive?.form) directive.resetForm(fresh);
