@@ -144,6 +144,23 @@ describe('POST /api/admin/members/:id/refunds', () => {
   });
 });
 
+describe('the membership-reconcile-refunds job', () => {
+  it('settles a card refund claim whose answer never came: refunded if the processor has it, else failed', async () => {
+    const m = await member('Gudrun');
+    const pay = await t.deps.db('membership_payments').where({ membership_id: m.id, entry: 'payment', status: 'paid' }).first();
+    const claim = async (key: string, cents: number) =>
+      (await t.deps.db('membership_payments').insert({ membership_id: pay.membership_id, plan_id: pay.plan_id, entry: 'refund', status: 'requested', method: 'card', amount_cents: -cents, idempotency_key: key, refund_of: pay.id, processor_charge_id: pay.processor_charge_id, note: 'Lost answer', created_at: new Date('2028-03-10T16:00:00Z') }).returning('id'))[0].id;
+    const landed = await claim(`dues-refund-lost-${tag}`, 700);
+    const never = await claim(`dues-refund-never-${tag}`, 300);
+    await t.deps.payments.refund(pay.processor_charge_id, 700, `dues-refund-lost-${tag}`);
+    await t.app.jobs.find((j) => j.name === 'membership-reconcile-refunds')!.run();
+    const rows = await t.deps.db('membership_payments').whereIn('id', [landed, never]).orderBy('id');
+    expect(rows.map((r) => r.status)).toEqual(['refunded', 'failed']);
+    const moves = await t.deps.db('money_movements').where({ reference: m.number, kind: 'refund' });
+    expect(moves.map((x) => Number(x.gross_cents))).toEqual([-700]);
+  });
+});
+
 describe('GET /api/admin/members/summary', () => {
   it('adds up dues per month and plan, and counts members by status', async () => {
     const before = await treasurer.get('/api/admin/members/summary');

@@ -178,3 +178,40 @@ describe('POST /api/membership when the processor charges but its answer is lost
     expect(await movements(m.member_number)).toBe(1);
   });
 });
+
+describe('POST /api/admin/orders/:id/refund when the processor refunds but its answer is lost', () => {
+  it('holds the claim (502), answers a repeat as in progress, and reconciliation records the refund once', async () => {
+    const { res, orderId } = await placeOrder();
+    expect(res.status).toBe(201);
+    const order = await orderRow(orderId);
+    const refund = async (body: object, key?: string) => {
+      const token = await staff.token();
+      const req = staff.agent.post(`/api/admin/orders/${orderId}/refund`).set('X-CSRF-Token', token);
+      return (key ? req.set('Idempotency-Key', key) : req).send(body);
+    };
+    proxy.holdReplies(1);
+    const lost = await refund({ amountCents: 500 }, 'lost-refund-answer-1');
+    expect(lost.status).toBe(502);
+    expect(lost.body.error.code).toBe('processor_unreachable');
+    // The processor made it (same key in its metadata); Padside holds the claim and does not count it yet.
+    const held = (await fake.refunds.list({ charge: order.charge_id })).data;
+    expect(held.map((r) => r.amount)).toEqual([500]);
+    expect((await orderRow(orderId)).refunded_cents).toBe(0);
+    const again = await refund({ amountCents: 500 }, 'lost-refund-answer-1');
+    expect(again.status).toBe(409);
+    expect(again.body.error.code).toBe('refund_in_progress');
+    // The claim still counts against what is left.
+    const rest = await refund({ amountCents: order.total_cents - 499 });
+    expect(rest.status).toBe(409);
+    expect(rest.body.error.code).toBe('over_refund');
+
+    later(11);
+    await t.app.jobs.find((j) => j.name === 'reconcile-refunds')!.run();
+    expect((await orderRow(orderId)).refunded_cents).toBe(500);
+    expect(Number((await t.deps.db('money_movements').where({ reference: order.number, kind: 'refund' }).count('* as n').first())!.n)).toBe(1);
+    const settled = await refund({ amountCents: 500 }, 'lost-refund-answer-1');
+    expect(settled.status).toBe(200);
+    expect(settled.body.refund).toMatchObject({ state: 'succeeded', amountCents: 500 });
+    expect((await fake.refunds.list({ charge: order.charge_id })).data).toHaveLength(1);
+  });
+});

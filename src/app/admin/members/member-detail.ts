@@ -12,6 +12,7 @@ import { applyServerErrors } from '../../core/api-error';
 import { EmptyState } from '../../shared/empty-state';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
+import { newRequestKey } from '../../shared/request-key';
 import { MembersApi, type PaymentLine } from './members-api';
 import { centsToDollars, dollarsToCents } from '../../shared/dollars';
 
@@ -42,6 +43,8 @@ export class MemberDetail {
   });
   protected readonly refundForm = this.fb.group({ amount: ['', [Validators.required, Validators.pattern(/^\d+(\.\d{1,2})?$/)]], reason: ['', Validators.required] });
   protected readonly refunding = signal<PaymentLine | null>(null);
+  // One key per refund form opened: submitting it twice (or retrying) refunds once.
+  private refundKey = '';
   protected readonly problem = signal<string | null>(null);
   protected readonly notice = signal<string | null>(null);
 
@@ -63,6 +66,7 @@ export class MemberDetail {
 
   protected startRefund(p: PaymentLine): void {
     this.refunding.set(p);
+    this.refundKey = newRequestKey();
     this.refundForm.reset({ amount: centsToDollars(p.amountCents), reason: '' });
   }
 
@@ -73,7 +77,7 @@ export class MemberDetail {
     this.problem.set(null);
     try {
       const v = this.refundForm.getRawValue();
-      await firstValueFrom(this.api.refund(this.id(), { paymentId: p.id, amountCents: dollarsToCents(v.amount), reason: v.reason }));
+      await firstValueFrom(this.api.refund(this.id(), { paymentId: p.id, amountCents: dollarsToCents(v.amount), reason: v.reason }, this.refundKey));
       this.notice.set('Refund recorded.');
       this.refunding.set(null);
       this.detail.reload();

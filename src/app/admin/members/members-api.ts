@@ -134,8 +134,9 @@ export class MembersApi {
     return this.http.post<MemberDetail>(`/api/admin/members/${id}/payments`, body, quiet());
   }
 
-  refund(id: number, body: { paymentId: number; amountCents: number; reason: string }): Observable<MemberDetail> {
-    return this.http.post<MemberDetail>(`/api/admin/members/${id}/refunds`, body, quiet());
+  /** `key` (the Idempotency-Key) belongs to one refund: a double click or retry refunds once. */
+  refund(id: number, body: { paymentId: number; amountCents: number; reason: string }, key: string): Observable<MemberDetail> {
+    return this.http.post<MemberDetail>(`/api/admin/members/${id}/refunds`, body, { ...quiet(), headers: { 'Idempotency-Key': key } });
   }
 
   summary(): Observable<DuesSummary> {

@@ -1,11 +1,10 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, input, numberAttribute, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { DatePipe } from '@angular/common';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import { MatButtonModule } from '@angular/material/button';
-import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSnackBar } from '@angular/material/snack-bar';
@@ -13,13 +12,16 @@ import { applyServerErrors } from '../../core/api-error';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { STATUS_LABELS } from '../../shop/shop-types';
-import { ShopAdminApi } from './shop-admin-api';
-import { dollarsToCents } from '../../shared/dollars';
+import { RefundPanel } from './refund-panel';
+import { ShopAdminApi, type StaffRefund } from './shop-admin-api';
 
-/** One order for staff: items, money, packing list to print, pack, ship with tracking, refund. */
+const REFUND_STATES: Record<StaffRefund['state'], string> = { requested: 'waiting for the processor', succeeded: 'refunded', failed: 'not refunded' };
+const REFUND_ORIGINS: Record<StaffRefund['origin'], string> = { staff: 'Staff', processor: 'Processor' };
+
+/** One order for staff: items, money, packing list to print, pack, ship with tracking, refunds and their history. */
 @Component({
   selector: 'ps-order-detail',
-  imports: [DatePipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe],
+  imports: [DatePipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe, RefundPanel],
   templateUrl: './order-detail.html',
   styleUrl: './order-detail.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -32,15 +34,11 @@ export class OrderDetail {
 
   protected readonly order = rxResource({ params: () => this.id(), stream: ({ params }) => this.api.order(params) });
   protected readonly labels = STATUS_LABELS;
+  protected readonly refundStates = REFUND_STATES;
+  protected readonly refundOrigins = REFUND_ORIGINS;
   protected readonly shipForm = this.fb.group({ carrier: ['Canada Post', Validators.required], trackingNumber: ['', Validators.required] });
-  protected readonly refundForm = this.fb.group({ amount: ['', [Validators.required, Validators.pattern(/^\d+(\.\d{1,2})?$/)]], restock: [false] });
   protected readonly shipProblem = signal<string | null>(null);
-  protected readonly refundProblem = signal<string | null>(null);
   protected readonly busy = signal(false);
-  protected readonly refundable = computed(() => {
-    const o = this.order.value();
-    return o ? o.totalCents - o.refundedCents : 0;
-  });
 
   protected async pack(): Promise<void> {
     await this.run(() => firstValueFrom(this.api.pack(this.id())), 'Marked packed.');
@@ -57,18 +55,9 @@ export class OrderDetail {
     }
   }
 
-  protected async refund(): Promise<void> {
-    this.refundForm.markAllAsTouched();
-    if (this.refundForm.invalid) return;
-    this.refundProblem.set(null);
-    const { amount, restock } = this.refundForm.getRawValue();
-    const amountCents = dollarsToCents(amount);
-    try {
-      await this.run(() => firstValueFrom(this.api.refund(this.id(), { amountCents, restock })), 'Refund sent.');
-      this.refundForm.reset();
-    } catch (err) {
-      this.refundProblem.set(applyServerErrors(this.refundForm, err, { amountCents: 'amount' }));
-    }
+  protected refunded(r: StaffRefund): void {
+    this.snackBar.open(r.unitsBackOnSale ? `Refund sent; ${r.unitsBackOnSale} back on sale.` : 'Refund sent.', undefined, { duration: 3000 });
+    this.order.reload();
   }
 
   protected print(): void {

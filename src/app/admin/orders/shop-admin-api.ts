@@ -17,14 +17,57 @@ export interface StaffOrderRow {
   createdAt: string;
   disputed: boolean;
 }
-export interface StaffOrder extends Order {
+/** One tax reversed by a refund. */
+export interface RefundTaxLine {
+  code: string;
+  jurisdiction: string;
+  label: string;
+  ratePercent: string;
+  taxableCents: number;
+  taxCents: number;
+}
+/** What a refund comes to (the preview, before anything moves). */
+export interface RefundPreview {
+  lines: { orderItemId: number; quantity: number; goodsCents: number }[];
+  goodsCents: number;
+  shippingCents: number;
+  taxLines: RefundTaxLine[];
+  taxCents: number;
+  totalCents: number;
+  closesOrder: boolean;
+}
+/** A refund on record, from the console or from the processor. */
+export interface StaffRefund extends Omit<RefundPreview, 'totalCents' | 'closesOrder'> {
+  id: number;
+  state: 'requested' | 'succeeded' | 'failed';
+  origin: 'staff' | 'processor';
+  amountCents: number;
+  restocked: boolean;
+  unitsBackOnSale: number;
+  reason: string | null;
+  failureMessage: string | null;
+  createdAt: string;
+}
+/** What the treasurer asks to refund. */
+export interface RefundAsk {
+  lines: { orderItemId: number; quantity: number }[];
+  shipping: boolean;
+  amountCents?: number;
+  restock: boolean;
+  reason?: string;
+}
+export interface StaffOrder extends Omit<Order, 'items'> {
+  items: (Order['items'][number] & { restockedQuantity: number; refundedQuantity: number; unitsToPack: number })[];
   weightGrams: number;
   chargeId: string | null;
   paidOutsideProcessor: boolean;
   paymentAttempts: number;
   disputedAt: string | null;
   disputeReason: string | null;
-  refunds: { id: number; amountCents: number; restocked: boolean; origin: string; createdAt: string }[];
+  /** Print runs this order waits for; it cannot ship before they are printed. */
+  awaitingPrint: string[];
+  shippingRefundedCents: number;
+  refunds: StaffRefund[];
 }
 export interface OrderQuery {
   page: number;
@@ -114,8 +157,13 @@ export class ShopAdminApi {
   ship(id: number, body: { carrier: string; trackingNumber: string }): Observable<StaffOrder> {
     return this.http.post<{ order: StaffOrder }>(`/api/admin/orders/${id}/ship`, body, quiet()).pipe(map((r) => r.order));
   }
-  refund(id: number, body: { amountCents: number; restock: boolean }): Observable<StaffOrder> {
-    return this.http.post<{ order: StaffOrder }>(`/api/admin/orders/${id}/refund`, body, quiet()).pipe(map((r) => r.order));
+  /** What the refund would come to; nothing moves. */
+  refundPreview(id: number, body: RefundAsk): Observable<RefundPreview> {
+    return this.http.post<{ refund: RefundPreview }>(`/api/admin/orders/${id}/refund-preview`, body, quiet()).pipe(map((r) => r.refund));
+  }
+  /** Refunds; `key` is the Idempotency-Key of this one refund, so a retried click never refunds twice. */
+  refund(id: number, body: RefundAsk, key: string): Observable<{ order: StaffOrder; refund: StaffRefund }> {
+    return this.http.post<{ order: StaffOrder; refund: StaffRefund }>(`/api/admin/orders/${id}/refund`, body, { ...quiet(), headers: { 'Idempotency-Key': key } });
   }
   products(): Observable<{ items: (Product & { active: boolean })[]; timeZone: string }> {
     return this.http.get<{ items: (Product & { active: boolean })[]; timeZone: string }>('/api/admin/products');
