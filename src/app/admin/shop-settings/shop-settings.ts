@@ -11,13 +11,9 @@ import { applyServerErrors } from '../../core/api-error';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { ShopAdminApi, type StaffShippingMethod } from '../orders/shop-admin-api';
 import { formatBrackets, parseBrackets } from './brackets';
+import { OWN_TAX, TAX_NUMBER_FIELDS, taxNumbersFromForm } from './tax-numbers';
 
 const PROVINCES = ['AB', 'BC', 'MB', 'NB', 'NL', 'NS', 'NT', 'NU', 'ON', 'PE', 'QC', 'SK', 'YT'];
-/** Provinces with their own sales tax (the others are GST or HST only). */
-const OWN_TAX = ['BC', 'MB', 'QC', 'SK'];
-
-/** The API's per-province tax-number fields onto the controls that edit them. */
-const TAX_NUMBER_FIELDS = Object.fromEntries(OWN_TAX.map((p) => [`provincialTaxNumbers.${p}`, `taxNumber${p}`]));
 
 /** Shop settings: tax position, member discount, printer rules, shipping methods and their weight brackets. */
 @Component({
@@ -77,9 +73,7 @@ export class ShopSettingsPage {
       await firstValueFrom(
         this.api.saveSettings({
           sellerProvince: v.sellerProvince, sellerName: v.sellerName, gstHstRegistered: v.gstHstRegistered, gstHstNumber: v.gstHstNumber, provincialRegistrations: v.provincialRegistrations,
-          provincialTaxNumbers: Object.fromEntries(
-            ([['BC', v.taxNumberBC], ['MB', v.taxNumberMB], ['QC', v.taxNumberQC], ['SK', v.taxNumberSK]] as const).filter(([, n]) => n.trim() !== ''),
-          ),
+          provincialTaxNumbers: taxNumbersFromForm({ BC: v.taxNumberBC, MB: v.taxNumberMB, QC: v.taxNumberQC, SK: v.taxNumberSK }),
           provincialTaxOnShipping: { BC: v.shippingBC, MB: v.shippingMB, QC: v.shippingQC, SK: v.shippingSK },
           memberDiscountPercent: Number(v.memberDiscountPercent), sparesPercent: Number(v.sparesPercent), packMultiple: Number(v.packMultiple), minimumPerDesign: Number(v.minimumPerDesign), staffEmail: v.staffEmail,
         }),
