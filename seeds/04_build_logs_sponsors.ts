@@ -10,6 +10,8 @@ import { SettingsService } from '../server/settings/settings-service';
 import { CreditService } from '../server/sponsors/credit-service';
 import { SponsorRepository } from '../server/sponsors/sponsor-repository';
 import { SponsorService } from '../server/sponsors/sponsor-service';
+import { SponsorTaxService } from '../server/sponsors/sponsor-tax-service';
+import { ShopConfigRepository } from '../server/shop/shop-config-repository';
 
 /** The invented sponsors of Thrust & Filament, with their 2026 agreements. */
 export const SPONSORS = [
@@ -18,8 +20,11 @@ export const SPONSORS = [
     website: 'https://prairie-volt.example',
     blurb: 'The electronics counter on Main Street in Gopher Flats: switches, wire and advice.',
     contact: 'sponsor@padside.test',
+    // Promotion bought: taxed at the team's GST rate for Manitoba (the treasurer chose this treatment).
     agreement: {
       season: '2026',
+      taxTreatment: 'promotion' as const,
+      taxProvince: 'MB' as const,
       cashCents: 40_000,
       inKind: [{ description: 'Screw switches and terminal blocks', valueCents: 6_500, receivedOn: '2026-05-02' }],
       deliverables: [
@@ -75,7 +80,9 @@ export async function seed(knex: Knex): Promise<void> {
   const users = new UserRepository(knex);
   const sponsorRepo = new SponsorRepository(knex);
   const credits = new CreditService(sponsorRepo, config.publicUrl, config.site.teamName);
-  const sponsors = new SponsorService(knex, sponsorRepo, credits, users, new SettingsService(knex));
+  const settings = new SettingsService(knex);
+  const sponsorTax = new SponsorTaxService(knex, sponsorRepo, settings, new ShopConfigRepository(knex), config.site.teamName);
+  const sponsors = new SponsorService(knex, sponsorRepo, credits, users, settings, sponsorTax);
   const posts = new PostService(knex, new PostRepository(knex), sponsorRepo, credits);
 
   for (const s of SPONSORS) {

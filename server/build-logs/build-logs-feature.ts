@@ -3,6 +3,9 @@ import { CreditService } from '../sponsors/credit-service';
 import { SponsorRepository } from '../sponsors/sponsor-repository';
 import { clubToday, sponsorAdminRoutes, sponsorPortalRoutes, sponsorPublicRoutes } from '../sponsors/sponsor-routes';
 import { SponsorService } from '../sponsors/sponsor-service';
+import { sponsorTaxRoutes } from '../sponsors/sponsor-tax-routes';
+import { SponsorTaxService } from '../sponsors/sponsor-tax-service';
+import { ShopConfigRepository } from '../shop/shop-config-repository';
 import { feedRoutes } from './feed-routes';
 import { PostRepository } from './post-repository';
 import { postAdminRoutes, postPublicRoutes } from './post-routes';
@@ -13,7 +16,9 @@ export function buildLogsFeature(platform: Platform): Feature {
   const { db, clock, config } = platform.deps;
   const sponsorRepo = new SponsorRepository(db);
   const credits = new CreditService(sponsorRepo, config.publicUrl, config.site.teamName);
-  const sponsors = new SponsorService(db, sponsorRepo, credits, platform.auth.users, platform.settings);
+  // The sponsorship tax reads the rate table where the shop keeps it.
+  const sponsorTax = new SponsorTaxService(db, sponsorRepo, platform.settings, new ShopConfigRepository(db), config.site.teamName);
+  const sponsors = new SponsorService(db, sponsorRepo, credits, platform.auth.users, platform.settings, sponsorTax);
   const posts = new PostService(db, new PostRepository(db), sponsorRepo, credits);
   const today = clubToday(clock, config.clubTimeZone);
   return {
@@ -22,6 +27,7 @@ export function buildLogsFeature(platform: Platform): Feature {
       api('/posts', postPublicRoutes(posts));
       api('/admin/posts', postAdminRoutes(posts, clock));
       api('/sponsors', sponsorPublicRoutes(sponsors, today));
+      api('/admin/sponsors', sponsorTaxRoutes(sponsorTax, today));
       api('/admin/sponsors', sponsorAdminRoutes(sponsors, clock, today));
       api('/sponsor-portal', sponsorPortalRoutes(sponsors, today, config.site.teamName));
     },

@@ -21,6 +21,8 @@ export interface AgreementRow {
   cash_received_on: string | null;
   cash_movement_id: string | null;
   note: string | null;
+  tax_treatment: 'promotion' | 'gift';
+  tax_province: string | null;
   created_at: Date;
 }
 
@@ -123,9 +125,19 @@ export class SponsorRepository {
     return this.db<SponsorRow>('sponsors as s').join('sponsor_contacts as c', 'c.sponsor_id', 's.id').where('c.user_id', userId).orderBy('c.created_at').select('s.*').first();
   }
 
-  async insertAgreement(trx: Knex.Transaction, a: { sponsorId: number; season: string; cashCents: number; cashReceivedOn: string | null; note: string | null }): Promise<number> {
-    const [row] = await trx('sponsor_agreements').insert({ sponsor_id: a.sponsorId, season: a.season, cash_cents: a.cashCents, cash_received_on: a.cashReceivedOn, note: a.note }).returning('id');
+  async insertAgreement(
+    trx: Knex.Transaction,
+    a: { sponsorId: number; season: string; cashCents: number; cashReceivedOn: string | null; note: string | null; taxTreatment: 'promotion' | 'gift'; taxProvince: string | null },
+  ): Promise<number> {
+    const [row] = await trx('sponsor_agreements')
+      .insert({ sponsor_id: a.sponsorId, season: a.season, cash_cents: a.cashCents, cash_received_on: a.cashReceivedOn, note: a.note, tax_treatment: a.taxTreatment, tax_province: a.taxProvince })
+      .returning('id');
     return Number(row.id);
+  }
+
+  /** Sets how an agreement is taxed. */
+  async setTaxTreatment(trx: Knex.Transaction, id: number, treatment: 'promotion' | 'gift', province: string | null): Promise<void> {
+    await trx('sponsor_agreements').where('id', id).update({ tax_treatment: treatment, tax_province: province });
   }
 
   async insertInKind(trx: Knex.Transaction, agreementId: number, items: readonly { description: string; valueCents: number; receivedOn: string | null }[]): Promise<void> {
@@ -137,7 +149,7 @@ export class SponsorRepository {
   }
 
   agreementById(id: number, trx: Db = this.db): Promise<AgreementRow | undefined> {
-    return trx<AgreementRow>('sponsor_agreements').where('id', id).first();
+    return trx<AgreementRow>('sponsor_agreements').where('id', id).first('*', trx.raw("to_char(cash_received_on, 'YYYY-MM-DD') as cash_received_on"));
   }
 
   async markCashReceived(trx: Knex.Transaction, id: number, receivedOn: string, movementId: number | null): Promise<void> {

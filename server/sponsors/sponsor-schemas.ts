@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { fields } from '../platform/validate';
+import { PROVINCES } from '../shop/tax';
 import { DELIVERABLE_KINDS } from './sponsor-ledger';
+import { TAX_TREATMENTS } from './sponsor-tax';
 
 const optionalText = (max: number) =>
   z
@@ -35,8 +37,13 @@ export const SponsorBody = z.object({
 
 const season = z.string({ error: 'Season is required.' }).regex(/^\d{4}$/, 'A season is a year, like 2026.');
 
+const taxTreatment = z.enum(TAX_TREATMENTS, { error: 'Tax treatment is promotion or gift.' });
+const province = z.enum(PROVINCES, { error: 'Choose a province or territory.' });
+
 export const AgreementBody = z.object({
   season,
+  taxTreatment: taxTreatment.optional(),
+  taxProvince: province.nullish(),
   cashCents: fields.cents.optional(),
   note: optionalText(1000),
   inKind: z
@@ -69,3 +76,6 @@ export const HandCreditBody = z
 export const ContactBody = z
   .object({ userId: fields.id.optional(), email: fields.email.optional() })
   .refine((c) => c.userId !== undefined || c.email !== undefined, { path: ['email'], message: 'Enter the contact’s e-mail.' });
+
+/** PUT .../agreements/:agreementId/tax-treatment. */
+export const TaxTreatmentBody = z.object({ taxTreatment, province: province.nullish() });

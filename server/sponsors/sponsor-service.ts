@@ -4,9 +4,12 @@ import { recordMovement, type Movement } from '../books/ledger-writer';
 import { slugify, uniqueSlug } from '../build-logs/slug';
 import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
 import type { SettingsService } from '../settings/settings-service';
+import type { Province } from '../shop/tax';
 import type { CreditService } from './credit-service';
 import { ledgerLines, nextDue, summaryByKind, type DeliverableKind, type DeliverableLine, type KindSummary } from './sponsor-ledger';
 import type { AgreementRow, CreditRow, SponsorRepository, SponsorRow } from './sponsor-repository';
+import type { TaxTreatment } from './sponsor-tax';
+import type { SponsorTaxService } from './sponsor-tax-service';
 import { seasonOf, SPONSOR_TIERS, tierFor, type Tier } from './sponsor-tiers';
 
 export interface SponsorInput {
@@ -18,6 +21,8 @@ export interface SponsorInput {
 
 export interface AgreementInput {
   season: string;
+  taxTreatment?: TaxTreatment;
+  taxProvince?: Province | null;
   cashCents?: number;
   cashReceivedOn?: string | null;
   note?: string | null;
@@ -30,6 +35,8 @@ export interface AgreementView {
   season: string;
   cashCents: number;
   cashReceivedOn: string | null;
+  taxTreatment: TaxTreatment;
+  taxProvince: string | null;
   inKind: { id: number; description: string; valueCents: number; receivedOn: string | null }[];
   inKindCents: number;
   totalCents: number;
@@ -83,6 +90,7 @@ export class SponsorService {
     private readonly credits: CreditService,
     private readonly users: UserRepository,
     private readonly settings: SettingsService,
+    private readonly taxes: SponsorTaxService,
   ) {}
 
   async create(input: SponsorInput): Promise<SponsorView> {
@@ -109,7 +117,10 @@ export class SponsorService {
     await this.get(sponsorId);
     try {
       return await this.db.transaction(async (trx) => {
-        const id = await this.repo.insertAgreement(trx, { sponsorId, season: input.season, cashCents: input.cashCents ?? 0, cashReceivedOn: null, note: input.note ?? null });
+        const taxTreatment = input.taxTreatment ?? 'gift';
+        const taxProvince = taxTreatment === 'promotion' ? (input.taxProvince ?? null) : null;
+        if (taxTreatment === 'promotion' && !taxProvince) throw badRequest('Choose the sponsor’s province.', { taxProvince: 'Promotion is taxed at the rate of the sponsor’s province.' });
+        const id = await this.repo.insertAgreement(trx, { sponsorId, season: input.season, cashCents: input.cashCents ?? 0, cashReceivedOn: null, note: input.note ?? null, taxTreatment, taxProvince });
         await this.repo.insertInKind(trx, id, (input.inKind ?? []).map((i) => ({ description: i.description, valueCents: i.valueCents, receivedOn: i.receivedOn ?? null })));
         await this.repo.insertDeliverables(trx, id, input.deliverables);
         return { id };
@@ -128,15 +139,18 @@ export class SponsorService {
       if (a.cash_movement_id !== null || a.cash_received_on !== null) throw conflict('cash_already_received', 'The cash for this agreement is already recorded as received.');
       if (Number(a.cash_cents) === 0) throw badRequest('This agreement promises no cash.', { receivedOn: 'Nothing to receive.' });
       const sponsor = (await this.repo.byId(Number(a.sponsor_id), trx))!;
+      // Promotion bought is taxed on the day the cash comes in; the sponsor pays the amount plus GST/HST.
+      const taxes = await this.taxes.movementTaxes(a, input.receivedOn);
       const movementId = await recordMovement(trx, {
         occurredAt: at,
         kind: 'sponsor_cash',
         source: 'sponsor',
         reference: String(a.id),
         counterparty: sponsor.name,
-        grossCents: Number(a.cash_cents),
+        grossCents: Number(a.cash_cents) + taxes.reduce((n, t) => n + t.taxCents, 0),
         method: input.method,
         idempotencyKey: `sponsor-cash:${a.id}`,
+        taxes,
       });
       await this.repo.markCashReceived(trx, agreementId, input.receivedOn, movementId);
       return { movementId };
@@ -160,6 +174,8 @@ export class SponsorService {
         season: a.season,
         cashCents: Number(a.cash_cents),
         cashReceivedOn: a.cash_received_on,
+        taxTreatment: a.tax_treatment,
+        taxProvince: a.tax_province,
         inKind: items,
         inKindCents,
         totalCents: Number(a.cash_cents) + inKindCents,

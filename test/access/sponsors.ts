@@ -12,6 +12,8 @@ export const sponsorsAccess: RouteAccess[] = [
   { method: 'PUT', path: '/api/admin/sponsors/tiers', allow: MONEY },
   { method: 'GET', path: '/api/admin/sponsors/overdue', allow: STAFF },
   { method: 'POST', path: '/api/admin/sponsors/agreements/:agreementId/cash-received', allow: MONEY },
+  { method: 'PUT', path: '/api/admin/sponsors/agreements/:agreementId/tax-treatment', allow: MONEY },
+  { method: 'GET', path: '/api/admin/sponsors/agreements/:agreementId/invoice.pdf', allow: MONEY },
   { method: 'GET', path: '/api/admin/sponsors/:id', allow: STAFF },
   { method: 'PUT', path: '/api/admin/sponsors/:id', allow: STAFF },
   { method: 'POST', path: '/api/admin/sponsors/:id/agreements', allow: MONEY },

@@ -47,6 +47,9 @@ describe('the merch shop in a browser', () => {
     await screenshot(page, 'shop-checkout-review');
     await page.getByRole('button', { name: 'Place order' }).click();
     await page.getByRole('heading', { name: 'Thank you, your order is in' }).waitFor();
+    // The receipt block (ITC information: seller's name, date, total; the team's name while no seller name is set).
+    await page.getByText('Sold by').waitFor();
+    await page.getByText('Date paid').waitFor();
     await screenshot(page, 'shop-confirmation');
     const number = (await page.getByRole('status').first().locator('strong').textContent())!.trim();
     expect(number).toMatch(/^PS-\d{6}$/);

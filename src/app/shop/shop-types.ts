@@ -91,6 +91,20 @@ export interface Order {
   totalCents: number;
   refundedCents: number;
   paymentMessage: string | null;
+  /** What a receipt for input tax credits carries; null until paid. */
+  receipt?: Receipt | null;
+}
+/** The receipt block of a paid order (fields not needed at its size are null). */
+export interface Receipt {
+  sellerName: string;
+  date: string;
+  totalCents: number;
+  taxes: { code: string; jurisdiction: string; label: string; ratePercent: string; amountCents: number }[];
+  gstHstNumber: string | null;
+  provincialTaxNumbers: { code: string; jurisdiction: string; number: string }[];
+  items: { description: string; quantity: number; lineCents: number }[];
+  buyerName: string | null;
+  paymentTerms: string | null;
 }
 export interface OrderSummary {
   id: number;

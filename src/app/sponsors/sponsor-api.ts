@@ -38,6 +38,9 @@ export interface Agreement {
   season: string;
   cashCents: number;
   cashReceivedOn: string | null;
+  /** promotion: taxed at the sponsor province's GST/HST; gift: no tax. */
+  taxTreatment?: 'promotion' | 'gift';
+  taxProvince?: string | null;
   inKind: { id: number; description: string; valueCents: number; receivedOn: string | null }[];
   inKindCents: number;
   totalCents: number;

@@ -17,19 +17,46 @@ export interface TaxLine {
   netCents: number;
 }
 
+/** The lines one tax authority gets a return for, with their totals. */
+export interface TaxAuthority {
+  authority: string;
+  name: string;
+  lines: TaxLine[];
+  totals: Omit<TaxLine, 'code' | 'jurisdiction'>;
+}
+
+/** Sales into a province whose own sales tax the seller does not collect. */
+export interface UnregisteredProvince {
+  province: string;
+  tax: string;
+  orders: number;
+  salesCents: number;
+  threshold: string;
+}
+
 export interface TaxReport {
   lines: TaxLine[];
+  authorities: TaxAuthority[];
+  unregisteredProvinces: UnregisteredProvince[];
   timeZone: string;
   registrations: { sellerProvince: string; gstHstNumber: string; gstHstRegistered: boolean; provincialRegistrations: string[] } | null;
 }
 
-export interface RevenueRow {
-  month: string;
-  source: 'merch' | 'dues' | 'sponsor';
+/** Money per month and source; income, refunds and net are net of tax. */
+export interface IncomeFigures {
   grossCents: number;
+  taxCents: number;
+  incomeCents: number;
   refundsCents: number;
+  refundedTaxCents: number;
+  refundsNetCents: number;
   feesCents: number;
   netCents: number;
+}
+
+export interface RevenueRow extends IncomeFigures {
+  month: string;
+  source: 'merch' | 'dues' | 'sponsor';
 }
 
 export interface SponsorValue {
@@ -54,7 +81,7 @@ export interface Dashboard {
   membersLapsingSoon: number | null;
   membersByStatus: Record<string, number> | null;
   launchSeason: { season: string; scheduled: number; calledOff: number; done: number; checkIns: number; flights: number; flown: number; bestApogeeMetres: number | null } | null;
-  revenueByMonth: { month: string; source: string; netCents: number; grossCents: number }[];
+  revenueByMonth: { month: string; source: string; netCents: number; grossCents: number; incomeCents: number }[];
 }
 
 /** The treasurer's reports. */
@@ -65,8 +92,8 @@ export class BooksApi {
   tax(p: Period): Observable<TaxReport> {
     return this.http.get<TaxReport>('/api/admin/reports/tax', { params: new HttpParams({ fromObject: { ...p } }) });
   }
-  revenue(p: Period): Observable<{ rows: RevenueRow[] }> {
-    return this.http.get<{ rows: RevenueRow[] }>('/api/admin/reports/revenue', { params: new HttpParams({ fromObject: { ...p } }) });
+  revenue(p: Period): Observable<{ rows: RevenueRow[]; totals: IncomeFigures }> {
+    return this.http.get<{ rows: RevenueRow[]; totals: IncomeFigures }>('/api/admin/reports/revenue', { params: new HttpParams({ fromObject: { ...p } }) });
   }
   sponsorValue(): Observable<SponsorValue> {
     return this.http.get<SponsorValue>('/api/admin/reports/sponsor-value');

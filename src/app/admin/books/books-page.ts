@@ -17,7 +17,7 @@ import { currentQuarter } from './period';
 const SOURCE_LABELS: Record<RevenueRow['source'], string> = { merch: 'Merch', dues: 'Dues', sponsor: 'Sponsor cash' };
 const SOURCE_COLOURS: Record<RevenueRow['source'], string> = { merch: '#376286', dues: '#c8561f', sponsor: '#6a7988' };
 
-/** Tax to remit, income and fees by month, and the ledger export for one period. */
+/** Tax collected per authority, income net of tax and fees by month, and the ledger export for one period. */
 @Component({
   selector: 'ps-books-page',
   imports: [FormsModule, MatButtonModule, MatCardModule, MatFormFieldModule, MatInputModule, MatTableModule, BaseChartDirective, MoneyPipe, EmptyState, FeeSettingsCard],
@@ -35,11 +35,10 @@ export class BooksPage {
   protected readonly sponsorValue = rxResource({ stream: () => this.api.sponsorValue() });
   protected readonly sponsorColumns = ['sponsor', 'tier', 'cash', 'inKind', 'total', 'credits'];
   protected readonly taxColumns = ['tax', 'taxable', 'charged', 'refunded', 'net'];
-  protected readonly revenueColumns = ['month', 'source', 'gross', 'refunds', 'fees', 'net'];
+  protected readonly revenueColumns = ['month', 'source', 'gross', 'tax', 'income', 'refunds', 'fees', 'net'];
 
   protected readonly taxCsv = computed(() => this.api.csvUrl('tax.csv', this.period()));
   protected readonly ledgerCsv = computed(() => this.api.csvUrl('ledger.csv', this.period()));
-  protected readonly totalNetTax = computed(() => (this.tax.value()?.lines ?? []).reduce((s, l) => s + l.netCents, 0));
 
   protected readonly chart = computed<ChartConfiguration<'bar'>['data']>(() => {
     const rows = this.revenue.value()?.rows ?? [];

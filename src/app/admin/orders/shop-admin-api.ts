@@ -115,7 +115,10 @@ export interface PrintSheet {
 }
 export interface ShopSettings {
   sellerProvince: string;
+  /** The legal or trading name on receipts; empty = the team's name. */
+  sellerName: string;
   gstHstNumber: string;
+  provincialTaxNumbers: Record<string, string>;
   gstHstRegistered: boolean;
   provincialRegistrations: string[];
   provincialTaxOnShipping: Record<string, boolean>;

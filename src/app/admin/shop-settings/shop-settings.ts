@@ -11,10 +11,9 @@ import { applyServerErrors } from '../../core/api-error';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { ShopAdminApi, type StaffShippingMethod } from '../orders/shop-admin-api';
 import { formatBrackets, parseBrackets } from './brackets';
+import { OWN_TAX, TAX_NUMBER_FIELDS, taxNumbersFromForm } from './tax-numbers';
 
 const PROVINCES = ['AB', 'BC', 'MB', 'NB', 'NL', 'NS', 'NT', 'NU', 'ON', 'PE', 'QC', 'SK', 'YT'];
-/** Provinces with their own sales tax (the others are GST or HST only). */
-const OWN_TAX = ['BC', 'MB', 'QC', 'SK'];
 
 /** Shop settings: tax position, member discount, printer rules, shipping methods and their weight brackets. */
 @Component({
@@ -34,7 +33,12 @@ export class ShopSettingsPage {
   protected readonly form = this.fb.group({
     sellerProvince: ['MB', Validators.required],
     gstHstRegistered: [true],
+    sellerName: [''],
     gstHstNumber: [''],
+    taxNumberBC: [''],
+    taxNumberMB: [''],
+    taxNumberQC: [''],
+    taxNumberSK: [''],
     provincialRegistrations: [[] as string[]],
     shippingBC: [false],
     shippingMB: [false],
@@ -55,7 +59,8 @@ export class ShopSettingsPage {
 
   private async load(): Promise<void> {
     const s = await firstValueFrom(this.api.settings());
-    this.form.patchValue({ ...s, shippingBC: !!s.provincialTaxOnShipping['BC'], shippingMB: !!s.provincialTaxOnShipping['MB'], shippingQC: !!s.provincialTaxOnShipping['QC'], shippingSK: !!s.provincialTaxOnShipping['SK'] });
+    const n = s.provincialTaxNumbers ?? {};
+    this.form.patchValue({ ...s, taxNumberBC: n['BC'] ?? '', taxNumberMB: n['MB'] ?? '', taxNumberQC: n['QC'] ?? '', taxNumberSK: n['SK'] ?? '', shippingBC: !!s.provincialTaxOnShipping['BC'], shippingMB: !!s.provincialTaxOnShipping['MB'], shippingQC: !!s.provincialTaxOnShipping['QC'], shippingSK: !!s.provincialTaxOnShipping['SK'] });
     this.methods.set((await firstValueFrom(this.api.shippingMethods())).map((m) => ({ ...m, text: formatBrackets(m.brackets), problem: null })));
   }
 
@@ -67,14 +72,15 @@ export class ShopSettingsPage {
     try {
       await firstValueFrom(
         this.api.saveSettings({
-          sellerProvince: v.sellerProvince, gstHstRegistered: v.gstHstRegistered, gstHstNumber: v.gstHstNumber, provincialRegistrations: v.provincialRegistrations,
+          sellerProvince: v.sellerProvince, sellerName: v.sellerName, gstHstRegistered: v.gstHstRegistered, gstHstNumber: v.gstHstNumber, provincialRegistrations: v.provincialRegistrations,
+          provincialTaxNumbers: taxNumbersFromForm({ BC: v.taxNumberBC, MB: v.taxNumberMB, QC: v.taxNumberQC, SK: v.taxNumberSK }),
           provincialTaxOnShipping: { BC: v.shippingBC, MB: v.shippingMB, QC: v.shippingQC, SK: v.shippingSK },
           memberDiscountPercent: Number(v.memberDiscountPercent), sparesPercent: Number(v.sparesPercent), packMultiple: Number(v.packMultiple), minimumPerDesign: Number(v.minimumPerDesign), staffEmail: v.staffEmail,
         }),
       );
       this.snackBar.open('Shop settings saved.', undefined, { duration: 3000 });
     } catch (err) {
-      this.problem.set(applyServerErrors(this.form, err));
+      this.problem.set(applyServerErrors(this.form, err, TAX_NUMBER_FIELDS));
     }
   }
 

@@ -77,6 +77,13 @@ export class SponsorAdminApi {
   addAgreement(id: number, body: object): Observable<{ id: number }> {
     return this.http.post<{ id: number }>(`/api/admin/sponsors/${id}/agreements`, body, quiet());
   }
+  setTaxTreatment(agreementId: number, body: { taxTreatment: 'promotion' | 'gift'; province: string | null }): Observable<{ taxTreatment: string; taxProvince: string | null }> {
+    return this.http.put<{ taxTreatment: string; taxProvince: string | null }>(`/api/admin/sponsors/agreements/${agreementId}/tax-treatment`, body, quiet());
+  }
+  /** A link the browser downloads directly (the session cookie authorises it). */
+  invoiceUrl(agreementId: number): string {
+    return `/api/admin/sponsors/agreements/${agreementId}/invoice.pdf`;
+  }
   cashReceived(agreementId: number, body: { receivedOn: string; method: string }): Observable<unknown> {
     return this.http.post(`/api/admin/sponsors/agreements/${agreementId}/cash-received`, body, quiet());
   }

@@ -1,7 +1,7 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, effect, inject, input, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -13,12 +13,15 @@ import { applyServerErrors } from '../../core/api-error';
 import { SessionStore } from '../../core/session-store';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
-import { KIND_LABELS, type DeliverableKind } from '../../sponsors/sponsor-api';
+import { KIND_LABELS, type Agreement, type DeliverableKind } from '../../sponsors/sponsor-api';
 import { ImageUpload } from '../posts/image-upload';
 import { SponsorAdminApi } from './sponsor-admin-api';
 import { dollarsToCents } from '../../shared/dollars';
 
 const HAND_KINDS: DeliverableKind[] = ['video_mention', 'social_post', 'logo_on_merch', 'sponsors_page'];
+const PROVINCES = ['AB', 'BC', 'MB', 'NB', 'NL', 'NS', 'NT', 'NU', 'ON', 'PE', 'QC', 'SK', 'YT'];
+type Treatment = 'promotion' | 'gift';
+type TreatmentForm = FormGroup<{ taxTreatment: FormControl<Treatment>; province: FormControl<string> }>;
 
 /** One sponsor: details and logo, contacts, agreements with their ledger, cash received and hand-recorded credits. */
 @Component({
@@ -39,6 +42,7 @@ export class SponsorDetail {
   protected readonly labels: Record<string, string> = KIND_LABELS;
   protected readonly handKinds = HAND_KINDS;
   protected readonly allKinds = Object.keys(KIND_LABELS) as DeliverableKind[];
+  protected readonly provinces = PROVINCES;
   protected readonly detail = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.detail(params) });
   protected readonly ledger = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.ledger(params) });
 
@@ -47,6 +51,8 @@ export class SponsorDetail {
   protected readonly agreement = this.fb.group({
     season: [String(new Date().getFullYear()), Validators.required],
     cashDollars: [0],
+    taxTreatment: ['gift' as Treatment],
+    taxProvince: [''],
     inKindDescription: [''],
     inKindDollars: [0],
     inKindReceivedOn: [''],
@@ -90,12 +96,41 @@ export class SponsorDetail {
         this.api.addAgreement(Number(this.id()), {
           season: v.season,
           cashCents: dollarsToCents(v.cashDollars),
+          taxTreatment: v.taxTreatment,
+          taxProvince: v.taxTreatment === 'promotion' ? v.taxProvince || null : null,
           inKind: v.inKindDescription ? [{ description: v.inKindDescription, valueCents: dollarsToCents(v.inKindDollars), receivedOn: v.inKindReceivedOn || null }] : [],
           deliverables: [{ kind: v.kind, quantity: Number(v.quantity), dueOn: v.dueOn }],
         }),
       );
       this.ledger.reload();
       return 'Agreement added.';
+    });
+  }
+
+  private readonly treatmentForms = new Map<number, TreatmentForm>();
+
+  /** The tax-treatment form of one agreement, made once per agreement. */
+  protected treatmentForm(a: Agreement): TreatmentForm {
+    let form = this.treatmentForms.get(a.id);
+    if (!form) {
+      form = this.fb.group({ taxTreatment: [(a.taxTreatment ?? 'gift') as Treatment], province: [a.taxProvince ?? ''] });
+      this.treatmentForms.set(a.id, form);
+    }
+    return form;
+  }
+
+  protected invoiceUrl(agreementId: number): string {
+    return this.api.invoiceUrl(agreementId);
+  }
+
+  protected async saveTreatment(a: Agreement): Promise<void> {
+    const form = this.treatmentForm(a);
+    await this.run(`treatment-${a.id}`, form, async () => {
+      const v = form.getRawValue();
+      await firstValueFrom(this.api.setTaxTreatment(a.id, { taxTreatment: v.taxTreatment, province: v.taxTreatment === 'promotion' ? v.province || null : null }));
+      this.treatmentForms.delete(a.id);
+      this.ledger.reload();
+      return v.taxTreatment === 'promotion' ? 'Set to promotion: GST/HST is charged when the cash is recorded.' : 'Set to gift: no tax.';
     });
   }
 
