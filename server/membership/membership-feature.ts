@@ -7,6 +7,7 @@ import { memberAdminRoutes, checkInRoutes } from './member-admin-routes';
 import { MemberAdminService } from './member-admin-service';
 import { MembershipJobs } from './membership-jobs';
 import { MembershipRepository } from './membership-repository';
+import { PaymentThrottle } from '../payments/payment-throttle';
 import { membershipRoutes } from './membership-routes';
 import { MembershipService } from './membership-service';
 
@@ -23,7 +24,7 @@ export function membershipFeature(platform: Platform): Feature {
   return {
     name: 'membership',
     mount(api) {
-      api('/membership', membershipRoutes(members));
+      api('/membership', membershipRoutes(members, new PaymentThrottle(db)));
       api('/admin/members', memberAdminRoutes(admin));
       api('/admin/checkin', checkInRoutes(admin));
     },

@@ -1,3 +1,4 @@
+import { PaymentThrottle } from '../payments/payment-throttle';
 import type { Feature, Platform } from '../platform/feature';
 import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';
@@ -23,7 +24,7 @@ export function shopFeature(platform: Platform): Feature {
   const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, deps.config.publicUrl, deps.config.site.teamName, deps.log);
   const fulfilment = new FulfilmentService(deps.db, orders, deps.payments, deps.clock, deps.config.publicUrl);
   const webhooks = new WebhookService(deps.db, orders, fulfilment, settings, deps.clock);
-  const pub = { catalogue, quotes, checkout, orders, config, now: () => deps.clock.now() };
+  const pub = { catalogue, quotes, checkout, orders, config, throttle: new PaymentThrottle(deps.db), now: () => deps.clock.now() };
   const admin = { catalogue, fulfilment, orders, config, settings, timeZone: deps.config.clubTimeZone };
   return {
     name: 'shop',

@@ -4,6 +4,7 @@ import { notFound } from '../platform/app-error';
 import { requireSignedIn } from '../platform/require-role';
 import type { Role } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
+import type { PaymentThrottle } from '../payments/payment-throttle';
 import type { CatalogueService } from './catalogue-service';
 import type { CheckoutService, PaymentOutcome } from './checkout-service';
 import type { OrderRepository } from './order-repository';
@@ -28,6 +29,7 @@ export interface ShopDeps {
   checkout: CheckoutService;
   orders: OrderRepository;
   config: ShopConfigRepository;
+  throttle: PaymentThrottle;
   now(): Date;
 }
 
@@ -84,7 +86,9 @@ export function orderRoutes(d: ShopDeps): Router {
   };
   r.post('/', async function placeOrder(req, res) {
     const body = parse(OrderBody, req.body);
-    const outcome = await d.checkout.placeOrder(body, req.user ?? null);
+    // The session already holds the CSRF token, so its id is stable between attempts.
+    const payer = { sessionId: req.sessionID, email: body.email, address: body.shipTo };
+    const outcome = await d.throttle.attempt(payer, () => d.checkout.placeOrder(body, req.user ?? null), (o) => o.status === 'paid');
     req.session.shopOrderIds = [...(req.session.shopOrderIds ?? []).slice(-19), outcome.bundle.order.id];
     answer(res, outcome, true);
   });
@@ -94,9 +98,10 @@ export function orderRoutes(d: ShopDeps): Router {
   });
   r.post('/:id/pay', async function payAgain(req, res) {
     const id = parse(fields.id, req.params.id);
-    await mayView(req, id);
+    const { order } = await mayView(req, id);
     const { paymentToken } = parse(PayBody, req.body);
-    answer(res, await d.checkout.pay(id, paymentToken), false);
+    const payer = { sessionId: req.sessionID, email: order.email, address: { line1: order.ship_line1, postalCode: order.ship_postal_code, country: order.ship_country } };
+    answer(res, await d.throttle.attempt(payer, () => d.checkout.pay(id, paymentToken), (o) => o.status === 'paid'), false);
   });
   return r;
 }
