@@ -42,7 +42,7 @@ export type PadsideApp = Express & { close(): Promise<void>; jobs: ScheduledJob[
 /** Builds the Express app without listening; `close()` releases what the app itself opened. */
 export function createApp(deps: AppDeps): PadsideApp {
   const app = express() as PadsideApp;
-  const auth = new AuthService(deps.db, deps.config.publicUrl, deps.clock);
+  const auth = new AuthService(deps.db, deps.config.publicUrl, deps.clock, deps.log);
   const platform: Platform = {
     deps,
     auth,
@@ -115,6 +115,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   app.platform = platform;
   app.mounts = mounts;
   app.close = async () => {
+    await auth.afterAnswer.settled();
     await sessions.pool.end();
   };
   return app;

@@ -27,3 +27,13 @@ export function passwordChangedEmail(to: string, name: string): OutgoingEmail {
     text: `Hi ${name},\n\nThe password for this Padside account was just changed. If that was not you, reset it now from the sign-in page and tell the club's admin.\n\n— Padside`,
   };
 }
+
+/** To the owner of an address someone tried to register again; it says what to do without confirming anything to the other person. */
+export function registrationAttemptEmail(to: string, name: string, signInLink: string, resetLink: string): OutgoingEmail {
+  return {
+    to,
+    template: 'registration-attempt',
+    subject: 'Someone tried to create a Padside account with your address',
+    text: `Hi ${name},\n\nSomeone just tried to create a new Padside account with this e-mail address. You already have one, so nothing was created and nothing changed.\n\nIf it was you, sign in here:\n\n${signInLink}\n\nForgot the password? Choose a new one here:\n\n${resetLink}\n\nIf it was not you, you can ignore this message.\n\n— Padside`,
+  };
+}

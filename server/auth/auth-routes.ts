@@ -18,6 +18,9 @@ const ResetRequestBody = z.object({ email: fields.email });
 const TokenBody = z.object({ token: z.string({ error: 'The link is incomplete.' }).min(10, 'The link is incomplete.').max(200) });
 const ResetConfirmBody = TokenBody.extend({ password });
 
+/** What every accepted registration answers, whether the address is new or not. */
+export const REGISTERED = 'Check your inbox: we sent a message to that address. Follow it to confirm the address, then sign in.';
+
 /** Starts a fresh session for the user; passport's login regenerates the id (ASVS 4.0.3 3.2.1). */
 function signIn(req: Request, user: SessionUser): Promise<void> {
   return new Promise((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
@@ -31,11 +34,12 @@ export function authRoutes(auth: AuthService): Router {
     res.json({ csrfToken: csrfTokenFor(req) });
   });
 
+  // The same answer for a new address and one that has an account (OWASP Authentication Cheat Sheet, account enumeration):
+  // nobody is signed in here; the owner of the mailbox confirms it, then signs in.
   r.post('/register', async function register(req, res) {
     const body = parse(RegisterBody, req.body);
-    const user = await auth.register(body);
-    await signIn(req, user);
-    res.status(201).json({ user });
+    await auth.register(body, req.ip ?? 'unknown');
+    res.status(202).json({ queued: true, message: REGISTERED });
   });
 
   r.post('/login', async function login(req, res) {
@@ -69,13 +73,13 @@ export function authRoutes(auth: AuthService): Router {
   });
 
   r.post('/verify/resend', requireSignedIn, async function resend(req, res) {
-    await auth.resendVerification(req.user!.id);
+    await auth.resendVerification(req.user!.id, req.ip ?? 'unknown');
     res.status(202).json({ queued: true });
   });
 
   r.post('/password-reset', async function requestReset(req, res) {
     const { email } = parse(ResetRequestBody, req.body);
-    await auth.requestPasswordReset(email);
+    auth.requestPasswordReset(email);
     res.status(202).json({ queued: true });
   });
 

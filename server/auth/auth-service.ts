@@ -1,10 +1,12 @@
 import type { Knex } from 'knex';
-import { AppError, badRequest, conflict } from '../platform/app-error';
+import type { Logger } from 'pino';
+import { AfterAnswer } from '../platform/after-answer';
+import { AppError, badRequest } from '../platform/app-error';
 import type { SessionUser } from '../platform/roles';
 import type { Clock } from '../platform/clock';
 import { FailureLimiter } from '../platform/rate-limit';
 import { enqueueEmail } from '../mail/outbox';
-import { passwordChangedEmail, passwordResetEmail, verificationEmail } from './auth-emails';
+import { passwordChangedEmail, passwordResetEmail, registrationAttemptEmail, verificationEmail } from './auth-emails';
 import { burnVerifyTime, hashPassword, verifyPassword } from './password-hash';
 import { passwordProblem } from './password-policy';
 import { SignInGuard } from './sign-in-guard';
@@ -19,33 +21,56 @@ export class AuthService {
   readonly users: UserRepository;
   /** Sign-in failures per account and address, per address, and per account (see lockout-policy.ts). */
   readonly signInGuard: SignInGuard;
+  /** Registration and reset work runs after the answer, so an existing account answers like a new one, as fast. */
+  readonly afterAnswer: AfterAnswer;
   private readonly resetRequests: FailureLimiter;
+  // Mail floods: registrations and verification re-sends per address and per network address (common practice, no source).
+  private readonly registerPerAddress: FailureLimiter;
+  private readonly registerPerIp: FailureLimiter;
+  private readonly resendPerAddress: FailureLimiter;
+  private readonly resendPerIp: FailureLimiter;
 
   constructor(
     private readonly db: Knex,
     private readonly publicUrl: string,
     private readonly clock: Clock,
+    log: Pick<Logger, 'error'>,
   ) {
     this.users = new UserRepository(db);
     this.signInGuard = new SignInGuard(db, clock);
+    this.afterAnswer = new AfterAnswer(log);
+    this.registerPerAddress = new FailureLimiter(db, 'register-address', 3, 3600);
+    this.registerPerIp = new FailureLimiter(db, 'register-ip', 20, 3600);
+    this.resendPerAddress = new FailureLimiter(db, 'verify-resend-address', 3, 3600);
+    this.resendPerIp = new FailureLimiter(db, 'verify-resend-ip', 10, 3600);
     this.resetRequests = new FailureLimiter(db, 'reset-account', 5, 3600);
   }
 
-  async register(input: { email: string; password: string; displayName: string }): Promise<SessionUser> {
+  /**
+   * Takes a registration. The answer is the same whether the address already has an account or not: the account is
+   * created (or its owner told that someone tried) after the answer, and the password is checked before it, from the
+   * input alone. Throws 429 when the address or the network address registered too often.
+   */
+  async register(input: { email: string; password: string; displayName: string }, ip: string): Promise<void> {
     const problem = passwordProblem(input.password, input.email);
     if (problem) throw badRequest('Choose a different password.', { password: problem });
+    const email = input.email.toLowerCase();
+    await Promise.all([this.registerPerAddress.check(email), this.registerPerIp.check(ip)]);
+    await Promise.all([this.registerPerAddress.fail(email), this.registerPerIp.fail(ip)]);
+    this.afterAnswer.start('register', () => this.createOrNotify({ ...input, email }));
+  }
+
+  private async createOrNotify(input: { email: string; password: string; displayName: string }): Promise<void> {
     const passwordHash = await hashPassword(input.password);
     try {
-      return await this.db.transaction(async (trx) => {
+      await this.db.transaction(async (trx) => {
         const row = await this.users.insert(trx, { email: input.email, passwordHash, displayName: input.displayName });
         await this.queueVerification(trx, row.id, row.email, row.display_name);
-        return toSessionUser(row);
       });
     } catch (err) {
-      if ((err as { code?: string }).code === '23505') {
-        throw conflict('email_taken', 'An account with this e-mail already exists. Sign in or reset the password.', { email: 'Already registered.' });
-      }
-      throw err;
+      if ((err as { code?: string }).code !== '23505') throw err;
+      const owner = (await this.users.byEmail(input.email))!;
+      await this.db.transaction((trx) => enqueueEmail(trx, registrationAttemptEmail(owner.email, owner.display_name, `${this.publicUrl}/account/sign-in`, `${this.publicUrl}/account/forgot`)));
     }
   }
 
@@ -68,12 +93,19 @@ export class AuthService {
     return row ? toSessionUser(row) : null;
   }
 
-  async resendVerification(userId: number): Promise<void> {
+  /** Sends a new verification link; 429 when the address or the network address asked too often. */
+  async resendVerification(userId: number, ip: string): Promise<void> {
     const row = await this.users.byId(userId);
     if (!row || row.email_verified_at) return;
+    await Promise.all([this.resendPerAddress.check(row.email), this.resendPerIp.check(ip)]);
+    await Promise.all([this.resendPerAddress.fail(row.email), this.resendPerIp.fail(ip)]);
     await this.db.transaction((trx) => this.queueVerification(trx, row.id, row.email, row.display_name));
   }
 
+  /**
+   * Confirms the address. It does not sign anyone in: whoever registered chose the password, and the owner of the
+   * mailbox may not be that person.
+   */
   async verifyEmail(token: string): Promise<void> {
     await this.db.transaction(async (trx) => {
       const userId = await this.consumeToken(trx, token, 'verify_email');
@@ -81,8 +113,15 @@ export class AuthService {
     });
   }
 
-  /** Always succeeds from the caller's view, so it cannot be used to learn which e-mails have accounts. */
-  async requestPasswordReset(email: string): Promise<void> {
+  /**
+   * Always succeeds from the caller's view, and does its work after the answer, so neither the answer nor its timing
+   * tells which e-mails have accounts.
+   */
+  requestPasswordReset(email: string): void {
+    this.afterAnswer.start('password-reset', () => this.sendResetLink(email));
+  }
+
+  private async sendResetLink(email: string): Promise<void> {
     const row = await this.users.byEmail(email);
     if (!row) return;
     const key = row.email;

@@ -9,6 +9,7 @@ import { MemberAdminService } from './member-admin-service';
 import { FlyingStatusService } from './flying-status-service';
 import { MembershipJobs } from './membership-jobs';
 import { MembershipRepository } from './membership-repository';
+import { PaymentThrottle } from '../payments/payment-throttle';
 import { membershipRoutes } from './membership-routes';
 import { MembershipService } from './membership-service';
 
@@ -27,7 +28,7 @@ export function membershipFeature(platform: Platform): Feature {
   return {
     name: 'membership',
     mount(api) {
-      api('/membership', membershipRoutes(members));
+      api('/membership', membershipRoutes(members, new PaymentThrottle(db)));
       api('/admin/members', memberAdminRoutes(admin, refunds, flying));
       api('/admin/checkin', checkInRoutes(flying));
     },

@@ -2,7 +2,13 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { fields, parse } from '../platform/validate';
 import { requireSignedIn } from '../platform/require-role';
+import type { PayerKeys, PaymentThrottle } from '../payments/payment-throttle';
+import type { SessionUser } from '../platform/roles';
 import type { MembershipService } from './membership-service';
+
+const payer = (sessionId: string, user: SessionUser): PayerKeys => ({ sessionId, email: user.email, accountId: user.id });
+/** Every dues answer that returns a membership means the card went through (declines are thrown as 402). */
+const answered = () => true;
 
 const text = (label: string, max: number) => z.string({ error: `${label} is required.` }).trim().min(1, `${label} is required.`).max(max, `${label} is too long.`);
 const optionalText = (max: number) => z.string().trim().max(max, 'Too long.').transform((v) => v || null).nullish();
@@ -40,7 +46,7 @@ const RenewSchema = z.object({
 });
 
 /** The member's side: plans, quote, join, renew, own membership, auto-renew, card. */
-export function membershipRoutes(service: MembershipService): Router {
+export function membershipRoutes(service: MembershipService, throttle: PaymentThrottle): Router {
   const r = Router();
   r.get('/plans', async (_req, res) => {
     res.json(await service.plans());
@@ -53,7 +59,8 @@ export function membershipRoutes(service: MembershipService): Router {
     res.json(await service.quote(req.user?.id ?? null, body.planId, body.on));
   });
   r.post('/', requireSignedIn, async (req, res) => {
-    res.status(201).json(await service.join(req.user!, parse(JoinSchema, req.body)));
+    const body = parse(JoinSchema, req.body);
+    res.status(201).json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.join(req.user!, body), answered));
   });
   r.get('/me', requireSignedIn, async (req, res) => {
     res.json(await service.meOrNone(req.user!.id));
@@ -62,10 +69,13 @@ export function membershipRoutes(service: MembershipService): Router {
     res.json(await service.updateProfile(req.user!, parse(ProfileSchema.pick({ address: true, phone: true, emergencyContact: true, associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial(), req.body)));
   });
   r.post('/renew', requireSignedIn, async (req, res) => {
-    res.json(await service.renew(req.user!, parse(RenewSchema, req.body)));
+    const body = parse(RenewSchema, req.body);
+    res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.renew(req.user!, body), answered));
   });
   r.post('/auto-renew', requireSignedIn, async (req, res) => {
-    res.json(await service.setAutoRenew(req.user!, parse(z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: token.optional() }), req.body)));
+    const body = parse(z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: token.optional() }), req.body);
+    // Putting a card on file is checked by the processor too, so a card tester could use it: same throttle.
+    res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.setAutoRenew(req.user!, body), answered));
   });
   r.get('/card', requireSignedIn, async (req, res) => {
     res.set('Cache-Control', 'no-store');

@@ -21,8 +21,14 @@ export class FailureLimiter {
 
   /** Throws 429 with Retry-After when the key has used up its failures. */
   async check(key: string): Promise<void> {
+    const ms = await this.blockedMs(key);
+    if (ms > 0) throw tooManyRequests(ms / 1000);
+  }
+
+  /** Milliseconds until the key may try again; 0 while it has failures left. */
+  async blockedMs(key: string): Promise<number> {
     const res = await this.limiter.get(key);
-    if (res && res.remainingPoints <= 0) throw tooManyRequests(res.msBeforeNext / 1000);
+    return res && res.remainingPoints <= 0 ? Math.max(1, res.msBeforeNext) : 0;
   }
 
   /** Counts one failure. */

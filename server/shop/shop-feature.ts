@@ -1,3 +1,4 @@
+import { PaymentThrottle } from '../payments/payment-throttle';
 import type { Feature, Platform } from '../platform/feature';
 import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';
@@ -34,7 +35,7 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
   const refundRepo = new RefundRepository(deps.db);
   const refunds = new RefundService(deps.db, orders, refundRepo, deps.payments, deps.clock, deps.log);
   const webhooks = new WebhookService(deps.db, orders, refunds, settings, deps.clock, otherCharges);
-  const pub = { catalogue, quotes, checkout, orders, config, receipts, links, now: () => deps.clock.now() };
+  const pub = { catalogue, quotes, checkout, orders, config, receipts, links, throttle: new PaymentThrottle(deps.db), now: () => deps.clock.now() };
   const admin = { catalogue, fulfilment, refunds, refundRepo, orders, config, settings, timeZone: deps.config.clubTimeZone };
   return {
     name: 'shop',

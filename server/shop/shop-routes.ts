@@ -4,6 +4,7 @@ import { notFound } from '../platform/app-error';
 import { requireSignedIn } from '../platform/require-role';
 import type { Role } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
+import type { PaymentThrottle } from '../payments/payment-throttle';
 import type { CatalogueService } from './catalogue-service';
 import type { CheckoutService, PaymentOutcome } from './checkout-service';
 import type { OrderLinks } from './order-links';
@@ -32,6 +33,7 @@ export interface ShopDeps {
   config: ShopConfigRepository;
   receipts: ReceiptService;
   links: OrderLinks;
+  throttle: PaymentThrottle;
   now(): Date;
 }
 
@@ -106,7 +108,9 @@ export function orderRoutes(d: ShopDeps): Router {
   };
   r.post('/', async function placeOrder(req, res) {
     const body = parse(OrderBody, req.body);
-    const outcome = await d.checkout.placeOrder(body, req.user ?? null);
+    // The session already holds the CSRF token, so its id is stable between attempts.
+    const payer = { sessionId: req.sessionID, email: body.email, address: body.shipTo };
+    const outcome = await d.throttle.attempt(payer, () => d.checkout.placeOrder(body, req.user ?? null), (o) => o.status === 'paid');
     rememberOrder(req, outcome.bundle.order.id);
     await answer(d, res, outcome, true);
   });
@@ -116,9 +120,10 @@ export function orderRoutes(d: ShopDeps): Router {
   });
   r.post('/:id/pay', async function payAgain(req, res) {
     const id = parse(fields.id, req.params.id);
-    await mayView(req, id);
+    const { order } = await mayView(req, id);
     const { paymentToken } = parse(PayBody, req.body);
-    await answer(d, res, await d.checkout.pay(id, paymentToken), false);
+    const payer = { sessionId: req.sessionID, email: order.email, address: { line1: order.ship_line1, postalCode: order.ship_postal_code, country: order.ship_country } };
+    await answer(d, res, await d.throttle.attempt(payer, () => d.checkout.pay(id, paymentToken), (o) => o.status === 'paid'), false);
   });
   return r;
 }

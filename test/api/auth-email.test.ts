@@ -13,7 +13,8 @@ describe('e-mail verification', () => {
     const email = `verify-${randomUUID().slice(0, 8)}@example.test`;
     const client = new Client(t.app);
     const reg = await client.post('/api/auth/register', { email, password: 'four words make a phrase', displayName: 'Vera' });
-    expect(reg.status).toBe(201);
+    expect(reg.status).toBe(202);
+    await t.app.platform.auth.afterAnswer.settled();
     await t.deps.mail.deliverDue();
     const [mail] = await waitForEmails(email, /Confirm your e-mail/);
     expect(mail).toBeDefined();
@@ -21,7 +22,9 @@ describe('e-mail verification', () => {
     expect(link.pathname).toBe('/account/verify');
     const res = await client.post('/api/auth/verify', { token: link.searchParams.get('token') });
     expect(res.status).toBe(204);
-    expect((await client.get('/api/auth/me')).body.user.emailVerified).toBe(true);
+    // Confirming signs nobody in: whoever registered chose the password, not necessarily the mailbox's owner.
+    expect((await client.get('/api/auth/me')).body.user).toBeNull();
+    expect((await client.post('/api/auth/login', { email, password: 'four words make a phrase' })).body.user.emailVerified).toBe(true);
     const again = await client.post('/api/auth/verify', { token: link.searchParams.get('token') });
     expect(again.status).toBe(400);
   });
@@ -38,6 +41,7 @@ describe('POST /api/auth/password-reset', () => {
     const email = `nobody-${randomUUID().slice(0, 8)}@example.test`;
     const res = await new Client(t.app).post('/api/auth/password-reset', { email });
     expect(res.status).toBe(202);
+    await t.app.platform.auth.afterAnswer.settled();
     expect(await t.deps.db('outbound_emails').where('to_address', email)).toHaveLength(0);
   });
 
@@ -47,6 +51,7 @@ describe('POST /api/auth/password-reset', () => {
     await other.signIn(user);
     const res = await new Client(t.app).post('/api/auth/password-reset', { email: user.email });
     expect(res.status).toBe(202);
+    await t.app.platform.auth.afterAnswer.settled();
     await t.deps.mail.deliverDue();
     const [mail] = await waitForEmails(user.email, /new Padside password/);
     const token = new URL(firstLink(mail)).searchParams.get('token')!;
@@ -70,6 +75,7 @@ describe('POST /api/auth/password-reset', () => {
   it('refuses an expired link', async () => {
     const user = await createUser(t.deps.db);
     await new Client(t.app).post('/api/auth/password-reset', { email: user.email });
+    await t.app.platform.auth.afterAnswer.settled();
     await t.deps.db('auth_tokens').where({ user_id: user.id, purpose: 'password_reset' }).update({ expires_at: new Date(Date.now() - 1000) });
     await t.deps.mail.deliverDue();
     const [mail] = await waitForEmails(user.email, /new Padside password/);

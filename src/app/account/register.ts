@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
-import { Router, RouterLink } from '@angular/router';
+import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -17,7 +17,6 @@ import { PASSPHRASE_HINT } from './passphrase-hint';
 })
 export class Register {
   private readonly session = inject(SessionStore);
-  private readonly router = inject(Router);
 
   protected readonly hint = PASSPHRASE_HINT;
   protected readonly form = inject(NonNullableFormBuilder).group({
@@ -27,6 +26,8 @@ export class Register {
   });
   protected readonly problem = signal<string | null>(null);
   protected readonly busy = signal(false);
+  /** The server's "check your inbox" message once the registration is taken. */
+  protected readonly sent = signal<string | null>(null);
 
   protected async register(): Promise<void> {
     this.form.markAllAsTouched();
@@ -35,8 +36,7 @@ export class Register {
     this.problem.set(null);
     try {
       const { email, password, displayName } = this.form.getRawValue();
-      await this.session.register(email, password, displayName);
-      await this.router.navigate(['/account'], { queryParams: { welcome: 1 } });
+      this.sent.set(await this.session.register(email, password, displayName));
     } catch (err) {
       this.problem.set(applyServerErrors(this.form, err));
     } finally {

@@ -17,7 +17,11 @@ import { AccountApi } from './account-api';
         @case ('working') { <p>Checking your link…</p> }
         @case ('done') {
           <p data-testid="verified">Thank you, your e-mail is confirmed.</p>
-          <a mat-flat-button routerLink="/">Go to the storefront</a>
+          @if (session.signedIn()) {
+            <a mat-flat-button routerLink="/">Go to the storefront</a>
+          } @else {
+            <a mat-flat-button routerLink="/account/sign-in">Sign in</a>
+          }
         }
         @case ('failed') {
           <p class="form-problem" role="alert">{{ problem() }}</p>
@@ -30,7 +34,7 @@ import { AccountApi } from './account-api';
 })
 export class VerifyEmail implements OnInit {
   private readonly api = inject(AccountApi);
-  private readonly session = inject(SessionStore);
+  protected readonly session = inject(SessionStore);
 
   readonly token = input<string>('');
   protected readonly state = signal<'working' | 'done' | 'failed'>('working');

@@ -37,11 +37,13 @@ export class SessionStore {
     return res.user;
   }
 
-  async register(email: string, password: string, displayName: string): Promise<User> {
-    const res = await firstValueFrom(this.http.post<{ user: User }>('/api/auth/register', { email, password, displayName }, { context: new HttpContext().set(QUIET_ERRORS, true) }));
-    this.csrf.forget();
-    this.current.set(res.user);
-    return res.user;
+  /**
+   * Sends a registration; the answer is the same for a new address and a taken one, and nobody is signed in: the
+   * message says to confirm the address from the inbox, then sign in.
+   */
+  async register(email: string, password: string, displayName: string): Promise<string> {
+    const res = await firstValueFrom(this.http.post<{ queued: true; message: string }>('/api/auth/register', { email, password, displayName }, { context: new HttpContext().set(QUIET_ERRORS, true) }));
+    return res.message;
   }
 
   async signOut(): Promise<void> {
