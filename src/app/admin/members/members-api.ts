@@ -28,6 +28,8 @@ export interface RosterLine {
   certificationLevel: string;
   associationNumber: string | null;
   associationExpires: string | null;
+  associationVerified: boolean;
+  certificationVerified: boolean;
   autoRenew: boolean;
   mailOptOut: boolean;
 }
