@@ -37,7 +37,7 @@ describe('CheckInVerdict', () => {
       expect(answer(el, key).classList).toContain('claim');
       expect(answer(el, key).textContent).not.toContain('✓');
     }
-    expect(answer(el, 'association').textContent).toContain('the Prairie Rocketry Association membership');
+    expect(answer(el, 'association').textContent).toContain('Association membership:');
     expect(answer(el, 'certification').textContent).toContain('Level 3');
   });
 

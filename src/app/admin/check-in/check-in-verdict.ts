@@ -52,7 +52,7 @@ export function checkInAnswers(r: CheckInResult): Answer[] {
   };
   const association: Answer = {
     key: 'association',
-    label: `${r.associationName ?? 'Association'} membership`,
+    label: 'Association membership',
     ...(a.answer === 'verified'
       ? { words: `${a.number}, current to ${a.expires}; ${checked(a.verified!)}`, tone: 'ok' as const }
       : a.answer === 'claimed'
