@@ -57,8 +57,8 @@ export class MemberAdminService {
     const [policy, today] = [await this.policy(), this.today()];
     const rows = (await this.repo.rosterAll(q, await this.asOf())).map((r) => rosterView(r, today, policy));
     return toCsv(
-      ['Member number', 'Name', 'E-mail', 'Plan', 'Status', 'Term end', 'Certification', 'Association number', 'Association expires', 'Auto-renew'],
-      rows.map((r) => [r.memberNumber, r.name, r.email, r.planName, r.status, r.termEnd, r.certificationLevel, r.associationNumber, r.associationExpires, r.autoRenew ? 'yes' : 'no']),
+      ['Member number', 'Name', 'E-mail', 'Plan', 'Status', 'Term end', 'Certification', 'Certification checked', 'Association number', 'Association expires', 'Association checked', 'Auto-renew'],
+      rows.map((r) => [r.memberNumber, r.name, r.email, r.planName, r.status, r.termEnd, r.certificationLevel, r.certificationVerified ? 'yes' : 'no', r.associationNumber, r.associationExpires, r.associationVerified ? 'yes' : 'no', r.autoRenew ? 'yes' : 'no']),
     );
   }
 

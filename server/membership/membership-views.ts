@@ -63,6 +63,8 @@ export function rosterView(r: RosterRow, today: string, policy: TermPolicy) {
     certificationLevel: r.certification_level,
     associationNumber: r.association_number,
     associationExpires: dateOnly(r.association_expires),
+    associationVerified: associationVerification(r) !== null,
+    certificationVerified: certificationVerification(r) !== null,
     autoRenew: r.auto_renew,
     mailOptOut: r.marketing_opt_out,
   };

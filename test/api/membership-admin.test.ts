@@ -70,7 +70,7 @@ describe('GET /api/admin/members/export.csv', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     const lines = res.text.trim().split('\r\n');
-    expect(lines[0]).toBe('Member number,Name,E-mail,Plan,Status,Term end,Certification,Association number,Association expires,Auto-renew');
+    expect(lines[0]).toBe('Member number,Name,E-mail,Plan,Status,Term end,Certification,Certification checked,Association number,Association expires,Association checked,Auto-renew');
     expect(lines).toHaveLength(2);
     expect(lines[1]).toContain(`"'=HYPERLINK(""x"") ${tag}"`);
     expect(lines[1]).toContain(`"'@evil"`);

@@ -127,6 +127,16 @@ describe('ASVS 4.1.2: flying status is verified by staff, not claimed', () => {
     expect(await d.checkIn()).toEqual(expect.objectContaining({ status: 'lapsed', mayFly: false, dues: expect.objectContaining({ answer: 'not_current' }) }));
   });
 
+  it('marks claims and checks apart in the roster and its CSV', async () => {
+    const m = await member('Rostered', { associationNumber: 'NA-4010', associationExpires: '2028-12-31', certificationLevel: 'L1' });
+    await verifyAssociation(m.id, 'NA-4010', '2028-12-31');
+    const q = encodeURIComponent(`Rostered ${tag}`);
+    const [line] = (await treasurer.get(`/api/admin/members?q=${q}`)).body.items;
+    expect(line).toEqual(expect.objectContaining({ associationVerified: true, certificationVerified: false }));
+    const csv = (await treasurer.get(`/api/admin/members/export.csv?q=${q}`)).text.trim().split('\r\n');
+    expect(csv[1]).toContain(',L1,no,NA-4010,2028-12-31,yes,');
+  });
+
   it('lets staff withdraw a verification', async () => {
     const m = await member('Withdrawn', { associationNumber: 'NA-4008', associationExpires: '2028-12-31' });
     await verifyAssociation(m.id, 'NA-4008', '2028-12-31');

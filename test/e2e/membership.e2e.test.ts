@@ -150,7 +150,7 @@ describe('club dues in a browser', () => {
     await page.close();
   });
 
-  it('tells staff at check-in whether a pasted card code is valid or unknown', async () => {
+  it('tells staff at check-in what is claimed and what is checked, and whether the card is unknown', async () => {
     const user = await memberSince('Rhosyn Tallow', '2026-06-10', { associationNumber: 'NA-808', associationExpires: '2027-04-30' });
     const memberClient = new Client(t.app);
     await memberClient.signIn(user);
@@ -161,8 +161,19 @@ describe('club dues in a browser', () => {
     await page.goto(`${site.baseUrl}/console/check-in`);
     await page.getByLabel('Card code').fill(token);
     await page.getByRole('button', { name: 'Check' }).click();
-    await page.getByTestId('check-in-verdict').getByText('Valid: dues are current').waitFor();
-    await page.getByText('2027-04-30').waitFor();
+    // The association details are the member's own claim: shown in words, and not cleared to fly.
+    await page.getByTestId('check-in-verdict').getByText(/Not cleared to fly/).waitFor();
+    await page.getByTestId('answer-association').getByText(/NA-808 to 2027-04-30: claimed, not yet checked/).waitFor();
+    await screenshot(page, 'membership-check-in-claimed');
+    const treasurer = new Client(t.app);
+    await treasurer.signIn(await createUser(t.deps.db, ['fan', 'treasurer'], 'Card Checker'));
+    const row = await t.deps.db('memberships').where('user_id', user.id).first('id');
+    const verified = await treasurer.post(`/api/admin/members/${row.id}/verifications`, { what: 'association', against: 'association card, seen at the field', associationNumber: 'NA-808', associationExpires: '2027-04-30' });
+    expect(verified.status).toBe(200);
+    await page.getByLabel('Card code').fill(token);
+    await page.getByRole('button', { name: 'Check' }).click();
+    await page.getByTestId('check-in-verdict').getByText(/May fly/).waitFor();
+    await page.getByTestId('answer-association').getByText(/checked .* by Card Checker against association card/).waitFor();
     await screenshot(page, 'membership-check-in-valid');
     await page.getByLabel('Card code').fill(token.slice(0, -2) + 'xx');
     await page.getByRole('button', { name: 'Check' }).click();

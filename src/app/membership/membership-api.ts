@@ -48,6 +48,9 @@ export interface Membership {
   associationExpires: string | null;
   certificationLevel: string;
   certificationDate: string | null;
+  /** When club staff checked the association card or the certificate; null while the value is the member's own word. */
+  associationVerifiedAt: string | null;
+  certificationVerifiedAt: string | null;
   waiverCurrent: boolean;
   autoRenew: boolean;
   hasSavedCard: boolean;
@@ -60,10 +63,13 @@ export interface MemberCard {
   planName: string | null;
   status: MembershipStatus;
   termEnd: string | null;
+  certificationLevel: string;
   certificationLabel: string;
   associationName: string;
   associationNumber: string | null;
   associationExpires: string | null;
+  associationVerified: boolean;
+  certificationVerified: boolean;
   token: string;
   qrSvg: string;
 }

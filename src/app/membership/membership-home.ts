@@ -1,3 +1,4 @@
+import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -30,7 +31,7 @@ const STATUS_TEXT: Record<Membership['status'], string> = {
 /** Club dues: join when new, otherwise the member's status, renewal and auto-renew. */
 @Component({
   selector: 'ps-membership-home',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatSlideToggleModule, FieldErrorPipe, MoneyPipe, FlyingCaution, JoinForm],
+  imports: [ReactiveFormsModule, RouterLink, DatePipe, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatSlideToggleModule, FieldErrorPipe, MoneyPipe, FlyingCaution, JoinForm],
   templateUrl: './membership-home.html',
   styleUrl: './membership-forms.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -22,16 +22,21 @@ describe('CheckIn', () => {
     return fixture.nativeElement as HTMLElement;
   }
 
-  it('should show a lapsing verdict with the association expiry flagged when not current', async () => {
-    const el = await scan('v1.01042.1.abc', { status: 'lapsing', memberNumber: '01042', name: 'Wren Okonkwo', associationExpires: '2026-01-01', associationCurrent: false, termEnd: '2025-12-31', certificationLevel: 'L1' });
+  it('should send the code and show the three answers from the server', async () => {
+    const el = await scan('v1.01042.1.abc', {
+      status: 'lapsing', memberNumber: '01042', name: 'Wren Okonkwo', mayFly: false, termEnd: '2025-12-31',
+      dues: { answer: 'grace', termEnd: '2025-12-31' },
+      association: { answer: 'expired', number: 'NA-7', expires: '2026-01-01', verified: null },
+      certification: { answer: 'none', level: 'none', label: 'No high-power certification', verified: null },
+    });
     const verdict = el.querySelector('[data-testid=check-in-verdict]')!;
-    expect(verdict.textContent).toContain('Lapsing');
-    expect(verdict.classList).toContain('warn');
-    expect(verdict.textContent).toContain('not current');
+    expect(verdict.textContent).toContain('Not cleared to fly');
+    expect(verdict.textContent).toContain('in grace');
+    expect(verdict.textContent).toContain('expired 2026-01-01');
   });
 
   it('should show an unknown card without member details', async () => {
-    const el = await scan('junk', { status: 'unknown', memberNumber: null, name: null, associationExpires: null, associationCurrent: null, termEnd: null, certificationLevel: null });
+    const el = await scan('junk', { status: 'unknown', memberNumber: null, name: null, mayFly: false, termEnd: null, dues: null, association: null, certification: null });
     const verdict = el.querySelector('[data-testid=check-in-verdict]')!;
     expect(verdict.textContent).toContain('Unknown card');
     expect(verdict.querySelector('dl')).toBeNull();

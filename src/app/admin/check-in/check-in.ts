@@ -9,36 +9,18 @@ import { applyServerErrors } from '../../core/api-error';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
 import { FlyingCaution } from '../../membership/flying-caution';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
-
-/** What the server says about a scanned card. */
-export interface CheckInResult {
-  status: 'active' | 'lapsing' | 'lapsed' | 'unknown';
-  memberNumber: string | null;
-  name: string | null;
-  associationExpires: string | null;
-  associationCurrent: boolean | null;
-  termEnd: string | null;
-  certificationLevel: string | null;
-}
-
-const VERDICT: Record<CheckInResult['status'], string> = {
-  active: 'Valid: dues are current',
-  lapsing: 'Lapsing: dues ended, still in grace',
-  lapsed: 'Lapsed: dues are not current',
-  unknown: 'Unknown card: the code does not match any member',
-};
+import { CheckInVerdict, type CheckInResult } from './check-in-verdict';
 
 /** Launch-day check-in: a scanner types the card code into the field (or staff paste it) and the verdict shows. */
 @Component({
   selector: 'ps-check-in',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, FlyingCaution],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, FlyingCaution, CheckInVerdict],
   templateUrl: './check-in.html',
   styleUrl: './check-in.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CheckIn {
   private readonly http = inject(HttpClient);
-  protected readonly verdict = VERDICT;
   protected readonly form = inject(NonNullableFormBuilder).group({ token: ['', Validators.required] });
   protected readonly result = signal<CheckInResult | null>(null);
   protected readonly problem = signal<string | null>(null);

@@ -28,6 +28,7 @@ const detail: MemberDetailView = {
     autoRenew: false,
     mailOptOut: false,
   },
+  verifications: { association: null, certification: null },
   familyMembers: [],
   payments: [],
   audit: [],
@@ -71,5 +72,53 @@ describe('MemberDetail', () => {
     await settle();
     const field = el.querySelector('[formcontrolname=amount]')!.closest('mat-form-field')!;
     expect(field.querySelector('mat-error')?.textContent?.trim()).toBe('Enter the dues for one term.');
+  });
+});
+
+describe('MemberDetail flying claims', () => {
+  let fixture: ComponentFixture<MemberDetail>;
+  let http: HttpTestingController;
+  let el: HTMLElement;
+  const claimed: MemberDetailView = {
+    ...detail,
+    member: { ...detail.member, associationNumber: 'NA-2044', associationExpires: '2027-03-31', certificationLevel: 'L2' },
+    verifications: { association: null, certification: { at: '2026-05-02T15:00:00Z', by: 'Tess Treasurer', against: 'Level 2 certificate' } },
+  };
+
+  const settle = async () => {
+    await new Promise((resolve) => setTimeout(resolve));
+    await fixture.whenStable();
+  };
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(MemberDetail);
+    fixture.componentRef.setInput('id', '7');
+    fixture.detectChanges();
+    http.expectOne('/api/admin/members/7').flush(claimed);
+    await settle();
+    el = fixture.nativeElement as HTMLElement;
+  });
+  afterEach(() => http.verify());
+
+  it('should show a claim in words and a check with who, when and against what', () => {
+    expect(el.querySelector('[data-testid=association-record]')!.textContent).toContain('claimed by the member, not yet checked');
+    expect(el.querySelector('[data-testid=certification-record]')!.textContent).toContain('checked 2026-05-02 by Tess Treasurer against Level 2 certificate');
+  });
+
+  it('should send the document and the values on screen when staff mark the association checked', async () => {
+    const button = Array.from(el.querySelectorAll<HTMLButtonElement>('[data-testid=association-record] button')).find((b) => b.textContent?.includes('Mark checked'))!;
+    button.click();
+    await settle();
+    const input = el.querySelector<HTMLInputElement>('[formcontrolname=against]')!;
+    input.value = 'association card, seen at the field';
+    input.dispatchEvent(new Event('input'));
+    el.querySelector<HTMLFormElement>('form[aria-label="Mark the association checked"]')!.querySelector<HTMLButtonElement>('button[type=submit]')!.click();
+    const req = http.expectOne('/api/admin/members/7/verifications');
+    expect(req.request.body).toEqual({ what: 'association', against: 'association card, seen at the field', associationNumber: 'NA-2044', associationExpires: '2027-03-31' });
+    req.flush({ error: { code: 'record_changed', message: 'The record changed since you loaded it; reload the page and check again.', fields: { what: 'The record changed since you loaded it.' } } }, { status: 409, statusText: 'Conflict' });
+    await settle();
+    expect(el.querySelector('[role=alert]')?.textContent).toContain('record changed');
   });
 });

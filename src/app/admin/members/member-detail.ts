@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, inject, input, numberAttribute, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { DatePipe, JsonPipe } from '@angular/common';
+import { DatePipe, JsonPipe, NgTemplateOutlet } from '@angular/common';
 import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
@@ -13,16 +13,16 @@ import { EmptyState } from '../../shared/empty-state';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { newRequestKey } from '../../shared/request-key';
-import { MembersApi, type PaymentLine } from './members-api';
+import { MembersApi, type MemberDetail as MemberDetailView, type PaymentLine, type VerifiedPart } from './members-api';
 import { centsToDollars, dollarsToCents } from '../../shared/dollars';
 
 /** Server errors on `amountCents` belong beside the dollars field. */
 const AMOUNT_FIELD = { amountCents: 'amount' };
 
-/** One member: record, family, payments with refunds, manual payment entry and the audit of changes. */
+/** One member: record (with staff checks of the flying claims), family, payments with refunds, manual payment entry and the audit of changes. */
 @Component({
   selector: 'ps-member-detail',
-  imports: [ReactiveFormsModule, RouterLink, DatePipe, JsonPipe, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FieldErrorPipe, MoneyPipe],
+  imports: [ReactiveFormsModule, RouterLink, DatePipe, JsonPipe, NgTemplateOutlet, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FieldErrorPipe, MoneyPipe],
   templateUrl: './member-detail.html',
   styleUrl: './members.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -42,6 +42,8 @@ export class MemberDetail {
     note: [''],
   });
   protected readonly refundForm = this.fb.group({ amount: ['', [Validators.required, Validators.pattern(/^\d+(\.\d{1,2})?$/)]], reason: ['', Validators.required] });
+  protected readonly verifyForm = this.fb.group({ against: ['', [Validators.required, Validators.minLength(3), Validators.maxLength(200)]] });
+  protected readonly verifying = signal<VerifiedPart | null>(null);
   protected readonly refunding = signal<PaymentLine | null>(null);
   // One key per refund form opened: submitting it twice (or retrying) refunds once.
   private refundKey = '';
@@ -61,6 +63,40 @@ export class MemberDetail {
       this.detail.reload();
     } catch (err) {
       this.problem.set(applyServerErrors(this.paymentForm, err, AMOUNT_FIELD));
+    }
+  }
+
+  protected startVerify(what: VerifiedPart): void {
+    this.verifying.set(what);
+    this.verifyForm.reset({ against: '' });
+  }
+
+  /** Sends the values on screen with the check, so a value the member changed meanwhile is not marked checked. */
+  protected async verify(d: MemberDetailView): Promise<void> {
+    const what = this.verifying();
+    this.verifyForm.markAllAsTouched();
+    if (!what || this.verifyForm.invalid) return;
+    this.problem.set(null);
+    const m = d.member;
+    const seen = what === 'association' ? { associationNumber: m.associationNumber, associationExpires: m.associationExpires } : { certificationLevel: m.certificationLevel };
+    try {
+      await firstValueFrom(this.api.verify(this.id(), { what, against: this.verifyForm.getRawValue().against, ...seen }));
+      this.notice.set(what === 'association' ? 'Association membership marked checked.' : 'Certification marked checked.');
+      this.verifying.set(null);
+      this.detail.reload();
+    } catch (err) {
+      this.problem.set(applyServerErrors(this.verifyForm, err));
+    }
+  }
+
+  protected async withdraw(what: VerifiedPart): Promise<void> {
+    this.problem.set(null);
+    try {
+      await firstValueFrom(this.api.withdrawVerification(this.id(), what));
+      this.notice.set('The check was taken back; the value is a claim again.');
+      this.detail.reload();
+    } catch (err) {
+      this.problem.set(applyServerErrors(this.verifyForm, err));
     }
   }
 

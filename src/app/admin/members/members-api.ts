@@ -28,6 +28,8 @@ export interface RosterLine {
   certificationLevel: string;
   associationNumber: string | null;
   associationExpires: string | null;
+  associationVerified: boolean;
+  certificationVerified: boolean;
   autoRenew: boolean;
   mailOptOut: boolean;
 }
@@ -44,6 +46,25 @@ export interface PaymentLine {
   note: string | null;
   failureMessage: string | null;
   createdAt: string;
+}
+
+/** Which self-entered part of a record staff check. */
+export type VerifiedPart = 'association' | 'certification';
+
+/** A staff check of a member's claim: when, by whom and against what. */
+export interface Verification {
+  at: string;
+  by: string | null;
+  against: string;
+}
+
+/** What staff send to mark a claim checked: the document, and the values they saw. */
+export interface VerifyRequest {
+  what: VerifiedPart;
+  against: string;
+  associationNumber?: string | null;
+  associationExpires?: string | null;
+  certificationLevel?: string;
 }
 
 export interface MemberDetail {
@@ -69,6 +90,8 @@ export interface MemberDetail {
     autoRenew: boolean;
     mailOptOut: boolean;
   };
+  /** Staff checks of the association and certification claims; null while a value is the member's own word. */
+  verifications: Record<VerifiedPart, Verification | null>;
   familyMembers: { name: string; dateOfBirth: string }[];
   payments: PaymentLine[];
   audit: { id: number; action: string; detail: Record<string, unknown>; actor: string | null; at: string }[];
@@ -137,6 +160,14 @@ export class MembersApi {
   /** `key` (the Idempotency-Key) belongs to one refund: a double click or retry refunds once. */
   refund(id: number, body: { paymentId: number; amountCents: number; reason: string }, key: string): Observable<MemberDetail> {
     return this.http.post<MemberDetail>(`/api/admin/members/${id}/refunds`, body, { ...quiet(), headers: { 'Idempotency-Key': key } });
+  }
+
+  verify(id: number, body: VerifyRequest): Observable<MemberDetail> {
+    return this.http.post<MemberDetail>(`/api/admin/members/${id}/verifications`, body, quiet());
+  }
+
+  withdrawVerification(id: number, what: VerifiedPart): Observable<MemberDetail> {
+    return this.http.delete<MemberDetail>(`/api/admin/members/${id}/verifications/${what}`, quiet());
   }
 
   summary(): Observable<DuesSummary> {
