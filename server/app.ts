@@ -46,7 +46,8 @@ export function createApp(deps: AppDeps): PadsideApp {
     deps,
     auth,
     settings: new SettingsService(deps.db),
-    images: new ImageUploads(deps.db, storageFromConfig(deps.config.storage)),
+    // The features answer what still shows an image; they exist by the time anyone deletes one.
+    images: new ImageUploads(deps.db, storageFromConfig(deps.config.storage), async (urls) => (await Promise.all(features.map((f) => f.imageUses?.(urls) ?? []))).flat()),
   };
   const features = buildFeatures(platform);
   const passport = configurePassport(auth);

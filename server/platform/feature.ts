@@ -28,4 +28,6 @@ export interface Feature {
   jobs?: ScheduledJob[];
   /** The numbers this feature gives the staff dashboard. */
   dashboard?: Partial<DashboardSources>;
+  /** What of this feature still shows one of these uploaded images ("the build log “Fin can”"), so it is kept. */
+  imageUses?(urls: readonly string[]): Promise<string[]>;
 }

@@ -39,6 +39,7 @@ export function shopFeature(platform: Platform): Feature {
       api('/admin/shop', shopSettingsRoutes(admin));
       api('/payments', paymentRoutes(deps.payments.stripe, deps.config.stripe, webhooks));
     },
+    imageUses: async (urls) => (await catalogueRepo.namesUsingImage(urls)).map((n) => `the product “${n}”`),
     jobs: [{ name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() }],
     dashboard: shopDashboard(deps.db, catalogueRepo, deps.clock, settings),
   };
