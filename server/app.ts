@@ -42,12 +42,13 @@ export type PadsideApp = Express & { close(): Promise<void>; jobs: ScheduledJob[
 export function createApp(deps: AppDeps): PadsideApp {
   const app = express() as PadsideApp;
   const auth = new AuthService(deps.db, deps.config.publicUrl, deps.clock);
+  const storage = storageFromConfig(deps.config.storage);
   const platform: Platform = {
     deps,
     auth,
     settings: new SettingsService(deps.db),
     // The features answer what still shows an image; they exist by the time anyone deletes one.
-    images: new ImageUploads(deps.db, storageFromConfig(deps.config.storage), async (urls) => (await Promise.all(features.map((f) => f.imageUses?.(urls) ?? []))).flat()),
+    images: new ImageUploads(deps.db, storage, async (urls) => (await Promise.all(features.map((f) => f.imageUses?.(urls) ?? []))).flat()),
   };
   const features = buildFeatures(platform);
   const passport = configurePassport(auth);
@@ -111,6 +112,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   app.mounts = mounts;
   app.close = async () => {
     await sessions.pool.end();
+    storage.close?.();
   };
   return app;
 }
