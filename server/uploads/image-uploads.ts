@@ -127,6 +127,9 @@ export class ImageUploads {
     try {
       await this.storage.write(key, counter, contentType);
     } catch (err) {
+      // A store that stopped reading leaves the decoder paused: end it rather than leave it holding the image.
+      image.destroy();
+      counter.destroy();
       await this.storage.remove(cleanUp).catch(() => undefined);
       if (decodeFailed) throw damaged();
       throw err;
