@@ -43,11 +43,13 @@ export type PadsideApp = Express & { close(): Promise<void>; jobs: ScheduledJob[
 export function createApp(deps: AppDeps): PadsideApp {
   const app = express() as PadsideApp;
   const auth = new AuthService(deps.db, deps.config.publicUrl, deps.clock, deps.log);
+  const storage = storageFromConfig(deps.config.storage);
   const platform: Platform = {
     deps,
     auth,
     settings: new SettingsService(deps.db),
-    images: new ImageUploads(deps.db, storageFromConfig(deps.config.storage)),
+    // The features answer what still shows an image; they exist by the time anyone deletes one.
+    images: new ImageUploads(deps.db, storage, async (urls) => (await Promise.all(features.map((f) => f.imageUses?.(urls) ?? []))).flat()),
   };
   const features = buildFeatures(platform);
   const passport = configurePassport(auth);
@@ -117,6 +119,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   app.close = async () => {
     await auth.afterAnswer.settled();
     await sessions.pool.end();
+    storage.close?.();
   };
   return app;
 }

@@ -19,8 +19,9 @@ export function buildLogsFeature(platform: Platform): Feature {
   // The sponsorship tax reads the rate table where the shop keeps it.
   const sponsorTax = new SponsorTaxService(db, sponsorRepo, platform.settings, new ShopConfigRepository(db), config.site.teamName);
   const sponsors = new SponsorService(db, sponsorRepo, credits, platform.auth.users, platform.settings, sponsorTax);
-  const posts = new PostService(db, new PostRepository(db), sponsorRepo, credits);
   const today = clubToday(clock, config.clubTimeZone);
+  const postRepo = new PostRepository(db);
+  const posts = new PostService(db, postRepo, sponsorRepo, credits);
   return {
     name: 'build-logs',
     mount(api) {
@@ -38,6 +39,10 @@ export function buildLogsFeature(platform: Platform): Feature {
       sponsorValue: () => sponsors.seasonValue(today()),
       overdueDeliverables: async () => (await sponsors.overdue(today())).map((o) => ({ sponsor: o.sponsorName, kind: o.kind, dueOn: o.dueOn, missing: o.promised - o.delivered })),
     },
+    imageUses: async (urls) => [
+      ...(await postRepo.titlesUsingImage(urls)).map((t) => `the build log “${t}”`),
+      ...(await sponsorRepo.namesUsingLogo(urls)).map((n) => `the sponsor “${n}” (logo)`),
+    ],
     jobs: [{ name: 'publish-scheduled-posts', cron: '* * * * *', run: () => posts.publishDue(clock.now()) }],
   };
 }

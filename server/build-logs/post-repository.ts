@@ -141,4 +141,16 @@ export class PostRepository {
   latestPublished(limit: number): Promise<PostRow[]> {
     return this.withAuthor(this.db).where('p.status', 'published').orderBy('p.published_at', 'desc').limit(limit);
   }
+
+  /** Titles of posts whose cover or body shows one of `urls`. */
+  async titlesUsingImage(urls: readonly string[]): Promise<string[]> {
+    const rows = await this.db('posts')
+      .where((q) => {
+        q.whereIn('cover_url', urls);
+        for (const url of urls) q.orWhere('markdown', 'like', `%${url}%`);
+      })
+      .orderBy('title')
+      .pluck('title');
+    return rows as string[];
+  }
 }

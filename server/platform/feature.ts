@@ -30,4 +30,6 @@ export interface Feature {
   dashboard?: Partial<DashboardSources>;
   /** Records the processor's refunds of a charge this feature made, if it made it (true); the payment webhook calls it. */
   chargeRefunds?: (chargeId: string) => Promise<boolean>;
+  /** What of this feature still shows one of these uploaded images ("the build log “Fin can”"), so it is kept. */
+  imageUses?(urls: readonly string[]): Promise<string[]>;
 }

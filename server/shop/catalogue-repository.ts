@@ -139,4 +139,18 @@ export class CatalogueRepository {
       .select('i.variant_id', this.db.raw('sum(i.quantity - i.restocked_quantity)::int as units'));
     return new Map(rows.map((r: { variant_id: string; units: number }) => [Number(r.variant_id), r.units]));
   }
+
+  /** Names of products whose pictures or description show one of `urls`. */
+  async namesUsingImage(urls: readonly string[]): Promise<string[]> {
+    const rows = await this.db('shop_products')
+      .where((q) => {
+        for (const url of urls) {
+          q.orWhereRaw('images @> ?::jsonb', [JSON.stringify([{ url }])]).orWhereRaw('images @> ?::jsonb', [JSON.stringify([{ thumbnailUrl: url }])]);
+          q.orWhere('description_md', 'like', `%${url}%`);
+        }
+      })
+      .orderBy('name')
+      .pluck('name');
+    return rows as string[];
+  }
 }

@@ -51,6 +51,7 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
       api('/admin/shop', shopSettingsRoutes(admin));
       api('/payments', paymentRoutes(deps.payments.stripe, deps.config.stripe, webhooks));
     },
+    imageUses: async (urls) => (await catalogueRepo.namesUsingImage(urls)).map((n) => `the product “${n}”`),
     jobs: [
       { name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() },
       { name: 'reconcile-refunds', cron: '*/5 * * * *', run: () => refunds.reconcile(otherCharges) },

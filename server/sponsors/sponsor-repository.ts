@@ -234,4 +234,9 @@ export class SponsorRepository {
       .select('pc.sponsor_id', 'p.slug', 'p.title')
       .orderBy('p.published_at', 'desc');
   }
+
+  /** Names of sponsors whose logo is one of `urls`. */
+  async namesUsingLogo(urls: readonly string[]): Promise<string[]> {
+    return (await this.db('sponsors').whereIn('logo_url', urls).orderBy('name').pluck('name')) as string[];
+  }
 }

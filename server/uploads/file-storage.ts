@@ -17,6 +17,8 @@ export interface FileStorage {
   read(key: string): Promise<StoredObject | null>;
   /** Removes the objects; a key that is already gone is not an error. */
   remove(keys: readonly string[]): Promise<void>;
+  /** Releases connections, if the storage holds any. */
+  close?(): void;
 }
 
 /** Refuses a key that could leave the storage folder or prefix. */

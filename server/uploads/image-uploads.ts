@@ -3,7 +3,7 @@ import { createReadStream } from 'node:fs';
 import { Transform, type Readable } from 'node:stream';
 import type { Knex } from 'knex';
 import sharp, { type Metadata, type Sharp } from 'sharp';
-import { AppError, badRequest, notFound } from '../platform/app-error';
+import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
 import type { FileStorage } from './file-storage';
 
 // file-type 16 is the last CommonJS release.
@@ -49,6 +49,8 @@ export class ImageUploads {
   constructor(
     private readonly db: Knex,
     private readonly storage: FileStorage,
+    /** What still shows an image (posts, products, sponsor logos), asked of the features before a delete. */
+    private readonly usesOf: (urls: readonly string[]) => Promise<string[]> = async () => [],
   ) {}
 
   async store(file: ReceivedFile, userId: number | null): Promise<StoredImage> {
@@ -95,11 +97,14 @@ export class ImageUploads {
     return { ...stored, contentType: key === row.thumbnail_key ? 'image/webp' : row.content_type };
   }
 
-  /** Removes an image and its thumbnail, record and objects; a page still pointing at it shows no image. */
+  /** Removes an image with its thumbnail, record and objects; refused while a page still shows it. */
   async remove(key: string): Promise<void> {
     await this.db.transaction(async (trx) => {
       const row = await trx<UploadRow>('uploads').where('key', key).forUpdate().first();
       if (!row) throw notFound('No such image.');
+      // Names are shared by identical uploads, so the same image may be on several pages.
+      const uses = await this.usesOf([`/uploads/${row.key}`, ...(row.thumbnail_key ? [`/uploads/${row.thumbnail_key}`] : [])]);
+      if (uses.length) throw conflict('image_in_use', `This image is still shown on ${uses.slice(0, 3).join(', ')}${uses.length > 3 ? ` and ${uses.length - 3} more` : ''}. Remove it there first.`, { image: 'Still in use.' });
       await trx('uploads').where('id', row.id).delete();
       // Objects go inside the transaction: if the store refuses, the record stays and the delete can be retried.
       await this.storage.remove([row.key, ...(row.thumbnail_key ? [row.thumbnail_key] : [])]);
@@ -122,6 +127,9 @@ export class ImageUploads {
     try {
       await this.storage.write(key, counter, contentType);
     } catch (err) {
+      // A store that stopped reading leaves the decoder paused: end it rather than leave it holding the image.
+      image.destroy();
+      counter.destroy();
       await this.storage.remove(cleanUp).catch(() => undefined);
       if (decodeFailed) throw damaged();
       throw err;

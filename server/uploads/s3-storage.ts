@@ -2,9 +2,24 @@ import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, S3Client, S3ServiceEx
 import { Upload } from '@aws-sdk/lib-storage';
 import type { Readable } from 'node:stream';
 import type { StorageConfig } from '../config';
+import { AppError } from '../platform/app-error';
 import { checkedKey, type FileStorage, type StoredObject } from './file-storage';
 
 type S3Settings = Extract<StorageConfig, { kind: 's3' }>;
+
+const UNREACHABLE = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'ENOTFOUND', 'EAI_AGAIN', 'EHOSTUNREACH', 'EPIPE']);
+
+/** A store that is down or overloaded is a 503 the client may retry, not a defect; anything else stays an error. */
+function unavailable(err: unknown): never {
+  const e = err as { code?: string; name?: string; message?: string; $metadata?: { httpStatusCode?: number } };
+  const status = e.$metadata?.httpStatusCode ?? 0;
+  // The retry layer may rewrap a socket error as a plain Error whose message alone still names the code.
+  const code = e.code ?? /\b(E[A-Z_]+)\b/.exec(e.message ?? '')?.[1] ?? '';
+  if (UNREACHABLE.has(code) || e.name === 'TimeoutError' || status >= 500) {
+    throw new AppError(503, 'storage_unavailable', 'Image storage is not answering. Try again in a minute.', undefined, { 'Retry-After': '30' });
+  }
+  throw err;
+}
 
 /** Objects in an S3-compatible bucket under a prefix, so every machine reads what any machine stored. */
 export class S3Storage implements FileStorage {
@@ -20,6 +35,7 @@ export class S3Storage implements FileStorage {
       requestChecksumCalculation: 'WHEN_REQUIRED',
       responseChecksumValidation: 'WHEN_REQUIRED',
       maxAttempts: 3,
+      requestHandler: { connectionTimeout: 3_000, requestTimeout: 15_000 },
     });
   }
 
@@ -31,7 +47,7 @@ export class S3Storage implements FileStorage {
       queueSize: 1,
       leavePartsOnError: false,
     });
-    await upload.done();
+    await upload.done().catch(unavailable);
   }
 
   async read(key: string): Promise<StoredObject | null> {
@@ -40,13 +56,13 @@ export class S3Storage implements FileStorage {
       return { body: out.Body as Readable, length: Number(out.ContentLength) };
     } catch (err) {
       if (err instanceof NoSuchKey || (err instanceof S3ServiceException && err.$metadata.httpStatusCode === 404)) return null;
-      throw err;
+      return unavailable(err);
     }
   }
 
   async remove(keys: readonly string[]): Promise<void> {
     // One request per key: DeleteObjects needs a Content-MD5 some compatible servers compute differently.
-    await Promise.all(keys.map((k) => this.client.send(new DeleteObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(k) }))));
+    await Promise.all(keys.map((k) => this.client.send(new DeleteObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(k) })))).catch(unavailable);
   }
 
   /** Releases the client's sockets. */

@@ -121,3 +121,50 @@ describe('a NUL byte in the file name (OWASP ASVS 4.0.3 12.3.1: user-supplied fi
     expect(res.body.error.code).toBe('bad_upload');
   });
 });
+
+describe('DELETE /api/admin/uploads/:key', () => {
+  const freshPng = () => sharp({ create: { width: 12, height: 12, channels: 3, background: { r: Math.floor(Math.random() * 256), g: 90, b: Math.floor(Math.random() * 256) } } }).png().toBuffer();
+  const remove = async (url: string) => editor.agent.delete(url.replace('/uploads/', '/api/admin/uploads/')).set('X-CSRF-Token', await editor.token());
+
+  it('answers 409 naming the post while a build log still shows the image, and keeps it', async () => {
+    const up = await upload(await freshPng(), 'cover.png');
+    const title = `Cover in use ${Date.now()}`;
+    const token = await editor.token();
+    const post = await editor.agent.post('/api/admin/posts').set('X-CSRF-Token', token).send({ title, markdown: 'Text.', coverUrl: up.body.url, status: 'draft' });
+    expect(post.status).toBe(201);
+    const res = await remove(up.body.url);
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('image_in_use');
+    expect(res.body.error.message).toContain(`the build log “${title}”`);
+    expect((await new Client(t.app).get(up.body.url)).status).toBe(200);
+  });
+
+  it('answers 409 while a build log body shows the thumbnail', async () => {
+    const up = await upload(await freshPng(), 'inline.png');
+    const post = await editor.agent.post('/api/admin/posts').set('X-CSRF-Token', await editor.token()).send({ title: `Inline ${Date.now()}`, markdown: `![small](${up.body.thumbnailUrl})`, status: 'draft' });
+    expect(post.status).toBe(201);
+    expect((await remove(up.body.url)).status).toBe(409);
+  });
+
+  it('answers 409 while a sponsor logo or a product picture shows it', async () => {
+    const logo = await upload(await freshPng(), 'logo.png');
+    const name = `Gopher Flats Hobby Supply ${Date.now()}`;
+    expect((await editor.agent.post('/api/admin/sponsors').set('X-CSRF-Token', await editor.token()).send({ name, logoUrl: logo.body.url })).status).toBe(201);
+    const logoRes = await remove(logo.body.url);
+    expect(logoRes.status).toBe(409);
+    expect(logoRes.body.error.message).toContain(`the sponsor “${name}”`);
+
+    const picture = await upload(await freshPng(), 'tee.png');
+    const slug = `in-use-tee-${Date.now()}`;
+    await t.deps.db('shop_products').insert({ slug, name: `Tee ${slug}`, price_cents: 2500, weight_grams: 180, images: JSON.stringify([{ url: picture.body.url, thumbnailUrl: picture.body.thumbnailUrl, alt: 'Tee' }]) });
+    const pictureRes = await remove(picture.body.url);
+    expect(pictureRes.status).toBe(409);
+    expect(pictureRes.body.error.message).toContain(`the product “Tee ${slug}”`);
+  });
+
+  it('answers 404 for a thumbnail name or a key that does not exist', async () => {
+    const up = await upload(await freshPng(), 'thumb.png');
+    expect((await remove(up.body.thumbnailUrl)).status).toBe(404);
+    expect((await remove('/uploads/0000nothere.png')).status).toBe(404);
+  });
+});

@@ -2,7 +2,11 @@ import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import { randomBytes } from 'node:crypto';
 import { Readable } from 'node:stream';
 import { loadConfig, type StorageConfig } from '../../server/config';
+import sharp from 'sharp';
 import { S3Storage } from '../../server/uploads/s3-storage';
+import { freePort } from '../helpers/tcp-proxy';
+import { buildTestApp } from '../helpers/test-app';
+import { signedIn } from '../helpers/users';
 
 // The test stack's s3rver; see scripts/stack/throwaway.mjs.
 const settings = (prefix: string, overrides: Record<string, string> = {}) =>
@@ -68,5 +72,30 @@ describe('S3Storage against the test object store', () => {
 
   it('is what the configuration names when STORAGE_URL is set', () => {
     expect(settings('x')).toMatchObject({ kind: 's3', bucket: 'padside-test', prefix: 'uploads-x/', forcePathStyle: true });
+  });
+});
+
+describe('when the object store does not answer', () => {
+  it('S3Storage answers 503 storage_unavailable with Retry-After, for reads, writes and deletes', async () => {
+    const port = await freePort();
+    const down = storage(`a${run}`, { S3_ENDPOINT: `http://127.0.0.1:${port}` });
+    for (const attempt of [() => down.read('0123abcd.png'), () => down.write('down01.png', Readable.from([Buffer.from('x')]), 'image/png'), () => down.remove(['down01.png'])]) {
+      await expect(attempt()).rejects.toMatchObject({ status: 503, code: 'storage_unavailable', headers: { 'Retry-After': '30' } });
+    }
+  });
+
+  it('an upload answers 503 with the error shape, not 500', async () => {
+    const port = await freePort();
+    const t = buildTestApp({ env: { STORAGE_URL: String(process.env.TEST_STORAGE_URL), S3_ENDPOINT: `http://127.0.0.1:${port}` } });
+    try {
+      const { client } = await signedIn(t.app, t.deps.db, ['fan', 'editor']);
+      const png = await sharp({ create: { width: 9, height: 9, channels: 3, background: { r: 3, g: Date.now() % 256, b: 7 } } }).png().toBuffer();
+      const res = await client.agent.post('/api/admin/uploads').set('X-CSRF-Token', await client.token()).attach('file', png, { filename: 'down.png', contentType: 'image/png' });
+      expect(res.status).toBe(503);
+      expect(res.headers['retry-after']).toBe('30');
+      expect(res.body.error.code).toBe('storage_unavailable');
+    } finally {
+      await t.close();
+    }
   });
 });

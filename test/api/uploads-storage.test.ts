@@ -1,4 +1,4 @@
-import { randomInt } from 'node:crypto';
+import { createHash, randomInt } from 'node:crypto';
 import sharp from 'sharp';
 import { storageFromConfig } from '../../server/uploads/storage-from-config';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
@@ -97,6 +97,19 @@ describe.each([
     expect(second.status).toBe(201);
     expect(second.body.url).toBe(first.body.url);
     expect(await t.deps.db('uploads').where('key', keyOf(first.body.url)).count<{ count: string }[]>('* as count')).toEqual([{ count: '1' }]);
+  });
+
+  it('answers 415 for an image whose data is cut short, and leaves no object behind', async () => {
+    const whole = await sharp({ create: { width: 300, height: 200, channels: 3, noise: { type: 'gaussian', mean: 128, sigma: 60 } } }).png().toBuffer();
+    const cut = whole.subarray(0, Math.floor(whole.length / 2));
+    const res = await editor.agent.post('/api/admin/uploads').set('X-CSRF-Token', await editor.token()).attach('file', cut, { filename: 'half.png', contentType: 'image/png' });
+    expect(res.status).toBe(415);
+    expect(res.body.error.fields.file).toBe('Damaged image.');
+    const name = createHash('sha256').update(cut).digest('hex').slice(0, 32);
+    const storage = storageFromConfig(t.config.storage);
+    expect(await storage.read(`${name}.png`)).toBeNull();
+    expect(await storage.read(`${name}-thumb.webp`)).toBeNull();
+    expect(await t.deps.db('uploads').where('key', `${name}.png`).first()).toBeUndefined();
   });
 
   it('deletes an image: its record, the original and the thumbnail objects', async () => {
