@@ -34,12 +34,20 @@ export interface ColumnMapping {
   acceleration?: { columns: string[]; unit: 'g' | 'm/s2' };
 }
 
-/** `GET /api/flights/:id`: the card and, once a log is in, its summary and chart series. */
-export interface FlightDetail {
-  flight: { id: number; rocketName?: string; [key: string]: unknown };
+/** A flight's analysed log. */
+export interface FlightData {
   summary: FlightSummary | null;
   series: FlightSeriesPoint[] | null;
   events: FlightEvent[] | null;
+}
+
+/**
+ * `GET /api/flights/:id`: the card and, once a log is in, its summary and chart series, either beside the card or
+ * under `data` (null before a log is in); the embed reads both.
+ */
+export interface FlightDetail extends Partial<FlightData> {
+  flight: { id: number; rocketName?: string; [key: string]: unknown };
+  data?: FlightData | null;
 }
 
 /** Event names in Padside's words. */

@@ -42,6 +42,15 @@ describe('FlightEmbed', () => {
     expect(el.querySelector('ps-flight-chart canvas')).not.toBeNull();
   });
 
+  it('should read the analysed log under data as well', async () => {
+    const { summary, series, events, flight } = DETAIL;
+    const el = await show((req) => req.flush({ flight, data: { summary, series, events, filter: 'Savitzky–Golay' }, caution: 'Padside records.' }));
+    expect(el.textContent).toContain('635 m (2,083 ft) at 12.7 s');
+    expect(el.querySelector('ps-flight-chart')).not.toBeNull();
+    const none = await show((req) => req.flush({ flight, data: null }));
+    expect(none.textContent).toContain('Flight data not available.');
+  });
+
   it('should say the data is not available for a flight with no log yet', async () => {
     const el = await show((req) => req.flush({ ...DETAIL, summary: null, series: null, events: null }));
     expect(el.textContent).toContain('Flight data not available.');

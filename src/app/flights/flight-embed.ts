@@ -22,7 +22,8 @@ export class FlightEmbed {
   protected readonly data = computed(() => {
     if (this.flight.error()) return null;
     const f = this.flight.value();
-    return f?.summary && f.series?.length ? { name: f.flight.rocketName ?? null, summary: f.summary, series: f.series, events: f.events ?? [] } : null;
+    const d = f?.data ?? f;
+    return f && d?.summary && d.series?.length ? { name: f.flight.rocketName ?? null, summary: d.summary, series: d.series, events: d.events ?? [] } : null;
   });
   protected readonly unavailable = computed(() => this.flight.error() !== undefined || (this.flight.hasValue() && this.data() === null));
 }
