@@ -12,6 +12,7 @@ import {
   createComponent,
   inject,
   input,
+  type Type,
   viewChild,
 } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
@@ -22,7 +23,7 @@ import { SessionStore } from '../core/session-store';
 import { BuildLogApi } from './build-log-api';
 import { HazardNotice } from './hazard-notice';
 import { SiteNames } from '../core/site-names';
-import { FlightEmbed } from '../flights/flight-embed';
+import type { FlightEmbed } from '../flights/flight-embed';
 
 /**
  * One build log; members-only bodies arrive as null for others, who see the summary and a prompt to join.
@@ -64,23 +65,29 @@ export class PostPage {
     // After each render of a new body: its placeholders are fresh elements, so the old embeds go and new ones come.
     afterRenderEffect(() => {
       this.body();
-      this.mountFlights(this.bodyElement()?.nativeElement);
+      void this.mountFlights(this.bodyElement()?.nativeElement);
     });
-    inject(DestroyRef).onDestroy(() => this.mountFlights(undefined));
+    inject(DestroyRef).onDestroy(() => void this.mountFlights(undefined));
   }
 
-  private mountFlights(container: HTMLElement | undefined): void {
+  /** The embed's code (and Chart.js) loads only for a post that has a flight in it. */
+  private embedType: Promise<Type<FlightEmbed>> | null = null;
+
+  private async mountFlights(container: HTMLElement | undefined): Promise<void> {
     const placeholders = container ? Array.from(container.querySelectorAll<HTMLElement>('.ps-flight[data-flight]')) : [];
     for (const [element, ref] of this.flightEmbeds) {
       if (placeholders.includes(element)) continue;
       ref.destroy();
       this.flightEmbeds.delete(element);
     }
-    for (const placeholder of placeholders) {
-      const id = Number(placeholder.dataset['flight']);
-      if (this.flightEmbeds.has(placeholder) || !Number.isInteger(id) || id <= 0) continue;
-      const ref = createComponent(FlightEmbed, { environmentInjector: this.environmentInjector, hostElement: placeholder });
-      ref.setInput('flightId', id);
+    const fresh = placeholders.filter((p) => !this.flightEmbeds.has(p) && /^[1-9][0-9]*$/.test(p.dataset['flight'] ?? ''));
+    if (fresh.length === 0) return;
+    const embed = await (this.embedType ??= import('../flights/flight-embed').then((m) => m.FlightEmbed));
+    for (const placeholder of fresh) {
+      // The body may have changed while the code loaded.
+      if (!placeholder.isConnected || this.flightEmbeds.has(placeholder)) continue;
+      const ref = createComponent(embed, { environmentInjector: this.environmentInjector, hostElement: placeholder });
+      ref.setInput('flightId', Number(placeholder.dataset['flight']));
       this.appRef.attachView(ref.hostView);
       this.flightEmbeds.set(placeholder, ref);
     }
