@@ -273,6 +273,32 @@ describe('analyseFlightLog on a long log', () => {
   });
 });
 
+describe('analyseSamples on a dual-deployment descent', () => {
+  it.each([0, 3])('should read the main descent rate and the main opening, not the drogue (noise ±%d Pa)', (noisePa) => {
+    // Apogee as above, a drogue at a constant 20 m/s down to 60 m, then the main at a constant 5 m/s.
+    const drogueRate = 20;
+    const mainAt = 60;
+    const mainT = apogeeT + (apogeeM - mainAt) / drogueRate;
+    const downT = mainT + mainAt / DESCENT;
+    const height = (tau: number) =>
+      tau <= apogeeT ? truth(tau).h : tau <= mainT ? apogeeM - drogueRate * (tau - apogeeT) : tau <= downT ? mainAt - DESCENT * (tau - mainT) : 0;
+    const hz = 100;
+    const n = Math.floor((PAD_WAIT_S + downT + 5) * hz);
+    const rnd = lcg(11);
+    const t = new Float64Array(n);
+    const p = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      t[i] = i / hz;
+      p[i] = pressureAbovePadPa(height(t[i] - PAD_WAIT_S), PAD_PA) + (rnd() * 2 - 1) * noisePa;
+    }
+    const r = analyseSamples({ t, pressurePa: p, accelG: null });
+    within(r.summary.descentRateMps!, DESCENT);
+    within(r.summary.apogeeMetres, apogeeM);
+    expect(Math.abs(eventAt(r.events, 'deployment')! - mainT)).toBeLessThan(0.5);
+    expect(Math.abs(eventAt(r.events, 'landing')! - downT)).toBeLessThan(0.5);
+  });
+});
+
 describe('analyseSamples and downsampleIndices', () => {
   it('should keep the indices it must keep and stay under the limit', () => {
     const picked = downsampleIndices(0, 99_999, 1000, [12_345]);

@@ -127,21 +127,25 @@ function findLanding(t: Float64Array, alt: Float64Array, from: number): number |
   return null;
 }
 
-/** Descent rate under the main device (the last stretch of the descent) and where the descent settled to it. */
+/**
+ * Descent rate under the main device and where the descent settled to it: the rate of the last seconds before
+ * landing, then back from there for as long as the speed stays near it (so a main opened low after a fast drogue
+ * descent is read on its own), then the median over that stretch.
+ */
 function findDescent(t: Float64Array, speed: Float64Array, apogee: number, end: number): { rate: number; deployment: number } | null {
   const span = t[end] - t[apogee];
   if (span < 1) return null;
-  const from = firstIndexAtOrAfter(t, t[end] - 0.4 * span);
   const to = firstIndexAtOrAfter(t, t[end] - Math.min(0.5, 0.1 * span));
+  const from = Math.max(apogee, firstIndexAtOrAfter(t, t[to] - Math.min(3, 0.5 * span)));
   if (to - from < 3) return null;
-  const rate = -median(speed.subarray(from, to));
-  if (!(rate > 0)) return null;
-  const tolerance = Math.max(0.5, 0.15 * rate);
+  const last = -median(speed.subarray(from, to));
+  if (!(last > 0)) return null;
+  const tolerance = Math.max(0.5, 0.15 * last);
   // Walk back on the speed averaged over half a second, so one noisy reading does not end the steady stretch.
-  const steady = movingAverage(t.subarray(apogee, from + 1), speed.subarray(apogee, from + 1), 0.5);
+  const steady = movingAverage(t.subarray(apogee, to + 1), speed.subarray(apogee, to + 1), 0.5);
   let k = from;
-  while (k > apogee && Math.abs(-steady[k - 1 - apogee] - rate) <= tolerance) k--;
-  return { rate, deployment: k };
+  while (k > apogee && Math.abs(-steady[k - 1 - apogee] - last) <= tolerance) k--;
+  return { rate: -median(speed.subarray(k, to)), deployment: k };
 }
 
 /** Evenly spaced indices from lo to hi (inclusive), at most `max`, always including `keep`. */
