@@ -324,3 +324,21 @@ describe('analyseSamples and downsampleIndices', () => {
     within(r.summary.apogeeMetres, apogeeM);
   });
 });
+
+describe('analyseSamples with an accelerometer that never reads like the pad', () => {
+  it('should take liftoff from the climb when the readings stay high (m/s^2 read as g)', () => {
+    const hz = 100;
+    const n = Math.floor((PAD_WAIT_S + 30) * hz);
+    const t = new Float64Array(n);
+    const p = new Float64Array(n);
+    const a = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      t[i] = i / hz;
+      const { h, accelG } = truth(t[i] - PAD_WAIT_S);
+      p[i] = pressureAbovePadPa(h, PAD_PA);
+      a[i] = accelG * G + 9.8; // never under 9.8 "g"
+    }
+    const r = analyseSamples({ t, pressurePa: p, accelG: a });
+    within(r.summary.apogeeAtSeconds, apogeeT);
+  });
+});

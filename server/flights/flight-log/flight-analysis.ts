@@ -100,14 +100,16 @@ function findLiftoff(t: Float64Array, alt: Float64Array, speed: Float64Array, ap
   const threshold = Math.max(1, Math.min(5, alt[apogeeIndex] * 0.1));
   let k = apogeeIndex;
   while (k > 0 && alt[k - 1] >= threshold) k--;
+  // Under a steady push h = a (t - t0)^2 / 2 and v = a (t - t0), so t0 = t - 2 h / v.
+  const fromClimb = speed[k] > 0 ? Math.max(t[0], t[k] - (2 * alt[k]) / speed[k]) : t[k];
   if (accel) {
-    // A boost reads well over the 1 g of the pad; walk back to where it began.
+    // A boost reads well over the 1 g of the pad; walk back to where it began. A reading that never drops to the
+    // pad's, or a start long before the climb, is a wrong column or unit, and the climb decides instead.
     let j = k;
     while (j > 0 && accel[j] > 1.5) j--;
-    if (j < k && accel[j + 1] > 1.5) return t[j + 1];
+    if (j < k && accel[j] <= 1.5 && t[j + 1] >= fromClimb - 1) return t[j + 1];
   }
-  // Under a steady push h = a (t - t0)^2 / 2 and v = a (t - t0), so t0 = t - 2 h / v.
-  return speed[k] > 0 ? Math.max(t[0], t[k] - (2 * alt[k]) / speed[k]) : t[k];
+  return fromClimb;
 }
 
 /** Index of the first sample from which the altitude stays within a half-metre band for two seconds. */
