@@ -236,19 +236,24 @@ describe('analyseFlightLog refusals', () => {
     expect(err.fields?.log).toBeDefined();
   });
 
-  it(`should refuse more than ${MAX_LOG_ROWS} rows with 400 naming log`, async () => {
+  it(`should refuse more than ${MAX_LOG_ROWS} rows with 400 naming log, and stop reading there`, async () => {
+    // Two million rows on offer: a reader that streams stops pulling soon after row 200,000; one that took the
+    // whole file first would pull them all.
+    let yielded = 0;
     function* tooMany() {
       yield 'time,pressure\n';
-      for (let i = 0; i <= MAX_LOG_ROWS; i++) yield `${i / 100},${PAD_PA}\n`;
+      for (; yielded < 2_000_000; yielded++) yield `${yielded / 100},${PAD_PA}\n`;
     }
     const err = await refusal(Readable.from(chunked(tooMany())));
     expect(err.status).toBe(400);
     expect(err.fields?.log).toMatch(/200,000/);
-  });
+    expect(yielded).toBeGreaterThan(MAX_LOG_ROWS);
+    expect(yielded).toBeLessThan(400_000);
+  }, 180_000);
 });
 
 describe('analyseFlightLog on a long log', () => {
-  it('should stream 200,000 rows without holding the file', async () => {
+  it('should read a 200,000-row log at 1,000 readings a second', async () => {
     // 200,000 rows at 1,000 readings a second: the flight above, then pad time to fill.
     function* longLog() {
       let rows = 0;
@@ -259,18 +264,14 @@ describe('analyseFlightLog on a long log', () => {
         yield `${(time * 1000).toFixed(0)},${pressureAbovePadPa(h, PAD_PA).toFixed(2)},20.0,0,0,${accelG.toFixed(3)}\n`;
       }
     }
-    const before = process.memoryUsage().heapUsed;
-    const started = Date.now();
+    // That the reader streams is shown by the refusal test above (it stops pulling); this one shows a full-size
+    // log is read whole and right. No wall-clock limit: the machine is shared; a generous timeout instead.
     const r = await analyseFlightLog(Readable.from(chunked(longLog())));
-    const grewMb = (process.memoryUsage().heapUsed - before) / 1e6;
     expect(r.summary.samples).toBe(MAX_LOG_ROWS);
     within(r.summary.apogeeMetres, apogeeM);
     within(r.summary.maxSpeedMps, vb);
-    // The CSV text is about 9 MB; the readings are 3 x 8 bytes x 200,000 = 4.8 MB in typed arrays.
-    expect(grewMb).toBeLessThan(60);
-    expect(Date.now() - started).toBeLessThan(30_000);
     expect(r.filter).toMatch(/10 ms bins/);
-  });
+  }, 180_000);
 });
 
 describe('analyseSamples on a dual-deployment descent', () => {

@@ -30,9 +30,12 @@ describe('FlightLogUpload', () => {
     const input = fixture.nativeElement.querySelector('input[type=file]') as HTMLInputElement;
     Object.defineProperty(input, 'files', { value: [new File([text], name, { type: 'text/csv' })], configurable: true });
     input.dispatchEvent(new Event('change'));
-    // The preview reads the file asynchronously.
-    await new Promise((r) => setTimeout(r, 20));
-    await fixture.whenStable();
+    // The preview reads the file asynchronously (FileReader); wait until the form shows what it read.
+    const el = fixture.nativeElement as HTMLElement;
+    for (let i = 0; i < 200 && !el.querySelector('.preview, .form-problem'); i++) {
+      await new Promise((r) => setTimeout(r, 10));
+      await fixture.whenStable();
+    }
   };
   const submit = async (fixture: Awaited<ReturnType<typeof setUp>>) => {
     (fixture.nativeElement.querySelector('form') as HTMLFormElement).dispatchEvent(new Event('submit'));
