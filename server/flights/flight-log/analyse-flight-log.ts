@@ -188,8 +188,8 @@ export async function analyseFlightLog(input: Readable, mapping?: ColumnMapping)
     const stop = (err: unknown) => {
       if (failed) return;
       failed = true;
+      // Stop reading: the rest of the file is never pulled (an HTTP server discards an unread body on answering).
       input.unpipe(parser);
-      input.resume();
       parser.destroy();
       reject(err);
     };

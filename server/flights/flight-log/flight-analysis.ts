@@ -100,14 +100,16 @@ function findLiftoff(t: Float64Array, alt: Float64Array, speed: Float64Array, ap
   const threshold = Math.max(1, Math.min(5, alt[apogeeIndex] * 0.1));
   let k = apogeeIndex;
   while (k > 0 && alt[k - 1] >= threshold) k--;
+  // Under a steady push h = a (t - t0)^2 / 2 and v = a (t - t0), so t0 = t - 2 h / v.
+  const fromClimb = speed[k] > 0 ? Math.max(t[0], t[k] - (2 * alt[k]) / speed[k]) : t[k];
   if (accel) {
-    // A boost reads well over the 1 g of the pad; walk back to where it began.
+    // A boost reads well over the 1 g of the pad; walk back to where it began. A reading that never drops to the
+    // pad's, or a start long before the climb, is a wrong column or unit, and the climb decides instead.
     let j = k;
     while (j > 0 && accel[j] > 1.5) j--;
-    if (j < k && accel[j + 1] > 1.5) return t[j + 1];
+    if (j < k && accel[j] <= 1.5 && t[j + 1] >= fromClimb - 1) return t[j + 1];
   }
-  // Under a steady push h = a (t - t0)^2 / 2 and v = a (t - t0), so t0 = t - 2 h / v.
-  return speed[k] > 0 ? Math.max(t[0], t[k] - (2 * alt[k]) / speed[k]) : t[k];
+  return fromClimb;
 }
 
 /** Index of the first sample from which the altitude stays within a half-metre band for two seconds. */
@@ -127,21 +129,25 @@ function findLanding(t: Float64Array, alt: Float64Array, from: number): number |
   return null;
 }
 
-/** Descent rate under the main device (the last stretch of the descent) and where the descent settled to it. */
+/**
+ * Descent rate under the main device and where the descent settled to it: the rate of the last seconds before
+ * landing, then back from there for as long as the speed stays near it (so a main opened low after a fast drogue
+ * descent is read on its own), then the median over that stretch.
+ */
 function findDescent(t: Float64Array, speed: Float64Array, apogee: number, end: number): { rate: number; deployment: number } | null {
   const span = t[end] - t[apogee];
   if (span < 1) return null;
-  const from = firstIndexAtOrAfter(t, t[end] - 0.4 * span);
   const to = firstIndexAtOrAfter(t, t[end] - Math.min(0.5, 0.1 * span));
+  const from = Math.max(apogee, firstIndexAtOrAfter(t, t[to] - Math.min(3, 0.5 * span)));
   if (to - from < 3) return null;
-  const rate = -median(speed.subarray(from, to));
-  if (!(rate > 0)) return null;
-  const tolerance = Math.max(0.5, 0.15 * rate);
+  const last = -median(speed.subarray(from, to));
+  if (!(last > 0)) return null;
+  const tolerance = Math.max(0.5, 0.15 * last);
   // Walk back on the speed averaged over half a second, so one noisy reading does not end the steady stretch.
-  const steady = movingAverage(t.subarray(apogee, from + 1), speed.subarray(apogee, from + 1), 0.5);
+  const steady = movingAverage(t.subarray(apogee, to + 1), speed.subarray(apogee, to + 1), 0.5);
   let k = from;
-  while (k > apogee && Math.abs(-steady[k - 1 - apogee] - rate) <= tolerance) k--;
-  return { rate, deployment: k };
+  while (k > apogee && Math.abs(-steady[k - 1 - apogee] - last) <= tolerance) k--;
+  return { rate: -median(speed.subarray(k, to)), deployment: k };
 }
 
 /** Evenly spaced indices from lo to hi (inclusive), at most `max`, always including `keep`. */
