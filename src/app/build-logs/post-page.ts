@@ -1,5 +1,20 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import {
+  ApplicationRef,
+  ChangeDetectionStrategy,
+  Component,
+  type ComponentRef,
+  DestroyRef,
+  ElementRef,
+  EnvironmentInjector,
+  afterRenderEffect,
+  computed,
+  createComponent,
+  inject,
+  input,
+  type Type,
+  viewChild,
+} from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { DomSanitizer, type SafeHtml } from '@angular/platform-browser';
 import { RouterLink } from '@angular/router';
@@ -8,8 +23,13 @@ import { SessionStore } from '../core/session-store';
 import { BuildLogApi } from './build-log-api';
 import { HazardNotice } from './hazard-notice';
 import { SiteNames } from '../core/site-names';
+import type { FlightEmbed } from '../flights/flight-embed';
 
-/** One build log; members-only bodies arrive as null for others, who see the summary and a prompt to join. */
+/**
+ * One build log; members-only bodies arrive as null for others, who see the summary and a prompt to join.
+ * Flight markers in the body arrive as `<div class="ps-flight" data-flight="id">` placeholders, each replaced here by
+ * that flight's chart and summary.
+ */
 @Component({
   selector: 'ps-post-page',
   imports: [DatePipe, RouterLink, MatButtonModule, HazardNotice],
@@ -34,4 +54,42 @@ export class PostPage {
     const html = this.post.value()?.html;
     return html ? this.dom.bypassSecurityTrustHtml(html) : null;
   });
+
+  private readonly bodyElement = viewChild<ElementRef<HTMLElement>>('bodyElement');
+  private readonly appRef = inject(ApplicationRef);
+  private readonly environmentInjector = inject(EnvironmentInjector);
+  /** The embeds made so far, by their placeholder element. */
+  private readonly flightEmbeds = new Map<HTMLElement, ComponentRef<FlightEmbed>>();
+
+  constructor() {
+    // After each render of a new body: its placeholders are fresh elements, so the old embeds go and new ones come.
+    afterRenderEffect(() => {
+      this.body();
+      void this.mountFlights(this.bodyElement()?.nativeElement);
+    });
+    inject(DestroyRef).onDestroy(() => void this.mountFlights(undefined));
+  }
+
+  /** The embed's code (and Chart.js) loads only for a post that has a flight in it. */
+  private embedType: Promise<Type<FlightEmbed>> | null = null;
+
+  private async mountFlights(container: HTMLElement | undefined): Promise<void> {
+    const placeholders = container ? Array.from(container.querySelectorAll<HTMLElement>('.ps-flight[data-flight]')) : [];
+    for (const [element, ref] of this.flightEmbeds) {
+      if (placeholders.includes(element)) continue;
+      ref.destroy();
+      this.flightEmbeds.delete(element);
+    }
+    const fresh = placeholders.filter((p) => !this.flightEmbeds.has(p) && /^[1-9][0-9]*$/.test(p.dataset['flight'] ?? ''));
+    if (fresh.length === 0) return;
+    const embed = await (this.embedType ??= import('../flights/flight-embed').then((m) => m.FlightEmbed));
+    for (const placeholder of fresh) {
+      // The body may have changed while the code loaded.
+      if (!placeholder.isConnected || this.flightEmbeds.has(placeholder)) continue;
+      const ref = createComponent(embed, { environmentInjector: this.environmentInjector, hostElement: placeholder });
+      ref.setInput('flightId', Number(placeholder.dataset['flight']));
+      this.appRef.attachView(ref.hostView);
+      this.flightEmbeds.set(placeholder, ref);
+    }
+  }
 }
