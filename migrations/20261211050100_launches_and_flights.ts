@@ -87,7 +87,7 @@ export async function up(knex: Knex): Promise<void> {
     t.jsonb('series').notNullable();
     t.jsonb('events').notNullable();
     t.jsonb('mapping').notNullable();
-    t.string('filter', 200).notNullable();
+    t.text('filter').notNullable();
     t.string('file_name', 200);
     t.bigInteger('uploaded_by').references('users.id').onDelete('SET NULL');
     t.timestamp('uploaded_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());

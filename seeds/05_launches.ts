@@ -1,5 +1,7 @@
 import type { Knex } from 'knex';
 import { hashPassword } from '../server/auth/password-hash';
+import { Readable } from 'node:stream';
+import { analyseFlightLog } from '../server/flights/flight-log/analyse-flight-log';
 import { flightWarnings } from '../server/flights/flight-warnings';
 import { parseMotorDesignation } from '../server/flights/motor-designation';
 import { allowedClassesFor } from '../server/launches/certification';
@@ -24,10 +26,37 @@ const LAUNCHES = [
 
 /** Cards flown at the done launch: flyer e-mail, rocket, mass, motors, expected altitude, recovery, pad, outcome. */
 const FLOWN = [
-  { email: 'member@padside.test', rocket: 'Filament Falcon', mass: 96, motors: ['C6-5'], expected: 180, recovery: 'parachute', pad: '2', outcome: 'recovered', notes: 'Straight boost, chute out just past apogee.' },
-  { email: 'member@padside.test', rocket: 'PLA Prairie Dog', mass: 410, motors: ['F32-6T'], expected: 420, recovery: 'parachute', pad: '3', outcome: 'damaged', notes: 'One fin cracked on landing in the stubble.' },
-  { email: 'hollis.quarrie@padside.test', rocket: 'Coulee Crow', mass: 1650, motors: ['H128W-M'], expected: 650, recovery: 'dual_deploy', pad: '5', outcome: 'recovered', notes: 'Drogue at apogee, main at 150 m.' },
+  { email: 'member@padside.test', rocket: 'Filament Falcon', mass: 96, motors: ['C6-5'], expected: 180, recovery: 'parachute', pad: '2', outcome: 'recovered', notes: 'Straight boost, chute out just past apogee.', log: { boostMps2: 60, burnS: 0.8, descentMps: 4.5 } },
+  { email: 'member@padside.test', rocket: 'PLA Prairie Dog', mass: 410, motors: ['F32-6T'], expected: 420, recovery: 'parachute', pad: '3', outcome: 'damaged', notes: 'One fin cracked on landing in the stubble.', log: null },
+  { email: 'hollis.quarrie@padside.test', rocket: 'Coulee Crow', mass: 1650, motors: ['H128W-M'], expected: 650, recovery: 'dual_deploy', pad: '5', outcome: 'recovered', notes: 'Drogue at apogee, main at 150 m.', log: { boostMps2: 65, burnS: 1.6, descentMps: 6 } },
 ] as const;
+
+/**
+ * A made-up altimeter log (time s, pressure Pa, temperature C, acceleration g) of a flight that boosts at
+ * `boostMps2` for `burnS`, coasts under standard gravity to apogee and comes down at `descentMps`, sampled at 20 Hz,
+ * from a field `fieldMetres` above sea level. Pressure by the US Standard Atmosphere 1976 troposphere formula.
+ */
+export function syntheticAltimeterLog(o: { boostMps2: number; burnS: number; descentMps: number; fieldMetres?: number; padS?: number }): string {
+  const g = 9.80665;
+  const field = o.fieldMetres ?? 250;
+  const pad = o.padS ?? 2;
+  const vBurnout = o.boostMps2 * o.burnS;
+  const hBurnout = 0.5 * o.boostMps2 * o.burnS ** 2;
+  const tApogee = o.burnS + vBurnout / g;
+  const apogee = hBurnout + vBurnout ** 2 / (2 * g);
+  const tLanding = tApogee + apogee / o.descentMps;
+  const height = (t: number) => (t <= 0 ? 0 : t <= o.burnS ? 0.5 * o.boostMps2 * t ** 2 : t <= tApogee ? hBurnout + vBurnout * (t - o.burnS) - 0.5 * g * (t - o.burnS) ** 2 : Math.max(0, apogee - o.descentMps * (t - tApogee)));
+  const accel = (t: number) => (t <= 0 || t > tLanding ? 1 : t <= o.burnS ? 1 + o.boostMps2 / g : t <= tApogee ? 0 : 1);
+  const rows = ['time_s,pressure_pa,temperature_c,accel_g'];
+  for (let i = 0; ; i++) {
+    const t = i / 20 - pad;
+    if (t > tLanding + 3) break;
+    const h = field + height(t);
+    const p = 101325 * (1 - 2.25577e-5 * h) ** 5.25588;
+    rows.push(`${(t + pad).toFixed(2)},${p.toFixed(1)},${(15 - 0.0065 * h).toFixed(2)},${accel(t).toFixed(3)}`);
+  }
+  return rows.join('\n') + '\n';
+}
 
 /** Launch days, the range officer, and a few flown cards. Development only; loads once (prepare-db). */
 export async function seed(knex: Knex): Promise<void> {
@@ -80,7 +109,7 @@ export async function seed(knex: Knex): Promise<void> {
     await knex('launch_attendance').insert({ launch_id: done, user_id: flyer.id, member_number: flyer.member_number, checked_in_by: rso.id }).onConflict(['launch_id', 'user_id']).ignore();
     const motors = f.motors.map((m) => parseMotorDesignation(m)!);
     const checked = flightWarnings({ liftoffMassGrams: f.mass, motors, expectedAltitudeMetres: f.expected, ceilingMetres: 900, allowedClasses: allowedClassesFor(flyer.certification_level, settings) });
-    await knex('flights').insert({
+    const [flight] = await knex('flights').insert({
       launch_id: done,
       user_id: flyer.id,
       rocket_name: f.rocket,
@@ -100,6 +129,10 @@ export async function seed(knex: Knex): Promise<void> {
       outcome: f.outcome,
       outcome_notes: f.notes,
       flown_at: knex.fn.now(),
-    });
+    }).returning('id');
+    if (!f.log) continue;
+    // The demo chart comes from a made-up log run through the same analysis as an upload.
+    const a = await analyseFlightLog(Readable.from(Buffer.from(syntheticAltimeterLog(f.log))));
+    await knex('flight_data').insert({ flight_id: flight.id, summary: JSON.stringify(a.summary), series: JSON.stringify(a.series), events: JSON.stringify(a.events), mapping: JSON.stringify(a.mapping), filter: a.filter, file_name: `${f.rocket.toLowerCase().replace(/\W+/g, '-')}.csv`, uploaded_by: flyer.id });
   }
 }

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { FlightSummary } from '../flights/flight-log/analyse-flight-log';
 
 type Db = Knex | Knex.Transaction;
 
@@ -46,7 +47,7 @@ export interface FlightRow {
 /** The stored analysis of a flight's altimeter log. */
 export interface FlightDataRow {
   flight_id: string;
-  summary: Record<string, number>;
+  summary: FlightSummary;
   series: unknown[];
   events: unknown[];
   mapping: unknown;

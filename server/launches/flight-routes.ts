@@ -3,6 +3,7 @@ import multer from 'multer';
 import { AppError, badRequest } from '../platform/app-error';
 import { requireSignedIn } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
+import { columnMappingSchema, type ColumnMapping } from '../flights/flight-log/column-mapping';
 import type { FlightService } from './flight-service';
 import { RANGE_STAFF } from './launch-routes';
 import { DecisionSchema, OutcomeSchema } from './launch-schemas';
@@ -20,16 +21,19 @@ const logFile: RequestHandler = (req, res, next) => {
   });
 };
 
-/** The optional `columns` field: a JSON object naming which column is which. */
-function columnsField(value: unknown) {
+/** The optional `columns` field: JSON naming which column is which, in which unit. */
+function columnsField(value: unknown): ColumnMapping | undefined {
   if (value === undefined || value === '') return undefined;
+  let json: unknown;
   try {
-    const parsed = JSON.parse(String(value));
-    if (parsed && typeof parsed === 'object' && !Array.isArray(parsed)) return parsed;
+    json = JSON.parse(String(value));
   } catch {
-    // answered below
+    throw new AppError(400, 'unmappable_log', 'The column mapping must be JSON.', { columns: 'Not JSON.' });
   }
-  throw new AppError(400, 'unmappable_log', 'The column mapping must be a JSON object.', { columns: 'Not a JSON object.' });
+  const result = columnMappingSchema.safeParse(json);
+  if (result.success) return result.data;
+  const issue = result.error.issues[0];
+  throw new AppError(400, 'unmappable_log', issue.message, { [['columns', ...issue.path].join('.')]: issue.message });
 }
 
 /** /api/flights: a flight's page (public, so build logs can embed it) and its altimeter log. */

@@ -10,15 +10,6 @@ export function offsetMinutes(timeZone: string, at: Date): number {
   return Math.round((asUtc - Math.floor(at.getTime() / 1000) * 1000) / 60000);
 }
 
-/** The instant a wall-clock time (`YYYY-MM-DD`, `HH:MM`) in a time zone stands for. */
-export function zonedInstant(date: string, time: string, timeZone: string): Date {
-  const guess = new Date(`${date}T${time}:00Z`);
-  // Two passes settle the offset on both sides of a change.
-  let instant = new Date(guess.getTime() - offsetMinutes(timeZone, guess) * 60000);
-  instant = new Date(guess.getTime() - offsetMinutes(timeZone, instant) * 60000);
-  return instant;
-}
-
 const pad = (n: number, w = 2) => String(Math.abs(n)).padStart(w, '0');
 const utcOffset = (min: number) => `${min < 0 ? '-' : '+'}${pad(Math.floor(Math.abs(min) / 60))}${pad(Math.abs(min) % 60)}`;
 const localStamp = (instantMs: number, offsetMin: number) => {

@@ -1,5 +1,6 @@
 import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
 import { Client, signedIn } from '../helpers/users';
+import { syntheticAltimeterLog } from '../../seeds/05_launches';
 import { createLaunch, memberWithCard } from './launch-fixtures';
 
 const clock = fixedClock('2031-05-10T15:00:00Z');
@@ -150,17 +151,27 @@ async function flown() {
   return { m, flight };
 }
 
-const LOG = ['time_s,pressure_pa,temp_c', '0,98000,20', '0.5,97990,20', '1,97800,20', '2,97500,20', '3,97600,20', '4,97900,20', '5,98000,20'].join('\n');
+// Boost at 50 m/s^2 for 1.5 s, coast under standard gravity, descend at 5 m/s: apogee 56.25 + 75^2 / (2 x 9.80665)
+// = 343.05 m at 1.5 + 75 / 9.80665 = 9.15 s, fastest climb 75 m/s (constant-acceleration kinematics, analytic).
+const LOG = syntheticAltimeterLog({ boostMps2: 50, burnS: 1.5, descentMps: 5 });
 
 describe('POST /api/flights/:id/data', () => {
   it('analyses the log, answers 201 with the summary and shows it on the flight page', async () => {
     const { m, flight } = await flown();
     const res = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', await m.client.token()).attach('log', Buffer.from(LOG), 'flight.csv');
     expect(res.status).toBe(201);
-    expect(res.body.summary).toEqual(expect.objectContaining({ apogeeMetres: expect.any(Number), apogeeAtSeconds: expect.any(Number), maxSpeedMps: expect.any(Number), samples: expect.any(Number) }));
+    const s = res.body.summary;
+    expect(Math.abs(s.apogeeMetres - 343.05) / 343.05).toBeLessThan(0.01);
+    expect(Math.abs(s.apogeeAtSeconds - 9.15) / 9.15).toBeLessThan(0.01);
+    expect(Math.abs(s.maxSpeedMps - 75) / 75).toBeLessThan(0.01);
+    expect(Math.abs(s.descentRateMps - 5) / 5).toBeLessThan(0.01);
+    expect(s.samples).toBe(LOG.trim().split('\n').length - 1);
     const page = await new Client(t.app).get(`/api/flights/${flight.id}`);
     expect(page.body.data.summary).toEqual(res.body.summary);
-    expect(Array.isArray(page.body.data.series)).toBe(true);
+    expect(page.body.data.series.length).toBeGreaterThan(10);
+    expect(page.body.data.series.length).toBeLessThanOrEqual(1000);
+    expect(page.body.data.events.map((e: { kind: string }) => e.kind)).toEqual(expect.arrayContaining(['liftoff', 'apogee', 'landing']));
+    expect(page.body.data.mapping.pressure).toEqual({ column: 'pressure_pa', unit: 'Pa' });
     expect(page.body.caution).toMatch(/safety code/);
   });
 
@@ -177,6 +188,13 @@ describe('POST /api/flights/:id/data', () => {
     const badColumns = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', csrf).field('columns', 'not json').attach('log', Buffer.from(LOG), 'f.csv');
     expect(badColumns.status).toBe(400);
     expect(badColumns.body.error.fields.columns).toBeDefined();
+    const wrongUnit = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', csrf).field('columns', JSON.stringify({ time: { column: 'time_s', unit: 'min' }, pressure: { column: 'pressure_pa', unit: 'Pa' } })).attach('log', Buffer.from(LOG), 'f.csv');
+    expect(wrongUnit.status).toBe(400);
+    expect(wrongUnit.body.error.fields['columns.time.unit']).toBeDefined();
+    // A mapping that names the columns works where the header names alone would not.
+    const renamed = LOG.replace('time_s,pressure_pa', 'col1,col2');
+    const mapped = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', csrf).field('columns', JSON.stringify({ time: { column: 'col1', unit: 's' }, pressure: { column: 'col2', unit: 'Pa' } })).attach('log', Buffer.from(renamed), 'f.csv');
+    expect(mapped.status).toBe(201);
   });
 
   it('answers 400 for more than 200,000 rows', async () => {
@@ -184,7 +202,7 @@ describe('POST /api/flights/:id/data', () => {
     const rows = ['time_s,pressure_pa,temp_c', ...Array.from({ length: 200_001 }, (_v, i) => `${i / 100},98000,20`)].join('\n');
     const res = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', await m.client.token()).attach('log', Buffer.from(rows), 'long.csv');
     expect(res.status).toBe(400);
-    expect(res.body.error.code).toBe('too_many_rows');
+    expect(res.body.error.fields.log).toMatch(/200,000/);
   });
 
   it("is refused to another member and for a card not yet flown", async () => {

@@ -24,6 +24,11 @@ describe('the launches demo seed', () => {
     const flights = await t.deps.db('flights').where('launch_id', done.id);
     expect(flights).toHaveLength(3);
     expect(flights.every((f) => f.status === 'flown' && f.outcome)).toBe(true);
+    const data = await t.deps.db('flight_data').whereIn('flight_id', flights.map((f) => f.id));
+    expect(data).toHaveLength(2);
+    // The Coulee Crow's made-up log: 65 m/s^2 for 1.6 s, then coast: 83.2 + 104^2 / (2 x 9.80665) = 634.7 m (analytic).
+    const crow = flights.find((f) => f.rocket_name === 'Coulee Crow')!;
+    expect(data.find((d) => d.flight_id === crow.id)!.summary.apogeeMetres).toBeCloseTo(634.7, -1);
     // The demo member's cards show in their logbook and the range officer signs in with the demo password.
     const client = new Client(t.app);
     await client.signIn({ email: DEMO_RANGE_OFFICER.email, password: 'padside-demo-2026' });

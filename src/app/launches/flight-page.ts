@@ -3,13 +3,15 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { rxResource } from '@angular/core/rxjs-interop';
 import { RouterLink } from '@angular/router';
 import { SessionStore } from '../core/session-store';
+import { FlightChart } from '../flights/flight-chart';
+import { FlightLogUpload } from '../flights/flight-log-upload';
 import { FlightCaution } from './flight-caution';
 import { LaunchesApi } from './launches-api';
 
 /** A flight's page: the card as filed, the range officer's decision and outcome, and the altimeter data. */
 @Component({
   selector: 'ps-flight-page',
-  imports: [RouterLink, DecimalPipe, FlightCaution],
+  imports: [RouterLink, DecimalPipe, FlightCaution, FlightChart, FlightLogUpload],
   templateUrl: './flight-page.html',
   styleUrl: './launches.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

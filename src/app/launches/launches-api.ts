@@ -75,12 +75,14 @@ export interface Flight {
 
 export interface FlightSummary {
   apogeeMetres: number;
-  apogeeFeet?: number;
+  apogeeFeet: number;
   apogeeAtSeconds: number;
   maxSpeedMps: number;
-  descentRateMps: number;
+  /** Null when the log ends before the main recovery device is out. */
+  descentRateMps: number | null;
   peakAccelG: number | null;
-  flightTimeSeconds: number;
+  /** Null when the log ends before landing. */
+  flightTimeSeconds: number | null;
   samples: number;
 }
 
