@@ -1,4 +1,9 @@
+import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { season3Shirt } from '../../seeds/shop-art/product-art';
+import { storeProductArt } from '../../seeds/shop-art/store-art';
+import { DiskStorage } from '../../server/uploads/disk-storage';
+import { ImageUploads } from '../../server/uploads/image-uploads';
 import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
 import { firstLink, waitForEmails } from '../helpers/maildev';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
@@ -222,5 +227,64 @@ describe('sizes and options on a phone', () => {
     expect(await page.getByRole('button', { name: 'Add to cart' }).isEnabled()).toBe(true);
     await screenshot(page, 'buying-sole-option-phone');
     await ctx.close();
+  });
+});
+
+describe('product photos', () => {
+  it('shows our drawn photos in responsive WebP sizes with alt text, in a gallery that swipes, steps and answers the keyboard', async () => {
+    const shirt = await openShirt(staff, { cap: 20 });
+    const uploads = new ImageUploads(t.deps.db, new DiskStorage(path.join(t.config.dataDir, 'uploads')));
+    const images = await storeProductArt(t.deps.db, uploads, shirt.id, season3Shirt());
+    expect(images).toHaveLength(2);
+
+    const ctx = await phone();
+    const page = await ctx.newPage();
+    await page.goto(`${site.baseUrl}/shop/p/${shirt.slug}`);
+    const gallery = page.getByRole('group', { name: /^Photos of / });
+    const main = gallery.locator('img').first();
+    await main.waitFor();
+    await page.waitForFunction(() => Array.from(document.images).every((i) => i.complete));
+    const shown = await main.evaluate((img: HTMLImageElement) => ({ alt: img.alt, srcset: img.srcset, w: img.getAttribute('width'), h: img.getAttribute('height'), natural: img.naturalWidth, src: img.currentSrc }));
+    expect(shown.alt).toMatch(/^Navy tee with the round Season 3 patch/);
+    expect(shown.srcset).toMatch(/\/uploads\/[a-z0-9-]+-thumb\.webp 480w, \/uploads\/[a-z0-9-]+\.webp 1200w/);
+    expect([shown.w, shown.h]).toEqual(['1200', '1200']);
+    expect(shown.natural).toBeGreaterThan(0);
+    const served = await page.request.get(shown.src);
+    expect(served.headers()['content-type']).toBe('image/webp');
+    await screenshot(page, 'buying-product-gallery-phone');
+
+    // A swipe to the left shows the next photo.
+    const box = (await gallery.boundingBox())!;
+    const y = box.y + box.height / 2;
+    await gallery.dispatchEvent('pointerdown', { clientX: box.x + box.width * 0.8, clientY: y, pointerType: 'touch', isPrimary: true });
+    await gallery.dispatchEvent('pointerup', { clientX: box.x + box.width * 0.2, clientY: y, pointerType: 'touch', isPrimary: true });
+    await gallery.getByText('Photo 2 of 2').waitFor();
+    expect(await main.getAttribute('alt')).toMatch(/^The Season 3 patch up close/);
+    await screenshot(page, 'buying-product-gallery-swiped-phone');
+
+    // The grid and the home page show the photo too.
+    await page.goto(`${site.baseUrl}/shop`);
+    const tile = page.getByRole('link', { name: new RegExp(shirt.slug.replace(/-/g, ' '), 'i') });
+    expect(await tile.locator('img').getAttribute('srcset')).toMatch(/480w/);
+    await screenshot(page, 'buying-grid-photos-phone');
+    await page.goto(`${site.baseUrl}/`);
+    await page.getByRole('img', { name: /^Navy tee with the round Season 3 patch/ }).waitFor();
+    await screenshot(page, 'buying-home-photo-phone');
+    await ctx.close();
+
+    const desk = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const dpage = await desk.newPage();
+    await dpage.goto(`${site.baseUrl}/shop/p/${shirt.slug}`);
+    const dgallery = dpage.getByRole('group', { name: /^Photos of / });
+    await dgallery.getByRole('button', { name: 'Next photo' }).click();
+    await dgallery.getByText('Photo 2 of 2').waitFor();
+    await dpage.getByRole('list', { name: 'Choose a photo' }).getByRole('button', { name: /^Photo 1: Navy tee/ }).click();
+    await dgallery.getByText('Photo 1 of 2').waitFor();
+    await dgallery.focus();
+    await dpage.keyboard.press('ArrowRight');
+    await dgallery.getByText('Photo 2 of 2').waitFor();
+    expect(await dpage.getByRole('button', { name: /^Photo 2: / }).getAttribute('aria-current')).toBe('true');
+    await screenshot(dpage, 'buying-product-gallery-desktop');
+    await desk.close();
   });
 });

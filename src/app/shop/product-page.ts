@@ -8,6 +8,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MoneyPipe } from '../shared/money-pipe';
 import { CartPanel } from './cart-panel';
+import { ProductGallery } from './product-gallery';
 import { CartStore } from './cart-store';
 import { RUN_STATE_LABELS, timeLeft } from './countdown';
 import { ShopApi } from './shop-api';
@@ -16,7 +17,7 @@ import type { Variant } from './shop-types';
 /** One product: pick a size, see units left and the time to close, add to the cart. */
 @Component({
   selector: 'ps-product-page',
-  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatExpansionModule, MatFormFieldModule, MatInputModule, MoneyPipe, CartPanel],
+  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatExpansionModule, MatFormFieldModule, MatInputModule, MoneyPipe, CartPanel, ProductGallery],
   templateUrl: './product-page.html',
   styleUrl: './product-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -8,6 +8,14 @@ export interface RunSummary {
   opensAt: string;
   closesAt: string;
 }
+/** A product photo: the full image, its 480 px copy, the words for a screen reader and the full size. */
+export interface ProductImage {
+  url: string;
+  thumbnailUrl: string;
+  alt: string;
+  width?: number;
+  height?: number;
+}
 export interface Variant {
   id: number;
   sku: string;
@@ -24,7 +32,7 @@ export interface Product {
   currency: 'CAD';
   /** Units of this product one order may hold. */
   maxPerOrder: number;
-  images: { url: string; thumbnailUrl: string; alt: string }[];
+  images: ProductImage[];
   sizeChart: { columns: string[]; rows: string[][] } | null;
   orderable: boolean;
   run: RunSummary | null;
