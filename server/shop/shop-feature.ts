@@ -3,6 +3,7 @@ import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';
 import { CheckoutService } from './checkout-service';
 import { FulfilmentService } from './fulfilment-service';
+import { OrderGuide } from './order-guide';
 import { OrderLinks } from './order-links';
 import { OrderRepository } from './order-repository';
 import { paymentRoutes } from './payment-routes';
@@ -22,10 +23,11 @@ export function shopFeature(platform: Platform): Feature {
   const quotes = new QuoteService(catalogueRepo, config, settings, deps.config);
   const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock);
   const links = new OrderLinks(deps.config.sessionSecret, deps.config.publicUrl);
-  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, links, deps.config.site.teamName, deps.log);
+  const guide = new OrderGuide(orders, deps.clock, deps.config.site.clubName, deps.config.clubTimeZone);
+  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, links, deps.config.site.teamName, deps.log, guide);
   const fulfilment = new FulfilmentService(deps.db, orders, deps.payments, deps.clock, links);
   const webhooks = new WebhookService(deps.db, orders, fulfilment, settings, deps.clock);
-  const pub = { catalogue, quotes, checkout, orders, config, links, now: () => deps.clock.now() };
+  const pub = { catalogue, quotes, checkout, orders, config, links, guide, now: () => deps.clock.now() };
   const admin = { catalogue, fulfilment, orders, config, settings, timeZone: deps.config.clubTimeZone };
   return {
     name: 'shop',

@@ -91,7 +91,7 @@ export class ProductPage {
     const v = this.chosen();
     if (!p || !v || !this.canAdd()) return;
     const before = this.cart.lines().find((l) => l.variantId === v.id)?.quantity ?? 0;
-    const now = this.cart.add({ variantId: v.id, quantity: this.quantity(), productName: p.name, variantLabel: v.label, slug: p.slug, priceCents: v.priceCents, maxPerOrder: p.maxPerOrder });
+    const now = this.cart.add({ variantId: v.id, quantity: this.quantity(), productName: p.name, variantLabel: v.label, slug: p.slug, priceCents: v.priceCents, weightGrams: v.weightGrams, maxPerOrder: p.maxPerOrder });
     const took = now - before;
     this.added.set(took < this.quantity() ? `Added ${took}: the cart now holds ${now}, the most one order may have.` : `Added ${took} to the cart.`);
     this.cart.panelOpen.set(true);

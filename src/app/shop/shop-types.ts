@@ -45,6 +45,7 @@ export interface ShippingMethod {
   id: number;
   code: 'pickup' | 'canada' | 'usa' | 'international';
   name: string;
+  brackets: { maxGrams: number | null; priceCents: number }[];
 }
 export interface TaxLine {
   code: string;
@@ -99,6 +100,8 @@ export interface Order {
   totalCents: number;
   refundedCents: number;
   paymentMessage: string | null;
+  /** What happens next, in plain words (the buyer's own order view only). */
+  nextSteps?: string[];
 }
 export interface OrderSummary {
   id: number;
