@@ -20,8 +20,12 @@ export interface SizeChart {
 }
 export interface ProductImage {
   url: string;
+  /** A 480 px wide WebP copy. */
   thumbnailUrl: string;
   alt: string;
+  /** The full image's size in pixels, so pages reserve its space before it loads. */
+  width?: number;
+  height?: number;
 }
 export interface VariantRow {
   id: number;

@@ -24,7 +24,7 @@ export const ProductBody = z.object({
   weightGrams: z.number({ error: 'Enter a weight in grams.' }).int('Whole grams.').min(1, 'At least 1 g.').max(20000, 'At most 20 kg.'),
   sizeChart: z.object({ columns: z.array(z.string().max(40)).min(1).max(10), rows: z.array(z.array(z.string().max(40)).max(10)).max(20) }).nullable().default(null),
   maxPerOrder: z.number({ error: 'Enter a number of units.' }).int('Whole units only.').min(1, 'At least 1.').max(100, 'At most 100.').default(20),
-  images: z.array(z.object({ url: z.string().regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Use an uploaded image.'), thumbnailUrl: z.string().regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Use an uploaded image.'), alt: z.string().trim().max(200) })).max(8).default([]),
+  images: z.array(z.object({ url: z.string().regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Use an uploaded image.'), thumbnailUrl: z.string().regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Use an uploaded image.'), alt: z.string().trim().max(200), width: z.number().int().min(1).max(20000).optional(), height: z.number().int().min(1).max(20000).optional() })).max(8).default([]),
   variants: z
     .array(z.object({ label: z.string({ error: 'Label is required.' }).trim().min(1, 'Label is required.').max(60), sku: z.string().trim().regex(/^[A-Z0-9-]{2,60}$/i, 'Letters, digits and dashes.').optional(), weightGrams: z.number().int().min(1).max(20000).optional(), priceCents: fields.cents.optional(), stock: z.number().int().min(0).max(100000).optional() }))
     .min(1, 'Add at least one variant.')

@@ -8,6 +8,7 @@ import { AppError, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
 import type { SessionUser } from '../platform/roles';
 import type { SettingsService } from '../settings/settings-service';
+import type { OrderGuide } from './order-guide';
 import type { OrderLinks } from './order-links';
 import type { OrderBundle, OrderRepository } from './order-repository';
 import type { QuoteRequest, QuoteService } from './quote-service';
@@ -38,6 +39,7 @@ export class CheckoutService {
     private readonly teamName: string,
     private readonly log: Logger,
     private readonly receipts: ReceiptService,
+    private readonly guide: OrderGuide,
   ) {}
 
   /** Quotes, reserves the units in one transaction (409 sold_out when they no longer fit), then pays. */
@@ -111,7 +113,7 @@ export class CheckoutService {
         idempotencyKey: `shop-payment-${orderId}`,
         taxes: b.taxes.map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, ratePercent: t.rate_percent, taxableCents: t.taxable_cents, taxCents: t.amount_cents })),
       });
-      await enqueueEmail(trx, confirmationEmail(b, this.links.urlFor(b.order.id, b.order.email), this.teamName, this.receipts.build(b, seller)));
+      await enqueueEmail(trx, confirmationEmail(b, this.links.urlFor(b.order.id, b.order.email), this.teamName, this.receipts.build(b, seller), await this.guide.nextSteps(b, trx)));
     });
     return (await this.orders.find(orderId))!;
   }

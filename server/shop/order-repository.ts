@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { RunRow } from './catalogue-repository';
 import type { Quote, QuoteRequest } from './quote-service';
 
 export type OrderStatus = 'pending' | 'paid' | 'failed' | 'packed' | 'shipped';
@@ -205,6 +206,18 @@ export class OrderRepository {
   async forUser(userId: number): Promise<OrderRow[]> {
     const rows = await this.db('shop_orders').select('*', this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('user_id', userId).whereNot('status', 'failed').orderBy('created_at', 'desc').limit(200);
     return rows.map(fix);
+  }
+
+  /** The runs an order has units in, oldest closing first. */
+  async runsOf(orderId: number, trx: Db = this.db): Promise<RunRow[]> {
+    const rows = await trx('shop_runs as r').whereIn('r.id', trx('shop_order_items').where('order_id', orderId).whereNotNull('run_id').select('run_id')).select('r.*').orderBy('r.closes_at').orderBy('r.id');
+    return rows.map((r) => ({ ...r, id: Number(r.id), product_id: Number(r.product_id) }));
+  }
+
+  /** Where the buyer's latest mailed order went (not a pickup, not a failed attempt), to offer it again. */
+  async lastShipTo(userId: number): Promise<OrderRow | null> {
+    const row = await this.db('shop_orders').select('*', this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('user_id', userId).whereNot('status', 'failed').whereNot('shipping_code', 'pickup').whereNotNull('ship_line1').orderBy('created_at', 'desc').orderBy('id', 'desc').first();
+    return row ? fix(row) : null;
   }
 
   /** Pending orders whose last payment attempt is older than `before`. */

@@ -11,7 +11,7 @@ export interface ProductView {
   weightGrams: number;
   /** Units of this product one order may hold. */
   maxPerOrder: number;
-  images: { url: string; thumbnailUrl: string; alt: string }[];
+  images: { url: string; thumbnailUrl: string; alt: string; width?: number; height?: number }[];
   sizeChart: { columns: string[]; rows: string[][] } | null;
   orderable: boolean;
   run: { id: number; name: string; state: RunState; cap: number; remaining: number; opensAt: string; closesAt: string } | null;

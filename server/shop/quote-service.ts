@@ -6,6 +6,7 @@ import type { Role } from '../platform/roles';
 import { fields } from '../platform/validate';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueRepository, ProductBundle } from './catalogue-repository';
+import { normalisePostalCode } from './postal-code';
 import { percentOf, shippingFor } from './pricing';
 import { productView, variantRemaining } from './product-view';
 import type { ShippingMethodRow, ShopConfigRepository } from './shop-config-repository';
@@ -29,7 +30,7 @@ export const QuoteBody = z.object({
     province: text(40, 'Province or state').optional().default(''),
     postalCode: text(20, 'Postal code').optional().default(''),
     country: z.string({ error: 'Country is required.' }).trim().toUpperCase().regex(/^[A-Z]{2}$/, 'Use the two-letter country code.'),
-  }, { error: 'Shipping details are required.' }),
+  }, { error: 'Shipping details are required.' }).transform((to) => ({ ...to, postalCode: normalisePostalCode(to.country, to.postalCode) })),
   shippingMethodId: fields.id,
 });
 export type QuoteRequest = z.infer<typeof QuoteBody>;

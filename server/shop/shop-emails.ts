@@ -18,7 +18,7 @@ function receipt(b: OrderBundle): string[] {
 }
 
 /** The order confirmation, once per order; it is also the buyer's receipt. `orderUrl` is the signed link that opens the order without an account. */
-export function confirmationEmail(b: OrderBundle, orderUrl: string, teamName: string, r: Receipt): OutgoingEmail {
+export function confirmationEmail(b: OrderBundle, orderUrl: string, teamName: string, r: Receipt, nextSteps: string[]): OutgoingEmail {
   const o = b.order;
   const dest = o.shipping_code === 'pickup' ? 'Pick up at the next club launch; bring this e-mail.' : [o.ship_name, o.ship_line1, o.ship_line2, `${o.ship_city ?? ''} ${o.ship_province ?? ''} ${o.ship_postal_code ?? ''}`.trim(), o.ship_country].filter(Boolean).join('\n');
   return {
@@ -26,7 +26,7 @@ export function confirmationEmail(b: OrderBundle, orderUrl: string, teamName: st
     subject: `Padside order ${o.number}: thank you`,
     template: 'shop-order-confirmation',
     dedupeKey: `shop-confirmation-${o.id}`,
-    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', 'Receipt', ...receiptText(r, formatCad), '', ...receipt(b), '', 'Delivery:', dest, '', `See your order: ${orderUrl}`, '', `${teamName}, via Padside`].join('\n'),
+    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', 'Receipt', ...receiptText(r, formatCad), '', ...receipt(b), '', 'Delivery:', dest, '', ...(nextSteps.length ? ['What happens next:', ...nextSteps.map((s) => `- ${s}`), ''] : []), `See your order: ${orderUrl}`, '', `${teamName}, via Padside`].join('\n'),
   };
 }
 

@@ -4,6 +4,7 @@ import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';
 import { CheckoutService } from './checkout-service';
 import { FulfilmentService } from './fulfilment-service';
+import { OrderGuide } from './order-guide';
 import { OrderLinks } from './order-links';
 import { OrderRepository } from './order-repository';
 import { paymentRoutes } from './payment-routes';
@@ -29,13 +30,14 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
   const quotes = new QuoteService(catalogueRepo, config, settings, deps.config);
   const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock);
   const links = new OrderLinks(deps.config.sessionSecret, deps.config.publicUrl);
+  const guide = new OrderGuide(orders, deps.clock, deps.config.site.clubName, deps.config.clubTimeZone);
   const receipts = new ReceiptService(settings, deps.config.site.teamName, deps.config.clubTimeZone);
-  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, links, deps.config.site.teamName, deps.log, receipts);
+  const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, links, deps.config.site.teamName, deps.log, receipts, guide);
   const fulfilment = new FulfilmentService(deps.db, orders, deps.clock, links);
   const refundRepo = new RefundRepository(deps.db);
   const refunds = new RefundService(deps.db, orders, refundRepo, deps.payments, deps.clock, deps.log);
   const webhooks = new WebhookService(deps.db, orders, refunds, settings, deps.clock, otherCharges);
-  const pub = { catalogue, quotes, checkout, orders, config, receipts, links, throttle: new PaymentThrottle(deps.db), now: () => deps.clock.now() };
+  const pub = { catalogue, quotes, checkout, orders, config, receipts, links, guide, throttle: new PaymentThrottle(deps.db), now: () => deps.clock.now() };
   const admin = { catalogue, fulfilment, refunds, refundRepo, orders, config, settings, timeZone: deps.config.clubTimeZone };
   return {
     name: 'shop',

@@ -7,6 +7,7 @@ import { fields, parse } from '../platform/validate';
 import type { PaymentThrottle } from '../payments/payment-throttle';
 import type { CatalogueService } from './catalogue-service';
 import type { CheckoutService, PaymentOutcome } from './checkout-service';
+import type { OrderGuide } from './order-guide';
 import type { OrderLinks } from './order-links';
 import type { OrderBundle, OrderRepository } from './order-repository';
 import { orderJson } from './order-view';
@@ -34,6 +35,7 @@ export interface ShopDeps {
   receipts: ReceiptService;
   links: OrderLinks;
   throttle: PaymentThrottle;
+  guide: OrderGuide;
   now(): Date;
 }
 
@@ -116,7 +118,8 @@ export function orderRoutes(d: ShopDeps): Router {
   });
   r.get('/:id', async function showOrder(req, res) {
     const id = parse(fields.id, req.params.id);
-    res.json({ order: await buyerView(d, await mayView(req, id)) });
+    const b = await mayView(req, id);
+    res.json({ order: { ...(await buyerView(d, b)), nextSteps: await d.guide.nextSteps(b) } });
   });
   r.post('/:id/pay', async function payAgain(req, res) {
     const id = parse(fields.id, req.params.id);
@@ -128,12 +131,14 @@ export function orderRoutes(d: ShopDeps): Router {
   return r;
 }
 
-/** GET /api/account/orders: the signed-in buyer's orders. */
+/** GET /api/account/orders: the signed-in buyer's orders, and the address of the latest mailed one (`lastShipTo`). */
 export function accountOrderRoutes(d: ShopDeps): Router {
   const r = Router();
   r.get('/', requireSignedIn, async function myOrders(req, res) {
     const rows = await d.orders.forUser(req.user!.id);
-    res.json({ items: rows.map((o) => ({ id: o.id, number: o.number, status: o.status, createdAt: o.created_at, totalCents: o.total_cents, refundedCents: o.refunded_cents, shippingName: o.shipping_name, trackingNumber: o.tracking_number, carrier: o.carrier })) });
+    const last = await d.orders.lastShipTo(req.user!.id);
+    const lastShipTo = last && { name: last.ship_name, line1: last.ship_line1, line2: last.ship_line2 ?? '', city: last.ship_city, province: last.ship_province ?? '', postalCode: last.ship_postal_code ?? '', country: last.ship_country };
+    res.json({ lastShipTo, items: rows.map((o) => ({ id: o.id, number: o.number, status: o.status, createdAt: o.created_at, totalCents: o.total_cents, refundedCents: o.refunded_cents, shippingName: o.shipping_name, trackingNumber: o.tracking_number, carrier: o.carrier })) });
   });
   return r;
 }

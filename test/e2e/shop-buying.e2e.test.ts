@@ -1,4 +1,9 @@
+import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { season3Shirt } from '../../seeds/shop-art/product-art';
+import { storeProductArt } from '../../seeds/shop-art/store-art';
+import { DiskStorage } from '../../server/uploads/disk-storage';
+import { ImageUploads } from '../../server/uploads/image-uploads';
 import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
 import { firstLink, waitForEmails } from '../helpers/maildev';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
@@ -222,5 +227,163 @@ describe('sizes and options on a phone', () => {
     expect(await page.getByRole('button', { name: 'Add to cart' }).isEnabled()).toBe(true);
     await screenshot(page, 'buying-sole-option-phone');
     await ctx.close();
+  });
+});
+
+describe('product photos', () => {
+  it('shows our drawn photos in responsive WebP sizes with alt text, in a gallery that swipes, steps and answers the keyboard', async () => {
+    const shirt = await openShirt(staff, { cap: 20 });
+    const uploads = new ImageUploads(t.deps.db, new DiskStorage(path.join(t.config.dataDir, 'uploads')));
+    const images = await storeProductArt(t.deps.db, uploads, shirt.id, season3Shirt());
+    expect(images).toHaveLength(2);
+
+    const ctx = await phone();
+    const page = await ctx.newPage();
+    await page.goto(`${site.baseUrl}/shop/p/${shirt.slug}`);
+    const gallery = page.getByRole('group', { name: /^Photos of / });
+    const main = gallery.locator('img').first();
+    await main.waitFor();
+    await page.waitForFunction(() => Array.from(document.images).every((i) => i.complete));
+    const shown = await main.evaluate((img: HTMLImageElement) => ({ alt: img.alt, srcset: img.srcset, w: img.getAttribute('width'), h: img.getAttribute('height'), natural: img.naturalWidth, src: img.currentSrc }));
+    expect(shown.alt).toMatch(/^Navy tee with the round Season 3 patch/);
+    expect(shown.srcset).toMatch(/\/uploads\/[a-z0-9-]+-thumb\.webp 480w, \/uploads\/[a-z0-9-]+\.webp 1200w/);
+    expect([shown.w, shown.h]).toEqual(['1200', '1200']);
+    expect(shown.natural).toBeGreaterThan(0);
+    const served = await page.request.get(shown.src);
+    expect(served.headers()['content-type']).toBe('image/webp');
+    await screenshot(page, 'buying-product-gallery-phone');
+
+    // A swipe to the left shows the next photo.
+    const box = (await gallery.boundingBox())!;
+    const y = box.y + box.height / 2;
+    await gallery.dispatchEvent('pointerdown', { clientX: box.x + box.width * 0.8, clientY: y, pointerType: 'touch', isPrimary: true });
+    await gallery.dispatchEvent('pointerup', { clientX: box.x + box.width * 0.2, clientY: y, pointerType: 'touch', isPrimary: true });
+    await gallery.getByText('Photo 2 of 2').waitFor();
+    expect(await main.getAttribute('alt')).toMatch(/^The Season 3 patch up close/);
+    await screenshot(page, 'buying-product-gallery-swiped-phone');
+
+    // The grid and the home page show the photo too.
+    await page.goto(`${site.baseUrl}/shop`);
+    const tile = page.getByRole('link', { name: new RegExp(shirt.slug.replace(/-/g, ' '), 'i') });
+    expect(await tile.locator('img').getAttribute('srcset')).toMatch(/480w/);
+    await screenshot(page, 'buying-grid-photos-phone');
+    await page.goto(`${site.baseUrl}/`);
+    await page.getByRole('img', { name: /^Navy tee with the round Season 3 patch/ }).waitFor();
+    await screenshot(page, 'buying-home-photo-phone');
+    await ctx.close();
+
+    const desk = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const dpage = await desk.newPage();
+    await dpage.goto(`${site.baseUrl}/shop/p/${shirt.slug}`);
+    const dgallery = dpage.getByRole('group', { name: /^Photos of / });
+    await dgallery.getByRole('button', { name: 'Next photo' }).click();
+    await dgallery.getByText('Photo 2 of 2').waitFor();
+    await dpage.getByRole('list', { name: 'Choose a photo' }).getByRole('button', { name: /^Photo 1: Navy tee/ }).click();
+    await dgallery.getByText('Photo 1 of 2').waitFor();
+    await dgallery.focus();
+    await dpage.keyboard.press('ArrowRight');
+    await dgallery.getByText('Photo 2 of 2').waitFor();
+    expect(await dpage.getByRole('button', { name: /^Photo 2: / }).getAttribute('aria-current')).toBe('true');
+    await screenshot(dpage, 'buying-product-gallery-desktop');
+    await desk.close();
+  });
+});
+
+describe('checkout details on a phone', () => {
+  it('prices each shipping method, counts the cart, stores the postal code normalised, wraps a long e-mail, shows the whole address and offers the last address again', async () => {
+    const shirt = await openShirt(staff, { cap: 20 });
+    const fan = await createUser(t.deps.db, ['fan'], 'Marguerite Oyelaran-Fitzwilliam');
+    const longEmail = `marguerite.oyelaran-fitzwilliam.launch-crew-${shirt.slug.slice(-6)}@padside.test`;
+    const ctx = await phone();
+    const page = await ctx.newPage();
+    await signInThroughForm(page, site.baseUrl, fan.email, fan.password);
+    await page.goto(`${site.baseUrl}/shop/p/${shirt.slug}`);
+    await page.getByRole('radio', { name: /^L\b/ }).click();
+    await page.getByRole('button', { name: 'Add to cart' }).click();
+    await page.getByRole('dialog', { name: 'Your cart' }).getByRole('button', { name: 'Close the cart' }).click();
+    await page.getByRole('link', { name: 'Cart, 1 item' }).waitFor();
+    expect(await page.getByTestId('cart-count').textContent()).toBe('1');
+    await screenshot(page, 'buying-cart-count-phone');
+
+    await page.goto(`${site.baseUrl}/shop/checkout`);
+    await page.getByLabel('E-mail').fill(longEmail);
+    await page.getByRole('button', { name: 'Next: shipping' }).click();
+    // 220 g (size L) fits the first bracket of mail within Canada, $9.00 (the shop's default brackets); pickup is free.
+    await page.getByRole('radio', { name: 'Mail within Canada · $9.00' }).waitFor();
+    await page.getByRole('radio', { name: /Pick up .*· free/i }).waitFor();
+    const labels = await page.getByRole('radiogroup', { name: 'Shipping method' }).getByRole('radio').evaluateAll((els) => els.map((e) => e.closest('mat-radio-button')?.textContent?.trim() ?? ''));
+    expect(labels.length).toBeGreaterThan(1);
+    for (const l of labels) expect(l).toMatch(/· (\$\d+\.\d\d|free|from \$\d+\.\d\d)$/);
+    await screenshot(page, 'buying-shipping-prices-phone');
+    await page.getByRole('radio', { name: /Mail within Canada/ }).check();
+    await page.getByLabel('Address', { exact: true }).fill('88 Igniter Crescent');
+    await page.getByLabel('Address line 2 (optional)').fill('Unit 4');
+    await page.getByLabel('City').fill('Gopher Flats');
+    await page.getByLabel('Postal code').fill('r0k1a0');
+    await page.getByRole('button', { name: 'Next: payment' }).click();
+    await page.getByRole('radio', { name: 'Test Visa (pays)' }).check();
+    await page.getByRole('button', { name: 'Next: review' }).click();
+
+    const review = page.locator('dl.review');
+    await review.waitFor();
+    for (const line of ['88 Igniter Crescent', 'Unit 4', 'Gopher Flats MB R0K 1A0', 'Canada']) await review.getByText(line, { exact: true }).waitFor();
+    const email = review.getByText(longEmail);
+    const right = await email.evaluate((el) => el.getBoundingClientRect().right);
+    expect(right).toBeLessThanOrEqual(390);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await screenshot(page, 'buying-review-long-email-phone');
+    await page.getByRole('button', { name: 'Place order' }).click();
+    await page.getByRole('heading', { name: 'Thank you, your order is in' }).waitFor({ timeout: 15_000 });
+    const order = await t.deps.db('shop_orders').where('email', longEmail).first();
+    expect(order.ship_postal_code).toBe('R0K 1A0');
+
+    // The next checkout offers that address again.
+    await page.goto(`${site.baseUrl}/shop/p/${shirt.slug}`);
+    await page.getByRole('radio', { name: /^M\b/ }).click();
+    await page.getByRole('button', { name: 'Add to cart' }).click();
+    await page.getByRole('dialog', { name: 'Your cart' }).getByRole('link', { name: 'Check out' }).click();
+    await page.getByRole('button', { name: 'Next: shipping' }).click();
+    await page.getByText('88 Igniter Crescent, Gopher Flats MB R0K 1A0').waitFor();
+    await page.getByRole('button', { name: 'Use my last address' }).click();
+    expect(await page.getByLabel('Address', { exact: true }).inputValue()).toBe('88 Igniter Crescent');
+    expect(await page.getByLabel('Postal code').inputValue()).toBe('R0K 1A0');
+    await screenshot(page, 'buying-last-address-phone');
+    await ctx.close();
+  });
+});
+
+describe('what happens next', () => {
+  it('the confirmation page and the receipt say when the run closes and goes to the printer, and where a pickup is handed out', async () => {
+    const shirt = await openShirt(staff, { cap: 20 });
+    const run = await t.deps.db('shop_runs').where('id', shirt.run.id).first();
+    const fan = await createUser(t.deps.db, ['fan'], 'Ines Valcourt');
+    const ctx = await phone();
+    const page = await ctx.newPage();
+    await signInThroughForm(page, site.baseUrl, fan.email, fan.password);
+    await page.goto(`${site.baseUrl}/shop/p/${shirt.slug}`);
+    await page.getByRole('radio', { name: /^L\b/ }).click();
+    await page.getByRole('button', { name: 'Add to cart' }).click();
+    await page.getByRole('dialog', { name: 'Your cart' }).getByRole('link', { name: 'Check out' }).click();
+    await page.getByRole('button', { name: 'Next: shipping' }).click();
+    await page.getByRole('radio', { name: /Pick up/i }).check();
+    await page.getByRole('button', { name: 'Next: payment' }).click();
+    await page.getByRole('radio', { name: 'Test Visa (pays)' }).check();
+    await page.getByRole('button', { name: 'Next: review' }).click();
+    await page.getByRole('button', { name: 'Place order' }).click();
+    await page.getByRole('heading', { name: 'Thank you, your order is in' }).waitFor({ timeout: 15_000 });
+    const number = (await page.getByRole('status').filter({ hasText: 'Order' }).locator('strong').first().textContent())!.trim();
+
+    const closes = new Intl.DateTimeFormat('en-CA', { timeZone: t.config.clubTimeZone, dateStyle: 'full' }).format(new Date(run.closes_at));
+    const next = page.getByRole('region', { name: 'What happens next' });
+    await next.getByText(new RegExp(`${run.name} takes orders until ${closes}`)).waitFor();
+    await next.getByText(/goes to the printer after that/).waitFor();
+    await next.getByText(`handed out at the merch table at the next ${t.config.site.clubName} launch`, { exact: false }).waitFor();
+    await screenshot(page, 'buying-what-happens-next-phone');
+    await ctx.close();
+
+    const [mail] = await waitForEmails(fan.email, new RegExp(`order ${number}`), 1, 15_000);
+    expect(mail.text).toContain('What happens next:');
+    expect(mail.text).toContain(`${run.name} takes orders until ${closes}`);
+    expect(mail.text).toContain(`handed out at the merch table at the next ${t.config.site.clubName} launch`);
   });
 });

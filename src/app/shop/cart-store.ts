@@ -8,6 +8,8 @@ export interface CartLine {
   variantLabel: string;
   slug: string;
   priceCents: number;
+  /** Grams per unit, so checkout can price each shipping method before the quote. */
+  weightGrams?: number;
   /** The product's per-order limit when the line was added (the server checks it again on every quote). */
   maxPerOrder?: number;
 }
@@ -30,6 +32,8 @@ export class CartStore {
   readonly lines = this.state.asReadonly();
   readonly count = computed(() => this.state().reduce((s, l) => s + l.quantity, 0));
   readonly guideTotalCents = computed(() => this.state().reduce((s, l) => s + l.priceCents * l.quantity, 0));
+  /** The parcel's weight, or null while a line saved by an older version has no weight. */
+  readonly weightGrams = computed(() => (this.state().every((l) => l.weightGrams !== undefined) ? this.state().reduce((s, l) => s + (l.weightGrams ?? 0) * l.quantity, 0) : null));
   /** Whether the side panel is showing. */
   readonly panelOpen = signal(false);
 

@@ -19,7 +19,11 @@ import { CartStore } from './cart-store';
 import { ShopApi } from './shop-api';
 import { StripeCard } from './stripe-card';
 import type { Quote, QuoteRequest } from './shop-types';
+import { shippingPrice } from './shipping-price';
+import { tidyPostalCode } from './postal-code';
 import { SiteNames } from '../core/site-names';
+
+const formatCents = (cents: number) => new Intl.NumberFormat('en-CA', { style: 'currency', currency: 'CAD' }).format(cents / 100);
 
 /** The payment processor's test tokens, offered while Padside talks to the local fake. */
 export const TEST_CARDS = [
@@ -81,6 +85,25 @@ export class Checkout {
   protected readonly isPickup = computed(() => this.methods.value()?.find((m) => m.id === this.methodId())?.code === 'pickup');
   protected readonly inCanada = computed(() => this.country() === 'CA');
 
+  /** Each method with its price for this cart (a guide; the quote is what is charged). */
+  protected readonly pricedMethods = computed(() => {
+    const grams = this.cart.weightGrams();
+    return (this.methods.value() ?? []).map((m) => {
+      const prices = m.brackets.map((b) => b.priceCents);
+      const cents = grams === null ? null : shippingPrice(grams, m.brackets);
+      return { ...m, priceText: cents === 0 ? 'free' : cents !== null ? formatCents(cents) : grams === null && prices.length ? `from ${formatCents(Math.min(...prices))}` : 'too heavy for this method' };
+    });
+  });
+  /** The address of the signed-in buyer's latest mailed order, offered again. */
+  protected readonly lastShipTo = rxResource({ params: () => (this.session.signedIn() ? true : undefined), stream: () => this.api.lastShipTo() });
+  protected readonly lastAddress = computed(() => (this.lastShipTo.hasValue() ? this.lastShipTo.value() : null));
+  private readonly shipToValue = toSignal(this.shipping.controls.shipTo.valueChanges, { initialValue: this.shipping.controls.shipTo.getRawValue() });
+  /** The address as the review step shows it, line by line. */
+  protected readonly addressLines = computed(() => {
+    const s = this.shipToValue();
+    const country = COUNTRIES.find((c) => c[0] === s.country)?.[1] ?? s.country;
+    return [s.name, s.line1, s.line2, [s.city, s.province, s.postalCode].filter(Boolean).join(' '), country].filter((x) => !!x && x.trim());
+  });
   protected readonly quote = signal<Quote | null>(null);
   protected readonly problem = signal<string | null>(null);
   protected readonly pending = signal<{ id: number; message: string } | null>(null);
@@ -92,6 +115,19 @@ export class Checkout {
     this.shipping.valueChanges.pipe(debounceTime(400), takeUntilDestroyed()).subscribe(() => {
       if (this.shipping.controls.shippingMethodId.value > 0) void this.refreshQuote(false);
     });
+  }
+
+  /** Shows the postal code as it will be stored, once the buyer leaves the field. */
+  protected tidyPostalCode(): void {
+    const to = this.shipping.controls.shipTo.controls;
+    const tidy = tidyPostalCode(to.country.value, to.postalCode.value);
+    if (tidy !== to.postalCode.value) to.postalCode.setValue(tidy);
+  }
+
+  /** Fills the address with the one from the buyer's latest mailed order. */
+  protected useLastAddress(): void {
+    const last = this.lastAddress();
+    if (last) this.shipping.controls.shipTo.patchValue({ ...last, line2: last.line2 ?? '' });
   }
 
   private request(): QuoteRequest {

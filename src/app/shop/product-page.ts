@@ -8,6 +8,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MoneyPipe } from '../shared/money-pipe';
 import { CartPanel } from './cart-panel';
+import { ProductGallery } from './product-gallery';
 import { CartStore } from './cart-store';
 import { RUN_STATE_LABELS, timeLeft } from './countdown';
 import { ShopApi } from './shop-api';
@@ -16,7 +17,7 @@ import type { Variant } from './shop-types';
 /** One product: pick a size, see units left and the time to close, add to the cart. */
 @Component({
   selector: 'ps-product-page',
-  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatExpansionModule, MatFormFieldModule, MatInputModule, MoneyPipe, CartPanel],
+  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatExpansionModule, MatFormFieldModule, MatInputModule, MoneyPipe, CartPanel, ProductGallery],
   templateUrl: './product-page.html',
   styleUrl: './product-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -90,7 +91,7 @@ export class ProductPage {
     const v = this.chosen();
     if (!p || !v || !this.canAdd()) return;
     const before = this.cart.lines().find((l) => l.variantId === v.id)?.quantity ?? 0;
-    const now = this.cart.add({ variantId: v.id, quantity: this.quantity(), productName: p.name, variantLabel: v.label, slug: p.slug, priceCents: v.priceCents, maxPerOrder: p.maxPerOrder });
+    const now = this.cart.add({ variantId: v.id, quantity: this.quantity(), productName: p.name, variantLabel: v.label, slug: p.slug, priceCents: v.priceCents, weightGrams: v.weightGrams, maxPerOrder: p.maxPerOrder });
     const took = now - before;
     this.added.set(took < this.quantity() ? `Added ${took}: the cart now holds ${now}, the most one order may have.` : `Added ${took} to the cart.`);
     this.cart.panelOpen.set(true);

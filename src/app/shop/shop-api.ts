@@ -2,7 +2,7 @@ import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
-import type { CardEntry, Order, OrderSummary, Product, Quote, QuoteRequest, ShippingMethod } from './shop-types';
+import type { CardEntry, Order, OrderSummary, Product, Quote, QuoteRequest, ShipTo, ShippingMethod } from './shop-types';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -42,5 +42,9 @@ export class ShopApi {
   }
   myOrders(): Observable<OrderSummary[]> {
     return this.http.get<{ items: OrderSummary[] }>('/api/account/orders').pipe(map((r) => r.items));
+  }
+  /** Where the signed-in buyer's latest mailed order went, to offer it again at checkout; null if none. */
+  lastShipTo(): Observable<ShipTo | null> {
+    return this.http.get<{ lastShipTo: ShipTo | null }>('/api/account/orders', quiet()).pipe(map((r) => r.lastShipTo));
   }
 }

@@ -8,6 +8,14 @@ export interface RunSummary {
   opensAt: string;
   closesAt: string;
 }
+/** A product photo: the full image, its 480 px copy, the words for a screen reader and the full size. */
+export interface ProductImage {
+  url: string;
+  thumbnailUrl: string;
+  alt: string;
+  width?: number;
+  height?: number;
+}
 export interface Variant {
   id: number;
   sku: string;
@@ -24,7 +32,7 @@ export interface Product {
   currency: 'CAD';
   /** Units of this product one order may hold. */
   maxPerOrder: number;
-  images: { url: string; thumbnailUrl: string; alt: string }[];
+  images: ProductImage[];
   sizeChart: { columns: string[]; rows: string[][] } | null;
   orderable: boolean;
   run: RunSummary | null;
@@ -37,6 +45,7 @@ export interface ShippingMethod {
   id: number;
   code: 'pickup' | 'canada' | 'usa' | 'international';
   name: string;
+  brackets: { maxGrams: number | null; priceCents: number }[];
 }
 export interface TaxLine {
   code: string;
@@ -91,6 +100,8 @@ export interface Order {
   totalCents: number;
   refundedCents: number;
   paymentMessage: string | null;
+  /** What happens next, in plain words (the buyer's own order view only). */
+  nextSteps?: string[];
   /** What a receipt for input tax credits carries; null until paid. */
   receipt?: Receipt | null;
 }

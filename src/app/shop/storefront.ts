@@ -20,19 +20,28 @@ import { ShopApi } from './shop-api';
     </section>
     @if (openRun(); as p) {
       <section class="ps-page now">
-        <h2>On the rail now: {{ p.name }}</h2>
-        <p>{{ p.run!.remaining }} of {{ p.run!.cap }} left · {{ left(p.run!.closesAt) }}. Printed once the window closes.</p>
-        <a mat-flat-button [routerLink]="['/shop/p', p.slug]">Order yours</a>
+        @if (p.images[0]; as img) {
+          <img class="photo" [src]="img.thumbnailUrl" [attr.srcset]="img.thumbnailUrl + ' 480w, ' + img.url + ' ' + (img.width ?? 1200) + 'w'" sizes="(max-width: 600px) 100vw, 320px" [alt]="img.alt" [attr.width]="img.width ?? 1200" [attr.height]="img.height ?? 1200" />
+        }
+        <div>
+          <h2>On the rail now: {{ p.name }}</h2>
+          <p>{{ p.run!.remaining }} of {{ p.run!.cap }} left · {{ left(p.run!.closesAt) }}. Printed once the window closes.</p>
+          <a mat-flat-button [routerLink]="['/shop/p', p.slug]">Order yours</a>
+        </div>
       </section>
     }
   `,
-  styles: `.hero { background: linear-gradient(160deg, var(--ps-night), #0e2536); color: #fff; } .hero h1 { font-size: clamp(2rem, 6vw, 3.5rem); margin: 0 0 8px; } .hero a { margin: 8px 8px 0 0; } .hero .ps-page { padding-top: 56px; padding-bottom: 56px; } .hero a[mat-stroked-button] { color: #fff; } .now h2 { margin-bottom: 4px; }`,
+  styles: `.hero { background: linear-gradient(160deg, var(--ps-night), #0e2536); color: #fff; } .hero h1 { font-size: clamp(2rem, 6vw, 3.5rem); margin: 0 0 8px; } .hero a { margin: 8px 8px 0 0; } .hero .ps-page { padding-top: 56px; padding-bottom: 56px; } .hero a[mat-stroked-button] { color: #fff; } .now { display: flex; gap: 24px; align-items: center; flex-wrap: wrap; } .now h2 { margin-bottom: 4px; } .photo { width: min(320px, 100%); height: auto; border-radius: 14px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class Storefront {
   private readonly api = inject(ShopApi);
   private readonly products = rxResource({ stream: () => this.api.products() });
-  protected readonly openRun = computed(() => this.products.value()?.find((p) => p.run?.state === 'open') ?? null);
+  /** The open run to show, one with photos first. */
+  protected readonly openRun = computed(() => {
+    const open = (this.products.value() ?? []).filter((p) => p.run?.state === 'open');
+    return open.find((p) => p.images.length) ?? open[0] ?? null;
+  });
 
   protected left(closesAt: string): string {
     return timeLeft(closesAt, Date.now());

@@ -6,6 +6,7 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { SessionStore } from '../session-store';
 import { SiteNames } from '../site-names';
+import { CartStore } from '../../shop/cart-store';
 
 /** Public sections in the top bar. */
 const SECTIONS: { path: string; label: string; exact?: boolean }[] = [
@@ -28,6 +29,7 @@ const SECTIONS: { path: string; label: string; exact?: boolean }[] = [
 export class Shell {
   protected readonly session = inject(SessionStore);
   protected readonly site = inject(SiteNames);
+  protected readonly cart = inject(CartStore);
   private readonly router = inject(Router);
 
   protected readonly sections = SECTIONS;
