@@ -1,3 +1,6 @@
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import type { Knex } from 'knex';
 import sharp from 'sharp';
 import type { ProductImage } from '../../server/shop/catalogue-repository';
@@ -10,10 +13,18 @@ import type { ArtPiece } from './product-art';
  */
 export async function storeProductArt(db: Knex, uploads: ImageUploads, productId: number, pieces: ArtPiece[]): Promise<ProductImage[]> {
   const images: ProductImage[] = [];
-  for (const [i, piece] of pieces.entries()) {
-    const bytes = await sharp(Buffer.from(piece.svg)).webp({ quality: 82 }).toBuffer();
-    const stored = await uploads.store(bytes, `product-${productId}-${i + 1}.webp`, null);
-    images.push({ url: stored.url, thumbnailUrl: stored.thumbnailUrl, alt: piece.alt, width: stored.width, height: stored.height });
+  // The uploads path takes files as an upload leaves them: on disk, in a temporary folder.
+  const dir = await mkdtemp(path.join(tmpdir(), 'padside-art-'));
+  try {
+    for (const [i, piece] of pieces.entries()) {
+      const bytes = await sharp(Buffer.from(piece.svg)).webp({ quality: 82 }).toBuffer();
+      const file = path.join(dir, `product-${productId}-${i + 1}.webp`);
+      await writeFile(file, bytes);
+      const stored = await uploads.store({ path: file, size: bytes.length, originalName: path.basename(file) }, null);
+      images.push({ url: stored.url, thumbnailUrl: stored.thumbnailUrl, alt: piece.alt, width: stored.width, height: stored.height });
+    }
+  } finally {
+    await rm(dir, { recursive: true, force: true });
   }
   await db('shop_products').where('id', productId).update({ images: JSON.stringify(images) });
   return images;
