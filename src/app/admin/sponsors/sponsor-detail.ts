@@ -13,9 +13,9 @@ import { applyServerErrors } from '../../core/api-error';
 import { SessionStore } from '../../core/session-store';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
-import { KIND_LABELS, type Agreement, type DeliverableKind } from '../../sponsors/sponsor-api';
+import { KIND_LABELS, type DeliverableKind } from '../../sponsors/sponsor-api';
 import { ImageUpload } from '../posts/image-upload';
-import { SponsorAdminApi } from './sponsor-admin-api';
+import { SponsorAdminApi, type StaffAgreement } from './sponsor-admin-api';
 import { dollarsToCents } from '../../shared/dollars';
 
 const HAND_KINDS: DeliverableKind[] = ['video_mention', 'social_post', 'logo_on_merch', 'sponsors_page'];
@@ -110,7 +110,7 @@ export class SponsorDetail {
   private readonly treatmentForms = new Map<number, TreatmentForm>();
 
   /** The tax-treatment form of one agreement, made once per agreement. */
-  protected treatmentForm(a: Agreement): TreatmentForm {
+  protected treatmentForm(a: StaffAgreement): TreatmentForm {
     let form = this.treatmentForms.get(a.id);
     if (!form) {
       form = this.fb.group({ taxTreatment: [(a.taxTreatment ?? 'gift') as Treatment], province: [a.taxProvince ?? ''] });
@@ -123,7 +123,7 @@ export class SponsorDetail {
     return this.api.invoiceUrl(agreementId);
   }
 
-  protected async saveTreatment(a: Agreement): Promise<void> {
+  protected async saveTreatment(a: StaffAgreement): Promise<void> {
     const form = this.treatmentForm(a);
     await this.run(`treatment-${a.id}`, form, async () => {
       const v = form.getRawValue();
