@@ -2,6 +2,9 @@ import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
+import type { FlightEvent, FlightSummary } from '../flights/flight-data';
+
+export type { FlightEvent, FlightSummary } from '../flights/flight-data';
 
 export type LaunchStatus = 'scheduled' | 'called_off' | 'done';
 
@@ -71,24 +74,6 @@ export interface Flight {
   outcomeLabel: string | null;
   outcomeNotes: string | null;
   apogeeMetres: number | null;
-}
-
-export interface FlightSummary {
-  apogeeMetres: number;
-  apogeeFeet: number;
-  apogeeAtSeconds: number;
-  maxSpeedMps: number;
-  /** Null when the log ends before the main recovery device is out. */
-  descentRateMps: number | null;
-  peakAccelG: number | null;
-  /** Null when the log ends before landing. */
-  flightTimeSeconds: number | null;
-  samples: number;
-}
-
-export interface FlightEvent {
-  kind: 'liftoff' | 'burnout' | 'apogee' | 'deployment' | 'landing';
-  t: number;
 }
 
 /** A flight page: the card, its analysed log (if any) and the caution. */
