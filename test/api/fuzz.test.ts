@@ -28,9 +28,9 @@ const bodyRoutes = ACCESS_TABLE.filter((r) => r.method !== 'GET' && !['/api/auth
 const fill = (path: string, value: string) => path.replace(/:(\w+)/g, () => encodeURIComponent(value));
 
 /** Fails on a 5xx or anything that looks like internals on the wire. */
-function expectClean(route: RouteAccess, body: unknown, res: { status: number; text: string }) {
+function expectClean(route: RouteAccess, body: unknown, res: { status: number; text?: string; body?: unknown }) {
   const context = `${route.method} ${route.path} ${JSON.stringify(body)?.slice(0, 300)}`;
-  if (res.status >= 500) throw new Error(`${res.status} for ${context}: ${res.text.slice(0, 300)}`);
+  if (res.status >= 500) throw new Error(`${res.status} for ${context}: ${(res.text ?? '').slice(0, 300)}`);
   // A download (a PDF) comes back as bytes, not text.
   const text = typeof res.text === 'string' ? res.text : Buffer.isBuffer(res.body) ? res.body.toString('latin1') : '';
   expect(text).not.toMatch(/\bat .+\.(ts|js):\d+|node_modules|SELECT |INSERT |violates/);
