@@ -143,6 +143,8 @@ describe('a declined card on a phone', () => {
     await screenshot(page, 'buying-declined-card-phone');
 
     await page.getByRole('radio', { name: 'Test Visa (pays)' }).check();
+    // The refusal clears on the next change detection, not synchronously with the click.
+    await refusal.waitFor({ state: 'detached', timeout: 5_000 });
     expect(await cardChoice.getByRole('alert').count()).toBe(0);
     await page.getByRole('button', { name: 'Next: review' }).click();
     await page.getByRole('button', { name: 'Place order' }).click();
