@@ -6,7 +6,7 @@ import type { CreditService } from '../sponsors/credit-service';
 import type { SponsorRepository } from '../sponsors/sponsor-repository';
 import { needsHazardNotice } from './hazard-rule';
 import type { PostRepository, PostRow, PostStatus, PostWrite } from './post-repository';
-import { slugify, uniqueSlug } from './slug';
+import { slugify, uniqueSlug } from '../platform/slug';
 
 /** What an editor sends to create or replace a post. */
 export interface PostInput {

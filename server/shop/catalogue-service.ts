@@ -5,6 +5,7 @@ import { renderMarkdown } from '../markdown/render-markdown';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
 import { fields } from '../platform/validate';
+import { slugify, uniqueSlug } from '../platform/slug';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueRepository, ProductBundle } from './catalogue-repository';
 import { printQuantities } from './print-sheet';
@@ -41,7 +42,6 @@ export const RunBody = RunFields.extend({
 
 export const ProductPatch = z.object({ name: name.optional(), description: z.string().max(20000, 'At most 20,000 characters.').superRefine(refuseUnrenderable).optional(), priceCents: fields.cents.min(50).optional(), active: z.boolean().optional(), sizeChart: ProductBody.shape.sizeChart.optional(), images: ProductBody.shape.images.optional(), maxPerOrder: ProductBody.shape.maxPerOrder.unwrap().optional() });
 
-const slugify = (s: string) => s.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 70) || 'item';
 
 /** The catalogue for buyers and staff, runs and their print sheets. */
 export class CatalogueService {
@@ -76,9 +76,8 @@ export class CatalogueService {
   /** Creates a product with its variants and, optionally, its first limited run. */
   async create(input: ProductInput) {
     if (input.run && new Date(input.run.closesAt) <= new Date(input.run.opensAt)) throw badRequest('The run must close after it opens.', { 'run.closesAt': 'Must be after the opening.' });
-    const base = slugify(input.name);
-    const taken = await this.db('shop_products').where('slug', 'like', `${base}%`).pluck('slug');
-    const slug = taken.includes(base) ? `${base}-${taken.length + 1}` : base;
+    const base = slugify(input.name, 70);
+    const slug = uniqueSlug(base, new Set(await this.db('shop_products').where('slug', 'like', `${base}%`).pluck('slug')));
     const skus = input.variants.map((v, i) => (v.sku ?? `${base.slice(0, 20)}-${slugify(v.label)}-${i + 1}`).toUpperCase());
     if (new Set(skus).size !== skus.length) throw badRequest('Each variant needs its own SKU.', { variants: 'Two variants share a SKU.' });
     const clash = await this.db('shop_variants').whereIn('sku', skus).first('sku');

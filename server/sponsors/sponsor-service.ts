@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { UserRepository } from '../auth/user-repository';
 import { recordMovement, type Movement } from '../books/ledger-writer';
-import { slugify, uniqueSlug } from '../build-logs/slug';
+import { slugify, uniqueSlug } from '../platform/slug';
 import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
 import type { SettingsService } from '../settings/settings-service';
 import type { Province } from '../shop/tax';

@@ -2,7 +2,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { parseContentFile } from '../../server/build-logs/content-import';
 import { needsHazardNotice } from '../../server/build-logs/hazard-rule';
-import { slugify } from '../../server/build-logs/slug';
+import { slugify } from '../../server/platform/slug';
 import { creditMarkerSlugs, renderMarkdown } from '../../server/markdown/render-markdown';
 import { SPONSORS } from '../../seeds/04_build_logs_sponsors';
 

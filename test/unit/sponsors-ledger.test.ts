@@ -1,5 +1,5 @@
 import { needsHazardNotice } from '../../server/build-logs/hazard-rule';
-import { slugify, uniqueSlug } from '../../server/build-logs/slug';
+import { slugify, uniqueSlug } from '../../server/platform/slug';
 import { deliverableToCredit, ledgerLines, nextDue, summaryByKind } from '../../server/sponsors/sponsor-ledger';
 import { seasonOf, tierFor } from '../../server/sponsors/sponsor-tiers';
 
