@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, effect, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { FormControl, FormRecord, ReactiveFormsModule } from '@angular/forms';
 import { RouterLink } from '@angular/router';
@@ -7,6 +7,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { applyServerErrors } from '../../core/api-error';
+import { SessionStore } from '../../core/session-store';
 import { MembershipApi } from '../../membership/membership-api';
 import { controlMessage } from '../../shared/field-error-pipe';
 import { LaunchesApi, type LaunchSettings } from '../launches-api';
@@ -43,6 +44,9 @@ export class CertificationClasses {
   protected readonly notice = signal<string | null>(null);
   protected readonly saving = signal(false);
   protected readonly loadFailed = this.current.error;
+  /** The membership settings (where levels are kept) are the treasurer's and the admins'. */
+  private readonly session = inject(SessionStore);
+  protected readonly mayEditLevels = computed(() => this.session.hasAnyRole(['treasurer', 'admin']));
 
   constructor() {
     effect(() => {
