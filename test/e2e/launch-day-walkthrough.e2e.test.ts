@@ -254,3 +254,34 @@ describe('the certification classes screen on a phone', () => {
     await context.close();
   });
 });
+
+describe('the console check-in with the camera', () => {
+  it('reads the member card from the camera, and asks for a reload when the page was opened inside the app', async () => {
+    const { context, page, errors } = await open(cameraBrowser, PHONE);
+    const staff = await createUser(t.deps.db, ['fan', 'treasurer'], 'Gate Treasurer');
+    await signInThroughForm(page, site.baseUrl, staff.email, staff.password);
+    // Opened inside the app from a page without the camera: the browser keeps that page's policy, so the camera is
+    // refused until a full load of the check-in page.
+    await page.goto(`${site.baseUrl}/console`);
+    await page.evaluate(() => {
+      history.pushState({}, '', '/console/check-in');
+      dispatchEvent(new PopStateEvent('popstate'));
+    });
+    await page.getByRole('heading', { name: 'Launch check-in' }).waitFor();
+    await page.getByTestId('scan-with-camera').click();
+    await page.getByRole('alert').getByText('The camera is only offered when this page is opened directly.').waitFor();
+    await screenshot(page, 'walkthrough-check-in-reload-phone');
+    await page.getByRole('button', { name: 'Reload this page' }).click();
+    await page.getByRole('heading', { name: 'Launch check-in' }).waitFor();
+    await page.getByTestId('scan-with-camera').click();
+    const verdict = page.getByTestId('check-in-verdict');
+    await verdict.getByText('Philippa Windrow (member').waitFor();
+    // The fixture's member has paid dues but no association membership on record.
+    await verdict.getByRole('heading', { name: 'Not cleared to fly: see the answers below' }).waitFor();
+    expect(await page.locator('video').evaluate((v: HTMLVideoElement) => v.srcObject === null && v.hidden)).toBe(true);
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, 'walkthrough-check-in-camera-phone');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
