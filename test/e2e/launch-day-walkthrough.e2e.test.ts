@@ -196,6 +196,9 @@ describe('a launch day walked through on phones', () => {
     await day.getByRole('button', { name: 'Close the day' }).click();
     await day.getByText('Flown and closed').waitFor();
     await f.goto(`${site.baseUrl}/launches`);
+    // Closed on its own date, the day is over: it moves from "Coming up" to the recent days.
+    await f.getByRole('heading', { name: 'Recent' }).waitFor();
+    expect(await f.getByTestId('upcoming-launches').getByText(title).count()).toBe(0);
     await f.locator('li.launch', { hasText: title }).getByRole('link', { name: 'Results' }).click();
     const row = f.getByRole('row', { name: /Prairie Lantern/ });
     await row.getByText('Recovered').waitFor();
