@@ -64,6 +64,14 @@ describe('CertificationClasses', () => {
     expect(el.querySelector('[data-testid=classes-L2] mat-error')!.textContent).toContain('Use letters and ranges');
   });
 
+  it('should ask for at least one class for every level', async () => {
+    const { http, el, type, submit } = await open();
+    type('L1', '');
+    await submit();
+    http.expectNone('/api/admin/launches/settings');
+    expect(el.querySelector('[data-testid=classes-L1] mat-error')!.textContent).toContain('List at least one class.');
+  });
+
   it("should put the server's word beside the level it names", async () => {
     const { fixture, http, el, submit } = await open();
     await submit();

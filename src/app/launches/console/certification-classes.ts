@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { FormControl, FormRecord, ReactiveFormsModule } from '@angular/forms';
+import { FormControl, FormRecord, ReactiveFormsModule, Validators } from '@angular/forms';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom, forkJoin } from 'rxjs';
 import { MatButtonModule } from '@angular/material/button';
@@ -60,14 +60,17 @@ export class CertificationClasses {
     const known = new Set(levels.map((l) => l.code));
     const rows = [...levels, ...Object.keys(settings.classesByLevel).filter((c) => !known.has(c)).map((code) => ({ code, label: `${code} (no longer a membership level)` }))];
     for (const code of Object.keys(this.form.controls)) this.form.removeControl(code);
-    for (const r of rows) this.form.addControl(r.code, new FormControl(formatClassList(settings.classesByLevel[r.code] ?? []), { nonNullable: true, validators: classListValidator }));
+    for (const r of rows) this.form.addControl(r.code, new FormControl(formatClassList(settings.classesByLevel[r.code] ?? []), { nonNullable: true, validators: [Validators.required, classListValidator] }));
     this.rows.set(rows);
   }
 
   protected message(code: string, label: string): string | null {
     const control = this.form.controls[code];
     if (!control?.errors) return null;
-    return (control.errors['server'] as string | undefined) ?? (control.errors['classes'] as string | undefined) ?? controlMessage(control, label);
+    if (control.errors['server']) return control.errors['server'] as string;
+    // A level new to the membership list starts empty; every level flies at least model motors.
+    if (control.errors['required']) return 'List at least one class.';
+    return (control.errors['classes'] as string | undefined) ?? controlMessage(control, label);
   }
 
   protected async save(): Promise<void> {
