@@ -16,13 +16,34 @@ export const DEMO_RANGE_OFFICER = { email: 'rso@padside.test', name: 'Agathe Thu
 /** The invented field the Gopher Flats Rocketry Society flies from. */
 const SITE = { site_name: 'Coulee Flats Field', site_address: 'Range Road 41, 6 km south of Gopher Flats, MB', site_lat: '49.712000', site_lon: '-98.903000' };
 
-/** Invented launch days, `inDays` from the day of seeding. */
+/**
+ * Invented launch days, `inDays` from the day of seeding; `{season}` in a title becomes the season of the day's date,
+ * so a demo seeded in any month reads true.
+ */
 const LAUNCHES = [
-  { key: 'spring-shakedown', title: 'Spring shakedown launch', inDays: -24, status: 'done', ceiling: 900, notes: 'First launch of the season. Bring your member card to the range table.' },
+  { key: 'shakedown', title: '{Season} shakedown launch', inDays: -24, status: 'done', ceiling: 900, notes: 'Bring your member card to the range table.' },
   { key: 'windy-saturday', title: 'Saturday club launch', inDays: -10, status: 'called_off', ceiling: 900, notes: '', reason: 'Gusts over 35 km/h forecast all day' },
-  { key: 'summer-fly-day', title: 'Summer fly day', inDays: 11, status: 'scheduled', ceiling: 1500, notes: 'Airspace arrangement to 1,500 m. Pads 1-4 model, pads 5-6 high power.' },
-  { key: 'harvest-moon', title: 'Harvest moon high-power day', inDays: 39, status: 'scheduled', ceiling: 3000, notes: 'High-power pads open; certification cards checked at the table.' },
+  { key: 'fly-day', title: '{Season} fly day', inDays: 11, status: 'scheduled', ceiling: 1500, notes: 'Airspace arrangement to 1,500 m. Pads 1-4 model, pads 5-6 high power.' },
+  { key: 'high-power', title: '{Season} high-power day', inDays: 39, status: 'scheduled', ceiling: 3000, notes: 'High-power pads open; certification cards checked at the table.' },
 ] as const;
+
+/**
+ * The season of a `YYYY-MM-DD` date on the prairies (northern hemisphere), by whole months: March to May spring,
+ * June to August summer, September to November autumn, December to February winter (the meteorological seasons,
+ * from memory).
+ */
+export function seasonOf(date: string): 'Spring' | 'Summer' | 'Autumn' | 'Winter' {
+  const month = Number(date.slice(5, 7));
+  if (month >= 3 && month <= 5) return 'Spring';
+  if (month >= 6 && month <= 8) return 'Summer';
+  if (month >= 9 && month <= 11) return 'Autumn';
+  return 'Winter';
+}
+
+/** A demo launch's title for its date. */
+export function launchTitleFor(title: string, date: string): string {
+  return title.replace('{Season}', seasonOf(date));
+}
 
 /** Cards flown at the done launch: flyer e-mail, rocket, mass, motors, expected altitude, recovery, pad, outcome. */
 const FLOWN = [
@@ -66,16 +87,17 @@ export async function seed(knex: Knex): Promise<void> {
     .onConflict('email')
     .ignore();
   const rso = await knex('users').where('email', DEMO_RANGE_OFFICER.email).first('id');
-  // Already seeded: the first launch's title and date are there.
-  if (await knex('launches').where({ title: LAUNCHES[0].title, created_by: rso.id }).first('id')) return;
+  // Already seeded: the demo range officer (made only here) has launch days. Titles depend on the day, so not them.
+  if (await knex('launches').where({ created_by: rso.id }).first('id')) return;
 
   const today = dateInZone(new Date(), process.env.CLUB_TIME_ZONE ?? 'America/Winnipeg');
   const ids: Record<string, number> = {};
   for (const l of LAUNCHES) {
+    const date = addDays(today, l.inDays);
     const [row] = await knex('launches')
       .insert({
-        title: l.title,
-        launch_date: addDays(today, l.inDays),
+        title: launchTitleFor(l.title, date),
+        launch_date: date,
         starts_at: '10:00',
         ends_at: '17:00',
         ...SITE,
@@ -97,12 +119,12 @@ export async function seed(knex: Knex): Promise<void> {
   if (member) {
     await knex('launch_rsvps').insert([
       { launch_id: ids['windy-saturday'], user_id: member.id, going: true },
-      { launch_id: ids['summer-fly-day'], user_id: member.id, going: true },
+      { launch_id: ids['fly-day'], user_id: member.id, going: true },
     ]);
   }
 
   const settings = (await knex('settings').where('key', LAUNCH_SETTINGS.key).first())?.value ?? LAUNCH_SETTINGS.defaults;
-  const done = ids['spring-shakedown'];
+  const done = ids['shakedown'];
   for (const f of FLOWN) {
     const flyer = await knex('users as u').join('memberships as m', 'm.user_id', 'u.id').where('u.email', f.email).first('u.id', 'm.member_number', 'm.certification_level');
     if (!flyer) continue;

@@ -9,7 +9,8 @@ const impulseClass = z.string().trim().toUpperCase().regex(/^[A-Z]$/, 'Use one l
  * level 3 M and up).
  */
 export const LaunchSettingsSchema = z.object({
-  classesByLevel: z.record(z.string().trim().min(1).max(16), z.array(impulseClass).max(26)),
+  // An empty list would read as "this level flies nothing", which no association means: every level flies model motors.
+  classesByLevel: z.record(z.string().trim().min(1).max(16), z.array(impulseClass).min(1, 'List at least one class.').max(26)),
 });
 
 export type LaunchSettings = z.infer<typeof LaunchSettingsSchema>;

@@ -39,12 +39,16 @@ const DENIED_FEATURES = [
   'serial', 'usb', 'xr-spatial-tracking',
 ];
 
-/** The page that scans member QR codes with the camera; only a document loaded at this path may use it. */
-export const CAMERA_PAGES = ['/console/check-in'];
+/**
+ * The pages that scan member QR codes with the camera (the console check-in and a launch day's range table); only a
+ * document loaded at one of these paths may use it.
+ */
+export const CAMERA_PAGES: readonly RegExp[] = [/^\/console\/check-in$/, /^\/console\/range(\/\d+)?$/];
 
 /** The Permissions-Policy value for a document at `path`. */
 export function permissionsPolicyFor(path: string): string {
-  const camera = CAMERA_PAGES.includes(path.replace(/\/+$/, '')) ? 'camera=(self)' : 'camera=()';
+  const page = path.replace(/\/+$/, '');
+  const camera = CAMERA_PAGES.some((p) => p.test(page)) ? 'camera=(self)' : 'camera=()';
   return [camera, ...DENIED_FEATURES.map((f) => `${f}=()`)].join(', ');
 }
 

@@ -45,8 +45,8 @@ describe('V8.2.1 session-dependent API answers are never cached (OWASP ASVS 4.0.
 });
 
 describe('V14.4 a Permissions-Policy denies what Padside never uses (OWASP ASVS 4.0.3 V14.4 HTTP security headers)', () => {
-  it('denies the camera everywhere except the check-in page, and denies microphone, location and payment everywhere', async () => {
-    for (const path of ['/', '/console', '/console/orders', '/api/health', '/uploads/nothing']) {
+  it('denies the camera everywhere except the check-in pages, and denies microphone, location and payment everywhere', async () => {
+    for (const path of ['/', '/console', '/console/orders', '/console/range/12/x', '/console/ranges', '/api/health', '/uploads/nothing']) {
       const policy = (await request(t.app).get(path)).headers['permissions-policy'];
       expect(policy).toMatch(/(^|, )camera=\(\)(,|$)/);
       for (const feature of ['microphone', 'geolocation', 'payment', 'usb']) expect(policy).toMatch(new RegExp(`(^|, )${feature}=\\(\\)(,|$)`));
@@ -54,6 +54,10 @@ describe('V14.4 a Permissions-Policy denies what Padside never uses (OWASP ASVS 
     const checkIn = (await request(t.app).get('/console/check-in')).headers['permissions-policy'];
     expect(checkIn).toMatch(/(^|, )camera=\(self\)(,|$)/);
     expect(checkIn).toMatch(/(^|, )microphone=\(\)(,|$)/);
+    // The range table checks members in on a launch day, today's or a given one.
+    for (const path of ['/console/range', '/console/range/12', '/console/range/12/']) {
+      expect((await request(t.app).get(path)).headers['permissions-policy']).toMatch(/(^|, )camera=\(self\)(,|$)/);
+    }
   });
 });
 

@@ -1,6 +1,6 @@
 import { seed as seedAccounts } from '../../seeds/01_demo_accounts';
 import { seed as seedMembers } from '../../seeds/03_membership';
-import { DEMO_RANGE_OFFICER, seed } from '../../seeds/05_launches';
+import { DEMO_RANGE_OFFICER, seasonOf, seed } from '../../seeds/05_launches';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client } from '../helpers/users';
 
@@ -20,6 +20,12 @@ describe('the launches demo seed', () => {
     expect(rso.roles).toContain('range_officer');
     const launches = await t.deps.db('launches').where('created_by', rso.id);
     expect(launches.map((l) => l.status).sort()).toEqual(['called_off', 'done', 'scheduled', 'scheduled']);
+    // Dates are relative to today, so a title that names a season names the one of its date.
+    const dated = await t.deps.db('launches').where('created_by', rso.id).select('title', t.deps.db.raw("to_char(launch_date, 'YYYY-MM-DD') AS date"));
+    for (const l of dated) {
+      const named = /\b(Spring|Summer|Autumn|Fall|Winter)\b/.exec(l.title)?.[1];
+      if (named) expect(`${l.title}: ${named}`).toBe(`${l.title}: ${seasonOf(l.date)}`);
+    }
     const done = launches.find((l) => l.status === 'done')!;
     const flights = await t.deps.db('flights').where('launch_id', done.id);
     expect(flights).toHaveLength(3);

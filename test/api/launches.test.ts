@@ -224,5 +224,9 @@ describe('GET and PUT /api/admin/launches/settings', () => {
     // The club-wide value is only read back, never changed here: other suites read it.
     const bad = await rso.put('/api/admin/launches/settings', { classesByLevel: { none: ['A', 'Q7'] } });
     expect(bad.status).toBe(400);
+    expect(bad.body.error.fields['classesByLevel.none.1']).toBe('Use one letter per class.');
+    const empty = await rso.put('/api/admin/launches/settings', { classesByLevel: { none: ['A'], L1: [] } });
+    expect(empty.status).toBe(400);
+    expect(empty.body.error.fields).toEqual({ 'classesByLevel.L1': 'List at least one class.' });
   });
 });

@@ -6,12 +6,15 @@ import type { TestApp } from './test-app';
 
 export const ARTIFACTS = path.resolve(__dirname, '..', 'artifacts');
 
-/** Debian's Chromium, headless, with the flags this machine needs (no sandbox as root, no background traffic). */
-export function launchBrowser(): Promise<Browser> {
+/**
+ * Debian's Chromium, headless, with the flags this machine needs (no sandbox as root, no background traffic), and
+ * any `extraArgs` a suite needs (a fake camera).
+ */
+export function launchBrowser(extraArgs: string[] = []): Promise<Browser> {
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic', ...extraArgs],
   });
 }
 

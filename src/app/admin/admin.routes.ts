@@ -22,6 +22,7 @@ export const adminRoutes: Routes = [
       { path: 'sponsors', loadComponent: () => import('./sponsors/sponsor-table').then((m) => m.SponsorTable), title: 'Sponsors — Padside console' },
       { path: 'sponsors/:id', loadComponent: () => import('./sponsors/sponsor-detail').then((m) => m.SponsorDetail), title: 'Sponsor — Padside console' },
       { path: 'launches', canMatch: [roleGuard(['range_officer', 'admin'])], loadComponent: () => import('../launches/console/launch-admin').then((m) => m.LaunchAdmin), title: 'Launch days — Padside console' },
+      { path: 'launch-settings', canMatch: [roleGuard(['range_officer', 'admin'])], loadComponent: () => import('../launches/console/certification-classes').then((m) => m.CertificationClasses), title: 'Certification classes — Padside console' },
       { path: 'range', canMatch: [roleGuard(['range_officer', 'admin'])], loadComponent: () => import('../launches/console/range-table').then((m) => m.RangeTable), title: 'Range table — Padside console' },
       { path: 'range/:id', canMatch: [roleGuard(['range_officer', 'admin'])], loadComponent: () => import('../launches/console/range-table').then((m) => m.RangeTable), title: 'Range table — Padside console' },
       { path: 'books', canMatch: [roleGuard(['treasurer', 'admin'])], loadComponent: () => import('./books/books-page').then((m) => m.BooksPage), title: 'Books — Padside console' },

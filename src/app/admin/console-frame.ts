@@ -58,7 +58,9 @@ export class ConsoleFrame {
     return CONSOLE_LINKS.filter((l) => this.session.hasAnyRole(l.roles));
   });
 
+  /** A full-load link is current on its page and the pages under it (the range table of one launch day). */
   protected isCurrent(path: string): boolean {
-    return this.router.url.split('?')[0] === path;
+    const url = this.router.url.split('?')[0];
+    return url === path || url.startsWith(`${path}/`);
   }
 }

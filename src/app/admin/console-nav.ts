@@ -7,8 +7,8 @@ export interface ConsoleLink {
   icon: string;
   roles: readonly Role[];
   /**
-   * Opened with a full page load: the server grants the camera only to a document loaded at this path
-   * (Permissions-Policy is fixed for a document's lifetime).
+   * Opened with a full page load: the server grants the camera only to a document loaded at this path (the check-in
+   * and range table scan member cards; Permissions-Policy is fixed for a document's lifetime).
    */
   fullLoad?: true;
 }
@@ -16,7 +16,8 @@ export interface ConsoleLink {
 export const CONSOLE_LINKS: readonly ConsoleLink[] = [
   { path: '/console', label: 'Overview', icon: 'space_dashboard', roles: ['editor', 'treasurer', 'admin', 'range_officer'] },
   { path: '/console/launches', label: 'Launch days', icon: 'rocket_launch', roles: ['range_officer', 'admin'] },
-  { path: '/console/range', label: 'Range table', icon: 'flag', roles: ['range_officer', 'admin'] },
+  { path: '/console/range', label: 'Range table', icon: 'flag', roles: ['range_officer', 'admin'], fullLoad: true },
+  { path: '/console/launch-settings', label: 'Certification classes', icon: 'workspace_premium', roles: ['range_officer', 'admin'] },
   { path: '/console/orders', label: 'Orders', icon: 'local_shipping', roles: ['treasurer', 'admin'] },
   { path: '/console/runs', label: 'Runs', icon: 'checkroom', roles: ['treasurer', 'admin'] },
   { path: '/console/products', label: 'Products', icon: 'sell', roles: ['treasurer', 'admin'] },

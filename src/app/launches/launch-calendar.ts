@@ -14,6 +14,10 @@ export function todayIn(timeZone: string): string {
   return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
 }
 
+function isOver(l: Launch, today: string): boolean {
+  return l.date < today || l.status === 'done';
+}
+
 /** The club's launch calendar: coming launch days first, then the recent ones, and the feed to subscribe to. */
 @Component({
   selector: 'ps-launch-calendar',
@@ -27,8 +31,9 @@ export class LaunchCalendar {
   protected readonly launches = rxResource({ stream: () => this.api.list() });
   protected readonly timeZone = computed(() => this.launches.value()?.timeZone ?? '');
   private readonly today = computed(() => (this.timeZone() ? todayIn(this.timeZone()) : ''));
-  protected readonly upcoming = computed(() => (this.launches.value()?.items ?? []).filter((l) => l.date >= this.today()));
-  protected readonly past = computed(() => (this.launches.value()?.items ?? []).filter((l) => l.date < this.today()).reverse());
+  /** A day closed after flying is over even on its own date: it goes with the recent ones, with its results. */
+  protected readonly upcoming = computed(() => (this.launches.value()?.items ?? []).filter((l) => !isOver(l, this.today())));
+  protected readonly past = computed(() => (this.launches.value()?.items ?? []).filter((l) => isOver(l, this.today())).reverse());
   protected readonly feedUrl = `${typeof location === 'undefined' ? '' : location.origin}/feeds/launches.ics`;
   protected readonly webcalUrl = this.feedUrl.replace(/^https?:/, 'webcal:');
 

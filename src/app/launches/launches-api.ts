@@ -106,6 +106,11 @@ export interface Queue {
   pads: { pad: string | null; items: Flight[] }[];
 }
 
+/** The impulse classes each certification level allows (a club setting: associations differ). */
+export interface LaunchSettings {
+  classesByLevel: Record<string, string[]>;
+}
+
 export interface CheckInAnswer {
   checkedIn: boolean;
   alreadyCheckedIn: boolean;
@@ -156,6 +161,12 @@ export class LaunchesApi {
   }
   checkIn(id: number, token: string): Observable<CheckInAnswer> {
     return this.http.post<CheckInAnswer>(`/api/launches/${id}/check-in`, { token }, quiet());
+  }
+  settings(): Observable<LaunchSettings> {
+    return this.http.get<LaunchSettings>('/api/admin/launches/settings');
+  }
+  saveSettings(body: LaunchSettings): Observable<LaunchSettings> {
+    return this.http.put<LaunchSettings>('/api/admin/launches/settings', body, quiet());
   }
   queue(id: number): Observable<Queue> {
     return this.http.get<Queue>(`/api/admin/launches/${id}/queue`);

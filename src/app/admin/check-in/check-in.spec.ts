@@ -1,6 +1,8 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
+import { By } from '@angular/platform-browser';
+import { CameraScanner } from '../../shared/camera-scanner';
 import { CheckIn } from './check-in';
 
 describe('CheckIn', () => {
@@ -40,5 +42,16 @@ describe('CheckIn', () => {
     const verdict = el.querySelector('[data-testid=check-in-verdict]')!;
     expect(verdict.textContent).toContain('Unknown card');
     expect(verdict.querySelector('dl')).toBeNull();
+  });
+
+  it('should check a code the camera read as if it were typed', async () => {
+    const fixture = TestBed.createComponent(CheckIn);
+    await fixture.whenStable();
+    fixture.debugElement.query(By.directive(CameraScanner)).componentInstance.scanned.emit('v1.01042.1.abc');
+    const req = TestBed.inject(HttpTestingController).expectOne('/api/admin/checkin');
+    expect(req.request.body).toEqual({ token: 'v1.01042.1.abc' });
+    req.flush({ status: 'unknown', memberNumber: null, name: null, mayFly: false, termEnd: null, dues: null, association: null, certification: null });
+    await fixture.whenStable();
+    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid=check-in-verdict]')!.textContent).toContain('Unknown card');
   });
 });

@@ -8,13 +8,17 @@ import { MatInputModule } from '@angular/material/input';
 import { applyServerErrors } from '../../core/api-error';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
 import { FlyingCaution } from '../../membership/flying-caution';
+import { CameraScanner } from '../../shared/camera-scanner';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { CheckInVerdict, type CheckInResult } from './check-in-verdict';
 
-/** Launch-day check-in: a scanner types the card code into the field (or staff paste it) and the verdict shows. */
+/**
+ * Launch-day check-in: the phone's camera reads the card's code, or a handheld scanner types it into the field (or staff
+ * paste it), and the verdict shows.
+ */
 @Component({
   selector: 'ps-check-in',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, FlyingCaution, CheckInVerdict],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, FlyingCaution, CheckInVerdict, CameraScanner],
   templateUrl: './check-in.html',
   styleUrl: './check-in.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -24,6 +28,12 @@ export class CheckIn {
   protected readonly form = inject(NonNullableFormBuilder).group({ token: ['', Validators.required] });
   protected readonly result = signal<CheckInResult | null>(null);
   protected readonly problem = signal<string | null>(null);
+
+  /** A code read by the camera goes through the same check as a typed one. */
+  protected scanned(token: string, formDir: FormGroupDirective): Promise<void> {
+    this.form.setValue({ token });
+    return this.check(formDir);
+  }
 
   /** `formDir` resets the submitted state too, so the empty field is ready for the next scan without an error. */
   protected async check(formDir: FormGroupDirective): Promise<void> {

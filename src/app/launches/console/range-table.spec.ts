@@ -1,6 +1,8 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
+import { By } from '@angular/platform-browser';
+import { CameraScanner } from '../../shared/camera-scanner';
 import { provideRouter } from '@angular/router';
 import { RangeTable } from './range-table';
 
@@ -64,5 +66,16 @@ describe('RangeTable', () => {
     fixture.detectChanges();
     // The queue is read again so the card shows its new state.
     http.expectOne('/api/admin/launches/4/queue');
+  });
+
+  it('should check in the member whose card the camera read', async () => {
+    const { fixture, http, el } = await open();
+    fixture.debugElement.query(By.directive(CameraScanner)).componentInstance.scanned.emit('v1.00042.1.abc');
+    const req = http.expectOne('/api/launches/4/check-in');
+    expect(req.request.body).toEqual({ token: 'v1.00042.1.abc' });
+    req.flush({ checkedIn: true, alreadyCheckedIn: false, member: { memberNumber: '00042', name: 'Odalys Prairie', status: 'active', certificationLevel: 'L1' } });
+    await fixture.whenStable();
+    fixture.detectChanges();
+    expect(el.querySelector('[data-testid=check-in-answer]')!.textContent).toContain('Checked in: Odalys Prairie (00042)');
   });
 });

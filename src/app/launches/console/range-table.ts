@@ -7,6 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { apiErrorMessage } from '../../core/api-error';
+import { CameraScanner } from '../../shared/camera-scanner';
 import { EmptyState } from '../../shared/empty-state';
 import { FlightCaution } from '../flight-caution';
 import { todayIn } from '../launch-calendar';
@@ -20,13 +21,13 @@ interface Draft {
 }
 
 /**
- * The range table on a phone: check members in with their card code, then the cards by pad; approve or send back
+ * The range table on a phone: check members in with their card code (camera, scanner or pasted), then the cards by pad; approve or send back
  * with a reason, and record the outcome after the flight. Padside refuses to record a card beyond the flyer's
  * verified certification as cleared.
  */
 @Component({
   selector: 'ps-range-table',
-  imports: [RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FlightCaution],
+  imports: [RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FlightCaution, CameraScanner],
   templateUrl: './range-table.html',
   styleUrl: './range-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -60,6 +61,12 @@ export class RangeTable {
 
   protected edit(id: number, patch: Partial<Draft>): void {
     this.drafts.update((d) => ({ ...d, [id]: { ...this.draft(id), ...patch } }));
+  }
+
+  /** A code read by the camera is checked in at once. */
+  protected scanned(token: string): Promise<void> {
+    this.token.set(token);
+    return this.checkIn();
   }
 
   protected async checkIn(): Promise<void> {
