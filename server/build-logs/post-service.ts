@@ -7,6 +7,7 @@ import type { SponsorRepository } from '../sponsors/sponsor-repository';
 import { needsHazardNotice } from './hazard-rule';
 import type { PostRepository, PostRow, PostStatus, PostWrite } from './post-repository';
 import { slugify, uniqueSlug } from './slug';
+import type { StoredImage } from '../uploads/image-uploads';
 
 /** What an editor sends to create or replace a post. */
 export interface PostInput {
@@ -33,6 +34,8 @@ export class PostService {
     private readonly posts: PostRepository,
     private readonly sponsors: SponsorRepository,
     private readonly credits: CreditService,
+    /** Sizes and thumbnail of an uploaded cover, so the page can give it a srcset and reserve its space. */
+    private readonly describeImage: (url: string) => Promise<StoredImage | null> = async () => null,
   ) {}
 
   async create(input: PostInput, authorId: number | null, now: Date): Promise<{ id: number; slug: string }> {
@@ -109,9 +112,12 @@ export class PostService {
       title: p.title,
       summary: p.summary,
       coverUrl: p.cover_url,
+      cover: p.cover_url ? await this.describeImage(p.cover_url) : null,
       author: p.author_name ?? null,
       html: mayRead ? this.render(p, credits) : null,
       publishedAt: p.published_at!.toISOString(),
+      // The last edit, for the page's structured data and the sitemap; never before publishing.
+      updatedAt: new Date(Math.max(p.updated_at.getTime(), p.published_at!.getTime())).toISOString(),
       tags: p.tags,
       membersOnly: p.members_only,
       credits,

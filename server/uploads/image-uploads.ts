@@ -89,6 +89,13 @@ export class ImageUploads {
   }
 
   /** A stream of the stored bytes with their type; null for an unknown key. */
+  /** The stored image behind an `/uploads/...` address (sizes, WebP thumbnail), or null for any other address. */
+  async describe(url: string): Promise<StoredImage | null> {
+    const key = /^\/uploads\/([A-Za-z0-9._-]{1,200})$/.exec(url)?.[1];
+    const row = key ? await this.db<UploadRow>('uploads').where('key', key).first() : undefined;
+    return row?.thumbnail_key ? toStored(row) : null;
+  }
+
   async read(key: string): Promise<{ body: Readable; length: number; contentType: string } | null> {
     const row = await this.db<UploadRow>('uploads').where('key', key).orWhere('thumbnail_key', key).first();
     if (!row) return null;

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { NgTemplateOutlet } from '@angular/common';
 import { RouterLink } from '@angular/router';
@@ -6,6 +6,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { EmptyState } from '../shared/empty-state';
 import { LaunchesApi, type Launch } from './launches-api';
+import { PageMeta } from '../core/page-meta';
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 
@@ -23,13 +24,17 @@ export function todayIn(timeZone: string): string {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class LaunchCalendar {
+  constructor() {
+    inject(PageMeta).describe({ title: 'Launch days', description: 'Coming and recent club launch days, with a calendar feed to subscribe to.', path: '/launches', type: 'website' });
+  }
+
   private readonly api = inject(LaunchesApi);
   protected readonly launches = rxResource({ stream: () => this.api.list() });
   protected readonly timeZone = computed(() => this.launches.value()?.timeZone ?? '');
   private readonly today = computed(() => (this.timeZone() ? todayIn(this.timeZone()) : ''));
   protected readonly upcoming = computed(() => (this.launches.value()?.items ?? []).filter((l) => l.date >= this.today()));
   protected readonly past = computed(() => (this.launches.value()?.items ?? []).filter((l) => l.date < this.today()).reverse());
-  protected readonly feedUrl = `${typeof location === 'undefined' ? '' : location.origin}/feeds/launches.ics`;
+  protected readonly feedUrl = `${inject(DOCUMENT).location.origin}/feeds/launches.ics`;
   protected readonly webcalUrl = this.feedUrl.replace(/^https?:/, 'webcal:');
 
   protected month(l: Launch): string {
