@@ -28,8 +28,9 @@ async function render({ id, url, context }: RenderRequest): Promise<RenderAnswer
     // No cookie and no other header of the visitor's: the page is the same for everyone.
     const response = await engine.handle(new Request(url, { headers: { accept: 'text/html' } }), context);
     if (!response) return { id, status: 0, headers: [], body: '' };
-    const html = await response.text();
-    return { id, status: response.status, headers: [...response.headers], body: withNonce(html, context.nonce) };
+    const headers: [string, string][] = [];
+    response.headers.forEach((value, name) => headers.push([name, value]));
+    return { id, status: response.status, headers, body: withNonce(await response.text(), context.nonce) };
   } catch (e) {
     return { id, error: e instanceof Error ? (e.stack ?? e.message) : String(e) };
   }

@@ -6,7 +6,7 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { PageMeta } from '../core/page-meta';
+import { PageMeta, SHARE_IMAGE } from '../core/page-meta';
 import { notFoundStatus } from '../core/rendering/not-found-status';
 import { clip, plainText, productData } from '../core/structured-data';
 import { SiteNames } from '../core/site-names';
@@ -72,7 +72,7 @@ export class ProductPage {
         type: 'product',
         image: photo ? { url: photo.url, width: photo.width, height: photo.height, alt: photo.alt } : null,
         preload: photo ? { href: photo.url, srcset: ProductGallery.srcset(photo), sizes: ProductGallery.SIZES } : null,
-        data: productData(p, meta.absolute(path), p.images.map((i) => meta.absolute(i.url)), site.teamName()),
+        data: productData(p, meta.absolute(path), (p.images.length ? p.images.map((i) => i.url) : [SHARE_IMAGE.url]).map((u) => meta.absolute(u)), site.teamName()),
       });
     });
     const timer = setInterval(() => this.now.set(Date.now()), 30_000);
