@@ -25,7 +25,7 @@ export function securityHeaders(options: { stripeJs: boolean }) {
       useDefaults: false,
       directives: {
         defaultSrc: ["'self'"],
-        scriptSrc: ["'self'", nonce, ...stripe('https://js.stripe.com')],
+        scriptSrc: ["'self'", ...stripe('https://js.stripe.com'), nonce],
         // Angular writes component styles into <style> elements at run time.
         styleSrc: ["'self'", "'unsafe-inline'"],
         imgSrc: ["'self'", 'data:', 'blob:'],

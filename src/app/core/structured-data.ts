@@ -1,12 +1,32 @@
 import type { BlogPosting, Event, ItemAvailability, Product as ProductThing, WithContext } from 'schema-dts';
-import type { PostDetail } from '../build-logs/build-log-api';
-import type { Launch } from '../launches/launches-api';
 import type { Product } from '../shop/shop-types';
 
 /**
  * schema.org JSON-LD for the public pages, typed with `schema-dts` (the schema.org vocabulary as TypeScript types), so
  * a property or value the vocabulary does not have is a compile error. All addresses are absolute.
  */
+
+/** What the BlogPosting builder reads of a build log (a PostDetail has it). */
+export interface PostFacts {
+  title: string;
+  summary: string;
+  publishedAt: string;
+  updatedAt?: string;
+  author: string | null;
+  tags: string[];
+  membersOnly: boolean;
+}
+
+/** What the Event builder reads of a launch day (a Launch has it). */
+export interface LaunchFacts {
+  title: string;
+  date: string;
+  startsAt: string;
+  endsAt: string;
+  status: string;
+  notes: string;
+  site: { name: string; address: string | null; lat: number | null; lon: number | null };
+}
 
 /** Text of a sanitised HTML fragment: tags dropped, the common entities read, spaces folded. */
 export function plainText(html: string): string {
@@ -67,7 +87,7 @@ export function productData(p: Product, url: string, images: string[], brand: st
   };
 }
 
-export function postData(p: PostDetail, url: string, image: string, publisher: string): WithContext<BlogPosting> {
+export function postData(p: PostFacts, url: string, image: string, publisher: string): WithContext<BlogPosting> {
   return {
     '@context': 'https://schema.org',
     '@type': 'BlogPosting',
@@ -107,7 +127,7 @@ function minutes(offset: string): number {
   return sign * (Number(offset.slice(1, 3)) * 60 + Number(offset.slice(4, 6)));
 }
 
-export function launchData(l: Launch, timeZone: string, url: string, image: string, organizer: string): WithContext<Event> {
+export function launchData(l: LaunchFacts, timeZone: string, url: string, image: string, organizer: string): WithContext<Event> {
   return {
     '@context': 'https://schema.org',
     '@type': 'Event',
