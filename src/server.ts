@@ -18,9 +18,12 @@ type RenderAnswer = { id: number; status: number; headers: [string, string][]; b
 
 const engine = new AngularNodeAppEngine({ allowedHosts: (workerData as { allowedHosts?: string[] } | null)?.allowedHosts ?? [] });
 
-/** Gives every script element of the page this response's nonce (the build's own inline scripts too). */
+/**
+ * Gives every script element of the page this response's nonce (the build's own inline event-replay contract too),
+ * and the root element `ngCspNonce`, from which the browser app takes the nonce for what it inlines later.
+ */
 export function withNonce(html: string, nonce: string): string {
-  return html.replace(/<script\b(?![^>]*\snonce=)/g, `<script nonce="${nonce}"`);
+  return html.replace(/<script\b(?![^>]*\snonce=)/g, `<script nonce="${nonce}"`).replace(/<ps-root\b(?![^>]*\sngcspnonce=)/i, `<ps-root ngCspNonce="${nonce}"`);
 }
 
 async function render({ id, url, context }: RenderRequest): Promise<RenderAnswer> {

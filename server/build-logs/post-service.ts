@@ -35,7 +35,7 @@ export class PostService {
     private readonly sponsors: SponsorRepository,
     private readonly credits: CreditService,
     /** Sizes and thumbnail of an uploaded cover, so the page can give it a srcset and reserve its space. */
-    private readonly describeImage: (url: string) => Promise<StoredImage | null> = async () => null,
+    private readonly describeImages: (urls: readonly string[]) => Promise<Map<string, StoredImage>> = async () => new Map(),
   ) {}
 
   async create(input: PostInput, authorId: number | null, now: Date): Promise<{ id: number; slug: string }> {
@@ -94,7 +94,8 @@ export class PostService {
 
   async publicPage(opts: { tag?: string; page: number; pageSize: number }) {
     const { items, total } = await this.posts.publishedPage(opts);
-    return { items: items.map((p) => ({ slug: p.slug, title: p.title, summary: p.summary, coverUrl: p.cover_url, publishedAt: p.published_at!.toISOString(), tags: p.tags, membersOnly: p.members_only })), total, page: opts.page, pageSize: opts.pageSize };
+    const covers = await this.describeImages(items.flatMap((p) => (p.cover_url ? [p.cover_url] : [])));
+    return { items: items.map((p) => ({ slug: p.slug, title: p.title, summary: p.summary, coverUrl: p.cover_url, cover: coverOf(covers, p.cover_url), publishedAt: p.published_at!.toISOString(), tags: p.tags, membersOnly: p.members_only })), total, page: opts.page, pageSize: opts.pageSize };
   }
 
   tags() {
@@ -112,7 +113,7 @@ export class PostService {
       title: p.title,
       summary: p.summary,
       coverUrl: p.cover_url,
-      cover: p.cover_url ? await this.describeImage(p.cover_url) : null,
+      cover: coverOf(p.cover_url ? await this.describeImages([p.cover_url]) : new Map(), p.cover_url),
       author: p.author_name ?? null,
       html: mayRead ? this.render(p, credits) : null,
       publishedAt: p.published_at!.toISOString(),
@@ -207,4 +208,10 @@ export class PostService {
       hazardRequested: input.hazardNotice ?? current?.hazard_requested ?? false,
     };
   }
+}
+
+/** An uploaded cover's sizes and thumbnail, for the page's srcset and reserved space; null for none or another host. */
+function coverOf(covers: Map<string, StoredImage>, url: string | null): { url: string; thumbnailUrl: string; width: number; height: number } | null {
+  const c = url ? covers.get(url) : undefined;
+  return c ? { url: c.url, thumbnailUrl: c.thumbnailUrl, width: c.width, height: c.height } : null;
 }

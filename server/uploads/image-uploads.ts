@@ -89,11 +89,11 @@ export class ImageUploads {
   }
 
   /** A stream of the stored bytes with their type; null for an unknown key. */
-  /** The stored image behind an `/uploads/...` address (sizes, WebP thumbnail), or null for any other address. */
-  async describe(url: string): Promise<StoredImage | null> {
-    const key = /^\/uploads\/([A-Za-z0-9._-]{1,200})$/.exec(url)?.[1];
-    const row = key ? await this.db<UploadRow>('uploads').where('key', key).first() : undefined;
-    return row?.thumbnail_key ? toStored(row) : null;
+  /** The stored images behind `/uploads/...` addresses (sizes, WebP thumbnail), by address; others are left out. */
+  async describe(urls: readonly string[]): Promise<Map<string, StoredImage>> {
+    const keys = urls.map((u) => /^\/uploads\/([A-Za-z0-9._-]{1,200})$/.exec(u)?.[1]).filter((k): k is string => !!k);
+    const rows = keys.length ? await this.db<UploadRow>('uploads').whereIn('key', keys).whereNotNull('thumbnail_key') : [];
+    return new Map(rows.map((r) => [`/uploads/${r.key}`, toStored(r)]));
   }
 
   async read(key: string): Promise<{ body: Readable; length: number; contentType: string } | null> {

@@ -18,6 +18,7 @@ let product: { slug: string; name: string };
 let post: { slug: string; title: string };
 let membersPost: { slug: string; secret: string };
 let launchId: number;
+let coverUrl: string;
 
 /** A page fetched as a client without JavaScript, optionally with a cookie. */
 async function page(path: string, cookie?: string): Promise<{ status: number; html: string; headers: Headers }> {
@@ -44,7 +45,8 @@ beforeAll(async () => {
   });
   expect(made.status).toBe(201);
   product = { slug: made.body.product.slug, name: `Coulee Tee ${tag}` };
-  const written = await staff.post('/api/admin/posts', { title: `Nose cone sanding ${tag}`, summary: 'How we smooth printed cones.', markdown: 'Wet sanding at 400 grit takes the layer lines off.\n\nThen a coat of filler primer.', status: 'published' });
+  coverUrl = image.url;
+  const written = await staff.post('/api/admin/posts', { title: `Nose cone sanding ${tag}`, summary: 'How we smooth printed cones.', coverUrl, markdown: 'Wet sanding at 400 grit takes the layer lines off.\n\nThen a coat of filler primer.', status: 'published' });
   expect(written.status).toBe(201);
   post = { slug: written.body.post?.slug ?? written.body.slug, title: `Nose cone sanding ${tag}` };
   const secret = `Members-only body ${randomUUID()}`;
@@ -108,21 +110,37 @@ describe('a product page without JavaScript', () => {
 });
 
 describe('a build log without JavaScript', () => {
-  it('holds its title and first paragraph, its preview tags and BlogPosting JSON-LD', async () => {
+  it('holds its title and first paragraph, its preview tags, BlogPosting JSON-LD and the preloaded cover', async () => {
     const { status, html } = await page(`/build-logs/${post.slug}`);
     expect(status).toBe(200);
     expect(html).toMatch(new RegExp(`<h1[^>]*>${post.title}</h1>`));
     expect(html).toContain('<p>Wet sanding at 400 grit takes the layer lines off.</p>');
     expect(metaContent(html, 'og:type')).toBe('article');
     expect(metaContent(html, 'og:description')).toBe('How we smooth printed cones.');
-    // No cover: the site's share picture, a real raster image.
+    expect(metaContent(html, 'og:image')).toBe(t.config.publicUrl + coverUrl);
+    const preload = [...html.matchAll(/<link\b[^>]*rel="preload"[^>]*>/g)].map((m) => m[0]).find((l) => l.includes('as="image"'));
+    expect(preload).toContain(`href="${coverUrl}"`);
+    const cover = /<img\b[^>]*class="cover"[^>]*>/.exec(html)?.[0];
+    expect(cover).toMatch(/width="900"/);
+    expect(cover).toMatch(/srcset="\/uploads\/[a-z0-9]+-thumb\.webp 480w/);
+    const [data] = jsonLdOf(html);
+    expect(schemaOrgProblems(data)).toEqual([]);
+    expect(data).toMatchObject({ '@type': 'BlogPosting', headline: post.title, image: [t.config.publicUrl + coverUrl] });
+  });
+
+  it('without a cover, a members-only post shows its summary and is shared with the site picture, a real image', async () => {
+    const { status, html } = await page(`/build-logs/${membersPost.slug}`);
+    expect(status).toBe(200);
+    expect(html).toContain('The wiring of the bay.');
+    expect(html).not.toContain(membersPost.secret);
     const ogImage = metaContent(html, 'og:image')!;
     expect(ogImage).toBe(`${t.config.publicUrl}/share-card.png`);
     const picture = await fetch(site.baseUrl + '/share-card.png');
     expect(picture.headers.get('content-type')).toBe('image/png');
+    expect((await sharp(Buffer.from(await picture.arrayBuffer())).metadata()).width).toBe(1200);
     const [data] = jsonLdOf(html);
     expect(schemaOrgProblems(data)).toEqual([]);
-    expect(data).toMatchObject({ '@type': 'BlogPosting', headline: post.title, image: [ogImage] });
+    expect(data).toMatchObject({ '@type': 'BlogPosting', isAccessibleForFree: false, image: [ogImage] });
   });
 
   it('answers 404 for a build log that does not exist, and for an address that leads nowhere', async () => {

@@ -9,6 +9,8 @@ export interface PostSummary {
   title: string;
   summary: string;
   coverUrl: string | null;
+  /** The uploaded cover's sizes and WebP thumbnail; null for a cover from elsewhere or none. */
+  cover?: { url: string; thumbnailUrl: string; width: number; height: number } | null;
   publishedAt: string;
   tags: string[];
   membersOnly: boolean;
@@ -17,8 +19,6 @@ export interface PostSummary {
 /** A published post as the page shows it; `html` is null when the body is for members. */
 export interface PostDetail extends PostSummary {
   author: string | null;
-  /** The uploaded cover's sizes and WebP thumbnail; null for a cover from elsewhere or none. */
-  cover?: { url: string; thumbnailUrl: string; width: number; height: number } | null;
   /** The last edit (never before publishing). */
   updatedAt?: string;
   html: string | null;
