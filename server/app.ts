@@ -1,6 +1,5 @@
 import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
-import path from 'node:path';
 import compression from 'compression';
 import express, { type Express, type Router } from 'express';
 import pinoHttp from 'pino-http';
@@ -18,9 +17,11 @@ import { csrfProtection } from './platform/csrf';
 import { rotateSessionOnRoleChange } from './platform/session-rotation';
 import { apiNotFound, errorHandler } from './platform/error-handler';
 import type { Mount, Platform } from './platform/feature';
-import { hstsOverHttps, noStore, permissionsPolicy, securityHeaders } from './platform/security-headers';
+import { cspNonce, hstsOverHttps, noStore, permissionsPolicy, securityHeaders } from './platform/security-headers';
 import { refuseUnstorableText } from './platform/text-guard';
 import { createSessionMiddleware } from './platform/session';
+import { PageRenderer } from './ssr/page-renderer';
+import { pageRoutes } from './ssr/page-routes';
 import { SettingsService } from './settings/settings-service';
 import { ImageUploads } from './uploads/image-uploads';
 import { storageFromConfig } from './uploads/storage-from-config';
@@ -57,6 +58,7 @@ export function createApp(deps: AppDeps): PadsideApp {
 
   app.disable('x-powered-by');
   app.set('trust proxy', deps.config.env === 'production' ? 1 : 'loopback');
+  app.use(cspNonce);
   app.use(securityHeaders({ stripeJs: deps.config.stripe.publishableKey !== null }));
   app.use(permissionsPolicy);
   app.use(hstsOverHttps);
@@ -103,14 +105,14 @@ export function createApp(deps: AppDeps): PadsideApp {
   for (const feature of features) feature.mountSite?.(siteMount);
 
   const browserDist = deps.config.browserDist;
+  const renderer = existsSync(browserDist) ? PageRenderer.forBuild(browserDist, deps.config.publicUrl) : null;
   if (existsSync(browserDist)) {
     // Only the app's own files are compressed: API answers carry the CSRF token beside text a user typed (BREACH).
     app.use(compression());
     // The build names its scripts, styles and fonts after their content, so those never change under one name.
     app.use(express.static(browserDist, { index: false, maxAge: '1h', setHeaders: (res, file) => HASHED_ASSET.test(file) && res.setHeader('Cache-Control', 'public, max-age=31536000, immutable') }));
-    app.get(/^\/(?!api\/|uploads\/).*/, function spaFallback(_req, res) {
-      res.sendFile(path.join(browserDist, 'index.html'));
-    });
+    // Public pages are rendered on the server (as a visitor), personal ones get the client-rendered shell.
+    app.get(/^\/(?!api\/|uploads\/).*/, pageRoutes(renderer, browserDist, deps.config.publicUrl));
   }
   app.use(errorHandler);
   app.jobs = [{ name: 'mail-sweep', cron: '*/5 * * * *', run: () => deps.mail.deliverDue() }, ...features.flatMap((f) => f.jobs ?? [])];
@@ -120,6 +122,7 @@ export function createApp(deps: AppDeps): PadsideApp {
     await auth.afterAnswer.settled();
     await sessions.pool.end();
     storage.close?.();
+    await renderer?.close();
   };
   return app;
 }

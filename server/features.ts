@@ -3,6 +3,7 @@ import { buildLogsFeature } from './build-logs/build-logs-feature';
 import { booksFeature } from './books/books-feature';
 import { launchesFeature } from './launches/launches-feature';
 import type { Feature, Platform } from './platform/feature';
+import { seoFeature } from './seo/seo-feature';
 import { shopFeature } from './shop/shop-feature';
 
 /** Every feature of Padside, in mounting order. Add one line per feature. */
@@ -14,5 +15,5 @@ export function buildFeatures(platform: Platform): Feature[] {
   const features: Feature[] = [buildLogs, membership, shopFeature(platform, otherCharges), launchesFeature(platform)];
   // The books read other features' numbers through what each feature offers the dashboard.
   const sources = Object.assign({}, ...features.map((f) => f.dashboard ?? {}));
-  return [...features, booksFeature(platform, () => sources)];
+  return [...features, booksFeature(platform, () => sources), seoFeature(platform)];
 }

@@ -21,7 +21,7 @@ export function buildLogsFeature(platform: Platform): Feature {
   const sponsors = new SponsorService(db, sponsorRepo, credits, platform.auth.users, platform.settings, sponsorTax);
   const today = clubToday(clock, config.clubTimeZone);
   const postRepo = new PostRepository(db);
-  const posts = new PostService(db, postRepo, sponsorRepo, credits);
+  const posts = new PostService(db, postRepo, sponsorRepo, credits, (urls) => platform.images.describe(urls));
   return {
     name: 'build-logs',
     mount(api) {

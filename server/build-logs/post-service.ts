@@ -7,6 +7,7 @@ import type { SponsorRepository } from '../sponsors/sponsor-repository';
 import { needsHazardNotice } from './hazard-rule';
 import type { PostRepository, PostRow, PostStatus, PostWrite } from './post-repository';
 import { slugify, uniqueSlug } from '../platform/slug';
+import type { StoredImage } from '../uploads/image-uploads';
 
 /** What an editor sends to create or replace a post. */
 export interface PostInput {
@@ -33,6 +34,8 @@ export class PostService {
     private readonly posts: PostRepository,
     private readonly sponsors: SponsorRepository,
     private readonly credits: CreditService,
+    /** Sizes and thumbnail of an uploaded cover, so the page can give it a srcset and reserve its space. */
+    private readonly describeImages: (urls: readonly string[]) => Promise<Map<string, StoredImage>> = async () => new Map(),
   ) {}
 
   async create(input: PostInput, authorId: number | null, now: Date): Promise<{ id: number; slug: string }> {
@@ -91,7 +94,8 @@ export class PostService {
 
   async publicPage(opts: { tag?: string; page: number; pageSize: number }) {
     const { items, total } = await this.posts.publishedPage(opts);
-    return { items: items.map((p) => ({ slug: p.slug, title: p.title, summary: p.summary, coverUrl: p.cover_url, publishedAt: p.published_at!.toISOString(), tags: p.tags, membersOnly: p.members_only })), total, page: opts.page, pageSize: opts.pageSize };
+    const covers = await this.describeImages(items.flatMap((p) => (p.cover_url ? [p.cover_url] : [])));
+    return { items: items.map((p) => ({ slug: p.slug, title: p.title, summary: p.summary, coverUrl: p.cover_url, cover: coverOf(covers, p.cover_url), publishedAt: p.published_at!.toISOString(), tags: p.tags, membersOnly: p.members_only })), total, page: opts.page, pageSize: opts.pageSize };
   }
 
   tags() {
@@ -109,9 +113,12 @@ export class PostService {
       title: p.title,
       summary: p.summary,
       coverUrl: p.cover_url,
+      cover: coverOf(p.cover_url ? await this.describeImages([p.cover_url]) : new Map(), p.cover_url),
       author: p.author_name ?? null,
       html: mayRead ? this.render(p, credits) : null,
       publishedAt: p.published_at!.toISOString(),
+      // The last edit, for the page's structured data and the sitemap; never before publishing.
+      updatedAt: new Date(Math.max(p.updated_at.getTime(), p.published_at!.getTime())).toISOString(),
       tags: p.tags,
       membersOnly: p.members_only,
       credits,
@@ -201,4 +208,10 @@ export class PostService {
       hazardRequested: input.hazardNotice ?? current?.hazard_requested ?? false,
     };
   }
+}
+
+/** An uploaded cover's sizes and thumbnail, for the page's srcset and reserved space; null for none or another host. */
+function coverOf(covers: Map<string, StoredImage>, url: string | null): { url: string; thumbnailUrl: string; width: number; height: number } | null {
+  const c = url ? covers.get(url) : undefined;
+  return c ? { url: c.url, thumbnailUrl: c.thumbnailUrl, width: c.width, height: c.height } : null;
 }

@@ -106,7 +106,7 @@ export class CatalogueRepository {
   }
 
   async updateProduct(id: number, patch: Partial<Pick<ProductRow, 'name' | 'description_md' | 'price_cents' | 'weight_grams' | 'size_chart' | 'images' | 'active' | 'max_per_order'>>): Promise<boolean> {
-    const row: Record<string, unknown> = { ...patch };
+    const row: Record<string, unknown> = { ...patch, updated_at: this.db.fn.now() };
     if (patch.size_chart !== undefined) row.size_chart = patch.size_chart ? JSON.stringify(patch.size_chart) : null;
     if (patch.images) row.images = JSON.stringify(patch.images);
     return (await this.db('shop_products').where('id', id).update(row)) > 0;

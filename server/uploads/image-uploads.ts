@@ -89,6 +89,13 @@ export class ImageUploads {
   }
 
   /** A stream of the stored bytes with their type; null for an unknown key. */
+  /** The stored images behind `/uploads/...` addresses (sizes, WebP thumbnail), by address; others are left out. */
+  async describe(urls: readonly string[]): Promise<Map<string, StoredImage>> {
+    const keys = urls.map((u) => /^\/uploads\/([A-Za-z0-9._-]{1,200})$/.exec(u)?.[1]).filter((k): k is string => !!k);
+    const rows = keys.length ? await this.db<UploadRow>('uploads').whereIn('key', keys).whereNotNull('thumbnail_key') : [];
+    return new Map(rows.map((r) => [`/uploads/${r.key}`, toStored(r)]));
+  }
+
   async read(key: string): Promise<{ body: Readable; length: number; contentType: string } | null> {
     const row = await this.db<UploadRow>('uploads').where('key', key).orWhere('thumbnail_key', key).first();
     if (!row) return null;

@@ -1,19 +1,23 @@
-import { ApplicationConfig, provideBrowserGlobalErrorListeners, provideZonelessChangeDetection, inject, provideAppInitializer } from '@angular/core';
-import { provideHttpClient, withInterceptors, withXsrfConfiguration } from '@angular/common/http';
+import { ApplicationConfig, provideBrowserGlobalErrorListeners, provideZonelessChangeDetection } from '@angular/core';
+import { provideHttpClient, withFetch, withInterceptors, withXsrfConfiguration } from '@angular/common/http';
+import { provideClientHydration, withEventReplay } from '@angular/platform-browser';
 import { provideRouter, withComponentInputBinding, withInMemoryScrolling } from '@angular/router';
 import { routes } from './app.routes';
 import { csrfInterceptor } from './core/csrf-interceptor';
 import { errorInterceptor } from './core/error-interceptor';
-import { SessionStore } from './core/session-store';
-import { SiteNames } from './core/site-names';
 
+/**
+ * Nothing waits for the API before the first paint: server-rendered pages arrive with their data (transfer state),
+ * SiteNames and SessionStore fill in as their answers come, and the guards wait for the session themselves.
+ */
 export const appConfig: ApplicationConfig = {
   providers: [
     provideBrowserGlobalErrorListeners(),
     provideZonelessChangeDetection(),
     provideRouter(routes, withComponentInputBinding(), withInMemoryScrolling({ scrollPositionRestoration: 'enabled' })),
     // Our own CSRF header (X-CSRF-Token from /api/auth/csrf) replaces Angular's cookie-based one.
-    provideHttpClient(withXsrfConfiguration({ cookieName: 'unused', headerName: 'unused' }), withInterceptors([csrfInterceptor, errorInterceptor])),
-    provideAppInitializer(() => Promise.all([inject(SessionStore).load(), inject(SiteNames).load()])),
+    provideHttpClient(withFetch(), withXsrfConfiguration({ cookieName: 'unused', headerName: 'unused' }), withInterceptors([csrfInterceptor, errorInterceptor])),
+    // A tap before the script has arrived is replayed once the page is live.
+    provideClientHydration(withEventReplay()),
   ],
 };

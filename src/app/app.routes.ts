@@ -2,7 +2,7 @@ import { Routes } from '@angular/router';
 import { staffGuard } from './core/role-guard';
 
 export const routes: Routes = [
-  { path: '', pathMatch: 'full', loadComponent: () => import('./shop/storefront').then((m) => m.Storefront), title: 'Padside — merch, dues and build logs' },
+  { path: '', pathMatch: 'full', loadComponent: () => import('./shop/storefront').then((m) => m.Storefront), title: 'Merch, club dues and build logs — Padside' },
   { path: 'shop', loadChildren: () => import('./shop/shop.routes').then((m) => m.shopRoutes) },
   { path: 'membership', loadChildren: () => import('./membership/membership.routes').then((m) => m.membershipRoutes) },
   { path: 'build-logs', loadChildren: () => import('./build-logs/build-logs.routes').then((m) => m.buildLogRoutes) },

@@ -1,6 +1,6 @@
 import type { RouteAccess } from './access-types';
 
-/** Routes of the foundation: health, site names, auth, account, accounts admin, uploads. */
+/** Routes of the foundation: health, site names, auth, account, accounts admin, uploads, sitemap and robots.txt. */
 export const foundationAccess: RouteAccess[] = [
   { method: 'GET', path: '/api/health', allow: 'public' },
   { method: 'GET', path: '/api/site', allow: 'public' },
@@ -22,4 +22,6 @@ export const foundationAccess: RouteAccess[] = [
   { method: 'POST', path: '/api/admin/uploads', allow: ['editor', 'treasurer', 'admin'] },
   { method: 'DELETE', path: '/api/admin/uploads/:key', allow: ['editor', 'treasurer', 'admin'] },
   { method: 'GET', path: '/uploads/:key', allow: 'public' },
+  { method: 'GET', path: '/sitemap.xml', allow: 'public' },
+  { method: 'GET', path: '/robots.txt', allow: 'public' },
 ];

@@ -4,14 +4,15 @@ import path from 'node:path';
 import request from 'supertest';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 
-// A stand-in build folder with the build's own naming: content hashes of eight capitals and digits.
+// A stand-in build folder with the build's own naming: content hashes of eight capitals and digits, and the
+// client-rendered shell (index.csr.html). It has no server bundle, so every page address gets the shell.
 const dist = mkdtempSync(path.join(tmpdir(), 'padside-dist-'));
 const script = `console.log(${JSON.stringify('padside '.repeat(400))});\n`;
 let t: TestApp;
 
 beforeAll(() => {
   mkdirSync(path.join(dist, 'media'));
-  writeFileSync(path.join(dist, 'index.html'), `<!doctype html><html><body>${'<p>Padside</p>'.repeat(200)}</body></html>`);
+  writeFileSync(path.join(dist, 'index.csr.html'), `<!doctype html><html><body>${'<p>Padside</p>'.repeat(200)}</body></html>`);
   writeFileSync(path.join(dist, 'main-K3QZ7A2B.js'), script);
   writeFileSync(path.join(dist, 'padside-mark.svg'), '<svg xmlns="http://www.w3.org/2000/svg"></svg>');
   writeFileSync(path.join(dist, 'media', 'montserrat-latin-400-normal-Q7WX2M4C.woff2'), Buffer.alloc(2048, 7));
@@ -47,7 +48,7 @@ describe('the app files', () => {
     expect(res.headers['cache-control']).toBe('public, max-age=31536000, immutable');
   });
 
-  it.each([['/padside-mark.svg'], ['/index.html']])('asks browsers to check %s again after an hour, its name being the same in every build', async (file) => {
+  it.each([['/padside-mark.svg'], ['/index.csr.html']])('asks browsers to check %s again after an hour, its name being the same in every build', async (file) => {
     const res = await request(t.app).get(file);
     expect(res.status).toBe(200);
     expect(res.headers['cache-control']).toBe('public, max-age=3600');

@@ -44,6 +44,8 @@ export class VerifyEmail implements OnInit {
     try {
       await firstValueFrom(this.api.verifyEmail(this.token()));
       this.state.set('done');
+      // The first read of the session may have answered before the confirmation: read it again once it has.
+      await this.session.ready;
       if (this.session.signedIn()) await this.session.load();
     } catch (err) {
       this.problem.set(apiErrorMessage(err));

@@ -9,6 +9,8 @@ export interface PostSummary {
   title: string;
   summary: string;
   coverUrl: string | null;
+  /** The uploaded cover's sizes and WebP thumbnail; null for a cover from elsewhere or none. */
+  cover?: { url: string; thumbnailUrl: string; width: number; height: number } | null;
   publishedAt: string;
   tags: string[];
   membersOnly: boolean;
@@ -17,6 +19,8 @@ export interface PostSummary {
 /** A published post as the page shows it; `html` is null when the body is for members. */
 export interface PostDetail extends PostSummary {
   author: string | null;
+  /** The last edit (never before publishing). */
+  updatedAt?: string;
   html: string | null;
   credits: { sponsorId: number; name: string; slug: string }[];
   hazardNotice: boolean;
@@ -37,8 +41,11 @@ export class BuildLogApi {
     return this.http.get<{ items: { tag: string; count: number }[] }>('/api/posts/tags');
   }
 
-  /** An unknown slug is the post page's to say ("not found"), not a snack bar's. */
-  get(slug: string): Observable<PostDetail> {
-    return this.http.get<PostDetail>(`/api/posts/${encodeURIComponent(slug)}`, { context: new HttpContext().set(QUIET_ERRORS, true) });
+  /**
+   * An unknown slug is the post page's to say ("not found"), not a snack bar's. `personal` (someone is signed in)
+   * skips the server render's visitor copy, so a member gets the members-only body.
+   */
+  get(slug: string, personal = false): Observable<PostDetail> {
+    return this.http.get<PostDetail>(`/api/posts/${encodeURIComponent(slug)}`, { context: new HttpContext().set(QUIET_ERRORS, true), transferCache: !personal });
   }
 }

@@ -7,6 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { EmptyState } from '../shared/empty-state';
 import { BuildLogApi } from './build-log-api';
+import { PageMeta } from '../core/page-meta';
 
 const PAGE_SIZE = 10;
 
@@ -19,6 +20,10 @@ const PAGE_SIZE = 10;
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PostList {
+  constructor() {
+    inject(PageMeta).describe({ title: 'Build logs', description: 'How the rockets, altimeters and videos are made, step by step.', path: '/build-logs', type: 'website' });
+  }
+
   private readonly api = inject(BuildLogApi);
   private readonly router = inject(Router);
 

@@ -9,10 +9,12 @@ import {
   EnvironmentInjector,
   afterRenderEffect,
   computed,
+  effect,
   createComponent,
   inject,
   input,
   type Type,
+  untracked,
   viewChild,
 } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
@@ -23,6 +25,9 @@ import { SessionStore } from '../core/session-store';
 import { BuildLogApi } from './build-log-api';
 import { HazardNotice } from './hazard-notice';
 import { SiteNames } from '../core/site-names';
+import { PageMeta, SHARE_IMAGE } from '../core/page-meta';
+import { notFoundStatus } from '../core/rendering/not-found-status';
+import { postData } from '../core/structured-data';
 import type { FlightEmbed } from '../flights/flight-embed';
 
 /**
@@ -44,8 +49,10 @@ export class PostPage {
   protected readonly site = inject(SiteNames);
 
   readonly slug = input.required<string>();
+  /** How wide the cover shows (the preload says the same). */
+  protected readonly coverSizes = '(max-width: 840px) 100vw, 800px';
 
-  protected readonly post = rxResource({ params: () => this.slug(), stream: ({ params }) => this.api.get(params) });
+  protected readonly post = rxResource({ params: () => this.slug(), stream: ({ params }) => this.api.get(params, this.session.signedIn()) });
   /**
    * The server's one Markdown pipeline has already sanitized this with its allow-list (and the CSP forbids inline
    * script); Angular's own sanitizer would also strip the task-list checkboxes that allow-list keeps.
@@ -63,6 +70,29 @@ export class PostPage {
   private readonly flightEmbeds = new Map<HTMLElement, ComponentRef<FlightEmbed>>();
 
   constructor() {
+    const meta = inject(PageMeta);
+    const answerNotFound = notFoundStatus();
+    effect(() => {
+      answerNotFound(this.post.error());
+      const p = this.post.hasValue() ? this.post.value() : undefined;
+      if (!p) return;
+      const path = `/build-logs/${p.slug}`;
+      const cover = p.cover ?? (p.coverUrl ? { url: p.coverUrl } : null);
+      const publisher = this.site.teamName() || 'Padside';
+      meta.describe({
+        title: p.title,
+        description: p.summary,
+        path,
+        type: 'article',
+        image: cover,
+        preload: p.cover ? { href: p.cover.url, srcset: `${p.cover.thumbnailUrl} 480w, ${p.cover.url} ${p.cover.width}w`, sizes: this.coverSizes } : null,
+        data: postData(p, meta.absolute(path), meta.absolute(cover?.url ?? SHARE_IMAGE.url), publisher),
+      });
+    });
+    // The server renders as a visitor: once the session says a member is here, a withheld body is fetched for them.
+    effect(() => {
+      if (this.session.signedIn() && untracked(() => this.post.hasValue() && this.post.value().html === null)) this.post.reload();
+    });
     // After each render of a new body: its placeholders are fresh elements, so the old embeds go and new ones come.
     afterRenderEffect(() => {
       this.body();

@@ -1,5 +1,6 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
-import { Injectable, computed, inject, signal } from '@angular/core';
+import { Injectable, PLATFORM_ID, computed, inject, signal } from '@angular/core';
+import { isPlatformBrowser } from '@angular/common';
 import { firstValueFrom } from 'rxjs';
 import { QUIET_ERRORS } from './error-interceptor';
 import { CsrfToken } from './csrf-token';
@@ -15,12 +16,17 @@ export class SessionStore {
   readonly user = this.current.asReadonly();
   readonly signedIn = computed(() => this.current() !== null);
   readonly isStaff = computed(() => this.hasAnyRole(STAFF_ROLES));
+  /**
+   * Settles once the first read of the session has answered. The server renders every page as a visitor, so there
+   * it settles at once and never asks; in the browser the first paint does not wait for it, only the guards do.
+   */
+  readonly ready: Promise<void> = isPlatformBrowser(inject(PLATFORM_ID)) ? this.load() : Promise.resolve();
 
   hasAnyRole(roles: readonly Role[]): boolean {
     return this.current()?.roles.some((r) => roles.includes(r)) ?? false;
   }
 
-  /** Reads the session once at start-up; `user: null` means nobody is signed in. */
+  /** Reads the session (at start-up, and again after a change elsewhere); `user: null` means nobody is signed in. */
   async load(): Promise<void> {
     try {
       const res = await firstValueFrom(this.http.get<{ user: User | null }>('/api/auth/me', { context: new HttpContext().set(QUIET_ERRORS, true) }));

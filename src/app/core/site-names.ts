@@ -1,6 +1,5 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
-import { firstValueFrom } from 'rxjs';
 
 /** The team and club this Padside serves, as `/api/site` returns them. */
 export interface SiteNamesView {
@@ -8,15 +7,19 @@ export interface SiteNamesView {
   clubName: string;
 }
 
-/** The team and club names, read once at start-up; the deployment sets them, so they never change while the app runs. */
+/**
+ * The team and club names, asked for when first needed; the deployment sets them, so they never change while the app
+ * runs. A server-rendered page carries the answer in its transfer state, so the browser has them before it paints.
+ */
 @Injectable({ providedIn: 'root' })
 export class SiteNames {
-  private readonly http = inject(HttpClient);
   private readonly names = signal<SiteNamesView>({ teamName: '', clubName: '' });
   readonly teamName = computed(() => this.names().teamName);
   readonly clubName = computed(() => this.names().clubName);
 
-  async load(): Promise<void> {
-    this.names.set(await firstValueFrom(this.http.get<SiteNamesView>('/api/site')));
+  constructor() {
+    inject(HttpClient)
+      .get<SiteNamesView>('/api/site')
+      .subscribe({ next: (names) => this.names.set(names), error: () => undefined });
   }
 }

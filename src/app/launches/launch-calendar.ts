@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { NgTemplateOutlet } from '@angular/common';
 import { RouterLink } from '@angular/router';
@@ -6,6 +6,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { EmptyState } from '../shared/empty-state';
 import { LaunchesApi, type Launch } from './launches-api';
+import { PageMeta } from '../core/page-meta';
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 
@@ -27,6 +28,10 @@ function isOver(l: Launch, today: string): boolean {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class LaunchCalendar {
+  constructor() {
+    inject(PageMeta).describe({ title: 'Launch days', description: 'Coming and recent club launch days, with a calendar feed to subscribe to.', path: '/launches', type: 'website' });
+  }
+
   private readonly api = inject(LaunchesApi);
   protected readonly launches = rxResource({ stream: () => this.api.list() });
   protected readonly timeZone = computed(() => this.launches.value()?.timeZone ?? '');
@@ -34,7 +39,7 @@ export class LaunchCalendar {
   /** A day closed after flying is over even on its own date: it goes with the recent ones, with its results. */
   protected readonly upcoming = computed(() => (this.launches.value()?.items ?? []).filter((l) => !isOver(l, this.today())));
   protected readonly past = computed(() => (this.launches.value()?.items ?? []).filter((l) => isOver(l, this.today())).reverse());
-  protected readonly feedUrl = `${typeof location === 'undefined' ? '' : location.origin}/feeds/launches.ics`;
+  protected readonly feedUrl = `${inject(DOCUMENT).location.origin}/feeds/launches.ics`;
   protected readonly webcalUrl = this.feedUrl.replace(/^https?:/, 'webcal:');
 
   protected month(l: Launch): string {

@@ -127,8 +127,9 @@ export class LaunchesApi {
   list(range: { from?: string } = {}): Observable<{ items: Launch[]; timeZone: string }> {
     return this.http.get<{ items: Launch[]; timeZone: string }>('/api/launches', { params: new HttpParams({ fromObject: { ...range } }) });
   }
-  show(id: number): Observable<{ launch: Launch; me: { going: boolean | null; checkedIn: boolean } | null; timeZone: string }> {
-    return this.http.get<{ launch: Launch; me: { going: boolean | null; checkedIn: boolean } | null; timeZone: string }>(`/api/launches/${id}`);
+  /** `personal` (someone is signed in) skips the server render's visitor copy, so `me` is the person's own reply. */
+  show(id: number, personal = false): Observable<{ launch: Launch; me: { going: boolean | null; checkedIn: boolean } | null; timeZone: string }> {
+    return this.http.get<{ launch: Launch; me: { going: boolean | null; checkedIn: boolean } | null; timeZone: string }>(`/api/launches/${id}`, { transferCache: !personal });
   }
   results(id: number): Observable<{ launch: Launch; flights: Flight[]; highest: Flight | null; outcomes: Record<string, number>; caution: string }> {
     return this.http.get<{ launch: Launch; flights: Flight[]; highest: Flight | null; outcomes: Record<string, number>; caution: string }>(`/api/launches/${id}/results`);

@@ -1,4 +1,5 @@
-import { Injectable, computed, effect, signal } from '@angular/core';
+import { isPlatformBrowser } from '@angular/common';
+import { Injectable, PLATFORM_ID, computed, effect, inject, signal } from '@angular/core';
 
 /** One line of the cart as the browser keeps it; prices shown here are only a guide until the server quotes. */
 export interface CartLine {
@@ -28,7 +29,9 @@ function load(): CartLine[] {
 /** The cart in signals, saved to localStorage so it survives a reload; the server checks it on every quote. */
 @Injectable({ providedIn: 'root' })
 export class CartStore {
-  private readonly state = signal<CartLine[]>(load());
+  /** The server renders as a visitor with nothing in the cart; the browser's own cart fills in when it starts. */
+  private readonly browser = isPlatformBrowser(inject(PLATFORM_ID));
+  private readonly state = signal<CartLine[]>(this.browser ? load() : []);
   readonly lines = this.state.asReadonly();
   readonly count = computed(() => this.state().reduce((s, l) => s + l.quantity, 0));
   readonly guideTotalCents = computed(() => this.state().reduce((s, l) => s + l.priceCents * l.quantity, 0));
@@ -38,7 +41,7 @@ export class CartStore {
   readonly panelOpen = signal(false);
 
   constructor() {
-    effect(() => localStorage.setItem(KEY, JSON.stringify(this.state())));
+    if (this.browser) effect(() => localStorage.setItem(KEY, JSON.stringify(this.state())));
   }
 
   /** Adds units, never past the line's per-order limit; returns how many the line now holds. */

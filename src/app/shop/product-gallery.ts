@@ -23,10 +23,14 @@ export class ProductGallery {
   protected readonly current = computed(() => this.images()[Math.min(this.index(), this.images().length - 1)] ?? null);
   private swipeFrom: number | null = null;
 
-  /** The srcset of one photo: its 480 px copy and the full image, both WebP when drawn by us. */
-  protected srcset(img: ProductImage): string {
+  /** The srcset of one photo: its 480 px WebP copy and the full image. */
+  static srcset(img: ProductImage): string {
     return img.width ? `${img.thumbnailUrl} 480w, ${img.url} ${img.width}w` : `${img.thumbnailUrl} 480w`;
   }
+  /** How wide the main photo shows (the page's preload says the same, so the browser fetches one copy). */
+  static readonly SIZES = '(max-width: 800px) 100vw, 50vw';
+  protected readonly srcset = ProductGallery.srcset;
+  protected readonly sizes = ProductGallery.SIZES;
 
   protected show(i: number): void {
     const n = this.images().length;

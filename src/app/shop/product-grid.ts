@@ -7,6 +7,7 @@ import { EmptyState } from '../shared/empty-state';
 import { MoneyPipe } from '../shared/money-pipe';
 import { RUN_STATE_LABELS, timeLeft } from './countdown';
 import { ShopApi } from './shop-api';
+import { PageMeta } from '../core/page-meta';
 
 /** Every product on sale, run products first with units left and time to close. */
 @Component({
@@ -17,6 +18,10 @@ import { ShopApi } from './shop-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ProductGrid {
+  constructor() {
+    inject(PageMeta).describe({ title: 'Merch', description: 'Limited-run merch: each run is printed once its order window closes.', path: '/shop', type: 'website' });
+  }
+
   private readonly api = inject(ShopApi);
   protected readonly products = rxResource({ stream: () => this.api.products() });
   protected readonly stateLabel = RUN_STATE_LABELS;

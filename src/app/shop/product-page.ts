@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
@@ -6,6 +6,10 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
+import { PageMeta, SHARE_IMAGE } from '../core/page-meta';
+import { notFoundStatus } from '../core/rendering/not-found-status';
+import { clip, plainText, productData } from '../core/structured-data';
+import { SiteNames } from '../core/site-names';
 import { MoneyPipe } from '../shared/money-pipe';
 import { CartPanel } from './cart-panel';
 import { ProductGallery } from './product-gallery';
@@ -51,6 +55,26 @@ export class ProductPage {
   });
 
   constructor() {
+    const meta = inject(PageMeta);
+    const site = inject(SiteNames);
+    const answerNotFound = notFoundStatus();
+    effect(() => {
+      answerNotFound(this.product.error());
+      const p = this.loaded();
+      if (!p) return;
+      const photo = p.images[0];
+      const path = `/shop/p/${p.slug}`;
+      const description = clip(plainText(p.descriptionHtml ?? '')) || p.name;
+      meta.describe({
+        title: p.name,
+        description,
+        path,
+        type: 'product',
+        image: photo ? { url: photo.url, width: photo.width, height: photo.height, alt: photo.alt } : null,
+        preload: photo ? { href: photo.url, srcset: ProductGallery.srcset(photo), sizes: ProductGallery.SIZES } : null,
+        data: productData(p, meta.absolute(path), (p.images.length ? p.images.map((i) => i.url) : [SHARE_IMAGE.url]).map((u) => meta.absolute(u)), site.teamName()),
+      });
+    });
     const timer = setInterval(() => this.now.set(Date.now()), 30_000);
     inject(DestroyRef).onDestroy(() => clearInterval(timer));
   }

@@ -4,6 +4,7 @@ import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { timeLeft } from './countdown';
 import { ShopApi } from './shop-api';
+import { PageMeta } from '../core/page-meta';
 
 /** The home page: what Padside is for, the way into each part, and the run that is open now. */
 @Component({
@@ -35,6 +36,10 @@ import { ShopApi } from './shop-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class Storefront {
+  constructor() {
+    inject(PageMeta).describe({ title: 'Merch, club dues and build logs', description: 'Season merch in limited runs, club dues, and the build logs our sponsors make possible.', path: '/', type: 'website' });
+  }
+
   private readonly api = inject(ShopApi);
   private readonly products = rxResource({ stream: () => this.api.products() });
   /** The open run to show, one with photos first. */

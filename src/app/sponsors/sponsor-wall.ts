@@ -4,6 +4,7 @@ import { RouterLink } from '@angular/router';
 import { SiteNames } from '../core/site-names';
 import { EmptyState } from '../shared/empty-state';
 import { SponsorApi } from './sponsor-api';
+import { PageMeta } from '../core/page-meta';
 
 /** The public thank-you page: this season's sponsors grouped by tier, each with the build logs that credit it. */
 @Component({
@@ -60,6 +61,10 @@ import { SponsorApi } from './sponsor-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SponsorWall {
+  constructor() {
+    inject(PageMeta).describe({ title: 'Sponsors', description: 'The businesses that back the team with cash, parts and know-how this season.', path: '/sponsors', type: 'website' });
+  }
+
   private readonly api = inject(SponsorApi);
   protected readonly site = inject(SiteNames);
   protected readonly wall = rxResource({ stream: () => this.api.wall() });

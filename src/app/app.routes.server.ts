@@ -1,0 +1,20 @@
+import { RenderMode, type ServerRoute } from '@angular/ssr';
+
+/** The public pages people share and search engines read: rendered on the server, as a visitor. */
+const PUBLIC = ['', 'shop', 'shop/p/:slug', 'build-logs', 'build-logs/:slug', 'sponsors', 'launches', 'launches/:id'];
+
+/** Personal pages (console, account, cart and checkout, orders, dues, the sponsor portal): browser only. */
+const PERSONAL = [
+  'console/**', 'account/**', 'membership/**', 'shop/cart', 'shop/checkout', 'shop/orders', 'shop/orders/**',
+  'sponsors/portal', 'launches/flights/:id', 'launches/:id/results', 'launches/:id/card',
+];
+
+/**
+ * Which pages the server renders and which stay client-rendered. Any other address is the not-found page, rendered
+ * on the server with status 404; a product or post that does not exist sets its own 404 (`not-found-status.ts`).
+ */
+export const serverRoutes: ServerRoute[] = [
+  ...PUBLIC.map((path): ServerRoute => ({ path, renderMode: RenderMode.Server })),
+  ...PERSONAL.map((path): ServerRoute => ({ path, renderMode: RenderMode.Client })),
+  { path: '**', renderMode: RenderMode.Server, status: 404 },
+];
