@@ -59,9 +59,10 @@ export class AnnouncementRepository {
     return row;
   }
 
-  async page(page: number, pageSize: number): Promise<{ rows: AnnouncementRow[]; total: number }> {
+  async page(q: { page: number; pageSize: number; sort: 'created' | 'subject' | 'topic'; dir: 'asc' | 'desc' }): Promise<{ rows: AnnouncementRow[]; total: number }> {
     const [{ count }] = await this.db('announcements').count<{ count: string }[]>('* as count');
-    const rows = await this.db('announcements').orderBy('id', 'desc').limit(pageSize).offset((page - 1) * pageSize);
+    const column = { created: 'id', subject: 'subject', topic: 'topic' }[q.sort];
+    const rows = await this.db('announcements').orderBy([{ column, order: q.dir }, { column: 'id', order: 'desc' }]).limit(q.pageSize).offset((q.page - 1) * q.pageSize);
     return { rows, total: Number(count) };
   }
 

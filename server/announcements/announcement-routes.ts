@@ -46,8 +46,7 @@ export function announcementAdminRoutes(announcements: AnnouncementService): Rou
   const r = Router();
   r.use(requireRole('editor', 'admin'));
   r.get('/', async function listAnnouncements(req, res) {
-    const q = parse(AnnouncementListQuery, req.query);
-    res.json(await announcements.list(q.page, q.pageSize));
+    res.json(await announcements.list(parse(AnnouncementListQuery, req.query)));
   });
   r.post('/', async function createAnnouncement(req, res) {
     res.status(201).json(await announcements.create(parse(NewAnnouncementSchema, req.body), req.user!.id));

@@ -27,4 +27,9 @@ export const NewAnnouncementSchema = z.strictObject({ topic, subject, markdown }
 export const AnnouncementPatchSchema = NewAnnouncementSchema.partial();
 
 /** GET /api/admin/announcements. */
-export const AnnouncementListQuery = z.strictObject({ page: fields.page, pageSize: fields.pageSize });
+export const AnnouncementListQuery = z.strictObject({
+  page: fields.page,
+  pageSize: fields.pageSize,
+  sort: z.enum(['created', 'subject', 'topic'], { error: 'Sort by created, subject or topic.' }).default('created'),
+  dir: z.enum(['asc', 'desc'], { error: 'asc or desc.' }).default('desc'),
+});

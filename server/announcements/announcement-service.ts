@@ -45,10 +45,10 @@ export class AnnouncementService {
     });
   }
 
-  async list(page: number, pageSize: number) {
-    const { rows, total } = await this.repo.page(page, pageSize);
+  async list(q: { page: number; pageSize: number; sort: 'created' | 'subject' | 'topic'; dir: 'asc' | 'desc' }) {
+    const { rows, total } = await this.repo.page(q);
     const counts = await this.repo.counts(rows.map((r) => Number(r.id)));
-    return { items: rows.map((r) => this.toView(r, counts.get(Number(r.id))!)), total, page, pageSize };
+    return { items: rows.map((r) => this.toView(r, counts.get(Number(r.id))!)), total, page: q.page, pageSize: q.pageSize };
   }
 
   async show(id: number) {

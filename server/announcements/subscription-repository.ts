@@ -137,9 +137,13 @@ export class SubscriptionRepository {
       .select('email', trx.raw('MIN(confirmed_at) AS since'));
   }
 
-  /** The latest implied consent date of each address, per basis. */
+  /** The latest implied consent date of each address, per basis; an account that turned off news mail has none. */
   impliedConsents(trx: Knex | Knex.Transaction, bases: ImpliedBasis[]): Promise<{ email: string; basis: ImpliedBasis; basis_on: string }[]> {
-    return trx('implied_consents').whereIn('basis', bases).groupBy('email', 'basis').select('email', 'basis', trx.raw("to_char(MAX(basis_on), 'YYYY-MM-DD') AS basis_on"));
+    return trx('implied_consents as ic')
+      .whereIn('ic.basis', bases)
+      .whereNotExists((q) => q.select(1).from('users as u').whereRaw('lower(u.email) = ic.email').andWhere('u.marketing_opt_out', true))
+      .groupBy('ic.email', 'ic.basis')
+      .select('ic.email', 'ic.basis', trx.raw("to_char(MAX(ic.basis_on), 'YYYY-MM-DD') AS basis_on"));
   }
 
   /**
