@@ -1,5 +1,4 @@
 import type { Knex } from 'knex';
-import { SuppressionList } from '../mail/suppression-list';
 import { dateInZone } from '../platform/clock';
 import { IMPLIED_TOPICS, impliedConsentHolds, type ImpliedBasis } from './implied-consent';
 import type { SubscriptionRepository } from './subscription-repository';
@@ -11,23 +10,21 @@ export interface Recipient {
   why: string;
 }
 
-/** Who receives a list today: express consent, then implied consent that has not lapsed, less the suppression list. */
+/**
+ * Who may receive a list today: express consent, then implied consent that has not lapsed. The suppression list is
+ * applied when the mail is queued (CommercialMailer) and again when it is sent.
+ */
 export class AnnouncementAudience {
-  private readonly suppressions: SuppressionList;
-
   constructor(
-    db: Knex,
     private readonly subscriptions: SubscriptionRepository,
     private readonly site: { teamName: string; clubName: string; timeZone: string },
-  ) {
-    this.suppressions = new SuppressionList(db);
-  }
+  ) {}
 
   /**
    * The recipients of a list on `today`. `productId` (drop notices) keeps the drop requests for that product or for
-   * every product, and only express consent: people asked for those notices. Returns the suppressed count as well.
+   * every product, and only express consent: people asked for those notices.
    */
-  async of(trx: Knex.Transaction, topic: Topic, today: string, opts: { productId?: number; expressOnly?: boolean } = {}): Promise<{ recipients: Recipient[]; suppressed: number }> {
+  async of(trx: Knex.Transaction, topic: Topic, today: string, opts: { productId?: number; expressOnly?: boolean } = {}): Promise<Recipient[]> {
     const byEmail = new Map<string, Recipient>();
     for (const r of await this.subscriptions.expressAudience(trx, topic, opts.productId)) {
       byEmail.set(r.email, { email: r.email, why: `you asked for e-mails about ${TOPIC_LABELS[topic]} on ${dateInZone(new Date(r.since), this.site.timeZone)}` });
@@ -40,8 +37,6 @@ export class AnnouncementAudience {
         byEmail.set(r.email, { email: r.email, why });
       }
     }
-    const blocked = await this.suppressions.emailsFor(topic, trx);
-    const recipients = [...byEmail.values()].filter((r) => !blocked.has(r.email));
-    return { recipients, suppressed: byEmail.size - recipients.length };
+    return [...byEmail.values()];
   }
 }

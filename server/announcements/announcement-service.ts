@@ -1,15 +1,15 @@
 import type { Knex } from 'knex';
-import { enqueueEmail, enqueueEmails } from '../mail/outbox';
+import { enqueueEmail } from '../mail/outbox';
 import { conflict, notFound } from '../platform/app-error';
 import { dateInZone, type Clock } from '../platform/clock';
 import type { SettingsService } from '../settings/settings-service';
 import type { AnnouncementAudience, Recipient } from './announcement-audience';
 import type { AnnouncementRepository, AnnouncementRow, DeliveryCounts } from './announcement-repository';
 import { ANNOUNCEMENT_SETTINGS, type AnnouncementSettings } from './announcement-settings';
-import { commercialMail, type CommercialContent, type SenderIdentity } from './commercial-mail';
+import type { CommercialContent } from './commercial-mail';
+import type { CommercialMailer } from './commercial-mailer';
 import type { SubscriptionRepository } from './subscription-repository';
 import type { Topic } from './topics';
-import type { UnsubscribeTokens } from './unsubscribe-token';
 
 export interface AnnouncementSite {
   teamName: string;
@@ -24,7 +24,7 @@ export class AnnouncementService {
     private readonly repo: AnnouncementRepository,
     private readonly subscriptions: SubscriptionRepository,
     private readonly audience: AnnouncementAudience,
-    private readonly tokens: UnsubscribeTokens,
+    private readonly mailer: CommercialMailer,
     private readonly settings: SettingsService,
     private readonly clock: Clock,
     private readonly site: AnnouncementSite,
@@ -58,7 +58,7 @@ export class AnnouncementService {
   /** The mail exactly as a recipient gets it, addressed to the staff member looking at it. */
   async preview(id: number, viewerEmail: string) {
     const row = await this.found(id);
-    const mail = commercialMail(this.content(row), this.recipientLinks({ email: viewerEmail, why: 'you asked for this list (each recipient sees their own reason here)' }, row.topic), await this.sender());
+    const mail = this.mailer.mailFor(this.content(row), { email: viewerEmail, why: 'you asked for this list (each recipient sees their own reason here)' }, await this.mailer.sender());
     return { subject: mail.subject, text: mail.text, html: mail.html, headers: mail.headers };
   }
 
@@ -67,7 +67,7 @@ export class AnnouncementService {
     const row = await this.found(id);
     const content = { ...this.content(row), subject: `[Test] ${row.subject}`, announcementId: undefined, template: 'announcement-test' };
     await this.db.transaction(async (trx) => {
-      await enqueueEmail(trx, commercialMail(content, this.recipientLinks({ email, why: 'you sent yourself a test of this announcement' }, row.topic), await this.sender(trx)));
+      await enqueueEmail(trx, this.mailer.mailFor(content, { email, why: 'you sent yourself a test of this announcement' }, await this.mailer.sender(trx)));
     });
     return { to: email };
   }
@@ -82,9 +82,8 @@ export class AnnouncementService {
       const locked = await this.repo.lockById(trx, id);
       if (!locked) throw notFound('No such announcement.');
       if (locked.status !== 'draft') throw conflict('already_sent', 'This announcement is already being sent.');
-      const { recipients, suppressed } = await this.audience.of(trx, locked.topic, this.today());
-      await this.queue(trx, locked, recipients);
-      return this.repo.update(trx, id, { status: 'sending', sent_at: this.clock.now(), recipients: recipients.length, skipped_suppressed: suppressed });
+      const { queued, suppressed } = await this.queue(trx, locked, await this.audience.of(trx, locked.topic, this.today()));
+      return this.repo.update(trx, id, { status: 'sending', sent_at: this.clock.now(), recipients: queued, skipped_suppressed: suppressed });
     });
     return { announcement: await this.view(row) };
   }
@@ -113,9 +112,8 @@ export class AnnouncementService {
           .returning('*');
         if (inserted.length === 0) return;
         const notice = inserted[0] as AnnouncementRow;
-        const { recipients, suppressed } = await this.audience.of(trx, 'drops', this.today(), { productId: Number(run.product_id), expressOnly: true });
-        await this.queue(trx, notice, recipients);
-        await this.repo.update(trx, notice.id, { recipients: recipients.length, skipped_suppressed: suppressed });
+        const { queued, suppressed } = await this.queue(trx, notice, await this.audience.of(trx, 'drops', this.today(), { productId: Number(run.product_id), expressOnly: true }));
+        await this.repo.update(trx, notice.id, { recipients: queued, skipped_suppressed: suppressed });
         sent++;
       });
     }
@@ -130,24 +128,14 @@ export class AnnouncementService {
     return this.settings.put(ANNOUNCEMENT_SETTINGS, value);
   }
 
-  private async queue(trx: Knex.Transaction, row: AnnouncementRow, recipients: Recipient[]): Promise<void> {
-    const sender = await this.sender(trx);
+  private queue(trx: Knex.Transaction, row: AnnouncementRow, recipients: Recipient[]) {
     const content = this.content(row);
     // The dedupe key makes each address once-only for this announcement, however often the queueing runs.
-    await enqueueEmails(trx, recipients.map((r) => commercialMail(content, this.recipientLinks(r, row.topic), sender, `announcement:${row.id}:${r.email}`)));
+    return this.mailer.queue(trx, row.topic, recipients, (r) => ({ content, dedupeKey: `announcement:${row.id}:${r.email}` }));
   }
 
   private content(row: AnnouncementRow): CommercialContent {
     return { topic: row.topic, subject: row.subject, markdown: row.markdown, template: row.kind === 'drop_notice' ? 'drop-notice' : 'announcement', announcementId: Number(row.id) };
-  }
-
-  private recipientLinks(r: Recipient, topic: Topic) {
-    return { ...r, oneClickUrl: this.tokens.oneClickUrl(r.email, topic), pageUrl: this.tokens.pageUrl(r.email, topic) };
-  }
-
-  private async sender(trx: Knex | Knex.Transaction = this.db): Promise<SenderIdentity> {
-    const s = await this.settings.get(ANNOUNCEMENT_SETTINGS, trx);
-    return { teamName: this.site.teamName, mailingAddress: s.mailingAddress, contactEmail: s.contactEmail };
   }
 
   private today(): string {

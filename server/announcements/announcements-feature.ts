@@ -3,6 +3,7 @@ import { AnnouncementAudience } from './announcement-audience';
 import { AnnouncementRepository } from './announcement-repository';
 import { accountSubscriptionRoutes, announcementAdminRoutes, subscriptionRoutes } from './announcement-routes';
 import { AnnouncementService } from './announcement-service';
+import { commercialMailer } from './commercial-mailer';
 import { SubscriptionRepository } from './subscription-repository';
 import { SubscriptionService } from './subscription-service';
 import { UnsubscribeTokens } from './unsubscribe-token';
@@ -13,8 +14,9 @@ export function announcementsFeature(platform: Platform): Feature {
   const tokens = new UnsubscribeTokens(config.sessionSecret, config.publicUrl);
   const subscriptionRepo = new SubscriptionRepository(db);
   const subscriptions = new SubscriptionService(db, subscriptionRepo, tokens, platform.auth.afterAnswer, clock, { teamName: config.site.teamName, publicUrl: config.publicUrl });
-  const audience = new AnnouncementAudience(db, subscriptionRepo, { teamName: config.site.teamName, clubName: config.site.clubName, timeZone: config.clubTimeZone });
-  const announcements = new AnnouncementService(db, new AnnouncementRepository(db), subscriptionRepo, audience, tokens, platform.settings, clock, {
+  const audience = new AnnouncementAudience(subscriptionRepo, { teamName: config.site.teamName, clubName: config.site.clubName, timeZone: config.clubTimeZone });
+  const mailer = commercialMailer(platform);
+  const announcements = new AnnouncementService(db, new AnnouncementRepository(db), subscriptionRepo, audience, mailer, platform.settings, clock, {
     teamName: config.site.teamName,
     publicUrl: config.publicUrl,
     timeZone: config.clubTimeZone,

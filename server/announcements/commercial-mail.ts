@@ -1,6 +1,6 @@
 import { escapeHtml, renderMarkdown } from '../markdown/render-markdown';
 import type { OutgoingEmail } from '../mail/outbox';
-import { TOPIC_LABELS, type Topic } from './topics';
+import { TOPIC_LABELS, type MailList } from './topics';
 
 /** Who the mail comes from, as the footer names them. */
 export interface SenderIdentity {
@@ -11,7 +11,7 @@ export interface SenderIdentity {
 
 /** One commercial message's content, the same for every recipient. */
 export interface CommercialContent {
-  topic: Topic;
+  topic: MailList;
   subject: string;
   markdown: string;
   template: string;
@@ -27,7 +27,7 @@ export interface CommercialRecipient {
 }
 
 /** The footer lines every commercial message ends with: why, who sent it and where, and how to stop it. */
-export function commercialFooter(topic: Topic, r: CommercialRecipient, sender: SenderIdentity): string[] {
+export function commercialFooter(topic: MailList, r: CommercialRecipient, sender: SenderIdentity): string[] {
   return [
     `You get this because ${r.why}.`,
     `Sent by ${sender.teamName}, ${sender.mailingAddress}. Contact: ${sender.contactEmail}.`,

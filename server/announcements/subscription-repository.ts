@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { ImpliedBasis } from './implied-consent';
-import type { Topic } from './topics';
+import type { MailList, Topic } from './topics';
 
 /** One express consent record, as stored. */
 export interface SubscriptionRow {
@@ -101,7 +101,7 @@ export class SubscriptionRepository {
   }
 
   /** Withdraws every live consent of an address for a list (or for all lists); returns how many there were. */
-  async withdraw(trx: Knex | Knex.Transaction, email: string, topic: Topic | null, at: Date, how: string): Promise<number> {
+  async withdraw(trx: Knex | Knex.Transaction, email: string, topic: MailList | null, at: Date, how: string): Promise<number> {
     return trx('subscriptions')
       .where('email', email)
       .modify((q) => topic && q.where('topic', topic))

@@ -9,7 +9,7 @@ import { FailureLimiter } from '../platform/rate-limit';
 import { CONSENT_WORDING } from './consent-wording';
 import { confirmSubscriptionMail } from './subscription-mail';
 import type { SubscriptionRepository } from './subscription-repository';
-import { TOPIC_LABELS, TOPICS, type Topic } from './topics';
+import { TOPIC_LABELS, TOPICS, type MailList, type Topic } from './topics';
 import type { UnsubscribeTokens } from './unsubscribe-token';
 
 const CONFIRM_TTL_DAYS = 7;
@@ -109,7 +109,7 @@ export class SubscriptionService {
   }
 
   /** Stops a list for an address at once: consents withdrawn, and the address suppressed for that list. */
-  async unsubscribe(token: string, how: 'one-click' | 'page' | 'account'): Promise<{ email: string; topic: Topic; label: string }> {
+  async unsubscribe(token: string, how: 'one-click' | 'page' | 'account'): Promise<{ email: string; topic: MailList; label: string }> {
     const who = this.readToken(token);
     await this.withdraw(who.email, who.topic, how);
     return { ...who, label: TOPIC_LABELS[who.topic] };
@@ -132,7 +132,7 @@ export class SubscriptionService {
     };
   }
 
-  private async withdraw(email: string, topic: Topic, how: string): Promise<void> {
+  private async withdraw(email: string, topic: MailList, how: string): Promise<void> {
     await this.db.transaction(async (trx) => {
       await this.repo.withdraw(trx, email, topic, this.clock.now(), how);
       await this.suppressions.add(email, 'unsubscribed', { list: topic, detail: how }, trx);

@@ -1,5 +1,5 @@
 import { createHmac, timingSafeEqual } from 'node:crypto';
-import { isTopic, type Topic } from './topics';
+import { isMailList, type MailList } from './topics';
 
 /** A distinct label, so this key never equals the session key or any other key derived from the same secret. */
 const DERIVATION_LABEL = 'padside/announcements/unsubscribe/v1';
@@ -19,30 +19,30 @@ export class UnsubscribeTokens {
     this.key = createHmac('sha256', sessionSecret).update(DERIVATION_LABEL).digest();
   }
 
-  tokenFor(email: string, topic: Topic): string {
+  tokenFor(email: string, topic: MailList): string {
     const body = Buffer.from(`${email.trim().toLowerCase()}\n${topic}`).toString('base64url');
     return `${body}.${this.sign(body)}`;
   }
 
   /** The one-click address for the `List-Unsubscribe` header (RFC 8058: POST without a session). */
-  oneClickUrl(email: string, topic: Topic): string {
+  oneClickUrl(email: string, topic: MailList): string {
     return `${this.publicUrl}/api/subscriptions/unsubscribe?token=${this.tokenFor(email, topic)}`;
   }
 
   /** The page the footer links to: it shows the list and stops it with one button. */
-  pageUrl(email: string, topic: Topic): string {
+  pageUrl(email: string, topic: MailList): string {
     return `${this.publicUrl}/subscriptions/unsubscribe?token=${this.tokenFor(email, topic)}`;
   }
 
   /** The address and list a token was made for, or null when it was not made here. */
-  read(token: string): { email: string; topic: Topic } | null {
+  read(token: string): { email: string; topic: MailList } | null {
     const [body, sig] = token.split('.');
     if (!body || !sig) return null;
     const expected = Buffer.from(this.sign(body));
     const given = Buffer.from(sig);
     if (given.length !== expected.length || !timingSafeEqual(given, expected)) return null;
     const [email, topic] = Buffer.from(body, 'base64url').toString('utf8').split('\n');
-    return email && topic && isTopic(topic) ? { email, topic } : null;
+    return email && topic && isMailList(topic) ? { email, topic } : null;
   }
 
   private sign(body: string): string {
