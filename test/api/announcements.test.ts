@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { withdrawAllConsents } from '../../server/announcements/consent-withdrawal';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, signedIn } from '../helpers/users';
 import { address, announcementMail, confirmedSubscriber, confirmToken, oneClickUrl, signUp } from './announcement-fixtures';
@@ -280,8 +281,9 @@ describe('implied consent from a purchase', () => {
 describe('headers on the wire', () => {
   it('are on every commercial message and absent from receipts and confirmations', async () => {
     const email = address('wire');
-    await confirmedSubscriber(t.app, visitor, t.deps.db, email, ['drops']);
     const shirt = await openShirt(admin);
+    // Drops of this product only: other files' runs open all the time and bring their own drop notices.
+    await confirmedSubscriber(t.app, visitor, t.deps.db, email, ['drops'], shirt.id);
     const buyer = new Client(t.app);
     const order = await buyer.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(buyer, 'canada'), email, paymentToken: 'tok_visa' });
     expect(order.status).toBe(201);
@@ -309,5 +311,44 @@ describe('headers on the wire', () => {
       expect(Boolean(m.headers['list-unsubscribe'])).toBe(commercialOnWire);
       expect(m.headers['list-unsubscribe-post'] ?? null).toBe(commercialOnWire ? 'List-Unsubscribe=One-Click' : null);
     }
+  });
+});
+
+describe('withdrawAllConsents (account deletion)', () => {
+  it('withdraws every list and implied consent of the address, so no later announcement reaches it', async () => {
+    const email = address('deleted');
+    await confirmedSubscriber(t.app, visitor, t.deps.db, email, ['drops', 'launches']);
+    await t.deps.db('implied_consents').insert({ email, basis: 'purchase', basis_ref: `test-${email}`, basis_on: new Date().toISOString().slice(0, 10) });
+    await t.deps.db.transaction((trx) => withdrawAllConsents(trx, email, new Date(), 'account-deleted'));
+    expect((await t.deps.db('subscriptions').where('email', email)).every((r) => r.withdrawn_how === 'account-deleted')).toBe(true);
+    expect(await t.deps.db('implied_consents').where('email', email)).toHaveLength(0);
+    for (const topic of ['drops', 'launches']) {
+      const a = await sendNow((await draft(topic)).id);
+      expect(await announcementMail(t.deps.db, email, a.id)).toHaveLength(0);
+    }
+  });
+});
+
+describe('the drop-notices job', () => {
+  it('sends each opened run’s notice once, to those who asked for that product or for every drop', async () => {
+    const forP = address('drop-p');
+    const forAll = address('drop-all');
+    const p = await openShirt(admin);
+    const q = await openShirt(admin);
+    await confirmedSubscriber(t.app, visitor, t.deps.db, forP, ['drops'], p.id);
+    await confirmedSubscriber(t.app, visitor, t.deps.db, forAll, ['drops']);
+    const job = t.app.jobs.find((j) => j.name === 'drop-notices')!;
+    await job.run();
+    await job.run();
+    const notices = await t.deps.db('announcements').whereIn('run_id', [p.run.id, q.run.id]);
+    expect(notices).toHaveLength(2);
+    const of = (run: number) => Number(notices.find((n) => Number(n.run_id) === run)!.id);
+    expect(await announcementMail(t.deps.db, forP, of(p.run.id))).toHaveLength(1);
+    expect(await announcementMail(t.deps.db, forP, of(q.run.id))).toHaveLength(0);
+    expect(await announcementMail(t.deps.db, forAll, of(p.run.id))).toHaveLength(1);
+    expect(await announcementMail(t.deps.db, forAll, of(q.run.id))).toHaveLength(1);
+    const [mail] = await announcementMail(t.deps.db, forP, of(p.run.id));
+    expect(mail.subject).toMatch(/is open$/);
+    expect(mail.text_body).toContain(`/shop/p/${p.slug}`);
   });
 });

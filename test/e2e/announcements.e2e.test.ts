@@ -3,7 +3,8 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launchBrowser, recordRequests, screenshot, serve, signInThroughForm } from '../helpers/browser';
 import { firstLink, waitForEmails } from '../helpers/maildev';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
-import { createUser } from '../helpers/users';
+import { Client, createUser } from '../helpers/users';
+import { openShirt } from '../api/shop-fixtures';
 
 const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 // A common 6.1-inch phone screen, in CSS pixels.
@@ -146,5 +147,39 @@ describe('announcements on a phone', () => {
     expect(staff.errors).toEqual([]);
     await visitor.context.close();
     await staff.context.close();
+  });
+
+  it('asks to be told about the next run on a closed run’s product page, and lists it on the account page', async () => {
+    const admin = await createUser(t.deps.db, ['fan', 'admin'], 'Run Admin');
+    const staff = new Client(t.app);
+    await staff.signIn(admin);
+    const shirt = await openShirt(staff);
+    // The run closed yesterday.
+    await t.deps.db('shop_runs').where('id', shirt.run.id).update({ opens_at: new Date(Date.now() - 3 * 86_400_000), closes_at: new Date(Date.now() - 86_400_000) });
+    const fan = await createUser(t.deps.db, ['fan'], 'Ilse Prairiewind');
+
+    const visitor = await phone();
+    await signInThroughForm(visitor.page, site.baseUrl, fan.email, fan.password);
+    await visitor.page.goto(`${site.baseUrl}/shop/p/${shirt.slug}`);
+    await visitor.page.getByRole('heading', { name: 'Tell me when the next run opens' }).waitFor();
+    const box = visitor.page.getByRole('checkbox', { name: /the next run of Test shirt/ });
+    expect(await box.isChecked()).toBe(true);
+    expect(await seriousViolations(visitor.page)).toEqual([]);
+    await visitor.page.getByLabel('E-mail').fill(fan.email);
+    await visitor.page.getByRole('button', { name: 'Tell me' }).click();
+    await visitor.page.getByTestId('sign-up-sent').waitFor();
+    await screenshot(visitor.page, 'announcements-phone-product');
+    await t.app.platform.auth.afterAnswer.settled();
+    const [row] = await t.deps.db('subscriptions').where({ email: fan.email });
+    expect(row).toEqual(expect.objectContaining({ topic: 'drops', product_id: String(shirt.id), source_page: 'product', confirmed_at: null }));
+
+    // The account page shows the request waiting for its confirmation.
+    await visitor.page.goto(`${site.baseUrl}/account`);
+    await visitor.page.getByRole('heading', { name: 'E-mail lists' }).waitFor();
+    await visitor.page.getByText(/The next run of Test shirt .* waiting for your confirmation/).waitFor();
+    expect(await seriousViolations(visitor.page)).toEqual([]);
+    await screenshot(visitor.page, 'announcements-phone-account');
+    expect(visitor.errors).toEqual([]);
+    await visitor.context.close();
   });
 });

@@ -41,14 +41,14 @@ describe('SignUpForm', () => {
   }
 
   const tick = (el: HTMLElement, label: string) => {
-    const box = [...el.querySelectorAll('mat-checkbox')].find((b) => b.textContent?.includes(label))!;
-    box.querySelector<HTMLInputElement>('input')!.click();
+    const box = Array.from(el.querySelectorAll('mat-checkbox')).find((b) => b.textContent?.includes(label))!;
+    (box.querySelector('input') as HTMLInputElement).click();
   };
 
   it('should show the consent wording and every list', async () => {
     const el = await open();
     expect(el.textContent).toContain(WORDING.text);
-    expect([...el.querySelectorAll('mat-checkbox')].map((b) => b.textContent?.trim())).toEqual(['new runs and drops', 'launch days', 'new build logs']);
+    expect(Array.from(el.querySelectorAll('mat-checkbox')).map((b) => b.textContent?.trim())).toEqual(['new runs and drops', 'launch days', 'new build logs']);
   });
 
   it('should ask for a list before sending anything', async () => {
@@ -74,7 +74,7 @@ describe('SignUpForm', () => {
 
   it('should offer only the next run of a product on its page, and send the product', async () => {
     const el = await open({ page: 'product', productId: 12, productName: 'Nose cone tee' });
-    expect([...el.querySelectorAll('mat-checkbox')].map((b) => b.textContent?.trim())).toEqual(['the next run of Nose cone tee']);
+    expect(Array.from(el.querySelectorAll('mat-checkbox')).map((b) => b.textContent?.trim())).toEqual(['the next run of Nose cone tee']);
     typeEmail(el, 'osric@example.test');
     el.querySelector<HTMLButtonElement>('button[type=submit]')!.click();
     const req = http.expectOne('/api/subscriptions');

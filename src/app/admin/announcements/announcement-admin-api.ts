@@ -38,6 +38,13 @@ export interface AnnouncementQuery {
   dir: 'asc' | 'desc';
 }
 
+/** Who the commercial mail names as its sender, and whether opening runs send drop notices by themselves. */
+export interface AnnouncementSettings {
+  mailingAddress: string;
+  contactEmail: string;
+  automaticDropNotices: boolean;
+}
+
 /** The console's announcement calls (editor, admin). */
 @Injectable({ providedIn: 'root' })
 export class AnnouncementAdminApi {
@@ -66,6 +73,14 @@ export class AnnouncementAdminApi {
 
   test(id: number) {
     return this.http.post<{ to: string }>(`${this.base}/${id}/test`, {});
+  }
+
+  settings() {
+    return this.http.get<AnnouncementSettings>(`${this.base}/settings`);
+  }
+
+  saveSettings(body: AnnouncementSettings) {
+    return this.http.put<AnnouncementSettings>(`${this.base}/settings`, body);
   }
 
   send(id: number) {

@@ -8,11 +8,12 @@ import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { EmptyState } from '../../shared/empty-state';
 import { AnnouncementAdminApi, type AnnouncementQuery } from './announcement-admin-api';
+import { SenderSettings } from './sender-settings';
 
 /** Every announcement and drop notice with its status and delivery counts, sorted and paged by the server. */
 @Component({
   selector: 'ps-announcement-list',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatPaginatorModule, MatSortModule, MatTableModule, EmptyState],
+  imports: [DatePipe, RouterLink, MatButtonModule, MatPaginatorModule, MatSortModule, MatTableModule, EmptyState, SenderSettings],
   template: `
     <section class="ps-page wide">
       <div class="top">
@@ -54,6 +55,7 @@ import { AnnouncementAdminApi, type AnnouncementQuery } from './announcement-adm
           <ps-empty-state icon="campaign" message="No announcement yet." />
         }
       }
+      <ps-sender-settings />
     </section>
   `,
   styles: `.wide { max-width: none; } .top { display: flex; justify-content: space-between; align-items: center; gap: 8px; flex-wrap: wrap; } .scroll { overflow-x: auto; } table { width: 100%; } .kind { color: var(--mat-sys-on-surface-variant); }`,
