@@ -9,7 +9,7 @@ import { SubscriptionRepository } from './subscription-repository';
  */
 export async function withdrawAllConsents(trx: Knex.Transaction, email: string, at: Date, how: string): Promise<void> {
   const address = email.trim().toLowerCase();
-  await new SubscriptionRepository(trx as unknown as Knex).withdraw(trx, address, null, at, how);
+  await new SubscriptionRepository(trx).withdraw(trx, address, null, at, how);
   await trx('implied_consents').where('email', address).delete();
-  await new SuppressionList(trx as unknown as Knex).add(address, 'unsubscribed', { detail: how }, trx);
+  await new SuppressionList(trx).add(address, 'unsubscribed', { detail: how }, trx);
 }
