@@ -4,6 +4,7 @@ import compression from 'compression';
 import express, { type Express, type Router } from 'express';
 import pinoHttp from 'pino-http';
 import { accountRoutes } from './account/account-routes';
+import { ONE_CLICK_PATH } from './announcements/announcement-routes';
 import { userAdminRoutes } from './admin/user-admin-routes';
 import { authRoutes } from './auth/auth-routes';
 import { AuthService } from './auth/auth-service';
@@ -27,8 +28,11 @@ import { ImageUploads } from './uploads/image-uploads';
 import { storageFromConfig } from './uploads/storage-from-config';
 import { uploadAdminRoutes, uploadServeRoutes } from './uploads/upload-routes';
 
-/** Paths under /api that verify their own signature instead of a CSRF token. */
-export const CSRF_EXEMPT = ['/payments/webhook'];
+/**
+ * Paths under /api that verify their own signature instead of a CSRF token: the payment webhook, and the one-click
+ * unsubscribe (RFC 8058: a mail client POSTs a form to the signed link, with no session).
+ */
+export const CSRF_EXEMPT = ['/payments/webhook', ONE_CLICK_PATH];
 
 const HASHED_ASSET = /-[A-Z0-9]{8}\.(js|css|woff2?|ttf)$/;
 

@@ -20,7 +20,8 @@ interface CreditToken extends Tokens.Generic {
   sponsorName?: string;
 }
 
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+/** Text made safe to put inside HTML. */
+export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 const creditMarker: TokenizerAndRendererExtension = {
   name: 'psCredit',

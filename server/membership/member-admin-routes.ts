@@ -26,6 +26,8 @@ const EmailSchema = z.strictObject({
   filters: RosterSchema.default(RosterSchema.parse({})),
   subject: z.string().trim().min(1, 'Subject is required.').max(200),
   text: z.string().trim().min(1, 'Message is required.').max(20000),
+  // News is promotional and follows the consent rules; club business (dues, launches replied to) is transactional.
+  purpose: z.enum(['news', 'club-business'], { error: 'Choose news or club business.' }).default('news'),
 });
 
 const rosterQuery = (value: unknown): { query: RosterQuery; page: number; pageSize: number } => {
@@ -84,7 +86,7 @@ export function memberAdminRoutes(service: MemberAdminService, refunds: DuesRefu
   r.post('/email', async (req, res) => {
     const body = parse(EmailSchema, req.body);
     const { page: _page, pageSize: _pageSize, ...filters } = body.filters;
-    res.json(await service.emailRoster(filters, { subject: body.subject, text: body.text }));
+    res.json(await service.emailRoster(filters, { subject: body.subject, text: body.text }, body.purpose));
   });
   r.get('/plans', async (_req, res) => {
     res.json(await service.plans());

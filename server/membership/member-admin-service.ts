@@ -1,5 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
+import type { CommercialMailer } from '../announcements/commercial-mailer';
+import { impliedConsentHolds } from '../announcements/implied-consent';
 import { enqueueEmail } from '../mail/outbox';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import { dateInZone, type Clock } from '../platform/clock';
@@ -33,6 +35,8 @@ export class MemberAdminService {
     private readonly settlement: DuesSettlement,
     private readonly clock: Clock,
     private readonly timeZone: string,
+    private readonly mailer: CommercialMailer,
+    private readonly clubName: string,
   ) {}
 
   private today(): string {
@@ -149,23 +153,39 @@ export class MemberAdminService {
     return this.repo.countLapsingWithin(await this.asOf(), days);
   }
 
-  /** A news e-mail to the filtered roster: non-essential, so members who opted out are skipped. */
-  async emailRoster(q: RosterQuery, mail: { subject: string; text: string }) {
+  /**
+   * An e-mail to the filtered roster. `news` is promotional, so it follows the consent rules: members who turned off
+   * news mail, whose membership ended more than two years ago (implied consent lapsed), or who are on the suppression
+   * list for club news are skipped, and each message carries the sender's address and the one-click stop link.
+   * `club-business` (dues, launches they replied to) is transactional: it goes to everyone matched and says why.
+   */
+  async emailRoster(q: RosterQuery, mail: { subject: string; text: string }, purpose: 'news' | 'club-business' = 'news') {
     const rows = await this.repo.rosterAll(q, await this.asOf());
     const batch = randomUUID();
-    let queued = 0;
-    let skipped = 0;
-    await this.db.transaction(async (trx) => {
-      for (const r of rows) {
-        if (r.marketing_opt_out) {
-          skipped++;
-          continue;
+    if (purpose === 'club-business') {
+      const footer = `\n\n--\nYou get this as a member of ${this.clubName}: it is club business (your dues, launches you replied to), so it arrives whatever your news setting.`;
+      let queued = 0;
+      await this.db.transaction(async (trx) => {
+        for (const r of rows) {
+          if (await enqueueEmail(trx, { to: r.email, subject: mail.subject, text: `Hello ${r.legal_name},\n\n${mail.text}${footer}`, template: 'membership-roster-business', dedupeKey: `membership-business:${batch}:${r.id}` })) queued++;
         }
-        const footer = '\n\n--\nYou get this as a club member. Turn off news e-mails in your Padside profile; receipts and dues notices still arrive.';
-        if (await enqueueEmail(trx, { to: r.email, subject: mail.subject, text: `Hello ${r.legal_name},\n\n${mail.text}${footer}`, template: 'membership-roster-news', dedupeKey: `membership-news:${batch}:${r.id}` })) queued++;
-      }
-    });
-    return { queued, skippedOptedOut: skipped };
+      });
+      return { queued, skippedOptedOut: 0, skippedLapsedConsent: 0, skippedSuppressed: 0 };
+    }
+    const today = this.today();
+    const optedOut = rows.filter((r) => r.marketing_opt_out);
+    const consentHolds = (termEnd: string | null) => termEnd !== null && impliedConsentHolds(termEnd, today);
+    const lapsed = rows.filter((r) => !r.marketing_opt_out && !consentHolds(dateOnly(r.term_end)));
+    const to = rows
+      .filter((r) => !optedOut.includes(r) && !lapsed.includes(r))
+      .map((r) => ({ email: r.email, why: `you are or were a member of ${this.clubName}`, id: r.id, name: r.legal_name }));
+    const { queued, suppressed } = await this.db.transaction((trx) =>
+      this.mailer.queue(trx, 'club-news', to, (a) => ({
+        content: { topic: 'club-news', subject: mail.subject, markdown: `Hello ${a.name},\n\n${mail.text}`, template: 'membership-roster-news' },
+        dedupeKey: `membership-news:${batch}:${a.id}`,
+      })),
+    );
+    return { queued, skippedOptedOut: optedOut.length, skippedLapsedConsent: lapsed.length, skippedSuppressed: suppressed };
   }
 
   async plans() {

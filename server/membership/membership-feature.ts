@@ -1,3 +1,4 @@
+import { commercialMailer } from '../announcements/commercial-mailer';
 import { UserRepository } from '../auth/user-repository';
 import type { Feature, Platform } from '../platform/feature';
 import { CardDues } from './card-dues';
@@ -21,7 +22,7 @@ export function membershipFeature(platform: Platform): Feature {
   const cardDues = new CardDues(db, repo, settlement, platform.settings, payments);
   const tokens = new CheckInTokens(config.sessionSecret);
   const members = new MembershipService(db, repo, platform.settings, settlement, cardDues, tokens, clock, config.clubTimeZone);
-  const admin = new MemberAdminService(db, repo, platform.settings, settlement, clock, config.clubTimeZone);
+  const admin = new MemberAdminService(db, repo, platform.settings, settlement, clock, config.clubTimeZone, commercialMailer(platform), config.site.clubName);
   const refunds = new DuesRefunds(db, repo, platform.settings, settlement, payments, clock, config.clubTimeZone, platform.deps.log);
   const flying = new FlyingStatusService(db, repo, platform.settings, tokens, clock, config.clubTimeZone);
   const jobs = new MembershipJobs(db, repo, platform.settings, settlement, cardDues, clock, config.clubTimeZone);

@@ -8,6 +8,7 @@ export const routes: Routes = [
   { path: 'build-logs', loadChildren: () => import('./build-logs/build-logs.routes').then((m) => m.buildLogRoutes) },
   { path: 'launches', loadChildren: () => import('./launches/launches.routes').then((m) => m.launchRoutes) },
   { path: 'sponsors', loadChildren: () => import('./sponsors/sponsors.routes').then((m) => m.sponsorRoutes) },
+  { path: 'subscriptions', loadChildren: () => import('./announcements/announcements.routes').then((m) => m.announcementRoutes) },
   { path: 'account', loadChildren: () => import('./account/account.routes').then((m) => m.accountRoutes) },
   { path: 'console', canMatch: [staffGuard], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
   { path: '**', loadComponent: () => import('./core/not-found').then((m) => m.NotFound), title: 'Not found — Padside' },

@@ -1,4 +1,5 @@
 import type { RouteAccess } from './access-types';
+import { announcementsAccess } from './announcements';
 import { booksAccess } from './books';
 import { buildLogsAccess } from './build-logs';
 import { foundationAccess } from './foundation';
@@ -8,4 +9,4 @@ import { membershipAccess } from './membership';
 import { shopAccess } from './shop';
 
 /** Every route the app serves, by feature. A route missing here fails the access test. */
-export const ACCESS_TABLE: RouteAccess[] = [...foundationAccess, ...buildLogsAccess, ...sponsorsAccess, ...membershipAccess, ...shopAccess, ...booksAccess, ...launchesAccess];
+export const ACCESS_TABLE: RouteAccess[] = [...foundationAccess, ...buildLogsAccess, ...sponsorsAccess, ...membershipAccess, ...shopAccess, ...booksAccess, ...launchesAccess, ...announcementsAccess];

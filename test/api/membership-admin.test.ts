@@ -183,7 +183,7 @@ describe('POST /api/admin/members/email', () => {
     const b = await member('Ilse', { certificationLevel: 'L3' });
     await t.deps.db('users').where('id', b.user.id).update({ marketing_opt_out: true });
     const res = await treasurer.post('/api/admin/members/email', { filters: { q: tag, certificationLevel: 'L3' }, subject: 'Spring launch at the sod farm', text: 'Bring a chair.' });
-    expect(res.body).toEqual({ queued: 1, skippedOptedOut: 1 });
+    expect(res.body).toEqual({ queued: 1, skippedOptedOut: 1, skippedLapsedConsent: 0, skippedSuppressed: 0 });
     expect(await t.deps.db('outbound_emails').where({ to_address: a.user.email, template: 'membership-roster-news' })).toHaveLength(1);
     expect(await t.deps.db('outbound_emails').where({ to_address: b.user.email, template: 'membership-roster-news' })).toHaveLength(0);
   });

@@ -7,6 +7,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSnackBar } from '@angular/material/snack-bar';
+import { MySubscriptions } from '../announcements/my-subscriptions';
 import { applyServerErrors } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
 import { FieldErrorPipe } from '../shared/field-error-pipe';
@@ -16,7 +17,7 @@ import { PASSPHRASE_HINT } from './passphrase-hint';
 /** The account page: name, mail preference, password. */
 @Component({
   selector: 'ps-profile',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe],
+  imports: [ReactiveFormsModule, MatButtonModule, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MySubscriptions],
   templateUrl: './profile.html',
   styles: `.cards { display: grid; gap: 16px; grid-template-columns: repeat(auto-fit, minmax(300px, 1fr)); } mat-card { padding: 8px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -25,6 +25,8 @@ export const adminRoutes: Routes = [
       { path: 'launch-settings', canMatch: [roleGuard(['range_officer', 'admin'])], loadComponent: () => import('../launches/console/certification-classes').then((m) => m.CertificationClasses), title: 'Certification classes — Padside console' },
       { path: 'range', canMatch: [roleGuard(['range_officer', 'admin'])], loadComponent: () => import('../launches/console/range-table').then((m) => m.RangeTable), title: 'Range table — Padside console' },
       { path: 'range/:id', canMatch: [roleGuard(['range_officer', 'admin'])], loadComponent: () => import('../launches/console/range-table').then((m) => m.RangeTable), title: 'Range table — Padside console' },
+      { path: 'announcements', canMatch: [roleGuard(['editor', 'admin'])], loadComponent: () => import('./announcements/announcement-list').then((m) => m.AnnouncementList), title: 'Announcements — Padside console' },
+      { path: 'announcements/:id', canMatch: [roleGuard(['editor', 'admin'])], loadComponent: () => import('./announcements/announcement-editor').then((m) => m.AnnouncementEditor), title: 'Announcement — Padside console' },
       { path: 'books', canMatch: [roleGuard(['treasurer', 'admin'])], loadComponent: () => import('./books/books-page').then((m) => m.BooksPage), title: 'Books — Padside console' },
     ],
   },

@@ -25,6 +25,7 @@ export const CONSOLE_LINKS: readonly ConsoleLink[] = [
   { path: '/console/members', label: 'Members', icon: 'badge', roles: ['treasurer', 'admin'] },
   { path: '/console/check-in', label: 'Check-in', icon: 'qr_code_scanner', roles: ['editor', 'treasurer', 'admin'], fullLoad: true },
   { path: '/console/posts', label: 'Build logs', icon: 'edit_note', roles: ['editor', 'admin'] },
+  { path: '/console/announcements', label: 'Announcements', icon: 'campaign', roles: ['editor', 'admin'] },
   { path: '/console/sponsors', label: 'Sponsors', icon: 'handshake', roles: ['editor', 'treasurer', 'admin'] },
   { path: '/console/books', label: 'Books', icon: 'account_balance', roles: ['treasurer', 'admin'] },
   { path: '/console/users', label: 'Accounts', icon: 'manage_accounts', roles: ['admin'] },

@@ -6,6 +6,7 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
+import { SignUpForm } from '../announcements/sign-up-form';
 import { PageMeta, SHARE_IMAGE } from '../core/page-meta';
 import { notFoundStatus } from '../core/rendering/not-found-status';
 import { clip, plainText, productData } from '../core/structured-data';
@@ -21,7 +22,7 @@ import type { Variant } from './shop-types';
 /** One product: pick a size, see units left and the time to close, add to the cart. */
 @Component({
   selector: 'ps-product-page',
-  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatExpansionModule, MatFormFieldModule, MatInputModule, MoneyPipe, CartPanel, ProductGallery],
+  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatExpansionModule, MatFormFieldModule, MatInputModule, MoneyPipe, CartPanel, ProductGallery, SignUpForm],
   templateUrl: './product-page.html',
   styleUrl: './product-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { rxResource } from '@angular/core/rxjs-interop';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
+import { SignUpForm } from '../announcements/sign-up-form';
 import { timeLeft } from './countdown';
 import { ShopApi } from './shop-api';
 import { PageMeta } from '../core/page-meta';
@@ -9,7 +10,7 @@ import { PageMeta } from '../core/page-meta';
 /** The home page: what Padside is for, the way into each part, and the run that is open now. */
 @Component({
   selector: 'ps-storefront',
-  imports: [RouterLink, MatButtonModule],
+  imports: [RouterLink, MatButtonModule, SignUpForm],
   template: `
     <section class="hero">
       <div class="ps-page">
@@ -31,6 +32,9 @@ import { PageMeta } from '../core/page-meta';
         </div>
       </section>
     }
+    <section class="ps-page">
+      <ps-sign-up-form page="home" heading="Tell me about new runs, launch days and build logs" />
+    </section>
   `,
   styles: `.hero { background: linear-gradient(160deg, var(--ps-night), #0e2536); color: #fff; } .hero h1 { font-size: clamp(2rem, 6vw, 3.5rem); margin: 0 0 8px; } .hero a { margin: 8px 8px 0 0; } .hero .ps-page { padding-top: 56px; padding-bottom: 56px; } .hero a[mat-stroked-button] { color: #fff; } .now { display: flex; gap: 24px; align-items: center; flex-wrap: wrap; } .now h2 { margin-bottom: 4px; } .photo { width: min(320px, 100%); height: auto; border-radius: 14px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -141,6 +141,17 @@ export function filterParams(q: Partial<RosterQuery>): HttpParams {
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
 /** The treasurer's membership endpoints. */
+/** News is promotional (consent rules apply); club business (dues, launches replied to) is transactional. */
+export type RosterMailPurpose = 'news' | 'club-business';
+
+/** What a roster e-mail queued and whom it left out. */
+export interface RosterMailResult {
+  queued: number;
+  skippedOptedOut: number;
+  skippedLapsedConsent: number;
+  skippedSuppressed: number;
+}
+
 @Injectable({ providedIn: 'root' })
 export class MembersApi {
   private readonly http = inject(HttpClient);
@@ -174,8 +185,8 @@ export class MembersApi {
     return this.http.get<DuesSummary>('/api/admin/members/summary');
   }
 
-  emailRoster(filters: Partial<RosterQuery>, subject: string, text: string): Observable<{ queued: number; skippedOptedOut: number }> {
-    return this.http.post<{ queued: number; skippedOptedOut: number }>('/api/admin/members/email', { filters, subject, text }, quiet());
+  emailRoster(filters: Partial<RosterQuery>, subject: string, text: string, purpose: RosterMailPurpose): Observable<RosterMailResult> {
+    return this.http.post<RosterMailResult>('/api/admin/members/email', { filters, subject, text, purpose }, quiet());
   }
 
   settings(): Observable<{ settings: ClubRules }> {

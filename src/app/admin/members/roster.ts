@@ -7,6 +7,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
@@ -14,14 +15,14 @@ import { applyServerErrors } from '../../core/api-error';
 import { MembershipApi } from '../../membership/membership-api';
 import { EmptyState } from '../../shared/empty-state';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
-import { MembersApi, filterParams, type RosterQuery } from './members-api';
+import { MembersApi, filterParams, type RosterMailPurpose, type RosterQuery } from './members-api';
 
 const FIRST: RosterQuery = { status: '', planId: '', certificationLevel: '', associationExpiresBefore: '', q: '', sort: 'memberNumber', dir: 'asc', page: 1, pageSize: 25 };
 
 /** The roster: filters, search, server-side sort and paging, CSV export and an e-mail to the filtered list. */
 @Component({
   selector: 'ps-roster',
-  imports: [FormsModule, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatSelectModule, MatSortModule, MatTableModule, EmptyState, FieldErrorPipe],
+  imports: [FormsModule, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatRadioModule, MatSelectModule, MatSortModule, MatTableModule, EmptyState, FieldErrorPipe],
   templateUrl: './roster.html',
   styleUrl: './members.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -42,7 +43,11 @@ export class Roster {
     return `/api/admin/members/export.csv?${filterParams(filters).toString()}`;
   });
 
-  protected readonly mailForm = this.fb.group({ subject: ['', [Validators.required, Validators.maxLength(200)]], text: ['', Validators.required] });
+  protected readonly mailForm = this.fb.group({
+    purpose: ['news' as RosterMailPurpose],
+    subject: ['', [Validators.required, Validators.maxLength(200)]],
+    text: ['', Validators.required],
+  });
   protected readonly mailOpen = signal(false);
   protected readonly mailResult = signal<string | null>(null);
   protected readonly mailProblem = signal<string | null>(null);
@@ -70,9 +75,13 @@ export class Roster {
     const { page: _p, pageSize: _s, ...filters } = this.query();
     try {
       const v = this.mailForm.getRawValue();
-      const r = await firstValueFrom(this.api.emailRoster(filters, v.subject, v.text));
-      this.mailResult.set(`Queued ${r.queued} e-mail(s); ${r.skippedOptedOut} member(s) opted out of news and were skipped.`);
-      formDir.resetForm();
+      const r = await firstValueFrom(this.api.emailRoster(filters, v.subject, v.text, v.purpose));
+      this.mailResult.set(
+        v.purpose === 'news'
+          ? `Queued ${r.queued} e-mail(s). Skipped: ${r.skippedOptedOut} turned off news, ${r.skippedLapsedConsent} left the club more than two years ago, ${r.skippedSuppressed} stopped club news or bounced.`
+          : `Queued ${r.queued} club-business e-mail(s).`,
+      );
+      formDir.resetForm({ purpose: 'news', subject: '', text: '' });
       this.mailOpen.set(false);
     } catch (err) {
       this.mailProblem.set(applyServerErrors(this.mailForm, err));

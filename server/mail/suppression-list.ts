@@ -1,0 +1,53 @@
+import type { Knex } from 'knex';
+
+export type SuppressionReason = 'unsubscribed' | 'hard_bounce' | 'complaint' | 'manual';
+
+/** A queued row as far as the suppression check needs it. */
+export interface SuppressionCandidate {
+  id: number | string;
+  to_address: string;
+  category: 'transactional' | 'commercial';
+  list: string | null;
+}
+
+/**
+ * The suppression list in PostgreSQL, so every process consults the same one. A suppression with `list` null covers
+ * every commercial list; a hard bounce also stops transactional mail (the mailbox does not exist).
+ */
+export class SuppressionList {
+  constructor(private readonly db: Knex) {}
+
+  /** Records a suppression; a second one for the same address and list keeps the first. */
+  async add(email: string, reason: SuppressionReason, opts: { list?: string | null; detail?: string } = {}, trx: Knex | Knex.Transaction = this.db): Promise<void> {
+    await trx.raw(
+      `INSERT INTO email_suppressions (email, list, reason, detail) VALUES (?, ?, ?, ?) ON CONFLICT (email, COALESCE(list, '')) DO NOTHING`,
+      [email.trim().toLowerCase(), opts.list ?? null, reason, opts.detail?.slice(0, 500) ?? null],
+    );
+  }
+
+  /** Lifts an unsubscribe from one list (the person confirmed a new sign-up); bounces and complaints stay. */
+  async liftUnsubscribe(email: string, list: string, trx: Knex | Knex.Transaction = this.db): Promise<void> {
+    await trx('email_suppressions').where({ email: email.trim().toLowerCase(), list, reason: 'unsubscribed' }).delete();
+  }
+
+  /** Of these rows, the ids the list says must not be sent. */
+  async blocked(rows: SuppressionCandidate[], trx: Knex | Knex.Transaction = this.db): Promise<Set<string>> {
+    if (rows.length === 0) return new Set();
+    const found: { email: string; list: string | null; reason: SuppressionReason }[] = await trx('email_suppressions')
+      .whereIn('email', [...new Set(rows.map((r) => r.to_address.toLowerCase()))])
+      .select('email', 'list', 'reason');
+    const out = new Set<string>();
+    for (const r of rows) {
+      const email = r.to_address.toLowerCase();
+      const hit = found.some((s) => s.email === email && (r.category === 'commercial' ? s.list === null || s.list === r.list : s.reason === 'hard_bounce'));
+      if (hit) out.add(String(r.id));
+    }
+    return out;
+  }
+
+  /** Addresses suppressed for a list (or every list), for leaving them out before anything is queued. */
+  async emailsFor(list: string, trx: Knex | Knex.Transaction = this.db): Promise<Set<string>> {
+    const rows = await trx('email_suppressions').where((q) => q.whereNull('list').orWhere('list', list)).select('email');
+    return new Set(rows.map((r: { email: string }) => r.email));
+  }
+}

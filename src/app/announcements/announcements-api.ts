@@ -1,0 +1,55 @@
+import { HttpClient, HttpHeaders } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+
+export type Topic = 'drops' | 'launches' | 'build-logs';
+export type SignUpPage = 'home' | 'product' | 'account';
+
+/** The lists and the consent wording the sign-up form shows. */
+export interface ConsentWording {
+  version: string;
+  text: string;
+  topics: { code: Topic; label: string }[];
+}
+
+/** One of the signed-in person's lists. */
+export interface MySubscription {
+  topic: Topic;
+  label: string;
+  productId: number | null;
+  productName: string | null;
+  status: 'pending' | 'confirmed';
+  since: string;
+  unsubscribeToken: string;
+}
+
+/** The public side of announcements: sign-up, confirmation, unsubscribe, and the person's own lists. */
+@Injectable({ providedIn: 'root' })
+export class AnnouncementsApi {
+  private readonly http = inject(HttpClient);
+
+  wording() {
+    return this.http.get<ConsentWording>('/api/subscriptions/wording');
+  }
+
+  signUp(body: { email: string; topics: Topic[]; productId?: number; page: SignUpPage }) {
+    return this.http.post<{ queued: true }>('/api/subscriptions', body);
+  }
+
+  confirm(token: string) {
+    return this.http.get<{ confirmed: { email: string; topics: Topic[] } }>('/api/subscriptions/confirm', { params: { token } });
+  }
+
+  describeUnsubscribe(token: string) {
+    return this.http.get<{ email: string; topic: Topic; label: string }>('/api/subscriptions/unsubscribe', { params: { token } });
+  }
+
+  /** The same form POST a mail client makes for one-click unsubscribe (RFC 8058). */
+  unsubscribe(token: string) {
+    const headers = new HttpHeaders({ 'Content-Type': 'application/x-www-form-urlencoded' });
+    return this.http.post<{ unsubscribed: { email: string; topic: Topic; label: string } }>('/api/subscriptions/unsubscribe', 'List-Unsubscribe=One-Click', { params: { token }, headers });
+  }
+
+  mine() {
+    return this.http.get<{ items: MySubscription[] }>('/api/account/subscriptions');
+  }
+}
