@@ -45,8 +45,8 @@ export class PaymentThrottle {
    */
   async attempt<T>(payer: PayerKeys, pay: () => Promise<T>, paid: (result: T) => boolean): Promise<T> {
     const keys = payerKeys(payer);
-    const waits = await Promise.all(keys.map((k) => this.failures.blockedMs(k)));
-    const wait = Math.max(0, ...waits);
+    const standings = await Promise.all(keys.map((k) => this.failures.standing(k)));
+    const wait = Math.max(0, ...standings.map((s) => s.blockedMs));
     if (wait > 0) {
       const seconds = Math.ceil(wait / 1000);
       const message = `Too many declined payments. Try again in ${Math.ceil(seconds / 60)} minute(s).`;
@@ -59,7 +59,8 @@ export class PaymentThrottle {
       if (isDecline(err)) await Promise.all(keys.map((k) => this.failures.fail(k)));
       throw err;
     }
-    if (paid(result)) await Promise.all(keys.map((k) => this.failures.reset(k)));
+    // Only keys with failures counted have anything to reset; a failure counted meanwhile stays (the stricter side).
+    if (paid(result)) await Promise.all(keys.filter((_, i) => standings[i].counted).map((k) => this.failures.reset(k)));
     return result;
   }
 }

@@ -101,10 +101,15 @@ const withUnits = (r: Record<string, unknown>) => ({ ...fix(r), units: Number(r.
 export class OrderRepository {
   constructor(private readonly db: Knex) {}
 
-  /** Inserts a pending order from a quote; returns its id and number. */
+  /**
+   * Inserts a pending order from a quote with its first payment attempt already claimed (the charge follows the
+   * commit); returns its id and number.
+   */
   async insert(trx: Knex.Transaction, q: Quote, req: QuoteRequest & { email: string }, userId: number | null, now: Date): Promise<{ id: number; number: string }> {
     const [row] = await trx('shop_orders')
       .insert({
+        payment_attempts: 1,
+        last_attempt_at: now,
         user_id: userId,
         email: req.email,
         status: 'pending',
@@ -182,6 +187,17 @@ export class OrderRepository {
     return (await trx('shop_orders').where('id', id).whereIn('status', from).update(patch)) === 1;
   }
 
+  /**
+   * Like `transition`, returning the order as it now stands with its lines and taxes (two reads fewer than `find`);
+   * null when it was not in a `from` state. An order leaving `pending` has no refunds yet.
+   */
+  async transitionFromPending(trx: Knex.Transaction, id: number, patch: Partial<OrderRow> & { status: OrderStatus }): Promise<OrderBundle | null> {
+    const [row] = await trx('shop_orders').where({ id, status: 'pending' }).update(patch).returning(['*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")]);
+    if (!row) return null;
+    const [items, taxes] = [await this.items(trx, id), await this.taxes(trx, id)];
+    return { order: fix(row), items, taxes, refunds: [] };
+  }
+
   async update(trx: Db, id: number, patch: Record<string, unknown>): Promise<void> {
     await trx('shop_orders').where('id', id).update(patch);
   }
@@ -191,10 +207,18 @@ export class OrderRepository {
     if (forUpdate) q.forUpdate();
     const row = await q;
     if (!row) return null;
-    const items = (await trx<OrderItemRow>('shop_order_items').where('order_id', id).orderBy('id')).map((i) => ({ ...i, id: Number(i.id), order_id: id, variant_id: Number(i.variant_id), run_id: i.run_id === null ? null : Number(i.run_id) }));
-    const taxes = (await trx('shop_order_taxes').where('order_id', id).orderBy('code')).map((t) => ({ ...t, rate_percent: String(t.rate_percent) }));
+    const items = await this.items(trx, id);
+    const taxes = await this.taxes(trx, id);
     const refunds = (await trx<RefundRow>('shop_refunds').where('order_id', id).orderBy('id')).map((r) => ({ ...r, id: Number(r.id), order_id: id }));
     return { order: fix(row), items, taxes, refunds };
+  }
+
+  private async items(trx: Db, orderId: number): Promise<OrderItemRow[]> {
+    return (await trx<OrderItemRow>('shop_order_items').where('order_id', orderId).orderBy('id')).map((i) => ({ ...i, id: Number(i.id), order_id: orderId, variant_id: Number(i.variant_id), run_id: i.run_id === null ? null : Number(i.run_id) }));
+  }
+
+  private async taxes(trx: Db, orderId: number): Promise<OrderTaxRow[]> {
+    return (await trx('shop_order_taxes').where('order_id', orderId).orderBy('code')).map((t) => ({ ...t, rate_percent: String(t.rate_percent) }));
   }
 
   async byChargeId(chargeId: string, trx: Db = this.db): Promise<number | null> {
