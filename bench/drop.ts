@@ -59,7 +59,9 @@ export async function dropBench(app: PadsideApp, payments: PaymentGateway, admin
     const seconds = (Date.now() - started) / 1000;
     const paid = outcomes.filter((o) => o.status === 201);
     const soldOut = outcomes.filter((o) => o.status === 409).length;
-    const other = outcomes.length - paid.length - soldOut;
+    const others = new Map<number, number>();
+    for (const o of outcomes) if (o.status !== 201 && o.status !== 409) others.set(o.status, (others.get(o.status) ?? 0) + 1);
+    const other = [...others].map(([status, n]) => `${n} × ${status}`).join(', ') || '0';
     const latencies = outcomes.map((o) => o.ms).sort((a, b) => a - b);
     const after = (await admin.get(`/api/products/${product.slug}`)).body as { run: { cap: number; remaining: number } };
     const sold = after.run.cap - after.run.remaining;

@@ -25,6 +25,7 @@ try {
     BROWSER_DIST: path.join(appDist, 'browser'),
     ...(process.argv.includes('--front-end') ? { BENCH_ONLY: 'front-end' } : {}),
     ...(process.argv.includes('--back-end') ? { BENCH_ONLY: 'back-end' } : {}),
+    ...(process.argv.includes('--cpu-prof') ? { BENCH_CPU_PROF: '1' } : {}),
   };
   // The server runs inside the benchmark process, so its profile is the server's (and the load generator's).
   const profile = process.argv.includes('--cpu-prof') ? ['--cpu-prof', '--cpu-prof-dir', path.join(os.tmpdir(), 'padside-cpu-prof')] : [];

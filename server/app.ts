@@ -45,13 +45,14 @@ export function createApp(deps: AppDeps): PadsideApp {
   const app = express() as PadsideApp;
   const auth = new AuthService(deps.db, deps.config.publicUrl, deps.clock, deps.log);
   const storage = storageFromConfig(deps.config.storage);
+  const notifications = new DatabaseNotifications(deps.config.databaseUrl, deps.log);
   const platform: Platform = {
     deps,
     auth,
-    settings: new SettingsService(deps.db),
+    settings: new SettingsService(deps.db, notifications),
     // The features answer what still shows an image; they exist by the time anyone deletes one.
     images: new ImageUploads(deps.db, storage, async (urls) => (await Promise.all(features.map((f) => f.imageUses?.(urls) ?? []))).flat()),
-    notifications: new DatabaseNotifications(deps.config.databaseUrl, deps.log),
+    notifications,
   };
   const features = buildFeatures(platform);
   const passport = configurePassport(auth);

@@ -4,7 +4,7 @@ import { refuseUnrenderable } from '../markdown/markdown-field';
 import { renderMarkdown } from '../markdown/render-markdown';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
-import type { NotifiedCache, ReadyJson } from '../platform/notified-cache';
+import { readyJson, type NotifiedCache, type ReadyJson } from '../platform/notified-cache';
 import { fields } from '../platform/validate';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueRepository, ProductBundle } from './catalogue-repository';
@@ -52,7 +52,7 @@ export class CatalogueService {
     private readonly settings: SettingsService,
     private readonly clock: Clock,
     /** The storefront's answers, dropped by any commit to the catalogue's tables (see the shop_catalogue trigger). */
-    private readonly storefront: NotifiedCache,
+    private readonly storefront: NotifiedCache<ReadyJson>,
   ) {}
 
   async list(activeOnly: boolean) {
@@ -64,7 +64,7 @@ export class CatalogueService {
   async storefrontList(): Promise<ReadyJson> {
     const ready = await this.storefront.get('list', this.clock.now(), async (now) => {
       const bundles = await this.repo.bundles({ activeOnly: true });
-      return { value: { items: bundles.map((b) => ({ ...productView(b, now), active: true })) }, ...viewValidity(bundles, now) };
+      return { value: readyJson({ items: bundles.map((b) => ({ ...productView(b, now), active: true })) }), ...viewValidity(bundles, now) };
     });
     return ready!;
   }
@@ -73,7 +73,7 @@ export class CatalogueService {
   async storefrontProduct(slug: string): Promise<ReadyJson> {
     const ready = await this.storefront.get(`product:${slug}`, this.clock.now(), async (now) => {
       const [b] = await this.repo.bundles({ activeOnly: true, slug });
-      return b ? { value: this.detail(b, now), ...viewValidity([b], now) } : null;
+      return b ? { value: readyJson(this.detail(b, now)), ...viewValidity([b], now) } : null;
     });
     if (!ready) throw notFound('No such product.');
     return ready;

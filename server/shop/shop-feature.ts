@@ -1,6 +1,6 @@
 import { PaymentThrottle } from '../payments/payment-throttle';
 import type { Feature, Platform } from '../platform/feature';
-import { NotifiedCache } from '../platform/notified-cache';
+import { NotifiedCache, type ReadyJson } from '../platform/notified-cache';
 import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';
 import { CheckoutService } from './checkout-service';
@@ -29,7 +29,7 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
   const config = new ShopConfigRepository(deps.db);
   const orders = new OrderRepository(deps.db);
   const quotes = new QuoteService(catalogueRepo, config, settings, deps.config);
-  const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock, new NotifiedCache(platform.notifications, 'shop_catalogue'));
+  const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock, new NotifiedCache<ReadyJson>(platform.notifications, 'shop_catalogue'));
   const links = new OrderLinks(deps.config.sessionSecret, deps.config.publicUrl);
   const guide = new OrderGuide(orders, deps.clock, deps.config.site.clubName, deps.config.clubTimeZone);
   const receipts = new ReceiptService(settings, deps.config.site.teamName, deps.config.clubTimeZone);
