@@ -15,6 +15,7 @@ import { healthRoutes } from './health/health-routes';
 import { siteRoutes } from './site/site-routes';
 import type { ScheduledJob } from './jobs/job-runner';
 import { csrfProtection } from './platform/csrf';
+import { DatabaseNotifications } from './platform/database-notifications';
 import { rotateSessionOnRoleChange } from './platform/session-rotation';
 import { apiNotFound, errorHandler } from './platform/error-handler';
 import type { Mount, Platform } from './platform/feature';
@@ -49,12 +50,14 @@ export function createApp(deps: AppDeps): PadsideApp {
   const app = express() as PadsideApp;
   const auth = new AuthService(deps.db, deps.config.publicUrl, deps.clock, deps.log);
   const storage = storageFromConfig(deps.config.storage);
+  const notifications = new DatabaseNotifications(deps.config.databaseUrl, deps.log);
   const platform: Platform = {
     deps,
     auth,
-    settings: new SettingsService(deps.db),
+    settings: new SettingsService(deps.db, notifications),
     // The features answer what still shows an image; they exist by the time anyone deletes one.
     images: new ImageUploads(deps.db, storage, async (urls) => (await Promise.all(features.map((f) => f.imageUses?.(urls) ?? []))).flat()),
+    notifications,
   };
   const features = buildFeatures(platform);
   const passport = configurePassport(auth);
@@ -86,6 +89,11 @@ export function createApp(deps: AppDeps): PadsideApp {
   api.use((req, res, next) => (CSRF_EXEMPT.includes(req.path) ? next() : express.json({ limit: '100kb' })(req, res, next)));
   apiMount('/health', healthRoutes(deps));
   apiMount('/site', siteRoutes(deps.config.site));
+  // Public reads: no session, so their answers say themselves how they may be cached. The text guard runs here too.
+  for (const feature of features) feature.mountPublic?.((at, router) => {
+    mounts.push({ prefix: '/api' + at, router });
+    api.use(at, refuseUnstorableText, router);
+  });
   // Everything from here on may depend on who is signed in, CSV and PDF downloads included.
   api.use(noStore);
   api.use(sessions.middleware);
@@ -125,6 +133,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   app.close = async () => {
     await auth.afterAnswer.settled();
     await sessions.pool.end();
+    await platform.notifications.close();
     storage.close?.();
     await renderer?.close();
   };

@@ -5,6 +5,7 @@ import type { AppDeps } from '../deps';
 import type { ScheduledJob } from '../jobs/job-runner';
 import type { SettingsService } from '../settings/settings-service';
 import type { ImageUploads } from '../uploads/image-uploads';
+import type { DatabaseNotifications } from './database-notifications';
 
 /** What every feature is built from: the side-effecting deps plus the services all features share. */
 export interface Platform {
@@ -12,6 +13,8 @@ export interface Platform {
   auth: AuthService;
   settings: SettingsService;
   images: ImageUploads;
+  /** This process's LISTEN connection, for in-memory copies that commits elsewhere must drop. */
+  notifications: DatabaseNotifications;
 }
 
 /**
@@ -24,6 +27,8 @@ export type Mount = (path: string, router: Router) => void;
 export interface Feature {
   name: string;
   mount(api: Mount): void;
+  /** Routes under /api that are the same for every visitor: mounted before the session, which they never read. */
+  mountPublic?(api: Mount): void;
   mountSite?(site: Mount): void;
   jobs?: ScheduledJob[];
   /** The numbers this feature gives the staff dashboard. */

@@ -27,8 +27,13 @@ export class FailureLimiter {
 
   /** Milliseconds until the key may try again; 0 while it has failures left. */
   async blockedMs(key: string): Promise<number> {
+    return (await this.standing(key)).blockedMs;
+  }
+
+  /** `blockedMs`, and whether any failure is counted against the key now (so a reset has something to do). */
+  async standing(key: string): Promise<{ blockedMs: number; counted: boolean }> {
     const res = await this.limiter.get(key);
-    return res && res.remainingPoints <= 0 ? Math.max(1, res.msBeforeNext) : 0;
+    return { blockedMs: res && res.remainingPoints <= 0 ? Math.max(1, res.msBeforeNext) : 0, counted: res !== null && res.consumedPoints > 0 };
   }
 
   /** Counts one failure. */

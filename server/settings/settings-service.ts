@@ -1,5 +1,7 @@
 import type { Knex } from 'knex';
 import { z } from 'zod';
+import type { DatabaseNotifications } from '../platform/database-notifications';
+import { ALWAYS, NotifiedCache } from '../platform/notified-cache';
 
 /**
  * Typed settings kept as JSON rows. Each feature declares its key, schema and default beside its own code,
@@ -16,11 +18,29 @@ export function defineSetting<T>(key: string, schema: z.ZodType<T>, defaults: T)
 }
 
 export class SettingsService {
-  constructor(private readonly db: Knex) {}
+  /** Parsed settings by key, dropped by any commit to the table (the `settings` trigger); a checkout reads four. */
+  private readonly cache: NotifiedCache<unknown> | null;
 
-  /** The stored value merged over the defaults, so a new field has a value before anyone saves it. */
-  async get<T>(def: SettingDefinition<T>, trx: Knex | Knex.Transaction = this.db): Promise<T> {
-    const row = await trx('settings').where('key', def.key).first();
+  constructor(
+    private readonly db: Knex,
+    notifications?: DatabaseNotifications,
+  ) {
+    this.cache = notifications ? new NotifiedCache(notifications, 'settings') : null;
+  }
+
+  /**
+   * The stored value merged over the defaults, so a new field has a value before anyone saves it. Inside a
+   * transaction it is read there; otherwise from this process's copy, as fresh as a read (see NotifiedCache).
+   */
+  async get<T>(def: SettingDefinition<T>, trx?: Knex | Knex.Transaction): Promise<T> {
+    if (trx || !this.cache) return this.read(def, trx ?? this.db);
+    const value = await this.cache.get(def.key, new Date(), async () => ({ value: await this.read(def, this.db), ...ALWAYS }));
+    // A copy, so a caller that changes what it got cannot change what the next caller gets.
+    return structuredClone(value as T);
+  }
+
+  private async read<T>(def: SettingDefinition<T>, db: Knex | Knex.Transaction): Promise<T> {
+    const row = await db('settings').where('key', def.key).first();
     if (!row) return def.defaults;
     const merged = typeof def.defaults === 'object' && def.defaults !== null ? { ...def.defaults, ...row.value } : row.value;
     return def.schema.parse(merged);

@@ -65,37 +65,42 @@ export interface ProductBundle {
 
 const num = <T extends { id: number }>(r: T): T => ({ ...r, id: Number(r.id) });
 
+type JsonRun = Omit<RunRow, 'opens_at' | 'closes_at'> & { opens_at: string; closes_at: string };
+
 /** Products, variants and runs as plain rows. */
 export class CatalogueRepository {
   constructor(private readonly db: Knex) {}
 
-  /** Products with their variants and latest run; `activeOnly` for the storefront. */
-  async bundles(where: { activeOnly?: boolean; slug?: string; id?: number } = {}, db: Knex | Knex.Transaction = this.db): Promise<ProductBundle[]> {
-    const q = db<ProductRow>('shop_products').orderBy([{ column: 'position' }, { column: 'id' }]);
-    if (where.activeOnly) q.where('active', true);
-    if (where.slug) q.where('slug', where.slug);
-    if (where.id) q.where('id', where.id);
-    const products = (await q).map(num);
-    if (!products.length) return [];
-    const ids = products.map((p) => p.id);
-    const variants = (await db<VariantRow>('shop_variants').whereIn('product_id', ids).orderBy([{ column: 'position' }, { column: 'id' }])).map((v) => ({ ...num(v), product_id: Number(v.product_id) }));
-    const runs = (await db<RunRow>('shop_runs').whereIn('product_id', ids).orderBy('opens_at', 'desc').orderBy('id', 'desc')).map((r) => ({ ...num(r), product_id: Number(r.product_id) }));
-    const latest = new Map<number, RunRow>();
-    for (const r of runs) if (!latest.has(r.product_id)) latest.set(r.product_id, r);
-    const runIds = [...latest.values()].map((r) => r.id);
-    const caps = runIds.length ? (await db<VariantCapRow>('shop_run_variant_caps').whereIn('run_id', runIds)).map((c) => ({ ...c, run_id: Number(c.run_id), variant_id: Number(c.variant_id) })) : [];
-    return products.map((product) => {
-      const run = latest.get(product.id) ?? null;
-      return { product, variants: variants.filter((v) => v.product_id === product.id), run, caps: run ? caps.filter((c) => c.run_id === run.id) : [] };
-    });
+  /**
+   * Products with their variants, latest run and its variant caps, in one query (the storefront's every answer
+   * starts here); `activeOnly` for the storefront, `variantIds` for the products a cart holds.
+   */
+  async bundles(where: { activeOnly?: boolean; slug?: string; id?: number; variantIds?: number[] } = {}, db: Knex | Knex.Transaction = this.db): Promise<ProductBundle[]> {
+    const q = db('shop_products as p')
+      .select(
+        'p.*',
+        db.raw(`coalesce((SELECT json_agg(json_build_object('id', v.id, 'product_id', v.product_id, 'label', v.label, 'sku', v.sku, 'weight_grams', v.weight_grams, 'price_cents', v.price_cents, 'stock_on_hand', v.stock_on_hand, 'position', v.position) ORDER BY v.position, v.id) FROM shop_variants v WHERE v.product_id = p.id), '[]') AS variants`),
+        db.raw(`CASE WHEN r.id IS NULL THEN NULL ELSE json_build_object('id', r.id, 'product_id', r.product_id, 'name', r.name, 'cap', r.cap, 'reserved', r.reserved, 'opens_at', r.opens_at, 'closes_at', r.closes_at, 'state', r.state, 'unit_cost_cents', r.unit_cost_cents) END AS run`),
+        db.raw(`coalesce((SELECT json_agg(json_build_object('run_id', c.run_id, 'variant_id', c.variant_id, 'cap', c.cap, 'reserved', c.reserved)) FROM shop_run_variant_caps c WHERE c.run_id = r.id), '[]') AS caps`),
+      )
+      .joinRaw('LEFT JOIN LATERAL (SELECT * FROM shop_runs WHERE product_id = p.id ORDER BY opens_at DESC, id DESC LIMIT 1) r ON true')
+      .orderBy([{ column: 'p.position' }, { column: 'p.id' }]);
+    if (where.activeOnly) q.where('p.active', true);
+    if (where.slug) q.where('p.slug', where.slug);
+    if (where.id) q.where('p.id', where.id);
+    if (where.variantIds) q.whereIn('p.id', db('shop_variants').whereIn('id', where.variantIds).select('product_id'));
+    const rows: (ProductRow & { variants: VariantRow[]; run: JsonRun | null; caps: VariantCapRow[] })[] = await q;
+    return rows.map(({ variants, run, caps, ...product }) => ({
+      product: num(product),
+      variants,
+      run: run && { ...run, opens_at: new Date(run.opens_at), closes_at: new Date(run.closes_at) },
+      caps,
+    }));
   }
 
   /** The bundles that hold these variants (for a quote). */
   async bundlesForVariants(variantIds: number[]): Promise<ProductBundle[]> {
-    const productIds = await this.db('shop_variants').whereIn('id', variantIds).distinct('product_id').pluck('product_id');
-    if (!productIds.length) return [];
-    const all = await Promise.all(productIds.map((id: string) => this.bundles({ id: Number(id) })));
-    return all.flat();
+    return variantIds.length ? this.bundles({ variantIds }) : [];
   }
 
   async insertProduct(trx: Knex.Transaction, row: Omit<ProductRow, 'id' | 'position' | 'active' | 'max_per_order'> & { max_per_order?: number }, variants: Omit<VariantRow, 'id' | 'product_id' | 'position'>[]): Promise<number> {

@@ -4,12 +4,13 @@ import { refuseUnrenderable } from '../markdown/markdown-field';
 import { renderMarkdown } from '../markdown/render-markdown';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
+import { readyJson, type NotifiedCache, type ReadyJson } from '../platform/notified-cache';
 import { fields } from '../platform/validate';
 import { slugify, uniqueSlug } from '../platform/slug';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueRepository, ProductBundle } from './catalogue-repository';
 import { printQuantities } from './print-sheet';
-import { productView } from './product-view';
+import { productView, viewValidity } from './product-view';
 import { effectiveRunState, nextRunStates, type StoredRunState } from './run-state';
 import { SHOP_SETTINGS } from './shop-settings';
 
@@ -50,6 +51,8 @@ export class CatalogueService {
     private readonly repo: CatalogueRepository,
     private readonly settings: SettingsService,
     private readonly clock: Clock,
+    /** The storefront's answers, dropped by any commit to the catalogue's tables (see the shop_catalogue trigger). */
+    private readonly storefront: NotifiedCache<ReadyJson>,
   ) {}
 
   async list(activeOnly: boolean) {
@@ -57,10 +60,23 @@ export class CatalogueService {
     return (await this.repo.bundles({ activeOnly })).map((b) => ({ ...productView(b, now), active: b.product.active }));
   }
 
-  async bySlug(slug: string) {
-    const [b] = await this.repo.bundles({ activeOnly: true, slug });
-    if (!b) throw notFound('No such product.');
-    return this.detail(b);
+  /** The storefront's product list, `{items}`, as ready JSON. */
+  async storefrontList(): Promise<ReadyJson> {
+    const ready = await this.storefront.get('list', this.clock.now(), async (now) => {
+      const bundles = await this.repo.bundles({ activeOnly: true });
+      return { value: readyJson({ items: bundles.map((b) => ({ ...productView(b, now), active: true })) }), ...viewValidity(bundles, now) };
+    });
+    return ready!;
+  }
+
+  /** One product's page as ready JSON; 404 for a product that does not exist or is not on sale. */
+  async storefrontProduct(slug: string): Promise<ReadyJson> {
+    const ready = await this.storefront.get(`product:${slug}`, this.clock.now(), async (now) => {
+      const [b] = await this.repo.bundles({ activeOnly: true, slug });
+      return b ? { value: readyJson(this.detail(b, now)), ...viewValidity([b], now) } : null;
+    });
+    if (!ready) throw notFound('No such product.');
+    return ready;
   }
 
   async byId(id: number) {
@@ -69,8 +85,8 @@ export class CatalogueService {
     return { ...this.detail(b), active: b.product.active, description: b.product.description_md };
   }
 
-  private detail(b: ProductBundle) {
-    return { ...productView(b, this.clock.now()), descriptionHtml: renderMarkdown(b.product.description_md) };
+  private detail(b: ProductBundle, now = this.clock.now()) {
+    return { ...productView(b, now), descriptionHtml: renderMarkdown(b.product.description_md) };
   }
 
   /** Creates a product with its variants and, optionally, its first limited run. */

@@ -42,16 +42,19 @@ export class CheckoutService {
     private readonly guide: OrderGuide,
   ) {}
 
-  /** Quotes, reserves the units in one transaction (409 sold_out when they no longer fit), then pays. */
+  /**
+   * Quotes, reserves the units and claims the first payment attempt in one transaction (409 sold_out when they no
+   * longer fit), then charges, outside any transaction.
+   */
   async placeOrder(req: PlaceOrderRequest, user: SessionUser | null): Promise<PaymentOutcome> {
     const now = this.clock.now();
     const quote = await this.quotes.quote(req, user?.roles ?? [], now);
-    const { id } = await this.db.transaction(async (trx) => {
+    const { id, number } = await this.db.transaction(async (trx) => {
       const created = await this.orders.insert(trx, quote, req, user?.id ?? null, now);
       if (!(await this.orders.reserve(trx, quote.lines, now))) throw conflict('sold_out', 'Someone got there first: part of the cart just sold out.');
       return created;
     });
-    return this.pay(id, req.paymentToken);
+    return this.charge({ id, number, totalCents: quote.totalCents }, 1, req.paymentToken);
   }
 
   /**
@@ -73,32 +76,38 @@ export class CheckoutService {
       .update({ payment_attempts: this.db.raw('payment_attempts + 1'), last_attempt_at: this.clock.now() })
       .returning('payment_attempts');
     if (!claimed) throw conflict('payment_in_progress', 'A payment for this order is already under way; reload the order in a moment.');
-    const attempt = Number(claimed.payment_attempts);
-    const result = await this.payments.charge({
-      amountCents: before.order.total_cents,
-      token,
-      description: `Padside order ${before.order.number}`,
-      idempotencyKey: `padside-order-${orderId}-attempt-${attempt}`,
-      metadata: { orderId: String(orderId), orderNumber: before.order.number },
-    });
-    if (result.outcome === 'paid') return { status: 'paid', bundle: await this.settlePaid(orderId, result.chargeId, result.amountCents, result.cardCountry) };
-    if (result.outcome === 'declined') {
-      await this.settleFailed(orderId, result.message);
-      throw new AppError(402, 'payment_declined', result.message, { paymentToken: result.message });
-    }
-    this.log.warn({ orderId, message: result.message }, 'payment outcome unknown; order left pending');
-    await this.orders.update(this.db, orderId, { payment_message: result.message });
-    return { status: 'pending', bundle: (await this.orders.find(orderId))!, message: 'We could not confirm the payment. Nothing is lost: try again, and you will never be charged twice.' };
+    return this.charge({ id: orderId, number: before.order.number, totalCents: before.order.total_cents }, Number(claimed.payment_attempts), token);
   }
 
-  /** Marks the order paid once, records the money movement and queues the confirmation, in one transaction. */
+  /** Charges the attempt already claimed and settles what came of it. */
+  private async charge(order: { id: number; number: string; totalCents: number }, attempt: number, token: string): Promise<PaymentOutcome> {
+    const result = await this.payments.charge({
+      amountCents: order.totalCents,
+      token,
+      description: `Padside order ${order.number}`,
+      idempotencyKey: `padside-order-${order.id}-attempt-${attempt}`,
+      metadata: { orderId: String(order.id), orderNumber: order.number },
+    });
+    if (result.outcome === 'paid') return { status: 'paid', bundle: await this.settlePaid(order.id, result.chargeId, result.amountCents, result.cardCountry) };
+    if (result.outcome === 'declined') {
+      await this.settleFailed(order.id, result.message);
+      throw new AppError(402, 'payment_declined', result.message, { paymentToken: result.message });
+    }
+    this.log.warn({ orderId: order.id, message: result.message }, 'payment outcome unknown; order left pending');
+    await this.orders.update(this.db, order.id, { payment_message: result.message });
+    return { status: 'pending', bundle: (await this.orders.find(order.id))!, message: 'We could not confirm the payment. Nothing is lost: try again, and you will never be charged twice.' };
+  }
+
+  /**
+   * Marks the order paid once, records the money movement and queues the confirmation, in one transaction; returns
+   * the order as that transaction left it (read once), or as it stands when another path settled it first.
+   */
   async settlePaid(orderId: number, chargeId: string, amountCents: number, cardCountry: string | null): Promise<OrderBundle> {
-    const fees = await this.settings.get(PROCESSOR_FEES);
-    const seller = await this.receipts.seller();
+    const [fees, seller] = await Promise.all([this.settings.get(PROCESSOR_FEES), this.receipts.seller()]);
     const now = this.clock.now();
-    await this.db.transaction(async (trx) => {
-      if (!(await this.orders.transition(trx, orderId, ['pending'], { status: 'paid', charge_id: chargeId, paid_at: now, payment_message: null }))) return;
-      const b = (await this.orders.find(orderId, trx))!;
+    const settled = await this.db.transaction(async (trx) => {
+      const b = await this.orders.transitionFromPending(trx, orderId, { status: 'paid', charge_id: chargeId, paid_at: now, payment_message: null });
+      if (!b) return null;
       await recordMovement(trx, {
         occurredAt: now,
         kind: 'order_payment',
@@ -114,8 +123,9 @@ export class CheckoutService {
         taxes: b.taxes.map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, ratePercent: t.rate_percent, taxableCents: t.taxable_cents, taxCents: t.amount_cents })),
       });
       await enqueueEmail(trx, confirmationEmail(b, this.links.urlFor(b.order.id, b.order.email), this.teamName, this.receipts.build(b, seller), await this.guide.nextSteps(b, trx)));
+      return b;
     });
-    return (await this.orders.find(orderId))!;
+    return settled ?? (await this.orders.find(orderId))!;
   }
 
   /** Fails a pending order and gives its units back, once. */

@@ -17,9 +17,13 @@ export interface NextStepsInput {
   timeZone: string;
 }
 
+const closingFormats = new Map<string, Intl.DateTimeFormat>();
+
 /** A run's closing time in the club's zone, as people read it ("Tuesday, December 22, 2026 at 9:00 p.m."). */
 function closing(d: Date, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-CA', { timeZone, dateStyle: 'full', timeStyle: 'short' }).format(d);
+  let format = closingFormats.get(timeZone);
+  if (!format) closingFormats.set(timeZone, (format = new Intl.DateTimeFormat('en-CA', { timeZone, dateStyle: 'full', timeStyle: 'short' })));
+  return format.format(d);
 }
 
 /**

@@ -101,10 +101,15 @@ const withUnits = (r: Record<string, unknown>) => ({ ...fix(r), units: Number(r.
 export class OrderRepository {
   constructor(private readonly db: Knex) {}
 
-  /** Inserts a pending order from a quote; returns its id and number. */
+  /**
+   * Inserts a pending order from a quote with its first payment attempt already claimed (the charge follows the
+   * commit); returns its id and number.
+   */
   async insert(trx: Knex.Transaction, q: Quote, req: QuoteRequest & { email: string }, userId: number | null, now: Date): Promise<{ id: number; number: string }> {
     const [row] = await trx('shop_orders')
       .insert({
+        payment_attempts: 1,
+        last_attempt_at: now,
         user_id: userId,
         email: req.email,
         status: 'pending',
@@ -141,10 +146,26 @@ export class OrderRepository {
   }
 
   /**
-   * Holds units for the lines with conditional updates, always in the same order (runs, variant caps, stock, each
-   * by id) so concurrent checkouts never deadlock. Returns false when any line no longer fits; the caller rolls back.
+   * Holds units for the lines with conditional updates, always in the same order (variant caps, stock, then runs,
+   * each by id; `release` keeps it) so concurrent checkouts never deadlock. The run row comes last because every
+   * buyer of a drop waits for that one row: it is then held only from its update to the commit. Returns false when
+   * any line no longer fits; the caller rolls back.
    */
   async reserve(trx: Knex.Transaction, lines: { variantId: number; runId: number | null; quantity: number }[], now: Date): Promise<boolean> {
+    const byVariant = [...lines].sort((a, b) => (a.runId ?? 0) - (b.runId ?? 0) || a.variantId - b.variantId);
+    for (const l of byVariant.filter((x) => x.runId)) {
+      // One statement: the cap's update, and whether the variant has a cap at all (most have none).
+      const { rows } = await trx.raw(
+        `WITH held AS (UPDATE shop_run_variant_caps SET reserved = reserved + ? WHERE run_id = ? AND variant_id = ? AND reserved + ? <= cap RETURNING 1)
+         SELECT EXISTS (SELECT 1 FROM held) AS held, EXISTS (SELECT 1 FROM shop_run_variant_caps WHERE run_id = ? AND variant_id = ?) AS capped`,
+        [l.quantity, l.runId, l.variantId, l.quantity, l.runId, l.variantId],
+      );
+      if (rows[0].capped && !rows[0].held) return false;
+    }
+    for (const l of byVariant.filter((x) => !x.runId)) {
+      const n = await trx('shop_variants').where('id', l.variantId).whereNotNull('stock_on_hand').where('stock_on_hand', '>=', l.quantity).decrement('stock_on_hand', l.quantity);
+      if (n !== 1) return false;
+    }
     const perRun = new Map<number, number>();
     for (const l of lines) if (l.runId) perRun.set(l.runId, (perRun.get(l.runId) ?? 0) + l.quantity);
     for (const [runId, qty] of [...perRun].sort((a, b) => a[0] - b[0])) {
@@ -157,29 +178,31 @@ export class OrderRepository {
         .increment('reserved', qty);
       if (n !== 1) return false;
     }
-    const byVariant = [...lines].sort((a, b) => a.variantId - b.variantId);
-    for (const l of byVariant.filter((x) => x.runId)) {
-      const cap = await trx('shop_run_variant_caps').where({ run_id: l.runId, variant_id: l.variantId }).first();
-      if (cap && (await trx('shop_run_variant_caps').where({ run_id: l.runId, variant_id: l.variantId }).whereRaw('reserved + ? <= cap', [l.quantity]).increment('reserved', l.quantity)) !== 1) return false;
-    }
-    for (const l of byVariant.filter((x) => !x.runId)) {
-      const n = await trx('shop_variants').where('id', l.variantId).whereNotNull('stock_on_hand').where('stock_on_hand', '>=', l.quantity).decrement('stock_on_hand', l.quantity);
-      if (n !== 1) return false;
-    }
     return true;
   }
 
-  /** Gives units back to their run (and variant cap) or to stock. */
+  /** Gives units back to their variant cap and run, or to stock, in `reserve`'s order. */
   async release(trx: Knex.Transaction, lines: { variantId: number; runId: number | null; quantity: number }[]): Promise<void> {
     const sorted = [...lines].filter((l) => l.quantity > 0).sort((a, b) => (a.runId ?? 0) - (b.runId ?? 0) || a.variantId - b.variantId);
-    for (const l of sorted.filter((x) => x.runId)) await trx('shop_runs').where('id', l.runId!).decrement('reserved', l.quantity);
     for (const l of sorted.filter((x) => x.runId)) await trx('shop_run_variant_caps').where({ run_id: l.runId, variant_id: l.variantId }).decrement('reserved', l.quantity);
     for (const l of sorted.filter((x) => !x.runId)) await trx('shop_variants').where('id', l.variantId).increment('stock_on_hand', l.quantity);
+    for (const l of sorted.filter((x) => x.runId)) await trx('shop_runs').where('id', l.runId!).decrement('reserved', l.quantity);
   }
 
   /** Moves an order between statuses only from the expected one; returns whether it moved. */
   async transition(trx: Db, id: number, from: OrderStatus[], patch: Partial<OrderRow> & { status?: OrderStatus }): Promise<boolean> {
     return (await trx('shop_orders').where('id', id).whereIn('status', from).update(patch)) === 1;
+  }
+
+  /**
+   * Like `transition`, returning the order as it now stands with its lines and taxes (two reads fewer than `find`);
+   * null when it was not in a `from` state. An order leaving `pending` has no refunds yet.
+   */
+  async transitionFromPending(trx: Knex.Transaction, id: number, patch: Partial<OrderRow> & { status: OrderStatus }): Promise<OrderBundle | null> {
+    const [row] = await trx('shop_orders').where({ id, status: 'pending' }).update(patch).returning(['*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")]);
+    if (!row) return null;
+    const [items, taxes] = [await this.items(trx, id), await this.taxes(trx, id)];
+    return { order: fix(row), items, taxes, refunds: [] };
   }
 
   async update(trx: Db, id: number, patch: Record<string, unknown>): Promise<void> {
@@ -191,10 +214,18 @@ export class OrderRepository {
     if (forUpdate) q.forUpdate();
     const row = await q;
     if (!row) return null;
-    const items = (await trx<OrderItemRow>('shop_order_items').where('order_id', id).orderBy('id')).map((i) => ({ ...i, id: Number(i.id), order_id: id, variant_id: Number(i.variant_id), run_id: i.run_id === null ? null : Number(i.run_id) }));
-    const taxes = (await trx('shop_order_taxes').where('order_id', id).orderBy('code')).map((t) => ({ ...t, rate_percent: String(t.rate_percent) }));
+    const items = await this.items(trx, id);
+    const taxes = await this.taxes(trx, id);
     const refunds = (await trx<RefundRow>('shop_refunds').where('order_id', id).orderBy('id')).map((r) => ({ ...r, id: Number(r.id), order_id: id }));
     return { order: fix(row), items, taxes, refunds };
+  }
+
+  private async items(trx: Db, orderId: number): Promise<OrderItemRow[]> {
+    return (await trx<OrderItemRow>('shop_order_items').where('order_id', orderId).orderBy('id')).map((i) => ({ ...i, id: Number(i.id), order_id: orderId, variant_id: Number(i.variant_id), run_id: i.run_id === null ? null : Number(i.run_id) }));
+  }
+
+  private async taxes(trx: Db, orderId: number): Promise<OrderTaxRow[]> {
+    return (await trx('shop_order_taxes').where('order_id', orderId).orderBy('code')).map((t) => ({ ...t, rate_percent: String(t.rate_percent) }));
   }
 
   async byChargeId(chargeId: string, trx: Db = this.db): Promise<number | null> {

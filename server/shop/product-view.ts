@@ -47,3 +47,20 @@ export function productView(b: ProductBundle, now: Date): ProductView {
     variants: b.variants.map((v) => ({ id: v.id, sku: v.sku, label: v.label, priceCents: v.price_cents ?? p.price_cents, weightGrams: v.weight_grams ?? p.weight_grams, remaining: variantRemaining(b, v.id) })),
   };
 }
+
+/**
+ * The instants (ms) between which views built at `now` stay as they are while no row changes: a run's state moves
+ * when it opens and when it closes.
+ */
+export function viewValidity(bundles: ProductBundle[], now: Date): { validFrom: number; validUntil: number } {
+  const t = now.getTime();
+  let validFrom = -Infinity;
+  let validUntil = Infinity;
+  for (const { run } of bundles) {
+    for (const at of run ? [run.opens_at.getTime(), run.closes_at.getTime()] : []) {
+      if (at <= t) validFrom = Math.max(validFrom, at);
+      else validUntil = Math.min(validUntil, at);
+    }
+  }
+  return { validFrom, validUntil };
+}

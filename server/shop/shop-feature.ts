@@ -1,5 +1,6 @@
 import { PaymentThrottle } from '../payments/payment-throttle';
 import type { Feature, Platform } from '../platform/feature';
+import { NotifiedCache, type ReadyJson } from '../platform/notified-cache';
 import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';
 import { CheckoutService } from './checkout-service';
@@ -28,7 +29,7 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
   const config = new ShopConfigRepository(deps.db);
   const orders = new OrderRepository(deps.db);
   const quotes = new QuoteService(catalogueRepo, config, settings, deps.config);
-  const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock);
+  const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock, new NotifiedCache<ReadyJson>(platform.notifications, 'shop_catalogue'));
   const links = new OrderLinks(deps.config.sessionSecret, deps.config.publicUrl);
   const guide = new OrderGuide(orders, deps.clock, deps.config.site.clubName, deps.config.clubTimeZone);
   const receipts = new ReceiptService(settings, deps.config.site.teamName, deps.config.clubTimeZone);
@@ -41,8 +42,10 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
   const admin = { catalogue, fulfilment, refunds, refundRepo, orders, config, settings, timeZone: deps.config.clubTimeZone };
   return {
     name: 'shop',
-    mount(api) {
+    mountPublic(api) {
       api('/products', productRoutes(pub));
+    },
+    mount(api) {
       api('/shipping-methods', shippingMethodRoutes(pub));
       api('/checkout', checkoutRoutes(pub));
       api('/orders', orderRoutes(pub));

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { notFound } from '../platform/app-error';
+import type { ReadyJson } from '../platform/notified-cache';
 import { requireSignedIn } from '../platform/require-role';
 import type { Role } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
@@ -39,15 +40,26 @@ export interface ShopDeps {
   now(): Date;
 }
 
-/** GET /api/products ({items}), GET /api/products/:slug (the product itself). */
+/**
+ * A ready catalogue answer. Browsers must ask again each time (remaining units change with every sale) but may send
+ * the version they hold: an unchanged answer is then a 304 without a body (Express compares If-None-Match).
+ */
+function sendReady(res: import('express').Response, ready: ReadyJson): void {
+  res.set('Cache-Control', 'no-cache').set('ETag', `"${ready.version}"`).type('json').send(ready.json);
+}
+
+/**
+ * GET /api/products ({items}), GET /api/products/:slug (the product itself). Mounted before the session: they are
+ * the same for everyone, and a visitor browsing the shop should cost no session read or write.
+ */
 export function productRoutes(d: ShopDeps): Router {
   const r = Router();
   r.get('/', async function listProducts(_req, res) {
-    res.json({ items: await d.catalogue.list(true) });
+    sendReady(res, await d.catalogue.storefrontList());
   });
   r.get('/:slug', async function showProduct(req, res) {
     const slug = parse(z.string().regex(/^[a-z0-9-]{1,80}$/, 'Not a product address.'), req.params.slug);
-    res.json(await d.catalogue.bySlug(slug));
+    sendReady(res, await d.catalogue.storefrontProduct(slug));
   });
   return r;
 }
