@@ -19,6 +19,8 @@ module.exports = {
       testEnvironment: 'jsdom',
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
       setupFilesAfterEnv: ['<rootDir>/src/test-setup.ts'],
+      // The shared label and date modules, as tsconfig.json's `paths` maps them for the app.
+      moduleNameMapper: { '^@contracts/(.*)$': '<rootDir>/contracts/$1' },
     },
   ],
 };
