@@ -79,7 +79,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   // The webhook needs its raw body for the signature check, so JSON parsing skips it.
   api.use((req, res, next) => (CSRF_EXEMPT.includes(req.path) ? next() : express.json({ limit: '100kb' })(req, res, next)));
   apiMount('/health', healthRoutes(deps));
-  apiMount('/site', siteRoutes(deps.config.site));
+  apiMount('/site', siteRoutes(deps.config.site, deps.config.clubTimeZone));
   // Everything from here on may depend on who is signed in, CSV and PDF downloads included.
   api.use(noStore);
   api.use(sessions.middleware);
