@@ -5,7 +5,11 @@
 export function labelOf<K extends string>(labels: Readonly<Record<K, string>>, code: K | string | null | undefined): string {
   if (code === null || code === undefined || code === '') return '';
   const known = (labels as Readonly<Record<string, string>>)[code];
-  if (known !== undefined) return known;
+  return known ?? codeInWords(code);
+}
+
+/** A code someone else chose (a card processor's reason, say) as words: "product_not_received" -> "Product not received". */
+export function codeInWords(code: string): string {
   const words = code.replace(/[_-]+/g, ' ').trim().toLowerCase();
   return words.charAt(0).toUpperCase() + words.slice(1);
 }
