@@ -1,6 +1,6 @@
 import { DELIVERABLE_KIND_LABELS } from '../../contracts/labels/deliverable-kinds';
 import { FLIGHT_OUTCOME_LABELS, FLIGHT_STATUS_LABELS, LAUNCH_STATUS_LABELS, RECOVERY_LABELS } from '../../contracts/labels/launch-statuses';
-import { DUES_PAYMENT_STATUS_LABELS, MEMBERSHIP_STATUS_LABELS, PLAN_ELIGIBILITY_LABELS } from '../../contracts/labels/membership-statuses';
+import { DUES_ENTRY_LABELS, DUES_PAYMENT_STATUS_LABELS, MEMBERSHIP_STATUS_LABELS, PLAN_ELIGIBILITY_LABELS } from '../../contracts/labels/membership-statuses';
 import { MOVEMENT_KIND_LABELS, MOVEMENT_SOURCE_LABELS } from '../../contracts/labels/money-movements';
 import { ORDER_STATUS_LABELS } from '../../contracts/labels/order-statuses';
 import { PAYMENT_METHOD_LABELS } from '../../contracts/labels/payment-methods';
@@ -25,6 +25,7 @@ const COVERED: [constraint: string, labels: Readonly<Record<string, string>>][] 
   ['shop_orders_status', ORDER_STATUS_LABELS],
   ['membership_payments_method', PAYMENT_METHOD_LABELS],
   ['membership_payments_status', DUES_PAYMENT_STATUS_LABELS],
+  ['membership_payments_entry', DUES_ENTRY_LABELS],
   ['memberships_status', MEMBERSHIP_STATUS_LABELS],
   ['membership_plans_eligibility', PLAN_ELIGIBILITY_LABELS],
   ['shop_refunds_state', REFUND_STATE_LABELS],

@@ -1,7 +1,7 @@
 import { DELIVERABLE_KIND_LABELS, deliverableState } from '../../contracts/labels/deliverable-kinds';
 import { FLIGHT_OUTCOME_LABELS, FLIGHT_STATUS_LABELS, LAUNCH_STATUS_LABELS, RECOVERY_LABELS } from '../../contracts/labels/launch-statuses';
 import { labelOf, yesNo } from '../../contracts/labels/label-of';
-import { DUES_PAYMENT_STATUS_LABELS, MEMBERSHIP_STATUS_LABELS, PLAN_ELIGIBILITY_LABELS } from '../../contracts/labels/membership-statuses';
+import { DUES_ENTRY_LABELS, DUES_PAYMENT_STATUS_LABELS, MEMBERSHIP_AUDIT_LABELS, MEMBERSHIP_STATUS_LABELS, PLAN_ELIGIBILITY_LABELS } from '../../contracts/labels/membership-statuses';
 import { MOVEMENT_KIND_LABELS, MOVEMENT_SOURCE_LABELS } from '../../contracts/labels/money-movements';
 import { ORDER_STATUS_LABELS } from '../../contracts/labels/order-statuses';
 import { PAYMENT_METHOD_LABELS } from '../../contracts/labels/payment-methods';
@@ -16,7 +16,9 @@ const MAPS: Record<string, Readonly<Record<string, string>>> = {
   FLIGHT_STATUS_LABELS,
   LAUNCH_STATUS_LABELS,
   RECOVERY_LABELS,
+  DUES_ENTRY_LABELS,
   DUES_PAYMENT_STATUS_LABELS,
+  MEMBERSHIP_AUDIT_LABELS,
   MEMBERSHIP_STATUS_LABELS,
   PLAN_ELIGIBILITY_LABELS,
   MOVEMENT_KIND_LABELS,

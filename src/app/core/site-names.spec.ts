@@ -9,9 +9,11 @@ describe('SiteNames', () => {
   it('holds the names the server gives', async () => {
     const names = TestBed.inject(SiteNames);
     const loading = names.load();
-    TestBed.inject(HttpTestingController).expectOne('/api/site').flush({ teamName: 'Nozzle & Nylon', clubName: 'Prairie Sky Rocketry Club' });
+    TestBed.inject(HttpTestingController).expectOne('/api/site').flush({ teamName: 'Nozzle & Nylon', clubName: 'Prairie Sky Rocketry Club', timeZone: 'America/Regina' });
     await loading;
     expect(names.teamName()).toBe('Nozzle & Nylon');
     expect(names.clubName()).toBe('Prairie Sky Rocketry Club');
+    expect(names.timeZone()).toBe('America/Regina');
+    expect(names.clubTime()).toBe('club time (Regina)');
   });
 });

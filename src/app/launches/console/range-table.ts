@@ -7,6 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { apiErrorMessage } from '../../core/api-error';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { FlightCaution } from '../flight-caution';
 import { todayIn } from '../launch-calendar';
@@ -26,7 +27,7 @@ interface Draft {
  */
 @Component({
   selector: 'ps-range-table',
-  imports: [RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FlightCaution],
+  imports: [RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ClubDatePipe, EmptyState, FlightCaution],
   templateUrl: './range-table.html',
   styleUrl: './range-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
