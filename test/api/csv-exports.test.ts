@@ -82,7 +82,7 @@ describe('GET /api/admin/reports/ledger.csv', () => {
       ['2017-05-20', 'L-3'],
       ['2017-05-31', 'L-4'],
     ]);
-    expect(mine[0].slice(1, 3)).toEqual(['Dues paid in person', 'Dues']);
+    expect(mine[0].slice(1, 3)).toEqual(['Dues payment', 'Dues']);
     expect(mine[0][5]).toBe('Cash');
   });
 

@@ -8,6 +8,7 @@ import { POST_STATUS_LABELS } from '../../contracts/labels/post-states';
 import { REFUND_ORIGIN_LABELS, REFUND_STATE_LABELS } from '../../contracts/labels/refund-states';
 import { ROLE_LABELS } from '../../contracts/labels/roles';
 import { RUN_STATE_LABELS } from '../../contracts/labels/run-states';
+import { SHIPPING_METHOD_LABELS } from '../../contracts/labels/shipping-methods';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 
 // The codes the database allows are read from its CHECK constraints, so a migration that adds a code without a
@@ -37,6 +38,7 @@ const COVERED: [constraint: string, labels: Readonly<Record<string, string>>][] 
   ['money_movements_kind', MOVEMENT_KIND_LABELS],
   ['money_movements_source', MOVEMENT_SOURCE_LABELS],
   ['users_roles_known', ROLE_LABELS],
+  ['shop_shipping_methods_code', SHIPPING_METHOD_LABELS],
 ];
 
 async function allowedCodes(constraint: string): Promise<string[]> {

@@ -9,6 +9,7 @@ import { POST_STATUS_LABELS, POST_VISIBILITY_LABELS, postVisibility } from '../.
 import { REFUND_ORIGIN_LABELS, REFUND_STATE_LABELS } from '../../contracts/labels/refund-states';
 import { ROLE_LABELS } from '../../contracts/labels/roles';
 import { RUN_MOVE_LABELS, RUN_STATE_LABELS } from '../../contracts/labels/run-states';
+import { SHIPPING_METHOD_LABELS } from '../../contracts/labels/shipping-methods';
 
 const MAPS: Record<string, Readonly<Record<string, string>>> = {
   DELIVERABLE_KIND_LABELS,
@@ -32,6 +33,7 @@ const MAPS: Record<string, Readonly<Record<string, string>>> = {
   ROLE_LABELS,
   RUN_MOVE_LABELS,
   RUN_STATE_LABELS,
+  SHIPPING_METHOD_LABELS,
 };
 
 describe('every label map', () => {

@@ -15,6 +15,7 @@ import { MembershipApi } from '../../membership/membership-api';
 import { MEMBERSHIP_STATUS_LABELS } from '@contracts/labels/membership-statuses';
 import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
+import { LabelPipe } from '../../shared/label-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MembersApi, filterParams, type RosterQuery } from './members-api';
 
@@ -23,7 +24,7 @@ const FIRST: RosterQuery = { status: '', planId: '', certificationLevel: '', ass
 /** The roster: filters, search, server-side sort and paging, CSV export and an e-mail to the filtered list. */
 @Component({
   selector: 'ps-roster',
-  imports: [FormsModule, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatSelectModule, MatSortModule, MatTableModule, ClubDatePipe, EmptyState, FieldErrorPipe],
+  imports: [FormsModule, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatSelectModule, MatSortModule, MatTableModule, ClubDatePipe, LabelPipe, EmptyState, FieldErrorPipe],
   templateUrl: './roster.html',
   styleUrl: './members.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
