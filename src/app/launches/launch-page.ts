@@ -8,16 +8,19 @@ import { apiErrorMessage } from '../core/api-error';
 import { SessionStore } from '../core/session-store';
 import { FlightCaution } from './flight-caution';
 import { LaunchesApi } from './launches-api';
+import { SiteNames } from '../core/site-names';
+import { ClubDatePipe } from '../shared/club-date-pipe';
 
 /** One launch day: when and where, the reply (coming or not), and the flight card once checked in at the field. */
 @Component({
   selector: 'ps-launch-page',
-  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, FlightCaution],
+  imports: [RouterLink, ClubDatePipe, MatButtonModule, MatButtonToggleModule, FlightCaution],
   templateUrl: './launch-page.html',
   styleUrl: './launches.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class LaunchPage {
+  protected readonly site = inject(SiteNames);
   private readonly api = inject(LaunchesApi);
   protected readonly session = inject(SessionStore);
   readonly id = input.required<string>();
