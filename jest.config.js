@@ -12,6 +12,8 @@ module.exports = {
       // marked and feed ship only ES modules.
       transformIgnorePatterns: ['/node_modules/(?!(marked|feed)/)'],
       setupFilesAfterEnv: ['<rootDir>/test/helpers/jest-timeouts.ts'],
+      // Unit tests of the app's pure builders reach the shared modules through the app's own `@contracts` imports.
+      moduleNameMapper: { '^@contracts/(.*)$': '<rootDir>/contracts/$1' },
     },
     {
       displayName: 'client',
@@ -19,6 +21,8 @@ module.exports = {
       testEnvironment: 'jsdom',
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
       setupFilesAfterEnv: ['<rootDir>/src/test-setup.ts'],
+      // The shared label and date modules, as tsconfig.json's `paths` maps them for the app.
+      moduleNameMapper: { '^@contracts/(.*)$': '<rootDir>/contracts/$1' },
     },
   ],
 };

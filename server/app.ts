@@ -88,7 +88,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   // The webhook needs its raw body for the signature check, so JSON parsing skips it.
   api.use((req, res, next) => (CSRF_EXEMPT.includes(req.path) ? next() : express.json({ limit: '100kb' })(req, res, next)));
   apiMount('/health', healthRoutes(deps));
-  apiMount('/site', siteRoutes(deps.config.site));
+  apiMount('/site', siteRoutes(deps.config.site, deps.config.clubTimeZone));
   // Public reads: no session, so their answers say themselves how they may be cached. The text guard runs here too.
   for (const feature of features) feature.mountPublic?.((at, router) => {
     mounts.push({ prefix: '/api' + at, router });

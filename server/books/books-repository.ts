@@ -32,6 +32,8 @@ const MOVEMENT_TAX = '(SELECT COALESCE(SUM(x.tax_cents), 0) FROM money_movement_
 
 export interface LedgerRow {
   id: number;
+  /** The exact instant as PostgreSQL writes it (microseconds kept), for the next page's cursor. */
+  occurredAt: string;
   date: string;
   kind: string;
   source: string;
@@ -111,16 +113,20 @@ export class BooksRepository {
     return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source), grossCents: Number(r.gross), taxCents: Number(r.tax), refundsCents: Number(r.refunds), feesCents: Number(r.fees) }));
   }
 
-  /** Movements in date order, one page at a time, so an export never holds every row in memory. */
-  async ledgerPage(range: DateRange, afterId: number, limit: number): Promise<LedgerRow[]> {
-    const rows = await this.inRange(this.db('money_movements as m'), range)
-      .leftJoin('money_movement_taxes as t', 't.movement_id', 'm.id')
-      .where('m.id', '>', afterId)
+  /**
+   * Movements in date order (when they happened, then id), one page at a time after the last row of the page before,
+   * so an export never holds every row in memory.
+   */
+  async ledgerPage(range: DateRange, after: { occurredAt: string; id: number } | null, limit: number): Promise<LedgerRow[]> {
+    const q = this.inRange(this.db('money_movements as m'), range).leftJoin('money_movement_taxes as t', 't.movement_id', 'm.id');
+    if (after) q.whereRaw('(m.occurred_at, m.id) > (?::timestamptz, ?)', [after.occurredAt, after.id]);
+    const rows = await q
       .groupBy('m.id')
-      .orderBy('m.id')
+      .orderBy([{ column: 'm.occurred_at' }, { column: 'm.id' }])
       .limit(limit)
       .select(
         'm.id',
+        this.db.raw('m.occurred_at::text AS occurred_key'),
         this.db.raw("to_char(m.occurred_at AT TIME ZONE ?, 'YYYY-MM-DD') AS date", [this.timeZone]),
         'm.kind',
         'm.source',
@@ -134,6 +140,7 @@ export class BooksRepository {
       );
     return (rows as RawRow[]).map((r) => ({
       id: Number(r.id),
+      occurredAt: String(r.occurred_key),
       date: String(r.date),
       kind: String(r.kind),
       source: String(r.source),

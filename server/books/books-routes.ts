@@ -4,7 +4,7 @@ import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import type { BooksService } from './books-service';
 import { DateRangeQuery } from './date-range';
-import { PROCESSOR_FEES } from './processor-fees';
+import { FeePercentBody, fromFeePercent, toFeePercent } from './fee-percent';
 
 function sendCsv(res: import('express').Response, name: string): void {
   res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="${name}"` });
@@ -62,15 +62,15 @@ export function dashboardRoutes(books: BooksService): Router {
   return r;
 }
 
-/** The processor-fee estimate settings under /api/admin/settings/processor-fees. */
+/** The processor-fee estimate settings under /api/admin/settings/processor-fees, read and typed as percentages. */
 export function feeSettingsRoutes(books: BooksService): Router {
   const r = Router();
   r.use(requireRole('treasurer', 'admin'));
   r.get('/', async function feeSettings(_req, res) {
-    res.json(await books.feeSettings());
+    res.json(toFeePercent(await books.feeSettings()));
   });
   r.put('/', async function saveFeeSettings(req, res) {
-    res.json(await books.saveFeeSettings(parse(PROCESSOR_FEES.schema, req.body)));
+    res.json(toFeePercent(await books.saveFeeSettings(fromFeePercent(parse(FeePercentBody, req.body)))));
   });
   return r;
 }

@@ -1,6 +1,9 @@
 import type { PaymentGateway } from '../payments/payment-gateway';
 import { dateInZone, type Clock } from '../platform/clock';
-import { centsToDecimal, toCsv } from '../platform/csv';
+import { labelOf, yesNo } from '../../contracts/labels/label-of';
+import { MOVEMENT_KIND_LABELS, MOVEMENT_SOURCE_LABELS } from '../../contracts/labels/money-movements';
+import { PAYMENT_METHOD_LABELS } from '../../contracts/labels/payment-methods';
+import { centsToDecimal, csvLines, toCsv, zonedHeader } from '../platform/csv';
 import type { SettingsService } from '../settings/settings-service';
 import { BooksRepository } from './books-repository';
 import type { DashboardSources } from './dashboard-sources';
@@ -54,7 +57,7 @@ export class BooksService {
   async taxCsv(range: DateRange): Promise<string> {
     const { authorities } = await this.taxReport(range);
     return toCsv(
-      ['authority', 'tax', 'jurisdiction', 'taxable_sales_net_of_refunds', 'tax_collected', 'tax_refunded', 'net_tax_collected'],
+      ['Tax authority', 'Tax', 'Jurisdiction', 'Taxable sales net of refunds (CAD)', 'Tax collected (CAD)', 'Tax refunded (CAD)', 'Net tax collected (CAD)'],
       authorities.flatMap((a) => a.lines.map((l) => [a.name, l.code, l.jurisdiction, centsToDecimal(l.taxableCents), centsToDecimal(l.taxCents), centsToDecimal(l.refundedCents), centsToDecimal(l.netCents)])),
     );
   }
@@ -67,28 +70,28 @@ export class BooksService {
     return { from: range.from, to: range.to, timeZone: this.timeZone, rows, totals: incomeTotals(rows) };
   }
 
-  /** The ledger as CSV chunks, a page of movements at a time. */
+  /** The ledger as CSV chunks, a page of movements at a time, in the order they happened. */
   async *ledgerCsv(range: DateRange): AsyncGenerator<string> {
     checkRange(range);
-    yield toCsv(['date', 'kind', 'source', 'reference', 'counterparty', 'method', 'gross', ...TAX_CODES.map((c) => c.toLowerCase()), 'fee', 'fee_estimated', 'net'], []);
-    for (let after = 0; ; ) {
+    yield toCsv([zonedHeader('Date', this.timeZone), 'Kind', 'Source', 'Reference', 'Counterparty', 'Method', 'Gross (CAD)', ...TAX_CODES.map((c) => `${c} (CAD)`), 'Fee (CAD)', 'Fee estimated', 'Net (CAD)'], []);
+    for (let after: { occurredAt: string; id: number } | null = null; ; ) {
       const page = await this.repo.ledgerPage(range, after, LEDGER_PAGE);
       if (!page.length) return;
       const rows = page.map((m) => [
         m.date,
-        m.kind,
-        m.source,
+        labelOf(MOVEMENT_KIND_LABELS, m.kind),
+        labelOf(MOVEMENT_SOURCE_LABELS, m.source),
         m.reference,
         m.counterparty,
-        m.method,
+        labelOf(PAYMENT_METHOD_LABELS, m.method),
         centsToDecimal(m.grossCents),
         ...TAX_CODES.map((c) => (m.taxes[c] === undefined ? '' : centsToDecimal(m.taxes[c]))),
         centsToDecimal(m.feeCents),
-        m.feeEstimated ? 'yes' : 'no',
+        yesNo(m.feeEstimated),
         centsToDecimal(m.grossCents - m.feeCents),
       ]);
-      yield toCsv([], rows).replace(/^\r\n/, '');
-      after = page[page.length - 1].id;
+      yield csvLines(rows);
+      after = page[page.length - 1];
     }
   }
 

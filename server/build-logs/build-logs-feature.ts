@@ -30,7 +30,7 @@ export function buildLogsFeature(platform: Platform): Feature {
       api('/sponsors', sponsorPublicRoutes(sponsors, today));
       api('/admin/sponsors', sponsorTaxRoutes(sponsorTax, today));
       api('/admin/sponsors', sponsorAdminRoutes(sponsors, clock, today));
-      api('/sponsor-portal', sponsorPortalRoutes(sponsors, today, config.site.teamName));
+      api('/sponsor-portal', sponsorPortalRoutes(sponsors, today, config.site.teamName, config.clubTimeZone));
     },
     mountSite(site) {
       site('/feeds', feedRoutes(posts, config.publicUrl, config.site.teamName));

@@ -9,7 +9,8 @@ import type { Role } from '../platform/roles';
 import type { SettingsService } from '../settings/settings-service';
 import { allowedClassesFor } from './certification';
 import type { FlightRepository, FlightRow, StoredMotor } from './flight-repository';
-import { FLIGHT_CAUTION, flightDataView, flightView, OUTCOME_LABELS } from './flight-views';
+import { FLIGHT_OUTCOMES, type FlightOutcome } from '../../contracts/labels/launch-statuses';
+import { FLIGHT_CAUTION, flightDataView, flightView } from './flight-views';
 import type { FlyerStanding } from './flyer-standing';
 import type { LaunchService } from './launch-service';
 import { LAUNCH_SETTINGS } from './launch-settings';
@@ -128,7 +129,7 @@ export class FlightService {
   /** How a cleared flight went; can be corrected afterwards. */
   async outcome(id: number, outcome: string, notes: string | null) {
     const f = await this.find(id);
-    if (!OUTCOME_LABELS[outcome]) throw badRequest('Choose how the flight ended.', { outcome: 'Choose an outcome.' });
+    if (!FLIGHT_OUTCOMES.includes(outcome as FlightOutcome)) throw badRequest('Choose how the flight ended.', { outcome: 'Choose an outcome.' });
     if (!(await this.repo.recordOutcome(this.db, id, outcome, notes))) throw conflict('not_cleared', `Only a card cleared to fly gets an outcome; this one is ${f.status === 'sent_back' ? 'sent back' : 'still waiting'}.`);
     return { flight: flightView((await this.repo.byId(id))!) };
   }

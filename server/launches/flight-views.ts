@@ -1,24 +1,10 @@
+import { FLIGHT_OUTCOME_LABELS, FLIGHT_STATUS_LABELS, type FlightOutcome } from '../../contracts/labels/launch-statuses';
 import type { FlightDataRow, FlightRow } from './flight-repository';
 
 /** The caution every flight page and the range queue carry, in Padside's words. */
 export const FLIGHT_CAUTION =
   'Padside only keeps the record. The range safety officer decides what flies and when. Fly under your national ' +
   "association's safety code and the local aviation and fire rules.";
-
-/** Padside's words for how a flight ended. */
-export const OUTCOME_LABELS: Record<string, string> = {
-  recovered: 'Recovered',
-  damaged: 'Recovered with damage',
-  lost: 'Lost',
-  tree: 'Caught in a tree',
-  motor_failure: 'Motor failure',
-};
-
-/** Padside's words for a card's state. */
-export const FLIGHT_STATUS_LABELS: Record<FlightRow['status'], string> = { filed: 'Waiting at the table', approved: 'Cleared to fly', sent_back: 'Sent back', flown: 'Flown' };
-
-/** Padside's words for recovery methods. */
-export const RECOVERY_LABELS: Record<string, string> = { parachute: 'Parachute', streamer: 'Streamer', dual_deploy: 'Dual deployment' };
 
 /** A flight card as its flyer, the range officer and the public flight page see it. */
 export function flightView(f: FlightRow) {
@@ -43,7 +29,7 @@ export function flightView(f: FlightRow) {
     statusLabel: FLIGHT_STATUS_LABELS[f.status],
     decisionReason: f.decision_reason,
     outcome: f.outcome,
-    outcomeLabel: f.outcome ? OUTCOME_LABELS[f.outcome] : null,
+    outcomeLabel: f.outcome ? FLIGHT_OUTCOME_LABELS[f.outcome as FlightOutcome] : null,
     outcomeNotes: f.outcome_notes,
     apogeeMetres: f.apogee_metres ?? null,
     filedAt: f.created_at,

@@ -1,3 +1,4 @@
+import { clubTimeInWords, formatClock, formatDay } from '../../contracts/dates/club-dates';
 import type { OutgoingEmail } from '../mail/outbox';
 import type { LaunchRow, Recipient } from './launch-repository';
 
@@ -6,7 +7,7 @@ const FLYING_NOTE =
   'Padside keeps the club calendar; the range safety officer decides on the day. Fly under your national association\'s ' +
   'safety code and the local aviation and fire rules, and bring your member card for check-in.';
 
-const when = (l: LaunchRow, timeZone: string) => `${l.launch_date}, ${l.starts_at} to ${l.ends_at} (${timeZone} time)`;
+const when = (l: LaunchRow, timeZone: string) => `${formatDay(l.launch_date)}, ${formatClock(l.starts_at)} to ${formatClock(l.ends_at)} ${clubTimeInWords(timeZone)}`;
 
 /** The reminder two days before a launch, once per launch and person. */
 export function launchReminderMail(to: Recipient, l: LaunchRow, timeZone: string, publicUrl: string): OutgoingEmail {
@@ -14,7 +15,7 @@ export function launchReminderMail(to: Recipient, l: LaunchRow, timeZone: string
     to: to.email,
     template: 'launch-reminder',
     dedupeKey: `launch-reminder:${l.id}:${to.user_id}`,
-    subject: `Launch day soon: ${l.title} on ${l.launch_date}`,
+    subject: `Launch day soon: ${l.title} on ${formatDay(l.launch_date)}`,
     text: [
       `Hello ${to.display_name},`,
       '',
@@ -36,7 +37,7 @@ export function launchCalledOffMail(to: Recipient, l: LaunchRow, reason: string,
     to: to.email,
     template: 'launch-called-off',
     dedupeKey: `launch-called-off:${l.id}:${to.user_id}`,
-    subject: `Called off: ${l.title} on ${l.launch_date}`,
+    subject: `Called off: ${l.title} on ${formatDay(l.launch_date)}`,
     text: [
       `Hello ${to.display_name},`,
       '',

@@ -1,7 +1,5 @@
+import { LAUNCH_STATUS_LABELS } from '../../contracts/labels/launch-statuses';
 import type { LaunchRow } from './launch-repository';
-
-/** Padside's words for a launch's state. */
-export const LAUNCH_STATUS_LABELS: Record<LaunchRow['status'], string> = { scheduled: 'On the calendar', called_off: 'Called off', done: 'Flown and closed' };
 
 const num = (v: string | null) => (v === null ? null : Number(v));
 

@@ -10,6 +10,8 @@ import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { dateOnly, type MembershipRepository, type AsOf, type PlanRow, type RosterQuery } from './membership-repository';
 import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
 import { membershipView, paymentView, planView, rosterView } from './membership-views';
+import { labelOf, yesNo } from '../../contracts/labels/label-of';
+import { MEMBERSHIP_STATUS_LABELS } from '../../contracts/labels/membership-statuses';
 import { toCsv } from '../platform/csv';
 import { withVoidedVerifications } from './flying-status';
 import { verificationsView } from './flying-status-service';
@@ -62,7 +64,7 @@ export class MemberAdminService {
     const rows = (await this.repo.rosterAll(q, await this.asOf())).map((r) => rosterView(r, today, policy));
     return toCsv(
       ['Member number', 'Name', 'E-mail', 'Plan', 'Status', 'Term end', 'Certification', 'Certification checked', 'Association number', 'Association expires', 'Association checked', 'Auto-renew'],
-      rows.map((r) => [r.memberNumber, r.name, r.email, r.planName, r.status, r.termEnd, r.certificationLevel, r.certificationVerified ? 'yes' : 'no', r.associationNumber, r.associationExpires, r.associationVerified ? 'yes' : 'no', r.autoRenew ? 'yes' : 'no']),
+      rows.map((r) => [r.memberNumber, r.name, r.email, r.planName, labelOf(MEMBERSHIP_STATUS_LABELS, r.status), r.termEnd, r.certificationLevel, yesNo(r.certificationVerified), r.associationNumber, r.associationExpires, yesNo(r.associationVerified), yesNo(r.autoRenew)]),
     );
   }
 

@@ -1,3 +1,6 @@
+import { formatDay } from '../../contracts/dates/club-dates';
+import { labelOf } from '../../contracts/labels/label-of';
+import { PAYMENT_METHOD_LABELS } from '../../contracts/labels/payment-methods';
 import type { OutgoingEmail } from '../mail/outbox';
 import { formatCad } from '../platform/money';
 
@@ -21,13 +24,13 @@ export function receiptMail(c: MemberMailContext, p: { paymentId: number; amount
     to: c.to,
     template: 'membership-receipt',
     dedupeKey: `membership-receipt:${p.paymentId}`,
-    subject: `Dues receipt: member ${c.memberNumber}, paid to ${p.termEnd}`,
+    subject: `Dues receipt: member ${c.memberNumber}, paid to ${formatDay(p.termEnd)}`,
     text: [
       `Hello ${c.name},`,
       '',
-      `Thank you. We received ${formatCad(p.amountCents)} (${p.method}${p.receiptNumber ? `, receipt ${p.receiptNumber}` : ''}) for the ${c.planName} plan.`,
+      `Thank you. We received ${formatCad(p.amountCents)} (${labelOf(PAYMENT_METHOD_LABELS, p.method)}${p.receiptNumber ? `, receipt ${p.receiptNumber}` : ''}) for the ${c.planName} plan.`,
       `Member number: ${c.memberNumber}`,
-      `Term: ${p.termStart} to ${p.termEnd}`,
+      `Term: ${formatDay(p.termStart)} to ${formatDay(p.termEnd)}`,
       'Club dues carry no sales tax.',
       '',
       `Your member card: ${c.publicUrl}/membership/card`,
@@ -44,14 +47,15 @@ export function refundMail(c: MemberMailContext, p: { refundId: number; amountCe
     template: 'membership-refund',
     dedupeKey: `membership-refund:${p.refundId}`,
     subject: `Dues refund: member ${c.memberNumber}`,
-    text: [`Hello ${c.name},`, '', `We refunded ${formatCad(p.amountCents)} of your dues (${p.method}).`, p.termEnd ? `Your membership now runs to ${p.termEnd}.` : 'Your membership has no paid term now.', '', FLYING_NOTE].join('\n'),
+    text: [`Hello ${c.name},`, '', `We refunded ${formatCad(p.amountCents)} of your dues (${labelOf(PAYMENT_METHOD_LABELS, p.method)}).`, p.termEnd ? `Your membership now runs to ${formatDay(p.termEnd)}.` : 'Your membership has no paid term now.', '', FLYING_NOTE].join('\n'),
   };
 }
 
 export type ReminderKind = 'due-30' | 'due-7' | 'due-today' | 'overdue-14' | 'association-30';
 
 /** Dues and association reminders; each is once per term end (or association expiry) through its dedupe key. */
-export function reminderMail(c: MemberMailContext & { membershipId: number }, kind: ReminderKind, date: string, autoRenew: boolean): OutgoingEmail {
+export function reminderMail(c: MemberMailContext & { membershipId: number }, kind: ReminderKind, on: string, autoRenew: boolean): OutgoingEmail {
+  const date = formatDay(on);
   const renewLink = `${c.publicUrl}/membership`;
   const auto = autoRenew ? 'Auto-renew is on: we will charge your saved card on the last day of your term.' : `Renew here: ${renewLink}`;
   const lines: Record<ReminderKind, { subject: string; body: string }> = {
@@ -65,7 +69,7 @@ export function reminderMail(c: MemberMailContext & { membershipId: number }, ki
   return {
     to: c.to,
     template: `membership-${kind}`,
-    dedupeKey: `membership-reminder:${c.membershipId}:${kind}:${date}`,
+    dedupeKey: `membership-reminder:${c.membershipId}:${kind}:${on}`,
     subject: line.subject,
     text: [`Hello ${c.name},`, '', line.body, `Member number: ${c.memberNumber}`, '', FLYING_NOTE].join('\n'),
   };
@@ -74,7 +78,7 @@ export function reminderMail(c: MemberMailContext & { membershipId: number }, ki
 /** An automatic renewal charge was declined; says when the next try is or that the membership lapsed. */
 export function renewalDeclinedMail(c: MemberMailContext & { membershipId: number }, termEnd: string, attempt: number, nextTry: string | null, message: string): OutgoingEmail {
   const body = nextTry
-    ? `We could not charge your saved card for your dues (${message}). We will try again on ${nextTry}. You can put a different card on file at ${c.publicUrl}/membership.`
+    ? `We could not charge your saved card for your dues (${message}). We will try again on ${formatDay(nextTry)}. You can put a different card on file at ${c.publicUrl}/membership.`
     : `We tried your saved card three times and could not charge it (${message}). Your membership has lapsed and you no longer have flying status at club launches. Renew at ${c.publicUrl}/membership.`;
   return {
     to: c.to,
@@ -92,6 +96,6 @@ export function lapsedMail(c: MemberMailContext & { membershipId: number }, term
     template: 'membership-lapsed',
     dedupeKey: `membership-lapsed:${c.membershipId}:${termEnd}`,
     subject: 'Your club membership has lapsed',
-    text: [`Hello ${c.name},`, '', `Your membership ended on ${termEnd} and the grace period is over, so you no longer have flying status at club launches. Renew at ${c.publicUrl}/membership.`, '', FLYING_NOTE].join('\n'),
+    text: [`Hello ${c.name},`, '', `Your membership ended on ${formatDay(termEnd)} and the grace period is over, so you no longer have flying status at club launches. Renew at ${c.publicUrl}/membership.`, '', FLYING_NOTE].join('\n'),
   };
 }

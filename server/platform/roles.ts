@@ -1,6 +1,7 @@
+import { ROLES, type Role } from '../../contracts/labels/roles';
+
 /** Every role an account can hold. `member` follows dues status; the others are granted by an admin. */
-export const ROLES = ['fan', 'member', 'sponsor', 'editor', 'treasurer', 'admin', 'range_officer'] as const;
-export type Role = (typeof ROLES)[number];
+export { ROLES, type Role };
 
 /** Staff roles see the console. (Range officers see its launch pages only; the client lists them there.) */
 export const STAFF_ROLES: readonly Role[] = ['editor', 'treasurer', 'admin'];

@@ -1,3 +1,4 @@
+import { clubTimeInWords, formatDateTime } from '../../contracts/dates/club-dates';
 import type { RunState } from './run-state';
 
 /** A run one order has units in, at the moment the order is shown. */
@@ -17,14 +18,6 @@ export interface NextStepsInput {
   timeZone: string;
 }
 
-const closingFormats = new Map<string, Intl.DateTimeFormat>();
-
-/** A run's closing time in the club's zone, as people read it ("Tuesday, December 22, 2026 at 9:00 p.m."). */
-function closing(d: Date, timeZone: string): string {
-  let format = closingFormats.get(timeZone);
-  if (!format) closingFormats.set(timeZone, (format = new Intl.DateTimeFormat('en-CA', { timeZone, dateStyle: 'full', timeStyle: 'short' })));
-  return format.format(d);
-}
 
 /**
  * The buyer's next steps in plain words: when each run closes and goes to the printer, that stock items come off
@@ -36,7 +29,7 @@ export function nextSteps(i: NextStepsInput): string[] {
   const lines: string[] = [];
   for (const run of i.runs) {
     if (run.state === 'scheduled' || run.state === 'open' || run.state === 'sold_out') {
-      lines.push(`${run.name} takes orders until ${closing(run.closesAt, i.timeZone)}. The whole run goes to the printer after that, and your order is packed when the prints are back.`);
+      lines.push(`${run.name} takes orders until ${formatDateTime(run.closesAt, i.timeZone)} ${clubTimeInWords(i.timeZone)}. The whole run goes to the printer after that, and your order is packed when the prints are back.`);
     } else if (run.state === 'closed') {
       lines.push(`${run.name} has closed and goes to the printer next; your order is packed when the prints are back.`);
     } else if (run.state === 'in_production') {

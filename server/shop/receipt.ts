@@ -1,3 +1,4 @@
+import { formatDay } from '../../contracts/dates/club-dates';
 import { formatRate, type Province } from './tax';
 
 /**
@@ -76,7 +77,7 @@ export function receiptFor(input: ReceiptInput, seller: SellerDetails): Receipt 
 export function receiptText(r: Receipt, formatCad: (cents: number) => string): string[] {
   return [
     `Seller: ${r.sellerName}`,
-    `Date: ${r.date}`,
+    `Date: ${formatDay(r.date)}`,
     ...(r.buyerName ? [`Sold to: ${r.buyerName}`] : []),
     ...(r.gstHstNumber ? [`GST/HST registration number: ${r.gstHstNumber}`] : []),
     ...r.provincialTaxNumbers.map((p) => `${p.code} number (${p.jurisdiction}): ${p.number}`),

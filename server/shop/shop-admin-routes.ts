@@ -6,7 +6,9 @@ import { fields, parse } from '../platform/validate';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueService } from './catalogue-service';
 import { ProductBody, ProductPatch, RunBody } from './catalogue-service';
-import { centsToDecimal, toCsv } from '../platform/csv';
+import { ORDER_STATUS_LABELS } from '../../contracts/labels/order-statuses';
+import { labelOf } from '../../contracts/labels/label-of';
+import { centsToDecimal, csvInstant, toCsv, zonedHeader } from '../platform/csv';
 import type { FulfilmentService } from './fulfilment-service';
 import type { RefundRepository } from './refund-repository';
 import type { RefundService } from './refund-service';
@@ -70,9 +72,11 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
   });
   r.get('/export', async function exportOrders(req, res) {
     const q = parse(OrderQuery, req.query);
-    const rows = await d.orders.all(filterOf(q, d.timeZone), q.sort, q.dir);
+    // The filters choose the orders; the file always lists them oldest first, whatever the table was sorted by.
+    const rows = await d.orders.all(filterOf(q, d.timeZone), 'created', 'asc');
     res.type('text/csv; charset=utf-8').attachment('padside-orders.csv');
-    res.send(toCsv(['number', 'created_at', 'status', 'email', 'ship_to', 'country', 'shipping', 'units', 'subtotal', 'discount', 'shipping_cost', 'tax', 'total', 'refunded', 'carrier', 'tracking'], rows.map((o) => [o.number, o.created_at.toISOString(), o.status, o.email, o.ship_name, o.ship_country, o.shipping_name, o.units, centsToDecimal(o.subtotal_cents), centsToDecimal(o.discount_cents), centsToDecimal(o.shipping_cents), centsToDecimal(o.tax_cents), centsToDecimal(o.total_cents), centsToDecimal(o.refunded_cents), o.carrier, o.tracking_number])));
+    const header = ['Order number', zonedHeader('Placed at', d.timeZone), 'Status', 'E-mail', 'Ship to', 'Country', 'Shipping method', 'Units', 'Subtotal (CAD)', 'Discount (CAD)', 'Shipping (CAD)', 'Tax (CAD)', 'Total (CAD)', 'Refunded (CAD)', 'Carrier', 'Tracking number'];
+    res.send(toCsv(header, rows.map((o) => [o.number, csvInstant(o.created_at, d.timeZone), labelOf(ORDER_STATUS_LABELS, o.status), o.email, o.ship_name, o.ship_country, o.shipping_name, o.units, centsToDecimal(o.subtotal_cents), centsToDecimal(o.discount_cents), centsToDecimal(o.shipping_cents), centsToDecimal(o.tax_cents), centsToDecimal(o.total_cents), centsToDecimal(o.refunded_cents), o.carrier, o.tracking_number])));
   });
   r.get('/:id', async function showOrderForStaff(req, res) {
     const b = await d.orders.find(parse(fields.id, req.params.id));
@@ -143,7 +147,7 @@ export function runAdminRoutes(d: ShopAdminDeps): Router {
   r.get('/:id/print-sheet.csv', async function printSheetCsv(req, res) {
     const s = await d.catalogue.printSheet(parse(fields.id, req.params.id));
     res.type('text/csv; charset=utf-8').attachment(`print-run-${s.run.id}.csv`);
-    res.send(toCsv(['sku', 'variant', 'paid', 'spares', 'to_print'], [...s.lines.map((l) => [l.sku, l.label, l.paid, l.spares, l.toPrint]), ['', 'total', s.totalPaid, '', s.totalToPrint]]));
+    res.send(toCsv(['SKU', 'Variant', 'Paid', 'Spares', 'To print'], [...s.lines.map((l) => [l.sku, l.label, l.paid, l.spares, l.toPrint]), ['', 'Total', s.totalPaid, '', s.totalToPrint]]));
   });
   return r;
 }

@@ -1,3 +1,4 @@
+import { codeInWords } from '../../contracts/labels/label-of';
 import type { OutgoingEmail } from '../mail/outbox';
 import { formatCad } from '../platform/money';
 import { formatRate } from './tax';
@@ -61,6 +62,6 @@ export function disputeEmail(b: OrderBundle, to: string, reason: string): Outgoi
     subject: `Dispute opened on Padside order ${b.order.number}`,
     template: 'shop-order-dispute',
     dedupeKey: `shop-dispute-${b.order.id}`,
-    text: [`The card holder disputed the charge on order ${b.order.number} (${formatCad(b.order.total_cents)}).`, `Reason given: ${reason}`, '', 'Gather the order, shipping and tracking details and answer the dispute in the processor dashboard.'].join('\n'),
+    text: [`The card holder disputed the charge on order ${b.order.number} (${formatCad(b.order.total_cents)}).`, `Reason given: ${codeInWords(reason)}`, '', 'Gather the order, shipping and tracking details and answer the dispute in the processor dashboard.'].join('\n'),
   };
 }

@@ -1,5 +1,8 @@
 import PDFDocument from 'pdfkit';
-import { centsToDecimal, toCsv } from '../platform/csv';
+import { isoDateInZone } from '../../contracts/dates/club-dates';
+import { DELIVERABLE_KIND_LABELS } from '../../contracts/labels/deliverable-kinds';
+import { labelOf } from '../../contracts/labels/label-of';
+import { centsToDecimal, inDateOrder, toCsv, zonedHeader } from '../platform/csv';
 import { formatCad } from '../platform/money';
 import type { AgreementView, CreditView, SponsorView } from './sponsor-service';
 
@@ -8,33 +11,26 @@ const notAReceipt = (teamName: string) =>
   `This report acknowledges the support listed below and the credits ${teamName} delivered in return. It is not an official donation receipt for income tax purposes: ` +
   'in Canada only registered charities and other qualified donees issue those. For how sponsorship is treated for tax, ask the Canada Revenue Agency or your accountant.';
 
-const KIND_LABELS: Record<string, string> = {
-  build_log_credit: 'Build log credit',
-  video_mention: 'Video mention',
-  logo_on_merch: 'Logo on merch',
-  sponsors_page: 'Sponsors page listing',
-  social_post: 'Social post',
-};
-
-
 export interface ReportData {
   sponsor: SponsorView;
   agreements: AgreementView[];
   credits: CreditView[];
   generatedOn: string;
   teamName: string;
+  /** The club's zone: a credit's date is the club-time date it was published. */
+  timeZone: string;
 }
 
-/** The acknowledgement report as CSV: one row per support item and one per credit. */
+/** The acknowledgement report as CSV: one row per support item and one per credit, in date order, then the note. */
 export function acknowledgementCsv(r: ReportData): string {
   const rows: (string | number | null)[][] = [];
   for (const a of r.agreements) {
-    if (a.cashCents) rows.push(['support', a.season, 'Cash', centsToDecimal(a.cashCents), a.cashReceivedOn, '', '']);
-    for (const i of a.inKind) rows.push(['support', a.season, `In-kind: ${i.description}`, centsToDecimal(i.valueCents), i.receivedOn, '', '']);
+    if (a.cashCents) rows.push(['Support', a.season, 'Cash', centsToDecimal(a.cashCents), a.cashReceivedOn, '', '']);
+    for (const i of a.inKind) rows.push(['Support', a.season, `In-kind: ${i.description}`, centsToDecimal(i.valueCents), i.receivedOn, '', '']);
   }
-  for (const c of r.credits) rows.push(['credit', '', KIND_LABELS[c.kind] ?? c.kind, '', c.at.slice(0, 10), c.postTitle ?? c.note ?? '', c.url]);
-  rows.push(['note', '', notAReceipt(r.teamName), '', r.generatedOn, '', '']);
-  return toCsv(['line', 'season', 'item', 'declared_value_cad', 'date', 'title_or_note', 'link'], rows);
+  for (const c of r.credits) rows.push(['Credit', '', labelOf(DELIVERABLE_KIND_LABELS, c.kind), '', isoDateInZone(c.at, r.timeZone), c.postTitle ?? c.note ?? '', c.url]);
+  const note = ['Note', '', notAReceipt(r.teamName), '', r.generatedOn, '', ''];
+  return toCsv(['Line', 'Season', 'Item', 'Declared value (CAD)', zonedHeader('Date', r.timeZone), 'Title or note', 'Link'], [...inDateOrder(rows, (row) => row[4] as string | null), note]);
 }
 
 /** The acknowledgement report as a PDF (pdfkit's built-in Helvetica, so no font files are needed). */
@@ -55,13 +51,13 @@ export function acknowledgementPdf(r: ReportData): Promise<Buffer> {
     if (a.cashCents) doc.text(`Cash: ${formatCad(a.cashCents)}${a.cashReceivedOn ? ` (received ${a.cashReceivedOn})` : ' (not yet received)'}`);
     for (const i of a.inKind) doc.text(`In-kind: ${i.description}, declared value ${formatCad(i.valueCents)}${i.receivedOn ? ` (received ${i.receivedOn})` : ''}`);
     doc.text(`Declared total: ${formatCad(a.totalCents)}`);
-    for (const k of a.byKind) doc.text(`${KIND_LABELS[k.kind]}: ${k.delivered} of ${k.promised} delivered`);
+    for (const k of a.byKind) doc.text(`${labelOf(DELIVERABLE_KIND_LABELS, k.kind)}: ${k.delivered} of ${k.promised} delivered`);
     doc.moveDown(0.5);
   }
   doc.font('Helvetica-Bold').fontSize(13).text('Credits delivered');
   doc.font('Helvetica').fontSize(10);
   if (!r.credits.length) doc.text('No credits yet.');
-  for (const c of r.credits) doc.text(`${c.at.slice(0, 10)} · ${KIND_LABELS[c.kind] ?? c.kind} · ${c.postTitle ?? c.note ?? ''}${c.url ? ` · ${c.url}` : ''}`);
+  for (const c of r.credits) doc.text(`${isoDateInZone(c.at, r.timeZone)} · ${labelOf(DELIVERABLE_KIND_LABELS, c.kind)} · ${c.postTitle ?? c.note ?? ''}${c.url ? ` · ${c.url}` : ''}`);
   doc.end();
   return done;
 }

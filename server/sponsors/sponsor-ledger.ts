@@ -1,6 +1,6 @@
-/** Kinds of deliverable a sponsor can be promised. */
-export const DELIVERABLE_KINDS = ['build_log_credit', 'video_mention', 'logo_on_merch', 'sponsors_page', 'social_post'] as const;
-export type DeliverableKind = (typeof DELIVERABLE_KINDS)[number];
+import { DELIVERABLE_KINDS, type DeliverableKind } from '../../contracts/labels/deliverable-kinds';
+
+export { DELIVERABLE_KINDS, type DeliverableKind };
 
 export interface DeliverableInput {
   id: number;

@@ -4,7 +4,9 @@ import { dateInZone } from '../platform/clock';
 import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import { acknowledgementCsv, acknowledgementPdf, type ReportData } from './acknowledgement-report';
-import { toCsv } from '../platform/csv';
+import { DELIVERABLE_KIND_LABELS, DELIVERABLE_STATE_LABELS, deliverableState } from '../../contracts/labels/deliverable-kinds';
+import { labelOf } from '../../contracts/labels/label-of';
+import { inDateOrder, toCsv } from '../platform/csv';
 import { AgreementBody, CashReceivedBody, ContactBody, HandCreditBody, SponsorBody } from './sponsor-schemas';
 import type { SponsorService } from './sponsor-service';
 import { deliverablesOnly, seesSponsorMoney, withoutEmail, withoutTotal } from './sponsor-staff-view';
@@ -80,9 +82,10 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
   r.get('/:id/ledger.csv', requireRole(...STAFF), async function sponsorLedgerCsv(req, res) {
     const id = parse(fields.id, req.params.id);
     const sponsor = await sponsors.get(id);
-    const rows = (await sponsors.agreements(id, today())).flatMap((a) => a.deliverables.map((l) => [a.season, l.kind, l.promised, l.delivered, l.dueOn, l.overdue ? 'overdue' : l.delivered >= l.promised ? 'done' : 'open']));
+    const lines = (await sponsors.agreements(id, today())).flatMap((a) => a.deliverables.map((l) => ({ season: a.season, ...l })));
+    const rows = inDateOrder(lines, (l) => l.dueOn).map((l) => [l.season, labelOf(DELIVERABLE_KIND_LABELS, l.kind), l.promised, l.delivered, l.dueOn, DELIVERABLE_STATE_LABELS[deliverableState(l)]]);
     res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="ledger-${sponsor.slug}-${today()}.csv"` });
-    res.send(toCsv(['season', 'kind', 'promised', 'delivered', 'due_on', 'state'], rows));
+    res.send(toCsv(['Season', 'Deliverable', 'Promised', 'Delivered', 'Due on', 'State'], rows));
   });
   r.post('/:id/credits', requireRole(...STAFF), async function recordCredit(req, res) {
     const body = parse(HandCreditBody, req.body);
@@ -100,13 +103,13 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
 }
 
 /** /api/sponsor-portal (role sponsor): the caller's own sponsor only; there is no sponsor id to choose. */
-export function sponsorPortalRoutes(sponsors: SponsorService, today: Today, teamName: string): Router {
+export function sponsorPortalRoutes(sponsors: SponsorService, today: Today, teamName: string, timeZone: string): Router {
   const r = Router();
   r.use(requireRole('sponsor'));
   const report = async (userId: number): Promise<ReportData> => {
     const sponsor = await sponsors.sponsorOfUser(userId);
     const [agreements, credits] = await Promise.all([sponsors.agreements(sponsor.id, today()), sponsors.creditsOf(sponsor.id)]);
-    return { sponsor, agreements, credits, generatedOn: today(), teamName };
+    return { sponsor, agreements, credits, generatedOn: today(), teamName, timeZone };
   };
   r.get('/me', async function portalMe(req, res) {
     const { sponsor, agreements, credits } = await report(req.user!.id);

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { fields } from '../platform/validate';
 import { PROVINCES } from '../shop/tax';
+import { DELIVERABLE_KIND_LABELS } from '../../contracts/labels/deliverable-kinds';
 import { DELIVERABLE_KINDS } from './sponsor-ledger';
 import { TAX_TREATMENTS } from './sponsor-tax';
 
@@ -51,17 +52,17 @@ export const AgreementBody = z.object({
     .max(50)
     .optional(),
   deliverables: z
-    .array(z.object({ kind: z.enum(DELIVERABLE_KINDS, { error: `Kind is one of ${DELIVERABLE_KINDS.join(', ')}.` }), quantity: z.number({ error: 'Enter a quantity.' }).int('Whole numbers only.').min(1, 'At least 1.').max(1000), dueOn: fields.date }), {
+    .array(z.object({ kind: z.enum(DELIVERABLE_KINDS, { error: `Choose a kind: ${DELIVERABLE_KINDS.map((k) => DELIVERABLE_KIND_LABELS[k].toLowerCase()).join(', ')}.` }), quantity: z.number({ error: 'Enter a quantity.' }).int('Whole numbers only.').min(1, 'At least 1.').max(1000), dueOn: fields.date }), {
       error: 'List what was promised.',
     })
     .max(50),
 });
 
-export const CashReceivedBody = z.object({ receivedOn: fields.date, method: z.enum(['cash', 'e-transfer', 'cheque', 'card', 'other'], { error: 'Method is cash, e-transfer, cheque, card or other.' }) });
+export const CashReceivedBody = z.object({ receivedOn: fields.date, method: z.enum(['cash', 'e-transfer', 'cheque', 'card', 'other'], { error: 'Choose e-transfer, cheque, cash, card or other.' }) });
 
 export const HandCreditBody = z
   .object({
-    kind: z.enum(['video_mention', 'logo_on_merch', 'sponsors_page', 'social_post'], { error: 'Build-log credits come from publishing a post; pick video_mention, logo_on_merch, sponsors_page or social_post.' }),
+    kind: z.enum(['video_mention', 'logo_on_merch', 'sponsors_page', 'social_post'], { error: 'Build log credits come from publishing a post; pick a video mention, logo on merch, sponsors page listing or social post.' }),
     url: webAddress,
     videoTimestamp: z
       .string()

@@ -134,7 +134,7 @@ describe('GET /api/admin/reports/tax', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
     expect(res.text).toBe(
-      'authority,tax,jurisdiction,taxable_sales_net_of_refunds,tax_collected,tax_refunded,net_tax_collected\r\n' +
+      '\uFEFFTax authority,Tax,Jurisdiction,Taxable sales net of refunds (CAD),Tax collected (CAD),Tax refunded (CAD),Net tax collected (CAD)\r\n' +
         'Canada Revenue Agency,GST,MB,-30.00,1.00,2.50,-1.50\r\nManitoba Finance,RST,MB,-30.00,1.60,4.00,-2.40\r\n',
     );
   });
@@ -159,12 +159,14 @@ describe('GET /api/admin/reports/ledger.csv', () => {
     const res = await treasurer.get('/api/admin/reports/ledger.csv?from=2019-02-01&to=2019-03-31');
     expect(res.status).toBe(200);
     const lines = res.text.split('\r\n');
-    expect(lines[0]).toBe('date,kind,source,reference,counterparty,method,gross,gst,hst,pst,qst,rst,fee,fee_estimated,net');
-    expect(lines).toContain(`2019-02-10,order_payment,merch,T-${tag},Fixture Buyer,card,113.00,5.00,,,,8.00,3.58,yes,109.42`);
-    expect(lines).toContain(`2019-02-28,order_payment,merch,T-${tag},Fixture Buyer,card,56.50,2.50,,,,4.00,0.00,no,56.50`);
-    expect(lines).toContain(`2019-03-15,refund,merch,T-${tag},Fixture Buyer,card,-56.50,-2.50,,,,-4.00,0.00,no,-56.50`);
-    expect(res.text).toContain(`2019-02-20,dues_payment,dues,M-0001,"Smith, ""Jo""\nSecond line",card,45.00,,,,,,1.61,no,43.39`);
-    expect(res.text).toContain(`2019-03-20,sponsor_cash,sponsor,T-${tag},"'=HYPERLINK(""http://x.test"")",e-transfer,250.00`);
+    expect(lines[0]).toBe('\uFEFFDate (America/Winnipeg),Kind,Source,Reference,Counterparty,Method,Gross (CAD),GST (CAD),HST (CAD),PST (CAD),QST (CAD),RST (CAD),Fee (CAD),Fee estimated,Net (CAD)');
+    expect(lines).toContain(`2019-02-10,Order payment,Merch,T-${tag},Fixture Buyer,Card,113.00,5.00,,,,8.00,3.58,Yes,109.42`);
+    expect(lines).toContain(`2019-02-28,Order payment,Merch,T-${tag},Fixture Buyer,Card,56.50,2.50,,,,4.00,0.00,No,56.50`);
+    expect(lines).toContain(`2019-03-15,Refund,Merch,T-${tag},Fixture Buyer,Card,-56.50,-2.50,,,,-4.00,0.00,No,-56.50`);
+    expect(res.text).toContain(`2019-02-20,Dues payment,Dues,M-0001,"Smith, ""Jo""\nSecond line",Card,45.00,,,,,,1.61,No,43.39`);
+    expect(res.text).toContain(`2019-03-20,Sponsor cash,Sponsor cash,T-${tag},"'=HYPERLINK(""http://x.test"")",E-transfer,250.00`);
+    const dates = lines.filter((l) => l.startsWith('2019-')).map((l) => l.slice(0, 10));
+    expect(dates).toEqual([...dates].sort());
     expect(lines.filter((l) => l.startsWith('2019-')).length).toBe(6);
   });
 });
@@ -182,12 +184,21 @@ describe('actual processor fees', () => {
 });
 
 describe('PUT /api/admin/settings/processor-fees', () => {
-  it('stores a new estimate rule and refuses a bad one', async () => {
+  it('reads the estimate as percentages and refuses a bad one beside its field', async () => {
     const before = (await treasurer.get('/api/admin/settings/processor-fees')).body;
-    expect(before).toEqual({ percentBasisPoints: 290, fixedCents: 30, internationalExtraBasisPoints: 80 });
-    const bad = await treasurer.put('/api/admin/settings/processor-fees', { percentBasisPoints: -1, fixedCents: 30, internationalExtraBasisPoints: 80 });
-    expect(bad.status).toBe(400);
-    expect(bad.body.error.fields.percentBasisPoints).toBeDefined();
+    // Stored as 290 and 80 basis points: 2.9 % and 0.8 %.
+    expect(before).toEqual({ percent: 2.9, fixedCents: 30, internationalExtraPercent: 0.8 });
+    const negative = await treasurer.put('/api/admin/settings/processor-fees', { ...before, percent: -1 });
+    expect(negative.status).toBe(400);
+    expect(negative.body.error.fields.percent).toBe('At least 0 %.');
+    const tooFine = await treasurer.put('/api/admin/settings/processor-fees', { ...before, internationalExtraPercent: 0.125 });
+    expect(tooFine.status).toBe(400);
+    expect(tooFine.body.error.fields.internationalExtraPercent).toMatch(/two decimals/);
+    // Suites share the club-wide setting, so the stored value is only written back as it was.
+    const same = await treasurer.put('/api/admin/settings/processor-fees', before);
+    expect(same.body).toEqual(before);
+    const stored = await t.deps.db('settings').where({ key: 'processor_fees' }).first('value');
+    expect(stored.value).toEqual({ percentBasisPoints: 290, fixedCents: 30, internationalExtraBasisPoints: 80 });
   });
 });
 

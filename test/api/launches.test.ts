@@ -168,7 +168,7 @@ describe('the launch reminder job', () => {
     await job.run();
     const sent = await mails(yes.user.email, 'launch-reminder');
     expect(sent).toHaveLength(1);
-    expect(sent[0].subject).toContain('2031-09-13');
+    expect(sent[0].subject).toContain('Sep 13, 2031');
     expect(await mails(no.user.email, 'launch-reminder')).toHaveLength(0);
   });
 

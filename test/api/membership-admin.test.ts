@@ -69,6 +69,7 @@ describe('GET /api/admin/members/export.csv', () => {
     const res = await treasurer.get(`/api/admin/members/export.csv?q=${encodeURIComponent('HYPERLINK')}`);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
+    expect(res.text.startsWith('\uFEFF')).toBe(true);
     const lines = res.text.trim().split('\r\n');
     expect(lines[0]).toBe('Member number,Name,E-mail,Plan,Status,Term end,Certification,Certification checked,Association number,Association expires,Association checked,Auto-renew');
     expect(lines).toHaveLength(2);

@@ -134,7 +134,7 @@ describe('ASVS 4.1.2: flying status is verified by staff, not claimed', () => {
     const [line] = (await treasurer.get(`/api/admin/members?q=${q}`)).body.items;
     expect(line).toEqual(expect.objectContaining({ associationVerified: true, certificationVerified: false }));
     const csv = (await treasurer.get(`/api/admin/members/export.csv?q=${q}`)).text.trim().split('\r\n');
-    expect(csv[1]).toContain(',L1,no,NA-4010,2028-12-31,yes,');
+    expect(csv[1]).toContain(',L1,No,NA-4010,2028-12-31,Yes,');
   });
 
   it('lets staff withdraw a verification', async () => {

@@ -67,7 +67,7 @@ describe('POST /api/membership', () => {
       expect(await rolesOf(user.id)).toContain('member');
       const receipts = await t.deps.db('outbound_emails').where({ to_address: user.email, template: 'membership-receipt' });
       expect(receipts).toHaveLength(1);
-      expect(receipts[0].text_body).toContain('2026-06-15 to 2026-12-31');
+      expect(receipts[0].text_body).toContain('Jun 15, 2026 to Dec 31, 2026');
       const row = await t.deps.db('memberships').where('user_id', user.id).first();
       expect(row.waiver_version).toBe('2026-1');
       expect(row.waiver_accepted_at).toEqual(clock.now());

@@ -109,7 +109,7 @@ describe('GET /api/admin/orders', () => {
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
     // OWASP "CSV Injection": a cell beginning with = is prefixed with a quote.
     expect(csv.text).toContain(`"'=HYPERLINK(""x"")"`);
-    expect(csv.text.split('\r\n')[0]).toBe('number,created_at,status,email,ship_to,country,shipping,units,subtotal,discount,shipping_cost,tax,total,refunded,carrier,tracking');
+    expect(csv.text.split('\r\n')[0]).toBe('\uFEFFOrder number,Placed at (America/Winnipeg),Status,E-mail,Ship to,Country,Shipping method,Units,Subtotal (CAD),Discount (CAD),Shipping (CAD),Tax (CAD),Total (CAD),Refunded (CAD),Carrier,Tracking number');
   });
 });
 
@@ -127,7 +127,7 @@ describe('GET /api/admin/runs/:id/print-sheet', () => {
     expect((await staff.post(`/api/admin/runs/${shirt.run.id}/state`, { state: 'closed' })).body.run.state).toBe('closed');
     expect((await staff.get(`/api/admin/runs/${shirt.run.id}/print-sheet`)).body.kind).toBe('final');
     const csv = await staff.get(`/api/admin/runs/${shirt.run.id}/print-sheet.csv`);
-    expect(csv.text).toContain(',total,16,,24');
+    expect(csv.text).toContain(',Total,16,,24');
     const c = new Client(t.app);
     const closed = await c.post('/api/checkout/quote', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada') });
     expect(closed.status).toBe(409);

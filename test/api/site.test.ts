@@ -4,15 +4,15 @@ import { buildTestApp, type TestApp } from '../helpers/test-app';
 // Invented names, unlike the demo's, to show they come from the environment and not from the code.
 let t: TestApp;
 beforeAll(() => {
-  t = buildTestApp({ env: { TEAM_NAME: 'Nozzle & Nylon', CLUB_NAME: 'Prairie Sky Rocketry Club' } });
+  t = buildTestApp({ env: { TEAM_NAME: 'Nozzle & Nylon', CLUB_NAME: 'Prairie Sky Rocketry Club', CLUB_TIME_ZONE: 'America/Regina' } });
 });
 afterAll(() => t.close());
 
 describe('GET /api/site', () => {
-  it('gives the team and club names the deployment set', async () => {
+  it('gives the team and club names and the club time zone the deployment set', async () => {
     const res = await request(t.app).get('/api/site');
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ teamName: 'Nozzle & Nylon', clubName: 'Prairie Sky Rocketry Club' });
+    expect(res.body).toEqual({ teamName: 'Nozzle & Nylon', clubName: 'Prairie Sky Rocketry Club', timeZone: 'America/Regina' });
   });
 });
 

@@ -137,7 +137,7 @@ describe('GET /api/admin/sponsors/:id/ledger.csv', () => {
     const res = await editor.get(`/api/admin/sponsors/${s.id}/ledger.csv`);
     expect(res.status).toBe(200);
     expect(res.headers['content-disposition']).toContain('ledger-csv-export-co-2026-11-20.csv');
-    expect(res.text).toBe('season,kind,promised,delivered,due_on,state\r\n2026,build_log_credit,2,0,2026-11-01,overdue\r\n2026,video_mention,1,0,2026-12-31,open\r\n');
+    expect(res.text).toBe('\uFEFFSeason,Deliverable,Promised,Delivered,Due on,State\r\n2026,Build log credit,2,0,2026-11-01,Overdue\r\n2026,Video mention,1,0,2026-12-31,Open\r\n');
   });
 });
 

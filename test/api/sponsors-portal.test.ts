@@ -71,6 +71,8 @@ describe('acknowledgement report downloads', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/attachment; filename="acknowledgement-report-csv-co-2026-11-20\.csv"/);
+    expect(res.text.split('\r\n')[0]).toBe('\uFEFFLine,Season,Item,Declared value (CAD),Date (America/Winnipeg),Title or note,Link');
+    expect(res.text.trim().split('\r\n').pop()).toMatch(/^Note,/);
     // OWASP "CSV Injection": a cell starting with = is prefixed with a single quote.
     expect(res.text).toContain(`"In-kind: =HYPERLINK(""http://evil.test"")"`);
     expect(res.text).not.toMatch(/(^|,)"=/m);

@@ -123,7 +123,7 @@ describe('club dues in a browser', () => {
     expect(lines[0]).toMatch(/^Member number,Name,E-mail,Plan,Status/);
     expect(lines).toHaveLength(2);
     expect(lines[1]).toContain(`Pim Haverkamp ${tag}`);
-    expect(lines[1]).toContain('lapsed');
+    expect(lines[1]).toContain('Lapsed');
     await page.close();
   });
 
@@ -141,7 +141,7 @@ describe('club dues in a browser', () => {
     await page.getByRole('button', { name: 'Record payment' }).click();
     await page.getByText('Payment GF-0712 recorded').waitFor();
     await page.getByRole('cell', { name: /#GF-0712/ }).waitFor();
-    await page.getByText('2027-01-01 to 2027-12-31').first().waitFor();
+    await page.getByText('Jan 1, 2027 to Dec 31, 2027').first().waitFor();
     await screenshot(page, 'membership-member-detail');
     await page.goto(`${site.baseUrl}/console/members/summary`);
     await page.getByRole('heading', { name: 'Collected per month and plan' }).waitFor();
@@ -163,7 +163,7 @@ describe('club dues in a browser', () => {
     await page.getByRole('button', { name: 'Check' }).click();
     // The association details are the member's own claim: shown in words, and not cleared to fly.
     await page.getByTestId('check-in-verdict').getByText(/Not cleared to fly/).waitFor();
-    await page.getByTestId('answer-association').getByText(/NA-808 to 2027-04-30: claimed, not yet checked/).waitFor();
+    await page.getByTestId('answer-association').getByText(/NA-808 to Apr 30, 2027: claimed, not yet checked/).waitFor();
     await screenshot(page, 'membership-check-in-claimed');
     const treasurer = new Client(t.app);
     await treasurer.signIn(await createUser(t.deps.db, ['fan', 'treasurer'], 'Card Checker'));

@@ -10,6 +10,7 @@ import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 import { openShirt } from '../api/shop-fixtures';
 import { toPaymentStep } from './checkout-steps';
+import { formatDateTime } from '../../contracts/dates/club-dates';
 
 let t: TestApp;
 let browser: Browser;
@@ -375,7 +376,8 @@ describe('what happens next', () => {
     await page.getByRole('heading', { name: 'Thank you, your order is in' }).waitFor({ timeout: 15_000 });
     const number = (await page.getByRole('status').filter({ hasText: 'Order' }).locator('strong').first().textContent())!.trim();
 
-    const closes = new Intl.DateTimeFormat('en-CA', { timeZone: t.config.clubTimeZone, dateStyle: 'full' }).format(new Date(run.closes_at));
+    // The club format of every date people read (contracts/dates/club-dates.ts), to the minute, in club time.
+    const closes = formatDateTime(new Date(run.closes_at), t.config.clubTimeZone);
     const next = page.getByRole('region', { name: 'What happens next' });
     await next.getByText(new RegExp(`${run.name} takes orders until ${closes}`)).waitFor();
     await next.getByText(/goes to the printer after that/).waitFor();

@@ -56,7 +56,7 @@ describe('a refund by line from the console, on a phone', () => {
     await dialog.getByRole('button', { name: 'Refund $39.20' }).click();
 
     await page.getByText('Refund sent; 1 back on sale.').waitFor();
-    await page.getByText(/\$39\.20 · Staff · refunded/).waitFor();
+    await page.getByText(/\$39\.20 · Staff · Refunded/).waitFor();
     await page.getByText('(2 ordered, 1 refunded)').waitFor();
     expect(await page.getByText(/is required/).count()).toBe(0);
     // A fresh form for the next refund: nothing left ticked from this one.

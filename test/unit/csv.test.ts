@@ -1,4 +1,4 @@
-import { centsToDecimal, csvCell, toCsv } from '../../server/platform/csv';
+import { centsToDecimal, csvCell, csvInstant, csvLines, inDateOrder, toCsv } from '../../server/platform/csv';
 
 describe('csvCell', () => {
   // OWASP "CSV Injection": cells beginning with = + - @ tab or CR are prefixed with a single quote.
@@ -56,8 +56,36 @@ describe('csvCell', () => {
     expect(csvCell(null)).toBe('');
   });
 
-  it('should join rows with CRLF', () => {
-    expect(toCsv(['a', 'b'], [[1, 'x,y']])).toBe('a,b\r\n1,"x,y"\r\n');
+  it('should start with the UTF-8 byte-order mark and join rows with CRLF', () => {
+    expect(toCsv(['a', 'b'], [[1, 'x,y']])).toBe('\uFEFFa,b\r\n1,"x,y"\r\n');
+    expect(Buffer.from(toCsv(['a'], [])).subarray(0, 3)).toEqual(Buffer.from([0xef, 0xbb, 0xbf]));
+  });
+
+  it('should give later chunks of a streamed export without mark or header', () => {
+    expect(csvLines([[1, 2], ['x', null]])).toBe('1,2\r\nx,\r\n');
+    expect(csvLines([])).toBe('');
+  });
+});
+
+describe('csvInstant', () => {
+  // IANA tz database, northamerica, Rule Canada: 2026-11-01 07:00 UTC is when Winnipeg goes back to -06:00.
+  it('should write ISO 8601 in club time with the offset, to the minute', () => {
+    expect(csvInstant(new Date('2026-11-01T06:59:59Z'), 'America/Winnipeg')).toBe('2026-11-01T01:59-05:00');
+    expect(csvInstant('2026-11-01T07:00:00Z', 'America/Winnipeg')).toBe('2026-11-01T01:00-06:00');
+    expect(csvInstant(null, 'America/Winnipeg')).toBe('');
+  });
+});
+
+describe('inDateOrder', () => {
+  it('should sort by the instant, not by the text of the wall-clock time', () => {
+    // 01:30 at -05:00 comes before 01:10 at -06:00 on the night the clocks go back.
+    const rows = [{ id: 'b', at: new Date('2026-11-01T07:10:00Z') }, { id: 'a', at: new Date('2026-11-01T06:30:00Z') }];
+    expect(inDateOrder(rows, (r) => r.at).map((r) => r.id)).toEqual(['a', 'b']);
+  });
+
+  it('should put rows without a date last and keep ties in their order', () => {
+    const rows = [{ id: 1, d: null }, { id: 2, d: '2026-05-02' }, { id: 3, d: '2026-05-01' }, { id: 4, d: '2026-05-02' }];
+    expect(inDateOrder(rows, (r) => r.d).map((r) => r.id)).toEqual([3, 2, 4, 1]);
   });
 });
 

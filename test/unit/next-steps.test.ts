@@ -6,7 +6,7 @@ describe('nextSteps', () => {
   it('gives the closing time of an open run in the club’s zone, then the printer, then tracking by e-mail', () => {
     // 2026-12-23T03:00Z is 21:00 on December 22 in Winnipeg (CST, UTC-6; IANA tz database, from memory).
     const lines = nextSteps({ ...base, runs: [{ name: 'Season 3 shirt run', state: 'open', closesAt: new Date('2026-12-23T03:00:00Z') }] });
-    expect(lines[0]).toMatch(/^Season 3 shirt run takes orders until Tuesday, December 22, 2026 at 9:00/);
+    expect(lines[0]).toMatch(/^Season 3 shirt run takes orders until Dec 22, 2026, 9:00 p.m. club time \(Winnipeg\)\./);
     expect(lines[0]).toContain('goes to the printer after that');
     expect(lines.at(-1)).toBe('We e-mail you the carrier and the tracking number the day it ships.');
   });

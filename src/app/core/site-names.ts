@@ -1,11 +1,17 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
+import { clubTimeInWords } from '@contracts/dates/club-dates';
 
-/** The team and club this Padside serves, as `/api/site` returns them. */
+/** The team and club this Padside serves and the club's time zone, as `/api/site` returns them. */
 export interface SiteNamesView {
   teamName: string;
   clubName: string;
+  /** A tz database name such as `America/Winnipeg`: every date and time is shown in club time. */
+  timeZone: string;
 }
+
+// Until the answer arrives (or if it never does), dates follow this browser's own zone.
+const BROWSER_ZONE = new Intl.DateTimeFormat().resolvedOptions().timeZone;
 
 /**
  * The team and club names, asked for when first needed; the deployment sets them, so they never change while the app
@@ -13,9 +19,12 @@ export interface SiteNamesView {
  */
 @Injectable({ providedIn: 'root' })
 export class SiteNames {
-  private readonly names = signal<SiteNamesView>({ teamName: '', clubName: '' });
+  private readonly names = signal<SiteNamesView>({ teamName: '', clubName: '', timeZone: BROWSER_ZONE });
   readonly teamName = computed(() => this.names().teamName);
   readonly clubName = computed(() => this.names().clubName);
+  readonly timeZone = computed(() => this.names().timeZone || BROWSER_ZONE);
+  /** Which clock the console's times follow, in words: "club time (Winnipeg)". */
+  readonly clubTime = computed(() => clubTimeInWords(this.timeZone()));
 
   constructor() {
     inject(HttpClient)

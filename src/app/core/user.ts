@@ -1,5 +1,7 @@
-/** Roles as the server names them. */
-export type Role = 'fan' | 'member' | 'sponsor' | 'editor' | 'treasurer' | 'admin' | 'range_officer';
+import type { Role } from '@contracts/labels/roles';
+
+/** Roles as the server names them (their labels are `ROLE_LABELS` in the same module). */
+export type { Role };
 
 /** Roles that see the console (each sees only its own sections there). */
 export const STAFF_ROLES: readonly Role[] = ['editor', 'treasurer', 'admin', 'range_officer'];

@@ -7,16 +7,19 @@ import { FlightChart } from '../flights/flight-chart';
 import { FlightLogUpload } from '../flights/flight-log-upload';
 import { FlightCaution } from './flight-caution';
 import { LaunchesApi } from './launches-api';
+import { RECOVERY_LABELS } from '@contracts/labels/launch-statuses';
+import { LabelPipe } from '../shared/label-pipe';
 
 /** A flight's page: the card as filed, the range officer's decision and outcome, and the altimeter data. */
 @Component({
   selector: 'ps-flight-page',
-  imports: [RouterLink, DecimalPipe, FlightCaution, FlightChart, FlightLogUpload],
+  imports: [RouterLink, DecimalPipe, LabelPipe, FlightCaution, FlightChart, FlightLogUpload],
   templateUrl: './flight-page.html',
   styleUrl: './launches.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class FlightPage {
+  protected readonly recoveryLabels = RECOVERY_LABELS;
   private readonly api = inject(LaunchesApi);
   private readonly session = inject(SessionStore);
   readonly id = input.required<string>();

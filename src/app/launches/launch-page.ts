@@ -12,16 +12,18 @@ import { SiteNames } from '../core/site-names';
 import { launchData } from '../core/structured-data';
 import { FlightCaution } from './flight-caution';
 import { LaunchesApi } from './launches-api';
+import { ClubDatePipe } from '../shared/club-date-pipe';
 
 /** One launch day: when and where, the reply (coming or not), and the flight card once checked in at the field. */
 @Component({
   selector: 'ps-launch-page',
-  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, FlightCaution],
+  imports: [RouterLink, ClubDatePipe, MatButtonModule, MatButtonToggleModule, FlightCaution],
   templateUrl: './launch-page.html',
   styleUrl: './launches.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class LaunchPage {
+  protected readonly site = inject(SiteNames);
   private readonly api = inject(LaunchesApi);
   protected readonly session = inject(SessionStore);
   readonly id = input.required<string>();

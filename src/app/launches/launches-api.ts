@@ -3,10 +3,11 @@ import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
 import type { FlightEvent, FlightSummary } from '../flights/flight-data';
+import { FLIGHT_OUTCOME_LABELS, FLIGHT_OUTCOMES, RECOVERY_LABELS, RECOVERY_METHODS, type FlightOutcome as Outcome, type FlightStatus, type LaunchStatus } from '@contracts/labels/launch-statuses';
 
 export type { FlightEvent, FlightSummary } from '../flights/flight-data';
 
-export type LaunchStatus = 'scheduled' | 'called_off' | 'done';
+export type { LaunchStatus } from '@contracts/labels/launch-statuses';
 
 /** A launch day as the API shows it. */
 export interface Launch {
@@ -46,8 +47,7 @@ export interface Motor {
   totalImpulseMaxNs: number;
 }
 
-export type FlightStatus = 'filed' | 'approved' | 'sent_back' | 'flown';
-export type Outcome = 'recovered' | 'damaged' | 'lost' | 'tree' | 'motor_failure';
+export type { FlightStatus, FlightOutcome as Outcome } from '@contracts/labels/launch-statuses';
 
 /** A flight card. */
 export interface Flight {
@@ -181,16 +181,7 @@ export class LaunchesApi {
 }
 
 /** Padside's words for outcomes, in the order the range officer picks from. */
-export const OUTCOMES: { value: Outcome; label: string }[] = [
-  { value: 'recovered', label: 'Recovered' },
-  { value: 'damaged', label: 'Recovered with damage' },
-  { value: 'lost', label: 'Lost' },
-  { value: 'tree', label: 'Caught in a tree' },
-  { value: 'motor_failure', label: 'Motor failure' },
-];
+export const OUTCOMES: { value: Outcome; label: string }[] = FLIGHT_OUTCOMES.map((value) => ({ value, label: FLIGHT_OUTCOME_LABELS[value] }));
 
-export const RECOVERY: { value: string; label: string }[] = [
-  { value: 'parachute', label: 'Parachute' },
-  { value: 'streamer', label: 'Streamer' },
-  { value: 'dual_deploy', label: 'Dual deployment' },
-];
+/** Padside's words for recovery methods, in the order the flight card offers them. */
+export const RECOVERY: { value: string; label: string }[] = RECOVERY_METHODS.map((value) => ({ value, label: RECOVERY_LABELS[value] }));

@@ -10,5 +10,5 @@ export function timeLeft(until: string, now: number): string {
   return `${mins} min left`;
 }
 
-/** How a run's state reads on a card. */
-export const RUN_STATE_LABELS: Record<string, string> = { scheduled: 'Opens soon', open: 'Taking orders', sold_out: 'Sold out', closed: 'Window closed', in_production: 'Being printed', shipped: 'Shipped' };
+/** How a run's state reads on a card (shared with the console and CSVs). */
+export { RUN_STATE_LABELS } from '@contracts/labels/run-states';

@@ -128,5 +128,5 @@ export interface OrderSummary {
   carrier: string | null;
   trackingNumber: string | null;
 }
-/** What the buyer sees for each status (Padside's own words). */
-export const STATUS_LABELS: Record<Order['status'], string> = { pending: 'Payment unconfirmed', paid: 'Paid', failed: 'Not paid', packed: 'Packed', shipped: 'Shipped' };
+/** What the buyer sees for each status (Padside's own words, shared with e-mails and CSVs). */
+export { ORDER_STATUS_LABELS as STATUS_LABELS } from '@contracts/labels/order-statuses';

@@ -3,16 +3,10 @@ import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
 
-export type DeliverableKind = 'build_log_credit' | 'video_mention' | 'logo_on_merch' | 'sponsors_page' | 'social_post';
+/** Padside's labels for deliverable kinds (shared with e-mails, reports and CSVs). */
+import type { DeliverableKind } from '@contracts/labels/deliverable-kinds';
 
-/** Padside's labels for deliverable kinds. */
-export const KIND_LABELS: Record<DeliverableKind, string> = {
-  build_log_credit: 'Build log credit',
-  video_mention: 'Video mention',
-  logo_on_merch: 'Logo on merch',
-  sponsors_page: 'Sponsors page listing',
-  social_post: 'Social post',
-};
+export { DELIVERABLE_KIND_LABELS as KIND_LABELS, type DeliverableKind } from '@contracts/labels/deliverable-kinds';
 
 export interface SponsorCard {
   id: number;

@@ -64,10 +64,11 @@ export interface SponsorValue {
   items: { sponsor: string; tier: string | null; cashCents: number; inKindCents: number; totalCents: number; promised: number; delivered: number }[];
 }
 
+/** The card-fee estimate as the console types it: percentages (2.9 for 2.9 %) and the fixed part in cents. */
 export interface FeeSettings {
-  percentBasisPoints: number;
+  percent: number;
   fixedCents: number;
-  internationalExtraBasisPoints: number;
+  internationalExtraPercent: number;
 }
 
 export interface Dashboard {

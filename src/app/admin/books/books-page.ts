@@ -8,19 +8,22 @@ import { MatInputModule } from '@angular/material/input';
 import { MatTableModule } from '@angular/material/table';
 import { BaseChartDirective, provideCharts, withDefaultRegisterables } from 'ng2-charts';
 import type { ChartConfiguration } from 'chart.js';
+import { labelOf } from '@contracts/labels/label-of';
+import { MOVEMENT_SOURCE_LABELS as SOURCE_LABELS } from '@contracts/labels/money-movements';
+import { SiteNames } from '../../core/site-names';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { BooksApi, type Period, type RevenueRow } from './books-api';
 import { FeeSettingsCard } from './fee-settings-card';
 import { currentQuarter } from './period';
 
-const SOURCE_LABELS: Record<RevenueRow['source'], string> = { merch: 'Merch', dues: 'Dues', sponsor: 'Sponsor cash' };
 const SOURCE_COLOURS: Record<RevenueRow['source'], string> = { merch: '#376286', dues: '#c8561f', sponsor: '#6a7988' };
 
 /** Tax collected per authority, income net of tax and fees by month, and the ledger export for one period. */
 @Component({
   selector: 'ps-books-page',
-  imports: [FormsModule, MatButtonModule, MatCardModule, MatFormFieldModule, MatInputModule, MatTableModule, BaseChartDirective, MoneyPipe, EmptyState, FeeSettingsCard],
+  imports: [FormsModule, MatButtonModule, MatCardModule, MatFormFieldModule, MatInputModule, MatTableModule, BaseChartDirective, MoneyPipe, ClubDatePipe, EmptyState, FeeSettingsCard],
   providers: [provideCharts(withDefaultRegisterables())],
   templateUrl: './books-page.html',
   styleUrl: './books-page.scss',
@@ -28,6 +31,8 @@ const SOURCE_COLOURS: Record<RevenueRow['source'], string> = { merch: '#376286',
 })
 export class BooksPage {
   private readonly api = inject(BooksApi);
+  /** The report's days are club days: "club time (Winnipeg)". */
+  protected readonly site = inject(SiteNames);
 
   protected readonly period = signal<Period>(currentQuarter());
   protected readonly tax = rxResource({ params: () => this.period(), stream: ({ params }) => this.api.tax(params) });
@@ -63,7 +68,7 @@ export class BooksPage {
   }
 
   protected sourceLabel(source: string): string {
-    return SOURCE_LABELS[source as RevenueRow['source']] ?? source;
+    return labelOf(SOURCE_LABELS, source);
   }
 
   protected print(): void {

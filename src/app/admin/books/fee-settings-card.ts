@@ -24,20 +24,23 @@ import { BooksApi } from './books-api';
         <form [formGroup]="form" (ngSubmit)="save()" class="fees" novalidate>
           @if (problem(); as message) { <p class="form-problem" role="alert">{{ message }}</p> }
           <mat-form-field>
-            <mat-label>Percentage (hundredths of a percent)</mat-label>
-            <input matInput type="number" formControlName="percentBasisPoints" />
-            <mat-hint>290 = 2.9%</mat-hint>
-            <mat-error>{{ form.controls.percentBasisPoints | fieldError: 'Percentage' }}</mat-error>
+            <mat-label>Percentage of each payment</mat-label>
+            <input matInput type="number" inputmode="decimal" step="0.01" formControlName="percent" />
+            <span matTextSuffix>%</span>
+            <mat-hint>For example 2.9</mat-hint>
+            <mat-error>{{ form.controls.percent | fieldError: 'Percentage' }}</mat-error>
           </mat-form-field>
           <mat-form-field>
-            <mat-label>Fixed part (cents)</mat-label>
-            <input matInput type="number" formControlName="fixedCents" />
+            <mat-label>Fixed part per payment</mat-label>
+            <input matInput type="number" inputmode="numeric" formControlName="fixedCents" />
+            <span matTextSuffix>cents</span>
             <mat-error>{{ form.controls.fixedCents | fieldError: 'Fixed part' }}</mat-error>
           </mat-form-field>
           <mat-form-field>
-            <mat-label>Extra for cards from abroad (hundredths of a percent)</mat-label>
-            <input matInput type="number" formControlName="internationalExtraBasisPoints" />
-            <mat-error>{{ form.controls.internationalExtraBasisPoints | fieldError: 'Extra' }}</mat-error>
+            <mat-label>Extra for cards from abroad</mat-label>
+            <input matInput type="number" inputmode="decimal" step="0.01" formControlName="internationalExtraPercent" />
+            <span matTextSuffix>%</span>
+            <mat-error>{{ form.controls.internationalExtraPercent | fieldError: 'Extra' }}</mat-error>
           </mat-form-field>
           <button mat-flat-button type="submit">Save estimate</button>
         </form>
@@ -50,8 +53,12 @@ import { BooksApi } from './books-api';
 export class FeeSettingsCard implements OnInit {
   private readonly api = inject(BooksApi);
   private readonly snackBar = inject(MatSnackBar);
-  private readonly whole = [Validators.required, Validators.min(0), Validators.max(10000)];
-  protected readonly form = inject(NonNullableFormBuilder).group({ percentBasisPoints: [0, this.whole], fixedCents: [0, this.whole], internationalExtraBasisPoints: [0, this.whole] });
+  private readonly percent = [Validators.required, Validators.min(0), Validators.max(100)];
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    percent: [0, this.percent],
+    fixedCents: [0, [Validators.required, Validators.min(0), Validators.max(10000)]],
+    internationalExtraPercent: [0, this.percent],
+  });
   protected readonly problem = signal<string | null>(null);
 
   async ngOnInit(): Promise<void> {

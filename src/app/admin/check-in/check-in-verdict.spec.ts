@@ -1,4 +1,5 @@
 import { TestBed } from '@angular/core/testing';
+import { SiteNames } from '../../core/site-names';
 import { CheckInVerdict, type CheckInResult } from './check-in-verdict';
 
 const claimed: CheckInResult = {
@@ -16,6 +17,7 @@ const claimed: CheckInResult = {
 const checked = { at: '2028-04-10T17:00:00.000Z', by: 'Tess Treasurer', against: 'association card, seen at the field' };
 
 describe('CheckInVerdict', () => {
+  beforeEach(() => TestBed.configureTestingModule({ providers: [{ provide: SiteNames, useValue: { timeZone: () => 'America/Winnipeg' } }] }));
   function render(result: CheckInResult): HTMLElement {
     const fixture = TestBed.createComponent(CheckInVerdict);
     fixture.componentRef.setInput('result', result);
@@ -30,7 +32,7 @@ describe('CheckInVerdict', () => {
     expect(verdict.querySelector('h2')!.textContent).toContain('Not cleared to fly');
     expect(verdict.classList).toContain('stop');
     expect(verdict.classList).not.toContain('ok');
-    expect(answer(el, 'dues').textContent).toContain('current to 2028-12-31');
+    expect(answer(el, 'dues').textContent).toContain('current to Dec 31, 2028');
     expect(answer(el, 'dues').classList).toContain('ok');
     for (const key of ['association', 'certification']) {
       expect(answer(el, key).textContent).toContain('claimed, not yet checked');
@@ -46,7 +48,7 @@ describe('CheckInVerdict', () => {
     const verdict = el.querySelector('[data-testid=check-in-verdict]')!;
     expect(verdict.querySelector('h2')!.textContent).toContain('May fly');
     expect(verdict.classList).toContain('ok');
-    expect(answer(el, 'association').textContent).toContain('NA-31337, current to 2028-12-31; checked 2028-04-10 by Tess Treasurer against association card, seen at the field');
+    expect(answer(el, 'association').textContent).toContain('NA-31337, current to Dec 31, 2028; checked Apr 10, 2028 by Tess Treasurer against association card, seen at the field');
     expect(answer(el, 'association').querySelector('.mark')!.textContent).toBe('✓');
     // The certification stays a separate answer: still a claim.
     expect(answer(el, 'certification').textContent).toContain('claimed, not yet checked');
@@ -54,9 +56,9 @@ describe('CheckInVerdict', () => {
 
   it('should say why not: lapsed dues and an expired association, each in words', () => {
     const el = render({ ...claimed, status: 'lapsed', dues: { answer: 'not_current', termEnd: '2027-12-31' }, association: { ...claimed.association!, answer: 'expired', expires: '2028-01-31' } });
-    expect(answer(el, 'dues').textContent).toContain('not current: the term ended 2027-12-31');
+    expect(answer(el, 'dues').textContent).toContain('not current: the term ended Dec 31, 2027');
     expect(answer(el, 'dues').classList).toContain('stop');
-    expect(answer(el, 'association').textContent).toContain('expired 2028-01-31');
+    expect(answer(el, 'association').textContent).toContain('expired Jan 31, 2028');
   });
 
   it('should defer to the range safety officer', () => {

@@ -1,4 +1,6 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { formatDate, formatDay } from '@contracts/dates/club-dates';
+import { SiteNames } from '../../core/site-names';
 
 /** Who checked a claim, when and against what. */
 export interface CheckedBy {
@@ -33,11 +35,9 @@ interface Answer {
 // A mark beside the words (the words carry the meaning; the mark is decoration for sighted staff).
 const MARK: Record<Tone, string> = { ok: '✓', claim: '?', stop: '✗' };
 
-const day = (iso: string) => iso.slice(0, 10);
-const checked = (v: CheckedBy) => `checked ${day(v.at)}${v.by ? ` by ${v.by}` : ''} against ${v.against}`;
-
-/** The three answers in words, for a member the card matched. */
-export function checkInAnswers(r: CheckInResult): Answer[] {
+/** The three answers in words, for a member the card matched; dates in the club format, checks dated in club time. */
+export function checkInAnswers(r: CheckInResult, timeZone: string): Answer[] {
+  const checked = (v: CheckedBy) => `checked ${formatDate(v.at, timeZone)}${v.by ? ` by ${v.by}` : ''} against ${v.against}`;
   const d = r.dues!;
   const a = r.association!;
   const c = r.certification!;
@@ -45,20 +45,20 @@ export function checkInAnswers(r: CheckInResult): Answer[] {
     key: 'dues',
     label: 'Club dues',
     ...(d.answer === 'current'
-      ? { words: `current to ${d.termEnd}`, tone: 'ok' as const }
+      ? { words: `current to ${formatDay(d.termEnd ?? '')}`, tone: 'ok' as const }
       : d.answer === 'grace'
-        ? { words: `in grace: the term ended ${d.termEnd}`, tone: 'ok' as const }
-        : { words: `not current: the term ended ${d.termEnd ?? 'without a payment'}`, tone: 'stop' as const }),
+        ? { words: `in grace: the term ended ${formatDay(d.termEnd ?? '')}`, tone: 'ok' as const }
+        : { words: `not current: the term ended ${d.termEnd ? formatDay(d.termEnd) : 'without a payment'}`, tone: 'stop' as const }),
   };
   const association: Answer = {
     key: 'association',
     label: 'Association membership',
     ...(a.answer === 'verified'
-      ? { words: `${a.number}, current to ${a.expires}; ${checked(a.verified!)}`, tone: 'ok' as const }
+      ? { words: `${a.number}, current to ${formatDay(a.expires ?? '')}; ${checked(a.verified!)}`, tone: 'ok' as const }
       : a.answer === 'claimed'
-        ? { words: `${a.number} to ${a.expires}: claimed, not yet checked`, tone: 'claim' as const }
+        ? { words: `${a.number} to ${formatDay(a.expires ?? '')}: claimed, not yet checked`, tone: 'claim' as const }
         : a.answer === 'expired'
-          ? { words: `${a.number}: expired ${a.expires}`, tone: 'stop' as const }
+          ? { words: `${a.number}: expired ${formatDay(a.expires ?? '')}`, tone: 'stop' as const }
           : { words: 'not on file', tone: 'stop' as const }),
   };
   const certification: Answer = {
@@ -82,9 +82,10 @@ export function checkInAnswers(r: CheckInResult): Answer[] {
 })
 export class CheckInVerdict {
   readonly result = input.required<CheckInResult>();
+  private readonly site = inject(SiteNames);
   protected readonly mark = MARK;
   protected readonly known = computed(() => this.result().status !== 'unknown' && this.result().dues !== null);
-  protected readonly answers = computed(() => (this.known() ? checkInAnswers(this.result()) : []));
+  protected readonly answers = computed(() => (this.known() ? checkInAnswers(this.result(), this.site.timeZone()) : []));
   protected readonly headline = computed(() => {
     if (!this.known()) return 'Unknown card: the code does not match any member';
     return this.result().mayFly ? 'May fly: dues current, association membership current and checked' : 'Not cleared to fly: see the answers below';

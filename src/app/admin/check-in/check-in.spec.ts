@@ -34,7 +34,7 @@ describe('CheckIn', () => {
     const verdict = el.querySelector('[data-testid=check-in-verdict]')!;
     expect(verdict.textContent).toContain('Not cleared to fly');
     expect(verdict.textContent).toContain('in grace');
-    expect(verdict.textContent).toContain('expired 2026-01-01');
+    expect(verdict.textContent).toContain('expired Jan 1, 2026');
   });
 
   it('should show an unknown card without member details', async () => {

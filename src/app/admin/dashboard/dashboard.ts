@@ -8,20 +8,28 @@ import { MatSelectModule } from '@angular/material/select';
 import { BaseChartDirective, provideCharts, withDefaultRegisterables } from 'ng2-charts';
 import type { ChartConfiguration } from 'chart.js';
 import { SessionStore } from '../../core/session-store';
+import { SiteNames } from '../../core/site-names';
+import { DELIVERABLE_KIND_LABELS } from '@contracts/labels/deliverable-kinds';
+import { labelOf } from '@contracts/labels/label-of';
+import { MEMBERSHIP_STATUS_LABELS } from '@contracts/labels/membership-statuses';
+import { MOVEMENT_SOURCE_LABELS } from '@contracts/labels/money-movements';
+import { RUN_STATE_LABELS } from '@contracts/labels/run-states';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
+import { LabelPipe } from '../../shared/label-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { BooksApi } from '../books/books-api';
 
 const SOURCES = [
-  { key: 'merch', label: 'Merch', colour: '#376286' },
-  { key: 'dues', label: 'Dues', colour: '#c8561f' },
-  { key: 'sponsor', label: 'Sponsor cash', colour: '#6a7988' },
+  { key: 'merch', label: MOVEMENT_SOURCE_LABELS.merch, colour: '#376286' },
+  { key: 'dues', label: MOVEMENT_SOURCE_LABELS.dues, colour: '#c8561f' },
+  { key: 'sponsor', label: MOVEMENT_SOURCE_LABELS.sponsor, colour: '#6a7988' },
 ];
 const STATUS_COLOURS: Record<string, string> = { active: '#376286', lapsing: '#e8703a', lapsed: '#9eadbd', pending: '#c5c6cb' };
 
 /** The console's overview: today's numbers as cards, each linking to the table behind it, and three charts. */
 @Component({
   selector: 'ps-dashboard',
-  imports: [RouterLink, DecimalPipe, MatCardModule, MatFormFieldModule, MatSelectModule, BaseChartDirective, MoneyPipe],
+  imports: [RouterLink, DecimalPipe, MatCardModule, MatFormFieldModule, MatSelectModule, BaseChartDirective, MoneyPipe, ClubDatePipe, LabelPipe],
   providers: [provideCharts(withDefaultRegisterables())],
   templateUrl: './dashboard.html',
   styleUrl: './dashboard.scss',
@@ -30,6 +38,9 @@ const STATUS_COLOURS: Record<string, string> = { active: '#376286', lapsing: '#e
 export class Dashboard {
   private readonly api = inject(BooksApi);
   protected readonly session = inject(SessionStore);
+  protected readonly site = inject(SiteNames);
+  protected readonly kindLabels = DELIVERABLE_KIND_LABELS;
+  protected readonly runStateLabels = RUN_STATE_LABELS;
   protected readonly canSeeBooks = computed(() => this.session.hasAnyRole(['treasurer', 'admin']));
   protected readonly data = rxResource({ params: () => this.canSeeBooks() || undefined, stream: () => this.api.dashboard() });
 
@@ -53,10 +64,10 @@ export class Dashboard {
   protected readonly statusChart = computed<ChartConfiguration<'doughnut'>['data'] | null>(() => {
     const byStatus = this.data.value()?.membersByStatus;
     if (!byStatus) return null;
-    const labels = Object.keys(byStatus);
-    return { labels, datasets: [{ data: labels.map((l) => byStatus[l]), backgroundColor: labels.map((l) => STATUS_COLOURS[l] ?? '#8f9196') }] };
+    const codes = Object.keys(byStatus);
+    return { labels: codes.map((c) => labelOf(MEMBERSHIP_STATUS_LABELS, c)), datasets: [{ data: codes.map((c) => byStatus[c]), backgroundColor: codes.map((c) => STATUS_COLOURS[c] ?? '#8f9196') }] };
   });
-  protected readonly statusSummary = computed(() => Object.entries(this.data.value()?.membersByStatus ?? {}).map(([s, n]) => `${s} ${n}`).join(', '));
+  protected readonly statusSummary = computed(() => Object.entries(this.data.value()?.membersByStatus ?? {}).map(([s, n]) => `${labelOf(MEMBERSHIP_STATUS_LABELS, s)} ${n}`).join(', '));
   protected readonly barOptions: ChartConfiguration<'bar'>['options'] = { responsive: true, maintainAspectRatio: false, scales: { x: { stacked: true }, y: { stacked: true } } };
   protected readonly doughnutOptions: ChartConfiguration<'doughnut'>['options'] = { responsive: true, maintainAspectRatio: false };
 }

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { rxResource } from '@angular/core/rxjs-interop';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
+import { MEMBERSHIP_STATUS_LABELS } from '@contracts/labels/membership-statuses';
 import { EmptyState } from '../../shared/empty-state';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { ClubRulesForm } from './club-rules-form';
@@ -20,6 +21,7 @@ export class DuesSummary {
   private readonly api = inject(MembersApi);
   protected readonly summary = rxResource({ stream: () => this.api.summary() });
   protected readonly statuses = ['active', 'lapsing', 'lapsed', 'pending'] as const;
+  protected readonly statusLabels = MEMBERSHIP_STATUS_LABELS;
   protected readonly total = computed(() => (this.summary.value()?.collected ?? []).reduce((sum, r) => sum + r.cents, 0));
 
   protected print(): void {

@@ -104,7 +104,7 @@ describe('MemberDetail flying claims', () => {
 
   it('should show a claim in words and a check with who, when and against what', () => {
     expect(el.querySelector('[data-testid=association-record]')!.textContent).toContain('claimed by the member, not yet checked');
-    expect(el.querySelector('[data-testid=certification-record]')!.textContent).toContain('checked 2026-05-02 by Tess Treasurer against Level 2 certificate');
+    expect(el.querySelector('[data-testid=certification-record]')!.textContent).toContain('checked May 2, 2026 by Tess Treasurer against Level 2 certificate');
   });
 
   it('should send the document and the values on screen when staff mark the association checked', async () => {

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, inject, input, numberAttribute, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { DatePipe, JsonPipe, NgTemplateOutlet } from '@angular/common';
+import { JsonPipe, NgTemplateOutlet } from '@angular/common';
 import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
@@ -9,7 +9,11 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { applyServerErrors } from '../../core/api-error';
+import { DUES_ENTRY_LABELS, DUES_PAYMENT_STATUS_LABELS, MEMBERSHIP_AUDIT_LABELS, MEMBERSHIP_STATUS_LABELS } from '@contracts/labels/membership-statuses';
+import { PAYMENT_METHOD_LABELS } from '@contracts/labels/payment-methods';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
+import { LabelPipe } from '../../shared/label-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { newRequestKey } from '../../shared/request-key';
@@ -22,7 +26,7 @@ const AMOUNT_FIELD = { amountCents: 'amount' };
 /** One member: record (with staff checks of the flying claims), family, payments with refunds, manual payment entry and the audit of changes. */
 @Component({
   selector: 'ps-member-detail',
-  imports: [ReactiveFormsModule, RouterLink, DatePipe, JsonPipe, NgTemplateOutlet, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FieldErrorPipe, MoneyPipe],
+  imports: [ReactiveFormsModule, RouterLink, ClubDatePipe, LabelPipe, JsonPipe, NgTemplateOutlet, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FieldErrorPipe, MoneyPipe],
   templateUrl: './member-detail.html',
   styleUrl: './members.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,6 +34,7 @@ const AMOUNT_FIELD = { amountCents: 'amount' };
 export class MemberDetail {
   private readonly api = inject(MembersApi);
   private readonly fb = inject(NonNullableFormBuilder);
+  protected readonly labels = { status: MEMBERSHIP_STATUS_LABELS, payment: DUES_PAYMENT_STATUS_LABELS, entry: DUES_ENTRY_LABELS, method: PAYMENT_METHOD_LABELS, audit: MEMBERSHIP_AUDIT_LABELS };
 
   /** Route parameter. */
   readonly id = input.required({ transform: numberAttribute });

@@ -122,11 +122,7 @@ export type AdminPlan = Plan & { active: boolean; sortOrder: number };
 export type PlanChanges = Pick<AdminPlan, 'name' | 'description' | 'duesCents' | 'joiningFeeCents' | 'active' | 'sortOrder'>;
 
 /** Who may hold a plan, as staff read it (the server checks junior ages and family members). */
-export const ELIGIBILITY_LABELS: Record<AdminPlan['eligibility'], string> = {
-  any: 'Anyone',
-  junior: 'Under 18 on the first day of the term',
-  family: 'A household at one address',
-};
+export { PLAN_ELIGIBILITY_LABELS as ELIGIBILITY_LABELS } from '@contracts/labels/membership-statuses';
 
 /** A new plan. */
 export type NewPlan = PlanChanges & Pick<AdminPlan, 'code' | 'eligibility'>;

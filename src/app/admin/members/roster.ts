@@ -13,7 +13,10 @@ import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { applyServerErrors } from '../../core/api-error';
 import { MembershipApi } from '../../membership/membership-api';
+import { MEMBERSHIP_STATUS_LABELS } from '@contracts/labels/membership-statuses';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
+import { LabelPipe } from '../../shared/label-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MembersApi, filterParams, type RosterMailPurpose, type RosterQuery } from './members-api';
 
@@ -22,7 +25,7 @@ const FIRST: RosterQuery = { status: '', planId: '', certificationLevel: '', ass
 /** The roster: filters, search, server-side sort and paging, CSV export and an e-mail to the filtered list. */
 @Component({
   selector: 'ps-roster',
-  imports: [FormsModule, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatRadioModule, MatSelectModule, MatSortModule, MatTableModule, EmptyState, FieldErrorPipe],
+  imports: [FormsModule, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatRadioModule, MatSelectModule, MatSortModule, MatTableModule, ClubDatePipe, LabelPipe, EmptyState, FieldErrorPipe],
   templateUrl: './roster.html',
   styleUrl: './members.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -34,6 +37,7 @@ export class Roster {
 
   protected readonly columns = ['memberNumber', 'name', 'plan', 'status', 'termEnd', 'certificationLevel', 'associationExpires'];
   protected readonly statuses = ['active', 'lapsing', 'lapsed', 'pending'] as const;
+  protected readonly statusLabels = MEMBERSHIP_STATUS_LABELS;
   protected readonly query = signal<RosterQuery>(FIRST);
   protected readonly roster = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.roster(params) });
   protected readonly plans = rxResource({ stream: () => this.membership.plans() });

@@ -1,6 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject, input, numberAttribute, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { DatePipe } from '@angular/common';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
@@ -9,19 +8,20 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { applyServerErrors } from '../../core/api-error';
+import { codeInWords } from '@contracts/labels/label-of';
+import { REFUND_ORIGIN_LABELS, REFUND_STATE_LABELS } from '@contracts/labels/refund-states';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { STATUS_LABELS } from '../../shop/shop-types';
 import { RefundPanel } from './refund-panel';
 import { ShopAdminApi, type StaffRefund } from './shop-admin-api';
 
-const REFUND_STATES: Record<StaffRefund['state'], string> = { requested: 'waiting for the processor', succeeded: 'refunded', failed: 'not refunded' };
-const REFUND_ORIGINS: Record<StaffRefund['origin'], string> = { staff: 'Staff', processor: 'Processor' };
 
 /** One order for staff: items, money, packing list to print, pack, ship with tracking, refunds and their history. */
 @Component({
   selector: 'ps-order-detail',
-  imports: [DatePipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe, RefundPanel],
+  imports: [ClubDatePipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe, RefundPanel],
   templateUrl: './order-detail.html',
   styleUrl: './order-detail.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -34,8 +34,10 @@ export class OrderDetail {
 
   protected readonly order = rxResource({ params: () => this.id(), stream: ({ params }) => this.api.order(params) });
   protected readonly labels = STATUS_LABELS;
-  protected readonly refundStates = REFUND_STATES;
-  protected readonly refundOrigins = REFUND_ORIGINS;
+  protected readonly refundStates = REFUND_STATE_LABELS;
+  protected readonly refundOrigins = REFUND_ORIGIN_LABELS;
+  /** The card processor's dispute reason code, as words. */
+  protected readonly inWords = codeInWords;
   protected readonly shipForm = this.fb.group({ carrier: ['Canada Post', Validators.required], trackingNumber: ['', Validators.required] });
   protected readonly shipProblem = signal<string | null>(null);
   protected readonly busy = signal(false);

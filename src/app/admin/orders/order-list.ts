@@ -1,6 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { DatePipe } from '@angular/common';
 import { FormsModule } from '@angular/forms';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
@@ -10,6 +9,7 @@ import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { STATUS_LABELS } from '../../shop/shop-types';
@@ -18,7 +18,7 @@ import { ShopAdminApi, type OrderQuery } from './shop-admin-api';
 /** The orders table: server paging and sorting, filters by status, run and dates, search, CSV of the same filter. */
 @Component({
   selector: 'ps-order-list',
-  imports: [DatePipe, FormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatSelectModule, MatSortModule, MatTableModule, MoneyPipe, EmptyState],
+  imports: [ClubDatePipe, FormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatSelectModule, MatSortModule, MatTableModule, MoneyPipe, EmptyState],
   templateUrl: './order-list.html',
   styles: `.ps-page { max-width: none; } .filters .search { min-width: 300px; } .filters { display: flex; gap: 12px; flex-wrap: wrap; align-items: center; } table { width: 100%; } .disputed { color: var(--mat-sys-error); font-weight: 600; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,

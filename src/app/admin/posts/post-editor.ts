@@ -12,7 +12,9 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { catchError, debounceTime, firstValueFrom, of, startWith, switchMap } from 'rxjs';
 import { applyServerErrors } from '../../core/api-error';
 import { HazardNotice } from '../../build-logs/hazard-notice';
+import { POST_STATUS_LABELS } from '@contracts/labels/post-states';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
+import { LabelPipe } from '../../shared/label-pipe';
 import { SponsorAdminApi } from '../sponsors/sponsor-admin-api';
 import { ImageUpload } from './image-upload';
 import { PostAdminApi, type AdminPost, type PostStatus, type PostWrite } from './post-admin-api';
@@ -20,7 +22,7 @@ import { PostAdminApi, type AdminPost, type PostStatus, type PostWrite } from '.
 /** Writes a build log: Markdown with the live preview from the server's pipeline, images, credits, schedule, publish. */
 @Component({
   selector: 'ps-post-editor',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, ImageUpload, HazardNotice],
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, LabelPipe, ImageUpload, HazardNotice],
   templateUrl: './post-editor.html',
   styleUrl: './post-editor.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,6 +32,7 @@ export class PostEditor {
   private readonly sponsorsApi = inject(SponsorAdminApi);
   private readonly router = inject(Router);
   private readonly snackBar = inject(MatSnackBar);
+  protected readonly statusLabels = POST_STATUS_LABELS;
   private readonly dom = inject(DomSanitizer);
   private readonly body = viewChild<ElementRef<HTMLTextAreaElement>>('body');
 

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
@@ -10,13 +9,16 @@ import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
+import { POST_STATUS_LABELS, POST_VISIBILITY_LABELS } from '@contracts/labels/post-states';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
+import { LabelPipe } from '../../shared/label-pipe';
 import { PostAdminApi, type PostStatus } from './post-admin-api';
 
 /** Every post for editors, sorted and paged by the server. */
 @Component({
   selector: 'ps-post-table',
-  imports: [DatePipe, FormsModule, RouterLink, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatSortModule, MatTableModule, EmptyState],
+  imports: [ClubDatePipe, LabelPipe, FormsModule, RouterLink, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatSortModule, MatTableModule, EmptyState],
   template: `
     <section class="ps-page wide">
       <div class="top">
@@ -45,15 +47,15 @@ import { PostAdminApi, type PostStatus } from './post-admin-api';
             </ng-container>
             <ng-container matColumnDef="status">
               <th mat-header-cell *matHeaderCellDef scope="col">Status</th>
-              <td mat-cell *matCellDef="let p">{{ p.status }}@if (p.status === 'scheduled') { · {{ p.publishAt | date: 'medium' }} }@if (p.membersOnly) { · members }</td>
+              <td mat-cell *matCellDef="let p">{{ p.status | label: statusLabels }}@if (p.status === 'scheduled') { · {{ p.publishAt | clubDate: 'dateTime' }} }@if (p.membersOnly) { · {{ visibilityLabels.members }} }</td>
             </ng-container>
             <ng-container matColumnDef="published">
               <th mat-header-cell *matHeaderCellDef mat-sort-header="published" scope="col">Published</th>
-              <td mat-cell *matCellDef="let p">{{ p.publishedAt | date: 'mediumDate' }}</td>
+              <td mat-cell *matCellDef="let p">{{ p.publishedAt | clubDate }}</td>
             </ng-container>
             <ng-container matColumnDef="updated">
               <th mat-header-cell *matHeaderCellDef mat-sort-header="updated" scope="col">Last change</th>
-              <td mat-cell *matCellDef="let p">{{ p.updatedAt | date: 'medium' }}</td>
+              <td mat-cell *matCellDef="let p">{{ p.updatedAt | clubDate: 'dateTime' }}</td>
             </ng-container>
             <tr mat-header-row *matHeaderRowDef="columns"></tr>
             <tr mat-row *matRowDef="let row; columns: columns"></tr>
@@ -71,6 +73,8 @@ import { PostAdminApi, type PostStatus } from './post-admin-api';
 export class PostTable {
   private readonly api = inject(PostAdminApi);
   protected readonly columns = ['title', 'status', 'published', 'updated'];
+  protected readonly statusLabels = POST_STATUS_LABELS;
+  protected readonly visibilityLabels = POST_VISIBILITY_LABELS;
   protected readonly query = signal<{ q: string; status?: PostStatus; sort: 'updated' | 'title' | 'published'; dir: 'asc' | 'desc'; page: number; pageSize: number }>({ q: '', sort: 'updated', dir: 'desc', page: 1, pageSize: 25 });
   protected readonly posts = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.list(params) });
 

@@ -1,22 +1,22 @@
 import { ChangeDetectionStrategy, Component, inject, input, numberAttribute } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { ShopAdminApi } from '../orders/shop-admin-api';
 
 /** The print-run sheet for the printer: per size, paid units, spares and pieces to print; printable and as CSV. */
 @Component({
   selector: 'ps-print-sheet',
-  imports: [DatePipe, RouterLink, MatButtonModule, MoneyPipe],
+  imports: [ClubDatePipe, RouterLink, MatButtonModule, MoneyPipe],
   template: `
     <section class="ps-page">
       <p class="ps-no-print"><a routerLink="/console/runs">← All runs</a></p>
       @if (sheet.value(); as s) {
         <h1>Print-run sheet: {{ s.run.name }}</h1>
         <p class="kind" [class.final]="s.kind === 'final'">
-          {{ s.kind === 'final' ? 'Final: the window has closed.' : 'Preview: orders can still arrive until ' }}@if (s.kind === 'preview') { {{ s.run.closesAt | date: 'medium' }}. }
+          {{ s.kind === 'final' ? 'Final: the window has closed.' : 'Preview: orders can still arrive until ' }}@if (s.kind === 'preview') { {{ s.run.closesAt | clubDate: 'dateTime' }}. }
         </p>
         <p>Rules: {{ s.rules.sparesPercent }}% spares (rounded up), packs of {{ s.rules.packMultiple }}, at least {{ s.rules.minimumPerDesign }} pieces for the design.</p>
         <table>

@@ -9,6 +9,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { applyServerErrors } from '../../core/api-error';
+import { SiteNames } from '../../core/site-names';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { wallTimeToIso } from '../../shared/zoned-time';
@@ -29,6 +30,7 @@ export class ProductAdmin {
   private readonly api = inject(ShopAdminApi);
   private readonly snackBar = inject(MatSnackBar);
   private readonly fb = inject(NonNullableFormBuilder);
+  protected readonly site = inject(SiteNames);
   protected readonly stateLabels = RUN_STATE_LABELS;
   protected readonly products = rxResource({ stream: () => this.api.products() });
   protected readonly problem = signal<string | null>(null);

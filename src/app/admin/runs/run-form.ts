@@ -8,6 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { applyServerErrors } from '../../core/api-error';
+import { clubTimeInWords } from '@contracts/dates/club-dates';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { wallTimeToIso } from '../../shared/zoned-time';
 import type { Product } from '../../shop/shop-types';
@@ -32,6 +33,7 @@ export class RunForm {
   /** Products sold in runs (the only ones that can take another). */
   readonly products = input.required<Product[]>();
   readonly timeZone = input.required<string>();
+  protected readonly zoneInWords = computed(() => clubTimeInWords(this.timeZone()));
   readonly added = output<void>();
 
   protected readonly problem = signal<string | null>(null);

@@ -1,21 +1,20 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RUN_MOVE_LABELS, RUN_STATE_LABELS } from '@contracts/labels/run-states';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
-import { RUN_STATE_LABELS } from '../../shop/countdown';
+import { LabelPipe } from '../../shared/label-pipe';
 import { ShopAdminApi } from '../orders/shop-admin-api';
 import { RunForm } from './run-form';
-
-const MOVE_LABELS: Record<string, string> = { closed: 'Close now', in_production: 'Send to the printer', shipped: 'Mark shipped' };
 
 /** Limited runs: how full, the window, the next step, the way to each print-run sheet, and a product's next run. */
 @Component({
   selector: 'ps-run-list',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatProgressBarModule, EmptyState, RunForm],
+  imports: [ClubDatePipe, LabelPipe, RouterLink, MatButtonModule, MatProgressBarModule, EmptyState, RunForm],
   template: `
     <section class="ps-page">
       <h1>Runs</h1>
@@ -28,16 +27,16 @@ const MOVE_LABELS: Record<string, string> = { closed: 'Close now', in_production
               @for (r of items; track r.id) {
                 <tr>
                   <td><strong>{{ r.name }}</strong><br /><small>{{ r.productName }}</small></td>
-                  <td>{{ stateLabels[r.state] }}</td>
+                  <td>{{ r.state | label: stateLabels }}</td>
                   <td>
                     {{ r.reserved }} of {{ r.cap }}
                     <mat-progress-bar mode="determinate" [value]="(100 * r.reserved) / r.cap" [attr.aria-label]="r.reserved + ' of ' + r.cap + ' sold'" />
                   </td>
-                  <td>{{ r.opensAt | date: 'mediumDate' }} – {{ r.closesAt | date: 'mediumDate' }}</td>
+                  <td>{{ r.opensAt | clubDate }} – {{ r.closesAt | clubDate }}</td>
                   <td>
                     <a mat-stroked-button [routerLink]="['/console/runs', r.id, 'print-sheet']">Print-run sheet</a>
                     @for (s of r.nextStates; track s) {
-                      <button mat-button type="button" (click)="move(r.id, s)">{{ moveLabels[s] }}</button>
+                      <button mat-button type="button" (click)="move(r.id, s)">{{ s | label: moveLabels }}</button>
                     }
                   </td>
                 </tr>
@@ -62,7 +61,7 @@ export class RunList {
   protected readonly products = rxResource({ stream: () => this.api.products() });
   protected readonly runProducts = computed(() => (this.products.value()?.items ?? []).filter((p) => p.run !== null));
   protected readonly stateLabels = RUN_STATE_LABELS;
-  protected readonly moveLabels = MOVE_LABELS;
+  protected readonly moveLabels = RUN_MOVE_LABELS;
 
   protected async move(id: number, state: string): Promise<void> {
     await firstValueFrom(this.api.moveRun(id, state));

@@ -8,7 +8,9 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { applyServerErrors } from '../../core/api-error';
+import { SHIPPING_METHOD_LABELS } from '@contracts/labels/shipping-methods';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
+import { LabelPipe } from '../../shared/label-pipe';
 import { ShopAdminApi, type StaffShippingMethod } from '../orders/shop-admin-api';
 import { formatBrackets, parseBrackets } from './brackets';
 import { OWN_TAX, TAX_NUMBER_FIELDS, taxNumbersFromForm } from './tax-numbers';
@@ -18,12 +20,13 @@ const PROVINCES = ['AB', 'BC', 'MB', 'NB', 'NL', 'NS', 'NT', 'NU', 'ON', 'PE', '
 /** Shop settings: tax position, member discount, printer rules, shipping methods and their weight brackets. */
 @Component({
   selector: 'ps-shop-settings',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe],
+  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, LabelPipe],
   templateUrl: './shop-settings.html',
   styles: `.grid { display: grid; grid-template-columns: repeat(auto-fill, minmax(220px, 1fr)); gap: 0 16px; } fieldset { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; margin: 0 0 20px; padding: 12px 16px; } legend { font-weight: 600; padding: 0 6px; } .method { display: grid; grid-template-columns: 1fr 2fr auto auto; gap: 12px; align-items: center; } @media (max-width: 800px) { .method { grid-template-columns: 1fr; } }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ShopSettingsPage {
+  protected readonly methodLabels = SHIPPING_METHOD_LABELS;
   private readonly api = inject(ShopAdminApi);
   private readonly snackBar = inject(MatSnackBar);
   private readonly fb = inject(NonNullableFormBuilder);

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, effect, inject, input, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -11,6 +10,8 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { firstValueFrom } from 'rxjs';
 import { applyServerErrors } from '../../core/api-error';
 import { SessionStore } from '../../core/session-store';
+import { PAYMENT_METHOD_LABELS } from '@contracts/labels/payment-methods';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { KIND_LABELS, type DeliverableKind } from '../../sponsors/sponsor-api';
@@ -26,7 +27,7 @@ type TreatmentForm = FormGroup<{ taxTreatment: FormControl<Treatment>; province:
 /** One sponsor: details and logo, contacts, agreements with their ledger, cash received and hand-recorded credits. */
 @Component({
   selector: 'ps-sponsor-detail',
-  imports: [DatePipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, MoneyPipe, ImageUpload],
+  imports: [ClubDatePipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, MoneyPipe, ImageUpload],
   templateUrl: './sponsor-detail.html',
   styles: `.wide { max-width: none; } .card { background: #fff; border-radius: 12px; padding: 8px 16px 16px; margin: 16px 0; } .inline { display: flex; gap: 12px; flex-wrap: wrap; align-items: baseline; } table { border-collapse: collapse; width: 100%; } th, td { text-align: left; padding: 4px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant); } .late { color: var(--mat-sys-error); font-weight: 600; } .logo { max-height: 64px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -43,6 +44,8 @@ export class SponsorDetail {
   protected readonly handKinds = HAND_KINDS;
   protected readonly allKinds = Object.keys(KIND_LABELS) as DeliverableKind[];
   protected readonly provinces = PROVINCES;
+  protected readonly methodLabels = PAYMENT_METHOD_LABELS;
+  protected readonly methods = ['e-transfer', 'cheque', 'cash', 'card', 'other'] as const;
   protected readonly detail = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.detail(params) });
   protected readonly ledger = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.ledger(params) });
 

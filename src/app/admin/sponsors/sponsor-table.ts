@@ -11,6 +11,7 @@ import { MatTableModule } from '@angular/material/table';
 import { firstValueFrom } from 'rxjs';
 import { applyServerErrors } from '../../core/api-error';
 import { SessionStore } from '../../core/session-store';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
@@ -21,7 +22,7 @@ import { dollarsToCents } from '../../shared/dollars';
 /** Sponsors at a glance: overdue promises first, the sortable list, a quick add form and the tier thresholds. */
 @Component({
   selector: 'ps-sponsor-table',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSortModule, MatTableModule, EmptyState, FieldErrorPipe, MoneyPipe],
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSortModule, MatTableModule, ClubDatePipe, EmptyState, FieldErrorPipe, MoneyPipe],
   templateUrl: './sponsor-table.html',
   styles: `.wide { max-width: none; } table { width: 100%; } .card { background: #fff; border-radius: 12px; padding: 8px 16px; margin: 16px 0; } .overdue { border-left: 6px solid var(--mat-sys-error); } .inline { display: flex; gap: 12px; flex-wrap: wrap; align-items: baseline; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,

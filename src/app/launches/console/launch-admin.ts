@@ -9,6 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { apiErrorMessage, applyServerErrors } from '../../core/api-error';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { LaunchesApi, type Launch } from '../launches-api';
@@ -19,7 +20,7 @@ const CALL_OFF_REASONS = ['Wind above the safe limit', 'Fire risk (burn ban or d
 /** The launch director's page: put launch days on the calendar, call one off with a reason, close a day. */
 @Component({
   selector: 'ps-launch-admin',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FieldErrorPipe],
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ClubDatePipe, EmptyState, FieldErrorPipe],
   templateUrl: './launch-admin.html',
   styleUrl: '../launches.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

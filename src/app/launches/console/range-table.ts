@@ -8,6 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { apiErrorMessage } from '../../core/api-error';
 import { CameraScanner } from '../../shared/camera-scanner';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { FlightCaution } from '../flight-caution';
 import { todayIn } from '../launch-calendar';
@@ -27,7 +28,7 @@ interface Draft {
  */
 @Component({
   selector: 'ps-range-table',
-  imports: [RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FlightCaution, CameraScanner],
+  imports: [RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ClubDatePipe, EmptyState, FlightCaution, CameraScanner],
   templateUrl: './range-table.html',
   styleUrl: './range-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
