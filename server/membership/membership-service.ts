@@ -279,12 +279,14 @@ export class MembershipService {
     };
   }
 
-  /** Puts the card on file with the processor and keeps the customer id on the membership. */
+  /** Puts the card on file with the processor and keeps the customer id and the card's brand and last four. */
   private async saveCard(m: MembershipRow, user: SessionUser, token: string): Promise<SaveCardResult> {
     const saved = m.processor_customer_id
       ? await this.cardDues.savedCards.replace(m.processor_customer_id, token)
       : await this.cardDues.savedCards.save(token, user.email, m.legal_name, `customer:${m.id}:${token}`);
-    if (saved.outcome === 'saved' && saved.customerId !== m.processor_customer_id) await this.repo.update(this.db, Number(m.id), { processor_customer_id: saved.customerId });
+    if (saved.outcome === 'saved') {
+      await this.repo.update(this.db, Number(m.id), { processor_customer_id: saved.customerId, card_brand: saved.card?.brand ?? null, card_last4: saved.card?.last4 ?? null });
+    }
     return saved;
   }
 
