@@ -256,7 +256,8 @@ export class MembershipService {
     if (membership.status === 'pending') throw conflict('membership_pending', 'Your card is ready once your first payment has gone through.');
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const token = this.tokens.sign(membership.memberNumber, this.clock.now());
-    const qrSvg = await QRCode.toString(token, { type: 'svg', errorCorrectionLevel: 'M', margin: 1 });
+    // A quiet zone of four modules on every side, black on white (ISO/IEC 18004, from memory), so phone scanners find it.
+    const qrSvg = await QRCode.toString(token, { type: 'svg', errorCorrectionLevel: 'M', margin: 4, color: { dark: '#000000ff', light: '#ffffffff' } });
     const level = s.certificationLevels.find((l) => l.code === membership.certificationLevel);
     return {
       card: {

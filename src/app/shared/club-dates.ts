@@ -2,7 +2,7 @@ import type { Provider } from '@angular/core';
 import { provideDateFnsAdapter } from '@angular/material-date-fns-adapter';
 import { MAT_DATE_LOCALE, type MatDateFormats } from '@angular/material/core';
 import { format, isValid, parseISO } from 'date-fns';
-import { enCA } from 'date-fns/locale';
+import { enCA } from 'date-fns/locale/en-CA';
 
 /**
  * Dates as the club writes them (en-CA, the club is in Manitoba): typed and shown as YYYY-MM-DD, the same form the
