@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, ChangeDetectorRef, Component, computed, effect, inject, input, signal, viewChild } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -76,11 +76,16 @@ export class CardChoice {
   private readonly frame = viewChild(StripeCard);
 
   constructor() {
-    // The frame shows while "a new card" is chosen; a reset of the form puts the choice back too.
+    // The frame shows while "a new card" is chosen (a reset of the form puts the choice back too); the message
+    // beside the frame follows the control's touched state and errors, which are not signals.
+    const cdr = inject(ChangeDetectorRef);
     effect((onCleanup) => {
       const control = this.control();
       this.chosen.set(control.value);
-      const sub = control.valueChanges.subscribe((v) => this.chosen.set(v));
+      const sub = control.events.subscribe(() => {
+        this.chosen.set(control.value);
+        cdr.markForCheck();
+      });
       onCleanup(() => sub.unsubscribe());
     });
   }
