@@ -25,6 +25,9 @@ afterAll(async () => {
   await t?.close();
 });
 
+/** The one console line a refused request leaves: Chromium logs every 4xx answer. */
+const REFUSAL_LOGGED = 'console: Failed to load resource: the server responded with a status of 400 (Bad Request)';
+
 /** A phone-sized browser context (390x844) with touch. */
 function phone(): Promise<BrowserContext> {
   return browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
@@ -99,7 +102,8 @@ describe('club dues on a phone (390x844)', () => {
     await page.locator('.mat-calendar-body-cell-content', { hasText: /^\s*15\s*$/ }).waitFor();
     await screenshot(page, 'membership-phone-date-picker');
     await page.locator('.mat-calendar-body-cell-content', { hasText: /^\s*15\s*$/ }).click();
-    const expires = await page.getByLabel('Association expiry', { exact: true }).inputValue();
+    await page.getByRole('dialog', { name: 'Association expiry' }).waitFor({ state: 'detached' });
+    const expires = await page.getByRole('textbox', { name: 'Association expiry', exact: true }).inputValue();
     expect(expires).toMatch(/^\d{4}-\d{2}-15$/);
     await pick(page, 'Certification level', 'Level 1');
     await page.getByLabel('Certified on', { exact: true }).fill('2019-08-24');
@@ -118,7 +122,7 @@ describe('club dues on a phone (390x844)', () => {
     const row = (await t.deps.db.raw(`SELECT to_char(date_of_birth, 'YYYY-MM-DD') AS born, to_char(association_expires, 'YYYY-MM-DD') AS expires, to_char(certification_date, 'YYYY-MM-DD') AS certified FROM memberships WHERE user_id = ?`, [fan.id])).rows[0];
     expect(row).toEqual({ born: '1991-05-05', expires, certified: '2019-08-24' });
     expect(await seriousViolations(page)).toEqual([]);
-    expect(errors).toEqual([]);
+    expect(errors).toEqual([REFUSAL_LOGGED]);
     await context.close();
   });
 
@@ -155,10 +159,11 @@ describe('club dues on a phone (390x844)', () => {
     await page.getByLabel('Card', { exact: true }).click();
     await page.getByRole('option', { name: 'MasterCard ending 4444 (on file)' }).waitFor();
     await page.keyboard.press('Escape');
+    await page.getByRole('listbox').waitFor({ state: 'detached' });
     await screenshot(page, 'membership-phone-auto-renew-on');
     expect((await t.deps.db('memberships').where('user_id', user.id).first('auto_renew')).auto_renew).toBe(true);
     expect(await seriousViolations(page)).toEqual([]);
-    expect(errors).toEqual([]);
+    expect(errors).toEqual([REFUSAL_LOGGED]);
     await context.close();
   });
 

@@ -28,7 +28,7 @@ export function savedCardText(card: SavedCard | null): string {
   template: `
     @if (entry.value(); as e) {
       @if (e.mode === 'test-cards' || hasSavedCard()) {
-        <mat-form-field class="ps-full-width">
+        <mat-form-field class="ps-full-width" subscriptSizing="dynamic">
           <mat-label>{{ label() }}</mat-label>
           <mat-select [formControl]="control()">
             @if (hasSavedCard()) {
