@@ -59,6 +59,7 @@ export function savedCardText(card: SavedCard | null): string {
       <p class="form-problem" role="alert">Payment options could not load. Reload the page to try again.</p>
     }
   `,
+  styles: `.field-problem { color: var(--mat-sys-error); margin: 4px 0; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CardChoice {
