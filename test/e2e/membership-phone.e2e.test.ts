@@ -63,11 +63,17 @@ function focusedField(page: Page) {
   });
 }
 
-/** Field labels in the join form whose text is wider than the room the field gives it (cut off with an ellipsis). */
+/**
+ * Field labels in the join form that run past the room the field gives them: the field clips what sticks out (its
+ * infix ends before a suffix such as the calendar button), or the label itself ends in an ellipsis.
+ */
 function cutLabels(page: Page) {
   return page.evaluate(() =>
     [...document.querySelectorAll<HTMLElement>('form[aria-labelledby="join-heading"] mat-form-field .mdc-floating-label')]
-      .filter((l) => l.scrollWidth > l.clientWidth + 1)
+      .filter((l) => {
+        const room = l.closest('.mat-mdc-form-field-infix')!.getBoundingClientRect();
+        return l.getBoundingClientRect().right > room.right + 1 || l.scrollWidth > l.clientWidth + 1;
+      })
       .map((l) => l.textContent?.trim()),
   );
 }
