@@ -55,6 +55,8 @@ export interface MembershipRow {
   safety_code_accepted_at: Date;
   auto_renew: boolean;
   processor_customer_id: string | null;
+  card_brand: string | null;
+  card_last4: string | null;
   renewal_attempts: number;
   next_renewal_attempt_on: DateCol | null;
   renewal_failed_at: Date | null;
@@ -188,7 +190,7 @@ export class MembershipRepository {
   }
 
   /** Inserts a membership with the next member number from the sequence (never reused, even after a rollback). */
-  async insert(trx: Knex.Transaction, row: Omit<MembershipRow, 'id' | 'member_number' | 'created_at' | 'updated_at' | 'renewal_attempts' | 'next_renewal_attempt_on' | 'renewal_failed_at' | VerificationColumn>): Promise<MembershipRow> {
+  async insert(trx: Knex.Transaction, row: Omit<MembershipRow, 'id' | 'member_number' | 'created_at' | 'updated_at' | 'renewal_attempts' | 'next_renewal_attempt_on' | 'renewal_failed_at' | 'card_brand' | 'card_last4' | VerificationColumn>): Promise<MembershipRow> {
     const [created] = await trx<MembershipRow>('memberships')
       .insert({ ...row, member_number: trx.raw("lpad(nextval('membership_number_seq')::text, 5, '0')") as unknown as string })
       .returning('*');

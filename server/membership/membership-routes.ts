@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { fields, parse } from '../platform/validate';
 import { requireSignedIn } from '../platform/require-role';
+import { cardToken } from '../payments/card-token';
 import type { PayerKeys, PaymentThrottle } from '../payments/payment-throttle';
 import type { SessionUser } from '../platform/roles';
 import type { MembershipService } from './membership-service';
@@ -13,7 +14,6 @@ const answered = () => true;
 const text = (label: string, max: number) => z.string({ error: `${label} is required.` }).trim().min(1, `${label} is required.`).max(max, `${label} is too long.`);
 const optionalText = (max: number) => z.string().trim().max(max, 'Too long.').transform((v) => v || null).nullish();
 const optionalDate = fields.date.nullish().or(z.literal('').transform(() => null));
-const token = z.string({ error: 'Choose a card.' }).trim().min(1, 'Choose a card.').max(200);
 
 const ProfileSchema = z.object({
   legalName: text('Legal name', 120),
@@ -33,12 +33,12 @@ const JoinSchema = z.object({
   profile: ProfileSchema,
   waiverVersion: z.string({ error: 'Accept the waiver.' }).min(1, 'Accept the waiver.').max(32),
   safetyCodeVersion: z.string().max(32).optional(),
-  paymentToken: token,
+  paymentToken: cardToken,
   autoRenew: z.boolean().optional(),
 });
 
 const RenewSchema = z.object({
-  paymentToken: token.optional(),
+  paymentToken: cardToken.optional(),
   planId: fields.id.optional(),
   waiverVersion: z.string().max(32).optional(),
   safetyCodeVersion: z.string().max(32).optional(),
@@ -73,7 +73,7 @@ export function membershipRoutes(service: MembershipService, throttle: PaymentTh
     res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.renew(req.user!, body), answered));
   });
   r.post('/auto-renew', requireSignedIn, async (req, res) => {
-    const body = parse(z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: token.optional() }), req.body);
+    const body = parse(z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: cardToken.optional() }), req.body);
     // Putting a card on file is checked by the processor too, so a card tester could use it: same throttle.
     res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.setAutoRenew(req.user!, body), answered));
   });

@@ -256,7 +256,8 @@ export class MembershipService {
     if (membership.status === 'pending') throw conflict('membership_pending', 'Your card is ready once your first payment has gone through.');
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const token = this.tokens.sign(membership.memberNumber, this.clock.now());
-    const qrSvg = await QRCode.toString(token, { type: 'svg', errorCorrectionLevel: 'M', margin: 1 });
+    // A quiet zone of four modules on every side, black on white (ISO/IEC 18004, from memory), so phone scanners find it.
+    const qrSvg = await QRCode.toString(token, { type: 'svg', errorCorrectionLevel: 'M', margin: 4, color: { dark: '#000000ff', light: '#ffffffff' } });
     const level = s.certificationLevels.find((l) => l.code === membership.certificationLevel);
     return {
       card: {
@@ -279,12 +280,14 @@ export class MembershipService {
     };
   }
 
-  /** Puts the card on file with the processor and keeps the customer id on the membership. */
+  /** Puts the card on file with the processor and keeps the customer id and the card's brand and last four. */
   private async saveCard(m: MembershipRow, user: SessionUser, token: string): Promise<SaveCardResult> {
     const saved = m.processor_customer_id
       ? await this.cardDues.savedCards.replace(m.processor_customer_id, token)
       : await this.cardDues.savedCards.save(token, user.email, m.legal_name, `customer:${m.id}:${token}`);
-    if (saved.outcome === 'saved' && saved.customerId !== m.processor_customer_id) await this.repo.update(this.db, Number(m.id), { processor_customer_id: saved.customerId });
+    if (saved.outcome === 'saved') {
+      await this.repo.update(this.db, Number(m.id), { processor_customer_id: saved.customerId, card_brand: saved.card?.brand ?? null, card_last4: saved.card?.last4 ?? null });
+    }
     return saved;
   }
 

@@ -45,6 +45,8 @@ export function membershipView(m: MembershipRow, plan: PlanRow | undefined, toda
     waiverCurrent: m.waiver_version === s.waiverVersion && m.safety_code_version === s.safetyCodeVersion,
     autoRenew: m.auto_renew,
     hasSavedCard: m.processor_customer_id !== null,
+    /** Which card is on file, as the processor named it; null when none is, or it was saved before brands were kept. */
+    savedCard: m.processor_customer_id !== null && m.card_brand && m.card_last4 ? { brand: m.card_brand, last4: m.card_last4 } : null,
     renewalFailed: m.renewal_failed_at !== null,
   };
 }

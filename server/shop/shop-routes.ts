@@ -5,6 +5,7 @@ import type { ReadyJson } from '../platform/notified-cache';
 import { requireSignedIn } from '../platform/require-role';
 import type { Role } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
+import { cardToken } from '../payments/card-token';
 import type { PaymentThrottle } from '../payments/payment-throttle';
 import type { CatalogueService } from './catalogue-service';
 import type { CheckoutService, PaymentOutcome } from './checkout-service';
@@ -23,9 +24,8 @@ declare module 'express-session' {
   }
 }
 
-const token = z.string({ error: 'Choose a card.' }).trim().min(3, 'Choose a card.').max(200).regex(/^[A-Za-z0-9_|-]+$/, 'Not a card token.');
-const OrderBody = QuoteBody.extend({ email: fields.email, paymentToken: token });
-const PayBody = z.object({ paymentToken: token });
+const OrderBody = QuoteBody.extend({ email: fields.email, paymentToken: cardToken });
+const PayBody = z.object({ paymentToken: cardToken });
 
 export interface ShopDeps {
   catalogue: CatalogueService;

@@ -156,6 +156,14 @@ describe('POST /api/membership', () => {
       expect(await t.deps.db('memberships').where('user_id', s.user.id)).toHaveLength(1);
     });
 
+    it('answers 400 on the card field for a token that is not one, as the shop does, before asking the processor', async () => {
+      for (const paymentToken of ['tok visa', '<b>tok</b>', 'x']) {
+        const { res } = await join({ paymentToken });
+        expect(res.status).toBe(400);
+        expect(res.body.error.fields.paymentToken).toMatch(/card/i);
+      }
+    });
+
     it('answers 409 for a second join', async () => {
       const s = await join();
       const again = await s.client.post('/api/membership', { planId: plans.adult, profile: profile(), waiverVersion: '2026-1', paymentToken: 'tok_visa' });
@@ -219,5 +227,33 @@ describe('POST /api/membership/renew', () => {
     const card = await s.client.get('/api/membership/card');
     expect(card.body.card.qrSvg).toMatch(/^<svg/);
     expect(card.body.card.token.split('.')[1]).toBe(s.res.body.membership.memberNumber);
+  });
+});
+
+describe('POST /api/membership/auto-renew', () => {
+  it('keeps the brand and last four of the card the processor saved, and of the card that replaces it', async () => {
+    const s = await join({ paymentToken: 'tok_mastercard', autoRenew: true });
+    expect(s.res.status).toBe(201);
+    // The processor's test cards: tok_mastercard is a Mastercard ending 4444, tok_ca a Visa ending 0000 (the payment fake's fixtures).
+    expect((await s.client.get('/api/membership/me')).body.membership).toEqual(expect.objectContaining({ hasSavedCard: true, savedCard: { brand: 'MasterCard', last4: '4444' } }));
+    const replaced = await s.client.post('/api/membership/auto-renew', { autoRenew: true, paymentToken: 'tok_ca' });
+    expect(replaced.status).toBe(200);
+    expect(replaced.body.membership).toEqual(expect.objectContaining({ autoRenew: true, savedCard: { brand: 'Visa', last4: '0000' } }));
+  });
+
+  it('names no card when none is on file, and answers 400 on the card field when auto-renew is asked for without one', async () => {
+    const s = await join();
+    expect(s.res.body.membership).toEqual(expect.objectContaining({ hasSavedCard: false, savedCard: null, autoRenew: false }));
+    const res = await s.client.post('/api/membership/auto-renew', { autoRenew: true });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.paymentToken).toBe('Choose a card to keep on file.');
+    expect((await s.client.get('/api/membership/me')).body.membership.autoRenew).toBe(false);
+  });
+
+  it('answers 400 for a token that is not one', async () => {
+    const s = await join();
+    const res = await s.client.post('/api/membership/auto-renew', { autoRenew: true, paymentToken: 'tok_visa; drop' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.paymentToken).toBe('Not a card token.');
   });
 });

@@ -60,11 +60,11 @@ describe('club dues in a browser', () => {
     await page.getByLabel('Date of birth', { exact: true }).fill('1991-05-05');
     await page.getByLabel('Address', { exact: true }).fill('9 Prairie Drive, Gopher Flats, MB');
     await page.getByLabel('Phone', { exact: true }).fill('204-555-0160');
-    await page.getByLabel('Emergency contact (name and phone)', { exact: true }).fill('Aksel Lindgren 204-555-0161');
+    await page.getByLabel('Emergency contact', { exact: true }).fill('Aksel Lindgren 204-555-0161');
     await page.getByLabel('Association member number', { exact: true }).fill('NA-60613');
     await pick(page, 'Certification level', 'Level 1');
     await page.getByLabel(/I have read and accept the waiver/).check();
-    await pick(page, 'Card', 'Test card: Visa issued in Canada, approves');
+    await pick(page, 'Card', 'Test Visa issued in Canada (pays)');
     await page.getByRole('button', { name: 'Pay dues and join' }).click();
     await page.getByText('You are 18 or over on the first day of the term').waitFor();
     await screenshot(page, 'membership-join-refused');
@@ -89,7 +89,7 @@ describe('club dues in a browser', () => {
     await page.goto(`${site.baseUrl}/membership`);
     await expect(page.getByTestId('term-end').textContent()).resolves.toContain('2026-12-31');
     await page.getByTestId('renew-quote').getByText('2027-01-01 to 2027-12-31').waitFor();
-    await pick(page, 'Card', 'Test card: Visa issued in Canada, approves');
+    await pick(page, 'Card', 'Test Visa issued in Canada (pays)');
     await page.getByRole('button', { name: 'Pay and renew' }).click();
     await page.getByText('Renewed. Your dues now run to 2027-12-31.').waitFor();
     await page.getByTestId('term-end').getByText('2027-01-01 to 2027-12-31').waitFor();

@@ -4,41 +4,7 @@ import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 import { openShirt } from '../api/shop-fixtures';
 import { toPaymentStep } from './checkout-steps';
-
-/**
- * Stand-in for Stripe.js, served by the browser test at the processor's script address (this machine cannot reach it):
- * a card frame with one field whose token is a test token the local payment fake accepts.
- */
-const STRIPE_JS_STAND_IN = `
-window.Stripe = function (key) {
-  window.__stripeKey = key;
-  return {
-    elements: function () {
-      return {
-        create: function () {
-          var handlers = {};
-          return {
-            on: function (name, h) { handlers[name] = h; },
-            mount: function (el) {
-              var input = document.createElement('input');
-              input.setAttribute('aria-label', 'Card number');
-              input.addEventListener('input', function () {
-                var digits = input.value.replace(/\\s/g, '');
-                handlers.change && handlers.change({ complete: digits.length === 16, error: digits.length > 16 ? { message: 'Your card number is invalid.' } : undefined });
-              });
-              el.appendChild(input);
-              setTimeout(function () { handlers.ready && handlers.ready(); });
-            },
-            destroy: function () {},
-          };
-        },
-      };
-    },
-    createToken: function () { return Promise.resolve({ token: { id: 'tok_visa' } }); },
-  };
-};
-window.Stripe.version = 'endive';
-`;
+import { STRIPE_JS_STAND_IN } from './stripe-js-stand-in';
 
 let t: TestApp;
 let browser: Browser;

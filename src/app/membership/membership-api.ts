@@ -54,7 +54,15 @@ export interface Membership {
   waiverCurrent: boolean;
   autoRenew: boolean;
   hasSavedCard: boolean;
+  /** The card on file as the processor named it; null when none is, or it was saved before brands were kept. */
+  savedCard: SavedCard | null;
   renewalFailed: boolean;
+}
+
+/** Brand and last four digits of the card kept with the processor. */
+export interface SavedCard {
+  brand: string;
+  last4: string;
 }
 
 export interface MemberCard {

@@ -6,6 +6,8 @@ export function controlMessage(control: AbstractControl, label: string): string 
   const e = control.errors;
   if (!e) return null;
   if (e['server']) return e['server'] as string;
+  // A date picker's input holds text it could not read as a date.
+  if (e['matDatepickerParse']) return 'Enter the date as YYYY-MM-DD, or pick it in the calendar.';
   if (e['required']) return `${label} is required.`;
   if (e['email']) return 'Enter a valid e-mail address.';
   if (e['minlength']) return `Use at least ${(e['minlength'] as { requiredLength: number }).requiredLength} characters.`;

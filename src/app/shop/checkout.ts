@@ -17,21 +17,15 @@ import { FieldErrorPipe } from '../shared/field-error-pipe';
 import { MoneyPipe } from '../shared/money-pipe';
 import { CartStore } from './cart-store';
 import { ShopApi } from './shop-api';
-import { StripeCard } from './stripe-card';
+import { CardEntryApi } from '../shared/card-entry';
+import { StripeCard } from '../shared/stripe-card';
+import { TEST_CARDS } from '../shared/test-cards';
 import type { Quote, QuoteRequest } from './shop-types';
 import { shippingPrice } from './shipping-price';
 import { tidyPostalCode } from './postal-code';
 import { SiteNames } from '../core/site-names';
 
 const formatCents = (cents: number) => new Intl.NumberFormat('en-CA', { style: 'currency', currency: 'CAD' }).format(cents / 100);
-
-/** The payment processor's test tokens, offered while Padside talks to the local fake. */
-export const TEST_CARDS = [
-  { token: 'tok_visa', label: 'Test Visa (pays)' },
-  { token: 'tok_mastercard', label: 'Test Mastercard (pays)' },
-  { token: 'tok_chargeDeclined', label: 'Test card that is declined' },
-  { token: 'tok_chargeDeclinedInsufficientFunds', label: 'Test card with insufficient funds' },
-] as const;
 
 const PROVINCES = [['AB', 'Alberta'], ['BC', 'British Columbia'], ['MB', 'Manitoba'], ['NB', 'New Brunswick'], ['NL', 'Newfoundland and Labrador'], ['NS', 'Nova Scotia'], ['NT', 'Northwest Territories'], ['NU', 'Nunavut'], ['ON', 'Ontario'], ['PE', 'Prince Edward Island'], ['QC', 'Quebec'], ['SK', 'Saskatchewan'], ['YT', 'Yukon']] as const;
 const COUNTRIES = [['CA', 'Canada'], ['US', 'United States'], ['AU', 'Australia'], ['DE', 'Germany'], ['FR', 'France'], ['GB', 'United Kingdom'], ['JP', 'Japan'], ['MX', 'Mexico'], ['NZ', 'New Zealand']] as const;
@@ -46,6 +40,7 @@ const COUNTRIES = [['CA', 'Canada'], ['US', 'United States'], ['AU', 'Australia'
 })
 export class Checkout {
   private readonly api = inject(ShopApi);
+  private readonly cardEntryApi = inject(CardEntryApi);
   private readonly router = inject(Router);
   protected readonly cart = inject(CartStore);
   private readonly session = inject(SessionStore);
@@ -73,7 +68,7 @@ export class Checkout {
   protected readonly payment = this.fb.group({ paymentToken: ['tok_visa', Validators.required] });
   /** With Stripe.js the payment step is done once its card frame reports a complete card. */
   protected readonly cardForm = this.fb.group({ complete: [false, Validators.requiredTrue] });
-  protected readonly cardEntry = rxResource({ stream: () => this.api.cardEntry() });
+  protected readonly cardEntry = rxResource({ stream: () => this.cardEntryApi.cardEntry() });
   protected readonly usesStripeJs = computed(() => this.cardEntry.value()?.mode === 'stripe-js');
   private readonly stripeCard = viewChild(StripeCard);
   private readonly stepper = viewChild(MatStepper);

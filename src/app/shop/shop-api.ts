@@ -2,7 +2,7 @@ import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
-import type { CardEntry, Order, OrderSummary, Product, Quote, QuoteRequest, ShipTo, ShippingMethod } from './shop-types';
+import type { Order, OrderSummary, Product, Quote, QuoteRequest, ShipTo, ShippingMethod } from './shop-types';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -17,10 +17,6 @@ export class ShopApi {
   /** An unknown slug is the page's to say (its not-found message), not a snack bar's. */
   product(slug: string): Observable<Product> {
     return this.http.get<Product>(`/api/products/${encodeURIComponent(slug)}`, quiet());
-  }
-  /** How the payment step takes a card: labelled test tokens against the local fake, or Stripe.js. */
-  cardEntry(): Observable<CardEntry> {
-    return this.http.get<CardEntry>('/api/payments/card-entry');
   }
   shippingMethods(): Observable<ShippingMethod[]> {
     return this.http.get<{ items: ShippingMethod[] }>('/api/shipping-methods').pipe(map((r) => r.items));

@@ -39,8 +39,6 @@ export interface Product {
   variants: Variant[];
   descriptionHtml?: string;
 }
-export type CardEntry = { mode: 'test-cards'; publishableKey: null } | { mode: 'stripe-js'; publishableKey: string };
-
 export interface ShippingMethod {
   id: number;
   code: 'pickup' | 'canada' | 'usa' | 'international';

@@ -21,7 +21,7 @@ export const STRIPE_JS = new InjectionToken<(publishableKey: string) => Promise<
       <p class="form-note" role="status">Loading secure card entry…</p>
     }
   `,
-  styles: `.card-field { padding: 14px 12px; border: 1px solid var(--mat-sys-outline); border-radius: 8px; background: var(--mat-sys-surface); max-width: 460px; } .card-field:focus-within { outline: 2px solid var(--ps-igniter); }`,
+  styles: `.field-problem { color: var(--mat-sys-error); margin: 4px 0; } .card-field { padding: 14px 12px; border: 1px solid var(--mat-sys-outline); border-radius: 8px; background: var(--mat-sys-surface); max-width: 460px; } .card-field:focus-within { outline: 2px solid var(--ps-igniter); }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class StripeCard {
