@@ -1,3 +1,4 @@
+import { launchesPersonalData } from './launches-personal-data';
 import { CheckInTokens } from '../membership/check-in-token';
 import { MembershipRepository } from '../membership/membership-repository';
 import type { Feature, Platform } from '../platform/feature';
@@ -34,6 +35,7 @@ export function launchesFeature(platform: Platform): Feature {
         return { ...season, ...totals };
       },
     },
+    personalData: launchesPersonalData,
     jobs: [{ name: 'launch-reminders', cron: '0 9 * * *', run: () => launches.sendReminders() }],
   };
 }

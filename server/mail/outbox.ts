@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { DELETED_MAIL_DOMAIN } from '../platform/personal-data';
 
 /** One e-mail to queue; `dedupeKey` makes it once-only however many times it is queued. */
 export interface OutgoingEmail {
@@ -12,9 +13,10 @@ export interface OutgoingEmail {
 
 /**
  * Queues an e-mail in the caller's transaction, so the mail exists exactly when the change that caused it does.
- * Returns false when a mail with the same dedupe key was already queued.
+ * Returns false when a mail with the same dedupe key was already queued, or when it is addressed to a deleted account.
  */
 export async function enqueueEmail(db: Knex | Knex.Transaction, mail: OutgoingEmail): Promise<boolean> {
+  if (mail.to.endsWith('@' + DELETED_MAIL_DOMAIN)) return false;
   const rows = await db('outbound_emails')
     .insert({
       to_address: mail.to,

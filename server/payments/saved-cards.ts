@@ -4,6 +4,14 @@ import type { ChargeResult, PaymentGateway } from './payment-gateway';
 /** What saving a card came to: a processor customer holding it, or the processor's refusal. */
 export type SaveCardResult = { outcome: 'saved'; customerId: string } | { outcome: 'declined'; message: string };
 
+/** What Padside may show of a saved card: never its number. */
+export interface SavedCardSummary {
+  brand: string;
+  last4: string;
+  expMonth: number;
+  expYear: number;
+}
+
 /** Cards kept with the processor (as a customer's default card) for charges the member is not present for. */
 export class SavedCards {
   constructor(private readonly gateway: PaymentGateway) {}
@@ -27,6 +35,21 @@ export class SavedCards {
     } catch (err) {
       return { outcome: 'declined', message: refusal(err) };
     }
+  }
+
+  /** The customer's default card as brand and last four digits; null when the customer holds no card. */
+  async describe(customerId: string): Promise<SavedCardSummary | null> {
+    const customer = await this.gateway.stripe.customers.retrieve(customerId);
+    if (customer.deleted || !customer.default_source) return null;
+    const sourceId = typeof customer.default_source === 'string' ? customer.default_source : customer.default_source.id;
+    const card = await this.gateway.stripe.customers.retrieveSource(customerId, sourceId);
+    if (card.object !== 'card') return null;
+    return { brand: card.brand, last4: card.last4, expMonth: card.exp_month, expYear: card.exp_year };
+  }
+
+  /** Deletes the processor customer and with it every card it holds (an account's deletion). */
+  async forget(customerId: string): Promise<void> {
+    await this.gateway.stripe.customers.del(customerId);
   }
 
   /** Charges the customer's default card once; the idempotency key makes a repeated attempt count once. */

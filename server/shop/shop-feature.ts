@@ -1,3 +1,4 @@
+import { shopPersonalData } from './shop-personal-data';
 import { PaymentThrottle } from '../payments/payment-throttle';
 import type { Feature, Platform } from '../platform/feature';
 import { CatalogueRepository } from './catalogue-repository';
@@ -53,6 +54,7 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
       api('/admin/shop', shopSettingsRoutes(admin));
       api('/payments', paymentRoutes(deps.payments.stripe, deps.config.stripe, webhooks));
     },
+    personalData: shopPersonalData,
     imageUses: async (urls) => (await catalogueRepo.namesUsingImage(urls)).map((n) => `the product “${n}”`),
     jobs: [
       { name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() },
