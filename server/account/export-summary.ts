@@ -28,7 +28,7 @@ function recordTable(record: unknown): string {
  * table. Self-contained (no scripts, no outside styles) so it opens from the unpacked folder in any browser.
  */
 export function exportSummaryHtml(sections: PersonalDataSection[], meta: ExportMeta): string {
-  const when = new Intl.DateTimeFormat('en-CA', { dateStyle: 'long', timeStyle: 'short', timeZone: meta.timeZone, timeZoneName: 'short' }).format(meta.generatedAt);
+  const when = new Intl.DateTimeFormat('en-CA', { dateStyle: 'long', timeStyle: 'short', timeZone: meta.timeZone }).format(meta.generatedAt) + ` (${meta.timeZone} time)`;
   const contents = sections.map((s) => `<li><a href="#${escape(s.name)}">${escape(s.title)}</a> — ${s.records.length} ${s.records.length === 1 ? 'entry' : 'entries'}, in <code>${escape(s.name)}.json</code></li>`);
   const bodies = sections.map((s) =>
     [

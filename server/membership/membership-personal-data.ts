@@ -24,12 +24,13 @@ export function membershipPersonalData(savedCards: SavedCards, log: Pick<Logger,
     async export(trx, subject) {
       const m = await trx('memberships').where('user_id', subject.userId).first(MEMBERSHIP_COLUMNS);
       if (!m) return [];
-      const [family, payments, audit] = await Promise.all([
-        trx('membership_family_members').where('membership_id', m.id).orderBy('id').select('name', 'date_of_birth'),
-        trx('membership_payments as p').join('membership_plans as pl', 'pl.id', 'p.plan_id').where('p.membership_id', m.id).orderBy('p.id')
+      // One after another: queries on one transaction share its connection.
+      const [family, payments, audit] = [
+        await trx('membership_family_members').where('membership_id', m.id).orderBy('id').select('name', 'date_of_birth'),
+        await trx('membership_payments as p').join('membership_plans as pl', 'pl.id', 'p.plan_id').where('p.membership_id', m.id).orderBy('p.id')
           .select('p.id', 'pl.name as plan', 'p.entry', 'p.status', 'p.method', 'p.amount_cents', 'p.receipt_number', 'p.term_start', 'p.term_end', 'p.refund_of', 'p.created_at'),
-        trx('membership_audit').where('membership_id', m.id).orderBy('id').select('action', 'detail', 'created_at'),
-      ]);
+        await trx('membership_audit').where('membership_id', m.id).orderBy('id').select('action', 'detail', 'created_at'),
+      ];
       const dates = (r: Record<string, unknown>) => Object.fromEntries(Object.entries(plainRecord(r)).map(([k, v]) => [k, /(Start|End|Expires|Date|OfBirth)$/.test(k) ? dateOnly(v as string | Date | null) : v]));
       const { processor_customer_id: customerId, ...record } = m;
       return [

@@ -47,9 +47,17 @@ export class SavedCards {
     return { brand: card.brand, last4: card.last4, expMonth: card.exp_month, expYear: card.exp_year };
   }
 
-  /** Deletes the processor customer and with it every card it holds (an account's deletion). */
+  /**
+   * An account's deletion: removes every card the processor customer holds and blanks the customer's name and e-mail.
+   * The customer itself stays, because the processor's own records of past charges point at it.
+   */
   async forget(customerId: string): Promise<void> {
-    await this.gateway.stripe.customers.del(customerId);
+    const customer = await this.gateway.stripe.customers.retrieve(customerId, { expand: ['sources'] });
+    if (customer.deleted) return;
+    const ids = new Set((customer.sources?.data ?? []).map((s) => s.id));
+    if (customer.default_source) ids.add(typeof customer.default_source === 'string' ? customer.default_source : customer.default_source.id);
+    for (const id of ids) await this.gateway.stripe.customers.deleteSource(customerId, id);
+    await this.gateway.stripe.customers.update(customerId, { name: '', email: '', description: '' });
   }
 
   /** Charges the customer's default card once; the idempotency key makes a repeated attempt count once. */

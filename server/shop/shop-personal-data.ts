@@ -24,11 +24,12 @@ export const shopPersonalData: PersonalDataPart = {
   async export(trx, subject) {
     const orders: (Record<string, unknown> & { id: string })[] = await ordersOf(trx, subject).orderBy('created_at').select(ORDER_COLUMNS);
     const ids = orders.map((o) => o.id);
-    const [items, taxes, refunds] = await Promise.all([
-      trx('shop_order_items').whereIn('order_id', ids).orderBy('id').select('order_id', 'product_name', 'variant_label', 'sku', 'unit_price_cents', 'quantity'),
-      trx('shop_order_taxes').whereIn('order_id', ids).select('order_id', 'code', 'jurisdiction', 'rate_percent', 'taxable_cents', 'amount_cents'),
-      trx('shop_refunds').whereIn('order_id', ids).orderBy('id').select('order_id', 'state', 'amount_cents', 'goods_cents', 'shipping_cents', 'tax_cents', 'created_at', 'settled_at'),
-    ]);
+    // One after another: queries on one transaction share its connection.
+    const [items, taxes, refunds] = [
+      await trx('shop_order_items').whereIn('order_id', ids).orderBy('id').select('order_id', 'product_name', 'variant_label', 'sku', 'unit_price_cents', 'quantity'),
+      await trx('shop_order_taxes').whereIn('order_id', ids).select('order_id', 'code', 'jurisdiction', 'rate_percent', 'taxable_cents', 'amount_cents'),
+      await trx('shop_refunds').whereIn('order_id', ids).orderBy('id').select('order_id', 'state', 'amount_cents', 'goods_cents', 'shipping_cents', 'tax_cents', 'created_at', 'settled_at'),
+    ];
     const of = <T extends { order_id: string }>(rows: T[], id: string) => rows.filter((r) => r.order_id === id).map(({ order_id: _, ...rest }) => plainRecord(rest));
     return [
       {
