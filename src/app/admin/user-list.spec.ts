@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import { UserList } from './user-list';
 
-const row = (id: number, signIn: { failures: number; locked: boolean }) => ({ id, email: `u${id}@example.test`, displayName: `User ${id}`, roles: ['fan'], emailVerified: true, createdAt: '2026-12-01T00:00:00Z', signIn });
+const row = (id: number, signIn: { failures: number; locked: boolean }) => ({ id, email: `u${id}@example.test`, displayName: `User ${id}`, roles: ['fan'], emailVerified: true, createdAt: '2026-12-01T00:00:00Z', deletedAt: null, signIn });
 
 describe('UserList', () => {
   beforeEach(() => TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] }));
