@@ -19,23 +19,22 @@ export interface PersonalDataExport {
 
 /**
  * A person's own data: the download of everything Padside holds about them, and the deletion of their account.
- * Each feature contributes its part (`Feature.personalData`); the account's own part runs last, because it
- * replaces the e-mail the other parts find guest orders and mail by.
+ * Each feature contributes its part (`Feature.personalData`). The account's own part comes first in the download
+ * (the profile heads the summary) and runs last in a deletion, because it replaces the e-mail the other parts find
+ * guest orders and mail by.
  */
 export class PersonalDataService {
-  private readonly parts: PersonalDataPart[];
   // A signed-in session that guesses the password here is held back like a sign-in would be (common practice, no source).
   private readonly wrongPasswords: FailureLimiter;
 
   constructor(
     private readonly db: Knex,
     private readonly users: UserRepository,
-    featureParts: PersonalDataPart[],
+    private readonly featureParts: PersonalDataPart[],
     private readonly clock: Clock,
     private readonly teamName: string,
     private readonly log: Pick<Logger, 'error'>,
   ) {
-    this.parts = [...featureParts, accountPersonalData];
     this.wrongPasswords = new FailureLimiter(db, 'account-delete', 5, 3600);
   }
 
@@ -45,7 +44,7 @@ export class PersonalDataService {
       async (trx) => {
         const subject = await this.subject(trx, userId, false);
         const sections: PersonalDataSection[] = [];
-        for (const part of this.parts) sections.push(...(await part.export(trx, subject)));
+        for (const part of [accountPersonalData, ...this.featureParts]) sections.push(...(await part.export(trx, subject)));
         return { email: subject.email, generatedAt: this.clock.now(), sections };
       },
       { isolationLevel: 'repeatable read' },
@@ -71,10 +70,10 @@ export class PersonalDataService {
       await this.refuseLastAdmin(trx, userId);
       const subject = await this.subject(trx, userId, true);
       const holds: string[] = [];
-      for (const part of this.parts) holds.push(...((await part.holds?.(trx, subject)) ?? []));
+      for (const part of this.featureParts) holds.push(...((await part.holds?.(trx, subject)) ?? []));
       if (holds.length) throw conflict('account_held', `Your account cannot be deleted yet. ${holds.join(' ')}`);
       const work: AfterErase[] = [];
-      for (const part of this.parts) {
+      for (const part of [...this.featureParts, accountPersonalData]) {
         const next = await part.erase(trx, subject);
         if (next) work.push(next);
       }

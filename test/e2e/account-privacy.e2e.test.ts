@@ -39,7 +39,7 @@ describe('a person’s own data, on a phone', () => {
     try {
       await signInThroughForm(page, site.baseUrl, user.email, user.password);
       await page.goto(site.baseUrl + '/account');
-      await page.getByRole('heading', { name: 'Your data' }).waitFor();
+      await page.getByRole('link', { name: 'Download my data' }).waitFor();
       await page.waitForLoadState('networkidle');
       expect(await seriousViolations(page)).toEqual([]);
       await screenshot(page, 'account-your-data-phone');
