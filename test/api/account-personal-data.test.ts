@@ -25,7 +25,7 @@ const profile = {
 };
 
 beforeAll(async () => {
-  t = buildTestApp({ clock, env: { LOG_LEVEL: 'error' } });
+  t = buildTestApp({ clock });
   admin = (await signedIn(t.app, t.deps.db, ['fan', 'admin'])).client;
   rso = (await signedIn(t.app, t.deps.db, ['fan', 'range_officer'])).client;
 });
@@ -209,6 +209,9 @@ describe('POST /api/account/delete', () => {
       expect(JSON.stringify(order.body)).not.toContain(p.user.email);
       const accounts = await admin.get(`/api/admin/users?q=${encodeURIComponent(`Deleted account #${p.user.id}`)}`);
       expect(accounts.body.items).toEqual([expect.objectContaining({ id: p.user.id, displayName: `Deleted account #${p.user.id}`, roles: [], deletedAt: expect.any(String) })]);
+      const roles = await admin.patch(`/api/admin/users/${p.user.id}`, { roles: ['fan', 'treasurer'] });
+      expect(roles.status).toBe(409);
+      expect(roles.body.error.code).toBe('account_deleted');
       const roster = await admin.get(`/api/admin/members?q=${p.memberNumber}`);
       expect(roster.status).toBe(200);
       expect(JSON.stringify(roster.body)).toContain(`Deleted account #${p.user.id}`);

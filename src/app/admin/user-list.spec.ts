@@ -33,4 +33,19 @@ describe('UserList', () => {
     await fixture.whenStable();
     expect(fixture.nativeElement.textContent).not.toContain('Locked after');
   });
+
+  it('should show an account its owner deleted as deleted, with no role switches or lock button', async () => {
+    const fixture = TestBed.createComponent(UserList);
+    const http = TestBed.inject(HttpTestingController);
+    fixture.detectChanges();
+    TestBed.tick();
+    const gone = { ...row(9, { failures: 2, locked: false }), displayName: 'Deleted account #9', email: 'deleted-9@deleted.invalid', roles: [], deletedAt: '2026-12-02T15:00:00Z' };
+    http.expectOne((r) => r.url === '/api/admin/users').flush({ items: [gone], total: 1, page: 1, pageSize: 25 });
+    await fixture.whenStable();
+    const el = fixture.nativeElement as HTMLElement;
+    expect(el.textContent).toContain('Deleted account #9');
+    expect(el.textContent).toContain('Deleted by its owner on Dec 2, 2026');
+    expect(el.querySelector('mat-button-toggle-group')).toBeNull();
+    expect(el.querySelector('button[aria-label^="Clear the sign-in lock"]')).toBeNull();
+  });
 });
