@@ -1,8 +1,8 @@
-import { launchesPersonalData } from './launches-personal-data';
 import { CheckInTokens } from '../membership/check-in-token';
 import { MembershipRepository } from '../membership/membership-repository';
 import type { Feature, Platform } from '../platform/feature';
 import { flightAdminRoutes, flightRoutes, logbookRoutes } from './flight-routes';
+import { launchesPersonalData } from './launches-personal-data';
 import { FlightRepository } from './flight-repository';
 import { FlightService } from './flight-service';
 import { FlyerStanding } from './flyer-standing';

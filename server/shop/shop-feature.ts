@@ -1,8 +1,8 @@
-import { shopPersonalData } from './shop-personal-data';
 import { PaymentThrottle } from '../payments/payment-throttle';
 import type { Feature, Platform } from '../platform/feature';
 import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';
+import { shopPersonalData } from './shop-personal-data';
 import { CheckoutService } from './checkout-service';
 import { FulfilmentService } from './fulfilment-service';
 import { OrderGuide } from './order-guide';

@@ -133,6 +133,17 @@ describe('GET /api/account/export', () => {
     expect(summary).toContain('&lt;img src=x onerror=alert(1)&gt;');
   });
 
+  it('includes a guest order placed with the account’s confirmed e-mail, and the deletion erases it too', async () => {
+    const s = await signedIn(t.app, t.deps.db);
+    const [guest] = await t.deps.db('shop_orders')
+      .insert({ email: s.user.email, status: 'shipped', ship_name: 'Guest Me', ship_line1: '3 Gravel Spur', ship_city: 'Gopher Flats', ship_country: 'CA', ship_province: 'MB', ship_postal_code: 'R0K 1A0', shipping_code: 'canada', shipping_name: 'Mail', tax_jurisdiction: 'MB', priced_on: '2016-09-10', weight_grams: 10, subtotal_cents: 400, discount_cents: 0, shipping_cents: 0, tax_cents: 48, total_cents: 448, paid_at: new Date('2016-09-10T18:00:00Z') })
+      .returning(['id', 'number']);
+    const { files } = await download(s.client);
+    expect(json(files, 'shop-orders.json')).toEqual([expect.objectContaining({ number: guest.number, shipName: 'Guest Me', totalCents: 448 })]);
+    expect((await s.client.post('/api/account/delete', { password: s.user.password })).status).toBe(200);
+    expect(await t.deps.db('shop_orders').where('id', guest.id).first('email', 'ship_name', 'ship_line1', 'total_cents', 'user_id')).toEqual({ email: `deleted-${s.user.id}@deleted.invalid`, ship_name: `Deleted account #${s.user.id}`, ship_line1: null, total_cents: 448, user_id: String(s.user.id) });
+  });
+
   it('answers 401 to a visitor', async () => {
     expect((await new Client(t.app).get('/api/account/export')).status).toBe(401);
   });
@@ -168,6 +179,18 @@ describe('POST /api/account/delete', () => {
       expect(res.body.error.code).toBe('account_held');
       expect(res.body.error.message).toContain(placed.body.order.number);
       expect((await s.client.get('/api/account/profile')).status).toBe(200);
+    });
+  });
+
+  describe('when a dues card payment is still under way', () => {
+    it('answers 409 and the account stays', async () => {
+      const p = await busyPerson();
+      await t.deps.db('membership_payments').whereIn('membership_id', t.deps.db('memberships').where('user_id', p.user.id).select('id')).update({ status: 'attempted' });
+      const res = await p.client.post('/api/account/delete', { password: p.user.password });
+      expect(res.status).toBe(409);
+      expect(res.body.error.message).toContain('dues payment or refund is still being processed');
+      await t.deps.db('membership_payments').whereIn('membership_id', t.deps.db('memberships').where('user_id', p.user.id).select('id')).update({ status: 'paid' });
+      expect((await p.client.get('/api/account/profile')).status).toBe(200);
     });
   });
 
