@@ -14,6 +14,7 @@ interface HeldData {
  * Retention as the server applies it: sessions end 14 days after the last visit (server/platform/session.ts), familiar
  * sign-in addresses are dropped 180 days after their last use (server/auth/lockout-policy.ts). The six years for the
  * books is the tax authority's general rule for business records (from memory), so the page marks it for checking.
+ * The page's 30 days to answer a request is the federal law's time limit for access requests (from memory).
  */
 const HELD: HeldData[] = [
   { what: 'Account: e-mail, password (stored only as a one-way hash), display name, roles, mail preference', why: 'To sign you in and show your name where you take part', kept: 'Until you delete your account' },
