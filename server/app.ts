@@ -4,6 +4,7 @@ import compression from 'compression';
 import express, { type Express, type Router } from 'express';
 import pinoHttp from 'pino-http';
 import { accountRoutes } from './account/account-routes';
+import { PersonalDataService } from './account/personal-data-service';
 import { ONE_CLICK_PATH } from './announcements/announcement-routes';
 import { userAdminRoutes } from './admin/user-admin-routes';
 import { authRoutes } from './auth/auth-routes';
@@ -103,7 +104,8 @@ export function createApp(deps: AppDeps): PadsideApp {
   api.use(csrfProtection(CSRF_EXEMPT));
   api.use(refuseUnstorableText);
   apiMount('/auth', authRoutes(auth));
-  apiMount('/account', accountRoutes(auth));
+  const personalData = new PersonalDataService(deps.db, auth.users, features.flatMap((f) => f.personalData ?? []), deps.clock, deps.config.site.teamName, deps.log);
+  apiMount('/account', accountRoutes(auth, personalData, { siteName: deps.config.site.teamName, timeZone: deps.config.clubTimeZone }));
   apiMount('/admin/users', userAdminRoutes(auth.users, auth.signInGuard));
   apiMount('/admin/uploads', uploadAdminRoutes(platform.images));
   for (const feature of features) feature.mount(apiMount);

@@ -1,9 +1,13 @@
+import { pipeline } from 'node:stream/promises';
 import { Router } from 'express';
 import { z } from 'zod';
 import type { AuthService } from '../auth/auth-service';
 import { PASSWORD_MAX } from '../auth/password-policy';
 import { requireSignedIn } from '../platform/require-role';
 import { parse } from '../platform/validate';
+import { zipStream } from './data-export-zip';
+import { exportSummaryHtml } from './export-summary';
+import type { PersonalDataService } from './personal-data-service';
 
 const ProfileBody = z
   .object({
@@ -16,8 +20,18 @@ const PasswordBody = z.object({
   newPassword: z.string({ error: 'Enter a new password.' }).min(1, 'Enter a new password.').max(PASSWORD_MAX * 4, 'Password is too long.'),
 });
 
-/** The signed-in user's own profile and password under /api/account. */
-export function accountRoutes(auth: AuthService): Router {
+const DeleteBody = z.object({
+  password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(PASSWORD_MAX * 4, 'Password is too long.'),
+});
+
+/** How the download names itself and its times. */
+export interface ExportSettings {
+  siteName: string;
+  timeZone: string;
+}
+
+/** The signed-in user's own profile, password, data download and account deletion under /api/account. */
+export function accountRoutes(auth: AuthService, data: PersonalDataService, settings: ExportSettings): Router {
   const r = Router();
   r.use(requireSignedIn);
 
@@ -36,6 +50,29 @@ export function accountRoutes(auth: AuthService): Router {
     const body = parse(PasswordBody, req.body);
     await auth.changePassword(req.user!.id, body.currentPassword, body.newPassword, req.sessionID);
     res.status(204).end();
+  });
+
+  r.get('/export', async function exportData(req, res) {
+    const held = await data.export(req.user!.id);
+    const summary = exportSummaryHtml(held.sections, { siteName: settings.siteName, email: held.email, generatedAt: held.generatedAt, timeZone: settings.timeZone });
+    const files = [{ name: 'summary.html', text: summary }, ...held.sections.map((s) => ({ name: `${s.name}.json`, text: JSON.stringify(s.records, null, 2) + '\n' }))];
+    const day = held.generatedAt.toISOString().slice(0, 10);
+    res.set({ 'Content-Type': 'application/zip', 'Content-Disposition': `attachment; filename="padside-my-data-${day}.zip"` });
+    await pipeline(zipStream(files), res);
+  });
+
+  r.post('/delete', async function deleteAccount(req, res, next) {
+    const { password } = parse(DeleteBody, req.body);
+    await data.deleteAccount(req.user!.id, password);
+    // The deletion already removed every stored session; this one must not be saved again on the way out.
+    req.logout({ keepSessionInfo: false }, (err) => {
+      if (err) return next(err);
+      req.session.destroy((destroyErr) => {
+        if (destroyErr) return next(destroyErr);
+        res.clearCookie('padside.sid');
+        res.json({ deleted: true });
+      });
+    });
   });
 
   return r;

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { SignInGuard } from '../auth/sign-in-guard';
 import type { UserRepository } from '../auth/user-repository';
 import { toSessionUser } from '../auth/user-repository';
-import { badRequest, notFound } from '../platform/app-error';
+import { badRequest, conflict, notFound } from '../platform/app-error';
 import { requireRole } from '../platform/require-role';
 import { ROLES } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
@@ -22,7 +22,7 @@ export function userAdminRoutes(users: UserRepository, signIn: SignInGuard): Rou
     const q = parse(ListQuery, req.query);
     const { items, total } = await users.page(q);
     const locks = await signIn.states(items.map((u) => u.email));
-    res.json({ items: items.map((u) => ({ ...toSessionUser(u), createdAt: u.created_at, signIn: locks.get(u.email) ?? { failures: 0, locked: false } })), total, page: q.page, pageSize: q.pageSize });
+    res.json({ items: items.map((u) => ({ ...toSessionUser(u), createdAt: u.created_at, deletedAt: u.deleted_at, signIn: locks.get(u.email) ?? { failures: 0, locked: false } })), total, page: q.page, pageSize: q.pageSize });
   });
 
   r.patch('/:id', async function setRoles(req, res) {
@@ -30,6 +30,9 @@ export function userAdminRoutes(users: UserRepository, signIn: SignInGuard): Rou
     const { roles } = parse(RolesBody, req.body);
     const unique = [...new Set(roles)];
     if (id === req.user!.id && !unique.includes('admin')) throw badRequest('You cannot remove your own admin role.', { roles: 'Keep admin on your own account.' });
+    const before = await users.byId(id);
+    if (!before) throw notFound('No such user.');
+    if (before.deleted_at) throw conflict('account_deleted', 'This account was deleted by its owner; it cannot be given roles.');
     const row = await users.update(id, { roles: unique.length ? unique : ['fan'] });
     if (!row) throw notFound('No such user.');
     res.json({ user: toSessionUser(row) });

@@ -90,7 +90,8 @@ export class AuthService {
 
   async currentUser(id: number): Promise<SessionUser | null> {
     const row = await this.users.byId(id);
-    return row ? toSessionUser(row) : null;
+    // A deleted account's sessions are gone; this keeps any request racing the deletion from acting as it.
+    return row && !row.deleted_at ? toSessionUser(row) : null;
   }
 
   /** Sends a new verification link; 429 when the address or the network address asked too often. */

@@ -9,6 +9,8 @@ export interface UserRow {
   roles: Role[];
   email_verified_at: Date | null;
   marketing_opt_out: boolean;
+  /** Set when the owner deleted the account: the row stays as a tombstone (orders and dues point at it). */
+  deleted_at: Date | null;
   created_at: Date;
   updated_at: Date;
 }

@@ -1,5 +1,6 @@
 import type { Feature, Platform } from '../platform/feature';
 import { CreditService } from '../sponsors/credit-service';
+import { sponsorPersonalData } from '../sponsors/sponsor-personal-data';
 import { SponsorRepository } from '../sponsors/sponsor-repository';
 import { clubToday, sponsorAdminRoutes, sponsorPortalRoutes, sponsorPublicRoutes } from '../sponsors/sponsor-routes';
 import { SponsorService } from '../sponsors/sponsor-service';
@@ -43,6 +44,7 @@ export function buildLogsFeature(platform: Platform): Feature {
       ...(await postRepo.titlesUsingImage(urls)).map((t) => `the build log “${t}”`),
       ...(await sponsorRepo.namesUsingLogo(urls)).map((n) => `the sponsor “${n}” (logo)`),
     ],
+    personalData: sponsorPersonalData,
     jobs: [{ name: 'publish-scheduled-posts', cron: '* * * * *', run: () => posts.publishDue(clock.now()) }],
   };
 }

@@ -2,6 +2,7 @@ import { CheckInTokens } from '../membership/check-in-token';
 import { MembershipRepository } from '../membership/membership-repository';
 import type { Feature, Platform } from '../platform/feature';
 import { flightAdminRoutes, flightRoutes, logbookRoutes } from './flight-routes';
+import { launchesPersonalData } from './launches-personal-data';
 import { FlightRepository } from './flight-repository';
 import { FlightService } from './flight-service';
 import { FlyerStanding } from './flyer-standing';
@@ -34,6 +35,7 @@ export function launchesFeature(platform: Platform): Feature {
         return { ...season, ...totals };
       },
     },
+    personalData: launchesPersonalData,
     jobs: [{ name: 'launch-reminders', cron: '0 9 * * *', run: () => launches.sendReminders() }],
   };
 }

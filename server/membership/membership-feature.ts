@@ -9,6 +9,7 @@ import { memberAdminRoutes, checkInRoutes } from './member-admin-routes';
 import { MemberAdminService } from './member-admin-service';
 import { FlyingStatusService } from './flying-status-service';
 import { MembershipJobs } from './membership-jobs';
+import { membershipPersonalData } from './membership-personal-data';
 import { MembershipRepository } from './membership-repository';
 import { PaymentThrottle } from '../payments/payment-throttle';
 import { membershipRoutes } from './membership-routes';
@@ -40,5 +41,6 @@ export function membershipFeature(platform: Platform): Feature {
       { name: 'membership-reconcile-refunds', cron: '*/5 * * * *', run: () => refunds.settleStaleClaims() },
     ],
     chargeRefunds: (chargeId) => refunds.syncCharge(chargeId),
+    personalData: membershipPersonalData(cardDues.savedCards, platform.deps.log),
   };
 }

@@ -35,7 +35,7 @@ export interface MembershipRow {
   term_start: DateCol | null;
   term_end: DateCol | null;
   legal_name: string;
-  date_of_birth: DateCol;
+  date_of_birth: DateCol | null;
   address: string;
   phone: string;
   emergency_contact: string;

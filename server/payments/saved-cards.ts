@@ -10,6 +10,14 @@ export interface CardOnFile {
 /** What saving a card came to: a processor customer holding it (and which card), or the processor's refusal. */
 export type SaveCardResult = { outcome: 'saved'; customerId: string; card: CardOnFile | null } | { outcome: 'declined'; message: string };
 
+/** What Padside may show of a saved card: never its number. */
+export interface SavedCardSummary {
+  brand: string;
+  last4: string;
+  expMonth: number;
+  expYear: number;
+}
+
 /** Cards kept with the processor (as a customer's default card) for charges the member is not present for. */
 export class SavedCards {
   constructor(private readonly gateway: PaymentGateway) {}
@@ -35,6 +43,29 @@ export class SavedCards {
     } catch (err) {
       return { outcome: 'declined', message: refusal(err) };
     }
+  }
+
+  /** The customer's default card as brand and last four digits; null when the customer holds no card. */
+  async describe(customerId: string): Promise<SavedCardSummary | null> {
+    const customer = await this.gateway.stripe.customers.retrieve(customerId);
+    if (customer.deleted || !customer.default_source) return null;
+    const sourceId = typeof customer.default_source === 'string' ? customer.default_source : customer.default_source.id;
+    const card = await this.gateway.stripe.customers.retrieveSource(customerId, sourceId);
+    if (card.object !== 'card') return null;
+    return { brand: card.brand, last4: card.last4, expMonth: card.exp_month, expYear: card.exp_year };
+  }
+
+  /**
+   * An account's deletion: removes every card the processor customer holds and blanks the customer's name and e-mail.
+   * The customer itself stays, because the processor's own records of past charges point at it.
+   */
+  async forget(customerId: string): Promise<void> {
+    const customer = await this.gateway.stripe.customers.retrieve(customerId, { expand: ['sources'] });
+    if (customer.deleted) return;
+    const ids = new Set((customer.sources?.data ?? []).map((s) => s.id));
+    if (customer.default_source) ids.add(typeof customer.default_source === 'string' ? customer.default_source : customer.default_source.id);
+    for (const id of ids) await this.gateway.stripe.customers.deleteSource(customerId, id);
+    await this.gateway.stripe.customers.update(customerId, { name: '', email: '', description: '' });
   }
 
   /** Charges the customer's default card once; the idempotency key makes a repeated attempt count once. */

@@ -6,6 +6,7 @@ import type { ScheduledJob } from '../jobs/job-runner';
 import type { SettingsService } from '../settings/settings-service';
 import type { ImageUploads } from '../uploads/image-uploads';
 import type { DatabaseNotifications } from './database-notifications';
+import type { PersonalDataPart } from './personal-data';
 
 /** What every feature is built from: the side-effecting deps plus the services all features share. */
 export interface Platform {
@@ -37,4 +38,6 @@ export interface Feature {
   chargeRefunds?: (chargeId: string) => Promise<boolean>;
   /** What of this feature still shows one of these uploaded images ("the build log “Fin can”"), so it is kept. */
   imageUses?(urls: readonly string[]): Promise<string[]>;
+  /** What this feature holds about one person: its part of the download and of an account's deletion. */
+  personalData?: PersonalDataPart;
 }

@@ -3,6 +3,7 @@ import type { Feature, Platform } from '../platform/feature';
 import { NotifiedCache, type ReadyJson } from '../platform/notified-cache';
 import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';
+import { shopPersonalData } from './shop-personal-data';
 import { CheckoutService } from './checkout-service';
 import { FulfilmentService } from './fulfilment-service';
 import { OrderGuide } from './order-guide';
@@ -56,6 +57,7 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
       api('/admin/shop', shopSettingsRoutes(admin));
       api('/payments', paymentRoutes(deps.payments.stripe, deps.config.stripe, webhooks));
     },
+    personalData: shopPersonalData,
     imageUses: async (urls) => (await catalogueRepo.namesUsingImage(urls)).map((n) => `the product “${n}”`),
     jobs: [
       { name: 'shop-reconcile-payments', cron: '*/5 * * * *', run: () => checkout.reconcile() },

@@ -10,6 +10,7 @@ export const routes: Routes = [
   { path: 'sponsors', loadChildren: () => import('./sponsors/sponsors.routes').then((m) => m.sponsorRoutes) },
   { path: 'subscriptions', loadChildren: () => import('./announcements/announcements.routes').then((m) => m.announcementRoutes) },
   { path: 'account', loadChildren: () => import('./account/account.routes').then((m) => m.accountRoutes) },
+  { path: 'privacy', loadComponent: () => import('./privacy/privacy-page').then((m) => m.PrivacyPage), title: 'Privacy — Padside' },
   { path: 'console', canMatch: [staffGuard], loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes) },
   { path: '**', loadComponent: () => import('./core/not-found').then((m) => m.NotFound), title: 'Not found — Padside' },
 ];

@@ -16,6 +16,8 @@ export const foundationAccess: RouteAccess[] = [
   { method: 'GET', path: '/api/account/profile', allow: 'signedIn' },
   { method: 'PATCH', path: '/api/account/profile', allow: 'signedIn' },
   { method: 'POST', path: '/api/account/password', allow: 'signedIn' },
+  { method: 'GET', path: '/api/account/export', allow: 'signedIn' },
+  { method: 'POST', path: '/api/account/delete', allow: 'signedIn' },
   { method: 'GET', path: '/api/admin/users', allow: ['admin'] },
   { method: 'PATCH', path: '/api/admin/users/:id', allow: ['admin'] },
   { method: 'DELETE', path: '/api/admin/users/:id/sign-in-lock', allow: ['admin'] },

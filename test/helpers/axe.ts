@@ -3,7 +3,12 @@ import type { Page } from 'playwright-core';
 
 const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 
-type AxeViolation = { id: string; impact: string | null; help: string; nodes: { target: string[] }[] };
+interface AxeViolation {
+  id: string;
+  impact: string | null;
+  help: string;
+  nodes: { target: string[] }[];
+}
 
 /** axe-core's serious and critical findings for the page as it is now (WCAG 2.x A and AA rules). */
 export async function seriousViolations(page: Page): Promise<string[]> {

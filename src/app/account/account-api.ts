@@ -32,4 +32,8 @@ export class AccountApi {
   changePassword(currentPassword: string, newPassword: string): Observable<void> {
     return this.http.post<void>('/api/account/password', { currentPassword, newPassword }, quiet());
   }
+  /** Deletes the signed-in account; the server ends every session of it. */
+  deleteAccount(password: string): Observable<{ deleted: true }> {
+    return this.http.post<{ deleted: true }>('/api/account/delete', { password }, quiet());
+  }
 }

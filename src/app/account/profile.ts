@@ -13,11 +13,12 @@ import { SessionStore } from '../core/session-store';
 import { FieldErrorPipe } from '../shared/field-error-pipe';
 import { AccountApi } from './account-api';
 import { PASSPHRASE_HINT } from './passphrase-hint';
+import { YourData } from './your-data';
 
-/** The account page: name, mail preference, password. */
+/** The account page: name, mail preference, password, and the person's own data. */
 @Component({
   selector: 'ps-profile',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MySubscriptions],
+  imports: [ReactiveFormsModule, MatButtonModule, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MySubscriptions, YourData],
   templateUrl: './profile.html',
   styles: `.cards { display: grid; gap: 16px; grid-template-columns: repeat(auto-fit, minmax(300px, 1fr)); } mat-card { padding: 8px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,

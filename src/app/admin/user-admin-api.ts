@@ -11,7 +11,8 @@ export interface SignInLock {
 }
 
 export interface UserPage {
-  items: (User & { createdAt: string; signIn: SignInLock })[];
+  /** `deletedAt`: the owner deleted the account; the row stays (orders and dues point at it) under a neutral name. */
+  items: (User & { createdAt: string; deletedAt: string | null; signIn: SignInLock })[];
   total: number;
 }
 

@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import { UserList } from './user-list';
 
-const row = (id: number, signIn: { failures: number; locked: boolean }) => ({ id, email: `u${id}@example.test`, displayName: `User ${id}`, roles: ['fan'], emailVerified: true, createdAt: '2026-12-01T00:00:00Z', signIn });
+const row = (id: number, signIn: { failures: number; locked: boolean }) => ({ id, email: `u${id}@example.test`, displayName: `User ${id}`, roles: ['fan'], emailVerified: true, createdAt: '2026-12-01T00:00:00Z', deletedAt: null, signIn });
 
 describe('UserList', () => {
   beforeEach(() => TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] }));
@@ -32,5 +32,20 @@ describe('UserList', () => {
     http.expectOne((r) => r.url === '/api/admin/users').flush({ items: [row(7, { failures: 0, locked: false })], total: 1, page: 1, pageSize: 25 });
     await fixture.whenStable();
     expect(fixture.nativeElement.textContent).not.toContain('Locked after');
+  });
+
+  it('should show an account its owner deleted as deleted, with no role switches or lock button', async () => {
+    const fixture = TestBed.createComponent(UserList);
+    const http = TestBed.inject(HttpTestingController);
+    fixture.detectChanges();
+    TestBed.tick();
+    const gone = { ...row(9, { failures: 2, locked: false }), displayName: 'Deleted account #9', email: 'deleted-9@deleted.invalid', roles: [], deletedAt: '2026-12-02T15:00:00Z' };
+    http.expectOne((r) => r.url === '/api/admin/users').flush({ items: [gone], total: 1, page: 1, pageSize: 25 });
+    await fixture.whenStable();
+    const el = fixture.nativeElement as HTMLElement;
+    expect(el.textContent).toContain('Deleted account #9');
+    expect(el.textContent).toContain('Deleted by its owner on Dec 2, 2026');
+    expect(el.querySelector('mat-button-toggle-group')).toBeNull();
+    expect(el.querySelector('button[aria-label^="Clear the sign-in lock"]')).toBeNull();
   });
 });

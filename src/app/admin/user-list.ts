@@ -1,3 +1,4 @@
+import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
@@ -18,9 +19,9 @@ const EDITABLE_ROLES: Role[] = ['fan', 'member', 'sponsor', 'editor', 'treasurer
 /** Accounts with server-side paging and search; roles toggled in place; sign-in locks cleared. */
 @Component({
   selector: 'ps-user-list',
-  imports: [FormsModule, MatButtonModule, MatTableModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatButtonToggleModule, EmptyState],
+  imports: [DatePipe, FormsModule, MatButtonModule, MatTableModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatButtonToggleModule, EmptyState],
   templateUrl: './user-list.html',
-  styles: `.ps-page { max-width: none; } table { width: 100%; } mat-button-toggle-group { flex-wrap: wrap; } .lock { color: var(--mat-sys-error); font-weight: 600; margin-right: 8px; }`,
+  styles: `.ps-page { max-width: none; } table { width: 100%; } mat-button-toggle-group { flex-wrap: wrap; } .lock { color: var(--mat-sys-error); font-weight: 600; margin-right: 8px; } .deleted { font-style: italic; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class UserList {

@@ -58,6 +58,12 @@ export class SessionStore {
     this.current.set(null);
   }
 
+  /** After the account was deleted: the server already ended the session, so only the page forgets it. */
+  forgetDeleted(): void {
+    this.csrf.forget();
+    this.current.set(null);
+  }
+
   /** After a profile change. */
   replace(user: User): void {
     this.current.set(user);
