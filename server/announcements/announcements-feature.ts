@@ -1,5 +1,6 @@
 import type { Feature, Platform } from '../platform/feature';
 import { AnnouncementAudience } from './announcement-audience';
+import { announcementsPersonalData } from './announcements-personal-data';
 import { AnnouncementRepository } from './announcement-repository';
 import { accountSubscriptionRoutes, announcementAdminRoutes, subscriptionRoutes } from './announcement-routes';
 import { AnnouncementService } from './announcement-service';
@@ -32,5 +33,6 @@ export function announcementsFeature(platform: Platform): Feature {
       { name: 'drop-notices', cron: '*/5 * * * *', run: () => announcements.sendDropNotices() },
       { name: 'implied-consents', cron: '30 3 * * *', run: () => subscriptionRepo.recordImpliedConsents(config.clubTimeZone) },
     ],
+    personalData: announcementsPersonalData,
   };
 }
