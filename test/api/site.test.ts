@@ -4,7 +4,7 @@ import { buildTestApp, type TestApp } from '../helpers/test-app';
 // Invented names, unlike the demo's, to show they come from the environment and not from the code.
 let t: TestApp;
 beforeAll(() => {
-  t = buildTestApp({ env: { TEAM_NAME: 'Nozzle & Nylon', CLUB_NAME: 'Prairie Sky Rocketry Club' } });
+  t = buildTestApp({ env: { TEAM_NAME: 'Nozzle & Nylon', CLUB_NAME: 'Skywhomp Rocketry Club' } });
 });
 afterAll(() => t.close());
 
@@ -12,7 +12,7 @@ describe('GET /api/site', () => {
   it('gives the team and club names the deployment set', async () => {
     const res = await request(t.app).get('/api/site');
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ teamName: 'Nozzle & Nylon', clubName: 'Prairie Sky Rocketry Club' });
+    expect(res.body).toEqual({ teamName: 'Nozzle & Nylon', clubName: 'Skywhomp Rocketry Club' });
   });
 });
 

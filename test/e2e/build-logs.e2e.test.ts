@@ -14,14 +14,14 @@ let sponsorId: number;
 let sponsorSlug: string;
 let contact: TestUser;
 const stamp = Date.now().toString(36);
-const sponsorName = `Prairie Volt Electronics ${stamp}`;
+const sponsorName = `Voltwhistle Electronics ${stamp}`;
 
 beforeAll(async () => {
   t = buildTestApp();
   site = await serve(t);
   browser = await launchBrowser();
   admin = (await signedIn(t.app, t.deps.db, ['fan', 'admin'])).client;
-  const created = await admin.post('/api/admin/sponsors', { name: sponsorName, website: 'https://prairie-volt.example', blurb: 'Switches, wire and advice on Main Street.' });
+  const created = await admin.post('/api/admin/sponsors', { name: sponsorName, website: 'https://voltwhistle.example', blurb: 'Switches, wire and advice on Main Street.' });
   sponsorId = created.body.id;
   sponsorSlug = created.body.slug;
   await admin.post(`/api/admin/sponsors/${sponsorId}/agreements`, { season: String(new Date().getFullYear()), cashCents: 40_000, deliverables: [{ kind: 'build_log_credit', quantity: 2, dueOn: `${new Date().getFullYear() + 1}-06-30` }] });

@@ -9,9 +9,9 @@ describe('SiteNames', () => {
   it('holds the names the server gives', async () => {
     const names = TestBed.inject(SiteNames);
     const loading = names.load();
-    TestBed.inject(HttpTestingController).expectOne('/api/site').flush({ teamName: 'Nozzle & Nylon', clubName: 'Prairie Sky Rocketry Club' });
+    TestBed.inject(HttpTestingController).expectOne('/api/site').flush({ teamName: 'Nozzle & Nylon', clubName: 'Skywhomp Rocketry Club' });
     await loading;
     expect(names.teamName()).toBe('Nozzle & Nylon');
-    expect(names.clubName()).toBe('Prairie Sky Rocketry Club');
+    expect(names.clubName()).toBe('Skywhomp Rocketry Club');
   });
 });
