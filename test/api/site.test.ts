@@ -1,5 +1,8 @@
 import request from 'supertest';
+import { waitForEmails } from '../helpers/maildev';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { Client, signedIn } from '../helpers/users';
+import { MB_ADDRESS, methodId, stockSticker } from './shop-fixtures';
 
 // Invented names, unlike the demo's, to show they come from the environment and not from the code.
 let t: TestApp;
@@ -22,5 +25,24 @@ describe('GET /feeds/build-logs.atom', () => {
     expect(res.status).toBe(200);
     expect(res.text).toContain('<title>Nozzle &amp; Nylon build logs — Padside</title>');
     expect(res.text).toContain('<rights>Nozzle &amp; Nylon</rights>');
+  });
+});
+
+describe('the shop e-mails', () => {
+  it('carry the configured team name, not the demo one or the software name', async () => {
+    const staff = (await signedIn(t.app, t.deps.db, ['fan', 'treasurer'])).client;
+    const sticker = await stockSticker(staff, 5);
+    const buyer = new Client(t.app);
+    const email = `names-${Date.now()}@example.test`;
+    const res = await buyer.post('/api/orders', { items: [{ variantId: sticker.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(buyer, 'canada'), email, paymentToken: 'tok_visa' });
+    expect(res.status).toBe(201);
+    expect((await staff.post(`/api/admin/orders/${res.body.order.id}/ship`, { carrier: 'Gopherline Courier', trackingNumber: 'GL 0001' })).status).toBe(200);
+    await t.deps.mail.deliverDue();
+    const mails = await waitForEmails(email, /order PS-/, 2);
+    expect(mails.map((m) => m.subject).sort()).toEqual([`Nozzle & Nylon order ${res.body.order.number} is on its way`, `Nozzle & Nylon order ${res.body.order.number}: thank you`]);
+    for (const m of mails) {
+      expect(m.text).toContain('Nozzle & Nylon');
+      expect(m.text).not.toMatch(/Padside|Thrust & Filament/);
+    }
   });
 });

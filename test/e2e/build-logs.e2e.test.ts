@@ -93,7 +93,7 @@ describe('build logs and sponsor credits in a browser', () => {
     await page.close();
 
     await t.deps.mail.deliverDue();
-    const mails = await waitForEmails(contact.email, /credited in a new Padside build log/);
+    const mails = await waitForEmails(contact.email, /credited in a new Thrust & Filament build log/);
     expect(mails).toHaveLength(1);
     expect(mails[0].text).toContain(`/build-logs/${slug}`);
   });

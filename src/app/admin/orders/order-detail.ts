@@ -36,9 +36,16 @@ export class OrderDetail {
   protected readonly labels = STATUS_LABELS;
   protected readonly refundStates = REFUND_STATES;
   protected readonly refundOrigins = REFUND_ORIGINS;
-  protected readonly shipForm = this.fb.group({ carrier: ['Canada Post', Validators.required], trackingNumber: ['', Validators.required] });
+  protected readonly shipForm = this.fb.group({ carrier: ['', Validators.required], trackingNumber: ['', Validators.required] });
   protected readonly shipProblem = signal<string | null>(null);
   protected readonly busy = signal(false);
+
+  constructor() {
+    // The shop's usual carrier, when staff set one, fills the field unless someone already typed in it.
+    void firstValueFrom(this.api.settings()).then((s) => {
+      if (s.carrier && !this.shipForm.controls.carrier.dirty) this.shipForm.controls.carrier.setValue(s.carrier);
+    });
+  }
 
   protected async pack(): Promise<void> {
     await this.run(() => firstValueFrom(this.api.pack(this.id())), 'Marked packed.');
