@@ -5,6 +5,8 @@ import compression from 'compression';
 import express, { type Express, type Router } from 'express';
 import pinoHttp from 'pino-http';
 import { accountRoutes } from './account/account-routes';
+import { AccountAdminService } from './admin/account-admin-service';
+import { AccountChangeRepository } from './admin/account-change-repository';
 import { userAdminRoutes } from './admin/user-admin-routes';
 import { authRoutes } from './auth/auth-routes';
 import { AuthService } from './auth/auth-service';
@@ -90,7 +92,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   api.use(refuseUnstorableText);
   apiMount('/auth', authRoutes(auth));
   apiMount('/account', accountRoutes(auth));
-  apiMount('/admin/users', userAdminRoutes(auth.users, auth.signInGuard));
+  apiMount('/admin/users', userAdminRoutes(auth.users, auth.signInGuard, new AccountAdminService(deps.db, auth.users, new AccountChangeRepository(deps.db))));
   apiMount('/admin/uploads', uploadAdminRoutes(platform.images));
   for (const feature of features) feature.mount(apiMount);
   api.use(apiNotFound);

@@ -68,9 +68,12 @@ describe('build logs and sponsor credits in a browser', () => {
     await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
     await page.waitForFunction(() => /!\[Describe the picture\]\(\/uploads\/[a-z0-9-]+\.png\)/.test((document.querySelector('textarea.mono') as HTMLTextAreaElement).value));
 
-    await page.getByLabel('Sponsor to thank').click();
+    await page.getByRole('button', { name: 'Thank a sponsor…' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Thank a sponsor' });
+    await dialog.getByLabel('Sponsor').click();
     await page.getByRole('option', { name: sponsorName }).click();
-    await page.getByRole('button', { name: 'Insert thank-you card' }).click();
+    await dialog.getByRole('button', { name: 'Insert thank-you card' }).click();
+    await dialog.waitFor({ state: 'detached' });
     const preview = page.getByRole('region', { name: 'Preview' });
     await preview.getByText('With thanks to').waitFor();
     await preview.getByText(sponsorName).waitFor();

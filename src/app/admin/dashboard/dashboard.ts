@@ -10,6 +10,7 @@ import type { ChartConfiguration } from 'chart.js';
 import { SessionStore } from '../../core/session-store';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { BooksApi } from '../books/books-api';
+import { EditorOverview } from './editor-overview';
 
 const SOURCES = [
   { key: 'merch', label: 'Merch', colour: '#376286' },
@@ -21,7 +22,7 @@ const STATUS_COLOURS: Record<string, string> = { active: '#376286', lapsing: '#e
 /** The console's overview: today's numbers as cards, each linking to the table behind it, and three charts. */
 @Component({
   selector: 'ps-dashboard',
-  imports: [RouterLink, DecimalPipe, MatCardModule, MatFormFieldModule, MatSelectModule, BaseChartDirective, MoneyPipe],
+  imports: [RouterLink, DecimalPipe, EditorOverview, MatCardModule, MatFormFieldModule, MatSelectModule, BaseChartDirective, MoneyPipe],
   providers: [provideCharts(withDefaultRegisterables())],
   templateUrl: './dashboard.html',
   styleUrl: './dashboard.scss',
@@ -31,6 +32,8 @@ export class Dashboard {
   private readonly api = inject(BooksApi);
   protected readonly session = inject(SessionStore);
   protected readonly canSeeBooks = computed(() => this.session.hasAnyRole(['treasurer', 'admin']));
+  /** Editors see their drafts, scheduled posts and the sponsor credits owed. */
+  protected readonly isEditor = computed(() => this.session.hasAnyRole(['editor']));
   protected readonly data = rxResource({ params: () => this.canSeeBooks() || undefined, stream: () => this.api.dashboard() });
 
   protected readonly runs = rxResource({ params: () => this.canSeeBooks() || undefined, stream: () => this.api.runs() });

@@ -5,7 +5,9 @@ import { DomSanitizer } from '@angular/platform-browser';
 import { Router, RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
@@ -14,13 +16,14 @@ import { applyServerErrors } from '../../core/api-error';
 import { HazardNotice } from '../../build-logs/hazard-notice';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { SponsorAdminApi } from '../sponsors/sponsor-admin-api';
+import { CreditDialog, type CreditDialogData } from './credit-dialog';
 import { ImageUpload } from './image-upload';
 import { PostAdminApi, type AdminPost, type PostStatus, type PostWrite } from './post-admin-api';
 
 /** Writes a build log: Markdown with the live preview from the server's pipeline, images, credits, schedule, publish. */
 @Component({
   selector: 'ps-post-editor',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, ImageUpload, HazardNotice],
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, FieldErrorPipe, ImageUpload, HazardNotice],
   templateUrl: './post-editor.html',
   styleUrl: './post-editor.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -31,6 +34,7 @@ export class PostEditor {
   private readonly router = inject(Router);
   private readonly snackBar = inject(MatSnackBar);
   private readonly dom = inject(DomSanitizer);
+  private readonly dialog = inject(MatDialog);
   private readonly body = viewChild<ElementRef<HTMLTextAreaElement>>('body');
 
   /** The post id from the route, or 'new'. */
@@ -47,7 +51,6 @@ export class PostEditor {
     hazardNotice: [false],
     publishAt: [''],
     credits: [[] as number[]],
-    pickCredit: [''],
   });
   protected readonly problem = signal<string | null>(null);
   protected readonly busy = signal(false);
@@ -96,10 +99,11 @@ export class PostEditor {
       });
   }
 
-  /** Puts Padside's credit marker on a line of its own at the cursor. */
-  protected insertCredit(): void {
-    const slug = this.form.controls.pickCredit.value;
-    if (slug) this.insertAtCursor(`\n%thanks ${slug} | \n`);
+  /** Asks which sponsor to thank (and the note), then puts the credit line on a line of its own at the cursor. */
+  protected async thankSponsor(): Promise<void> {
+    const data: CreditDialogData = { sponsors: this.sponsors.value()?.items ?? [] };
+    const line = await firstValueFrom(this.dialog.open<CreditDialog, CreditDialogData, string>(CreditDialog, { data, width: 'min(520px, 96vw)' }).afterClosed());
+    if (line) this.insertAtCursor(`\n${line}\n`);
   }
 
   protected insertImage(url: string): void {
