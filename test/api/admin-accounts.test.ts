@@ -54,6 +54,8 @@ describe('POST /api/admin/users/:id/disable', () => {
     const { client: a } = await signedIn(t.app, t.deps.db, ['fan', 'admin']);
     const { client: b } = await signedIn(t.app, t.deps.db, ['fan', 'admin']);
     const user = await createUser(t.deps.db, ['fan']);
+    // Each client fetches its CSRF token first, so the concurrent requests race only on the account.
+    await Promise.all([a.token(), b.token()]);
     const answers = await Promise.all([a, b, a, b].map((c) => c.post(`/api/admin/users/${user.id}/disable`)));
     expect(answers.map((r) => r.status)).toEqual([200, 200, 200, 200]);
     const history = await a.get(`/api/admin/users/${user.id}/history`);
