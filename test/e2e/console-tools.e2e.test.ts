@@ -49,14 +49,22 @@ async function phonePage(user: TestUser): Promise<{ page: Page; context: Browser
   return { page, context, errors };
 }
 
-/** True when the page itself does not scroll sideways. */
-const pageFitsWidth = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth);
+/** Lets running animations (a dialog opening, a ripple) finish, so a screenshot shows the settled screen. */
+const settled = (page: Page) => page.evaluate(() => Promise.all(document.getAnimations().map((a) => a.finished.catch(() => undefined))));
+
+/** The elements that stick out past the right edge of the viewport (none when the page does not scroll sideways). */
+const overflowing = (page: Page) =>
+  page.evaluate(() => {
+    if (document.documentElement.scrollWidth <= window.innerWidth) return [];
+    const inScroller = (el: Element) => { for (let p = el.parentElement; p; p = p.parentElement) if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true; return false; };
+    return [...document.body.querySelectorAll('*')].filter((el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScroller(el)).slice(0, 5).map((el) => `${el.tagName.toLowerCase()}.${[...el.classList].join('.')}`);
+  });
 
 async function sponsorWithPromises(name: string, deliverables: object[]) {
   const created = await admin.post('/api/admin/sponsors', { name: `${name} ${stamp}` });
   expect(created.status).toBe(201);
   expect((await admin.post(`/api/admin/sponsors/${created.body.id}/agreements`, { season: String(year), cashCents: 25_000, deliverables })).status).toBe(201);
-  return created.body as { id: number; slug: string; name: string };
+  return { id: created.body.id as number, slug: created.body.slug as string, name: `${name} ${stamp}` };
 }
 
 describe('the editor on a phone', () => {
@@ -87,12 +95,13 @@ describe('the editor on a phone', () => {
       }),
     );
     expect(slack.every((s) => Math.abs(s) <= 1)).toBe(true);
-    expect(await pageFitsWidth(page)).toBe(true);
+    expect(await overflowing(page)).toEqual([]);
+    await settled(page);
     await screenshot(page, 'console-editor-overview-phone');
     expect(await seriousViolations(page)).toEqual([]);
 
     await drafts.click();
-    await page.getByRole('heading', { name: 'Build logs' }).waitFor();
+    await page.getByRole('heading', { name: 'Build logs', exact: true }).waitFor();
     await page.getByRole('link', { name: `Draft nose cone ${stamp}` }).waitFor();
     expect(await page.getByRole('link', { name: `Scheduled fins ${stamp}` }).count()).toBe(0);
     expect(errors).toEqual([]);
@@ -126,12 +135,14 @@ describe('the editor on a phone', () => {
     await page.getByRole('option', { name: sponsor.name }).click();
     await dialog.getByTestId('counted-promise').getByText(`Counts towards the ${year} promise of build log credits: 0 of 3 delivered so far, due ${year + 1}-03-31.`).waitFor();
     await dialog.getByLabel('Note on the card (optional)').fill('Fin jigs and a spare hand');
+    await settled(page);
     await screenshot(page, 'post-editor-credit-dialog-phone');
     expect(await seriousViolations(page)).toEqual([]);
     await dialog.getByRole('button', { name: 'Insert thank-you card' }).click();
     await dialog.waitFor({ state: 'detached' });
     expect(await page.getByRole('textbox', { name: 'Markdown' }).inputValue()).toContain(`\n%thanks ${sponsor.slug} | Fin jigs and a spare hand\n`);
     await preview.getByText(sponsor.name).waitFor();
+    await settled(page);
     await screenshot(page, 'post-editor-phone');
     expect(await seriousViolations(page)).toEqual([]);
 
@@ -141,6 +152,7 @@ describe('the editor on a phone', () => {
     const publicQuote = page.locator('.body blockquote');
     await publicQuote.waitFor();
     expect(await publicQuote.evaluate((el) => getComputedStyle(el).borderLeftWidth)).toBe('4px');
+    await settled(page);
     await screenshot(page, 'build-log-quote-phone');
     expect(errors).toEqual([]);
     await context.close();
@@ -168,12 +180,13 @@ describe('the accounts page on a phone', () => {
       return new Set(tops).size;
     });
     expect(oneLine).toBe(1);
-    expect(await pageFitsWidth(page)).toBe(true);
+    expect(await overflowing(page)).toEqual([]);
 
     // Going back leaves the roles as they were.
     await group.getByRole('button', { name: 'treasurer' }).click();
     const confirm = page.getByRole('dialog', { name: `Make Tamsin Target ${stamp} treasurer?` });
     await confirm.waitFor();
+    await settled(page);
     await screenshot(page, 'accounts-confirm-treasurer-phone');
     expect(await seriousViolations(page)).toEqual([]);
     await confirm.getByRole('button', { name: 'Go back' }).click();
@@ -185,7 +198,7 @@ describe('the accounts page on a phone', () => {
     await page.getByText(`Roles saved for Tamsin Target ${stamp}.`).waitFor();
     expect((await t.deps.db('users').where('id', target.id).first()).roles.sort()).toEqual(['editor', 'fan', 'treasurer']);
 
-    await row.getByRole('button', { name: 'Disable', exact: true }).click();
+    await row.getByRole('button', { name: `Disable the account of Tamsin Target ${stamp}` }).click();
     const disable = page.getByRole('dialog', { name: `Disable Tamsin Target ${stamp}?` });
     await disable.getByRole('button', { name: 'Disable account' }).click();
     await row.getByText('Disabled', { exact: true }).waitFor();
@@ -197,6 +210,7 @@ describe('the accounts page on a phone', () => {
     await history.getByText('Disabled the account').waitFor();
     await history.getByText('Granted treasurer').waitFor();
     expect(await history.getByText('Adaeze Accounts').count()).toBe(2);
+    await settled(page);
     await screenshot(page, 'accounts-history-phone');
     expect(await seriousViolations(page)).toEqual([]);
     await history.getByRole('button', { name: 'Close' }).click();
@@ -207,7 +221,8 @@ describe('the accounts page on a phone', () => {
     await page.getByRole('option', { name: 'Any role' }).click();
     const mine = page.getByRole('row', { name: /Adaeze Accounts/ });
     await mine.getByText('Your account').waitFor();
-    expect(await mine.getByRole('button', { name: /^Disable/ }).count()).toBe(0);
+    expect(await mine.getByRole('button', { name: /^Disable the account/ }).count()).toBe(0);
+    await settled(page);
     await screenshot(page, 'accounts-phone');
     expect(errors).toEqual([]);
     await context.close();
@@ -230,7 +245,8 @@ describe('the shop console on a phone', () => {
     const card = page.getByTestId('orders-card');
     await card.waitFor();
     expect(await card.evaluate((el) => el.scrollWidth > el.clientWidth && getComputedStyle(el).overflowX === 'auto')).toBe(true);
-    expect(await pageFitsWidth(page)).toBe(true);
+    expect(await overflowing(page)).toEqual([]);
+    await settled(page);
     await screenshot(page, 'console-orders-phone');
     expect(await seriousViolations(page)).toEqual([]);
     expect(errors).toEqual([]);
@@ -247,6 +263,7 @@ describe('the shop console on a phone', () => {
     const { page, context, errors } = await phonePage(treasurer);
     await page.goto(`${site.baseUrl}/console/products`);
     await page.getByRole('heading', { name: 'Products' }).waitFor();
+    expect(await overflowing(page)).toEqual([]);
     const field = page.getByRole('spinbutton', { name: `Most units per order: ${name}` });
     await field.fill('0');
     await field.press('Enter');
@@ -264,6 +281,7 @@ describe('the shop console on a phone', () => {
     await form.fill('0');
     await page.getByRole('button', { name: 'Create product' }).click();
     await page.getByText('Must be at least 1.').first().waitFor();
+    await settled(page);
     await screenshot(page, 'console-products-limit-phone');
     expect(await seriousViolations(page)).toEqual([]);
     expect(errors).toEqual([]);
@@ -282,7 +300,8 @@ describe('the sponsor portal on a phone', () => {
     await page.getByText('Listed on the sponsors page now').waitFor();
     expect(await page.getByText('Late — we owe you this').count()).toBe(0);
     await page.getByText('Cash received: $0.00 of $250.00 (not received yet)').waitFor();
-    expect(await pageFitsWidth(page)).toBe(true);
+    expect(await overflowing(page)).toEqual([]);
+    await settled(page);
     await screenshot(page, 'sponsor-portal-listing-phone');
     expect(await seriousViolations(page)).toEqual([]);
     expect(errors).toEqual([]);

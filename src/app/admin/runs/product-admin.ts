@@ -23,7 +23,7 @@ import { MAX_PER_ORDER_VALIDATORS, MaxPerOrderField } from './max-per-order-fiel
   selector: 'ps-product-admin',
   imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe, MaxPerOrderField],
   templateUrl: './product-admin.html',
-  styles: `.ps-page { max-width: none; } table { width: 100%; border-collapse: collapse; } th, td { text-align: left; padding: 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); } .grid { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 0 16px; } label.upload { margin-left: 8px; cursor: pointer; text-decoration: underline; } label.upload input { position: absolute; width: 1px; height: 1px; opacity: 0; } label.upload:focus-within { outline: 2px solid var(--ps-igniter); } fieldset { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; padding: 12px 16px; margin: 0 0 16px; }`,
+  styles: `.ps-page { max-width: none; } .table-scroll { overflow-x: auto; max-width: 100%; } table { width: 100%; border-collapse: collapse; } th, td { text-align: left; padding: 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); } .grid { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 0 16px; } label.upload { margin-left: 8px; cursor: pointer; text-decoration: underline; } label.upload input { position: absolute; width: 1px; height: 1px; opacity: 0; } label.upload:focus-within { outline: 2px solid var(--ps-igniter); } fieldset { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; padding: 12px 16px; margin: 0 0 16px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ProductAdmin {
