@@ -149,7 +149,9 @@ describe('the editor on a phone', () => {
     await page.getByRole('button', { name: 'Publish now' }).click();
     await page.getByText('Published.').waitFor();
     await page.getByRole('link', { name: 'view the public page' }).click();
-    const publicQuote = page.locator('.body blockquote');
+    await page.waitForURL(/\/build-logs\/quotes-and-thanks/);
+    await page.getByRole('heading', { level: 1, name: `Quotes and thanks ${stamp}` }).waitFor();
+    const publicQuote = page.locator('article .body blockquote, .post .body blockquote').first();
     await publicQuote.waitFor();
     expect(await publicQuote.evaluate((el) => getComputedStyle(el).borderLeftWidth)).toBe('4px');
     await settled(page);
