@@ -25,7 +25,7 @@ export async function seed(knex: Knex): Promise<void> {
   const shirt = await product(knex, {
     slug: 'season-3-shirt',
     name: 'Thrust & Filament Season 3 shirt',
-    description_md: 'Our Season 3 mission patch, screen printed by **Red River Screenworks** on a heavy cotton tee.\n\n- One print run, then it is gone\n- Printed after the window closes, shipped or handed out at the next Gopher Flats launch',
+    description_md: 'Our Season 3 mission patch, screen printed by **Inkwobble Screenworks** on a heavy cotton tee.\n\n- One print run, then it is gone\n- Printed after the window closes, shipped or handed out at the next Gopher Flats launch',
     price_cents: 3200,
     weight_grams: 190,
     size_chart: JSON.stringify(chart),
@@ -35,7 +35,7 @@ export async function seed(knex: Knex): Promise<void> {
   const old = await product(knex, { slug: 'season-2-shirt', name: 'Thrust & Filament Season 2 shirt', description_md: 'The Season 2 design. This run has closed and shipped.', price_cents: 3000, weight_grams: 190 }, ['S', 'M', 'L', 'XL'].map((s) => ({ label: s, sku: `TF-S2-${s}`, weight_grams: null, price_cents: null, stock_on_hand: null })));
   const [run2] = await knex('shop_runs').insert({ product_id: old.id, name: 'Season 2 shirt run', cap: 80, reserved: 80, opens_at: new Date(now - 200 * day), closes_at: new Date(now - 170 * day), state: 'shipped', unit_cost_cents: 1100 }).returning('id');
 
-  await product(knex, { slug: 'sticker-sheet', name: 'Launch-rail sticker sheet', description_md: 'Six vinyl stickers: the team logo, a fin can and a Loonie Loop spool.', price_cents: 600, weight_grams: 15 }, [{ label: 'One sheet', sku: 'TF-STK-1', weight_grams: null, price_cents: null, stock_on_hand: 240 }]);
+  await product(knex, { slug: 'sticker-sheet', name: 'Launch-rail sticker sheet', description_md: 'Six vinyl stickers: the team logo, a fin can and a Spoolgoblin spool.', price_cents: 600, weight_grams: 15 }, [{ label: 'One sheet', sku: 'TF-STK-1', weight_grams: null, price_cents: null, stock_on_hand: 240 }]);
   await product(knex, { slug: 'nose-cone-pin', name: 'Nose-cone enamel pin', description_md: 'Hard enamel, 30 mm, with a rubber clutch.', price_cents: 1200, weight_grams: 20 }, [{ label: 'Gold', sku: 'TF-PIN-G', weight_grams: null, price_cents: null, stock_on_hand: 60 }, { label: 'Silver', sku: 'TF-PIN-S', weight_grams: null, price_cents: null, stock_on_hand: 0 }]);
 
   const rates: TaxRate[] = (await knex('shop_tax_rates').select('jurisdiction', 'code', 'rate_percent', knex.raw("to_char(effective_from, 'YYYY-MM-DD') as effective_from"))).map((r) => ({ jurisdiction: r.jurisdiction, code: r.code, ratePercent: String(r.rate_percent), effectiveFrom: r.effective_from }));

@@ -16,8 +16,8 @@ import { ShopConfigRepository } from '../server/shop/shop-config-repository';
 /** The invented sponsors of Thrust & Filament, with their 2026 agreements. */
 export const SPONSORS = [
   {
-    name: 'Prairie Volt Electronics',
-    website: 'https://prairie-volt.example',
+    name: 'Voltwhistle Electronics',
+    website: 'https://voltwhistle.example',
     blurb: 'The electronics counter on Main Street in Gopher Flats: switches, wire and advice.',
     contact: 'sponsor@padside.test',
     // Promotion bought: taxed at the team's GST rate for Manitoba (the treasurer chose this treatment).
@@ -35,8 +35,8 @@ export const SPONSORS = [
     },
   },
   {
-    name: 'Loonie Loop Filament Co.',
-    website: 'https://loonie-loop.example',
+    name: 'Spoolgoblin Filament Co.',
+    website: 'https://spoolgoblin.example',
     blurb: 'Filament spun in Manitoba; they sent the PETG our fin cans are printed in.',
     agreement: {
       season: '2026',
@@ -49,8 +49,8 @@ export const SPONSORS = [
     },
   },
   {
-    name: 'Chinook Canopy Works',
-    website: 'https://chinook-canopy.example',
+    name: 'Glumbrella Canopy Works',
+    website: 'https://glumbrella.example',
     blurb: 'Hand-sewn recovery canopies for model rockets.',
     agreement: {
       season: '2026',
@@ -63,8 +63,8 @@ export const SPONSORS = [
     },
   },
   {
-    name: 'Red River Screenworks',
-    website: 'https://red-river-screenworks.example',
+    name: 'Inkwobble Screenworks',
+    website: 'https://inkwobble-screenworks.example',
     blurb: 'The shirt printers behind every Thrust & Filament limited run.',
     agreement: {
       season: '2026',

@@ -5,6 +5,8 @@ import express, { type Express, type Router } from 'express';
 import pinoHttp from 'pino-http';
 import { accountRoutes } from './account/account-routes';
 import { PersonalDataService } from './account/personal-data-service';
+import { AccountAdminService } from './admin/account-admin-service';
+import { AccountChangeRepository } from './admin/account-change-repository';
 import { ONE_CLICK_PATH } from './announcements/announcement-routes';
 import { userAdminRoutes } from './admin/user-admin-routes';
 import { authRoutes } from './auth/auth-routes';
@@ -106,7 +108,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   apiMount('/auth', authRoutes(auth));
   const personalData = new PersonalDataService(deps.db, auth.users, features.flatMap((f) => f.personalData ?? []), deps.clock, deps.config.site.teamName, deps.log);
   apiMount('/account', accountRoutes(auth, personalData, { siteName: deps.config.site.teamName, timeZone: deps.config.clubTimeZone }));
-  apiMount('/admin/users', userAdminRoutes(auth.users, auth.signInGuard));
+  apiMount('/admin/users', userAdminRoutes(auth.users, auth.signInGuard, new AccountAdminService(deps.db, auth.users, new AccountChangeRepository(deps.db))));
   apiMount('/admin/uploads', uploadAdminRoutes(platform.images));
   for (const feature of features) feature.mount(apiMount);
   api.use(apiNotFound);

@@ -84,14 +84,16 @@ export class AuthService {
       await this.signInGuard.fail(accountKey, ip, familiar);
       throw new AppError(401, 'invalid_credentials', 'That e-mail and password do not match an account.');
     }
+    // Told only to whoever knows the password, so it reveals nothing about the address to anyone else.
+    if (row.disabled_at) throw new AppError(403, 'account_disabled', 'This account is disabled. Ask the club’s admin if you think that is a mistake.');
     await this.signInGuard.succeed(accountKey, ip, Number(row.id));
     return toSessionUser(row);
   }
 
   async currentUser(id: number): Promise<SessionUser | null> {
     const row = await this.users.byId(id);
-    // A deleted account's sessions are gone; this keeps any request racing the deletion from acting as it.
-    return row && !row.deleted_at ? toSessionUser(row) : null;
+    // A deleted or disabled account's session counts as signed out, even before its session rows are gone.
+    return row && !row.deleted_at && !row.disabled_at ? toSessionUser(row) : null;
   }
 
   /** Sends a new verification link; 429 when the address or the network address asked too often. */

@@ -11,6 +11,8 @@ export interface UserRow {
   marketing_opt_out: boolean;
   /** Set when the owner deleted the account: the row stays as a tombstone (orders and dues point at it). */
   deleted_at: Date | null;
+  /** Set while an admin has the account disabled: no sign-in, no session. */
+  disabled_at: Date | null;
   created_at: Date;
   updated_at: Date;
 }
@@ -38,7 +40,7 @@ export class UserRepository {
     return row;
   }
 
-  async update(id: number, patch: Partial<Pick<UserRow, 'password_hash' | 'display_name' | 'roles' | 'email_verified_at' | 'marketing_opt_out'>>, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
+  async update(id: number, patch: Partial<Pick<UserRow, 'password_hash' | 'display_name' | 'roles' | 'email_verified_at' | 'marketing_opt_out' | 'disabled_at'>>, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
     const [row] = await trx<UserRow>('users').where('id', id).update({ ...patch, updated_at: trx.fn.now() as unknown as Date }).returning('*');
     return row;
   }
@@ -49,10 +51,11 @@ export class UserRepository {
     await trx('users').where('id', id).update({ roles: expr, updated_at: trx.fn.now() });
   }
 
-  async page(opts: { q?: string; role?: Role; page: number; pageSize: number }): Promise<{ items: UserRow[]; total: number }> {
+  async page(opts: { q?: string; role?: Role; disabled?: boolean; page: number; pageSize: number }): Promise<{ items: UserRow[]; total: number }> {
     const base = this.db<UserRow>('users').modify((qb) => {
       if (opts.q) qb.where((w) => w.whereILike('email', `%${opts.q}%`).orWhereILike('display_name', `%${opts.q}%`));
       if (opts.role) qb.whereRaw('? = ANY(roles)', [opts.role]);
+      if (opts.disabled !== undefined) qb.where((w) => (opts.disabled ? w.whereNotNull('disabled_at') : w.whereNull('disabled_at')));
     });
     const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
     const items = await base.clone().orderBy('id').limit(opts.pageSize).offset((opts.page - 1) * opts.pageSize);

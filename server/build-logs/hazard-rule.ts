@@ -1,9 +1,37 @@
-/** Words that mean a post is about flying: motors, flights, launches, ejection charges, igniters. */
-const FLYING_WORDS = /\b(motors?|flights?|flew|fly|flying|launch(?:es|ed|ing)?|ejection|igniters?|recovery charges?)\b/i;
+/**
+ * Words that mean a post is about flying or about the energetics that go with it: motors, flights, launches,
+ * ejection and deployment charges, black powder, e-matches, igniters, continuity checks of pyro channels.
+ * Whole words only (`\b`), and `charge` only with the word that makes it a pyro charge, so a charged battery,
+ * a motorway or a free-of-charge shirt does not trigger it.
+ */
+const FLYING_WORDS = new RegExp(
+  '\\b(?:' +
+    [
+      'motors?',
+      'flights?',
+      'flew',
+      'fly',
+      'flying',
+      'launch(?:es|ed|ing)?',
+      'ejection',
+      'igniters?',
+      'ignitors?',
+      'e-?matche?s?',
+      'black[ -]powder',
+      'pyrodex',
+      'pyro(?:technics?|technic|gen)?',
+      '(?:recovery|deployment|drogue|main|backup|apogee|separation) charges?',
+      'charge wells?',
+      'continuity (?:tests?|checks?|testing|checking)',
+    ].join('|') +
+    ')\\b',
+  'i',
+);
 
 /**
- * Whether a post must carry the hazard notice: tagged `rocketry`, or mentioning motors, flights or launches in
- * its title, summary or body. An editor may add the notice to any other post but can never remove it from these.
+ * Whether a post must carry the hazard notice: tagged `rocketry`, or its title, summary or body mentions motors,
+ * flights, launches or the charges and igniters that fire them. An editor may add the notice to any other post
+ * but can never remove it from these.
  */
 export function needsHazardNotice(post: { title: string; summary: string; markdown: string; tags: readonly string[] }): boolean {
   if (post.tags.some((t) => t.toLowerCase() === 'rocketry')) return true;

@@ -13,6 +13,7 @@ export class FulfilmentService {
     private readonly orders: OrderRepository,
     private readonly clock: Clock,
     private readonly links: OrderLinks,
+    private readonly teamName: string,
   ) {}
 
   async pack(id: number): Promise<OrderBundle> {
@@ -32,7 +33,7 @@ export class FulfilmentService {
         throw conflict('wrong_status', 'Only a paid or packed order can be shipped.');
       }
       const shipped = (await this.orders.find(id, trx))!;
-      await enqueueEmail(trx, shippedEmail(shipped, this.links.urlFor(shipped.order.id, shipped.order.email)));
+      await enqueueEmail(trx, shippedEmail(shipped, this.links.urlFor(shipped.order.id, shipped.order.email), this.teamName));
     });
     return (await this.orders.find(id))!;
   }

@@ -57,6 +57,7 @@ export class RefundService {
     private readonly payments: PaymentGateway,
     private readonly clock: Clock,
     private readonly log: Logger,
+    private readonly teamName: string,
   ) {}
 
   /** What the request would refund now, moving nothing. */
@@ -226,7 +227,7 @@ export class RefundService {
       idempotencyKey: `shop-refund-${r.id}`,
       taxes: taxes.map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, ratePercent: t.rate_percent, taxableCents: -t.taxable_cents, taxCents: -t.tax_cents })),
     });
-    await enqueueEmail(trx, refundEmail((await this.orders.find(b.order.id, trx))!, r.id, r.amount_cents));
+    await enqueueEmail(trx, refundEmail((await this.orders.find(b.order.id, trx))!, r.id, r.amount_cents, this.teamName));
   }
 
   private async mustExist(id: number): Promise<OrderBundle> {

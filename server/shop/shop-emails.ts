@@ -24,34 +24,34 @@ export function confirmationEmail(b: OrderBundle, orderUrl: string, teamName: st
   const dest = o.shipping_code === 'pickup' ? 'Pick up at the next club launch; bring this e-mail.' : [o.ship_name, o.ship_line1, o.ship_line2, `${o.ship_city ?? ''} ${o.ship_province ?? ''} ${o.ship_postal_code ?? ''}`.trim(), o.ship_country].filter(Boolean).join('\n');
   return {
     to: o.email,
-    subject: `Padside order ${o.number}: thank you`,
+    subject: `${teamName} order ${o.number}: thank you`,
     template: 'shop-order-confirmation',
     dedupeKey: `shop-confirmation-${o.id}`,
-    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', 'Receipt', ...receiptText(r, formatCad), '', ...receipt(b), '', 'Delivery:', dest, '', ...(nextSteps.length ? ['What happens next:', ...nextSteps.map((s) => `- ${s}`), ''] : []), `See your order: ${orderUrl}`, '', `${teamName}, via Padside`].join('\n'),
+    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', 'Receipt', ...receiptText(r, formatCad), '', ...receipt(b), '', 'Delivery:', dest, '', ...(nextSteps.length ? ['What happens next:', ...nextSteps.map((s) => `- ${s}`), ''] : []), `See your order: ${orderUrl}`, '', teamName].join('\n'),
   };
 }
 
 /** The shipped notice with carrier and tracking; `orderUrl` as for the confirmation. */
-export function shippedEmail(b: OrderBundle, orderUrl: string): OutgoingEmail {
+export function shippedEmail(b: OrderBundle, orderUrl: string, teamName: string): OutgoingEmail {
   const o = b.order;
   return {
     to: o.email,
-    subject: `Padside order ${o.number} is on its way`,
+    subject: `${teamName} order ${o.number} is on its way`,
     template: 'shop-order-shipped',
     dedupeKey: `shop-shipped-${o.id}`,
-    text: [`Your order ${o.number} has left the workshop.`, '', `Carrier: ${o.carrier}`, `Tracking number: ${o.tracking_number}`, '', `See your order: ${orderUrl}`].join('\n'),
+    text: [`Your order ${o.number} has left the workshop.`, '', `Carrier: ${o.carrier}`, `Tracking number: ${o.tracking_number}`, '', `See your order: ${orderUrl}`, '', teamName].join('\n'),
   };
 }
 
 /** A refund notice, once per refund. */
-export function refundEmail(b: OrderBundle, refundId: number, amountCents: number): OutgoingEmail {
+export function refundEmail(b: OrderBundle, refundId: number, amountCents: number, teamName: string): OutgoingEmail {
   const o = b.order;
   return {
     to: o.email,
-    subject: `Padside order ${o.number}: refund of ${formatCad(amountCents)}`,
+    subject: `${teamName} order ${o.number}: refund of ${formatCad(amountCents)}`,
     template: 'shop-order-refund',
     dedupeKey: `shop-refund-${refundId}`,
-    text: [`We have refunded ${formatCad(amountCents)} on order ${o.number}.`, `Refunded so far: ${formatCad(o.refunded_cents)} of ${formatCad(o.total_cents)}.`, '', 'Card refunds usually take a few business days to show on your statement.'].join('\n'),
+    text: [`We have refunded ${formatCad(amountCents)} on order ${o.number}.`, `Refunded so far: ${formatCad(o.refunded_cents)} of ${formatCad(o.total_cents)}.`, '', 'Card refunds usually take a few business days to show on your statement.', '', teamName].join('\n'),
   };
 }
 
@@ -59,7 +59,7 @@ export function refundEmail(b: OrderBundle, refundId: number, amountCents: numbe
 export function disputeEmail(b: OrderBundle, to: string, reason: string): OutgoingEmail {
   return {
     to,
-    subject: `Dispute opened on Padside order ${b.order.number}`,
+    subject: `Dispute opened on order ${b.order.number}`,
     template: 'shop-order-dispute',
     dedupeKey: `shop-dispute-${b.order.id}`,
     text: [`The card holder disputed the charge on order ${b.order.number} (${formatCad(b.order.total_cents)}).`, `Reason given: ${codeInWords(reason)}`, '', 'Gather the order, shipping and tracking details and answer the dispute in the processor dashboard.'].join('\n'),

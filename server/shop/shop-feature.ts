@@ -35,9 +35,9 @@ export function shopFeature(platform: Platform, otherCharges: (chargeId: string)
   const guide = new OrderGuide(orders, deps.clock, deps.config.site.clubName, deps.config.clubTimeZone);
   const receipts = new ReceiptService(settings, deps.config.site.teamName, deps.config.clubTimeZone);
   const checkout = new CheckoutService(deps.db, orders, quotes, deps.payments, settings, deps.clock, links, deps.config.site.teamName, deps.log, receipts, guide);
-  const fulfilment = new FulfilmentService(deps.db, orders, deps.clock, links);
+  const fulfilment = new FulfilmentService(deps.db, orders, deps.clock, links, deps.config.site.teamName);
   const refundRepo = new RefundRepository(deps.db);
-  const refunds = new RefundService(deps.db, orders, refundRepo, deps.payments, deps.clock, deps.log);
+  const refunds = new RefundService(deps.db, orders, refundRepo, deps.payments, deps.clock, deps.log, deps.config.site.teamName);
   const webhooks = new WebhookService(deps.db, orders, refunds, settings, deps.clock, otherCharges);
   const pub = { catalogue, quotes, checkout, orders, config, receipts, links, guide, throttle: new PaymentThrottle(deps.db), now: () => deps.clock.now() };
   const admin = { catalogue, fulfilment, refunds, refundRepo, orders, config, settings, timeZone: deps.config.clubTimeZone };

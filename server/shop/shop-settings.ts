@@ -24,6 +24,8 @@ export const ShopSettingsSchema = z.object({
   minimumPerDesign: z.number({ error: 'Enter a number.' }).int('Whole pieces only.').min(0, 'At least 0.').max(5000, 'At most 5000.'),
   /** Where staff notices (disputes) go. */
   staffEmail: z.string().trim().max(254).pipe(z.email({ error: 'Enter a valid e-mail address.' })),
+  /** The carrier the ship form starts with; empty = staff type it each time. */
+  carrier: z.string().trim().max(60, 'At most 60 characters.').default(''),
 });
 
 export type ShopSettings = z.infer<typeof ShopSettingsSchema>;
@@ -33,7 +35,8 @@ export type ShopSettings = z.infer<typeof ShopSettingsSchema>;
  * GST/HST and Manitoba RST only, 10% member discount. Provincial tax on shipping: from memory (Manitoba RST and
  * Quebec QST on delivery charged by the seller; B.C. and Saskatchewan likewise): confirm with each province.
  * Spares 5%, packs of 6 and 12 pieces a design: common practice, no source. Seller name and registration numbers
- * start empty (receipts then name the team and print no number); the demo seed fills in invented ones.
+ * start empty (receipts then name the team and print no number); the demo seed fills in invented ones. The carrier
+ * starts empty: Padside names no shipping company.
  */
 export const SHOP_SETTINGS = defineSetting<ShopSettings>('shop', ShopSettingsSchema, {
   sellerProvince: 'MB',
@@ -48,4 +51,5 @@ export const SHOP_SETTINGS = defineSetting<ShopSettings>('shop', ShopSettingsSch
   packMultiple: 6,
   minimumPerDesign: 12,
   staffEmail: 'treasurer@padside.test',
+  carrier: '',
 });

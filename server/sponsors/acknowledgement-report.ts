@@ -1,10 +1,10 @@
-import PDFDocument from 'pdfkit';
 import { isoDateInZone } from '../../contracts/dates/club-dates';
 import { DELIVERABLE_KIND_LABELS } from '../../contracts/labels/deliverable-kinds';
 import { labelOf } from '../../contracts/labels/label-of';
 import { centsToDecimal, inDateOrder, toCsv, zonedHeader } from '../platform/csv';
 import { formatCad } from '../platform/money';
-import type { AgreementView, CreditView, SponsorView } from './sponsor-service';
+import { newPdf } from '../platform/pdf-document';
+import type { AgreementView, CreditView, SponsorView } from './sponsor-views';
 
 /** What the report says about itself, in Padside's words; the PDF and the CSV carry the same sentence. */
 const notAReceipt = (teamName: string) =>
@@ -33,29 +33,31 @@ export function acknowledgementCsv(r: ReportData): string {
   return toCsv(['Line', 'Season', 'Item', 'Declared value (CAD)', zonedHeader('Date', r.timeZone), 'Title or note', 'Link'], [...inDateOrder(rows, (row) => row[4] as string | null), note]);
 }
 
-/** The acknowledgement report as a PDF (pdfkit's built-in Helvetica, so no font files are needed). */
-export function acknowledgementPdf(r: ReportData): Promise<Buffer> {
-  const doc = new PDFDocument({ size: 'LETTER', margin: 56, info: { Title: `Sponsor acknowledgement — ${r.sponsor.name}`, Author: 'Padside' } });
-  const chunks: Buffer[] = [];
-  doc.on('data', (c: Buffer) => chunks.push(c));
-  const done = new Promise<Buffer>((resolve) => doc.on('end', () => resolve(Buffer.concat(chunks))));
+/** The cash line the PDF prints; the portal shows the same figures (`cashReceivedCents`, `cashReceivedOn`). */
+export function cashLine(a: Pick<AgreementView, 'cashCents' | 'cashReceivedCents' | 'cashReceivedOn'>): string {
+  return `Cash received: ${formatCad(a.cashReceivedCents)} of ${formatCad(a.cashCents)}${a.cashReceivedOn ? ` (received ${a.cashReceivedOn})` : ' (not received yet)'}`;
+}
 
-  doc.font('Helvetica-Bold').fontSize(18).text('Sponsor acknowledgement');
-  doc.font('Helvetica').fontSize(11).text(`${r.sponsor.name} · prepared by Padside for ${r.teamName} · ${r.generatedOn}`);
+/** The acknowledgement report as a PDF, in DejaVu Sans so every name prints as typed. */
+export function acknowledgementPdf(r: ReportData): Promise<Buffer> {
+  const { doc, done } = newPdf(`Sponsor acknowledgement — ${r.sponsor.name}`);
+
+  doc.font('bold').fontSize(18).text('Sponsor acknowledgement');
+  doc.font('body').fontSize(11).text(`${r.sponsor.name} · prepared by Padside for ${r.teamName} · ${r.generatedOn}`);
   doc.moveDown();
-  doc.font('Helvetica-Oblique').fontSize(10).text(notAReceipt(r.teamName));
+  doc.font('italic').fontSize(10).text(notAReceipt(r.teamName));
   doc.moveDown();
   for (const a of r.agreements) {
-    doc.font('Helvetica-Bold').fontSize(13).text(`Season ${a.season}`);
-    doc.font('Helvetica').fontSize(10);
-    if (a.cashCents) doc.text(`Cash: ${formatCad(a.cashCents)}${a.cashReceivedOn ? ` (received ${a.cashReceivedOn})` : ' (not yet received)'}`);
+    doc.font('bold').fontSize(13).text(`Season ${a.season}`);
+    doc.font('body').fontSize(10);
+    if (a.cashCents) doc.text(cashLine(a));
     for (const i of a.inKind) doc.text(`In-kind: ${i.description}, declared value ${formatCad(i.valueCents)}${i.receivedOn ? ` (received ${i.receivedOn})` : ''}`);
     doc.text(`Declared total: ${formatCad(a.totalCents)}`);
     for (const k of a.byKind) doc.text(`${labelOf(DELIVERABLE_KIND_LABELS, k.kind)}: ${k.delivered} of ${k.promised} delivered`);
     doc.moveDown(0.5);
   }
-  doc.font('Helvetica-Bold').fontSize(13).text('Credits delivered');
-  doc.font('Helvetica').fontSize(10);
+  doc.font('bold').fontSize(13).text('Credits delivered');
+  doc.font('body').fontSize(10);
   if (!r.credits.length) doc.text('No credits yet.');
   for (const c of r.credits) doc.text(`${isoDateInZone(c.at, r.timeZone)} · ${labelOf(DELIVERABLE_KIND_LABELS, c.kind)} · ${c.postTitle ?? c.note ?? ''}${c.url ? ` · ${c.url}` : ''}`);
   doc.end();

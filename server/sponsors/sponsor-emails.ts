@@ -5,9 +5,9 @@ export function creditPublishedEmail(to: string, contactName: string, sponsorNam
   return {
     to,
     template: 'sponsor-credit-published',
-    subject: `${sponsorName} is credited in a new Padside build log`,
+    subject: `${sponsorName} is credited in a new ${teamName} build log`,
     text:
       `Hi ${contactName},\n\nThank you for backing ${teamName}. Our new build log "${postTitle}" credits ${sponsorName}:\n\n${link}\n\n` +
-      `Every credit we have delivered under your agreement is listed in the sponsor portal, with a report you can download:\n\n${portalLink}\n\n— Padside`,
+      `Every credit we have delivered under your agreement is listed in the sponsor portal, with a report you can download:\n\n${portalLink}\n\n— ${teamName}`,
   };
 }

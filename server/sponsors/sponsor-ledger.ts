@@ -9,6 +9,8 @@ export interface DeliverableInput {
   dueOn: string;
   /** Live (not withdrawn) credits recorded against it. */
   delivered: number;
+  /** True when the sponsor stands on the public sponsors page now and this promise is of the season shown there. */
+  listedNow?: boolean;
 }
 
 export interface DeliverableLine {
@@ -18,6 +20,8 @@ export interface DeliverableLine {
   delivered: number;
   dueOn: string;
   overdue: boolean;
+  /** A sponsors-page listing delivered by the sponsor standing on the public page now, not by a recorded credit. */
+  listedNow: boolean;
 }
 
 export interface KindSummary {
@@ -26,11 +30,19 @@ export interface KindSummary {
   delivered: number;
 }
 
-/** Overdue: due before today and still short of what was promised. A deliverable due today is not overdue yet. */
+/**
+ * Overdue: due before today and still short of what was promised. A deliverable due today is not overdue yet.
+ * A sponsors-page listing is delivered while it stands: when the sponsor is on the public page now, the promise
+ * of the season shown there counts in full, whatever was recorded by hand.
+ */
 export function ledgerLines(deliverables: readonly DeliverableInput[], today: string): DeliverableLine[] {
   return [...deliverables]
     .sort((a, b) => a.dueOn.localeCompare(b.dueOn) || a.id - b.id)
-    .map((d) => ({ id: d.id, kind: d.kind, promised: d.quantity, delivered: d.delivered, dueOn: d.dueOn, overdue: d.delivered < d.quantity && d.dueOn < today }));
+    .map((d) => {
+      const listedNow = d.kind === 'sponsors_page' && d.listedNow === true;
+      const delivered = listedNow ? Math.max(d.delivered, d.quantity) : d.delivered;
+      return { id: d.id, kind: d.kind, promised: d.quantity, delivered, dueOn: d.dueOn, overdue: delivered < d.quantity && d.dueOn < today, listedNow };
+    });
 }
 
 /** Promised vs delivered per kind, in the order of DELIVERABLE_KINDS, only kinds that were promised. */

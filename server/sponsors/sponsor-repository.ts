@@ -42,6 +42,7 @@ export interface DeliverableRow {
   quantity: number;
   due_on: string;
   delivered: string;
+  season: string;
 }
 
 export interface CreditRow {
@@ -178,6 +179,7 @@ export class SponsorRepository {
         'd.id',
         'd.agreement_id',
         'a.sponsor_id',
+        'a.season',
         'd.kind',
         'd.quantity',
         trx.raw("to_char(d.due_on, 'YYYY-MM-DD') as due_on"),

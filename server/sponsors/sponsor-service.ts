@@ -6,11 +6,12 @@ import { AppError, badRequest, conflict, notFound } from '../platform/app-error'
 import type { SettingsService } from '../settings/settings-service';
 import type { Province } from '../shop/tax';
 import type { CreditService } from './credit-service';
-import { ledgerLines, nextDue, summaryByKind, type DeliverableKind, type DeliverableLine, type KindSummary } from './sponsor-ledger';
-import type { AgreementRow, CreditRow, SponsorRepository, SponsorRow } from './sponsor-repository';
+import { ledgerLines, nextDue, summaryByKind, type DeliverableKind } from './sponsor-ledger';
+import type { AgreementRow, SponsorRepository } from './sponsor-repository';
 import type { TaxTreatment } from './sponsor-tax';
 import type { SponsorTaxService } from './sponsor-tax-service';
 import { seasonOf, SPONSOR_TIERS, tierFor, type Tier } from './sponsor-tiers';
+import { toCredit, toInput, toView, type AgreementView, type CreditView, type SponsorView } from './sponsor-views';
 
 export interface SponsorInput {
   name: string;
@@ -29,58 +30,6 @@ export interface AgreementInput {
   inKind?: { description: string; valueCents: number; receivedOn?: string | null }[];
   deliverables: { kind: DeliverableKind; quantity: number; dueOn: string }[];
 }
-
-export interface AgreementView {
-  id: number;
-  season: string;
-  cashCents: number;
-  cashReceivedOn: string | null;
-  taxTreatment: TaxTreatment;
-  taxProvince: string | null;
-  inKind: { id: number; description: string; valueCents: number; receivedOn: string | null }[];
-  inKindCents: number;
-  totalCents: number;
-  note: string | null;
-  deliverables: DeliverableLine[];
-  byKind: KindSummary[];
-  overdue: DeliverableLine[];
-  nextDue: DeliverableLine | null;
-}
-
-export interface CreditView {
-  id: number;
-  kind: DeliverableKind;
-  url: string | null;
-  at: string;
-  postSlug: string | null;
-  postTitle: string | null;
-  videoTimestamp: string | null;
-  note: string | null;
-  counted: boolean;
-}
-
-export interface SponsorView {
-  id: number;
-  slug: string;
-  name: string;
-  website: string | null;
-  blurb: string | null;
-  logoUrl: string | null;
-}
-
-const toView = (s: SponsorRow): SponsorView => ({ id: Number(s.id), slug: s.slug, name: s.name, website: s.website, blurb: s.blurb, logoUrl: s.logo_url });
-
-const toCredit = (c: CreditRow): CreditView => ({
-  id: Number(c.id),
-  kind: c.kind,
-  url: c.url,
-  at: c.credited_at.toISOString(),
-  postSlug: c.post_slug,
-  postTitle: c.post_title,
-  videoTimestamp: c.video_timestamp,
-  note: c.note,
-  counted: c.deliverable_id !== null,
-});
 
 /** Sponsors, agreements, the ledger, tiers and the portal's view; no HTTP here. */
 export class SponsorService {
@@ -161,19 +110,17 @@ export class SponsorService {
   async agreements(sponsorId: number, today: string): Promise<AgreementView[]> {
     const rows = await this.repo.agreements(sponsorId);
     const ids = rows.map((a) => Number(a.id));
-    const [inKind, deliverables] = await Promise.all([this.repo.inKind(ids), this.repo.deliverables(sponsorId)]);
+    const [inKind, deliverables, listed] = await Promise.all([this.repo.inKind(ids), this.repo.deliverables(sponsorId), this.listedNow(today)]);
     return rows.map((a) => {
       const items = inKind.filter((i) => i.agreement_id === a.id).map((i) => ({ id: Number(i.id), description: i.description, valueCents: Number(i.value_cents), receivedOn: i.received_on }));
-      const lines = ledgerLines(
-        deliverables.filter((d) => d.agreement_id === a.id).map((d) => ({ id: Number(d.id), kind: d.kind, quantity: d.quantity, dueOn: d.due_on, delivered: Number(d.delivered) })),
-        today,
-      );
+      const lines = ledgerLines(deliverables.filter((d) => d.agreement_id === a.id).map((d) => toInput(d, listed, seasonOf(today))), today);
       const inKindCents = items.reduce((s, i) => s + i.valueCents, 0);
       return {
         id: Number(a.id),
         season: a.season,
         cashCents: Number(a.cash_cents),
         cashReceivedOn: a.cash_received_on,
+        cashReceivedCents: a.cash_received_on !== null ? Number(a.cash_cents) : 0,
         taxTreatment: a.tax_treatment,
         taxProvince: a.tax_province,
         inKind: items,
@@ -222,6 +169,11 @@ export class SponsorService {
 
   setTiers(value: { tiers: Tier[] }): Promise<{ tiers: Tier[] }> {
     return this.settings.put(SPONSOR_TIERS, { tiers: [...value.tiers].sort((a, b) => a.minCents - b.minCents) });
+  }
+
+  /** The sponsors the public page lists now: those holding a tier this season. */
+  private async listedNow(today: string): Promise<Set<number>> {
+    return new Set((await this.withTiers(today)).filter((s) => s.tier !== null).map((s) => s.id));
   }
 
   /** Every sponsor with the tier its current-season total reaches (null without an agreement this season). */
@@ -276,9 +228,9 @@ export class SponsorService {
 
   /** Overdue deliverables across every sponsor, for the staff dashboard card. */
   async overdue(today: string): Promise<{ sponsorId: number; sponsorName: string; agreementId: number; kind: DeliverableKind; promised: number; delivered: number; dueOn: string }[]> {
-    const [rows, sponsors] = await Promise.all([this.repo.deliverables(null), this.repo.all()]);
+    const [rows, sponsors, listed] = await Promise.all([this.repo.deliverables(null), this.repo.all(), this.listedNow(today)]);
     const names = new Map(sponsors.map((s) => [Number(s.id), s.name]));
-    return ledgerLines(rows.map((d) => ({ id: Number(d.id), kind: d.kind, quantity: d.quantity, dueOn: d.due_on, delivered: Number(d.delivered) })), today)
+    return ledgerLines(rows.map((d) => toInput(d, listed, seasonOf(today))), today)
       .filter((l) => l.overdue)
       .map((l) => {
         const d = rows.find((r) => Number(r.id) === l.id)!;

@@ -1,5 +1,5 @@
 import type { Role } from '../platform/roles';
-import type { AgreementView } from './sponsor-service';
+import type { AgreementView } from './sponsor-views';
 
 /** The roles that see what a sponsor gives (cash, declared in-kind values) and how to reach its contacts. */
 export const SPONSOR_MONEY_ROLES: readonly Role[] = ['treasurer', 'admin'];

@@ -127,7 +127,7 @@ describe('two server processes on one database and one object store', () => {
     const photo = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 200, g: Date.now() % 256, b: 40 } } }).jpeg().toBuffer();
     const uploaded = await editor.post('/api/admin/uploads').set('X-CSRF-Token', token).attach('file', photo, { filename: 'nose-cone.jpg', contentType: 'image/jpeg' });
     expect(uploaded.status).toBe(201);
-    const sponsor = await editor.post('/api/admin/sponsors').set('X-CSRF-Token', token).send({ name: `Prairie Filament Supply ${unique}` });
+    const sponsor = await editor.post('/api/admin/sponsors').set('X-CSRF-Token', token).send({ name: `Filamoose Supply ${unique}` });
     expect(sponsor.status).toBe(201);
     const post = await editor
       .post('/api/admin/posts')
@@ -141,7 +141,7 @@ describe('two server processes on one database and one object store', () => {
     expect(page.status).toBe(200);
     expect(page.body.coverUrl).toBe(uploaded.body.url);
     expect(page.body.html).toContain(`src="${uploaded.body.url}"`);
-    expect(page.body.credits.map((c: { name: string }) => c.name)).toEqual([`Prairie Filament Supply ${unique}`]);
+    expect(page.body.credits.map((c: { name: string }) => c.name)).toEqual([`Filamoose Supply ${unique}`]);
     for (const url of [uploaded.body.url, uploaded.body.thumbnailUrl]) {
       const image = await visitor.get(url).buffer(true);
       expect(image.status).toBe(200);

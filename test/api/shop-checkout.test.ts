@@ -109,7 +109,7 @@ describe('POST /api/orders', () => {
       expect((await c.get(`/api/orders/${res.body.order.id}`)).status).toBe(200);
       expect((await new Client(t.app).get(`/api/orders/${res.body.order.id}`)).status).toBe(404);
       await t.deps.mail.deliverDue();
-      const [mail] = await waitForEmails(email, /Padside order PS-/);
+      const [mail] = await waitForEmails(email, /Thrust & Filament order PS-/);
       expect(mail.text).toContain('Total: $88.48');
       expect(mail.text).toContain('GST 5%: $3.95');
       expect(mail.text).toContain('RST 7%: $5.53');

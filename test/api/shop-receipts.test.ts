@@ -30,7 +30,7 @@ const buy = async (quantity: number) => {
   const res = await c.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada'), email, paymentToken: 'tok_visa' });
   expect(res.status).toBe(201);
   await t.deps.mail.deliverDue();
-  const [mail] = await waitForEmails(email, /Padside order PS-/);
+  const [mail] = await waitForEmails(email, /Thrust & Filament order PS-/);
   return { order: res.body.order, mail, c };
 };
 

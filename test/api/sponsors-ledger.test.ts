@@ -143,7 +143,7 @@ describe('GET /api/admin/sponsors/:id/ledger.csv', () => {
 
 describe('POST /api/admin/sponsors/:id/credits', () => {
   it('records a video mention by hand against the open deliverable', async () => {
-    const s = await sponsorWithAgreement('Handheld Hobbies', 1, '2026-12-31');
+    const s = await sponsorWithAgreement('Hobblewick Hobbies', 1, '2026-12-31');
     const res = await editor.post(`/api/admin/sponsors/${s.id}/credits`, { kind: 'video_mention', url: 'https://video.example.test/watch/abc', videoTimestamp: '4:35', note: 'Shout-out at the pad' });
     expect(res.status).toBe(201);
     expect(res.body.counted).toBe(true);

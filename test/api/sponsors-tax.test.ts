@@ -53,7 +53,7 @@ describe('sponsor agreements taxed as promotion or gift', () => {
   });
 
   it('charges GST only for a Manitoba sponsor (CRA rate page: 5%; no RST on the promotion)', async () => {
-    const mb = await agreement('Prairie Promo', { cashCents: 20_000, taxTreatment: 'promotion', taxProvince: 'MB' });
+    const mb = await agreement('Promoozle Promo', { cashCents: 20_000, taxTreatment: 'promotion', taxProvince: 'MB' });
     await treasurer.post(`/api/admin/sponsors/agreements/${mb.res.body.id}/cash-received`, { receivedOn: '2033-03-10', method: 'cash' });
     const mv = await t.deps.db('money_movements').where({ kind: 'sponsor_cash', reference: String(mb.res.body.id) }).first();
     expect(Number(mv.gross_cents)).toBe(21_000);

@@ -14,14 +14,14 @@ let sponsorId: number;
 let sponsorSlug: string;
 let contact: TestUser;
 const stamp = Date.now().toString(36);
-const sponsorName = `Prairie Volt Electronics ${stamp}`;
+const sponsorName = `Voltwhistle Electronics ${stamp}`;
 
 beforeAll(async () => {
   t = buildTestApp();
   site = await serve(t);
   browser = await launchBrowser();
   admin = (await signedIn(t.app, t.deps.db, ['fan', 'admin'])).client;
-  const created = await admin.post('/api/admin/sponsors', { name: sponsorName, website: 'https://prairie-volt.example', blurb: 'Switches, wire and advice on Main Street.' });
+  const created = await admin.post('/api/admin/sponsors', { name: sponsorName, website: 'https://voltwhistle.example', blurb: 'Switches, wire and advice on Main Street.' });
   sponsorId = created.body.id;
   sponsorSlug = created.body.slug;
   await admin.post(`/api/admin/sponsors/${sponsorId}/agreements`, { season: String(new Date().getFullYear()), cashCents: 40_000, deliverables: [{ kind: 'build_log_credit', quantity: 2, dueOn: `${new Date().getFullYear() + 1}-06-30` }] });
@@ -68,9 +68,12 @@ describe('build logs and sponsor credits in a browser', () => {
     await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
     await page.waitForFunction(() => /!\[Describe the picture\]\(\/uploads\/[a-z0-9-]+\.png\)/.test((document.querySelector('textarea.mono') as HTMLTextAreaElement).value));
 
-    await page.getByLabel('Sponsor to thank').click();
+    await page.getByRole('button', { name: 'Thank a sponsor…' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Thank a sponsor' });
+    await dialog.getByLabel('Sponsor').click();
     await page.getByRole('option', { name: sponsorName }).click();
-    await page.getByRole('button', { name: 'Insert thank-you card' }).click();
+    await dialog.getByRole('button', { name: 'Insert thank-you card' }).click();
+    await dialog.waitFor({ state: 'detached' });
     const preview = page.getByRole('region', { name: 'Preview' });
     await preview.getByText('With thanks to').waitFor();
     await preview.getByText(sponsorName).waitFor();
@@ -93,7 +96,7 @@ describe('build logs and sponsor credits in a browser', () => {
     await page.close();
 
     await t.deps.mail.deliverDue();
-    const mails = await waitForEmails(contact.email, /credited in a new Padside build log/);
+    const mails = await waitForEmails(contact.email, /credited in a new Thrust & Filament build log/);
     expect(mails).toHaveLength(1);
     expect(mails[0].text).toContain(`/build-logs/${slug}`);
   });

@@ -67,9 +67,12 @@ describe('the merch shop in a browser', () => {
     await staffPage.getByLabel('Search e-mail or order number').fill(number);
     await staffPage.getByRole('link', { name: number }).click();
     await staffPage.getByRole('heading', { name: `Order ${number}` }).waitFor();
+    // The carrier is a shop setting, blank unless staff chose one: Padside names no shipping company.
+    expect(await staffPage.getByLabel('Carrier').inputValue()).toBe('');
+    await staffPage.getByLabel('Carrier').fill('Gopherline Courier');
     await staffPage.getByLabel('Tracking number').fill('7023 4455 6677');
     await staffPage.getByRole('button', { name: 'Mark shipped' }).click();
-    await staffPage.getByText(/with Canada Post, tracking 7023 4455 6677/).waitFor();
+    await staffPage.getByText(/with Gopherline Courier, tracking 7023 4455 6677/).waitFor();
     await screenshot(staffPage, 'shop-console-order-shipped');
     await waitForEmails(fan.email, /on its way/, 1, 15_000);
     await staffPage.goto(`${site.baseUrl}/console/runs/${shirt.run.id}/print-sheet`);

@@ -5,13 +5,13 @@ const production = {
   SESSION_SECRET: 'x'.repeat(40),
   STRIPE_WEBHOOK_SECRET: 'whsec_real_one',
   TEAM_NAME: 'Nozzle & Nylon',
-  CLUB_NAME: 'Prairie Sky Rocketry Club',
+  CLUB_NAME: 'Skywhomp Rocketry Club',
   DATA_DIR: '/tmp/padside-config-test',
 };
 
 describe('loadConfig in production', () => {
   it('takes the team and club names from the environment', () => {
-    expect(loadConfig(production).site).toEqual({ teamName: 'Nozzle & Nylon', clubName: 'Prairie Sky Rocketry Club' });
+    expect(loadConfig(production).site).toEqual({ teamName: 'Nozzle & Nylon', clubName: 'Skywhomp Rocketry Club' });
   });
 
   // A real team never ships under the demo scenario's names.

@@ -162,9 +162,9 @@ describe('the Markdown sanitizer against attack strings', () => {
 
 describe('the credit marker', () => {
   it('renders a card with the sponsor name and escapes the note', () => {
-    const html = renderMarkdown('%thanks prairie-volt-electronics | parts & <b>advice</b>\n', { sponsorNames: new Map([['prairie-volt-electronics', 'Prairie Volt Electronics']]) });
+    const html = renderMarkdown('%thanks voltwhistle-electronics | parts & <b>advice</b>\n', { sponsorNames: new Map([['voltwhistle-electronics', 'Voltwhistle Electronics']]) });
     expect(html).toBe(
-      '<aside class="ps-credit" data-sponsor="prairie-volt-electronics"><span class="ps-credit-label">With thanks to</span><div class="ps-credit-body"><strong>Prairie Volt Electronics</strong> — parts &amp; &lt;b&gt;advice&lt;/b&gt;</div></aside>\n',
+      '<aside class="ps-credit" data-sponsor="voltwhistle-electronics"><span class="ps-credit-label">With thanks to</span><div class="ps-credit-body"><strong>Voltwhistle Electronics</strong> — parts &amp; &lt;b&gt;advice&lt;/b&gt;</div></aside>\n',
     );
   });
 

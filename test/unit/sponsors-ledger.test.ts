@@ -63,7 +63,7 @@ describe('needsHazardNotice', () => {
 
 describe('slugify', () => {
   it('makes readable ASCII slugs and unique ones', () => {
-    expect(slugify('Loonie Loop Filament Co.')).toBe('loonie-loop-filament-co');
+    expect(slugify('Spoolgoblin Filament Co.')).toBe('spoolgoblin-filament-co');
     expect(slugify('Thrust & Filament: Crème brûlée')).toBe('thrust-and-filament-creme-brulee');
     expect(slugify('!!!')).toBe('untitled');
     expect(uniqueSlug('a', new Set(['a', 'a-2']))).toBe('a-3');

@@ -1,6 +1,6 @@
 import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import { Observable } from 'rxjs';
+import { Observable, map } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
 import type { Role, User } from '../core/user';
 
@@ -10,10 +10,23 @@ export interface SignInLock {
   locked: boolean;
 }
 
+/** An account as admins see it. */
+export type AdminUser = User & { disabledAt: string | null; deletedAt: string | null };
+
 export interface UserPage {
   /** `deletedAt`: the owner deleted the account; the row stays (orders and dues point at it) under a neutral name. */
-  items: (User & { createdAt: string; deletedAt: string | null; signIn: SignInLock })[];
+  items: (AdminUser & { createdAt: string; signIn: SignInLock })[];
   total: number;
+}
+
+/** One change of an account's roles or state. */
+export interface AccountChange {
+  id: number;
+  kind: 'roles' | 'disabled' | 'enabled';
+  added: Role[];
+  removed: Role[];
+  at: string;
+  by: { id: number; name: string } | null;
 }
 
 /** Accounts and roles (admin only). */
@@ -21,9 +34,11 @@ export interface UserPage {
 export class UserAdminApi {
   private readonly http = inject(HttpClient);
 
-  list(query: { q?: string; page: number; pageSize: number }): Observable<UserPage> {
+  list(query: { q?: string; role?: Role; state?: 'active' | 'disabled'; page: number; pageSize: number }): Observable<UserPage> {
     let params = new HttpParams().set('page', query.page).set('pageSize', query.pageSize);
     if (query.q) params = params.set('q', query.q);
+    if (query.role) params = params.set('role', query.role);
+    if (query.state) params = params.set('state', query.state);
     return this.http.get<UserPage>('/api/admin/users', { params });
   }
 
@@ -31,7 +46,15 @@ export class UserAdminApi {
     return this.http.delete<void>(`/api/admin/users/${id}/sign-in-lock`);
   }
 
-  setRoles(id: number, roles: Role[]): Observable<{ user: User }> {
-    return this.http.patch<{ user: User }>(`/api/admin/users/${id}`, { roles }, { context: new HttpContext().set(QUIET_ERRORS, false) });
+  setRoles(id: number, roles: Role[]): Observable<{ user: AdminUser }> {
+    return this.http.patch<{ user: AdminUser }>(`/api/admin/users/${id}`, { roles }, { context: new HttpContext().set(QUIET_ERRORS, false) });
+  }
+
+  setDisabled(id: number, disabled: boolean): Observable<{ user: AdminUser }> {
+    return this.http.post<{ user: AdminUser }>(`/api/admin/users/${id}/${disabled ? 'disable' : 'enable'}`, {});
+  }
+
+  history(id: number): Observable<AccountChange[]> {
+    return this.http.get<{ items: AccountChange[] }>(`/api/admin/users/${id}/history`).pipe(map((r) => r.items));
   }
 }

@@ -5,6 +5,9 @@ import { UserList } from './user-list';
 
 const row = (id: number, signIn: { failures: number; locked: boolean }) => ({ id, email: `u${id}@example.test`, displayName: `User ${id}`, roles: ['fan'], emailVerified: true, createdAt: '2026-12-01T00:00:00Z', deletedAt: null, signIn });
 
+// The first render compiles Material's table, select, toggles and dialog; on a busy two-core machine that alone can pass jest's 5 s.
+jest.setTimeout(30_000);
+
 describe('UserList', () => {
   beforeEach(() => TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] }));
 

@@ -5,6 +5,7 @@ import { Router, RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { SiteNames } from '../core/site-names';
 import { EmptyState } from '../shared/empty-state';
 import { BuildLogApi } from './build-log-api';
 import { PageMeta } from '../core/page-meta';
@@ -26,6 +27,7 @@ export class PostList {
 
   private readonly api = inject(BuildLogApi);
   private readonly router = inject(Router);
+  protected readonly site = inject(SiteNames);
 
   readonly tag = input<string>();
   readonly page = input<string>();

@@ -3,6 +3,7 @@ import { rxResource } from '@angular/core/rxjs-interop';
 import { RouterLink } from '@angular/router';
 import { MatCardModule } from '@angular/material/card';
 import { MatChipsModule } from '@angular/material/chips';
+import { SiteNames } from '../core/site-names';
 import { EmptyState } from '../shared/empty-state';
 import { MoneyPipe } from '../shared/money-pipe';
 import { RUN_STATE_LABELS, timeLeft } from './countdown';
@@ -23,6 +24,7 @@ export class ProductGrid {
   }
 
   private readonly api = inject(ShopApi);
+  protected readonly site = inject(SiteNames);
   protected readonly products = rxResource({ stream: () => this.api.products() });
   protected readonly stateLabel = RUN_STATE_LABELS;
   protected readonly now = Date.now();

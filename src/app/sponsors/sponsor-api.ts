@@ -25,6 +25,8 @@ export interface DeliverableLine {
   delivered: number;
   dueOn: string;
   overdue: boolean;
+  /** A sponsors-page listing delivered by the sponsor standing on the public page now. */
+  listedNow: boolean;
 }
 
 export interface Agreement {
@@ -32,6 +34,8 @@ export interface Agreement {
   season: string;
   cashCents: number;
   cashReceivedOn: string | null;
+  /** The promised cash once staff recorded it as received, else 0; the PDF report prints the same. */
+  cashReceivedCents: number;
   /** promotion: taxed at the sponsor province's GST/HST; gift: no tax. */
   taxTreatment?: 'promotion' | 'gift';
   taxProvince?: string | null;

@@ -8,7 +8,7 @@ const claimed: CheckInResult = {
   name: 'Wren Okonkwo',
   mayFly: false,
   termEnd: '2028-12-31',
-  associationName: 'the Prairie Rocketry Association',
+  associationName: 'the Sprocketeer Rocketry Association',
   dues: { answer: 'current', termEnd: '2028-12-31' },
   association: { answer: 'claimed', number: 'NA-31337', expires: '2099-12-31', verified: null },
   certification: { answer: 'claimed', level: 'L3', label: 'Level 3', verified: null },

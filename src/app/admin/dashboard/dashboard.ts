@@ -18,6 +18,7 @@ import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { LabelPipe } from '../../shared/label-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { BooksApi } from '../books/books-api';
+import { EditorOverview } from './editor-overview';
 
 const SOURCES = [
   { key: 'merch', label: MOVEMENT_SOURCE_LABELS.merch, colour: '#376286' },
@@ -29,7 +30,7 @@ const STATUS_COLOURS: Record<string, string> = { active: '#376286', lapsing: '#e
 /** The console's overview: today's numbers as cards, each linking to the table behind it, and three charts. */
 @Component({
   selector: 'ps-dashboard',
-  imports: [RouterLink, DecimalPipe, MatCardModule, MatFormFieldModule, MatSelectModule, BaseChartDirective, MoneyPipe, ClubDatePipe, LabelPipe],
+  imports: [RouterLink, DecimalPipe, EditorOverview, MatCardModule, MatFormFieldModule, MatSelectModule, BaseChartDirective, MoneyPipe, ClubDatePipe, LabelPipe],
   providers: [provideCharts(withDefaultRegisterables())],
   templateUrl: './dashboard.html',
   styleUrl: './dashboard.scss',
@@ -42,6 +43,8 @@ export class Dashboard {
   protected readonly kindLabels = DELIVERABLE_KIND_LABELS;
   protected readonly runStateLabels = RUN_STATE_LABELS;
   protected readonly canSeeBooks = computed(() => this.session.hasAnyRole(['treasurer', 'admin']));
+  /** Editors see their drafts, scheduled posts and the sponsor credits owed. */
+  protected readonly isEditor = computed(() => this.session.hasAnyRole(['editor']));
   protected readonly data = rxResource({ params: () => this.canSeeBooks() || undefined, stream: () => this.api.dashboard() });
 
   protected readonly runs = rxResource({ params: () => this.canSeeBooks() || undefined, stream: () => this.api.runs() });

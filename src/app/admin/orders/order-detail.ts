@@ -38,9 +38,16 @@ export class OrderDetail {
   protected readonly refundOrigins = REFUND_ORIGIN_LABELS;
   /** The card processor's dispute reason code, as words. */
   protected readonly inWords = codeInWords;
-  protected readonly shipForm = this.fb.group({ carrier: ['Canada Post', Validators.required], trackingNumber: ['', Validators.required] });
+  protected readonly shipForm = this.fb.group({ carrier: ['', Validators.required], trackingNumber: ['', Validators.required] });
   protected readonly shipProblem = signal<string | null>(null);
   protected readonly busy = signal(false);
+
+  constructor() {
+    // The shop's usual carrier, when staff set one, fills the field unless someone already typed in it.
+    void firstValueFrom(this.api.settings()).then((s) => {
+      if (s.carrier && !this.shipForm.controls.carrier.dirty) this.shipForm.controls.carrier.setValue(s.carrier);
+    });
+  }
 
   protected async pack(): Promise<void> {
     await this.run(() => firstValueFrom(this.api.pack(this.id())), 'Marked packed.');

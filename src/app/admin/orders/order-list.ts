@@ -20,7 +20,7 @@ import { ShopAdminApi, type OrderQuery } from './shop-admin-api';
   selector: 'ps-order-list',
   imports: [ClubDatePipe, FormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatSelectModule, MatSortModule, MatTableModule, MoneyPipe, EmptyState],
   templateUrl: './order-list.html',
-  styles: `.ps-page { max-width: none; } .filters .search { min-width: 300px; } .filters { display: flex; gap: 12px; flex-wrap: wrap; align-items: center; } table { width: 100%; } .disputed { color: var(--mat-sys-error); font-weight: 600; }`,
+  styles: `.ps-page { max-width: none; } .filters .search { min-width: min(300px, 100%); } .table-card { overflow-x: auto; max-width: 100%; background: var(--mat-sys-surface); border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; } .table-card table { min-width: 720px; } .filters { display: flex; gap: 12px; flex-wrap: wrap; align-items: center; } table { width: 100%; } .disputed { color: var(--mat-sys-error); font-weight: 600; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class OrderList {

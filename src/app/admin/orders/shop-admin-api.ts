@@ -127,6 +127,8 @@ export interface ShopSettings {
   packMultiple: number;
   minimumPerDesign: number;
   staffEmail: string;
+  /** The carrier the ship form starts with; empty = none. */
+  carrier: string;
 }
 export interface StaffShippingMethod {
   id: number;

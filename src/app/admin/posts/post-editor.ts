@@ -5,7 +5,9 @@ import { DomSanitizer } from '@angular/platform-browser';
 import { Router, RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
@@ -16,13 +18,14 @@ import { POST_STATUS_LABELS } from '@contracts/labels/post-states';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { LabelPipe } from '../../shared/label-pipe';
 import { SponsorAdminApi } from '../sponsors/sponsor-admin-api';
+import { CreditDialog, type CreditDialogData } from './credit-dialog';
 import { ImageUpload } from './image-upload';
 import { PostAdminApi, type AdminPost, type PostStatus, type PostWrite } from './post-admin-api';
 
 /** Writes a build log: Markdown with the live preview from the server's pipeline, images, credits, schedule, publish. */
 @Component({
   selector: 'ps-post-editor',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, LabelPipe, ImageUpload, HazardNotice],
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, FieldErrorPipe, LabelPipe, ImageUpload, HazardNotice],
   templateUrl: './post-editor.html',
   styleUrl: './post-editor.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -34,6 +37,7 @@ export class PostEditor {
   private readonly snackBar = inject(MatSnackBar);
   protected readonly statusLabels = POST_STATUS_LABELS;
   private readonly dom = inject(DomSanitizer);
+  private readonly dialog = inject(MatDialog);
   private readonly body = viewChild<ElementRef<HTMLTextAreaElement>>('body');
 
   /** The post id from the route, or 'new'. */
@@ -50,7 +54,6 @@ export class PostEditor {
     hazardNotice: [false],
     publishAt: [''],
     credits: [[] as number[]],
-    pickCredit: [''],
   });
   protected readonly problem = signal<string | null>(null);
   protected readonly busy = signal(false);
@@ -99,10 +102,11 @@ export class PostEditor {
       });
   }
 
-  /** Puts Padside's credit marker on a line of its own at the cursor. */
-  protected insertCredit(): void {
-    const slug = this.form.controls.pickCredit.value;
-    if (slug) this.insertAtCursor(`\n%thanks ${slug} | \n`);
+  /** Asks which sponsor to thank (and the note), then puts the credit line on a line of its own at the cursor. */
+  protected async thankSponsor(): Promise<void> {
+    const data: CreditDialogData = { sponsors: this.sponsors.value()?.items ?? [] };
+    const line = await firstValueFrom(this.dialog.open<CreditDialog, CreditDialogData, string>(CreditDialog, { data, width: 'min(520px, 96vw)' }).afterClosed());
+    if (line) this.insertAtCursor(`\n${line}\n`);
   }
 
   protected insertImage(url: string): void {

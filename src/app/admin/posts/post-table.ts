@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, input, linkedSignal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { RouterLink } from '@angular/router';
@@ -14,6 +14,8 @@ import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { LabelPipe } from '../../shared/label-pipe';
 import { PostAdminApi, type PostStatus } from './post-admin-api';
+
+const STATUSES: readonly PostStatus[] = ['draft', 'scheduled', 'published'];
 
 /** Every post for editors, sorted and paged by the server. */
 @Component({
@@ -75,7 +77,9 @@ export class PostTable {
   protected readonly columns = ['title', 'status', 'published', 'updated'];
   protected readonly statusLabels = POST_STATUS_LABELS;
   protected readonly visibilityLabels = POST_VISIBILITY_LABELS;
-  protected readonly query = signal<{ q: string; status?: PostStatus; sort: 'updated' | 'title' | 'published'; dir: 'asc' | 'desc'; page: number; pageSize: number }>({ q: '', sort: 'updated', dir: 'desc', page: 1, pageSize: 25 });
+  /** `?status=draft` from a link (the overview's tiles); the toggle changes it from there. */
+  readonly status = input<PostStatus | undefined>();
+  protected readonly query = linkedSignal<{ q: string; status?: PostStatus; sort: 'updated' | 'title' | 'published'; dir: 'asc' | 'desc'; page: number; pageSize: number }>(() => ({ q: '', status: STATUSES.find((x) => x === this.status()), sort: 'updated', dir: 'desc', page: 1, pageSize: 25 }));
   protected readonly posts = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.list(params) });
 
   protected set(patch: { q?: string; status?: PostStatus }): void {

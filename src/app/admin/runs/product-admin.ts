@@ -17,13 +17,14 @@ import { RUN_STATE_LABELS } from '../../shop/countdown';
 import type { Product } from '../../shop/shop-types';
 import { ShopAdminApi } from '../orders/shop-admin-api';
 import { dollarsToCents } from '../../shared/dollars';
+import { MAX_PER_ORDER_VALIDATORS, MaxPerOrderField } from './max-per-order-field';
 
 /** Products for staff: the list, on/off sale, and a form for a new product with its sizes and optional limited run. */
 @Component({
   selector: 'ps-product-admin',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe],
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe, MaxPerOrderField],
   templateUrl: './product-admin.html',
-  styles: `.ps-page { max-width: none; } table { width: 100%; border-collapse: collapse; } th, td { text-align: left; padding: 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); } .grid { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 0 16px; } label.upload { margin-left: 8px; cursor: pointer; text-decoration: underline; } label.upload input { position: absolute; width: 1px; height: 1px; opacity: 0; } label.upload:focus-within { outline: 2px solid var(--ps-igniter); } fieldset { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; padding: 12px 16px; margin: 0 0 16px; }`,
+  styles: `.ps-page { max-width: none; } .table-scroll { overflow-x: auto; max-width: 100%; } table { width: 100%; border-collapse: collapse; } th, td { text-align: left; padding: 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); } .grid { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 0 16px; } label.upload { margin-left: 8px; cursor: pointer; text-decoration: underline; } label.upload input { position: absolute; width: 1px; height: 1px; opacity: 0; } label.upload:focus-within { outline: 2px solid var(--ps-igniter); } fieldset { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; padding: 12px 16px; margin: 0 0 16px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ProductAdmin {
@@ -40,12 +41,18 @@ export class ProductAdmin {
     description: [''],
     price: ['', [Validators.required, Validators.pattern(/^\d+(\.\d{1,2})?$/)]],
     weightGrams: [200, [Validators.required, Validators.min(1)]],
+    maxPerOrder: [20, MAX_PER_ORDER_VALIDATORS],
     sizes: ['S, M, L, XL', Validators.required],
     limited: [true],
     cap: [100, Validators.min(1)],
     opensAt: [''],
     closesAt: [''],
   });
+
+  protected limitSaved(name: string, limit: number): void {
+    this.snackBar.open(`${name}: at most ${limit} per order.`, undefined, { duration: 3000 });
+    this.products.reload();
+  }
 
   protected async setActive(p: Product & { active: boolean }, active: boolean): Promise<void> {
     await firstValueFrom(this.api.editProduct(p.id, { active }));
@@ -77,6 +84,7 @@ export class ProductAdmin {
       description: v.description,
       priceCents: dollarsToCents(v.price),
       weightGrams: Number(v.weightGrams),
+      maxPerOrder: Number(v.maxPerOrder),
       variants: v.sizes.split(',').map((s) => s.trim()).filter(Boolean).map((label) => ({ label, ...(v.limited ? {} : { stock: 0 }) })),
       ...(v.limited ? { run: { cap: Number(v.cap), opensAt: wallTimeToIso(v.opensAt, zone), closesAt: wallTimeToIso(v.closesAt, zone) } } : {}),
     };

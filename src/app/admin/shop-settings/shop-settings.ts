@@ -52,6 +52,7 @@ export class ShopSettingsPage {
     packMultiple: [6, [Validators.required, Validators.min(1)]],
     minimumPerDesign: [12, [Validators.required, Validators.min(0)]],
     staffEmail: ['', [Validators.required, Validators.email]],
+    carrier: ['', Validators.maxLength(60)],
   });
   protected readonly methods = signal<(StaffShippingMethod & { text: string; problem: string | null })[]>([]);
   protected readonly problem = signal<string | null>(null);
@@ -78,7 +79,7 @@ export class ShopSettingsPage {
           sellerProvince: v.sellerProvince, sellerName: v.sellerName, gstHstRegistered: v.gstHstRegistered, gstHstNumber: v.gstHstNumber, provincialRegistrations: v.provincialRegistrations,
           provincialTaxNumbers: taxNumbersFromForm({ BC: v.taxNumberBC, MB: v.taxNumberMB, QC: v.taxNumberQC, SK: v.taxNumberSK }),
           provincialTaxOnShipping: { BC: v.shippingBC, MB: v.shippingMB, QC: v.shippingQC, SK: v.shippingSK },
-          memberDiscountPercent: Number(v.memberDiscountPercent), sparesPercent: Number(v.sparesPercent), packMultiple: Number(v.packMultiple), minimumPerDesign: Number(v.minimumPerDesign), staffEmail: v.staffEmail,
+          memberDiscountPercent: Number(v.memberDiscountPercent), sparesPercent: Number(v.sparesPercent), packMultiple: Number(v.packMultiple), minimumPerDesign: Number(v.minimumPerDesign), staffEmail: v.staffEmail, carrier: v.carrier,
         }),
       );
       this.snackBar.open('Shop settings saved.', undefined, { duration: 3000 });

@@ -45,7 +45,7 @@ export interface OverdueItem {
   dueOn: string;
 }
 
-type MoneyField = 'cashCents' | 'cashReceivedOn' | 'inKind' | 'inKindCents' | 'totalCents' | 'note';
+type MoneyField = 'cashCents' | 'cashReceivedOn' | 'cashReceivedCents' | 'inKind' | 'inKindCents' | 'totalCents' | 'note';
 /** An agreement as staff get it: the money fields only for the treasurer and admin. */
 export type StaffAgreement = Omit<Agreement, MoneyField> & Partial<Pick<Agreement, MoneyField>>;
 

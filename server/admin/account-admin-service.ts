@@ -1,0 +1,88 @@
+import type { Knex } from 'knex';
+import { toSessionUser, type UserRepository } from '../auth/user-repository';
+import { badRequest, conflict, notFound } from '../platform/app-error';
+import type { Role, SessionUser } from '../platform/roles';
+import type { AccountChangeKind, AccountChangeRepository } from './account-change-repository';
+
+/** An account as admins see it: the session view plus whether it is disabled or was deleted by its owner. */
+export type AdminAccount = SessionUser & { disabledAt: string | null; deletedAt: string | null };
+
+/** One entry of an account's history. */
+export interface AccountChangeView {
+  id: number;
+  kind: AccountChangeKind;
+  added: Role[];
+  removed: Role[];
+  at: string;
+  by: { id: number; name: string } | null;
+}
+
+const HISTORY_LIMIT = 100;
+
+/** Roles, disabling and their history; each change and its history entry are written in one transaction. */
+export class AccountAdminService {
+  constructor(
+    private readonly db: Knex,
+    private readonly users: UserRepository,
+    private readonly changes: AccountChangeRepository,
+  ) {}
+
+  async setRoles(actorId: number, id: number, roles: readonly Role[]): Promise<AdminAccount> {
+    const wanted = [...new Set(roles)];
+    const next: Role[] = wanted.length ? wanted : ['fan'];
+    if (id === actorId && !next.includes('admin')) throw badRequest('You cannot remove your own admin role.', { roles: 'Keep admin on your own account.' });
+    return this.db.transaction(async (trx) => {
+      const before = await this.mustLock(trx, id);
+      const row = (await this.users.update(id, { roles: next }, trx))!;
+      if (!sameRoles(before.roles, next)) await this.changes.record(trx, { userId: id, changedBy: actorId, kind: 'roles', rolesBefore: before.roles, rolesAfter: next });
+      return adminView(row);
+    });
+  }
+
+  /** Disables the account and ends its sessions; disabling a disabled account changes nothing. */
+  async disable(actorId: number, id: number): Promise<AdminAccount> {
+    if (id === actorId) throw badRequest('You cannot disable your own account: the club would be left without the admin doing it.', { account: 'Ask another admin.' });
+    return this.setDisabled(actorId, id, true);
+  }
+
+  async enable(actorId: number, id: number): Promise<AdminAccount> {
+    return this.setDisabled(actorId, id, false);
+  }
+
+  async history(id: number): Promise<AccountChangeView[]> {
+    if (!(await this.users.byId(id))) throw notFound('No such user.');
+    return (await this.changes.history(id, HISTORY_LIMIT)).map((c) => ({
+      id: Number(c.id),
+      kind: c.kind,
+      added: c.roles_after.filter((r) => !c.roles_before.includes(r)),
+      removed: c.roles_before.filter((r) => !c.roles_after.includes(r)),
+      at: c.changed_at.toISOString(),
+      by: c.changed_by === null ? null : { id: Number(c.changed_by), name: c.changed_by_name ?? '' },
+    }));
+  }
+
+  private setDisabled(actorId: number, id: number, disabled: boolean): Promise<AdminAccount> {
+    return this.db.transaction(async (trx) => {
+      const before = await this.mustLock(trx, id);
+      if ((before.disabled_at !== null) === disabled) return adminView((await this.users.byId(id, trx))!);
+      const row = (await this.users.update(id, { disabled_at: disabled ? (trx.fn.now() as unknown as Date) : null }, trx))!;
+      if (disabled) await this.changes.endSessions(trx, id);
+      await this.changes.record(trx, { userId: id, changedBy: actorId, kind: disabled ? 'disabled' : 'enabled', rolesBefore: before.roles, rolesAfter: before.roles });
+      return adminView(row);
+    });
+  }
+
+  private async mustLock(trx: Knex.Transaction, id: number) {
+    const row = await this.changes.lockUser(trx, id);
+    if (!row) throw notFound('No such user.');
+    if (row.deleted_at) throw conflict('account_deleted', 'This account was deleted by its owner; it cannot be given roles, disabled or enabled.');
+    return row;
+  }
+}
+
+const sameRoles = (a: readonly Role[], b: readonly Role[]) => a.length === b.length && a.every((r) => b.includes(r));
+
+/** The admin's view of a user row. */
+export function adminView(row: Parameters<typeof toSessionUser>[0]): AdminAccount {
+  return { ...toSessionUser(row), disabledAt: row.disabled_at ? row.disabled_at.toISOString() : null, deletedAt: row.deleted_at ? row.deleted_at.toISOString() : null };
+}
