@@ -118,7 +118,7 @@ describe('a product page without JavaScript', () => {
       expect(failing).toHaveBeenCalledWith(product.slug);
       expect(status).toBe(503);
       expect(html).toContain('This item could not be loaded');
-      expect(html).toMatch(/<button\b[^>]*>\s*Try again\s*<\/button>/);
+      expect(html).toMatch(/<button\b[^>]*type="button"[^>]*>(?:(?!<\/button>)[\s\S])*>Try again<\/span>/);
       expect(html).not.toContain('Item not found');
     } finally {
       failing.mockRestore();
@@ -206,29 +206,26 @@ describe('a launch day without JavaScript', () => {
 });
 
 describe('the sponsors page without JavaScript', () => {
-  it('gives every logo a width and height: the stored size, or the logo box when the image is not a stored upload', async () => {
+  // The sponsors page is shared by suites running at the same time: only a logo that loads is added here (the box for
+  // a logo without a stored size is checked in sponsor-wall.spec.ts).
+  it('gives every logo a width and height, the stored size of the uploaded image', async () => {
     // The wall lists sponsors with an agreement this season (the year, in the club's time zone).
     const season = new Intl.DateTimeFormat('en-CA', { timeZone: t.config.clubTimeZone }).format(new Date()).slice(0, 4);
     const stored = await staff.post('/api/admin/sponsors', { name: `Prairie Resin Works ${tag}`, logoUrl: upload.url });
-    const unknown = await staff.post('/api/admin/sponsors', { name: `Coulee Machining ${tag}`, logoUrl: `/uploads/${tag}-not-stored.png` });
-    for (const made of [stored, unknown]) {
-      expect(made.status).toBe(201);
-      const agreed = await staff.post(`/api/admin/sponsors/${made.body.id}/agreements`, { season, cashCents: 25_000, deliverables: [{ kind: 'sponsors_page', quantity: 1, dueOn: `${season}-12-31` }] });
-      expect(agreed.status).toBe(201);
-    }
+    expect(stored.status).toBe(201);
+    const agreed = await staff.post(`/api/admin/sponsors/${stored.body.id}/agreements`, { season, cashCents: 25_000, deliverables: [{ kind: 'sponsors_page', quantity: 1, dueOn: `${season}-12-31` }] });
+    expect(agreed.status).toBe(201);
     const { status, html } = await page('/sponsors');
     expect(status).toBe(200);
     const logos = [...html.matchAll(/<img\b[^>]*class="logo"[^>]*>/g)].map((m) => m[0]);
-    expect(logos.length).toBeGreaterThanOrEqual(2);
+    expect(logos.length).toBeGreaterThanOrEqual(1);
     for (const img of logos) {
       expect([img, /\swidth="[1-9][0-9]*"/.test(img)]).toEqual([img, true]);
       expect([img, /\sheight="[1-9][0-9]*"/.test(img)]).toEqual([img, true]);
     }
-    const logoOf = (name: string) => logos.find((img) => img.includes(`alt="${name} logo"`));
-    expect(logoOf(`Prairie Resin Works ${tag}`)).toMatch(new RegExp(`width="${upload.width}"[^>]*height="${upload.height}"|height="${upload.height}"[^>]*width="${upload.width}"`));
+    const ours = logos.find((img) => img.includes(`alt="Prairie Resin Works ${tag} logo"`));
+    expect(ours).toMatch(new RegExp(`width="${upload.width}"[^>]*height="${upload.height}"|height="${upload.height}"[^>]*width="${upload.width}"`));
     expect(upload).toMatchObject({ width: 900, height: 600 });
-    // Not a stored upload: the largest box the page's CSS gives a logo (160 x 80).
-    expect(logoOf(`Coulee Machining ${tag}`)).toMatch(/width="160"[^>]*height="80"|height="80"[^>]*width="160"/);
   });
 });
 
