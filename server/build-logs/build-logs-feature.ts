@@ -19,7 +19,7 @@ export function buildLogsFeature(platform: Platform): Feature {
   const credits = new CreditService(sponsorRepo, config.publicUrl, config.site.teamName);
   // The sponsorship tax reads the rate table where the shop keeps it.
   const sponsorTax = new SponsorTaxService(db, sponsorRepo, platform.settings, new ShopConfigRepository(db), config.site.teamName);
-  const sponsors = new SponsorService(db, sponsorRepo, credits, platform.auth.users, platform.settings, sponsorTax);
+  const sponsors = new SponsorService(db, sponsorRepo, credits, platform.auth.users, platform.settings, sponsorTax, (urls) => platform.images.describe(urls));
   const today = clubToday(clock, config.clubTimeZone);
   const postRepo = new PostRepository(db);
   const posts = new PostService(db, postRepo, sponsorRepo, credits, (urls) => platform.images.describe(urls));

@@ -10,6 +10,7 @@ import { ledgerLines, nextDue, summaryByKind, type DeliverableKind } from './spo
 import type { AgreementRow, SponsorRepository } from './sponsor-repository';
 import type { TaxTreatment } from './sponsor-tax';
 import type { SponsorTaxService } from './sponsor-tax-service';
+import type { StoredImage } from '../uploads/image-uploads';
 import { seasonOf, SPONSOR_TIERS, tierFor, type Tier } from './sponsor-tiers';
 import { toCredit, toInput, toView, type AgreementView, type CreditView, type SponsorView } from './sponsor-views';
 
@@ -40,6 +41,8 @@ export class SponsorService {
     private readonly users: UserRepository,
     private readonly settings: SettingsService,
     private readonly taxes: SponsorTaxService,
+    /** Sizes of uploaded logos, so the sponsors page can reserve each logo's space before it loads. */
+    private readonly describeImages: (urls: readonly string[]) => Promise<Map<string, StoredImage>> = async () => new Map(),
   ) {}
 
   async create(input: SponsorInput): Promise<SponsorView> {
@@ -209,8 +212,9 @@ export class SponsorService {
   }
 
   /** The public sponsors page: tiers from the highest down, each sponsor with the posts that credit it. */
-  async publicWall(today: string): Promise<{ season: string; tiers: { name: string; sponsors: (SponsorView & { posts: { slug: string; title: string }[] })[] }[] }> {
+  async publicWall(today: string): Promise<{ season: string; tiers: { name: string; sponsors: (SponsorView & { logoSize: { width: number; height: number } | null; posts: { slug: string; title: string }[] })[] }[] }> {
     const [sponsors, posts, { tiers }] = await Promise.all([this.withTiers(today), this.repo.creditingPosts(), this.tiers()]);
+    const logos = await this.describeImages(sponsors.flatMap((s) => (s.logoUrl ? [s.logoUrl] : [])));
     const ordered = [...tiers].sort((a, b) => b.minCents - a.minCents);
     return {
       season: seasonOf(today),
@@ -220,7 +224,7 @@ export class SponsorService {
           sponsors: sponsors
             .filter((s) => s.tier === t.name)
             .sort((a, b) => b.seasonTotalCents - a.seasonTotalCents || a.name.localeCompare(b.name))
-            .map((s) => ({ id: s.id, slug: s.slug, name: s.name, website: s.website, blurb: s.blurb, logoUrl: s.logoUrl, posts: posts.filter((p) => Number(p.sponsor_id) === s.id).map((p) => ({ slug: p.slug, title: p.title })) })),
+            .map((s) => ({ id: s.id, slug: s.slug, name: s.name, website: s.website, blurb: s.blurb, logoUrl: s.logoUrl, logoSize: logoSizeOf(logos, s.logoUrl), posts: posts.filter((p) => Number(p.sponsor_id) === s.id).map((p) => ({ slug: p.slug, title: p.title })) })),
         }))
         .filter((t) => t.sponsors.length),
     };
@@ -244,4 +248,10 @@ export class SponsorService {
     if (!row) throw notFound('Your account is not linked to a sponsor yet. Ask the club’s treasurer to add you as a contact.');
     return toView(row);
   }
+}
+
+/** A logo's stored size in pixels; null when the address is not a stored upload. */
+function logoSizeOf(logos: Map<string, StoredImage>, url: string | null): { width: number; height: number } | null {
+  const logo = url ? logos.get(url) : undefined;
+  return logo ? { width: logo.width, height: logo.height } : null;
 }

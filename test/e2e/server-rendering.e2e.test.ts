@@ -5,6 +5,7 @@ import { jsonLdOf, linkHref, metaContent, schemaOrgProblems } from '../helpers/s
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { createUser, signedIn, type Client } from '../helpers/users';
 import { createLaunch } from '../api/launch-fixtures';
+import { CatalogueService } from '../../server/shop/catalogue-service';
 
 /**
  * The public pages as a client without JavaScript gets them (a link preview, a crawler, a phone on a slow line): the
@@ -19,6 +20,7 @@ let post: { slug: string; title: string };
 let membersPost: { slug: string; secret: string };
 let launchId: number;
 let coverUrl: string;
+let upload: { url: string; width: number; height: number };
 
 /** A page fetched as a client without JavaScript, optionally with a cookie. */
 async function page(path: string, cookie?: string): Promise<{ status: number; html: string; headers: Headers }> {
@@ -31,9 +33,10 @@ beforeAll(async () => {
   site = await serve(t);
   staff = (await signedIn(t.app, t.deps.db, ['fan', 'editor', 'treasurer', 'range_officer'])).client;
   const png = await sharp({ create: { width: 900, height: 600, channels: 3, background: '#3b6e8f' } }).png().toBuffer();
-  const upload = await staff.agent.post('/api/admin/uploads').set('X-CSRF-Token', await staff.token()).attach('file', png, { filename: 'tee.png', contentType: 'image/png' });
-  expect(upload.status).toBe(201);
-  const image = { url: upload.body.url, thumbnailUrl: upload.body.thumbnailUrl, alt: 'The tee laid flat', width: upload.body.width, height: upload.body.height };
+  const uploaded = await staff.agent.post('/api/admin/uploads').set('X-CSRF-Token', await staff.token()).attach('file', png, { filename: 'tee.png', contentType: 'image/png' });
+  expect(uploaded.status).toBe(201);
+  upload = uploaded.body;
+  const image = { url: upload.url, thumbnailUrl: uploaded.body.thumbnailUrl, alt: 'The tee laid flat', width: upload.width, height: upload.height };
   const made = await staff.post('/api/admin/products', {
     name: `Coulee Tee ${tag}`,
     description: 'Heavy cotton tee with the **pad** mark on the back.',
@@ -107,6 +110,22 @@ describe('a product page without JavaScript', () => {
     expect(status).toBe(404);
     expect(html).toContain('Item not found');
   });
+
+  it('answers 503 with a way to try again, not the not-found words, when the shop cannot answer', async () => {
+    const failing = jest.spyOn(CatalogueService.prototype, 'storefrontProduct').mockRejectedValueOnce(new Error('database went away'));
+    try {
+      const { status, html } = await page(`/shop/p/${product.slug}`);
+      expect(failing).toHaveBeenCalledWith(product.slug);
+      expect(status).toBe(503);
+      expect(html).toContain('This item could not be loaded');
+      expect(html).toMatch(/<button\b[^>]*type="button"[^>]*>(?:(?!<\/button>)[\s\S])*>Try again<\/span>/);
+      expect(html).not.toContain('Item not found');
+    } finally {
+      failing.mockRestore();
+    }
+    // The next visitor gets the product again.
+    expect((await page(`/shop/p/${product.slug}`)).status).toBe(200);
+  });
 });
 
 describe('a build log without JavaScript', () => {
@@ -153,6 +172,27 @@ describe('a build log without JavaScript', () => {
   });
 });
 
+describe('a detail page address that can never exist', () => {
+  it.each([
+    '/launches/abc',
+    '/launches/0',
+    '/launches/-3',
+    '/launches/1.5',
+    '/launches/99999999999',
+    '/shop/p/Coulee-Tee',
+    '/shop/p/tee%20shirt!',
+    '/shop/p/' + 'x'.repeat(81),
+    '/build-logs/%E2%9C%93-cone',
+    '/build-logs/-sanding',
+    '/build-logs/' + 'y'.repeat(121),
+  ])('%s answers 404 with the not-found page, not the API\'s refusal', async (path) => {
+    const { status, html } = await page(path);
+    expect(status).toBe(404);
+    expect(html).toContain('Off the pad');
+    expect(html).not.toMatch(/could not be (found|loaded)|Item not found|Build log not found/);
+  });
+});
+
 describe('a launch day without JavaScript', () => {
   it('holds its title and Event JSON-LD with the start in the club time zone', async () => {
     const { status, html } = await page(`/launches/${launchId}`);
@@ -162,6 +202,30 @@ describe('a launch day without JavaScript', () => {
     expect(schemaOrgProblems(data)).toEqual([]);
     // Gopher Flats keeps Central time: 10:00 on 14 June 2031 is daylight time, UTC-5 (IANA America/Winnipeg, from memory).
     expect(data).toMatchObject({ '@type': 'Event', name: `Summer shoot ${tag}`, startDate: '2031-06-14T10:00:00-05:00', eventStatus: 'https://schema.org/EventScheduled', location: { '@type': 'Place', name: 'Coulee Field' } });
+  });
+});
+
+describe('the sponsors page without JavaScript', () => {
+  // The sponsors page is shared by suites running at the same time: only a logo that loads is added here (the box for
+  // a logo without a stored size is checked in sponsor-wall.spec.ts).
+  it('gives every logo a width and height, the stored size of the uploaded image', async () => {
+    // The wall lists sponsors with an agreement this season (the year, in the club's time zone).
+    const season = new Intl.DateTimeFormat('en-CA', { timeZone: t.config.clubTimeZone }).format(new Date()).slice(0, 4);
+    const stored = await staff.post('/api/admin/sponsors', { name: `Prairie Resin Works ${tag}`, logoUrl: upload.url });
+    expect(stored.status).toBe(201);
+    const agreed = await staff.post(`/api/admin/sponsors/${stored.body.id}/agreements`, { season, cashCents: 25_000, deliverables: [{ kind: 'sponsors_page', quantity: 1, dueOn: `${season}-12-31` }] });
+    expect(agreed.status).toBe(201);
+    const { status, html } = await page('/sponsors');
+    expect(status).toBe(200);
+    const logos = [...html.matchAll(/<img\b[^>]*class="logo"[^>]*>/g)].map((m) => m[0]);
+    expect(logos.length).toBeGreaterThanOrEqual(1);
+    for (const img of logos) {
+      expect([img, /\swidth="[1-9][0-9]*"/.test(img)]).toEqual([img, true]);
+      expect([img, /\sheight="[1-9][0-9]*"/.test(img)]).toEqual([img, true]);
+    }
+    const ours = logos.find((img) => img.includes(`alt="Prairie Resin Works ${tag} logo"`));
+    expect(ours).toMatch(new RegExp(`width="${upload.width}"[^>]*height="${upload.height}"|height="${upload.height}"[^>]*width="${upload.width}"`));
+    expect(upload).toMatchObject({ width: 900, height: 600 });
   });
 });
 

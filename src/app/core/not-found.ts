@@ -1,7 +1,8 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, RESPONSE_INIT, inject } from '@angular/core';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 
+/** Any address the app has no page for, also a detail page whose id or slug could never exist: answered 404. */
 @Component({
   selector: 'ps-not-found',
   imports: [RouterLink, MatButtonModule],
@@ -14,4 +15,10 @@ import { MatButtonModule } from '@angular/material/button';
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class NotFound {}
+export class NotFound {
+  constructor() {
+    // The server route may have matched a detail page (`launches/:id`) whose guard then refused the id.
+    const response = inject(RESPONSE_INIT, { optional: true });
+    if (response) response.status = 404;
+  }
+}

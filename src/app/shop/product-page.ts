@@ -8,7 +8,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { SignUpForm } from '../announcements/sign-up-form';
 import { PageMeta, SHARE_IMAGE } from '../core/page-meta';
-import { notFoundStatus } from '../core/rendering/not-found-status';
+import { isNotFound, loadErrorStatus } from '../core/rendering/load-error-status';
 import { clip, plainText, productData } from '../core/structured-data';
 import { SiteNames } from '../core/site-names';
 import { MoneyPipe } from '../shared/money-pipe';
@@ -35,6 +35,8 @@ export class ProductPage {
   protected readonly product = rxResource({ params: () => this.slug(), stream: ({ params }) => this.api.product(params) });
   /** The product once loaded; value() itself throws while the resource holds an error (an unknown address). */
   private readonly loaded = computed(() => (this.product.hasValue() ? this.product.value() : undefined));
+  /** The API said there is no such product; any other failure is worth a retry. */
+  protected readonly missing = computed(() => isNotFound(this.product.error()));
   private readonly pickedId = signal<number | null>(null);
   /** The buyer's pick, or the product's sole option when there is nothing to choose. */
   protected readonly chosenId = computed(() => {
@@ -58,9 +60,9 @@ export class ProductPage {
   constructor() {
     const meta = inject(PageMeta);
     const site = inject(SiteNames);
-    const answerNotFound = notFoundStatus();
+    const answerLoadError = loadErrorStatus();
     effect(() => {
-      answerNotFound(this.product.error());
+      answerLoadError(this.product.error());
       const p = this.loaded();
       if (!p) return;
       const photo = p.images[0];

@@ -1,9 +1,10 @@
 import { Routes } from '@angular/router';
+import { paramShape, productSlug } from '../core/rendering/param-shape';
 import { sessionKnown, signedInGuard } from '../core/role-guard';
 
 export const shopRoutes: Routes = [
   { path: '', loadComponent: () => import('./product-grid').then((m) => m.ProductGrid), title: 'Merch — Padside' },
-  { path: 'p/:slug', loadComponent: () => import('./product-page').then((m) => m.ProductPage), title: 'Merch — Padside' },
+  { path: 'p/:slug', canMatch: [paramShape('slug', productSlug)], loadComponent: () => import('./product-page').then((m) => m.ProductPage), title: 'Merch — Padside' },
   { path: 'cart', loadComponent: () => import('./cart-page').then((m) => m.CartPage), title: 'Your cart — Padside' },
   // The contact step starts from the signed-in buyer's name and e-mail.
   { path: 'checkout', canMatch: [sessionKnown], loadComponent: () => import('./checkout').then((m) => m.Checkout), title: 'Checkout — Padside' },

@@ -15,6 +15,8 @@ export interface SponsorCard {
   website: string | null;
   blurb: string | null;
   logoUrl: string | null;
+  /** The stored logo's size in pixels; null when there is no uploaded logo. */
+  logoSize: { width: number; height: number } | null;
   posts: { slug: string; title: string }[];
 }
 

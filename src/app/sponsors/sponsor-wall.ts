@@ -22,7 +22,8 @@ import { PageMeta } from '../core/page-meta';
               @for (s of tier.sponsors; track s.id) {
                 <li class="card" [id]="s.slug">
                   @if (s.logoUrl) {
-                    <img [src]="s.logoUrl" [alt]="s.name + ' logo'" class="logo" />
+                    <!-- The stored size keeps the logo's box before it loads (no layout shift); without one, the largest box .logo allows. -->
+                    <img [src]="s.logoUrl" [alt]="s.name + ' logo'" class="logo" [width]="s.logoSize?.width ?? 160" [height]="s.logoSize?.height ?? 80" />
                   }
                   <h3>{{ s.name }}</h3>
                   @if (s.blurb) {
