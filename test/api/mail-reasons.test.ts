@@ -18,7 +18,7 @@ function templatesInCode(): { names: Set<string>; patterns: RegExp[] } {
   const walk = (dir: string): string[] => readdirSync(dir, { withFileTypes: true }).flatMap((e) => (e.isDirectory() ? walk(join(dir, e.name)) : e.name.endsWith('.ts') ? [join(dir, e.name)] : []));
   for (const file of walk(join(__dirname, '../../server'))) {
     if (file.endsWith(join('mail', 'mail-reasons.ts'))) continue;
-    for (const [, value] of readFileSync(file, 'utf8').matchAll(/\btemplate: ([^,}\n]+)/g)) {
+    for (const [, value] of readFileSync(file, 'utf8').matchAll(/\btemplate: ([^,;}\n]+)/g)) {
       for (const [, name] of value.matchAll(/'([a-z0-9-]+)'/g)) names.add(name);
       for (const [, prefix] of value.matchAll(/`([a-z0-9-]+)\$\{/g)) patterns.push(new RegExp(`^${prefix}[a-z0-9-]+$`));
     }
