@@ -1,10 +1,11 @@
-import type { OutgoingEmail } from '../mail/outbox';
+import type { TransactionalEmail } from '../mail/outbox';
 
 /** The last e-mail to a deleted account's address: what went, what stays and why. No name: it was erased. */
-export function accountDeletedEmail(to: string, teamName: string): OutgoingEmail {
+export function accountDeletedEmail(to: string, teamName: string): TransactionalEmail {
   return {
     to,
     template: 'account-deleted',
+    reason: { team: teamName },
     subject: 'Your Padside account was deleted',
     text: [
       'Hello,',

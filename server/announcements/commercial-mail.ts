@@ -1,5 +1,5 @@
 import { escapeHtml, renderMarkdown } from '../markdown/render-markdown';
-import type { OutgoingEmail } from '../mail/outbox';
+import type { CommercialEmail } from '../mail/outbox';
 import { TOPIC_LABELS, type MailList } from './topics';
 
 /** Who the mail comes from, as the footer names them. */
@@ -40,7 +40,7 @@ export function commercialFooter(topic: MailList, r: CommercialRecipient, sender
  * works without signing in, and the one-click headers of RFC 8058. The worker checks the suppression list again just
  * before it sends, under the mail's list.
  */
-export function commercialMail(content: CommercialContent, r: CommercialRecipient, sender: SenderIdentity, dedupeKey?: string): OutgoingEmail {
+export function commercialMail(content: CommercialContent, r: CommercialRecipient, sender: SenderIdentity, dedupeKey?: string): CommercialEmail {
   const footer = commercialFooter(content.topic, r, sender);
   return {
     to: r.email,

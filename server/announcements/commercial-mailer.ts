@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { enqueueEmails, type OutgoingEmail } from '../mail/outbox';
+import { enqueueEmails, type CommercialEmail } from '../mail/outbox';
 import { SuppressionList } from '../mail/suppression-list';
 import type { Platform } from '../platform/feature';
 import type { SettingsService } from '../settings/settings-service';
@@ -37,7 +37,7 @@ export class CommercialMailer {
   }
 
   /** The mail for one addressee, as it will be queued. */
-  mailFor(content: CommercialContent, to: CommercialAddressee, sender: SenderIdentity, dedupeKey?: string): OutgoingEmail {
+  mailFor(content: CommercialContent, to: CommercialAddressee, sender: SenderIdentity, dedupeKey?: string): CommercialEmail {
     return commercialMail(content, { ...to, oneClickUrl: this.tokens.oneClickUrl(to.email, content.topic), pageUrl: this.tokens.pageUrl(to.email, content.topic) }, sender, dedupeKey);
   }
 

@@ -1,5 +1,5 @@
 import { clubTimeInWords, formatClock, formatDay } from '../../contracts/dates/club-dates';
-import type { OutgoingEmail } from '../mail/outbox';
+import type { TransactionalEmail } from '../mail/outbox';
 import type { LaunchRow, Recipient } from './launch-repository';
 
 /** The line every launch e-mail ends with, in Padside's words. */
@@ -10,10 +10,11 @@ const FLYING_NOTE =
 const when = (l: LaunchRow, timeZone: string) => `${formatDay(l.launch_date)}, ${formatClock(l.starts_at)} to ${formatClock(l.ends_at)} ${clubTimeInWords(timeZone)}`;
 
 /** The reminder two days before a launch, once per launch and person. */
-export function launchReminderMail(to: Recipient, l: LaunchRow, timeZone: string, publicUrl: string): OutgoingEmail {
+export function launchReminderMail(to: Recipient, l: LaunchRow, timeZone: string, publicUrl: string): TransactionalEmail {
   return {
     to: to.email,
     template: 'launch-reminder',
+    reason: { launch: l.title },
     dedupeKey: `launch-reminder:${l.id}:${to.user_id}`,
     subject: `Launch day soon: ${l.title} on ${formatDay(l.launch_date)}`,
     text: [
@@ -32,10 +33,11 @@ export function launchReminderMail(to: Recipient, l: LaunchRow, timeZone: string
 }
 
 /** The notice that a launch someone said they would come to is called off; once per call-off. */
-export function launchCalledOffMail(to: Recipient, l: LaunchRow, reason: string, timeZone: string, publicUrl: string): OutgoingEmail {
+export function launchCalledOffMail(to: Recipient, l: LaunchRow, reason: string, timeZone: string, publicUrl: string): TransactionalEmail {
   return {
     to: to.email,
     template: 'launch-called-off',
+    reason: { launch: l.title },
     dedupeKey: `launch-called-off:${l.id}:${to.user_id}`,
     subject: `Called off: ${l.title} on ${formatDay(l.launch_date)}`,
     text: [

@@ -1,35 +1,46 @@
 import type { Knex } from 'knex';
 import { DELETED_MAIL_DOMAIN } from '../platform/personal-data';
+import { reasonText, withReason, type ReasonFacts, type TransactionalTemplate } from './mail-reasons';
 
-/** One e-mail to queue; `dedupeKey` makes it once-only however many times it is queued. */
-export interface OutgoingEmail {
+/** What every e-mail to queue has; `dedupeKey` makes it once-only however many times it is queued. */
+interface MailBody {
   to: string;
   subject: string;
   text: string;
   html?: string;
-  template: string;
   dedupeKey?: string;
-  /** Commercial mail (announcements, drop notices, promotional roster mail) is checked against the suppression list. */
-  category?: 'transactional' | 'commercial';
-  /** The list a commercial mail belongs to (a topic); a suppression for this list or for every list stops it. */
-  list?: string;
-  /** Extra headers, such as `List-Unsubscribe` (RFC 8058). */
-  headers?: Record<string, string>;
+}
+
+/**
+ * Transactional mail (receipts, reminders, account mail): its template must be one of MAIL_REASONS, and `reason`
+ * holds the facts of that template's "why you got this" line, which the outbox appends. It never carries list headers.
+ */
+export type TransactionalEmail = {
+  [T in TransactionalTemplate]: MailBody & { template: T; category?: 'transactional'; reason: ReasonFacts<T> };
+}[TransactionalTemplate];
+
+/** Commercial mail (announcements, drop notices, promotional roster mail), built only by commercial-mail.ts. */
+export interface CommercialEmail extends MailBody {
+  template: string;
+  category: 'commercial';
+  /** The list it belongs to (a topic); a suppression for this list or for every list stops it. */
+  list: string;
+  /** `List-Unsubscribe` and `List-Unsubscribe-Post` (RFC 8058). */
+  headers: Record<string, string>;
   announcementId?: number;
 }
 
-const toRow = (mail: OutgoingEmail) => ({
-  to_address: mail.to,
-  subject: mail.subject,
-  text_body: mail.text,
-  html_body: mail.html ?? null,
-  template: mail.template,
-  dedupe_key: mail.dedupeKey ?? null,
-  category: mail.category ?? 'transactional',
-  list: mail.list ?? null,
-  headers: mail.headers ? JSON.stringify(mail.headers) : null,
-  announcement_id: mail.announcementId ?? null,
-});
+export type OutgoingEmail = TransactionalEmail | CommercialEmail;
+
+const toRow = (mail: OutgoingEmail) => {
+  const common = { to_address: mail.to, subject: mail.subject, template: mail.template, dedupe_key: mail.dedupeKey ?? null };
+  if (mail.category === 'commercial') {
+    const { list, headers, announcementId } = mail;
+    return { ...common, text_body: mail.text, html_body: mail.html ?? null, category: 'commercial', list, headers: JSON.stringify(headers), announcement_id: announcementId ?? null };
+  }
+  const body = withReason(mail, reasonText(mail));
+  return { ...common, text_body: body.text, html_body: body.html, category: 'transactional', list: null, headers: null, announcement_id: null };
+};
 
 /**
  * Queues an e-mail in the caller's transaction, so the mail exists exactly when the change that caused it does.

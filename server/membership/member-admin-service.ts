@@ -165,11 +165,10 @@ export class MemberAdminService {
     const rows = await this.repo.rosterAll(q, await this.asOf());
     const batch = randomUUID();
     if (purpose === 'club-business') {
-      const footer = `\n\n--\nYou get this as a member of ${this.clubName}: it is club business (your dues, launches you replied to), so it arrives whatever your news setting.`;
       let queued = 0;
       await this.db.transaction(async (trx) => {
         for (const r of rows) {
-          if (await enqueueEmail(trx, { to: r.email, subject: mail.subject, text: `Hello ${r.legal_name},\n\n${mail.text}${footer}`, template: 'membership-roster-business', dedupeKey: `membership-business:${batch}:${r.id}` })) queued++;
+          if (await enqueueEmail(trx, { to: r.email, subject: mail.subject, text: `Hello ${r.legal_name},\n\n${mail.text}`, template: 'membership-roster-business', reason: { club: this.clubName }, dedupeKey: `membership-business:${batch}:${r.id}` })) queued++;
         }
       });
       return { queued, skippedOptedOut: 0, skippedLapsedConsent: 0, skippedSuppressed: 0 };

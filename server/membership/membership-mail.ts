@@ -1,7 +1,7 @@
 import { formatDay } from '../../contracts/dates/club-dates';
 import { labelOf } from '../../contracts/labels/label-of';
 import { PAYMENT_METHOD_LABELS } from '../../contracts/labels/payment-methods';
-import type { OutgoingEmail } from '../mail/outbox';
+import type { TransactionalEmail } from '../mail/outbox';
 import { formatCad } from '../platform/money';
 
 /** The safety line every dues e-mail ends with, in Padside's words. */
@@ -19,10 +19,11 @@ export interface MemberMailContext {
 }
 
 /** Receipt for a dues payment (card or recorded by staff). Essential mail. */
-export function receiptMail(c: MemberMailContext, p: { paymentId: number; amountCents: number; method: string; receiptNumber: string | null; termStart: string; termEnd: string }): OutgoingEmail {
+export function receiptMail(c: MemberMailContext, p: { paymentId: number; amountCents: number; method: string; receiptNumber: string | null; termStart: string; termEnd: string }): TransactionalEmail {
   return {
     to: c.to,
     template: 'membership-receipt',
+    reason: { member: c.memberNumber },
     dedupeKey: `membership-receipt:${p.paymentId}`,
     subject: `Dues receipt: member ${c.memberNumber}, paid to ${formatDay(p.termEnd)}`,
     text: [
@@ -41,10 +42,11 @@ export function receiptMail(c: MemberMailContext, p: { paymentId: number; amount
 }
 
 /** Receipt for a refund. Essential mail. */
-export function refundMail(c: MemberMailContext, p: { refundId: number; amountCents: number; method: string; termEnd: string | null }): OutgoingEmail {
+export function refundMail(c: MemberMailContext, p: { refundId: number; amountCents: number; method: string; termEnd: string | null }): TransactionalEmail {
   return {
     to: c.to,
     template: 'membership-refund',
+    reason: { member: c.memberNumber },
     dedupeKey: `membership-refund:${p.refundId}`,
     subject: `Dues refund: member ${c.memberNumber}`,
     text: [`Hello ${c.name},`, '', `We refunded ${formatCad(p.amountCents)} of your dues (${labelOf(PAYMENT_METHOD_LABELS, p.method)}).`, p.termEnd ? `Your membership now runs to ${formatDay(p.termEnd)}.` : 'Your membership has no paid term now.', '', FLYING_NOTE].join('\n'),
@@ -54,7 +56,7 @@ export function refundMail(c: MemberMailContext, p: { refundId: number; amountCe
 export type ReminderKind = 'due-30' | 'due-7' | 'due-today' | 'overdue-14' | 'association-30';
 
 /** Dues and association reminders; each is once per term end (or association expiry) through its dedupe key. */
-export function reminderMail(c: MemberMailContext & { membershipId: number }, kind: ReminderKind, on: string, autoRenew: boolean): OutgoingEmail {
+export function reminderMail(c: MemberMailContext & { membershipId: number }, kind: ReminderKind, on: string, autoRenew: boolean): TransactionalEmail {
   const date = formatDay(on);
   const renewLink = `${c.publicUrl}/membership`;
   const auto = autoRenew ? 'Auto-renew is on: we will charge your saved card on the last day of your term.' : `Renew here: ${renewLink}`;
@@ -69,6 +71,7 @@ export function reminderMail(c: MemberMailContext & { membershipId: number }, ki
   return {
     to: c.to,
     template: `membership-${kind}`,
+    reason: { member: c.memberNumber },
     dedupeKey: `membership-reminder:${c.membershipId}:${kind}:${on}`,
     subject: line.subject,
     text: [`Hello ${c.name},`, '', line.body, `Member number: ${c.memberNumber}`, '', FLYING_NOTE].join('\n'),
@@ -76,13 +79,14 @@ export function reminderMail(c: MemberMailContext & { membershipId: number }, ki
 }
 
 /** An automatic renewal charge was declined; says when the next try is or that the membership lapsed. */
-export function renewalDeclinedMail(c: MemberMailContext & { membershipId: number }, termEnd: string, attempt: number, nextTry: string | null, message: string): OutgoingEmail {
+export function renewalDeclinedMail(c: MemberMailContext & { membershipId: number }, termEnd: string, attempt: number, nextTry: string | null, message: string): TransactionalEmail {
   const body = nextTry
     ? `We could not charge your saved card for your dues (${message}). We will try again on ${formatDay(nextTry)}. You can put a different card on file at ${c.publicUrl}/membership.`
     : `We tried your saved card three times and could not charge it (${message}). Your membership has lapsed and you no longer have flying status at club launches. Renew at ${c.publicUrl}/membership.`;
   return {
     to: c.to,
     template: nextTry ? 'membership-renewal-declined' : 'membership-lapsed',
+    reason: { member: c.memberNumber },
     dedupeKey: `membership-renewal-declined:${c.membershipId}:${termEnd}:${attempt}`,
     subject: nextTry ? 'We could not renew your club dues' : 'Your club membership has lapsed',
     text: [`Hello ${c.name},`, '', body, `Member number: ${c.memberNumber}`, '', FLYING_NOTE].join('\n'),
@@ -90,10 +94,11 @@ export function renewalDeclinedMail(c: MemberMailContext & { membershipId: numbe
 }
 
 /** Grace ran out without a renewal. */
-export function lapsedMail(c: MemberMailContext & { membershipId: number }, termEnd: string): OutgoingEmail {
+export function lapsedMail(c: MemberMailContext & { membershipId: number }, termEnd: string): TransactionalEmail {
   return {
     to: c.to,
     template: 'membership-lapsed',
+    reason: { member: c.memberNumber },
     dedupeKey: `membership-lapsed:${c.membershipId}:${termEnd}`,
     subject: 'Your club membership has lapsed',
     text: [`Hello ${c.name},`, '', `Your membership ended on ${formatDay(termEnd)} and the grace period is over, so you no longer have flying status at club launches. Renew at ${c.publicUrl}/membership.`, '', FLYING_NOTE].join('\n'),
