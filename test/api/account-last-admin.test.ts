@@ -1,25 +1,19 @@
-import { execFileSync } from 'node:child_process';
-import { createDb } from '../../server/db';
+import { freshDatabase, type FreshDatabase } from '../helpers/fresh-database';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 
 // Whether someone is the last admin depends on every account, and other test files make admins all the time: this
 // file gets a database of its own on the test cluster, migrated like the shared one.
-const name = `padside_last_admin_${process.pid}`;
-const shared = process.env.DATABASE_URL!;
-const own = shared.replace(/\/[^/]+$/, `/${name}`);
-const server = createDb(shared, 1);
+let fresh: FreshDatabase;
 let t: TestApp;
 
 beforeAll(async () => {
-  await server.raw(`CREATE DATABASE ${name}`);
-  execFileSync(process.execPath, ['node_modules/tsx/dist/cli.mjs', 'server/tasks/prepare-db.ts'], { env: { ...process.env, DATABASE_URL: own }, stdio: 'ignore' });
-  t = buildTestApp({ env: { DATABASE_URL: own } });
+  fresh = await freshDatabase();
+  t = buildTestApp({ env: { DATABASE_URL: fresh.url } });
 }, 120_000);
 afterAll(async () => {
   await t?.close();
-  await server.raw(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
-  await server.destroy();
+  await fresh?.drop();
 });
 
 async function adminClient() {

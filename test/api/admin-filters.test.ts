@@ -34,7 +34,7 @@ describe('ASVS 5.1.2: admin filters refuse unknown keys', () => {
   it('POST /api/admin/members/email still takes the roster filters the console sends', async () => {
     const res = await treasurer.post('/api/admin/members/email', { filters: { status: 'lapsed', q: `nobody-${Date.now()}`, sort: 'name', dir: 'asc' }, subject: 'Known filters', text: 'Hello.' });
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ queued: 0, skippedOptedOut: 0 });
+    expect(res.body).toEqual({ queued: 0, skippedOptedOut: 0, skippedLapsedConsent: 0, skippedSuppressed: 0 });
   });
 
   it('the roster and its CSV answer 400 for an unknown query key', async () => {

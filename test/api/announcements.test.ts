@@ -1,10 +1,14 @@
 import request from 'supertest';
 import { withdrawAllConsents } from '../../server/announcements/consent-withdrawal';
+import { freshDatabase, type FreshDatabase } from '../helpers/fresh-database';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, signedIn } from '../helpers/users';
 import { address, announcementMail, confirmedSubscriber, confirmToken, oneClickUrl, signUp } from './announcement-fixtures';
 import { MB_ADDRESS, methodId, openShirt } from './shop-fixtures';
 
+// Its own database: an announcement goes to every address with consent, and on the shared database that is every
+// buyer and member other suites made (implied consent), thousands of mails for each send to drain.
+let fresh: FreshDatabase;
 let t: TestApp;
 let editor: Client;
 let editorEmail: string;
@@ -12,14 +16,18 @@ let admin: Client;
 let visitor: Client;
 
 beforeAll(async () => {
-  t = buildTestApp();
+  fresh = await freshDatabase();
+  t = buildTestApp({ env: { DATABASE_URL: fresh.url } });
   const e = await signedIn(t.app, t.deps.db, ['editor']);
   editor = e.client;
   editorEmail = e.user.email;
   admin = (await signedIn(t.app, t.deps.db, ['admin'])).client;
   visitor = new Client(t.app);
 });
-afterAll(() => t.close());
+afterAll(async () => {
+  await t?.close();
+  await fresh?.drop();
+});
 
 const settled = () => t.app.platform.auth.afterAnswer.settled();
 

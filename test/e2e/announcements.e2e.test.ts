@@ -1,21 +1,25 @@
-import { readFileSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, recordRequests, screenshot, serve, signInThroughForm } from '../helpers/browser';
+import { seriousViolations } from '../helpers/axe';
+import { consoleErrors, launchBrowser, recordRequests, screenshot, serve, signInThroughForm } from '../helpers/browser';
 import { firstLink, waitForEmails } from '../helpers/maildev';
+import { freshDatabase, type FreshDatabase } from '../helpers/fresh-database';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 import { openShirt } from '../api/shop-fixtures';
 
-const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 // A common 6.1-inch phone screen, in CSS pixels.
 const PHONE = { viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true };
 
+// Its own database: the staff announcement goes to every address with consent, on the shared database every buyer
+// and member other suites made.
+let fresh: FreshDatabase;
 let t: TestApp;
 let browser: Browser;
 let site: { baseUrl: string; stop(): Promise<void> };
 
 beforeAll(async () => {
-  t = buildTestApp();
+  fresh = await freshDatabase();
+  t = buildTestApp({ env: { DATABASE_URL: fresh.url } });
   site = await serve(t);
   browser = await launchBrowser();
 });
@@ -23,32 +27,13 @@ afterAll(async () => {
   await browser?.close();
   await site?.stop();
   await t?.close();
+  await fresh?.drop();
 });
-
-interface AxeViolation {
-  id: string;
-  impact: string | null;
-  help: string;
-  nodes: { target: string[] }[];
-}
-
-/** axe-core's serious and critical findings (WCAG 2.x A and AA rules). */
-async function seriousViolations(page: Page): Promise<string[]> {
-  await page.evaluate(axeSource);
-  const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run(ctx: Document, opts: object): Promise<{ violations: AxeViolation[] }> } }).axe;
-    return (await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } })).violations;
-  });
-  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join('; ')})`);
-}
 
 async function phone(): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
   const context = await browser.newContext(PHONE);
   const page = await context.newPage();
-  const errors: string[] = [];
-  page.on('console', (m) => m.type() === 'error' && errors.push(m.text()));
-  page.on('pageerror', (e) => errors.push(e.message));
-  return { context, page, errors };
+  return { context, page, errors: consoleErrors(page) };
 }
 
 /** The mail's link opened on the served app (the mail names PUBLIC_URL, the test server listens elsewhere). */

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
+import { consoleErrors, launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { createUser, signedIn, type Client } from '../helpers/users';
 
@@ -44,13 +44,7 @@ afterAll(async () => {
   await t?.close();
 });
 
-/** Uncaught exceptions and console errors (Angular reports hydration mismatches there, NG05xx). */
-function watchErrors(page: Page): string[] {
-  const seen: string[] = [];
-  page.on('pageerror', (err) => seen.push(`${page.url()}: ${err.message}`));
-  page.on('console', (m) => m.type() === 'error' && seen.push(`${page.url()}: ${m.text()}`));
-  return seen;
-}
+// Angular reports hydration mismatches (NG05xx) as console errors, so `consoleErrors` catches them.
 
 const phone = (): Promise<BrowserContext> => browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
 
@@ -88,7 +82,7 @@ describe('hydration of the public pages on a phone', () => {
   ])('the %s page keeps the server DOM and writes no console error', async (what, path) => {
     const ctx = await phone();
     const page = await ctx.newPage();
-    const errors = watchErrors(page);
+    const errors = consoleErrors(page);
     const release = await holdScript(page);
     await page.goto(site.baseUrl + path(), { waitUntil: 'commit' });
     const heading = page.locator('main h1').first();
@@ -109,7 +103,7 @@ describe('a tap before the script has arrived', () => {
   it('is replayed once the page is live: Add to cart taken from the server HTML adds the item', async () => {
     const ctx = await phone();
     const page = await ctx.newPage();
-    const errors = watchErrors(page);
+    const errors = consoleErrors(page);
     const release = await holdScript(page);
     await page.goto(`${site.baseUrl}/shop/p/${slug}`, { waitUntil: 'commit' });
     const add = page.getByRole('button', { name: 'Add to cart' });
@@ -136,7 +130,7 @@ describe('a signed-in member on a server-rendered page', () => {
     const member = await createUser(t.deps.db, ['fan', 'member'], `Juniper Ashgrove ${tag}`);
     const ctx = await browser.newContext({ viewport: { width: 1366, height: 900 } });
     const page = await ctx.newPage();
-    const errors = watchErrors(page);
+    const errors = consoleErrors(page);
     await signInThroughForm(page, site.baseUrl, member.email, member.password);
     await page.goto(`${site.baseUrl}/build-logs/${membersPost.slug}`);
     await page.getByText(membersPost.body).waitFor();

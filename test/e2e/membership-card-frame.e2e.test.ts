@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
-import { consoleErrors, seriousViolations } from '../helpers/axe';
-import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
+import { seriousViolations } from '../helpers/axe';
+import { consoleErrors, launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
 import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
 import { createUser } from '../helpers/users';
 import { STRIPE_JS_STAND_IN } from './stripe-js-stand-in';

@@ -1,6 +1,6 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { consoleErrors, seriousViolations } from '../helpers/axe';
-import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
+import { seriousViolations } from '../helpers/axe';
+import { consoleErrors, launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
 import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 

@@ -51,3 +51,24 @@ export async function signInThroughForm(page: Page, baseUrl: string, email: stri
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL((url) => !url.pathname.startsWith('/account/sign-in'));
 }
+
+/**
+ * Uncaught errors and console errors of a page, collected from now on. Suites share one database, and another suite
+ * may delete an image that a public list still shows for a moment: the browser then logs a 404 for that image, which
+ * says nothing about the page under test, so each 404 of an `/uploads/` file excuses one such console line.
+ */
+export function consoleErrors(page: Page): string[] {
+  const errors: string[] = [];
+  let goneImages = 0;
+  page.on('response', (r) => r.status() === 404 && new URL(r.url()).pathname.startsWith('/uploads/') && goneImages++);
+  page.on('pageerror', (e) => errors.push(`uncaught: ${e.message}`));
+  page.on('console', (m) => {
+    if (m.type() !== 'error') return;
+    if (goneImages > 0 && /Failed to load resource: .*404/.test(m.text())) {
+      goneImages--;
+      return;
+    }
+    errors.push(`console: ${m.text()}`);
+  });
+  return errors;
+}

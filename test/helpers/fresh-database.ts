@@ -4,12 +4,14 @@ import { migrationConfig } from '../../server/db';
 
 export interface FreshDatabase {
   db: Knex;
+  /** Its connection string, for an app of its own: `buildTestApp({ env: { DATABASE_URL: fresh.url } })`. */
+  url: string;
   drop(): Promise<void>;
 }
 
 /**
- * A migrated database of its own beside the suite's shared one, for tests that read every row of a table
- * (a demo seed, say) while other suites running in parallel change rows of the shared database.
+ * A migrated database of its own beside the suite's shared one, for tests whose answer depends on every row of a
+ * table (a demo seed, the last admin, an announcement's whole audience) while other suites change the shared one.
  */
 export async function freshDatabase(sharedUrl = loadConfig().databaseUrl): Promise<FreshDatabase> {
   const name = `padside_fresh_${process.pid}_${Date.now()}`;
@@ -21,6 +23,7 @@ export async function freshDatabase(sharedUrl = loadConfig().databaseUrl): Promi
   await db.migrate.latest(migrationConfig);
   return {
     db,
+    url: url.toString(),
     drop: async () => {
       await db.destroy();
       await admin.raw('DROP DATABASE IF EXISTS ?? WITH (FORCE)', [name]);

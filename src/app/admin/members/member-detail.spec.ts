@@ -34,6 +34,10 @@ const detail: MemberDetailView = {
   audit: [],
 };
 
+/** Dates on the page follow club time, which SiteNames asks `/api/site` for. */
+const flushSiteNames = (http: HttpTestingController) =>
+  http.match('/api/site').forEach((r) => r.flush({ teamName: 'Nozzle & Nylon', clubName: 'Skywhomp Rocketry Club', timeZone: 'America/Winnipeg' }));
+
 describe('MemberDetail', () => {
   let fixture: ComponentFixture<MemberDetail>;
   let http: HttpTestingController;
@@ -51,6 +55,7 @@ describe('MemberDetail', () => {
     fixture.componentRef.setInput('id', '7');
     fixture.detectChanges();
     http.expectOne('/api/admin/members/7').flush(detail);
+    flushSiteNames(http);
     await settle();
     el = fixture.nativeElement as HTMLElement;
   });
@@ -97,6 +102,7 @@ describe('MemberDetail flying claims', () => {
     fixture.componentRef.setInput('id', '7');
     fixture.detectChanges();
     http.expectOne('/api/admin/members/7').flush(claimed);
+    flushSiteNames(http);
     await settle();
     el = fixture.nativeElement as HTMLElement;
   });
