@@ -74,7 +74,7 @@ describe('the outbox appends the reason', () => {
     const number: string = res.body.order.number;
     expect(number).toMatch(/^PS-/);
     await t.deps.mail.deliverDue();
-    const [mail] = (await waitForEmails(email, /Padside order PS-/)) as (CaughtEmail & { headers: Record<string, string> })[];
+    const [mail] = (await waitForEmails(email, /order PS-/)) as (CaughtEmail & { headers: Record<string, string> })[];
     expect(mail.text.trimEnd().endsWith(`\n--\nWhy you got this: you placed order ${number} with ${t.deps.config.site.teamName}, and this e-mail is its receipt.`)).toBe(true);
     expect(mail.headers['message-id']).toBeDefined();
     expect(mail.headers['list-unsubscribe']).toBeUndefined();

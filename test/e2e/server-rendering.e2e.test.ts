@@ -193,6 +193,19 @@ describe('a detail page address that can never exist', () => {
   });
 });
 
+describe('every page the app routes to', () => {
+  it('renders the privacy page on the server, and leaves the mailed-link pages to the browser instead of a 404', async () => {
+    const privacy = await page('/privacy');
+    expect(privacy.status).toBe(200);
+    expect(privacy.html).toMatch(/<h1[^>]*>[^<]*[Pp]rivacy/);
+    for (const path of ['/subscriptions/confirm?token=abc', '/subscriptions/unsubscribe?token=abc']) {
+      const { status, html } = await page(path);
+      expect(status).toBe(200);
+      expect(html).not.toContain('Off the pad');
+    }
+  });
+});
+
 describe('a launch day without JavaScript', () => {
   it('holds its title and Event JSON-LD with the start in the club time zone', async () => {
     const { status, html } = await page(`/launches/${launchId}`);

@@ -55,6 +55,7 @@ describe('MemberDetail', () => {
     fixture.componentRef.setInput('id', '7');
     fixture.detectChanges();
     http.expectOne('/api/admin/members/7').flush(detail);
+    await settle();
     flushSiteNames(http);
     await settle();
     el = fixture.nativeElement as HTMLElement;
@@ -102,6 +103,7 @@ describe('MemberDetail flying claims', () => {
     fixture.componentRef.setInput('id', '7');
     fixture.detectChanges();
     http.expectOne('/api/admin/members/7').flush(claimed);
+    await settle();
     flushSiteNames(http);
     await settle();
     el = fixture.nativeElement as HTMLElement;
