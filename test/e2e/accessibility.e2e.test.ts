@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import type { TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 
 const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
@@ -15,14 +15,12 @@ interface AxeViolation {
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 let productSlug = '';
 let postSlug = '';
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
-  browser = await launchBrowser();
+browserSuite({}, async (s) => {
+  ({ t, site, browser } = s);
   // This file's own product and build log, so the pages under test never depend on other tests' data.
   const staff = new Client(t.app);
   await staff.signIn(await createUser(t.deps.db, ['fan', 'editor', 'treasurer', 'admin'], 'A11y Staff'));
@@ -39,11 +37,6 @@ beforeAll(async () => {
   const post = await staff.post('/api/admin/posts', { title: `Access check build log ${now}`, summary: 'Fins and a flight.', markdown: `## The fin can\n\nPrinted in three parts, then flown on a small motor.\n\n${'The layers were printed slowly and sanded smooth before the first coat of primer went on. '.repeat(12)}`, tags: ['rocketry'], status: 'published' });
   postSlug = post.body.slug;
   if (!productSlug || !postSlug) throw new Error(`fixtures not created: ${product.status} ${post.status}`);
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 /** axe-core's serious and critical findings for the page as it is now (WCAG 2.x A and AA rules). */

@@ -3,23 +3,16 @@ import path from 'node:path';
 import { strFromU8, unzipSync } from 'fflate';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
-import { ARTIFACTS, launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { ARTIFACTS, browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import type { TestApp } from '../helpers/test-app';
 import { createUser } from '../helpers/users';
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
+browserSuite({}, (s) => {
+  ({ t, site, browser } = s);
 });
 
 /** A phone-sized page that collects uncaught errors and console errors (failed answers the test expects aside). */

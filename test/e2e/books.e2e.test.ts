@@ -1,18 +1,16 @@
 import type { Browser } from 'playwright-core';
 import { recordMovement } from '../../server/books/ledger-writer';
-import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import type { TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 
 // January 2034: no other suite records money then, so the page shows this file's figures alone.
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
-  browser = await launchBrowser();
+browserSuite({}, async (s) => {
+  ({ t, site, browser } = s);
   await t.deps.db('money_movements').where('occurred_at', '>=', '2034-01-01').andWhere('occurred_at', '<', '2034-02-02').delete();
   // C$100 to Manitoba + GST 5% 5.00 + RST 7% 7.00 (CRA rate page; Manitoba Finance) = C$112.00.
   await t.deps.db.transaction((trx) =>
@@ -24,11 +22,6 @@ beforeAll(async () => {
       ],
     }),
   );
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 describe('the treasurer’s books in a browser', () => {

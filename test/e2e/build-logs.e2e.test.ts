@@ -1,14 +1,14 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
-import { launchBrowser, recordRequests, screenshot, serve, signInThroughForm } from '../helpers/browser';
+import { browserSuite, recordRequests, screenshot, signInThroughForm, type Site } from '../helpers/browser';
 import { waitForEmails } from '../helpers/maildev';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import type { TestApp } from '../helpers/test-app';
 import { Client, createUser, signedIn, type TestUser } from '../helpers/users';
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 let admin: Client;
 let sponsorId: number;
 let sponsorSlug: string;
@@ -16,10 +16,8 @@ let contact: TestUser;
 const stamp = Date.now().toString(36);
 const sponsorName = `Voltwhistle Electronics ${stamp}`;
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
-  browser = await launchBrowser();
+browserSuite({}, async (s) => {
+  ({ t, site, browser } = s);
   admin = (await signedIn(t.app, t.deps.db, ['fan', 'admin'])).client;
   const created = await admin.post('/api/admin/sponsors', { name: sponsorName, website: 'https://voltwhistle.example', blurb: 'Switches, wire and advice on Main Street.' });
   sponsorId = created.body.id;
@@ -27,11 +25,6 @@ beforeAll(async () => {
   await admin.post(`/api/admin/sponsors/${sponsorId}/agreements`, { season: String(new Date().getFullYear()), cashCents: 40_000, deliverables: [{ kind: 'build_log_credit', quantity: 2, dueOn: `${new Date().getFullYear() + 1}-06-30` }] });
   contact = await createUser(t.deps.db, ['fan', 'sponsor'], 'Cormac Portal');
   await admin.post(`/api/admin/sponsors/${sponsorId}/contacts`, { userId: contact.id });
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 /** A noisy PNG that does not compress, so the throttled upload takes long enough to watch the bar move. */

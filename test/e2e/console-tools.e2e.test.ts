@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import type { TestApp } from '../helpers/test-app';
 import { Client, createUser, signedIn, type TestUser } from '../helpers/users';
 import { MB_ADDRESS, methodId, stockSticker } from '../api/shop-fixtures';
 
@@ -10,22 +10,15 @@ type AxeViolation = { id: string; impact: string | null; help: string; nodes: { 
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 let admin: Client;
 const stamp = Date.now().toString(36);
 const year = new Date().getFullYear();
 const PHONE = { width: 390, height: 844 };
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
-  browser = await launchBrowser();
+browserSuite({}, async (s) => {
+  ({ t, site, browser } = s);
   admin = (await signedIn(t.app, t.deps.db, ['fan', 'admin'])).client;
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 /** axe-core's serious and critical findings for the page as it is now (WCAG 2.x A and AA rules). */

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import type { TestApp } from '../helpers/test-app';
 import { Client, createUser, type TestUser } from '../helpers/users';
 import { createLaunch, memberWithCard } from '../api/launch-fixtures';
 import { MB_ADDRESS, methodId, openShirt } from '../api/shop-fixtures';
@@ -18,14 +18,12 @@ const SECONDS = /\b\d{1,2}:\d{2}:\d{2}\b/g;
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 let staff: TestUser;
 const ids: Record<string, number> = {};
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
-  browser = await launchBrowser();
+browserSuite({}, async (s) => {
+  ({ t, site, browser } = s);
   staff = await createUser(t.deps.db, ['fan', 'editor', 'treasurer', 'admin', 'range_officer'], 'Wendell Wordsworth');
   const api = new Client(t.app);
   await api.signIn(staff);
@@ -60,11 +58,6 @@ beforeAll(async () => {
   const member = await memberWithCard(t, { name: 'Ottilie Wordsmith' });
   ids.member = Number((await t.deps.db('memberships').where('member_number', member.memberNumber).first('id')).id);
   ids.launch = await createLaunch(api, '2099-05-09');
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 /**

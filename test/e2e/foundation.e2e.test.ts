@@ -1,21 +1,14 @@
 import type { Browser } from 'playwright-core';
-import { launchBrowser, recordRequests, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { browserSuite, recordRequests, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import type { TestApp } from '../helpers/test-app';
 import { createUser } from '../helpers/users';
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
+browserSuite({}, (s) => {
+  ({ t, site, browser } = s);
 });
 
 describe('the storefront in a browser', () => {

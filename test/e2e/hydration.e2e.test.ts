@@ -1,8 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { consoleErrors, launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { browserSuite, consoleErrors, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import type { TestApp } from '../helpers/test-app';
 import { createUser, signedIn, type Client } from '../helpers/users';
 
 /**
@@ -11,17 +11,15 @@ import { createUser, signedIn, type Client } from '../helpers/users';
  */
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 let staff: Client;
 const tag = randomUUID().slice(0, 6);
 let slug: string;
 let membersPost: { slug: string; body: string };
 const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
-  browser = await launchBrowser();
+browserSuite({}, async (s) => {
+  ({ t, site, browser } = s);
   staff = (await signedIn(t.app, t.deps.db, ['fan', 'editor', 'treasurer'])).client;
   const made = await staff.post('/api/admin/products', {
     name: `Rail Buttons ${tag}`,
@@ -37,11 +35,6 @@ beforeAll(async () => {
   const hidden = await staff.post('/api/admin/posts', { title: `Shock cord mount ${tag}`, summary: 'Where the cord meets the tube.', markdown: body, status: 'published', membersOnly: true });
   expect(hidden.status).toBe(201);
   membersPost = { slug: hidden.body.post?.slug ?? hidden.body.slug, body };
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 // Angular reports hydration mismatches (NG05xx) as console errors, so `consoleErrors` catches them.

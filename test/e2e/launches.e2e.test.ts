@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, recordRequests, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
+import { browserSuite, recordRequests, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import { fixedClock, type TestApp } from '../helpers/test-app';
 import { createUser, signedIn, type Client } from '../helpers/users';
 import { syntheticAltimeterLog } from '../../seeds/05_launches';
 import { createLaunch, memberWithCard } from '../api/launch-fixtures';
@@ -13,22 +13,15 @@ const today = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Winnipeg', y
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 let rso: Client;
 let launchId: number;
 
-beforeAll(async () => {
-  // The real clock: the browser's own "today" picks the launch on the range table.
-  t = buildTestApp({ clock: fixedClock(new Date().toISOString()) });
-  site = await serve(t);
-  browser = await launchBrowser();
+// The real clock: the browser's own "today" picks the launch on the range table.
+browserSuite({ clock: fixedClock(new Date().toISOString()) }, async (s) => {
+  ({ t, site, browser } = s);
   rso = (await signedIn(t.app, t.deps.db, ['fan', 'range_officer'])).client;
   launchId = await createLaunch(rso, today, { title: `Phone test launch ${Date.now().toString(36)}`, ceilingMetres: 600 });
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 interface AxeViolation {

@@ -1,25 +1,18 @@
 import type { Browser } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
-import { consoleErrors, launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
+import { browserSuite, consoleErrors, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import { fixedClock, type TestApp } from '../helpers/test-app';
 import { createUser } from '../helpers/users';
 import { STRIPE_JS_STAND_IN } from './stripe-js-stand-in';
 
 const clock = fixedClock('2026-11-20T18:00:00Z');
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 const tag = `F${Date.now().toString(36)}`;
 
-beforeAll(async () => {
-  t = buildTestApp({ clock, env: { STRIPE_PUBLISHABLE_KEY: 'pk_test_padsideDuesBrowserTest' } });
-  site = await serve(t);
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
+browserSuite({ clock, env: { STRIPE_PUBLISHABLE_KEY: 'pk_test_padsideDuesBrowserTest' } }, (s) => {
+  ({ t, site, browser } = s);
 });
 
 describe('dues with a publishable key', () => {

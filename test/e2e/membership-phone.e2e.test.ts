@@ -1,28 +1,21 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
-import { consoleErrors, launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
+import { browserSuite, consoleErrors, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import { fixedClock, type TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 
 // Late November 2026 on the server; the browser's own calendar is the machine's.
 const clock = fixedClock('2026-11-20T18:00:00Z');
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 let plans: Record<string, number>;
 const tag = `P${Date.now().toString(36)}`;
 
-beforeAll(async () => {
-  t = buildTestApp({ clock });
-  site = await serve(t);
-  browser = await launchBrowser();
+browserSuite({ clock }, async (s) => {
+  ({ t, site, browser } = s);
   const res = await new Client(t.app).get('/api/membership/plans');
   plans = Object.fromEntries(res.body.items.map((p: { code: string; id: number }) => [p.code, p.id]));
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 /** The one console line a refused request leaves: Chromium logs every 4xx answer. */

@@ -1,28 +1,21 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, recordRequests, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
+import { browserSuite, recordRequests, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import { fixedClock, type TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 
 // Late November 2026: a renewal now runs from the current Dec 31 end to Dec 31, 2027.
 const clock = fixedClock('2026-11-20T18:00:00Z');
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 let plans: Record<string, number>;
 const tag = `E${Date.now().toString(36)}`;
 
-beforeAll(async () => {
-  t = buildTestApp({ clock });
-  site = await serve(t);
-  browser = await launchBrowser();
+browserSuite({ clock }, async (s) => {
+  ({ t, site, browser } = s);
   const res = await new Client(t.app).get('/api/membership/plans');
   plans = Object.fromEntries(res.body.items.map((p: { code: string; id: number }) => [p.code, p.id]));
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 /** A member who joined in June through the API (term to Dec 31, 2026). */

@@ -1,22 +1,15 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, screenshot, serve } from '../helpers/browser';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { browserSuite, screenshot, type Site } from '../helpers/browser';
+import type { TestApp } from '../helpers/test-app';
 import { createUser, signedIn } from '../helpers/users';
 import { openShirt } from '../api/shop-fixtures';
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
+browserSuite({}, (s) => {
+  ({ t, site, browser } = s);
 });
 
 /** Uncaught exceptions and console errors of a page, as text. */

@@ -4,9 +4,9 @@ import { season3Shirt } from '../../seeds/shop-art/product-art';
 import { storeProductArt } from '../../seeds/shop-art/store-art';
 import { DiskStorage } from '../../server/uploads/disk-storage';
 import { ImageUploads } from '../../server/uploads/image-uploads';
-import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
+import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
 import { firstLink, waitForEmails } from '../helpers/maildev';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import type { TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 import { openShirt } from '../api/shop-fixtures';
 import { toPaymentStep } from './checkout-steps';
@@ -14,22 +14,15 @@ import { formatDateTime } from '../../contracts/dates/club-dates';
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 let staff: Client;
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
+browserSuite({}, async (s) => {
+  ({ t, site, browser } = s);
   t.deps.mail.start(300);
-  browser = await launchBrowser();
   const staffUser = await createUser(t.deps.db, ['fan', 'treasurer'], 'Odile Ferrand');
   staff = new Client(t.app);
   await staff.signIn(staffUser);
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 /** A fresh browser context the size of a phone (390x844), with touch. */

@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import type { TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 import { openShirt } from '../api/shop-fixtures';
 import { toPaymentStep } from './checkout-steps';
@@ -8,17 +8,10 @@ import { STRIPE_JS_STAND_IN } from './stripe-js-stand-in';
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 
-beforeAll(async () => {
-  t = buildTestApp({ env: { STRIPE_PUBLISHABLE_KEY: 'pk_test_padsideBrowserTest' } });
-  site = await serve(t);
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
+browserSuite({ env: { STRIPE_PUBLISHABLE_KEY: 'pk_test_padsideBrowserTest' } }, (s) => {
+  ({ t, site, browser } = s);
 });
 
 describe('card entry with a publishable key', () => {

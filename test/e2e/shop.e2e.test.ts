@@ -1,25 +1,18 @@
 import type { Browser } from 'playwright-core';
-import { launchBrowser, recordRequests, screenshot, serve, signInThroughForm } from '../helpers/browser';
+import { browserSuite, recordRequests, screenshot, signInThroughForm, type Site } from '../helpers/browser';
 import { waitForEmails } from '../helpers/maildev';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import type { TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 import { openShirt } from '../api/shop-fixtures';
 import { toPaymentStep } from './checkout-steps';
 
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 
-beforeAll(async () => {
-  t = buildTestApp();
-  site = await serve(t);
+browserSuite({}, async (s) => {
+  ({ t, site, browser } = s);
   t.deps.mail.start(300);
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
 });
 
 describe('the merch shop in a browser', () => {

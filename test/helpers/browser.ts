@@ -2,7 +2,13 @@ import { mkdirSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
-import type { TestApp } from './test-app';
+import { buildTestApp, type TestApp } from './test-app';
+
+/** Where a served app answers, and how to stop it. */
+export interface Site {
+  baseUrl: string;
+  stop(): Promise<void>;
+}
 
 export const ARTIFACTS = path.resolve(__dirname, '..', 'artifacts');
 
@@ -19,7 +25,7 @@ export function launchBrowser(extraArgs: string[] = []): Promise<Browser> {
 }
 
 /** Serves the test app on a free loopback port; the URL is also its PUBLIC_URL for links in e-mails. */
-export async function serve(t: TestApp): Promise<{ baseUrl: string; stop(): Promise<void> }> {
+export async function serve(t: TestApp): Promise<Site> {
   const server = t.app.listen(0, '127.0.0.1');
   await new Promise<void>((resolve) => server.once('listening', () => resolve()));
   const { port } = server.address() as AddressInfo;
@@ -71,4 +77,31 @@ export function consoleErrors(page: Page): string[] {
     errors.push(`console: ${m.text()}`);
   });
   return errors;
+}
+
+/** What a browser test file works with: the app, the address it is served at, and one Chromium. */
+export interface BrowserSuite {
+  t: TestApp;
+  site: Site;
+  browser: Browser;
+}
+
+/**
+ * Registers a browser test file's set-up and tear-down: the app (built with `app`, as `buildTestApp` takes it) served
+ * on a free loopback port and one Chromium, closed in reverse order after the file. `ready` gets them once they are up
+ * and does the file's own preparation.
+ */
+export function browserSuite(app: Parameters<typeof buildTestApp>[0] = {}, ready: (s: BrowserSuite) => void | Promise<void> = () => undefined, timeoutMs?: number): void {
+  const s: Partial<BrowserSuite> = {};
+  beforeAll(async () => {
+    s.t = buildTestApp(app);
+    s.site = await serve(s.t);
+    s.browser = await launchBrowser();
+    await ready(s as BrowserSuite);
+  }, timeoutMs);
+  afterAll(async () => {
+    await s.browser?.close();
+    await s.site?.stop();
+    await s.t?.close();
+  });
 }
