@@ -1,30 +1,6 @@
-/** What the server makes of a flight's altimeter log (server/flights/flight-log): times are seconds from liftoff. */
-export interface FlightSummary {
-  apogeeMetres: number;
-  apogeeFeet?: number;
-  apogeeAtSeconds: number;
-  maxSpeedMps: number;
-  /** Descent rate under the main recovery device; null when the log ends before there is one. */
-  descentRateMps: number | null;
-  /** Largest accelerometer reading in g (1 g at rest); null when the log has no accelerometer. */
-  peakAccelG: number | null;
-  /** Null when the log ends before landing. */
-  flightTimeSeconds: number | null;
-  samples: number;
-}
+import type { FlightEvent, FlightSeriesPoint, FlightSummary } from '@contracts/flights/flight-data';
 
-/** One moment of the flight. */
-export interface FlightEvent {
-  kind: 'liftoff' | 'burnout' | 'apogee' | 'deployment' | 'landing';
-  t: number;
-}
-
-/** One chart point: seconds from liftoff, smoothed altitude above the pad, vertical speed. */
-export interface FlightSeriesPoint {
-  t: number;
-  altitudeM: number;
-  speedMps: number;
-}
+export type { FlightEvent, FlightSeriesPoint, FlightSummary };
 
 /** Which columns of a log hold what (the `columns` field of an upload). */
 export interface ColumnMapping {
