@@ -77,6 +77,8 @@ describe('the suppression list across two server processes', () => {
     const second = await announce('launches', 'Two-process check 2');
     expect((await rowsOf(second)).map((r) => r.to_address)).toEqual([stays]);
     expect((await editor.get(`/api/admin/announcements/${second}`)).body.announcement.counts).toEqual(expect.objectContaining({ recipients: 1, suppressed: 2 }));
+    await until('the other process to deliver the second', async () => (await rowsOf(second)).every((r) => r.status !== 'queued'));
+    expect(smtp.to(stays).map((m) => m.subject)).toEqual(['Two-process check 1', 'Two-process check 2']);
 
     // Mail queued before a suppression is stopped by the other process's worker at sending time.
     const third = await announce('launches', 'Two-process check 3');

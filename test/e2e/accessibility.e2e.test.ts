@@ -1,17 +1,9 @@
-import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
+import { seriousViolations } from '../helpers/axe';
 import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
 import type { TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 
-const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
-
-interface AxeViolation {
-  id: string;
-  impact: string | null;
-  help: string;
-  nodes: { target: string[] }[];
-}
 
 let t: TestApp;
 let browser: Browser;
@@ -38,16 +30,6 @@ browserSuite({}, async (s) => {
   postSlug = post.body.slug;
   if (!productSlug || !postSlug) throw new Error(`fixtures not created: ${product.status} ${post.status}`);
 });
-
-/** axe-core's serious and critical findings for the page as it is now (WCAG 2.x A and AA rules). */
-async function seriousViolations(page: Page): Promise<string[]> {
-  await page.evaluate(axeSource);
-  const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run(ctx: Document, opts: object): Promise<{ violations: AxeViolation[] }> } }).axe;
-    return (await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } })).violations;
-  });
-  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join('; ')})`);
-}
 
 // Each page is opened as the user who would use it, waits for its main heading, then goes through axe-core.
 describe('main pages have no serious or critical accessibility violations (axe-core)', () => {

@@ -1,12 +1,10 @@
-import { readFileSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { seriousViolations } from '../helpers/axe';
 import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
 import type { TestApp } from '../helpers/test-app';
 import { Client, createUser, signedIn, type TestUser } from '../helpers/users';
 import { MB_ADDRESS, methodId, stockSticker } from '../api/shop-fixtures';
 
-const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
-type AxeViolation = { id: string; impact: string | null; help: string; nodes: { target: string[] }[] };
 
 let t: TestApp;
 let browser: Browser;
@@ -20,16 +18,6 @@ browserSuite({}, async (s) => {
   ({ t, site, browser } = s);
   admin = (await signedIn(t.app, t.deps.db, ['fan', 'admin'])).client;
 });
-
-/** axe-core's serious and critical findings for the page as it is now (WCAG 2.x A and AA rules). */
-async function seriousViolations(page: Page): Promise<string[]> {
-  await page.evaluate(axeSource);
-  const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run(ctx: Document, opts: object): Promise<{ violations: AxeViolation[] }> } }).axe;
-    return (await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } })).violations;
-  });
-  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join('; ')})`);
-}
 
 /** A phone-sized page signed in as the user, collecting uncaught errors and console errors. */
 async function phonePage(user: TestUser): Promise<{ page: Page; context: BrowserContext; errors: string[] }> {

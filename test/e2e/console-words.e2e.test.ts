@@ -1,5 +1,5 @@
-import { readFileSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { seriousViolations } from '../helpers/axe';
 import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
 import type { TestApp } from '../helpers/test-app';
 import { Client, createUser, type TestUser } from '../helpers/users';
@@ -8,7 +8,6 @@ import { MB_ADDRESS, methodId, openShirt } from '../api/shop-fixtures';
 
 // Every console page a person reads shows labels, club-format dates without seconds and the zone in words: no
 // `snake_case` code, no tz database name, no "hundredths of a percent".
-const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 const SIZES = {
   phone: { viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true },
   desktop: { viewport: { width: 1366, height: 900 } },
@@ -77,15 +76,6 @@ async function readable(page: Page): Promise<string> {
     const labels = [...document.querySelectorAll('[aria-label]')].map((e) => e.getAttribute('aria-label') ?? '');
     return `${parts.join(' ')}\n${labels.join('\n')}`;
   });
-}
-
-async function seriousViolations(page: Page): Promise<string[]> {
-  await page.evaluate(axeSource);
-  const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run(ctx: object, opts: object): Promise<{ violations: { id: string; impact: string | null; help: string }[] }> } }).axe;
-    return (await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } })).violations;
-  });
-  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.help}`);
 }
 
 const PAGES: { name: string; path: () => string; ready: string | RegExp }[] = [

@@ -2,6 +2,7 @@ import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { seriousViolations } from '../helpers/axe';
 import { launchBrowser, screenshot, serve, signInThroughForm } from '../helpers/browser';
 import { writeQrVideo } from '../helpers/fake-camera';
 import { buildTestApp, fixedClock, type TestApp } from '../helpers/test-app';
@@ -14,7 +15,6 @@ import { memberWithCard } from '../api/launch-fixtures';
 // records how it went, the flyer adds the altimeter log, and the logbook and the day's results show the flight.
 // launches.e2e.test.ts covers refusals at the range table (a card beyond the flyer's certification, a bad motor).
 
-const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 // A phone held at the range table (a common 6.1-inch screen, in CSS pixels), and a laptop at home.
 const PHONE = { viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true };
 const DESKTOP = { viewport: { width: 1366, height: 900 } };
@@ -49,23 +49,6 @@ afterAll(async () => {
   await t?.close();
   if (videoDir) rmSync(videoDir, { recursive: true, force: true });
 });
-
-interface AxeViolation {
-  id: string;
-  impact: string | null;
-  help: string;
-  nodes: { target: string[] }[];
-}
-
-/** axe-core's serious and critical findings (WCAG 2.x A and AA rules). */
-async function seriousViolations(page: Page, exclude: string[] = []): Promise<string[]> {
-  await page.evaluate(axeSource);
-  const violations = await page.evaluate(async (exclude) => {
-    const axe = (window as unknown as { axe: { run(ctx: object, opts: object): Promise<{ violations: AxeViolation[] }> } }).axe;
-    return (await axe.run({ include: [document], exclude: exclude.map((s) => [s]) }, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } })).violations;
-  }, exclude);
-  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join('; ')})`);
-}
 
 /** A page whose uncaught errors and console errors are kept, to be empty at the end. */
 async function open(b: Browser, options: object): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {

@@ -1,12 +1,11 @@
-import { readFileSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { seriousViolations } from '../helpers/axe';
 import { browserSuite, recordRequests, screenshot, signInThroughForm, type Site } from '../helpers/browser';
 import { fixedClock, type TestApp } from '../helpers/test-app';
 import { createUser, signedIn, type Client } from '../helpers/users';
 import { syntheticAltimeterLog } from '../../seeds/05_launches';
 import { createLaunch, memberWithCard } from '../api/launch-fixtures';
 
-const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 // A phone held at the range table (a common 6.1-inch screen, in CSS pixels).
 const PHONE = { viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true };
 const today = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Winnipeg', year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
@@ -23,23 +22,6 @@ browserSuite({ clock: fixedClock(new Date().toISOString()) }, async (s) => {
   rso = (await signedIn(t.app, t.deps.db, ['fan', 'range_officer'])).client;
   launchId = await createLaunch(rso, today, { title: `Phone test launch ${Date.now().toString(36)}`, ceilingMetres: 600 });
 });
-
-interface AxeViolation {
-  id: string;
-  impact: string | null;
-  help: string;
-  nodes: { target: string[] }[];
-}
-
-/** axe-core's serious and critical findings (WCAG 2.x A and AA rules). */
-async function seriousViolations(page: Page, exclude: string[] = []): Promise<string[]> {
-  await page.evaluate(axeSource);
-  const violations = await page.evaluate(async (exclude) => {
-    const axe = (window as unknown as { axe: { run(ctx: object, opts: object): Promise<{ violations: AxeViolation[] }> } }).axe;
-    return (await axe.run({ include: [document], exclude: exclude.map((s) => [s]) }, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } })).violations;
-  }, exclude);
-  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join('; ')})`);
-}
 
 async function phone(): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext(PHONE);
