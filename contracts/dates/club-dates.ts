@@ -39,6 +39,16 @@ export function formatDay(ymd: string): string {
   return format('UTC', 'date').format(new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]), 12)));
 }
 
+const YM = /^(\d{4})-(\d{2})$/;
+const monthFormat = new Intl.DateTimeFormat(CLUB_LOCALE, { timeZone: 'UTC', month: 'short', year: 'numeric' });
+
+/** A calendar month (`YYYY-MM`, already a club month, as the books group by) as people read it: "Dec 2026". */
+export function formatMonth(ym: string): string {
+  const m = YM.exec(ym);
+  if (!m) return ym;
+  return monthFormat.format(new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, 15, 12)));
+}
+
 /** The club-time calendar date of an instant: "Mar 8, 2026". */
 export function formatDate(instant: Instant, timeZone: string): string {
   return format(timeZone, 'date').format(toDate(instant));

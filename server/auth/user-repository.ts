@@ -46,9 +46,20 @@ export class UserRepository {
   }
 
   /** Adds or removes one role atomically (used by features that drive a role, such as dues status). */
+  /**
+   * Adds or removes one role that a rule drives (dues in good standing give `member`); a change that happens goes
+   * into the account's history as made by no person, so admins see why the role came or went.
+   */
   async setRole(id: number, role: Role, present: boolean, trx: Knex | Knex.Transaction = this.db): Promise<void> {
-    const expr = present ? trx.raw('(SELECT array_agg(DISTINCT r) FROM unnest(array_append(roles, ?::text)) r)', [role]) : trx.raw('array_remove(roles, ?::text)', [role]);
-    await trx('users').where('id', id).update({ roles: expr, updated_at: trx.fn.now() });
+    const next = present ? '(SELECT array_agg(DISTINCT r) FROM unnest(array_append(roles, ?::text)) r)' : 'array_remove(roles, ?::text)';
+    await trx.raw(
+      `WITH before AS (SELECT id, roles FROM users WHERE id = ? FOR UPDATE),
+            after AS (UPDATE users u SET roles = ${next}, updated_at = now() FROM before b WHERE u.id = b.id RETURNING u.id, u.roles)
+       INSERT INTO account_changes (user_id, changed_by, kind, roles_before, roles_after)
+       SELECT a.id, NULL, 'roles', b.roles, a.roles FROM before b JOIN after a ON a.id = b.id
+       WHERE NOT (b.roles @> a.roles AND a.roles @> b.roles)`,
+      [id, role],
+    );
   }
 
   async page(opts: { q?: string; role?: Role; disabled?: boolean; page: number; pageSize: number }): Promise<{ items: UserRow[]; total: number }> {

@@ -1,3 +1,4 @@
+import { UserRepository } from '../../server/auth/user-repository';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, createUser, signedIn } from '../helpers/users';
 
@@ -79,6 +80,20 @@ describe('GET /api/admin/users/:id/history', () => {
       { id: expect.any(Number), kind: 'roles', added: ['treasurer'], removed: [], at: expect.any(String), by },
     ]);
     expect((await admin.get('/api/admin/users/99999999/history')).status).toBe(404);
+  });
+
+  it('lists the member role that dues gave and took, as made by no person, and nothing when the role stays', async () => {
+    const { client: admin } = await signedIn(t.app, t.deps.db, ['fan', 'admin']);
+    const user = await createUser(t.deps.db, ['fan']);
+    const users = new UserRepository(t.deps.db);
+    await users.setRole(user.id, 'member', true); // dues paid
+    await users.setRole(user.id, 'member', true); // a second payment: no change
+    await users.setRole(user.id, 'member', false); // lapsed
+    const res = await admin.get(`/api/admin/users/${user.id}/history`);
+    expect(res.body.items).toEqual([
+      { id: expect.any(Number), kind: 'roles', added: [], removed: ['member'], at: expect.any(String), by: null },
+      { id: expect.any(Number), kind: 'roles', added: ['member'], removed: [], at: expect.any(String), by: null },
+    ]);
   });
 
   it('is for admins only', async () => {

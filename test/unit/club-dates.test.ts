@@ -1,4 +1,4 @@
-import { clubTimeInWords, formatClock, formatDate, formatDateTime, formatDay, formatTime, isoDateInZone, isoInZone, zonedHeader } from '../../contracts/dates/club-dates';
+import { clubTimeInWords, formatClock, formatDate, formatDateTime, formatDay, formatMonth, formatTime, isoDateInZone, isoInZone, zonedHeader } from '../../contracts/dates/club-dates';
 
 const WPG = 'America/Winnipeg';
 
@@ -48,6 +48,13 @@ describe('dates and times stored without a zone', () => {
   it('reads a calendar date the same in any process time zone', () => {
     expect(formatDay('2026-03-08')).toBe('Mar 8, 2026');
     expect(formatDay('2026-12-31')).toBe('Dec 31, 2026');
+  });
+
+  it('reads a month of the books as a short month name and the year, and leaves anything else as it came', () => {
+    // en-CA short month names as CLDR gives them (the data Intl ships).
+    expect(formatMonth('2026-12')).toBe('Dec 2026');
+    expect(formatMonth('2027-01')).toBe('Jan 2027');
+    expect(formatMonth('December')).toBe('December');
   });
 
   it('reads a launch window time in the same words', () => {

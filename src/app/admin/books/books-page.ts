@@ -17,6 +17,7 @@ import { MoneyPipe } from '../../shared/money-pipe';
 import { BooksApi, type Period, type RevenueRow } from './books-api';
 import { FeeSettingsCard } from './fee-settings-card';
 import { currentQuarter } from './period';
+import { formatMonth } from '@contracts/dates/club-dates';
 
 const SOURCE_COLOURS: Record<RevenueRow['source'], string> = { merch: '#376286', dues: '#c8561f', sponsor: '#6a7988' };
 
@@ -49,7 +50,7 @@ export class BooksPage {
     const rows = this.revenue.value()?.rows ?? [];
     const months = [...new Set(rows.map((r) => r.month))];
     return {
-      labels: months,
+      labels: months.map(formatMonth),
       datasets: (Object.keys(SOURCE_LABELS) as RevenueRow['source'][]).map((source) => ({
         label: SOURCE_LABELS[source],
         backgroundColor: SOURCE_COLOURS[source],

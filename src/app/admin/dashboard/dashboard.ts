@@ -19,6 +19,7 @@ import { LabelPipe } from '../../shared/label-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { BooksApi } from '../books/books-api';
 import { EditorOverview } from './editor-overview';
+import { formatMonth } from '@contracts/dates/club-dates';
 
 const SOURCES = [
   { key: 'merch', label: MOVEMENT_SOURCE_LABELS.merch, colour: '#376286' },
@@ -60,7 +61,7 @@ export class Dashboard {
     const rows = this.data.value()?.revenueByMonth ?? [];
     const months = [...new Set(rows.map((r) => r.month))];
     return {
-      labels: months,
+      labels: months.map(formatMonth),
       datasets: SOURCES.map((s) => ({ label: s.label, backgroundColor: s.colour, data: months.map((m) => (rows.find((r) => r.month === m && r.source === s.key)?.netCents ?? 0) / 100) })),
     };
   });
