@@ -42,7 +42,8 @@ describe('the shop e-mails', () => {
     expect(mails.map((m) => m.subject).sort()).toEqual([`Nozzle & Nylon order ${res.body.order.number} is on its way`, `Nozzle & Nylon order ${res.body.order.number}: thank you`]);
     // Signed with the team's name; the seller line of the receipt is a shop setting that other suites set.
     for (const m of mails) {
-      expect(m.text.trim().split('\n').at(-1)).toBe('Nozzle & Nylon');
+      // The sign-off ends the message itself, above the "why you got this" footer.
+      expect(m.text.split('\n--\n')[0].trim().split('\n').at(-1)).toBe('Nozzle & Nylon');
       expect(m.text).not.toContain('Padside');
     }
   });
