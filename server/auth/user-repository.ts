@@ -51,7 +51,7 @@ export class UserRepository {
    * into the account's history as made by no person, so admins see why the role came or went.
    */
   async setRole(id: number, role: Role, present: boolean, trx: Knex | Knex.Transaction = this.db): Promise<void> {
-    const next = present ? '(SELECT array_agg(DISTINCT r) FROM unnest(array_append(roles, ?::text)) r)' : 'array_remove(roles, ?::text)';
+    const next = present ? '(SELECT array_agg(DISTINCT r) FROM unnest(array_append(u.roles, ?::text)) r)' : 'array_remove(u.roles, ?::text)';
     await trx.raw(
       `WITH before AS (SELECT id, roles FROM users WHERE id = ? FOR UPDATE),
             after AS (UPDATE users u SET roles = ${next}, updated_at = now() FROM before b WHERE u.id = b.id RETURNING u.id, u.roles)

@@ -40,7 +40,7 @@ describe('the treasurer’s books in a browser', () => {
     const income = page.getByRole('table', { name: 'Income by month and source' });
     await income.getByRole('columnheader', { name: 'Income net of tax' }).waitFor();
     // Gross C$112.00, tax C$12.00, income C$100.00.
-    await income.getByRole('row', { name: /2034-01 Merch \$112\.00 \$12\.00 \$100\.00/ }).waitFor();
+    await income.getByRole('row', { name: /Jan 2034 Merch \$112\.00 \$12\.00 \$100\.00/ }).waitFor();
     await screenshot(page, 'books-tax-per-authority');
     await page.close();
   });
