@@ -48,7 +48,7 @@ describe('CreditDialog', () => {
   it('should offer the open build-log promises, earliest due first and preselected', async () => {
     const { choice } = await pickSponsor();
     const labels = await Promise.all((await choice.getRadioButtons()).map((r) => r.getLabelText()));
-    expect(labels).toEqual(['2026 build log credits: 1 of 3 delivered, due 2026-12-31', '2027 build log credits: 0 of 2 delivered, due 2027-06-30']);
+    expect(labels).toEqual(['2026 build log credits: 1 of 3 delivered, due Dec 31, 2026', '2027 build log credits: 0 of 2 delivered, due Jun 30, 2027']);
     expect(await choice.getCheckedValue()).toBe('12');
   });
 

@@ -8,6 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { map, of } from 'rxjs';
+import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { SponsorAdminApi, type AdminSponsorRow } from '../sponsors/sponsor-admin-api';
 import { creditMarker, openPromises, type OpenPromise } from './credit-marker';
@@ -24,7 +25,7 @@ export interface CreditDialogData {
  */
 @Component({
   selector: 'ps-credit-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, FieldErrorPipe],
+  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, ClubDatePipe, FieldErrorPipe],
   templateUrl: './credit-dialog.html',
   styles: `.counted, .promise-choice { margin: 0 0 16px; } .promises { display: flex; flex-direction: column; } .promises-label { margin: 0 0 4px; font-weight: 500; } mat-form-field { width: 100%; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
