@@ -72,8 +72,8 @@ describe('build logs and sponsor credits in a browser', () => {
     await page.getByRole('option', { name: sponsorName }).click();
     // Both open promises are offered, the earliest due preselected; the editor counts this post towards the later one.
     const year = new Date().getFullYear();
-    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 2 delivered, due ${year + 1}-06-30`, checked: true }).waitFor();
-    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 3 delivered, due ${year + 1}-12-31` }).check();
+    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 2 delivered, due Jun 30, ${year + 1}`, checked: true }).waitFor();
+    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 3 delivered, due Dec 31, ${year + 1}` }).check();
     await dialog.getByRole('button', { name: 'Insert thank-you card' }).click();
     await dialog.waitFor({ state: 'detached' });
     const preview = page.getByRole('region', { name: 'Preview' });

@@ -115,7 +115,7 @@ describe('the editor on a phone', () => {
     await dialog.getByLabel('Sponsor').click();
     await page.getByRole('option', { name: sponsor.name }).click();
     // The only open promise is offered and preselected, as the server would pick it.
-    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 3 delivered, due ${year + 1}-03-31`, checked: true }).waitFor();
+    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 3 delivered, due Mar 31, ${year + 1}`, checked: true }).waitFor();
     await dialog.getByLabel('Note on the card (optional)').fill('Fin jigs and a spare hand');
     await settled(page);
     await screenshot(page, 'post-editor-credit-dialog-phone');
