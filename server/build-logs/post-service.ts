@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { creditMarkerSlugs, renderMarkdown } from '../markdown/render-markdown';
+import { creditMarkers, creditMarkerSlugs, renderMarkdown } from '../markdown/render-markdown';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { Role } from '../platform/roles';
 import type { CreditService } from '../sponsors/credit-service';
@@ -42,11 +42,11 @@ export class PostService {
     return this.db.transaction(async (trx) => {
       const slug = input.slug ?? uniqueSlug(slugify(input.title), await this.posts.slugsLike(slugify(input.title), trx));
       if (input.slug && (await this.posts.slugTaken(input.slug, null, trx))) throw conflict('slug_taken', 'Another post uses this address.', { slug: 'Already used by another post.' });
-      const sponsorIds = await this.creditedSponsors(trx, input);
+      const { sponsorIds, chosen } = await this.creditedSponsors(trx, input);
       const write = this.toWrite(input, slug, null, now);
       const id = await this.posts.insert(trx, write, authorId);
       await this.posts.setCredits(trx, id, sponsorIds);
-      await this.credits.syncPostCredits(trx, { id, slug, title: write.title, published: write.status === 'published' }, sponsorIds, now);
+      await this.credits.syncPostCredits(trx, { id, slug, title: write.title, published: write.status === 'published' }, sponsorIds, now, chosen);
       return { id, slug };
     });
   }
@@ -58,11 +58,11 @@ export class PostService {
       if (!current) throw notFound('No such post.');
       const slug = input.slug ?? current.slug;
       if (await this.posts.slugTaken(slug, id, trx)) throw conflict('slug_taken', 'Another post uses this address.', { slug: 'Already used by another post.' });
-      const sponsorIds = await this.creditedSponsors(trx, input);
+      const { sponsorIds, chosen } = await this.creditedSponsors(trx, input);
       const write = this.toWrite(input, slug, current, now);
       await this.posts.update(trx, id, write);
       await this.posts.setCredits(trx, id, sponsorIds);
-      await this.credits.syncPostCredits(trx, { id, slug, title: write.title, published: write.status === 'published' }, sponsorIds, now);
+      await this.credits.syncPostCredits(trx, { id, slug, title: write.title, published: write.status === 'published' }, sponsorIds, now, chosen);
       return { id, slug };
     });
   }
@@ -75,7 +75,9 @@ export class PostService {
         const input: PostInput = { title: p.title, markdown: p.markdown, summary: p.summary, coverUrl: p.cover_url, tags: p.tags, membersOnly: p.members_only, status: 'published', publishAt: p.publish_at, hazardNotice: p.hazard_requested };
         const sponsorIds = [...(await this.posts.creditsOf([Number(p.id)], trx)).get(Number(p.id)) ?? []].map((c) => c.sponsorId);
         await this.posts.update(trx, Number(p.id), { ...this.toWrite(input, p.slug, p, now), publishedAt: p.publish_at ?? now });
-        await this.credits.syncPostCredits(trx, { id: Number(p.id), slug: p.slug, title: p.title, published: true }, sponsorIds, now);
+        const markers = creditMarkers(p.markdown);
+        const chosen = this.chosenDeliverables(markers, await this.sponsors.bySlugs(markers.map((m) => m.slug), trx));
+        await this.credits.syncPostCredits(trx, { id: Number(p.id), slug: p.slug, title: p.title, published: true }, sponsorIds, now, chosen);
       }
       return { published: due.length };
     });
@@ -179,16 +181,36 @@ export class PostService {
     return p.hazard_requested || needsHazardNotice(p);
   }
 
-  /** Sponsors from the editor's panel and from the credit markers in the body; an unknown one is a field error. */
-  private async creditedSponsors(trx: Knex.Transaction, input: PostInput): Promise<number[]> {
+  /**
+   * Sponsors from the editor's panel and from the credit markers in the body, with the deliverable each marker names
+   * (by sponsor id). An unknown sponsor, or a marker naming a deliverable that is not one of that sponsor's, is a
+   * field error on the text.
+   */
+  private async creditedSponsors(trx: Knex.Transaction, input: PostInput): Promise<{ sponsorIds: number[]; chosen: Map<number, number> }> {
     const ids = [...new Set(input.credits ?? [])];
     const byId = await this.sponsors.byIds(ids, trx);
     if (byId.length !== ids.length) throw badRequest('A credited sponsor does not exist.', { credits: 'Pick sponsors from the list.' });
-    const slugs = creditMarkerSlugs(input.markdown);
-    const bySlug = await this.sponsors.bySlugs(slugs, trx);
-    const unknown = slugs.filter((s) => !bySlug.some((b) => b.slug === s));
-    if (unknown.length) throw badRequest('A credit marker names a sponsor that does not exist.', { markdown: `No sponsor with the address “${unknown[0]}”. Use the credit picker to insert a marker.` });
-    return [...new Set([...ids, ...bySlug.map((s) => Number(s.id))])].sort((a, b) => a - b);
+    const markers = creditMarkers(input.markdown);
+    const bySlug = await this.sponsors.bySlugs(markers.map((m) => m.slug), trx);
+    const unknown = markers.filter((m) => !bySlug.some((b) => b.slug === m.slug));
+    if (unknown.length) throw badRequest('A credit marker names a sponsor that does not exist.', { markdown: `No sponsor with the address “${unknown[0].slug}”. Use the credit picker to insert a marker.` });
+    const chosen = this.chosenDeliverables(markers, bySlug);
+    for (const [sponsorId, deliverableId] of chosen) {
+      if ((await this.sponsors.deliverables(sponsorId, trx)).some((d) => Number(d.id) === deliverableId)) continue;
+      const slug = bySlug.find((b) => Number(b.id) === sponsorId)!.slug;
+      throw badRequest('A credit marker names a promise of another sponsor.', { markdown: `The marker for “${slug}” names promise #${deliverableId}, which is not one of that sponsor’s. Use the credit picker to insert a marker.` });
+    }
+    return { sponsorIds: [...new Set([...ids, ...bySlug.map((s) => Number(s.id))])].sort((a, b) => a - b), chosen };
+  }
+
+  /** The deliverable each credit marker names, by sponsor id (markers without `#id` leave the choice to the ledger). */
+  private chosenDeliverables(markers: readonly { slug: string; deliverableId: number | null }[], sponsors: readonly { id: number | string; slug: string }[]): Map<number, number> {
+    const chosen = new Map<number, number>();
+    for (const m of markers) {
+      const sponsor = sponsors.find((s) => s.slug === m.slug);
+      if (sponsor && m.deliverableId !== null) chosen.set(Number(sponsor.id), m.deliverableId);
+    }
+    return chosen;
   }
 
   private toWrite(input: PostInput, slug: string, current: PostRow | null, now: Date): PostWrite {

@@ -5,17 +5,22 @@ import sanitizeHtml from 'sanitize-html';
  * The one Markdown pipeline (editor preview, public pages, feeds, product descriptions): marked with GFM, then
  * sanitize-html with an allow-list. Raw HTML in the source is sanitized like everything else.
  *
- * Padside's own credit marker is a line of its own: `%thanks <sponsor-slug>` or `%thanks <sponsor-slug> | a note`.
- * It renders an acknowledgement card and tells the ledger which sponsors a post credits.
+ * Padside's own credit marker is a line of its own: `%thanks <sponsor-slug>` or `%thanks <sponsor-slug> | a note`, with
+ * an optional `#<deliverable id>` after the slug (`%thanks <sponsor-slug> #12 | a note`) naming the promise the credit
+ * counts against; without it the credit counts against the sponsor's earliest-due open one. It renders an
+ * acknowledgement card (the same with or without the id, which readers never see) and tells the ledger which
+ * sponsors a post credits.
  *
  * The flight marker is a line of its own too: `%flight <id>`. It renders an empty placeholder that the post page
  * fills with that flight's chart and summary; elsewhere (feeds, previews) a short line of text stands in.
  */
-const CREDIT_LINE = /^%thanks +([a-z0-9][a-z0-9-]{0,79})(?: *\| *([^\n]*))?(?:\n+|$)/;
+const CREDIT_LINE = /^%thanks +([a-z0-9][a-z0-9-]{0,79})(?: +#([1-9][0-9]{0,9}))?(?: *\| *([^\n]*))?[ \t]*(?:\n+|$)/;
 
 interface CreditToken extends Tokens.Generic {
   type: 'psCredit';
   slug: string;
+  /** The deliverable the marker names, or null when it leaves the choice to the ledger. */
+  deliverableId: number | null;
   note: string;
   sponsorName?: string;
 }
@@ -30,7 +35,7 @@ const creditMarker: TokenizerAndRendererExtension = {
   tokenizer(src) {
     const m = CREDIT_LINE.exec(src);
     if (!m) return undefined;
-    return { type: 'psCredit', raw: m[0], slug: m[1], note: (m[2] ?? '').trim() } satisfies CreditToken;
+    return { type: 'psCredit', raw: m[0], slug: m[1], deliverableId: m[2] ? Number(m[2]) : null, note: (m[3] ?? '').trim() } satisfies CreditToken;
   },
   renderer(token) {
     const t = token as CreditToken;
@@ -212,9 +217,18 @@ export function renderMarkdown(markdown: string, options: RenderOptions = {}): s
   }
 }
 
-/** The sponsor slugs that credit markers name, in order of appearance, once each (markers inside code do not count). */
-export function creditMarkerSlugs(markdown: string): string[] {
-  const slugs: string[] = [];
+/** One credit marker as the ledger reads it: the sponsor's address and the deliverable it names, if any. */
+export interface CreditMarker {
+  slug: string;
+  deliverableId: number | null;
+}
+
+/**
+ * The credit markers of a text, in order of appearance, once per sponsor (the first marker of a sponsor decides its
+ * deliverable; markers inside code do not count).
+ */
+export function creditMarkers(markdown: string): CreditMarker[] {
+  const markers: CreditMarker[] = [];
   let tokens: Token[];
   try {
     tokens = lex(markdown);
@@ -224,9 +238,16 @@ export function creditMarkerSlugs(markdown: string): string[] {
     throw err;
   }
   marked.walkTokens(tokens, (token: Token) => {
-    if (token.type === 'psCredit' && !slugs.includes((token as CreditToken).slug)) slugs.push((token as CreditToken).slug);
+    if (token.type !== 'psCredit') return;
+    const t = token as CreditToken;
+    if (!markers.some((m) => m.slug === t.slug)) markers.push({ slug: t.slug, deliverableId: t.deliverableId });
   });
-  return slugs;
+  return markers;
+}
+
+/** The sponsor slugs that credit markers name, in order of appearance, once each. */
+export function creditMarkerSlugs(markdown: string): string[] {
+  return creditMarkers(markdown).map((m) => m.slug);
 }
 
 /** The flight ids that flight markers name, in order of appearance, once each (markers inside code do not count). */

@@ -22,17 +22,18 @@ export class CreditService {
 
   /**
    * Makes the post's live credits match what it should give: one per credited sponsor while published, none
-   * otherwise. New credits count against the sponsor's earliest open `build_log_credit` and e-mail each contact
-   * once per post and sponsor, however often the post is unpublished and published again.
+   * otherwise. A new credit counts against the `build_log_credit` its marker named (`chosen`, deliverable id by
+   * sponsor id) when that one is still open, else the sponsor's earliest open one; each contact is e-mailed once
+   * per post and sponsor, however often the post is unpublished and published again.
    */
-  async syncPostCredits(trx: Knex.Transaction, post: CreditingPost, sponsorIds: readonly number[], at: Date): Promise<void> {
+  async syncPostCredits(trx: Knex.Transaction, post: CreditingPost, sponsorIds: readonly number[], at: Date, chosen: ReadonlyMap<number, number> = new Map()): Promise<void> {
     const wanted = post.published ? new Set(sponsorIds) : new Set<number>();
     const live = await this.repo.liveCreditSponsors(trx, post.id);
     await this.repo.withdrawPostCredits(trx, post.id, live.filter((id) => !wanted.has(id)), at);
     const link = `${this.publicUrl}/build-logs/${post.slug}`;
     for (const sponsorId of [...wanted].filter((id) => !live.includes(id)).sort((a, b) => a - b)) {
       await this.repo.lock(trx, sponsorId);
-      const deliverableId = await this.openDeliverable(trx, sponsorId, 'build_log_credit');
+      const deliverableId = await this.openDeliverable(trx, sponsorId, 'build_log_credit', chosen.get(sponsorId) ?? null);
       await this.repo.insertCredit(trx, { sponsorId, deliverableId, kind: 'build_log_credit', url: link, videoTimestamp: null, note: null, postId: post.id, recordedBy: null, creditedAt: at });
       const sponsor = (await this.repo.byId(sponsorId, trx))!;
       for (const c of await this.repo.contacts(sponsorId, trx)) {
@@ -57,11 +58,12 @@ export class CreditService {
     return { id, deliverableId };
   }
 
-  private async openDeliverable(trx: Knex.Transaction, sponsorId: number, kind: DeliverableKind): Promise<number | null> {
+  private async openDeliverable(trx: Knex.Transaction, sponsorId: number, kind: DeliverableKind, preferredId: number | null = null): Promise<number | null> {
     const rows = await this.repo.deliverables(sponsorId, trx);
     const open = deliverableToCredit(
       rows.map((d) => ({ id: Number(d.id), kind: d.kind, quantity: d.quantity, dueOn: d.due_on, delivered: Number(d.delivered) })),
       kind,
+      preferredId,
     );
     return open?.id ?? null;
   }

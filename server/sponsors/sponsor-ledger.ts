@@ -58,7 +58,17 @@ export function nextDue(lines: readonly DeliverableLine[], today: string): Deliv
   return lines.find((l) => l.delivered < l.promised && l.dueOn >= today) ?? null;
 }
 
-/** Among open deliverables of a kind, the one a new credit counts against: the earliest due. */
-export function deliverableToCredit<T extends { id: number; kind: string; quantity: number; dueOn: string; delivered: number }>(deliverables: readonly T[], kind: string): T | null {
-  return [...deliverables].filter((d) => d.kind === kind && d.delivered < d.quantity).sort((a, b) => a.dueOn.localeCompare(b.dueOn) || a.id - b.id)[0] ?? null;
+/**
+ * Among one sponsor's open deliverables of a kind, the one a new credit counts against: the one the author named
+ * (`preferredId`, from a credit marker's `#id`) when it is among them, of that kind and still open; otherwise the
+ * earliest due. A named one that is of another sponsor, another kind or already delivered in full thus falls back
+ * rather than failing the publish: the credit still lands on a promise that is owed.
+ */
+export function deliverableToCredit<T extends { id: number; kind: string; quantity: number; dueOn: string; delivered: number }>(
+  deliverables: readonly T[],
+  kind: string,
+  preferredId: number | null = null,
+): T | null {
+  const open = deliverables.filter((d) => d.kind === kind && d.delivered < d.quantity);
+  return open.find((d) => d.id === preferredId) ?? [...open].sort((a, b) => a.dueOn.localeCompare(b.dueOn) || a.id - b.id)[0] ?? null;
 }

@@ -89,6 +89,54 @@ describe('publishing a crediting post', () => {
     });
   });
 
+  describe('when the credit marker names a deliverable', () => {
+    /** A sponsor whose 2026 agreement promises two build-log credits lines (due in December and in March) and a video mention. */
+    async function sponsorWithTwoPromises(name: string) {
+      const created = await admin.post('/api/admin/sponsors', { name, website: 'https://example.test', blurb: 'Invented for a test.' });
+      const id = created.body.id as number;
+      const deliverables = [
+        { kind: 'build_log_credit', quantity: 1, dueOn: '2026-12-31' },
+        { kind: 'build_log_credit', quantity: 2, dueOn: '2027-03-31' },
+        { kind: 'video_mention', quantity: 1, dueOn: '2026-12-15' },
+      ];
+      expect((await admin.post(`/api/admin/sponsors/${id}/agreements`, { season: '2026', deliverables })).status).toBe(201);
+      const lines = (await admin.get(`/api/admin/sponsors/${id}/ledger`)).body.agreements[0].deliverables as { id: number; kind: string; dueOn: string }[];
+      const byDue = (dueOn: string) => lines.find((l) => l.dueOn === dueOn)!.id;
+      return { id, slug: created.body.slug as string, earliest: byDue('2026-12-31'), later: byDue('2027-03-31'), video: byDue('2026-12-15') };
+    }
+    const delivered = async (sponsorId: number) => Object.fromEntries((await ledgerOf(sponsorId)).map((d) => [d.dueOn, d.delivered]));
+
+    it('credits the named deliverable, not the earliest due, and the page shows the same card', async () => {
+      const s = await sponsorWithTwoPromises('Named Promise Nozzles');
+      const res = await editor.post('/api/admin/posts', { title: 'Named promise post', markdown: `%thanks ${s.slug} #${s.later} | nozzles\n`, status: 'published' });
+      expect(res.status).toBe(201);
+      expect(await delivered(s.id)).toEqual({ '2026-12-31': 0, '2027-03-31': 1, '2026-12-15': 0 });
+      const page = await new Client(t.app).get(`/api/posts/${res.body.slug}`);
+      expect(page.body.html).toContain('<strong>Named Promise Nozzles</strong> — nozzles');
+      expect(page.body.html).not.toContain(`#${s.later}`);
+    });
+
+    it('falls back to the earliest due when the named one is of another kind or delivered in full', async () => {
+      const s = await sponsorWithTwoPromises('Fallback Fasteners');
+      const video = await editor.post('/api/admin/posts', { title: 'Names the video line', markdown: `%thanks ${s.slug} #${s.video}\n`, status: 'published' });
+      expect(video.status).toBe(201);
+      expect(await delivered(s.id)).toEqual({ '2026-12-31': 1, '2027-03-31': 0, '2026-12-15': 0 });
+      const full = await editor.post('/api/admin/posts', { title: 'Names the full line', markdown: `%thanks ${s.slug} #${s.earliest}\n`, status: 'published' });
+      expect(full.status).toBe(201);
+      expect(await delivered(s.id)).toEqual({ '2026-12-31': 1, '2027-03-31': 1, '2026-12-15': 0 });
+    });
+
+    it('answers 400 on the markdown field when the deliverable is another sponsor’s, and saves nothing', async () => {
+      const mine = await sponsorWithTwoPromises('Own Promise Optics');
+      const theirs = await sponsorWithTwoPromises('Other Promise Optics');
+      const res = await editor.post('/api/admin/posts', { title: 'Wrong promise', markdown: `%thanks ${mine.slug} #${theirs.later}\n`, status: 'published' });
+      expect(res.status).toBe(400);
+      expect(res.body.error.fields.markdown).toMatch(new RegExp(`#${theirs.later}`));
+      expect(await t.deps.db('posts').where('title', 'Wrong promise')).toHaveLength(0);
+      expect(await delivered(theirs.id)).toEqual({ '2026-12-31': 0, '2027-03-31': 0, '2026-12-15': 0 });
+    });
+  });
+
   describe('when more posts credit the sponsor than were promised', () => {
     it('fills the earliest deliverable first and records the extra credit as uncounted', async () => {
       const s = await sponsorWithAgreement('Overflow Optics', 1, '2026-12-31');

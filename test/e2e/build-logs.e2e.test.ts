@@ -22,7 +22,12 @@ browserSuite({}, async (s) => {
   const created = await admin.post('/api/admin/sponsors', { name: sponsorName, website: 'https://voltwhistle.example', blurb: 'Switches, wire and advice on Main Street.' });
   sponsorId = created.body.id;
   sponsorSlug = created.body.slug;
-  await admin.post(`/api/admin/sponsors/${sponsorId}/agreements`, { season: String(new Date().getFullYear()), cashCents: 40_000, deliverables: [{ kind: 'build_log_credit', quantity: 2, dueOn: `${new Date().getFullYear() + 1}-06-30` }] });
+  const year = new Date().getFullYear();
+  const deliverables = [
+    { kind: 'build_log_credit', quantity: 2, dueOn: `${year + 1}-06-30` },
+    { kind: 'build_log_credit', quantity: 3, dueOn: `${year + 1}-12-31` },
+  ];
+  await admin.post(`/api/admin/sponsors/${sponsorId}/agreements`, { season: String(year), cashCents: 40_000, deliverables });
   contact = await createUser(t.deps.db, ['fan', 'sponsor'], 'Cormac Portal');
   await admin.post(`/api/admin/sponsors/${sponsorId}/contacts`, { userId: contact.id });
 });
@@ -65,9 +70,14 @@ describe('build logs and sponsor credits in a browser', () => {
     const dialog = page.getByRole('dialog', { name: 'Thank a sponsor' });
     await dialog.getByLabel('Sponsor').click();
     await page.getByRole('option', { name: sponsorName }).click();
+    // Both open promises are offered, the earliest due preselected; the editor counts this post towards the later one.
+    const year = new Date().getFullYear();
+    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 2 delivered, due Jun 30, ${year + 1}`, checked: true }).waitFor();
+    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 3 delivered, due Dec 31, ${year + 1}` }).check();
     await dialog.getByRole('button', { name: 'Insert thank-you card' }).click();
     await dialog.waitFor({ state: 'detached' });
     const preview = page.getByRole('region', { name: 'Preview' });
+    expect(await page.getByRole('textbox', { name: 'Markdown' }).inputValue()).toMatch(new RegExp(`\\n%thanks ${sponsorSlug} #[1-9][0-9]*\\n`));
     await preview.getByText('With thanks to').waitFor();
     await preview.getByText(sponsorName).waitFor();
     await preview.locator('img[src^="/uploads/"]').waitFor();
@@ -104,7 +114,9 @@ describe('build logs and sponsor credits in a browser', () => {
     await page.getByText(`Signed in for`).waitFor();
     const creditLink = page.getByRole('link', { name: `Altimeter bay ${stamp}` });
     await creditLink.waitFor();
-    await page.getByRole('cell', { name: '1 of 2' }).waitFor();
+    // The credit counts towards the promise the editor picked, not the earliest due.
+    await page.getByRole('cell', { name: '1 of 3', exact: true }).waitFor();
+    await page.getByRole('cell', { name: '0 of 2', exact: true }).waitFor();
     await screenshot(page, 'sponsor-portal');
 
     const [pdf] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: /Acknowledgement report \(PDF\)/ }).click()]);
@@ -135,7 +147,7 @@ describe('build logs and sponsor credits in a browser', () => {
     await page.getByRole('heading', { name: 'Overdue promises' }).waitFor();
     await page.getByRole('link', { name: sponsorName }).click();
     await page.getByRole('heading', { name: 'Agreements and ledger' }).waitFor();
-    await page.getByRole('cell', { name: '1 of 2' }).waitFor();
+    await page.getByRole('cell', { name: '1 of 3', exact: true }).waitFor();
     await page.getByRole('textbox', { name: 'Link' }).fill('not a link');
     await page.getByRole('button', { name: 'Record credit' }).click();
     await page.getByText('Enter an address starting with http:// or https://.').waitFor();

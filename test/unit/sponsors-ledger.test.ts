@@ -49,6 +49,14 @@ describe('ledgerLines', () => {
     expect(deliverableToCredit(list, 'build_log_credit')?.id).toBe(3);
     expect(deliverableToCredit([d(1, 'build_log_credit', 1, '2026-12-01', 1)], 'build_log_credit')).toBeNull();
   });
+
+  it('credits the deliverable a marker named when it is open and of the kind, and falls back to the earliest due otherwise', () => {
+    const list = [d(1, 'build_log_credit', 1, '2026-12-01', 1), d(2, 'build_log_credit', 2, '2027-01-01', 0), d(3, 'build_log_credit', 1, '2026-12-15', 0), d(4, 'video_mention', 1, '2026-01-01', 0)];
+    expect(deliverableToCredit(list, 'build_log_credit', 2)?.id).toBe(2);
+    expect(deliverableToCredit(list, 'build_log_credit', 1)?.id).toBe(3); // delivered in full
+    expect(deliverableToCredit(list, 'build_log_credit', 4)?.id).toBe(3); // another kind
+    expect(deliverableToCredit(list, 'build_log_credit', 99)?.id).toBe(3); // not this sponsor's
+  });
 });
 
 describe('needsHazardNotice', () => {

@@ -1,7 +1,8 @@
 import type { StaffAgreement } from '../sponsors/sponsor-admin-api';
 
-/** The open build-log promise a published post counts against. */
-export interface CountedPromise {
+/** An open build-log promise a published post may count against. */
+export interface OpenPromise {
+  deliverableId: number;
   season: string;
   promised: number;
   delivered: number;
@@ -10,19 +11,23 @@ export interface CountedPromise {
 }
 
 /**
- * The server counts a post's credit against the sponsor's earliest-due open build-log promise
- * (`deliverableToCredit` in server/sponsors/sponsor-ledger.ts); this finds the same one for the dialog.
+ * The sponsor's open build-log promises, earliest due first: the first is the one the server counts a credit against
+ * when the marker names none (`deliverableToCredit` in server/sponsors/sponsor-ledger.ts), so the dialog preselects it.
  */
-export function promiseCounted(agreements: readonly StaffAgreement[]): CountedPromise | null {
-  const open = agreements
+export function openPromises(agreements: readonly StaffAgreement[]): OpenPromise[] {
+  return agreements
     .flatMap((a) => a.deliverables.map((d) => ({ ...d, season: a.season })))
     .filter((d) => d.kind === 'build_log_credit' && d.delivered < d.promised)
-    .sort((a, b) => a.dueOn.localeCompare(b.dueOn) || a.id - b.id)[0];
-  return open ? { season: open.season, promised: open.promised, delivered: open.delivered, dueOn: open.dueOn, overdue: open.overdue } : null;
+    .sort((a, b) => a.dueOn.localeCompare(b.dueOn) || a.id - b.id)
+    .map((d) => ({ deliverableId: d.id, season: d.season, promised: d.promised, delivered: d.delivered, dueOn: d.dueOn, overdue: d.overdue }));
 }
 
-/** The credit line the Markdown pipeline reads: `%thanks <sponsor-address>`, with ` | note` when there is one. */
-export function creditMarker(slug: string, note: string): string {
+/**
+ * The credit line the Markdown pipeline reads: `%thanks <sponsor-address>`, then ` #<deliverable id>` when a promise
+ * is chosen and ` | note` when there is one. Readers see neither the address nor the id, only the card.
+ */
+export function creditMarker(slug: string, deliverableId: number | null, note: string): string {
   const clean = note.replace(/\s+/g, ' ').trim();
-  return clean ? `%thanks ${slug} | ${clean}` : `%thanks ${slug}`;
+  const head = deliverableId === null ? `%thanks ${slug}` : `%thanks ${slug} #${deliverableId}`;
+  return clean ? `${head} | ${clean}` : head;
 }
