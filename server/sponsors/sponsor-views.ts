@@ -1,4 +1,5 @@
-import type { DeliverableInput, DeliverableKind, DeliverableLine, KindSummary } from './sponsor-ledger';
+import type { SponsorCredit } from '../../contracts/sponsors/sponsor-credit';
+import type { DeliverableInput, DeliverableLine, KindSummary } from './sponsor-ledger';
 import type { CreditRow, DeliverableRow, SponsorRow } from './sponsor-repository';
 import type { TaxTreatment } from './sponsor-tax';
 
@@ -21,17 +22,8 @@ export interface AgreementView {
   nextDue: DeliverableLine | null;
 }
 
-export interface CreditView {
-  id: number;
-  kind: DeliverableKind;
-  url: string | null;
-  at: string;
-  postSlug: string | null;
-  postTitle: string | null;
-  videoTimestamp: string | null;
-  note: string | null;
-  counted: boolean;
-}
+/** One credit as staff and the portal read it; written once, in contracts/. */
+export type CreditView = SponsorCredit;
 
 export interface SponsorView {
   id: number;

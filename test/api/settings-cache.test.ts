@@ -3,6 +3,7 @@ import type { Knex } from 'knex';
 import { z } from 'zod';
 import { defineSetting } from '../../server/settings/settings-service';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
+import { recordedQueries } from '../helpers/recorded-queries';
 
 let a: TestApp;
 let b: TestApp;
@@ -20,17 +21,7 @@ afterAll(async () => {
 const OWN = defineSetting(`cache-test-${randomUUID()}`, z.object({ limit: z.number().int() }), { limit: 1 });
 
 async function settingsReads(db: Knex, fn: () => Promise<unknown>): Promise<number> {
-  let n = 0;
-  const count = (q: { sql: string }) => {
-    if (/from "settings"/.test(q.sql)) n++;
-  };
-  db.on('query', count);
-  try {
-    await fn();
-  } finally {
-    db.removeListener('query', count);
-  }
-  return n;
+  return (await recordedQueries(db, fn)).filter((sql) => /from "settings"/.test(sql)).length;
 }
 
 describe('SettingsService.get', () => {

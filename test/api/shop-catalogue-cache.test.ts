@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import request from 'supertest';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, signedIn } from '../helpers/users';
+import { recordedQueries } from '../helpers/recorded-queries';
 import { MB_ADDRESS, methodId, openShirt } from './shop-fixtures';
 
 let a: TestApp;
@@ -21,17 +22,7 @@ afterAll(async () => {
 
 /** Counts the catalogue queries an instance sends while `fn` runs. */
 async function catalogueQueries(db: Knex, fn: () => Promise<unknown>): Promise<number> {
-  let n = 0;
-  const count = (q: { sql: string }) => {
-    if (/from "shop_products"/.test(q.sql)) n++;
-  };
-  db.on('query', count);
-  try {
-    await fn();
-  } finally {
-    db.removeListener('query', count);
-  }
-  return n;
+  return (await recordedQueries(db, fn)).filter((sql) => /from "shop_products"/.test(sql)).length;
 }
 
 /**

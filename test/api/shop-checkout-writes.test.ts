@@ -1,7 +1,7 @@
-import type { Knex } from 'knex';
 import request from 'supertest';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, signedIn } from '../helpers/users';
+import { recordedQueries } from '../helpers/recorded-queries';
 import { MB_ADDRESS, methodId, openShirt } from './shop-fixtures';
 
 let t: TestApp;
@@ -18,19 +18,6 @@ async function sessionRow(client: Client): Promise<{ sid: string; sess: Record<s
   return t.deps.db('session').whereRaw("sess->>'csrfToken' = ?", [await client.token()]).first();
 }
 
-/** The statements one instance sends while `fn` runs, by the table they name first. */
-async function statements(db: Knex, fn: () => Promise<unknown>): Promise<string[]> {
-  const seen: string[] = [];
-  const log = (q: { sql: string }) => seen.push(q.sql);
-  db.on('query', log);
-  try {
-    await fn();
-  } finally {
-    db.removeListener('query', log);
-  }
-  return seen;
-}
-
 describe('POST /api/orders as a guest', () => {
   it('reads the order once on the way to paid, and the guest sees the confirmation in the same browser', async () => {
     const shirt = await openShirt(staff, { cap: 5 });
@@ -38,7 +25,7 @@ describe('POST /api/orders as a guest', () => {
     const pickup = await methodId(guest, 'pickup');
     await guest.token();
     let placed!: request.Response;
-    const sql = await statements(t.deps.db, async () => {
+    const sql = await recordedQueries(t.deps.db, async () => {
       placed = await guest.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: pickup, email: `writes-${Date.now()}@example.test`, paymentToken: 'tok_visa' });
     });
     expect(placed.status).toBe(201);

@@ -2,6 +2,7 @@ import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
+import type { SponsorCredit } from '@contracts/sponsors/sponsor-credit';
 import type { Agreement, DeliverableKind } from '../../sponsors/sponsor-api';
 
 export interface AdminSponsorRow {
@@ -16,17 +17,7 @@ export interface AdminSponsorRow {
   seasonTotalCents?: number;
 }
 
-export interface AdminCredit {
-  id: number;
-  kind: DeliverableKind;
-  url: string | null;
-  at: string;
-  postSlug: string | null;
-  postTitle: string | null;
-  videoTimestamp: string | null;
-  note: string | null;
-  counted: boolean;
-}
+export type AdminCredit = SponsorCredit;
 
 export interface SponsorDetail {
   sponsor: Omit<AdminSponsorRow, 'tier' | 'seasonTotalCents'>;
