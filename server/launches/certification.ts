@@ -1,4 +1,4 @@
-import type { LaunchSettings } from './launch-settings';
+import type { LaunchSettings } from '../../contracts/launches/launch-schemas';
 
 /** The level a member has when no high-power certification is recorded (the membership settings' first level). */
 export const NO_CERTIFICATION = 'none';

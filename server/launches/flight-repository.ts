@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
-import type { FlightSummary } from '../flights/flight-log/analyse-flight-log';
+import type { FlightEvent, FlightSeriesPoint, FlightSummary } from '../../contracts/flights/flight-data';
+import type { FlightOutcome } from '../../contracts/labels/launch-statuses';
 
 type Db = Knex | Knex.Transaction;
 
@@ -34,7 +35,7 @@ export interface FlightRow {
   status: 'filed' | 'approved' | 'sent_back' | 'flown';
   decision_reason: string | null;
   decided_at: Date | null;
-  outcome: string | null;
+  outcome: FlightOutcome | null;
   outcome_notes: string | null;
   flown_at: Date | null;
   created_at: Date;
@@ -48,8 +49,8 @@ export interface FlightRow {
 export interface FlightDataRow {
   flight_id: string;
   summary: FlightSummary;
-  series: unknown[];
-  events: unknown[];
+  series: FlightSeriesPoint[];
+  events: FlightEvent[];
   mapping: unknown;
   filter: string;
   file_name: string | null;
@@ -101,7 +102,7 @@ export class FlightRepository {
   }
 
   /** Records how an approved (or already flown) card's flight went. */
-  async recordOutcome(db: Db, id: number, outcome: string, notes: string | null): Promise<boolean> {
+  async recordOutcome(db: Db, id: number, outcome: FlightOutcome, notes: string | null): Promise<boolean> {
     const n = await db('flights')
       .where('id', id)
       .whereIn('status', ['approved', 'flown'])

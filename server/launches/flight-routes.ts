@@ -6,7 +6,7 @@ import { fields, parse } from '../platform/validate';
 import { columnMappingSchema, type ColumnMapping } from '../flights/flight-log/column-mapping';
 import type { FlightService } from './flight-service';
 import { RANGE_STAFF } from './launch-routes';
-import { DecisionSchema, OutcomeSchema } from './launch-schemas';
+import { DecisionSchema, OutcomeSchema } from '../../contracts/launches/launch-schemas';
 
 /** Enough for 200,000 rows of a wide log (timestamps, pressure, temperature, three axes). */
 export const MAX_LOG_BYTES = 32 * 1024 * 1024;

@@ -9,24 +9,14 @@ import type { Role } from '../platform/roles';
 import type { SettingsService } from '../settings/settings-service';
 import { allowedClassesFor } from './certification';
 import type { FlightRepository, FlightRow, StoredMotor } from './flight-repository';
-import { FLIGHT_OUTCOMES, type FlightOutcome } from '../../contracts/labels/launch-statuses';
+import type { FlightOutcome } from '../../contracts/labels/launch-statuses';
 import { FLIGHT_CAUTION, flightDataView, flightView } from './flight-views';
 import type { FlyerStanding } from './flyer-standing';
+import type { FlightPage, FlightView, LaunchResults, Logbook, RangeQueue } from '../../contracts/launches/launch-answers';
+import type { FlightInput } from '../../contracts/launches/launch-schemas';
 import type { LaunchService } from './launch-service';
 import { LAUNCH_SETTINGS } from './launch-settings';
 import { launchView } from './launch-views';
-
-/** A flight card as the flyer files it. */
-export interface FlightInput {
-  rocketName: string;
-  liftoffMassGrams: number;
-  motors: string[];
-  expectedAltitudeMetres?: number | null;
-  recovery?: 'parachute' | 'streamer' | 'dual_deploy' | null;
-  postSlug?: string | null;
-  pad?: string | null;
-  notes?: string | null;
-}
 
 /** An uploaded altimeter log. */
 export interface LogUpload {
@@ -65,7 +55,7 @@ export class FlightService {
   }
 
   /** Files a card for a checked-in member: parses each motor and adds the warnings; Padside never approves. */
-  async file(launchId: number, userId: number, input: FlightInput) {
+  async file(launchId: number, userId: number, input: FlightInput): Promise<{ flight: FlightView; caution: string }> {
     const launch = await this.launches.find(launchId);
     if (launch.status !== 'scheduled') throw conflict('launch_closed', 'Cards are filed only on a launch that is on the calendar.');
     if (!(await this.launches.isCheckedIn(launchId, userId))) throw conflict('not_checked_in', 'Check in at the range table with your member card before filing a card.');
@@ -99,7 +89,7 @@ export class FlightService {
   }
 
   /** The range officer's queue for one launch: every card, grouped by pad, with the caution. */
-  async queue(launchId: number) {
+  async queue(launchId: number): Promise<RangeQueue> {
     const launch = await this.launches.find(launchId);
     const cards = (await this.repo.forLaunch(launchId)).map(flightView);
     const pads = new Map<string, typeof cards>();
@@ -108,7 +98,7 @@ export class FlightService {
   }
 
   /** Approve or send back a waiting card. A card beyond the flyer's verified certification cannot be approved. */
-  async decide(id: number, staffId: number, approve: boolean, reason: string | null) {
+  async decide(id: number, staffId: number, approve: boolean, reason: string | null): Promise<{ flight: FlightView }> {
     const f = await this.find(id);
     if (f.status !== 'filed') throw conflict('already_decided', `This card is already ${f.status === 'sent_back' ? 'sent back' : f.status}.`);
     if (approve) {
@@ -127,9 +117,8 @@ export class FlightService {
   }
 
   /** How a cleared flight went; can be corrected afterwards. */
-  async outcome(id: number, outcome: string, notes: string | null) {
+  async outcome(id: number, outcome: FlightOutcome, notes: string | null): Promise<{ flight: FlightView }> {
     const f = await this.find(id);
-    if (!FLIGHT_OUTCOMES.includes(outcome as FlightOutcome)) throw badRequest('Choose how the flight ended.', { outcome: 'Choose an outcome.' });
     if (!(await this.repo.recordOutcome(this.db, id, outcome, notes))) throw conflict('not_cleared', `Only a card cleared to fly gets an outcome; this one is ${f.status === 'sent_back' ? 'sent back' : 'still waiting'}.`);
     return { flight: flightView((await this.repo.byId(id))!) };
   }
@@ -145,13 +134,13 @@ export class FlightService {
   }
 
   /** The flight page: the card, its analysed data (summary, series, events) and the caution. */
-  async show(id: number) {
+  async show(id: number): Promise<FlightPage> {
     const f = await this.find(id);
     return { flight: flightView(f), data: flightDataView(await this.repo.data(id)), caution: FLIGHT_CAUTION };
   }
 
   /** A member's logbook: flights by date, motors by class, total impulse flown, best altitude. */
-  async logbook(userId: number) {
+  async logbook(userId: number): Promise<Logbook> {
     const flights = (await this.repo.forUser(userId)).map(flightView);
     const flown = flights.filter((f) => f.status === 'flown');
     const motorsByClass: Record<string, number> = {};
@@ -171,14 +160,14 @@ export class FlightService {
         motorsByClass: Object.fromEntries(Object.entries(motorsByClass).sort()),
         // The designation gives only the class, so the total impulse is the sum of the classes' ranges.
         totalImpulseNs: { min: Math.round(min * 100) / 100, max: Math.round(max * 100) / 100 },
-        bestAltitude: best ? { flightId: best.id, rocketName: best.rocketName, apogeeMetres: best.apogeeMetres, launchDate: best.launchDate } : null,
+        bestAltitude: best ? { flightId: best.id, rocketName: best.rocketName, apogeeMetres: best.apogeeMetres!, launchDate: best.launchDate } : null,
       },
       caution: FLIGHT_CAUTION,
     };
   }
 
   /** A launch day's results: its flown cards, the highest flight and the outcomes. */
-  async results(launchId: number) {
+  async results(launchId: number): Promise<LaunchResults> {
     const launch = await this.launches.find(launchId);
     const flights = (await this.repo.forLaunch(launchId)).map(flightView).filter((f) => f.status === 'flown');
     const outcomes: Record<string, number> = {};

@@ -1,4 +1,5 @@
-import { FLIGHT_OUTCOME_LABELS, FLIGHT_STATUS_LABELS, type FlightOutcome } from '../../contracts/labels/launch-statuses';
+import { FLIGHT_OUTCOME_LABELS, FLIGHT_STATUS_LABELS } from '../../contracts/labels/launch-statuses';
+import type { FlightDataView, FlightView } from '../../contracts/launches/launch-answers';
 import type { FlightDataRow, FlightRow } from './flight-repository';
 
 /** The caution every flight page and the range queue carry, in Padside's words. */
@@ -7,7 +8,7 @@ export const FLIGHT_CAUTION =
   "association's safety code and the local aviation and fire rules.";
 
 /** A flight card as its flyer, the range officer and the public flight page see it. */
-export function flightView(f: FlightRow) {
+export function flightView(f: FlightRow): FlightView {
   return {
     id: Number(f.id),
     launchId: Number(f.launch_id),
@@ -29,15 +30,15 @@ export function flightView(f: FlightRow) {
     statusLabel: FLIGHT_STATUS_LABELS[f.status],
     decisionReason: f.decision_reason,
     outcome: f.outcome,
-    outcomeLabel: f.outcome ? FLIGHT_OUTCOME_LABELS[f.outcome as FlightOutcome] : null,
+    outcomeLabel: f.outcome ? FLIGHT_OUTCOME_LABELS[f.outcome] : null,
     outcomeNotes: f.outcome_notes,
     apogeeMetres: f.apogee_metres ?? null,
-    filedAt: f.created_at,
+    filedAt: f.created_at.toISOString(),
   };
 }
 
 /** A flight's stored analysis: its summary, the downsampled series for the chart, events, mapping and filter. */
-export function flightDataView(d: FlightDataRow | undefined) {
+export function flightDataView(d: FlightDataRow | undefined): FlightDataView | null {
   if (!d) return null;
-  return { summary: d.summary, series: d.series, events: d.events, mapping: d.mapping, filter: d.filter, fileName: d.file_name, uploadedAt: d.uploaded_at };
+  return { summary: d.summary, series: d.series, events: d.events, mapping: d.mapping, filter: d.filter, fileName: d.file_name, uploadedAt: d.uploaded_at.toISOString() };
 }

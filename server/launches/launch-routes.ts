@@ -2,9 +2,8 @@ import { Router } from 'express';
 import { requireRole, requireSignedIn } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import type { FlightService } from './flight-service';
-import { CallOffSchema, CheckInSchema, FlightSchema, LaunchPatchSchema, ListQuery, NewLaunchSchema, RsvpSchema } from './launch-schemas';
+import { CallOffSchema, CheckInSchema, FlightSchema, LaunchPatchSchema, LaunchSettingsSchema, ListQuery, NewLaunchSchema, RsvpSchema } from '../../contracts/launches/launch-schemas';
 import type { LaunchService } from './launch-service';
-import { LaunchSettingsSchema } from './launch-settings';
 
 /** Range officers and admins (admins can do everything a range officer can). */
 export const RANGE_STAFF = requireRole('range_officer', 'admin');

@@ -8,20 +8,10 @@ import type { FlyerStanding } from './flyer-standing';
 import { launchCalendar } from './launch-calendar';
 import { launchCalledOffMail, launchReminderMail } from './launch-mail';
 import type { LaunchFields, LaunchRepository, LaunchRow } from './launch-repository';
-import { LAUNCH_SETTINGS, type LaunchSettings } from './launch-settings';
+import type { CheckInAnswer, LaunchList, LaunchPage, LaunchView } from '../../contracts/launches/launch-answers';
+import type { LaunchInput, LaunchSettings } from '../../contracts/launches/launch-schemas';
+import { LAUNCH_SETTINGS } from './launch-settings';
 import { launchView } from './launch-views';
-
-/** A launch as staff write it. */
-export interface LaunchInput {
-  title: string;
-  date: string;
-  startsAt: string;
-  endsAt: string;
-  site: { name: string; address?: string | null; lat?: number | null; lon?: number | null };
-  ceilingMetres?: number | null;
-  waiverVersion?: string | null;
-  notes?: string | null;
-}
 
 /** Where the service finds the club's names and addresses. */
 export interface LaunchContext {
@@ -66,30 +56,30 @@ export class LaunchService {
   }
 
   /** The public calendar: from `from` (default 90 days back) to `to`. */
-  async list(range: { from?: string; to?: string }) {
+  async list(range: { from?: string; to?: string }): Promise<LaunchList> {
     const from = range.from ?? addDays(this.today(), -90);
     return { items: (await this.repo.list({ from, to: range.to })).map(launchView), timeZone: this.ctx.timeZone };
   }
 
   /** Every launch, for the range officer's console. */
-  async listAll() {
+  async listAll(): Promise<LaunchList> {
     return { items: (await this.repo.list({})).map(launchView), timeZone: this.ctx.timeZone };
   }
 
   /** One launch; a signed-in caller also sees their own reply and check-in. */
-  async show(id: number, userId: number | null) {
+  async show(id: number, userId: number | null): Promise<LaunchPage> {
     const l = await this.find(id);
     const me = userId === null ? null : { going: await this.repo.rsvpOf(id, userId), checkedIn: await this.repo.isCheckedIn(id, userId) };
     return { launch: launchView(l), me, timeZone: this.ctx.timeZone };
   }
 
-  async create(input: LaunchInput, userId: number) {
+  async create(input: LaunchInput, userId: number): Promise<{ launch: LaunchView }> {
     const id = await this.repo.insert(this.db, { ...(toFields(input) as LaunchFields), created_by: userId });
     return { launch: launchView((await this.repo.byId(id))!) };
   }
 
   /** Changes a launch still on the calendar; one called off or done stays as it was. */
-  async update(id: number, input: Partial<LaunchInput>) {
+  async update(id: number, input: Partial<LaunchInput>): Promise<{ launch: LaunchView }> {
     const l = await this.find(id);
     if (l.status !== 'scheduled') throw conflict('launch_closed', 'Only a launch still on the calendar can be changed.');
     const merged = { ...l, ...toFields(input) };
@@ -99,7 +89,7 @@ export class LaunchService {
   }
 
   /** Calls a launch off and tells everyone who said they would come, in the same transaction. */
-  async callOff(id: number, reason: string) {
+  async callOff(id: number, reason: string): Promise<{ launch: LaunchView; notified: number }> {
     await this.find(id);
     const notified = await this.db.transaction(async (trx) => {
       if (!(await this.repo.callOff(trx, id, reason))) throw conflict('launch_closed', 'This launch is already called off or done.');
@@ -113,14 +103,14 @@ export class LaunchService {
     return { launch: launchView((await this.repo.byId(id))!), notified };
   }
 
-  async markDone(id: number) {
+  async markDone(id: number): Promise<{ launch: LaunchView }> {
     await this.find(id);
     if (!(await this.repo.markDone(this.db, id))) throw conflict('launch_closed', 'Only a launch on the calendar can be closed.');
     return { launch: launchView((await this.repo.byId(id))!) };
   }
 
   /** A reply to a launch on the calendar, today or later. */
-  async rsvp(id: number, userId: number, going: boolean) {
+  async rsvp(id: number, userId: number, going: boolean): Promise<{ going: boolean; launch: LaunchView }> {
     const l = await this.find(id);
     if (l.status !== 'scheduled' || l.launch_date < this.today()) throw conflict('launch_closed', 'Replies close when a launch is called off or over.');
     await this.repo.setRsvp(this.db, id, userId, going);
@@ -128,7 +118,7 @@ export class LaunchService {
   }
 
   /** Checks a member in at the field with their card's signed code; checking in twice is harmless. */
-  async checkIn(id: number, token: string, staffId: number) {
+  async checkIn(id: number, token: string, staffId: number): Promise<CheckInAnswer> {
     const l = await this.find(id);
     if (l.status !== 'scheduled') throw conflict('launch_closed', 'This launch is called off or closed.');
     const flyer = await this.flyers.byToken(token);

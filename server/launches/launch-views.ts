@@ -1,10 +1,11 @@
 import { LAUNCH_STATUS_LABELS } from '../../contracts/labels/launch-statuses';
+import type { LaunchView } from '../../contracts/launches/launch-answers';
 import type { LaunchRow } from './launch-repository';
 
 const num = (v: string | null) => (v === null ? null : Number(v));
 
 /** A launch as every answer shows it. */
-export function launchView(l: LaunchRow) {
+export function launchView(l: LaunchRow): LaunchView {
   return {
     id: Number(l.id),
     title: l.title,
@@ -21,5 +22,3 @@ export function launchView(l: LaunchRow) {
     rsvpCount: Number(l.rsvp_count ?? 0),
   };
 }
-
-export type LaunchView = ReturnType<typeof launchView>;

@@ -11,7 +11,9 @@ import { MatSelectModule } from '@angular/material/select';
 import { applyServerErrors } from '../core/api-error';
 import { FieldErrorPipe } from '../shared/field-error-pipe';
 import { FlightCaution } from './flight-caution';
-import { LaunchesApi, RECOVERY, type Flight } from './launches-api';
+import type { RecoveryMethod } from '@contracts/labels/launch-statuses';
+import type { FlightView } from '@contracts/launches/launch-answers';
+import { LaunchesApi, RECOVERY } from './launches-api';
 
 /** The flyer's flight card, filed at the field after check-in; Padside's warnings show once it is filed. */
 @Component({
@@ -33,13 +35,13 @@ export class FlightCardForm {
     liftoffMassGrams: this.fb.control<number | null>(null, [Validators.required, Validators.min(1)]),
     motors: this.fb.array([this.fb.control('', Validators.required)]),
     expectedAltitudeMetres: this.fb.control<number | null>(null, Validators.min(1)),
-    recovery: this.fb.control<string | null>(null),
+    recovery: this.fb.control<RecoveryMethod | null>(null),
     pad: [''],
     postSlug: [''],
     notes: ['', Validators.maxLength(2000)],
   });
   protected readonly problem = signal<string | null>(null);
-  protected readonly filed = signal<Flight | null>(null);
+  protected readonly filed = signal<FlightView | null>(null);
   protected readonly busy = signal(false);
 
   protected addMotor(): void {
@@ -58,7 +60,7 @@ export class FlightCardForm {
     const v = this.form.getRawValue();
     try {
       const res = await firstValueFrom(
-        this.api.fileFlight(Number(this.id()), { ...v, expectedAltitudeMetres: v.expectedAltitudeMetres ?? null, pad: v.pad || null, postSlug: v.postSlug || null, notes: v.notes || null }),
+        this.api.fileFlight(Number(this.id()), { ...v, liftoffMassGrams: v.liftoffMassGrams ?? 0, expectedAltitudeMetres: v.expectedAltitudeMetres ?? null, pad: v.pad || null, postSlug: v.postSlug || null, notes: v.notes || null }),
       );
       this.filed.set(res.flight);
     } catch (err) {

@@ -5,7 +5,8 @@ import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { EmptyState } from '../shared/empty-state';
-import { LaunchesApi, type Launch } from './launches-api';
+import type { LaunchView } from '@contracts/launches/launch-answers';
+import { LaunchesApi } from './launches-api';
 import { PageMeta } from '../core/page-meta';
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
@@ -15,7 +16,7 @@ export function todayIn(timeZone: string): string {
   return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
 }
 
-function isOver(l: Launch, today: string): boolean {
+function isOver(l: LaunchView, today: string): boolean {
   return l.date < today || l.status === 'done';
 }
 
@@ -42,10 +43,10 @@ export class LaunchCalendar {
   protected readonly feedUrl = `${inject(DOCUMENT).location.origin}/feeds/launches.ics`;
   protected readonly webcalUrl = this.feedUrl.replace(/^https?:/, 'webcal:');
 
-  protected month(l: Launch): string {
+  protected month(l: LaunchView): string {
     return MONTHS[Number(l.date.slice(5, 7)) - 1];
   }
-  protected dayNumber(l: Launch): number {
+  protected dayNumber(l: LaunchView): number {
     return Number(l.date.slice(8, 10));
   }
 }

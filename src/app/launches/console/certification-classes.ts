@@ -10,7 +10,8 @@ import { applyServerErrors } from '../../core/api-error';
 import { SessionStore } from '../../core/session-store';
 import { MembershipApi } from '../../membership/membership-api';
 import { controlMessage } from '../../shared/field-error-pipe';
-import { LaunchesApi, type LaunchSettings } from '../launches-api';
+import type { LaunchSettings } from '@contracts/launches/launch-schemas';
+import { LaunchesApi } from '../launches-api';
 import { FlightCaution } from '../flight-caution';
 import { classListValidator, formatClassList, parseClassList } from './impulse-class-list';
 

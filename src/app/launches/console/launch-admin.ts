@@ -12,7 +12,8 @@ import { apiErrorMessage, applyServerErrors } from '../../core/api-error';
 import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
-import { LaunchesApi, type Launch } from '../launches-api';
+import type { LaunchView } from '@contracts/launches/launch-answers';
+import { LaunchesApi } from '../launches-api';
 
 /** Reasons a launch director offers first when calling a day off; any other reason can be typed. */
 const CALL_OFF_REASONS = ['Wind above the safe limit', 'Fire risk (burn ban or dry field)', 'Airspace not available', 'Field closed (mud, snow or crops)'];
@@ -67,13 +68,13 @@ export class LaunchAdmin {
     }
   }
 
-  protected openCallOff(l: Launch): void {
+  protected openCallOff(l: LaunchView): void {
     this.callingOff.set(l.id);
     this.reason.set('');
     this.callOffProblem.set(null);
   }
 
-  protected async callOff(l: Launch): Promise<void> {
+  protected async callOff(l: LaunchView): Promise<void> {
     try {
       const res = await firstValueFrom(this.api.callOff(l.id, this.reason()));
       this.callingOff.set(null);
@@ -84,7 +85,7 @@ export class LaunchAdmin {
     }
   }
 
-  protected async close(l: Launch): Promise<void> {
+  protected async close(l: LaunchView): Promise<void> {
     try {
       await firstValueFrom(this.api.markDone(l.id));
       this.launches.reload();

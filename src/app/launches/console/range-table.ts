@@ -12,12 +12,14 @@ import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { FlightCaution } from '../flight-caution';
 import { todayIn } from '../launch-calendar';
-import { LaunchesApi, OUTCOMES, type CheckInAnswer, type Flight, type Outcome } from '../launches-api';
+import type { CheckInAnswer, FlightView } from '@contracts/launches/launch-answers';
+import type { FlightOutcome } from '@contracts/labels/launch-statuses';
+import { LaunchesApi, OUTCOMES } from '../launches-api';
 
 /** What the range officer is typing for one card: a send-back reason or an outcome. */
 interface Draft {
   reason: string;
-  outcome: Outcome | null;
+  outcome: FlightOutcome | null;
   notes: string;
 }
 
@@ -86,7 +88,7 @@ export class RangeTable {
     }
   }
 
-  private async act(f: Flight, call: () => Promise<unknown>): Promise<void> {
+  private async act(f: FlightView, call: () => Promise<unknown>): Promise<void> {
     this.problems.update((p) => ({ ...p, [f.id]: '' }));
     try {
       await call();
@@ -96,15 +98,15 @@ export class RangeTable {
     }
   }
 
-  protected approve(f: Flight): Promise<void> {
+  protected approve(f: FlightView): Promise<void> {
     return this.act(f, () => firstValueFrom(this.api.decide(f.id, true)));
   }
 
-  protected sendBack(f: Flight): Promise<void> {
+  protected sendBack(f: FlightView): Promise<void> {
     return this.act(f, () => firstValueFrom(this.api.decide(f.id, false, this.draft(f.id).reason)));
   }
 
-  protected recordOutcome(f: Flight): Promise<void> {
+  protected recordOutcome(f: FlightView): Promise<void> {
     const d = this.draft(f.id);
     if (!d.outcome) {
       this.problems.update((p) => ({ ...p, [f.id]: 'Choose how the flight ended.' }));

@@ -1,5 +1,7 @@
+/** Request bodies and queries of the launch and flight routes: the server parses with them; the app takes their types. */
 import { z } from 'zod';
-import { fields } from '../platform/validate';
+import { fields } from '../forms/fields';
+import { FLIGHT_OUTCOMES, RECOVERY_METHODS } from '../labels/launch-statuses';
 
 const hhmm = z.string({ error: 'Enter a time as HH:MM.' }).regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use the form HH:MM (24-hour).');
 const optionalText = (max: number) => z.string().trim().max(max, 'Too long.').transform((v) => v || null).nullish();
@@ -52,7 +54,7 @@ export const FlightSchema = z.object({
     .min(1, 'At least one motor.')
     .max(12, 'At most 12 motors.'),
   expectedAltitudeMetres: z.number({ error: 'Metres, a whole number.' }).int('Metres, a whole number.').positive('Must be positive.').max(200000).nullish(),
-  recovery: z.enum(['parachute', 'streamer', 'dual_deploy'], { error: 'Choose parachute, streamer or dual deployment.' }).nullish(),
+  recovery: z.enum(RECOVERY_METHODS, { error: 'Choose parachute, streamer or dual deployment.' }).nullish(),
   postSlug: z.string().trim().max(120).regex(/^[a-z0-9-]*$/, 'Use the build log address (letters, digits, dashes).').transform((v) => v || null).nullish(),
   pad: optionalText(16),
   notes: z.string().trim().max(2000, 'Too long.').nullish(),
@@ -63,6 +65,21 @@ export const DecisionSchema = z.object({ approve: z.boolean({ error: 'Approve or
 
 /** POST /api/admin/flights/:id/outcome. */
 export const OutcomeSchema = z.object({
-  outcome: z.enum(['recovered', 'damaged', 'lost', 'tree', 'motor_failure'], { error: 'Choose how the flight ended.' }),
+  outcome: z.enum(FLIGHT_OUTCOMES, { error: 'Choose how the flight ended.' }),
   notes: optionalText(2000),
 });
+
+const impulseClass = z.string().trim().toUpperCase().regex(/^[A-Z]$/, 'Use one letter per class.');
+
+/** PUT /api/admin/launches/settings: which motor impulse classes each certification level allows. */
+export const LaunchSettingsSchema = z.object({
+  // An empty list would read as "this level flies nothing", which no association means: every level flies model motors.
+  classesByLevel: z.record(z.string().trim().min(1).max(16), z.array(impulseClass).min(1, 'List at least one class.').max(26)),
+});
+
+/** A launch as staff write it. */
+export type LaunchInput = z.input<typeof NewLaunchSchema>;
+/** A flight card as the flyer files it. */
+export type FlightInput = z.input<typeof FlightSchema>;
+/** The impulse classes each certification level allows (a club setting: associations differ). */
+export type LaunchSettings = z.infer<typeof LaunchSettingsSchema>;
