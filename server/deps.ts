@@ -6,12 +6,15 @@ import { MailWorker } from './mail/mail-worker';
 import { PaymentGateway } from './payments/payment-gateway';
 import { createStripe } from './payments/stripe-client';
 import { systemClock, type Clock } from './platform/clock';
+import { ClubCalendar } from './platform/club-calendar';
 
 /** Everything with a side effect, built once and handed down; tests build their own. */
 export interface AppDeps {
   config: Config;
   db: Knex;
   clock: Clock;
+  /** Today in the club's time zone, read from `clock`. */
+  calendar: ClubCalendar;
   log: Logger;
   mail: MailWorker;
   payments: PaymentGateway;
@@ -20,11 +23,13 @@ export interface AppDeps {
 export function createDeps(config: Config, overrides: Partial<AppDeps> = {}): AppDeps {
   const log = overrides.log ?? pino({ level: config.logLevel });
   const db = overrides.db ?? createDb(config.databaseUrl, 10, log);
+  const clock = overrides.clock ?? systemClock;
   return {
     config,
     db,
     log,
-    clock: overrides.clock ?? systemClock,
+    clock,
+    calendar: overrides.calendar ?? new ClubCalendar(clock, config.clubTimeZone),
     mail: overrides.mail ?? new MailWorker(db, config.smtpUrl, config.mailFrom, log),
     payments: overrides.payments ?? new PaymentGateway(createStripe(config)),
   };

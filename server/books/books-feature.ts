@@ -7,7 +7,7 @@ import type { DashboardSources } from './dashboard-sources';
 /** The treasurer's books: reports over every money movement, the dashboard, fee settings. */
 export function booksFeature(platform: Platform, sources: () => Partial<DashboardSources>): Feature & { books: BooksService } {
   const { deps } = platform;
-  const books = new BooksService(new BooksRepository(deps.db, deps.config.clubTimeZone), platform.settings, deps.clock, deps.config.clubTimeZone, sources);
+  const books = new BooksService(new BooksRepository(deps.db, deps.config.clubTimeZone), platform.settings, deps.calendar, sources);
   return {
     name: 'books',
     books,

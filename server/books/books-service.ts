@@ -1,5 +1,5 @@
 import type { PaymentGateway } from '../payments/payment-gateway';
-import { dateInZone, type Clock } from '../platform/clock';
+import type { ClubCalendar } from '../platform/club-calendar';
 import { labelOf, yesNo } from '../../contracts/labels/label-of';
 import { MOVEMENT_KIND_LABELS, MOVEMENT_SOURCE_LABELS } from '../../contracts/labels/money-movements';
 import { PAYMENT_METHOD_LABELS } from '../../contracts/labels/payment-methods';
@@ -22,8 +22,7 @@ export class BooksService {
   constructor(
     repo: BooksRepository,
     private readonly settings: SettingsService,
-    private readonly clock: Clock,
-    private readonly timeZone: string,
+    private readonly calendar: ClubCalendar,
     private readonly sources: () => Partial<DashboardSources>,
   ) {
     this.repo = repo;
@@ -46,7 +45,7 @@ export class BooksService {
     return {
       from: range.from,
       to: range.to,
-      timeZone: this.timeZone,
+      timeZone: this.calendar.timeZone,
       registrations,
       authorities: byAuthority(lines),
       lines,
@@ -67,13 +66,13 @@ export class BooksService {
     checkRange(range);
     const [sums, refunded] = await Promise.all([this.repo.revenue(range), this.repo.refundedTax(range)]);
     const rows = incomeRows(sums, refunded);
-    return { from: range.from, to: range.to, timeZone: this.timeZone, rows, totals: incomeTotals(rows) };
+    return { from: range.from, to: range.to, timeZone: this.calendar.timeZone, rows, totals: incomeTotals(rows) };
   }
 
   /** The ledger as CSV chunks, a page of movements at a time, in the order they happened. */
   async *ledgerCsv(range: DateRange): AsyncGenerator<string> {
     checkRange(range);
-    yield toCsv([zonedHeader('Date', this.timeZone), 'Kind', 'Source', 'Reference', 'Counterparty', 'Method', 'Gross (CAD)', ...TAX_CODES.map((c) => `${c} (CAD)`), 'Fee (CAD)', 'Fee estimated', 'Net (CAD)'], []);
+    yield toCsv([zonedHeader('Date', this.calendar.timeZone), 'Kind', 'Source', 'Reference', 'Counterparty', 'Method', 'Gross (CAD)', ...TAX_CODES.map((c) => `${c} (CAD)`), 'Fee (CAD)', 'Fee estimated', 'Net (CAD)'], []);
     for (let after: { occurredAt: string; id: number } | null = null; ; ) {
       const page = await this.repo.ledgerPage(range, after, LEDGER_PAGE);
       if (!page.length) return;
@@ -115,7 +114,7 @@ export class BooksService {
 
   /** The cards' numbers, sales and dues net of tax; a number whose feature is not installed is null. */
   async dashboard() {
-    const today = dateInZone(this.clock.now(), this.timeZone);
+    const today = this.calendar.today();
     const monthStart = today.slice(0, 8) + '01';
     const src = this.sources();
     const sums = await this.repo.sumsForToday(today, monthStart);

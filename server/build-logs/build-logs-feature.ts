@@ -2,7 +2,7 @@ import type { Feature, Platform } from '../platform/feature';
 import { CreditService } from '../sponsors/credit-service';
 import { sponsorPersonalData } from '../sponsors/sponsor-personal-data';
 import { SponsorRepository } from '../sponsors/sponsor-repository';
-import { clubToday, sponsorAdminRoutes, sponsorPortalRoutes, sponsorPublicRoutes } from '../sponsors/sponsor-routes';
+import { sponsorAdminRoutes, sponsorPortalRoutes, sponsorPublicRoutes } from '../sponsors/sponsor-routes';
 import { SponsorService } from '../sponsors/sponsor-service';
 import { sponsorTaxRoutes } from '../sponsors/sponsor-tax-routes';
 import { SponsorTaxService } from '../sponsors/sponsor-tax-service';
@@ -14,13 +14,13 @@ import { PostService } from './post-service';
 
 /** Build logs and the sponsor acknowledgement ledger: one feature, because publishing a post delivers credits. */
 export function buildLogsFeature(platform: Platform): Feature {
-  const { db, clock, config } = platform.deps;
+  const { db, clock, calendar, config } = platform.deps;
   const sponsorRepo = new SponsorRepository(db);
   const credits = new CreditService(sponsorRepo, config.publicUrl, config.site.teamName);
   // The sponsorship tax reads the rate table where the shop keeps it.
   const sponsorTax = new SponsorTaxService(db, sponsorRepo, platform.settings, new ShopConfigRepository(db), config.site.teamName);
   const sponsors = new SponsorService(db, sponsorRepo, credits, platform.auth.users, platform.settings, sponsorTax, (urls) => platform.images.describe(urls));
-  const today = clubToday(clock, config.clubTimeZone);
+  const today = () => calendar.today();
   const postRepo = new PostRepository(db);
   const posts = new PostService(db, postRepo, sponsorRepo, credits, (urls) => platform.images.describe(urls));
   return {

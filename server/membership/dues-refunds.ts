@@ -6,7 +6,8 @@ import { recordMovement } from '../books/ledger-writer';
 import { enqueueEmail } from '../mail/outbox';
 import type { PaymentGateway } from '../payments/payment-gateway';
 import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
-import { dateInZone, type Clock } from '../platform/clock';
+import type { Clock } from '../platform/clock';
+import type { ClubCalendar } from '../platform/club-calendar';
 import type { SettingsService } from '../settings/settings-service';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { refundMail } from './membership-mail';
@@ -36,7 +37,7 @@ export class DuesRefunds {
     private readonly settlement: DuesSettlement,
     private readonly gateway: PaymentGateway,
     private readonly clock: Clock,
-    private readonly timeZone: string,
+    private readonly calendar: ClubCalendar,
     private readonly log: Logger,
   ) {}
 
@@ -177,7 +178,7 @@ export class DuesRefunds {
    */
   private async book(trx: Knex.Transaction, m: MembershipRow, payment: PaymentRow, refund: PaymentRow, actorId: number | null, reason: string): Promise<void> {
     const policy = termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS, trx));
-    const today = dateInZone(this.clock.now(), this.timeZone);
+    const today = this.calendar.today();
     const amountCents = -refund.amount_cents;
     const full = (await this.repo.refundedCents(Number(payment.id), trx, ['refunded'])) >= payment.amount_cents;
     if (full) await this.repo.updatePayment(trx, Number(payment.id), { status: 'refunded' });

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { badRequest, conflict, notFound } from '../platform/app-error';
-import { dateInZone, type Clock } from '../platform/clock';
+import type { Clock } from '../platform/clock';
+import type { ClubCalendar } from '../platform/club-calendar';
 import type { SettingsService } from '../settings/settings-service';
 import type { CheckInTokens } from './check-in-token';
 import { termPolicy } from './dues-settlement';
@@ -44,11 +45,11 @@ export class FlyingStatusService {
     private readonly settings: SettingsService,
     private readonly tokens: CheckInTokens,
     private readonly clock: Clock,
-    private readonly timeZone: string,
+    private readonly calendar: ClubCalendar,
   ) {}
 
   private today(): string {
-    return dateInZone(this.clock.now(), this.timeZone);
+    return this.calendar.today();
   }
 
   /** Marks the association membership or the certification as checked, if the record still shows what staff saw. */

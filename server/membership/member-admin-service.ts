@@ -4,7 +4,8 @@ import type { CommercialMailer } from '../announcements/commercial-mailer';
 import { impliedConsentHolds } from '../announcements/implied-consent';
 import { enqueueEmail } from '../mail/outbox';
 import { badRequest, conflict, notFound } from '../platform/app-error';
-import { dateInZone, type Clock } from '../platform/clock';
+import type { Clock } from '../platform/clock';
+import type { ClubCalendar } from '../platform/club-calendar';
 import type { SettingsService } from '../settings/settings-service';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { dateOnly, type MembershipRepository, type AsOf, type PlanRow, type RosterQuery } from './membership-repository';
@@ -36,13 +37,13 @@ export class MemberAdminService {
     private readonly settings: SettingsService,
     private readonly settlement: DuesSettlement,
     private readonly clock: Clock,
-    private readonly timeZone: string,
+    private readonly calendar: ClubCalendar,
     private readonly mailer: CommercialMailer,
     private readonly clubName: string,
   ) {}
 
   private today(): string {
-    return dateInZone(this.clock.now(), this.timeZone);
+    return this.calendar.today();
   }
 
   private async policy() {
@@ -140,7 +141,7 @@ export class MemberAdminService {
 
   /** Dues collected per month and plan (net of refunds, club time zone) and members by status. */
   async summary() {
-    const collected = await this.repo.collectedByMonth(this.timeZone);
+    const collected = await this.repo.collectedByMonth(this.calendar.timeZone);
     const byStatus = await this.repo.countsByStatus(await this.asOf());
     const counts = { pending: 0, active: 0, lapsing: 0, lapsed: 0 };
     for (const r of byStatus) counts[r.status] = Number(r.count);

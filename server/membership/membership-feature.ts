@@ -17,16 +17,16 @@ import { MembershipService } from './membership-service';
 
 /** Club membership: dues, terms, reminders, auto-renew, member card and check-in, and the treasurer's roster. */
 export function membershipFeature(platform: Platform): Feature {
-  const { db, clock, config, payments } = platform.deps;
+  const { db, clock, calendar, config, payments } = platform.deps;
   const repo = new MembershipRepository(db);
   const settlement = new DuesSettlement(repo, new UserRepository(db), config.publicUrl);
   const cardDues = new CardDues(db, repo, settlement, platform.settings, payments);
   const tokens = new CheckInTokens(config.sessionSecret);
-  const members = new MembershipService(db, repo, platform.settings, settlement, cardDues, tokens, clock, config.clubTimeZone);
-  const admin = new MemberAdminService(db, repo, platform.settings, settlement, clock, config.clubTimeZone, commercialMailer(platform), config.site.clubName);
-  const refunds = new DuesRefunds(db, repo, platform.settings, settlement, payments, clock, config.clubTimeZone, platform.deps.log);
-  const flying = new FlyingStatusService(db, repo, platform.settings, tokens, clock, config.clubTimeZone);
-  const jobs = new MembershipJobs(db, repo, platform.settings, settlement, cardDues, clock, config.clubTimeZone);
+  const members = new MembershipService(db, repo, platform.settings, settlement, cardDues, tokens, clock, calendar);
+  const admin = new MemberAdminService(db, repo, platform.settings, settlement, clock, calendar, commercialMailer(platform), config.site.clubName);
+  const refunds = new DuesRefunds(db, repo, platform.settings, settlement, payments, clock, calendar, platform.deps.log);
+  const flying = new FlyingStatusService(db, repo, platform.settings, tokens, clock, calendar);
+  const jobs = new MembershipJobs(db, repo, platform.settings, settlement, cardDues, clock, calendar);
   return {
     name: 'membership',
     mount(api) {

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { enqueueEmail } from '../mail/outbox';
-import { dateInZone, type Clock } from '../platform/clock';
+import type { Clock } from '../platform/clock';
+import type { ClubCalendar } from '../platform/club-calendar';
 import type { SettingsService } from '../settings/settings-service';
 import type { CardDues } from './card-dues';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
@@ -33,11 +34,11 @@ export class MembershipJobs {
     private readonly settlement: DuesSettlement,
     private readonly cardDues: CardDues,
     private readonly clock: Clock,
-    private readonly timeZone: string,
+    private readonly calendar: ClubCalendar,
   ) {}
 
   private today(): string {
-    return dateInZone(this.clock.now(), this.timeZone);
+    return this.calendar.today();
   }
 
   /** Moves stored status (and the `member` role) to what the dates say today. */

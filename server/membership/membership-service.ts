@@ -1,7 +1,8 @@
 import type { Knex } from 'knex';
 import QRCode from 'qrcode';
 import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
-import { dateInZone, type Clock } from '../platform/clock';
+import type { Clock } from '../platform/clock';
+import type { ClubCalendar } from '../platform/club-calendar';
 import type { SessionUser } from '../platform/roles';
 import type { SettingsService } from '../settings/settings-service';
 import type { SaveCardResult } from '../payments/saved-cards';
@@ -72,12 +73,12 @@ export class MembershipService {
     private readonly cardDues: CardDues,
     private readonly tokens: CheckInTokens,
     private readonly clock: Clock,
-    private readonly timeZone: string,
+    private readonly calendar: ClubCalendar,
   ) {}
 
   /** Today in the club's time zone. */
   today(): string {
-    return dateInZone(this.clock.now(), this.timeZone);
+    return this.calendar.today();
   }
 
   async plans() {

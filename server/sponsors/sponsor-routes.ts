@@ -1,6 +1,5 @@
 import { Router } from 'express';
 import type { Clock } from '../platform/clock';
-import { dateInZone } from '../platform/clock';
 import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import { acknowledgementCsv, acknowledgementPdf, type ReportData } from './acknowledgement-report';
@@ -12,10 +11,8 @@ import type { SponsorService } from './sponsor-service';
 import { deliverablesOnly, seesSponsorMoney, withoutEmail, withoutTotal } from './sponsor-staff-view';
 import { TiersSchema } from './sponsor-tiers';
 
+/** Today's club date (the app's ClubCalendar), for routes that judge "overdue" and "this season". */
 type Today = () => string;
-
-/** A function giving today's club date, for routes that judge "overdue" and "this season". */
-export const clubToday = (clock: Clock, timeZone: string): Today => () => dateInZone(clock.now(), timeZone);
 
 /** GET /api/sponsors (public): every sponsor with its current tier, and the sponsors page grouped by tier. */
 export function sponsorPublicRoutes(sponsors: SponsorService, today: Today): Router {
