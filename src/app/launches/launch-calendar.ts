@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DOCUMENT, computed, effect, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { NgTemplateOutlet } from '@angular/common';
 import { RouterLink } from '@angular/router';
@@ -7,6 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { EmptyState } from '../shared/empty-state';
 import { LaunchesApi, type Launch } from './launches-api';
 import { PageMeta } from '../core/page-meta';
+import { loadErrorStatus } from '../core/rendering/load-error-status';
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 
@@ -30,15 +31,19 @@ function isOver(l: Launch, today: string): boolean {
 export class LaunchCalendar {
   constructor() {
     inject(PageMeta).describe({ title: 'Launch days', description: 'Coming and recent club launch days, with a calendar feed to subscribe to.', path: '/launches', type: 'website' });
+    const answerLoadError = loadErrorStatus();
+    effect(() => answerLoadError(this.launches.error()));
   }
 
   private readonly api = inject(LaunchesApi);
   protected readonly launches = rxResource({ stream: () => this.api.list() });
-  protected readonly timeZone = computed(() => this.launches.value()?.timeZone ?? '');
+  /** The answer once loaded; value() itself throws while the resource holds an error. */
+  private readonly loaded = computed(() => (this.launches.hasValue() ? this.launches.value() : undefined));
+  protected readonly timeZone = computed(() => this.loaded()?.timeZone ?? '');
   private readonly today = computed(() => (this.timeZone() ? todayIn(this.timeZone()) : ''));
   /** A day closed after flying is over even on its own date: it goes with the recent ones, with its results. */
-  protected readonly upcoming = computed(() => (this.launches.value()?.items ?? []).filter((l) => !isOver(l, this.today())));
-  protected readonly past = computed(() => (this.launches.value()?.items ?? []).filter((l) => isOver(l, this.today())).reverse());
+  protected readonly upcoming = computed(() => (this.loaded()?.items ?? []).filter((l) => !isOver(l, this.today())));
+  protected readonly past = computed(() => (this.loaded()?.items ?? []).filter((l) => isOver(l, this.today())).reverse());
   protected readonly feedUrl = `${inject(DOCUMENT).location.origin}/feeds/launches.ics`;
   protected readonly webcalUrl = this.feedUrl.replace(/^https?:/, 'webcal:');
 
