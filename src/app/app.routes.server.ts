@@ -14,7 +14,7 @@ const PERSONAL = [
 
 /**
  * Which pages the server renders and which stay client-rendered. Any other address is the not-found page, rendered
- * on the server with status 404; a product or post that does not exist sets its own 404 (`not-found-status.ts`).
+ * on the server with status 404; a product, post or launch day that does not exist sets its own 404 (`load-error-status.ts`).
  */
 export const serverRoutes: ServerRoute[] = [
   ...PUBLIC.map((path): ServerRoute => ({ path, renderMode: RenderMode.Server })),

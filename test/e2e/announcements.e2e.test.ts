@@ -1,9 +1,9 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
-import { consoleErrors, launchBrowser, recordRequests, screenshot, serve, signInThroughForm } from '../helpers/browser';
+import { browserSuite, consoleErrors, recordRequests, screenshot, signInThroughForm, type Site } from '../helpers/browser';
 import { firstLink, waitForEmails } from '../helpers/maildev';
 import { freshDatabase, type FreshDatabase } from '../helpers/fresh-database';
-import { buildTestApp, type TestApp } from '../helpers/test-app';
+import type { TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 import { openShirt } from '../api/shop-fixtures';
 
@@ -15,20 +15,19 @@ const PHONE = { viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isM
 let fresh: FreshDatabase;
 let t: TestApp;
 let browser: Browser;
-let site: { baseUrl: string; stop(): Promise<void> };
+let site: Site;
 
+// The database is made before the app and dropped after it has stopped (jest runs these hooks in the order written).
 beforeAll(async () => {
   fresh = await freshDatabase();
-  t = buildTestApp({ env: { DATABASE_URL: fresh.url } });
-  site = await serve(t);
-  browser = await launchBrowser();
 });
-afterAll(async () => {
-  await browser?.close();
-  await site?.stop();
-  await t?.close();
-  await fresh?.drop();
-});
+browserSuite(
+  () => ({ env: { DATABASE_URL: fresh.url } }),
+  (s) => {
+    ({ t, site, browser } = s);
+  },
+);
+afterAll(() => fresh?.drop());
 
 async function phone(): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
   const context = await browser.newContext(PHONE);

@@ -79,29 +79,50 @@ export function consoleErrors(page: Page): string[] {
   return errors;
 }
 
-/** What a browser test file works with: the app, the address it is served at, and one Chromium. */
-export interface BrowserSuite {
+/** What a test file that serves the app works with: the app and the address it is served at. */
+export interface SiteSuite {
   t: TestApp;
   site: Site;
+}
+
+/** What a browser test file works with: the served app and one Chromium. */
+export interface BrowserSuite extends SiteSuite {
   browser: Browser;
 }
 
+type AppOptions = Parameters<typeof buildTestApp>[0];
+
 /**
- * Registers a browser test file's set-up and tear-down: the app (built with `app`, as `buildTestApp` takes it) served
- * on a free loopback port and one Chromium, closed in reverse order after the file. `ready` gets them once they are up
- * and does the file's own preparation.
+ * Registers the set-up and tear-down of a test file that fetches from the served app without a browser: the app (built
+ * with `app`, as `buildTestApp` takes it, or with what `app()` returns once an earlier `beforeAll` has run) served on
+ * a free loopback port, stopped after the file. `ready` gets them once they are up and does the file's own preparation.
  */
-export function browserSuite(app: Parameters<typeof buildTestApp>[0] = {}, ready: (s: BrowserSuite) => void | Promise<void> = () => undefined, timeoutMs?: number): void {
-  const s: Partial<BrowserSuite> = {};
+export function siteSuite(app: AppOptions | (() => AppOptions) = {}, ready: (s: SiteSuite) => void | Promise<void> = () => undefined, timeoutMs?: number): void {
+  const s: Partial<SiteSuite> = {};
   beforeAll(async () => {
-    s.t = buildTestApp(app);
+    s.t = buildTestApp(typeof app === 'function' ? app() : app);
     s.site = await serve(s.t);
-    s.browser = await launchBrowser();
-    await ready(s as BrowserSuite);
+    await ready(s as SiteSuite);
   }, timeoutMs);
   afterAll(async () => {
-    await s.browser?.close();
     await s.site?.stop();
     await s.t?.close();
   });
+}
+
+/**
+ * As `siteSuite`, with one Chromium launched before `ready` and closed after the file, before the app stops (jest runs
+ * `afterAll` hooks in the order they were registered).
+ */
+export function browserSuite(app: AppOptions | (() => AppOptions) = {}, ready: (s: BrowserSuite) => void | Promise<void> = () => undefined, timeoutMs?: number): void {
+  let browser: Browser | undefined;
+  afterAll(() => browser?.close());
+  siteSuite(
+    app,
+    async (s) => {
+      browser = await launchBrowser();
+      await ready({ ...s, browser });
+    },
+    timeoutMs,
+  );
 }

@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { Router, RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
@@ -9,6 +9,7 @@ import { SiteNames } from '../core/site-names';
 import { EmptyState } from '../shared/empty-state';
 import { BuildLogApi } from './build-log-api';
 import { PageMeta } from '../core/page-meta';
+import { loadErrorStatus } from '../core/rendering/load-error-status';
 
 const PAGE_SIZE = 10;
 
@@ -23,6 +24,8 @@ const PAGE_SIZE = 10;
 export class PostList {
   constructor() {
     inject(PageMeta).describe({ title: 'Build logs', description: 'How the rockets, altimeters and videos are made, step by step.', path: '/build-logs', type: 'website' });
+    const answerLoadError = loadErrorStatus();
+    effect(() => answerLoadError(this.posts.error()));
   }
 
   private readonly api = inject(BuildLogApi);

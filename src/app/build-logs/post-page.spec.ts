@@ -1,5 +1,6 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { RESPONSE_INIT } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import type { PostDetail } from './build-log-api';
@@ -69,5 +70,56 @@ describe('PostPage with flight markers', () => {
     // The text around the markers stays where it was.
     expect(body.firstElementChild!.textContent).toBe('Up it went.');
     expect(first.nextElementSibling!.textContent).toBe('Then the second one.');
+  });
+});
+
+describe('PostPage when the post does not load', () => {
+  // Stands in for the server render's response (RESPONSE_INIT), whose status the page sets.
+  let response: ResponseInit;
+  beforeEach(() => {
+    response = {};
+    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: RESPONSE_INIT, useValue: response }] });
+  });
+
+  function open(): { element: HTMLElement; http: HttpTestingController } {
+    const fixture = TestBed.createComponent(PostPage);
+    fixture.componentRef.setInput('slug', 'first-flight');
+    TestBed.tick();
+    return { element: fixture.nativeElement as HTMLElement, http: TestBed.inject(HttpTestingController) };
+  }
+  const buttons = (element: HTMLElement) => Array.from(element.querySelectorAll('button')).map((b) => b.textContent!.trim());
+
+  it('should say the build log is not found, answer 404 and offer no retry when the API answers 404', async () => {
+    const { element, http } = open();
+    http.expectOne('/api/posts/first-flight').flush({ error: { code: 'not_found', message: 'No such post.' } }, { status: 404, statusText: 'Not Found' });
+    await settle();
+    expect(element.querySelector('h1')!.textContent).toBe('Build log not found');
+    expect(response.status).toBe(404);
+    expect(buttons(element)).not.toContain('Try again');
+  });
+
+  it('should say it could not load, answer 503, and show the post after "Try again" when the API fails', async () => {
+    const { element, http } = open();
+    http.expectOne('/api/posts/first-flight').flush({ error: { code: 'internal', message: 'Something went wrong.' } }, { status: 500, statusText: 'Internal Server Error' });
+    await settle();
+    expect(element.querySelector('h1')!.textContent).toBe('This build log could not be loaded');
+    expect(element.querySelector('[role="alert"]')!.textContent).toContain('try again in a moment');
+    expect(element.textContent).not.toContain('Build log not found');
+    expect(response.status).toBe(503);
+
+    Array.from(element.querySelectorAll('button')).find((b) => b.textContent!.trim() === 'Try again')!.click();
+    TestBed.tick();
+    http.expectOne('/api/posts/first-flight').flush({ ...POST, html: '<p>Up it went.</p>' });
+    await settle();
+    expect(element.querySelector('h1')!.textContent).toBe(POST.title);
+    expect(http.match('/api/posts/first-flight')).toEqual([]);
+  });
+
+  it('should treat a lost connection like a failure, not like a missing post', async () => {
+    const { element, http } = open();
+    http.expectOne('/api/posts/first-flight').error(new ProgressEvent('error'), { status: 0, statusText: 'Unknown Error' });
+    await settle();
+    expect(element.querySelector('h1')!.textContent).toBe('This build log could not be loaded');
+    expect(response.status).toBe(503);
   });
 });

@@ -26,7 +26,7 @@ import { BuildLogApi } from './build-log-api';
 import { HazardNotice } from './hazard-notice';
 import { SiteNames } from '../core/site-names';
 import { PageMeta, SHARE_IMAGE } from '../core/page-meta';
-import { notFoundStatus } from '../core/rendering/not-found-status';
+import { isNotFound, loadErrorStatus } from '../core/rendering/load-error-status';
 import { postData } from '../core/structured-data';
 import type { FlightEmbed } from '../flights/flight-embed';
 
@@ -53,6 +53,8 @@ export class PostPage {
   protected readonly coverSizes = '(max-width: 840px) 100vw, 800px';
 
   protected readonly post = rxResource({ params: () => this.slug(), stream: ({ params }) => this.api.get(params, this.session.signedIn()) });
+  /** The API said there is no such post; any other failure is worth a retry. */
+  protected readonly missing = computed(() => isNotFound(this.post.error()));
   /**
    * The server's one Markdown pipeline has already sanitized this with its allow-list (and the CSP forbids inline
    * script); Angular's own sanitizer would also strip the task-list checkboxes that allow-list keeps.
@@ -71,9 +73,9 @@ export class PostPage {
 
   constructor() {
     const meta = inject(PageMeta);
-    const answerNotFound = notFoundStatus();
+    const answerLoadError = loadErrorStatus();
     effect(() => {
-      answerNotFound(this.post.error());
+      answerLoadError(this.post.error());
       const p = this.post.hasValue() ? this.post.value() : undefined;
       if (!p) return;
       const path = `/build-logs/${p.slug}`;

@@ -1,5 +1,6 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { RESPONSE_INIT } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { LaunchCalendar, todayIn } from './launch-calendar';
@@ -29,5 +30,26 @@ describe('LaunchCalendar', () => {
     expect(titles(upcoming)).toEqual(['Day 3', 'Day 4']);
     expect(titles(recent)).toEqual(['Day 2', 'Day 1']);
     expect(recent.querySelector('li')!.textContent).toContain('Results');
+  });
+
+  it('should say the calendar could not load, answer 503, and list the days after "Try again" when the API fails', async () => {
+    const response: ResponseInit = {};
+    TestBed.overrideProvider(RESPONSE_INIT, { useValue: response });
+    const fixture = TestBed.createComponent(LaunchCalendar);
+    fixture.detectChanges();
+    const http = TestBed.inject(HttpTestingController);
+    http.expectOne('/api/launches').flush({ error: { code: 'internal', message: 'Something went wrong.' } }, { status: 500, statusText: 'Internal Server Error' });
+    await fixture.whenStable();
+    const el = fixture.nativeElement as HTMLElement;
+    expect(el.querySelector('[role="alert"]')!.textContent).toBe('The calendar could not be loaded just now.');
+    expect(el.querySelector('ps-empty-state')).toBeNull();
+    expect(response.status).toBe(503);
+
+    Array.from(el.querySelectorAll('button')).find((b) => b.textContent!.trim() === 'Try again')!.click();
+    fixture.detectChanges();
+    http.expectOne('/api/launches').flush({ items: [launch(3, '2999-06-01', 'scheduled')], timeZone: 'America/Winnipeg' });
+    await fixture.whenStable();
+    expect(el.querySelector('[role="alert"]')).toBeNull();
+    expect(Array.from(el.querySelectorAll('ul.launches h3')).map((h) => h.textContent!.trim())).toEqual(['Day 3']);
   });
 });

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DOCUMENT, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DOCUMENT, computed, effect, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { NgTemplateOutlet } from '@angular/common';
 import { RouterLink } from '@angular/router';
@@ -8,6 +8,7 @@ import { EmptyState } from '../shared/empty-state';
 import type { LaunchView } from '@contracts/launches/launch-answers';
 import { LaunchesApi } from './launches-api';
 import { PageMeta } from '../core/page-meta';
+import { loadErrorStatus } from '../core/rendering/load-error-status';
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 
@@ -31,15 +32,19 @@ function isOver(l: LaunchView, today: string): boolean {
 export class LaunchCalendar {
   constructor() {
     inject(PageMeta).describe({ title: 'Launch days', description: 'Coming and recent club launch days, with a calendar feed to subscribe to.', path: '/launches', type: 'website' });
+    const answerLoadError = loadErrorStatus();
+    effect(() => answerLoadError(this.launches.error()));
   }
 
   private readonly api = inject(LaunchesApi);
   protected readonly launches = rxResource({ stream: () => this.api.list() });
-  protected readonly timeZone = computed(() => this.launches.value()?.timeZone ?? '');
+  /** The answer once loaded; value() itself throws while the resource holds an error. */
+  private readonly loaded = computed(() => (this.launches.hasValue() ? this.launches.value() : undefined));
+  protected readonly timeZone = computed(() => this.loaded()?.timeZone ?? '');
   private readonly today = computed(() => (this.timeZone() ? todayIn(this.timeZone()) : ''));
   /** A day closed after flying is over even on its own date: it goes with the recent ones, with its results. */
-  protected readonly upcoming = computed(() => (this.launches.value()?.items ?? []).filter((l) => !isOver(l, this.today())));
-  protected readonly past = computed(() => (this.launches.value()?.items ?? []).filter((l) => isOver(l, this.today())).reverse());
+  protected readonly upcoming = computed(() => (this.loaded()?.items ?? []).filter((l) => !isOver(l, this.today())));
+  protected readonly past = computed(() => (this.loaded()?.items ?? []).filter((l) => isOver(l, this.today())).reverse());
   protected readonly feedUrl = `${inject(DOCUMENT).location.origin}/feeds/launches.ics`;
   protected readonly webcalUrl = this.feedUrl.replace(/^https?:/, 'webcal:');
 

@@ -6,7 +6,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { apiErrorMessage } from '../core/api-error';
 import { PageMeta, SHARE_IMAGE } from '../core/page-meta';
-import { notFoundStatus } from '../core/rendering/not-found-status';
+import { isNotFound, loadErrorStatus } from '../core/rendering/load-error-status';
 import { SessionStore } from '../core/session-store';
 import { SiteNames } from '../core/site-names';
 import { launchData } from '../core/structured-data';
@@ -29,7 +29,9 @@ export class LaunchPage {
   readonly id = input.required<string>();
 
   protected readonly page = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.show(params, this.session.signedIn()) });
-  protected readonly launch = computed(() => this.page.value()?.launch ?? null);
+  protected readonly launch = computed(() => (this.page.hasValue() ? this.page.value().launch : null));
+  /** The API said there is no such launch day; any other failure is worth a retry. */
+  protected readonly missing = computed(() => isNotFound(this.page.error()));
   protected readonly going = signal<boolean | null | undefined>(undefined);
   /** The reply shown: the one just sent, else the stored one. */
   protected readonly reply = computed(() => (this.going() !== undefined ? this.going() : this.page.value()?.me?.going ?? null));
@@ -42,9 +44,9 @@ export class LaunchPage {
   constructor() {
     const meta = inject(PageMeta);
     const site = inject(SiteNames);
-    const answerNotFound = notFoundStatus();
+    const answerLoadError = loadErrorStatus();
     effect(() => {
-      answerNotFound(this.page.error());
+      answerLoadError(this.page.error());
       const p = this.page.hasValue() ? this.page.value() : undefined;
       if (!p) return;
       const l = p.launch;

@@ -1,20 +1,25 @@
-import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, effect, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { RouterLink } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
 import { SiteNames } from '../core/site-names';
 import { EmptyState } from '../shared/empty-state';
 import { SponsorApi } from './sponsor-api';
 import { PageMeta } from '../core/page-meta';
+import { loadErrorStatus } from '../core/rendering/load-error-status';
 
 /** The public thank-you page: this season's sponsors grouped by tier, each with the build logs that credit it. */
 @Component({
   selector: 'ps-sponsor-wall',
-  imports: [RouterLink, EmptyState],
+  imports: [RouterLink, MatButtonModule, EmptyState],
   template: `
     <section class="ps-page">
       <h1>Our sponsors</h1>
       <p class="form-note">{{ site.teamName() }} fly because these businesses back us with cash, parts and know-how.</p>
-      @if (wall.value(); as w) {
+      @if (wall.error()) {
+        <p class="form-problem" role="alert">The sponsors could not be loaded just now.</p>
+        <button mat-flat-button type="button" (click)="wall.reload()" [disabled]="wall.isLoading()">Try again</button>
+      } @else if (wall.value(); as w) {
         @for (tier of w.tiers; track tier.name) {
           <section class="tier" [attr.aria-labelledby]="'tier-' + $index">
             <h2 [id]="'tier-' + $index">{{ tier.name }} <span class="season">· {{ w.season }} season</span></h2>
@@ -64,6 +69,8 @@ import { PageMeta } from '../core/page-meta';
 export class SponsorWall {
   constructor() {
     inject(PageMeta).describe({ title: 'Sponsors', description: 'The businesses that back the team with cash, parts and know-how this season.', path: '/sponsors', type: 'website' });
+    const answerLoadError = loadErrorStatus();
+    effect(() => answerLoadError(this.wall.error()));
   }
 
   private readonly api = inject(SponsorApi);
