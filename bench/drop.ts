@@ -1,8 +1,11 @@
 import type { AddressInfo } from 'node:net';
+import path from 'node:path';
+import { Worker } from 'node:worker_threads';
 import type { PadsideApp } from '../server/app';
 import type { PaymentGateway } from '../server/payments/payment-gateway';
 import { withBaseline, type BenchResult } from './bench-result';
 import { BenchClient } from './bench-client';
+import type { DropBuyersInput, DropBuyersOutput } from './drop-buyers';
 
 const BUYERS = 500;
 const CAP = 200;
@@ -13,7 +16,8 @@ function percentile(sorted: number[], p: number): number {
 
 /**
  * 500 buyers at once on a 200-unit run, against the payment fake alone taking the run's 200 charges at once: every
- * paid checkout needs one charge, so the fake's rate is the ceiling a checkout can reach on this machine.
+ * paid checkout needs one charge, so the fake's rate is the ceiling a checkout can reach on this machine. The buyers
+ * run in a worker thread and the baseline's charges come from this process, as the server's do.
  */
 export async function dropBench(app: PadsideApp, payments: PaymentGateway, adminEmail: string, adminPassword: string): Promise<BenchResult[]> {
   const server = app.listen(0, '127.0.0.1');
@@ -37,26 +41,7 @@ export async function dropBench(app: PadsideApp, payments: PaymentGateway, admin
     const methods = (await admin.get('/api/shipping-methods')).body as { items: { id: number; code: string }[] };
     const pickup = methods.items.find((m) => m.code === 'pickup')!;
 
-    const buyers = await Promise.all(Array.from({ length: BUYERS }, async () => {
-      const c = new BenchClient(base);
-      await c.token();
-      return c;
-    }));
-    const started = Date.now();
-    const outcomes = await Promise.all(
-      buyers.map(async (c, i) => {
-        const t0 = performance.now();
-        const res = await c.post('/api/orders', {
-          items: [{ variantId: detail.variants[i % detail.variants.length].id, quantity: 1 }],
-          shipTo: { name: `Buyer ${i}`, line1: '1 Pad Road', city: 'Gopher Flats', province: 'MB', postalCode: 'R0A 0A0', country: 'CA' },
-          shippingMethodId: pickup.id,
-          email: `drop-${now}-${i}@example.test`,
-          paymentToken: 'tok_visa',
-        });
-        return { status: res.status, ms: performance.now() - t0 };
-      }),
-    );
-    const seconds = (Date.now() - started) / 1000;
+    const { outcomes, seconds } = await runBuyers({ base, buyers: BUYERS, variantIds: detail.variants.map((v) => v.id), shippingMethodId: pickup.id, runId: now });
     const paid = outcomes.filter((o) => o.status === 201);
     const soldOut = outcomes.filter((o) => o.status === 409).length;
     const others = new Map<number, number>();
@@ -75,6 +60,16 @@ export async function dropBench(app: PadsideApp, payments: PaymentGateway, admin
   } finally {
     server.close();
   }
+}
+
+/** The buyers in a worker thread (the `--import tsx` of this process carries over to it), so the server has this process to itself. */
+function runBuyers(input: DropBuyersInput): Promise<DropBuyersOutput> {
+  return new Promise((resolve, reject) => {
+    const worker = new Worker(path.join(__dirname, 'drop-buyers.ts'), { workerData: input });
+    worker.once('message', (out: DropBuyersOutput) => resolve(out));
+    worker.once('error', reject);
+    worker.once('exit', (code) => reject(new Error(`the drop's buyers stopped (exit ${code})`)));
+  });
 }
 
 /** Charges per second the payment fake takes when `n` arrive at once, through the same SDK client as checkouts. */

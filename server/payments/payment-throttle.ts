@@ -60,7 +60,7 @@ export class PaymentThrottle {
 
   private async attemptNow<T>(payer: PayerKeys, pay: () => Promise<T>, paid: (result: T) => boolean): Promise<T> {
     const keys = payerKeys(payer);
-    const standings = await Promise.all(keys.map((k) => this.failures.standing(k)));
+    const standings = await this.failures.standings(keys);
     const wait = Math.max(0, ...standings.map((s) => s.blockedMs));
     if (wait > 0) {
       const seconds = Math.ceil(wait / 1000);
