@@ -1,12 +1,12 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { SessionStore } from '../session-store';
 import { SiteNames } from '../site-names';
 import { CartStore } from '../../shop/cart-store';
+import { AccountMenu } from './account-menu';
 
 /** Public sections in the top bar. */
 const SECTIONS: { path: string; label: string; exact?: boolean }[] = [
@@ -21,7 +21,7 @@ const SECTIONS: { path: string; label: string; exact?: boolean }[] = [
 /** Padside's frame: top bar with the mark, sections and the account menu; footer with the flying caution. */
 @Component({
   selector: 'ps-shell',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatToolbarModule, MatButtonModule, MatIconModule, MatMenuModule],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatToolbarModule, MatButtonModule, MatIconModule, AccountMenu],
   templateUrl: './shell.html',
   styleUrl: './shell.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,17 +30,11 @@ export class Shell {
   protected readonly session = inject(SessionStore);
   protected readonly site = inject(SiteNames);
   protected readonly cart = inject(CartStore);
-  private readonly router = inject(Router);
 
   protected readonly sections = SECTIONS;
   protected readonly menuOpen = signal(false);
 
   protected toggleMenu(): void {
     this.menuOpen.update((open) => !open);
-  }
-
-  protected async signOut(): Promise<void> {
-    await this.session.signOut();
-    await this.router.navigateByUrl('/');
   }
 }
