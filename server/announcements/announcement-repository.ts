@@ -41,24 +41,29 @@ export interface OpenedRun {
 export class AnnouncementRepository {
   constructor(private readonly db: Knex) {}
 
+  /** Inserts an announcement and returns the stored row. */
   async insert(trx: Knex | Knex.Transaction, row: Partial<AnnouncementRow>): Promise<AnnouncementRow> {
     const [created] = await trx('announcements').insert(row).returning('*');
     return created;
   }
 
+  /** An announcement by id. */
   byId(id: number, trx: Knex | Knex.Transaction = this.db): Promise<AnnouncementRow | undefined> {
     return trx('announcements').where('id', id).first();
   }
 
+  /** An announcement locked for update, so a change and a send cannot interleave. */
   lockById(trx: Knex.Transaction, id: number): Promise<AnnouncementRow | undefined> {
     return trx('announcements').where('id', id).forUpdate().first();
   }
 
+  /** Writes the changed fields, stamps the change time and returns the stored row. */
   async update(trx: Knex | Knex.Transaction, id: number, patch: Partial<AnnouncementRow>): Promise<AnnouncementRow> {
     const [row] = await trx('announcements').where('id', id).update({ ...patch, updated_at: trx.fn.now() }).returning('*');
     return row;
   }
 
+  /** One page of announcements in the chosen order (newest first as the tie-break), with the total count. */
   async page(q: { page: number; pageSize: number; sort: 'created' | 'subject' | 'topic'; dir: 'asc' | 'desc' }): Promise<{ rows: AnnouncementRow[]; total: number }> {
     const [{ count }] = await this.db('announcements').count<{ count: string }[]>('* as count');
     const column = { created: 'id', subject: 'subject', topic: 'topic' }[q.sort];

@@ -30,6 +30,7 @@ export class AnnouncementService {
     private readonly site: AnnouncementSite,
   ) {}
 
+  /** Saves a new announcement as a draft; nothing is sent until it is sent explicitly. */
   async create(input: { topic: Topic; subject: string; markdown: string }, userId: number) {
     const row = await this.repo.insert(this.db, { kind: 'announcement', topic: input.topic, subject: input.subject, markdown: input.markdown, created_by: userId });
     return { announcement: await this.view(row) };
@@ -45,12 +46,14 @@ export class AnnouncementService {
     });
   }
 
+  /** One page of announcements for the staff table, each with its outbox counts. */
   async list(q: { page: number; pageSize: number; sort: 'created' | 'subject' | 'topic'; dir: 'asc' | 'desc' }) {
     const { rows, total } = await this.repo.page(q);
     const counts = await this.repo.counts(rows.map((r) => Number(r.id)));
     return { items: rows.map((r) => this.toView(r, counts.get(Number(r.id))!)), total, page: q.page, pageSize: q.pageSize };
   }
 
+  /** One announcement with its delivery counts; a 404 for an unknown id. */
   async show(id: number) {
     return { announcement: await this.view(await this.found(id)) };
   }
@@ -120,10 +123,12 @@ export class AnnouncementService {
     return sent;
   }
 
+  /** The announcement settings: the sender identity every commercial mail shows, and whether drop notices go out by themselves. */
   async getSettings(): Promise<AnnouncementSettings> {
     return this.settings.get(ANNOUNCEMENT_SETTINGS);
   }
 
+  /** Validates and saves the announcement settings. */
   async putSettings(value: AnnouncementSettings): Promise<AnnouncementSettings> {
     return this.settings.put(ANNOUNCEMENT_SETTINGS, value);
   }

@@ -9,6 +9,7 @@ import { withdrawAllConsents } from './consent-withdrawal';
  * keep (from memory), no longer tied to the account.
  */
 export const announcementsPersonalData: PersonalDataPart = {
+  /** The person's list consents (by account, and by address once verified), implied consents and suppressions. */
   async export(trx, subject) {
     const byAddress = subject.emailVerified ? subject.email : null;
     const [subscriptions, implied, suppressions] = [
@@ -30,6 +31,7 @@ export const announcementsPersonalData: PersonalDataPart = {
     ];
   },
 
+  /** Withdraws every consent of the address and unlinks its subscriptions from the account, keeping the records as proof of what was agreed. */
   async erase(trx, subject) {
     await withdrawAllConsents(trx, subject.email, new Date(), 'account deleted');
     await trx('subscriptions').where('user_id', subject.userId).update({ user_id: null });

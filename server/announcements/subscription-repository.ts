@@ -96,6 +96,7 @@ export class SubscriptionRepository {
     return trx('subscriptions').where('confirm_token_hash', tokenHash).whereNull('confirmed_at').modify(LIVE).forUpdate();
   }
 
+  /** Marks the subscriptions confirmed by the e-mail link, keeping when and from where as proof of consent, and spends the token. */
   async confirm(trx: Knex.Transaction, ids: number[], at: Date, ip: string): Promise<void> {
     await trx('subscriptions').whereIn('id', ids).update({ confirmed_at: at, confirmed_ip: ip, confirmed_how: 'email-link', confirm_token_hash: null, confirm_expires_at: null });
   }
@@ -119,6 +120,7 @@ export class SubscriptionRepository {
       .select('s.*', 'p.name as product_name');
   }
 
+  /** Whether a product exists, so a drop request cannot name one that does not. */
   async productExists(id: number): Promise<boolean> {
     return Boolean(await this.db('shop_products').where('id', id).first('id'));
   }

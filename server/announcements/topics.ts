@@ -17,4 +17,5 @@ export const TOPIC_LABELS: Record<MailList, string> = {
   'club-news': 'club news from the roster',
 };
 
+/** Whether a string from outside (a token, a form) names one of the mail lists a person can join. */
 export const isMailList = (value: string): value is MailList => (MAIL_LISTS as readonly string[]).includes(value);

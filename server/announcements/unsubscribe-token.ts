@@ -19,6 +19,7 @@ export class UnsubscribeTokens {
     this.key = createHmac('sha256', sessionSecret).update(DERIVATION_LABEL).digest();
   }
 
+  /** The signed token for an address and list, with the address normalised so case and spaces do not make a second token. */
   tokenFor(email: string, topic: MailList): string {
     const body = Buffer.from(`${email.trim().toLowerCase()}\n${topic}`).toString('base64url');
     return `${body}.${this.sign(body)}`;

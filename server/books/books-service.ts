@@ -53,6 +53,7 @@ export class BooksService {
     };
   }
 
+  /** The tax report as CSV for the accountant, amounts in dollars with two decimals. */
   async taxCsv(range: DateRange): Promise<string> {
     const { authorities } = await this.taxReport(range);
     return toCsv(
@@ -104,10 +105,12 @@ export class BooksService {
     return updated;
   }
 
+  /** The card-fee estimate rates, used for a charge until the processor reports its real fee. */
   feeSettings(): Promise<ProcessorFeeSettings> {
     return this.settings.get(PROCESSOR_FEES);
   }
 
+  /** Validates and saves the card-fee estimate rates. */
   saveFeeSettings(value: ProcessorFeeSettings): Promise<ProcessorFeeSettings> {
     return this.settings.put(PROCESSOR_FEES, value);
   }
@@ -145,10 +148,12 @@ export class BooksService {
     };
   }
 
+  /** Each sponsor's cash and in-kind value this season, or an empty list when the sponsors feature is not installed. */
   sponsorValue() {
     return this.sources().sponsorValue?.() ?? Promise.resolve({ season: '', items: [] });
   }
 
+  /** Units sold per size for a run, or none when the shop feature is not installed. */
   unitsBySize(runId: number) {
     return this.sources().unitsBySize?.(runId) ?? Promise.resolve([]);
   }

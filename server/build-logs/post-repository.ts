@@ -59,6 +59,7 @@ export class PostRepository {
     return trx<PostRow>('posts as p').leftJoin('users as u', 'u.id', 'p.author_id').select('p.*', 'u.display_name as author_name');
   }
 
+  /** A post of any state with its author's display name. */
   byId(id: number, trx: Db = this.db): Promise<PostRow | undefined> {
     return this.withAuthor(trx).where('p.id', id).first();
   }
@@ -68,29 +69,35 @@ export class PostRepository {
     return trx<PostRow>('posts').where('id', id).forUpdate().first();
   }
 
+  /** A post by its address, only once published, so drafts and scheduled posts stay unreachable from outside. */
   publishedBySlug(slug: string): Promise<PostRow | undefined> {
     return this.withAuthor(this.db).where({ 'p.slug': slug, 'p.status': 'published' }).first();
   }
 
+  /** The addresses already taken by `base` and its numbered variants (`base-2`, ...), so a new one can pick the next free one. */
   async slugsLike(base: string, trx: Db = this.db): Promise<Set<string>> {
     const rows = await trx('posts').where('slug', base).orWhereLike('slug', `${base}-%`).select('slug');
     return new Set(rows.map((r: { slug: string }) => r.slug));
   }
 
+  /** Whether another post (other than `exceptId`) already uses this address. */
   async slugTaken(slug: string, exceptId: number | null, trx: Db = this.db): Promise<boolean> {
     const row = await trx('posts').where('slug', slug).modify((q) => exceptId !== null && q.whereNot('id', exceptId)).first('id');
     return Boolean(row);
   }
 
+  /** Inserts a post and returns its new id. */
   async insert(trx: Knex.Transaction, p: PostWrite, authorId: number | null): Promise<number> {
     const [row] = await trx('posts').insert({ ...columns(p), author_id: authorId }).returning('id');
     return Number(row.id);
   }
 
+  /** Overwrites a post's editable fields and stamps the change time. */
   async update(trx: Knex.Transaction, id: number, p: PostWrite): Promise<void> {
     await trx('posts').where('id', id).update({ ...columns(p), updated_at: trx.fn.now() });
   }
 
+  /** Replaces the post's sponsor credits with exactly `sponsorIds`. */
   async setCredits(trx: Knex.Transaction, postId: number, sponsorIds: readonly number[]): Promise<void> {
     await trx('post_credits').where('post_id', postId).delete();
     if (sponsorIds.length) await trx('post_credits').insert(sponsorIds.map((sponsor_id) => ({ post_id: postId, sponsor_id })));
@@ -109,6 +116,7 @@ export class PostRepository {
     return out;
   }
 
+  /** One page of published posts, newest first (id breaks ties so pages never overlap), with the total count. */
   async publishedPage(opts: { tag?: string; page: number; pageSize: number }): Promise<{ items: PostRow[]; total: number }> {
     const base = this.db<PostRow>('posts').where('status', 'published').modify((q) => opts.tag && q.whereRaw('? = ANY(tags)', [opts.tag]));
     const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
@@ -116,6 +124,7 @@ export class PostRepository {
     return { items, total: Number(count) };
   }
 
+  /** Each tag used by a published post with its count, counted in SQL over the tags array. */
   async tagCounts(): Promise<{ tag: string; count: number }[]> {
     const rows = await this.db.raw("SELECT t AS tag, count(*) AS count FROM posts, unnest(tags) t WHERE status = 'published' GROUP BY t ORDER BY count(*) DESC, t");
     return rows.rows.map((r: { tag: string; count: string }) => ({ tag: r.tag, count: Number(r.count) }));
@@ -138,6 +147,7 @@ export class PostRepository {
     return trx<PostRow>('posts').where('status', 'scheduled').where('publish_at', '<=', now).forUpdate().skipLocked().orderBy('publish_at');
   }
 
+  /** The newest published posts with their authors, for the feeds. */
   latestPublished(limit: number): Promise<PostRow[]> {
     return this.withAuthor(this.db).where('p.status', 'published').orderBy('p.published_at', 'desc').limit(limit);
   }

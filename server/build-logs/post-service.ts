@@ -38,6 +38,7 @@ export class PostService {
     private readonly describeImages: (urls: readonly string[]) => Promise<Map<string, StoredImage>> = async () => new Map(),
   ) {}
 
+  /** Creates a post in one transaction with its address made unique from the title (or the one asked for, if free) and its sponsor credits recorded. */
   async create(input: PostInput, authorId: number | null, now: Date): Promise<{ id: number; slug: string }> {
     return this.db.transaction(async (trx) => {
       const slug = input.slug ?? uniqueSlug(slugify(input.title), await this.posts.slugsLike(slugify(input.title), trx));
@@ -94,12 +95,14 @@ export class PostService {
     };
   }
 
+  /** One page of published posts, newest first, optionally for one tag, with each cover's stored description for its alt text. */
   async publicPage(opts: { tag?: string; page: number; pageSize: number }) {
     const { items, total } = await this.posts.publishedPage(opts);
     const covers = await this.describeImages(items.flatMap((p) => (p.cover_url ? [p.cover_url] : [])));
     return { items: items.map((p) => ({ slug: p.slug, title: p.title, summary: p.summary, coverUrl: p.cover_url, cover: coverOf(covers, p.cover_url), publishedAt: p.published_at!.toISOString(), tags: p.tags, membersOnly: p.members_only })), total, page: opts.page, pageSize: opts.pageSize };
   }
 
+  /** Tags of published posts with how many posts carry each, most used first, for the tag filter on the list. */
   tags() {
     return this.posts.tagCounts();
   }
@@ -128,11 +131,13 @@ export class PostService {
     };
   }
 
+  /** One page of every post whatever its state, for the editors' table. */
   async adminPage(opts: Parameters<PostRepository['adminPage']>[0]) {
     const { items, total } = await this.posts.adminPage(opts);
     return { items: items.map((p) => ({ id: Number(p.id), slug: p.slug, title: p.title, status: p.status, publishAt: p.publish_at?.toISOString() ?? null, publishedAt: p.published_at?.toISOString() ?? null, updatedAt: p.updated_at.toISOString(), membersOnly: p.members_only, tags: p.tags })), total, page: opts.page, pageSize: opts.pageSize };
   }
 
+  /** One post of any state with its credited sponsors, in the shape the editor form loads; a 404 for an unknown id. */
   async adminGet(id: number) {
     const p = await this.posts.byId(id);
     if (!p) throw notFound('No such post.');

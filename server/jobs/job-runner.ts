@@ -21,6 +21,7 @@ export class JobRunner {
     this.boss.on('error', (err) => this.log.warn({ err }, 'job queue error'));
   }
 
+  /** Starts the queue and schedules each job on its cron line in the club's time zone, logging each result. */
   async start(jobs: ScheduledJob[]): Promise<void> {
     await this.boss.start();
     for (const job of jobs) {
@@ -33,6 +34,7 @@ export class JobRunner {
     }
   }
 
+  /** Stops the queue, giving running jobs up to five seconds to finish. */
   async stop(): Promise<void> {
     await this.boss.stop({ graceful: true, timeout: 5000 });
   }

@@ -78,19 +78,23 @@ export class FlightRepository {
       .select('f.*', 'u.display_name as flyer_name', 'l.title as launch_title', db.raw("to_char(l.launch_date, 'YYYY-MM-DD') AS launch_date"), db.raw("(d.summary->>'apogeeMetres')::float AS apogee_metres"));
   }
 
+  /** Inserts a flight card (motors and warnings stored as JSON) and returns its new id. */
   async insert(db: Db, row: NewFlight): Promise<number> {
     const [created] = await db('flights').insert({ ...row, motors: JSON.stringify(row.motors), warnings: JSON.stringify(row.warnings) }).returning('id');
     return Number(created.id);
   }
 
+  /** A flight card with its launch and flyer fields. */
   byId(id: number, db: Db = this.db): Promise<FlightRow | undefined> {
     return this.select(db).where('f.id', id).first();
   }
 
+  /** The cards of a launch in pad order, cards without a pad last, for the range staff's board. */
   forLaunch(launchId: number, db: Db = this.db): Promise<FlightRow[]> {
     return this.select(db).where('f.launch_id', launchId).orderBy([{ column: 'f.pad', order: 'asc', nulls: 'last' }, { column: 'f.id' }]);
   }
 
+  /** A flyer's own cards, latest launch first, for their logbook. */
   forUser(userId: number, db: Db = this.db): Promise<FlightRow[]> {
     return this.select(db).where('f.user_id', userId).orderBy([{ column: 'l.launch_date', order: 'desc' }, { column: 'f.id', order: 'desc' }]);
   }
@@ -116,6 +120,7 @@ export class FlightRepository {
     await db('flight_data').insert(value).onConflict('flight_id').merge({ ...value, uploaded_at: db.fn.now() });
   }
 
+  /** The altimeter log attached to a flight card, if one was uploaded. */
   data(flightId: number, db: Db = this.db): Promise<FlightDataRow | undefined> {
     return db('flight_data').where('flight_id', flightId).first();
   }

@@ -35,6 +35,7 @@ export class FlyerStanding {
     return m ? this.view(m) : null;
   }
 
+  /** The standing of a signed-in member, or null for someone without a paid membership. */
   async byUser(userId: number): Promise<Flyer | null> {
     const m = await this.memberships.byUser(userId);
     return m ? this.view(m) : null;

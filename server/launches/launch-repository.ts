@@ -46,6 +46,7 @@ export class LaunchRepository {
     return db<LaunchRow>('launches').select('launches.*', db.raw("to_char(launch_date, 'YYYY-MM-DD') AS launch_date"), db.raw(RSVP_COUNT));
   }
 
+  /** Launches with a date inside the optional range, in calendar order. */
   list(range: { from?: string; to?: string }, db: Db = this.db): Promise<LaunchRow[]> {
     return this.select(db)
       .modify((qb) => (range.from ? qb.where('launch_date', '>=', range.from) : qb))
@@ -53,15 +54,18 @@ export class LaunchRepository {
       .orderBy([{ column: 'launches.launch_date' }, { column: 'launches.starts_at' }, { column: 'launches.id' }]);
   }
 
+  /** A launch by id, locked for update when `lock` is set so a change can check its state first. */
   byId(id: number, db: Db = this.db, lock = false): Promise<LaunchRow | undefined> {
     return this.select(db).where('launches.id', id).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
   }
 
+  /** Inserts a launch and returns its new id. */
   async insert(db: Db, row: LaunchFields & { created_by: number }): Promise<number> {
     const [created] = await db('launches').insert(row).returning('id');
     return Number(created.id);
   }
 
+  /** Writes the changed fields of a launch; false when no row has that id. */
   async update(db: Db, id: number, patch: Partial<LaunchFields>): Promise<boolean> {
     return (await db('launches').where('id', id).update({ ...patch, updated_at: db.fn.now() })) === 1;
   }
@@ -79,10 +83,12 @@ export class LaunchRepository {
     return (await db('launches').where({ id, status: 'scheduled' }).update({ status: 'done', sequence: db.raw('sequence + 1'), updated_at: db.fn.now() })) === 1;
   }
 
+  /** Records or changes a person's reply to a launch, one row per person and launch. */
   async setRsvp(db: Db, launchId: number, userId: number, going: boolean): Promise<void> {
     await db('launch_rsvps').insert({ launch_id: launchId, user_id: userId, going }).onConflict(['launch_id', 'user_id']).merge({ going, updated_at: db.fn.now() });
   }
 
+  /** The person's reply to a launch: true, false, or null if they have not answered. */
   async rsvpOf(launchId: number, userId: number, db: Db = this.db): Promise<boolean | null> {
     const row = await db('launch_rsvps').where({ launch_id: launchId, user_id: userId }).first('going');
     return row ? Boolean(row.going) : null;
@@ -108,10 +114,12 @@ export class LaunchRepository {
     return rows.length === 1;
   }
 
+  /** Whether the person was checked in at the range table for that launch. */
   async isCheckedIn(launchId: number, userId: number, db: Db = this.db): Promise<boolean> {
     return (await db('launch_attendance').where({ launch_id: launchId, user_id: userId }).first('user_id')) !== undefined;
   }
 
+  /** Who checked in at a launch, in check-in order, with the member number shown at the table. */
   attendance(launchId: number, db: Db = this.db): Promise<{ user_id: string; display_name: string; member_number: string; checked_in_at: Date }[]> {
     return db('launch_attendance as a').join('users as u', 'u.id', 'a.user_id').where('a.launch_id', launchId).orderBy('a.checked_in_at').select('a.user_id', 'u.display_name', 'a.member_number', 'a.checked_in_at');
   }
@@ -121,6 +129,7 @@ export class LaunchRepository {
     return db('launches').whereBetween('launch_date', [from, to]).groupBy('status').select('status').count<{ status: string; count: string }[]>({ count: '*' });
   }
 
+  /** Check-ins at launches dated in [from, to], for the dashboard's season card. */
   async attendanceBetween(from: string, to: string, db: Db = this.db): Promise<number> {
     const row = await db('launch_attendance as a').join('launches as l', 'l.id', 'a.launch_id').whereBetween('l.launch_date', [from, to]).count<{ count: string }[]>({ count: '*' }).first();
     return Number(row?.count ?? 0);

@@ -45,10 +45,12 @@ export class LaunchService {
     private readonly ctx: LaunchContext,
   ) {}
 
+  /** Today's date in the club's time zone, since a launch day is a local date and not an instant. */
   today(): string {
     return dateInZone(this.clock.now(), this.ctx.timeZone);
   }
 
+  /** A launch by id, or a 404 for an unknown one; the other launch and flight rules start from here. */
   async find(id: number): Promise<LaunchRow> {
     const l = await this.repo.byId(id);
     if (!l) throw notFound('No such launch.');
@@ -73,6 +75,7 @@ export class LaunchService {
     return { launch: launchView(l), me, timeZone: this.ctx.timeZone };
   }
 
+  /** Puts a new launch on the calendar, remembering who created it. */
   async create(input: LaunchInput, userId: number): Promise<{ launch: LaunchView }> {
     const id = await this.repo.insert(this.db, { ...(toFields(input) as LaunchFields), created_by: userId });
     return { launch: launchView((await this.repo.byId(id))!) };
@@ -103,6 +106,7 @@ export class LaunchService {
     return { launch: launchView((await this.repo.byId(id))!), notified };
   }
 
+  /** Closes a launch on the calendar as flown; one already called off or done cannot be closed again. */
   async markDone(id: number): Promise<{ launch: LaunchView }> {
     await this.find(id);
     if (!(await this.repo.markDone(this.db, id))) throw conflict('launch_closed', 'Only a launch on the calendar can be closed.');
@@ -128,11 +132,13 @@ export class LaunchService {
     return { checkedIn: true, alreadyCheckedIn: !added, member: { memberNumber: flyer.memberNumber, name: flyer.name, status: flyer.status, certificationLevel: flyer.certificationLevel } };
   }
 
+  /** The check-in list of a launch for the range staff. */
   async attendance(id: number) {
     await this.find(id);
     return { items: (await this.repo.attendance(id)).map((a) => ({ userId: Number(a.user_id), name: a.display_name, memberNumber: a.member_number, checkedInAt: a.checked_in_at })) };
   }
 
+  /** Whether the person checked in at the launch, which is required before they may file a flight card. */
   async isCheckedIn(id: number, userId: number): Promise<boolean> {
     return this.repo.isCheckedIn(id, userId);
   }
@@ -158,10 +164,12 @@ export class LaunchService {
     return launchCalendar(launches, { clubName: this.ctx.clubName, timeZone: this.ctx.timeZone, publicUrl: this.ctx.publicUrl, host: new URL(this.ctx.publicUrl).hostname, now: this.clock.now() });
   }
 
+  /** The launch feature's settings, with defaults for fields never saved. */
   getSettings(): Promise<LaunchSettings> {
     return this.settings.get(LAUNCH_SETTINGS);
   }
 
+  /** Validates and saves the launch feature's settings. */
   putSettings(s: LaunchSettings): Promise<LaunchSettings> {
     return this.settings.put(LAUNCH_SETTINGS, s);
   }

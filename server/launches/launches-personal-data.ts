@@ -6,6 +6,7 @@ import { plainRecord, type PersonalDataPart } from '../platform/personal-data';
  * the free-text notes and the uploaded file's name erased.
  */
 export const launchesPersonalData: PersonalDataPart = {
+  /** The person's replies, check-ins and flight cards with their altimeter data, read one query after another in the export's transaction. */
   async export(trx, subject) {
     // One after another: queries on one transaction share its connection.
     const [rsvps, attendance, flights] = [
@@ -27,6 +28,7 @@ export const launchesPersonalData: PersonalDataPart = {
     ];
   },
 
+  /** Deletes the replies and blanks the notes and uploaded file names, keeping the check-ins and cards as the range record. */
   async erase(trx, subject) {
     await trx('launch_rsvps').where('user_id', subject.userId).delete();
     const flights = trx('flights').where('user_id', subject.userId).select('id');

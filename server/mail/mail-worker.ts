@@ -42,6 +42,7 @@ export class MailWorker {
     this.timer = setInterval(() => void this.deliverDue().catch((err) => this.log.warn({ err }, 'mail delivery pass failed')), intervalMs);
   }
 
+  /** Stops polling, waits for a delivery pass in progress to finish, then closes the SMTP connection. */
   async stop(): Promise<void> {
     clearInterval(this.timer);
     await this.running;

@@ -13,10 +13,12 @@ export interface SettingDefinition<T> {
   defaults: T;
 }
 
+/** Declares a feature's setting: its key, the schema its stored value must match, and the defaults. */
 export function defineSetting<T>(key: string, schema: z.ZodType<T>, defaults: T): SettingDefinition<T> {
   return { key, schema, defaults };
 }
 
+/** Reads and writes the typed settings of every feature, with a per-process cache kept fresh by database notifications. */
 export class SettingsService {
   /** Parsed settings by key, dropped by any commit to the table (the `settings` trigger); a checkout reads four. */
   private readonly cache: NotifiedCache<unknown> | null;
@@ -46,6 +48,7 @@ export class SettingsService {
     return def.schema.parse(merged);
   }
 
+  /** Validates a value against its schema and stores it as the whole setting; the trigger then drops every process's cached copy. */
   async put<T>(def: SettingDefinition<T>, value: T, trx: Knex | Knex.Transaction = this.db): Promise<T> {
     const parsed = def.schema.parse(value);
     await trx('settings')

@@ -41,6 +41,7 @@ export class PageRenderer {
     return existsSync(entry) ? new PageRenderer(entry, [new URL(publicUrl).hostname]) : null;
   }
 
+  /** Renders one address in the worker; rejects after the time limit so the caller can send the client-rendered page. */
   render(url: string, context: RenderContext): Promise<RenderedPage> {
     const id = this.nextId++;
     const worker = this.start();
@@ -54,6 +55,7 @@ export class PageRenderer {
     });
   }
 
+  /** Stops the worker thread at shutdown; a render after this would start a new one. */
   async close(): Promise<void> {
     const worker = this.worker;
     this.worker = null;
