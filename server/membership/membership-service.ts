@@ -13,7 +13,7 @@ import { dateOnly, type MembershipRepository, type MembershipRow, type PlanRow }
 import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
 import { membershipView, planView } from './membership-views';
 import { withVoidedVerifications } from './flying-status';
-import { duesFor, isJuniorOn, termForPayment, type Term } from './terms';
+import { duesFor, isJuniorOn, renewalOpensOn, termForPayment, type Term } from './terms';
 
 /** The member profile as the join form sends it. */
 export interface ProfileInput {
@@ -170,28 +170,33 @@ export class MembershipService {
     const plan = await this.activePlan(input.planId ?? Number(m.plan_id));
     if (m.waiver_version !== s.waiverVersion || m.safety_code_version !== s.safetyCodeVersion) this.checkAcceptance(s, input.waiverVersion, input.safetyCodeVersion);
     const today = this.today();
-    const priced = this.price(plan, m, today, s);
-    if (plan.eligibility === 'junior' && !isJuniorOn(dateOnly(m.date_of_birth)!, priced.term.start)) {
-      throw badRequest('The junior plan is for members under 18 on the first day of the term; choose another plan.', { planId: 'You are 18 or over on the first day of the new term.' });
-    }
     if (!input.paymentToken && !m.processor_customer_id) throw badRequest('Choose a card to pay with.', { paymentToken: 'Choose a card to pay with.' });
     const at = this.clock.now();
-    const updated = await this.db.transaction(async (trx) => {
+    const { updated, priced } = await this.db.transaction(async (trx) => {
+      // Priced from the locked row: a click that waited behind a finished renewal must not buy the term after it.
+      const locked = (await this.repo.byId(Number(m.id), trx, true))!;
+      const paidThrough = dateOnly(locked.term_end);
+      if (paidThrough && today < renewalOpensOn(paidThrough)) {
+        throw conflict('already_renewed', `Your dues are paid through ${paidThrough}; renewing for the term after opens on ${renewalOpensOn(paidThrough)}.`);
+      }
+      const priced = this.price(plan, locked, today, s);
+      if (plan.eligibility === 'junior' && !isJuniorOn(dateOnly(locked.date_of_birth)!, priced.term.start)) {
+        throw badRequest('The junior plan is for members under 18 on the first day of the term; choose another plan.', { planId: 'You are 18 or over on the first day of the new term.' });
+      }
       const patch: Partial<MembershipRow> = { plan_id: plan.id };
       if (m.waiver_version !== s.waiverVersion || m.safety_code_version !== s.safetyCodeVersion) {
         Object.assign(patch, { waiver_version: s.waiverVersion, waiver_accepted_at: at, safety_code_version: s.safetyCodeVersion, safety_code_accepted_at: at });
       }
       Object.assign(patch, this.profilePatch(s, input.profile ?? {}));
-      const locked = (await this.repo.byId(Number(m.id), trx, true))!;
       const full = withVoidedVerifications(locked, patch);
       const row = await this.repo.update(trx, Number(m.id), full);
       await this.repo.addAudit(trx, Number(m.id), user.id, 'renewal_started', { plan: plan.code, changed: Object.keys(patch), ...voidedNote(full) });
-      return row;
+      return { updated: row, priced };
     });
     // The saved card's key is the same for every request of one attempt, so simultaneous clicks share one charge.
     const source: CardSource = input.paymentToken
       ? { token: input.paymentToken }
-      : { customerId: m.processor_customer_id!, keyTail: await this.cardDues.savedCardTail(m, priced.term, priced.amountCents, 'member') };
+      : { customerId: updated.processor_customer_id!, keyTail: await this.cardDues.savedCardTail(updated, priced.term, priced.amountCents, 'member') };
     const result = await this.cardDues.pay(updated, plan, priced.term, priced.amountCents, source, { today, policy, actorUserId: user.id, at });
     const paid = paidMembership(result, () => conflict('renewal_in_progress', 'Your renewal is already being paid; check your membership in a moment.'));
     return { membership: membershipView(paid, plan, today, policy, s) };

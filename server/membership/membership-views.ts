@@ -1,7 +1,7 @@
 import { dateOnly, type MembershipRow, type PaymentRow, type PlanRow, type RosterRow } from './membership-repository';
 import type { MembershipSettings } from './membership-settings';
 import { associationVerification, certificationVerification } from './flying-status';
-import { addDays, statusOn, type MembershipStatus, type TermPolicy } from './terms';
+import { addDays, renewalOpensOn, statusOn, type MembershipStatus, type TermPolicy } from './terms';
 
 /** A plan as the API shows it. */
 export function planView(p: PlanRow) {
@@ -23,6 +23,8 @@ export function membershipView(m: MembershipRow, plan: PlanRow | undefined, toda
     termStart: dateOnly(m.term_start),
     termEnd,
     graceEnds: termEnd ? addDays(termEnd, policy.graceDays) : null,
+    renewalOpensOn: termEnd ? renewalOpensOn(termEnd) : null,
+    renewalOpen: termEnd === null || today >= renewalOpensOn(termEnd),
     planId: Number(m.plan_id),
     planCode: plan?.code ?? null,
     planName: plan?.name ?? null,

@@ -82,6 +82,14 @@ export function termForPayment(today: string, currentEnd: string | null, policy:
   return { ...newTerm(today, policy), renewal: false };
 }
 
+/**
+ * The first day a renewal can be paid: one year before the paid term ends, so a member is never more than one term
+ * ahead and a second click after a finished renewal cannot buy the year after (common practice, no source).
+ */
+export function renewalOpensOn(termEnd: string): string {
+  return addDays(addYears(termEnd, -1), 1);
+}
+
 /** Status on `today`: active to the term end, lapsing through grace, lapsed after; pending until the first payment. */
 export function statusOn(today: string, termEnd: string | null, policy: Pick<TermPolicy, 'graceDays'>, renewalFailed = false): MembershipStatus {
   if (!termEnd) return 'pending';

@@ -86,11 +86,26 @@ describe('POST /api/membership/renew', () => {
       const answers = await fire(5, (i) => m.post('/api/membership/renew', {}, i));
       expect(answers.map((r) => r.status).filter((s) => s !== 200 && s !== 409)).toEqual([]);
       expect(answers.some((r) => r.status === 200)).toBe(true);
-      for (const r of answers.filter((x) => x.status === 409)) expect(r.body.error.code).toBe('renewal_in_progress');
+      // A click still sharing the first charge hears it is in progress; one that waited behind the finished renewal hears it is done.
+      for (const r of answers.filter((x) => x.status === 409)) expect(['renewal_in_progress', 'already_renewed']).toContain(r.body.error.code);
       expect(await succeededFor(m.memberNumber, '2027-12-31')).toHaveLength(1);
+      expect(await succeededFor(m.memberNumber, '2028-12-31')).toEqual([]);
       const after = await a.deps.db('memberships').where('id', m.row.id).first();
       expect(after.term_end).toEqual(new Date(2027, 11, 31));
       expect(await a.deps.db('membership_payments').where({ membership_id: m.row.id, status: 'paid' })).toHaveLength(2);
+    });
+  });
+
+  describe('when the member clicks renew again after the renewal went through', () => {
+    it('answers 409 already_renewed and charges nothing for the term after', async () => {
+      const m = await member(true);
+      expect((await m.post('/api/membership/renew', {})).status).toBe(200);
+      const again = await m.post('/api/membership/renew', { paymentToken: 'tok_mastercard' }, 1);
+      expect([again.status, again.body.error?.code]).toEqual([409, 'already_renewed']);
+      expect(again.body.error.message).toContain('2027-01-01');
+      expect(await succeededFor(m.memberNumber, '2028-12-31')).toEqual([]);
+      const me = await m.get('/api/membership/me');
+      expect(me.body.membership).toEqual(expect.objectContaining({ termEnd: '2027-12-31', renewalOpensOn: '2027-01-01', renewalOpen: false }));
     });
   });
 

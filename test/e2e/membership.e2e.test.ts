@@ -86,6 +86,10 @@ describe('club dues in a browser', () => {
     await page.getByRole('button', { name: 'Pay and renew' }).click();
     await page.getByText('Renewed. Your dues now run to 2027-12-31.').waitFor();
     await page.getByTestId('term-end').getByText('2027-01-01 to 2027-12-31').waitFor();
+    // Paid a term ahead: the form gives way to the date the next renewal opens, so a second click cannot buy 2028.
+    await page.reload();
+    await page.getByTestId('renewal-later').getByText('Renewing for the term after opens on 2027-01-01.').waitFor();
+    await expect(page.getByRole('button', { name: 'Pay and renew' }).count()).resolves.toBe(0);
     await screenshot(page, 'membership-renewed');
     await page.close();
   });

@@ -1,5 +1,5 @@
 import { dateInZone } from '../../server/platform/clock';
-import { addDays, ageOn, duesFor, isJuniorOn, isLeapYear, newTerm, statusOn, termForPayment, type TermPolicy } from '../../server/membership/terms';
+import { addDays, ageOn, duesFor, isJuniorOn, isLeapYear, newTerm, renewalOpensOn, statusOn, termForPayment, type TermPolicy } from '../../server/membership/terms';
 
 // The demo club: calendar year, late-season from Sep 1, 30-day grace, no proration.
 const calendar: TermPolicy = { rule: 'calendar', lateSeasonFrom: '09-01', graceDays: 30, prorate: false };
@@ -51,6 +51,19 @@ describe('term arithmetic', () => {
     it('starts a new term after grace has run out', () => {
       expect(termForPayment('2027-01-31', '2026-12-31', calendar)).toEqual({ start: '2027-01-31', end: '2027-12-31', renewal: false });
       expect(termForPayment('2027-10-02', '2026-12-31', calendar)).toEqual({ start: '2027-10-02', end: '2028-12-31', renewal: false });
+    });
+  });
+
+  describe('when renewal opens', () => {
+    it('opens one year before the paid term ends, so nobody pays two terms ahead', () => {
+      expect(renewalOpensOn('2026-12-31')).toBe('2026-01-01');
+      expect(renewalOpensOn('2027-12-31')).toBe('2027-01-01');
+      expect(renewalOpensOn('2028-03-14')).toBe('2027-03-15');
+    });
+
+    it('keeps a leap-day end on a real date', () => {
+      // 2027-02-29 does not exist; the year before a Feb 29 end is Mar 1, 2027, and renewal opens the day after.
+      expect(renewalOpensOn('2028-02-29')).toBe('2027-03-02');
     });
   });
 

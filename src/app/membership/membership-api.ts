@@ -41,6 +41,10 @@ export interface Membership {
   termStart: string | null;
   termEnd: string | null;
   graceEnds: string | null;
+  /** The first day the next term can be paid; before it the member is already paid a term ahead. */
+  renewalOpensOn: string | null;
+  /** Whether the next term can be paid today (the club's today, so the server says). */
+  renewalOpen: boolean;
   planId: number;
   planName: string | null;
   legalName: string;
