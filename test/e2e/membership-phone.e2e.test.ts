@@ -155,10 +155,17 @@ describe('club dues on a phone (390x844)', () => {
     await expect(problem.count()).resolves.toBe(0);
     // tok_mastercard is the processor's test Mastercard ending 4444 (the payment fake's fixture).
     await page.getByTestId('card-on-file').getByText('MasterCard ending 4444').waitFor();
-    await page.getByLabel('Card', { exact: true }).click();
-    await page.getByRole('option', { name: 'MasterCard ending 4444 (on file)' }).waitFor();
-    await page.keyboard.press('Escape');
-    await page.getByRole('listbox').waitFor({ state: 'detached' });
+    // A November join is paid through next year; in January, when renewal opens, the renew form offers the card.
+    clock.set('2027-01-05T18:00:00Z');
+    try {
+      await page.reload();
+      await page.getByLabel('Card', { exact: true }).click();
+      await page.getByRole('option', { name: 'MasterCard ending 4444 (on file)' }).waitFor();
+      await page.keyboard.press('Escape');
+      await page.getByRole('listbox').waitFor({ state: 'detached' });
+    } finally {
+      clock.set('2026-11-20T18:00:00Z');
+    }
     await screenshot(page, 'membership-phone-auto-renew-on');
     expect((await t.deps.db('memberships').where('user_id', user.id).first('auto_renew')).auto_renew).toBe(true);
     expect(await seriousViolations(page)).toEqual([]);
