@@ -62,10 +62,10 @@ export async function dropBench(app: PadsideApp, payments: PaymentGateway, admin
   }
 }
 
-/** The buyers in a worker thread (the `--import tsx` of this process carries over to it), so the server has this process to itself. */
+/** The buyers in a worker thread (entered through drop-buyers-worker.mjs, which loads tsx there), so the server has this process to itself. */
 function runBuyers(input: DropBuyersInput): Promise<DropBuyersOutput> {
   return new Promise((resolve, reject) => {
-    const worker = new Worker(path.join(__dirname, 'drop-buyers.ts'), { workerData: input });
+    const worker = new Worker(path.join(__dirname, 'drop-buyers-worker.mjs'), { workerData: input });
     worker.once('message', (out: DropBuyersOutput) => resolve(out));
     worker.once('error', reject);
     worker.once('exit', (code) => reject(new Error(`the drop's buyers stopped (exit ${code})`)));
