@@ -5,6 +5,7 @@ import { requireSignedIn } from '../platform/require-role';
 import { cardToken } from '../payments/card-token';
 import type { PayerKeys, PaymentThrottle } from '../payments/payment-throttle';
 import type { SessionUser } from '../platform/roles';
+import type { MemberRecordService } from './member-record-service';
 import type { MembershipService } from './membership-service';
 
 const payer = (sessionId: string, user: SessionUser): PayerKeys => ({ sessionId, email: user.email, accountId: user.id });
@@ -46,7 +47,7 @@ const RenewSchema = z.object({
 });
 
 /** The member's side: plans, quote, join, renew, own membership, auto-renew, card. */
-export function membershipRoutes(service: MembershipService, throttle: PaymentThrottle): Router {
+export function membershipRoutes(service: MembershipService, record: MemberRecordService, throttle: PaymentThrottle): Router {
   const r = Router();
   r.get('/plans', async (_req, res) => {
     res.json(await service.plans());
@@ -63,10 +64,10 @@ export function membershipRoutes(service: MembershipService, throttle: PaymentTh
     res.status(201).json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.join(req.user!, body), answered));
   });
   r.get('/me', requireSignedIn, async (req, res) => {
-    res.json(await service.meOrNone(req.user!.id));
+    res.json(await record.meOrNone(req.user!.id));
   });
   r.patch('/me', requireSignedIn, async (req, res) => {
-    res.json(await service.updateProfile(req.user!, parse(ProfileSchema.pick({ address: true, phone: true, emergencyContact: true, associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial(), req.body)));
+    res.json(await record.updateProfile(req.user!, parse(ProfileSchema.pick({ address: true, phone: true, emergencyContact: true, associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial(), req.body)));
   });
   r.post('/renew', requireSignedIn, async (req, res) => {
     const body = parse(RenewSchema, req.body);
@@ -75,11 +76,11 @@ export function membershipRoutes(service: MembershipService, throttle: PaymentTh
   r.post('/auto-renew', requireSignedIn, async (req, res) => {
     const body = parse(z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: cardToken.optional() }), req.body);
     // Putting a card on file is checked by the processor too, so a card tester could use it: same throttle.
-    res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.setAutoRenew(req.user!, body), answered));
+    res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => record.setAutoRenew(req.user!, body), answered));
   });
   r.get('/card', requireSignedIn, async (req, res) => {
     res.set('Cache-Control', 'no-store');
-    res.json(await service.card(req.user!.id));
+    res.json(await record.card(req.user!.id));
   });
   return r;
 }
