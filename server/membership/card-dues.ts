@@ -112,7 +112,7 @@ export class CardDues {
       }
       await this.db.transaction(async (trx) => {
         // Only if no other request took the attempt up again (same key) while the processor was asked.
-        const current = await this.paymentRepo.payment(Number(p.id), trx, true);
+        const current = await this.paymentRepo.lockPayment(trx, Number(p.id));
         if (current?.status !== p.status || current.attempted_at?.getTime() !== p.attempted_at?.getTime()) return;
         await this.paymentRepo.updatePayment(trx, Number(p.id), { status: 'declined', failure_message: 'Not charged: the processor holds no charge for this attempt.' });
       });
@@ -125,8 +125,8 @@ export class CardDues {
     const fees = await this.settings.get(PROCESSOR_FEES);
     const feeCents = estimateFeeCents(charge.amountCents, charge.cardCountry !== null && charge.cardCountry !== 'CA', fees);
     return this.db.transaction(async (trx) => {
-      const locked = (await this.repo.byId(Number(m.id), trx, true))!;
-      if ((await this.paymentRepo.payment(Number(payment.id), trx, true))?.status === 'paid') return locked;
+      const locked = (await this.repo.lockById(trx, Number(m.id)))!;
+      if ((await this.paymentRepo.lockPayment(trx, Number(payment.id)))?.status === 'paid') return locked;
       return this.settlement.settle(trx, locked, payment, term, { ...ctx, feeCents, chargeId: charge.chargeId });
     });
   }
@@ -137,7 +137,7 @@ export class CardDues {
    */
   private claim(m: MembershipRow, plan: PlanRow, term: Term, amountCents: number, key: string, at: Date): Promise<Claim> {
     return this.db.transaction(async (trx): Promise<Claim> => {
-      const locked = (await this.repo.byId(Number(m.id), trx, true))!;
+      const locked = (await this.repo.lockById(trx, Number(m.id)))!;
       const earlier = await this.paymentRepo.cardPaymentsForTerm(Number(m.id), term.end, trx);
       if (earlier.some((p) => p.status === 'paid')) return { kind: 'paid', membership: locked };
       const heldSince = at.getTime() - ATTEMPT_HOLD_MS;

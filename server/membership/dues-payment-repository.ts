@@ -17,8 +17,13 @@ export class DuesPaymentRepository {
     return row;
   }
 
-  payment(id: number, db: Db = this.db, lock = false): Promise<PaymentRow | undefined> {
-    return db<PaymentRow>('membership_payments').where('id', id).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
+  payment(id: number, db: Db = this.db): Promise<PaymentRow | undefined> {
+    return db<PaymentRow>('membership_payments').where('id', id).first();
+  }
+
+  /** The payment or refund row, locked until `trx` ends so its settlement is decided once. */
+  lockPayment(trx: Knex.Transaction, id: number): Promise<PaymentRow | undefined> {
+    return trx<PaymentRow>('membership_payments').where('id', id).forUpdate().first();
   }
 
   paymentByKey(key: string, db: Db = this.db): Promise<PaymentRow | undefined> {

@@ -49,13 +49,13 @@ export class DuesRefunds {
    */
   async refund(actorId: number, memberId: number, input: DuesRefundRequest, requestKey: string | null): Promise<void> {
     const claim = await this.db.transaction(async (trx) => {
-      const m = await this.repo.byId(memberId, trx, true);
+      const m = await this.repo.lockById(trx, memberId);
       if (!m) throw notFound('No such member.');
       if (requestKey) {
         const earlier = await this.paymentRepo.refundByRequestKey(memberId, requestKey, trx);
         if (earlier) return { replay: earlier };
       }
-      const payment = await this.paymentRepo.payment(input.paymentId, trx, true);
+      const payment = await this.paymentRepo.lockPayment(trx, input.paymentId);
       if (!payment || Number(payment.membership_id) !== memberId || payment.entry !== 'payment') throw badRequest('Choose a payment of this member.', { paymentId: 'Choose a payment of this member.' });
       if (payment.status !== 'paid' && payment.status !== 'refunded') throw badRequest('Only a paid payment can be refunded.', { paymentId: 'This payment was not paid.' });
       if (input.amountCents < 1 || input.amountCents > payment.amount_cents) throw badRequest('The refund is more than the payment.', { amountCents: `At most ${payment.amount_cents} cents can be refunded.` });
@@ -103,8 +103,8 @@ export class DuesRefunds {
     if (!found) return false;
     const held = (await this.gateway.refundsOf(chargeId)).filter((r) => r.status === 'succeeded' || r.status === 'pending');
     await this.db.transaction(async (trx) => {
-      const m = (await this.repo.byId(Number(found.membership_id), trx, true))!;
-      const payment = (await this.paymentRepo.payment(Number(found.id), trx, true))!;
+      const m = (await this.repo.lockById(trx, Number(found.membership_id)))!;
+      const payment = (await this.paymentRepo.lockPayment(trx, Number(found.id)))!;
       const known = await this.paymentRepo.refundsOf(Number(payment.id), trx);
       for (const pr of held) {
         if (known.some((k) => k.processor_refund_id === pr.id)) continue;
@@ -156,14 +156,14 @@ export class DuesRefunds {
   private async settle(refundId: number, processorRefundId: string | null, failure: string | null): Promise<void> {
     await this.db.transaction(async (trx) => {
       const claim = (await this.paymentRepo.payment(refundId, trx))!;
-      const m = (await this.repo.byId(Number(claim.membership_id), trx, true))!;
-      const fresh = (await this.paymentRepo.payment(refundId, trx, true))!;
+      const m = (await this.repo.lockById(trx, Number(claim.membership_id)))!;
+      const fresh = (await this.paymentRepo.lockPayment(trx, refundId))!;
       if (fresh.status !== 'requested') return;
       if (!processorRefundId) {
         await this.paymentRepo.updatePayment(trx, refundId, { status: 'failed', failure_message: (failure ?? 'refused').slice(0, 400) });
         return;
       }
-      const payment = (await this.paymentRepo.payment(Number(fresh.refund_of), trx, true))!;
+      const payment = (await this.paymentRepo.lockPayment(trx, Number(fresh.refund_of)))!;
       await this.recordSucceeded(trx, m, payment, fresh, processorRefundId);
     });
   }

@@ -97,7 +97,7 @@ export class MemberAdminService {
       throw badRequest('Choose a certification level from the list.', { certificationLevel: 'Choose a level from the list.' });
     }
     await this.db.transaction(async (trx) => {
-      const m = await this.repo.byId(id, trx, true);
+      const m = await this.repo.lockById(trx, id);
       if (!m) throw notFound('No such member.');
       const map = { associationNumber: 'association_number', associationExpires: 'association_expires', certificationLevel: 'certification_level', certificationDate: 'certification_date', address: 'address', phone: 'phone', emergencyContact: 'emergency_contact' } as const;
       const row: Record<string, unknown> = {};
@@ -123,7 +123,7 @@ export class MemberAdminService {
     const policy = await this.policy();
     const today = this.today();
     await this.db.transaction(async (trx) => {
-      const m = await this.repo.byId(id, trx, true);
+      const m = await this.repo.lockById(trx, id);
       if (!m) throw notFound('No such member.');
       const key = `manual:${m.id}:${input.receiptNumber.toLowerCase()}`;
       if (await this.paymentRepo.paymentByKey(key, trx)) throw conflict('duplicate_receipt', 'That receipt number is already recorded for this member.', { receiptNumber: 'Already recorded for this member.' });
@@ -197,13 +197,13 @@ export class MemberAdminService {
   }
 
   async plans() {
-    return { items: (await this.planRepo.plans(true)).map(planView) };
+    return { items: (await this.planRepo.allPlans()).map(planView) };
   }
 
   /** Plans are never deleted: payments and members point at them, so staff switch one off instead. */
   async createPlan(input: { code: string; name: string; description: string; eligibility: PlanRow['eligibility']; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }) {
     const taken = () => conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
-    if ((await this.planRepo.plans(true)).some((p) => p.code === input.code)) throw taken();
+    if ((await this.planRepo.allPlans()).some((p) => p.code === input.code)) throw taken();
     try {
       const row = await this.planRepo.insertPlan({ code: input.code, name: input.name, description: input.description, eligibility: input.eligibility, dues_cents: input.duesCents, joining_fee_cents: input.joiningFeeCents, active: input.active, sort_order: input.sortOrder });
       return { plan: planView(row) };

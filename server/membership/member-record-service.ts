@@ -50,7 +50,7 @@ export class MemberRecordService {
     const today = this.today();
     let m = await this.repo.byUser(userId);
     if (!m) throw notFound('You have no membership yet.');
-    await this.db.transaction(async (trx) => this.settlement.refreshStatus(trx, (await this.repo.byId(Number(m!.id), trx, true))!, today, policy, userId));
+    await this.db.transaction(async (trx) => this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, Number(m!.id)))!, today, policy, userId));
     m = (await this.repo.byId(Number(m.id)))!;
     const family = await this.repo.family(Number(m.id));
     return { membership: { ...membershipView(m, await this.planRepo.plan(Number(m.plan_id)), today, policy, s), familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: dateOnly(f.date_of_birth) })) } };
@@ -61,7 +61,7 @@ export class MemberRecordService {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const patch = profilePatch(s, input, 'certificationLevel');
     await this.db.transaction(async (trx) => {
-      const m = await this.repo.byUser(user.id, trx, true);
+      const m = await this.repo.lockByUser(trx, user.id);
       if (!m) throw notFound('You have no membership yet.');
       if (!Object.keys(patch).length) return;
       // A member's own edit of a verified value makes it a claim again until staff check it anew.

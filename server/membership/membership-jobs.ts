@@ -51,7 +51,7 @@ export class MembershipJobs {
     const today = this.today();
     const rows = await this.rosterRepo.standing();
     for (const r of rows) {
-      await this.db.transaction(async (trx) => this.settlement.refreshStatus(trx, (await this.repo.byId(Number(r.id), trx, true))!, today, policy));
+      await this.db.transaction(async (trx) => this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, Number(r.id)))!, today, policy));
     }
     return { checked: rows.length };
   }
@@ -116,7 +116,7 @@ export class MembershipJobs {
     const last = attempt + 1 >= RENEWAL_TRY_OFFSETS.length;
     const nextTry = last ? null : addDays(termEnd, RENEWAL_TRY_OFFSETS[attempt + 1]);
     await this.db.transaction(async (trx) => {
-      const m = (await this.repo.byId(Number(r.id), trx, true))!;
+      const m = (await this.repo.lockById(trx, Number(r.id)))!;
       const ctx = { ...(await this.settlement.mailContext(trx, m)), membershipId: Number(m.id) };
       if (last) {
         const failed = await this.repo.update(trx, Number(m.id), { renewal_failed_at: this.clock.now(), next_renewal_attempt_on: null });

@@ -135,12 +135,22 @@ export class MembershipRepository {
       .count<{ certification_level: string; count: string }[]>({ count: '*' });
   }
 
-  byUser(userId: number, db: Db = this.db, lock = false): Promise<MembershipRow | undefined> {
-    return db<MembershipRow>('memberships').where('user_id', userId).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
+  byUser(userId: number, db: Db = this.db): Promise<MembershipRow | undefined> {
+    return db<MembershipRow>('memberships').where('user_id', userId).first();
   }
 
-  byId(id: number, db: Db = this.db, lock = false): Promise<MembershipRow | undefined> {
-    return db<MembershipRow>('memberships').where('id', id).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
+  /** The account's membership, locked until `trx` ends so two writers of one membership take turns. */
+  lockByUser(trx: Knex.Transaction, userId: number): Promise<MembershipRow | undefined> {
+    return trx<MembershipRow>('memberships').where('user_id', userId).forUpdate().first();
+  }
+
+  byId(id: number, db: Db = this.db): Promise<MembershipRow | undefined> {
+    return db<MembershipRow>('memberships').where('id', id).first();
+  }
+
+  /** The membership, locked until `trx` ends so two writers of one membership take turns. */
+  lockById(trx: Knex.Transaction, id: number): Promise<MembershipRow | undefined> {
+    return trx<MembershipRow>('memberships').where('id', id).forUpdate().first();
   }
 
   /** Display names of staff by id (who verified a record). */

@@ -75,7 +75,7 @@ export class MembershipService {
   }
 
   async plans() {
-    return { items: (await this.planRepo.plans(false)).map(planView) };
+    return { items: (await this.planRepo.offeredPlans()).map(planView) };
   }
 
   /** What the join form shows: the waiver, versions, certification levels and the term rule. */
@@ -134,7 +134,7 @@ export class MembershipService {
     const m = await this.db
       .transaction(async (trx) => {
         // A second submit that arrives after the first one paid finds the membership no longer pending.
-        if (existing && (await this.repo.byId(Number(existing.id), trx, true))!.status !== 'pending') throw conflict('already_member', 'You already have a membership; renew it instead.');
+        if (existing && (await this.repo.lockById(trx, Number(existing.id)))!.status !== 'pending') throw conflict('already_member', 'You already have a membership; renew it instead.');
         const created = existing
           ? await this.repo.update(trx, Number(existing.id), withVoidedVerifications(existing, row))
           : await this.repo.insert(trx, { ...row, user_id: String(user.id), status: 'pending', term_start: null, term_end: null, processor_customer_id: null });
@@ -167,7 +167,7 @@ export class MembershipService {
     const at = this.clock.now();
     const { updated, priced } = await this.db.transaction(async (trx) => {
       // Priced from the locked row: a click that waited behind a finished renewal must not buy the term after it.
-      const locked = (await this.repo.byId(Number(m.id), trx, true))!;
+      const locked = (await this.repo.lockById(trx, Number(m.id)))!;
       const paidThrough = dateOnly(locked.term_end);
       if (paidThrough && today < renewalOpensOn(paidThrough)) {
         throw conflict('already_renewed', `Your dues are paid through ${paidThrough}; renewing for the term after opens on ${renewalOpensOn(paidThrough)}.`);

@@ -7,10 +7,14 @@ type Db = Knex | Knex.Transaction;
 export class PlanRepository {
   constructor(private readonly db: Knex) {}
 
-  plans(includeInactive: boolean, db: Db = this.db): Promise<PlanRow[]> {
-    return db<PlanRow>('membership_plans')
-      .modify((qb) => (includeInactive ? qb : qb.where('active', true)))
-      .orderBy([{ column: 'sort_order' }, { column: 'id' }]);
+  /** Every plan, retired ones too, in the order the club lists them. */
+  allPlans(): Promise<PlanRow[]> {
+    return this.db<PlanRow>('membership_plans').orderBy([{ column: 'sort_order' }, { column: 'id' }]);
+  }
+
+  /** The plans a member can join or renew on now, in the order the club lists them. */
+  offeredPlans(): Promise<PlanRow[]> {
+    return this.db<PlanRow>('membership_plans').where('active', true).orderBy([{ column: 'sort_order' }, { column: 'id' }]);
   }
 
   plan(id: number, db: Db = this.db): Promise<PlanRow | undefined> {

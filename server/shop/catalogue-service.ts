@@ -55,9 +55,10 @@ export class CatalogueService {
     private readonly storefront: NotifiedCache<ReadyJson>,
   ) {}
 
-  async list(activeOnly: boolean) {
+  /** Every product, hidden ones too, as staff list them. */
+  async listAll() {
     const now = this.clock.now();
-    return (await this.repo.bundles({ activeOnly })).map((b) => ({ ...productView(b, now), active: b.product.active }));
+    return (await this.repo.bundles()).map((b) => ({ ...productView(b, now), active: b.product.active }));
   }
 
   /** The storefront's product list, `{items}`, as ready JSON. */

@@ -209,11 +209,22 @@ export class OrderRepository {
     await trx('shop_orders').where('id', id).update(patch);
   }
 
-  async find(id: number, trx: Db = this.db, forUpdate = false): Promise<OrderBundle | null> {
-    const q = trx('shop_orders').select('*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('id', id).first();
-    if (forUpdate) q.forUpdate();
-    const row = await q;
+  async find(id: number, trx: Db = this.db): Promise<OrderBundle | null> {
+    return this.bundle(trx, await this.orderRow(trx, id));
+  }
+
+  /** The order, its row locked until `trx` ends, so refunds and their settlement of one order take turns. */
+  async findLocked(trx: Knex.Transaction, id: number): Promise<OrderBundle | null> {
+    return this.bundle(trx, await this.orderRow(trx, id).forUpdate());
+  }
+
+  private orderRow(trx: Db, id: number) {
+    return trx('shop_orders').select('*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('id', id).first();
+  }
+
+  private async bundle(trx: Db, row: Record<string, unknown> | undefined): Promise<OrderBundle | null> {
     if (!row) return null;
+    const id = Number(row.id);
     const items = await this.items(trx, id);
     const taxes = await this.taxes(trx, id);
     const refunds = (await trx<RefundRow>('shop_refunds').where('order_id', id).orderBy('id')).map((r) => ({ ...r, id: Number(r.id), order_id: id }));

@@ -20,10 +20,14 @@ export interface ShippingMethodRow {
 export class ShopConfigRepository {
   constructor(private readonly db: Knex) {}
 
-  async shippingMethods(activeOnly: boolean): Promise<ShippingMethodRow[]> {
-    const q = this.db<ShippingMethodRow>('shop_shipping_methods').orderBy('position');
-    if (activeOnly) q.where('active', true);
-    return (await q).map((m) => ({ ...m, id: Number(m.id) }));
+  /** Every shipping method, switched-off ones too, for the shop settings. */
+  async allShippingMethods(): Promise<ShippingMethodRow[]> {
+    return (await this.db<ShippingMethodRow>('shop_shipping_methods').orderBy('position')).map((m) => ({ ...m, id: Number(m.id) }));
+  }
+
+  /** The shipping methods a buyer can choose at checkout. */
+  async activeShippingMethods(): Promise<ShippingMethodRow[]> {
+    return (await this.db<ShippingMethodRow>('shop_shipping_methods').where('active', true).orderBy('position')).map((m) => ({ ...m, id: Number(m.id) }));
   }
 
   async shippingMethod(id: number): Promise<ShippingMethodRow | null> {
