@@ -33,7 +33,7 @@ export class AccountAdminService {
     if (id === actorId && !next.includes('admin')) throw badRequest('You cannot remove your own admin role.', { roles: 'Keep admin on your own account.' });
     return this.db.transaction(async (trx) => {
       const before = await this.mustLock(trx, id);
-      const row = (await this.users.update(id, { roles: next }, trx))!;
+      const row = (await this.users.update(trx, id, { roles: next }))!;
       if (!sameRoles(before.roles, next)) await this.changes.record(trx, { userId: id, changedBy: actorId, kind: 'roles', rolesBefore: before.roles, rolesAfter: next });
       return adminView(row);
     });
@@ -65,7 +65,7 @@ export class AccountAdminService {
     return this.db.transaction(async (trx) => {
       const before = await this.mustLock(trx, id);
       if ((before.disabled_at !== null) === disabled) return adminView((await this.users.byId(id, trx))!);
-      const row = (await this.users.update(id, { disabled_at: disabled ? (trx.fn.now() as unknown as Date) : null }, trx))!;
+      const row = (await this.users.update(trx, id, { disabled_at: disabled ? (trx.fn.now() as unknown as Date) : null }))!;
       if (disabled) await this.changes.endSessions(trx, id);
       await this.changes.record(trx, { userId: id, changedBy: actorId, kind: disabled ? 'disabled' : 'enabled', rolesBefore: before.roles, rolesAfter: before.roles });
       return adminView(row);

@@ -112,7 +112,7 @@ export class AuthService {
   async verifyEmail(token: string): Promise<void> {
     await this.db.transaction(async (trx) => {
       const userId = await this.consumeToken(trx, token, 'verify_email');
-      await this.users.update(userId, { email_verified_at: this.clock.now() }, trx);
+      await this.users.update(trx, userId, { email_verified_at: this.clock.now() });
     });
   }
 
@@ -145,7 +145,7 @@ export class AuthService {
       const row = (await this.users.byId(userId, trx))!;
       const problem = passwordProblem(password, row.email);
       if (problem) throw badRequest('Choose a different password.', { password: problem });
-      await this.users.update(userId, { password_hash: await hashPassword(password), email_verified_at: row.email_verified_at ?? this.clock.now() }, trx);
+      await this.users.update(trx, userId, { password_hash: await hashPassword(password), email_verified_at: row.email_verified_at ?? this.clock.now() });
       await this.endSessions(trx, userId);
       await enqueueEmail(trx, passwordChangedEmail(row.email, row.display_name));
       return row.email;
@@ -162,14 +162,14 @@ export class AuthService {
     const problem = passwordProblem(next, row.email);
     if (problem) throw badRequest('Choose a different password.', { newPassword: problem });
     await this.db.transaction(async (trx) => {
-      await this.users.update(userId, { password_hash: await hashPassword(next) }, trx);
+      await this.users.update(trx, userId, { password_hash: await hashPassword(next) });
       await this.endSessions(trx, userId, keepSessionId);
       await enqueueEmail(trx, passwordChangedEmail(row.email, row.display_name));
     });
   }
 
   async updateProfile(userId: number, patch: { displayName?: string; marketingOptOut?: boolean }): Promise<SessionUser> {
-    const row = await this.users.update(userId, {
+    const row = await this.users.update(this.db, userId, {
       ...(patch.displayName !== undefined ? { display_name: patch.displayName } : {}),
       ...(patch.marketingOptOut !== undefined ? { marketing_opt_out: patch.marketingOptOut } : {}),
     });

@@ -40,17 +40,16 @@ export class UserRepository {
     return row;
   }
 
-  async update(id: number, patch: Partial<Pick<UserRow, 'password_hash' | 'display_name' | 'roles' | 'email_verified_at' | 'marketing_opt_out' | 'disabled_at'>>, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
+  async update(trx: Knex | Knex.Transaction, id: number, patch: Partial<Pick<UserRow, 'password_hash' | 'display_name' | 'roles' | 'email_verified_at' | 'marketing_opt_out' | 'disabled_at'>>): Promise<UserRow | undefined> {
     const [row] = await trx<UserRow>('users').where('id', id).update({ ...patch, updated_at: trx.fn.now() as unknown as Date }).returning('*');
     return row;
   }
 
-  /** Adds or removes one role atomically (used by features that drive a role, such as dues status). */
   /**
    * Adds or removes one role that a rule drives (dues in good standing give `member`); a change that happens goes
    * into the account's history as made by no person, so admins see why the role came or went.
    */
-  async setRole(id: number, role: Role, present: boolean, trx: Knex | Knex.Transaction = this.db): Promise<void> {
+  async setRole(trx: Knex | Knex.Transaction, id: number, role: Role, present: boolean): Promise<void> {
     const next = present ? '(SELECT array_agg(DISTINCT r) FROM unnest(array_append(u.roles, ?::text)) r)' : 'array_remove(u.roles, ?::text)';
     await trx.raw(
       `WITH before AS (SELECT id, roles FROM users WHERE id = ? FOR UPDATE),

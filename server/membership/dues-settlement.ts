@@ -58,7 +58,7 @@ export class DuesSettlement {
       next_renewal_attempt_on: null,
       renewal_failed_at: null,
     });
-    await this.users.setRole(Number(m.user_id), 'member', isInGoodStanding(status), trx);
+    await this.users.setRole(trx, Number(m.user_id), 'member', isInGoodStanding(status));
     const ctx = await this.mailContext(trx, updated);
     await recordMovement(trx, {
       occurredAt: opts.at,
@@ -92,7 +92,7 @@ export class DuesSettlement {
     const next = statusOn(today, dateOnly(m.term_end), policy, m.renewal_failed_at !== null);
     if (next === m.status) return next;
     if (!(await this.repo.moveStatus(trx, Number(m.id), m.status, next))) return next;
-    await this.users.setRole(Number(m.user_id), 'member', isInGoodStanding(next), trx);
+    await this.users.setRole(trx, Number(m.user_id), 'member', isInGoodStanding(next));
     await this.repo.addAudit(trx, Number(m.id), actorUserId, 'status_changed', { from: m.status, to: next, on: today });
     if (next === 'lapsed' && m.renewal_failed_at === null && m.term_end) {
       await enqueueEmail(trx, lapsedMail({ ...(await this.mailContext(trx, m)), membershipId: Number(m.id) }, dateOnly(m.term_end)!));

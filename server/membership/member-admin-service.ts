@@ -205,7 +205,7 @@ export class MemberAdminService {
     const taken = () => conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
     if ((await this.planRepo.allPlans()).some((p) => p.code === input.code)) throw taken();
     try {
-      const row = await this.planRepo.insertPlan({ code: input.code, name: input.name, description: input.description, eligibility: input.eligibility, dues_cents: input.duesCents, joining_fee_cents: input.joiningFeeCents, active: input.active, sort_order: input.sortOrder });
+      const row = await this.planRepo.insertPlan(this.db, { code: input.code, name: input.name, description: input.description, eligibility: input.eligibility, dues_cents: input.duesCents, joining_fee_cents: input.joiningFeeCents, active: input.active, sort_order: input.sortOrder });
       return { plan: planView(row) };
     } catch (err) {
       // Two staff adding the same code at once: the unique index decides.
@@ -215,7 +215,7 @@ export class MemberAdminService {
   }
 
   async updatePlan(id: number, input: Partial<{ name: string; description: string; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }>) {
-    const row = await this.planRepo.updatePlan(id, {
+    const row = await this.planRepo.updatePlan(this.db, id, {
       ...(input.name !== undefined ? { name: input.name } : {}),
       ...(input.description !== undefined ? { description: input.description } : {}),
       ...(input.duesCents !== undefined ? { dues_cents: input.duesCents } : {}),

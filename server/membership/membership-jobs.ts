@@ -110,7 +110,7 @@ export class MembershipJobs {
     }
     // The member's own renewal holds the term right now: this try never reached the card, so the next run may use it.
     if (result.outcome === 'in_progress') {
-      await this.repo.releaseRenewalAttempt(Number(r.id), attempt);
+      await this.repo.releaseRenewalAttempt(this.db, Number(r.id), attempt);
       return;
     }
     const last = attempt + 1 >= RENEWAL_TRY_OFFSETS.length;

@@ -194,7 +194,7 @@ export class MembershipRepository {
   }
 
   /** Gives back an auto-renew attempt claimed with `attempts` that never reached the processor. */
-  async releaseRenewalAttempt(id: number, attempts: number, db: Db = this.db): Promise<void> {
+  async releaseRenewalAttempt(db: Db, id: number, attempts: number): Promise<void> {
     await db('memberships').where({ id, renewal_attempts: attempts + 1 }).update({ renewal_attempts: attempts, updated_at: db.fn.now() });
   }
 

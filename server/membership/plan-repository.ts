@@ -21,12 +21,12 @@ export class PlanRepository {
     return db<PlanRow>('membership_plans').where('id', id).first();
   }
 
-  async insertPlan(row: Omit<PlanRow, 'id'>, db: Db = this.db): Promise<PlanRow> {
+  async insertPlan(db: Db, row: Omit<PlanRow, 'id'>): Promise<PlanRow> {
     const [created] = await db<PlanRow>('membership_plans').insert(row).returning('*');
     return created;
   }
 
-  async updatePlan(id: number, patch: Partial<Omit<PlanRow, 'id'>>, db: Db = this.db): Promise<PlanRow | undefined> {
+  async updatePlan(db: Db, id: number, patch: Partial<Omit<PlanRow, 'id'>>): Promise<PlanRow | undefined> {
     const [row] = await db<PlanRow>('membership_plans').where('id', id).update({ ...patch, updated_at: db.fn.now() } as Partial<PlanRow>).returning('*');
     return row;
   }

@@ -101,7 +101,7 @@ export class SponsorRepository {
     return row;
   }
 
-  async update(id: number, patch: { name: string; website: string | null; blurb: string | null; logoUrl: string | null }, trx: Db = this.db): Promise<SponsorRow | undefined> {
+  async update(trx: Db, id: number, patch: { name: string; website: string | null; blurb: string | null; logoUrl: string | null }): Promise<SponsorRow | undefined> {
     const [row] = await trx<SponsorRow>('sponsors')
       .where('id', id)
       .update({ name: patch.name, website: patch.website, blurb: patch.blurb, logo_url: patch.logoUrl, updated_at: trx.fn.now() as unknown as Date } as Partial<SponsorRow>)

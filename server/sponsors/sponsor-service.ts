@@ -54,7 +54,7 @@ export class SponsorService {
   }
 
   async update(id: number, input: SponsorInput): Promise<SponsorView> {
-    const row = await this.repo.update(id, { name: input.name, website: input.website ?? null, blurb: input.blurb ?? null, logoUrl: input.logoUrl ?? null });
+    const row = await this.repo.update(this.db, id, { name: input.name, website: input.website ?? null, blurb: input.blurb ?? null, logoUrl: input.logoUrl ?? null });
     if (!row) throw notFound('No such sponsor.');
     return toView(row);
   }
