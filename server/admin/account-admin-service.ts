@@ -27,6 +27,10 @@ export class AccountAdminService {
     private readonly changes: AccountChangeRepository,
   ) {}
 
+  /**
+   * Replaces an account's roles and records the change in its history; an admin cannot take admin away from
+   * themselves, so the club is never locked out by a slip.
+   */
   async setRoles(actorId: number, id: number, roles: readonly Role[]): Promise<AdminAccount> {
     const wanted = [...new Set(roles)];
     const next: Role[] = wanted.length ? wanted : ['fan'];
@@ -45,10 +49,12 @@ export class AccountAdminService {
     return this.setDisabled(actorId, id, true);
   }
 
+  /** Lets a disabled account sign in again, recorded in its history like the disabling was. */
   async enable(actorId: number, id: number): Promise<AdminAccount> {
     return this.setDisabled(actorId, id, false);
   }
 
+  /** The account's role and access changes, newest first, so admins can see who changed what and when. */
   async history(id: number): Promise<AccountChangeView[]> {
     if (!(await this.users.byId(id))) throw notFound('No such user.');
     return (await this.changes.history(id, HISTORY_LIMIT)).map((c) => ({

@@ -7,16 +7,19 @@ type Db = Knex | Knex.Transaction;
 export class DuesPaymentRepository {
   constructor(private readonly db: Knex) {}
 
+  /** Records a dues payment or refund row in the caller's transaction or connection. */
   async insertPayment(db: Db, row: Partial<PaymentRow> & Pick<PaymentRow, 'membership_id' | 'plan_id' | 'status' | 'method' | 'amount_cents' | 'idempotency_key'>): Promise<PaymentRow> {
     const [created] = await db<PaymentRow>('membership_payments').insert(row).returning('*');
     return created;
   }
 
+  /** Writes the given columns of one payment or refund row, such as its settled status. */
   async updatePayment(db: Db, id: number, patch: Partial<PaymentRow>): Promise<PaymentRow> {
     const [row] = await db<PaymentRow>('membership_payments').where('id', id).update(patch).returning('*');
     return row;
   }
 
+  /** One payment or refund row by id, unlocked; use `lockPayment` when settling it. */
   payment(id: number, db: Db = this.db): Promise<PaymentRow | undefined> {
     return db<PaymentRow>('membership_payments').where('id', id).first();
   }
@@ -26,6 +29,7 @@ export class DuesPaymentRepository {
     return trx<PaymentRow>('membership_payments').where('id', id).forUpdate().first();
   }
 
+  /** The payment recorded under this idempotency key, so a repeated attempt finds the first one instead of paying twice. */
   paymentByKey(key: string, db: Db = this.db): Promise<PaymentRow | undefined> {
     return db<PaymentRow>('membership_payments').where('idempotency_key', key).first();
   }
@@ -35,6 +39,7 @@ export class DuesPaymentRepository {
     return db<PaymentRow>('membership_payments').where({ membership_id: String(membershipId), term_end: termEnd, entry: 'payment', method: 'card' }).orderBy('id');
   }
 
+  /** Every payment and refund of one membership, newest first, for the treasurer's record. */
   payments(membershipId: number, db: Db = this.db): Promise<PaymentRow[]> {
     return db<PaymentRow>('membership_payments').where('membership_id', membershipId).orderBy([{ column: 'created_at', order: 'desc' }, { column: 'id', order: 'desc' }]);
   }

@@ -60,12 +60,14 @@ export class MemberAdminService {
     return { today: this.today(), graceDays: (await this.policy()).graceDays };
   }
 
+  /** One page of the roster with each member's status as the dates give it today, so the table never shows a stale status. */
   async roster(q: RosterQuery, page: number, pageSize: number) {
     const [policy, today] = [await this.policy(), this.today()];
     const result = await this.rosterRepo.rosterPage(q, page, pageSize, await this.asOf());
     return { items: result.items.map((r) => rosterView(r, today, policy)), total: result.total, page, pageSize };
   }
 
+  /** The whole filtered roster as CSV, in the table's order, for the treasurer's own records. */
   async exportCsv(q: RosterQuery): Promise<string> {
     const [policy, today] = [await this.policy(), this.today()];
     const rows = (await this.rosterRepo.rosterAll(q, await this.asOf())).map((r) => rosterView(r, today, policy));
@@ -75,6 +77,7 @@ export class MemberAdminService {
     );
   }
 
+  /** One member's full record for staff: profile, family, payments, verifications and audit trail. */
   async detail(id: number) {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const m = await this.repo.byId(id);
@@ -196,6 +199,7 @@ export class MemberAdminService {
     return { queued, skippedOptedOut: optedOut.length, skippedLapsedConsent: lapsed.length, skippedSuppressed: suppressed };
   }
 
+  /** Every plan, retired ones too, as the treasurer edits them. */
   async plans() {
     return { items: (await this.planRepo.allPlans()).map(planView) };
   }
@@ -214,6 +218,7 @@ export class MemberAdminService {
     }
   }
 
+  /** Changes the given fields of a plan; prices apply to payments from now on, never to terms already paid. */
   async updatePlan(id: number, input: Partial<{ name: string; description: string; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }>) {
     const row = await this.planRepo.updatePlan(this.db, id, {
       ...(input.name !== undefined ? { name: input.name } : {}),
@@ -227,6 +232,7 @@ export class MemberAdminService {
     return { plan: planView(row) };
   }
 
+  /** The membership settings as stored, for the treasurer's settings form. */
   async getSettings(): Promise<{ settings: MembershipSettings }> {
     return { settings: await this.settings.get(MEMBERSHIP_SETTINGS) };
   }

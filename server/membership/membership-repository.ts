@@ -135,6 +135,7 @@ export class MembershipRepository {
       .count<{ certification_level: string; count: string }[]>({ count: '*' });
   }
 
+  /** The account's membership, unlocked; use `lockByUser` before changing it. */
   byUser(userId: number, db: Db = this.db): Promise<MembershipRow | undefined> {
     return db<MembershipRow>('memberships').where('user_id', userId).first();
   }
@@ -144,6 +145,7 @@ export class MembershipRepository {
     return trx<MembershipRow>('memberships').where('user_id', userId).forUpdate().first();
   }
 
+  /** The membership with this id, unlocked; use `lockById` before changing it. */
   byId(id: number, db: Db = this.db): Promise<MembershipRow | undefined> {
     return db<MembershipRow>('memberships').where('id', id).first();
   }
@@ -161,6 +163,7 @@ export class MembershipRepository {
     return new Map(rows.map((r) => [String(r.id), r.display_name]));
   }
 
+  /** The membership a member number names, as printed on the card and read at check-in. */
   byNumber(memberNumber: string, db: Db = this.db): Promise<MembershipRow | undefined> {
     return db<MembershipRow>('memberships').where('member_number', memberNumber).first();
   }
@@ -173,6 +176,7 @@ export class MembershipRepository {
     return created;
   }
 
+  /** Writes the given membership columns and the update time; member number and account never change. */
   async update(trx: Db, id: number, patch: Partial<Omit<MembershipRow, 'id' | 'member_number' | 'user_id'>>): Promise<MembershipRow> {
     const [row] = await trx<MembershipRow>('memberships').where('id', id).update({ ...patch, updated_at: trx.fn.now() as unknown as Date }).returning('*');
     return row;
@@ -198,19 +202,23 @@ export class MembershipRepository {
     await db('memberships').where({ id, renewal_attempts: attempts + 1 }).update({ renewal_attempts: attempts, updated_at: db.fn.now() });
   }
 
+  /** The family members a family plan covers, in the order they were added. */
   family(membershipId: number, db: Db = this.db): Promise<{ id: string; name: string; date_of_birth: DateCol }[]> {
     return db('membership_family_members').where('membership_id', membershipId).orderBy('id');
   }
 
+  /** Replaces the family members of a membership in the caller's transaction, so the list is never half-written. */
   async replaceFamily(trx: Knex.Transaction, membershipId: number, people: { name: string; dateOfBirth: string }[]): Promise<void> {
     await trx('membership_family_members').where('membership_id', membershipId).delete();
     if (people.length) await trx('membership_family_members').insert(people.map((p) => ({ membership_id: membershipId, name: p.name, date_of_birth: p.dateOfBirth })));
   }
 
+  /** Appends one entry to the membership's audit trail in the caller's transaction, so the change and its record commit together. */
   async addAudit(db: Db, membershipId: number, actorUserId: number | null, action: string, detail: Record<string, unknown> = {}): Promise<void> {
     await db('membership_audit').insert({ membership_id: membershipId, actor_user_id: actorUserId, action, detail: JSON.stringify(detail) });
   }
 
+  /** The membership's audit trail with each actor's name, newest first. */
   audit(membershipId: number, db: Db = this.db): Promise<AuditRow[]> {
     return db('membership_audit as a')
       .leftJoin('users as u', 'u.id', 'a.actor_user_id')

@@ -74,6 +74,7 @@ export class MembershipService {
     return this.calendar.today();
   }
 
+  /** The plans a visitor can join or renew on now. */
   async plans() {
     return { items: (await this.planRepo.offeredPlans()).map(planView) };
   }
@@ -103,6 +104,7 @@ export class MembershipService {
     return { amountCents: priced.amountCents, duesCents: priced.duesCents, joiningFeeCents: priced.joiningFeeCents, termStart: priced.term.start, termEnd: priced.term.end, renewal: priced.term.renewal };
   }
 
+  /** Records the new member's profile and charges the first dues; the membership stays pending until the card goes through. */
   async join(user: SessionUser, input: JoinInput) {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const policy = termPolicy(s);
@@ -154,6 +156,7 @@ export class MembershipService {
     return { membership: membershipView(paid, plan, today, policy, s) };
   }
 
+  /** Charges the next term's dues, priced from the locked membership so a second click cannot buy the year after. */
   async renew(user: SessionUser, input: RenewInput) {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const policy = termPolicy(s);

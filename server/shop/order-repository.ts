@@ -205,10 +205,12 @@ export class OrderRepository {
     return { order: fix(row), items, taxes, refunds: [] };
   }
 
+  /** Writes the given order columns in the caller's transaction or connection. */
   async update(trx: Db, id: number, patch: Record<string, unknown>): Promise<void> {
     await trx('shop_orders').where('id', id).update(patch);
   }
 
+  /** The order with its lines, taxes and refunds, unlocked; use `findLocked` before changing money on it. */
   async find(id: number, trx: Db = this.db): Promise<OrderBundle | null> {
     return this.bundle(trx, await this.orderRow(trx, id));
   }
@@ -239,6 +241,7 @@ export class OrderRepository {
     return (await trx('shop_order_taxes').where('order_id', orderId).orderBy('code')).map((t) => ({ ...t, rate_percent: String(t.rate_percent) }));
   }
 
+  /** The id of the order a processor charge paid, so webhooks and refunds find their order. */
   async byChargeId(chargeId: string, trx: Db = this.db): Promise<number | null> {
     const row = await trx('shop_orders').where('charge_id', chargeId).first('id');
     return row ? Number(row.id) : null;
@@ -300,6 +303,7 @@ export class OrderRepository {
       .orderBy('o.id', dir);
   }
 
+  /** Records a refund against an order in the caller's transaction, so the money and the order's total move together. */
   async insertRefund(trx: Knex.Transaction, r: { orderId: number; amountCents: number; restocked: boolean; processorRefundId: string | null; origin: 'staff' | 'processor'; createdBy: number | null; now: Date }): Promise<number> {
     const [row] = await trx('shop_refunds')
       .insert({ order_id: r.orderId, amount_cents: r.amountCents, restocked: r.restocked, processor_refund_id: r.processorRefundId, origin: r.origin, created_by: r.createdBy, created_at: r.now })
