@@ -9,6 +9,7 @@ import { AppError, badRequest, conflict, notFound } from '../platform/app-error'
 import type { Clock } from '../platform/clock';
 import { RECONCILE_AFTER_MS } from './checkout-service';
 import type { OrderBundle, OrderRepository } from './order-repository';
+import type { StockRepository } from './stock-repository';
 import { computeRefund, shareProcessorRefund, type RefundableOrder, type RefundAsk, type RefundBreakdown } from './refund-arithmetic';
 import type { RefundedSoFar, RefundRepository, ShopRefundRow } from './refund-repository';
 import { refundEmail } from './shop-emails';
@@ -53,6 +54,7 @@ export class RefundService {
   constructor(
     private readonly db: Knex,
     private readonly orders: OrderRepository,
+    private readonly stock: StockRepository,
     private readonly refunds: RefundRepository,
     private readonly payments: PaymentGateway,
     private readonly clock: Clock,
@@ -199,7 +201,7 @@ export class RefundService {
     const r = (await this.refunds.byId(refundId, trx))!;
     if (r.restocked) {
       const lines = await this.refunds.lines([refundId], trx);
-      await this.orders.release(trx, await this.refunds.markLinesRestocked(trx, lines.map((l) => ({ orderItemId: l.order_item_id, quantity: l.quantity }))));
+      await this.stock.release(trx, await this.refunds.markLinesRestocked(trx, lines.map((l) => ({ orderItemId: l.order_item_id, quantity: l.quantity }))));
     }
     await this.book(trx, r);
   }
