@@ -42,7 +42,7 @@ export class PersonalDataService {
   async export(userId: number): Promise<PersonalDataExport> {
     return this.db.transaction(
       async (trx) => {
-        const subject = await this.subject(trx, userId, false);
+        const subject = await this.subject(trx, userId);
         const sections: PersonalDataSection[] = [];
         for (const part of [accountPersonalData, ...this.featureParts]) sections.push(...(await part.export(trx, subject)));
         return { email: subject.email, generatedAt: this.clock.now(), sections };
@@ -68,7 +68,7 @@ export class PersonalDataService {
     const after = await this.db.transaction(async (trx) => {
       // The admin rows first, always in the same order, then the account's own row: no two deletions deadlock.
       await this.refuseLastAdmin(trx, userId);
-      const subject = await this.subject(trx, userId, true);
+      const subject = await this.lockSubject(trx, userId);
       const holds: string[] = [];
       for (const part of this.featureParts) holds.push(...((await part.holds?.(trx, subject)) ?? []));
       if (holds.length) throw conflict('account_held', `Your account cannot be deleted yet. ${holds.join(' ')}`);
@@ -84,11 +84,18 @@ export class PersonalDataService {
     for (const step of after) await step().catch((err) => this.log.error({ err }, 'a step after an account deletion failed'));
   }
 
-  /** The account row (locked for a deletion); a deleted account has nothing left to export or delete. */
-  private async subject(trx: Knex.Transaction, userId: number, lock: boolean): Promise<DataSubject> {
-    const row = await trx('users').where('id', userId).whereNull('deleted_at').modify((q) => lock && q.forUpdate()).first('id', 'email', 'email_verified_at');
-    if (!row) throw notFound('No such account.');
-    return { userId, email: row.email, emailVerified: row.email_verified_at !== null, marker: `Deleted account #${userId}` };
+  /** Whose data an export holds; a deleted account has nothing left to export. */
+  private async subject(trx: Knex.Transaction, userId: number): Promise<DataSubject> {
+    return subjectOf(userId, await this.liveAccount(trx, userId).first('id', 'email', 'email_verified_at'));
+  }
+
+  /** The same, with the account row locked for its deletion, so nothing else writes it meanwhile. */
+  private async lockSubject(trx: Knex.Transaction, userId: number): Promise<DataSubject> {
+    return subjectOf(userId, await this.liveAccount(trx, userId).forUpdate().first('id', 'email', 'email_verified_at'));
+  }
+
+  private liveAccount(trx: Knex.Transaction, userId: number) {
+    return trx('users').where('id', userId).whereNull('deleted_at');
   }
 
   /**
@@ -101,4 +108,9 @@ export class PersonalDataService {
       throw conflict('last_admin', 'You are the only admin. Make someone else an admin before deleting your account.');
     }
   }
+}
+
+function subjectOf(userId: number, row: { email: string; email_verified_at: Date | null } | undefined): DataSubject {
+  if (!row) throw notFound('No such account.');
+  return { userId, email: row.email, emailVerified: row.email_verified_at !== null, marker: `Deleted account #${userId}` };
 }

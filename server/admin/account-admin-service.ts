@@ -27,13 +27,17 @@ export class AccountAdminService {
     private readonly changes: AccountChangeRepository,
   ) {}
 
+  /**
+   * Replaces an account's roles and records the change in its history; an admin cannot take admin away from
+   * themselves, so the club is never locked out by a slip.
+   */
   async setRoles(actorId: number, id: number, roles: readonly Role[]): Promise<AdminAccount> {
     const wanted = [...new Set(roles)];
     const next: Role[] = wanted.length ? wanted : ['fan'];
     if (id === actorId && !next.includes('admin')) throw badRequest('You cannot remove your own admin role.', { roles: 'Keep admin on your own account.' });
     return this.db.transaction(async (trx) => {
       const before = await this.mustLock(trx, id);
-      const row = (await this.users.update(id, { roles: next }, trx))!;
+      const row = (await this.users.update(trx, id, { roles: next }))!;
       if (!sameRoles(before.roles, next)) await this.changes.record(trx, { userId: id, changedBy: actorId, kind: 'roles', rolesBefore: before.roles, rolesAfter: next });
       return adminView(row);
     });
@@ -45,10 +49,12 @@ export class AccountAdminService {
     return this.setDisabled(actorId, id, true);
   }
 
+  /** Lets a disabled account sign in again, recorded in its history like the disabling was. */
   async enable(actorId: number, id: number): Promise<AdminAccount> {
     return this.setDisabled(actorId, id, false);
   }
 
+  /** The account's role and access changes, newest first, so admins can see who changed what and when. */
   async history(id: number): Promise<AccountChangeView[]> {
     if (!(await this.users.byId(id))) throw notFound('No such user.');
     return (await this.changes.history(id, HISTORY_LIMIT)).map((c) => ({
@@ -65,7 +71,7 @@ export class AccountAdminService {
     return this.db.transaction(async (trx) => {
       const before = await this.mustLock(trx, id);
       if ((before.disabled_at !== null) === disabled) return adminView((await this.users.byId(id, trx))!);
-      const row = (await this.users.update(id, { disabled_at: disabled ? (trx.fn.now() as unknown as Date) : null }, trx))!;
+      const row = (await this.users.update(trx, id, { disabled_at: disabled ? (trx.fn.now() as unknown as Date) : null }))!;
       if (disabled) await this.changes.endSessions(trx, id);
       await this.changes.record(trx, { userId: id, changedBy: actorId, kind: disabled ? 'disabled' : 'enabled', rolesBefore: before.roles, rolesAfter: before.roles });
       return adminView(row);

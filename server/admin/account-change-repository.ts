@@ -17,6 +17,7 @@ export interface AccountChangeRow {
 export class AccountChangeRepository {
   constructor(private readonly db: Knex) {}
 
+  /** Appends one change to an account's history inside the caller's transaction, so the change and its record commit together. */
   async record(trx: Knex.Transaction, c: { userId: number; changedBy: number | null; kind: AccountChangeKind; rolesBefore: Role[]; rolesAfter: Role[] }): Promise<void> {
     await trx('account_changes').insert({ user_id: c.userId, changed_by: c.changedBy, kind: c.kind, roles_before: c.rolesBefore, roles_after: c.rolesAfter });
   }

@@ -11,5 +11,5 @@ export async function withdrawAllConsents(trx: Knex.Transaction, email: string, 
   const address = email.trim().toLowerCase();
   await new SubscriptionRepository(trx).withdraw(trx, address, null, at, how);
   await trx('implied_consents').where('email', address).delete();
-  await new SuppressionList(trx).add(address, 'unsubscribed', { detail: how }, trx);
+  await new SuppressionList(trx).add(trx, address, 'unsubscribed', { detail: how });
 }

@@ -97,7 +97,7 @@ export class SubscriptionService {
       }
       await this.repo.confirm(trx, rows.map((r) => r.id), now, ip);
       // A new express consent overrides an earlier unsubscribe from the same list.
-      for (const r of rows) await this.suppressions.liftUnsubscribe(r.email, r.topic, trx);
+      for (const r of rows) await this.suppressions.liftUnsubscribe(trx, r.email, r.topic);
       return { email: rows[0].email, topics: [...new Set(rows.map((r) => r.topic))] };
     });
   }
@@ -135,7 +135,7 @@ export class SubscriptionService {
   private async withdraw(email: string, topic: MailList, how: string): Promise<void> {
     await this.db.transaction(async (trx) => {
       await this.repo.withdraw(trx, email, topic, this.clock.now(), how);
-      await this.suppressions.add(email, 'unsubscribed', { list: topic, detail: how }, trx);
+      await this.suppressions.add(trx, email, 'unsubscribed', { list: topic, detail: how });
     });
   }
 

@@ -90,6 +90,7 @@ export class AuthService {
     return toSessionUser(row);
   }
 
+  /** The session's user as the session should see it now: null once the account is deleted or disabled, whatever the session row still says. */
   async currentUser(id: number): Promise<SessionUser | null> {
     const row = await this.users.byId(id);
     // A deleted or disabled account's session counts as signed out, even before its session rows are gone.
@@ -112,7 +113,7 @@ export class AuthService {
   async verifyEmail(token: string): Promise<void> {
     await this.db.transaction(async (trx) => {
       const userId = await this.consumeToken(trx, token, 'verify_email');
-      await this.users.update(userId, { email_verified_at: this.clock.now() }, trx);
+      await this.users.update(trx, userId, { email_verified_at: this.clock.now() });
     });
   }
 
@@ -139,13 +140,14 @@ export class AuthService {
     });
   }
 
+  /** Sets a new password from a one-use reset token and ends every session of the account, so whoever knew the old password is signed out. */
   async confirmPasswordReset(token: string, password: string): Promise<void> {
     const email = await this.db.transaction(async (trx) => {
       const userId = await this.consumeToken(trx, token, 'password_reset');
       const row = (await this.users.byId(userId, trx))!;
       const problem = passwordProblem(password, row.email);
       if (problem) throw badRequest('Choose a different password.', { password: problem });
-      await this.users.update(userId, { password_hash: await hashPassword(password), email_verified_at: row.email_verified_at ?? this.clock.now() }, trx);
+      await this.users.update(trx, userId, { password_hash: await hashPassword(password), email_verified_at: row.email_verified_at ?? this.clock.now() });
       await this.endSessions(trx, userId);
       await enqueueEmail(trx, passwordChangedEmail(row.email, row.display_name));
       return row.email;
@@ -154,6 +156,7 @@ export class AuthService {
     await this.signInGuard.clear(email);
   }
 
+  /** Changes the password after checking the current one, and signs out every other session but this one. */
   async changePassword(userId: number, current: string, next: string, keepSessionId: string): Promise<void> {
     const row = await this.users.byId(userId);
     if (!row || !(await verifyPassword(row.password_hash, current))) {
@@ -162,14 +165,15 @@ export class AuthService {
     const problem = passwordProblem(next, row.email);
     if (problem) throw badRequest('Choose a different password.', { newPassword: problem });
     await this.db.transaction(async (trx) => {
-      await this.users.update(userId, { password_hash: await hashPassword(next) }, trx);
+      await this.users.update(trx, userId, { password_hash: await hashPassword(next) });
       await this.endSessions(trx, userId, keepSessionId);
       await enqueueEmail(trx, passwordChangedEmail(row.email, row.display_name));
     });
   }
 
+  /** Saves the account's own display name and marketing choice, returning the session user with them. */
   async updateProfile(userId: number, patch: { displayName?: string; marketingOptOut?: boolean }): Promise<SessionUser> {
-    const row = await this.users.update(userId, {
+    const row = await this.users.update(this.db, userId, {
       ...(patch.displayName !== undefined ? { display_name: patch.displayName } : {}),
       ...(patch.marketingOptOut !== undefined ? { marketing_opt_out: patch.marketingOptOut } : {}),
     });

@@ -49,6 +49,7 @@ export class SignInGuard {
     return { familiar };
   }
 
+  /** Counts a failed sign-in against the account and address pair, the address alone and the account's lock, so guessing is slowed on every front. */
   async fail(accountKey: string, ip: string, familiar: boolean): Promise<void> {
     await Promise.all([this.pair.fail(`${accountKey}|${ip}`), this.ip.fail(ip), this.repo.countFailure(accountKey, familiar, this.clock.now())]);
   }

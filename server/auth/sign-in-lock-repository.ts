@@ -13,6 +13,7 @@ export interface LockRow {
 export class SignInLockRepository {
   constructor(private readonly db: Knex) {}
 
+  /** The failure counts and last failures of one account, for deciding whether its sign-in is locked. */
   find(accountKey: string): Promise<LockRow | undefined> {
     return this.db<LockRow>('sign_in_lockouts').where('account_key', accountKey).first();
   }
@@ -28,6 +29,7 @@ export class SignInLockRepository {
     );
   }
 
+  /** Forgets an account's failure counts, after a good sign-in, a password reset or an admin's unlock. */
   async clear(accountKey: string): Promise<void> {
     await this.db('sign_in_lockouts').where('account_key', accountKey).delete();
   }
@@ -37,6 +39,10 @@ export class SignInLockRepository {
     await this.db('rate_limits').whereRaw("key LIKE ? ESCAPE '\\'", [`${prefix}:${accountKey.replace(/[\\%_]/g, (c) => '\\' + c)}|%`]).delete();
   }
 
+  /**
+   * Whether the account signed in successfully from this address since `since`, so failures from its usual places are
+   * counted apart from failures elsewhere.
+   */
   async isFamiliar(userId: number, ip: string, since: Date): Promise<boolean> {
     return (await this.db('sign_in_addresses').where({ user_id: userId, ip }).where('last_success_at', '>=', since).first()) !== undefined;
   }

@@ -25,14 +25,17 @@ export function toSessionUser(row: UserRow): SessionUser {
 export class UserRepository {
   constructor(private readonly db: Knex) {}
 
+  /** The account with this e-mail, compared in lower case as it is stored. */
   byEmail(email: string, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
     return trx<UserRow>('users').where('email', email.toLowerCase()).first();
   }
 
+  /** The account row with this id, deleted and disabled ones included; callers decide what those may do. */
   byId(id: number, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
     return trx<UserRow>('users').where('id', id).first();
   }
 
+  /** Creates an account with its e-mail in lower case and the fan role unless told otherwise. */
   async insert(trx: Knex.Transaction, user: { email: string; passwordHash: string; displayName: string; roles?: Role[] }): Promise<UserRow> {
     const [row] = await trx<UserRow>('users')
       .insert({ email: user.email.toLowerCase(), password_hash: user.passwordHash, display_name: user.displayName, roles: user.roles ?? ['fan'] })
@@ -40,17 +43,17 @@ export class UserRepository {
     return row;
   }
 
-  async update(id: number, patch: Partial<Pick<UserRow, 'password_hash' | 'display_name' | 'roles' | 'email_verified_at' | 'marketing_opt_out' | 'disabled_at'>>, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
+  /** Writes the given account columns and the update time in the caller's transaction or connection. */
+  async update(trx: Knex | Knex.Transaction, id: number, patch: Partial<Pick<UserRow, 'password_hash' | 'display_name' | 'roles' | 'email_verified_at' | 'marketing_opt_out' | 'disabled_at'>>): Promise<UserRow | undefined> {
     const [row] = await trx<UserRow>('users').where('id', id).update({ ...patch, updated_at: trx.fn.now() as unknown as Date }).returning('*');
     return row;
   }
 
-  /** Adds or removes one role atomically (used by features that drive a role, such as dues status). */
   /**
    * Adds or removes one role that a rule drives (dues in good standing give `member`); a change that happens goes
    * into the account's history as made by no person, so admins see why the role came or went.
    */
-  async setRole(id: number, role: Role, present: boolean, trx: Knex | Knex.Transaction = this.db): Promise<void> {
+  async setRole(trx: Knex | Knex.Transaction, id: number, role: Role, present: boolean): Promise<void> {
     const next = present ? '(SELECT array_agg(DISTINCT r) FROM unnest(array_append(u.roles, ?::text)) r)' : 'array_remove(u.roles, ?::text)';
     await trx.raw(
       `WITH before AS (SELECT id, roles FROM users WHERE id = ? FOR UPDATE),
@@ -62,6 +65,7 @@ export class UserRepository {
     );
   }
 
+  /** One page of accounts for the admin list, filtered by text, role and disabled state, with the total for the pager. */
   async page(opts: { q?: string; role?: Role; disabled?: boolean; page: number; pageSize: number }): Promise<{ items: UserRow[]; total: number }> {
     const base = this.db<UserRow>('users').modify((qb) => {
       if (opts.q) qb.where((w) => w.whereILike('email', `%${opts.q}%`).orWhereILike('display_name', `%${opts.q}%`));

@@ -54,9 +54,9 @@ export class LaunchRepository {
       .orderBy([{ column: 'launches.launch_date' }, { column: 'launches.starts_at' }, { column: 'launches.id' }]);
   }
 
-  /** A launch by id, locked for update when `lock` is set so a change can check its state first. */
-  byId(id: number, db: Db = this.db, lock = false): Promise<LaunchRow | undefined> {
-    return this.select(db).where('launches.id', id).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
+  /** A launch by id. */
+  byId(id: number, db: Db = this.db): Promise<LaunchRow | undefined> {
+    return this.select(db).where('launches.id', id).first();
   }
 
   /** Inserts a launch and returns its new id. */

@@ -103,7 +103,7 @@ export class MailWorker {
             if (verdict !== 'retry') {
               // The server answered and refused for good: never retry, and never mail the address again.
               await trx('outbound_emails').where('id', row.id).update({ attempts, status: 'failed', last_error: String(e.message).slice(0, 500) });
-              await this.suppressions.add(row.to_address, verdict, { detail: e.response ?? e.message }, trx);
+              await this.suppressions.add(trx, row.to_address, verdict, { detail: e.response ?? e.message });
               continue;
             }
             await trx('outbound_emails')

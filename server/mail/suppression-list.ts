@@ -18,7 +18,7 @@ export class SuppressionList {
   constructor(private readonly db: Knex) {}
 
   /** Records a suppression; a second one for the same address and list keeps the first. */
-  async add(email: string, reason: SuppressionReason, opts: { list?: string | null; detail?: string } = {}, trx: Knex | Knex.Transaction = this.db): Promise<void> {
+  async add(trx: Knex | Knex.Transaction, email: string, reason: SuppressionReason, opts: { list?: string | null; detail?: string } = {}): Promise<void> {
     await trx.raw(
       `INSERT INTO email_suppressions (email, list, reason, detail) VALUES (?, ?, ?, ?) ON CONFLICT (email, COALESCE(list, '')) DO NOTHING`,
       [email.trim().toLowerCase(), opts.list ?? null, reason, opts.detail?.slice(0, 500) ?? null],
@@ -26,7 +26,7 @@ export class SuppressionList {
   }
 
   /** Lifts an unsubscribe from one list (the person confirmed a new sign-up); bounces and complaints stay. */
-  async liftUnsubscribe(email: string, list: string, trx: Knex | Knex.Transaction = this.db): Promise<void> {
+  async liftUnsubscribe(trx: Knex | Knex.Transaction, email: string, list: string): Promise<void> {
     await trx('email_suppressions').where({ email: email.trim().toLowerCase(), list, reason: 'unsubscribed' }).delete();
   }
 

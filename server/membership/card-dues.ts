@@ -6,6 +6,7 @@ import { SavedCards, type SaveCardResult } from '../payments/saved-cards';
 import type { SettingsService } from '../settings/settings-service';
 import type { DuesSettlement } from './dues-settlement';
 import type { MembershipRepository, MembershipRow, PaymentRow, PlanRow } from './membership-repository';
+import type { DuesPaymentRepository } from './dues-payment-repository';
 import type { Term, TermPolicy } from './terms';
 
 /**
@@ -42,6 +43,7 @@ export class CardDues {
   constructor(
     private readonly db: Knex,
     private readonly repo: MembershipRepository,
+    private readonly paymentRepo: DuesPaymentRepository,
     private readonly settlement: DuesSettlement,
     private readonly settings: SettingsService,
     private readonly gateway: PaymentGateway,
@@ -55,7 +57,7 @@ export class CardDues {
    * refunded (the next try after one is a new charge, never the processor's replay of the old answer).
    */
   async savedCardTail(m: MembershipRow, term: Term, amountCents: number, purpose: 'member' | 'join'): Promise<string> {
-    const ended = (await this.repo.cardPaymentsForTerm(Number(m.id), term.end)).filter((p) => p.status === 'declined' || p.status === 'refunded');
+    const ended = (await this.paymentRepo.cardPaymentsForTerm(Number(m.id), term.end)).filter((p) => p.status === 'declined' || p.status === 'refunded');
     return `${purpose}-${amountCents}-${ended.length}`;
   }
 
@@ -94,7 +96,7 @@ export class CardDues {
    */
   private async resolveUnanswered(m: MembershipRow, term: Term, key: string, ctx: SettleContext): Promise<CardDuesResult | null> {
     const heldSince = ctx.at.getTime() - ATTEMPT_HOLD_MS;
-    const unanswered = (await this.repo.cardPaymentsForTerm(Number(m.id), term.end)).filter(
+    const unanswered = (await this.paymentRepo.cardPaymentsForTerm(Number(m.id), term.end)).filter(
       (p) => p.idempotency_key !== key && (p.status === 'unknown' || (p.status === 'attempted' && (p.attempted_at === null || p.attempted_at.getTime() <= heldSince))),
     );
     for (const p of unanswered) {
@@ -110,9 +112,9 @@ export class CardDues {
       }
       await this.db.transaction(async (trx) => {
         // Only if no other request took the attempt up again (same key) while the processor was asked.
-        const current = await this.repo.payment(Number(p.id), trx, true);
+        const current = await this.paymentRepo.lockPayment(trx, Number(p.id));
         if (current?.status !== p.status || current.attempted_at?.getTime() !== p.attempted_at?.getTime()) return;
-        await this.repo.updatePayment(trx, Number(p.id), { status: 'declined', failure_message: 'Not charged: the processor holds no charge for this attempt.' });
+        await this.paymentRepo.updatePayment(trx, Number(p.id), { status: 'declined', failure_message: 'Not charged: the processor holds no charge for this attempt.' });
       });
     }
     return null;
@@ -123,8 +125,8 @@ export class CardDues {
     const fees = await this.settings.get(PROCESSOR_FEES);
     const feeCents = estimateFeeCents(charge.amountCents, charge.cardCountry !== null && charge.cardCountry !== 'CA', fees);
     return this.db.transaction(async (trx) => {
-      const locked = (await this.repo.byId(Number(m.id), trx, true))!;
-      if ((await this.repo.payment(Number(payment.id), trx, true))?.status === 'paid') return locked;
+      const locked = (await this.repo.lockById(trx, Number(m.id)))!;
+      if ((await this.paymentRepo.lockPayment(trx, Number(payment.id)))?.status === 'paid') return locked;
       return this.settlement.settle(trx, locked, payment, term, { ...ctx, feeCents, chargeId: charge.chargeId });
     });
   }
@@ -135,8 +137,8 @@ export class CardDues {
    */
   private claim(m: MembershipRow, plan: PlanRow, term: Term, amountCents: number, key: string, at: Date): Promise<Claim> {
     return this.db.transaction(async (trx): Promise<Claim> => {
-      const locked = (await this.repo.byId(Number(m.id), trx, true))!;
-      const earlier = await this.repo.cardPaymentsForTerm(Number(m.id), term.end, trx);
+      const locked = (await this.repo.lockById(trx, Number(m.id)))!;
+      const earlier = await this.paymentRepo.cardPaymentsForTerm(Number(m.id), term.end, trx);
       if (earlier.some((p) => p.status === 'paid')) return { kind: 'paid', membership: locked };
       const heldSince = at.getTime() - ATTEMPT_HOLD_MS;
       if (earlier.some((p) => p.status === 'attempted' && p.attempted_at !== null && p.attempted_at.getTime() > heldSince)) return { kind: 'in_progress' };
@@ -145,14 +147,14 @@ export class CardDues {
       if (same?.status === 'declined') return { kind: 'declined', message: same.failure_message ?? 'The card was declined.' };
       if (same?.status === 'refunded') return { kind: 'declined', message: 'That card payment was refunded; enter the card again to pay.' };
       // An unknown outcome, or an attempt whose process is gone: ask again with the same key, which the processor charges once.
-      if (same) return { kind: 'claimed', payment: await this.repo.updatePayment(trx, Number(same.id), { status: 'attempted', attempted_at: at }) };
-      const payment = await this.repo.insertPayment(trx, { membership_id: m.id, plan_id: plan.id, status: 'attempted', method: 'card', amount_cents: amountCents, idempotency_key: key, term_start: term.start, term_end: term.end, attempted_at: at, created_at: at });
+      if (same) return { kind: 'claimed', payment: await this.paymentRepo.updatePayment(trx, Number(same.id), { status: 'attempted', attempted_at: at }) };
+      const payment = await this.paymentRepo.insertPayment(trx, { membership_id: m.id, plan_id: plan.id, status: 'attempted', method: 'card', amount_cents: amountCents, idempotency_key: key, term_start: term.start, term_end: term.end, attempted_at: at, created_at: at });
       return { kind: 'claimed', payment };
     });
   }
 
   private async failed(payment: PaymentRow, result: { outcome: 'declined' | 'unknown'; message: string }): Promise<CardDuesResult> {
-    await this.repo.updatePayment(this.db, Number(payment.id), { status: result.outcome, failure_message: result.message.slice(0, 400) });
+    await this.paymentRepo.updatePayment(this.db, Number(payment.id), { status: result.outcome, failure_message: result.message.slice(0, 400) });
     return { outcome: result.outcome, message: result.message };
   }
 }

@@ -12,6 +12,7 @@ import type { SettingsService } from '../settings/settings-service';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { refundMail } from './membership-mail';
 import { dateOnly, type MembershipRepository, type MembershipRow, type PaymentRow } from './membership-repository';
+import type { DuesPaymentRepository } from './dues-payment-repository';
 import { MEMBERSHIP_SETTINGS } from './membership-settings';
 
 /** What the treasurer asks to refund. */
@@ -33,6 +34,7 @@ export class DuesRefunds {
   constructor(
     private readonly db: Knex,
     private readonly repo: MembershipRepository,
+    private readonly paymentRepo: DuesPaymentRepository,
     private readonly settings: SettingsService,
     private readonly settlement: DuesSettlement,
     private readonly gateway: PaymentGateway,
@@ -47,20 +49,20 @@ export class DuesRefunds {
    */
   async refund(actorId: number, memberId: number, input: DuesRefundRequest, requestKey: string | null): Promise<void> {
     const claim = await this.db.transaction(async (trx) => {
-      const m = await this.repo.byId(memberId, trx, true);
+      const m = await this.repo.lockById(trx, memberId);
       if (!m) throw notFound('No such member.');
       if (requestKey) {
-        const earlier = await this.repo.refundByRequestKey(memberId, requestKey, trx);
+        const earlier = await this.paymentRepo.refundByRequestKey(memberId, requestKey, trx);
         if (earlier) return { replay: earlier };
       }
-      const payment = await this.repo.payment(input.paymentId, trx, true);
+      const payment = await this.paymentRepo.lockPayment(trx, input.paymentId);
       if (!payment || Number(payment.membership_id) !== memberId || payment.entry !== 'payment') throw badRequest('Choose a payment of this member.', { paymentId: 'Choose a payment of this member.' });
       if (payment.status !== 'paid' && payment.status !== 'refunded') throw badRequest('Only a paid payment can be refunded.', { paymentId: 'This payment was not paid.' });
       if (input.amountCents < 1 || input.amountCents > payment.amount_cents) throw badRequest('The refund is more than the payment.', { amountCents: `At most ${payment.amount_cents} cents can be refunded.` });
-      const left = payment.amount_cents - (await this.repo.refundedCents(Number(payment.id), trx));
+      const left = payment.amount_cents - (await this.paymentRepo.refundedCents(Number(payment.id), trx));
       if (input.amountCents > left) throw conflict('over_refund', 'The refund is more than what is left of the payment.', { amountCents: left ? `At most ${left} cents are left to refund.` : 'This payment is already refunded.' });
       if (payment.method === 'card' && !payment.processor_charge_id) throw badRequest('This card payment has no processor charge to refund.', { paymentId: 'No processor charge on record.' });
-      const refund = await this.repo.insertPayment(trx, {
+      const refund = await this.paymentRepo.insertPayment(trx, {
         membership_id: m.id,
         plan_id: payment.plan_id,
         entry: 'refund',
@@ -97,13 +99,13 @@ export class DuesRefunds {
 
   /** Records every refund the processor holds for a dues charge that Padside does not know yet; true if it is a dues charge. */
   async syncCharge(chargeId: string): Promise<boolean> {
-    const found = await this.repo.paymentByCharge(chargeId);
+    const found = await this.paymentRepo.paymentByCharge(chargeId);
     if (!found) return false;
     const held = (await this.gateway.refundsOf(chargeId)).filter((r) => r.status === 'succeeded' || r.status === 'pending');
     await this.db.transaction(async (trx) => {
-      const m = (await this.repo.byId(Number(found.membership_id), trx, true))!;
-      const payment = (await this.repo.payment(Number(found.id), trx, true))!;
-      const known = await this.repo.refundsOf(Number(payment.id), trx);
+      const m = (await this.repo.lockById(trx, Number(found.membership_id)))!;
+      const payment = (await this.paymentRepo.lockPayment(trx, Number(found.id)))!;
+      const known = await this.paymentRepo.refundsOf(Number(payment.id), trx);
       for (const pr of held) {
         if (known.some((k) => k.processor_refund_id === pr.id)) continue;
         const claim = known.find((k) => k.idempotency_key === pr.metadata?.padsideRefundKey);
@@ -111,10 +113,10 @@ export class DuesRefunds {
           if (claim.status !== 'refunded') await this.recordSucceeded(trx, m, payment, claim, pr.id);
           continue;
         }
-        const left = payment.amount_cents - (await this.repo.refundedCents(Number(payment.id), trx, ['refunded']));
+        const left = payment.amount_cents - (await this.paymentRepo.refundedCents(Number(payment.id), trx, ['refunded']));
         const amount = Math.min(pr.amount, left);
         if (amount < 1) continue;
-        const refund = await this.repo.insertPayment(trx, {
+        const refund = await this.paymentRepo.insertPayment(trx, {
           membership_id: m.id,
           plan_id: payment.plan_id,
           entry: 'refund',
@@ -136,7 +138,7 @@ export class DuesRefunds {
 
   /** Settles card refund claims whose processor answer never came, from the processor's own list. */
   async settleStaleClaims(): Promise<number> {
-    const stale = await this.repo.staleRefundClaims(new Date(this.clock.now().getTime() - STALE_CLAIM_MS));
+    const stale = await this.paymentRepo.staleRefundClaims(new Date(this.clock.now().getTime() - STALE_CLAIM_MS));
     for (const claim of stale) {
       const found = (await this.gateway.refundsOf(claim.processor_charge_id!)).find((pr) => pr.metadata?.padsideRefundKey === claim.idempotency_key);
       await this.settle(Number(claim.id), found?.id ?? null, found ? null : 'No refund reached the processor; the claim was released.');
@@ -153,21 +155,21 @@ export class DuesRefunds {
   /** The outcome of a card claim, under the member's lock: refunded (with its processor id) or failed. */
   private async settle(refundId: number, processorRefundId: string | null, failure: string | null): Promise<void> {
     await this.db.transaction(async (trx) => {
-      const claim = (await this.repo.payment(refundId, trx))!;
-      const m = (await this.repo.byId(Number(claim.membership_id), trx, true))!;
-      const fresh = (await this.repo.payment(refundId, trx, true))!;
+      const claim = (await this.paymentRepo.payment(refundId, trx))!;
+      const m = (await this.repo.lockById(trx, Number(claim.membership_id)))!;
+      const fresh = (await this.paymentRepo.lockPayment(trx, refundId))!;
       if (fresh.status !== 'requested') return;
       if (!processorRefundId) {
-        await this.repo.updatePayment(trx, refundId, { status: 'failed', failure_message: (failure ?? 'refused').slice(0, 400) });
+        await this.paymentRepo.updatePayment(trx, refundId, { status: 'failed', failure_message: (failure ?? 'refused').slice(0, 400) });
         return;
       }
-      const payment = (await this.repo.payment(Number(fresh.refund_of), trx, true))!;
+      const payment = (await this.paymentRepo.lockPayment(trx, Number(fresh.refund_of)))!;
       await this.recordSucceeded(trx, m, payment, fresh, processorRefundId);
     });
   }
 
   private async recordSucceeded(trx: Knex.Transaction, m: MembershipRow, payment: PaymentRow, claim: PaymentRow, processorRefundId: string): Promise<void> {
-    const refund = await this.repo.updatePayment(trx, Number(claim.id), { status: 'refunded', processor_refund_id: processorRefundId, failure_message: null });
+    const refund = await this.paymentRepo.updatePayment(trx, Number(claim.id), { status: 'refunded', processor_refund_id: processorRefundId, failure_message: null });
     await this.book(trx, m, payment, refund, claim.recorded_by ? Number(claim.recorded_by) : null, claim.note ?? '');
   }
 
@@ -180,8 +182,8 @@ export class DuesRefunds {
     const policy = termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS, trx));
     const today = this.calendar.today();
     const amountCents = -refund.amount_cents;
-    const full = (await this.repo.refundedCents(Number(payment.id), trx, ['refunded'])) >= payment.amount_cents;
-    if (full) await this.repo.updatePayment(trx, Number(payment.id), { status: 'refunded' });
+    const full = (await this.paymentRepo.refundedCents(Number(payment.id), trx, ['refunded'])) >= payment.amount_cents;
+    if (full) await this.paymentRepo.updatePayment(trx, Number(payment.id), { status: 'refunded' });
     let termEnd = dateOnly(m.term_end);
     if (full && dateOnly(payment.term_end) === termEnd) {
       termEnd = dateOnly(payment.previous_term_end);

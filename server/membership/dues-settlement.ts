@@ -4,6 +4,8 @@ import { recordMovement } from '../books/ledger-writer';
 import { enqueueEmail } from '../mail/outbox';
 import { lapsedMail, receiptMail, type MemberMailContext } from './membership-mail';
 import { dateOnly, type MembershipRepository, type MembershipRow, type PaymentRow } from './membership-repository';
+import type { PlanRepository } from './plan-repository';
+import type { DuesPaymentRepository } from './dues-payment-repository';
 import type { MembershipSettings } from './membership-settings';
 import { isInGoodStanding, statusOn, type MembershipStatus, type Term, type TermPolicy } from './terms';
 
@@ -19,6 +21,8 @@ export function termPolicy(s: MembershipSettings): TermPolicy {
 export class DuesSettlement {
   constructor(
     private readonly repo: MembershipRepository,
+    private readonly planRepo: PlanRepository,
+    private readonly paymentRepo: DuesPaymentRepository,
     private readonly users: UserRepository,
     private readonly publicUrl: string,
   ) {}
@@ -26,7 +30,7 @@ export class DuesSettlement {
   /** Mail context for a membership. */
   async mailContext(db: Knex | Knex.Transaction, m: MembershipRow): Promise<MemberMailContext> {
     const user = await this.users.byId(Number(m.user_id), db);
-    const plan = await this.repo.plan(Number(m.plan_id), db);
+    const plan = await this.planRepo.plan(Number(m.plan_id), db);
     return { to: user!.email, name: m.legal_name, memberNumber: m.member_number, planName: plan?.name ?? 'club', publicUrl: this.publicUrl };
   }
 
@@ -38,7 +42,7 @@ export class DuesSettlement {
     term: Term,
     opts: { today: string; policy: TermPolicy; actorUserId: number | null; feeCents?: number; chargeId?: string | null; at: Date },
   ): Promise<MembershipRow> {
-    const paid = await this.repo.updatePayment(trx, Number(payment.id), {
+    const paid = await this.paymentRepo.updatePayment(trx, Number(payment.id), {
       status: 'paid',
       processor_charge_id: opts.chargeId ?? null,
       term_start: term.start,
@@ -54,7 +58,7 @@ export class DuesSettlement {
       next_renewal_attempt_on: null,
       renewal_failed_at: null,
     });
-    await this.users.setRole(Number(m.user_id), 'member', isInGoodStanding(status), trx);
+    await this.users.setRole(trx, Number(m.user_id), 'member', isInGoodStanding(status));
     const ctx = await this.mailContext(trx, updated);
     await recordMovement(trx, {
       occurredAt: opts.at,
@@ -88,7 +92,7 @@ export class DuesSettlement {
     const next = statusOn(today, dateOnly(m.term_end), policy, m.renewal_failed_at !== null);
     if (next === m.status) return next;
     if (!(await this.repo.moveStatus(trx, Number(m.id), m.status, next))) return next;
-    await this.users.setRole(Number(m.user_id), 'member', isInGoodStanding(next), trx);
+    await this.users.setRole(trx, Number(m.user_id), 'member', isInGoodStanding(next));
     await this.repo.addAudit(trx, Number(m.id), actorUserId, 'status_changed', { from: m.status, to: next, on: today });
     if (next === 'lapsed' && m.renewal_failed_at === null && m.term_end) {
       await enqueueEmail(trx, lapsedMail({ ...(await this.mailContext(trx, m)), membershipId: Number(m.id) }, dateOnly(m.term_end)!));

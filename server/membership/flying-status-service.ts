@@ -56,7 +56,7 @@ export class FlyingStatusService {
   async verify(actorId: number, id: number, input: VerifyInput): Promise<void> {
     const today = this.today();
     await this.db.transaction(async (trx) => {
-      const m = await this.repo.byId(id, trx, true);
+      const m = await this.repo.lockById(trx, id);
       if (!m) throw notFound('No such member.');
       const changed = () => conflict('record_changed', 'The record changed since you loaded it; reload the page and check again.', { what: 'The record changed since you loaded it.' });
       if (input.what === 'association') {
@@ -78,7 +78,7 @@ export class FlyingStatusService {
   /** Takes a verification back (a document turned out wrong): the value is a claim again. */
   async withdraw(actorId: number, id: number, what: VerifiedPart): Promise<void> {
     await this.db.transaction(async (trx) => {
-      const m = await this.repo.byId(id, trx, true);
+      const m = await this.repo.lockById(trx, id);
       if (!m) throw notFound('No such member.');
       const cleared = what === 'association' ? { association_verified_at: null, association_verified_by: null, association_verified_against: null } : { certification_verified_at: null, certification_verified_by: null, certification_verified_against: null };
       await this.repo.update(trx, id, cleared);

@@ -9,6 +9,9 @@ import type { ClubCalendar } from '../platform/club-calendar';
 import type { SettingsService } from '../settings/settings-service';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { dateOnly, type MembershipRepository, type AsOf, type PlanRow, type RosterQuery } from './membership-repository';
+import type { PlanRepository } from './plan-repository';
+import type { DuesPaymentRepository } from './dues-payment-repository';
+import type { RosterRepository } from './roster-repository';
 import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
 import { membershipView, paymentView, planView, rosterView } from './membership-views';
 import { labelOf, yesNo } from '../../contracts/labels/label-of';
@@ -34,6 +37,9 @@ export class MemberAdminService {
   constructor(
     private readonly db: Knex,
     private readonly repo: MembershipRepository,
+    private readonly planRepo: PlanRepository,
+    private readonly paymentRepo: DuesPaymentRepository,
+    private readonly rosterRepo: RosterRepository,
     private readonly settings: SettingsService,
     private readonly settlement: DuesSettlement,
     private readonly clock: Clock,
@@ -54,26 +60,29 @@ export class MemberAdminService {
     return { today: this.today(), graceDays: (await this.policy()).graceDays };
   }
 
+  /** One page of the roster with each member's status as the dates give it today, so the table never shows a stale status. */
   async roster(q: RosterQuery, page: number, pageSize: number) {
     const [policy, today] = [await this.policy(), this.today()];
-    const result = await this.repo.rosterPage(q, page, pageSize, await this.asOf());
+    const result = await this.rosterRepo.rosterPage(q, page, pageSize, await this.asOf());
     return { items: result.items.map((r) => rosterView(r, today, policy)), total: result.total, page, pageSize };
   }
 
+  /** The whole filtered roster as CSV, in the table's order, for the treasurer's own records. */
   async exportCsv(q: RosterQuery): Promise<string> {
     const [policy, today] = [await this.policy(), this.today()];
-    const rows = (await this.repo.rosterAll(q, await this.asOf())).map((r) => rosterView(r, today, policy));
+    const rows = (await this.rosterRepo.rosterAll(q, await this.asOf())).map((r) => rosterView(r, today, policy));
     return toCsv(
       ['Member number', 'Name', 'E-mail', 'Plan', 'Status', 'Term end', 'Certification', 'Certification checked', 'Association number', 'Association expires', 'Association checked', 'Auto-renew'],
       rows.map((r) => [r.memberNumber, r.name, r.email, r.planName, labelOf(MEMBERSHIP_STATUS_LABELS, r.status), r.termEnd, r.certificationLevel, yesNo(r.certificationVerified), r.associationNumber, r.associationExpires, yesNo(r.associationVerified), yesNo(r.autoRenew)]),
     );
   }
 
+  /** One member's full record for staff: profile, family, payments, verifications and audit trail. */
   async detail(id: number) {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const m = await this.repo.byId(id);
     if (!m) throw notFound('No such member.');
-    const [plan, family, payments, audit] = [await this.repo.plan(Number(m.plan_id)), await this.repo.family(id), await this.repo.payments(id), await this.repo.audit(id)];
+    const [plan, family, payments, audit] = [await this.planRepo.plan(Number(m.plan_id)), await this.repo.family(id), await this.paymentRepo.payments(id), await this.repo.audit(id)];
     const user = await this.db('users').where('id', m.user_id).first('email', 'marketing_opt_out');
     return {
       member: { ...membershipView(m, plan, this.today(), termPolicy(s), s), email: user?.email ?? null, mailOptOut: user?.marketing_opt_out ?? false },
@@ -91,7 +100,7 @@ export class MemberAdminService {
       throw badRequest('Choose a certification level from the list.', { certificationLevel: 'Choose a level from the list.' });
     }
     await this.db.transaction(async (trx) => {
-      const m = await this.repo.byId(id, trx, true);
+      const m = await this.repo.lockById(trx, id);
       if (!m) throw notFound('No such member.');
       const map = { associationNumber: 'association_number', associationExpires: 'association_expires', certificationLevel: 'certification_level', certificationDate: 'certification_date', address: 'address', phone: 'phone', emergencyContact: 'emergency_contact' } as const;
       const row: Record<string, unknown> = {};
@@ -117,12 +126,12 @@ export class MemberAdminService {
     const policy = await this.policy();
     const today = this.today();
     await this.db.transaction(async (trx) => {
-      const m = await this.repo.byId(id, trx, true);
+      const m = await this.repo.lockById(trx, id);
       if (!m) throw notFound('No such member.');
       const key = `manual:${m.id}:${input.receiptNumber.toLowerCase()}`;
-      if (await this.repo.paymentByKey(key, trx)) throw conflict('duplicate_receipt', 'That receipt number is already recorded for this member.', { receiptNumber: 'Already recorded for this member.' });
+      if (await this.paymentRepo.paymentByKey(key, trx)) throw conflict('duplicate_receipt', 'That receipt number is already recorded for this member.', { receiptNumber: 'Already recorded for this member.' });
       const term = termForPayment(today, dateOnly(m.term_end), policy);
-      const payment = await this.repo.insertPayment(trx, {
+      const payment = await this.paymentRepo.insertPayment(trx, {
         membership_id: m.id,
         plan_id: m.plan_id,
         status: 'attempted',
@@ -141,8 +150,8 @@ export class MemberAdminService {
 
   /** Dues collected per month and plan (net of refunds, club time zone) and members by status. */
   async summary() {
-    const collected = await this.repo.collectedByMonth(this.calendar.timeZone);
-    const byStatus = await this.repo.countsByStatus(await this.asOf());
+    const collected = await this.paymentRepo.collectedByMonth(this.calendar.timeZone);
+    const byStatus = await this.rosterRepo.countsByStatus(await this.asOf());
     const counts = { pending: 0, active: 0, lapsing: 0, lapsed: 0 };
     for (const r of byStatus) counts[r.status] = Number(r.count);
     return {
@@ -153,7 +162,7 @@ export class MemberAdminService {
 
   /** Members whose dues run out within `days`: active with the term ending by then, or already in grace. */
   async lapsingWithin(days: number): Promise<number> {
-    return this.repo.countLapsingWithin(await this.asOf(), days);
+    return this.rosterRepo.countLapsingWithin(await this.asOf(), days);
   }
 
   /**
@@ -163,7 +172,7 @@ export class MemberAdminService {
    * `club-business` (dues, launches they replied to) is transactional: it goes to everyone matched and says why.
    */
   async emailRoster(q: RosterQuery, mail: { subject: string; text: string }, purpose: 'news' | 'club-business' = 'news') {
-    const rows = await this.repo.rosterAll(q, await this.asOf());
+    const rows = await this.rosterRepo.rosterAll(q, await this.asOf());
     const batch = randomUUID();
     if (purpose === 'club-business') {
       let queued = 0;
@@ -190,16 +199,17 @@ export class MemberAdminService {
     return { queued, skippedOptedOut: optedOut.length, skippedLapsedConsent: lapsed.length, skippedSuppressed: suppressed };
   }
 
+  /** Every plan, retired ones too, as the treasurer edits them. */
   async plans() {
-    return { items: (await this.repo.plans(true)).map(planView) };
+    return { items: (await this.planRepo.allPlans()).map(planView) };
   }
 
   /** Plans are never deleted: payments and members point at them, so staff switch one off instead. */
   async createPlan(input: { code: string; name: string; description: string; eligibility: PlanRow['eligibility']; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }) {
     const taken = () => conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
-    if ((await this.repo.plans(true)).some((p) => p.code === input.code)) throw taken();
+    if ((await this.planRepo.allPlans()).some((p) => p.code === input.code)) throw taken();
     try {
-      const row = await this.repo.insertPlan({ code: input.code, name: input.name, description: input.description, eligibility: input.eligibility, dues_cents: input.duesCents, joining_fee_cents: input.joiningFeeCents, active: input.active, sort_order: input.sortOrder });
+      const row = await this.planRepo.insertPlan(this.db, { code: input.code, name: input.name, description: input.description, eligibility: input.eligibility, dues_cents: input.duesCents, joining_fee_cents: input.joiningFeeCents, active: input.active, sort_order: input.sortOrder });
       return { plan: planView(row) };
     } catch (err) {
       // Two staff adding the same code at once: the unique index decides.
@@ -208,8 +218,9 @@ export class MemberAdminService {
     }
   }
 
+  /** Changes the given fields of a plan; prices apply to payments from now on, never to terms already paid. */
   async updatePlan(id: number, input: Partial<{ name: string; description: string; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }>) {
-    const row = await this.repo.updatePlan(id, {
+    const row = await this.planRepo.updatePlan(this.db, id, {
       ...(input.name !== undefined ? { name: input.name } : {}),
       ...(input.description !== undefined ? { description: input.description } : {}),
       ...(input.duesCents !== undefined ? { dues_cents: input.duesCents } : {}),
@@ -221,6 +232,7 @@ export class MemberAdminService {
     return { plan: planView(row) };
   }
 
+  /** The membership settings as stored, for the treasurer's settings form. */
   async getSettings(): Promise<{ settings: MembershipSettings }> {
     return { settings: await this.settings.get(MEMBERSHIP_SETTINGS) };
   }

@@ -2,15 +2,20 @@ import { commercialMailer } from '../announcements/commercial-mailer';
 import { UserRepository } from '../auth/user-repository';
 import type { Feature, Platform } from '../platform/feature';
 import { CardDues } from './card-dues';
+import { CardOnFile } from './card-on-file';
 import { CheckInTokens } from './check-in-token';
 import { DuesRefunds } from './dues-refunds';
 import { DuesSettlement } from './dues-settlement';
 import { memberAdminRoutes, checkInRoutes } from './member-admin-routes';
 import { MemberAdminService } from './member-admin-service';
+import { MemberRecordService } from './member-record-service';
 import { FlyingStatusService } from './flying-status-service';
 import { MembershipJobs } from './membership-jobs';
 import { membershipPersonalData } from './membership-personal-data';
 import { MembershipRepository } from './membership-repository';
+import { PlanRepository } from './plan-repository';
+import { DuesPaymentRepository } from './dues-payment-repository';
+import { RosterRepository } from './roster-repository';
 import { PaymentThrottle } from '../payments/payment-throttle';
 import { membershipRoutes } from './membership-routes';
 import { MembershipService } from './membership-service';
@@ -19,18 +24,23 @@ import { MembershipService } from './membership-service';
 export function membershipFeature(platform: Platform): Feature {
   const { db, clock, calendar, config, payments } = platform.deps;
   const repo = new MembershipRepository(db);
-  const settlement = new DuesSettlement(repo, new UserRepository(db), config.publicUrl);
-  const cardDues = new CardDues(db, repo, settlement, platform.settings, payments);
+  const planRepo = new PlanRepository(db);
+  const paymentRepo = new DuesPaymentRepository(db);
+  const rosterRepo = new RosterRepository(db);
+  const settlement = new DuesSettlement(repo, planRepo, paymentRepo, new UserRepository(db), config.publicUrl);
+  const cardDues = new CardDues(db, repo, paymentRepo, settlement, platform.settings, payments);
   const tokens = new CheckInTokens(config.sessionSecret);
-  const members = new MembershipService(db, repo, platform.settings, settlement, cardDues, tokens, clock, calendar);
-  const admin = new MemberAdminService(db, repo, platform.settings, settlement, clock, calendar, commercialMailer(platform), config.site.clubName);
-  const refunds = new DuesRefunds(db, repo, platform.settings, settlement, payments, clock, calendar, platform.deps.log);
+  const cardOnFile = new CardOnFile(db, repo, cardDues);
+  const members = new MembershipService(db, repo, planRepo, platform.settings, cardDues, cardOnFile, clock, calendar);
+  const record = new MemberRecordService(db, repo, planRepo, platform.settings, settlement, cardOnFile, tokens, clock, calendar);
+  const admin = new MemberAdminService(db, repo, planRepo, paymentRepo, rosterRepo, platform.settings, settlement, clock, calendar, commercialMailer(platform), config.site.clubName);
+  const refunds = new DuesRefunds(db, repo, paymentRepo, platform.settings, settlement, payments, clock, calendar, platform.deps.log);
   const flying = new FlyingStatusService(db, repo, platform.settings, tokens, clock, calendar);
-  const jobs = new MembershipJobs(db, repo, platform.settings, settlement, cardDues, clock, calendar);
+  const jobs = new MembershipJobs(db, repo, planRepo, rosterRepo, platform.settings, settlement, cardDues, clock, calendar);
   return {
     name: 'membership',
     mount(api) {
-      api('/membership', membershipRoutes(members, new PaymentThrottle(db)));
+      api('/membership', membershipRoutes(members, record, new PaymentThrottle(db)));
       api('/admin/members', memberAdminRoutes(admin, refunds, flying));
       api('/admin/checkin', checkInRoutes(flying));
     },

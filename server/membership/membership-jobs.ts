@@ -7,6 +7,8 @@ import type { CardDues } from './card-dues';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { reminderMail, renewalDeclinedMail, type ReminderKind } from './membership-mail';
 import { dateOnly, type MembershipRepository, type RosterRow } from './membership-repository';
+import type { PlanRepository } from './plan-repository';
+import type { RosterRepository } from './roster-repository';
 import { MEMBERSHIP_SETTINGS } from './membership-settings';
 import { addDays, duesFor, termForPayment, type TermPolicy } from './terms';
 
@@ -30,6 +32,8 @@ export class MembershipJobs {
   constructor(
     private readonly db: Knex,
     private readonly repo: MembershipRepository,
+    private readonly planRepo: PlanRepository,
+    private readonly rosterRepo: RosterRepository,
     private readonly settings: SettingsService,
     private readonly settlement: DuesSettlement,
     private readonly cardDues: CardDues,
@@ -45,9 +49,9 @@ export class MembershipJobs {
   async refreshStatuses(): Promise<{ checked: number }> {
     const policy = termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS));
     const today = this.today();
-    const rows = await this.repo.standing();
+    const rows = await this.rosterRepo.standing();
     for (const r of rows) {
-      await this.db.transaction(async (trx) => this.settlement.refreshStatus(trx, (await this.repo.byId(Number(r.id), trx, true))!, today, policy));
+      await this.db.transaction(async (trx) => this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, Number(r.id)))!, today, policy));
     }
     return { checked: rows.length };
   }
@@ -61,7 +65,7 @@ export class MembershipJobs {
     await this.refreshStatuses();
     const today = this.today();
     let queued = 0;
-    for (const r of await this.repo.standing()) {
+    for (const r of await this.rosterRepo.standing()) {
       const ctx = { ...(await this.settlement.mailContext(this.db, r)), membershipId: Number(r.id) };
       const termEnd = dateOnly(r.term_end);
       const kind = termEnd && r.renewal_failed_at === null ? dueReminder(today, termEnd) : null;
@@ -82,7 +86,7 @@ export class MembershipJobs {
     const policy = termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS));
     const today = this.today();
     const out = { paid: 0, declined: 0, lapsed: 0 };
-    for (const r of await this.repo.standing()) {
+    for (const r of await this.rosterRepo.standing()) {
       const termEnd = dateOnly(r.term_end);
       if (!r.auto_renew || !r.processor_customer_id || !termEnd || r.renewal_failed_at !== null) continue;
       const attempt = r.renewal_attempts;
@@ -96,7 +100,7 @@ export class MembershipJobs {
 
   /** One charge of the saved card; a decline schedules the next try or, on the last, lapses the membership. */
   private async tryOnce(r: RosterRow, termEnd: string, attempt: number, today: string, policy: TermPolicy, out: { paid: number; declined: number; lapsed: number }): Promise<void> {
-    const plan = (await this.repo.plan(Number(r.plan_id)))!;
+    const plan = (await this.planRepo.plan(Number(r.plan_id)))!;
     const term = termForPayment(today, termEnd, policy);
     const amount = duesFor(plan.dues_cents, term, policy);
     const result = await this.cardDues.pay(r, plan, term, amount, { customerId: r.processor_customer_id!, keyTail: `auto-${attempt}` }, { today, policy, actorUserId: null, at: this.clock.now() });
@@ -106,13 +110,13 @@ export class MembershipJobs {
     }
     // The member's own renewal holds the term right now: this try never reached the card, so the next run may use it.
     if (result.outcome === 'in_progress') {
-      await this.repo.releaseRenewalAttempt(Number(r.id), attempt);
+      await this.repo.releaseRenewalAttempt(this.db, Number(r.id), attempt);
       return;
     }
     const last = attempt + 1 >= RENEWAL_TRY_OFFSETS.length;
     const nextTry = last ? null : addDays(termEnd, RENEWAL_TRY_OFFSETS[attempt + 1]);
     await this.db.transaction(async (trx) => {
-      const m = (await this.repo.byId(Number(r.id), trx, true))!;
+      const m = (await this.repo.lockById(trx, Number(r.id)))!;
       const ctx = { ...(await this.settlement.mailContext(trx, m)), membershipId: Number(m.id) };
       if (last) {
         const failed = await this.repo.update(trx, Number(m.id), { renewal_failed_at: this.clock.now(), next_renewal_attempt_on: null });

@@ -121,43 +121,9 @@ export interface AsOf {
   graceDays: number;
 }
 
-/** The status the dates give (the same rule as `statusOn`), so a stale stored status never hides a member. */
-const LIVE_STATUS =
-  "(CASE WHEN m.term_end IS NULL THEN 'pending' WHEN m.term_end >= ?::date THEN 'active' " +
-  "WHEN m.renewal_failed_at IS NOT NULL OR m.term_end + ?::int < ?::date THEN 'lapsed' ELSE 'lapsing' END)";
-const liveBindings = (a: AsOf) => [a.today, a.graceDays, a.today];
-
-const SORT_COLUMNS: Record<Exclude<RosterQuery['sort'], 'status'>, string> = {
-  memberNumber: 'm.member_number',
-  name: 'm.legal_name',
-  termEnd: 'm.term_end',
-  plan: 'p.name',
-  associationExpires: 'm.association_expires',
-};
-
 /** Plain reads and writes of the membership tables. */
 export class MembershipRepository {
   constructor(private readonly db: Knex) {}
-
-  plans(includeInactive: boolean, db: Db = this.db): Promise<PlanRow[]> {
-    return db<PlanRow>('membership_plans')
-      .modify((qb) => (includeInactive ? qb : qb.where('active', true)))
-      .orderBy([{ column: 'sort_order' }, { column: 'id' }]);
-  }
-
-  plan(id: number, db: Db = this.db): Promise<PlanRow | undefined> {
-    return db<PlanRow>('membership_plans').where('id', id).first();
-  }
-
-  async insertPlan(row: Omit<PlanRow, 'id'>, db: Db = this.db): Promise<PlanRow> {
-    const [created] = await db<PlanRow>('membership_plans').insert(row).returning('*');
-    return created;
-  }
-
-  async updatePlan(id: number, patch: Partial<Omit<PlanRow, 'id'>>, db: Db = this.db): Promise<PlanRow | undefined> {
-    const [row] = await db<PlanRow>('membership_plans').where('id', id).update({ ...patch, updated_at: db.fn.now() } as Partial<PlanRow>).returning('*');
-    return row;
-  }
 
   /** Members per certification level for the levels not in `codes` (records a new level list would orphan). */
   levelsHeldOutside(codes: string[], db: Db = this.db): Promise<{ certification_level: string; count: string }[]> {
@@ -169,12 +135,24 @@ export class MembershipRepository {
       .count<{ certification_level: string; count: string }[]>({ count: '*' });
   }
 
-  byUser(userId: number, db: Db = this.db, lock = false): Promise<MembershipRow | undefined> {
-    return db<MembershipRow>('memberships').where('user_id', userId).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
+  /** The account's membership, unlocked; use `lockByUser` before changing it. */
+  byUser(userId: number, db: Db = this.db): Promise<MembershipRow | undefined> {
+    return db<MembershipRow>('memberships').where('user_id', userId).first();
   }
 
-  byId(id: number, db: Db = this.db, lock = false): Promise<MembershipRow | undefined> {
-    return db<MembershipRow>('memberships').where('id', id).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
+  /** The account's membership, locked until `trx` ends so two writers of one membership take turns. */
+  lockByUser(trx: Knex.Transaction, userId: number): Promise<MembershipRow | undefined> {
+    return trx<MembershipRow>('memberships').where('user_id', userId).forUpdate().first();
+  }
+
+  /** The membership with this id, unlocked; use `lockById` before changing it. */
+  byId(id: number, db: Db = this.db): Promise<MembershipRow | undefined> {
+    return db<MembershipRow>('memberships').where('id', id).first();
+  }
+
+  /** The membership, locked until `trx` ends so two writers of one membership take turns. */
+  lockById(trx: Knex.Transaction, id: number): Promise<MembershipRow | undefined> {
+    return trx<MembershipRow>('memberships').where('id', id).forUpdate().first();
   }
 
   /** Display names of staff by id (who verified a record). */
@@ -185,6 +163,7 @@ export class MembershipRepository {
     return new Map(rows.map((r) => [String(r.id), r.display_name]));
   }
 
+  /** The membership a member number names, as printed on the card and read at check-in. */
   byNumber(memberNumber: string, db: Db = this.db): Promise<MembershipRow | undefined> {
     return db<MembershipRow>('memberships').where('member_number', memberNumber).first();
   }
@@ -197,6 +176,7 @@ export class MembershipRepository {
     return created;
   }
 
+  /** Writes the given membership columns and the update time; member number and account never change. */
   async update(trx: Db, id: number, patch: Partial<Omit<MembershipRow, 'id' | 'member_number' | 'user_id'>>): Promise<MembershipRow> {
     const [row] = await trx<MembershipRow>('memberships').where('id', id).update({ ...patch, updated_at: trx.fn.now() as unknown as Date }).returning('*');
     return row;
@@ -218,154 +198,32 @@ export class MembershipRepository {
   }
 
   /** Gives back an auto-renew attempt claimed with `attempts` that never reached the processor. */
-  async releaseRenewalAttempt(id: number, attempts: number, db: Db = this.db): Promise<void> {
+  async releaseRenewalAttempt(db: Db, id: number, attempts: number): Promise<void> {
     await db('memberships').where({ id, renewal_attempts: attempts + 1 }).update({ renewal_attempts: attempts, updated_at: db.fn.now() });
   }
 
+  /** The family members a family plan covers, in the order they were added. */
   family(membershipId: number, db: Db = this.db): Promise<{ id: string; name: string; date_of_birth: DateCol }[]> {
     return db('membership_family_members').where('membership_id', membershipId).orderBy('id');
   }
 
+  /** Replaces the family members of a membership in the caller's transaction, so the list is never half-written. */
   async replaceFamily(trx: Knex.Transaction, membershipId: number, people: { name: string; dateOfBirth: string }[]): Promise<void> {
     await trx('membership_family_members').where('membership_id', membershipId).delete();
     if (people.length) await trx('membership_family_members').insert(people.map((p) => ({ membership_id: membershipId, name: p.name, date_of_birth: p.dateOfBirth })));
   }
 
-  async insertPayment(db: Db, row: Partial<PaymentRow> & Pick<PaymentRow, 'membership_id' | 'plan_id' | 'status' | 'method' | 'amount_cents' | 'idempotency_key'>): Promise<PaymentRow> {
-    const [created] = await db<PaymentRow>('membership_payments').insert(row).returning('*');
-    return created;
-  }
-
-  async updatePayment(db: Db, id: number, patch: Partial<PaymentRow>): Promise<PaymentRow> {
-    const [row] = await db<PaymentRow>('membership_payments').where('id', id).update(patch).returning('*');
-    return row;
-  }
-
-  payment(id: number, db: Db = this.db, lock = false): Promise<PaymentRow | undefined> {
-    return db<PaymentRow>('membership_payments').where('id', id).modify((qb) => (lock ? qb.forUpdate() : qb)).first();
-  }
-
-  paymentByKey(key: string, db: Db = this.db): Promise<PaymentRow | undefined> {
-    return db<PaymentRow>('membership_payments').where('idempotency_key', key).first();
-  }
-
-  /** The card payments (not refunds) of one membership for the term ending `termEnd`, oldest first. */
-  cardPaymentsForTerm(membershipId: number, termEnd: string, db: Db = this.db): Promise<PaymentRow[]> {
-    return db<PaymentRow>('membership_payments').where({ membership_id: String(membershipId), term_end: termEnd, entry: 'payment', method: 'card' }).orderBy('id');
-  }
-
-  payments(membershipId: number, db: Db = this.db): Promise<PaymentRow[]> {
-    return db<PaymentRow>('membership_payments').where('membership_id', membershipId).orderBy([{ column: 'created_at', order: 'desc' }, { column: 'id', order: 'desc' }]);
-  }
-
-  /** Money refunded against a payment (a positive number): settled refunds, plus claims still `requested`. */
-  async refundedCents(paymentId: number, db: Db = this.db, statuses: PaymentRow['status'][] = ['refunded', 'requested']): Promise<number> {
-    const [{ sum }] = await db('membership_payments').where({ refund_of: paymentId, entry: 'refund' }).whereIn('status', statuses).sum<{ sum: string | null }[]>({ sum: 'amount_cents' });
-    return -Number(sum ?? 0);
-  }
-
-  /** The refund a client key (Idempotency-Key) already asked for on this membership. */
-  refundByRequestKey(membershipId: number, key: string, db: Db = this.db): Promise<PaymentRow | undefined> {
-    return db<PaymentRow>('membership_payments').where({ membership_id: String(membershipId), request_key: key, entry: 'refund' }).first();
-  }
-
-  /** Refunds recorded against one payment, oldest first. */
-  refundsOf(paymentId: number, db: Db = this.db): Promise<PaymentRow[]> {
-    return db<PaymentRow>('membership_payments').where({ refund_of: String(paymentId), entry: 'refund' }).orderBy('id');
-  }
-
-  /** The paid card payment behind a processor charge. */
-  paymentByCharge(chargeId: string, db: Db = this.db): Promise<PaymentRow | undefined> {
-    return db<PaymentRow>('membership_payments').where({ processor_charge_id: chargeId, entry: 'payment' }).whereIn('status', ['paid', 'refunded']).first();
-  }
-
-  /** Card refund claims still waiting for the processor's answer since before `before`. */
-  staleRefundClaims(before: Date, db: Db = this.db): Promise<PaymentRow[]> {
-    return db<PaymentRow>('membership_payments').where({ entry: 'refund', status: 'requested' }).where('created_at', '<', before).orderBy('id').limit(100);
-  }
-
+  /** Appends one entry to the membership's audit trail in the caller's transaction, so the change and its record commit together. */
   async addAudit(db: Db, membershipId: number, actorUserId: number | null, action: string, detail: Record<string, unknown> = {}): Promise<void> {
     await db('membership_audit').insert({ membership_id: membershipId, actor_user_id: actorUserId, action, detail: JSON.stringify(detail) });
   }
 
+  /** The membership's audit trail with each actor's name, newest first. */
   audit(membershipId: number, db: Db = this.db): Promise<AuditRow[]> {
     return db('membership_audit as a')
       .leftJoin('users as u', 'u.id', 'a.actor_user_id')
       .where('a.membership_id', membershipId)
       .select('a.*', 'u.display_name as actor_name')
       .orderBy([{ column: 'a.created_at', order: 'desc' }, { column: 'a.id', order: 'desc' }]);
-  }
-
-  private roster(q: Omit<RosterQuery, 'sort' | 'dir'>, asOf: AsOf) {
-    return this.db('memberships as m')
-      .join('users as u', 'u.id', 'm.user_id')
-      .join('membership_plans as p', 'p.id', 'm.plan_id')
-      .modify((qb) => {
-        if (q.status) qb.whereRaw(`${LIVE_STATUS} = ?`, [...liveBindings(asOf), q.status]);
-        if (q.planId) qb.where('m.plan_id', q.planId);
-        if (q.certificationLevel) qb.where('m.certification_level', q.certificationLevel);
-        if (q.associationExpiresBefore) qb.where((w) => w.where('m.association_expires', '<', q.associationExpiresBefore!).orWhereNull('m.association_expires'));
-        if (q.q) {
-          const like = `%${q.q.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
-          qb.where((w) => w.whereILike('m.legal_name', like).orWhereILike('u.email', like).orWhereILike('m.member_number', like).orWhereILike('m.association_number', like));
-        }
-      });
-  }
-
-  /** One page of the roster, sorted by a whitelisted column with the member number as tie-break. */
-  async rosterPage(q: RosterQuery, page: number, pageSize: number, asOf: AsOf): Promise<{ items: RosterRow[]; total: number }> {
-    const [{ count }] = await this.roster(q, asOf).count<{ count: string }[]>({ count: '*' });
-    const items = await this.rosterSorted(q, asOf).limit(pageSize).offset((page - 1) * pageSize);
-    return { items, total: Number(count) };
-  }
-
-  /** Every roster line matching the filters, in the table's order (for the export and roster e-mail). */
-  rosterAll(q: RosterQuery, asOf: AsOf): Promise<RosterRow[]> {
-    return this.rosterSorted(q, asOf);
-  }
-
-  private rosterSorted(q: RosterQuery, asOf: AsOf) {
-    const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
-    const base = this.roster(q, asOf).select('m.*', 'u.email', 'u.marketing_opt_out', 'p.code as plan_code', 'p.name as plan_name');
-    return q.sort === 'status'
-      ? base.orderByRaw(`${LIVE_STATUS} ${dir}, m.member_number ASC`, liveBindings(asOf))
-      : base.orderByRaw(`${SORT_COLUMNS[q.sort]} ${dir} NULLS LAST, m.member_number ASC`);
-  }
-
-  /** Memberships that have paid at least once, with what the reminder and renewal jobs need. */
-  standing(db: Db = this.db): Promise<RosterRow[]> {
-    return db('memberships as m')
-      .join('users as u', 'u.id', 'm.user_id')
-      .join('membership_plans as p', 'p.id', 'm.plan_id')
-      .whereNot('m.status', 'pending')
-      .select('m.*', 'u.email', 'u.marketing_opt_out', 'p.code as plan_code', 'p.name as plan_name')
-      .orderBy('m.id');
-  }
-
-  /** Net dues per calendar month (club time zone) and plan, over paid payments and refunds. */
-  collectedByMonth(timeZone: string, db: Db = this.db): Promise<{ month: string; plan_code: string; plan_name: string; cents: string; payments: string }[]> {
-    return db('membership_payments as pay')
-      .join('membership_plans as p', 'p.id', 'pay.plan_id')
-      .whereIn('pay.status', ['paid', 'refunded'])
-      .select(db.raw("to_char(pay.created_at AT TIME ZONE ?, 'YYYY-MM') as month", [timeZone]), 'p.code as plan_code', 'p.name as plan_name')
-      .sum({ cents: 'pay.amount_cents' })
-      .select(db.raw("count(*) FILTER (WHERE pay.entry = 'payment') as payments"))
-      .groupByRaw('1, p.code, p.name')
-      .orderByRaw('1 DESC, p.code');
-  }
-
-  /** Active members whose term ends within `days`, plus those in grace: the ones about to lapse. */
-  async countLapsingWithin(asOf: AsOf, days: number): Promise<number> {
-    const { rows } = await this.db.raw(
-      `SELECT count(*) AS n FROM memberships m WHERE ${LIVE_STATUS} IN ('active', 'lapsing') AND m.term_end < ?::date + ?::int`,
-      [...liveBindings(asOf), asOf.today, days],
-    );
-    return Number(rows[0].n);
-  }
-
-  /** Members per status as the dates give it on `asOf.today`. */
-  async countsByStatus(asOf: AsOf): Promise<{ status: MembershipStatus; count: string }[]> {
-    const { rows } = await this.db.raw(`SELECT ${LIVE_STATUS} AS status, count(*) AS count FROM memberships m GROUP BY 1`, liveBindings(asOf));
-    return rows;
   }
 }

@@ -5,6 +5,7 @@ import { requireSignedIn } from '../platform/require-role';
 import { cardToken } from '../payments/card-token';
 import type { PayerKeys, PaymentThrottle } from '../payments/payment-throttle';
 import type { SessionUser } from '../platform/roles';
+import type { MemberRecordService } from './member-record-service';
 import type { MembershipService } from './membership-service';
 
 const payer = (sessionId: string, user: SessionUser): PayerKeys => ({ sessionId, email: user.email, accountId: user.id });
@@ -45,41 +46,48 @@ const RenewSchema = z.object({
   profile: ProfileSchema.pick({ associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial().optional(),
 });
 
+const QuoteSchema = z.object({ planId: fields.id, on: fields.date.optional() });
+
+// The member's own corrections between renewals: never the name or date of birth, which staff change.
+const ProfileEditSchema = ProfileSchema.pick({ address: true, phone: true, emergencyContact: true, associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial();
+
+const AutoRenewSchema = z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: cardToken.optional() });
+
 /** The member's side: plans, quote, join, renew, own membership, auto-renew, card. */
-export function membershipRoutes(service: MembershipService, throttle: PaymentThrottle): Router {
+export function membershipRoutes(service: MembershipService, record: MemberRecordService, throttle: PaymentThrottle): Router {
   const r = Router();
-  r.get('/plans', async (_req, res) => {
+  r.get('/plans', async function listPlans(_req, res) {
     res.json(await service.plans());
   });
-  r.get('/policy', async (_req, res) => {
+  r.get('/policy', async function showPolicy(_req, res) {
     res.json(await service.policy());
   });
-  r.post('/quote', async (req, res) => {
-    const body = parse(z.object({ planId: fields.id, on: fields.date.optional() }), req.body);
+  r.post('/quote', async function quoteDues(req, res) {
+    const body = parse(QuoteSchema, req.body);
     res.json(await service.quote(req.user?.id ?? null, body.planId, body.on));
   });
-  r.post('/', requireSignedIn, async (req, res) => {
+  r.post('/', requireSignedIn, async function join(req, res) {
     const body = parse(JoinSchema, req.body);
     res.status(201).json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.join(req.user!, body), answered));
   });
-  r.get('/me', requireSignedIn, async (req, res) => {
-    res.json(await service.meOrNone(req.user!.id));
+  r.get('/me', requireSignedIn, async function showMyMembership(req, res) {
+    res.json(await record.meOrNone(req.user!.id));
   });
-  r.patch('/me', requireSignedIn, async (req, res) => {
-    res.json(await service.updateProfile(req.user!, parse(ProfileSchema.pick({ address: true, phone: true, emergencyContact: true, associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial(), req.body)));
+  r.patch('/me', requireSignedIn, async function updateMyProfile(req, res) {
+    res.json(await record.updateProfile(req.user!, parse(ProfileEditSchema, req.body)));
   });
-  r.post('/renew', requireSignedIn, async (req, res) => {
+  r.post('/renew', requireSignedIn, async function renew(req, res) {
     const body = parse(RenewSchema, req.body);
     res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.renew(req.user!, body), answered));
   });
-  r.post('/auto-renew', requireSignedIn, async (req, res) => {
-    const body = parse(z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: cardToken.optional() }), req.body);
+  r.post('/auto-renew', requireSignedIn, async function setAutoRenew(req, res) {
+    const body = parse(AutoRenewSchema, req.body);
     // Putting a card on file is checked by the processor too, so a card tester could use it: same throttle.
-    res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.setAutoRenew(req.user!, body), answered));
+    res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => record.setAutoRenew(req.user!, body), answered));
   });
-  r.get('/card', requireSignedIn, async (req, res) => {
+  r.get('/card', requireSignedIn, async function showCard(req, res) {
     res.set('Cache-Control', 'no-store');
-    res.json(await service.card(req.user!.id));
+    res.json(await record.card(req.user!.id));
   });
   return r;
 }

@@ -55,6 +55,7 @@ export class DatabaseNotifications {
     return this.queued;
   }
 
+  /** Stops listening and releases the LISTEN connection, so the process can exit. */
   async close(): Promise<void> {
     this.closed = true;
     const client = this.client;

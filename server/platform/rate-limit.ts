@@ -70,6 +70,7 @@ export class FailureLimiter {
     }
   }
 
+  /** Forgets the failures counted for a key, after the thing they guarded went right. */
   async reset(key: string): Promise<void> {
     await this.limiter.delete(key);
   }

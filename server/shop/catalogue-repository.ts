@@ -103,6 +103,7 @@ export class CatalogueRepository {
     return variantIds.length ? this.bundles({ variantIds }) : [];
   }
 
+  /** Adds a product with its variants in the caller's transaction, so a product never appears without its sizes. */
   async insertProduct(trx: Knex.Transaction, row: Omit<ProductRow, 'id' | 'position' | 'active' | 'max_per_order'> & { max_per_order?: number }, variants: Omit<VariantRow, 'id' | 'product_id' | 'position'>[]): Promise<number> {
     const [p] = await trx('shop_products').insert({ ...row, size_chart: row.size_chart ? JSON.stringify(row.size_chart) : null, images: JSON.stringify(row.images) }).returning('id');
     const productId = Number(p.id);
@@ -110,6 +111,7 @@ export class CatalogueRepository {
     return productId;
   }
 
+  /** Writes the given product columns; false when there is no such product. */
   async updateProduct(id: number, patch: Partial<Pick<ProductRow, 'name' | 'description_md' | 'price_cents' | 'weight_grams' | 'size_chart' | 'images' | 'active' | 'max_per_order'>>): Promise<boolean> {
     const row: Record<string, unknown> = { ...patch, updated_at: this.db.fn.now() };
     if (patch.size_chart !== undefined) row.size_chart = patch.size_chart ? JSON.stringify(patch.size_chart) : null;
@@ -117,6 +119,7 @@ export class CatalogueRepository {
     return (await this.db('shop_products').where('id', id).update(row)) > 0;
   }
 
+  /** Adds a print run with its per-variant caps in the caller's transaction, so a run never opens without its limits. */
   async insertRun(trx: Knex.Transaction, row: Omit<RunRow, 'id' | 'reserved' | 'state'>, caps: { variantId: number; cap: number }[]): Promise<number> {
     const [r] = await trx('shop_runs').insert({ ...row, state: 'scheduled' }).returning('id');
     const runId = Number(r.id);
@@ -124,16 +127,19 @@ export class CatalogueRepository {
     return runId;
   }
 
+  /** One print run by id. */
   async run(id: number): Promise<RunRow | null> {
     const r = await this.db<RunRow>('shop_runs').where('id', id).first();
     return r ? { ...num(r), product_id: Number(r.product_id) } : null;
   }
 
+  /** Every print run with its product's name and slug, newest opening first, for the staff list. */
   async runs(): Promise<(RunRow & { product_name: string; product_slug: string })[]> {
     const rows = await this.db('shop_runs as r').join('shop_products as p', 'p.id', 'r.product_id').select('r.*', 'p.name as product_name', 'p.slug as product_slug').orderBy('r.opens_at', 'desc');
     return rows.map((r) => ({ ...r, id: Number(r.id), product_id: Number(r.product_id) }));
   }
 
+  /** Moves a print run to a new state; the service decides which moves are allowed. */
   async setRunState(id: number, state: RunRow['state']): Promise<void> {
     await this.db('shop_runs').where('id', id).update({ state });
   }

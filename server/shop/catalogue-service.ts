@@ -55,9 +55,10 @@ export class CatalogueService {
     private readonly storefront: NotifiedCache<ReadyJson>,
   ) {}
 
-  async list(activeOnly: boolean) {
+  /** Every product, hidden ones too, as staff list them. */
+  async listAll() {
     const now = this.clock.now();
-    return (await this.repo.bundles({ activeOnly })).map((b) => ({ ...productView(b, now), active: b.product.active }));
+    return (await this.repo.bundles()).map((b) => ({ ...productView(b, now), active: b.product.active }));
   }
 
   /** The storefront's product list, `{items}`, as ready JSON. */
@@ -79,6 +80,7 @@ export class CatalogueService {
     return ready;
   }
 
+  /** One product as staff edit it, hidden or not, with its Markdown description. */
   async byId(id: number) {
     const [b] = await this.repo.bundles({ id });
     if (!b) throw notFound('No such product.');
@@ -136,12 +138,14 @@ export class CatalogueService {
     return (await this.runs()).find((r) => r.id === runId)!;
   }
 
+  /** Saves staff edits to a product and answers with the product as it now is. */
   async update(id: number, patch: z.infer<typeof ProductPatch>) {
     const ok = await this.repo.updateProduct(id, { name: patch.name, description_md: patch.description, price_cents: patch.priceCents, active: patch.active, size_chart: patch.sizeChart, images: patch.images, max_per_order: patch.maxPerOrder });
     if (!ok) throw notFound('No such product.');
     return this.byId(id);
   }
 
+  /** Every print run with the state its dates and cap give now, so staff see a run close on time without a job. */
   async runs() {
     const now = this.clock.now();
     return (await this.repo.runs()).map((r) => {

@@ -11,6 +11,7 @@ import type { SettingsService } from '../settings/settings-service';
 import type { OrderGuide } from './order-guide';
 import type { OrderLinks } from './order-links';
 import type { OrderBundle, OrderRepository } from './order-repository';
+import type { StockRepository } from './stock-repository';
 import type { QuoteRequest, QuoteService } from './quote-service';
 import type { ReceiptService } from './receipt-service';
 import { confirmationEmail } from './shop-emails';
@@ -31,6 +32,7 @@ export class CheckoutService {
   constructor(
     private readonly db: Knex,
     private readonly orders: OrderRepository,
+    private readonly stock: StockRepository,
     private readonly quotes: QuoteService,
     private readonly payments: PaymentGateway,
     private readonly settings: SettingsService,
@@ -51,7 +53,7 @@ export class CheckoutService {
     const quote = await this.quotes.quote(req, user?.roles ?? [], now);
     const { id, number } = await this.db.transaction(async (trx) => {
       const created = await this.orders.insert(trx, quote, req, user?.id ?? null, now);
-      if (!(await this.orders.reserve(trx, quote.lines, now))) throw conflict('sold_out', 'Someone got there first: part of the cart just sold out.');
+      if (!(await this.stock.reserve(trx, quote.lines, now))) throw conflict('sold_out', 'Someone got there first: part of the cart just sold out.');
       return created;
     });
     return this.charge({ id, number, totalCents: quote.totalCents }, 1, req.paymentToken);
@@ -133,7 +135,7 @@ export class CheckoutService {
     await this.db.transaction(async (trx) => {
       if (!(await this.orders.transition(trx, orderId, ['pending'], { status: 'failed', payment_message: message }))) return;
       const b = (await this.orders.find(orderId, trx))!;
-      await this.orders.release(trx, b.items.map((i) => ({ variantId: i.variant_id, runId: i.run_id, quantity: i.quantity })));
+      await this.stock.release(trx, b.items.map((i) => ({ variantId: i.variant_id, runId: i.run_id, quantity: i.quantity })));
     });
   }
 

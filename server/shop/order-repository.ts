@@ -145,50 +145,6 @@ export class OrderRepository {
     return { id, number: row.number };
   }
 
-  /**
-   * Holds units for the lines with conditional updates, always in the same order (variant caps, stock, then runs,
-   * each by id; `release` keeps it) so concurrent checkouts never deadlock. The run row comes last because every
-   * buyer of a drop waits for that one row: it is then held only from its update to the commit. Returns false when
-   * any line no longer fits; the caller rolls back.
-   */
-  async reserve(trx: Knex.Transaction, lines: { variantId: number; runId: number | null; quantity: number }[], now: Date): Promise<boolean> {
-    const byVariant = [...lines].sort((a, b) => (a.runId ?? 0) - (b.runId ?? 0) || a.variantId - b.variantId);
-    for (const l of byVariant.filter((x) => x.runId)) {
-      // One statement: the cap's update, and whether the variant has a cap at all (most have none).
-      const { rows } = await trx.raw(
-        `WITH held AS (UPDATE shop_run_variant_caps SET reserved = reserved + ? WHERE run_id = ? AND variant_id = ? AND reserved + ? <= cap RETURNING 1)
-         SELECT EXISTS (SELECT 1 FROM held) AS held, EXISTS (SELECT 1 FROM shop_run_variant_caps WHERE run_id = ? AND variant_id = ?) AS capped`,
-        [l.quantity, l.runId, l.variantId, l.quantity, l.runId, l.variantId],
-      );
-      if (rows[0].capped && !rows[0].held) return false;
-    }
-    for (const l of byVariant.filter((x) => !x.runId)) {
-      const n = await trx('shop_variants').where('id', l.variantId).whereNotNull('stock_on_hand').where('stock_on_hand', '>=', l.quantity).decrement('stock_on_hand', l.quantity);
-      if (n !== 1) return false;
-    }
-    const perRun = new Map<number, number>();
-    for (const l of lines) if (l.runId) perRun.set(l.runId, (perRun.get(l.runId) ?? 0) + l.quantity);
-    for (const [runId, qty] of [...perRun].sort((a, b) => a[0] - b[0])) {
-      const n = await trx('shop_runs')
-        .where('id', runId)
-        .whereIn('state', ['scheduled', 'open'])
-        .where('opens_at', '<=', now)
-        .where('closes_at', '>', now)
-        .whereRaw('reserved + ? <= cap', [qty])
-        .increment('reserved', qty);
-      if (n !== 1) return false;
-    }
-    return true;
-  }
-
-  /** Gives units back to their variant cap and run, or to stock, in `reserve`'s order. */
-  async release(trx: Knex.Transaction, lines: { variantId: number; runId: number | null; quantity: number }[]): Promise<void> {
-    const sorted = [...lines].filter((l) => l.quantity > 0).sort((a, b) => (a.runId ?? 0) - (b.runId ?? 0) || a.variantId - b.variantId);
-    for (const l of sorted.filter((x) => x.runId)) await trx('shop_run_variant_caps').where({ run_id: l.runId, variant_id: l.variantId }).decrement('reserved', l.quantity);
-    for (const l of sorted.filter((x) => !x.runId)) await trx('shop_variants').where('id', l.variantId).increment('stock_on_hand', l.quantity);
-    for (const l of sorted.filter((x) => x.runId)) await trx('shop_runs').where('id', l.runId!).decrement('reserved', l.quantity);
-  }
-
   /** Moves an order between statuses only from the expected one; returns whether it moved. */
   async transition(trx: Db, id: number, from: OrderStatus[], patch: Partial<OrderRow> & { status?: OrderStatus }): Promise<boolean> {
     return (await trx('shop_orders').where('id', id).whereIn('status', from).update(patch)) === 1;
@@ -205,15 +161,28 @@ export class OrderRepository {
     return { order: fix(row), items, taxes, refunds: [] };
   }
 
+  /** Writes the given order columns in the caller's transaction or connection. */
   async update(trx: Db, id: number, patch: Record<string, unknown>): Promise<void> {
     await trx('shop_orders').where('id', id).update(patch);
   }
 
-  async find(id: number, trx: Db = this.db, forUpdate = false): Promise<OrderBundle | null> {
-    const q = trx('shop_orders').select('*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('id', id).first();
-    if (forUpdate) q.forUpdate();
-    const row = await q;
+  /** The order with its lines, taxes and refunds, unlocked; use `findLocked` before changing money on it. */
+  async find(id: number, trx: Db = this.db): Promise<OrderBundle | null> {
+    return this.bundle(trx, await this.orderRow(trx, id));
+  }
+
+  /** The order, its row locked until `trx` ends, so refunds and their settlement of one order take turns. */
+  async findLocked(trx: Knex.Transaction, id: number): Promise<OrderBundle | null> {
+    return this.bundle(trx, await this.orderRow(trx, id).forUpdate());
+  }
+
+  private orderRow(trx: Db, id: number) {
+    return trx('shop_orders').select('*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('id', id).first();
+  }
+
+  private async bundle(trx: Db, row: Record<string, unknown> | undefined): Promise<OrderBundle | null> {
     if (!row) return null;
+    const id = Number(row.id);
     const items = await this.items(trx, id);
     const taxes = await this.taxes(trx, id);
     const refunds = (await trx<RefundRow>('shop_refunds').where('order_id', id).orderBy('id')).map((r) => ({ ...r, id: Number(r.id), order_id: id }));
@@ -228,6 +197,7 @@ export class OrderRepository {
     return (await trx('shop_order_taxes').where('order_id', orderId).orderBy('code')).map((t) => ({ ...t, rate_percent: String(t.rate_percent) }));
   }
 
+  /** The id of the order a processor charge paid, so webhooks and refunds find their order. */
   async byChargeId(chargeId: string, trx: Db = this.db): Promise<number | null> {
     const row = await trx('shop_orders').where('charge_id', chargeId).first('id');
     return row ? Number(row.id) : null;
@@ -289,12 +259,6 @@ export class OrderRepository {
       .orderBy('o.id', dir);
   }
 
-  async insertRefund(trx: Knex.Transaction, r: { orderId: number; amountCents: number; restocked: boolean; processorRefundId: string | null; origin: 'staff' | 'processor'; createdBy: number | null; now: Date }): Promise<number> {
-    const [row] = await trx('shop_refunds')
-      .insert({ order_id: r.orderId, amount_cents: r.amountCents, restocked: r.restocked, processor_refund_id: r.processorRefundId, origin: r.origin, created_by: r.createdBy, created_at: r.now })
-      .returning('id');
-    return Number(row.id);
-  }
 
   /** Names of the runs this order still waits for: pre-order lines (not given back) whose run has not been printed. */
   async unprintedRuns(orderId: number, db: Db = this.db): Promise<string[]> {

@@ -1,8 +1,8 @@
 import { formatRate } from './tax';
 import type { OrderBundle } from './order-repository';
 
-/** An order as the buyer and staff see it. */
-export function orderJson(b: OrderBundle, forStaff = false) {
+/** An order as its buyer sees it. */
+export function orderJson(b: OrderBundle) {
   const o = b.order;
   return {
     id: o.id,
@@ -28,17 +28,21 @@ export function orderJson(b: OrderBundle, forStaff = false) {
     refundedCents: o.refunded_cents,
     currency: 'CAD' as const,
     paymentMessage: o.status === 'pending' || o.status === 'failed' ? o.payment_message : null,
-    ...(forStaff
-      ? {
-          weightGrams: o.weight_grams,
-          pricedOn: o.priced_on,
-          chargeId: o.charge_id,
-          paidOutsideProcessor: o.paid_outside_processor,
-          paymentAttempts: o.payment_attempts,
-          disputedAt: o.disputed_at,
-          disputeReason: o.dispute_reason,
-          refunds: b.refunds.map((r) => ({ id: r.id, amountCents: r.amount_cents, restocked: r.restocked, origin: r.origin, createdAt: r.created_at })),
-        }
-      : {}),
+  };
+}
+
+/** The same order with what staff need besides: weight, pricing day, the charge, disputes and refunds. */
+export function orderJsonForStaff(b: OrderBundle) {
+  const o = b.order;
+  return {
+    ...orderJson(b),
+    weightGrams: o.weight_grams,
+    pricedOn: o.priced_on,
+    chargeId: o.charge_id,
+    paidOutsideProcessor: o.paid_outside_processor,
+    paymentAttempts: o.payment_attempts,
+    disputedAt: o.disputed_at,
+    disputeReason: o.dispute_reason,
+    refunds: b.refunds.map((r) => ({ id: r.id, amountCents: r.amount_cents, restocked: r.restocked, origin: r.origin, createdAt: r.created_at })),
   };
 }

@@ -75,6 +75,7 @@ export class QuoteService {
     private readonly appConfig: Config,
   ) {}
 
+  /** Prices a cart as the server will charge it: per-order limits, member discount, shipping and each tax, so the buyer sees the real total before paying. */
   async quote(req: QuoteRequest, roles: Role[], now: Date): Promise<Quote> {
     const wanted = new Map<number, number>();
     for (const i of req.items) wanted.set(i.variantId, (wanted.get(i.variantId) ?? 0) + i.quantity);

@@ -59,6 +59,10 @@ const fixRefund = (r: Record<string, unknown>): ShopRefundRow => ({ ...(r as unk
 export class RefundRepository {
   constructor(private readonly db: Knex) {}
 
+  /**
+   * Records a refund claim with its lines and taxes; a staff refund is claimed before the processor is asked, so a
+   * crash leaves a claim to settle rather than money moved unseen.
+   */
   async insertClaim(
     trx: Knex.Transaction,
     r: { orderId: number; origin: 'staff' | 'processor'; state: RefundState; idempotencyKey: string; requestKey: string | null; requestHash: string | null; processorRefundId: string | null; restock: boolean; reason: string | null; createdBy: number | null; now: Date },
@@ -96,25 +100,30 @@ export class RefundRepository {
     return (await trx('shop_refunds').where({ id, state: 'requested' }).update(patch)) === 1;
   }
 
+  /** One refund by id. */
   async byId(id: number, db: Db = this.db): Promise<ShopRefundRow | null> {
     const row = await db('shop_refunds').where('id', id).first();
     return row ? fixRefund(row) : null;
   }
 
+  /** The refund a client's Idempotency-Key already asked for on this order, so a retry answers the first refund. */
   async byRequestKey(orderId: number, requestKey: string, db: Db = this.db): Promise<ShopRefundRow | null> {
     const row = await db('shop_refunds').where({ order_id: orderId, request_key: requestKey }).first();
     return row ? fixRefund(row) : null;
   }
 
+  /** Every refund of one order, oldest first. */
   async forOrder(orderId: number, db: Db = this.db): Promise<ShopRefundRow[]> {
     return (await db('shop_refunds').where('order_id', orderId).orderBy('id')).map(fixRefund);
   }
 
+  /** The refunded units of these refunds, by refund and order line. */
   async lines(refundIds: number[], db: Db = this.db): Promise<RefundLineRow[]> {
     if (!refundIds.length) return [];
     return (await db('shop_refund_lines').whereIn('refund_id', refundIds).orderBy(['refund_id', 'order_item_id'])).map((l) => ({ ...l, refund_id: Number(l.refund_id), order_item_id: Number(l.order_item_id) }));
   }
 
+  /** The refunded tax of these refunds, by refund and tax code. */
   async taxes(refundIds: number[], db: Db = this.db): Promise<RefundTaxRow[]> {
     if (!refundIds.length) return [];
     return (await db('shop_refund_taxes').whereIn('refund_id', refundIds).orderBy(['refund_id', 'code'])).map((t) => ({ ...t, refund_id: Number(t.refund_id), rate_percent: String(t.rate_percent) }));

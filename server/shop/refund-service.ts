@@ -9,6 +9,7 @@ import { AppError, badRequest, conflict, notFound } from '../platform/app-error'
 import type { Clock } from '../platform/clock';
 import { RECONCILE_AFTER_MS } from './checkout-service';
 import type { OrderBundle, OrderRepository } from './order-repository';
+import type { StockRepository } from './stock-repository';
 import { computeRefund, shareProcessorRefund, type RefundableOrder, type RefundAsk, type RefundBreakdown } from './refund-arithmetic';
 import type { RefundedSoFar, RefundRepository, ShopRefundRow } from './refund-repository';
 import { refundEmail } from './shop-emails';
@@ -53,6 +54,7 @@ export class RefundService {
   constructor(
     private readonly db: Knex,
     private readonly orders: OrderRepository,
+    private readonly stock: StockRepository,
     private readonly refunds: RefundRepository,
     private readonly payments: PaymentGateway,
     private readonly clock: Clock,
@@ -72,7 +74,7 @@ export class RefundService {
    */
   async refund(orderId: number, ask: RefundRequest, requestKey: string | null, staffId: number): Promise<RefundOutcome> {
     const claim = await this.db.transaction(async (trx) => {
-      const b = await this.orders.find(orderId, trx, true);
+      const b = await this.orders.findLocked(trx, orderId);
       if (!b) throw notFound('No such order.');
       if (requestKey) {
         const earlier = await this.refunds.byRequestKey(orderId, requestKey, trx);
@@ -113,13 +115,13 @@ export class RefundService {
     if (!orderId) return false;
     const held = (await this.payments.refundsOf(chargeId)).filter((r) => r.status === 'succeeded' || r.status === 'pending');
     await this.db.transaction(async (trx) => {
-      const b = (await this.orders.find(orderId, trx, true))!;
+      const b = (await this.orders.findLocked(trx, orderId))!;
       const known = await this.refunds.forOrder(orderId, trx);
       for (const pr of held) {
         if (known.some((k) => k.processor_refund_id === pr.id)) continue;
         const claim = known.find((k) => k.idempotency_key === pr.metadata?.padsideRefundKey);
         if (claim) {
-          if (claim.state !== 'succeeded') await this.recordSucceeded(trx, claim.id, pr.id, true);
+          if (claim.state !== 'succeeded') await this.recordRefundedByProcessor(trx, claim.id, pr.id);
           continue;
         }
         await this.recordProcessorOrigin(trx, b, pr);
@@ -164,7 +166,7 @@ export class RefundService {
   private async settleFailed(refundId: number, message: string): Promise<void> {
     await this.db.transaction(async (trx) => {
       const r = (await this.refunds.byId(refundId, trx))!;
-      await this.orders.find(r.order_id, trx, true);
+      await this.orders.findLocked(trx, r.order_id);
       await this.refunds.settle(trx, refundId, { state: 'failed', failure_message: message.slice(0, 400), settled_at: this.clock.now() });
     });
   }
@@ -172,25 +174,34 @@ export class RefundService {
   private async settleSucceeded(refundId: number, processorRefundId: string): Promise<void> {
     await this.db.transaction(async (trx) => {
       const r = (await this.refunds.byId(refundId, trx))!;
-      await this.orders.find(r.order_id, trx, true);
-      await this.recordSucceeded(trx, refundId, processorRefundId, false);
+      await this.orders.findLocked(trx, r.order_id);
+      await this.recordSucceeded(trx, refundId, processorRefundId);
     });
   }
 
   /**
    * The outcome of a claim, under the order's lock: the order's running total, the restock of exactly the refunded
-   * lines, the negative money movement with each tax, and the notice. A claim already settled is left alone, except
-   * that one marked failed which the processor shows as refunded (`fromProcessor`) is corrected to succeeded.
+   * lines, the negative money movement with each tax, and the notice. A claim already settled is left alone.
    */
-  private async recordSucceeded(trx: Knex.Transaction, refundId: number, processorRefundId: string, fromProcessor: boolean): Promise<void> {
+  private async recordSucceeded(trx: Knex.Transaction, refundId: number, processorRefundId: string): Promise<void> {
+    if (await this.refunds.settle(trx, refundId, { state: 'succeeded', processor_refund_id: processorRefundId, settled_at: this.clock.now() })) await this.applySucceeded(trx, refundId);
+  }
+
+  /** As `recordSucceeded`, for the processor's own record: a claim marked failed that it shows as refunded is corrected to succeeded. */
+  private async recordRefundedByProcessor(trx: Knex.Transaction, refundId: number, processorRefundId: string): Promise<void> {
     const now = this.clock.now();
-    let moved = await this.refunds.settle(trx, refundId, { state: 'succeeded', processor_refund_id: processorRefundId, settled_at: now });
-    if (!moved && fromProcessor) moved = (await trx('shop_refunds').where({ id: refundId, state: 'failed' }).update({ state: 'succeeded', processor_refund_id: processorRefundId, failure_message: null, settled_at: now })) === 1;
-    if (!moved) return;
+    const moved =
+      (await this.refunds.settle(trx, refundId, { state: 'succeeded', processor_refund_id: processorRefundId, settled_at: now })) ||
+      (await trx('shop_refunds').where({ id: refundId, state: 'failed' }).update({ state: 'succeeded', processor_refund_id: processorRefundId, failure_message: null, settled_at: now })) === 1;
+    if (moved) await this.applySucceeded(trx, refundId);
+  }
+
+  /** What a refund that just became succeeded moves: the restock of its lines, the books and the notice. */
+  private async applySucceeded(trx: Knex.Transaction, refundId: number): Promise<void> {
     const r = (await this.refunds.byId(refundId, trx))!;
     if (r.restocked) {
       const lines = await this.refunds.lines([refundId], trx);
-      await this.orders.release(trx, await this.refunds.markLinesRestocked(trx, lines.map((l) => ({ orderItemId: l.order_item_id, quantity: l.quantity }))));
+      await this.stock.release(trx, await this.refunds.markLinesRestocked(trx, lines.map((l) => ({ orderItemId: l.order_item_id, quantity: l.quantity }))));
     }
     await this.book(trx, r);
   }

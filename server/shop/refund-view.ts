@@ -1,5 +1,5 @@
 import type { OrderBundle, OrderRepository } from './order-repository';
-import { orderJson } from './order-view';
+import { orderJsonForStaff } from './order-view';
 import type { RefundBreakdown } from './refund-arithmetic';
 import type { RefundLineRow, RefundRepository, RefundTaxRow, ShopRefundRow } from './refund-repository';
 import { formatRate } from './tax';
@@ -47,7 +47,7 @@ export async function staffOrderJson(b: OrderBundle, refunds: RefundRepository, 
   const [lines, taxes] = [await refunds.lines(ids), await refunds.taxes(ids)];
   const live = new Set(rows.filter((r) => r.state !== 'failed').map((r) => r.id));
   const refundedUnits = (itemId: number) => lines.filter((l) => l.order_item_id === itemId && live.has(l.refund_id)).reduce((s, l) => s + l.quantity, 0);
-  const base = orderJson(b, true);
+  const base = orderJsonForStaff(b);
   return {
     ...base,
     items: base.items.map((i) => ({ ...i, refundedQuantity: refundedUnits(i.id), unitsToPack: i.quantity - refundedUnits(i.id) })),

@@ -112,7 +112,7 @@ export function productAdminRoutes(d: ShopAdminDeps): Router {
   const r = Router();
   r.use(requireRole(...SHOP_STAFF));
   r.get('/', async function listProductsForStaff(_req, res) {
-    res.json({ items: await d.catalogue.list(false), timeZone: d.timeZone });
+    res.json({ items: await d.catalogue.listAll(), timeZone: d.timeZone });
   });
   r.post('/', async function createProduct(req, res) {
     res.status(201).json({ product: await d.catalogue.create(parse(ProductBody, req.body)) });
@@ -163,7 +163,7 @@ export function shopSettingsRoutes(d: ShopAdminDeps): Router {
     res.json({ settings: await d.settings.put(SHOP_SETTINGS, parse(ShopSettingsSchema, req.body)) });
   });
   r.get('/shipping-methods', async function listShippingForStaff(_req, res) {
-    res.json({ items: await d.config.shippingMethods(false) });
+    res.json({ items: await d.config.allShippingMethods() });
   });
   r.put('/shipping-methods/:id', async function saveShippingMethod(req, res) {
     const id = parse(fields.id, req.params.id);

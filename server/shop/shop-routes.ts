@@ -68,7 +68,7 @@ export function productRoutes(d: ShopDeps): Router {
 export function shippingMethodRoutes(d: ShopDeps): Router {
   const r = Router();
   r.get('/', async function listShippingMethods(_req, res) {
-    res.json({ items: (await d.config.shippingMethods(true)).map((m) => ({ id: m.id, code: m.code, name: m.name, brackets: m.brackets })) });
+    res.json({ items: (await d.config.activeShippingMethods()).map((m) => ({ id: m.id, code: m.code, name: m.name, brackets: m.brackets })) });
   });
   return r;
 }
@@ -88,10 +88,11 @@ async function buyerView(d: ShopDeps, b: OrderBundle) {
   return { ...orderJson(b), receipt: await d.receipts.forOrder(b) };
 }
 
-async function answer(d: ShopDeps, res: import('express').Response, outcome: PaymentOutcome, created: boolean): Promise<void> {
+/** Answers a payment attempt: 202 while the processor has not said, else `paidStatus` (201 for a new order). */
+async function answer(d: ShopDeps, res: import('express').Response, outcome: PaymentOutcome, paidStatus: 200 | 201): Promise<void> {
   const order = await buyerView(d, outcome.bundle);
   if (outcome.status === 'pending') res.status(202).json({ order, message: outcome.message });
-  else res.status(created ? 201 : 200).json({ order });
+  else res.status(paidStatus).json({ order });
 }
 
 /** Besides the buyer, only these roles handle shop orders (an editor has no business with addresses or payments). */
@@ -126,7 +127,7 @@ export function orderRoutes(d: ShopDeps): Router {
     const payer = { sessionId: req.sessionID, email: body.email, address: body.shipTo };
     const outcome = await d.throttle.attempt(payer, () => d.checkout.placeOrder(body, req.user ?? null), (o) => o.status === 'paid');
     rememberOrder(req, outcome.bundle.order.id);
-    await answer(d, res, outcome, true);
+    await answer(d, res, outcome, 201);
   });
   r.get('/:id', async function showOrder(req, res) {
     const id = parse(fields.id, req.params.id);
@@ -138,7 +139,7 @@ export function orderRoutes(d: ShopDeps): Router {
     const { order } = await mayView(req, id);
     const { paymentToken } = parse(PayBody, req.body);
     const payer = { sessionId: req.sessionID, email: order.email, address: { line1: order.ship_line1, postalCode: order.ship_postal_code, country: order.ship_country } };
-    await answer(d, res, await d.throttle.attempt(payer, () => d.checkout.pay(id, paymentToken), (o) => o.status === 'paid'), false);
+    await answer(d, res, await d.throttle.attempt(payer, () => d.checkout.pay(id, paymentToken), (o) => o.status === 'paid'), 200);
   });
   return r;
 }

@@ -70,18 +70,22 @@ export interface ContactRow {
 export class SponsorRepository {
   constructor(readonly db: Knex) {}
 
+  /** Every sponsor, by name. */
   all(trx: Db = this.db): Promise<SponsorRow[]> {
     return trx<SponsorRow>('sponsors').orderBy('name');
   }
 
+  /** One sponsor by id. */
   byId(id: number, trx: Db = this.db): Promise<SponsorRow | undefined> {
     return trx<SponsorRow>('sponsors').where('id', id).first();
   }
 
+  /** The sponsors with these ids, in no particular order. */
   byIds(ids: readonly number[], trx: Db = this.db): Promise<SponsorRow[]> {
     return ids.length ? trx<SponsorRow>('sponsors').whereIn('id', ids) : Promise.resolve([]);
   }
 
+  /** The sponsors with these slugs, as `%thanks` markers in posts name them. */
   bySlugs(slugs: readonly string[], trx: Db = this.db): Promise<SponsorRow[]> {
     return slugs.length ? trx<SponsorRow>('sponsors').whereIn('slug', slugs) : Promise.resolve([]);
   }
@@ -91,17 +95,20 @@ export class SponsorRepository {
     await trx('sponsors').where('id', id).forUpdate().first();
   }
 
+  /** The slugs already taken by `base` and its numbered variants, so a new sponsor gets a free one. */
   async slugsLike(base: string, trx: Db = this.db): Promise<Set<string>> {
     const rows = await trx('sponsors').where('slug', base).orWhereLike('slug', `${base}-%`).select('slug');
     return new Set(rows.map((r: { slug: string }) => r.slug));
   }
 
+  /** Adds a sponsor with the slug the caller chose as free. */
   async insert(trx: Db, s: { slug: string; name: string; website: string | null; blurb: string | null; logoUrl: string | null }): Promise<SponsorRow> {
     const [row] = await trx<SponsorRow>('sponsors').insert({ slug: s.slug, name: s.name, website: s.website, blurb: s.blurb, logo_url: s.logoUrl }).returning('*');
     return row;
   }
 
-  async update(id: number, patch: { name: string; website: string | null; blurb: string | null; logoUrl: string | null }, trx: Db = this.db): Promise<SponsorRow | undefined> {
+  /** Saves a sponsor's name, website, blurb and logo; the slug stays, so links keep working. */
+  async update(trx: Db, id: number, patch: { name: string; website: string | null; blurb: string | null; logoUrl: string | null }): Promise<SponsorRow | undefined> {
     const [row] = await trx<SponsorRow>('sponsors')
       .where('id', id)
       .update({ name: patch.name, website: patch.website, blurb: patch.blurb, logo_url: patch.logoUrl, updated_at: trx.fn.now() as unknown as Date } as Partial<SponsorRow>)
@@ -109,14 +116,17 @@ export class SponsorRepository {
     return row;
   }
 
+  /** Makes an account a contact of the sponsor; adding one twice is harmless. */
   async addContact(trx: Db, sponsorId: number, userId: number): Promise<void> {
     await trx('sponsor_contacts').insert({ sponsor_id: sponsorId, user_id: userId }).onConflict(['sponsor_id', 'user_id']).ignore();
   }
 
+  /** Removes an account from the sponsor's contacts, answering how many rows went (0 when it was not one). */
   async removeContact(sponsorId: number, userId: number): Promise<number> {
     return this.db('sponsor_contacts').where({ sponsor_id: sponsorId, user_id: userId }).delete();
   }
 
+  /** The accounts that can open the sponsor's portal, by display name. */
   contacts(sponsorId: number, trx: Db = this.db): Promise<ContactRow[]> {
     return trx('sponsor_contacts as c').join('users as u', 'u.id', 'c.user_id').where('c.sponsor_id', sponsorId).orderBy('u.display_name').select('u.id as user_id', 'u.email', 'u.display_name');
   }
@@ -126,6 +136,7 @@ export class SponsorRepository {
     return this.db<SponsorRow>('sponsors as s').join('sponsor_contacts as c', 'c.sponsor_id', 's.id').where('c.user_id', userId).orderBy('c.created_at').select('s.*').first();
   }
 
+  /** Records a season's agreement in the caller's transaction, so its in-kind items and deliverables commit with it. */
   async insertAgreement(
     trx: Knex.Transaction,
     a: { sponsorId: number; season: string; cashCents: number; cashReceivedOn: string | null; note: string | null; taxTreatment: 'promotion' | 'gift'; taxProvince: string | null },
@@ -141,18 +152,22 @@ export class SponsorRepository {
     await trx('sponsor_agreements').where('id', id).update({ tax_treatment: treatment, tax_province: province });
   }
 
+  /** Records the goods and services an agreement brings, in the agreement's transaction. */
   async insertInKind(trx: Knex.Transaction, agreementId: number, items: readonly { description: string; valueCents: number; receivedOn: string | null }[]): Promise<void> {
     if (items.length) await trx('agreement_in_kind').insert(items.map((i) => ({ agreement_id: agreementId, description: i.description, value_cents: i.valueCents, received_on: i.receivedOn })));
   }
 
+  /** Records what the club promised in return, in the agreement's transaction. */
   async insertDeliverables(trx: Knex.Transaction, agreementId: number, items: readonly { kind: DeliverableKind; quantity: number; dueOn: string }[]): Promise<void> {
     if (items.length) await trx('agreement_deliverables').insert(items.map((d) => ({ agreement_id: agreementId, kind: d.kind, quantity: d.quantity, due_on: d.dueOn })));
   }
 
+  /** One agreement with its cash-received day as `YYYY-MM-DD`. */
   agreementById(id: number, trx: Db = this.db): Promise<AgreementRow | undefined> {
     return trx<AgreementRow>('sponsor_agreements').where('id', id).first('*', trx.raw("to_char(cash_received_on, 'YYYY-MM-DD') as cash_received_on"));
   }
 
+  /** Records the day the cash arrived and its money movement, in the transaction that books it. */
   async markCashReceived(trx: Knex.Transaction, id: number, receivedOn: string, movementId: number | null): Promise<void> {
     await trx('sponsor_agreements').where('id', id).update({ cash_received_on: receivedOn, cash_movement_id: movementId });
   }
@@ -165,6 +180,7 @@ export class SponsorRepository {
       .orderBy([{ column: 'season', order: 'desc' }, { column: 'id', order: 'desc' }]);
   }
 
+  /** The in-kind items of these agreements, with received days as `YYYY-MM-DD`. */
   inKind(agreementIds: readonly number[], trx: Db = this.db): Promise<InKindRow[]> {
     if (!agreementIds.length) return Promise.resolve([]);
     return trx<InKindRow>('agreement_in_kind').whereIn('agreement_id', agreementIds).select('*', trx.raw("to_char(received_on, 'YYYY-MM-DD') as received_on")).orderBy('id');
@@ -188,6 +204,7 @@ export class SponsorRepository {
       .orderBy([{ column: 'd.due_on' }, { column: 'd.id' }]);
   }
 
+  /** Records one credit given to a sponsor, against a promise when it names one. */
   async insertCredit(
     trx: Knex.Transaction,
     c: { sponsorId: number; deliverableId: number | null; kind: DeliverableKind; url: string | null; videoTimestamp: string | null; note: string | null; postId: number | null; recordedBy: number | null; creditedAt: Date },
@@ -204,6 +221,7 @@ export class SponsorRepository {
     return rows.map((r: { sponsor_id: string }) => Number(r.sponsor_id));
   }
 
+  /** Withdraws a post's live credits for these sponsors (the post no longer thanks them), keeping the rows for the ledger's history. */
   async withdrawPostCredits(trx: Knex.Transaction, postId: number, sponsorIds: readonly number[], at: Date): Promise<number> {
     if (!sponsorIds.length) return 0;
     return trx('sponsor_credits').where('post_id', postId).whereIn('sponsor_id', sponsorIds).whereNull('withdrawn_at').update({ withdrawn_at: at });

@@ -45,6 +45,7 @@ export class SponsorService {
     private readonly describeImages: (urls: readonly string[]) => Promise<Map<string, StoredImage>> = async () => new Map(),
   ) {}
 
+  /** Adds a sponsor under a slug made from its name and not yet taken. */
   async create(input: SponsorInput): Promise<SponsorView> {
     return this.db.transaction(async (trx) => {
       const base = slugify(input.name);
@@ -53,18 +54,21 @@ export class SponsorService {
     });
   }
 
+  /** Saves a sponsor's public details; 404 when there is no such sponsor. */
   async update(id: number, input: SponsorInput): Promise<SponsorView> {
-    const row = await this.repo.update(id, { name: input.name, website: input.website ?? null, blurb: input.blurb ?? null, logoUrl: input.logoUrl ?? null });
+    const row = await this.repo.update(this.db, id, { name: input.name, website: input.website ?? null, blurb: input.blurb ?? null, logoUrl: input.logoUrl ?? null });
     if (!row) throw notFound('No such sponsor.');
     return toView(row);
   }
 
+  /** One sponsor as staff see it; 404 when there is none. */
   async get(id: number): Promise<SponsorView> {
     const row = await this.repo.byId(id);
     if (!row) throw notFound('No such sponsor.');
     return toView(row);
   }
 
+  /** Records a season's agreement with its in-kind items and deliverables in one transaction, so no half-agreement is ever seen. */
   async addAgreement(sponsorId: number, input: AgreementInput): Promise<{ id: number }> {
     await this.get(sponsorId);
     try {
@@ -138,10 +142,12 @@ export class SponsorService {
     });
   }
 
+  /** Every credit the sponsor was given, for the ledger. */
   async creditsOf(sponsorId: number): Promise<CreditView[]> {
     return (await this.repo.credits(sponsorId)).map(toCredit);
   }
 
+  /** Records a credit given by hand, counted against an open promise of its kind when there is one. */
   async recordCredit(sponsorId: number, input: { kind: DeliverableKind; url: string | null; videoTimestamp?: string | null; note?: string | null; creditedAt: Date }, userId: number): Promise<{ id: number; counted: boolean }> {
     await this.get(sponsorId);
     const r = await this.db.transaction((trx) => this.credits.recordByHand(trx, sponsorId, { ...input, videoTimestamp: input.videoTimestamp ?? null, note: input.note ?? null }, userId));
@@ -158,18 +164,22 @@ export class SponsorService {
     return { userId: Number(user.id) };
   }
 
+  /** Takes portal access away from an account; 404 when it was not a contact. */
   async removeContact(sponsorId: number, userId: number): Promise<void> {
     if (!(await this.repo.removeContact(sponsorId, userId))) throw notFound('That account is not a contact of this sponsor.');
   }
 
+  /** The accounts that can open the sponsor's portal. */
   async contacts(sponsorId: number): Promise<{ userId: number; email: string; displayName: string }[]> {
     return (await this.repo.contacts(sponsorId)).map((c) => ({ userId: Number(c.user_id), email: c.email, displayName: c.display_name }));
   }
 
+  /** The sponsor tiers as configured. */
   tiers(): Promise<{ tiers: Tier[] }> {
     return this.settings.get(SPONSOR_TIERS);
   }
 
+  /** Saves the sponsor tiers, lowest threshold first, so the tier rule can read them in order. */
   setTiers(value: { tiers: Tier[] }): Promise<{ tiers: Tier[] }> {
     return this.settings.put(SPONSOR_TIERS, { tiers: [...value.tiers].sort((a, b) => a.minCents - b.minCents) });
   }

@@ -10,6 +10,7 @@ import { checkedKey, type FileStorage, type StoredObject } from './file-storage'
 export class DiskStorage implements FileStorage {
   constructor(private readonly dir: string) {}
 
+  /** Writes the stream to a file beside the target and renames it, so readers see the whole file or none. */
   async write(key: string, body: Readable): Promise<void> {
     await mkdir(this.dir, { recursive: true });
     const target = this.file(key);
@@ -24,6 +25,7 @@ export class DiskStorage implements FileStorage {
     }
   }
 
+  /** The stored file as a stream with its length, or null when there is none. */
   async read(key: string): Promise<StoredObject | null> {
     try {
       // Opened first so a missing file is a null here, not an error in the middle of the response.
@@ -36,6 +38,7 @@ export class DiskStorage implements FileStorage {
     }
   }
 
+  /** Deletes the files; one already gone is not an error. */
   async remove(keys: readonly string[]): Promise<void> {
     await Promise.all(keys.map((k) => rm(this.file(k), { force: true })));
   }

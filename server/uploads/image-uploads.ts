@@ -53,6 +53,7 @@ export class ImageUploads {
     private readonly usesOf: (urls: readonly string[]) => Promise<string[]> = async () => [],
   ) {}
 
+  /** Checks an uploaded image by its bytes, re-encodes it without metadata with a thumbnail, and stores both under the hash of the bytes. */
   async store(file: ReceivedFile, userId: number | null): Promise<StoredImage> {
     if (file.size > MAX_IMAGE_BYTES) throw new AppError(413, 'file_too_large', `Images can be at most ${MAX_IMAGE_BYTES / 1024 / 1024} MB.`, { file: 'Too large.' });
     // PostgreSQL refuses NUL in text; other control characters have no place in a name shown to editors.
@@ -96,6 +97,7 @@ export class ImageUploads {
     return new Map(rows.map((r) => [`/uploads/${r.key}`, toStored(r)]));
   }
 
+  /** A stored image or thumbnail with its length and type, or null when the key is not an upload's. */
   async read(key: string): Promise<{ body: Readable; length: number; contentType: string } | null> {
     const row = await this.db<UploadRow>('uploads').where('key', key).orWhere('thumbnail_key', key).first();
     if (!row) return null;

@@ -39,6 +39,7 @@ export class S3Storage implements FileStorage {
     });
   }
 
+  /** Streams the body to the bucket in parts, so a large image is never held in memory whole. */
   async write(key: string, body: Readable, contentType: string): Promise<void> {
     // lib-storage sends the stream in parts (multipart for large bodies), never the whole file at once.
     const upload = new Upload({
@@ -50,6 +51,7 @@ export class S3Storage implements FileStorage {
     await upload.done().catch(unavailable);
   }
 
+  /** The stored object as a stream with its length, or null when there is none. */
   async read(key: string): Promise<StoredObject | null> {
     try {
       const out = await this.client.send(new GetObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key) }));
@@ -60,6 +62,7 @@ export class S3Storage implements FileStorage {
     }
   }
 
+  /** Deletes the objects; one already gone is not an error. */
   async remove(keys: readonly string[]): Promise<void> {
     // One request per key: DeleteObjects needs a Content-MD5 some compatible servers compute differently.
     await Promise.all(keys.map((k) => this.client.send(new DeleteObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(k) })))).catch(unavailable);

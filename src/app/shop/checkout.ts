@@ -108,7 +108,7 @@ export class Checkout {
     this.payment.controls.paymentToken.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.cardProblem.set(null));
     // The summary follows the shipping form as the buyer types; field messages wait until they move on.
     this.shipping.valueChanges.pipe(debounceTime(400), takeUntilDestroyed()).subscribe(() => {
-      if (this.shipping.controls.shippingMethodId.value > 0) void this.refreshQuote(false);
+      if (this.shipping.controls.shippingMethodId.value > 0) void this.refreshQuote();
     });
   }
 
@@ -132,16 +132,26 @@ export class Checkout {
 
   /** Re-quotes when the buyer leaves the shipping step, so payment and review show the server's totals. */
   protected async stepChanged(e: StepperSelectionEvent): Promise<void> {
-    if (e.previouslySelectedIndex === 1 && e.selectedIndex > 1) await this.refreshQuote(true);
+    if (e.previouslySelectedIndex === 1 && e.selectedIndex > 1) await this.checkQuote();
   }
 
-  protected async refreshQuote(showFieldErrors: boolean): Promise<void> {
+  /** Re-quotes while the buyer types: a refusal only empties the summary, so no message interrupts them. */
+  protected refreshQuote(): Promise<void> {
+    return this.fetchQuote();
+  }
+
+  /** Re-quotes and puts a refusal's messages on the shipping fields they name. */
+  protected checkQuote(): Promise<void> {
+    return this.fetchQuote((err) => this.problem.set(applyServerErrors(this.shipping, err)));
+  }
+
+  private async fetchQuote(onRefused?: (err: unknown) => void): Promise<void> {
     try {
       this.quote.set(await firstValueFrom(this.api.quote(this.request())));
       this.problem.set(null);
     } catch (err) {
       this.quote.set(null);
-      if (showFieldErrors) this.problem.set(applyServerErrors(this.shipping, err));
+      onRefused?.(err);
     }
   }
 
