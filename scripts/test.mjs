@@ -12,6 +12,10 @@ const { ensureChromium } = await import('./stack/system.mjs');
 const { startThrowawayStack } = await import('./stack/throwaway.mjs');
 
 const jestArgs = process.argv.slice(2);
+if (!process.env.PADSIDE_SKIP_LINT) {
+  console.log('padside test: lint and format');
+  if (spawnSync(process.execPath, ['scripts/check-style.mjs'], { stdio: 'inherit' }).status !== 0) process.exit(1);
+}
 const chromium = ensureChromium();
 let stack;
 let code = 1;

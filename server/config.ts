@@ -46,7 +46,7 @@ const EnvSchema = z.object({
   // Unset: uploads on the local disk. `s3://bucket/prefix`: an S3-compatible object store (several machines).
   STORAGE_URL: z
     .string()
-    .regex(/^s3:\/\/[a-z0-9][a-z0-9.-]{1,61}[a-z0-9](\/[A-Za-z0-9!_.*'()\/-]*)?$/, 'must look like s3://bucket or s3://bucket/prefix (bucket: 3 to 63 lower-case letters, digits, dots and hyphens)')
+    .regex(/^s3:\/\/[a-z0-9][a-z0-9.-]{1,61}[a-z0-9](\/[A-Za-z0-9!_.*'()/-]*)?$/, 'must look like s3://bucket or s3://bucket/prefix (bucket: 3 to 63 lower-case letters, digits, dots and hyphens)')
     .optional(),
   S3_ENDPOINT: z.url({ protocol: /^https?$/, error: 'must be an http(s) URL' }).optional(),
   S3_REGION: z.string().trim().regex(/^[a-z0-9-]{2,40}$/, 'must be a region name such as us-east-1').optional(),

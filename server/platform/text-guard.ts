@@ -24,6 +24,7 @@ export function badTextFields(value: unknown, at = '', found: FieldErrors = {}, 
   } else if (value !== null && typeof value === 'object') {
     for (const [k, v] of Object.entries(value)) {
       const keyReason = badTextReason(k);
+      // eslint-disable-next-line no-control-regex -- the NUL character is what this guard reports, so it must match it
       const name = keyReason ? k.replace(/\u0000/g, '\\0').replace(/[\uD800-\uDFFF]/g, '\uFFFD') : k;
       const path = at ? `${at}.${name}` : name;
       if (keyReason) found[path] ??= `The field name: ${keyReason}`;

@@ -74,7 +74,7 @@ export function receiptFor(input: ReceiptInput, seller: SellerDetails): Receipt 
 }
 
 /** The receipt as plain-text lines for the confirmation e-mail. */
-export function receiptText(r: Receipt, formatCad: (cents: number) => string): string[] {
+export function receiptText(r: Receipt): string[] {
   return [
     `Seller: ${r.sellerName}`,
     `Date: ${formatDay(r.date)}`,

@@ -118,7 +118,10 @@ function refundLines(o: RefundableOrder, ask: RefundAsk): RefundBreakdown | Refu
   });
   if (ask.shipping && left.shipping === 0) {
     if (o.shippingCents === 0) fields.shipping = 'This order had no shipping charge.';
-    else (overClaim = true), (fields.shipping = 'Shipping is already refunded.');
+    else {
+      overClaim = true;
+      fields.shipping = 'Shipping is already refunded.';
+    }
   }
   if (Object.keys(fields).length) return { code: overClaim ? 'over_refund' : 'invalid_request', message: overClaim ? 'Part of that refund was already refunded.' : 'Check the lines to refund.', fields };
 

@@ -28,7 +28,7 @@ export function confirmationEmail(b: OrderBundle, orderUrl: string, teamName: st
     template: 'shop-order-confirmation',
     reason: { order: o.number, team: teamName },
     dedupeKey: `shop-confirmation-${o.id}`,
-    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', 'Receipt', ...receiptText(r, formatCad), '', ...receipt(b), '', 'Delivery:', dest, '', ...(nextSteps.length ? ['What happens next:', ...nextSteps.map((s) => `- ${s}`), ''] : []), `See your order: ${orderUrl}`, '', teamName].join('\n'),
+    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', 'Receipt', ...receiptText(r), '', ...receipt(b), '', 'Delivery:', dest, '', ...(nextSteps.length ? ['What happens next:', ...nextSteps.map((s) => `- ${s}`), ''] : []), `See your order: ${orderUrl}`, '', teamName].join('\n'),
   };
 }
 

@@ -1,4 +1,4 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
 import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpers/browser';
 import type { TestApp } from '../helpers/test-app';
