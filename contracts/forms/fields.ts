@@ -20,4 +20,13 @@ export const fields = {
   page: z.coerce.number().int().min(1).max(100000).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(25),
   cents: z.number({ error: 'Enter an amount in cents.' }).int('Amounts are whole cents.').min(0, 'Cannot be negative.').max(100_000_000),
+  // The one rule for a card token sent by the browser, for dues and the shop alike: the processor's single-use tokens
+  // (and its published test tokens) are short runs of letters, digits, `_`, `|` and `-`; anything else never reaches
+  // the processor.
+  cardToken: z
+    .string({ error: 'Choose a card.' })
+    .trim()
+    .min(3, 'Choose a card.')
+    .max(200, 'Not a card token.')
+    .regex(/^[A-Za-z0-9_|-]+$/, 'Not a card token.'),
 };

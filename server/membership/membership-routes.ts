@@ -2,7 +2,6 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { fields, parse } from '../platform/validate';
 import { requireSignedIn } from '../platform/require-role';
-import { cardToken } from '../payments/card-token';
 import type { PayerKeys, PaymentThrottle } from '../payments/payment-throttle';
 import type { SessionUser } from '../platform/roles';
 import type { MembershipService } from './membership-service';
@@ -33,12 +32,12 @@ const JoinSchema = z.object({
   profile: ProfileSchema,
   waiverVersion: z.string({ error: 'Accept the waiver.' }).min(1, 'Accept the waiver.').max(32),
   safetyCodeVersion: z.string().max(32).optional(),
-  paymentToken: cardToken,
+  paymentToken: fields.cardToken,
   autoRenew: z.boolean().optional(),
 });
 
 const RenewSchema = z.object({
-  paymentToken: cardToken.optional(),
+  paymentToken: fields.cardToken.optional(),
   planId: fields.id.optional(),
   waiverVersion: z.string().max(32).optional(),
   safetyCodeVersion: z.string().max(32).optional(),
@@ -73,7 +72,7 @@ export function membershipRoutes(service: MembershipService, throttle: PaymentTh
     res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.renew(req.user!, body), answered));
   });
   r.post('/auto-renew', requireSignedIn, async (req, res) => {
-    const body = parse(z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: cardToken.optional() }), req.body);
+    const body = parse(z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: fields.cardToken.optional() }), req.body);
     // Putting a card on file is checked by the processor too, so a card tester could use it: same throttle.
     res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.setAutoRenew(req.user!, body), answered));
   });
