@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { RosterQuery, RosterSortKey } from '../../contracts/membership/roster-schemas';
 import type { MembershipStatus } from './terms';
 
 type Db = Knex | Knex.Transaction;
@@ -104,17 +105,6 @@ export interface AuditRow {
 /** A roster line: the membership with its account e-mail, opt-out and plan. */
 export type RosterRow = MembershipRow & { email: string; marketing_opt_out: boolean; plan_code: string; plan_name: string };
 
-/** Roster filters as the staff table sends them. */
-export interface RosterQuery {
-  status?: MembershipStatus;
-  planId?: number;
-  certificationLevel?: string;
-  associationExpiresBefore?: string;
-  q?: string;
-  sort: 'memberNumber' | 'name' | 'termEnd' | 'status' | 'plan' | 'associationExpires';
-  dir: 'asc' | 'desc';
-}
-
 /** The day and grace the roster's status is computed for, so filters match what the table shows. */
 export interface AsOf {
   today: string;
@@ -127,7 +117,7 @@ const LIVE_STATUS =
   "WHEN m.renewal_failed_at IS NOT NULL OR m.term_end + ?::int < ?::date THEN 'lapsed' ELSE 'lapsing' END)";
 const liveBindings = (a: AsOf) => [a.today, a.graceDays, a.today];
 
-const SORT_COLUMNS: Record<Exclude<RosterQuery['sort'], 'status'>, string> = {
+const SORT_COLUMNS: Record<Exclude<RosterSortKey, 'status'>, string> = {
   memberNumber: 'm.member_number',
   name: 'm.legal_name',
   termEnd: 'm.term_end',
