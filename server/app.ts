@@ -21,7 +21,7 @@ import { csrfProtection } from './platform/csrf';
 import { DatabaseNotifications } from './platform/database-notifications';
 import { rotateSessionOnRoleChange } from './platform/session-rotation';
 import { apiNotFound, errorHandler } from './platform/error-handler';
-import type { Mount, Platform } from './platform/feature';
+import type { Mount, Platform } from './feature';
 import { cspNonce, hstsOverHttps, noStore, permissionsPolicy, securityHeaders } from './platform/security-headers';
 import { refuseUnstorableText } from './platform/text-guard';
 import { createSessionMiddleware } from './platform/session';

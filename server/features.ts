@@ -3,7 +3,7 @@ import { membershipFeature } from './membership/membership-feature';
 import { buildLogsFeature } from './build-logs/build-logs-feature';
 import { booksFeature } from './books/books-feature';
 import { launchesFeature } from './launches/launches-feature';
-import type { Feature, Platform } from './platform/feature';
+import type { Feature, Platform } from './feature';
 import { seoFeature } from './seo/seo-feature';
 import { shopFeature } from './shop/shop-feature';
 

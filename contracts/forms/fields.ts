@@ -20,4 +20,19 @@ export const fields = {
   page: z.coerce.number().int().min(1).max(100000).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(25),
   cents: z.number({ error: 'Enter an amount in cents.' }).int('Amounts are whole cents.').min(0, 'Cannot be negative.').max(100_000_000),
+  // A file the upload endpoint stored, referenced by its own path (or nothing).
+  uploadedImage: z
+    .string()
+    .regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Upload the image first, then use the address it returns.')
+    .nullish()
+    .transform((s) => s ?? null),
+  // The one rule for a card token sent by the browser, for dues and the shop alike: the processor's single-use tokens
+  // (and its published test tokens) are short runs of letters, digits, `_`, `|` and `-`; anything else never reaches
+  // the processor.
+  cardToken: z
+    .string({ error: 'Choose a card.' })
+    .trim()
+    .min(3, 'Choose a card.')
+    .max(200, 'Not a card token.')
+    .regex(/^[A-Za-z0-9_|-]+$/, 'Not a card token.'),
 };

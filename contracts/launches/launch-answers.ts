@@ -21,14 +21,20 @@ export interface LaunchView {
   rsvpCount: number;
 }
 
-/** One motor as Padside read it from its designation. */
+/** One motor as Padside read it from its designation (the server parses, stores and answers this shape). */
 export interface MotorView {
+  /** The designation as given, trimmed and upper-cased (`H128W-M`). */
   designation: string;
+  /** The total-impulse class: `1/4A`, `1/2A`, `A` ... `O`. */
   impulseClass: string;
   averageThrustN: number;
+  /** Seconds from burnout to the ejection charge; null when plugged or set by an adjustable delay with no number. */
   delayS: number | null;
+  /** No ejection charge (`-P`): a booster's upper end is open, a plugged motor's is sealed. */
   plugged: boolean;
+  /** The lower end of the class as classification tables print it (more than the class below's maximum). */
   totalImpulseMinNs: number;
+  /** The upper end of the class, inclusive. */
   totalImpulseMaxNs: number;
 }
 

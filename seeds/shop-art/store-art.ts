@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { Knex } from 'knex';
 import sharp from 'sharp';
-import type { ProductImage } from '../../server/shop/catalogue-repository';
+import type { ProductImage } from '../../contracts/shop/shop-answers';
 import type { ImageUploads } from '../../server/uploads/image-uploads';
 import type { ArtPiece } from './product-art';
 

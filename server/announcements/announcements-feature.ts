@@ -1,4 +1,4 @@
-import type { Feature, Platform } from '../platform/feature';
+import type { Feature, Platform } from '../feature';
 import { AnnouncementAudience } from './announcement-audience';
 import { announcementsPersonalData } from './announcements-personal-data';
 import { AnnouncementRepository } from './announcement-repository';

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { enqueueEmails, type CommercialEmail } from '../mail/outbox';
 import { SuppressionList } from '../mail/suppression-list';
-import type { Platform } from '../platform/feature';
+import type { Platform } from '../feature';
 import type { SettingsService } from '../settings/settings-service';
 import { ANNOUNCEMENT_SETTINGS } from './announcement-settings';
 import { commercialMail, type CommercialContent, type SenderIdentity } from './commercial-mail';

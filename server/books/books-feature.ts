@@ -1,4 +1,4 @@
-import type { Feature, Platform } from '../platform/feature';
+import type { Feature, Platform } from '../feature';
 import { BooksRepository } from './books-repository';
 import { dashboardRoutes, feeSettingsRoutes, reportRoutes } from './books-routes';
 import { BooksService } from './books-service';

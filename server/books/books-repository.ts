@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
-import type { DateRange } from './date-range';
+import type { DateRange } from '../../contracts/books/books-schemas';
+import type { MovementSource } from '../../contracts/labels/money-movements';
 
 /** Taxable amount and tax per tax and jurisdiction. */
 export interface TaxTotalRow {
@@ -12,12 +13,12 @@ export interface TaxTotalRow {
 /** Tax refunded, positive, per month, source, tax and jurisdiction. */
 export interface RefundTaxRow extends TaxTotalRow {
   month: string;
-  source: string;
+  source: MovementSource;
 }
 
 export interface RevenueRow {
   month: string;
-  source: string;
+  source: MovementSource;
   /** Money received, tax included. */
   grossCents: number;
   /** The tax inside `grossCents`. */
@@ -93,7 +94,7 @@ export class BooksRepository {
         this.db.raw('COALESCE(-SUM(t.taxable_cents), 0)::bigint AS taxable'),
         this.db.raw('COALESCE(-SUM(t.tax_cents), 0)::bigint AS tax'),
       );
-    return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source), code: String(r.code), jurisdiction: String(r.jurisdiction), taxableCents: Number(r.taxable), taxCents: Number(r.tax) }));
+    return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source) as MovementSource, code: String(r.code), jurisdiction: String(r.jurisdiction), taxableCents: Number(r.taxable), taxCents: Number(r.tax) }));
   }
 
   /** Money in and out per month and source; `taxCents` is the tax inside the money that came in. */
@@ -110,7 +111,7 @@ export class BooksRepository {
         this.db.raw('COALESCE(-SUM(m.gross_cents) FILTER (WHERE m.gross_cents < 0), 0)::bigint AS refunds'),
         this.db.raw('COALESCE(SUM(m.fee_cents), 0)::bigint AS fees'),
       );
-    return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source), grossCents: Number(r.gross), taxCents: Number(r.tax), refundsCents: Number(r.refunds), feesCents: Number(r.fees) }));
+    return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source) as MovementSource, grossCents: Number(r.gross), taxCents: Number(r.tax), refundsCents: Number(r.refunds), feesCents: Number(r.fees) }));
   }
 
   /**

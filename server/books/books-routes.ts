@@ -3,8 +3,8 @@ import { z } from 'zod';
 import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import type { BooksService } from './books-service';
-import { DateRangeQuery } from './date-range';
-import { FeePercentBody, fromFeePercent, toFeePercent } from './fee-percent';
+import { DateRangeQuery, FeePercentBody } from '../../contracts/books/books-schemas';
+import { fromFeePercent, toFeePercent } from './fee-percent';
 
 function sendCsv(res: import('express').Response, name: string): void {
   res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="${name}"` });

@@ -7,7 +7,9 @@ import { centsToDecimal, csvLines, toCsv, zonedHeader } from '../platform/csv';
 import type { SettingsService } from '../settings/settings-service';
 import { BooksRepository } from './books-repository';
 import type { DashboardSources } from './dashboard-sources';
-import { checkRange, type DateRange } from './date-range';
+import type { DateRange } from '../../contracts/books/books-schemas';
+import type { Dashboard, RevenueReport, SponsorValue, TaxReport } from '../../contracts/books/books-answers';
+import { checkRange } from './date-range';
 import { incomeRows, incomeTotals } from './income';
 import { PROCESSOR_FEES, type ProcessorFeeSettings } from './processor-fees';
 import { byAuthority, reportLines, unregisteredProvinceNotes } from './tax-report';
@@ -32,7 +34,7 @@ export class BooksService {
    * Tax per authority, per tax and jurisdiction: taxable sales net of refunds, collected, refunded, net collected.
    * Input tax credits (tax the team paid) are not in Padside; the page says so.
    */
-  async taxReport(range: DateRange) {
+  async taxReport(range: DateRange): Promise<TaxReport> {
     checkRange(range);
     const src = this.sources();
     const [collected, refunded, registrations, sales] = await Promise.all([
@@ -63,7 +65,7 @@ export class BooksService {
   }
 
   /** Gross received, tax collected, income net of tax, refunds, fees and net, by month and source, with totals. */
-  async revenue(range: DateRange) {
+  async revenue(range: DateRange): Promise<RevenueReport> {
     checkRange(range);
     const [sums, refunded] = await Promise.all([this.repo.revenue(range), this.repo.refundedTax(range)]);
     const rows = incomeRows(sums, refunded);
@@ -116,7 +118,7 @@ export class BooksService {
   }
 
   /** The cards' numbers, sales and dues net of tax; a number whose feature is not installed is null. */
-  async dashboard() {
+  async dashboard(): Promise<Dashboard> {
     const today = this.calendar.today();
     const monthStart = today.slice(0, 8) + '01';
     const src = this.sources();
@@ -149,7 +151,7 @@ export class BooksService {
   }
 
   /** Each sponsor's cash and in-kind value this season, or an empty list when the sponsors feature is not installed. */
-  sponsorValue() {
+  sponsorValue(): Promise<SponsorValue> {
     return this.sources().sponsorValue?.() ?? Promise.resolve({ season: '', items: [] });
   }
 

@@ -1,10 +1,5 @@
-import { z } from 'zod';
+import type { DateRange } from '../../contracts/books/books-schemas';
 import { badRequest } from '../platform/app-error';
-import { fields } from '../platform/validate';
-
-/** A report period: whole days from `from` to `to` inclusive, in the club's time zone. */
-export const DateRangeQuery = z.object({ from: fields.date, to: fields.date });
-export type DateRange = z.infer<typeof DateRangeQuery>;
 
 const MAX_DAYS = 3700;
 

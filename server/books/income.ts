@@ -1,28 +1,11 @@
 /** Income net of tax: pure arithmetic over the repository's monthly sums. */
+import type { IncomeFigures, RevenueRow } from '../../contracts/books/books-answers';
 
 /** A month and source as the repository sums it; `taxCents` is the tax inside the money received. */
-export interface MonthSums {
-  month: string;
-  source: string;
-  grossCents: number;
-  taxCents: number;
-  refundsCents: number;
-  feesCents: number;
-}
-
-/** One row of the income report. Tax collected is owed to the tax authorities, so it is not income. */
-export interface IncomeRow extends MonthSums {
-  /** Gross received minus the tax inside it. */
-  incomeCents: number;
-  /** The tax inside the refunds (given back to the buyer, no longer owed). */
-  refundedTaxCents: number;
-  /** Refunds minus their tax: the income given back. */
-  refundsNetCents: number;
-  /** Income net of tax, minus refunds net of tax, minus processor fees. */
-  netCents: number;
-}
-
-export type IncomeTotals = Omit<IncomeRow, 'month' | 'source'>;
+export type MonthSums = Pick<RevenueRow, 'month' | 'source' | 'grossCents' | 'taxCents' | 'refundsCents' | 'feesCents'>;
+/** One row of the income report. */
+export type IncomeRow = RevenueRow;
+export type IncomeTotals = IncomeFigures;
 
 /** Adds income, refunds and net, all net of tax, to each month and source. */
 export function incomeRows(sums: MonthSums[], refundedTax: { month: string; source: string; taxCents: number }[]): IncomeRow[] {

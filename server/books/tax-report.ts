@@ -1,4 +1,5 @@
 /** The tax report's arithmetic: pure, over rows the repository already summed. */
+import type { TaxAuthority, TaxReportLine, UnregisteredProvince } from '../../contracts/books/books-answers';
 
 /** Tax collected or refunded per tax and jurisdiction (positive amounts). */
 export interface TaxAmounts {
@@ -6,29 +7,6 @@ export interface TaxAmounts {
   jurisdiction: string;
   taxableCents: number;
   taxCents: number;
-}
-
-/** One line of the report: a tax in one jurisdiction. */
-export interface TaxReportLine {
-  code: string;
-  jurisdiction: string;
-  /** Taxable sales net of refunds. */
-  taxableCents: number;
-  /** Tax collected on sales and other taxed income. */
-  taxCents: number;
-  /** Tax given back by refunds. */
-  refundedCents: number;
-  /** Net tax collected: collected minus refunded (input tax credits are not in Padside). */
-  netCents: number;
-}
-
-/** The lines one tax authority receives a return for. */
-export interface AuthorityBlock {
-  /** 'CA' for the federal agency, else the province's code. */
-  authority: string;
-  name: string;
-  lines: TaxReportLine[];
-  totals: Omit<TaxReportLine, 'code' | 'jurisdiction'>;
 }
 
 const FEDERAL_CODES = ['GST', 'HST'];
@@ -72,8 +50,8 @@ export function reportLines(collected: TaxAmounts[], refunded: TaxAmounts[]): Ta
 }
 
 /** The federal agency first, then each province in code order, each with its totals. */
-export function byAuthority(lines: TaxReportLine[]): AuthorityBlock[] {
-  const blocks = new Map<string, AuthorityBlock>();
+export function byAuthority(lines: TaxReportLine[]): TaxAuthority[] {
+  const blocks = new Map<string, TaxAuthority>();
   for (const l of lines) {
     const a = authorityOf(l.code, l.jurisdiction);
     if (!blocks.has(a.authority)) blocks.set(a.authority, { ...a, lines: [], totals: { taxableCents: 0, taxCents: 0, refundedCents: 0, netCents: 0 } });
@@ -103,7 +81,7 @@ export interface ProvinceSales {
 }
 
 /** A note for each province with its own sales tax that the seller does not collect, where sales went in the period. */
-export function unregisteredProvinceNotes(sales: ProvinceSales[], registrations: string[]) {
+export function unregisteredProvinceNotes(sales: ProvinceSales[], registrations: string[]): UnregisteredProvince[] {
   return sales
     .filter((s) => PROVINCIAL_SALES_TAX[s.province] && !registrations.includes(s.province) && s.orders > 0)
     .sort((a, b) => a.province.localeCompare(b.province))

@@ -1,4 +1,4 @@
-import type { Feature, Platform } from '../platform/feature';
+import type { Feature, Platform } from '../feature';
 import { CreditService } from '../sponsors/credit-service';
 import { sponsorPersonalData } from '../sponsors/sponsor-personal-data';
 import { SponsorRepository } from '../sponsors/sponsor-repository';

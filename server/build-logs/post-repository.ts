@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
+import type { AdminPost } from '../../contracts/build-logs/post-answers';
+import type { PostStatus } from '../../contracts/labels/post-states';
 
 type Db = Knex | Knex.Transaction;
-
-export type PostStatus = 'draft' | 'scheduled' | 'published';
 
 export interface PostRow {
   id: string;
@@ -23,17 +23,10 @@ export interface PostRow {
   updated_at: Date;
 }
 
-export interface PostWrite {
-  slug: string;
-  title: string;
-  summary: string;
-  coverUrl: string | null;
-  markdown: string;
-  tags: string[];
-  status: PostStatus;
+/** The editable fields of a post as the editor form holds them, with instants as dates and the editor's hazard choice. */
+export interface PostWrite extends Pick<AdminPost, 'slug' | 'title' | 'summary' | 'coverUrl' | 'markdown' | 'tags' | 'status' | 'membersOnly'> {
   publishAt: Date | null;
   publishedAt: Date | null;
-  membersOnly: boolean;
   hazardRequested: boolean;
 }
 

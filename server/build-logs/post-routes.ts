@@ -3,14 +3,15 @@ import { z } from 'zod';
 import type { Clock } from '../platform/clock';
 import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
-import { AdminListQuery, PostBody, PreviewBody, PublicListQuery } from './post-schemas';
+import { AdminPostListQuery, PostListQuery } from '../../contracts/build-logs/post-schemas';
+import { PostBody, PreviewBody } from './post-schemas';
 import type { PostService } from './post-service';
 
 /** GET /api/posts, /api/posts/tags, /api/posts/:slug (public; members-only bodies withheld). */
 export function postPublicRoutes(posts: PostService): Router {
   const r = Router();
   r.get('/', async function listPosts(req, res) {
-    res.json(await posts.publicPage(parse(PublicListQuery, req.query)));
+    res.json(await posts.publicPage(parse(PostListQuery, req.query)));
   });
   r.get('/tags', async function listTags(_req, res) {
     res.json({ items: await posts.tags() });
@@ -27,7 +28,7 @@ export function postAdminRoutes(posts: PostService, clock: Clock): Router {
   const r = Router();
   r.use(requireRole('editor', 'admin'));
   r.get('/', async function listPostsAdmin(req, res) {
-    res.json(await posts.adminPage(parse(AdminListQuery, req.query)));
+    res.json(await posts.adminPage(parse(AdminPostListQuery, req.query)));
   });
   r.post('/preview', async function previewPost(req, res) {
     res.json(await posts.preview(parse(PreviewBody, req.body)));

@@ -1,46 +1,6 @@
-import { z } from 'zod';
-import { uploadedImage } from '../sponsors/sponsor-schemas';
-import { fields } from '../platform/validate';
+import { PostBody as PostFields, PostPreviewBody } from '../../contracts/build-logs/post-schemas';
 import { refuseUnrenderable } from '../markdown/markdown-field';
 
-const tag = z.string().trim().toLowerCase().regex(/^[a-z0-9][a-z0-9-]{0,29}$/, 'Tags are lower-case words or hyphenated words, up to 30 characters.');
-
-export const PostBody = z.object({
-  title: z.string({ error: 'Title is required.' }).trim().min(1, 'Title is required.').max(160, 'Use at most 160 characters.'),
-  slug: z
-    .string()
-    .trim()
-    .regex(/^[a-z0-9][a-z0-9-]{0,119}$/, 'Use lower-case letters, digits and hyphens.')
-    .optional()
-    .or(z.literal('').transform(() => undefined)),
-  markdown: z.string({ error: 'Write the post first.' }).min(1, 'Write the post first.').max(200_000, 'The post is too long (200,000 characters at most).').superRefine(refuseUnrenderable),
-  summary: z.string().trim().max(400, 'Use at most 400 characters.').optional(),
-  coverUrl: uploadedImage,
-  tags: z.array(tag, { error: 'Send a list of tags.' }).max(12, 'At most 12 tags.').optional(),
-  membersOnly: z.boolean().optional(),
-  status: z.enum(['draft', 'scheduled', 'published'], { error: 'Status is draft, scheduled or published.' }),
-  publishAt: z.iso
-    .datetime({ offset: true, error: 'Use a date and time like 2026-12-24T18:00:00Z.' })
-    .nullish()
-    .transform((s) => (s ? new Date(s) : null)),
-  credits: z.array(fields.id, { error: 'Send a list of sponsor ids.' }).max(20).optional(),
-  hazardNotice: z.boolean().optional(),
-});
-
-export const PreviewBody = z.object({
-  markdown: z.string({ error: 'Send the Markdown to preview.' }).max(200_000, 'The post is too long (200,000 characters at most).').superRefine(refuseUnrenderable),
-  title: z.string().max(160).optional(),
-  summary: z.string().max(400).optional(),
-  tags: z.array(z.string().max(30)).max(12).optional(),
-});
-
-export const PublicListQuery = z.object({ tag: tag.optional(), page: fields.page, pageSize: z.coerce.number().int().min(1).max(50).default(10) });
-
-export const AdminListQuery = z.object({
-  status: z.enum(['draft', 'scheduled', 'published']).optional(),
-  q: z.string().trim().max(100).optional(),
-  sort: z.enum(['updated', 'title', 'published']).default('updated'),
-  dir: z.enum(['asc', 'desc']).default('desc'),
-  page: fields.page,
-  pageSize: fields.pageSize,
-});
+// The contract's bodies, with the one check only the server can make: Markdown its renderer cannot render is refused.
+export const PostBody = PostFields.extend({ markdown: PostFields.shape.markdown.superRefine(refuseUnrenderable) });
+export const PreviewBody = PostPreviewBody.extend({ markdown: PostPreviewBody.shape.markdown.superRefine(refuseUnrenderable) });

@@ -1,11 +1,13 @@
 import type { Knex } from 'knex';
+import type { AdminPost, AdminPostRow, PostDetail, PostPage, PostPreview, PostSummary } from '../../contracts/build-logs/post-answers';
 import { creditMarkers, creditMarkerSlugs, renderMarkdown } from '../markdown/render-markdown';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { Role } from '../platform/roles';
 import type { CreditService } from '../sponsors/credit-service';
 import type { SponsorRepository } from '../sponsors/sponsor-repository';
 import { needsHazardNotice } from './hazard-rule';
-import type { PostRepository, PostRow, PostStatus, PostWrite } from './post-repository';
+import type { PostStatus } from '../../contracts/labels/post-states';
+import type { PostRepository, PostRow, PostWrite } from './post-repository';
 import { slugify, uniqueSlug } from '../platform/slug';
 import type { StoredImage } from '../uploads/image-uploads';
 
@@ -85,7 +87,7 @@ export class PostService {
   }
 
   /** The editor's live preview, through the same pipeline as the public page. */
-  async preview(input: { markdown: string; title?: string; summary?: string; tags?: string[] }): Promise<{ html: string; hazardNotice: boolean; unknownSponsors: string[] }> {
+  async preview(input: { markdown: string; title?: string; summary?: string; tags?: string[] }): Promise<PostPreview> {
     const slugs = creditMarkerSlugs(input.markdown);
     const found = await this.sponsors.bySlugs(slugs);
     return {
@@ -96,7 +98,7 @@ export class PostService {
   }
 
   /** One page of published posts, newest first, optionally for one tag, with each cover's stored description for its alt text. */
-  async publicPage(opts: { tag?: string; page: number; pageSize: number }) {
+  async publicPage(opts: { tag?: string; page: number; pageSize: number }): Promise<PostPage<PostSummary>> {
     const { items, total } = await this.posts.publishedPage(opts);
     const covers = await this.describeImages(items.flatMap((p) => (p.cover_url ? [p.cover_url] : [])));
     return { items: items.map((p) => ({ slug: p.slug, title: p.title, summary: p.summary, coverUrl: p.cover_url, cover: coverOf(covers, p.cover_url), publishedAt: p.published_at!.toISOString(), tags: p.tags, membersOnly: p.members_only })), total, page: opts.page, pageSize: opts.pageSize };
@@ -108,7 +110,7 @@ export class PostService {
   }
 
   /** A published post; members-only bodies are withheld (html null) from callers without a reading role. */
-  async publicPost(slug: string, roles: readonly Role[]) {
+  async publicPost(slug: string, roles: readonly Role[]): Promise<PostDetail> {
     const p = await this.posts.publishedBySlug(slug);
     if (!p) throw notFound('No build log at this address.');
     const credits = (await this.posts.creditsOf([Number(p.id)])).get(Number(p.id)) ?? [];
@@ -132,13 +134,13 @@ export class PostService {
   }
 
   /** One page of every post whatever its state, for the editors' table. */
-  async adminPage(opts: Parameters<PostRepository['adminPage']>[0]) {
+  async adminPage(opts: Parameters<PostRepository['adminPage']>[0]): Promise<PostPage<AdminPostRow>> {
     const { items, total } = await this.posts.adminPage(opts);
     return { items: items.map((p) => ({ id: Number(p.id), slug: p.slug, title: p.title, status: p.status, publishAt: p.publish_at?.toISOString() ?? null, publishedAt: p.published_at?.toISOString() ?? null, updatedAt: p.updated_at.toISOString(), membersOnly: p.members_only, tags: p.tags })), total, page: opts.page, pageSize: opts.pageSize };
   }
 
   /** One post of any state with its credited sponsors, in the shape the editor form loads; a 404 for an unknown id. */
-  async adminGet(id: number) {
+  async adminGet(id: number): Promise<AdminPost> {
     const p = await this.posts.byId(id);
     if (!p) throw notFound('No such post.');
     const credits = (await this.posts.creditsOf([id])).get(id) ?? [];

@@ -7,23 +7,10 @@
  * Classes double per letter (NFPA 1125 motor classification, from memory): A is more than 1.25 up to 2.50 N s,
  * B up to 5, C up to 10 ... O up to 40,960; below A, 1/2A up to 1.25 and 1/4A up to 0.625.
  */
+import type { MotorView } from '../../contracts/launches/launch-answers';
 
-/** One motor as read from its designation. */
-export interface MotorDesignation {
-  /** The designation as given, trimmed and upper-cased (`H128W-M`). */
-  designation: string;
-  /** The total-impulse class: `1/4A`, `1/2A`, `A` ... `O`. */
-  impulseClass: string;
-  averageThrustN: number;
-  /** Seconds from burnout to the ejection charge; null when plugged or set by an adjustable delay with no number. */
-  delayS: number | null;
-  /** No ejection charge (`-P`): a booster's upper end is open, a plugged motor's is sealed. */
-  plugged: boolean;
-  /** The lower end of the class as classification tables print it (more than the class below's maximum). */
-  totalImpulseMinNs: number;
-  /** The upper end of the class, inclusive. */
-  totalImpulseMaxNs: number;
-}
+/** One motor as read from its designation: the shape the flight answers show, written once in contracts. */
+export type MotorDesignation = MotorView;
 
 const LETTERS = 'ABCDEFGHIJKLMNO';
 

@@ -1,19 +1,12 @@
 import type { Knex } from 'knex';
 import type { FlightEvent, FlightSeriesPoint, FlightSummary } from '../../contracts/flights/flight-data';
 import type { FlightOutcome } from '../../contracts/labels/launch-statuses';
+import type { MotorView } from '../../contracts/launches/launch-answers';
 
 type Db = Knex | Knex.Transaction;
 
 /** A motor as stored on a card: what Padside read from its designation. */
-export interface StoredMotor {
-  designation: string;
-  impulseClass: string;
-  averageThrustN: number;
-  delayS: number | null;
-  plugged: boolean;
-  totalImpulseMinNs: number;
-  totalImpulseMaxNs: number;
-}
+export type StoredMotor = MotorView;
 
 /** A flight card as stored, with its flyer's and launch's names. */
 export interface FlightRow {

@@ -1,6 +1,6 @@
 import { CheckInTokens } from '../membership/check-in-token';
 import { MembershipRepository } from '../membership/membership-repository';
-import type { Feature, Platform } from '../platform/feature';
+import type { Feature, Platform } from '../feature';
 import { flightAdminRoutes, flightRoutes, logbookRoutes } from './flight-routes';
 import { launchesPersonalData } from './launches-personal-data';
 import { FlightRepository } from './flight-repository';

@@ -5,33 +5,11 @@ import { requireRole } from '../platform/require-role';
 import type { DuesRefunds } from './dues-refunds';
 import type { MemberAdminService } from './member-admin-service';
 import type { FlyingStatusService } from './flying-status-service';
-import type { RosterQuery } from './membership-repository';
-import { MembershipSettingsInputSchema } from './membership-settings';
-
-// Strict: these filters choose whom an e-mail goes to and what an export holds, so a misspelt key must not
-// quietly widen the choice to every member.
-const RosterSchema = z.strictObject({
-  status: z.enum(['pending', 'active', 'lapsing', 'lapsed']).optional().or(z.literal('').transform(() => undefined)),
-  planId: fields.id.optional().or(z.literal('').transform(() => undefined)),
-  certificationLevel: z.string().trim().max(16).optional().transform((v) => v || undefined),
-  associationExpiresBefore: fields.date.optional().or(z.literal('').transform(() => undefined)),
-  q: z.string().trim().max(100).optional().transform((v) => v || undefined),
-  sort: z.enum(['memberNumber', 'name', 'termEnd', 'status', 'plan', 'associationExpires']).default('memberNumber'),
-  dir: z.enum(['asc', 'desc']).default('asc'),
-  page: fields.page,
-  pageSize: fields.pageSize,
-});
-
-const EmailSchema = z.strictObject({
-  filters: RosterSchema.default(RosterSchema.parse({})),
-  subject: z.string().trim().min(1, 'Subject is required.').max(200),
-  text: z.string().trim().min(1, 'Message is required.').max(20000),
-  // News is promotional and follows the consent rules; club business (dues, launches replied to) is transactional.
-  purpose: z.enum(['news', 'club-business'], { error: 'Choose news or club business.' }).default('news'),
-});
+import { RosterEmailBody, RosterQuerySchema, type RosterQuery } from '../../contracts/membership/roster-schemas';
+import { MembershipSettingsInputSchema } from '../../contracts/membership/club-rules-schemas';
 
 const rosterQuery = (value: unknown): { query: RosterQuery; page: number; pageSize: number } => {
-  const { page, pageSize, ...query } = parse(RosterSchema, value);
+  const { page, pageSize, ...query } = parse(RosterQuerySchema, value);
   return { query, page, pageSize };
 };
 
@@ -110,7 +88,7 @@ export function memberAdminRoutes(service: MemberAdminService, refunds: DuesRefu
     res.json(await service.summary());
   });
   r.post('/email', async function emailRoster(req, res) {
-    const body = parse(EmailSchema, req.body);
+    const body = parse(RosterEmailBody, req.body);
     const { page: _page, pageSize: _pageSize, ...filters } = body.filters;
     res.json(await service.emailRoster(filters, { subject: body.subject, text: body.text }, body.purpose));
   });

@@ -1,6 +1,6 @@
 import { commercialMailer } from '../announcements/commercial-mailer';
 import { UserRepository } from '../auth/user-repository';
-import type { Feature, Platform } from '../platform/feature';
+import type { Feature, Platform } from '../feature';
 import { CardDues } from './card-dues';
 import { CardOnFile } from './card-on-file';
 import { CheckInTokens } from './check-in-token';

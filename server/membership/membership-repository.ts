@@ -104,17 +104,6 @@ export interface AuditRow {
 /** A roster line: the membership with its account e-mail, opt-out and plan. */
 export type RosterRow = MembershipRow & { email: string; marketing_opt_out: boolean; plan_code: string; plan_name: string };
 
-/** Roster filters as the staff table sends them. */
-export interface RosterQuery {
-  status?: MembershipStatus;
-  planId?: number;
-  certificationLevel?: string;
-  associationExpiresBefore?: string;
-  q?: string;
-  sort: 'memberNumber' | 'name' | 'termEnd' | 'status' | 'plan' | 'associationExpires';
-  dir: 'asc' | 'desc';
-}
-
 /** The day and grace the roster's status is computed for, so filters match what the table shows. */
 export interface AsOf {
   today: string;

@@ -2,7 +2,6 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { fields, parse } from '../platform/validate';
 import { requireSignedIn } from '../platform/require-role';
-import { cardToken } from '../payments/card-token';
 import type { PayerKeys, PaymentThrottle } from '../payments/payment-throttle';
 import type { SessionUser } from '../platform/roles';
 import type { MemberRecordService } from './member-record-service';
@@ -34,12 +33,12 @@ const JoinSchema = z.object({
   profile: ProfileSchema,
   waiverVersion: z.string({ error: 'Accept the waiver.' }).min(1, 'Accept the waiver.').max(32),
   safetyCodeVersion: z.string().max(32).optional(),
-  paymentToken: cardToken,
+  paymentToken: fields.cardToken,
   autoRenew: z.boolean().optional(),
 });
 
 const RenewSchema = z.object({
-  paymentToken: cardToken.optional(),
+  paymentToken: fields.cardToken.optional(),
   planId: fields.id.optional(),
   waiverVersion: z.string().max(32).optional(),
   safetyCodeVersion: z.string().max(32).optional(),
@@ -51,7 +50,7 @@ const QuoteSchema = z.object({ planId: fields.id, on: fields.date.optional() });
 // The member's own corrections between renewals: never the name or date of birth, which staff change.
 const ProfileEditSchema = ProfileSchema.pick({ address: true, phone: true, emergencyContact: true, associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial();
 
-const AutoRenewSchema = z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: cardToken.optional() });
+const AutoRenewSchema = z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: fields.cardToken.optional() });
 
 /** The member's side: plans, quote, join, renew, own membership, auto-renew, card. */
 export function membershipRoutes(service: MembershipService, record: MemberRecordService, throttle: PaymentThrottle): Router {

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
-import type { AsOf, RosterQuery, RosterRow } from './membership-repository';
+import type { RosterQuery, RosterSortKey } from '../../contracts/membership/roster-schemas';
+import type { AsOf, RosterRow } from './membership-repository';
 import type { MembershipStatus } from './terms';
 
 type Db = Knex | Knex.Transaction;
@@ -10,7 +11,7 @@ const LIVE_STATUS =
   "WHEN m.renewal_failed_at IS NOT NULL OR m.term_end + ?::int < ?::date THEN 'lapsed' ELSE 'lapsing' END)";
 const liveBindings = (a: AsOf) => [a.today, a.graceDays, a.today];
 
-const SORT_COLUMNS: Record<Exclude<RosterQuery['sort'], 'status'>, string> = {
+const SORT_COLUMNS: Record<Exclude<RosterSortKey, 'status'>, string> = {
   memberNumber: 'm.member_number',
   name: 'm.legal_name',
   termEnd: 'm.term_end',

@@ -1,4 +1,4 @@
-import type { Feature, Platform } from '../platform/feature';
+import type { Feature, Platform } from '../feature';
 import { robotsRoutes, sitemapRoutes } from './seo-routes';
 import { SitemapRepository } from './sitemap-repository';
 

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { ProductImage, SizeChart } from '../../contracts/shop/shop-answers';
 
 export interface ProductRow {
   id: number;
@@ -13,19 +14,6 @@ export interface ProductRow {
   max_per_order: number;
   active: boolean;
   position: number;
-}
-export interface SizeChart {
-  columns: string[];
-  rows: string[][];
-}
-export interface ProductImage {
-  url: string;
-  /** A 480 px wide WebP copy. */
-  thumbnailUrl: string;
-  alt: string;
-  /** The full image's size in pixels, so pages reserve its space before it loads. */
-  width?: number;
-  height?: number;
 }
 export interface VariantRow {
   id: number;

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { z } from 'zod';
+import type { ProductDetail } from '../../contracts/shop/shop-answers';
 import { refuseUnrenderable } from '../markdown/markdown-field';
 import { renderMarkdown } from '../markdown/render-markdown';
 import { badRequest, conflict, notFound } from '../platform/app-error';
@@ -87,7 +88,7 @@ export class CatalogueService {
     return { ...this.detail(b), active: b.product.active, description: b.product.description_md };
   }
 
-  private detail(b: ProductBundle, now = this.clock.now()) {
+  private detail(b: ProductBundle, now = this.clock.now()): ProductDetail {
     return { ...productView(b, now), descriptionHtml: renderMarkdown(b.product.description_md) };
   }
 

@@ -11,18 +11,14 @@ import type { SettingsService } from '../settings/settings-service';
 import type { OrderGuide } from './order-guide';
 import type { OrderLinks } from './order-links';
 import type { OrderBundle, OrderRepository } from './order-repository';
+import type { OrderRequest } from '../../contracts/shop/shop-schemas';
 import type { StockRepository } from './stock-repository';
-import type { QuoteRequest, QuoteService } from './quote-service';
+import type { QuoteService } from './quote-service';
 import type { ReceiptService } from './receipt-service';
 import { confirmationEmail } from './shop-emails';
 
 /** How long a payment attempt may stay unanswered before reconciliation settles it (common practice, no source). */
 export const RECONCILE_AFTER_MS = 10 * 60_000;
-
-export interface PlaceOrderRequest extends QuoteRequest {
-  email: string;
-  paymentToken: string;
-}
 
 /** What a payment attempt came to, for the buyer. */
 export type PaymentOutcome = { status: 'paid' | 'pending'; bundle: OrderBundle; message?: string };
@@ -48,7 +44,7 @@ export class CheckoutService {
    * Quotes, reserves the units and claims the first payment attempt in one transaction (409 sold_out when they no
    * longer fit), then charges, outside any transaction.
    */
-  async placeOrder(req: PlaceOrderRequest, user: SessionUser | null): Promise<PaymentOutcome> {
+  async placeOrder(req: OrderRequest, user: SessionUser | null): Promise<PaymentOutcome> {
     const now = this.clock.now();
     const quote = await this.quotes.quote(req, user?.roles ?? [], now);
     const { id, number } = await this.db.transaction(async (trx) => {

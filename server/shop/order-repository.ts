@@ -1,8 +1,9 @@
 import type { Knex } from 'knex';
+import type { OrderStatus } from '../../contracts/labels/order-statuses';
+import type { OrderRequest } from '../../contracts/shop/shop-schemas';
+import type { OrderFilter, OrderSortKey } from '../../contracts/shop/staff-order-schemas';
 import type { RunRow } from './catalogue-repository';
-import type { Quote, QuoteRequest } from './quote-service';
-
-export type OrderStatus = 'pending' | 'paid' | 'failed' | 'packed' | 'shipped';
+import type { PricedQuote } from './priced-quote';
 
 export interface OrderRow {
   id: number;
@@ -80,17 +81,11 @@ export interface OrderBundle {
   refunds: RefundRow[];
 }
 
-export interface OrderFilter {
-  /** `placed`: every order but never-paid attempts (status failed), the console's default view. */
-  status?: OrderStatus | 'placed';
-  runId?: number;
-  from?: string;
-  to?: string;
-  q?: string;
-  timeZone: string;
-}
+/** The staff table's filters, and the club's time zone their days are in. */
+export type ZonedOrderFilter = OrderFilter & { timeZone: string };
 
-export const ORDER_SORTS = { created: 'o.created_at', number: 'o.number', email: 'o.email', total: 'o.total_cents', status: 'o.status' } as const;
+/** The column behind each sort key the staff table offers. */
+const ORDER_SORTS: Record<OrderSortKey, string> = { created: 'o.created_at', number: 'o.number', email: 'o.email', total: 'o.total_cents', status: 'o.status' };
 
 type Db = Knex | Knex.Transaction;
 const fix = (r: Record<string, unknown>): OrderRow => ({ ...(r as unknown as OrderRow), id: Number(r.id), user_id: r.user_id === null ? null : Number(r.user_id), priced_on: r.priced_on_text as string });
@@ -105,7 +100,7 @@ export class OrderRepository {
    * Inserts a pending order from a quote with its first payment attempt already claimed (the charge follows the
    * commit); returns its id and number.
    */
-  async insert(trx: Knex.Transaction, q: Quote, req: QuoteRequest & { email: string }, userId: number | null, now: Date): Promise<{ id: number; number: string }> {
+  async insert(trx: Knex.Transaction, q: PricedQuote, req: Omit<OrderRequest, 'paymentToken'>, userId: number | null, now: Date): Promise<{ id: number; number: string }> {
     const [row] = await trx('shop_orders')
       .insert({
         payment_attempts: 1,
@@ -226,7 +221,7 @@ export class OrderRepository {
     return (await this.db('shop_orders').where('status', 'pending').where((q) => q.where('last_attempt_at', '<', before).orWhereNull('last_attempt_at')).orderBy('id').limit(100).pluck('id')).map(Number);
   }
 
-  private filtered(f: OrderFilter) {
+  private filtered(f: ZonedOrderFilter) {
     const q = this.db('shop_orders as o');
     if (f.status === 'placed') q.whereNot('o.status', 'failed');
     else if (f.status) q.where('o.status', f.status);
@@ -241,18 +236,18 @@ export class OrderRepository {
   }
 
   /** One page of orders, sorted on the server. */
-  async page(f: OrderFilter, sort: keyof typeof ORDER_SORTS, dir: 'asc' | 'desc', page: number, pageSize: number): Promise<{ items: (OrderRow & { units: number })[]; total: number }> {
+  async page(f: ZonedOrderFilter, sort: OrderSortKey, dir: 'asc' | 'desc', page: number, pageSize: number): Promise<{ items: (OrderRow & { units: number })[]; total: number }> {
     const [{ count }] = await this.filtered(f).count<{ count: string }[]>('* as count');
     const rows = await this.rowsFor(f, sort, dir).limit(pageSize).offset((page - 1) * pageSize);
     return { items: rows.map(withUnits), total: Number(count) };
   }
 
   /** Every matching order (CSV export), at most 10,000. */
-  async all(f: OrderFilter, sort: keyof typeof ORDER_SORTS, dir: 'asc' | 'desc'): Promise<(OrderRow & { units: number })[]> {
+  async all(f: ZonedOrderFilter, sort: OrderSortKey, dir: 'asc' | 'desc'): Promise<(OrderRow & { units: number })[]> {
     return (await this.rowsFor(f, sort, dir).limit(10000)).map(withUnits);
   }
 
-  private rowsFor(f: OrderFilter, sort: keyof typeof ORDER_SORTS, dir: 'asc' | 'desc') {
+  private rowsFor(f: ZonedOrderFilter, sort: OrderSortKey, dir: 'asc' | 'desc') {
     return this.filtered(f)
       .select('o.*', this.db.raw("to_char(o.priced_on, 'YYYY-MM-DD') as priced_on_text"), this.db.raw('(SELECT coalesce(sum(quantity), 0)::int FROM shop_order_items WHERE order_id = o.id) as units'))
       .orderBy(ORDER_SORTS[sort], dir)

@@ -1,18 +1,19 @@
+import type { Order } from '../../contracts/shop/shop-answers';
 import { formatRate } from './tax';
 import type { OrderBundle } from './order-repository';
 
-/** An order as its buyer sees it. */
-export function orderJson(b: OrderBundle) {
+/** An order as its buyer sees it; staff views add `staffOrderFields`. */
+export function orderJson(b: OrderBundle): Order {
   const o = b.order;
   return {
     id: o.id,
     number: o.number,
     status: o.status,
     email: o.email,
-    createdAt: o.created_at,
-    paidAt: o.paid_at,
-    packedAt: o.packed_at,
-    shippedAt: o.shipped_at,
+    createdAt: o.created_at.toISOString(),
+    paidAt: o.paid_at?.toISOString() ?? null,
+    packedAt: o.packed_at?.toISOString() ?? null,
+    shippedAt: o.shipped_at?.toISOString() ?? null,
     shipTo: { name: o.ship_name, line1: o.ship_line1, line2: o.ship_line2, city: o.ship_city, province: o.ship_province, postalCode: o.ship_postal_code, country: o.ship_country },
     shippingMethod: { code: o.shipping_code, name: o.shipping_name },
     carrier: o.carrier,
@@ -26,23 +27,7 @@ export function orderJson(b: OrderBundle) {
     taxCents: o.tax_cents,
     totalCents: o.total_cents,
     refundedCents: o.refunded_cents,
-    currency: 'CAD' as const,
+    currency: 'CAD',
     paymentMessage: o.status === 'pending' || o.status === 'failed' ? o.payment_message : null,
-  };
-}
-
-/** The same order with what staff need besides: weight, pricing day, the charge, disputes and refunds. */
-export function orderJsonForStaff(b: OrderBundle) {
-  const o = b.order;
-  return {
-    ...orderJson(b),
-    weightGrams: o.weight_grams,
-    pricedOn: o.priced_on,
-    chargeId: o.charge_id,
-    paidOutsideProcessor: o.paid_outside_processor,
-    paymentAttempts: o.payment_attempts,
-    disputedAt: o.disputed_at,
-    disputeReason: o.dispute_reason,
-    refunds: b.refunds.map((r) => ({ id: r.id, amountCents: r.amount_cents, restocked: r.restocked, origin: r.origin, createdAt: r.created_at })),
   };
 }

@@ -1,16 +1,4 @@
-/** Order arithmetic before tax: pure, every price and rule passed in. */
-
-/** One weight bracket of a shipping method: up to `maxGrams` (null = any weight) costs `priceCents`. */
-export interface WeightBracket {
-  maxGrams: number | null;
-  priceCents: number;
-}
-
-/** The price of shipping `grams`, or null when the parcel is heavier than every bracket. */
-export function shippingFor(grams: number, brackets: WeightBracket[]): number | null {
-  const sorted = [...brackets].sort((a, b) => (a.maxGrams ?? Infinity) - (b.maxGrams ?? Infinity));
-  return sorted.find((b) => b.maxGrams === null || grams <= b.maxGrams)?.priceCents ?? null;
-}
+/** Order arithmetic before tax: pure, every price and rule passed in (the shipping rule is contracts/shop/shipping-price.ts). */
 
 /** A percentage of an amount, rounded half-up to the cent. */
 export function percentOf(cents: number, percent: number): number {

@@ -1,22 +1,6 @@
+import type { Product } from '../../contracts/shop/shop-answers';
 import type { ProductBundle } from './catalogue-repository';
-import { effectiveRunState, type RunState } from './run-state';
-
-/** A product as the storefront and the API show it. */
-export interface ProductView {
-  id: number;
-  slug: string;
-  name: string;
-  priceCents: number;
-  currency: 'CAD';
-  weightGrams: number;
-  /** Units of this product one order may hold. */
-  maxPerOrder: number;
-  images: { url: string; thumbnailUrl: string; alt: string; width?: number; height?: number }[];
-  sizeChart: { columns: string[]; rows: string[][] } | null;
-  orderable: boolean;
-  run: { id: number; name: string; state: RunState; cap: number; remaining: number; opensAt: string; closesAt: string } | null;
-  variants: { id: number; sku: string; label: string; priceCents: number; weightGrams: number; remaining: number }[];
-}
+import { effectiveRunState } from './run-state';
 
 /** Units left of one variant: the run's and the variant's own cap for run products, stock otherwise. */
 export function variantRemaining(b: ProductBundle, variantId: number): number {
@@ -29,7 +13,7 @@ export function variantRemaining(b: ProductBundle, variantId: number): number {
 }
 
 /** Builds the view at `now` (the run's state depends on its window). */
-export function productView(b: ProductBundle, now: Date): ProductView {
+export function productView(b: ProductBundle, now: Date): Product {
   const { product: p, run } = b;
   const state = run ? effectiveRunState({ state: run.state, cap: run.cap, reserved: run.reserved, opensAt: run.opens_at, closesAt: run.closes_at }, now) : null;
   return {

@@ -1,67 +1,19 @@
-import { z } from 'zod';
+import type { QuoteRequest } from '../../contracts/shop/shop-schemas';
+import type { Quote } from '../../contracts/shop/shop-answers';
+import { shippingFor } from '../../contracts/shop/shipping-price';
 import type { Config } from '../config';
 import { AppError, badRequest, conflict, type FieldErrors } from '../platform/app-error';
 import { dateInZone } from '../platform/clock';
 import type { Role } from '../platform/roles';
-import { fields } from '../platform/validate';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueRepository, ProductBundle } from './catalogue-repository';
-import { normalisePostalCode } from './postal-code';
-import { percentOf, shippingFor } from './pricing';
+import { percentOf } from './pricing';
+import type { PricedLine, PricedQuote } from './priced-quote';
 import { productView, variantRemaining } from './product-view';
 import type { ShippingMethodRow, ShopConfigRepository } from './shop-config-repository';
 import { postalCodeFitsProvince, postalLettersOf } from './postal-code';
 import { SHOP_SETTINGS } from './shop-settings';
-import { computeTaxes, PROVINCES, type Province, type TaxLine } from './tax';
-
-const text = (max: number, label: string) => z.string({ error: `${label} is required.` }).trim().max(max, `${label} is too long.`);
-
-/** The body of a quote; an order adds e-mail and payment token. */
-export const QuoteBody = z.object({
-  items: z
-    .array(z.object({ variantId: fields.id, quantity: z.number({ error: 'Enter a quantity.' }).int('Whole units only.').min(1, 'At least 1.').max(100, 'At most 100 of one item.') }), { error: 'The cart is empty.' })
-    .min(1, 'The cart is empty.')
-    .max(30, 'At most 30 different items.'),
-  shipTo: z.object({
-    name: text(120, 'Name').min(1, 'Name is required.'),
-    line1: text(200, 'Address').optional().default(''),
-    line2: text(200, 'Address line 2').optional().default(''),
-    city: text(100, 'City').optional().default(''),
-    province: text(40, 'Province or state').optional().default(''),
-    postalCode: text(20, 'Postal code').optional().default(''),
-    country: z.string({ error: 'Country is required.' }).trim().toUpperCase().regex(/^[A-Z]{2}$/, 'Use the two-letter country code.'),
-  }, { error: 'Shipping details are required.' }).transform((to) => ({ ...to, postalCode: normalisePostalCode(to.country, to.postalCode) })),
-  shippingMethodId: fields.id,
-});
-export type QuoteRequest = z.infer<typeof QuoteBody>;
-
-/** One priced line of a quote. */
-export interface QuoteLine {
-  variantId: number;
-  runId: number | null;
-  productName: string;
-  variantLabel: string;
-  sku: string;
-  unitPriceCents: number;
-  quantity: number;
-  lineCents: number;
-}
-
-/** Every figure of an order, computed by the server. */
-export interface Quote {
-  lines: QuoteLine[];
-  weightGrams: number;
-  shippingMethod: ShippingMethodRow;
-  province: Province | null;
-  pricedOn: string;
-  discountPercent: number;
-  subtotalCents: number;
-  discountCents: number;
-  shippingCents: number;
-  taxLines: TaxLine[];
-  taxCents: number;
-  totalCents: number;
-}
+import { computeTaxes, PROVINCES, type Province } from './tax';
 
 const CA_POSTAL = /^[ABCEGHJ-NPRSTVXY]\d[ABCEGHJ-NPRSTV-Z] ?\d[ABCEGHJ-NPRSTV-Z]\d$/i;
 const US_ZIP = /^\d{5}(-\d{4})?$/;
@@ -76,11 +28,11 @@ export class QuoteService {
   ) {}
 
   /** Prices a cart as the server will charge it: per-order limits, member discount, shipping and each tax, so the buyer sees the real total before paying. */
-  async quote(req: QuoteRequest, roles: Role[], now: Date): Promise<Quote> {
+  async quote(req: QuoteRequest, roles: Role[], now: Date): Promise<PricedQuote> {
     const wanted = new Map<number, number>();
     for (const i of req.items) wanted.set(i.variantId, (wanted.get(i.variantId) ?? 0) + i.quantity);
     const bundles = await this.catalogue.bundlesForVariants([...wanted.keys()]);
-    const lines: QuoteLine[] = [];
+    const lines: PricedLine[] = [];
     const problems: FieldErrors = {};
     const overLimit: FieldErrors = {};
     let soldOut = false;
@@ -161,7 +113,7 @@ export class QuoteService {
   }
 }
 
-function line(b: ProductBundle, variantId: number, quantity: number, unitPriceCents: number): QuoteLine {
+function line(b: ProductBundle, variantId: number, quantity: number, unitPriceCents: number): PricedLine {
   const v = b.variants.find((x) => x.id === variantId)!;
   return { variantId, runId: b.run?.id ?? null, productName: b.product.name, variantLabel: v.label, sku: v.sku, unitPriceCents, quantity, lineCents: unitPriceCents * quantity };
 }
@@ -173,7 +125,7 @@ function runClosedMessage(state: string | undefined): string {
 }
 
 /** The quote as the API answers it. */
-export function quoteJson(q: Quote) {
+export function quoteJson(q: PricedQuote): Quote {
   return {
     lines: q.lines.map((l) => ({ variantId: l.variantId, productName: l.productName, variantLabel: l.variantLabel, sku: l.sku, unitPriceCents: l.unitPriceCents, quantity: l.quantity, lineCents: l.lineCents })),
     weightGrams: q.weightGrams,
@@ -185,6 +137,6 @@ export function quoteJson(q: Quote) {
     taxLines: q.taxLines.map((t) => ({ code: t.code, label: t.label, ratePercent: t.ratePercent, amountCents: t.amountCents })),
     taxCents: q.taxCents,
     totalCents: q.totalCents,
-    currency: 'CAD' as const,
+    currency: 'CAD',
   };
 }

@@ -1,7 +1,8 @@
 import { dateInZone } from '../platform/clock';
 import type { SettingsService } from '../settings/settings-service';
 import type { OrderBundle } from './order-repository';
-import { receiptFor, type Receipt, type SellerDetails } from './receipt';
+import type { Receipt } from '../../contracts/shop/shop-answers';
+import { receiptFor, type SellerDetails } from './receipt';
 import { SHOP_SETTINGS } from './shop-settings';
 
 /** Builds a paid order's receipt from the seller details in the shop settings. */

@@ -1,4 +1,5 @@
 import { formatDay } from '../../contracts/dates/club-dates';
+import type { Receipt } from '../../contracts/shop/shop-answers';
 import { formatRate, type Province } from './tax';
 
 /**
@@ -26,21 +27,6 @@ export interface ReceiptInput {
   buyerName: string;
   items: { description: string; quantity: number; lineCents: number }[];
   paymentTerms: string;
-}
-
-/** A receipt's contents; null fields are not required at this size and not printed. */
-export interface Receipt {
-  sellerName: string;
-  date: string;
-  totalCents: number;
-  taxes: { code: string; jurisdiction: string; label: string; ratePercent: string; amountCents: number }[];
-  gstHstNumber: string | null;
-  provincialTaxNumbers: { code: string; jurisdiction: string; number: string }[];
-  items: { description: string; quantity: number; lineCents: number }[];
-  buyerName: string | null;
-  paymentTerms: string | null;
-  /** What the receipt should carry at this size but the settings lack (for staff). */
-  missing: string[];
 }
 
 const FEDERAL = ['GST', 'HST'];

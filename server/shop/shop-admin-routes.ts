@@ -1,5 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { OrderQuery, RefundBody, ShipBody } from '../../contracts/shop/staff-order-schemas';
+import type { StaffOrderPage } from '../../contracts/shop/staff-order-answers';
 import { notFound } from '../platform/app-error';
 import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
@@ -13,35 +15,12 @@ import type { FulfilmentService } from './fulfilment-service';
 import type { RefundRepository } from './refund-repository';
 import type { RefundService } from './refund-service';
 import { breakdownJson, refundJson, staffOrderJson } from './refund-view';
-import { ORDER_SORTS, type OrderFilter, type OrderRepository } from './order-repository';
+import type { OrderRepository, ZonedOrderFilter } from './order-repository';
 import type { ShopConfigRepository } from './shop-config-repository';
 import { SHOP_SETTINGS, ShopSettingsSchema } from './shop-settings';
 
 const SHOP_STAFF = ['treasurer', 'admin'] as const;
 
-// Strict: the same filters choose what the CSV export holds, so a misspelt key must not widen it to every order.
-const OrderQuery = z.strictObject({
-  page: fields.page,
-  pageSize: fields.pageSize,
-  sort: z.enum(Object.keys(ORDER_SORTS) as [keyof typeof ORDER_SORTS], { error: 'Sort by created, number, email, total or status.' }).default('created'),
-  dir: z.enum(['asc', 'desc']).default('desc'),
-  status: z.enum(['placed', 'pending', 'paid', 'failed', 'packed', 'shipped'], { error: 'Choose placed or an order status.' }).optional(),
-  runId: fields.id.optional(),
-  from: fields.date.optional(),
-  to: fields.date.optional(),
-  q: z.string().trim().max(100).optional(),
-});
-const ShipBody = z.object({
-  carrier: z.string({ error: 'Carrier is required.' }).trim().min(2, 'Carrier is required.').max(60, 'At most 60 characters.'),
-  trackingNumber: z.string({ error: 'Tracking number is required.' }).trim().min(4, 'Tracking number is required.').max(80, 'At most 80 characters.').regex(/^[A-Za-z0-9 -]+$/, 'Letters, digits, spaces and dashes only.'),
-});
-const RefundBody = z.object({
-  lines: z.array(z.object({ orderItemId: fields.id, quantity: z.number({ error: 'Enter a quantity.' }).int('Whole units only.').min(1, 'At least 1.').max(10000) }), { error: 'Lines must be a list.' }).max(100).default([]),
-  shipping: z.boolean({ error: 'Shipping is yes or no.' }).default(false),
-  amountCents: fields.cents.min(1, 'Enter an amount.').optional(),
-  restock: z.boolean({ error: 'Restock is yes or no.' }).default(false),
-  reason: z.string({ error: 'Reason must be text.' }).trim().max(400, 'At most 400 characters.').optional(),
-});
 // The client's key for one refund (the Idempotency-Key header): a retry with the same key gets the first answer.
 const RequestKey = z.string().trim().regex(/^[A-Za-z0-9_.:-]{8,120}$/, 'Use 8-120 letters, digits, dashes, dots, colons or underscores.').optional();
 const RunStateBody = z.object({ state: z.enum(['closed', 'in_production', 'shipped'], { error: 'Choose closed, in production or shipped.' }) });
@@ -59,7 +38,7 @@ export interface ShopAdminDeps {
   timeZone: string;
 }
 
-const filterOf = (q: z.infer<typeof OrderQuery>, timeZone: string): OrderFilter => ({ status: q.status, runId: q.runId, from: q.from, to: q.to, q: q.q, timeZone });
+const filterOf = (q: z.infer<typeof OrderQuery>, timeZone: string): ZonedOrderFilter => ({ status: q.status, runId: q.runId, from: q.from, to: q.to, q: q.q, timeZone });
 
 /** /api/admin/orders: the table, CSV, detail, pack, ship, refund and its preview. */
 export function orderAdminRoutes(d: ShopAdminDeps): Router {
@@ -68,7 +47,8 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
   r.get('/', async function listOrders(req, res) {
     const q = parse(OrderQuery, req.query);
     const { items, total } = await d.orders.page(filterOf(q, d.timeZone), q.sort, q.dir, q.page, q.pageSize);
-    res.json({ items: items.map((o) => ({ id: o.id, number: o.number, status: o.status, email: o.email, shipName: o.ship_name, units: o.units, totalCents: o.total_cents, refundedCents: o.refunded_cents, shippingName: o.shipping_name, createdAt: o.created_at, disputed: o.disputed_at !== null })), total, page: q.page, pageSize: q.pageSize });
+    const answer: StaffOrderPage = { items: items.map((o) => ({ id: o.id, number: o.number, status: o.status, email: o.email, shipName: o.ship_name, units: o.units, totalCents: o.total_cents, refundedCents: o.refunded_cents, shippingName: o.shipping_name, createdAt: o.created_at.toISOString(), disputed: o.disputed_at !== null })), total, page: q.page, pageSize: q.pageSize };
+    res.json(answer);
   });
   r.get('/export', async function exportOrders(req, res) {
     const q = parse(OrderQuery, req.query);

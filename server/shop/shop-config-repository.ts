@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { WeightBracket } from './pricing';
+import type { WeightBracket } from '../../contracts/shop/shipping-price';
 import type { TaxRate } from './tax';
 
 // DATE columns as text, so no time zone shifts the day.

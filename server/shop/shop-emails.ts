@@ -3,7 +3,8 @@ import type { TransactionalEmail } from '../mail/outbox';
 import { formatCad } from '../platform/money';
 import { formatRate } from './tax';
 import type { OrderBundle } from './order-repository';
-import { receiptText, type Receipt } from './receipt';
+import type { Receipt } from '../../contracts/shop/shop-answers';
+import { receiptText } from './receipt';
 
 function receipt(b: OrderBundle): string[] {
   const o = b.order;

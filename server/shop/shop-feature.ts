@@ -1,5 +1,5 @@
 import { PaymentThrottle } from '../payments/payment-throttle';
-import type { Feature, Platform } from '../platform/feature';
+import type { Feature, Platform } from '../feature';
 import { NotifiedCache, type ReadyJson } from '../platform/notified-cache';
 import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';

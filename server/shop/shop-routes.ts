@@ -1,11 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import type { AccountOrders, Order, OrderAnswer, ShippingMethod } from '../../contracts/shop/shop-answers';
+import { OrderBody, PayBody, QuoteBody } from '../../contracts/shop/shop-schemas';
 import { notFound } from '../platform/app-error';
 import type { ReadyJson } from '../platform/notified-cache';
 import { requireSignedIn } from '../platform/require-role';
 import type { Role } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
-import { cardToken } from '../payments/card-token';
 import type { PaymentThrottle } from '../payments/payment-throttle';
 import type { CatalogueService } from './catalogue-service';
 import type { CheckoutService, PaymentOutcome } from './checkout-service';
@@ -13,7 +14,7 @@ import type { OrderGuide } from './order-guide';
 import type { OrderLinks } from './order-links';
 import type { OrderBundle, OrderRepository } from './order-repository';
 import { orderJson } from './order-view';
-import { QuoteBody, quoteJson, type QuoteService } from './quote-service';
+import { quoteJson, type QuoteService } from './quote-service';
 import type { ReceiptService } from './receipt-service';
 import type { ShopConfigRepository } from './shop-config-repository';
 
@@ -23,9 +24,6 @@ declare module 'express-session' {
     shopOrderIds?: number[];
   }
 }
-
-const OrderBody = QuoteBody.extend({ email: fields.email, paymentToken: cardToken });
-const PayBody = z.object({ paymentToken: cardToken });
 
 export interface ShopDeps {
   catalogue: CatalogueService;
@@ -68,7 +66,8 @@ export function productRoutes(d: ShopDeps): Router {
 export function shippingMethodRoutes(d: ShopDeps): Router {
   const r = Router();
   r.get('/', async function listShippingMethods(_req, res) {
-    res.json({ items: (await d.config.activeShippingMethods()).map((m) => ({ id: m.id, code: m.code, name: m.name, brackets: m.brackets })) });
+    const items: ShippingMethod[] = (await d.config.activeShippingMethods()).map((m) => ({ id: m.id, code: m.code, name: m.name, brackets: m.brackets }));
+    res.json({ items });
   });
   return r;
 }
@@ -84,15 +83,15 @@ export function checkoutRoutes(d: ShopDeps): Router {
 }
 
 /** The buyer's view of an order: the order and, once paid, its receipt. */
-async function buyerView(d: ShopDeps, b: OrderBundle) {
+async function buyerView(d: ShopDeps, b: OrderBundle): Promise<Order> {
   return { ...orderJson(b), receipt: await d.receipts.forOrder(b) };
 }
 
 /** Answers a payment attempt: 202 while the processor has not said, else `paidStatus` (201 for a new order). */
 async function answer(d: ShopDeps, res: import('express').Response, outcome: PaymentOutcome, paidStatus: 200 | 201): Promise<void> {
   const order = await buyerView(d, outcome.bundle);
-  if (outcome.status === 'pending') res.status(202).json({ order, message: outcome.message });
-  else res.status(paidStatus).json({ order });
+  if (outcome.status === 'pending') res.status(202).json({ order, message: outcome.message } satisfies OrderAnswer);
+  else res.status(paidStatus).json({ order } satisfies OrderAnswer);
 }
 
 /** Besides the buyer, only these roles handle shop orders (an editor has no business with addresses or payments). */
@@ -132,7 +131,7 @@ export function orderRoutes(d: ShopDeps): Router {
   r.get('/:id', async function showOrder(req, res) {
     const id = parse(fields.id, req.params.id);
     const b = await mayView(req, id);
-    res.json({ order: { ...(await buyerView(d, b)), nextSteps: await d.guide.nextSteps(b) } });
+    res.json({ order: { ...(await buyerView(d, b)), nextSteps: await d.guide.nextSteps(b) } } satisfies OrderAnswer);
   });
   r.post('/:id/pay', async function payAgain(req, res) {
     const id = parse(fields.id, req.params.id);
@@ -150,8 +149,9 @@ export function accountOrderRoutes(d: ShopDeps): Router {
   r.get('/', requireSignedIn, async function myOrders(req, res) {
     const rows = await d.orders.forUser(req.user!.id);
     const last = await d.orders.lastShipTo(req.user!.id);
-    const lastShipTo = last && { name: last.ship_name, line1: last.ship_line1, line2: last.ship_line2 ?? '', city: last.ship_city, province: last.ship_province ?? '', postalCode: last.ship_postal_code ?? '', country: last.ship_country };
-    res.json({ lastShipTo, items: rows.map((o) => ({ id: o.id, number: o.number, status: o.status, createdAt: o.created_at, totalCents: o.total_cents, refundedCents: o.refunded_cents, shippingName: o.shipping_name, trackingNumber: o.tracking_number, carrier: o.carrier })) });
+    const lastShipTo = last && { name: last.ship_name, line1: last.ship_line1 ?? '', line2: last.ship_line2 ?? '', city: last.ship_city ?? '', province: last.ship_province ?? '', postalCode: last.ship_postal_code ?? '', country: last.ship_country };
+    const answer: AccountOrders = { lastShipTo, items: rows.map((o) => ({ id: o.id, number: o.number, status: o.status, createdAt: o.created_at.toISOString(), totalCents: o.total_cents, refundedCents: o.refunded_cents, shippingName: o.shipping_name, trackingNumber: o.tracking_number, carrier: o.carrier })) };
+    res.json(answer);
   });
   return r;
 }

@@ -1,4 +1,5 @@
 import { DELIVERABLE_KINDS, type DeliverableKind } from '../../contracts/labels/deliverable-kinds';
+import type { DeliverableLine, KindSummary } from '../../contracts/sponsors/sponsor-answers';
 
 export { DELIVERABLE_KINDS, type DeliverableKind };
 
@@ -11,23 +12,6 @@ export interface DeliverableInput {
   delivered: number;
   /** True when the sponsor stands on the public sponsors page now and this promise is of the season shown there. */
   listedNow?: boolean;
-}
-
-export interface DeliverableLine {
-  id: number;
-  kind: DeliverableKind;
-  promised: number;
-  delivered: number;
-  dueOn: string;
-  overdue: boolean;
-  /** A sponsors-page listing delivered by the sponsor standing on the public page now, not by a recorded credit. */
-  listedNow: boolean;
-}
-
-export interface KindSummary {
-  kind: DeliverableKind;
-  promised: number;
-  delivered: number;
 }
 
 /**

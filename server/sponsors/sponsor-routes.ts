@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import type { AdminSponsorRow, OverdueItem, PortalView, SponsorDetail, SponsorWall, StaffAgreement } from '../../contracts/sponsors/sponsor-answers';
 import type { Clock } from '../platform/clock';
 import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
@@ -22,7 +23,7 @@ export function sponsorPublicRoutes(sponsors: SponsorService, today: Today): Rou
     res.json({ items: items.map((s) => ({ id: s.id, slug: s.slug, name: s.name, tier: s.tier })) });
   });
   r.get('/wall', async function sponsorWall(_req, res) {
-    res.json(await sponsors.publicWall(today()));
+    res.json((await sponsors.publicWall(today())) satisfies SponsorWall);
   });
   return r;
 }
@@ -38,7 +39,7 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
   const r = Router();
   r.get('/', requireRole(...STAFF), async function listSponsorsAdmin(req, res) {
     const items = await sponsors.withTiers(today());
-    res.json({ items: seesSponsorMoney(req.user!.roles) ? items : items.map(withoutTotal) });
+    res.json({ items: seesSponsorMoney(req.user!.roles) ? items : items.map(withoutTotal) } satisfies { items: AdminSponsorRow[] });
   });
   r.post('/', requireRole(...STAFF), async function createSponsor(req, res) {
     const s = await sponsors.create(parse(SponsorBody, req.body));
@@ -51,7 +52,7 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
     res.json(await sponsors.setTiers(parse(TiersSchema, req.body)));
   });
   r.get('/overdue', requireRole(...STAFF), async function overdueDeliverables(_req, res) {
-    res.json({ items: await sponsors.overdue(today()) });
+    res.json({ items: await sponsors.overdue(today()) } satisfies { items: OverdueItem[] });
   });
   r.post('/agreements/:agreementId/cash-received', requireRole(...MONEY), async function cashReceived(req, res) {
     const id = parse(fields.id, req.params.agreementId);
@@ -61,7 +62,7 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
     const id = parse(fields.id, req.params.id);
     const sponsor = await sponsors.get(id);
     const [contacts, credits] = await Promise.all([sponsors.contacts(id), sponsors.creditsOf(id)]);
-    res.json({ sponsor, contacts: seesSponsorMoney(req.user!.roles) ? contacts : contacts.map(withoutEmail), credits });
+    res.json({ sponsor, contacts: seesSponsorMoney(req.user!.roles) ? contacts : contacts.map(withoutEmail), credits } satisfies SponsorDetail);
   });
   r.put('/:id', requireRole(...STAFF), async function updateSponsor(req, res) {
     res.json({ sponsor: await sponsors.update(parse(fields.id, req.params.id), parse(SponsorBody, req.body)) });
@@ -74,7 +75,7 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
     await sponsors.get(id);
     const agreements = await sponsors.agreements(id, today());
     // Editors record and publish credits; cash, declared values and the deal's note are the treasurer's and admin's.
-    res.json({ agreements: seesSponsorMoney(req.user!.roles) ? agreements : agreements.map(deliverablesOnly) });
+    res.json({ agreements: seesSponsorMoney(req.user!.roles) ? agreements : agreements.map(deliverablesOnly) } satisfies { agreements: StaffAgreement[] });
   });
   r.get('/:id/ledger.csv', requireRole(...STAFF), async function sponsorLedgerCsv(req, res) {
     const id = parse(fields.id, req.params.id);
@@ -110,7 +111,7 @@ export function sponsorPortalRoutes(sponsors: SponsorService, today: Today, team
   };
   r.get('/me', async function portalMe(req, res) {
     const { sponsor, agreements, credits } = await report(req.user!.id);
-    res.json({ sponsor, agreements, credits: credits.map((c) => ({ kind: c.kind, url: c.url, at: c.at, postSlug: c.postSlug ?? undefined, postTitle: c.postTitle ?? undefined, note: c.note, videoTimestamp: c.videoTimestamp })) });
+    res.json({ sponsor, agreements, credits: credits.map((c) => ({ kind: c.kind, url: c.url, at: c.at, postSlug: c.postSlug ?? undefined, postTitle: c.postTitle ?? undefined, note: c.note, videoTimestamp: c.videoTimestamp })) } satisfies PortalView);
   });
   r.get('/report.csv', async function portalReportCsv(req, res) {
     const data = await report(req.user!.id);

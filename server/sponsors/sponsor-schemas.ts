@@ -22,18 +22,11 @@ export const webAddress = z
   .nullish()
   .transform((s) => s || null);
 
-/** A file the upload endpoint stored, referenced by its own path. */
-export const uploadedImage = z
-  .string()
-  .regex(/^\/uploads\/[a-z0-9-]+\.(jpg|png|webp|gif)$/, 'Upload the image first, then use the address it returns.')
-  .nullish()
-  .transform((s) => s ?? null);
-
 export const SponsorBody = z.object({
   name: z.string({ error: 'Name is required.' }).trim().min(1, 'Name is required.').max(120, 'Use at most 120 characters.'),
   website: webAddress,
   blurb: optionalText(1000),
-  logoUrl: uploadedImage,
+  logoUrl: fields.uploadedImage,
 });
 
 const season = z.string({ error: 'Season is required.' }).regex(/^\d{4}$/, 'A season is a year, like 2026.');

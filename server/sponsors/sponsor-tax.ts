@@ -1,8 +1,7 @@
 import { computeTaxes, type Province, type TaxLine, type TaxRate } from '../shop/tax';
+import { TAX_TREATMENTS, type TaxTreatment } from '../../contracts/sponsors/tax-treatments';
 
-/** How an agreement is taxed: promotion bought (a taxable supply) or a gift with nothing in return (no tax). */
-export const TAX_TREATMENTS = ['promotion', 'gift'] as const;
-export type TaxTreatment = (typeof TAX_TREATMENTS)[number];
+export { TAX_TREATMENTS, type TaxTreatment };
 
 /**
  * GST/HST on a sponsorship that buys promotion, at the rate of the sponsor's province on `date` (CRA guidance on

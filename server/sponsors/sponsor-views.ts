@@ -1,38 +1,15 @@
+import type { Agreement, Sponsor } from '../../contracts/sponsors/sponsor-answers';
 import type { SponsorCredit } from '../../contracts/sponsors/sponsor-credit';
-import type { DeliverableInput, DeliverableLine, KindSummary } from './sponsor-ledger';
+import type { DeliverableInput } from './sponsor-ledger';
 import type { CreditRow, DeliverableRow, SponsorRow } from './sponsor-repository';
-import type { TaxTreatment } from './sponsor-tax';
 
-export interface AgreementView {
-  id: number;
-  season: string;
-  cashCents: number;
-  cashReceivedOn: string | null;
-  /** The promised cash once staff recorded it as received, else 0: what the portal and the report both show. */
-  cashReceivedCents: number;
-  taxTreatment: TaxTreatment;
-  taxProvince: string | null;
-  inKind: { id: number; description: string; valueCents: number; receivedOn: string | null }[];
-  inKindCents: number;
-  totalCents: number;
-  note: string | null;
-  deliverables: DeliverableLine[];
-  byKind: KindSummary[];
-  overdue: DeliverableLine[];
-  nextDue: DeliverableLine | null;
-}
-
-/** One credit as staff and the portal read it; written once, in contracts/. */
+// The views are written once, in contracts/sponsors/; these names keep the server's own vocabulary.
+/** An agreement with its money and ledger. */
+export type AgreementView = Agreement;
+/** One credit as staff and the portal read it. */
 export type CreditView = SponsorCredit;
-
-export interface SponsorView {
-  id: number;
-  slug: string;
-  name: string;
-  website: string | null;
-  blurb: string | null;
-  logoUrl: string | null;
-}
+/** A sponsor as every answer names it. */
+export type SponsorView = Sponsor;
 
 export const toView = (s: SponsorRow): SponsorView => ({ id: Number(s.id), slug: s.slug, name: s.name, website: s.website, blurb: s.blurb, logoUrl: s.logo_url });
 

@@ -1,4 +1,4 @@
-import { normalisePostalCode } from '../../server/shop/postal-code';
+import { normalisePostalCode } from '../../contracts/shop/postal-code';
 
 describe('normalisePostalCode', () => {
   // Canada Post addressing guidelines: the postal code is six characters, A9A 9A9, one space between the halves (from memory).

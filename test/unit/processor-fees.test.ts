@@ -1,5 +1,6 @@
 import { estimateFeeCents, PROCESSOR_FEES } from '../../server/books/processor-fees';
-import { FeePercentBody, fromFeePercent, toFeePercent } from '../../server/books/fee-percent';
+import { FeePercentBody } from '../../contracts/books/books-schemas';
+import { fromFeePercent, toFeePercent } from '../../server/books/fee-percent';
 
 describe('estimateFeeCents', () => {
   const s = PROCESSOR_FEES.defaults;

@@ -1,5 +1,6 @@
 import { printQuantities, roundUpTo } from '../../server/shop/print-sheet';
-import { percentOf, shareProportionally, shippingFor } from '../../server/shop/pricing';
+import { shippingFor } from '../../contracts/shop/shipping-price';
+import { percentOf, shareProportionally } from '../../server/shop/pricing';
 
 // Spares, packs and minimums are the printer's business rules (common practice, no source); the arithmetic is checked by hand.
 const v = (label: string, paid: number) => ({ variantId: paid + label.length, label, sku: `TF-${label}`, paid });

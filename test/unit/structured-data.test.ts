@@ -1,10 +1,10 @@
 import { availability, clip, launchData, plainText, postData, price, productData, zonedDateTime } from '../../src/app/core/structured-data';
-import type { Product } from '../../src/app/shop/shop-types';
+import type { ProductDetail } from '../../contracts/shop/shop-answers';
 import { schemaOrgProblems } from '../helpers/schema-org';
 
-const run = (state: NonNullable<Product['run']>['state']) => ({ id: 1, name: 'Spring run', state, cap: 50, remaining: 10, opensAt: '2027-04-01T14:00:00.000Z', closesAt: '2027-04-15T04:59:00.000Z' });
-const shirt = (over: Partial<Product> = {}): Product => ({
-  id: 1, slug: 'pad-shirt', name: 'Pad Shirt', priceCents: 3200, currency: 'CAD', maxPerOrder: 20, images: [], sizeChart: null, orderable: true,
+const run = (state: NonNullable<ProductDetail['run']>['state']) => ({ id: 1, name: 'Spring run', state, cap: 50, remaining: 10, opensAt: '2027-04-01T14:00:00.000Z', closesAt: '2027-04-15T04:59:00.000Z' });
+const shirt = (over: Partial<ProductDetail> = {}): ProductDetail => ({
+  id: 1, slug: 'pad-shirt', name: 'Pad Shirt', priceCents: 3200, currency: 'CAD', weightGrams: 200, maxPerOrder: 20, images: [], sizeChart: null, orderable: true,
   run: run('open'), variants: [{ id: 1, sku: 'PS-M', label: 'M', priceCents: 3200, weightGrams: 200, remaining: 5 }, { id: 2, sku: 'PS-XL', label: 'XL', priceCents: 3000, weightGrams: 220, remaining: 5 }],
   descriptionHtml: '<p>Soft <strong>cotton</strong> &amp; a printed pad.</p>', ...over,
 });

@@ -2,39 +2,18 @@ import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
-
-/** One row of the public list. */
-export interface PostSummary {
-  slug: string;
-  title: string;
-  summary: string;
-  coverUrl: string | null;
-  /** The uploaded cover's sizes and WebP thumbnail; null for a cover from elsewhere or none. */
-  cover?: { url: string; thumbnailUrl: string; width: number; height: number } | null;
-  publishedAt: string;
-  tags: string[];
-  membersOnly: boolean;
-}
-
-/** A published post as the page shows it; `html` is null when the body is for members. */
-export interface PostDetail extends PostSummary {
-  author: string | null;
-  /** The last edit (never before publishing). */
-  updatedAt?: string;
-  html: string | null;
-  credits: { sponsorId: number; name: string; slug: string }[];
-  hazardNotice: boolean;
-}
+import type { PostDetail, PostPage, PostSummary } from '@contracts/build-logs/post-answers';
+import type { PostListParams } from '@contracts/build-logs/post-schemas';
 
 /** The public build-log endpoints. */
 @Injectable({ providedIn: 'root' })
 export class BuildLogApi {
   private readonly http = inject(HttpClient);
 
-  list(query: { tag?: string; page: number; pageSize: number }): Observable<{ items: PostSummary[]; total: number }> {
+  list(query: PostListParams): Observable<PostPage<PostSummary>> {
     let params = new HttpParams().set('page', query.page).set('pageSize', query.pageSize);
     if (query.tag) params = params.set('tag', query.tag);
-    return this.http.get<{ items: PostSummary[]; total: number }>('/api/posts', { params });
+    return this.http.get<PostPage<PostSummary>>('/api/posts', { params });
   }
 
   tags(): Observable<{ items: { tag: string; count: number }[] }> {

@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { RESPONSE_INIT } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { PostDetail } from './build-log-api';
+import type { PostDetail } from '@contracts/build-logs/post-answers';
 import { PostPage } from './post-page';
 
 const POST: PostDetail = {

@@ -1,5 +1,5 @@
 import type { BlogPosting, Event, ItemAvailability, Product as ProductThing, WithContext } from 'schema-dts';
-import type { Product } from '../shop/shop-types';
+import type { Product, ProductDetail } from '@contracts/shop/shop-answers';
 
 /**
  * schema.org JSON-LD for the public pages, typed with `schema-dts` (the schema.org vocabulary as TypeScript types), so
@@ -65,13 +65,13 @@ export function price(cents: number): string {
   return (cents / 100).toFixed(2);
 }
 
-export function productData(p: Product, url: string, images: string[], brand: string): WithContext<ProductThing> {
+export function productData(p: ProductDetail, url: string, images: string[], brand: string): WithContext<ProductThing> {
   const lowest = Math.min(p.priceCents, ...p.variants.map((v) => v.priceCents));
   return {
     '@context': 'https://schema.org',
     '@type': 'Product',
     name: p.name,
-    description: clip(plainText(p.descriptionHtml ?? ''), 500) || p.name,
+    description: clip(plainText(p.descriptionHtml), 500) || p.name,
     image: images,
     url,
     ...(brand ? { brand: { '@type': 'Brand', name: brand } } : {}),

@@ -20,9 +20,10 @@ import { ShopApi } from './shop-api';
 import { CardEntryApi } from '../shared/card-entry';
 import { StripeCard } from '../shared/stripe-card';
 import { TEST_CARDS } from '../shared/test-cards';
-import type { Quote, QuoteRequest } from './shop-types';
-import { shippingPrice } from './shipping-price';
-import { tidyPostalCode } from './postal-code';
+import type { Quote } from '@contracts/shop/shop-answers';
+import type { QuoteInput } from '@contracts/shop/shop-schemas';
+import { normalisePostalCode } from '@contracts/shop/postal-code';
+import { shippingFor } from '@contracts/shop/shipping-price';
 import { SiteNames } from '../core/site-names';
 
 const formatCents = (cents: number) => new Intl.NumberFormat('en-CA', { style: 'currency', currency: 'CAD' }).format(cents / 100);
@@ -85,7 +86,7 @@ export class Checkout {
     const grams = this.cart.weightGrams();
     return (this.methods.value() ?? []).map((m) => {
       const prices = m.brackets.map((b) => b.priceCents);
-      const cents = grams === null ? null : shippingPrice(grams, m.brackets);
+      const cents = grams === null ? null : shippingFor(grams, m.brackets);
       return { ...m, priceText: cents === 0 ? 'free' : cents !== null ? formatCents(cents) : grams === null && prices.length ? `from ${formatCents(Math.min(...prices))}` : 'too heavy for this method' };
     });
   });
@@ -115,17 +116,17 @@ export class Checkout {
   /** Shows the postal code as it will be stored, once the buyer leaves the field. */
   protected tidyPostalCode(): void {
     const to = this.shipping.controls.shipTo.controls;
-    const tidy = tidyPostalCode(to.country.value, to.postalCode.value);
+    const tidy = normalisePostalCode(to.country.value, to.postalCode.value);
     if (tidy !== to.postalCode.value) to.postalCode.setValue(tidy);
   }
 
   /** Fills the address with the one from the buyer's latest mailed order. */
   protected useLastAddress(): void {
     const last = this.lastAddress();
-    if (last) this.shipping.controls.shipTo.patchValue({ ...last, line2: last.line2 ?? '' });
+    if (last) this.shipping.controls.shipTo.patchValue(last);
   }
 
-  private request(): QuoteRequest {
+  private request(): QuoteInput {
     const s = this.shipping.getRawValue();
     return { items: this.cart.lines().map((l) => ({ variantId: l.variantId, quantity: l.quantity })), shipTo: s.shipTo, shippingMethodId: s.shippingMethodId };
   }

@@ -6,7 +6,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { EmptyState } from '../shared/empty-state';
 import { MoneyPipe } from '../shared/money-pipe';
 import { ShopApi } from './shop-api';
-import { STATUS_LABELS } from './shop-types';
+import { ORDER_STATUS_LABELS as STATUS_LABELS } from '@contracts/labels/order-statuses';
 
 /** /shop/orders: the signed-in buyer's own orders, newest first. */
 @Component({

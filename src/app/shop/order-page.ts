@@ -5,7 +5,7 @@ import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MoneyPipe } from '../shared/money-pipe';
 import { ShopApi } from './shop-api';
-import { STATUS_LABELS } from './shop-types';
+import { ORDER_STATUS_LABELS as STATUS_LABELS } from '@contracts/labels/order-statuses';
 
 /** /shop/orders/:id: the confirmation right after checkout, and the receipt any time after. */
 @Component({

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import type { ProductImage } from './shop-types';
+import type { ProductImage } from '@contracts/shop/shop-answers';
 
 /** How far a finger must travel sideways before it counts as a swipe, in CSS pixels (common practice, no source). */
 const SWIPE_PX = 40;

@@ -4,14 +4,15 @@ import { RESPONSE_INIT } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { ProductPage } from './product-page';
-import type { Product } from './shop-types';
+import type { ProductDetail } from '@contracts/shop/shop-answers';
 
-const PRODUCT: Product = {
+const PRODUCT: ProductDetail = {
   id: 7,
   slug: 'coulee-tee',
   name: 'Coulee Tee',
   priceCents: 3200,
   currency: 'CAD',
+  weightGrams: 210,
   maxPerOrder: 5,
   images: [],
   sizeChart: null,

@@ -17,7 +17,7 @@ import { ProductGallery } from './product-gallery';
 import { CartStore } from './cart-store';
 import { RUN_STATE_LABELS, timeLeft } from './countdown';
 import { ShopApi } from './shop-api';
-import type { Variant } from './shop-types';
+import type { Variant } from '@contracts/shop/shop-answers';
 
 /** One product: pick a size, see units left and the time to close, add to the cart. */
 @Component({
@@ -67,7 +67,7 @@ export class ProductPage {
       if (!p) return;
       const photo = p.images[0];
       const path = `/shop/p/${p.slug}`;
-      const description = clip(plainText(p.descriptionHtml ?? '')) || p.name;
+      const description = clip(plainText(p.descriptionHtml)) || p.name;
       meta.describe({
         title: p.name,
         description,

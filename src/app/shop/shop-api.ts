@@ -2,7 +2,8 @@ import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
-import type { Order, OrderSummary, Product, Quote, QuoteRequest, ShipTo, ShippingMethod } from './shop-types';
+import type { AccountOrders, Order, OrderAnswer, OrderSummary, Product, ProductDetail, Quote, ShippingMethod, ShipTo } from '@contracts/shop/shop-answers';
+import type { OrderInput, QuoteInput } from '@contracts/shop/shop-schemas';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -15,32 +16,32 @@ export class ShopApi {
     return this.http.get<{ items: Product[] }>('/api/products').pipe(map((r) => r.items));
   }
   /** An unknown slug is the page's to say (its not-found message), not a snack bar's. */
-  product(slug: string): Observable<Product> {
-    return this.http.get<Product>(`/api/products/${encodeURIComponent(slug)}`, quiet());
+  product(slug: string): Observable<ProductDetail> {
+    return this.http.get<ProductDetail>(`/api/products/${encodeURIComponent(slug)}`, quiet());
   }
   shippingMethods(): Observable<ShippingMethod[]> {
     return this.http.get<{ items: ShippingMethod[] }>('/api/shipping-methods').pipe(map((r) => r.items));
   }
   /** Errors are the caller's to show (beside the fields). */
-  quote(body: QuoteRequest): Observable<Quote> {
+  quote(body: QuoteInput): Observable<Quote> {
     return this.http.post<Quote>('/api/checkout/quote', body, quiet());
   }
-  placeOrder(body: QuoteRequest & { email: string; paymentToken: string }): Observable<{ order: Order; message?: string }> {
-    return this.http.post<{ order: Order; message?: string }>('/api/orders', body, quiet());
+  placeOrder(body: OrderInput): Observable<OrderAnswer> {
+    return this.http.post<OrderAnswer>('/api/orders', body, quiet());
   }
-  payAgain(id: number, paymentToken: string): Observable<{ order: Order; message?: string }> {
-    return this.http.post<{ order: Order; message?: string }>(`/api/orders/${id}/pay`, { paymentToken }, quiet());
+  payAgain(id: number, paymentToken: string): Observable<OrderAnswer> {
+    return this.http.post<OrderAnswer>(`/api/orders/${id}/pay`, { paymentToken }, quiet());
   }
   /** `key` is the one from the e-mailed link, which opens the order without an account. */
   order(id: number, key?: string): Observable<Order> {
     // The page says "not found" itself; no snack bar on top of it.
-    return this.http.get<{ order: Order }>(`/api/orders/${id}`, { ...quiet(), ...(key ? { params: { key } } : {}) }).pipe(map((r) => r.order));
+    return this.http.get<OrderAnswer>(`/api/orders/${id}`, { ...quiet(), ...(key ? { params: { key } } : {}) }).pipe(map((r) => r.order));
   }
   myOrders(): Observable<OrderSummary[]> {
-    return this.http.get<{ items: OrderSummary[] }>('/api/account/orders').pipe(map((r) => r.items));
+    return this.http.get<AccountOrders>('/api/account/orders').pipe(map((r) => r.items));
   }
   /** Where the signed-in buyer's latest mailed order went, to offer it again at checkout; null if none. */
   lastShipTo(): Observable<ShipTo | null> {
-    return this.http.get<{ lastShipTo: ShipTo | null }>('/api/account/orders', quiet()).pipe(map((r) => r.lastShipTo));
+    return this.http.get<AccountOrders>('/api/account/orders', quiet()).pipe(map((r) => r.lastShipTo));
   }
 }

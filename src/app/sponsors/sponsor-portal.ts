@@ -8,7 +8,8 @@ import { MatTableModule } from '@angular/material/table';
 import { apiErrorMessage } from '../core/api-error';
 import { MoneyPipe } from '../shared/money-pipe';
 import { EmptyState } from '../shared/empty-state';
-import { KIND_LABELS, SponsorApi } from './sponsor-api';
+import { DELIVERABLE_KIND_LABELS as KIND_LABELS } from '@contracts/labels/deliverable-kinds';
+import { SponsorApi } from './sponsor-api';
 
 /** The sponsor's own view: agreements with promised vs delivered, every credit with its link, and report downloads. */
 @Component({

@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { RESPONSE_INIT } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { SponsorCard } from './sponsor-api';
+import type { SponsorCard } from '@contracts/sponsors/sponsor-answers';
 import { SponsorWall } from './sponsor-wall';
 
 const card = (id: number, name: string, logoSize: SponsorCard['logoSize']): SponsorCard => ({

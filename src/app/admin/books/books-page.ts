@@ -14,7 +14,9 @@ import { SiteNames } from '../../core/site-names';
 import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { MoneyPipe } from '../../shared/money-pipe';
-import { BooksApi, type Period, type RevenueRow } from './books-api';
+import type { RevenueRow } from '@contracts/books/books-answers';
+import type { DateRange } from '@contracts/books/books-schemas';
+import { BooksApi } from './books-api';
 import { FeeSettingsCard } from './fee-settings-card';
 import { currentQuarter } from './period';
 import { formatMonth } from '@contracts/dates/club-dates';
@@ -35,7 +37,7 @@ export class BooksPage {
   /** The report's days are club days: "club time (Winnipeg)". */
   protected readonly site = inject(SiteNames);
 
-  protected readonly period = signal<Period>(currentQuarter());
+  protected readonly period = signal<DateRange>(currentQuarter());
   protected readonly tax = rxResource({ params: () => this.period(), stream: ({ params }) => this.api.tax(params) });
   protected readonly revenue = rxResource({ params: () => this.period(), stream: ({ params }) => this.api.revenue(params) });
   protected readonly sponsorValue = rxResource({ stream: () => this.api.sponsorValue() });

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { DatePipe } from '@angular/common';
 import { RouterLink } from '@angular/router';
-import { KIND_LABELS } from '../../sponsors/sponsor-api';
+import { DELIVERABLE_KIND_LABELS as KIND_LABELS } from '@contracts/labels/deliverable-kinds';
 import { PostAdminApi } from '../posts/post-admin-api';
 import { SponsorAdminApi } from '../sponsors/sponsor-admin-api';
 

@@ -2,9 +2,9 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { ClubRulesForm } from './club-rules-form';
-import type { ClubRules } from './members-api';
+import type { MembershipSettings } from '@contracts/membership/club-rules-schemas';
 
-const rules: ClubRules = {
+const rules: MembershipSettings = {
   termRule: 'calendar',
   lateSeasonFrom: '09-01',
   graceDays: 30,

@@ -2,20 +2,9 @@ import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
+import type { MembershipSettings } from '@contracts/membership/club-rules-schemas';
+import type { RosterFormQuery, RosterMailPurpose } from '@contracts/membership/roster-schemas';
 import type { MembershipStatus, Plan } from '../../membership/membership-api';
-
-/** Roster filters, sort and page, as the server takes them. */
-export interface RosterQuery {
-  status: '' | MembershipStatus;
-  planId: '' | number;
-  certificationLevel: string;
-  associationExpiresBefore: string;
-  q: string;
-  sort: 'memberNumber' | 'name' | 'termEnd' | 'status' | 'plan' | 'associationExpires';
-  dir: 'asc' | 'desc';
-  page: number;
-  pageSize: number;
-}
 
 export interface RosterLine {
   id: number;
@@ -102,19 +91,6 @@ export interface DuesSummary {
   byStatus: Record<MembershipStatus, number>;
 }
 
-/** The club's membership rules (term rule, grace, waiver and safety code versions). */
-export interface ClubRules {
-  termRule: 'calendar' | 'anniversary';
-  lateSeasonFrom: string;
-  graceDays: number;
-  prorate: boolean;
-  waiverVersion: string;
-  waiverText: string;
-  safetyCodeVersion: string;
-  associationName: string;
-  certificationLevels: { code: string; label: string }[];
-}
-
 /** A plan as staff see it, switched-off ones included. */
 export type AdminPlan = Plan & { active: boolean; sortOrder: number };
 
@@ -128,7 +104,7 @@ export { PLAN_ELIGIBILITY_LABELS as ELIGIBILITY_LABELS } from '@contracts/labels
 export type NewPlan = PlanChanges & Pick<AdminPlan, 'code' | 'eligibility'>;
 
 /** Only the filters that are set, so URLs and the CSV link stay short. */
-export function filterParams(q: Partial<RosterQuery>): HttpParams {
+export function filterParams(q: Partial<RosterFormQuery>): HttpParams {
   let params = new HttpParams();
   for (const [k, v] of Object.entries(q)) if (v !== '' && v !== undefined && v !== null) params = params.set(k, String(v));
   return params;
@@ -137,9 +113,6 @@ export function filterParams(q: Partial<RosterQuery>): HttpParams {
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
 /** The treasurer's membership endpoints. */
-/** News is promotional (consent rules apply); club business (dues, launches replied to) is transactional. */
-export type RosterMailPurpose = 'news' | 'club-business';
-
 /** What a roster e-mail queued and whom it left out. */
 export interface RosterMailResult {
   queued: number;
@@ -152,7 +125,7 @@ export interface RosterMailResult {
 export class MembersApi {
   private readonly http = inject(HttpClient);
 
-  roster(q: RosterQuery): Observable<{ items: RosterLine[]; total: number }> {
+  roster(q: RosterFormQuery): Observable<{ items: RosterLine[]; total: number }> {
     return this.http.get<{ items: RosterLine[]; total: number }>('/api/admin/members', { params: filterParams(q) });
   }
 
@@ -181,16 +154,16 @@ export class MembersApi {
     return this.http.get<DuesSummary>('/api/admin/members/summary');
   }
 
-  emailRoster(filters: Partial<RosterQuery>, subject: string, text: string, purpose: RosterMailPurpose): Observable<RosterMailResult> {
+  emailRoster(filters: Partial<RosterFormQuery>, subject: string, text: string, purpose: RosterMailPurpose): Observable<RosterMailResult> {
     return this.http.post<RosterMailResult>('/api/admin/members/email', { filters, subject, text, purpose }, quiet());
   }
 
-  settings(): Observable<{ settings: ClubRules }> {
-    return this.http.get<{ settings: ClubRules }>('/api/admin/members/settings');
+  settings(): Observable<{ settings: MembershipSettings }> {
+    return this.http.get<{ settings: MembershipSettings }>('/api/admin/members/settings');
   }
 
-  saveSettings(settings: ClubRules): Observable<{ settings: ClubRules }> {
-    return this.http.put<{ settings: ClubRules }>('/api/admin/members/settings', settings, quiet());
+  saveSettings(settings: MembershipSettings): Observable<{ settings: MembershipSettings }> {
+    return this.http.put<{ settings: MembershipSettings }>('/api/admin/members/settings', settings, quiet());
   }
 
   plans(): Observable<{ items: AdminPlan[] }> {

@@ -18,9 +18,10 @@ import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { LabelPipe } from '../../shared/label-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
-import { MembersApi, filterParams, type RosterMailPurpose, type RosterQuery } from './members-api';
+import type { RosterFormQuery, RosterMailPurpose, RosterSortKey } from '@contracts/membership/roster-schemas';
+import { MembersApi, filterParams } from './members-api';
 
-const FIRST: RosterQuery = { status: '', planId: '', certificationLevel: '', associationExpiresBefore: '', q: '', sort: 'memberNumber', dir: 'asc', page: 1, pageSize: 25 };
+const FIRST: RosterFormQuery = { status: '', planId: '', certificationLevel: '', associationExpiresBefore: '', q: '', sort: 'memberNumber', dir: 'asc', page: 1, pageSize: 25 };
 
 /** The roster: filters, search, server-side sort and paging, CSV export and an e-mail to the filtered list. */
 @Component({
@@ -38,7 +39,7 @@ export class Roster {
   protected readonly columns = ['memberNumber', 'name', 'plan', 'status', 'termEnd', 'certificationLevel', 'associationExpires'];
   protected readonly statuses = ['active', 'lapsing', 'lapsed', 'pending'] as const;
   protected readonly statusLabels = MEMBERSHIP_STATUS_LABELS;
-  protected readonly query = signal<RosterQuery>(FIRST);
+  protected readonly query = signal<RosterFormQuery>(FIRST);
   protected readonly roster = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.roster(params) });
   protected readonly plans = rxResource({ stream: () => this.membership.plans() });
   protected readonly policy = rxResource({ stream: () => this.membership.policy() });
@@ -56,7 +57,7 @@ export class Roster {
   protected readonly mailResult = signal<string | null>(null);
   protected readonly mailProblem = signal<string | null>(null);
 
-  protected set<K extends keyof RosterQuery>(key: K, value: RosterQuery[K]): void {
+  protected set<K extends keyof RosterFormQuery>(key: K, value: RosterFormQuery[K]): void {
     this.query.update((q) => ({ ...q, [key]: value, page: 1 }));
   }
 
@@ -65,7 +66,7 @@ export class Roster {
   }
 
   protected sortBy(s: Sort): void {
-    this.query.update((q) => ({ ...q, sort: (s.direction ? s.active : 'memberNumber') as RosterQuery['sort'], dir: s.direction || 'asc', page: 1 }));
+    this.query.update((q) => ({ ...q, sort: (s.direction ? s.active : 'memberNumber') as RosterSortKey, dir: s.direction || 'asc', page: 1 }));
   }
 
   protected changePage(e: PageEvent): void {

@@ -13,9 +13,10 @@ import { REFUND_ORIGIN_LABELS, REFUND_STATE_LABELS } from '@contracts/labels/ref
 import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
-import { STATUS_LABELS } from '../../shop/shop-types';
+import { ORDER_STATUS_LABELS as STATUS_LABELS } from '@contracts/labels/order-statuses';
 import { RefundPanel } from './refund-panel';
-import { ShopAdminApi, type StaffRefund } from './shop-admin-api';
+import type { StaffRefund } from '@contracts/shop/staff-order-answers';
+import { ShopAdminApi } from './shop-admin-api';
 
 
 /** One order for staff: items, money, packing list to print, pack, ship with tracking, refunds and their history. */

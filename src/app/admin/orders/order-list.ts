@@ -12,8 +12,9 @@ import { MatTableModule } from '@angular/material/table';
 import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { MoneyPipe } from '../../shared/money-pipe';
-import { STATUS_LABELS } from '../../shop/shop-types';
-import { ShopAdminApi, type OrderQuery } from './shop-admin-api';
+import { ORDER_STATUS_LABELS as STATUS_LABELS } from '@contracts/labels/order-statuses';
+import type { OrderListQuery, OrderSortKey } from '@contracts/shop/staff-order-schemas';
+import { ShopAdminApi } from './shop-admin-api';
 
 /** The orders table: server paging and sorting, filters by status, run and dates, search, CSV of the same filter. */
 @Component({
@@ -28,7 +29,7 @@ export class OrderList {
   protected readonly columns = ['number', 'created', 'email', 'status', 'units', 'total'];
   protected readonly statuses = Object.entries(STATUS_LABELS);
   // Never-paid attempts (declined cards) are hidden by default; "Any status" or "Not paid" shows them.
-  protected readonly query = signal<OrderQuery>({ page: 1, pageSize: 25, sort: 'created', dir: 'desc', status: 'placed' });
+  protected readonly query = signal<OrderListQuery>({ page: 1, pageSize: 25, sort: 'created', dir: 'desc', status: 'placed' });
   protected readonly orders = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.orders(params) });
   protected readonly runs = rxResource({ stream: () => this.api.runs() });
   protected readonly csvHref = computed(() => {
@@ -40,11 +41,11 @@ export class OrderList {
     return STATUS_LABELS[status];
   }
 
-  protected filter(patch: Partial<OrderQuery>): void {
+  protected filter(patch: Partial<OrderListQuery>): void {
     this.query.update((q) => ({ ...q, ...patch, page: 1 }));
   }
   protected sortBy(s: Sort): void {
-    this.query.update((q) => ({ ...q, sort: s.direction ? s.active : 'created', dir: s.direction || 'desc', page: 1 }));
+    this.query.update((q) => ({ ...q, sort: s.direction ? (s.active as OrderSortKey) : 'created', dir: s.direction || 'desc', page: 1 }));
   }
   protected changePage(e: PageEvent): void {
     this.query.update((q) => ({ ...q, page: e.pageIndex + 1, pageSize: e.pageSize }));

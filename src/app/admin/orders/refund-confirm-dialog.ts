@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
 import { MoneyPipe } from '../../shared/money-pipe';
-import type { RefundPreview } from './shop-admin-api';
+import type { RefundPreview } from '@contracts/shop/staff-order-answers';
 
 /** What the confirmation shows: the computed refund, the lines it covers and the units going back on sale. */
 export interface RefundConfirmData {

@@ -2,7 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { RefundPanel } from './refund-panel';
-import type { RefundPreview, StaffOrder, StaffRefund } from './shop-admin-api';
+import type { RefundPreview, StaffOrder, StaffRefund } from '@contracts/shop/staff-order-answers';
 
 const order = (over: Partial<StaffOrder> = {}): StaffOrder => ({
   id: 41,
@@ -18,8 +18,8 @@ const order = (over: Partial<StaffOrder> = {}): StaffOrder => ({
   carrier: null,
   trackingNumber: null,
   items: [
-    { id: 501, productName: 'Season shirt', variantLabel: 'M', sku: 'T-M', unitPriceCents: 3500, quantity: 2, lineCents: 7000, restockedQuantity: 0, refundedQuantity: 0, unitsToPack: 2 },
-    { id: 502, productName: 'Season shirt', variantLabel: 'L', sku: 'T-L', unitPriceCents: 3500, quantity: 1, lineCents: 3500, restockedQuantity: 0, refundedQuantity: 0, unitsToPack: 1 },
+    { id: 501, variantId: 71, runId: null, productName: 'Season shirt', variantLabel: 'M', sku: 'T-M', unitPriceCents: 3500, quantity: 2, lineCents: 7000, restockedQuantity: 0, refundedQuantity: 0, unitsToPack: 2 },
+    { id: 502, variantId: 72, runId: null, productName: 'Season shirt', variantLabel: 'L', sku: 'T-L', unitPriceCents: 3500, quantity: 1, lineCents: 3500, restockedQuantity: 0, refundedQuantity: 0, unitsToPack: 1 },
   ],
   discountPercent: 0,
   subtotalCents: 10500,
@@ -29,8 +29,10 @@ const order = (over: Partial<StaffOrder> = {}): StaffOrder => ({
   taxCents: 1428,
   totalCents: 13328,
   refundedCents: 0,
+  currency: 'CAD',
   paymentMessage: null,
   weightGrams: 620,
+  pricedOn: '2026-11-02',
   chargeId: 'ch_test',
   paidOutsideProcessor: false,
   paymentAttempts: 1,

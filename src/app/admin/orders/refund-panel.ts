@@ -12,7 +12,9 @@ import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { newRequestKey } from '../../shared/request-key';
 import { RefundConfirmDialog, type RefundConfirmData } from './refund-confirm-dialog';
-import { ShopAdminApi, type RefundAsk, type StaffOrder, type StaffRefund } from './shop-admin-api';
+import type { StaffOrder, StaffRefund } from '@contracts/shop/staff-order-answers';
+import type { RefundInput } from '@contracts/shop/staff-order-schemas';
+import { ShopAdminApi } from './shop-admin-api';
 
 /**
  * The refund form of an order: tick lines and units, shipping, or type a goodwill amount; the server computes the
@@ -88,7 +90,7 @@ export class RefundPanel {
   }
 
   /** The request the form stands for, or null (with the reason shown) when it asks for nothing. */
-  private ask(): { ask: RefundAsk; formIndex: number[] } | null {
+  private ask(): { ask: RefundInput; formIndex: number[] } | null {
     const v = this.form.getRawValue();
     const ticked = v.lines.map((l, formIndex) => ({ ...l, formIndex })).filter((l) => l.ticked);
     const lines = ticked.map((l) => ({ orderItemId: this.order().items[l.formIndex].id, quantity: Number(l.quantity) }));
@@ -97,7 +99,7 @@ export class RefundPanel {
       this.problem.set('Tick a line or the shipping, or enter an amount.');
       return null;
     }
-    const ask: RefundAsk = { lines, shipping: v.shipping, restock: byLines && v.restock, ...(v.reason.trim() ? { reason: v.reason.trim() } : {}), ...(!byLines ? { amountCents: dollarsToCents(v.amount) } : {}) };
+    const ask: RefundInput = { lines, shipping: v.shipping, restock: byLines && v.restock, ...(v.reason.trim() ? { reason: v.reason.trim() } : {}), ...(!byLines ? { amountCents: dollarsToCents(v.amount) } : {}) };
     return { ask, formIndex: ticked.map((l) => l.formIndex) };
   }
 

@@ -2,84 +2,10 @@ import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
-import type { Order, Product } from '../../shop/shop-types';
+import type { Product } from '@contracts/shop/shop-answers';
+import type { RefundPreview, StaffOrder, StaffOrderPage, StaffRefund } from '@contracts/shop/staff-order-answers';
+import type { OrderListQuery, RefundInput, ShipInput } from '@contracts/shop/staff-order-schemas';
 
-export interface StaffOrderRow {
-  id: number;
-  number: string;
-  status: Order['status'];
-  email: string;
-  shipName: string;
-  units: number;
-  totalCents: number;
-  refundedCents: number;
-  shippingName: string;
-  createdAt: string;
-  disputed: boolean;
-}
-/** One tax reversed by a refund. */
-export interface RefundTaxLine {
-  code: string;
-  jurisdiction: string;
-  label: string;
-  ratePercent: string;
-  taxableCents: number;
-  taxCents: number;
-}
-/** What a refund comes to (the preview, before anything moves). */
-export interface RefundPreview {
-  lines: { orderItemId: number; quantity: number; goodsCents: number }[];
-  goodsCents: number;
-  shippingCents: number;
-  taxLines: RefundTaxLine[];
-  taxCents: number;
-  totalCents: number;
-  closesOrder: boolean;
-}
-/** A refund on record, from the console or from the processor. */
-export interface StaffRefund extends Omit<RefundPreview, 'totalCents' | 'closesOrder'> {
-  id: number;
-  state: 'requested' | 'succeeded' | 'failed';
-  origin: 'staff' | 'processor';
-  amountCents: number;
-  restocked: boolean;
-  unitsBackOnSale: number;
-  reason: string | null;
-  failureMessage: string | null;
-  createdAt: string;
-}
-/** What the treasurer asks to refund. */
-export interface RefundAsk {
-  lines: { orderItemId: number; quantity: number }[];
-  shipping: boolean;
-  amountCents?: number;
-  restock: boolean;
-  reason?: string;
-}
-export interface StaffOrder extends Omit<Order, 'items'> {
-  items: (Order['items'][number] & { restockedQuantity: number; refundedQuantity: number; unitsToPack: number })[];
-  weightGrams: number;
-  chargeId: string | null;
-  paidOutsideProcessor: boolean;
-  paymentAttempts: number;
-  disputedAt: string | null;
-  disputeReason: string | null;
-  /** Print runs this order waits for; it cannot ship before they are printed. */
-  awaitingPrint: string[];
-  shippingRefundedCents: number;
-  refunds: StaffRefund[];
-}
-export interface OrderQuery {
-  page: number;
-  pageSize: number;
-  sort: string;
-  dir: 'asc' | 'desc';
-  status?: string;
-  runId?: number;
-  from?: string;
-  to?: string;
-  q?: string;
-}
 export interface StaffRun {
   id: number;
   name: string;
@@ -145,13 +71,13 @@ const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 export class ShopAdminApi {
   private readonly http = inject(HttpClient);
 
-  static params(q: Partial<OrderQuery>): HttpParams {
+  static params(q: OrderListQuery): HttpParams {
     let p = new HttpParams();
     for (const [k, v] of Object.entries(q)) if (v !== undefined && v !== '' && v !== null) p = p.set(k, String(v));
     return p;
   }
-  orders(q: OrderQuery): Observable<{ items: StaffOrderRow[]; total: number }> {
-    return this.http.get<{ items: StaffOrderRow[]; total: number }>('/api/admin/orders', { params: ShopAdminApi.params(q) });
+  orders(q: OrderListQuery): Observable<StaffOrderPage> {
+    return this.http.get<StaffOrderPage>('/api/admin/orders', { params: ShopAdminApi.params(q) });
   }
   order(id: number): Observable<StaffOrder> {
     return this.http.get<{ order: StaffOrder }>(`/api/admin/orders/${id}`).pipe(map((r) => r.order));
@@ -159,15 +85,15 @@ export class ShopAdminApi {
   pack(id: number): Observable<StaffOrder> {
     return this.http.post<{ order: StaffOrder }>(`/api/admin/orders/${id}/pack`, {}).pipe(map((r) => r.order));
   }
-  ship(id: number, body: { carrier: string; trackingNumber: string }): Observable<StaffOrder> {
+  ship(id: number, body: ShipInput): Observable<StaffOrder> {
     return this.http.post<{ order: StaffOrder }>(`/api/admin/orders/${id}/ship`, body, quiet()).pipe(map((r) => r.order));
   }
   /** What the refund would come to; nothing moves. */
-  refundPreview(id: number, body: RefundAsk): Observable<RefundPreview> {
+  refundPreview(id: number, body: RefundInput): Observable<RefundPreview> {
     return this.http.post<{ refund: RefundPreview }>(`/api/admin/orders/${id}/refund-preview`, body, quiet()).pipe(map((r) => r.refund));
   }
   /** Refunds; `key` is the Idempotency-Key of this one refund, so a retried click never refunds twice. */
-  refund(id: number, body: RefundAsk, key: string): Observable<{ order: StaffOrder; refund: StaffRefund }> {
+  refund(id: number, body: RefundInput, key: string): Observable<{ order: StaffOrder; refund: StaffRefund }> {
     return this.http.post<{ order: StaffOrder; refund: StaffRefund }>(`/api/admin/orders/${id}/refund`, body, { ...quiet(), headers: { 'Idempotency-Key': key } });
   }
   products(): Observable<{ items: (Product & { active: boolean })[]; timeZone: string }> {

@@ -8,7 +8,7 @@ import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { MatRadioGroupHarness } from '@angular/material/radio/testing';
 import { MatSelect } from '@angular/material/select';
 import { By } from '@angular/platform-browser';
-import type { AdminSponsorRow } from '../sponsors/sponsor-admin-api';
+import type { AdminSponsorRow } from '@contracts/sponsors/sponsor-answers';
 import { CreditDialog, type CreditDialogData } from './credit-dialog';
 
 const sponsor = { id: 7, slug: 'voltwhistle-electronics', name: 'Voltwhistle Electronics' } as AdminSponsorRow;

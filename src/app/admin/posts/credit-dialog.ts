@@ -10,7 +10,8 @@ import { MatSelectModule } from '@angular/material/select';
 import { map, of } from 'rxjs';
 import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
-import { SponsorAdminApi, type AdminSponsorRow } from '../sponsors/sponsor-admin-api';
+import type { AdminSponsorRow } from '@contracts/sponsors/sponsor-answers';
+import { SponsorAdminApi } from '../sponsors/sponsor-admin-api';
 import { creditMarker, openPromises, type OpenPromise } from './credit-marker';
 
 /** The sponsors an editor may thank. */

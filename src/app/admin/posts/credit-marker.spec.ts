@@ -1,4 +1,4 @@
-import type { StaffAgreement } from '../sponsors/sponsor-admin-api';
+import type { StaffAgreement } from '@contracts/sponsors/sponsor-answers';
 import { creditMarker, openPromises } from './credit-marker';
 
 const line = (id: number, kind: 'build_log_credit' | 'video_mention', promised: number, delivered: number, dueOn: string) => ({ id, kind, promised, delivered, dueOn, overdue: false, listedNow: false });

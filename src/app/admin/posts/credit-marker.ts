@@ -1,4 +1,4 @@
-import type { StaffAgreement } from '../sponsors/sponsor-admin-api';
+import type { StaffAgreement } from '@contracts/sponsors/sponsor-answers';
 
 /** An open build-log promise a published post may count against. */
 export interface OpenPromise {

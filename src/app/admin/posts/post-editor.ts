@@ -20,7 +20,10 @@ import { LabelPipe } from '../../shared/label-pipe';
 import { SponsorAdminApi } from '../sponsors/sponsor-admin-api';
 import { CreditDialog, type CreditDialogData } from './credit-dialog';
 import { ImageUpload } from './image-upload';
-import { PostAdminApi, type AdminPost, type PostStatus, type PostWrite } from './post-admin-api';
+import type { AdminPost } from '@contracts/build-logs/post-answers';
+import type { PostBodyInput } from '@contracts/build-logs/post-schemas';
+import type { PostStatus } from '@contracts/labels/post-states';
+import { PostAdminApi } from './post-admin-api';
 
 /** Writes a build log: Markdown with the live preview from the server's pipeline, images, credits, schedule, publish. */
 @Component({
@@ -119,7 +122,7 @@ export class PostEditor {
     this.busy.set(true);
     this.problem.set(null);
     const v = this.form.getRawValue();
-    const body: PostWrite = {
+    const body: PostBodyInput = {
       title: v.title,
       ...(v.slug ? { slug: v.slug } : {}),
       summary: v.summary,

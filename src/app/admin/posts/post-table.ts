@@ -13,7 +13,8 @@ import { POST_STATUS_LABELS, POST_VISIBILITY_LABELS } from '@contracts/labels/po
 import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { LabelPipe } from '../../shared/label-pipe';
-import { PostAdminApi, type PostStatus } from './post-admin-api';
+import type { PostStatus } from '@contracts/labels/post-states';
+import { PostAdminApi } from './post-admin-api';
 
 const STATUSES: readonly PostStatus[] = ['draft', 'scheduled', 'published'];
 

@@ -14,7 +14,7 @@ import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { wallTimeToIso } from '../../shared/zoned-time';
 import { RUN_STATE_LABELS } from '../../shop/countdown';
-import type { Product } from '../../shop/shop-types';
+import type { Product } from '@contracts/shop/shop-answers';
 import { ShopAdminApi } from '../orders/shop-admin-api';
 import { dollarsToCents } from '../../shared/dollars';
 import { MAX_PER_ORDER_VALIDATORS, MaxPerOrderField } from './max-per-order-field';

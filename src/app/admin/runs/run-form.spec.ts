@@ -1,7 +1,7 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import type { Product } from '../../shop/shop-types';
+import type { Product } from '@contracts/shop/shop-answers';
 import { RunForm } from './run-form';
 
 const shirt = { id: 7, name: 'Season shirt', variants: [{ id: 71, label: 'M' }, { id: 72, label: 'L' }], run: { id: 3 } } as unknown as Product;

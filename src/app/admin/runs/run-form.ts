@@ -11,7 +11,7 @@ import { applyServerErrors } from '../../core/api-error';
 import { clubTimeInWords } from '@contracts/dates/club-dates';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { wallTimeToIso } from '../../shared/zoned-time';
-import type { Product } from '../../shop/shop-types';
+import type { Product } from '@contracts/shop/shop-answers';
 import { ShopAdminApi } from '../orders/shop-admin-api';
 import { dollarsToCents } from '../../shared/dollars';
 

@@ -2,43 +2,8 @@ import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
-import type { SponsorCredit } from '@contracts/sponsors/sponsor-credit';
-import type { Agreement, DeliverableKind } from '../../sponsors/sponsor-api';
-
-export interface AdminSponsorRow {
-  id: number;
-  slug: string;
-  name: string;
-  website: string | null;
-  blurb: string | null;
-  logoUrl: string | null;
-  tier: string | null;
-  /** Only for the treasurer and admin; editors are not sent sponsor money. */
-  seasonTotalCents?: number;
-}
-
-export type AdminCredit = SponsorCredit;
-
-export interface SponsorDetail {
-  sponsor: Omit<AdminSponsorRow, 'tier' | 'seasonTotalCents'>;
-  /** `email` only for the treasurer and admin. */
-  contacts: { userId: number; email?: string; displayName: string }[];
-  credits: AdminCredit[];
-}
-
-export interface OverdueItem {
-  sponsorId: number;
-  sponsorName: string;
-  agreementId: number;
-  kind: DeliverableKind;
-  promised: number;
-  delivered: number;
-  dueOn: string;
-}
-
-type MoneyField = 'cashCents' | 'cashReceivedOn' | 'cashReceivedCents' | 'inKind' | 'inKindCents' | 'totalCents' | 'note';
-/** An agreement as staff get it: the money fields only for the treasurer and admin. */
-export type StaffAgreement = Omit<Agreement, MoneyField> & Partial<Pick<Agreement, MoneyField>>;
+import type { AdminSponsorRow, OverdueItem, SponsorDetail, StaffAgreement } from '@contracts/sponsors/sponsor-answers';
+import type { TaxTreatment } from '@contracts/sponsors/tax-treatments';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -68,7 +33,7 @@ export class SponsorAdminApi {
   addAgreement(id: number, body: object): Observable<{ id: number }> {
     return this.http.post<{ id: number }>(`/api/admin/sponsors/${id}/agreements`, body, quiet());
   }
-  setTaxTreatment(agreementId: number, body: { taxTreatment: 'promotion' | 'gift'; province: string | null }): Observable<{ taxTreatment: string; taxProvince: string | null }> {
+  setTaxTreatment(agreementId: number, body: { taxTreatment: TaxTreatment; province: string | null }): Observable<{ taxTreatment: string; taxProvince: string | null }> {
     return this.http.put<{ taxTreatment: string; taxProvince: string | null }>(`/api/admin/sponsors/agreements/${agreementId}/tax-treatment`, body, quiet());
   }
   /** A link the browser downloads directly (the session cookie authorises it). */

@@ -14,9 +14,10 @@ import { PAYMENT_METHOD_LABELS } from '@contracts/labels/payment-methods';
 import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
-import { KIND_LABELS, type DeliverableKind } from '../../sponsors/sponsor-api';
+import { DELIVERABLE_KIND_LABELS as KIND_LABELS, type DeliverableKind } from '@contracts/labels/deliverable-kinds';
 import { ImageUpload } from '../posts/image-upload';
-import { SponsorAdminApi, type StaffAgreement } from './sponsor-admin-api';
+import type { StaffAgreement } from '@contracts/sponsors/sponsor-answers';
+import { SponsorAdminApi } from './sponsor-admin-api';
 import { dollarsToCents } from '../../shared/dollars';
 
 const HAND_KINDS: DeliverableKind[] = ['video_mention', 'social_post', 'logo_on_merch', 'sponsors_page'];

@@ -15,8 +15,9 @@ import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
-import { KIND_LABELS } from '../../sponsors/sponsor-api';
-import { SponsorAdminApi, type AdminSponsorRow } from './sponsor-admin-api';
+import { DELIVERABLE_KIND_LABELS as KIND_LABELS } from '@contracts/labels/deliverable-kinds';
+import type { AdminSponsorRow } from '@contracts/sponsors/sponsor-answers';
+import { SponsorAdminApi } from './sponsor-admin-api';
 import { dollarsToCents } from '../../shared/dollars';
 
 /** Sponsors at a glance: overdue promises first, the sortable list, a quick add form and the tier thresholds. */

@@ -1,12 +1,12 @@
 import type { Router } from 'express';
-import type { AuthService } from '../auth/auth-service';
-import type { DashboardSources } from '../books/dashboard-sources';
-import type { AppDeps } from '../deps';
-import type { ScheduledJob } from '../jobs/job-runner';
-import type { SettingsService } from '../settings/settings-service';
-import type { ImageUploads } from '../uploads/image-uploads';
-import type { DatabaseNotifications } from './database-notifications';
-import type { PersonalDataPart } from './personal-data';
+import type { AuthService } from './auth/auth-service';
+import type { DashboardSources } from './books/dashboard-sources';
+import type { AppDeps } from './deps';
+import type { ScheduledJob } from './jobs/job-runner';
+import type { SettingsService } from './settings/settings-service';
+import type { ImageUploads } from './uploads/image-uploads';
+import type { DatabaseNotifications } from './platform/database-notifications';
+import type { PersonalDataPart } from './platform/personal-data';
 
 /** What every feature is built from: the side-effecting deps plus the services all features share. */
 export interface Platform {

@@ -1,0 +1,69 @@
+/**
+ * Layers point down: the platform knows no feature, repositories no services, the app no server, and contracts
+ * (read by both sides) nothing but zod and each other. Each check lists the offending file and import.
+ */
+import { readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
+
+const root = path.join(__dirname, '..', '..');
+
+interface Import {
+  /** The importing file, from the repository root (`server/shop/order-repository.ts`). */
+  file: string;
+  /** The specifier as written. */
+  specifier: string;
+  /** Where a relative specifier points, from the repository root without extension; null for a package. */
+  target: string | null;
+}
+
+const SPECIFIER = /(?:\bfrom\s*|\bimport\s*\(\s*|^\s*import\s+)['"]([^'"]+)['"]/gm;
+
+function tsFiles(dir: string): string[] {
+  return (readdirSync(path.join(root, dir), { recursive: true }) as string[])
+    .filter((f) => f.endsWith('.ts'))
+    .map((f) => path.posix.join(dir, f.split(path.sep).join('/')));
+}
+
+function importsOf(dir: string): Import[] {
+  return tsFiles(dir).flatMap((file) =>
+    [...readFileSync(path.join(root, file), 'utf8').matchAll(SPECIFIER)].map(([, specifier]) => ({
+      file,
+      specifier,
+      target: specifier.startsWith('.') ? path.posix.normalize(path.posix.join(path.posix.dirname(file), specifier)) : null,
+    })),
+  );
+}
+
+const listed = (bad: Import[]) => bad.map((i) => `${i.file} imports '${i.specifier}'`);
+
+describe('server layers', () => {
+  const server = importsOf('server');
+
+  it('finds the imports it checks', () => {
+    expect(server.length).toBeGreaterThan(500);
+  });
+
+  it('keeps server/platform to itself, the contracts, the config and packages', () => {
+    const allowed = (t: string) => t.startsWith('server/platform/') || t.startsWith('contracts/') || t === 'server/config';
+    const bad = server.filter((i) => i.file.startsWith('server/platform/') && i.target !== null && !allowed(i.target));
+    expect(listed(bad)).toEqual([]);
+  });
+
+  it('lets no repository import a service', () => {
+    const bad = server.filter((i) => i.file.endsWith('-repository.ts') && i.target !== null && i.target.endsWith('-service'));
+    expect(listed(bad)).toEqual([]);
+  });
+});
+
+describe('client and contracts', () => {
+  it('lets nothing in src/ import from server/', () => {
+    const bad = importsOf('src').filter((i) => i.target?.startsWith('server/') || i.specifier.startsWith('server/'));
+    expect(listed(bad)).toEqual([]);
+  });
+
+  it('keeps contracts/ free of the server, the app, Angular and Express', () => {
+    const forbidden = (i: Import) =>
+      i.target !== null ? !i.target.startsWith('contracts/') : i.specifier.startsWith('@angular/') || i.specifier === 'express' || i.specifier.startsWith('express/');
+    expect(listed(importsOf('contracts').filter(forbidden))).toEqual([]);
+  });
+});
