@@ -4,6 +4,7 @@ import eslint from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import angular from 'angular-eslint';
 import prettier from 'eslint-config-prettier';
+import jsdoc from 'eslint-plugin-jsdoc';
 import globals from 'globals';
 
 export default tseslint.config(
@@ -34,6 +35,17 @@ export default tseslint.config(
   {
     files: ['src/**/*.html'],
     extends: [...angular.configs.templateRecommended, ...angular.configs.templateAccessibility],
+  },
+  {
+    // Every public method of a service, repository or client API says in one sentence what it does and why.
+    files: ['server/**/*-service.ts', 'server/**/*-repository.ts', 'src/app/**/*-api.ts', 'src/app/**/*-store.ts'],
+    plugins: { jsdoc },
+    rules: {
+      'jsdoc/require-jsdoc': [
+        'error',
+        { publicOnly: true, checkConstructors: false, require: { FunctionDeclaration: true, MethodDefinition: true } },
+      ],
+    },
   },
   prettier,
 );

@@ -17,6 +17,7 @@ export interface UserRow {
   updated_at: Date;
 }
 
+/** The session's copy of a user: just what requests check (id, roles, verified), never the password hash. */
 export function toSessionUser(row: UserRow): SessionUser {
   return { id: Number(row.id), email: row.email, displayName: row.display_name, roles: row.roles, emailVerified: row.email_verified_at !== null };
 }

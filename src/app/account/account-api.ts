@@ -11,24 +11,31 @@ const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 export class AccountApi {
   private readonly http = inject(HttpClient);
 
+  /** Confirms the e-mail address with the token from the link; errors are the page's to show. */
   verifyEmail(token: string): Observable<void> {
     return this.http.post<void>('/api/auth/verify', { token }, quiet());
   }
+  /** Sends the verification e-mail again to the signed-in address. */
   resendVerification(): Observable<unknown> {
     return this.http.post('/api/auth/verify/resend', {});
   }
+  /** Asks for a password-reset e-mail; the answer is the same whether or not the address has an account. */
   requestReset(email: string): Observable<unknown> {
     return this.http.post('/api/auth/password-reset', { email }, quiet());
   }
+  /** Sets a new password with the token from the reset e-mail. */
   confirmReset(token: string, password: string): Observable<void> {
     return this.http.post<void>('/api/auth/password-reset/confirm', { token, password }, quiet());
   }
+  /** The signed-in person's profile and their choice about marketing mail. */
   profile(): Observable<{ user: User; marketingOptOut: boolean }> {
     return this.http.get<{ user: User; marketingOptOut: boolean }>('/api/account/profile');
   }
+  /** Saves the display name or marketing choice; refusals come back for the fields. */
   updateProfile(patch: { displayName?: string; marketingOptOut?: boolean }): Observable<{ user: User }> {
     return this.http.patch<{ user: User }>('/api/account/profile', patch, quiet());
   }
+  /** Changes the password after checking the current one; other sessions end on the server. */
   changePassword(currentPassword: string, newPassword: string): Observable<void> {
     return this.http.post<void>('/api/account/password', { currentPassword, newPassword }, quiet());
   }

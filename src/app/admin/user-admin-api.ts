@@ -34,6 +34,7 @@ export interface AccountChange {
 export class UserAdminApi {
   private readonly http = inject(HttpClient);
 
+  /** One page of accounts, filtered by words, role and state. */
   list(query: { q?: string; role?: Role; state?: 'active' | 'disabled'; page: number; pageSize: number }): Observable<UserPage> {
     let params = new HttpParams().set('page', query.page).set('pageSize', query.pageSize);
     if (query.q) params = params.set('q', query.q);
@@ -42,18 +43,22 @@ export class UserAdminApi {
     return this.http.get<UserPage>('/api/admin/users', { params });
   }
 
+  /** Lifts the lock that repeated wrong passwords put on an account. */
   clearSignInLock(id: number): Observable<void> {
     return this.http.delete<void>(`/api/admin/users/${id}/sign-in-lock`);
   }
 
+  /** Sets an account's roles; the server ends its other sessions when they change. */
   setRoles(id: number, roles: Role[]): Observable<{ user: AdminUser }> {
     return this.http.patch<{ user: AdminUser }>(`/api/admin/users/${id}`, { roles }, { context: new HttpContext().set(QUIET_ERRORS, false) });
   }
 
+  /** Disables or enables an account; disabling ends its sessions. */
   setDisabled(id: number, disabled: boolean): Observable<{ user: AdminUser }> {
     return this.http.post<{ user: AdminUser }>(`/api/admin/users/${id}/${disabled ? 'disable' : 'enable'}`, {});
   }
 
+  /** An account's role and state changes, newest first. */
   history(id: number): Observable<AccountChange[]> {
     return this.http.get<{ items: AccountChange[] }>(`/api/admin/users/${id}/history`).pipe(map((r) => r.items));
   }

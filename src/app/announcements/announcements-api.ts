@@ -27,18 +27,22 @@ export interface MySubscription {
 export class AnnouncementsApi {
   private readonly http = inject(HttpClient);
 
+  /** The consent wording the sign-up form must show, with its version. */
   wording() {
     return this.http.get<ConsentWording>('/api/subscriptions/wording');
   }
 
+  /** Asks for news by e-mail; nothing is sent until the address confirms. */
   signUp(body: { email: string; topics: Topic[]; productId?: number; page: SignUpPage }) {
     return this.http.post<{ queued: true }>('/api/subscriptions', body);
   }
 
+  /** Confirms a sign-up with the token from the e-mail. */
   confirm(token: string) {
     return this.http.get<{ confirmed: { email: string; topics: Topic[] } }>('/api/subscriptions/confirm', { params: { token } });
   }
 
+  /** What an unsubscribe link would stop, for the page to ask before it does. */
   describeUnsubscribe(token: string) {
     return this.http.get<{ email: string; topic: Topic; label: string }>('/api/subscriptions/unsubscribe', { params: { token } });
   }
@@ -49,6 +53,7 @@ export class AnnouncementsApi {
     return this.http.post<{ unsubscribed: { email: string; topic: Topic; label: string } }>('/api/subscriptions/unsubscribe', 'List-Unsubscribe=One-Click', { params: { token }, headers });
   }
 
+  /** The signed-in person's lists and their consent on each. */
   mine() {
     return this.http.get<{ items: MySubscription[] }>('/api/account/subscriptions');
   }

@@ -10,12 +10,14 @@ import type { PostListParams } from '@contracts/build-logs/post-schemas';
 export class BuildLogApi {
   private readonly http = inject(HttpClient);
 
+  /** One page of published build logs, optionally for one tag. */
   list(query: PostListParams): Observable<PostPage<PostSummary>> {
     let params = new HttpParams().set('page', query.page).set('pageSize', query.pageSize);
     if (query.tag) params = params.set('tag', query.tag);
     return this.http.get<PostPage<PostSummary>>('/api/posts', { params });
   }
 
+  /** Every tag on published posts, with how many posts carry it. */
   tags(): Observable<{ items: { tag: string; count: number }[] }> {
     return this.http.get<{ items: { tag: string; count: number }[] }>('/api/posts/tags');
   }

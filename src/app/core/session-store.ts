@@ -22,6 +22,7 @@ export class SessionStore {
    */
   readonly ready: Promise<void> = isPlatformBrowser(inject(PLATFORM_ID)) ? this.load() : Promise.resolve();
 
+  /** Whether the signed-in person holds at least one of the roles. */
   hasAnyRole(roles: readonly Role[]): boolean {
     return this.current()?.roles.some((r) => roles.includes(r)) ?? false;
   }
@@ -36,6 +37,7 @@ export class SessionStore {
     }
   }
 
+  /** Signs in and keeps the user; a new session means a new CSRF token. */
   async signIn(email: string, password: string): Promise<User> {
     const res = await firstValueFrom(this.http.post<{ user: User }>('/api/auth/login', { email, password }, { context: new HttpContext().set(QUIET_ERRORS, true) }));
     this.csrf.forget();
@@ -52,6 +54,7 @@ export class SessionStore {
     return res.message;
   }
 
+  /** Signs out and forgets the user and the CSRF token. */
   async signOut(): Promise<void> {
     await firstValueFrom(this.http.post('/api/auth/logout', {}));
     this.csrf.forget();

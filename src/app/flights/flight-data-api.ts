@@ -8,6 +8,7 @@ import type { ColumnMapping, FlightDetail, FlightSummary } from './flight-data';
 export class FlightDataApi {
   private readonly http = inject(HttpClient);
 
+  /** A flight with its summary, events and chart points. */
   get(id: number): Observable<FlightDetail> {
     return this.http.get<FlightDetail>(`/api/flights/${id}`);
   }

@@ -104,14 +104,17 @@ const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 export class MembershipApi {
   private readonly http = inject(HttpClient);
 
+  /** The dues plans open to join. */
   plans(): Observable<{ items: Plan[] }> {
     return this.http.get<{ items: Plan[] }>('/api/membership/plans');
   }
 
+  /** The current waiver and safety-code versions a member must accept. */
   policy(): Observable<MembershipPolicy> {
     return this.http.get<MembershipPolicy>('/api/membership/policy');
   }
 
+  /** What joining on a plan costs today (dues, joining fee, insurance). */
   quote(planId: number): Observable<Quote> {
     return this.http.post<Quote>('/api/membership/quote', { planId }, quiet());
   }
@@ -121,22 +124,27 @@ export class MembershipApi {
     return this.http.get<{ membership: Membership | null }>('/api/membership/me', quiet());
   }
 
+  /** Joins the club and pays the dues; refusals come back for the fields. */
   join(body: JoinRequest): Observable<{ membership: Membership }> {
     return this.http.post<{ membership: Membership }>('/api/membership', body, quiet());
   }
 
+  /** Pays the next term's dues, with the card on file or a new token. */
   renew(body: { paymentToken?: string; waiverVersion?: string; safetyCodeVersion?: string }): Observable<{ membership: Membership }> {
     return this.http.post<{ membership: Membership }>('/api/membership/renew', body, quiet());
   }
 
+  /** Saves the member's association number and certification. */
   updateProfile(patch: { associationNumber?: string | null; associationExpires?: string | null; certificationLevel?: string; certificationDate?: string | null }): Observable<{ membership: Membership }> {
     return this.http.patch<{ membership: Membership }>('/api/membership/me', patch, quiet());
   }
 
+  /** Switches automatic renewal on (with a card) or off. */
   setAutoRenew(autoRenew: boolean, paymentToken?: string): Observable<{ membership: Membership }> {
     return this.http.post<{ membership: Membership }>('/api/membership/auto-renew', { autoRenew, ...(paymentToken ? { paymentToken } : {}) }, quiet());
   }
 
+  /** The member card with its check-in QR code. */
   card(): Observable<{ card: MemberCard }> {
     return this.http.get<{ card: MemberCard }>('/api/membership/card');
   }

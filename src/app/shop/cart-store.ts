@@ -54,10 +54,12 @@ export class CartStore {
     return this.state().find((l) => l.variantId === line.variantId)!.quantity;
   }
 
+  /** Sets a line's quantity within the per-order limit; zero or less removes it. */
   setQuantity(variantId: number, quantity: number): void {
     this.state.update((lines) => (quantity <= 0 ? lines.filter((l) => l.variantId !== variantId) : lines.map((l) => (l.variantId === variantId ? { ...l, quantity: Math.min(l.maxPerOrder ?? 20, quantity) } : l))));
   }
 
+  /** Empties the cart (after an order is paid). */
   clear(): void {
     this.state.set([]);
   }

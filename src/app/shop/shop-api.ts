@@ -12,6 +12,7 @@ const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 export class ShopApi {
   private readonly http = inject(HttpClient);
 
+  /** The public catalogue with exact units left. */
   products(): Observable<Product[]> {
     return this.http.get<{ items: Product[] }>('/api/products').pipe(map((r) => r.items));
   }
@@ -19,6 +20,7 @@ export class ShopApi {
   product(slug: string): Observable<ProductDetail> {
     return this.http.get<ProductDetail>(`/api/products/${encodeURIComponent(slug)}`, quiet());
   }
+  /** The shipping methods a buyer can choose. */
   shippingMethods(): Observable<ShippingMethod[]> {
     return this.http.get<{ items: ShippingMethod[] }>('/api/shipping-methods').pipe(map((r) => r.items));
   }
@@ -26,9 +28,11 @@ export class ShopApi {
   quote(body: QuoteInput): Observable<Quote> {
     return this.http.post<Quote>('/api/checkout/quote', body, quiet());
   }
+  /** Places and pays an order in one step; errors are the checkout's to show beside the fields. */
   placeOrder(body: OrderInput): Observable<OrderAnswer> {
     return this.http.post<OrderAnswer>('/api/orders', body, quiet());
   }
+  /** Pays for an order whose card was declined, with a new card. */
   payAgain(id: number, paymentToken: string): Observable<OrderAnswer> {
     return this.http.post<OrderAnswer>(`/api/orders/${id}/pay`, { paymentToken }, quiet());
   }
@@ -37,6 +41,7 @@ export class ShopApi {
     // The page says "not found" itself; no snack bar on top of it.
     return this.http.get<OrderAnswer>(`/api/orders/${id}`, { ...quiet(), ...(key ? { params: { key } } : {}) }).pipe(map((r) => r.order));
   }
+  /** The signed-in buyer's orders, newest first. */
   myOrders(): Observable<OrderSummary[]> {
     return this.http.get<AccountOrders>('/api/account/orders').pipe(map((r) => r.items));
   }

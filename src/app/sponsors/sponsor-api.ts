@@ -9,6 +9,7 @@ import type { PortalView, SponsorWall } from '@contracts/sponsors/sponsor-answer
 export class SponsorApi {
   private readonly http = inject(HttpClient);
 
+  /** The public sponsors page: this season's sponsors by tier. */
   wall(): Observable<SponsorWall> {
     return this.http.get<SponsorWall>('/api/sponsors/wall');
   }

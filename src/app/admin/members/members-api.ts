@@ -125,14 +125,17 @@ export interface RosterMailResult {
 export class MembersApi {
   private readonly http = inject(HttpClient);
 
+  /** One page of the filtered, sorted member roster. */
   roster(q: RosterFormQuery): Observable<{ items: RosterLine[]; total: number }> {
     return this.http.get<{ items: RosterLine[]; total: number }>('/api/admin/members', { params: filterParams(q) });
   }
 
+  /** One member's record: terms, payments, verifications and history. */
   detail(id: number): Observable<MemberDetail> {
     return this.http.get<MemberDetail>(`/api/admin/members/${id}`);
   }
 
+  /** Records dues paid in person (cash or cheque) with its receipt number. */
   recordPayment(id: number, body: { amountCents: number; method: string; receiptNumber: string; note?: string }): Observable<MemberDetail> {
     return this.http.post<MemberDetail>(`/api/admin/members/${id}/payments`, body, quiet());
   }
@@ -142,38 +145,47 @@ export class MembersApi {
     return this.http.post<MemberDetail>(`/api/admin/members/${id}/refunds`, body, { ...quiet(), headers: { 'Idempotency-Key': key } });
   }
 
+  /** Records that staff checked a member's association number or certification. */
   verify(id: number, body: VerifyRequest): Observable<MemberDetail> {
     return this.http.post<MemberDetail>(`/api/admin/members/${id}/verifications`, body, quiet());
   }
 
+  /** Takes back a verification staff recorded by mistake. */
   withdrawVerification(id: number, what: VerifiedPart): Observable<MemberDetail> {
     return this.http.delete<MemberDetail>(`/api/admin/members/${id}/verifications/${what}`, quiet());
   }
 
+  /** The dues season at a glance: members by status and dues collected. */
   summary(): Observable<DuesSummary> {
     return this.http.get<DuesSummary>('/api/admin/members/summary');
   }
 
+  /** Mails the members the filters pick, as club news (follows consent) or club business. */
   emailRoster(filters: Partial<RosterFormQuery>, subject: string, text: string, purpose: RosterMailPurpose): Observable<RosterMailResult> {
     return this.http.post<RosterMailResult>('/api/admin/members/email', { filters, subject, text, purpose }, quiet());
   }
 
+  /** The club rules that dues and flying status follow. */
   settings(): Observable<{ settings: MembershipSettings }> {
     return this.http.get<{ settings: MembershipSettings }>('/api/admin/members/settings');
   }
 
+  /** Saves the club rules; refusals come back for the fields. */
   saveSettings(settings: MembershipSettings): Observable<{ settings: MembershipSettings }> {
     return this.http.put<{ settings: MembershipSettings }>('/api/admin/members/settings', settings, quiet());
   }
 
+  /** Every dues plan, switched off ones included. */
   plans(): Observable<{ items: AdminPlan[] }> {
     return this.http.get<{ items: AdminPlan[] }>('/api/admin/members/plans');
   }
 
+  /** Adds a dues plan. */
   createPlan(plan: NewPlan): Observable<{ plan: AdminPlan }> {
     return this.http.post<{ plan: AdminPlan }>('/api/admin/members/plans', plan, quiet());
   }
 
+  /** Changes only the plan fields sent, so the rest stay as they were. */
   updatePlan(id: number, patch: Partial<PlanChanges>): Observable<{ plan: AdminPlan }> {
     return this.http.patch<{ plan: AdminPlan }>(`/api/admin/members/plans/${id}`, patch, quiet());
   }

@@ -13,6 +13,7 @@ const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 export class PostAdminApi {
   private readonly http = inject(HttpClient);
 
+  /** One page of posts for the editor's list, filtered and sorted. */
   list(q: AdminPostListParams): Observable<PostPage<AdminPostRow>> {
     let params = new HttpParams().set('sort', q.sort).set('dir', q.dir).set('page', q.page).set('pageSize', q.pageSize);
     if (q.status) params = params.set('status', q.status);
@@ -20,18 +21,22 @@ export class PostAdminApi {
     return this.http.get<PostPage<AdminPostRow>>('/api/admin/posts', { params });
   }
 
+  /** One post with its Markdown, for the editor. */
   get(id: number): Observable<AdminPost> {
     return this.http.get<AdminPost>(`/api/admin/posts/${id}`);
   }
 
+  /** Saves a new post; refusals come back for the fields. */
   create(body: PostBodyInput): Observable<{ id: number; slug: string }> {
     return this.http.post<{ id: number; slug: string }>('/api/admin/posts', body, quiet());
   }
 
+  /** Saves an edited post. */
   update(id: number, body: PostBodyInput): Observable<{ id: number; slug: string }> {
     return this.http.put<{ id: number; slug: string }>(`/api/admin/posts/${id}`, body, quiet());
   }
 
+  /** The post rendered as readers will see it, whether it needs the hazard notice, and any unknown sponsor in its credits. */
   preview(body: PostPreviewInput): Observable<PostPreview> {
     return this.http.post<PostPreview>('/api/admin/posts/preview', body, quiet());
   }

@@ -12,27 +12,35 @@ const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 export class SponsorAdminApi {
   private readonly http = inject(HttpClient);
 
+  /** Every sponsor with what they gave and what is still owed to them. */
   list(): Observable<{ items: AdminSponsorRow[] }> {
     return this.http.get<{ items: AdminSponsorRow[] }>('/api/admin/sponsors');
   }
+  /** Promised credits past their due date, across sponsors. */
   overdue(): Observable<{ items: OverdueItem[] }> {
     return this.http.get<{ items: OverdueItem[] }>('/api/admin/sponsors/overdue');
   }
+  /** Adds a sponsor. */
   create(body: { name: string; website: string; blurb: string }): Observable<{ id: number; slug: string }> {
     return this.http.post<{ id: number; slug: string }>('/api/admin/sponsors', body, quiet());
   }
+  /** One sponsor's record for the console. */
   detail(id: number): Observable<SponsorDetail> {
     return this.http.get<SponsorDetail>(`/api/admin/sponsors/${id}`);
   }
+  /** Saves a sponsor's name, website, blurb and logo. */
   update(id: number, body: { name: string; website: string; blurb: string; logoUrl: string | null }): Observable<unknown> {
     return this.http.put(`/api/admin/sponsors/${id}`, body, quiet());
   }
+  /** A sponsor's agreements with what each promised and what was delivered. */
   ledger(id: number): Observable<{ agreements: StaffAgreement[] }> {
     return this.http.get<{ agreements: StaffAgreement[] }>(`/api/admin/sponsors/${id}/ledger`);
   }
+  /** Records a new agreement (cash or parts, and the credits promised in return). */
   addAgreement(id: number, body: object): Observable<{ id: number }> {
     return this.http.post<{ id: number }>(`/api/admin/sponsors/${id}/agreements`, body, quiet());
   }
+  /** Records whether an agreement is paid promotion or a gift, which decides the tax on it. */
   setTaxTreatment(agreementId: number, body: { taxTreatment: TaxTreatment; province: string | null }): Observable<{ taxTreatment: string; taxProvince: string | null }> {
     return this.http.put<{ taxTreatment: string; taxProvince: string | null }>(`/api/admin/sponsors/agreements/${agreementId}/tax-treatment`, body, quiet());
   }
@@ -40,18 +48,23 @@ export class SponsorAdminApi {
   invoiceUrl(agreementId: number): string {
     return `/api/admin/sponsors/agreements/${agreementId}/invoice.pdf`;
   }
+  /** Records the day and way an agreement's cash arrived. */
   cashReceived(agreementId: number, body: { receivedOn: string; method: string }): Observable<unknown> {
     return this.http.post(`/api/admin/sponsors/agreements/${agreementId}/cash-received`, body, quiet());
   }
+  /** Records a credit given (a post, a video, a listing) and whether it counts towards a promise. */
   addCredit(id: number, body: object): Observable<{ id: number; counted: boolean }> {
     return this.http.post<{ id: number; counted: boolean }>(`/api/admin/sponsors/${id}/credits`, body, quiet());
   }
+  /** Invites an address to the sponsor's portal. */
   addContact(id: number, email: string): Observable<unknown> {
     return this.http.post(`/api/admin/sponsors/${id}/contacts`, { email }, quiet());
   }
+  /** The sponsor tiers and the amount each starts at. */
   tiers(): Observable<{ tiers: { name: string; minCents: number }[] }> {
     return this.http.get<{ tiers: { name: string; minCents: number }[] }>('/api/admin/sponsors/tiers');
   }
+  /** Saves the sponsor tiers. */
   setTiers(tiers: { name: string; minCents: number }[]): Observable<unknown> {
     return this.http.put('/api/admin/sponsors/tiers', { tiers }, quiet());
   }
