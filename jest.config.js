@@ -1,5 +1,8 @@
 /** Two projects: the server side (unit, API and browser tests under test/) and the Angular specs beside the components. */
-const swc = ['@swc/jest', { jsc: { parser: { syntax: 'typescript', decorators: true }, target: 'es2022' }, module: { type: 'commonjs' } }];
+const swc = [
+  '@swc/jest',
+  { jsc: { parser: { syntax: 'typescript', decorators: true }, target: 'es2022' }, module: { type: 'commonjs' } },
+];
 
 module.exports = {
   maxWorkers: 2,

@@ -29,10 +29,19 @@ export class BenchClient {
     return res;
   }
 
-  private async send(method: string, path: string, body?: unknown, token?: string): Promise<{ status: number; body: unknown }> {
+  private async send(
+    method: string,
+    path: string,
+    body?: unknown,
+    token?: string,
+  ): Promise<{ status: number; body: unknown }> {
     const res = await fetch(this.base + path, {
       method,
-      headers: { ...(this.cookie ? { cookie: this.cookie } : {}), ...(token ? { 'x-csrf-token': token } : {}), ...(body ? { 'content-type': 'application/json' } : {}) },
+      headers: {
+        ...(this.cookie ? { cookie: this.cookie } : {}),
+        ...(token ? { 'x-csrf-token': token } : {}),
+        ...(body ? { 'content-type': 'application/json' } : {}),
+      },
       body: body ? JSON.stringify(body) : undefined,
     });
     const set = res.headers.get('set-cookie');

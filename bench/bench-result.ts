@@ -10,6 +10,17 @@ export interface BenchResult {
   scores?: Record<string, number>;
 }
 
-export function withBaseline(r: Omit<BenchResult, 'baseline'>, baselineName: string, baselineValue: number): BenchResult {
-  return { ...r, baseline: { name: baselineName, value: baselineValue, ratio: baselineValue ? Number((r.value / baselineValue).toFixed(3)) : 0 } };
+export function withBaseline(
+  r: Omit<BenchResult, 'baseline'>,
+  baselineName: string,
+  baselineValue: number,
+): BenchResult {
+  return {
+    ...r,
+    baseline: {
+      name: baselineName,
+      value: baselineValue,
+      ratio: baselineValue ? Number((r.value / baselineValue).toFixed(3)) : 0,
+    },
+  };
 }

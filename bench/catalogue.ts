@@ -9,7 +9,8 @@ const RUNS = 3;
 
 async function requestsPerSecond(url: string): Promise<number> {
   const result = await autocannon({ url, connections: 20, duration: 6, pipelining: 1 });
-  if (result.non2xx || result.errors) throw new Error(`${url}: ${result.non2xx} non-2xx answers, ${result.errors} errors`);
+  if (result.non2xx || result.errors)
+    throw new Error(`${url}: ${result.non2xx} non-2xx answers, ${result.errors} errors`);
   return Math.round(result.requests.average);
 }
 
@@ -39,7 +40,12 @@ export async function catalogueBench(app: PadsideApp): Promise<BenchResult> {
       ours.push(await requestsPerSecond(`${padside.url}/api/products`));
     }
     return withBaseline(
-      { name: 'catalogue GET /api/products', value: median(ours), unit: 'req/s', notes: `${sample.length} bytes per response, 20 connections, median of ${RUNS} runs of 6 s (Padside ${ours.join(', ')}; bare ${base.join(', ')})` },
+      {
+        name: 'catalogue GET /api/products',
+        value: median(ours),
+        unit: 'req/s',
+        notes: `${sample.length} bytes per response, 20 connections, median of ${RUNS} runs of 6 s (Padside ${ours.join(', ')}; bare ${base.join(', ')})`,
+      },
       'bare Express JSON handler, same body',
       median(base),
     );

@@ -20,18 +20,27 @@ export interface DropBuyersOutput {
 }
 
 async function main(input: DropBuyersInput): Promise<DropBuyersOutput> {
-  const buyers = await Promise.all(Array.from({ length: input.buyers }, async () => {
-    const c = new BenchClient(input.base);
-    await c.token();
-    return c;
-  }));
+  const buyers = await Promise.all(
+    Array.from({ length: input.buyers }, async () => {
+      const c = new BenchClient(input.base);
+      await c.token();
+      return c;
+    }),
+  );
   const started = Date.now();
   const outcomes = await Promise.all(
     buyers.map(async (c, i) => {
       const t0 = performance.now();
       const res = await c.post('/api/orders', {
         items: [{ variantId: input.variantIds[i % input.variantIds.length], quantity: 1 }],
-        shipTo: { name: `Buyer ${i}`, line1: '1 Pad Road', city: 'Gopher Flats', province: 'MB', postalCode: 'R0A 0A0', country: 'CA' },
+        shipTo: {
+          name: `Buyer ${i}`,
+          line1: '1 Pad Road',
+          city: 'Gopher Flats',
+          province: 'MB',
+          postalCode: 'R0A 0A0',
+          country: 'CA',
+        },
         shippingMethodId: input.shippingMethodId,
         email: `drop-${input.runId}-${i}@example.test`,
         paymentToken: 'tok_visa',

@@ -19,7 +19,12 @@ function percentile(sorted: number[], p: number): number {
  * paid checkout needs one charge, so the fake's rate is the ceiling a checkout can reach on this machine. The buyers
  * run in a worker thread and the baseline's charges come from this process, as the server's do.
  */
-export async function dropBench(app: PadsideApp, payments: PaymentGateway, adminEmail: string, adminPassword: string): Promise<BenchResult[]> {
+export async function dropBench(
+  app: PadsideApp,
+  payments: PaymentGateway,
+  adminEmail: string,
+  adminPassword: string,
+): Promise<BenchResult[]> {
   const server = app.listen(0, '127.0.0.1');
   await new Promise((r) => server.once('listening', r));
   const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -33,29 +38,60 @@ export async function dropBench(app: PadsideApp, payments: PaymentGateway, admin
       priceCents: 3000,
       weightGrams: 200,
       variants: [{ label: 'M' }, { label: 'L' }],
-      run: { cap: CAP, opensAt: new Date(now - 60_000).toISOString(), closesAt: new Date(now + 3600_000).toISOString() },
+      run: {
+        cap: CAP,
+        opensAt: new Date(now - 60_000).toISOString(),
+        closesAt: new Date(now + 3600_000).toISOString(),
+      },
     });
-    if (created.status !== 201) throw new Error(`could not create the bench product: ${created.status} ${JSON.stringify(created.body)}`);
+    if (created.status !== 201)
+      throw new Error(`could not create the bench product: ${created.status} ${JSON.stringify(created.body)}`);
     const product = (created.body as { product?: { slug: string } }).product ?? (created.body as { slug: string });
-    const detail = (await admin.get(`/api/products/${product.slug}`)).body as { variants: { id: number }[]; run: { id: number } };
+    const detail = (await admin.get(`/api/products/${product.slug}`)).body as {
+      variants: { id: number }[];
+      run: { id: number };
+    };
     const methods = (await admin.get('/api/shipping-methods')).body as { items: { id: number; code: string }[] };
     const pickup = methods.items.find((m) => m.code === 'pickup')!;
 
-    const { outcomes, seconds } = await runBuyers({ base, buyers: BUYERS, variantIds: detail.variants.map((v) => v.id), shippingMethodId: pickup.id, runId: now });
+    const { outcomes, seconds } = await runBuyers({
+      base,
+      buyers: BUYERS,
+      variantIds: detail.variants.map((v) => v.id),
+      shippingMethodId: pickup.id,
+      runId: now,
+    });
     const paid = outcomes.filter((o) => o.status === 201);
     const soldOut = outcomes.filter((o) => o.status === 409).length;
     const others = new Map<number, number>();
-    for (const o of outcomes) if (o.status !== 201 && o.status !== 409) others.set(o.status, (others.get(o.status) ?? 0) + 1);
+    for (const o of outcomes)
+      if (o.status !== 201 && o.status !== 409) others.set(o.status, (others.get(o.status) ?? 0) + 1);
     const other = [...others].map(([status, n]) => `${n} × ${status}`).join(', ') || '0';
     const latencies = outcomes.map((o) => o.ms).sort((a, b) => a - b);
-    const after = (await admin.get(`/api/products/${product.slug}`)).body as { run: { cap: number; remaining: number } };
+    const after = (await admin.get(`/api/products/${product.slug}`)).body as {
+      run: { cap: number; remaining: number };
+    };
     const sold = after.run.cap - after.run.remaining;
 
     const fake = await chargesPerSecond(payments, CAP);
     const rate = Number((paid.length / seconds).toFixed(1));
     return [
-      withBaseline({ name: `drop: ${BUYERS} buyers on a ${CAP}-unit run`, value: rate, unit: 'checkouts/s', notes: `units sold ${sold} of ${CAP}; paid ${paid.length}, sold out ${soldOut}, other ${other}; p50 ${percentile(latencies, 50).toFixed(0)} ms, p95 ${percentile(latencies, 95).toFixed(0)} ms, p99 ${percentile(latencies, 99).toFixed(0)} ms` }, `payment fake alone, ${CAP} charges at once`, fake),
-      { name: 'drop: units sold (must equal the cap)', value: sold, unit: 'units', notes: sold === CAP ? 'equals the cap' : `DOES NOT equal the cap ${CAP}` },
+      withBaseline(
+        {
+          name: `drop: ${BUYERS} buyers on a ${CAP}-unit run`,
+          value: rate,
+          unit: 'checkouts/s',
+          notes: `units sold ${sold} of ${CAP}; paid ${paid.length}, sold out ${soldOut}, other ${other}; p50 ${percentile(latencies, 50).toFixed(0)} ms, p95 ${percentile(latencies, 95).toFixed(0)} ms, p99 ${percentile(latencies, 99).toFixed(0)} ms`,
+        },
+        `payment fake alone, ${CAP} charges at once`,
+        fake,
+      ),
+      {
+        name: 'drop: units sold (must equal the cap)',
+        value: sold,
+        unit: 'units',
+        notes: sold === CAP ? 'equals the cap' : `DOES NOT equal the cap ${CAP}`,
+      },
     ];
   } finally {
     server.close();
@@ -77,7 +113,15 @@ async function chargesPerSecond(payments: PaymentGateway, n: number): Promise<nu
   const run = `bench-${Date.now()}`;
   const started = performance.now();
   const results = await Promise.all(
-    Array.from({ length: n }, (_, i) => payments.charge({ amountCents: 3150, token: 'tok_visa', description: `Bench charge ${i}`, idempotencyKey: `${run}-${i}`, metadata: { bench: run } })),
+    Array.from({ length: n }, (_, i) =>
+      payments.charge({
+        amountCents: 3150,
+        token: 'tok_visa',
+        description: `Bench charge ${i}`,
+        idempotencyKey: `${run}-${i}`,
+        metadata: { bench: run },
+      }),
+    ),
   );
   const seconds = (performance.now() - started) / 1000;
   const unpaid = results.filter((r) => r.outcome !== 'paid').length;

@@ -19,5 +19,9 @@ export function initialJsGzipBytes(browserDir: string): number {
 export function frontEndBench(appDist: string, emptyDist: string): BenchResult {
   const ours = initialJsGzipBytes(path.join(appDist, 'browser'));
   const empty = initialJsGzipBytes(path.join(emptyDist, 'browser'));
-  return withBaseline({ name: 'front end: initial JS transfer (gzip)', value: ours, unit: 'bytes' }, 'empty Angular 21 app', empty);
+  return withBaseline(
+    { name: 'front end: initial JS transfer (gzip)', value: ours, unit: 'bytes' },
+    'empty Angular 21 app',
+    empty,
+  );
 }

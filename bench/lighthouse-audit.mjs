@@ -5,6 +5,11 @@ import lighthouse from 'lighthouse';
 
 const [url, port, categories] = process.argv.slice(2);
 // Lighthouse's default config: the mobile preset (emulated mid-range phone, simulated slow 4G, 4x CPU slowdown).
-const result = await lighthouse(url, { port: Number(port), output: 'json', logLevel: 'error', onlyCategories: categories.split(',') });
+const result = await lighthouse(url, {
+  port: Number(port),
+  output: 'json',
+  logLevel: 'error',
+  onlyCategories: categories.split(','),
+});
 if (!result) throw new Error(`lighthouse returned nothing for ${url}`);
 process.stdout.write(JSON.stringify(result.lhr));

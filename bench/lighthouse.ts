@@ -35,23 +35,35 @@ async function listen(app: express.Express): Promise<{ url: string; close(): voi
 }
 
 function summarise(lhr: Result): PageRun {
-  if (lhr.runtimeError) throw new Error(`lighthouse could not audit ${lhr.finalDisplayedUrl}: ${lhr.runtimeError.message}`);
-  const scores = Object.fromEntries(CATEGORIES.map((c) => [c, Math.round((lhr.categories[c]?.score ?? 0) * 100)])) as Scores;
+  if (lhr.runtimeError)
+    throw new Error(`lighthouse could not audit ${lhr.finalDisplayedUrl}: ${lhr.runtimeError.message}`);
+  const scores = Object.fromEntries(
+    CATEGORIES.map((c) => [c, Math.round((lhr.categories[c]?.score ?? 0) * 100)]),
+  ) as Scores;
   const findings = CATEGORIES.flatMap((c) =>
     lhr.categories[c].auditRefs
       .filter((ref) => ref.weight > 0 && lhr.audits[ref.id].score !== null && lhr.audits[ref.id].score! < 1)
-      .map((ref) => `${c}: ${lhr.audits[ref.id].title}${lhr.audits[ref.id].displayValue ? ` (${lhr.audits[ref.id].displayValue})` : ''}`),
+      .map(
+        (ref) =>
+          `${c}: ${lhr.audits[ref.id].title}${lhr.audits[ref.id].displayValue ? ` (${lhr.audits[ref.id].displayValue})` : ''}`,
+      ),
   );
-  const errored = Object.values(lhr.audits).filter((a) => a.scoreDisplayMode === 'error').map((a) => a.id);
+  const errored = Object.values(lhr.audits)
+    .filter((a) => a.scoreDisplayMode === 'error')
+    .map((a) => a.id);
   return { lhr, scores, findings, errored };
 }
 
 /** The run with the median performance score, so its other scores and findings belong to one real run. */
 async function medianRun(url: string, port: number): Promise<PageRun> {
   const runs: PageRun[] = [];
-  for (let failures = 0; runs.length < RUNS; ) {
+  for (let failures = 0; runs.length < RUNS;) {
     // Asynchronously, so this process keeps serving the pages being audited.
-    const { stdout } = await promisify(execFile)(process.execPath, [path.join(__dirname, 'lighthouse-audit.mjs'), url, String(port), CATEGORIES.join(',')], { maxBuffer: 256 * 2 ** 20 });
+    const { stdout } = await promisify(execFile)(
+      process.execPath,
+      [path.join(__dirname, 'lighthouse-audit.mjs'), url, String(port), CATEGORIES.join(',')],
+      { maxBuffer: 256 * 2 ** 20 },
+    );
     const lhr = JSON.parse(stdout) as Result;
     // A lost trace (NO_NAVSTART and the like) is Lighthouse's own hiccup; its message says to run it again.
     if (lhr.runtimeError && ++failures <= MAX_RERUNS) {
@@ -77,8 +89,11 @@ export async function lighthouseBench(app: PadsideApp, emptyDist: string, chrome
     const client = new BenchClient(padside.url);
     const product = ((await client.get('/api/products')).body as { items: { slug: string }[] }).items[0];
     // A post everyone can read, so the page measured is the post and not the members-only notice.
-    const post = ((await client.get('/api/posts')).body as { items: { slug: string; membersOnly: boolean }[] }).items.find((p) => !p.membersOnly);
-    if (!product || !post) throw new Error('lighthouse bench: the demo catalogue or build logs are missing (run prepare-db --demo-seed)');
+    const post = (
+      (await client.get('/api/posts')).body as { items: { slug: string; membersOnly: boolean }[] }
+    ).items.find((p) => !p.membersOnly);
+    if (!product || !post)
+      throw new Error('lighthouse bench: the demo catalogue or build logs are missing (run prepare-db --demo-seed)');
     const pages = [
       { name: 'home page', path: '/' },
       { name: 'product page', path: `/shop/p/${product.slug}` },
@@ -93,10 +108,21 @@ export async function lighthouseBench(app: PadsideApp, emptyDist: string, chrome
       const run = await medianRun(`${padside.url}${page.path}`, chrome.port);
       const report = path.join(reports, `${page.name.replace(/ /g, '-')}.json`);
       writeFileSync(report, JSON.stringify(run.lhr));
-      console.log(`lighthouse ${page.path}: ${JSON.stringify(run.scores)} (report: ${report})\n${run.findings.map((f) => `  - ${f}`).join('\n') || '  (every weighted audit passed)'}`);
+      console.log(
+        `lighthouse ${page.path}: ${JSON.stringify(run.scores)} (report: ${report})\n${run.findings.map((f) => `  - ${f}`).join('\n') || '  (every weighted audit passed)'}`,
+      );
       if (run.errored.length) console.log(`  could not run: ${run.errored.join(', ')}`);
       results.push({
-        ...withBaseline({ name: `Lighthouse, mobile: ${page.name} (performance)`, value: run.scores.performance, unit: '/ 100', notes: `accessibility ${run.scores.accessibility}, best practices ${run.scores['best-practices']}; ${page.path}, median of ${RUNS}` }, 'empty Angular 21 app', baseline.scores.performance),
+        ...withBaseline(
+          {
+            name: `Lighthouse, mobile: ${page.name} (performance)`,
+            value: run.scores.performance,
+            unit: '/ 100',
+            notes: `accessibility ${run.scores.accessibility}, best practices ${run.scores['best-practices']}; ${page.path}, median of ${RUNS}`,
+          },
+          'empty Angular 21 app',
+          baseline.scores.performance,
+        ),
         scores: run.scores,
       });
     }

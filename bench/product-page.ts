@@ -25,7 +25,9 @@ function firstByteMs(url: string): Promise<{ ms: number; status: number; type: s
 
 /** Median time to first byte of `REQUESTS` requests one after another, after one to warm up. */
 async function medianFirstByte(url: string): Promise<number> {
-  await (await firstByteMs(url)).body;
+  await (
+    await firstByteMs(url)
+  ).body;
   const times: number[] = [];
   for (let i = 0; i < REQUESTS; i++) {
     const r = await firstByteMs(url);
@@ -42,16 +44,33 @@ async function medianFirstByte(url: string): Promise<number> {
 export async function productPageBench(app: PadsideApp): Promise<BenchResult | null> {
   const site = await listen(app);
   try {
-    const { items } = (await (await fetch(`${site.url}/api/products`)).json()) as { items: { slug: string; name: string }[] };
+    const { items } = (await (await fetch(`${site.url}/api/products`)).json()) as {
+      items: { slug: string; name: string }[];
+    };
     const product = items[0];
     if (!product) return skip('the catalogue is empty');
     const page = await firstByteMs(`${site.url}/shop/p/${product.slug}`);
     const html = await page.body;
-    if (page.status !== 200 || !page.type.startsWith('text/html')) return skip(`/shop/p/${product.slug} answered ${page.status} ${page.type || 'without a type'} (no built app to serve?)`);
-    if (!html.includes(escapeHtml(product.name))) return skip(`/shop/p/${product.slug} is the browser app's empty page: it does not hold the product's name, so the server renders nothing`);
+    if (page.status !== 200 || !page.type.startsWith('text/html'))
+      return skip(
+        `/shop/p/${product.slug} answered ${page.status} ${page.type || 'without a type'} (no built app to serve?)`,
+      );
+    if (!html.includes(escapeHtml(product.name)))
+      return skip(
+        `/shop/p/${product.slug} is the browser app's empty page: it does not hold the product's name, so the server renders nothing`,
+      );
     const ours = await medianFirstByte(`${site.url}/shop/p/${product.slug}`);
     const api = await medianFirstByte(`${site.url}/api/products`);
-    return withBaseline({ name: 'product page, server-rendered: time to first byte', value: ours, unit: 'ms', notes: `/shop/p/${product.slug}, median of ${REQUESTS} one after another` }, 'GET /api/products', api);
+    return withBaseline(
+      {
+        name: 'product page, server-rendered: time to first byte',
+        value: ours,
+        unit: 'ms',
+        notes: `/shop/p/${product.slug}, median of ${REQUESTS} one after another`,
+      },
+      'GET /api/products',
+      api,
+    );
   } finally {
     site.close();
   }

@@ -44,7 +44,17 @@ export async function reportsBench(db: Knex, treasurer: BenchClient): Promise<Be
   ] as const;
   const out: BenchResult[] = [];
   for (const [name, fn] of lines) {
-    out.push(withBaseline({ name: `reports on ${ORDERS.toLocaleString('en-CA')} orders: ${name}`, value: await time(fn), unit: 'ms (median of 5)' }, 'SELECT count(*) FROM money_movements', count));
+    out.push(
+      withBaseline(
+        {
+          name: `reports on ${ORDERS.toLocaleString('en-CA')} orders: ${name}`,
+          value: await time(fn),
+          unit: 'ms (median of 5)',
+        },
+        'SELECT count(*) FROM money_movements',
+        count,
+      ),
+    );
   }
   return out;
 }

@@ -32,11 +32,20 @@ async function main(): Promise<void> {
     await t.close();
   }
   const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? 'cpu'}, ${Math.round(os.totalmem() / 2 ** 30)} GiB, Node ${process.version}, ${os.platform()} ${os.release()}`;
-  const rows = results.map((r) => `| ${r.name} | ${r.value} ${r.unit} | ${r.baseline ? `${r.baseline.name}: ${r.baseline.value}` : ''} | ${r.baseline?.ratio ?? ''} | ${r.notes ?? ''} |`);
-  const table = ['| benchmark | result | baseline (same run) | ratio | notes |', '|---|---|---|---|---|', ...rows].join('\n');
+  const rows = results.map(
+    (r) =>
+      `| ${r.name} | ${r.value} ${r.unit} | ${r.baseline ? `${r.baseline.name}: ${r.baseline.value}` : ''} | ${r.baseline?.ratio ?? ''} | ${r.notes ?? ''} |`,
+  );
+  const table = ['| benchmark | result | baseline (same run) | ratio | notes |', '|---|---|---|---|---|', ...rows].join(
+    '\n',
+  );
   console.log(`\n${table}\n\nMachine: ${machine}\n`);
   if (only) console.log(`${only} only: bench/results.json left as it was.`);
-  else writeFileSync(path.join(__dirname, 'results.json'), JSON.stringify({ ranAt: new Date().toISOString(), machine, results }, null, 2) + '\n');
+  else
+    writeFileSync(
+      path.join(__dirname, 'results.json'),
+      JSON.stringify({ ranAt: new Date().toISOString(), machine, results }, null, 2) + '\n',
+    );
 }
 
 /** With --cpu-prof, prints when each part starts on the profile's clock (µs), to cut the profile into parts. */

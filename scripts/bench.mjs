@@ -28,11 +28,23 @@ try {
     ...(process.argv.includes('--cpu-prof') ? { BENCH_CPU_PROF: '1' } : {}),
   };
   // The server runs inside the benchmark process, so its profile is the server's (and the load generator's).
-  const profile = process.argv.includes('--cpu-prof') ? ['--cpu-prof', '--cpu-prof-dir', path.join(os.tmpdir(), 'padside-cpu-prof')] : [];
+  const profile = process.argv.includes('--cpu-prof')
+    ? ['--cpu-prof', '--cpu-prof-dir', path.join(os.tmpdir(), 'padside-cpu-prof')]
+    : [];
   const run = (cmd, args) => spawnSync(cmd, args, { stdio: 'inherit', env }).status === 0;
-  const builds = env.BENCH_ONLY === 'back-end' || (
-    run('npx', ['ng', 'build', '--output-path', env.BENCH_APP_DIST]) &&
-    run('npx', ['ng', 'build', '--configuration', 'production', '--project', 'empty-app', '--output-path', env.BENCH_EMPTY_DIST]));
+  const builds =
+    env.BENCH_ONLY === 'back-end' ||
+    (run('npx', ['ng', 'build', '--output-path', env.BENCH_APP_DIST]) &&
+      run('npx', [
+        'ng',
+        'build',
+        '--configuration',
+        'production',
+        '--project',
+        'empty-app',
+        '--output-path',
+        env.BENCH_EMPTY_DIST,
+      ]));
   const ok =
     builds &&
     // The demo catalogue, so the catalogue benchmark serves real products.

@@ -13,7 +13,9 @@ let failed = false;
 for (const [name, bin, args] of checks) {
   const r = spawnSync(process.execPath, [path.join(root, bin), ...args], { cwd: root, stdio: 'inherit' });
   if (r.status !== 0) {
-    console.error(`padside style: ${name} found problems (run \`npm run ${name === 'lint' ? 'lint -- --fix' : 'format'}\`)`);
+    console.error(
+      `padside style: ${name} found problems (run \`npm run ${name === 'lint' ? 'lint -- --fix' : 'format'}\`)`,
+    );
     failed = true;
   }
 }

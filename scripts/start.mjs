@@ -66,9 +66,13 @@ try {
   };
   console.log('padside: building the server and the app');
   for (const script of ['build:server', 'build:client']) {
-    if (spawnSync('npm', ['run', '-s', script], { stdio: 'inherit' }).status !== 0) throw new Error(`padside: npm run ${script} failed`);
+    if (spawnSync('npm', ['run', '-s', script], { stdio: 'inherit' }).status !== 0)
+      throw new Error(`padside: npm run ${script} failed`);
   }
-  const prepared = spawnSync(process.execPath, ['dist/server/tasks/prepare-db.js', '--demo-seed'], { stdio: 'inherit', env: { ...env, ...appEnv } });
+  const prepared = spawnSync(process.execPath, ['dist/server/tasks/prepare-db.js', '--demo-seed'], {
+    stdio: 'inherit',
+    env: { ...env, ...appEnv },
+  });
   if (prepared.status !== 0) throw new Error('padside: database preparation failed');
   const server = startChild('app', process.execPath, ['dist/server/main.js'], { env: appEnv });
   server.on('exit', (code) => void stopAll(code ?? 1));

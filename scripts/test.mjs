@@ -23,11 +23,25 @@ try {
   console.log('padside test: starting a throwaway PostgreSQL, MailDev, payment fake and object store');
   stack = await startThrowawayStack('test');
   const skipBuild = Boolean(process.env.PADSIDE_SKIP_BUILD);
-  const env = { ...stack.env, CHROMIUM_PATH: chromium, BROWSER_DIST: skipBuild ? '' : path.join(stack.tmp, 'app', 'browser') };
+  const env = {
+    ...stack.env,
+    CHROMIUM_PATH: chromium,
+    BROWSER_DIST: skipBuild ? '' : path.join(stack.tmp, 'app', 'browser'),
+  };
   const steps = [
     ['typecheck', 'npm', ['run', '-s', 'typecheck'], !process.env.PADSIDE_SKIP_TYPECHECK],
-    ['build the app for the browser tests', 'npx', ['ng', 'build', '--output-path', path.join(stack.tmp, 'app')], !skipBuild],
-    ['migrate the test database', process.execPath, ['node_modules/tsx/dist/cli.mjs', 'server/tasks/prepare-db.ts'], true],
+    [
+      'build the app for the browser tests',
+      'npx',
+      ['ng', 'build', '--output-path', path.join(stack.tmp, 'app')],
+      !skipBuild,
+    ],
+    [
+      'migrate the test database',
+      process.execPath,
+      ['node_modules/tsx/dist/cli.mjs', 'server/tasks/prepare-db.ts'],
+      true,
+    ],
     ['jest', process.execPath, ['node_modules/jest/bin/jest.js', ...jestArgs], true],
   ];
   code = 0;

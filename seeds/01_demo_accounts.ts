@@ -17,7 +17,13 @@ export async function seed(knex: Knex): Promise<void> {
   const hash = await hashPassword(DEMO_PASSWORD);
   for (const a of DEMO_ACCOUNTS) {
     await knex('users')
-      .insert({ email: a.email, password_hash: hash, display_name: a.name, roles: [...a.roles], email_verified_at: knex.fn.now() })
+      .insert({
+        email: a.email,
+        password_hash: hash,
+        display_name: a.name,
+        roles: [...a.roles],
+        email_verified_at: knex.fn.now(),
+      })
       .onConflict('email')
       .ignore();
   }

@@ -81,7 +81,13 @@ export async function seed(knex: Knex): Promise<void> {
   const sponsorRepo = new SponsorRepository(knex);
   const credits = new CreditService(sponsorRepo, config.publicUrl, config.site.teamName);
   const settings = new SettingsService(knex);
-  const sponsorTax = new SponsorTaxService(knex, sponsorRepo, settings, new ShopConfigRepository(knex), config.site.teamName);
+  const sponsorTax = new SponsorTaxService(
+    knex,
+    sponsorRepo,
+    settings,
+    new ShopConfigRepository(knex),
+    config.site.teamName,
+  );
   const sponsors = new SponsorService(knex, sponsorRepo, credits, users, settings, sponsorTax);
   const posts = new PostService(knex, new PostRepository(knex), sponsorRepo, credits);
 
@@ -93,13 +99,24 @@ export async function seed(knex: Knex): Promise<void> {
   }
 
   const dir = path.join(projectRoot, 'content');
-  for (const file of readdirSync(dir).filter((f) => f.endsWith('.md')).sort()) {
+  for (const file of readdirSync(dir)
+    .filter((f) => f.endsWith('.md'))
+    .sort()) {
     const post = parseContentFile(file, readFileSync(path.join(dir, file), 'utf8'));
     if (await knex('posts').where('slug', post.slug).first()) continue;
     const author = await users.byEmail(post.author);
     const credited = await sponsorRepo.bySlugs(post.credits);
     await posts.create(
-      { title: post.title, slug: post.slug, summary: post.summary, markdown: post.markdown, tags: post.tags, membersOnly: post.membersOnly, status: 'published', credits: credited.map((c) => Number(c.id)) },
+      {
+        title: post.title,
+        slug: post.slug,
+        summary: post.summary,
+        markdown: post.markdown,
+        tags: post.tags,
+        membersOnly: post.membersOnly,
+        status: 'published',
+        credits: credited.map((c) => Number(c.id)),
+      },
       author ? Number(author.id) : null,
       post.publishedAt,
     );

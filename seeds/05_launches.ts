@@ -11,20 +11,58 @@ import { dateInZone } from '../server/platform/clock';
 import { DEMO_PASSWORD } from './01_demo_accounts';
 
 /** The demo range officer (README's table). */
-export const DEMO_RANGE_OFFICER = { email: 'rso@padside.test', name: 'Agathe Thunderbird-Voss', roles: ['fan', 'range_officer'] };
+export const DEMO_RANGE_OFFICER = {
+  email: 'rso@padside.test',
+  name: 'Agathe Thunderbird-Voss',
+  roles: ['fan', 'range_officer'],
+};
 
 /** The invented field the Gopher Flats Rocketry Society flies from. */
-const SITE = { site_name: 'Coulee Flats Field', site_address: 'Range Road 41, 6 km south of Gopher Flats, MB', site_lat: '49.712000', site_lon: '-98.903000' };
+const SITE = {
+  site_name: 'Coulee Flats Field',
+  site_address: 'Range Road 41, 6 km south of Gopher Flats, MB',
+  site_lat: '49.712000',
+  site_lon: '-98.903000',
+};
 
 /**
  * Invented launch days, `inDays` from the day of seeding; `{season}` in a title becomes the season of the day's date,
  * so a demo seeded in any month reads true.
  */
 const LAUNCHES = [
-  { key: 'shakedown', title: '{Season} shakedown launch', inDays: -24, status: 'done', ceiling: 900, notes: 'Bring your member card to the range table.' },
-  { key: 'windy-saturday', title: 'Saturday club launch', inDays: -10, status: 'called_off', ceiling: 900, notes: '', reason: 'Gusts over 35 km/h forecast all day' },
-  { key: 'fly-day', title: '{Season} fly day', inDays: 11, status: 'scheduled', ceiling: 1500, notes: 'Airspace arrangement to 1,500 m. Pads 1-4 model, pads 5-6 high power.' },
-  { key: 'high-power', title: '{Season} high-power day', inDays: 39, status: 'scheduled', ceiling: 3000, notes: 'High-power pads open; certification cards checked at the table.' },
+  {
+    key: 'shakedown',
+    title: '{Season} shakedown launch',
+    inDays: -24,
+    status: 'done',
+    ceiling: 900,
+    notes: 'Bring your member card to the range table.',
+  },
+  {
+    key: 'windy-saturday',
+    title: 'Saturday club launch',
+    inDays: -10,
+    status: 'called_off',
+    ceiling: 900,
+    notes: '',
+    reason: 'Gusts over 35 km/h forecast all day',
+  },
+  {
+    key: 'fly-day',
+    title: '{Season} fly day',
+    inDays: 11,
+    status: 'scheduled',
+    ceiling: 1500,
+    notes: 'Airspace arrangement to 1,500 m. Pads 1-4 model, pads 5-6 high power.',
+  },
+  {
+    key: 'high-power',
+    title: '{Season} high-power day',
+    inDays: 39,
+    status: 'scheduled',
+    ceiling: 3000,
+    notes: 'High-power pads open; certification cards checked at the table.',
+  },
 ] as const;
 
 /**
@@ -47,9 +85,42 @@ export function launchTitleFor(title: string, date: string): string {
 
 /** Cards flown at the done launch: flyer e-mail, rocket, mass, motors, expected altitude, recovery, pad, outcome. */
 const FLOWN = [
-  { email: 'member@padside.test', rocket: 'Filament Falcon', mass: 96, motors: ['C6-5'], expected: 180, recovery: 'parachute', pad: '2', outcome: 'recovered', notes: 'Straight boost, chute out just past apogee.', log: { boostMps2: 60, burnS: 0.8, descentMps: 4.5 } },
-  { email: 'member@padside.test', rocket: 'PLA Prairie Dog', mass: 410, motors: ['F32-6T'], expected: 420, recovery: 'parachute', pad: '3', outcome: 'damaged', notes: 'One fin cracked on landing in the stubble.', log: null },
-  { email: 'hollis.quarrie@padside.test', rocket: 'Coulee Crow', mass: 1650, motors: ['H128W-M'], expected: 650, recovery: 'dual_deploy', pad: '5', outcome: 'recovered', notes: 'Drogue at apogee, main at 150 m.', log: { boostMps2: 65, burnS: 1.6, descentMps: 6 } },
+  {
+    email: 'member@padside.test',
+    rocket: 'Filament Falcon',
+    mass: 96,
+    motors: ['C6-5'],
+    expected: 180,
+    recovery: 'parachute',
+    pad: '2',
+    outcome: 'recovered',
+    notes: 'Straight boost, chute out just past apogee.',
+    log: { boostMps2: 60, burnS: 0.8, descentMps: 4.5 },
+  },
+  {
+    email: 'member@padside.test',
+    rocket: 'PLA Prairie Dog',
+    mass: 410,
+    motors: ['F32-6T'],
+    expected: 420,
+    recovery: 'parachute',
+    pad: '3',
+    outcome: 'damaged',
+    notes: 'One fin cracked on landing in the stubble.',
+    log: null,
+  },
+  {
+    email: 'hollis.quarrie@padside.test',
+    rocket: 'Coulee Crow',
+    mass: 1650,
+    motors: ['H128W-M'],
+    expected: 650,
+    recovery: 'dual_deploy',
+    pad: '5',
+    outcome: 'recovered',
+    notes: 'Drogue at apogee, main at 150 m.',
+    log: { boostMps2: 65, burnS: 1.6, descentMps: 6 },
+  },
 ] as const;
 
 /**
@@ -57,7 +128,13 @@ const FLOWN = [
  * `boostMps2` for `burnS`, coasts under standard gravity to apogee and comes down at `descentMps`, sampled at 20 Hz,
  * from a field `fieldMetres` above sea level. Pressure by the US Standard Atmosphere 1976 troposphere formula.
  */
-export function syntheticAltimeterLog(o: { boostMps2: number; burnS: number; descentMps: number; fieldMetres?: number; padS?: number }): string {
+export function syntheticAltimeterLog(o: {
+  boostMps2: number;
+  burnS: number;
+  descentMps: number;
+  fieldMetres?: number;
+  padS?: number;
+}): string {
   const g = 9.80665;
   const field = o.fieldMetres ?? 250;
   const pad = o.padS ?? 2;
@@ -66,7 +143,14 @@ export function syntheticAltimeterLog(o: { boostMps2: number; burnS: number; des
   const tApogee = o.burnS + vBurnout / g;
   const apogee = hBurnout + vBurnout ** 2 / (2 * g);
   const tLanding = tApogee + apogee / o.descentMps;
-  const height = (t: number) => (t <= 0 ? 0 : t <= o.burnS ? 0.5 * o.boostMps2 * t ** 2 : t <= tApogee ? hBurnout + vBurnout * (t - o.burnS) - 0.5 * g * (t - o.burnS) ** 2 : Math.max(0, apogee - o.descentMps * (t - tApogee)));
+  const height = (t: number) =>
+    t <= 0
+      ? 0
+      : t <= o.burnS
+        ? 0.5 * o.boostMps2 * t ** 2
+        : t <= tApogee
+          ? hBurnout + vBurnout * (t - o.burnS) - 0.5 * g * (t - o.burnS) ** 2
+          : Math.max(0, apogee - o.descentMps * (t - tApogee));
   const accel = (t: number) => (t <= 0 || t > tLanding ? 1 : t <= o.burnS ? 1 + o.boostMps2 / g : t <= tApogee ? 0 : 1);
   const rows = ['time_s,pressure_pa,temperature_c,accel_g'];
   for (let i = 0; ; i++) {
@@ -83,7 +167,13 @@ export function syntheticAltimeterLog(o: { boostMps2: number; burnS: number; des
 export async function seed(knex: Knex): Promise<void> {
   const hash = await hashPassword(DEMO_PASSWORD);
   await knex('users')
-    .insert({ email: DEMO_RANGE_OFFICER.email, password_hash: hash, display_name: DEMO_RANGE_OFFICER.name, roles: DEMO_RANGE_OFFICER.roles, email_verified_at: knex.fn.now() })
+    .insert({
+      email: DEMO_RANGE_OFFICER.email,
+      password_hash: hash,
+      display_name: DEMO_RANGE_OFFICER.name,
+      roles: DEMO_RANGE_OFFICER.roles,
+      email_verified_at: knex.fn.now(),
+    })
     .onConflict('email')
     .ignore();
   const rso = await knex('users').where('email', DEMO_RANGE_OFFICER.email).first('id');
@@ -123,38 +213,62 @@ export async function seed(knex: Knex): Promise<void> {
     ]);
   }
 
-  const settings = (await knex('settings').where('key', LAUNCH_SETTINGS.key).first())?.value ?? LAUNCH_SETTINGS.defaults;
+  const settings =
+    (await knex('settings').where('key', LAUNCH_SETTINGS.key).first())?.value ?? LAUNCH_SETTINGS.defaults;
   const done = ids['shakedown'];
   for (const f of FLOWN) {
-    const flyer = await knex('users as u').join('memberships as m', 'm.user_id', 'u.id').where('u.email', f.email).first('u.id', 'm.member_number', 'm.certification_level');
+    const flyer = await knex('users as u')
+      .join('memberships as m', 'm.user_id', 'u.id')
+      .where('u.email', f.email)
+      .first('u.id', 'm.member_number', 'm.certification_level');
     if (!flyer) continue;
-    await knex('launch_attendance').insert({ launch_id: done, user_id: flyer.id, member_number: flyer.member_number, checked_in_by: rso.id }).onConflict(['launch_id', 'user_id']).ignore();
+    await knex('launch_attendance')
+      .insert({ launch_id: done, user_id: flyer.id, member_number: flyer.member_number, checked_in_by: rso.id })
+      .onConflict(['launch_id', 'user_id'])
+      .ignore();
     const motors = f.motors.map((m) => parseMotorDesignation(m)!);
-    const checked = flightWarnings({ liftoffMassGrams: f.mass, motors, expectedAltitudeMetres: f.expected, ceilingMetres: 900, allowedClasses: allowedClassesFor(flyer.certification_level, settings) });
-    const [flight] = await knex('flights').insert({
-      launch_id: done,
-      user_id: flyer.id,
-      rocket_name: f.rocket,
-      liftoff_mass_grams: f.mass,
-      motors: JSON.stringify(motors),
-      expected_altitude_metres: f.expected,
-      recovery: f.recovery,
-      pad: f.pad,
-      notes: '',
-      thrust_to_weight: Math.round(checked.thrustToWeight * 100) / 100,
-      warnings: JSON.stringify(checked.warnings),
-      needs_high_power: checked.needsHighPower,
-      certification_level: flyer.certification_level,
-      status: 'flown',
-      decided_by: rso.id,
-      decided_at: knex.fn.now(),
-      outcome: f.outcome,
-      outcome_notes: f.notes,
-      flown_at: knex.fn.now(),
-    }).returning('id');
+    const checked = flightWarnings({
+      liftoffMassGrams: f.mass,
+      motors,
+      expectedAltitudeMetres: f.expected,
+      ceilingMetres: 900,
+      allowedClasses: allowedClassesFor(flyer.certification_level, settings),
+    });
+    const [flight] = await knex('flights')
+      .insert({
+        launch_id: done,
+        user_id: flyer.id,
+        rocket_name: f.rocket,
+        liftoff_mass_grams: f.mass,
+        motors: JSON.stringify(motors),
+        expected_altitude_metres: f.expected,
+        recovery: f.recovery,
+        pad: f.pad,
+        notes: '',
+        thrust_to_weight: Math.round(checked.thrustToWeight * 100) / 100,
+        warnings: JSON.stringify(checked.warnings),
+        needs_high_power: checked.needsHighPower,
+        certification_level: flyer.certification_level,
+        status: 'flown',
+        decided_by: rso.id,
+        decided_at: knex.fn.now(),
+        outcome: f.outcome,
+        outcome_notes: f.notes,
+        flown_at: knex.fn.now(),
+      })
+      .returning('id');
     if (!f.log) continue;
     // The demo chart comes from a made-up log run through the same analysis as an upload.
     const a = await analyseFlightLog(Readable.from(Buffer.from(syntheticAltimeterLog(f.log))));
-    await knex('flight_data').insert({ flight_id: flight.id, summary: JSON.stringify(a.summary), series: JSON.stringify(a.series), events: JSON.stringify(a.events), mapping: JSON.stringify(a.mapping), filter: a.filter, file_name: `${f.rocket.toLowerCase().replace(/\W+/g, '-')}.csv`, uploaded_by: flyer.id });
+    await knex('flight_data').insert({
+      flight_id: flight.id,
+      summary: JSON.stringify(a.summary),
+      series: JSON.stringify(a.series),
+      events: JSON.stringify(a.events),
+      mapping: JSON.stringify(a.mapping),
+      filter: a.filter,
+      file_name: `${f.rocket.toLowerCase().replace(/\W+/g, '-')}.csv`,
+      uploaded_by: flyer.id,
+    });
   }
 }

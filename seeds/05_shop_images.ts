@@ -6,7 +6,12 @@ import { ImageUploads } from '../server/uploads/image-uploads';
 import { noseConePin, season2Shirt, season3Shirt, stickerSheet, type ArtPiece } from './shop-art/product-art';
 import { storeProductArt } from './shop-art/store-art';
 
-const ART: Record<string, () => ArtPiece[]> = { 'season-3-shirt': season3Shirt, 'season-2-shirt': season2Shirt, 'nose-cone-pin': noseConePin, 'sticker-sheet': stickerSheet };
+const ART: Record<string, () => ArtPiece[]> = {
+  'season-3-shirt': season3Shirt,
+  'season-2-shirt': season2Shirt,
+  'nose-cone-pin': noseConePin,
+  'sticker-sheet': stickerSheet,
+};
 
 /** Photos of our own making for the demo merch, for each demo product that has none yet. */
 export async function seed(knex: Knex): Promise<void> {

@@ -11,7 +11,12 @@ const SIGN_UPS = [
 
 export async function seed(knex: Knex): Promise<void> {
   // Already seeded: the first sign-up is there.
-  if (await knex('subscriptions').where({ email: SIGN_UPS[0].email, wording_version: CONSENT_WORDING.version }).first('id')) return;
+  if (
+    await knex('subscriptions')
+      .where({ email: SIGN_UPS[0].email, wording_version: CONSENT_WORDING.version })
+      .first('id')
+  )
+    return;
   const team = loadConfig().site.teamName;
   const now = Date.now();
   for (const [i, s] of SIGN_UPS.entries()) {
@@ -36,7 +41,8 @@ export async function seed(knex: Knex): Promise<void> {
   await knex('announcements').insert({
     topic: 'launches',
     subject: 'Summer fly day: pads 5 and 6 open for high power',
-    markdown: 'The **summer fly day** has the high-power pads open this year.\n\n- certification cards checked at the range table\n- the range safety officer has the final word on every flight',
+    markdown:
+      'The **summer fly day** has the high-power pads open this year.\n\n- certification cards checked at the range table\n- the range safety officer has the final word on every flight',
     created_by: editor?.id ?? null,
   });
 }

@@ -46,7 +46,12 @@ export interface MountRecord {
   router: Router;
 }
 
-export type PadsideApp = Express & { close(): Promise<void>; jobs: ScheduledJob[]; platform: Platform; mounts: MountRecord[] };
+export type PadsideApp = Express & {
+  close(): Promise<void>;
+  jobs: ScheduledJob[];
+  platform: Platform;
+  mounts: MountRecord[];
+};
 
 /** Builds the Express app without listening; `close()` releases what the app itself opened. */
 export function createApp(deps: AppDeps): PadsideApp {
@@ -59,7 +64,9 @@ export function createApp(deps: AppDeps): PadsideApp {
     auth,
     settings: new SettingsService(deps.db, notifications),
     // The features answer what still shows an image; they exist by the time anyone deletes one.
-    images: new ImageUploads(deps.db, storage, async (urls) => (await Promise.all(features.map((f) => f.imageUses?.(urls) ?? []))).flat()),
+    images: new ImageUploads(deps.db, storage, async (urls) =>
+      (await Promise.all(features.map((f) => f.imageUses?.(urls) ?? []))).flat(),
+    ),
     notifications,
   };
   const features = buildFeatures(platform);
@@ -78,7 +85,10 @@ export function createApp(deps: AppDeps): PadsideApp {
       genReqId: (req) => (req.headers['x-request-id'] as string) || randomUUID(),
       autoLogging: deps.config.env !== 'test',
       // One short line per request; headers (cookies, CSRF tokens) stay out of the log.
-      serializers: { req: (req) => ({ id: req.id, method: req.method, url: req.url }), res: (res) => ({ status: res.statusCode }) },
+      serializers: {
+        req: (req) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res) => ({ status: res.statusCode }),
+      },
     }),
   );
 
@@ -89,14 +99,17 @@ export function createApp(deps: AppDeps): PadsideApp {
     api.use(at, router);
   };
   // The webhook needs its raw body for the signature check, so JSON parsing skips it.
-  api.use((req, res, next) => (CSRF_EXEMPT.includes(req.path) ? next() : express.json({ limit: '100kb' })(req, res, next)));
+  api.use((req, res, next) =>
+    CSRF_EXEMPT.includes(req.path) ? next() : express.json({ limit: '100kb' })(req, res, next),
+  );
   apiMount('/health', healthRoutes(deps));
   apiMount('/site', siteRoutes(deps.config.site, deps.config.clubTimeZone));
   // Public reads: no session, so their answers say themselves how they may be cached. The text guard runs here too.
-  for (const feature of features) feature.mountPublic?.((at, router) => {
-    mounts.push({ prefix: '/api' + at, router });
-    api.use(at, refuseUnstorableText, router);
-  });
+  for (const feature of features)
+    feature.mountPublic?.((at, router) => {
+      mounts.push({ prefix: '/api' + at, router });
+      api.use(at, refuseUnstorableText, router);
+    });
   // Everything from here on may depend on who is signed in, CSV and PDF downloads included.
   api.use(noStore);
   api.use(sessions.middleware);
@@ -106,9 +119,26 @@ export function createApp(deps: AppDeps): PadsideApp {
   api.use(csrfProtection(CSRF_EXEMPT));
   api.use(refuseUnstorableText);
   apiMount('/auth', authRoutes(auth));
-  const personalData = new PersonalDataService(deps.db, auth.users, features.flatMap((f) => f.personalData ?? []), deps.clock, deps.config.site.teamName, deps.log);
-  apiMount('/account', accountRoutes(auth, personalData, { siteName: deps.config.site.teamName, timeZone: deps.config.clubTimeZone }));
-  apiMount('/admin/users', userAdminRoutes(auth.users, auth.signInGuard, new AccountAdminService(deps.db, auth.users, new AccountChangeRepository(deps.db))));
+  const personalData = new PersonalDataService(
+    deps.db,
+    auth.users,
+    features.flatMap((f) => f.personalData ?? []),
+    deps.clock,
+    deps.config.site.teamName,
+    deps.log,
+  );
+  apiMount(
+    '/account',
+    accountRoutes(auth, personalData, { siteName: deps.config.site.teamName, timeZone: deps.config.clubTimeZone }),
+  );
+  apiMount(
+    '/admin/users',
+    userAdminRoutes(
+      auth.users,
+      auth.signInGuard,
+      new AccountAdminService(deps.db, auth.users, new AccountChangeRepository(deps.db)),
+    ),
+  );
   apiMount('/admin/uploads', uploadAdminRoutes(platform.images));
   for (const feature of features) feature.mount(apiMount);
   api.use(apiNotFound);
@@ -126,12 +156,22 @@ export function createApp(deps: AppDeps): PadsideApp {
     // Only the app's own files are compressed: API answers carry the CSRF token beside text a user typed (BREACH).
     app.use(compression());
     // The build names its scripts, styles and fonts after their content, so those never change under one name.
-    app.use(express.static(browserDist, { index: false, maxAge: '1h', setHeaders: (res, file) => HASHED_ASSET.test(file) && res.setHeader('Cache-Control', 'public, max-age=31536000, immutable') }));
+    app.use(
+      express.static(browserDist, {
+        index: false,
+        maxAge: '1h',
+        setHeaders: (res, file) =>
+          HASHED_ASSET.test(file) && res.setHeader('Cache-Control', 'public, max-age=31536000, immutable'),
+      }),
+    );
     // Public pages are rendered on the server (as a visitor), personal ones get the client-rendered shell.
     app.get(/^\/(?!api\/|uploads\/).*/, pageRoutes(renderer, browserDist, deps.config.publicUrl));
   }
   app.use(errorHandler);
-  app.jobs = [{ name: 'mail-sweep', cron: '*/5 * * * *', run: () => deps.mail.deliverDue() }, ...features.flatMap((f) => f.jobs ?? [])];
+  app.jobs = [
+    { name: 'mail-sweep', cron: '*/5 * * * *', run: () => deps.mail.deliverDue() },
+    ...features.flatMap((f) => f.jobs ?? []),
+  ];
   app.platform = platform;
   app.mounts = mounts;
   app.close = async () => {

@@ -33,7 +33,10 @@ const EnvSchema = z.object({
   STRIPE_SECRET_KEY: z.string().default('sk_test_padside_local'),
   STRIPE_API_BASE: z.url().default('http://127.0.0.1:12111'),
   STRIPE_WEBHOOK_SECRET: z.string().default('whsec_padside_local_development'),
-  STRIPE_PUBLISHABLE_KEY: z.string().regex(/^pk_(test|live)_[A-Za-z0-9]+$/, 'must be a publishable key (pk_test_… or pk_live_…)').optional(),
+  STRIPE_PUBLISHABLE_KEY: z
+    .string()
+    .regex(/^pk_(test|live)_[A-Za-z0-9]+$/, 'must be a publishable key (pk_test_… or pk_live_…)')
+    .optional(),
   PUBLIC_URL: z.url().default('http://127.0.0.1:3000'),
   CLUB_TIME_ZONE: timeZone.default('America/Winnipeg'),
   // The demo scenario's names outside production; a real team sets its own (required there).
@@ -46,10 +49,17 @@ const EnvSchema = z.object({
   // Unset: uploads on the local disk. `s3://bucket/prefix`: an S3-compatible object store (several machines).
   STORAGE_URL: z
     .string()
-    .regex(/^s3:\/\/[a-z0-9][a-z0-9.-]{1,61}[a-z0-9](\/[A-Za-z0-9!_.*'()/-]*)?$/, 'must look like s3://bucket or s3://bucket/prefix (bucket: 3 to 63 lower-case letters, digits, dots and hyphens)')
+    .regex(
+      /^s3:\/\/[a-z0-9][a-z0-9.-]{1,61}[a-z0-9](\/[A-Za-z0-9!_.*'()/-]*)?$/,
+      'must look like s3://bucket or s3://bucket/prefix (bucket: 3 to 63 lower-case letters, digits, dots and hyphens)',
+    )
     .optional(),
   S3_ENDPOINT: z.url({ protocol: /^https?$/, error: 'must be an http(s) URL' }).optional(),
-  S3_REGION: z.string().trim().regex(/^[a-z0-9-]{2,40}$/, 'must be a region name such as us-east-1').optional(),
+  S3_REGION: z
+    .string()
+    .trim()
+    .regex(/^[a-z0-9-]{2,40}$/, 'must be a region name such as us-east-1')
+    .optional(),
   S3_ACCESS_KEY_ID: z.string().trim().min(1).optional(),
   S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
   S3_FORCE_PATH_STYLE: z.enum(['true', 'false', '1', '0'], { error: 'must be true or false' }).default('false'),
@@ -58,7 +68,16 @@ const EnvSchema = z.object({
 /** Where uploaded images live: a folder on this machine, or a bucket every machine shares. */
 export type StorageConfig =
   | { kind: 'disk'; dir: string }
-  | { kind: 's3'; bucket: string; prefix: string; endpoint: string; region: string; accessKeyId: string; secretAccessKey: string; forcePathStyle: boolean };
+  | {
+      kind: 's3';
+      bucket: string;
+      prefix: string;
+      endpoint: string;
+      region: string;
+      accessKeyId: string;
+      secretAccessKey: string;
+      forcePathStyle: boolean;
+    };
 
 export interface Config {
   env: 'development' | 'test' | 'production';
@@ -98,13 +117,16 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const databaseUrl =
     e.DATABASE_URL ??
     `postgres://${encodeURIComponent(e.PGUSER)}${e.PGPASSWORD ? ':' + encodeURIComponent(e.PGPASSWORD) : ''}@${e.PGHOST}:${e.PGPORT}/${encodeURIComponent(e.PGDATABASE)}`;
-  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) throw new ConfigError('Padside: SESSION_SECRET is required in production');
+  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET)
+    throw new ConfigError('Padside: SESSION_SECRET is required in production');
   if (e.NODE_ENV === 'production' && e.STRIPE_WEBHOOK_SECRET.startsWith('whsec_padside_local')) {
     throw new ConfigError('Padside: STRIPE_WEBHOOK_SECRET must be set in production');
   }
-  if (e.NODE_ENV === 'production' && (!e.TEAM_NAME || !e.CLUB_NAME)) throw new ConfigError('Padside: TEAM_NAME and CLUB_NAME are required in production');
+  if (e.NODE_ENV === 'production' && (!e.TEAM_NAME || !e.CLUB_NAME))
+    throw new ConfigError('Padside: TEAM_NAME and CLUB_NAME are required in production');
   // Test tokens only work against a test account or the fake; the real API needs real card entry.
-  if (/^https:\/\/api\.stripe\.com\/?$/.test(e.STRIPE_API_BASE) && !e.STRIPE_PUBLISHABLE_KEY) throw new ConfigError('Padside: STRIPE_PUBLISHABLE_KEY is required when STRIPE_API_BASE is the processor itself');
+  if (/^https:\/\/api\.stripe\.com\/?$/.test(e.STRIPE_API_BASE) && !e.STRIPE_PUBLISHABLE_KEY)
+    throw new ConfigError('Padside: STRIPE_PUBLISHABLE_KEY is required when STRIPE_API_BASE is the processor itself');
   return {
     env: e.NODE_ENV,
     host: e.HOST,
@@ -134,10 +156,16 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
 /** The disk unless STORAGE_URL names a bucket; then every S3 setting it needs must be there. */
 function storageConfig(e: z.infer<typeof EnvSchema>, dataDir: string): StorageConfig {
   if (!e.STORAGE_URL) return { kind: 'disk', dir: path.join(dataDir, 'uploads') };
-  const missing = (['S3_ENDPOINT', 'S3_REGION', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const).filter((k) => !e[k]);
-  if (missing.length) throw new ConfigError(`Padside: ${missing.join(', ')} ${missing.length > 1 ? 'are' : 'is'} required when STORAGE_URL is set`);
+  const missing = (['S3_ENDPOINT', 'S3_REGION', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const).filter(
+    (k) => !e[k],
+  );
+  if (missing.length)
+    throw new ConfigError(
+      `Padside: ${missing.join(', ')} ${missing.length > 1 ? 'are' : 'is'} required when STORAGE_URL is set`,
+    );
   const [, bucket, rest = ''] = /^s3:\/\/([^/]+)\/?(.*)$/.exec(e.STORAGE_URL)!;
-  if (bucket.includes('..') || /^\d+\.\d+\.\d+\.\d+$/.test(bucket)) throw new ConfigError('Padside: STORAGE_URL names a bucket that S3 does not allow (no "..", not an IP address)');
+  if (bucket.includes('..') || /^\d+\.\d+\.\d+\.\d+$/.test(bucket))
+    throw new ConfigError('Padside: STORAGE_URL names a bucket that S3 does not allow (no "..", not an IP address)');
   const prefix = rest.replace(/\/+$/, '');
   return {
     kind: 's3',

@@ -21,7 +21,16 @@ export const seedConfig: Knex.SeederConfig = {
 /** Opens a connection pool; nothing connects until the first query. Knex's own warnings go to our logger. */
 export function createDb(databaseUrl: string, poolMax = 10, log?: Logger): Knex {
   return knex({
-    ...(log ? { log: { warn: (m: unknown) => log.warn({ knex: m }), error: (m: unknown) => log.error({ knex: m }), deprecate: (m: unknown) => log.warn({ knex: m }), debug: () => undefined } } : {}),
+    ...(log
+      ? {
+          log: {
+            warn: (m: unknown) => log.warn({ knex: m }),
+            error: (m: unknown) => log.error({ knex: m }),
+            deprecate: (m: unknown) => log.warn({ knex: m }),
+            debug: () => undefined,
+          },
+        }
+      : {}),
     client: 'pg',
     connection: databaseUrl,
     pool: { min: 0, max: poolMax },

@@ -13,7 +13,13 @@ export function buildFeatures(platform: Platform): Feature[] {
   const membership = membershipFeature(platform);
   // The shop receives the processor's events; refunds of other features' charges go to the feature that made them.
   const otherCharges = async (chargeId: string) => (await membership.chargeRefunds?.(chargeId)) ?? false;
-  const features: Feature[] = [buildLogs, membership, shopFeature(platform, otherCharges), launchesFeature(platform), announcementsFeature(platform)];
+  const features: Feature[] = [
+    buildLogs,
+    membership,
+    shopFeature(platform, otherCharges),
+    launchesFeature(platform),
+    announcementsFeature(platform),
+  ];
   // The books read other features' numbers through what each feature offers the dashboard.
   const sources = Object.assign({}, ...features.map((f) => f.dashboard ?? {}));
   return [...features, booksFeature(platform, () => sources), seoFeature(platform)];

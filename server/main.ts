@@ -24,7 +24,11 @@ async function serve(config: Config): Promise<void> {
   const jobs = new JobRunner(config.databaseUrl, config.clubTimeZone, deps.log);
   const server = app.listen(config.port, config.host);
   server.on('error', (err: NodeJS.ErrnoException) => {
-    console.error(err.code === 'EADDRINUSE' ? `Padside: port ${config.port} on ${config.host} is taken; set PORT to another port.` : `Padside: ${err.message}`);
+    console.error(
+      err.code === 'EADDRINUSE'
+        ? `Padside: port ${config.port} on ${config.host} is taken; set PORT to another port.`
+        : `Padside: ${err.message}`,
+    );
     process.exit(1);
   });
   await once(server, 'listening');

@@ -14,16 +14,21 @@ interface RenderRequest {
 }
 
 /** The rendered answer; `status: 0` when Angular has no page for the address. */
-type RenderAnswer = { id: number; status: number; headers: [string, string][]; body: string } | { id: number; error: string };
+type RenderAnswer =
+  { id: number; status: number; headers: [string, string][]; body: string } | { id: number; error: string };
 
-const engine = new AngularNodeAppEngine({ allowedHosts: (workerData as { allowedHosts?: string[] } | null)?.allowedHosts ?? [] });
+const engine = new AngularNodeAppEngine({
+  allowedHosts: (workerData as { allowedHosts?: string[] } | null)?.allowedHosts ?? [],
+});
 
 /**
  * Gives every script element of the page this response's nonce (the build's own inline event-replay contract too),
  * and the root element `ngCspNonce`, from which the browser app takes the nonce for what it inlines later.
  */
 export function withNonce(html: string, nonce: string): string {
-  return html.replace(/<script\b(?![^>]*\snonce=)/g, `<script nonce="${nonce}"`).replace(/<ps-root\b(?![^>]*\sngcspnonce=)/i, `<ps-root ngCspNonce="${nonce}"`);
+  return html
+    .replace(/<script\b(?![^>]*\snonce=)/g, `<script nonce="${nonce}"`)
+    .replace(/<ps-root\b(?![^>]*\sngcspnonce=)/i, `<ps-root ngCspNonce="${nonce}"`);
 }
 
 async function render({ id, url, context }: RenderRequest): Promise<RenderAnswer> {

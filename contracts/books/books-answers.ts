@@ -90,7 +90,15 @@ export interface RevenueReport {
 /** GET /api/admin/reports/sponsor-value: each sponsor's cash and in-kind value this season. */
 export interface SponsorValue {
   season: string;
-  items: { sponsor: string; tier: string | null; cashCents: number; inKindCents: number; totalCents: number; promised: number; delivered: number }[];
+  items: {
+    sponsor: string;
+    tier: string | null;
+    cashCents: number;
+    inKindCents: number;
+    totalCents: number;
+    promised: number;
+    delivered: number;
+  }[];
 }
 
 /** A print run closing within the week. */

@@ -16,7 +16,11 @@ const percent = (what: string) =>
 /** PUT /api/admin/settings/processor-fees: the card-fee estimate as percentages, and the fixed part in cents. */
 export const FeePercentBody = z.object({
   percent: percent('percentage'),
-  fixedCents: z.number({ error: 'Enter the fixed part in cents, like 30.' }).int('Whole cents only.').min(0, 'At least 0 cents.').max(10000, 'At most 10000 cents.'),
+  fixedCents: z
+    .number({ error: 'Enter the fixed part in cents, like 30.' })
+    .int('Whole cents only.')
+    .min(0, 'At least 0 cents.')
+    .max(10000, 'At most 10000 cents.'),
   internationalExtraPercent: percent('extra for cards from abroad'),
 });
 

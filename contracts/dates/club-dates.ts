@@ -22,7 +22,15 @@ function format(timeZone: string, style: 'date' | 'dateTime' | 'time' | 'parts')
           ? { dateStyle: 'medium', timeStyle: 'short' }
           : style === 'time'
             ? { timeStyle: 'short' }
-            : { hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit' };
+            : {
+                hourCycle: 'h23',
+                year: 'numeric',
+                month: '2-digit',
+                day: '2-digit',
+                hour: '2-digit',
+                minute: '2-digit',
+                second: '2-digit',
+              };
     f = new Intl.DateTimeFormat(style === 'parts' ? 'en-US' : CLUB_LOCALE, { ...options, timeZone });
     formats.set(key, f);
   }
@@ -72,10 +80,21 @@ export function formatClock(hhmm: string): string {
 }
 
 function wall(instant: Date, timeZone: string): { date: string; time: string; offsetMinutes: number } {
-  const p = Object.fromEntries(format(timeZone, 'parts').formatToParts(instant).map((x) => [x.type, x.value]));
+  const p = Object.fromEntries(
+    format(timeZone, 'parts')
+      .formatToParts(instant)
+      .map((x) => [x.type, x.value]),
+  );
   const date = `${p['year']}-${p['month']}-${p['day']}`;
   const time = `${p['hour']}:${p['minute']}`;
-  const asUtc = Date.UTC(Number(p['year']), Number(p['month']) - 1, Number(p['day']), Number(p['hour']), Number(p['minute']), Number(p['second']));
+  const asUtc = Date.UTC(
+    Number(p['year']),
+    Number(p['month']) - 1,
+    Number(p['day']),
+    Number(p['hour']),
+    Number(p['minute']),
+    Number(p['second']),
+  );
   return { date, time, offsetMinutes: Math.round((asUtc - Math.floor(instant.getTime() / 1000) * 1000) / 60000) };
 }
 

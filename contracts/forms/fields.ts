@@ -19,7 +19,11 @@ export const fields = {
     }, 'Not a real date.'),
   page: z.coerce.number().int().min(1).max(100000).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(25),
-  cents: z.number({ error: 'Enter an amount in cents.' }).int('Amounts are whole cents.').min(0, 'Cannot be negative.').max(100_000_000),
+  cents: z
+    .number({ error: 'Enter an amount in cents.' })
+    .int('Amounts are whole cents.')
+    .min(0, 'Cannot be negative.')
+    .max(100_000_000),
   // A file the upload endpoint stored, referenced by its own path (or nothing).
   uploadedImage: z
     .string()

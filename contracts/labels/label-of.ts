@@ -2,7 +2,10 @@
  * The label a person reads for a code. The maps are exhaustive for the codes the database allows; a code that is
  * not in the map (a newer server than this page, say) still reads as words, never as `snake_case`.
  */
-export function labelOf<K extends string>(labels: Readonly<Record<K, string>>, code: K | string | null | undefined): string {
+export function labelOf<K extends string>(
+  labels: Readonly<Record<K, string>>,
+  code: K | string | null | undefined,
+): string {
   if (code === null || code === undefined || code === '') return '';
   const known = (labels as Readonly<Record<string, string>>)[code];
   return known ?? codeInWords(code);

@@ -1,5 +1,6 @@
 /** What a line of the books is (the `money_movements.kind` codes). */
-export type MovementKind = 'order_payment' | 'refund' | 'dues_payment' | 'manual_payment' | 'sponsor_cash' | 'processor_fee';
+export type MovementKind =
+  'order_payment' | 'refund' | 'dues_payment' | 'manual_payment' | 'sponsor_cash' | 'processor_fee';
 
 export const MOVEMENT_KIND_LABELS: Readonly<Record<MovementKind, string>> = {
   order_payment: 'Order payment',
@@ -13,4 +14,8 @@ export const MOVEMENT_KIND_LABELS: Readonly<Record<MovementKind, string>> = {
 /** Where the money came from (the `money_movements.source` codes). */
 export type MovementSource = 'merch' | 'dues' | 'sponsor';
 
-export const MOVEMENT_SOURCE_LABELS: Readonly<Record<MovementSource, string>> = { merch: 'Merch', dues: 'Dues', sponsor: 'Sponsor cash' };
+export const MOVEMENT_SOURCE_LABELS: Readonly<Record<MovementSource, string>> = {
+  merch: 'Merch',
+  dues: 'Dues',
+  sponsor: 'Sponsor cash',
+};

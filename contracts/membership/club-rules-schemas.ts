@@ -2,7 +2,12 @@
 import { z } from 'zod';
 
 /** Certification levels a member can record; associations differ, so staff can change the list. */
-const levelCode = z.string().trim().min(1).max(16).regex(/^[a-z0-9-]+$/i, 'Use letters, digits and dashes.');
+const levelCode = z
+  .string()
+  .trim()
+  .min(1)
+  .max(16)
+  .regex(/^[a-z0-9-]+$/i, 'Use letters, digits and dashes.');
 
 /**
  * The club's membership rules. The late-season date (joining from it covers the rest of the year and all of next)
@@ -17,7 +22,10 @@ export const MembershipSettingsSchema = z.object({
   waiverText: z.string().trim().min(1).max(8000),
   safetyCodeVersion: z.string().trim().min(1).max(32),
   associationName: z.string().trim().min(1).max(120),
-  certificationLevels: z.array(z.object({ code: levelCode, label: z.string().trim().min(1).max(80) })).min(1).max(12),
+  certificationLevels: z
+    .array(z.object({ code: levelCode, label: z.string().trim().min(1).max(80) }))
+    .min(1)
+    .max(12),
 });
 
 export type MembershipSettings = z.infer<typeof MembershipSettingsSchema>;
@@ -31,13 +39,22 @@ const NO_CERTIFICATION = 'none';
  */
 export const MembershipSettingsInputSchema = MembershipSettingsSchema.superRefine((s, ctx) => {
   if (s.certificationLevels[0]?.code !== NO_CERTIFICATION) {
-    ctx.addIssue({ code: 'custom', path: ['certificationLevels', 0, 'code'], message: `The first level must be "${NO_CERTIFICATION}": members who give no level get it.` });
+    ctx.addIssue({
+      code: 'custom',
+      path: ['certificationLevels', 0, 'code'],
+      message: `The first level must be "${NO_CERTIFICATION}": members who give no level get it.`,
+    });
   }
   // Codes are matched exactly, but "l1" beside "L1" would read as one level on every screen.
   const seen = new Set<string>();
   s.certificationLevels.forEach((l, i) => {
     const key = l.code.toLowerCase();
-    if (seen.has(key)) ctx.addIssue({ code: 'custom', path: ['certificationLevels', i, 'code'], message: 'This code is already in the list.' });
+    if (seen.has(key))
+      ctx.addIssue({
+        code: 'custom',
+        path: ['certificationLevels', i, 'code'],
+        message: 'This code is already in the list.',
+      });
     seen.add(key);
   });
 });

@@ -15,9 +15,19 @@ const unset = () => z.literal('').transform(() => undefined);
 export const RosterQuerySchema = z.strictObject({
   status: z.enum(['pending', 'active', 'lapsing', 'lapsed']).optional().or(unset()),
   planId: fields.id.optional().or(unset()),
-  certificationLevel: z.string().trim().max(16).optional().transform((v) => v || undefined),
+  certificationLevel: z
+    .string()
+    .trim()
+    .max(16)
+    .optional()
+    .transform((v) => v || undefined),
   associationExpiresBefore: fields.date.optional().or(unset()),
-  q: z.string().trim().max(100).optional().transform((v) => v || undefined),
+  q: z
+    .string()
+    .trim()
+    .max(100)
+    .optional()
+    .transform((v) => v || undefined),
   sort: z.enum(ROSTER_SORT_KEYS).default('memberNumber'),
   dir: z.enum(['asc', 'desc']).default('asc'),
   page: fields.page,
@@ -37,6 +47,10 @@ type ParsedRosterQuery = z.infer<typeof RosterQuerySchema>;
 /** Which members a roster query chooses and how they are sorted: the query without its paging. */
 export type RosterQuery = Omit<ParsedRosterQuery, 'page' | 'pageSize'>;
 /** The roster query as the console's filter form holds it: every field present, '' for a filter not set. */
-export type RosterFormQuery = { [K in keyof ParsedRosterQuery]-?: undefined extends ParsedRosterQuery[K] ? Exclude<ParsedRosterQuery[K], undefined> | '' : ParsedRosterQuery[K] };
+export type RosterFormQuery = {
+  [K in keyof ParsedRosterQuery]-?: undefined extends ParsedRosterQuery[K]
+    ? Exclude<ParsedRosterQuery[K], undefined> | ''
+    : ParsedRosterQuery[K];
+};
 /** Why a roster e-mail is sent, which decides the consent rules it follows. */
 export type RosterMailPurpose = z.infer<typeof RosterEmailBody>['purpose'];

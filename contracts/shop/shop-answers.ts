@@ -90,7 +90,9 @@ export interface ShipTo {
 }
 
 /** Where an order went, as stored: the lines a pickup did not need are null. */
-export type StoredShipTo = Pick<ShipTo, 'name' | 'country'> & { [K in 'line1' | 'line2' | 'city' | 'province' | 'postalCode']: string | null };
+export type StoredShipTo = Pick<ShipTo, 'name' | 'country'> & {
+  [K in 'line1' | 'line2' | 'city' | 'province' | 'postalCode']: string | null;
+};
 
 /** One priced line of a quote. */
 export interface QuoteLine {

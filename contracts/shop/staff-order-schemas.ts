@@ -14,7 +14,9 @@ export const OrderQuery = z.strictObject({
   sort: z.enum(ORDER_SORT_KEYS, { error: 'Sort by created, number, email, total or status.' }).default('created'),
   dir: z.enum(['asc', 'desc']).default('desc'),
   // `placed`: every order but never-paid attempts (status failed), the console's default view.
-  status: z.enum(['placed', 'pending', 'paid', 'failed', 'packed', 'shipped'], { error: 'Choose placed or an order status.' }).optional(),
+  status: z
+    .enum(['placed', 'pending', 'paid', 'failed', 'packed', 'shipped'], { error: 'Choose placed or an order status.' })
+    .optional(),
   runId: fields.id.optional(),
   from: fields.date.optional(),
   to: fields.date.optional(),
@@ -23,13 +25,31 @@ export const OrderQuery = z.strictObject({
 
 /** POST /api/admin/orders/:id/ship. */
 export const ShipBody = z.object({
-  carrier: z.string({ error: 'Carrier is required.' }).trim().min(2, 'Carrier is required.').max(60, 'At most 60 characters.'),
-  trackingNumber: z.string({ error: 'Tracking number is required.' }).trim().min(4, 'Tracking number is required.').max(80, 'At most 80 characters.').regex(/^[A-Za-z0-9 -]+$/, 'Letters, digits, spaces and dashes only.'),
+  carrier: z
+    .string({ error: 'Carrier is required.' })
+    .trim()
+    .min(2, 'Carrier is required.')
+    .max(60, 'At most 60 characters.'),
+  trackingNumber: z
+    .string({ error: 'Tracking number is required.' })
+    .trim()
+    .min(4, 'Tracking number is required.')
+    .max(80, 'At most 80 characters.')
+    .regex(/^[A-Za-z0-9 -]+$/, 'Letters, digits, spaces and dashes only.'),
 });
 
 /** POST /api/admin/orders/:id/refund and its preview: what the treasurer asks to refund. */
 export const RefundBody = z.object({
-  lines: z.array(z.object({ orderItemId: fields.id, quantity: z.number({ error: 'Enter a quantity.' }).int('Whole units only.').min(1, 'At least 1.').max(10000) }), { error: 'Lines must be a list.' }).max(100).default([]),
+  lines: z
+    .array(
+      z.object({
+        orderItemId: fields.id,
+        quantity: z.number({ error: 'Enter a quantity.' }).int('Whole units only.').min(1, 'At least 1.').max(10000),
+      }),
+      { error: 'Lines must be a list.' },
+    )
+    .max(100)
+    .default([]),
   shipping: z.boolean({ error: 'Shipping is yes or no.' }).default(false),
   amountCents: fields.cents.min(1, 'Enter an amount.').optional(),
   restock: z.boolean({ error: 'Restock is yes or no.' }).default(false),

@@ -43,7 +43,16 @@ export interface Agreement {
 }
 
 /** The fields of an agreement only the treasurer and admin are sent. */
-type MoneyField = 'cashCents' | 'cashReceivedOn' | 'cashReceivedCents' | 'taxTreatment' | 'taxProvince' | 'inKind' | 'inKindCents' | 'totalCents' | 'note';
+type MoneyField =
+  | 'cashCents'
+  | 'cashReceivedOn'
+  | 'cashReceivedCents'
+  | 'taxTreatment'
+  | 'taxProvince'
+  | 'inKind'
+  | 'inKindCents'
+  | 'totalCents'
+  | 'note';
 /** GET /api/admin/sponsors/:id/ledger: an agreement as staff get it, the money fields only for the treasurer and admin. */
 export type StaffAgreement = Omit<Agreement, MoneyField> & Partial<Pick<Agreement, MoneyField>>;
 

@@ -61,7 +61,18 @@ export function startCluster({ dataDir, port, user = 'padside', log }) {
   const logFile = log ?? path.join(path.dirname(dataDir), 'postgres.log');
   if (!existsSync(logFile)) writeFileSync(logFile, '');
   ownedByPostgres(logFile);
-  run(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-l', logFile, '-o', `-p ${port} -k ${socketDir}`, '-w', '-t', '60', 'start']);
+  run(path.join(bin, 'pg_ctl'), [
+    '-D',
+    dataDir,
+    '-l',
+    logFile,
+    '-o',
+    `-p ${port} -k ${socketDir}`,
+    '-w',
+    '-t',
+    '60',
+    'start',
+  ]);
   return {
     bin,
     stop: () => run(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-m', 'fast', '-w', 'stop'], { allowFail: true }),
@@ -71,7 +82,12 @@ export function startCluster({ dataDir, port, user = 'padside', log }) {
 
 /** Creates the database if it is missing. */
 export function ensureDatabase({ bin, port, user = 'padside', database }) {
-  const psql = (sql) => spawnSync(path.join(bin, 'psql'), ['-h', '127.0.0.1', '-p', String(port), '-U', user, '-d', 'postgres', '-tAc', sql], { encoding: 'utf8' });
+  const psql = (sql) =>
+    spawnSync(
+      path.join(bin, 'psql'),
+      ['-h', '127.0.0.1', '-p', String(port), '-U', user, '-d', 'postgres', '-tAc', sql],
+      { encoding: 'utf8' },
+    );
   const exists = psql(`SELECT 1 FROM pg_database WHERE datname = '${database}'`);
   if (exists.status !== 0) throw new Error(`padside: cannot reach PostgreSQL on port ${port}: ${exists.stderr}`);
   if (exists.stdout.trim() !== '1') {

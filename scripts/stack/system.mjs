@@ -18,7 +18,10 @@ export function aptInstall(packages, why) {
     process.exit(1);
   }
   console.log(`padside: installing ${packages.join(', ')} from Debian's packages (${why})`);
-  const r = spawnSync('sh', ['-c', command], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+  const r = spawnSync('sh', ['-c', command], {
+    stdio: 'inherit',
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
   if (r.status !== 0) {
     console.error(`padside: apt-get failed. Run this yourself, then try again:\n  sudo ${command}`);
     process.exit(1);
@@ -29,7 +32,9 @@ export function aptInstall(packages, why) {
 export function postgresBinDir() {
   const root = '/usr/lib/postgresql';
   if (existsSync(root)) {
-    const versions = readdirSync(root).filter((v) => existsSync(`${root}/${v}/bin/pg_ctl`)).sort((a, b) => Number(b) - Number(a));
+    const versions = readdirSync(root)
+      .filter((v) => existsSync(`${root}/${v}/bin/pg_ctl`))
+      .sort((a, b) => Number(b) - Number(a));
     if (versions.length) return `${root}/${versions[0]}/bin`;
   }
   const initdb = which('initdb');
@@ -52,7 +57,13 @@ export function ensureChromium() {
 export function assertPortFree(port, host, name) {
   return new Promise((resolve, reject) => {
     const server = net.createServer();
-    server.once('error', () => reject(new Error(`padside: port ${port} on ${host} (${name}) is already in use. Stop what uses it or set the port variable named in the README.`)));
+    server.once('error', () =>
+      reject(
+        new Error(
+          `padside: port ${port} on ${host} (${name}) is already in use. Stop what uses it or set the port variable named in the README.`,
+        ),
+      ),
+    );
     server.listen(port, host, () => server.close(resolve));
   });
 }

@@ -12,7 +12,13 @@ import { freePort } from './system.mjs';
 export async function startThrowawayStack(name) {
   const tmp = mkdtempSync(path.join(os.tmpdir(), `padside-${name}-`));
   chmodSync(tmp, 0o755);
-  const ports = { pg: await freePort(), smtp: await freePort(), inbox: await freePort(), payments: await freePort(), objects: await freePort() };
+  const ports = {
+    pg: await freePort(),
+    smtp: await freePort(),
+    inbox: await freePort(),
+    payments: await freePort(),
+    objects: await freePort(),
+  };
   const cluster = startCluster({ dataDir: path.join(tmp, 'postgres'), port: ports.pg });
   const database = `padside_${name}`;
   ensureDatabase({ bin: cluster.bin, port: ports.pg, database });

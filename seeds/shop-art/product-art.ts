@@ -37,20 +37,33 @@ function shirt(colour: string, season: number, accent: string): string {
   const tee = `<path d="M420 210 Q600 290 780 210 L1010 330 L930 520 L850 480 L850 1030 Q600 1060 350 1030 L350 480 L270 520 L190 330 Z" fill="${colour}" stroke="rgba(0,0,0,0.18)" stroke-width="6"/>
     <path d="M420 210 Q600 330 780 210" fill="none" stroke="rgba(0,0,0,0.25)" stroke-width="14"/>
     <path d="M350 480 L350 1030 M850 480 L850 1030" stroke="rgba(0,0,0,0.08)" stroke-width="10"/>`;
-  return frame(`<ellipse cx="600" cy="1085" rx="380" ry="38" fill="rgba(0,0,0,0.08)"/>${tee}${patch(600, 560, 150, season, accent)}`);
+  return frame(
+    `<ellipse cx="600" cy="1085" rx="380" ry="38" fill="rgba(0,0,0,0.08)"/>${tee}${patch(600, 560, 150, season, accent)}`,
+  );
 }
 
 /** The Season 3 shirt: the tee, and the patch up close. */
 export function season3Shirt(): ArtPiece[] {
   return [
-    { svg: shirt('#1f3f5b', 3, '#ff8a3d'), alt: 'Navy tee with the round Season 3 patch on the chest: a cream rocket climbing over a green prairie horizon.' },
-    { svg: frame(patch(600, 600, 430, 3, '#ff8a3d'), '#e6dfd0'), alt: 'The Season 3 patch up close: T&F above, SEASON 3 below, an orange ring around a rocket over the prairie.' },
+    {
+      svg: shirt('#1f3f5b', 3, '#ff8a3d'),
+      alt: 'Navy tee with the round Season 3 patch on the chest: a cream rocket climbing over a green prairie horizon.',
+    },
+    {
+      svg: frame(patch(600, 600, 430, 3, '#ff8a3d'), '#e6dfd0'),
+      alt: 'The Season 3 patch up close: T&F above, SEASON 3 below, an orange ring around a rocket over the prairie.',
+    },
   ];
 }
 
 /** The Season 2 shirt (its run has shipped). */
 export function season2Shirt(): ArtPiece[] {
-  return [{ svg: shirt('#6b2f2a', 2, '#c9a14a'), alt: 'Brick-red tee with the round Season 2 patch on the chest in gold and cream.' }];
+  return [
+    {
+      svg: shirt('#6b2f2a', 2, '#c9a14a'),
+      alt: 'Brick-red tee with the round Season 2 patch on the chest in gold and cream.',
+    },
+  ];
 }
 
 /** The nose-cone enamel pin, in gold and in silver. */
@@ -64,7 +77,10 @@ export function noseConePin(): ArtPiece[] {
       <text y="190" text-anchor="middle" font-family="DejaVu Sans, sans-serif" font-weight="700" font-size="44" fill="${shine}" letter-spacing="4">${label}</text>
     </g>`;
   return [
-    { svg: frame(pin('#c9a14a', '#f3d98b', 600, 'T&amp;F'), '#e9e3d6'), alt: 'Gold enamel pin shaped like a nose cone and fins: navy enamel, an orange band and a cream porthole.' },
+    {
+      svg: frame(pin('#c9a14a', '#f3d98b', 600, 'T&amp;F'), '#e9e3d6'),
+      alt: 'Gold enamel pin shaped like a nose cone and fins: navy enamel, an orange band and a cream porthole.',
+    },
     { svg: frame(pin('#a9b2bb', '#e4e9ee', 600, 'T&amp;F'), '#e9e3d6'), alt: 'The same nose-cone pin in silver.' },
   ];
 }
@@ -84,9 +100,20 @@ export function stickerSheet(): ArtPiece[] {
     // The team's initials in a badge.
     `<rect x="-130" y="-80" width="260" height="160" rx="80" fill="#10263a" stroke="#ff8a3d" stroke-width="10"/><text y="24" text-anchor="middle" font-family="DejaVu Sans, sans-serif" font-weight="700" font-size="72" fill="#f6e7c8">T&amp;F</text>`,
   ];
-  const cells = stickers.map((s, i) => `<g transform="translate(${330 + (i % 2) * 540} ${270 + Math.floor(i / 2) * 330})"><g filter="url(#cut)">${s}</g></g>`).join('');
+  const cells = stickers
+    .map(
+      (s, i) =>
+        `<g transform="translate(${330 + (i % 2) * 540} ${270 + Math.floor(i / 2) * 330})"><g filter="url(#cut)">${s}</g></g>`,
+    )
+    .join('');
   const defs = `<defs><filter id="cut" x="-30%" y="-30%" width="160%" height="160%"><feMorphology in="SourceAlpha" operator="dilate" radius="12" result="grown"/><feFlood flood-color="#ffffff"/><feComposite in2="grown" operator="in" result="edge"/><feMerge><feMergeNode in="edge"/><feMergeNode in="SourceGraphic"/></feMerge></filter></defs>`;
   return [
-    { svg: frame(`${defs}<rect x="90" y="60" width="1020" height="1080" rx="28" fill="#d9d2c3" stroke="#bdb4a2" stroke-width="4"/>${cells}`, '#efe9dd'), alt: 'Sticker sheet with six die-cut stickers: the Season 3 patch, a fin can, a filament spool, a launch rail, a parachute and a T&F badge.' },
+    {
+      svg: frame(
+        `${defs}<rect x="90" y="60" width="1020" height="1080" rx="28" fill="#d9d2c3" stroke="#bdb4a2" stroke-width="4"/>${cells}`,
+        '#efe9dd',
+      ),
+      alt: 'Sticker sheet with six die-cut stickers: the Season 3 patch, a fin can, a filament spool, a launch rail, a parachute and a T&F badge.',
+    },
   ];
 }

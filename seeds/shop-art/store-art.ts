@@ -11,7 +11,12 @@ import type { ArtPiece } from './product-art';
  * Rasterises a product's drawings to WebP and stores them through the uploads path (which also keeps a 480 px
  * WebP copy), then sets them as the product's photos. Returns the photos as the product now lists them.
  */
-export async function storeProductArt(db: Knex, uploads: ImageUploads, productId: number, pieces: ArtPiece[]): Promise<ProductImage[]> {
+export async function storeProductArt(
+  db: Knex,
+  uploads: ImageUploads,
+  productId: number,
+  pieces: ArtPiece[],
+): Promise<ProductImage[]> {
   const images: ProductImage[] = [];
   // The uploads path takes files as an upload leaves them: on disk, in a temporary folder.
   const dir = await mkdtemp(path.join(tmpdir(), 'padside-art-'));
@@ -21,11 +26,19 @@ export async function storeProductArt(db: Knex, uploads: ImageUploads, productId
       const file = path.join(dir, `product-${productId}-${i + 1}.webp`);
       await writeFile(file, bytes);
       const stored = await uploads.store({ path: file, size: bytes.length, originalName: path.basename(file) }, null);
-      images.push({ url: stored.url, thumbnailUrl: stored.thumbnailUrl, alt: piece.alt, width: stored.width, height: stored.height });
+      images.push({
+        url: stored.url,
+        thumbnailUrl: stored.thumbnailUrl,
+        alt: piece.alt,
+        width: stored.width,
+        height: stored.height,
+      });
     }
   } finally {
     await rm(dir, { recursive: true, force: true });
   }
-  await db('shop_products').where('id', productId).update({ images: JSON.stringify(images) });
+  await db('shop_products')
+    .where('id', productId)
+    .update({ images: JSON.stringify(images) });
   return images;
 }

@@ -16,12 +16,21 @@ const ProfileBody = z
   })
   .strict();
 const PasswordBody = z.object({
-  currentPassword: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(PASSWORD_MAX * 4),
-  newPassword: z.string({ error: 'Enter a new password.' }).min(1, 'Enter a new password.').max(PASSWORD_MAX * 4, 'Password is too long.'),
+  currentPassword: z
+    .string({ error: 'Enter your current password.' })
+    .min(1, 'Enter your current password.')
+    .max(PASSWORD_MAX * 4),
+  newPassword: z
+    .string({ error: 'Enter a new password.' })
+    .min(1, 'Enter a new password.')
+    .max(PASSWORD_MAX * 4, 'Password is too long.'),
 });
 
 const DeleteBody = z.object({
-  password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(PASSWORD_MAX * 4, 'Password is too long.'),
+  password: z
+    .string({ error: 'Enter your password.' })
+    .min(1, 'Enter your password.')
+    .max(PASSWORD_MAX * 4, 'Password is too long.'),
 });
 
 /** How the download names itself and its times. */
@@ -54,10 +63,21 @@ export function accountRoutes(auth: AuthService, data: PersonalDataService, sett
 
   r.get('/export', async function exportData(req, res) {
     const held = await data.export(req.user!.id);
-    const summary = exportSummaryHtml(held.sections, { siteName: settings.siteName, email: held.email, generatedAt: held.generatedAt, timeZone: settings.timeZone });
-    const files = [{ name: 'summary.html', text: summary }, ...held.sections.map((s) => ({ name: `${s.name}.json`, text: JSON.stringify(s.records, null, 2) + '\n' }))];
+    const summary = exportSummaryHtml(held.sections, {
+      siteName: settings.siteName,
+      email: held.email,
+      generatedAt: held.generatedAt,
+      timeZone: settings.timeZone,
+    });
+    const files = [
+      { name: 'summary.html', text: summary },
+      ...held.sections.map((s) => ({ name: `${s.name}.json`, text: JSON.stringify(s.records, null, 2) + '\n' })),
+    ];
     const day = held.generatedAt.toISOString().slice(0, 10);
-    res.set({ 'Content-Type': 'application/zip', 'Content-Disposition': `attachment; filename="padside-my-data-${day}.zip"` });
+    res.set({
+      'Content-Type': 'application/zip',
+      'Content-Disposition': `attachment; filename="padside-my-data-${day}.zip"`,
+    });
     await pipeline(zipStream(files), res);
   });
 

@@ -8,7 +8,8 @@ export interface ExportMeta {
   timeZone: string;
 }
 
-const escape = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const escape = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** A value as a person reads it in a table cell: nested lists and objects as compact JSON. */
 function cell(value: unknown): string {
@@ -19,7 +20,9 @@ function cell(value: unknown): string {
 
 function recordTable(record: unknown): string {
   if (record === null || typeof record !== 'object') return `<p>${cell(record)}</p>`;
-  const rows = Object.entries(record as Record<string, unknown>).map(([k, v]) => `<tr><th scope="row">${escape(k)}</th><td>${cell(v)}</td></tr>`);
+  const rows = Object.entries(record as Record<string, unknown>).map(
+    ([k, v]) => `<tr><th scope="row">${escape(k)}</th><td>${cell(v)}</td></tr>`,
+  );
   return `<table>${rows.join('')}</table>`;
 }
 
@@ -28,8 +31,14 @@ function recordTable(record: unknown): string {
  * table. Self-contained (no scripts, no outside styles) so it opens from the unpacked folder in any browser.
  */
 export function exportSummaryHtml(sections: PersonalDataSection[], meta: ExportMeta): string {
-  const when = new Intl.DateTimeFormat('en-CA', { dateStyle: 'long', timeStyle: 'short', timeZone: meta.timeZone }).format(meta.generatedAt) + ` (${meta.timeZone} time)`;
-  const contents = sections.map((s) => `<li><a href="#${escape(s.name)}">${escape(s.title)}</a> — ${s.records.length} ${s.records.length === 1 ? 'entry' : 'entries'}, in <code>${escape(s.name)}.json</code></li>`);
+  const when =
+    new Intl.DateTimeFormat('en-CA', { dateStyle: 'long', timeStyle: 'short', timeZone: meta.timeZone }).format(
+      meta.generatedAt,
+    ) + ` (${meta.timeZone} time)`;
+  const contents = sections.map(
+    (s) =>
+      `<li><a href="#${escape(s.name)}">${escape(s.title)}</a> — ${s.records.length} ${s.records.length === 1 ? 'entry' : 'entries'}, in <code>${escape(s.name)}.json</code></li>`,
+  );
   const bodies = sections.map((s) =>
     [
       `<section id="${escape(s.name)}">`,

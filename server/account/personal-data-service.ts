@@ -44,7 +44,8 @@ export class PersonalDataService {
       async (trx) => {
         const subject = await this.subject(trx, userId);
         const sections: PersonalDataSection[] = [];
-        for (const part of [accountPersonalData, ...this.featureParts]) sections.push(...(await part.export(trx, subject)));
+        for (const part of [accountPersonalData, ...this.featureParts])
+          sections.push(...(await part.export(trx, subject)));
         return { email: subject.email, generatedAt: this.clock.now(), sections };
       },
       { isolationLevel: 'repeatable read' },
@@ -81,7 +82,8 @@ export class PersonalDataService {
       return work;
     });
     await this.wrongPasswords.reset(key);
-    for (const step of after) await step().catch((err) => this.log.error({ err }, 'a step after an account deletion failed'));
+    for (const step of after)
+      await step().catch((err) => this.log.error({ err }, 'a step after an account deletion failed'));
   }
 
   /** Whose data an export holds; a deleted account has nothing left to export. */
@@ -103,7 +105,12 @@ export class PersonalDataService {
    * first gone: the club always keeps one admin.
    */
   private async refuseLastAdmin(trx: Knex.Transaction, userId: number): Promise<void> {
-    const admins: { id: string }[] = await trx('users').whereRaw("'admin' = ANY(roles)").whereNull('deleted_at').orderBy('id').forUpdate().select('id');
+    const admins: { id: string }[] = await trx('users')
+      .whereRaw("'admin' = ANY(roles)")
+      .whereNull('deleted_at')
+      .orderBy('id')
+      .forUpdate()
+      .select('id');
     if (admins.some((a) => Number(a.id) === userId) && admins.length === 1) {
       throw conflict('last_admin', 'You are the only admin. Make someone else an admin before deleting your account.');
     }
@@ -112,5 +119,10 @@ export class PersonalDataService {
 
 function subjectOf(userId: number, row: { email: string; email_verified_at: Date | null } | undefined): DataSubject {
   if (!row) throw notFound('No such account.');
-  return { userId, email: row.email, emailVerified: row.email_verified_at !== null, marker: `Deleted account #${userId}` };
+  return {
+    userId,
+    email: row.email,
+    emailVerified: row.email_verified_at !== null,
+    marker: `Deleted account #${userId}`,
+  };
 }

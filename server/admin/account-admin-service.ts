@@ -34,18 +34,29 @@ export class AccountAdminService {
   async setRoles(actorId: number, id: number, roles: readonly Role[]): Promise<AdminAccount> {
     const wanted = [...new Set(roles)];
     const next: Role[] = wanted.length ? wanted : ['fan'];
-    if (id === actorId && !next.includes('admin')) throw badRequest('You cannot remove your own admin role.', { roles: 'Keep admin on your own account.' });
+    if (id === actorId && !next.includes('admin'))
+      throw badRequest('You cannot remove your own admin role.', { roles: 'Keep admin on your own account.' });
     return this.db.transaction(async (trx) => {
       const before = await this.mustLock(trx, id);
       const row = (await this.users.update(trx, id, { roles: next }))!;
-      if (!sameRoles(before.roles, next)) await this.changes.record(trx, { userId: id, changedBy: actorId, kind: 'roles', rolesBefore: before.roles, rolesAfter: next });
+      if (!sameRoles(before.roles, next))
+        await this.changes.record(trx, {
+          userId: id,
+          changedBy: actorId,
+          kind: 'roles',
+          rolesBefore: before.roles,
+          rolesAfter: next,
+        });
       return adminView(row);
     });
   }
 
   /** Disables the account and ends its sessions; disabling a disabled account changes nothing. */
   async disable(actorId: number, id: number): Promise<AdminAccount> {
-    if (id === actorId) throw badRequest('You cannot disable your own account: the club would be left without the admin doing it.', { account: 'Ask another admin.' });
+    if (id === actorId)
+      throw badRequest('You cannot disable your own account: the club would be left without the admin doing it.', {
+        account: 'Ask another admin.',
+      });
     return this.setDisabled(actorId, id, true);
   }
 
@@ -71,9 +82,17 @@ export class AccountAdminService {
     return this.db.transaction(async (trx) => {
       const before = await this.mustLock(trx, id);
       if ((before.disabled_at !== null) === disabled) return adminView((await this.users.byId(id, trx))!);
-      const row = (await this.users.update(trx, id, { disabled_at: disabled ? (trx.fn.now() as unknown as Date) : null }))!;
+      const row = (await this.users.update(trx, id, {
+        disabled_at: disabled ? (trx.fn.now() as unknown as Date) : null,
+      }))!;
       if (disabled) await this.changes.endSessions(trx, id);
-      await this.changes.record(trx, { userId: id, changedBy: actorId, kind: disabled ? 'disabled' : 'enabled', rolesBefore: before.roles, rolesAfter: before.roles });
+      await this.changes.record(trx, {
+        userId: id,
+        changedBy: actorId,
+        kind: disabled ? 'disabled' : 'enabled',
+        rolesBefore: before.roles,
+        rolesAfter: before.roles,
+      });
       return adminView(row);
     });
   }
@@ -81,7 +100,11 @@ export class AccountAdminService {
   private async mustLock(trx: Knex.Transaction, id: number) {
     const row = await this.changes.lockUser(trx, id);
     if (!row) throw notFound('No such user.');
-    if (row.deleted_at) throw conflict('account_deleted', 'This account was deleted by its owner; it cannot be given roles, disabled or enabled.');
+    if (row.deleted_at)
+      throw conflict(
+        'account_deleted',
+        'This account was deleted by its owner; it cannot be given roles, disabled or enabled.',
+      );
     return row;
   }
 }
@@ -90,5 +113,9 @@ const sameRoles = (a: readonly Role[], b: readonly Role[]) => a.length === b.len
 
 /** The admin's view of a user row. */
 export function adminView(row: Parameters<typeof toSessionUser>[0]): AdminAccount {
-  return { ...toSessionUser(row), disabledAt: row.disabled_at ? row.disabled_at.toISOString() : null, deletedAt: row.deleted_at ? row.deleted_at.toISOString() : null };
+  return {
+    ...toSessionUser(row),
+    disabledAt: row.disabled_at ? row.disabled_at.toISOString() : null,
+    deletedAt: row.deleted_at ? row.deleted_at.toISOString() : null,
+  };
 }

@@ -16,7 +16,9 @@ const ListQuery = z.object({
   pageSize: fields.pageSize,
 });
 const RolesBody = z.object({
-  roles: z.array(z.enum(ROLES, { error: `Roles are ${ROLES.join(', ')}.` }), { error: 'Send a list of roles.' }).max(ROLES.length),
+  roles: z
+    .array(z.enum(ROLES, { error: `Roles are ${ROLES.join(', ')}.` }), { error: 'Send a list of roles.' })
+    .max(ROLES.length),
 });
 
 /** Accounts, their roles, disabling, their history and their sign-in locks under /api/admin/users (admin only). */
@@ -26,9 +28,21 @@ export function userAdminRoutes(users: UserRepository, signIn: SignInGuard, acco
 
   r.get('/', async function listUsers(req, res) {
     const q = parse(ListQuery, req.query);
-    const { items, total } = await users.page({ ...q, disabled: q.state === undefined ? undefined : q.state === 'disabled' });
+    const { items, total } = await users.page({
+      ...q,
+      disabled: q.state === undefined ? undefined : q.state === 'disabled',
+    });
     const locks = await signIn.states(items.map((u) => u.email));
-    res.json({ items: items.map((u) => ({ ...adminView(u), createdAt: u.created_at, signIn: locks.get(u.email) ?? { failures: 0, locked: false } })), total, page: q.page, pageSize: q.pageSize });
+    res.json({
+      items: items.map((u) => ({
+        ...adminView(u),
+        createdAt: u.created_at,
+        signIn: locks.get(u.email) ?? { failures: 0, locked: false },
+      })),
+      total,
+      page: q.page,
+      pageSize: q.pageSize,
+    });
   });
 
   r.patch('/:id', async function setRoles(req, res) {

@@ -24,16 +24,27 @@ export class AnnouncementAudience {
    * The recipients of a list on `today`. `productId` (drop notices) keeps the drop requests for that product or for
    * every product, and only express consent: people asked for those notices.
    */
-  async of(trx: Knex.Transaction, topic: Topic, today: string, opts: { productId?: number; expressOnly?: boolean } = {}): Promise<Recipient[]> {
+  async of(
+    trx: Knex.Transaction,
+    topic: Topic,
+    today: string,
+    opts: { productId?: number; expressOnly?: boolean } = {},
+  ): Promise<Recipient[]> {
     const byEmail = new Map<string, Recipient>();
     for (const r of await this.subscriptions.expressAudience(trx, topic, opts.productId)) {
-      byEmail.set(r.email, { email: r.email, why: `you asked for e-mails about ${TOPIC_LABELS[topic]} on ${dateInZone(new Date(r.since), this.site.timeZone)}` });
+      byEmail.set(r.email, {
+        email: r.email,
+        why: `you asked for e-mails about ${TOPIC_LABELS[topic]} on ${dateInZone(new Date(r.since), this.site.timeZone)}`,
+      });
     }
     if (!opts.expressOnly) {
       const bases = (Object.keys(IMPLIED_TOPICS) as ImpliedBasis[]).filter((b) => IMPLIED_TOPICS[b].includes(topic));
       for (const r of await this.subscriptions.impliedConsents(trx, bases)) {
         if (byEmail.has(r.email) || !impliedConsentHolds(r.basis_on, today)) continue;
-        const why = r.basis === 'purchase' ? `you bought from ${this.site.teamName} on ${r.basis_on}` : `you are or were a member of ${this.site.clubName} (membership to ${r.basis_on})`;
+        const why =
+          r.basis === 'purchase'
+            ? `you bought from ${this.site.teamName} on ${r.basis_on}`
+            : `you are or were a member of ${this.site.clubName} (membership to ${r.basis_on})`;
         byEmail.set(r.email, { email: r.email, why });
       }
     }

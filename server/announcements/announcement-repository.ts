@@ -59,24 +59,45 @@ export class AnnouncementRepository {
 
   /** Writes the changed fields, stamps the change time and returns the stored row. */
   async update(trx: Knex | Knex.Transaction, id: number, patch: Partial<AnnouncementRow>): Promise<AnnouncementRow> {
-    const [row] = await trx('announcements').where('id', id).update({ ...patch, updated_at: trx.fn.now() }).returning('*');
+    const [row] = await trx('announcements')
+      .where('id', id)
+      .update({ ...patch, updated_at: trx.fn.now() })
+      .returning('*');
     return row;
   }
 
   /** One page of announcements in the chosen order (newest first as the tie-break), with the total count. */
-  async page(q: { page: number; pageSize: number; sort: 'created' | 'subject' | 'topic'; dir: 'asc' | 'desc' }): Promise<{ rows: AnnouncementRow[]; total: number }> {
+  async page(q: {
+    page: number;
+    pageSize: number;
+    sort: 'created' | 'subject' | 'topic';
+    dir: 'asc' | 'desc';
+  }): Promise<{ rows: AnnouncementRow[]; total: number }> {
     const [{ count }] = await this.db('announcements').count<{ count: string }[]>('* as count');
     const column = { created: 'id', subject: 'subject', topic: 'topic' }[q.sort];
-    const rows = await this.db('announcements').orderBy([{ column, order: q.dir }, { column: 'id', order: 'desc' }]).limit(q.pageSize).offset((q.page - 1) * q.pageSize);
+    const rows = await this.db('announcements')
+      .orderBy([
+        { column, order: q.dir },
+        { column: 'id', order: 'desc' },
+      ])
+      .limit(q.pageSize)
+      .offset((q.page - 1) * q.pageSize);
     return { rows, total: Number(count) };
   }
 
   /** Outbox counts per announcement. */
   async counts(ids: number[]): Promise<Map<number, DeliveryCounts>> {
-    const out = new Map<number, DeliveryCounts>(ids.map((id) => [id, { queued: 0, sent: 0, failed: 0, suppressed: 0 }]));
+    const out = new Map<number, DeliveryCounts>(
+      ids.map((id) => [id, { queued: 0, sent: 0, failed: 0, suppressed: 0 }]),
+    );
     if (ids.length === 0) return out;
-    const rows = await this.db('outbound_emails').whereIn('announcement_id', ids).groupBy('announcement_id', 'status').select('announcement_id', 'status').count('* as n');
-    for (const r of rows as { announcement_id: string; status: keyof DeliveryCounts; n: string }[]) out.get(Number(r.announcement_id))![r.status] = Number(r.n);
+    const rows = await this.db('outbound_emails')
+      .whereIn('announcement_id', ids)
+      .groupBy('announcement_id', 'status')
+      .select('announcement_id', 'status')
+      .count('* as n');
+    for (const r of rows as { announcement_id: string; status: keyof DeliveryCounts; n: string }[])
+      out.get(Number(r.announcement_id))![r.status] = Number(r.n);
     return out;
   }
 
@@ -91,6 +112,13 @@ export class AnnouncementRepository {
       .andWhere('p.active', true)
       .whereNotExists((q) => q.select(1).from('announcements as a').whereRaw('a.run_id = r.id'))
       .orderBy('r.id')
-      .select('r.id as run_id', 'r.name as run_name', 'p.id as product_id', 'p.name as product_name', 'p.slug', 'r.closes_at');
+      .select(
+        'r.id as run_id',
+        'r.name as run_name',
+        'p.id as product_id',
+        'p.name as product_name',
+        'p.slug',
+        'r.closes_at',
+      );
   }
 }

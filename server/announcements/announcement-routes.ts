@@ -1,7 +1,13 @@
 import express, { Router } from 'express';
 import { requireRole, requireSignedIn } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
-import { AnnouncementListQuery, AnnouncementPatchSchema, NewAnnouncementSchema, SignUpSchema, TokenQuery } from './announcement-schemas';
+import {
+  AnnouncementListQuery,
+  AnnouncementPatchSchema,
+  NewAnnouncementSchema,
+  SignUpSchema,
+  TokenQuery,
+} from './announcement-schemas';
 import type { AnnouncementService } from './announcement-service';
 import { AnnouncementSettingsSchema } from './announcement-settings';
 import type { SubscriptionService } from './subscription-service';
@@ -26,9 +32,18 @@ export function subscriptionRoutes(subscriptions: SubscriptionService): Router {
     res.json(subscriptions.describeUnsubscribe(parse(TokenQuery, req.query).token));
   });
   // Mail clients POST `List-Unsubscribe=One-Click` as a form; the path skips the JSON parser and the CSRF check.
-  r.post('/unsubscribe', express.urlencoded({ extended: false, limit: '2kb' }), async function oneClickUnsubscribe(req, res) {
-    res.json({ unsubscribed: await subscriptions.unsubscribe(parse(TokenQuery, req.query).token, req.body?.['List-Unsubscribe'] === 'One-Click' ? 'one-click' : 'page') });
-  });
+  r.post(
+    '/unsubscribe',
+    express.urlencoded({ extended: false, limit: '2kb' }),
+    async function oneClickUnsubscribe(req, res) {
+      res.json({
+        unsubscribed: await subscriptions.unsubscribe(
+          parse(TokenQuery, req.query).token,
+          req.body?.['List-Unsubscribe'] === 'One-Click' ? 'one-click' : 'page',
+        ),
+      });
+    },
+  );
   return r;
 }
 

@@ -32,7 +32,13 @@ export class AnnouncementService {
 
   /** Saves a new announcement as a draft; nothing is sent until it is sent explicitly. */
   async create(input: { topic: Topic; subject: string; markdown: string }, userId: number) {
-    const row = await this.repo.insert(this.db, { kind: 'announcement', topic: input.topic, subject: input.subject, markdown: input.markdown, created_by: userId });
+    const row = await this.repo.insert(this.db, {
+      kind: 'announcement',
+      topic: input.topic,
+      subject: input.subject,
+      markdown: input.markdown,
+      created_by: userId,
+    });
     return { announcement: await this.view(row) };
   }
 
@@ -41,7 +47,8 @@ export class AnnouncementService {
     return this.db.transaction(async (trx) => {
       const row = await this.repo.lockById(trx, id);
       if (!row) throw notFound('No such announcement.');
-      if (row.status !== 'draft') throw conflict('already_sent', 'This announcement was sent; it can no longer change.');
+      if (row.status !== 'draft')
+        throw conflict('already_sent', 'This announcement was sent; it can no longer change.');
       return { announcement: await this.view(await this.repo.update(trx, id, patch)) };
     });
   }
@@ -50,7 +57,12 @@ export class AnnouncementService {
   async list(q: { page: number; pageSize: number; sort: 'created' | 'subject' | 'topic'; dir: 'asc' | 'desc' }) {
     const { rows, total } = await this.repo.page(q);
     const counts = await this.repo.counts(rows.map((r) => Number(r.id)));
-    return { items: rows.map((r) => this.toView(r, counts.get(Number(r.id))!)), total, page: q.page, pageSize: q.pageSize };
+    return {
+      items: rows.map((r) => this.toView(r, counts.get(Number(r.id))!)),
+      total,
+      page: q.page,
+      pageSize: q.pageSize,
+    };
   }
 
   /** One announcement with its delivery counts; a 404 for an unknown id. */
@@ -61,16 +73,32 @@ export class AnnouncementService {
   /** The mail exactly as a recipient gets it, addressed to the staff member looking at it. */
   async preview(id: number, viewerEmail: string) {
     const row = await this.found(id);
-    const mail = this.mailer.mailFor(this.content(row), { email: viewerEmail, why: 'you asked for this list (each recipient sees their own reason here)' }, await this.mailer.sender());
+    const mail = this.mailer.mailFor(
+      this.content(row),
+      { email: viewerEmail, why: 'you asked for this list (each recipient sees their own reason here)' },
+      await this.mailer.sender(),
+    );
     return { subject: mail.subject, text: mail.text, html: mail.html, headers: mail.headers };
   }
 
   /** Sends the mail to the staff member alone, marked as a test; it counts nowhere. */
   async testSend(id: number, email: string) {
     const row = await this.found(id);
-    const content = { ...this.content(row), subject: `[Test] ${row.subject}`, announcementId: undefined, template: 'announcement-test' };
+    const content = {
+      ...this.content(row),
+      subject: `[Test] ${row.subject}`,
+      announcementId: undefined,
+      template: 'announcement-test',
+    };
     await this.db.transaction(async (trx) => {
-      await enqueueEmail(trx, this.mailer.mailFor(content, { email, why: 'you sent yourself a test of this announcement' }, await this.mailer.sender(trx)));
+      await enqueueEmail(
+        trx,
+        this.mailer.mailFor(
+          content,
+          { email, why: 'you sent yourself a test of this announcement' },
+          await this.mailer.sender(trx),
+        ),
+      );
     });
     return { to: email };
   }
@@ -85,8 +113,17 @@ export class AnnouncementService {
       const locked = await this.repo.lockById(trx, id);
       if (!locked) throw notFound('No such announcement.');
       if (locked.status !== 'draft') throw conflict('already_sent', 'This announcement is already being sent.');
-      const { queued, suppressed } = await this.queue(trx, locked, await this.audience.of(trx, locked.topic, this.today()));
-      return this.repo.update(trx, id, { status: 'sending', sent_at: this.clock.now(), recipients: queued, skipped_suppressed: suppressed });
+      const { queued, suppressed } = await this.queue(
+        trx,
+        locked,
+        await this.audience.of(trx, locked.topic, this.today()),
+      );
+      return this.repo.update(trx, id, {
+        status: 'sending',
+        sent_at: this.clock.now(),
+        recipients: queued,
+        skipped_suppressed: suppressed,
+      });
     });
     return { announcement: await this.view(row) };
   }
@@ -115,7 +152,11 @@ export class AnnouncementService {
           .returning('*');
         if (inserted.length === 0) return;
         const notice = inserted[0] as AnnouncementRow;
-        const { queued, suppressed } = await this.queue(trx, notice, await this.audience.of(trx, 'drops', this.today(), { productId: Number(run.product_id), expressOnly: true }));
+        const { queued, suppressed } = await this.queue(
+          trx,
+          notice,
+          await this.audience.of(trx, 'drops', this.today(), { productId: Number(run.product_id), expressOnly: true }),
+        );
         await this.repo.update(trx, notice.id, { recipients: queued, skipped_suppressed: suppressed });
         sent++;
       });
@@ -136,11 +177,20 @@ export class AnnouncementService {
   private queue(trx: Knex.Transaction, row: AnnouncementRow, recipients: Recipient[]) {
     const content = this.content(row);
     // The dedupe key makes each address once-only for this announcement, however often the queueing runs.
-    return this.mailer.queue(trx, row.topic, recipients, (r) => ({ content, dedupeKey: `announcement:${row.id}:${r.email}` }));
+    return this.mailer.queue(trx, row.topic, recipients, (r) => ({
+      content,
+      dedupeKey: `announcement:${row.id}:${r.email}`,
+    }));
   }
 
   private content(row: AnnouncementRow): CommercialContent {
-    return { topic: row.topic, subject: row.subject, markdown: row.markdown, template: row.kind === 'drop_notice' ? 'drop-notice' : 'announcement', announcementId: Number(row.id) };
+    return {
+      topic: row.topic,
+      subject: row.subject,
+      markdown: row.markdown,
+      template: row.kind === 'drop_notice' ? 'drop-notice' : 'announcement',
+      announcementId: Number(row.id),
+    };
   }
 
   private today(): string {

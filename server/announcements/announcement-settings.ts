@@ -7,8 +7,16 @@ import { defineSetting } from '../settings/settings-service';
  * `automaticDropNotices` sends the drop notice to those who asked once a run opens.
  */
 export const AnnouncementSettingsSchema = z.strictObject({
-  mailingAddress: z.string({ error: 'Give a full mailing address.' }).trim().min(10, 'Give a full mailing address.').max(300, 'Too long.'),
-  contactEmail: z.string({ error: 'Enter an e-mail address.' }).trim().max(254, 'Too long.').pipe(z.email({ error: 'Enter an e-mail address.' })),
+  mailingAddress: z
+    .string({ error: 'Give a full mailing address.' })
+    .trim()
+    .min(10, 'Give a full mailing address.')
+    .max(300, 'Too long.'),
+  contactEmail: z
+    .string({ error: 'Enter an e-mail address.' })
+    .trim()
+    .max(254, 'Too long.')
+    .pipe(z.email({ error: 'Enter an e-mail address.' })),
   automaticDropNotices: z.boolean({ error: 'Yes or no.' }),
 });
 

@@ -14,14 +14,30 @@ export function announcementsFeature(platform: Platform): Feature {
   const { db, clock, config } = platform.deps;
   const tokens = new UnsubscribeTokens(config.sessionSecret, config.publicUrl);
   const subscriptionRepo = new SubscriptionRepository(db);
-  const subscriptions = new SubscriptionService(db, subscriptionRepo, tokens, platform.auth.afterAnswer, clock, { teamName: config.site.teamName, publicUrl: config.publicUrl });
-  const audience = new AnnouncementAudience(subscriptionRepo, { teamName: config.site.teamName, clubName: config.site.clubName, timeZone: config.clubTimeZone });
-  const mailer = commercialMailer(platform);
-  const announcements = new AnnouncementService(db, new AnnouncementRepository(db), subscriptionRepo, audience, mailer, platform.settings, clock, {
+  const subscriptions = new SubscriptionService(db, subscriptionRepo, tokens, platform.auth.afterAnswer, clock, {
     teamName: config.site.teamName,
     publicUrl: config.publicUrl,
+  });
+  const audience = new AnnouncementAudience(subscriptionRepo, {
+    teamName: config.site.teamName,
+    clubName: config.site.clubName,
     timeZone: config.clubTimeZone,
   });
+  const mailer = commercialMailer(platform);
+  const announcements = new AnnouncementService(
+    db,
+    new AnnouncementRepository(db),
+    subscriptionRepo,
+    audience,
+    mailer,
+    platform.settings,
+    clock,
+    {
+      teamName: config.site.teamName,
+      publicUrl: config.publicUrl,
+      timeZone: config.clubTimeZone,
+    },
+  );
   return {
     name: 'announcements',
     mount(api) {
@@ -31,7 +47,11 @@ export function announcementsFeature(platform: Platform): Feature {
     },
     jobs: [
       { name: 'drop-notices', cron: '*/5 * * * *', run: () => announcements.sendDropNotices() },
-      { name: 'implied-consents', cron: '30 3 * * *', run: () => subscriptionRepo.recordImpliedConsents(config.clubTimeZone) },
+      {
+        name: 'implied-consents',
+        cron: '30 3 * * *',
+        run: () => subscriptionRepo.recordImpliedConsents(config.clubTimeZone),
+      },
     ],
     personalData: announcementsPersonalData,
   };

@@ -20,14 +20,51 @@ export const announcementsPersonalData: PersonalDataPart = {
           if (byAddress) q.orWhere('s.email', byAddress);
         })
         .orderBy('s.id')
-        .select('s.email', 's.topic', 'p.name as product', 's.wording_version', 's.wording_text', 's.source_page', 's.source_ip', 's.requested_at', 's.confirmed_at', 's.confirmed_how', 's.withdrawn_at', 's.withdrawn_how'),
-      byAddress ? await trx('implied_consents').where('email', byAddress).orderBy('id').select('basis', 'basis_on', 'recorded_at') : [],
-      byAddress ? await trx('email_suppressions').where('email', byAddress).orderBy('id').select('list', 'reason', 'created_at') : [],
+        .select(
+          's.email',
+          's.topic',
+          'p.name as product',
+          's.wording_version',
+          's.wording_text',
+          's.source_page',
+          's.source_ip',
+          's.requested_at',
+          's.confirmed_at',
+          's.confirmed_how',
+          's.withdrawn_at',
+          's.withdrawn_how',
+        ),
+      byAddress
+        ? await trx('implied_consents')
+            .where('email', byAddress)
+            .orderBy('id')
+            .select('basis', 'basis_on', 'recorded_at')
+        : [],
+      byAddress
+        ? await trx('email_suppressions').where('email', byAddress).orderBy('id').select('list', 'reason', 'created_at')
+        : [],
     ];
     return [
-      { name: 'consents', title: 'Lists you asked to hear from', purpose: 'The proof of your consent to announcements: what you were shown, when, from where, and when you withdrew it.', records: subscriptions.map(plainRecord) },
-      { name: 'implied-consents', title: 'Consents from a purchase or membership', purpose: 'A purchase or a membership lets Padside write to you for a limited time; these are the dates it counts from.', records: implied.map(plainRecord) },
-      { name: 'mail-suppressions', title: 'Mail we must not send you', purpose: 'Addresses that unsubscribed, bounced or complained, checked before every send.', records: suppressions.map(plainRecord) },
+      {
+        name: 'consents',
+        title: 'Lists you asked to hear from',
+        purpose:
+          'The proof of your consent to announcements: what you were shown, when, from where, and when you withdrew it.',
+        records: subscriptions.map(plainRecord),
+      },
+      {
+        name: 'implied-consents',
+        title: 'Consents from a purchase or membership',
+        purpose:
+          'A purchase or a membership lets Padside write to you for a limited time; these are the dates it counts from.',
+        records: implied.map(plainRecord),
+      },
+      {
+        name: 'mail-suppressions',
+        title: 'Mail we must not send you',
+        purpose: 'Addresses that unsubscribed, bounced or complained, checked before every send.',
+        records: suppressions.map(plainRecord),
+      },
     ];
   },
 

@@ -40,7 +40,12 @@ export function commercialFooter(topic: MailList, r: CommercialRecipient, sender
  * works without signing in, and the one-click headers of RFC 8058. The worker checks the suppression list again just
  * before it sends, under the mail's list.
  */
-export function commercialMail(content: CommercialContent, r: CommercialRecipient, sender: SenderIdentity, dedupeKey?: string): CommercialEmail {
+export function commercialMail(
+  content: CommercialContent,
+  r: CommercialRecipient,
+  sender: SenderIdentity,
+  dedupeKey?: string,
+): CommercialEmail {
   const footer = commercialFooter(content.topic, r, sender);
   return {
     to: r.email,

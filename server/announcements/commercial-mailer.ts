@@ -38,15 +38,34 @@ export class CommercialMailer {
   }
 
   /** The mail for one addressee, as it will be queued. */
-  mailFor(content: CommercialContent, to: CommercialAddressee, sender: SenderIdentity, dedupeKey?: string): CommercialEmail {
-    return commercialMail(content, { ...to, oneClickUrl: this.tokens.oneClickUrl(to.email, content.topic), pageUrl: this.tokens.pageUrl(to.email, content.topic) }, sender, dedupeKey);
+  mailFor(
+    content: CommercialContent,
+    to: CommercialAddressee,
+    sender: SenderIdentity,
+    dedupeKey?: string,
+  ): CommercialEmail {
+    return commercialMail(
+      content,
+      {
+        ...to,
+        oneClickUrl: this.tokens.oneClickUrl(to.email, content.topic),
+        pageUrl: this.tokens.pageUrl(to.email, content.topic),
+      },
+      sender,
+      dedupeKey,
+    );
   }
 
   /**
    * Queues one mail per addressee not suppressed for the list; `build` gives each its content and dedupe key.
    * Returns how many were queued and how many the suppression list left out.
    */
-  async queue<T extends CommercialAddressee>(trx: Knex.Transaction, list: MailList, to: T[], build: (a: T) => { content: CommercialContent; dedupeKey: string }): Promise<{ queued: number; suppressed: number }> {
+  async queue<T extends CommercialAddressee>(
+    trx: Knex.Transaction,
+    list: MailList,
+    to: T[],
+    build: (a: T) => { content: CommercialContent; dedupeKey: string },
+  ): Promise<{ queued: number; suppressed: number }> {
     const blocked = await this.suppressions.emailsFor(list, trx);
     const sender = await this.sender(trx);
     const allowed = to.filter((a) => !blocked.has(a.email.trim().toLowerCase()));
@@ -64,5 +83,10 @@ export class CommercialMailer {
 /** The commercial mailer of a platform; every feature that sends commercial mail builds it this way. */
 export function commercialMailer(platform: Platform): CommercialMailer {
   const { db, config } = platform.deps;
-  return new CommercialMailer(db, platform.settings, new UnsubscribeTokens(config.sessionSecret, config.publicUrl), config.site.teamName);
+  return new CommercialMailer(
+    db,
+    platform.settings,
+    new UnsubscribeTokens(config.sessionSecret, config.publicUrl),
+    config.site.teamName,
+  );
 }

@@ -83,26 +83,59 @@ export class SubscriptionRepository {
       `INSERT INTO subscriptions (email, topic, product_id, user_id, wording_version, wording_text, source_page, source_ip, requested_at, confirm_token_hash, confirm_expires_at)
        VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)
        ON CONFLICT (email, topic, COALESCE(product_id, 0)) WHERE withdrawn_at IS NULL DO NOTHING RETURNING id`,
-      [r.email, r.topic, r.productId, values.user_id, r.wordingVersion, r.wordingText, r.sourcePage, r.sourceIp, r.now, r.tokenHash, r.expiresAt],
+      [
+        r.email,
+        r.topic,
+        r.productId,
+        values.user_id,
+        r.wordingVersion,
+        r.wordingText,
+        r.sourcePage,
+        r.sourceIp,
+        r.now,
+        r.tokenHash,
+        r.expiresAt,
+      ],
     );
     if (inserted.rows.length === 0) {
-      await trx('subscriptions').where({ email: r.email, topic: r.topic }).whereRaw('COALESCE(product_id, 0) = ?', [r.productId ?? 0]).modify(LIVE).whereNull('confirmed_at').update(values);
+      await trx('subscriptions')
+        .where({ email: r.email, topic: r.topic })
+        .whereRaw('COALESCE(product_id, 0) = ?', [r.productId ?? 0])
+        .modify(LIVE)
+        .whereNull('confirmed_at')
+        .update(values);
     }
     return true;
   }
 
   /** The pending consents a confirmation token stands for, locked. */
   pendingByToken(trx: Knex.Transaction, tokenHash: string): Promise<SubscriptionRow[]> {
-    return trx('subscriptions').where('confirm_token_hash', tokenHash).whereNull('confirmed_at').modify(LIVE).forUpdate();
+    return trx('subscriptions')
+      .where('confirm_token_hash', tokenHash)
+      .whereNull('confirmed_at')
+      .modify(LIVE)
+      .forUpdate();
   }
 
   /** Marks the subscriptions confirmed by the e-mail link, keeping when and from where as proof of consent, and spends the token. */
   async confirm(trx: Knex.Transaction, ids: number[], at: Date, ip: string): Promise<void> {
-    await trx('subscriptions').whereIn('id', ids).update({ confirmed_at: at, confirmed_ip: ip, confirmed_how: 'email-link', confirm_token_hash: null, confirm_expires_at: null });
+    await trx('subscriptions').whereIn('id', ids).update({
+      confirmed_at: at,
+      confirmed_ip: ip,
+      confirmed_how: 'email-link',
+      confirm_token_hash: null,
+      confirm_expires_at: null,
+    });
   }
 
   /** Withdraws every live consent of an address for a list (or for all lists); returns how many there were. */
-  async withdraw(trx: Knex | Knex.Transaction, email: string, topic: MailList | null, at: Date, how: string): Promise<number> {
+  async withdraw(
+    trx: Knex | Knex.Transaction,
+    email: string,
+    topic: MailList | null,
+    at: Date,
+    how: string,
+  ): Promise<number> {
     return trx('subscriptions')
       .where('email', email)
       .modify((q) => topic && q.where('topic', topic))
@@ -129,21 +162,32 @@ export class SubscriptionRepository {
    * Addresses with a confirmed express consent for the list. `productId` narrows drop requests to those for that
    * product or for every product; without it, product requests count too (they asked about drops).
    */
-  expressAudience(trx: Knex | Knex.Transaction, topic: Topic, productId?: number): Promise<{ email: string; since: Date }[]> {
+  expressAudience(
+    trx: Knex | Knex.Transaction,
+    topic: Topic,
+    productId?: number,
+  ): Promise<{ email: string; since: Date }[]> {
     return trx('subscriptions')
       .where('topic', topic)
       .whereNotNull('confirmed_at')
       .modify(LIVE)
-      .modify((q) => productId !== undefined && q.where((w) => w.whereNull('product_id').orWhere('product_id', productId)))
+      .modify(
+        (q) => productId !== undefined && q.where((w) => w.whereNull('product_id').orWhere('product_id', productId)),
+      )
       .groupBy('email')
       .select('email', trx.raw('MIN(confirmed_at) AS since'));
   }
 
   /** The latest implied consent date of each address, per basis; an account that turned off news mail has none. */
-  impliedConsents(trx: Knex | Knex.Transaction, bases: ImpliedBasis[]): Promise<{ email: string; basis: ImpliedBasis; basis_on: string }[]> {
+  impliedConsents(
+    trx: Knex | Knex.Transaction,
+    bases: ImpliedBasis[],
+  ): Promise<{ email: string; basis: ImpliedBasis; basis_on: string }[]> {
     return trx('implied_consents as ic')
       .whereIn('ic.basis', bases)
-      .whereNotExists((q) => q.select(1).from('users as u').whereRaw('lower(u.email) = ic.email').andWhere('u.marketing_opt_out', true))
+      .whereNotExists((q) =>
+        q.select(1).from('users as u').whereRaw('lower(u.email) = ic.email').andWhere('u.marketing_opt_out', true),
+      )
       .groupBy('ic.email', 'ic.basis')
       .select('ic.email', 'ic.basis', trx.raw("to_char(MAX(ic.basis_on), 'YYYY-MM-DD') AS basis_on"));
   }

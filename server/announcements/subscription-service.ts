@@ -44,7 +44,11 @@ export class SubscriptionService {
 
   /** The lists and the consent wording the forms show. */
   wording() {
-    return { version: CONSENT_WORDING.version, text: CONSENT_WORDING.text(this.site.teamName), topics: TOPICS.map((code) => ({ code, label: TOPIC_LABELS[code] })) };
+    return {
+      version: CONSENT_WORDING.version,
+      text: CONSENT_WORDING.text(this.site.teamName),
+      topics: TOPICS.map((code) => ({ code, label: TOPIC_LABELS[code] })),
+    };
   }
 
   /**
@@ -54,9 +58,12 @@ export class SubscriptionService {
    */
   async subscribe(input: SignUp, ip: string, userId: number | null): Promise<void> {
     if (input.productId !== undefined && !input.topics.includes('drops')) {
-      throw badRequest('A product can only be followed for its drops.', { topics: 'Tick “new runs and drops” to hear about this product.' });
+      throw badRequest('A product can only be followed for its drops.', {
+        topics: 'Tick “new runs and drops” to hear about this product.',
+      });
     }
-    if (input.productId !== undefined && !(await this.repo.productExists(input.productId))) throw badRequest('That product does not exist.', { productId: 'No such product.' });
+    if (input.productId !== undefined && !(await this.repo.productExists(input.productId)))
+      throw badRequest('That product does not exist.', { productId: 'No such product.' });
     const email = input.email.trim().toLowerCase();
     await Promise.all([this.perAddress.check(email), this.perIp.check(ip)]);
     await Promise.all([this.perAddress.fail(email), this.perIp.fail(ip)]);
@@ -70,20 +77,38 @@ export class SubscriptionService {
     const wording = this.wording();
     await this.db.transaction(async (trx) => {
       // An address that bounced or complained gets no confirmation either.
-      const blocked = await this.suppressions.blocked([{ id: 0, to_address: input.email, category: 'transactional', list: null }], trx);
+      const blocked = await this.suppressions.blocked(
+        [{ id: 0, to_address: input.email, category: 'transactional', list: null }],
+        trx,
+      );
       if (blocked.size) return;
       const asked: Topic[] = [];
       for (const topic of [...new Set(input.topics)]) {
         const productId = topic === 'drops' ? (input.productId ?? null) : null;
         const fresh = await this.repo.requestConsent(trx, {
-          email: input.email, topic, productId, userId, wordingVersion: wording.version, wordingText: wording.text, sourcePage: input.page, sourceIp: ip, tokenHash: hash, expiresAt, now,
+          email: input.email,
+          topic,
+          productId,
+          userId,
+          wordingVersion: wording.version,
+          wordingText: wording.text,
+          sourcePage: input.page,
+          sourceIp: ip,
+          tokenHash: hash,
+          expiresAt,
+          now,
         });
         if (fresh) asked.push(topic);
       }
       if (asked.length === 0) return;
-      const product = input.productId ? await trx('shop_products').where('id', input.productId).first('name') : undefined;
+      const product = input.productId
+        ? await trx('shop_products').where('id', input.productId).first('name')
+        : undefined;
       const link = `${this.site.publicUrl}/subscriptions/confirm?token=${token}`;
-      await enqueueEmail(trx, confirmSubscriptionMail(input.email, asked, product?.name ?? null, input.page, link, this.site.teamName));
+      await enqueueEmail(
+        trx,
+        confirmSubscriptionMail(input.email, asked, product?.name ?? null, input.page, link, this.site.teamName),
+      );
     });
   }
 
@@ -93,9 +118,16 @@ export class SubscriptionService {
       const rows = await this.repo.pendingByToken(trx, hashToken(token));
       const now = this.clock.now();
       if (rows.length === 0 || rows.some((r) => r.confirm_expires_at && new Date(r.confirm_expires_at) <= now)) {
-        throw badRequest('This link has expired or was already used. Sign up again to get a new one.', { token: 'Expired or already used.' });
+        throw badRequest('This link has expired or was already used. Sign up again to get a new one.', {
+          token: 'Expired or already used.',
+        });
       }
-      await this.repo.confirm(trx, rows.map((r) => r.id), now, ip);
+      await this.repo.confirm(
+        trx,
+        rows.map((r) => r.id),
+        now,
+        ip,
+      );
       // A new express consent overrides an earlier unsubscribe from the same list.
       for (const r of rows) await this.suppressions.liftUnsubscribe(trx, r.email, r.topic);
       return { email: rows[0].email, topics: [...new Set(rows.map((r) => r.topic))] };
@@ -109,7 +141,10 @@ export class SubscriptionService {
   }
 
   /** Stops a list for an address at once: consents withdrawn, and the address suppressed for that list. */
-  async unsubscribe(token: string, how: 'one-click' | 'page' | 'account'): Promise<{ email: string; topic: MailList; label: string }> {
+  async unsubscribe(
+    token: string,
+    how: 'one-click' | 'page' | 'account',
+  ): Promise<{ email: string; topic: MailList; label: string }> {
     const who = this.readToken(token);
     await this.withdraw(who.email, who.topic, how);
     return { ...who, label: TOPIC_LABELS[who.topic] };
@@ -141,7 +176,13 @@ export class SubscriptionService {
 
   private readToken(token: string) {
     const who = this.tokens.read(token);
-    if (!who) throw new AppError(400, 'invalid_token', 'This unsubscribe link is not valid. Use the link from the latest e-mail.', { token: 'Not a valid link.' });
+    if (!who)
+      throw new AppError(
+        400,
+        'invalid_token',
+        'This unsubscribe link is not valid. Use the link from the latest e-mail.',
+        { token: 'Not a valid link.' },
+      );
     return who;
   }
 }

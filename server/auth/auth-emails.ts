@@ -32,7 +32,12 @@ export function passwordChangedEmail(to: string, name: string): TransactionalEma
 }
 
 /** To the owner of an address someone tried to register again; it says what to do without confirming anything to the other person. */
-export function registrationAttemptEmail(to: string, name: string, signInLink: string, resetLink: string): TransactionalEmail {
+export function registrationAttemptEmail(
+  to: string,
+  name: string,
+  signInLink: string,
+  resetLink: string,
+): TransactionalEmail {
   return {
     to,
     template: 'registration-attempt',

@@ -7,19 +7,29 @@ import type { SessionUser } from '../platform/roles';
 import { PASSWORD_MAX } from './password-policy';
 import type { AuthService } from './auth-service';
 
-const password = z.string({ error: 'Password is required.' }).min(1, 'Password is required.').max(PASSWORD_MAX * 4, 'Password is too long.');
+const password = z
+  .string({ error: 'Password is required.' })
+  .min(1, 'Password is required.')
+  .max(PASSWORD_MAX * 4, 'Password is too long.');
 const RegisterBody = z.object({
   email: fields.email,
   password,
-  displayName: z.string({ error: 'Name is required.' }).trim().min(1, 'Name is required.').max(80, 'Use at most 80 characters.'),
+  displayName: z
+    .string({ error: 'Name is required.' })
+    .trim()
+    .min(1, 'Name is required.')
+    .max(80, 'Use at most 80 characters.'),
 });
 const LoginBody = z.object({ email: fields.email, password });
 const ResetRequestBody = z.object({ email: fields.email });
-const TokenBody = z.object({ token: z.string({ error: 'The link is incomplete.' }).min(10, 'The link is incomplete.').max(200) });
+const TokenBody = z.object({
+  token: z.string({ error: 'The link is incomplete.' }).min(10, 'The link is incomplete.').max(200),
+});
 const ResetConfirmBody = TokenBody.extend({ password });
 
 /** What every accepted registration answers, whether the address is new or not. */
-export const REGISTERED = 'Check your inbox: we sent a message to that address. Follow it to confirm the address, then sign in.';
+export const REGISTERED =
+  'Check your inbox: we sent a message to that address. Follow it to confirm the address, then sign in.';
 
 /** Starts a fresh session for the user; passport's login regenerates the id (ASVS 4.0.3 3.2.1). */
 function signIn(req: Request, user: SessionUser): Promise<void> {

@@ -70,7 +70,17 @@ export class AuthService {
     } catch (err) {
       if ((err as { code?: string }).code !== '23505') throw err;
       const owner = (await this.users.byEmail(input.email))!;
-      await this.db.transaction((trx) => enqueueEmail(trx, registrationAttemptEmail(owner.email, owner.display_name, `${this.publicUrl}/account/sign-in`, `${this.publicUrl}/account/forgot`)));
+      await this.db.transaction((trx) =>
+        enqueueEmail(
+          trx,
+          registrationAttemptEmail(
+            owner.email,
+            owner.display_name,
+            `${this.publicUrl}/account/sign-in`,
+            `${this.publicUrl}/account/forgot`,
+          ),
+        ),
+      );
     }
   }
 
@@ -85,7 +95,12 @@ export class AuthService {
       throw new AppError(401, 'invalid_credentials', 'That e-mail and password do not match an account.');
     }
     // Told only to whoever knows the password, so it reveals nothing about the address to anyone else.
-    if (row.disabled_at) throw new AppError(403, 'account_disabled', 'This account is disabled. Ask the club’s admin if you think that is a mistake.');
+    if (row.disabled_at)
+      throw new AppError(
+        403,
+        'account_disabled',
+        'This account is disabled. Ask the club’s admin if you think that is a mistake.',
+      );
     await this.signInGuard.succeed(accountKey, ip, Number(row.id));
     return toSessionUser(row);
   }
@@ -129,14 +144,28 @@ export class AuthService {
     const row = await this.users.byEmail(email);
     if (!row) return;
     const key = row.email;
-    const limited = await this.resetRequests.check(key).then(() => false, () => true);
+    const limited = await this.resetRequests.check(key).then(
+      () => false,
+      () => true,
+    );
     if (limited) return;
     await this.resetRequests.fail(key);
     const { token, hash } = newToken();
     await this.db.transaction(async (trx) => {
-      await trx('auth_tokens').where({ user_id: row.id, purpose: 'password_reset' }).whereNull('used_at').update({ used_at: this.clock.now() });
-      await trx('auth_tokens').insert({ user_id: row.id, purpose: 'password_reset', token_hash: hash, expires_at: this.hoursFromNow(RESET_TTL_HOURS) });
-      await enqueueEmail(trx, passwordResetEmail(row.email, row.display_name, `${this.publicUrl}/account/reset?token=${token}`));
+      await trx('auth_tokens')
+        .where({ user_id: row.id, purpose: 'password_reset' })
+        .whereNull('used_at')
+        .update({ used_at: this.clock.now() });
+      await trx('auth_tokens').insert({
+        user_id: row.id,
+        purpose: 'password_reset',
+        token_hash: hash,
+        expires_at: this.hoursFromNow(RESET_TTL_HOURS),
+      });
+      await enqueueEmail(
+        trx,
+        passwordResetEmail(row.email, row.display_name, `${this.publicUrl}/account/reset?token=${token}`),
+      );
     });
   }
 
@@ -147,7 +176,10 @@ export class AuthService {
       const row = (await this.users.byId(userId, trx))!;
       const problem = passwordProblem(password, row.email);
       if (problem) throw badRequest('Choose a different password.', { password: problem });
-      await this.users.update(trx, userId, { password_hash: await hashPassword(password), email_verified_at: row.email_verified_at ?? this.clock.now() });
+      await this.users.update(trx, userId, {
+        password_hash: await hashPassword(password),
+        email_verified_at: row.email_verified_at ?? this.clock.now(),
+      });
       await this.endSessions(trx, userId);
       await enqueueEmail(trx, passwordChangedEmail(row.email, row.display_name));
       return row.email;
@@ -172,7 +204,10 @@ export class AuthService {
   }
 
   /** Saves the account's own display name and marketing choice, returning the session user with them. */
-  async updateProfile(userId: number, patch: { displayName?: string; marketingOptOut?: boolean }): Promise<SessionUser> {
+  async updateProfile(
+    userId: number,
+    patch: { displayName?: string; marketingOptOut?: boolean },
+  ): Promise<SessionUser> {
     const row = await this.users.update(this.db, userId, {
       ...(patch.displayName !== undefined ? { display_name: patch.displayName } : {}),
       ...(patch.marketingOptOut !== undefined ? { marketing_opt_out: patch.marketingOptOut } : {}),
@@ -188,16 +223,31 @@ export class AuthService {
       .delete();
   }
 
-  private async queueVerification(trx: Knex.Transaction, userId: string | number, email: string, name: string): Promise<void> {
+  private async queueVerification(
+    trx: Knex.Transaction,
+    userId: string | number,
+    email: string,
+    name: string,
+  ): Promise<void> {
     const { token, hash } = newToken();
-    await trx('auth_tokens').insert({ user_id: userId, purpose: 'verify_email', token_hash: hash, expires_at: this.hoursFromNow(VERIFY_TTL_HOURS) });
+    await trx('auth_tokens').insert({
+      user_id: userId,
+      purpose: 'verify_email',
+      token_hash: hash,
+      expires_at: this.hoursFromNow(VERIFY_TTL_HOURS),
+    });
     await enqueueEmail(trx, verificationEmail(email, name, `${this.publicUrl}/account/verify?token=${token}`));
   }
 
   private async consumeToken(trx: Knex.Transaction, token: string, purpose: string): Promise<number> {
-    const row = await trx('auth_tokens').where({ token_hash: hashToken(token), purpose }).forUpdate().first();
+    const row = await trx('auth_tokens')
+      .where({ token_hash: hashToken(token), purpose })
+      .forUpdate()
+      .first();
     if (!row || row.used_at || new Date(row.expires_at) <= this.clock.now()) {
-      throw badRequest('This link has expired or was already used. Ask for a new one.', { token: 'Expired or already used.' });
+      throw badRequest('This link has expired or was already used. Ask for a new one.', {
+        token: 'Expired or already used.',
+      });
     }
     await trx('auth_tokens').where('id', row.id).update({ used_at: this.clock.now() });
     return Number(row.user_id);

@@ -11,11 +11,14 @@ export const PASSWORD_MAX = 128;
  */
 export function passwordProblem(password: string, email?: string): string | null {
   const length = [...password].length;
-  if (length < PASSWORD_MIN) return `Use at least ${PASSWORD_MIN} characters; a passphrase of four or more words is easiest.`;
+  if (length < PASSWORD_MIN)
+    return `Use at least ${PASSWORD_MIN} characters; a passphrase of four or more words is easiest.`;
   if (length > PASSWORD_MAX) return `Use at most ${PASSWORD_MAX} characters.`;
   const lowered = password.toLowerCase();
-  if (commonPasswords.test(lowered) || commonPasswords.test(password)) return 'This password is on a list of commonly used passwords. Choose another.';
+  if (commonPasswords.test(lowered) || commonPasswords.test(password))
+    return 'This password is on a list of commonly used passwords. Choose another.';
   if (/^(.)\1+$/.test(password)) return 'A single repeated character is too easy to guess.';
-  if (email && lowered.includes(email.toLowerCase().split('@')[0]) && email.split('@')[0].length >= 4) return 'Do not build the password from your e-mail address.';
+  if (email && lowered.includes(email.toLowerCase().split('@')[0]) && email.split('@')[0].length >= 4)
+    return 'Do not build the password from your e-mail address.';
   return null;
 }

@@ -40,23 +40,39 @@ export class SignInGuard {
     const familiar = userId !== null && (await this.repo.isFamiliar(userId, ip, this.daysAgo(LOCKOUT.familiarDays)));
     const row = await this.repo.find(accountKey);
     const verdict = row
-      ? accountVerdict(familiar ? row.failures_familiar : row.failures_elsewhere, familiar ? row.last_familiar_at : row.last_elsewhere_at, this.clock.now())
+      ? accountVerdict(
+          familiar ? row.failures_familiar : row.failures_elsewhere,
+          familiar ? row.last_familiar_at : row.last_elsewhere_at,
+          this.clock.now(),
+        )
       : accountVerdict(0, null, this.clock.now());
     if (verdict.kind === 'wait') throw tooManyRequests(verdict.seconds);
     if (verdict.kind === 'locked') {
-      throw new AppError(429, 'account_locked', 'Sign-in to this account is locked after too many failed attempts. Reset the password by e-mail, or ask an admin to clear the lock.');
+      throw new AppError(
+        429,
+        'account_locked',
+        'Sign-in to this account is locked after too many failed attempts. Reset the password by e-mail, or ask an admin to clear the lock.',
+      );
     }
     return { familiar };
   }
 
   /** Counts a failed sign-in against the account and address pair, the address alone and the account's lock, so guessing is slowed on every front. */
   async fail(accountKey: string, ip: string, familiar: boolean): Promise<void> {
-    await Promise.all([this.pair.fail(`${accountKey}|${ip}`), this.ip.fail(ip), this.repo.countFailure(accountKey, familiar, this.clock.now())]);
+    await Promise.all([
+      this.pair.fail(`${accountKey}|${ip}`),
+      this.ip.fail(ip),
+      this.repo.countFailure(accountKey, familiar, this.clock.now()),
+    ]);
   }
 
   /** A right password: the account's counters start again and the address becomes familiar. */
   async succeed(accountKey: string, ip: string, userId: number): Promise<void> {
-    await Promise.all([this.repo.clear(accountKey), this.pair.reset(`${accountKey}|${ip}`), this.repo.rememberAddress(userId, ip, this.clock.now(), this.daysAgo(LOCKOUT.familiarDays))]);
+    await Promise.all([
+      this.repo.clear(accountKey),
+      this.pair.reset(`${accountKey}|${ip}`),
+      this.repo.rememberAddress(userId, ip, this.clock.now(), this.daysAgo(LOCKOUT.familiarDays)),
+    ]);
   }
 
   /** Lifts every lock and block on the account (staff, or a new password). */
@@ -67,7 +83,15 @@ export class SignInGuard {
   /** Lock state per account key, for the accounts page. */
   async states(keys: string[]): Promise<Map<string, LockState>> {
     const rows = await this.repo.byKeys(keys);
-    return new Map(rows.map((r: LockRow) => [r.account_key, { failures: r.failures_elsewhere + r.failures_familiar, locked: Math.max(r.failures_elsewhere, r.failures_familiar) >= LOCKOUT.hardLockAfter }]));
+    return new Map(
+      rows.map((r: LockRow) => [
+        r.account_key,
+        {
+          failures: r.failures_elsewhere + r.failures_familiar,
+          locked: Math.max(r.failures_elsewhere, r.failures_familiar) >= LOCKOUT.hardLockAfter,
+        },
+      ]),
+    );
   }
 
   private daysAgo(days: number): Date {

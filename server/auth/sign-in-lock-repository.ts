@@ -21,7 +21,9 @@ export class SignInLockRepository {
   /** Adds one failure to the familiar or the elsewhere counter, atomically. */
   async countFailure(accountKey: string, familiar: boolean, at: Date): Promise<void> {
     // Fixed column names, never input: the two counters keep their own latest failure.
-    const [count, last] = familiar ? ['failures_familiar', 'last_familiar_at'] : ['failures_elsewhere', 'last_elsewhere_at'];
+    const [count, last] = familiar
+      ? ['failures_familiar', 'last_familiar_at']
+      : ['failures_elsewhere', 'last_elsewhere_at'];
     await this.db.raw(
       `INSERT INTO sign_in_lockouts (account_key, ${count}, ${last}, updated_at) VALUES (?, 1, ?, now())
        ON CONFLICT (account_key) DO UPDATE SET ${count} = sign_in_lockouts.${count} + 1, ${last} = EXCLUDED.${last}, updated_at = now()`,
@@ -36,7 +38,9 @@ export class SignInLockRepository {
 
   /** Forgets the per-address blocks of one account (the shared limiter stores them as `prefix:account|ip`). */
   async clearPairBlocks(prefix: string, accountKey: string): Promise<void> {
-    await this.db('rate_limits').whereRaw("key LIKE ? ESCAPE '\\'", [`${prefix}:${accountKey.replace(/[\\%_]/g, (c) => '\\' + c)}|%`]).delete();
+    await this.db('rate_limits')
+      .whereRaw("key LIKE ? ESCAPE '\\'", [`${prefix}:${accountKey.replace(/[\\%_]/g, (c) => '\\' + c)}|%`])
+      .delete();
   }
 
   /**
@@ -44,12 +48,20 @@ export class SignInLockRepository {
    * counted apart from failures elsewhere.
    */
   async isFamiliar(userId: number, ip: string, since: Date): Promise<boolean> {
-    return (await this.db('sign_in_addresses').where({ user_id: userId, ip }).where('last_success_at', '>=', since).first()) !== undefined;
+    return (
+      (await this.db('sign_in_addresses')
+        .where({ user_id: userId, ip })
+        .where('last_success_at', '>=', since)
+        .first()) !== undefined
+    );
   }
 
   /** Remembers a successful sign-in's address; addresses not used since `forgetBefore` are dropped. */
   async rememberAddress(userId: number, ip: string, at: Date, forgetBefore: Date): Promise<void> {
-    await this.db('sign_in_addresses').insert({ user_id: userId, ip, last_success_at: at }).onConflict(['user_id', 'ip']).merge({ last_success_at: at });
+    await this.db('sign_in_addresses')
+      .insert({ user_id: userId, ip, last_success_at: at })
+      .onConflict(['user_id', 'ip'])
+      .merge({ last_success_at: at });
     await this.db('sign_in_addresses').where('user_id', userId).where('last_success_at', '<', forgetBefore).delete();
   }
 

@@ -19,7 +19,13 @@ export interface UserRow {
 
 /** The session's copy of a user: just what requests check (id, roles, verified), never the password hash. */
 export function toSessionUser(row: UserRow): SessionUser {
-  return { id: Number(row.id), email: row.email, displayName: row.display_name, roles: row.roles, emailVerified: row.email_verified_at !== null };
+  return {
+    id: Number(row.id),
+    email: row.email,
+    displayName: row.display_name,
+    roles: row.roles,
+    emailVerified: row.email_verified_at !== null,
+  };
 }
 
 /** Plain reads and writes of `users`. */
@@ -37,16 +43,36 @@ export class UserRepository {
   }
 
   /** Creates an account with its e-mail in lower case and the fan role unless told otherwise. */
-  async insert(trx: Knex.Transaction, user: { email: string; passwordHash: string; displayName: string; roles?: Role[] }): Promise<UserRow> {
+  async insert(
+    trx: Knex.Transaction,
+    user: { email: string; passwordHash: string; displayName: string; roles?: Role[] },
+  ): Promise<UserRow> {
     const [row] = await trx<UserRow>('users')
-      .insert({ email: user.email.toLowerCase(), password_hash: user.passwordHash, display_name: user.displayName, roles: user.roles ?? ['fan'] })
+      .insert({
+        email: user.email.toLowerCase(),
+        password_hash: user.passwordHash,
+        display_name: user.displayName,
+        roles: user.roles ?? ['fan'],
+      })
       .returning('*');
     return row;
   }
 
   /** Writes the given account columns and the update time in the caller's transaction or connection. */
-  async update(trx: Knex | Knex.Transaction, id: number, patch: Partial<Pick<UserRow, 'password_hash' | 'display_name' | 'roles' | 'email_verified_at' | 'marketing_opt_out' | 'disabled_at'>>): Promise<UserRow | undefined> {
-    const [row] = await trx<UserRow>('users').where('id', id).update({ ...patch, updated_at: trx.fn.now() as unknown as Date }).returning('*');
+  async update(
+    trx: Knex | Knex.Transaction,
+    id: number,
+    patch: Partial<
+      Pick<
+        UserRow,
+        'password_hash' | 'display_name' | 'roles' | 'email_verified_at' | 'marketing_opt_out' | 'disabled_at'
+      >
+    >,
+  ): Promise<UserRow | undefined> {
+    const [row] = await trx<UserRow>('users')
+      .where('id', id)
+      .update({ ...patch, updated_at: trx.fn.now() as unknown as Date })
+      .returning('*');
     return row;
   }
 
@@ -55,7 +81,9 @@ export class UserRepository {
    * into the account's history as made by no person, so admins see why the role came or went.
    */
   async setRole(trx: Knex | Knex.Transaction, id: number, role: Role, present: boolean): Promise<void> {
-    const next = present ? '(SELECT array_agg(DISTINCT r) FROM unnest(array_append(u.roles, ?::text)) r)' : 'array_remove(u.roles, ?::text)';
+    const next = present
+      ? '(SELECT array_agg(DISTINCT r) FROM unnest(array_append(u.roles, ?::text)) r)'
+      : 'array_remove(u.roles, ?::text)';
     await trx.raw(
       `WITH before AS (SELECT id, roles FROM users WHERE id = ? FOR UPDATE),
             after AS (UPDATE users u SET roles = ${next}, updated_at = now() FROM before b WHERE u.id = b.id RETURNING u.id, u.roles)
@@ -67,14 +95,25 @@ export class UserRepository {
   }
 
   /** One page of accounts for the admin list, filtered by text, role and disabled state, with the total for the pager. */
-  async page(opts: { q?: string; role?: Role; disabled?: boolean; page: number; pageSize: number }): Promise<{ items: UserRow[]; total: number }> {
+  async page(opts: {
+    q?: string;
+    role?: Role;
+    disabled?: boolean;
+    page: number;
+    pageSize: number;
+  }): Promise<{ items: UserRow[]; total: number }> {
     const base = this.db<UserRow>('users').modify((qb) => {
       if (opts.q) qb.where((w) => w.whereILike('email', `%${opts.q}%`).orWhereILike('display_name', `%${opts.q}%`));
       if (opts.role) qb.whereRaw('? = ANY(roles)', [opts.role]);
-      if (opts.disabled !== undefined) qb.where((w) => (opts.disabled ? w.whereNotNull('disabled_at') : w.whereNull('disabled_at')));
+      if (opts.disabled !== undefined)
+        qb.where((w) => (opts.disabled ? w.whereNotNull('disabled_at') : w.whereNull('disabled_at')));
     });
     const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
-    const items = await base.clone().orderBy('id').limit(opts.pageSize).offset((opts.page - 1) * opts.pageSize);
+    const items = await base
+      .clone()
+      .orderBy('id')
+      .limit(opts.pageSize)
+      .offset((opts.page - 1) * opts.pageSize);
     return { items, total: Number(count) };
   }
 }

@@ -5,9 +5,17 @@ import { BooksService } from './books-service';
 import type { DashboardSources } from './dashboard-sources';
 
 /** The treasurer's books: reports over every money movement, the dashboard, fee settings. */
-export function booksFeature(platform: Platform, sources: () => Partial<DashboardSources>): Feature & { books: BooksService } {
+export function booksFeature(
+  platform: Platform,
+  sources: () => Partial<DashboardSources>,
+): Feature & { books: BooksService } {
   const { deps } = platform;
-  const books = new BooksService(new BooksRepository(deps.db, deps.config.clubTimeZone), platform.settings, deps.calendar, sources);
+  const books = new BooksService(
+    new BooksRepository(deps.db, deps.config.clubTimeZone),
+    platform.settings,
+    deps.calendar,
+    sources,
+  );
   return {
     name: 'books',
     books,

@@ -66,12 +66,25 @@ export class BooksRepository {
 
   /** Tax collected on money coming in (sales, sponsorship invoiced with tax), per tax and jurisdiction. */
   async taxCollected(range: DateRange): Promise<TaxTotalRow[]> {
-    const rows = await this.inRange(this.db('money_movement_taxes as t').join('money_movements as m', 'm.id', 't.movement_id'), range)
+    const rows = await this.inRange(
+      this.db('money_movement_taxes as t').join('money_movements as m', 'm.id', 't.movement_id'),
+      range,
+    )
       .whereNot('m.kind', 'refund')
       .groupBy('t.code', 't.jurisdiction')
       .orderBy(['t.code', 't.jurisdiction'])
-      .select('t.code', 't.jurisdiction', this.db.raw('COALESCE(SUM(t.taxable_cents), 0)::bigint AS taxable'), this.db.raw('COALESCE(SUM(t.tax_cents), 0)::bigint AS tax'));
-    return (rows as RawRow[]).map((r) => ({ code: String(r.code), jurisdiction: String(r.jurisdiction), taxableCents: Number(r.taxable), taxCents: Number(r.tax) }));
+      .select(
+        't.code',
+        't.jurisdiction',
+        this.db.raw('COALESCE(SUM(t.taxable_cents), 0)::bigint AS taxable'),
+        this.db.raw('COALESCE(SUM(t.tax_cents), 0)::bigint AS tax'),
+      );
+    return (rows as RawRow[]).map((r) => ({
+      code: String(r.code),
+      jurisdiction: String(r.jurisdiction),
+      taxableCents: Number(r.taxable),
+      taxCents: Number(r.tax),
+    }));
   }
 
   /**
@@ -82,7 +95,10 @@ export class BooksRepository {
    */
   async refundedTax(range: DateRange): Promise<RefundTaxRow[]> {
     const month = this.db.raw("to_char(m.occurred_at AT TIME ZONE ?, 'YYYY-MM')", [this.timeZone]);
-    const rows = await this.inRange(this.db('money_movement_taxes as t').join('money_movements as m', 'm.id', 't.movement_id'), range)
+    const rows = await this.inRange(
+      this.db('money_movement_taxes as t').join('money_movements as m', 'm.id', 't.movement_id'),
+      range,
+    )
       .where('m.kind', 'refund')
       .groupByRaw('1, 2, 3, 4')
       .orderByRaw('1, 2, 3, 4')
@@ -94,7 +110,14 @@ export class BooksRepository {
         this.db.raw('COALESCE(-SUM(t.taxable_cents), 0)::bigint AS taxable'),
         this.db.raw('COALESCE(-SUM(t.tax_cents), 0)::bigint AS tax'),
       );
-    return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source) as MovementSource, code: String(r.code), jurisdiction: String(r.jurisdiction), taxableCents: Number(r.taxable), taxCents: Number(r.tax) }));
+    return (rows as RawRow[]).map((r) => ({
+      month: String(r.month),
+      source: String(r.source) as MovementSource,
+      code: String(r.code),
+      jurisdiction: String(r.jurisdiction),
+      taxableCents: Number(r.taxable),
+      taxCents: Number(r.tax),
+    }));
   }
 
   /** Money in and out per month and source; `taxCents` is the tax inside the money that came in. */
@@ -111,7 +134,14 @@ export class BooksRepository {
         this.db.raw('COALESCE(-SUM(m.gross_cents) FILTER (WHERE m.gross_cents < 0), 0)::bigint AS refunds'),
         this.db.raw('COALESCE(SUM(m.fee_cents), 0)::bigint AS fees'),
       );
-    return (rows as RawRow[]).map((r) => ({ month: String(r.month), source: String(r.source) as MovementSource, grossCents: Number(r.gross), taxCents: Number(r.tax), refundsCents: Number(r.refunds), feesCents: Number(r.fees) }));
+    return (rows as RawRow[]).map((r) => ({
+      month: String(r.month),
+      source: String(r.source) as MovementSource,
+      grossCents: Number(r.gross),
+      taxCents: Number(r.tax),
+      refundsCents: Number(r.refunds),
+      feesCents: Number(r.fees),
+    }));
   }
 
   /**
@@ -120,10 +150,18 @@ export class BooksRepository {
    * cursor on, and each row's taxes are a subquery: a join with GROUP BY made PostgreSQL aggregate and sort the whole
    * range for every page (quadratic in the range's size).
    */
-  async ledgerPage(range: DateRange, after: { occurredAt: string; id: number } | null, limit: number): Promise<LedgerRow[]> {
+  async ledgerPage(
+    range: DateRange,
+    after: { occurredAt: string; id: number } | null,
+    limit: number,
+  ): Promise<LedgerRow[]> {
     const q = this.inRange(this.db('money_movements as m'), range);
     // The plain bound lets the index start at the cursor; the row comparison then breaks ties within an instant.
-    if (after) q.where('m.occurred_at', '>=', this.db.raw('?::timestamptz', [after.occurredAt])).whereRaw('(m.occurred_at, m.id) > (?::timestamptz, ?)', [after.occurredAt, after.id]);
+    if (after)
+      q.where('m.occurred_at', '>=', this.db.raw('?::timestamptz', [after.occurredAt])).whereRaw(
+        '(m.occurred_at, m.id) > (?::timestamptz, ?)',
+        [after.occurredAt, after.id],
+      );
     const rows = await q
       .orderBy([{ column: 'm.occurred_at' }, { column: 'm.id' }])
       .limit(limit)
@@ -139,7 +177,9 @@ export class BooksRepository {
         'm.gross_cents',
         'm.fee_cents',
         'm.fee_estimated',
-        this.db.raw("COALESCE((SELECT jsonb_object_agg(t.code, t.tax_cents) FROM money_movement_taxes t WHERE t.movement_id = m.id), '{}'::jsonb) AS taxes"),
+        this.db.raw(
+          "COALESCE((SELECT jsonb_object_agg(t.code, t.tax_cents) FROM money_movement_taxes t WHERE t.movement_id = m.id), '{}'::jsonb) AS taxes",
+        ),
       );
     return (rows as RawRow[]).map((r) => ({
       id: Number(r.id),
@@ -153,33 +193,54 @@ export class BooksRepository {
       grossCents: Number(r.gross_cents),
       feeCents: Number(r.fee_cents),
       feeEstimated: r.fee_estimated === true,
-      taxes: Object.fromEntries(Object.entries(r.taxes as Record<string, string | number>).map(([k, v]) => [k, Number(v)])),
+      taxes: Object.fromEntries(
+        Object.entries(r.taxes as Record<string, string | number>).map(([k, v]) => [k, Number(v)]),
+      ),
     }));
   }
 
   /** Card payments whose fee is still an estimate, oldest first. */
   async chargesWithEstimatedFees(limit: number): Promise<string[]> {
-    const rows = await this.db('money_movements').where('fee_estimated', true).whereNotNull('processor_charge_id').whereIn('kind', ['order_payment', 'dues_payment']).orderBy('id').limit(limit).pluck('processor_charge_id');
+    const rows = await this.db('money_movements')
+      .where('fee_estimated', true)
+      .whereNotNull('processor_charge_id')
+      .whereIn('kind', ['order_payment', 'dues_payment'])
+      .orderBy('id')
+      .limit(limit)
+      .pluck('processor_charge_id');
     return rows as string[];
   }
 
   /** Replaces the estimated fee of the movement for a charge with the processor's actual fee. */
   async setActualFee(chargeId: string, feeCents: number): Promise<number> {
-    return this.db('money_movements').where({ processor_charge_id: chargeId, fee_estimated: true }).whereIn('kind', ['order_payment', 'dues_payment']).update({ fee_cents: feeCents, fee_estimated: false });
+    return this.db('money_movements')
+      .where({ processor_charge_id: chargeId, fee_estimated: true })
+      .whereIn('kind', ['order_payment', 'dues_payment'])
+      .update({ fee_cents: feeCents, fee_estimated: false });
   }
 
   /** The dashboard's sums, each net of the tax inside it: sales today and this month, dues this month. */
-  async sumsForToday(today: string, monthStart: string): Promise<{ salesToday: number; salesMonth: number; duesMonth: number }> {
+  async sumsForToday(
+    today: string,
+    monthStart: string,
+  ): Promise<{ salesToday: number; salesMonth: number; duesMonth: number }> {
     const net = `m.gross_cents - ${MOVEMENT_TAX}`;
-    const [row] = await this.inRange(this.db('money_movements as m'), { from: monthStart, to: today })
-      .select(
-        this.db.raw(
-          `COALESCE(SUM(${net}) FILTER (WHERE m.source = 'merch' AND m.kind = 'order_payment' AND (m.occurred_at AT TIME ZONE ?)::date = ?::date), 0)::bigint AS sales_today`,
-          [this.timeZone, today],
-        ),
-        this.db.raw(`COALESCE(SUM(${net}) FILTER (WHERE m.source = 'merch' AND m.kind = 'order_payment'), 0)::bigint AS sales_month`),
-        this.db.raw(`COALESCE(SUM(${net}) FILTER (WHERE m.source = 'dues' AND m.gross_cents > 0), 0)::bigint AS dues_month`),
-      );
-    return { salesToday: Number(row.sales_today), salesMonth: Number(row.sales_month), duesMonth: Number(row.dues_month) };
+    const [row] = await this.inRange(this.db('money_movements as m'), { from: monthStart, to: today }).select(
+      this.db.raw(
+        `COALESCE(SUM(${net}) FILTER (WHERE m.source = 'merch' AND m.kind = 'order_payment' AND (m.occurred_at AT TIME ZONE ?)::date = ?::date), 0)::bigint AS sales_today`,
+        [this.timeZone, today],
+      ),
+      this.db.raw(
+        `COALESCE(SUM(${net}) FILTER (WHERE m.source = 'merch' AND m.kind = 'order_payment'), 0)::bigint AS sales_month`,
+      ),
+      this.db.raw(
+        `COALESCE(SUM(${net}) FILTER (WHERE m.source = 'dues' AND m.gross_cents > 0), 0)::bigint AS dues_month`,
+      ),
+    );
+    return {
+      salesToday: Number(row.sales_today),
+      salesMonth: Number(row.sales_month),
+      duesMonth: Number(row.dues_month),
+    };
   }
 }

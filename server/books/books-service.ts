@@ -51,7 +51,8 @@ export class BooksService {
       registrations,
       authorities: byAuthority(lines),
       lines,
-      unregisteredProvinces: registrations && sales ? unregisteredProvinceNotes(sales, registrations.provincialRegistrations) : [],
+      unregisteredProvinces:
+        registrations && sales ? unregisteredProvinceNotes(sales, registrations.provincialRegistrations) : [],
     };
   }
 
@@ -59,8 +60,26 @@ export class BooksService {
   async taxCsv(range: DateRange): Promise<string> {
     const { authorities } = await this.taxReport(range);
     return toCsv(
-      ['Tax authority', 'Tax', 'Jurisdiction', 'Taxable sales net of refunds (CAD)', 'Tax collected (CAD)', 'Tax refunded (CAD)', 'Net tax collected (CAD)'],
-      authorities.flatMap((a) => a.lines.map((l) => [a.name, l.code, l.jurisdiction, centsToDecimal(l.taxableCents), centsToDecimal(l.taxCents), centsToDecimal(l.refundedCents), centsToDecimal(l.netCents)])),
+      [
+        'Tax authority',
+        'Tax',
+        'Jurisdiction',
+        'Taxable sales net of refunds (CAD)',
+        'Tax collected (CAD)',
+        'Tax refunded (CAD)',
+        'Net tax collected (CAD)',
+      ],
+      authorities.flatMap((a) =>
+        a.lines.map((l) => [
+          a.name,
+          l.code,
+          l.jurisdiction,
+          centsToDecimal(l.taxableCents),
+          centsToDecimal(l.taxCents),
+          centsToDecimal(l.refundedCents),
+          centsToDecimal(l.netCents),
+        ]),
+      ),
     );
   }
 
@@ -75,8 +94,23 @@ export class BooksService {
   /** The ledger as CSV chunks, a page of movements at a time, in the order they happened. */
   async *ledgerCsv(range: DateRange): AsyncGenerator<string> {
     checkRange(range);
-    yield toCsv([zonedHeader('Date', this.calendar.timeZone), 'Kind', 'Source', 'Reference', 'Counterparty', 'Method', 'Gross (CAD)', ...TAX_CODES.map((c) => `${c} (CAD)`), 'Fee (CAD)', 'Fee estimated', 'Net (CAD)'], []);
-    for (let after: { occurredAt: string; id: number } | null = null; ; ) {
+    yield toCsv(
+      [
+        zonedHeader('Date', this.calendar.timeZone),
+        'Kind',
+        'Source',
+        'Reference',
+        'Counterparty',
+        'Method',
+        'Gross (CAD)',
+        ...TAX_CODES.map((c) => `${c} (CAD)`),
+        'Fee (CAD)',
+        'Fee estimated',
+        'Net (CAD)',
+      ],
+      [],
+    );
+    for (let after: { occurredAt: string; id: number } | null = null; ;) {
       const page = await this.repo.ledgerPage(range, after, LEDGER_PAGE);
       if (!page.length) return;
       const rows = page.map((m) => [
@@ -124,7 +158,16 @@ export class BooksService {
     const src = this.sources();
     const sums = await this.repo.sumsForToday(today, monthStart);
     const yearStart = `${Number(today.slice(0, 4)) - 1}${today.slice(4, 8)}01`;
-    const [ordersAwaitingShipment, runsClosingSoon, overdueDeliverables, membersLapsingSoon, membersByStatus, monthly, refunded, launchSeason] = await Promise.all([
+    const [
+      ordersAwaitingShipment,
+      runsClosingSoon,
+      overdueDeliverables,
+      membersLapsingSoon,
+      membersByStatus,
+      monthly,
+      refunded,
+      launchSeason,
+    ] = await Promise.all([
       src.ordersAwaitingShipment?.() ?? null,
       src.runsClosingWithin?.(7) ?? null,
       src.overdueDeliverables?.() ?? null,
@@ -146,7 +189,13 @@ export class BooksService {
       membersByStatus,
       launchSeason,
       // Net of tax: the tax collected is owed to the authorities, not income.
-      revenueByMonth: incomeRows(monthly, refunded).map((r) => ({ month: r.month, source: r.source, netCents: r.netCents, grossCents: r.grossCents, incomeCents: r.incomeCents })),
+      revenueByMonth: incomeRows(monthly, refunded).map((r) => ({
+        month: r.month,
+        source: r.source,
+        netCents: r.netCents,
+        grossCents: r.grossCents,
+        incomeCents: r.incomeCents,
+      })),
     };
   }
 

@@ -1,4 +1,10 @@
-import type { LaunchSeason, OverdueDeliverableNote, RunClosingSoon, SponsorValue, TaxRegistrations } from '../../contracts/books/books-answers';
+import type {
+  LaunchSeason,
+  OverdueDeliverableNote,
+  RunClosingSoon,
+  SponsorValue,
+  TaxRegistrations,
+} from '../../contracts/books/books-answers';
 import type { DateRange } from '../../contracts/books/books-schemas';
 import type { ProvinceSales } from './tax-report';
 

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 
-export type MovementKind = 'order_payment' | 'refund' | 'dues_payment' | 'manual_payment' | 'sponsor_cash' | 'processor_fee';
+export type MovementKind =
+  'order_payment' | 'refund' | 'dues_payment' | 'manual_payment' | 'sponsor_cash' | 'processor_fee';
 export type MovementSource = 'merch' | 'dues' | 'sponsor';
 
 /** Tax inside a movement; negative amounts on refunds. */
@@ -53,7 +54,14 @@ export async function recordMovement(trx: Knex.Transaction, m: Movement): Promis
   const id = Number(rows[0].id);
   if (m.taxes?.length) {
     await trx('money_movement_taxes').insert(
-      m.taxes.map((t) => ({ movement_id: id, code: t.code, jurisdiction: t.jurisdiction, rate_percent: t.ratePercent, taxable_cents: t.taxableCents, tax_cents: t.taxCents })),
+      m.taxes.map((t) => ({
+        movement_id: id,
+        code: t.code,
+        jurisdiction: t.jurisdiction,
+        rate_percent: t.ratePercent,
+        taxable_cents: t.taxableCents,
+        tax_cents: t.taxCents,
+      })),
     );
   }
   return id;

@@ -32,7 +32,15 @@ export function reportLines(collected: TaxAmounts[], refunded: TaxAmounts[]): Ta
   const lines = new Map<string, TaxReportLine>();
   const line = (a: TaxAmounts) => {
     const k = key(a);
-    if (!lines.has(k)) lines.set(k, { code: a.code, jurisdiction: a.jurisdiction, taxableCents: 0, taxCents: 0, refundedCents: 0, netCents: 0 });
+    if (!lines.has(k))
+      lines.set(k, {
+        code: a.code,
+        jurisdiction: a.jurisdiction,
+        taxableCents: 0,
+        taxCents: 0,
+        refundedCents: 0,
+        netCents: 0,
+      });
     return lines.get(k)!;
   };
   for (const c of collected) {
@@ -54,7 +62,12 @@ export function byAuthority(lines: TaxReportLine[]): TaxAuthority[] {
   const blocks = new Map<string, TaxAuthority>();
   for (const l of lines) {
     const a = authorityOf(l.code, l.jurisdiction);
-    if (!blocks.has(a.authority)) blocks.set(a.authority, { ...a, lines: [], totals: { taxableCents: 0, taxCents: 0, refundedCents: 0, netCents: 0 } });
+    if (!blocks.has(a.authority))
+      blocks.set(a.authority, {
+        ...a,
+        lines: [],
+        totals: { taxableCents: 0, taxCents: 0, refundedCents: 0, netCents: 0 },
+      });
     const b = blocks.get(a.authority)!;
     b.lines.push(l);
     b.totals.taxableCents += l.taxableCents;
@@ -62,15 +75,29 @@ export function byAuthority(lines: TaxReportLine[]): TaxAuthority[] {
     b.totals.refundedCents += l.refundedCents;
     b.totals.netCents += l.netCents;
   }
-  return [...blocks.values()].sort((a, b) => (a.authority === 'CA' ? -1 : b.authority === 'CA' ? 1 : a.authority.localeCompare(b.authority)));
+  return [...blocks.values()].sort((a, b) =>
+    a.authority === 'CA' ? -1 : b.authority === 'CA' ? 1 : a.authority.localeCompare(b.authority),
+  );
 }
 
 /** Provinces with their own sales tax, and the seller-registration thresholds Padside states (from memory). */
 export const PROVINCIAL_SALES_TAX: Record<string, { tax: string; threshold: string }> = {
-  BC: { tax: 'PST', threshold: 'from memory: sellers outside B.C. register once their sales into B.C. pass C$10,000 a year' },
-  MB: { tax: 'RST', threshold: 'from memory: sellers outside Manitoba register once their sales into Manitoba pass C$10,000 a year' },
-  SK: { tax: 'PST', threshold: 'from memory: sellers delivering into Saskatchewan generally register; small-seller rules differ' },
-  QC: { tax: 'QST', threshold: 'from memory: sellers outside Quebec register once their sales to Quebec consumers pass C$30,000 a year' },
+  BC: {
+    tax: 'PST',
+    threshold: 'from memory: sellers outside B.C. register once their sales into B.C. pass C$10,000 a year',
+  },
+  MB: {
+    tax: 'RST',
+    threshold: 'from memory: sellers outside Manitoba register once their sales into Manitoba pass C$10,000 a year',
+  },
+  SK: {
+    tax: 'PST',
+    threshold: 'from memory: sellers delivering into Saskatchewan generally register; small-seller rules differ',
+  },
+  QC: {
+    tax: 'QST',
+    threshold: 'from memory: sellers outside Quebec register once their sales to Quebec consumers pass C$30,000 a year',
+  },
 };
 
 /** Sales into one province in the period, net of tax. */
@@ -85,5 +112,9 @@ export function unregisteredProvinceNotes(sales: ProvinceSales[], registrations:
   return sales
     .filter((s) => PROVINCIAL_SALES_TAX[s.province] && !registrations.includes(s.province) && s.orders > 0)
     .sort((a, b) => a.province.localeCompare(b.province))
-    .map((s) => ({ ...s, tax: PROVINCIAL_SALES_TAX[s.province].tax, threshold: PROVINCIAL_SALES_TAX[s.province].threshold }));
+    .map((s) => ({
+      ...s,
+      tax: PROVINCIAL_SALES_TAX[s.province].tax,
+      threshold: PROVINCIAL_SALES_TAX[s.province].threshold,
+    }));
 }

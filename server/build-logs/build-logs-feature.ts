@@ -18,8 +18,22 @@ export function buildLogsFeature(platform: Platform): Feature {
   const sponsorRepo = new SponsorRepository(db);
   const credits = new CreditService(sponsorRepo, config.publicUrl, config.site.teamName);
   // The sponsorship tax reads the rate table where the shop keeps it.
-  const sponsorTax = new SponsorTaxService(db, sponsorRepo, platform.settings, new ShopConfigRepository(db), config.site.teamName);
-  const sponsors = new SponsorService(db, sponsorRepo, credits, platform.auth.users, platform.settings, sponsorTax, (urls) => platform.images.describe(urls));
+  const sponsorTax = new SponsorTaxService(
+    db,
+    sponsorRepo,
+    platform.settings,
+    new ShopConfigRepository(db),
+    config.site.teamName,
+  );
+  const sponsors = new SponsorService(
+    db,
+    sponsorRepo,
+    credits,
+    platform.auth.users,
+    platform.settings,
+    sponsorTax,
+    (urls) => platform.images.describe(urls),
+  );
   const today = () => calendar.today();
   const postRepo = new PostRepository(db);
   const posts = new PostService(db, postRepo, sponsorRepo, credits, (urls) => platform.images.describe(urls));
@@ -38,7 +52,13 @@ export function buildLogsFeature(platform: Platform): Feature {
     },
     dashboard: {
       sponsorValue: () => sponsors.seasonValue(today()),
-      overdueDeliverables: async () => (await sponsors.overdue(today())).map((o) => ({ sponsor: o.sponsorName, kind: o.kind, dueOn: o.dueOn, missing: o.promised - o.delivered })),
+      overdueDeliverables: async () =>
+        (await sponsors.overdue(today())).map((o) => ({
+          sponsor: o.sponsorName,
+          kind: o.kind,
+          dueOn: o.dueOn,
+          missing: o.promised - o.delivered,
+        })),
     },
     imageUses: async (urls) => [
       ...(await postRepo.titlesUsingImage(urls)).map((t) => `the build log “${t}”`),

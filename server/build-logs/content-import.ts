@@ -19,6 +19,7 @@ export type ContentPost = z.infer<typeof FrontMatter> & { markdown: string };
 export function parseContentFile(name: string, text: string): ContentPost {
   const { data, content } = matter(text);
   const parsed = FrontMatter.safeParse(data);
-  if (!parsed.success) throw new Error(`${name}: ${parsed.error.issues.map((i) => `${i.path.join('.')} ${i.message}`).join('; ')}`);
+  if (!parsed.success)
+    throw new Error(`${name}: ${parsed.error.issues.map((i) => `${i.path.join('.')} ${i.message}`).join('; ')}`);
   return { ...parsed.data, markdown: content.trim() + '\n' };
 }

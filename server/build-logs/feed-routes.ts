@@ -3,7 +3,8 @@ import type { Feed } from 'feed';
 import { HAZARD_NOTICE } from './hazard-rule';
 import type { PostService } from './post-service';
 
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const escapeHtml = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** Builds the feed of the latest build logs; members-only posts carry their summary and a prompt only. */
 async function buildFeed(posts: PostService, publicUrl: string, teamName: string): Promise<Feed> {
@@ -23,10 +24,21 @@ async function buildFeed(posts: PostService, publicUrl: string, teamName: string
   for (const p of items) {
     const link = `${publicUrl}/build-logs/${p.slug}`;
     const notice = p.hazardNotice ? `<p><strong>Safety first.</strong> ${escapeHtml(HAZARD_NOTICE)}</p>` : '';
-    const body = p.html ?? `<p>${escapeHtml(p.summary)}</p><p>This build log is for club members. <a href="${link}">Sign in or join</a> to read it.</p>`;
+    const body =
+      p.html ??
+      `<p>${escapeHtml(p.summary)}</p><p>This build log is for club members. <a href="${link}">Sign in or join</a> to read it.</p>`;
     // Both formats carry titles and summaries as HTML (Atom type="html"; RSS readers treat them so), so the plain
     // text an editor typed is escaped once here and a reader shows it literally.
-    feed.addItem({ title: escapeHtml(p.title), id: link, link, description: escapeHtml(p.summary), content: notice + body, date: p.publishedAt, author: p.author ? [{ name: p.author }] : undefined, category: p.tags.map((t) => ({ name: t })) });
+    feed.addItem({
+      title: escapeHtml(p.title),
+      id: link,
+      link,
+      description: escapeHtml(p.summary),
+      content: notice + body,
+      date: p.publishedAt,
+      author: p.author ? [{ name: p.author }] : undefined,
+      category: p.tags.map((t) => ({ name: t })),
+    });
   }
   return feed;
 }

@@ -33,7 +33,12 @@ const FLYING_WORDS = new RegExp(
  * flights, launches or the charges and igniters that fire them. An editor may add the notice to any other post
  * but can never remove it from these.
  */
-export function needsHazardNotice(post: { title: string; summary: string; markdown: string; tags: readonly string[] }): boolean {
+export function needsHazardNotice(post: {
+  title: string;
+  summary: string;
+  markdown: string;
+  tags: readonly string[];
+}): boolean {
   if (post.tags.some((t) => t.toLowerCase() === 'rocketry')) return true;
   return FLYING_WORDS.test(post.title) || FLYING_WORDS.test(post.summary) || FLYING_WORDS.test(post.markdown);
 }

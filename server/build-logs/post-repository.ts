@@ -24,7 +24,10 @@ export interface PostRow {
 }
 
 /** The editable fields of a post as the editor form holds them, with instants as dates and the editor's hazard choice. */
-export interface PostWrite extends Pick<AdminPost, 'slug' | 'title' | 'summary' | 'coverUrl' | 'markdown' | 'tags' | 'status' | 'membersOnly'> {
+export interface PostWrite extends Pick<
+  AdminPost,
+  'slug' | 'title' | 'summary' | 'coverUrl' | 'markdown' | 'tags' | 'status' | 'membersOnly'
+> {
   publishAt: Date | null;
   publishedAt: Date | null;
   hazardRequested: boolean;
@@ -49,7 +52,9 @@ export class PostRepository {
   constructor(private readonly db: Knex) {}
 
   private withAuthor(trx: Db) {
-    return trx<PostRow>('posts as p').leftJoin('users as u', 'u.id', 'p.author_id').select('p.*', 'u.display_name as author_name');
+    return trx<PostRow>('posts as p')
+      .leftJoin('users as u', 'u.id', 'p.author_id')
+      .select('p.*', 'u.display_name as author_name');
   }
 
   /** A post of any state with its author's display name. */
@@ -75,32 +80,47 @@ export class PostRepository {
 
   /** Whether another post (other than `exceptId`) already uses this address. */
   async slugTaken(slug: string, exceptId: number | null, trx: Db = this.db): Promise<boolean> {
-    const row = await trx('posts').where('slug', slug).modify((q) => exceptId !== null && q.whereNot('id', exceptId)).first('id');
+    const row = await trx('posts')
+      .where('slug', slug)
+      .modify((q) => exceptId !== null && q.whereNot('id', exceptId))
+      .first('id');
     return Boolean(row);
   }
 
   /** Inserts a post and returns its new id. */
   async insert(trx: Knex.Transaction, p: PostWrite, authorId: number | null): Promise<number> {
-    const [row] = await trx('posts').insert({ ...columns(p), author_id: authorId }).returning('id');
+    const [row] = await trx('posts')
+      .insert({ ...columns(p), author_id: authorId })
+      .returning('id');
     return Number(row.id);
   }
 
   /** Overwrites a post's editable fields and stamps the change time. */
   async update(trx: Knex.Transaction, id: number, p: PostWrite): Promise<void> {
-    await trx('posts').where('id', id).update({ ...columns(p), updated_at: trx.fn.now() });
+    await trx('posts')
+      .where('id', id)
+      .update({ ...columns(p), updated_at: trx.fn.now() });
   }
 
   /** Replaces the post's sponsor credits with exactly `sponsorIds`. */
   async setCredits(trx: Knex.Transaction, postId: number, sponsorIds: readonly number[]): Promise<void> {
     await trx('post_credits').where('post_id', postId).delete();
-    if (sponsorIds.length) await trx('post_credits').insert(sponsorIds.map((sponsor_id) => ({ post_id: postId, sponsor_id })));
+    if (sponsorIds.length)
+      await trx('post_credits').insert(sponsorIds.map((sponsor_id) => ({ post_id: postId, sponsor_id })));
   }
 
   /** Credited sponsors per post id. */
-  async creditsOf(postIds: readonly number[], trx: Db = this.db): Promise<Map<number, { sponsorId: number; name: string; slug: string }[]>> {
+  async creditsOf(
+    postIds: readonly number[],
+    trx: Db = this.db,
+  ): Promise<Map<number, { sponsorId: number; name: string; slug: string }[]>> {
     const out = new Map<number, { sponsorId: number; name: string; slug: string }[]>();
     if (!postIds.length) return out;
-    const rows = await trx('post_credits as pc').join('sponsors as s', 's.id', 'pc.sponsor_id').whereIn('pc.post_id', postIds).select('pc.post_id', 's.id', 's.name', 's.slug').orderBy('s.name');
+    const rows = await trx('post_credits as pc')
+      .join('sponsors as s', 's.id', 'pc.sponsor_id')
+      .whereIn('pc.post_id', postIds)
+      .select('pc.post_id', 's.id', 's.name', 's.slug')
+      .orderBy('s.name');
     for (const r of rows as { post_id: string; id: string; name: string; slug: string }[]) {
       const list = out.get(Number(r.post_id)) ?? [];
       list.push({ sponsorId: Number(r.id), name: r.name, slug: r.slug });
@@ -110,34 +130,65 @@ export class PostRepository {
   }
 
   /** One page of published posts, newest first (id breaks ties so pages never overlap), with the total count. */
-  async publishedPage(opts: { tag?: string; page: number; pageSize: number }): Promise<{ items: PostRow[]; total: number }> {
-    const base = this.db<PostRow>('posts').where('status', 'published').modify((q) => opts.tag && q.whereRaw('? = ANY(tags)', [opts.tag]));
+  async publishedPage(opts: {
+    tag?: string;
+    page: number;
+    pageSize: number;
+  }): Promise<{ items: PostRow[]; total: number }> {
+    const base = this.db<PostRow>('posts')
+      .where('status', 'published')
+      .modify((q) => opts.tag && q.whereRaw('? = ANY(tags)', [opts.tag]));
     const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
-    const items = await base.clone().orderBy([{ column: 'published_at', order: 'desc' }, { column: 'id', order: 'desc' }]).limit(opts.pageSize).offset((opts.page - 1) * opts.pageSize);
+    const items = await base
+      .clone()
+      .orderBy([
+        { column: 'published_at', order: 'desc' },
+        { column: 'id', order: 'desc' },
+      ])
+      .limit(opts.pageSize)
+      .offset((opts.page - 1) * opts.pageSize);
     return { items, total: Number(count) };
   }
 
   /** Each tag used by a published post with its count, counted in SQL over the tags array. */
   async tagCounts(): Promise<{ tag: string; count: number }[]> {
-    const rows = await this.db.raw("SELECT t AS tag, count(*) AS count FROM posts, unnest(tags) t WHERE status = 'published' GROUP BY t ORDER BY count(*) DESC, t");
+    const rows = await this.db.raw(
+      "SELECT t AS tag, count(*) AS count FROM posts, unnest(tags) t WHERE status = 'published' GROUP BY t ORDER BY count(*) DESC, t",
+    );
     return rows.rows.map((r: { tag: string; count: string }) => ({ tag: r.tag, count: Number(r.count) }));
   }
 
   /** Every post for the editors' table, with sorting and paging done in SQL. */
-  async adminPage(opts: { status?: PostStatus; q?: string; sort: 'updated' | 'title' | 'published'; dir: 'asc' | 'desc'; page: number; pageSize: number }): Promise<{ items: PostRow[]; total: number }> {
+  async adminPage(opts: {
+    status?: PostStatus;
+    q?: string;
+    sort: 'updated' | 'title' | 'published';
+    dir: 'asc' | 'desc';
+    page: number;
+    pageSize: number;
+  }): Promise<{ items: PostRow[]; total: number }> {
     const base = this.db<PostRow>('posts').modify((q) => {
       if (opts.status) q.where('status', opts.status);
       if (opts.q) q.whereILike('title', `%${opts.q}%`);
     });
     const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
     const column = { updated: 'updated_at', title: 'title', published: 'published_at' }[opts.sort];
-    const items = await base.clone().orderByRaw(`${column} ${opts.dir} NULLS LAST, id desc`).limit(opts.pageSize).offset((opts.page - 1) * opts.pageSize);
+    const items = await base
+      .clone()
+      .orderByRaw(`${column} ${opts.dir} NULLS LAST, id desc`)
+      .limit(opts.pageSize)
+      .offset((opts.page - 1) * opts.pageSize);
     return { items, total: Number(count) };
   }
 
   /** Scheduled posts whose time has come, locked so two processes do not publish the same one. */
   dueScheduled(trx: Knex.Transaction, now: Date): Promise<PostRow[]> {
-    return trx<PostRow>('posts').where('status', 'scheduled').where('publish_at', '<=', now).forUpdate().skipLocked().orderBy('publish_at');
+    return trx<PostRow>('posts')
+      .where('status', 'scheduled')
+      .where('publish_at', '<=', now)
+      .forUpdate()
+      .skipLocked()
+      .orderBy('publish_at');
   }
 
   /** The newest published posts with their authors, for the feeds. */

@@ -72,15 +72,20 @@ const fmt = (n: number) => n.toLocaleString('en-CA', { maximumFractionDigits: 1 
 function highPowerReasons(input: FlightWarningsInput): string[] {
   const reasons: string[] = [];
   if (input.liftoffMassGrams > MODEL_ROCKET_MAX_LIFTOFF_GRAMS) {
-    reasons.push(`it weighs ${fmt(input.liftoffMassGrams)} g at liftoff (model rockets stay at or under ${fmt(MODEL_ROCKET_MAX_LIFTOFF_GRAMS)} g)`);
+    reasons.push(
+      `it weighs ${fmt(input.liftoffMassGrams)} g at liftoff (model rockets stay at or under ${fmt(MODEL_ROCKET_MAX_LIFTOFF_GRAMS)} g)`,
+    );
   }
   const impulse = totalImpulseMaxNs(input.motors);
   if (impulse > MODEL_ROCKET_MAX_TOTAL_IMPULSE_NS) {
-    reasons.push(`its motors can hold up to ${fmt(impulse)} N·s together (model rockets stay at or under ${MODEL_ROCKET_MAX_TOTAL_IMPULSE_NS} N·s)`);
+    reasons.push(
+      `its motors can hold up to ${fmt(impulse)} N·s together (model rockets stay at or under ${MODEL_ROCKET_MAX_TOTAL_IMPULSE_NS} N·s)`,
+    );
   }
   const firstHighPower = impulseClassRank(FIRST_HIGH_POWER_CLASS);
   const big = input.motors.filter((m) => impulseClassRank(m.impulseClass) >= firstHighPower).map((m) => m.designation);
-  if (big.length > 0) reasons.push(`${big.join(', ')} ${big.length === 1 ? 'is' : 'are'} class ${FIRST_HIGH_POWER_CLASS} or above`);
+  if (big.length > 0)
+    reasons.push(`${big.join(', ')} ${big.length === 1 ? 'is' : 'are'} class ${FIRST_HIGH_POWER_CLASS} or above`);
   return reasons;
 }
 
@@ -99,7 +104,11 @@ export function flightWarnings(input: FlightWarningsInput): FlightWarnings {
     });
   }
 
-  if (input.expectedAltitudeMetres !== null && input.ceilingMetres !== null && input.expectedAltitudeMetres > input.ceilingMetres) {
+  if (
+    input.expectedAltitudeMetres !== null &&
+    input.ceilingMetres !== null &&
+    input.expectedAltitudeMetres > input.ceilingMetres
+  ) {
     warnings.push({
       code: 'above_ceiling',
       message:
@@ -124,7 +133,8 @@ export function flightWarnings(input: FlightWarningsInput): FlightWarnings {
   if (needsHighPower && topAllowed < impulseClassRank(FIRST_HIGH_POWER_CLASS)) {
     warnings.push({
       code: 'beyond_certification',
-      message: 'No verified high-power certification is on record for this flyer, and this flight needs one. A range officer can record it once it is checked.',
+      message:
+        'No verified high-power certification is on record for this flyer, and this flight needs one. A range officer can record it once it is checked.',
     });
   } else if (allowed.length > 0) {
     const beyond = motorsBeyondClasses(input.motors, allowed);
@@ -140,7 +150,9 @@ export function flightWarnings(input: FlightWarningsInput): FlightWarnings {
 }
 
 function highestClass(classes: string[]): string {
-  return classes.reduce((best, c) => (impulseClassRank(c) > impulseClassRank(best) ? c : best), classes[0]).toUpperCase();
+  return classes
+    .reduce((best, c) => (impulseClassRank(c) > impulseClassRank(best) ? c : best), classes[0])
+    .toUpperCase();
 }
 
 /** Motors of a class above the largest allowed one (a club may list only the classes a level adds). */

@@ -10,9 +10,21 @@ export function healthRoutes(deps: AppDeps): Router {
   const r = Router();
   r.get('/', async function health(_req, res) {
     const [db, mail, payments] = await Promise.all([
-      within(2000, deps.db.raw('select 1').then(() => 'ok'), 'down'),
-      within(2000, deps.mail.smtpReachable().then((up) => (up ? 'ok' : 'down')), 'down'),
-      within(2000, deps.payments.reachable().then((up) => (up ? 'ok' : 'down')), 'down'),
+      within(
+        2000,
+        deps.db.raw('select 1').then(() => 'ok'),
+        'down',
+      ),
+      within(
+        2000,
+        deps.mail.smtpReachable().then((up) => (up ? 'ok' : 'down')),
+        'down',
+      ),
+      within(
+        2000,
+        deps.payments.reachable().then((up) => (up ? 'ok' : 'down')),
+        'down',
+      ),
     ]);
     res.status(db === 'ok' ? 200 : 503).json({ status: db === 'ok' ? 'ok' : 'degraded', db, mail, payments });
   });

@@ -51,7 +51,18 @@ export interface FlightDataRow {
 }
 
 /** A new card's columns. */
-export type NewFlight = Pick<FlightRow, 'rocket_name' | 'post_slug' | 'liftoff_mass_grams' | 'expected_altitude_metres' | 'recovery' | 'pad' | 'notes' | 'needs_high_power' | 'certification_level'> & {
+export type NewFlight = Pick<
+  FlightRow,
+  | 'rocket_name'
+  | 'post_slug'
+  | 'liftoff_mass_grams'
+  | 'expected_altitude_metres'
+  | 'recovery'
+  | 'pad'
+  | 'notes'
+  | 'needs_high_power'
+  | 'certification_level'
+> & {
   launch_id: number;
   user_id: number;
   motors: StoredMotor[];
@@ -68,12 +79,20 @@ export class FlightRepository {
       .join('users as u', 'u.id', 'f.user_id')
       .join('launches as l', 'l.id', 'f.launch_id')
       .leftJoin('flight_data as d', 'd.flight_id', 'f.id')
-      .select('f.*', 'u.display_name as flyer_name', 'l.title as launch_title', db.raw("to_char(l.launch_date, 'YYYY-MM-DD') AS launch_date"), db.raw("(d.summary->>'apogeeMetres')::float AS apogee_metres"));
+      .select(
+        'f.*',
+        'u.display_name as flyer_name',
+        'l.title as launch_title',
+        db.raw("to_char(l.launch_date, 'YYYY-MM-DD') AS launch_date"),
+        db.raw("(d.summary->>'apogeeMetres')::float AS apogee_metres"),
+      );
   }
 
   /** Inserts a flight card (motors and warnings stored as JSON) and returns its new id. */
   async insert(db: Db, row: NewFlight): Promise<number> {
-    const [created] = await db('flights').insert({ ...row, motors: JSON.stringify(row.motors), warnings: JSON.stringify(row.warnings) }).returning('id');
+    const [created] = await db('flights')
+      .insert({ ...row, motors: JSON.stringify(row.motors), warnings: JSON.stringify(row.warnings) })
+      .returning('id');
     return Number(created.id);
   }
 
@@ -84,17 +103,37 @@ export class FlightRepository {
 
   /** The cards of a launch in pad order, cards without a pad last, for the range staff's board. */
   forLaunch(launchId: number, db: Db = this.db): Promise<FlightRow[]> {
-    return this.select(db).where('f.launch_id', launchId).orderBy([{ column: 'f.pad', order: 'asc', nulls: 'last' }, { column: 'f.id' }]);
+    return this.select(db)
+      .where('f.launch_id', launchId)
+      .orderBy([{ column: 'f.pad', order: 'asc', nulls: 'last' }, { column: 'f.id' }]);
   }
 
   /** A flyer's own cards, latest launch first, for their logbook. */
   forUser(userId: number, db: Db = this.db): Promise<FlightRow[]> {
-    return this.select(db).where('f.user_id', userId).orderBy([{ column: 'l.launch_date', order: 'desc' }, { column: 'f.id', order: 'desc' }]);
+    return this.select(db)
+      .where('f.user_id', userId)
+      .orderBy([
+        { column: 'l.launch_date', order: 'desc' },
+        { column: 'f.id', order: 'desc' },
+      ]);
   }
 
   /** Moves a card on from `from`; true only for the one caller whose update won. */
-  async decide(db: Db, id: number, from: FlightRow['status'], to: 'approved' | 'sent_back', reason: string | null, by: number): Promise<boolean> {
-    const n = await db('flights').where({ id, status: from }).update({ status: to, decision_reason: reason, decided_by: by, decided_at: db.fn.now(), updated_at: db.fn.now() });
+  async decide(
+    db: Db,
+    id: number,
+    from: FlightRow['status'],
+    to: 'approved' | 'sent_back',
+    reason: string | null,
+    by: number,
+  ): Promise<boolean> {
+    const n = await db('flights').where({ id, status: from }).update({
+      status: to,
+      decision_reason: reason,
+      decided_by: by,
+      decided_at: db.fn.now(),
+      updated_at: db.fn.now(),
+    });
     return n === 1;
   }
 
@@ -103,14 +142,29 @@ export class FlightRepository {
     const n = await db('flights')
       .where('id', id)
       .whereIn('status', ['approved', 'flown'])
-      .update({ status: 'flown', outcome, outcome_notes: notes, flown_at: db.raw('coalesce(flown_at, now())'), updated_at: db.fn.now() });
+      .update({
+        status: 'flown',
+        outcome,
+        outcome_notes: notes,
+        flown_at: db.raw('coalesce(flown_at, now())'),
+        updated_at: db.fn.now(),
+      });
     return n === 1;
   }
 
   /** Stores (or replaces) a flight's analysed log. */
   async putData(db: Db, row: Omit<FlightDataRow, 'uploaded_at'> & { uploaded_by: number }): Promise<void> {
-    const value = { ...row, summary: JSON.stringify(row.summary), series: JSON.stringify(row.series), events: JSON.stringify(row.events), mapping: JSON.stringify(row.mapping) };
-    await db('flight_data').insert(value).onConflict('flight_id').merge({ ...value, uploaded_at: db.fn.now() });
+    const value = {
+      ...row,
+      summary: JSON.stringify(row.summary),
+      series: JSON.stringify(row.series),
+      events: JSON.stringify(row.events),
+      mapping: JSON.stringify(row.mapping),
+    };
+    await db('flight_data')
+      .insert(value)
+      .onConflict('flight_id')
+      .merge({ ...value, uploaded_at: db.fn.now() });
   }
 
   /** The altimeter log attached to a flight card, if one was uploaded. */
@@ -119,12 +173,24 @@ export class FlightRepository {
   }
 
   /** Flown cards and the best apogee in [from, to], for the dashboard. */
-  async seasonTotals(from: string, to: string, db: Db = this.db): Promise<{ flights: number; flown: number; bestApogeeMetres: number | null }> {
+  async seasonTotals(
+    from: string,
+    to: string,
+    db: Db = this.db,
+  ): Promise<{ flights: number; flown: number; bestApogeeMetres: number | null }> {
     const row = await db('flights as f')
       .join('launches as l', 'l.id', 'f.launch_id')
       .leftJoin('flight_data as d', 'd.flight_id', 'f.id')
       .whereBetween('l.launch_date', [from, to])
-      .first(db.raw('count(*) AS flights'), db.raw("count(*) FILTER (WHERE f.status = 'flown') AS flown"), db.raw("max((d.summary->>'apogeeMetres')::float) AS best"));
-    return { flights: Number(row?.flights ?? 0), flown: Number(row?.flown ?? 0), bestApogeeMetres: row?.best == null ? null : Number(row.best) };
+      .first(
+        db.raw('count(*) AS flights'),
+        db.raw("count(*) FILTER (WHERE f.status = 'flown') AS flown"),
+        db.raw("max((d.summary->>'apogeeMetres')::float) AS best"),
+      );
+    return {
+      flights: Number(row?.flights ?? 0),
+      flown: Number(row?.flown ?? 0),
+      bestApogeeMetres: row?.best == null ? null : Number(row.best),
+    };
   }
 }

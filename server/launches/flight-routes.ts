@@ -13,9 +13,18 @@ export const MAX_LOG_BYTES = 32 * 1024 * 1024;
 
 /** multer with a byte limit; its errors become our 4xx, named on the `log` field. */
 const logFile: RequestHandler = (req, res, next) => {
-  multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_LOG_BYTES, files: 1, fields: 4, fieldSize: 64 * 1024 } }).single('log')(req, res, (err: unknown) => {
+  multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: MAX_LOG_BYTES, files: 1, fields: 4, fieldSize: 64 * 1024 },
+  }).single('log')(req, res, (err: unknown) => {
     if (err instanceof multer.MulterError) {
-      return next(err.code === 'LIMIT_FILE_SIZE' ? new AppError(413, 'file_too_large', `A log can be at most ${MAX_LOG_BYTES / 1024 / 1024} MB.`, { log: 'Too large.' }) : new AppError(400, 'bad_upload', err.message, { log: err.message }));
+      return next(
+        err.code === 'LIMIT_FILE_SIZE'
+          ? new AppError(413, 'file_too_large', `A log can be at most ${MAX_LOG_BYTES / 1024 / 1024} MB.`, {
+              log: 'Too large.',
+            })
+          : new AppError(400, 'bad_upload', err.message, { log: err.message }),
+      );
     }
     next(err);
   });
@@ -45,7 +54,13 @@ export function flightRoutes(flights: FlightService): Router {
   r.post('/:id/data', requireSignedIn, logFile, async function uploadFlightLog(req, res) {
     const id = parse(fields.id, req.params.id);
     if (!req.file) throw badRequest('Choose an altimeter log (CSV) to upload.', { log: 'Required.' });
-    res.status(201).json(await flights.uploadLog(id, req.user!, { bytes: req.file.buffer, fileName: req.file.originalname, columns: columnsField(req.body?.columns) }));
+    res.status(201).json(
+      await flights.uploadLog(id, req.user!, {
+        bytes: req.file.buffer,
+        fileName: req.file.originalname,
+        columns: columnsField(req.body?.columns),
+      }),
+    );
   });
   return r;
 }

@@ -12,7 +12,13 @@ import type { FlightRepository, FlightRow, StoredMotor } from './flight-reposito
 import type { FlightOutcome } from '../../contracts/labels/launch-statuses';
 import { FLIGHT_CAUTION, flightDataView, flightView } from './flight-views';
 import type { FlyerStanding } from './flyer-standing';
-import type { FlightPage, FlightView, LaunchResults, Logbook, RangeQueue } from '../../contracts/launches/launch-answers';
+import type {
+  FlightPage,
+  FlightView,
+  LaunchResults,
+  Logbook,
+  RangeQueue,
+} from '../../contracts/launches/launch-answers';
 import type { FlightInput } from '../../contracts/launches/launch-schemas';
 import type { LaunchService } from './launch-service';
 import { LAUNCH_SETTINGS } from './launch-settings';
@@ -30,7 +36,15 @@ const RANGE_STAFF: Role[] = ['range_officer', 'admin'];
 /** The warning that stops an approval: the card needs more than the flyer's verified certification. */
 const BEYOND_CERTIFICATION = 'beyond_certification';
 
-const stored = (m: MotorDesignation): StoredMotor => ({ designation: m.designation, impulseClass: m.impulseClass, averageThrustN: m.averageThrustN, delayS: m.delayS, plugged: m.plugged, totalImpulseMinNs: m.totalImpulseMinNs, totalImpulseMaxNs: m.totalImpulseMaxNs });
+const stored = (m: MotorDesignation): StoredMotor => ({
+  designation: m.designation,
+  impulseClass: m.impulseClass,
+  averageThrustN: m.averageThrustN,
+  delayS: m.delayS,
+  plugged: m.plugged,
+  totalImpulseMinNs: m.totalImpulseMinNs,
+  totalImpulseMaxNs: m.totalImpulseMaxNs,
+});
 
 /** Flight cards at the range table, the range officer's decisions and outcomes, logs, logbooks and results. */
 export class FlightService {
@@ -57,18 +71,28 @@ export class FlightService {
   /** Files a card for a checked-in member: parses each motor and adds the warnings; Padside never approves. */
   async file(launchId: number, userId: number, input: FlightInput): Promise<{ flight: FlightView; caution: string }> {
     const launch = await this.launches.find(launchId);
-    if (launch.status !== 'scheduled') throw conflict('launch_closed', 'Cards are filed only on a launch that is on the calendar.');
-    if (!(await this.launches.isCheckedIn(launchId, userId))) throw conflict('not_checked_in', 'Check in at the range table with your member card before filing a card.');
+    if (launch.status !== 'scheduled')
+      throw conflict('launch_closed', 'Cards are filed only on a launch that is on the calendar.');
+    if (!(await this.launches.isCheckedIn(launchId, userId)))
+      throw conflict('not_checked_in', 'Check in at the range table with your member card before filing a card.');
     const motors: MotorDesignation[] = [];
     const unread: Record<string, string> = {};
     input.motors.forEach((text, i) => {
       const m = parseMotorDesignation(text);
       if (m) motors.push(m);
-      else unread[`motors.${i}`] = `Padside cannot read "${text}". Type it as printed on the motor, for example C6-5, F32-6T or H128W-M.`;
+      else
+        unread[`motors.${i}`] =
+          `Padside cannot read "${text}". Type it as printed on the motor, for example C6-5, F32-6T or H128W-M.`;
     });
     if (Object.keys(unread).length) throw badRequest('A motor designation could not be read.', unread);
     const { level, allowed } = await this.certification(userId);
-    const checked = flightWarnings({ liftoffMassGrams: input.liftoffMassGrams, motors, expectedAltitudeMetres: input.expectedAltitudeMetres ?? null, ceilingMetres: launch.ceiling_metres, allowedClasses: allowed });
+    const checked = flightWarnings({
+      liftoffMassGrams: input.liftoffMassGrams,
+      motors,
+      expectedAltitudeMetres: input.expectedAltitudeMetres ?? null,
+      ceilingMetres: launch.ceiling_metres,
+      allowedClasses: allowed,
+    });
     const id = await this.repo.insert(this.db, {
       launch_id: launchId,
       user_id: userId,
@@ -94,42 +118,71 @@ export class FlightService {
     const cards = (await this.repo.forLaunch(launchId)).map(flightView);
     const pads = new Map<string, typeof cards>();
     for (const c of cards) pads.set(c.pad ?? '', [...(pads.get(c.pad ?? '') ?? []), c]);
-    return { launch: launchView(launch), caution: FLIGHT_CAUTION, pads: [...pads].map(([pad, items]) => ({ pad: pad || null, items })) };
+    return {
+      launch: launchView(launch),
+      caution: FLIGHT_CAUTION,
+      pads: [...pads].map(([pad, items]) => ({ pad: pad || null, items })),
+    };
   }
 
   /** Approve or send back a waiting card. A card beyond the flyer's verified certification cannot be approved. */
   async decide(id: number, staffId: number, approve: boolean, reason: string | null): Promise<{ flight: FlightView }> {
     const f = await this.find(id);
-    if (f.status !== 'filed') throw conflict('already_decided', `This card is already ${f.status === 'sent_back' ? 'sent back' : f.status}.`);
+    if (f.status !== 'filed')
+      throw conflict('already_decided', `This card is already ${f.status === 'sent_back' ? 'sent back' : f.status}.`);
     if (approve) {
       // The same checks as at filing, against the flyer's verified level as it stands now.
       const { allowed } = await this.certification(Number(f.user_id));
       const launch = await this.launches.find(Number(f.launch_id));
-      const now = flightWarnings({ liftoffMassGrams: f.liftoff_mass_grams, motors: f.motors, expectedAltitudeMetres: f.expected_altitude_metres, ceilingMetres: launch.ceiling_metres, allowedClasses: allowed });
+      const now = flightWarnings({
+        liftoffMassGrams: f.liftoff_mass_grams,
+        motors: f.motors,
+        expectedAltitudeMetres: f.expected_altitude_metres,
+        ceilingMetres: launch.ceiling_metres,
+        allowedClasses: allowed,
+      });
       if (now.warnings.some((w) => w.code === BEYOND_CERTIFICATION)) {
-        throw conflict('not_certified', "This card goes beyond the flyer's verified certification level, so Padside cannot record it as cleared.");
+        throw conflict(
+          'not_certified',
+          "This card goes beyond the flyer's verified certification level, so Padside cannot record it as cleared.",
+        );
       }
     } else if (!reason) {
       throw badRequest('Say why the card goes back.', { reason: 'Give a reason.' });
     }
-    if (!(await this.repo.decide(this.db, id, 'filed', approve ? 'approved' : 'sent_back', reason, staffId))) throw conflict('already_decided', 'Someone decided on this card a moment ago.');
+    if (!(await this.repo.decide(this.db, id, 'filed', approve ? 'approved' : 'sent_back', reason, staffId)))
+      throw conflict('already_decided', 'Someone decided on this card a moment ago.');
     return { flight: flightView((await this.repo.byId(id))!) };
   }
 
   /** How a cleared flight went; can be corrected afterwards. */
   async outcome(id: number, outcome: FlightOutcome, notes: string | null): Promise<{ flight: FlightView }> {
     const f = await this.find(id);
-    if (!(await this.repo.recordOutcome(this.db, id, outcome, notes))) throw conflict('not_cleared', `Only a card cleared to fly gets an outcome; this one is ${f.status === 'sent_back' ? 'sent back' : 'still waiting'}.`);
+    if (!(await this.repo.recordOutcome(this.db, id, outcome, notes)))
+      throw conflict(
+        'not_cleared',
+        `Only a card cleared to fly gets an outcome; this one is ${f.status === 'sent_back' ? 'sent back' : 'still waiting'}.`,
+      );
     return { flight: flightView((await this.repo.byId(id))!) };
   }
 
   /** Analyses and stores an altimeter log of a flown card (up to 200,000 rows, which the analysis enforces), by its flyer or range staff. */
   async uploadLog(id: number, user: { id: number; roles: Role[] }, upload: LogUpload) {
     const f = await this.find(id);
-    if (Number(f.user_id) !== user.id && !user.roles.some((r) => RANGE_STAFF.includes(r))) throw forbidden('Only the flyer or a range officer adds data to this flight.');
+    if (Number(f.user_id) !== user.id && !user.roles.some((r) => RANGE_STAFF.includes(r)))
+      throw forbidden('Only the flyer or a range officer adds data to this flight.');
     if (f.status !== 'flown') throw conflict('not_flown', 'Add data once the flight has an outcome.');
     const analysis = await analyseFlightLog(Readable.from(upload.bytes), upload.columns);
-    await this.repo.putData(this.db, { flight_id: String(id), summary: analysis.summary, series: analysis.series, events: analysis.events, mapping: analysis.mapping, filter: analysis.filter, file_name: upload.fileName.slice(0, 200), uploaded_by: user.id });
+    await this.repo.putData(this.db, {
+      flight_id: String(id),
+      summary: analysis.summary,
+      series: analysis.series,
+      events: analysis.events,
+      mapping: analysis.mapping,
+      filter: analysis.filter,
+      file_name: upload.fileName.slice(0, 200),
+      uploaded_by: user.id,
+    });
     return { summary: analysis.summary, events: analysis.events, filter: analysis.filter };
   }
 
@@ -151,7 +204,8 @@ export class FlightService {
       min += m.totalImpulseMinNs;
       max += m.totalImpulseMaxNs;
     }
-    const best = flown.filter((f) => f.apogeeMetres !== null).sort((a, b) => b.apogeeMetres! - a.apogeeMetres!)[0] ?? null;
+    const best =
+      flown.filter((f) => f.apogeeMetres !== null).sort((a, b) => b.apogeeMetres! - a.apogeeMetres!)[0] ?? null;
     return {
       items: flights,
       totals: {
@@ -160,7 +214,14 @@ export class FlightService {
         motorsByClass: Object.fromEntries(Object.entries(motorsByClass).sort()),
         // The designation gives only the class, so the total impulse is the sum of the classes' ranges.
         totalImpulseNs: { min: Math.round(min * 100) / 100, max: Math.round(max * 100) / 100 },
-        bestAltitude: best ? { flightId: best.id, rocketName: best.rocketName, apogeeMetres: best.apogeeMetres!, launchDate: best.launchDate } : null,
+        bestAltitude: best
+          ? {
+              flightId: best.id,
+              rocketName: best.rocketName,
+              apogeeMetres: best.apogeeMetres!,
+              launchDate: best.launchDate,
+            }
+          : null,
       },
       caution: FLIGHT_CAUTION,
     };
@@ -172,7 +233,8 @@ export class FlightService {
     const flights = (await this.repo.forLaunch(launchId)).map(flightView).filter((f) => f.status === 'flown');
     const outcomes: Record<string, number> = {};
     for (const f of flights) if (f.outcome) outcomes[f.outcome] = (outcomes[f.outcome] ?? 0) + 1;
-    const highest = flights.filter((f) => f.apogeeMetres !== null).sort((a, b) => b.apogeeMetres! - a.apogeeMetres!)[0] ?? null;
+    const highest =
+      flights.filter((f) => f.apogeeMetres !== null).sort((a, b) => b.apogeeMetres! - a.apogeeMetres!)[0] ?? null;
     return { launch: launchView(launch), flights, highest, outcomes, caution: FLIGHT_CAUTION };
   }
 

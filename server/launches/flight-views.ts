@@ -18,7 +18,15 @@ export function flightView(f: FlightRow): FlightView {
     rocketName: f.rocket_name,
     postSlug: f.post_slug,
     liftoffMassGrams: f.liftoff_mass_grams,
-    motors: f.motors.map((m) => ({ designation: m.designation, impulseClass: m.impulseClass, averageThrustN: m.averageThrustN, delayS: m.delayS, plugged: m.plugged, totalImpulseMinNs: m.totalImpulseMinNs, totalImpulseMaxNs: m.totalImpulseMaxNs })),
+    motors: f.motors.map((m) => ({
+      designation: m.designation,
+      impulseClass: m.impulseClass,
+      averageThrustN: m.averageThrustN,
+      delayS: m.delayS,
+      plugged: m.plugged,
+      totalImpulseMinNs: m.totalImpulseMinNs,
+      totalImpulseMaxNs: m.totalImpulseMaxNs,
+    })),
     expectedAltitudeMetres: f.expected_altitude_metres,
     recovery: f.recovery,
     pad: f.pad,
@@ -40,5 +48,13 @@ export function flightView(f: FlightRow): FlightView {
 /** A flight's stored analysis: its summary, the downsampled series for the chart, events, mapping and filter. */
 export function flightDataView(d: FlightDataRow | undefined): FlightDataView | null {
   if (!d) return null;
-  return { summary: d.summary, series: d.series, events: d.events, mapping: d.mapping, filter: d.filter, fileName: d.file_name, uploadedAt: d.uploaded_at.toISOString() };
+  return {
+    summary: d.summary,
+    series: d.series,
+    events: d.events,
+    mapping: d.mapping,
+    filter: d.filter,
+    fileName: d.file_name,
+    uploadedAt: d.uploaded_at.toISOString(),
+  };
 }

@@ -43,7 +43,18 @@ export class FlyerStanding {
 
   private async view(m: MembershipRow): Promise<Flyer | null> {
     if (m.status === 'pending') return null;
-    const status = liveStatus(m, dateInZone(this.clock.now(), this.timeZone), termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS)));
-    return { userId: Number(m.user_id), memberNumber: m.member_number, name: m.legal_name, status, current: status === 'active' || status === 'lapsing', certificationLevel: verifiedCertificationLevel(m) };
+    const status = liveStatus(
+      m,
+      dateInZone(this.clock.now(), this.timeZone),
+      termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS)),
+    );
+    return {
+      userId: Number(m.user_id),
+      memberNumber: m.member_number,
+      name: m.legal_name,
+      status,
+      current: status === 'active' || status === 'lapsing',
+      certificationLevel: verifiedCertificationLevel(m),
+    };
   }
 }

@@ -16,7 +16,12 @@ export interface CalendarContext {
  * the club's time zone (TZID with its VTIMEZONE), a called-off launch as STATUS:CANCELLED with its SEQUENCE raised.
  */
 export function launchCalendar(launches: LaunchRow[], c: CalendarContext): string {
-  const cal = ical({ name: `${c.clubName} launches`, prodId: { company: 'Padside', product: 'launch-calendar', language: 'EN' }, url: `${c.publicUrl}/launches`, ttl: 3600 });
+  const cal = ical({
+    name: `${c.clubName} launches`,
+    prodId: { company: 'Padside', product: 'launch-calendar', language: 'EN' },
+    url: `${c.publicUrl}/launches`,
+    ttl: 3600,
+  });
   for (const l of launches) {
     cal.createEvent({
       id: `launch-${l.uid}@${c.host}`,
@@ -29,7 +34,13 @@ export function launchCalendar(launches: LaunchRow[], c: CalendarContext): strin
       sequence: l.sequence,
       status: l.status === 'called_off' ? ICalEventStatus.CANCELLED : ICalEventStatus.CONFIRMED,
       summary: l.status === 'called_off' ? `Called off: ${l.title}` : l.title,
-      description: [l.status === 'called_off' && l.call_off_reason ? `Called off: ${l.call_off_reason}` : '', l.notes, 'The range safety officer decides on the day; fly under your national association\'s safety code and local aviation and fire rules.'].filter(Boolean).join('\n\n'),
+      description: [
+        l.status === 'called_off' && l.call_off_reason ? `Called off: ${l.call_off_reason}` : '',
+        l.notes,
+        "The range safety officer decides on the day; fly under your national association's safety code and local aviation and fire rules.",
+      ]
+        .filter(Boolean)
+        .join('\n\n'),
       location: [l.site_name, l.site_address].filter(Boolean).join(', '),
       url: `${c.publicUrl}/launches/${l.id}`,
     });

@@ -4,13 +4,19 @@ import type { LaunchRow, Recipient } from './launch-repository';
 
 /** The line every launch e-mail ends with, in Padside's words. */
 const FLYING_NOTE =
-  'Padside keeps the club calendar; the range safety officer decides on the day. Fly under your national association\'s ' +
+  "Padside keeps the club calendar; the range safety officer decides on the day. Fly under your national association's " +
   'safety code and the local aviation and fire rules, and bring your member card for check-in.';
 
-const when = (l: LaunchRow, timeZone: string) => `${formatDay(l.launch_date)}, ${formatClock(l.starts_at)} to ${formatClock(l.ends_at)} ${clubTimeInWords(timeZone)}`;
+const when = (l: LaunchRow, timeZone: string) =>
+  `${formatDay(l.launch_date)}, ${formatClock(l.starts_at)} to ${formatClock(l.ends_at)} ${clubTimeInWords(timeZone)}`;
 
 /** The reminder two days before a launch, once per launch and person. */
-export function launchReminderMail(to: Recipient, l: LaunchRow, timeZone: string, publicUrl: string): TransactionalEmail {
+export function launchReminderMail(
+  to: Recipient,
+  l: LaunchRow,
+  timeZone: string,
+  publicUrl: string,
+): TransactionalEmail {
   return {
     to: to.email,
     template: 'launch-reminder',
@@ -33,7 +39,13 @@ export function launchReminderMail(to: Recipient, l: LaunchRow, timeZone: string
 }
 
 /** The notice that a launch someone said they would come to is called off; once per call-off. */
-export function launchCalledOffMail(to: Recipient, l: LaunchRow, reason: string, timeZone: string, publicUrl: string): TransactionalEmail {
+export function launchCalledOffMail(
+  to: Recipient,
+  l: LaunchRow,
+  reason: string,
+  timeZone: string,
+  publicUrl: string,
+): TransactionalEmail {
   return {
     to: to.email,
     template: 'launch-called-off',

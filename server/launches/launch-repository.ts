@@ -26,7 +26,20 @@ export interface LaunchRow {
 }
 
 /** The writable columns of a launch. */
-export type LaunchFields = Pick<LaunchRow, 'title' | 'launch_date' | 'starts_at' | 'ends_at' | 'site_name' | 'site_address' | 'site_lat' | 'site_lon' | 'ceiling_metres' | 'waiver_version' | 'notes'>;
+export type LaunchFields = Pick<
+  LaunchRow,
+  | 'title'
+  | 'launch_date'
+  | 'starts_at'
+  | 'ends_at'
+  | 'site_name'
+  | 'site_address'
+  | 'site_lat'
+  | 'site_lon'
+  | 'ceiling_metres'
+  | 'waiver_version'
+  | 'notes'
+>;
 
 /** Someone to write to about a launch. */
 export interface Recipient {
@@ -35,7 +48,7 @@ export interface Recipient {
   display_name: string;
 }
 
-const RSVP_COUNT = "(SELECT count(*) FROM launch_rsvps r WHERE r.launch_id = launches.id AND r.going) AS rsvp_count";
+const RSVP_COUNT = '(SELECT count(*) FROM launch_rsvps r WHERE r.launch_id = launches.id AND r.going) AS rsvp_count';
 
 /** Plain reads and writes of launches, RSVPs and attendance. */
 export class LaunchRepository {
@@ -43,7 +56,11 @@ export class LaunchRepository {
 
   // The date comes back as text, so it never shifts with the server's time zone.
   private select(db: Db) {
-    return db<LaunchRow>('launches').select('launches.*', db.raw("to_char(launch_date, 'YYYY-MM-DD') AS launch_date"), db.raw(RSVP_COUNT));
+    return db<LaunchRow>('launches').select(
+      'launches.*',
+      db.raw("to_char(launch_date, 'YYYY-MM-DD') AS launch_date"),
+      db.raw(RSVP_COUNT),
+    );
   }
 
   /** Launches with a date inside the optional range, in calendar order. */
@@ -67,25 +84,42 @@ export class LaunchRepository {
 
   /** Writes the changed fields of a launch; false when no row has that id. */
   async update(db: Db, id: number, patch: Partial<LaunchFields>): Promise<boolean> {
-    return (await db('launches').where('id', id).update({ ...patch, updated_at: db.fn.now() })) === 1;
+    return (
+      (await db('launches')
+        .where('id', id)
+        .update({ ...patch, updated_at: db.fn.now() })) === 1
+    );
   }
 
   /** Calls a scheduled launch off; true only for the one caller whose update won. */
   async callOff(trx: Knex.Transaction, id: number, reason: string): Promise<boolean> {
     const n = await trx('launches')
       .where({ id, status: 'scheduled' })
-      .update({ status: 'called_off', call_off_reason: reason, called_off_at: trx.fn.now(), sequence: trx.raw('sequence + 1'), updated_at: trx.fn.now() });
+      .update({
+        status: 'called_off',
+        call_off_reason: reason,
+        called_off_at: trx.fn.now(),
+        sequence: trx.raw('sequence + 1'),
+        updated_at: trx.fn.now(),
+      });
     return n === 1;
   }
 
   /** Marks a scheduled launch done; true only if it was scheduled. */
   async markDone(db: Db, id: number): Promise<boolean> {
-    return (await db('launches').where({ id, status: 'scheduled' }).update({ status: 'done', sequence: db.raw('sequence + 1'), updated_at: db.fn.now() })) === 1;
+    return (
+      (await db('launches')
+        .where({ id, status: 'scheduled' })
+        .update({ status: 'done', sequence: db.raw('sequence + 1'), updated_at: db.fn.now() })) === 1
+    );
   }
 
   /** Records or changes a person's reply to a launch, one row per person and launch. */
   async setRsvp(db: Db, launchId: number, userId: number, going: boolean): Promise<void> {
-    await db('launch_rsvps').insert({ launch_id: launchId, user_id: userId, going }).onConflict(['launch_id', 'user_id']).merge({ going, updated_at: db.fn.now() });
+    await db('launch_rsvps')
+      .insert({ launch_id: launchId, user_id: userId, going })
+      .onConflict(['launch_id', 'user_id'])
+      .merge({ going, updated_at: db.fn.now() });
   }
 
   /** The person's reply to a launch: true, false, or null if they have not answered. */
@@ -109,29 +143,53 @@ export class LaunchRepository {
   }
 
   /** Records a check-in; false when the member was already checked in for this launch. */
-  async addAttendance(db: Db, row: { launch_id: number; user_id: number; member_number: string; checked_in_by: number }): Promise<boolean> {
-    const rows = await db('launch_attendance').insert(row).onConflict(['launch_id', 'user_id']).ignore().returning('user_id');
+  async addAttendance(
+    db: Db,
+    row: { launch_id: number; user_id: number; member_number: string; checked_in_by: number },
+  ): Promise<boolean> {
+    const rows = await db('launch_attendance')
+      .insert(row)
+      .onConflict(['launch_id', 'user_id'])
+      .ignore()
+      .returning('user_id');
     return rows.length === 1;
   }
 
   /** Whether the person was checked in at the range table for that launch. */
   async isCheckedIn(launchId: number, userId: number, db: Db = this.db): Promise<boolean> {
-    return (await db('launch_attendance').where({ launch_id: launchId, user_id: userId }).first('user_id')) !== undefined;
+    return (
+      (await db('launch_attendance').where({ launch_id: launchId, user_id: userId }).first('user_id')) !== undefined
+    );
   }
 
   /** Who checked in at a launch, in check-in order, with the member number shown at the table. */
-  attendance(launchId: number, db: Db = this.db): Promise<{ user_id: string; display_name: string; member_number: string; checked_in_at: Date }[]> {
-    return db('launch_attendance as a').join('users as u', 'u.id', 'a.user_id').where('a.launch_id', launchId).orderBy('a.checked_in_at').select('a.user_id', 'u.display_name', 'a.member_number', 'a.checked_in_at');
+  attendance(
+    launchId: number,
+    db: Db = this.db,
+  ): Promise<{ user_id: string; display_name: string; member_number: string; checked_in_at: Date }[]> {
+    return db('launch_attendance as a')
+      .join('users as u', 'u.id', 'a.user_id')
+      .where('a.launch_id', launchId)
+      .orderBy('a.checked_in_at')
+      .select('a.user_id', 'u.display_name', 'a.member_number', 'a.checked_in_at');
   }
 
   /** Launches per status with a date in [from, to], for the dashboard. */
   countsByStatus(from: string, to: string, db: Db = this.db): Promise<{ status: string; count: string }[]> {
-    return db('launches').whereBetween('launch_date', [from, to]).groupBy('status').select('status').count<{ status: string; count: string }[]>({ count: '*' });
+    return db('launches')
+      .whereBetween('launch_date', [from, to])
+      .groupBy('status')
+      .select('status')
+      .count<{ status: string; count: string }[]>({ count: '*' });
   }
 
   /** Check-ins at launches dated in [from, to], for the dashboard's season card. */
   async attendanceBetween(from: string, to: string, db: Db = this.db): Promise<number> {
-    const row = await db('launch_attendance as a').join('launches as l', 'l.id', 'a.launch_id').whereBetween('l.launch_date', [from, to]).count<{ count: string }[]>({ count: '*' }).first();
+    const row = await db('launch_attendance as a')
+      .join('launches as l', 'l.id', 'a.launch_id')
+      .whereBetween('l.launch_date', [from, to])
+      .count<{ count: string }[]>({ count: '*' })
+      .first();
     return Number(row?.count ?? 0);
   }
 }

@@ -2,7 +2,16 @@ import { Router } from 'express';
 import { requireRole, requireSignedIn } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import type { FlightService } from './flight-service';
-import { CallOffSchema, CheckInSchema, FlightSchema, LaunchPatchSchema, LaunchSettingsSchema, ListQuery, NewLaunchSchema, RsvpSchema } from '../../contracts/launches/launch-schemas';
+import {
+  CallOffSchema,
+  CheckInSchema,
+  FlightSchema,
+  LaunchPatchSchema,
+  LaunchSettingsSchema,
+  ListQuery,
+  NewLaunchSchema,
+  RsvpSchema,
+} from '../../contracts/launches/launch-schemas';
 import type { LaunchService } from './launch-service';
 
 /** Range officers and admins (admins can do everything a range officer can). */
@@ -24,10 +33,14 @@ export function launchRoutes(launches: LaunchService, flights: FlightService): R
     res.json(await launches.rsvp(parse(fields.id, req.params.id), req.user!.id, parse(RsvpSchema, req.body).going));
   });
   r.post('/:id/check-in', RANGE_STAFF, async function checkIn(req, res) {
-    res.json(await launches.checkIn(parse(fields.id, req.params.id), parse(CheckInSchema, req.body).token, req.user!.id));
+    res.json(
+      await launches.checkIn(parse(fields.id, req.params.id), parse(CheckInSchema, req.body).token, req.user!.id),
+    );
   });
   r.post('/:id/flights', requireSignedIn, async function fileFlight(req, res) {
-    res.status(201).json(await flights.file(parse(fields.id, req.params.id), req.user!.id, parse(FlightSchema, req.body)));
+    res
+      .status(201)
+      .json(await flights.file(parse(fields.id, req.params.id), req.user!.id, parse(FlightSchema, req.body)));
   });
   return r;
 }
@@ -70,7 +83,10 @@ export function launchAdminRoutes(launches: LaunchService, flights: FlightServic
 export function launchFeedRoutes(launches: LaunchService): Router {
   const r = Router();
   r.get('/launches.ics', async function launchFeed(_req, res) {
-    res.type('text/calendar; charset=utf-8').set('Cache-Control', 'public, max-age=900').send(await launches.calendar());
+    res
+      .type('text/calendar; charset=utf-8')
+      .set('Cache-Control', 'public, max-age=900')
+      .send(await launches.calendar());
   });
   return r;
 }

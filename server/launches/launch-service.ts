@@ -28,7 +28,14 @@ const toFields = (i: Partial<LaunchInput>): Partial<LaunchFields> => ({
   ...(i.date !== undefined ? { launch_date: i.date } : {}),
   ...(i.startsAt !== undefined ? { starts_at: i.startsAt } : {}),
   ...(i.endsAt !== undefined ? { ends_at: i.endsAt } : {}),
-  ...(i.site !== undefined ? { site_name: i.site.name, site_address: i.site.address ?? null, site_lat: i.site.lat?.toString() ?? null, site_lon: i.site.lon?.toString() ?? null } : {}),
+  ...(i.site !== undefined
+    ? {
+        site_name: i.site.name,
+        site_address: i.site.address ?? null,
+        site_lat: i.site.lat?.toString() ?? null,
+        site_lon: i.site.lon?.toString() ?? null,
+      }
+    : {}),
   ...(i.ceilingMetres !== undefined ? { ceiling_metres: i.ceilingMetres } : {}),
   ...(i.waiverVersion !== undefined ? { waiver_version: i.waiverVersion } : {}),
   ...(i.notes !== undefined ? { notes: i.notes ?? '' } : {}),
@@ -71,7 +78,10 @@ export class LaunchService {
   /** One launch; a signed-in caller also sees their own reply and check-in. */
   async show(id: number, userId: number | null): Promise<LaunchPage> {
     const l = await this.find(id);
-    const me = userId === null ? null : { going: await this.repo.rsvpOf(id, userId), checkedIn: await this.repo.isCheckedIn(id, userId) };
+    const me =
+      userId === null
+        ? null
+        : { going: await this.repo.rsvpOf(id, userId), checkedIn: await this.repo.isCheckedIn(id, userId) };
     return { launch: launchView(l), me, timeZone: this.ctx.timeZone };
   }
 
@@ -84,9 +94,11 @@ export class LaunchService {
   /** Changes a launch still on the calendar; one called off or done stays as it was. */
   async update(id: number, input: Partial<LaunchInput>): Promise<{ launch: LaunchView }> {
     const l = await this.find(id);
-    if (l.status !== 'scheduled') throw conflict('launch_closed', 'Only a launch still on the calendar can be changed.');
+    if (l.status !== 'scheduled')
+      throw conflict('launch_closed', 'Only a launch still on the calendar can be changed.');
     const merged = { ...l, ...toFields(input) };
-    if (merged.starts_at >= merged.ends_at) throw conflict('invalid_window', 'The window must end after it starts.', { endsAt: 'Must be after the start.' });
+    if (merged.starts_at >= merged.ends_at)
+      throw conflict('invalid_window', 'The window must end after it starts.', { endsAt: 'Must be after the start.' });
     await this.repo.update(this.db, id, toFields(input));
     return { launch: launchView((await this.repo.byId(id))!) };
   }
@@ -95,11 +107,13 @@ export class LaunchService {
   async callOff(id: number, reason: string): Promise<{ launch: LaunchView; notified: number }> {
     await this.find(id);
     const notified = await this.db.transaction(async (trx) => {
-      if (!(await this.repo.callOff(trx, id, reason))) throw conflict('launch_closed', 'This launch is already called off or done.');
+      if (!(await this.repo.callOff(trx, id, reason)))
+        throw conflict('launch_closed', 'This launch is already called off or done.');
       const l = (await this.repo.byId(id, trx))!;
       let queued = 0;
       for (const to of await this.repo.goingTo(id, trx)) {
-        if (await enqueueEmail(trx, launchCalledOffMail(to, l, reason, this.ctx.timeZone, this.ctx.publicUrl))) queued++;
+        if (await enqueueEmail(trx, launchCalledOffMail(to, l, reason, this.ctx.timeZone, this.ctx.publicUrl)))
+          queued++;
       }
       return queued;
     });
@@ -109,14 +123,16 @@ export class LaunchService {
   /** Closes a launch on the calendar as flown; one already called off or done cannot be closed again. */
   async markDone(id: number): Promise<{ launch: LaunchView }> {
     await this.find(id);
-    if (!(await this.repo.markDone(this.db, id))) throw conflict('launch_closed', 'Only a launch on the calendar can be closed.');
+    if (!(await this.repo.markDone(this.db, id)))
+      throw conflict('launch_closed', 'Only a launch on the calendar can be closed.');
     return { launch: launchView((await this.repo.byId(id))!) };
   }
 
   /** A reply to a launch on the calendar, today or later. */
   async rsvp(id: number, userId: number, going: boolean): Promise<{ going: boolean; launch: LaunchView }> {
     const l = await this.find(id);
-    if (l.status !== 'scheduled' || l.launch_date < this.today()) throw conflict('launch_closed', 'Replies close when a launch is called off or over.');
+    if (l.status !== 'scheduled' || l.launch_date < this.today())
+      throw conflict('launch_closed', 'Replies close when a launch is called off or over.');
     await this.repo.setRsvp(this.db, id, userId, going);
     return { going, launch: launchView((await this.repo.byId(id))!) };
   }
@@ -126,16 +142,43 @@ export class LaunchService {
     const l = await this.find(id);
     if (l.status !== 'scheduled') throw conflict('launch_closed', 'This launch is called off or closed.');
     const flyer = await this.flyers.byToken(token);
-    if (!flyer) throw conflict('unknown_card', 'Padside does not recognise this card code.', { token: 'Not a current member card.' });
-    if (!flyer.current) throw conflict('dues_not_current', `Member ${flyer.memberNumber}'s dues are not current (${flyer.status}).`, { token: 'Dues not current.' });
-    const added = await this.repo.addAttendance(this.db, { launch_id: id, user_id: flyer.userId, member_number: flyer.memberNumber, checked_in_by: staffId });
-    return { checkedIn: true, alreadyCheckedIn: !added, member: { memberNumber: flyer.memberNumber, name: flyer.name, status: flyer.status, certificationLevel: flyer.certificationLevel } };
+    if (!flyer)
+      throw conflict('unknown_card', 'Padside does not recognise this card code.', {
+        token: 'Not a current member card.',
+      });
+    if (!flyer.current)
+      throw conflict('dues_not_current', `Member ${flyer.memberNumber}'s dues are not current (${flyer.status}).`, {
+        token: 'Dues not current.',
+      });
+    const added = await this.repo.addAttendance(this.db, {
+      launch_id: id,
+      user_id: flyer.userId,
+      member_number: flyer.memberNumber,
+      checked_in_by: staffId,
+    });
+    return {
+      checkedIn: true,
+      alreadyCheckedIn: !added,
+      member: {
+        memberNumber: flyer.memberNumber,
+        name: flyer.name,
+        status: flyer.status,
+        certificationLevel: flyer.certificationLevel,
+      },
+    };
   }
 
   /** The check-in list of a launch for the range staff. */
   async attendance(id: number) {
     await this.find(id);
-    return { items: (await this.repo.attendance(id)).map((a) => ({ userId: Number(a.user_id), name: a.display_name, memberNumber: a.member_number, checkedInAt: a.checked_in_at })) };
+    return {
+      items: (await this.repo.attendance(id)).map((a) => ({
+        userId: Number(a.user_id),
+        name: a.display_name,
+        memberNumber: a.member_number,
+        checkedInAt: a.checked_in_at,
+      })),
+    };
   }
 
   /** Whether the person checked in at the launch, which is required before they may file a flight card. */
@@ -161,7 +204,13 @@ export class LaunchService {
   /** The iCalendar feed of the last year's and every future launch. */
   async calendar(): Promise<string> {
     const launches = await this.repo.list({ from: addDays(this.today(), -365) });
-    return launchCalendar(launches, { clubName: this.ctx.clubName, timeZone: this.ctx.timeZone, publicUrl: this.ctx.publicUrl, host: new URL(this.ctx.publicUrl).hostname, now: this.clock.now() });
+    return launchCalendar(launches, {
+      clubName: this.ctx.clubName,
+      timeZone: this.ctx.timeZone,
+      publicUrl: this.ctx.publicUrl,
+      host: new URL(this.ctx.publicUrl).hostname,
+      now: this.clock.now(),
+    });
   }
 
   /** The launch feature's settings, with defaults for fields never saved. */
@@ -178,7 +227,15 @@ export class LaunchService {
   async season() {
     const year = this.today().slice(0, 4);
     const [from, to] = [`${year}-01-01`, `${year}-12-31`];
-    const counts = Object.fromEntries((await this.repo.countsByStatus(from, to)).map((r) => [r.status, Number(r.count)]));
-    return { season: year, scheduled: counts.scheduled ?? 0, calledOff: counts.called_off ?? 0, done: counts.done ?? 0, checkIns: await this.repo.attendanceBetween(from, to) };
+    const counts = Object.fromEntries(
+      (await this.repo.countsByStatus(from, to)).map((r) => [r.status, Number(r.count)]),
+    );
+    return {
+      season: year,
+      scheduled: counts.scheduled ?? 0,
+      calledOff: counts.called_off ?? 0,
+      done: counts.done ?? 0,
+      checkIns: await this.repo.attendanceBetween(from, to),
+    };
   }
 }

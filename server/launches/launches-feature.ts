@@ -13,8 +13,18 @@ import { LaunchService } from './launch-service';
 /** Launch days and flights: the club calendar and its feed, RSVPs, check-in, flight cards, the range queue, logs. */
 export function launchesFeature(platform: Platform): Feature {
   const { db, clock, config } = platform.deps;
-  const flyers = new FlyerStanding(new MembershipRepository(db), new CheckInTokens(config.sessionSecret), platform.settings, clock, config.clubTimeZone);
-  const launches = new LaunchService(db, new LaunchRepository(db), flyers, platform.settings, clock, { timeZone: config.clubTimeZone, publicUrl: config.publicUrl, clubName: config.site.clubName });
+  const flyers = new FlyerStanding(
+    new MembershipRepository(db),
+    new CheckInTokens(config.sessionSecret),
+    platform.settings,
+    clock,
+    config.clubTimeZone,
+  );
+  const launches = new LaunchService(db, new LaunchRepository(db), flyers, platform.settings, clock, {
+    timeZone: config.clubTimeZone,
+    publicUrl: config.publicUrl,
+    clubName: config.site.clubName,
+  });
   const flights = new FlightService(db, new FlightRepository(db), launches, flyers, platform.settings);
   return {
     name: 'launches',

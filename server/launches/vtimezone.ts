@@ -3,7 +3,20 @@ const formats = new Map<string, Intl.DateTimeFormat>();
 /** UTC offset in minutes of a time zone at an instant, from the platform's time zone data. */
 export function offsetMinutes(timeZone: string, at: Date): number {
   let format = formats.get(timeZone);
-  if (!format) formats.set(timeZone, (format = new Intl.DateTimeFormat('en-US', { timeZone, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit' })));
+  if (!format)
+    formats.set(
+      timeZone,
+      (format = new Intl.DateTimeFormat('en-US', {
+        timeZone,
+        hourCycle: 'h23',
+        year: 'numeric',
+        month: '2-digit',
+        day: '2-digit',
+        hour: '2-digit',
+        minute: '2-digit',
+        second: '2-digit',
+      })),
+    );
   const parts = format.formatToParts(at);
   const n = (type: string) => Number(parts.find((p) => p.type === type)!.value);
   const asUtc = Date.UTC(n('year'), n('month') - 1, n('day'), n('hour'), n('minute'), n('second'));
@@ -11,7 +24,8 @@ export function offsetMinutes(timeZone: string, at: Date): number {
 }
 
 const pad = (n: number, w = 2) => String(Math.abs(n)).padStart(w, '0');
-const utcOffset = (min: number) => `${min < 0 ? '-' : '+'}${pad(Math.floor(Math.abs(min) / 60))}${pad(Math.abs(min) % 60)}`;
+const utcOffset = (min: number) =>
+  `${min < 0 ? '-' : '+'}${pad(Math.floor(Math.abs(min) / 60))}${pad(Math.abs(min) % 60)}`;
 const localStamp = (instantMs: number, offsetMin: number) => {
   const d = new Date(instantMs + offsetMin * 60000);
   return `${d.getUTCFullYear()}${pad(d.getUTCMonth() + 1)}${pad(d.getUTCDate())}T${pad(d.getUTCHours())}${pad(d.getUTCMinutes())}${pad(d.getUTCSeconds())}`;
@@ -49,11 +63,23 @@ export function vtimezone(timeZone: string, years: number[]): string {
   const changes = [...new Set(years)].sort().flatMap((y) => transitions(timeZone, y));
   if (changes.length === 0) {
     const off = offsetMinutes(timeZone, new Date(Date.UTC(Math.min(...years, 1970), 0, 1)));
-    lines.push('BEGIN:STANDARD', 'DTSTART:19700101T000000', `TZOFFSETFROM:${utcOffset(off)}`, `TZOFFSETTO:${utcOffset(off)}`, 'END:STANDARD');
+    lines.push(
+      'BEGIN:STANDARD',
+      'DTSTART:19700101T000000',
+      `TZOFFSETFROM:${utcOffset(off)}`,
+      `TZOFFSETTO:${utcOffset(off)}`,
+      'END:STANDARD',
+    );
   }
   for (const c of changes) {
     const kind = c.to > c.from ? 'DAYLIGHT' : 'STANDARD';
-    lines.push(`BEGIN:${kind}`, `DTSTART:${localStamp(c.at, c.from)}`, `TZOFFSETFROM:${utcOffset(c.from)}`, `TZOFFSETTO:${utcOffset(c.to)}`, `END:${kind}`);
+    lines.push(
+      `BEGIN:${kind}`,
+      `DTSTART:${localStamp(c.at, c.from)}`,
+      `TZOFFSETFROM:${utcOffset(c.from)}`,
+      `TZOFFSETTO:${utcOffset(c.to)}`,
+      `END:${kind}`,
+    );
   }
   lines.push('END:VTIMEZONE');
   return lines.join('\r\n');

@@ -39,7 +39,10 @@ export class MailWorker {
 
   /** Polls every `intervalMs` until stopped. */
   start(intervalMs: number): void {
-    this.timer = setInterval(() => void this.deliverDue().catch((err) => this.log.warn({ err }, 'mail delivery pass failed')), intervalMs);
+    this.timer = setInterval(
+      () => void this.deliverDue().catch((err) => this.log.warn({ err }, 'mail delivery pass failed')),
+      intervalMs,
+    );
   }
 
   /** Stops polling, waits for a delivery pass in progress to finish, then closes the SMTP connection. */
@@ -80,7 +83,9 @@ export class MailWorker {
         const blocked = await this.suppressions.blocked(rows, trx);
         for (const row of rows) {
           if (blocked.has(String(row.id))) {
-            await trx('outbound_emails').where('id', row.id).update({ status: 'suppressed', last_error: 'suppressed before sending' });
+            await trx('outbound_emails')
+              .where('id', row.id)
+              .update({ status: 'suppressed', last_error: 'suppressed before sending' });
             continue;
           }
           try {
@@ -94,7 +99,9 @@ export class MailWorker {
               // One Message-ID per outbox row, so a receiver can tell a retried copy from a new message.
               messageId: `<outbox-${row.id}-${row.created_at instanceof Date ? row.created_at.getTime() : 0}@padside.mail>`,
             });
-            await trx('outbound_emails').where('id', row.id).update({ status: 'sent', sent_at: trx.fn.now(), attempts: row.attempts + 1, last_error: null });
+            await trx('outbound_emails')
+              .where('id', row.id)
+              .update({ status: 'sent', sent_at: trx.fn.now(), attempts: row.attempts + 1, last_error: null });
             ok++;
           } catch (err) {
             const attempts = row.attempts + 1;
@@ -102,7 +109,9 @@ export class MailWorker {
             const verdict = smtpVerdict(e.responseCode, e.response ?? e.message);
             if (verdict !== 'retry') {
               // The server answered and refused for good: never retry, and never mail the address again.
-              await trx('outbound_emails').where('id', row.id).update({ attempts, status: 'failed', last_error: String(e.message).slice(0, 500) });
+              await trx('outbound_emails')
+                .where('id', row.id)
+                .update({ attempts, status: 'failed', last_error: String(e.message).slice(0, 500) });
               await this.suppressions.add(trx, row.to_address, verdict, { detail: e.response ?? e.message });
               continue;
             }

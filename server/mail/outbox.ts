@@ -33,13 +33,34 @@ export interface CommercialEmail extends MailBody {
 export type OutgoingEmail = TransactionalEmail | CommercialEmail;
 
 const toRow = (mail: OutgoingEmail) => {
-  const common = { to_address: mail.to, subject: mail.subject, template: mail.template, dedupe_key: mail.dedupeKey ?? null };
+  const common = {
+    to_address: mail.to,
+    subject: mail.subject,
+    template: mail.template,
+    dedupe_key: mail.dedupeKey ?? null,
+  };
   if (mail.category === 'commercial') {
     const { list, headers, announcementId } = mail;
-    return { ...common, text_body: mail.text, html_body: mail.html ?? null, category: 'commercial', list, headers: JSON.stringify(headers), announcement_id: announcementId ?? null };
+    return {
+      ...common,
+      text_body: mail.text,
+      html_body: mail.html ?? null,
+      category: 'commercial',
+      list,
+      headers: JSON.stringify(headers),
+      announcement_id: announcementId ?? null,
+    };
   }
   const body = withReason(mail, reasonText(mail));
-  return { ...common, text_body: body.text, html_body: body.html, category: 'transactional', list: null, headers: null, announcement_id: null };
+  return {
+    ...common,
+    text_body: body.text,
+    html_body: body.html,
+    category: 'transactional',
+    list: null,
+    headers: null,
+    announcement_id: null,
+  };
 };
 
 /**
@@ -57,7 +78,11 @@ export async function enqueueEmails(db: Knex | Knex.Transaction, mails: Outgoing
   let queued = 0;
   // Chunks keep each statement well under PostgreSQL's 65,535 bind parameters.
   for (let i = 0; i < mails.length; i += 500) {
-    const rows = await db('outbound_emails').insert(mails.slice(i, i + 500).map(toRow)).onConflict('dedupe_key').ignore().returning('id');
+    const rows = await db('outbound_emails')
+      .insert(mails.slice(i, i + 500).map(toRow))
+      .onConflict('dedupe_key')
+      .ignore()
+      .returning('id');
     queued += rows.length;
   }
   return queued;

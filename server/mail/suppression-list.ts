@@ -18,7 +18,12 @@ export class SuppressionList {
   constructor(private readonly db: Knex) {}
 
   /** Records a suppression; a second one for the same address and list keeps the first. */
-  async add(trx: Knex | Knex.Transaction, email: string, reason: SuppressionReason, opts: { list?: string | null; detail?: string } = {}): Promise<void> {
+  async add(
+    trx: Knex | Knex.Transaction,
+    email: string,
+    reason: SuppressionReason,
+    opts: { list?: string | null; detail?: string } = {},
+  ): Promise<void> {
     await trx.raw(
       `INSERT INTO email_suppressions (email, list, reason, detail) VALUES (?, ?, ?, ?) ON CONFLICT (email, COALESCE(list, '')) DO NOTHING`,
       [email.trim().toLowerCase(), opts.list ?? null, reason, opts.detail?.slice(0, 500) ?? null],
@@ -39,7 +44,11 @@ export class SuppressionList {
     const out = new Set<string>();
     for (const r of rows) {
       const email = r.to_address.toLowerCase();
-      const hit = found.some((s) => s.email === email && (r.category === 'commercial' ? s.list === null || s.list === r.list : s.reason === 'hard_bounce'));
+      const hit = found.some(
+        (s) =>
+          s.email === email &&
+          (r.category === 'commercial' ? s.list === null || s.list === r.list : s.reason === 'hard_bounce'),
+      );
       if (hit) out.add(String(r.id));
     }
     return out;
@@ -47,7 +56,9 @@ export class SuppressionList {
 
   /** Addresses suppressed for a list (or every list), for leaving them out before anything is queued. */
   async emailsFor(list: string, trx: Knex | Knex.Transaction = this.db): Promise<Set<string>> {
-    const rows = await trx('email_suppressions').where((q) => q.whereNull('list').orWhere('list', list)).select('email');
+    const rows = await trx('email_suppressions')
+      .where((q) => q.whereNull('list').orWhere('list', list))
+      .select('email');
     return new Set(rows.map((r: { email: string }) => r.email));
   }
 }

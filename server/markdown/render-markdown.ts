@@ -26,7 +26,8 @@ interface CreditToken extends Tokens.Generic {
 }
 
 /** Text made safe to put inside HTML. */
-export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+export const escapeHtml = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 const creditMarker: TokenizerAndRendererExtension = {
   name: 'psCredit',
@@ -35,7 +36,13 @@ const creditMarker: TokenizerAndRendererExtension = {
   tokenizer(src) {
     const m = CREDIT_LINE.exec(src);
     if (!m) return undefined;
-    return { type: 'psCredit', raw: m[0], slug: m[1], deliverableId: m[2] ? Number(m[2]) : null, note: (m[3] ?? '').trim() } satisfies CreditToken;
+    return {
+      type: 'psCredit',
+      raw: m[0],
+      slug: m[1],
+      deliverableId: m[2] ? Number(m[2]) : null,
+      note: (m[3] ?? '').trim(),
+    } satisfies CreditToken;
   },
   renderer(token) {
     const t = token as CreditToken;
@@ -72,8 +79,41 @@ const flightMarker: TokenizerAndRendererExtension = {
 const marked = new Marked({ gfm: true, breaks: false, async: false, extensions: [creditMarker, flightMarker] });
 
 const ALLOWED_TAGS = [
-  'h1', 'h2', 'h3', 'h4', 'h5', 'h6', 'p', 'br', 'hr', 'blockquote', 'pre', 'code', 'em', 'strong', 'del', 's', 'sup', 'sub',
-  'ul', 'ol', 'li', 'a', 'img', 'table', 'thead', 'tbody', 'tr', 'th', 'td', 'input', 'figure', 'figcaption', 'aside', 'span', 'div',
+  'h1',
+  'h2',
+  'h3',
+  'h4',
+  'h5',
+  'h6',
+  'p',
+  'br',
+  'hr',
+  'blockquote',
+  'pre',
+  'code',
+  'em',
+  'strong',
+  'del',
+  's',
+  'sup',
+  'sub',
+  'ul',
+  'ol',
+  'li',
+  'a',
+  'img',
+  'table',
+  'thead',
+  'tbody',
+  'tr',
+  'th',
+  'td',
+  'input',
+  'figure',
+  'figcaption',
+  'aside',
+  'span',
+  'div',
 ];
 
 const SANITIZE: sanitizeHtml.IOptions = {
@@ -104,7 +144,13 @@ const SANITIZE: sanitizeHtml.IOptions = {
   disallowedTagsMode: 'discard',
   transformTags: {
     // Task-list checkboxes only, and never editable.
-    input: (tagName, attribs) => (attribs.type === 'checkbox' ? { tagName, attribs: { type: 'checkbox', disabled: '', ...(attribs.checked !== undefined ? { checked: '' } : {}) } } : { tagName: 'span', attribs: {} }),
+    input: (tagName, attribs) =>
+      attribs.type === 'checkbox'
+        ? {
+            tagName,
+            attribs: { type: 'checkbox', disabled: '', ...(attribs.checked !== undefined ? { checked: '' } : {}) },
+          }
+        : { tagName: 'span', attribs: {} },
     // Browsers ignore spaces around an href, so the check must too (" https://x" is external); any link that opens
     // another browsing context cannot hand it window.opener, whatever rel the author wrote.
     a: (tagName, attribs) => {
@@ -120,11 +166,13 @@ const SANITIZE: sanitizeHtml.IOptions = {
     // data-flight names a flight by its number and nothing else; any other value goes with the attribute.
     div: (tagName, attribs) => {
       const { 'data-flight': flight, ...rest } = attribs;
-      return { tagName, attribs: flight !== undefined && /^[1-9][0-9]{0,9}$/.test(flight) ? { ...rest, 'data-flight': flight } : rest };
+      return {
+        tagName,
+        attribs: flight !== undefined && /^[1-9][0-9]{0,9}$/.test(flight) ? { ...rest, 'data-flight': flight } : rest,
+      };
     },
   },
   exclusiveFilter: (frame) => frame.tag === 'img' && !frame.attribs.src,
-
 };
 
 /** Options of one rendering: the display names of sponsors that credit markers may name, by slug. */
@@ -146,7 +194,12 @@ export class UnrenderableMarkdown extends Error {}
 
 const childrenOf = (t: Record<string, unknown>): unknown[] => {
   const rows = Array.isArray(t.rows) ? (t.rows as unknown[]).flat() : [];
-  return [...(Array.isArray(t.tokens) ? t.tokens : []), ...(Array.isArray(t.items) ? t.items : []), ...(Array.isArray(t.header) ? t.header : []), ...rows];
+  return [
+    ...(Array.isArray(t.tokens) ? t.tokens : []),
+    ...(Array.isArray(t.items) ? t.items : []),
+    ...(Array.isArray(t.header) ? t.header : []),
+    ...rows,
+  ];
 };
 
 /** The depth of a token tree, walked with an explicit stack so the walk itself cannot overflow. */
@@ -157,14 +210,21 @@ function tokenDepth(tokens: unknown[]): number {
     const [t, depth] = stack.pop()!;
     if (depth > deepest) deepest = depth;
     if (deepest > MAX_MARKDOWN_DEPTH) return deepest;
-    if (t && typeof t === 'object') for (const c of childrenOf(t as Record<string, unknown>)) stack.push([c, depth + 1]);
+    if (t && typeof t === 'object')
+      for (const c of childrenOf(t as Record<string, unknown>)) stack.push([c, depth + 1]);
   }
   return deepest;
 }
 
 function lex(markdown: string): Token[] {
-  if (markdown.length > MAX_MARKDOWN_LENGTH) throw new UnrenderableMarkdown(`The text is too long (at most ${MAX_MARKDOWN_LENGTH.toLocaleString('en-CA')} characters).`);
-  const tooDeep = () => new UnrenderableMarkdown(`The text is nested too deeply (quotes, lists or emphasis more than ${MAX_MARKDOWN_DEPTH} levels inside each other).`);
+  if (markdown.length > MAX_MARKDOWN_LENGTH)
+    throw new UnrenderableMarkdown(
+      `The text is too long (at most ${MAX_MARKDOWN_LENGTH.toLocaleString('en-CA')} characters).`,
+    );
+  const tooDeep = () =>
+    new UnrenderableMarkdown(
+      `The text is nested too deeply (quotes, lists or emphasis more than ${MAX_MARKDOWN_DEPTH} levels inside each other).`,
+    );
   let tokens: Token[];
   try {
     tokens = marked.lexer(markdown);
@@ -183,7 +243,8 @@ function lex(markdown: string): Token[] {
 export function renderMarkdownChecked(markdown: string, options: RenderOptions = {}): string {
   const tokens = lex(markdown);
   marked.walkTokens(tokens, (token: Token) => {
-    if (token.type === 'psCredit') (token as CreditToken).sponsorName = options.sponsorNames?.get((token as CreditToken).slug);
+    if (token.type === 'psCredit')
+      (token as CreditToken).sponsorName = options.sponsorNames?.get((token as CreditToken).slug);
   });
   try {
     return sanitizeHtml(marked.parser(tokens), SANITIZE);
@@ -254,7 +315,8 @@ export function creditMarkerSlugs(markdown: string): string[] {
 export function flightMarkerIds(markdown: string): number[] {
   const ids: number[] = [];
   marked.walkTokens(marked.lexer(markdown), (token: Token) => {
-    if (token.type === 'psFlight' && !ids.includes((token as FlightToken).flightId)) ids.push((token as FlightToken).flightId);
+    if (token.type === 'psFlight' && !ids.includes((token as FlightToken).flightId))
+      ids.push((token as FlightToken).flightId);
   });
   return ids;
 }

@@ -8,7 +8,11 @@ export class DuesPaymentRepository {
   constructor(private readonly db: Knex) {}
 
   /** Records a dues payment or refund row in the caller's transaction or connection. */
-  async insertPayment(db: Db, row: Partial<PaymentRow> & Pick<PaymentRow, 'membership_id' | 'plan_id' | 'status' | 'method' | 'amount_cents' | 'idempotency_key'>): Promise<PaymentRow> {
+  async insertPayment(
+    db: Db,
+    row: Partial<PaymentRow> &
+      Pick<PaymentRow, 'membership_id' | 'plan_id' | 'status' | 'method' | 'amount_cents' | 'idempotency_key'>,
+  ): Promise<PaymentRow> {
     const [created] = await db<PaymentRow>('membership_payments').insert(row).returning('*');
     return created;
   }
@@ -36,46 +40,78 @@ export class DuesPaymentRepository {
 
   /** The card payments (not refunds) of one membership for the term ending `termEnd`, oldest first. */
   cardPaymentsForTerm(membershipId: number, termEnd: string, db: Db = this.db): Promise<PaymentRow[]> {
-    return db<PaymentRow>('membership_payments').where({ membership_id: String(membershipId), term_end: termEnd, entry: 'payment', method: 'card' }).orderBy('id');
+    return db<PaymentRow>('membership_payments')
+      .where({ membership_id: String(membershipId), term_end: termEnd, entry: 'payment', method: 'card' })
+      .orderBy('id');
   }
 
   /** Every payment and refund of one membership, newest first, for the treasurer's record. */
   payments(membershipId: number, db: Db = this.db): Promise<PaymentRow[]> {
-    return db<PaymentRow>('membership_payments').where('membership_id', membershipId).orderBy([{ column: 'created_at', order: 'desc' }, { column: 'id', order: 'desc' }]);
+    return db<PaymentRow>('membership_payments')
+      .where('membership_id', membershipId)
+      .orderBy([
+        { column: 'created_at', order: 'desc' },
+        { column: 'id', order: 'desc' },
+      ]);
   }
 
   /** Money refunded against a payment (a positive number): settled refunds, plus claims still `requested`. */
-  async refundedCents(paymentId: number, db: Db = this.db, statuses: PaymentRow['status'][] = ['refunded', 'requested']): Promise<number> {
-    const [{ sum }] = await db('membership_payments').where({ refund_of: paymentId, entry: 'refund' }).whereIn('status', statuses).sum<{ sum: string | null }[]>({ sum: 'amount_cents' });
+  async refundedCents(
+    paymentId: number,
+    db: Db = this.db,
+    statuses: PaymentRow['status'][] = ['refunded', 'requested'],
+  ): Promise<number> {
+    const [{ sum }] = await db('membership_payments')
+      .where({ refund_of: paymentId, entry: 'refund' })
+      .whereIn('status', statuses)
+      .sum<{ sum: string | null }[]>({ sum: 'amount_cents' });
     return -Number(sum ?? 0);
   }
 
   /** The refund a client key (Idempotency-Key) already asked for on this membership. */
   refundByRequestKey(membershipId: number, key: string, db: Db = this.db): Promise<PaymentRow | undefined> {
-    return db<PaymentRow>('membership_payments').where({ membership_id: String(membershipId), request_key: key, entry: 'refund' }).first();
+    return db<PaymentRow>('membership_payments')
+      .where({ membership_id: String(membershipId), request_key: key, entry: 'refund' })
+      .first();
   }
 
   /** Refunds recorded against one payment, oldest first. */
   refundsOf(paymentId: number, db: Db = this.db): Promise<PaymentRow[]> {
-    return db<PaymentRow>('membership_payments').where({ refund_of: String(paymentId), entry: 'refund' }).orderBy('id');
+    return db<PaymentRow>('membership_payments')
+      .where({ refund_of: String(paymentId), entry: 'refund' })
+      .orderBy('id');
   }
 
   /** The paid card payment behind a processor charge. */
   paymentByCharge(chargeId: string, db: Db = this.db): Promise<PaymentRow | undefined> {
-    return db<PaymentRow>('membership_payments').where({ processor_charge_id: chargeId, entry: 'payment' }).whereIn('status', ['paid', 'refunded']).first();
+    return db<PaymentRow>('membership_payments')
+      .where({ processor_charge_id: chargeId, entry: 'payment' })
+      .whereIn('status', ['paid', 'refunded'])
+      .first();
   }
 
   /** Card refund claims still waiting for the processor's answer since before `before`. */
   staleRefundClaims(before: Date, db: Db = this.db): Promise<PaymentRow[]> {
-    return db<PaymentRow>('membership_payments').where({ entry: 'refund', status: 'requested' }).where('created_at', '<', before).orderBy('id').limit(100);
+    return db<PaymentRow>('membership_payments')
+      .where({ entry: 'refund', status: 'requested' })
+      .where('created_at', '<', before)
+      .orderBy('id')
+      .limit(100);
   }
 
   /** Net dues per calendar month (club time zone) and plan, over paid payments and refunds. */
-  collectedByMonth(timeZone: string, db: Db = this.db): Promise<{ month: string; plan_code: string; plan_name: string; cents: string; payments: string }[]> {
+  collectedByMonth(
+    timeZone: string,
+    db: Db = this.db,
+  ): Promise<{ month: string; plan_code: string; plan_name: string; cents: string; payments: string }[]> {
     return db('membership_payments as pay')
       .join('membership_plans as p', 'p.id', 'pay.plan_id')
       .whereIn('pay.status', ['paid', 'refunded'])
-      .select(db.raw("to_char(pay.created_at AT TIME ZONE ?, 'YYYY-MM') as month", [timeZone]), 'p.code as plan_code', 'p.name as plan_name')
+      .select(
+        db.raw("to_char(pay.created_at AT TIME ZONE ?, 'YYYY-MM') as month", [timeZone]),
+        'p.code as plan_code',
+        'p.name as plan_name',
+      )
       .sum({ cents: 'pay.amount_cents' })
       .select(db.raw("count(*) FILTER (WHERE pay.entry = 'payment') as payments"))
       .groupByRaw('1, p.code, p.name')

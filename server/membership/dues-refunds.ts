@@ -56,12 +56,23 @@ export class DuesRefunds {
         if (earlier) return { replay: earlier };
       }
       const payment = await this.paymentRepo.lockPayment(trx, input.paymentId);
-      if (!payment || Number(payment.membership_id) !== memberId || payment.entry !== 'payment') throw badRequest('Choose a payment of this member.', { paymentId: 'Choose a payment of this member.' });
-      if (payment.status !== 'paid' && payment.status !== 'refunded') throw badRequest('Only a paid payment can be refunded.', { paymentId: 'This payment was not paid.' });
-      if (input.amountCents < 1 || input.amountCents > payment.amount_cents) throw badRequest('The refund is more than the payment.', { amountCents: `At most ${payment.amount_cents} cents can be refunded.` });
+      if (!payment || Number(payment.membership_id) !== memberId || payment.entry !== 'payment')
+        throw badRequest('Choose a payment of this member.', { paymentId: 'Choose a payment of this member.' });
+      if (payment.status !== 'paid' && payment.status !== 'refunded')
+        throw badRequest('Only a paid payment can be refunded.', { paymentId: 'This payment was not paid.' });
+      if (input.amountCents < 1 || input.amountCents > payment.amount_cents)
+        throw badRequest('The refund is more than the payment.', {
+          amountCents: `At most ${payment.amount_cents} cents can be refunded.`,
+        });
       const left = payment.amount_cents - (await this.paymentRepo.refundedCents(Number(payment.id), trx));
-      if (input.amountCents > left) throw conflict('over_refund', 'The refund is more than what is left of the payment.', { amountCents: left ? `At most ${left} cents are left to refund.` : 'This payment is already refunded.' });
-      if (payment.method === 'card' && !payment.processor_charge_id) throw badRequest('This card payment has no processor charge to refund.', { paymentId: 'No processor charge on record.' });
+      if (input.amountCents > left)
+        throw conflict('over_refund', 'The refund is more than what is left of the payment.', {
+          amountCents: left ? `At most ${left} cents are left to refund.` : 'This payment is already refunded.',
+        });
+      if (payment.method === 'card' && !payment.processor_charge_id)
+        throw badRequest('This card payment has no processor charge to refund.', {
+          paymentId: 'No processor charge on record.',
+        });
       const refund = await this.paymentRepo.insertPayment(trx, {
         membership_id: m.id,
         plan_id: payment.plan_id,
@@ -91,8 +102,15 @@ export class DuesRefunds {
         await this.settle(Number(r.id), null, err.message);
         throw conflict('processor_refused', `The card processor refused the refund: ${err.message}`);
       }
-      this.log.warn({ memberId, refundId: r.id, message: (err as Error).message }, 'dues refund outcome unknown; claim left requested');
-      throw new AppError(502, 'processor_unreachable', 'The card processor did not answer. The refund is held and will be settled from the processor shortly; do not refund it again.');
+      this.log.warn(
+        { memberId, refundId: r.id, message: (err as Error).message },
+        'dues refund outcome unknown; claim left requested',
+      );
+      throw new AppError(
+        502,
+        'processor_unreachable',
+        'The card processor did not answer. The refund is held and will be settled from the processor shortly; do not refund it again.',
+      );
     }
     await this.settle(Number(r.id), processorRefund.id, null);
   }
@@ -101,7 +119,9 @@ export class DuesRefunds {
   async syncCharge(chargeId: string): Promise<boolean> {
     const found = await this.paymentRepo.paymentByCharge(chargeId);
     if (!found) return false;
-    const held = (await this.gateway.refundsOf(chargeId)).filter((r) => r.status === 'succeeded' || r.status === 'pending');
+    const held = (await this.gateway.refundsOf(chargeId)).filter(
+      (r) => r.status === 'succeeded' || r.status === 'pending',
+    );
     await this.db.transaction(async (trx) => {
       const m = (await this.repo.lockById(trx, Number(found.membership_id)))!;
       const payment = (await this.paymentRepo.lockPayment(trx, Number(found.id)))!;
@@ -113,7 +133,8 @@ export class DuesRefunds {
           if (claim.status !== 'refunded') await this.recordSucceeded(trx, m, payment, claim, pr.id);
           continue;
         }
-        const left = payment.amount_cents - (await this.paymentRepo.refundedCents(Number(payment.id), trx, ['refunded']));
+        const left =
+          payment.amount_cents - (await this.paymentRepo.refundedCents(Number(payment.id), trx, ['refunded']));
         const amount = Math.min(pr.amount, left);
         if (amount < 1) continue;
         const refund = await this.paymentRepo.insertPayment(trx, {
@@ -140,16 +161,28 @@ export class DuesRefunds {
   async settleStaleClaims(): Promise<number> {
     const stale = await this.paymentRepo.staleRefundClaims(new Date(this.clock.now().getTime() - STALE_CLAIM_MS));
     for (const claim of stale) {
-      const found = (await this.gateway.refundsOf(claim.processor_charge_id!)).find((pr) => pr.metadata?.padsideRefundKey === claim.idempotency_key);
-      await this.settle(Number(claim.id), found?.id ?? null, found ? null : 'No refund reached the processor; the claim was released.');
+      const found = (await this.gateway.refundsOf(claim.processor_charge_id!)).find(
+        (pr) => pr.metadata?.padsideRefundKey === claim.idempotency_key,
+      );
+      await this.settle(
+        Number(claim.id),
+        found?.id ?? null,
+        found ? null : 'No refund reached the processor; the claim was released.',
+      );
     }
     return stale.length;
   }
 
   private answerReplay(earlier: PaymentRow, input: DuesRefundRequest): void {
-    if (Number(earlier.refund_of) !== input.paymentId || -earlier.amount_cents !== input.amountCents) throw conflict('request_key_reused', 'That Idempotency-Key was used for a different refund.');
-    if (earlier.status === 'requested') throw conflict('refund_in_progress', 'This refund is already under way; reload the member in a moment.');
-    if (earlier.status === 'failed') throw conflict('processor_refused', `The card processor refused the refund: ${earlier.failure_message ?? 'no reason given'}`);
+    if (Number(earlier.refund_of) !== input.paymentId || -earlier.amount_cents !== input.amountCents)
+      throw conflict('request_key_reused', 'That Idempotency-Key was used for a different refund.');
+    if (earlier.status === 'requested')
+      throw conflict('refund_in_progress', 'This refund is already under way; reload the member in a moment.');
+    if (earlier.status === 'failed')
+      throw conflict(
+        'processor_refused',
+        `The card processor refused the refund: ${earlier.failure_message ?? 'no reason given'}`,
+      );
   }
 
   /** The outcome of a card claim, under the member's lock: refunded (with its processor id) or failed. */
@@ -160,7 +193,10 @@ export class DuesRefunds {
       const fresh = (await this.paymentRepo.lockPayment(trx, refundId))!;
       if (fresh.status !== 'requested') return;
       if (!processorRefundId) {
-        await this.paymentRepo.updatePayment(trx, refundId, { status: 'failed', failure_message: (failure ?? 'refused').slice(0, 400) });
+        await this.paymentRepo.updatePayment(trx, refundId, {
+          status: 'failed',
+          failure_message: (failure ?? 'refused').slice(0, 400),
+        });
         return;
       }
       const payment = (await this.paymentRepo.lockPayment(trx, Number(fresh.refund_of)))!;
@@ -168,8 +204,18 @@ export class DuesRefunds {
     });
   }
 
-  private async recordSucceeded(trx: Knex.Transaction, m: MembershipRow, payment: PaymentRow, claim: PaymentRow, processorRefundId: string): Promise<void> {
-    const refund = await this.paymentRepo.updatePayment(trx, Number(claim.id), { status: 'refunded', processor_refund_id: processorRefundId, failure_message: null });
+  private async recordSucceeded(
+    trx: Knex.Transaction,
+    m: MembershipRow,
+    payment: PaymentRow,
+    claim: PaymentRow,
+    processorRefundId: string,
+  ): Promise<void> {
+    const refund = await this.paymentRepo.updatePayment(trx, Number(claim.id), {
+      status: 'refunded',
+      processor_refund_id: processorRefundId,
+      failure_message: null,
+    });
     await this.book(trx, m, payment, refund, claim.recorded_by ? Number(claim.recorded_by) : null, claim.note ?? '');
   }
 
@@ -178,7 +224,14 @@ export class DuesRefunds {
    * left, the term taken back when the payment that bought the current term is refunded in full, the negative
    * money movement, the receipt and the audit line.
    */
-  private async book(trx: Knex.Transaction, m: MembershipRow, payment: PaymentRow, refund: PaymentRow, actorId: number | null, reason: string): Promise<void> {
+  private async book(
+    trx: Knex.Transaction,
+    m: MembershipRow,
+    payment: PaymentRow,
+    refund: PaymentRow,
+    actorId: number | null,
+    reason: string,
+  ): Promise<void> {
     const policy = termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS, trx));
     const today = this.calendar.today();
     const amountCents = -refund.amount_cents;
@@ -187,7 +240,10 @@ export class DuesRefunds {
     let termEnd = dateOnly(m.term_end);
     if (full && dateOnly(payment.term_end) === termEnd) {
       termEnd = dateOnly(payment.previous_term_end);
-      const reverted = await this.repo.update(trx, Number(m.id), { term_end: termEnd, term_start: termEnd ? m.term_start : null });
+      const reverted = await this.repo.update(trx, Number(m.id), {
+        term_end: termEnd,
+        term_start: termEnd ? m.term_start : null,
+      });
       await this.settlement.refreshStatus(trx, reverted, today, policy, actorId);
     }
     await recordMovement(trx, {
@@ -201,7 +257,21 @@ export class DuesRefunds {
       method: payment.method,
       idempotencyKey: `dues:${refund.idempotency_key}`,
     });
-    await enqueueEmail(trx, refundMail(await this.settlement.mailContext(trx, m), { refundId: Number(refund.id), amountCents, method: payment.method, termEnd }));
-    await this.repo.addAudit(trx, Number(m.id), actorId, 'refunded', { paymentId: Number(payment.id), amountCents, reason, termEnd, origin: actorId === null && refund.processor_refund_id ? 'processor' : 'staff' });
+    await enqueueEmail(
+      trx,
+      refundMail(await this.settlement.mailContext(trx, m), {
+        refundId: Number(refund.id),
+        amountCents,
+        method: payment.method,
+        termEnd,
+      }),
+    );
+    await this.repo.addAudit(trx, Number(m.id), actorId, 'refunded', {
+      paymentId: Number(payment.id),
+      amountCents,
+      reason,
+      termEnd,
+      origin: actorId === null && refund.processor_refund_id ? 'processor' : 'staff',
+    });
   }
 }

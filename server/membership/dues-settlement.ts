@@ -31,7 +31,13 @@ export class DuesSettlement {
   async mailContext(db: Knex | Knex.Transaction, m: MembershipRow): Promise<MemberMailContext> {
     const user = await this.users.byId(Number(m.user_id), db);
     const plan = await this.planRepo.plan(Number(m.plan_id), db);
-    return { to: user!.email, name: m.legal_name, memberNumber: m.member_number, planName: plan?.name ?? 'club', publicUrl: this.publicUrl };
+    return {
+      to: user!.email,
+      name: m.legal_name,
+      memberNumber: m.member_number,
+      planName: plan?.name ?? 'club',
+      publicUrl: this.publicUrl,
+    };
   }
 
   /** Marks a payment paid and applies its term; returns the updated membership. */
@@ -40,7 +46,14 @@ export class DuesSettlement {
     m: MembershipRow,
     payment: PaymentRow,
     term: Term,
-    opts: { today: string; policy: TermPolicy; actorUserId: number | null; feeCents?: number; chargeId?: string | null; at: Date },
+    opts: {
+      today: string;
+      policy: TermPolicy;
+      actorUserId: number | null;
+      feeCents?: number;
+      chargeId?: string | null;
+      at: Date;
+    },
   ): Promise<MembershipRow> {
     const paid = await this.paymentRepo.updatePayment(trx, Number(payment.id), {
       status: 'paid',
@@ -72,7 +85,17 @@ export class DuesSettlement {
       method: payment.method,
       idempotencyKey: `dues:${payment.idempotency_key}`,
     });
-    await enqueueEmail(trx, receiptMail(ctx, { paymentId: Number(paid.id), amountCents: paid.amount_cents, method: paid.method, receiptNumber: paid.receipt_number, termStart: term.start, termEnd: term.end }));
+    await enqueueEmail(
+      trx,
+      receiptMail(ctx, {
+        paymentId: Number(paid.id),
+        amountCents: paid.amount_cents,
+        method: paid.method,
+        receiptNumber: paid.receipt_number,
+        termStart: term.start,
+        termEnd: term.end,
+      }),
+    );
     await this.repo.addAudit(trx, Number(m.id), opts.actorUserId, 'term_paid', {
       paymentId: Number(paid.id),
       method: paid.method,
@@ -88,14 +111,23 @@ export class DuesSettlement {
    * Stores the status the dates give on `today` and moves the role with it. Only the caller whose conditional
    * update wins writes the audit and the lapse e-mail, so two processes running this at once act once.
    */
-  async refreshStatus(trx: Knex.Transaction, m: MembershipRow, today: string, policy: TermPolicy, actorUserId: number | null = null): Promise<MembershipStatus> {
+  async refreshStatus(
+    trx: Knex.Transaction,
+    m: MembershipRow,
+    today: string,
+    policy: TermPolicy,
+    actorUserId: number | null = null,
+  ): Promise<MembershipStatus> {
     const next = statusOn(today, dateOnly(m.term_end), policy, m.renewal_failed_at !== null);
     if (next === m.status) return next;
     if (!(await this.repo.moveStatus(trx, Number(m.id), m.status, next))) return next;
     await this.users.setRole(trx, Number(m.user_id), 'member', isInGoodStanding(next));
     await this.repo.addAudit(trx, Number(m.id), actorUserId, 'status_changed', { from: m.status, to: next, on: today });
     if (next === 'lapsed' && m.renewal_failed_at === null && m.term_end) {
-      await enqueueEmail(trx, lapsedMail({ ...(await this.mailContext(trx, m)), membershipId: Number(m.id) }, dateOnly(m.term_end)!));
+      await enqueueEmail(
+        trx,
+        lapsedMail({ ...(await this.mailContext(trx, m)), membershipId: Number(m.id) }, dateOnly(m.term_end)!),
+      );
     }
     return next;
   }

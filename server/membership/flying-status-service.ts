@@ -30,10 +30,14 @@ export interface VerificationView {
 }
 
 /** The verifications on a record, with the staff names. */
-export async function verificationsView(repo: MembershipRepository, m: MembershipRow): Promise<Record<VerifiedPart, VerificationView | null>> {
+export async function verificationsView(
+  repo: MembershipRepository,
+  m: MembershipRow,
+): Promise<Record<VerifiedPart, VerificationView | null>> {
   const [a, c] = [associationVerification(m), certificationVerification(m)];
   const names = await repo.userNames([a?.byUserId ?? null, c?.byUserId ?? null]);
-  const view = (v: Verification | null) => (v ? { at: v.at, by: v.byUserId ? (names.get(v.byUserId) ?? null) : null, against: v.against } : null);
+  const view = (v: Verification | null) =>
+    v ? { at: v.at, by: v.byUserId ? (names.get(v.byUserId) ?? null) : null, against: v.against } : null;
   return { association: view(a), certification: view(c) };
 }
 
@@ -58,19 +62,44 @@ export class FlyingStatusService {
     await this.db.transaction(async (trx) => {
       const m = await this.repo.lockById(trx, id);
       if (!m) throw notFound('No such member.');
-      const changed = () => conflict('record_changed', 'The record changed since you loaded it; reload the page and check again.', { what: 'The record changed since you loaded it.' });
+      const changed = () =>
+        conflict('record_changed', 'The record changed since you loaded it; reload the page and check again.', {
+          what: 'The record changed since you loaded it.',
+        });
       if (input.what === 'association') {
         const expires = dateOnly(m.association_expires);
-        if (!m.association_number || !expires) throw badRequest('There is no association membership on file to verify.', { what: 'No association number and expiry on file.' });
-        if (expires < today) throw badRequest('The association membership on file has expired; enter the renewed expiry first.', { what: `Expired on ${expires}.` });
+        if (!m.association_number || !expires)
+          throw badRequest('There is no association membership on file to verify.', {
+            what: 'No association number and expiry on file.',
+          });
+        if (expires < today)
+          throw badRequest('The association membership on file has expired; enter the renewed expiry first.', {
+            what: `Expired on ${expires}.`,
+          });
         if (input.associationNumber !== m.association_number || input.associationExpires !== expires) throw changed();
-        await this.repo.update(trx, id, { association_verified_at: this.clock.now(), association_verified_by: String(actorId), association_verified_against: input.against });
-        await this.repo.addAudit(trx, id, actorId, 'association_verified', { number: m.association_number, expires, against: input.against });
+        await this.repo.update(trx, id, {
+          association_verified_at: this.clock.now(),
+          association_verified_by: String(actorId),
+          association_verified_against: input.against,
+        });
+        await this.repo.addAudit(trx, id, actorId, 'association_verified', {
+          number: m.association_number,
+          expires,
+          against: input.against,
+        });
       } else {
-        if (m.certification_level === 'none') throw badRequest('There is no certification on file to verify.', { what: 'No certification level on file.' });
+        if (m.certification_level === 'none')
+          throw badRequest('There is no certification on file to verify.', { what: 'No certification level on file.' });
         if (input.certificationLevel !== m.certification_level) throw changed();
-        await this.repo.update(trx, id, { certification_verified_at: this.clock.now(), certification_verified_by: String(actorId), certification_verified_against: input.against });
-        await this.repo.addAudit(trx, id, actorId, 'certification_verified', { level: m.certification_level, against: input.against });
+        await this.repo.update(trx, id, {
+          certification_verified_at: this.clock.now(),
+          certification_verified_by: String(actorId),
+          certification_verified_against: input.against,
+        });
+        await this.repo.addAudit(trx, id, actorId, 'certification_verified', {
+          level: m.certification_level,
+          against: input.against,
+        });
       }
     });
   }
@@ -80,7 +109,10 @@ export class FlyingStatusService {
     await this.db.transaction(async (trx) => {
       const m = await this.repo.lockById(trx, id);
       if (!m) throw notFound('No such member.');
-      const cleared = what === 'association' ? { association_verified_at: null, association_verified_by: null, association_verified_against: null } : { certification_verified_at: null, certification_verified_by: null, certification_verified_against: null };
+      const cleared =
+        what === 'association'
+          ? { association_verified_at: null, association_verified_by: null, association_verified_against: null }
+          : { certification_verified_at: null, certification_verified_by: null, certification_verified_against: null };
       await this.repo.update(trx, id, cleared);
       await this.repo.addAudit(trx, id, actorId, `${what}_verification_withdrawn`, {});
     });
@@ -90,7 +122,17 @@ export class FlyingStatusService {
   async checkIn(token: string) {
     const verified = this.tokens.verify(token);
     const m = verified ? await this.repo.byNumber(verified.memberNumber) : undefined;
-    if (!m || m.status === 'pending') return { status: 'unknown' as const, memberNumber: null, name: null, mayFly: false, termEnd: null, dues: null, association: null, certification: null };
+    if (!m || m.status === 'pending')
+      return {
+        status: 'unknown' as const,
+        memberNumber: null,
+        name: null,
+        mayFly: false,
+        termEnd: null,
+        dues: null,
+        association: null,
+        certification: null,
+      };
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const today = this.today();
     const status = liveStatus(m, today, termPolicy(s));
@@ -105,8 +147,18 @@ export class FlyingStatusService {
       termEnd: verdict.dues.termEnd,
       associationName: s.associationName,
       dues: { answer: verdict.dues.answer, termEnd: verdict.dues.termEnd },
-      association: { answer: verdict.association.answer, number: verdict.association.number, expires: verdict.association.expires, verified: checks.association },
-      certification: { answer: verdict.certification.answer, level: verdict.certification.level, label, verified: checks.certification },
+      association: {
+        answer: verdict.association.answer,
+        number: verdict.association.number,
+        expires: verdict.association.expires,
+        verified: checks.association,
+      },
+      certification: {
+        answer: verdict.certification.answer,
+        level: verdict.certification.level,
+        label,
+        verified: checks.certification,
+      },
     };
   }
 }

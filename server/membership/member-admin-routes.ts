@@ -26,7 +26,11 @@ const PlanFields = z.object({
 });
 
 const NewPlanSchema = PlanFields.extend({
-  code: z.string().trim().toLowerCase().regex(/^[a-z0-9-]{2,32}$/, 'Use 2-32 lower-case letters, digits or dashes.'),
+  code: z
+    .string()
+    .trim()
+    .toLowerCase()
+    .regex(/^[a-z0-9-]{2,32}$/, 'Use 2-32 lower-case letters, digits or dashes.'),
   eligibility: z.enum(['any', 'junior', 'family']).default('any'),
   description: PlanFields.shape.description.default(''),
   joiningFeeCents: fields.cents.default(0),
@@ -47,32 +51,58 @@ const MemberEditSchema = z.object({
 const ManualPaymentSchema = z.object({
   amountCents: fields.cents.refine((v) => v > 0, 'Enter the amount received.'),
   method: z.enum(['cash', 'e-transfer', 'cheque'], { error: 'Choose cash, e-transfer or cheque.' }),
-  receiptNumber: z.string({ error: 'Receipt number is required.' }).trim().min(1, 'Receipt number is required.').max(40),
+  receiptNumber: z
+    .string({ error: 'Receipt number is required.' })
+    .trim()
+    .min(1, 'Receipt number is required.')
+    .max(40),
   note: z.string().trim().max(400).optional(),
 });
 
-const RefundSchema = z.object({ paymentId: fields.id, amountCents: fields.cents, reason: z.string({ error: 'Give a reason.' }).trim().min(1, 'Give a reason.').max(400) });
+const RefundSchema = z.object({
+  paymentId: fields.id,
+  amountCents: fields.cents,
+  reason: z.string({ error: 'Give a reason.' }).trim().min(1, 'Give a reason.').max(400),
+});
 
 // The client's key for one refund: a retry with the same Idempotency-Key gets the first answer, never a second refund.
-const IdempotencyKeySchema = z.object({ key: z.string().trim().regex(/^[A-Za-z0-9_.:-]{8,120}$/, 'Use 8-120 letters, digits, dashes, dots, colons or underscores.').optional() });
+const IdempotencyKeySchema = z.object({
+  key: z
+    .string()
+    .trim()
+    .regex(/^[A-Za-z0-9_.:-]{8,120}$/, 'Use 8-120 letters, digits, dashes, dots, colons or underscores.')
+    .optional(),
+});
 
-const CheckInSchema = z.object({ token: z.string({ error: 'Paste or scan a card code.' }).trim().min(1, 'Paste or scan a card code.').max(500) });
+const CheckInSchema = z.object({
+  token: z.string({ error: 'Paste or scan a card code.' }).trim().min(1, 'Paste or scan a card code.').max(500),
+});
 
 const IdParams = z.object({ id: fields.id });
 
-const Part = z.enum(['association', 'certification'], { error: 'Choose the association membership or the certification.' });
+const Part = z.enum(['association', 'certification'], {
+  error: 'Choose the association membership or the certification.',
+});
 
 // The values staff saw come along, so a value the member changed meanwhile is not marked verified unseen.
 const VerifySchema = z.strictObject({
   what: Part,
-  against: z.string({ error: 'Say what you checked it against.' }).trim().min(3, 'Say what you checked it against (for example: association card, seen at the field).').max(200, 'Use at most 200 characters.'),
+  against: z
+    .string({ error: 'Say what you checked it against.' })
+    .trim()
+    .min(3, 'Say what you checked it against (for example: association card, seen at the field).')
+    .max(200, 'Use at most 200 characters.'),
   associationNumber: z.string().trim().max(40).nullish(),
   associationExpires: fields.date.nullish(),
   certificationLevel: z.string().trim().max(16).optional(),
 });
 
 /** The treasurer's console: roster, member records, payments, refunds, summary, roster e-mail, plans, settings. */
-export function memberAdminRoutes(service: MemberAdminService, refunds: DuesRefunds, flying: FlyingStatusService): Router {
+export function memberAdminRoutes(
+  service: MemberAdminService,
+  refunds: DuesRefunds,
+  flying: FlyingStatusService,
+): Router {
   const r = Router();
   r.use(requireRole('treasurer', 'admin'));
   r.get('/', async function listRoster(req, res) {
@@ -82,7 +112,10 @@ export function memberAdminRoutes(service: MemberAdminService, refunds: DuesRefu
   r.get('/export.csv', async function exportRoster(req, res) {
     const { query } = rosterQuery(req.query);
     const csv = await service.exportCsv(query);
-    res.set('Content-Type', 'text/csv; charset=utf-8').set('Content-Disposition', 'attachment; filename="padside-roster.csv"').send(csv);
+    res
+      .set('Content-Type', 'text/csv; charset=utf-8')
+      .set('Content-Disposition', 'attachment; filename="padside-roster.csv"')
+      .send(csv);
   });
   r.get('/summary', async function showSummary(_req, res) {
     res.json(await service.summary());

@@ -73,8 +73,34 @@ export class MemberAdminService {
     const [policy, today] = [await this.policy(), this.today()];
     const rows = (await this.rosterRepo.rosterAll(q, await this.asOf())).map((r) => rosterView(r, today, policy));
     return toCsv(
-      ['Member number', 'Name', 'E-mail', 'Plan', 'Status', 'Term end', 'Certification', 'Certification checked', 'Association number', 'Association expires', 'Association checked', 'Auto-renew'],
-      rows.map((r) => [r.memberNumber, r.name, r.email, r.planName, labelOf(MEMBERSHIP_STATUS_LABELS, r.status), r.termEnd, r.certificationLevel, yesNo(r.certificationVerified), r.associationNumber, r.associationExpires, yesNo(r.associationVerified), yesNo(r.autoRenew)]),
+      [
+        'Member number',
+        'Name',
+        'E-mail',
+        'Plan',
+        'Status',
+        'Term end',
+        'Certification',
+        'Certification checked',
+        'Association number',
+        'Association expires',
+        'Association checked',
+        'Auto-renew',
+      ],
+      rows.map((r) => [
+        r.memberNumber,
+        r.name,
+        r.email,
+        r.planName,
+        labelOf(MEMBERSHIP_STATUS_LABELS, r.status),
+        r.termEnd,
+        r.certificationLevel,
+        yesNo(r.certificationVerified),
+        r.associationNumber,
+        r.associationExpires,
+        yesNo(r.associationVerified),
+        yesNo(r.autoRenew),
+      ]),
     );
   }
 
@@ -83,32 +109,61 @@ export class MemberAdminService {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const m = await this.repo.byId(id);
     if (!m) throw notFound('No such member.');
-    const [plan, family, payments, audit] = [await this.planRepo.plan(Number(m.plan_id)), await this.repo.family(id), await this.paymentRepo.payments(id), await this.repo.audit(id)];
+    const [plan, family, payments, audit] = [
+      await this.planRepo.plan(Number(m.plan_id)),
+      await this.repo.family(id),
+      await this.paymentRepo.payments(id),
+      await this.repo.audit(id),
+    ];
     const user = await this.db('users').where('id', m.user_id).first('email', 'marketing_opt_out');
     return {
-      member: { ...membershipView(m, plan, this.today(), termPolicy(s), s), email: user?.email ?? null, mailOptOut: user?.marketing_opt_out ?? false },
+      member: {
+        ...membershipView(m, plan, this.today(), termPolicy(s), s),
+        email: user?.email ?? null,
+        mailOptOut: user?.marketing_opt_out ?? false,
+      },
       verifications: await verificationsView(this.repo, m),
       familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: dateOnly(f.date_of_birth) })),
       payments: payments.map(paymentView),
-      audit: audit.map((a) => ({ id: Number(a.id), action: a.action, detail: a.detail, actor: a.actor_name, at: a.created_at })),
+      audit: audit.map((a) => ({
+        id: Number(a.id),
+        action: a.action,
+        detail: a.detail,
+        actor: a.actor_name,
+        at: a.created_at,
+      })),
     };
   }
 
   /** Staff correction of the record; every change lands in the audit with before and after. */
   async update(actorId: number, id: number, patch: MemberPatch) {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
-    if (patch.certificationLevel !== undefined && !s.certificationLevels.some((l) => l.code === patch.certificationLevel)) {
-      throw badRequest('Choose a certification level from the list.', { certificationLevel: 'Choose a level from the list.' });
+    if (
+      patch.certificationLevel !== undefined &&
+      !s.certificationLevels.some((l) => l.code === patch.certificationLevel)
+    ) {
+      throw badRequest('Choose a certification level from the list.', {
+        certificationLevel: 'Choose a level from the list.',
+      });
     }
     await this.db.transaction(async (trx) => {
       const m = await this.repo.lockById(trx, id);
       if (!m) throw notFound('No such member.');
-      const map = { associationNumber: 'association_number', associationExpires: 'association_expires', certificationLevel: 'certification_level', certificationDate: 'certification_date', address: 'address', phone: 'phone', emergencyContact: 'emergency_contact' } as const;
+      const map = {
+        associationNumber: 'association_number',
+        associationExpires: 'association_expires',
+        certificationLevel: 'certification_level',
+        certificationDate: 'certification_date',
+        address: 'address',
+        phone: 'phone',
+        emergencyContact: 'emergency_contact',
+      } as const;
       const row: Record<string, unknown> = {};
       const changes: Record<string, { from: unknown; to: unknown }> = {};
       for (const [key, column] of Object.entries(map) as [keyof MemberPatch, (typeof map)[keyof MemberPatch]][]) {
         if (patch[key] === undefined) continue;
-        const before = column.endsWith('expires') || column.endsWith('date') ? dateOnly(m[column] as Date | null) : m[column];
+        const before =
+          column.endsWith('expires') || column.endsWith('date') ? dateOnly(m[column] as Date | null) : m[column];
         if (before === patch[key]) continue;
         row[column] = patch[key];
         changes[key] = { from: before, to: patch[key] };
@@ -117,20 +172,31 @@ export class MemberAdminService {
       // A corrected value is no longer the one staff checked: it needs checking again.
       const full = withVoidedVerifications(m, row);
       await this.repo.update(trx, id, full);
-      await this.repo.addAudit(trx, id, actorId, 'record_edited', { ...changes, ...('association_verified_at' in full ? { associationVerification: 'voided' } : {}), ...('certification_verified_at' in full ? { certificationVerification: 'voided' } : {}) });
+      await this.repo.addAudit(trx, id, actorId, 'record_edited', {
+        ...changes,
+        ...('association_verified_at' in full ? { associationVerification: 'voided' } : {}),
+        ...('certification_verified_at' in full ? { certificationVerification: 'voided' } : {}),
+      });
     });
     return this.detail(id);
   }
 
   /** Cash at the field, e-transfer or cheque: renews one term like a card payment, with the receipt number given. */
-  async manualPayment(actorId: number, id: number, input: { amountCents: number; method: 'cash' | 'e-transfer' | 'cheque'; receiptNumber: string; note?: string }) {
+  async manualPayment(
+    actorId: number,
+    id: number,
+    input: { amountCents: number; method: 'cash' | 'e-transfer' | 'cheque'; receiptNumber: string; note?: string },
+  ) {
     const policy = await this.policy();
     const today = this.today();
     await this.db.transaction(async (trx) => {
       const m = await this.repo.lockById(trx, id);
       if (!m) throw notFound('No such member.');
       const key = `manual:${m.id}:${input.receiptNumber.toLowerCase()}`;
-      if (await this.paymentRepo.paymentByKey(key, trx)) throw conflict('duplicate_receipt', 'That receipt number is already recorded for this member.', { receiptNumber: 'Already recorded for this member.' });
+      if (await this.paymentRepo.paymentByKey(key, trx))
+        throw conflict('duplicate_receipt', 'That receipt number is already recorded for this member.', {
+          receiptNumber: 'Already recorded for this member.',
+        });
       const term = termForPayment(today, dateOnly(m.term_end), policy);
       const payment = await this.paymentRepo.insertPayment(trx, {
         membership_id: m.id,
@@ -144,7 +210,12 @@ export class MemberAdminService {
         recorded_by: String(actorId),
         created_at: this.clock.now(),
       });
-      await this.settlement.settle(trx, m, payment, term, { today, policy, actorUserId: actorId, at: this.clock.now() });
+      await this.settlement.settle(trx, m, payment, term, {
+        today,
+        policy,
+        actorUserId: actorId,
+        at: this.clock.now(),
+      });
     });
     return this.detail(id);
   }
@@ -156,7 +227,13 @@ export class MemberAdminService {
     const counts = { pending: 0, active: 0, lapsing: 0, lapsed: 0 };
     for (const r of byStatus) counts[r.status] = Number(r.count);
     return {
-      collected: collected.map((r) => ({ month: r.month, planCode: r.plan_code, planName: r.plan_name, cents: Number(r.cents), payments: Number(r.payments) })),
+      collected: collected.map((r) => ({
+        month: r.month,
+        planCode: r.plan_code,
+        planName: r.plan_name,
+        cents: Number(r.cents),
+        payments: Number(r.payments),
+      })),
       byStatus: counts,
     };
   }
@@ -172,14 +249,28 @@ export class MemberAdminService {
    * list for club news are skipped, and each message carries the sender's address and the one-click stop link.
    * `club-business` (dues, launches they replied to) is transactional: it goes to everyone matched and says why.
    */
-  async emailRoster(q: RosterQuery, mail: { subject: string; text: string }, purpose: 'news' | 'club-business' = 'news') {
+  async emailRoster(
+    q: RosterQuery,
+    mail: { subject: string; text: string },
+    purpose: 'news' | 'club-business' = 'news',
+  ) {
     const rows = await this.rosterRepo.rosterAll(q, await this.asOf());
     const batch = randomUUID();
     if (purpose === 'club-business') {
       let queued = 0;
       await this.db.transaction(async (trx) => {
         for (const r of rows) {
-          if (await enqueueEmail(trx, { to: r.email, subject: mail.subject, text: `Hello ${r.legal_name},\n\n${mail.text}`, template: 'membership-roster-business', reason: { club: this.clubName }, dedupeKey: `membership-business:${batch}:${r.id}` })) queued++;
+          if (
+            await enqueueEmail(trx, {
+              to: r.email,
+              subject: mail.subject,
+              text: `Hello ${r.legal_name},\n\n${mail.text}`,
+              template: 'membership-roster-business',
+              reason: { club: this.clubName },
+              dedupeKey: `membership-business:${batch}:${r.id}`,
+            })
+          )
+            queued++;
         }
       });
       return { queued, skippedOptedOut: 0, skippedLapsedConsent: 0, skippedSuppressed: 0 };
@@ -190,14 +281,29 @@ export class MemberAdminService {
     const lapsed = rows.filter((r) => !r.marketing_opt_out && !consentHolds(dateOnly(r.term_end)));
     const to = rows
       .filter((r) => !optedOut.includes(r) && !lapsed.includes(r))
-      .map((r) => ({ email: r.email, why: `you are or were a member of ${this.clubName}`, id: r.id, name: r.legal_name }));
+      .map((r) => ({
+        email: r.email,
+        why: `you are or were a member of ${this.clubName}`,
+        id: r.id,
+        name: r.legal_name,
+      }));
     const { queued, suppressed } = await this.db.transaction((trx) =>
       this.mailer.queue(trx, 'club-news', to, (a) => ({
-        content: { topic: 'club-news', subject: mail.subject, markdown: `Hello ${a.name},\n\n${mail.text}`, template: 'membership-roster-news' },
+        content: {
+          topic: 'club-news',
+          subject: mail.subject,
+          markdown: `Hello ${a.name},\n\n${mail.text}`,
+          template: 'membership-roster-news',
+        },
         dedupeKey: `membership-news:${batch}:${a.id}`,
       })),
     );
-    return { queued, skippedOptedOut: optedOut.length, skippedLapsedConsent: lapsed.length, skippedSuppressed: suppressed };
+    return {
+      queued,
+      skippedOptedOut: optedOut.length,
+      skippedLapsedConsent: lapsed.length,
+      skippedSuppressed: suppressed,
+    };
   }
 
   /** Every plan, retired ones too, as the treasurer edits them. */
@@ -206,11 +312,30 @@ export class MemberAdminService {
   }
 
   /** Plans are never deleted: payments and members point at them, so staff switch one off instead. */
-  async createPlan(input: { code: string; name: string; description: string; eligibility: PlanRow['eligibility']; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }) {
-    const taken = () => conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
+  async createPlan(input: {
+    code: string;
+    name: string;
+    description: string;
+    eligibility: PlanRow['eligibility'];
+    duesCents: number;
+    joiningFeeCents: number;
+    active: boolean;
+    sortOrder: number;
+  }) {
+    const taken = () =>
+      conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
     if ((await this.planRepo.allPlans()).some((p) => p.code === input.code)) throw taken();
     try {
-      const row = await this.planRepo.insertPlan(this.db, { code: input.code, name: input.name, description: input.description, eligibility: input.eligibility, dues_cents: input.duesCents, joining_fee_cents: input.joiningFeeCents, active: input.active, sort_order: input.sortOrder });
+      const row = await this.planRepo.insertPlan(this.db, {
+        code: input.code,
+        name: input.name,
+        description: input.description,
+        eligibility: input.eligibility,
+        dues_cents: input.duesCents,
+        joining_fee_cents: input.joiningFeeCents,
+        active: input.active,
+        sort_order: input.sortOrder,
+      });
       return { plan: planView(row) };
     } catch (err) {
       // Two staff adding the same code at once: the unique index decides.
@@ -220,7 +345,17 @@ export class MemberAdminService {
   }
 
   /** Changes the given fields of a plan; prices apply to payments from now on, never to terms already paid. */
-  async updatePlan(id: number, input: Partial<{ name: string; description: string; duesCents: number; joiningFeeCents: number; active: boolean; sortOrder: number }>) {
+  async updatePlan(
+    id: number,
+    input: Partial<{
+      name: string;
+      description: string;
+      duesCents: number;
+      joiningFeeCents: number;
+      active: boolean;
+      sortOrder: number;
+    }>,
+  ) {
     const row = await this.planRepo.updatePlan(this.db, id, {
       ...(input.name !== undefined ? { name: input.name } : {}),
       ...(input.description !== undefined ? { description: input.description } : {}),
@@ -242,8 +377,12 @@ export class MemberAdminService {
   async putSettings(value: MembershipSettings): Promise<{ settings: MembershipSettings }> {
     const held = await this.repo.levelsHeldOutside(value.certificationLevels.map((l) => l.code));
     if (held.length) {
-      const list = held.map((h) => `${h.certification_level} (${h.count} ${h.count === '1' ? 'member' : 'members'})`).join(', ');
-      throw conflict('level_in_use', `Members still hold ${list}. Change their records first, or keep the level.`, { certificationLevels: `Still held: ${list}.` });
+      const list = held
+        .map((h) => `${h.certification_level} (${h.count} ${h.count === '1' ? 'member' : 'members'})`)
+        .join(', ');
+      throw conflict('level_in_use', `Members still hold ${list}. Change their records first, or keep the level.`, {
+        certificationLevels: `Still held: ${list}.`,
+      });
     }
     return { settings: await this.settings.put(MEMBERSHIP_SETTINGS, value) };
   }

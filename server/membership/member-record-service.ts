@@ -50,10 +50,17 @@ export class MemberRecordService {
     const today = this.today();
     let m = await this.repo.byUser(userId);
     if (!m) throw notFound('You have no membership yet.');
-    await this.db.transaction(async (trx) => this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, Number(m!.id)))!, today, policy, userId));
+    await this.db.transaction(async (trx) =>
+      this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, Number(m!.id)))!, today, policy, userId),
+    );
     m = (await this.repo.byId(Number(m.id)))!;
     const family = await this.repo.family(Number(m.id));
-    return { membership: { ...membershipView(m, await this.planRepo.plan(Number(m.plan_id)), today, policy, s), familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: dateOnly(f.date_of_birth) })) } };
+    return {
+      membership: {
+        ...membershipView(m, await this.planRepo.plan(Number(m.plan_id)), today, policy, s),
+        familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: dateOnly(f.date_of_birth) })),
+      },
+    };
   }
 
   /** The member's own corrections between renewals (a renewed association expiry, a new certification); audited. */
@@ -67,7 +74,10 @@ export class MemberRecordService {
       // A member's own edit of a verified value makes it a claim again until staff check it anew.
       const full = withVoidedVerifications(m, patch);
       await this.repo.update(trx, Number(m.id), full);
-      await this.repo.addAudit(trx, Number(m.id), user.id, 'profile_updated', { changed: Object.keys(patch), ...voidedNote(full) });
+      await this.repo.addAudit(trx, Number(m.id), user.id, 'profile_updated', {
+        changed: Object.keys(patch),
+        ...voidedNote(full),
+      });
     });
     return this.me(user.id);
   }
@@ -76,14 +86,21 @@ export class MemberRecordService {
   async setAutoRenew(user: SessionUser, input: { autoRenew: boolean; paymentToken?: string }) {
     const m = await this.repo.byUser(user.id);
     if (!m) throw notFound('You have no membership yet.');
-    if (input.autoRenew && !m.processor_customer_id && !input.paymentToken) throw badRequest('Choose a card to keep on file.', { paymentToken: 'Choose a card to keep on file.' });
+    if (input.autoRenew && !m.processor_customer_id && !input.paymentToken)
+      throw badRequest('Choose a card to keep on file.', { paymentToken: 'Choose a card to keep on file.' });
     if (input.paymentToken) {
       const saved = await this.cardOnFile.save(m, user, input.paymentToken);
       if (saved.outcome === 'declined') throw declined(saved.message);
     }
     await this.db.transaction(async (trx) => {
-      await this.repo.update(trx, Number(m.id), { auto_renew: input.autoRenew, renewal_failed_at: input.paymentToken ? null : m.renewal_failed_at });
-      await this.repo.addAudit(trx, Number(m.id), user.id, 'auto_renew_changed', { autoRenew: input.autoRenew, newCard: Boolean(input.paymentToken) });
+      await this.repo.update(trx, Number(m.id), {
+        auto_renew: input.autoRenew,
+        renewal_failed_at: input.paymentToken ? null : m.renewal_failed_at,
+      });
+      await this.repo.addAudit(trx, Number(m.id), user.id, 'auto_renew_changed', {
+        autoRenew: input.autoRenew,
+        newCard: Boolean(input.paymentToken),
+      });
     });
     return this.me(user.id);
   }
@@ -91,11 +108,17 @@ export class MemberRecordService {
   /** The printable card: who, number, plan, term end, certification and the signed check-in token as a QR code. */
   async card(userId: number) {
     const { membership } = await this.me(userId);
-    if (membership.status === 'pending') throw conflict('membership_pending', 'Your card is ready once your first payment has gone through.');
+    if (membership.status === 'pending')
+      throw conflict('membership_pending', 'Your card is ready once your first payment has gone through.');
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const token = this.tokens.sign(membership.memberNumber, this.clock.now());
     // A quiet zone of four modules on every side, black on white (ISO/IEC 18004, from memory), so phone scanners find it.
-    const qrSvg = await QRCode.toString(token, { type: 'svg', errorCorrectionLevel: 'M', margin: 4, color: { dark: '#000000ff', light: '#ffffffff' } });
+    const qrSvg = await QRCode.toString(token, {
+      type: 'svg',
+      errorCorrectionLevel: 'M',
+      margin: 4,
+      color: { dark: '#000000ff', light: '#ffffffff' },
+    });
     const level = s.certificationLevels.find((l) => l.code === membership.certificationLevel);
     return {
       card: {

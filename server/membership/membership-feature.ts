@@ -32,11 +32,53 @@ export function membershipFeature(platform: Platform): Feature {
   const tokens = new CheckInTokens(config.sessionSecret);
   const cardOnFile = new CardOnFile(db, repo, cardDues);
   const members = new MembershipService(db, repo, planRepo, platform.settings, cardDues, cardOnFile, clock, calendar);
-  const record = new MemberRecordService(db, repo, planRepo, platform.settings, settlement, cardOnFile, tokens, clock, calendar);
-  const admin = new MemberAdminService(db, repo, planRepo, paymentRepo, rosterRepo, platform.settings, settlement, clock, calendar, commercialMailer(platform), config.site.clubName);
-  const refunds = new DuesRefunds(db, repo, paymentRepo, platform.settings, settlement, payments, clock, calendar, platform.deps.log);
+  const record = new MemberRecordService(
+    db,
+    repo,
+    planRepo,
+    platform.settings,
+    settlement,
+    cardOnFile,
+    tokens,
+    clock,
+    calendar,
+  );
+  const admin = new MemberAdminService(
+    db,
+    repo,
+    planRepo,
+    paymentRepo,
+    rosterRepo,
+    platform.settings,
+    settlement,
+    clock,
+    calendar,
+    commercialMailer(platform),
+    config.site.clubName,
+  );
+  const refunds = new DuesRefunds(
+    db,
+    repo,
+    paymentRepo,
+    platform.settings,
+    settlement,
+    payments,
+    clock,
+    calendar,
+    platform.deps.log,
+  );
   const flying = new FlyingStatusService(db, repo, platform.settings, tokens, clock, calendar);
-  const jobs = new MembershipJobs(db, repo, planRepo, rosterRepo, platform.settings, settlement, cardDues, clock, calendar);
+  const jobs = new MembershipJobs(
+    db,
+    repo,
+    planRepo,
+    rosterRepo,
+    platform.settings,
+    settlement,
+    cardDues,
+    clock,
+    calendar,
+  );
   return {
     name: 'membership',
     mount(api) {
@@ -44,7 +86,10 @@ export function membershipFeature(platform: Platform): Feature {
       api('/admin/members', memberAdminRoutes(admin, refunds, flying));
       api('/admin/checkin', checkInRoutes(flying));
     },
-    dashboard: { membersByStatus: async () => (await admin.summary()).byStatus, membersLapsingWithin: (days) => admin.lapsingWithin(days) },
+    dashboard: {
+      membersByStatus: async () => (await admin.summary()).byStatus,
+      membersLapsingWithin: (days) => admin.lapsingWithin(days),
+    },
     jobs: [
       { name: 'membership-reminders', cron: '0 8 * * *', run: () => jobs.sendReminders() },
       { name: 'membership-auto-renew', cron: '0 6 * * *', run: () => jobs.autoRenew() },

@@ -51,7 +51,9 @@ export class MembershipJobs {
     const today = this.today();
     const rows = await this.rosterRepo.standing();
     for (const r of rows) {
-      await this.db.transaction(async (trx) => this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, Number(r.id)))!, today, policy));
+      await this.db.transaction(async (trx) =>
+        this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, Number(r.id)))!, today, policy),
+      );
     }
     return { checked: rows.length };
   }
@@ -70,8 +72,23 @@ export class MembershipJobs {
       const termEnd = dateOnly(r.term_end);
       const kind = termEnd && r.renewal_failed_at === null ? dueReminder(today, termEnd) : null;
       // Someone with auto-renew on gets no "ended" notice while the card is still being tried.
-      if (kind && termEnd && !(r.auto_renew && r.processor_customer_id && (kind === 'due-today' || kind === 'overdue-14') && r.renewal_attempts < RENEWAL_TRY_OFFSETS.length)) {
-        if (await enqueueEmail(this.db, reminderMail(ctx, kind, termEnd, r.auto_renew && r.processor_customer_id !== null))) queued++;
+      if (
+        kind &&
+        termEnd &&
+        !(
+          r.auto_renew &&
+          r.processor_customer_id &&
+          (kind === 'due-today' || kind === 'overdue-14') &&
+          r.renewal_attempts < RENEWAL_TRY_OFFSETS.length
+        )
+      ) {
+        if (
+          await enqueueEmail(
+            this.db,
+            reminderMail(ctx, kind, termEnd, r.auto_renew && r.processor_customer_id !== null),
+          )
+        )
+          queued++;
       }
       const assoc = dateOnly(r.association_expires);
       if (assoc && r.status !== 'lapsed' && today >= addDays(assoc, -30) && today <= assoc) {
@@ -91,7 +108,9 @@ export class MembershipJobs {
       if (!r.auto_renew || !r.processor_customer_id || !termEnd || r.renewal_failed_at !== null) continue;
       const attempt = r.renewal_attempts;
       if (attempt >= RENEWAL_TRY_OFFSETS.length || today < addDays(termEnd, RENEWAL_TRY_OFFSETS[attempt])) continue;
-      const claimed = await this.db.transaction((trx) => this.repo.claimRenewalAttempt(trx, Number(r.id), attempt, termEnd));
+      const claimed = await this.db.transaction((trx) =>
+        this.repo.claimRenewalAttempt(trx, Number(r.id), attempt, termEnd),
+      );
       if (!claimed) continue;
       await this.tryOnce(r, termEnd, attempt, today, policy, out);
     }
@@ -99,11 +118,25 @@ export class MembershipJobs {
   }
 
   /** One charge of the saved card; a decline schedules the next try or, on the last, lapses the membership. */
-  private async tryOnce(r: RosterRow, termEnd: string, attempt: number, today: string, policy: TermPolicy, out: { paid: number; declined: number; lapsed: number }): Promise<void> {
+  private async tryOnce(
+    r: RosterRow,
+    termEnd: string,
+    attempt: number,
+    today: string,
+    policy: TermPolicy,
+    out: { paid: number; declined: number; lapsed: number },
+  ): Promise<void> {
     const plan = (await this.planRepo.plan(Number(r.plan_id)))!;
     const term = termForPayment(today, termEnd, policy);
     const amount = duesFor(plan.dues_cents, term, policy);
-    const result = await this.cardDues.pay(r, plan, term, amount, { customerId: r.processor_customer_id!, keyTail: `auto-${attempt}` }, { today, policy, actorUserId: null, at: this.clock.now() });
+    const result = await this.cardDues.pay(
+      r,
+      plan,
+      term,
+      amount,
+      { customerId: r.processor_customer_id!, keyTail: `auto-${attempt}` },
+      { today, policy, actorUserId: null, at: this.clock.now() },
+    );
     if (result.outcome === 'paid') {
       out.paid++;
       return;
@@ -119,13 +152,23 @@ export class MembershipJobs {
       const m = (await this.repo.lockById(trx, Number(r.id)))!;
       const ctx = { ...(await this.settlement.mailContext(trx, m)), membershipId: Number(m.id) };
       if (last) {
-        const failed = await this.repo.update(trx, Number(m.id), { renewal_failed_at: this.clock.now(), next_renewal_attempt_on: null });
-        await this.repo.addAudit(trx, Number(m.id), null, 'auto_renew_failed', { attempts: attempt + 1, message: result.message });
+        const failed = await this.repo.update(trx, Number(m.id), {
+          renewal_failed_at: this.clock.now(),
+          next_renewal_attempt_on: null,
+        });
+        await this.repo.addAudit(trx, Number(m.id), null, 'auto_renew_failed', {
+          attempts: attempt + 1,
+          message: result.message,
+        });
         await this.settlement.refreshStatus(trx, failed, today, policy);
         out.lapsed++;
       } else {
         await this.repo.update(trx, Number(m.id), { next_renewal_attempt_on: nextTry });
-        await this.repo.addAudit(trx, Number(m.id), null, 'auto_renew_declined', { attempt: attempt + 1, nextTry, message: result.message });
+        await this.repo.addAudit(trx, Number(m.id), null, 'auto_renew_declined', {
+          attempt: attempt + 1,
+          nextTry,
+          message: result.message,
+        });
         out.declined++;
       }
       await enqueueEmail(trx, renewalDeclinedMail(ctx, termEnd, attempt + 1, nextTry, result.message));

@@ -7,9 +7,30 @@ import { dateOnly } from './membership-repository';
 const AMOUNT_ONLY_AUDIT = ['term_paid', 'refunded', 'status_changed'];
 
 const MEMBERSHIP_COLUMNS = [
-  'id', 'member_number', 'status', 'term_start', 'term_end', 'legal_name', 'date_of_birth', 'address', 'phone', 'emergency_contact',
-  'association_number', 'association_expires', 'certification_level', 'certification_date', 'association_verified_at', 'certification_verified_at',
-  'waiver_version', 'waiver_accepted_at', 'safety_code_version', 'safety_code_accepted_at', 'auto_renew', 'processor_customer_id', 'created_at', 'updated_at',
+  'id',
+  'member_number',
+  'status',
+  'term_start',
+  'term_end',
+  'legal_name',
+  'date_of_birth',
+  'address',
+  'phone',
+  'emergency_contact',
+  'association_number',
+  'association_expires',
+  'certification_level',
+  'certification_date',
+  'association_verified_at',
+  'certification_verified_at',
+  'waiver_version',
+  'waiver_accepted_at',
+  'safety_code_version',
+  'safety_code_accepted_at',
+  'auto_renew',
+  'processor_customer_id',
+  'created_at',
+  'updated_at',
 ];
 
 /**
@@ -26,32 +47,92 @@ export function membershipPersonalData(savedCards: SavedCards, log: Pick<Logger,
       if (!m) return [];
       // One after another: queries on one transaction share its connection.
       const [family, payments, audit] = [
-        await trx('membership_family_members').where('membership_id', m.id).orderBy('id').select('name', 'date_of_birth'),
-        await trx('membership_payments as p').join('membership_plans as pl', 'pl.id', 'p.plan_id').where('p.membership_id', m.id).orderBy('p.id')
-          .select('p.id', 'pl.name as plan', 'p.entry', 'p.status', 'p.method', 'p.amount_cents', 'p.receipt_number', 'p.term_start', 'p.term_end', 'p.refund_of', 'p.created_at'),
-        await trx('membership_audit').where('membership_id', m.id).orderBy('id').select('action', 'detail', 'created_at'),
+        await trx('membership_family_members')
+          .where('membership_id', m.id)
+          .orderBy('id')
+          .select('name', 'date_of_birth'),
+        await trx('membership_payments as p')
+          .join('membership_plans as pl', 'pl.id', 'p.plan_id')
+          .where('p.membership_id', m.id)
+          .orderBy('p.id')
+          .select(
+            'p.id',
+            'pl.name as plan',
+            'p.entry',
+            'p.status',
+            'p.method',
+            'p.amount_cents',
+            'p.receipt_number',
+            'p.term_start',
+            'p.term_end',
+            'p.refund_of',
+            'p.created_at',
+          ),
+        await trx('membership_audit')
+          .where('membership_id', m.id)
+          .orderBy('id')
+          .select('action', 'detail', 'created_at'),
       ];
-      const dates = (r: Record<string, unknown>) => Object.fromEntries(Object.entries(plainRecord(r)).map(([k, v]) => [k, /(Start|End|Expires|Date|OfBirth)$/.test(k) ? dateOnly(v as string | Date | null) : v]));
+      const dates = (r: Record<string, unknown>) =>
+        Object.fromEntries(
+          Object.entries(plainRecord(r)).map(([k, v]) => [
+            k,
+            /(Start|End|Expires|Date|OfBirth)$/.test(k) ? dateOnly(v as string | Date | null) : v,
+          ]),
+        );
       const { processor_customer_id: customerId, ...record } = m;
       return [
-        { name: 'membership', title: 'Membership', purpose: 'Your club membership record: the details the club needs to run launches safely and reach you or your emergency contact.', records: [{ ...dates(record), familyMembers: family.map(dates) }] },
-        { name: 'membership-payments', title: 'Dues payments and refunds', purpose: 'Each dues payment and refund. Kept for the books.', records: payments.map(dates) },
-        { name: 'membership-history', title: 'Membership history', purpose: 'Each change to your membership record and who made it, so a change can be explained later.', records: audit.map(plainRecord) },
-        { name: 'saved-card', title: 'Saved card', purpose: 'The card the card processor keeps for your dues; Padside itself never holds the card number.', records: customerId ? [await describeCard(savedCards, customerId, log)] : [] },
+        {
+          name: 'membership',
+          title: 'Membership',
+          purpose:
+            'Your club membership record: the details the club needs to run launches safely and reach you or your emergency contact.',
+          records: [{ ...dates(record), familyMembers: family.map(dates) }],
+        },
+        {
+          name: 'membership-payments',
+          title: 'Dues payments and refunds',
+          purpose: 'Each dues payment and refund. Kept for the books.',
+          records: payments.map(dates),
+        },
+        {
+          name: 'membership-history',
+          title: 'Membership history',
+          purpose: 'Each change to your membership record and who made it, so a change can be explained later.',
+          records: audit.map(plainRecord),
+        },
+        {
+          name: 'saved-card',
+          title: 'Saved card',
+          purpose: 'The card the card processor keeps for your dues; Padside itself never holds the card number.',
+          records: customerId ? [await describeCard(savedCards, customerId, log)] : [],
+        },
       ];
     },
 
     async holds(trx, subject) {
-      const busy = await trx('membership_payments as p').join('memberships as m', 'm.id', 'p.membership_id').where('m.user_id', subject.userId).whereIn('p.status', ['attempted', 'requested']).first('p.id');
+      const busy = await trx('membership_payments as p')
+        .join('memberships as m', 'm.id', 'p.membership_id')
+        .where('m.user_id', subject.userId)
+        .whereIn('p.status', ['attempted', 'requested'])
+        .first('p.id');
       return busy ? ['A dues payment or refund is still being processed.'] : [];
     },
 
     async erase(trx, subject) {
-      const m = await trx('memberships').where('user_id', subject.userId).forUpdate().first('id', 'member_number', 'processor_customer_id');
+      const m = await trx('memberships')
+        .where('user_id', subject.userId)
+        .forUpdate()
+        .first('id', 'member_number', 'processor_customer_id');
       if (!m) return;
-      await trx('money_movements').where({ source: 'dues', reference: m.member_number }).update({ counterparty: subject.marker });
+      await trx('money_movements')
+        .where({ source: 'dues', reference: m.member_number })
+        .update({ counterparty: subject.marker });
       await trx('membership_family_members').where('membership_id', m.id).delete();
-      await trx('membership_audit').where('membership_id', m.id).whereNotIn('action', AMOUNT_ONLY_AUDIT).update({ detail: '{}' });
+      await trx('membership_audit')
+        .where('membership_id', m.id)
+        .whereNotIn('action', AMOUNT_ONLY_AUDIT)
+        .update({ detail: '{}' });
       await trx('memberships').where('id', m.id).update({
         legal_name: subject.marker,
         date_of_birth: null,
@@ -73,22 +154,35 @@ export function membershipPersonalData(savedCards: SavedCards, log: Pick<Logger,
         next_renewal_attempt_on: null,
         updated_at: trx.fn.now(),
       });
-      await trx('membership_audit').insert({ membership_id: m.id, actor_user_id: subject.userId, action: 'account_deleted', detail: '{}' });
+      await trx('membership_audit').insert({
+        membership_id: m.id,
+        actor_user_id: subject.userId,
+        action: 'account_deleted',
+        detail: '{}',
+      });
       const customerId: string | null = m.processor_customer_id;
       if (!customerId) return;
       return async () => {
         // The account is gone either way; a processor that does not answer leaves a card nobody can charge from here.
-        await savedCards.forget(customerId).catch((err) => log.error({ err, customerId }, 'the card processor did not forget a deleted account’s card'));
+        await savedCards
+          .forget(customerId)
+          .catch((err) => log.error({ err, customerId }, 'the card processor did not forget a deleted account’s card'));
       };
     },
   };
 }
 
-async function describeCard(savedCards: SavedCards, customerId: string, log: Pick<Logger, 'error'>): Promise<Record<string, unknown>> {
+async function describeCard(
+  savedCards: SavedCards,
+  customerId: string,
+  log: Pick<Logger, 'error'>,
+): Promise<Record<string, unknown>> {
   try {
     return { ...((await savedCards.describe(customerId)) ?? { note: 'The card processor holds no card for you.' }) };
   } catch (err) {
     log.error({ err }, 'the card processor did not describe a saved card for an export');
-    return { note: 'The card processor did not answer; the card is there, its brand and last digits could not be read just now.' };
+    return {
+      note: 'The card processor did not answer; the card is there, its brand and last digits could not be read just now.',
+    };
   }
 }

@@ -102,7 +102,12 @@ export interface AuditRow {
 }
 
 /** A roster line: the membership with its account e-mail, opt-out and plan. */
-export type RosterRow = MembershipRow & { email: string; marketing_opt_out: boolean; plan_code: string; plan_name: string };
+export type RosterRow = MembershipRow & {
+  email: string;
+  marketing_opt_out: boolean;
+  plan_code: string;
+  plan_name: string;
+};
 
 /** The day and grace the roster's status is computed for, so filters match what the table shows. */
 export interface AsOf {
@@ -148,7 +153,9 @@ export class MembershipRepository {
   async userNames(ids: (string | null)[], db: Db = this.db): Promise<Map<string, string>> {
     const wanted = [...new Set(ids.filter((i): i is string => i !== null))];
     if (!wanted.length) return new Map();
-    const rows: { id: string; display_name: string }[] = await db('users').whereIn('id', wanted).select('id', 'display_name');
+    const rows: { id: string; display_name: string }[] = await db('users')
+      .whereIn('id', wanted)
+      .select('id', 'display_name');
     return new Map(rows.map((r) => [String(r.id), r.display_name]));
   }
 
@@ -158,16 +165,41 @@ export class MembershipRepository {
   }
 
   /** Inserts a membership with the next member number from the sequence (never reused, even after a rollback). */
-  async insert(trx: Knex.Transaction, row: Omit<MembershipRow, 'id' | 'member_number' | 'created_at' | 'updated_at' | 'renewal_attempts' | 'next_renewal_attempt_on' | 'renewal_failed_at' | 'card_brand' | 'card_last4' | VerificationColumn>): Promise<MembershipRow> {
+  async insert(
+    trx: Knex.Transaction,
+    row: Omit<
+      MembershipRow,
+      | 'id'
+      | 'member_number'
+      | 'created_at'
+      | 'updated_at'
+      | 'renewal_attempts'
+      | 'next_renewal_attempt_on'
+      | 'renewal_failed_at'
+      | 'card_brand'
+      | 'card_last4'
+      | VerificationColumn
+    >,
+  ): Promise<MembershipRow> {
     const [created] = await trx<MembershipRow>('memberships')
-      .insert({ ...row, member_number: trx.raw("lpad(nextval('membership_number_seq')::text, 5, '0')") as unknown as string })
+      .insert({
+        ...row,
+        member_number: trx.raw("lpad(nextval('membership_number_seq')::text, 5, '0')") as unknown as string,
+      })
       .returning('*');
     return created;
   }
 
   /** Writes the given membership columns and the update time; member number and account never change. */
-  async update(trx: Db, id: number, patch: Partial<Omit<MembershipRow, 'id' | 'member_number' | 'user_id'>>): Promise<MembershipRow> {
-    const [row] = await trx<MembershipRow>('memberships').where('id', id).update({ ...patch, updated_at: trx.fn.now() as unknown as Date }).returning('*');
+  async update(
+    trx: Db,
+    id: number,
+    patch: Partial<Omit<MembershipRow, 'id' | 'member_number' | 'user_id'>>,
+  ): Promise<MembershipRow> {
+    const [row] = await trx<MembershipRow>('memberships')
+      .where('id', id)
+      .update({ ...patch, updated_at: trx.fn.now() as unknown as Date })
+      .returning('*');
     return row;
   }
 
@@ -182,13 +214,17 @@ export class MembershipRepository {
    * current (a renewal paid meanwhile moves the term end, and the claim then fails).
    */
   async claimRenewalAttempt(trx: Knex.Transaction, id: number, attempts: number, termEnd: string): Promise<boolean> {
-    const n = await trx('memberships').where({ id, renewal_attempts: attempts, term_end: termEnd }).update({ renewal_attempts: attempts + 1, updated_at: trx.fn.now() });
+    const n = await trx('memberships')
+      .where({ id, renewal_attempts: attempts, term_end: termEnd })
+      .update({ renewal_attempts: attempts + 1, updated_at: trx.fn.now() });
     return n === 1;
   }
 
   /** Gives back an auto-renew attempt claimed with `attempts` that never reached the processor. */
   async releaseRenewalAttempt(db: Db, id: number, attempts: number): Promise<void> {
-    await db('memberships').where({ id, renewal_attempts: attempts + 1 }).update({ renewal_attempts: attempts, updated_at: db.fn.now() });
+    await db('memberships')
+      .where({ id, renewal_attempts: attempts + 1 })
+      .update({ renewal_attempts: attempts, updated_at: db.fn.now() });
   }
 
   /** The family members a family plan covers, in the order they were added. */
@@ -197,14 +233,32 @@ export class MembershipRepository {
   }
 
   /** Replaces the family members of a membership in the caller's transaction, so the list is never half-written. */
-  async replaceFamily(trx: Knex.Transaction, membershipId: number, people: { name: string; dateOfBirth: string }[]): Promise<void> {
+  async replaceFamily(
+    trx: Knex.Transaction,
+    membershipId: number,
+    people: { name: string; dateOfBirth: string }[],
+  ): Promise<void> {
     await trx('membership_family_members').where('membership_id', membershipId).delete();
-    if (people.length) await trx('membership_family_members').insert(people.map((p) => ({ membership_id: membershipId, name: p.name, date_of_birth: p.dateOfBirth })));
+    if (people.length)
+      await trx('membership_family_members').insert(
+        people.map((p) => ({ membership_id: membershipId, name: p.name, date_of_birth: p.dateOfBirth })),
+      );
   }
 
   /** Appends one entry to the membership's audit trail in the caller's transaction, so the change and its record commit together. */
-  async addAudit(db: Db, membershipId: number, actorUserId: number | null, action: string, detail: Record<string, unknown> = {}): Promise<void> {
-    await db('membership_audit').insert({ membership_id: membershipId, actor_user_id: actorUserId, action, detail: JSON.stringify(detail) });
+  async addAudit(
+    db: Db,
+    membershipId: number,
+    actorUserId: number | null,
+    action: string,
+    detail: Record<string, unknown> = {},
+  ): Promise<void> {
+    await db('membership_audit').insert({
+      membership_id: membershipId,
+      actor_user_id: actorUserId,
+      action,
+      detail: JSON.stringify(detail),
+    });
   }
 
   /** The membership's audit trail with each actor's name, newest first. */
@@ -213,6 +267,9 @@ export class MembershipRepository {
       .leftJoin('users as u', 'u.id', 'a.actor_user_id')
       .where('a.membership_id', membershipId)
       .select('a.*', 'u.display_name as actor_name')
-      .orderBy([{ column: 'a.created_at', order: 'desc' }, { column: 'a.id', order: 'desc' }]);
+      .orderBy([
+        { column: 'a.created_at', order: 'desc' },
+        { column: 'a.id', order: 'desc' },
+      ]);
   }
 }

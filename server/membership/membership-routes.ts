@@ -7,12 +7,27 @@ import type { SessionUser } from '../platform/roles';
 import type { MemberRecordService } from './member-record-service';
 import type { MembershipService } from './membership-service';
 
-const payer = (sessionId: string, user: SessionUser): PayerKeys => ({ sessionId, email: user.email, accountId: user.id });
+const payer = (sessionId: string, user: SessionUser): PayerKeys => ({
+  sessionId,
+  email: user.email,
+  accountId: user.id,
+});
 /** Every dues answer that returns a membership means the card went through (declines are thrown as 402). */
 const answered = () => true;
 
-const text = (label: string, max: number) => z.string({ error: `${label} is required.` }).trim().min(1, `${label} is required.`).max(max, `${label} is too long.`);
-const optionalText = (max: number) => z.string().trim().max(max, 'Too long.').transform((v) => v || null).nullish();
+const text = (label: string, max: number) =>
+  z
+    .string({ error: `${label} is required.` })
+    .trim()
+    .min(1, `${label} is required.`)
+    .max(max, `${label} is too long.`);
+const optionalText = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, 'Too long.')
+    .transform((v) => v || null)
+    .nullish();
 const optionalDate = fields.date.nullish().or(z.literal('').transform(() => null));
 
 const ProfileSchema = z.object({
@@ -25,7 +40,10 @@ const ProfileSchema = z.object({
   associationExpires: optionalDate,
   certificationLevel: z.string().trim().max(16).optional(),
   certificationDate: optionalDate,
-  familyMembers: z.array(z.object({ name: text('Name', 120), dateOfBirth: fields.date })).max(10, 'At most 10 family members.').optional(),
+  familyMembers: z
+    .array(z.object({ name: text('Name', 120), dateOfBirth: fields.date }))
+    .max(10, 'At most 10 family members.')
+    .optional(),
 });
 
 const JoinSchema = z.object({
@@ -42,18 +60,40 @@ const RenewSchema = z.object({
   planId: fields.id.optional(),
   waiverVersion: z.string().max(32).optional(),
   safetyCodeVersion: z.string().max(32).optional(),
-  profile: ProfileSchema.pick({ associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial().optional(),
+  profile: ProfileSchema.pick({
+    associationNumber: true,
+    associationExpires: true,
+    certificationLevel: true,
+    certificationDate: true,
+  })
+    .partial()
+    .optional(),
 });
 
 const QuoteSchema = z.object({ planId: fields.id, on: fields.date.optional() });
 
 // The member's own corrections between renewals: never the name or date of birth, which staff change.
-const ProfileEditSchema = ProfileSchema.pick({ address: true, phone: true, emergencyContact: true, associationNumber: true, associationExpires: true, certificationLevel: true, certificationDate: true }).partial();
+const ProfileEditSchema = ProfileSchema.pick({
+  address: true,
+  phone: true,
+  emergencyContact: true,
+  associationNumber: true,
+  associationExpires: true,
+  certificationLevel: true,
+  certificationDate: true,
+}).partial();
 
-const AutoRenewSchema = z.object({ autoRenew: z.boolean({ error: 'Choose on or off.' }), paymentToken: fields.cardToken.optional() });
+const AutoRenewSchema = z.object({
+  autoRenew: z.boolean({ error: 'Choose on or off.' }),
+  paymentToken: fields.cardToken.optional(),
+});
 
 /** The member's side: plans, quote, join, renew, own membership, auto-renew, card. */
-export function membershipRoutes(service: MembershipService, record: MemberRecordService, throttle: PaymentThrottle): Router {
+export function membershipRoutes(
+  service: MembershipService,
+  record: MemberRecordService,
+  throttle: PaymentThrottle,
+): Router {
   const r = Router();
   r.get('/plans', async function listPlans(_req, res) {
     res.json(await service.plans());
@@ -67,7 +107,9 @@ export function membershipRoutes(service: MembershipService, record: MemberRecor
   });
   r.post('/', requireSignedIn, async function join(req, res) {
     const body = parse(JoinSchema, req.body);
-    res.status(201).json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.join(req.user!, body), answered));
+    res
+      .status(201)
+      .json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.join(req.user!, body), answered));
   });
   r.get('/me', requireSignedIn, async function showMyMembership(req, res) {
     res.json(await record.meOrNone(req.user!.id));
@@ -82,7 +124,9 @@ export function membershipRoutes(service: MembershipService, record: MemberRecor
   r.post('/auto-renew', requireSignedIn, async function setAutoRenew(req, res) {
     const body = parse(AutoRenewSchema, req.body);
     // Putting a card on file is checked by the processor too, so a card tester could use it: same throttle.
-    res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => record.setAutoRenew(req.user!, body), answered));
+    res.json(
+      await throttle.attempt(payer(req.sessionID, req.user!), () => record.setAutoRenew(req.user!, body), answered),
+    );
   });
   r.get('/card', requireSignedIn, async function showCard(req, res) {
     res.set('Cache-Control', 'no-store');

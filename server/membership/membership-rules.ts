@@ -17,14 +17,23 @@ export function priceFor(plan: PlanRow, m: MembershipRow | undefined, today: str
 
 /** Refuses a waiver or safety code version other than the current one, so nobody pays on terms they did not read. */
 export function checkAcceptance(s: MembershipSettings, waiverVersion?: string, safetyCodeVersion?: string): void {
-  if (waiverVersion !== s.waiverVersion) throw badRequest('Read and accept the current waiver.', { waiverVersion: `Accept waiver version ${s.waiverVersion}.` });
+  if (waiverVersion !== s.waiverVersion)
+    throw badRequest('Read and accept the current waiver.', {
+      waiverVersion: `Accept waiver version ${s.waiverVersion}.`,
+    });
   if (safetyCodeVersion !== undefined && safetyCodeVersion !== s.safetyCodeVersion) {
-    throw badRequest('Read and accept the current safety code.', { safetyCodeVersion: `Accept safety code version ${s.safetyCodeVersion}.` });
+    throw badRequest('Read and accept the current safety code.', {
+      safetyCodeVersion: `Accept safety code version ${s.safetyCodeVersion}.`,
+    });
   }
 }
 
 /** The columns a member's profile edit changes; `field` names the form field a bad certification level is shown on. */
-export function profilePatch(s: MembershipSettings, p: NonNullable<RenewInput['profile']>, field = 'profile.certificationLevel'): Partial<MembershipRow> {
+export function profilePatch(
+  s: MembershipSettings,
+  p: NonNullable<RenewInput['profile']>,
+  field = 'profile.certificationLevel',
+): Partial<MembershipRow> {
   const patch: Partial<MembershipRow> = {};
   if (p.associationNumber !== undefined) patch.association_number = p.associationNumber;
   if (p.associationExpires !== undefined) patch.association_expires = p.associationExpires;
@@ -37,22 +46,32 @@ export function profilePatch(s: MembershipSettings, p: NonNullable<RenewInput['p
 }
 
 function checkLevel(s: MembershipSettings, level: string, field = 'profile.certificationLevel'): string {
-  if (!s.certificationLevels.some((l) => l.code === level)) throw badRequest('Choose a certification level from the list.', { [field]: 'Choose a level from the list.' });
+  if (!s.certificationLevels.some((l) => l.code === level))
+    throw badRequest('Choose a certification level from the list.', { [field]: 'Choose a level from the list.' });
   return level;
 }
 
 /** Refuses a join profile the plan does not cover: a birth date in the future, an adult on the junior plan, family on a single plan. */
 export function checkProfile(p: ProfileInput, plan: PlanRow, term: Term, s: MembershipSettings): void {
-  if (p.dateOfBirth > term.start) throw badRequest('Check the date of birth.', { 'profile.dateOfBirth': 'The date of birth is in the future.' });
+  if (p.dateOfBirth > term.start)
+    throw badRequest('Check the date of birth.', { 'profile.dateOfBirth': 'The date of birth is in the future.' });
   if (plan.eligibility === 'junior' && !isJuniorOn(p.dateOfBirth, term.start)) {
-    throw badRequest('The junior plan is for members under 18 on the first day of the term.', { planId: 'You are 18 or over on the first day of the term; choose another plan.' });
+    throw badRequest('The junior plan is for members under 18 on the first day of the term.', {
+      planId: 'You are 18 or over on the first day of the term; choose another plan.',
+    });
   }
-  if (plan.eligibility !== 'family' && p.familyMembers?.length) throw badRequest('Only the family plan covers more people.', { 'profile.familyMembers': 'Choose the family plan to add family members.' });
+  if (plan.eligibility !== 'family' && p.familyMembers?.length)
+    throw badRequest('Only the family plan covers more people.', {
+      'profile.familyMembers': 'Choose the family plan to add family members.',
+    });
   checkLevel(s, p.certificationLevel ?? 'none');
 }
 
 /** For the audit: which verifications an edit voided. */
 export const voidedNote = (patch: Partial<MembershipRow>) => {
-  const voided = [...('association_verified_at' in patch ? ['association'] : []), ...('certification_verified_at' in patch ? ['certification'] : [])];
+  const voided = [
+    ...('association_verified_at' in patch ? ['association'] : []),
+    ...('certification_verified_at' in patch ? ['certification'] : []),
+  ];
   return voided.length ? { verificationVoided: voided } : {};
 };

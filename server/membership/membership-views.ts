@@ -5,7 +5,17 @@ import { addDays, renewalOpensOn, statusOn, type MembershipStatus, type TermPoli
 
 /** A plan as the API shows it. */
 export function planView(p: PlanRow) {
-  return { id: Number(p.id), code: p.code, name: p.name, description: p.description, eligibility: p.eligibility, duesCents: p.dues_cents, joiningFeeCents: p.joining_fee_cents, active: p.active, sortOrder: p.sort_order };
+  return {
+    id: Number(p.id),
+    code: p.code,
+    name: p.name,
+    description: p.description,
+    eligibility: p.eligibility,
+    duesCents: p.dues_cents,
+    joiningFeeCents: p.joining_fee_cents,
+    active: p.active,
+    sortOrder: p.sort_order,
+  };
 }
 
 /** The status the dates give today (the stored one may be up to a day old). */
@@ -14,7 +24,13 @@ export function liveStatus(m: MembershipRow, today: string, policy: TermPolicy):
 }
 
 /** A membership as its member (and staff) see it. */
-export function membershipView(m: MembershipRow, plan: PlanRow | undefined, today: string, policy: TermPolicy, s: MembershipSettings) {
+export function membershipView(
+  m: MembershipRow,
+  plan: PlanRow | undefined,
+  today: string,
+  policy: TermPolicy,
+  s: MembershipSettings,
+) {
   const termEnd = dateOnly(m.term_end);
   return {
     id: Number(m.id),
@@ -48,7 +64,10 @@ export function membershipView(m: MembershipRow, plan: PlanRow | undefined, toda
     autoRenew: m.auto_renew,
     hasSavedCard: m.processor_customer_id !== null,
     /** Which card is on file, as the processor named it; null when none is, or it was saved before brands were kept. */
-    savedCard: m.processor_customer_id !== null && m.card_brand && m.card_last4 ? { brand: m.card_brand, last4: m.card_last4 } : null,
+    savedCard:
+      m.processor_customer_id !== null && m.card_brand && m.card_last4
+        ? { brand: m.card_brand, last4: m.card_last4 }
+        : null,
     renewalFailed: m.renewal_failed_at !== null,
   };
 }

@@ -14,7 +14,9 @@ export class PlanRepository {
 
   /** The plans a member can join or renew on now, in the order the club lists them. */
   offeredPlans(): Promise<PlanRow[]> {
-    return this.db<PlanRow>('membership_plans').where('active', true).orderBy([{ column: 'sort_order' }, { column: 'id' }]);
+    return this.db<PlanRow>('membership_plans')
+      .where('active', true)
+      .orderBy([{ column: 'sort_order' }, { column: 'id' }]);
   }
 
   /** One plan by id, active or not, since old payments and members still point at retired ones. */
@@ -30,7 +32,10 @@ export class PlanRepository {
 
   /** Writes the given plan columns and the update time. */
   async updatePlan(db: Db, id: number, patch: Partial<Omit<PlanRow, 'id'>>): Promise<PlanRow | undefined> {
-    const [row] = await db<PlanRow>('membership_plans').where('id', id).update({ ...patch, updated_at: db.fn.now() } as Partial<PlanRow>).returning('*');
+    const [row] = await db<PlanRow>('membership_plans')
+      .where('id', id)
+      .update({ ...patch, updated_at: db.fn.now() } as Partial<PlanRow>)
+      .returning('*');
     return row;
   }
 }

@@ -31,18 +31,34 @@ export class RosterRepository {
         if (q.status) qb.whereRaw(`${LIVE_STATUS} = ?`, [...liveBindings(asOf), q.status]);
         if (q.planId) qb.where('m.plan_id', q.planId);
         if (q.certificationLevel) qb.where('m.certification_level', q.certificationLevel);
-        if (q.associationExpiresBefore) qb.where((w) => w.where('m.association_expires', '<', q.associationExpiresBefore!).orWhereNull('m.association_expires'));
+        if (q.associationExpiresBefore)
+          qb.where((w) =>
+            w.where('m.association_expires', '<', q.associationExpiresBefore!).orWhereNull('m.association_expires'),
+          );
         if (q.q) {
           const like = `%${q.q.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
-          qb.where((w) => w.whereILike('m.legal_name', like).orWhereILike('u.email', like).orWhereILike('m.member_number', like).orWhereILike('m.association_number', like));
+          qb.where((w) =>
+            w
+              .whereILike('m.legal_name', like)
+              .orWhereILike('u.email', like)
+              .orWhereILike('m.member_number', like)
+              .orWhereILike('m.association_number', like),
+          );
         }
       });
   }
 
   /** One page of the roster, sorted by a whitelisted column with the member number as tie-break. */
-  async rosterPage(q: RosterQuery, page: number, pageSize: number, asOf: AsOf): Promise<{ items: RosterRow[]; total: number }> {
+  async rosterPage(
+    q: RosterQuery,
+    page: number,
+    pageSize: number,
+    asOf: AsOf,
+  ): Promise<{ items: RosterRow[]; total: number }> {
     const [{ count }] = await this.roster(q, asOf).count<{ count: string }[]>({ count: '*' });
-    const items = await this.rosterSorted(q, asOf).limit(pageSize).offset((page - 1) * pageSize);
+    const items = await this.rosterSorted(q, asOf)
+      .limit(pageSize)
+      .offset((page - 1) * pageSize);
     return { items, total: Number(count) };
   }
 
@@ -53,7 +69,13 @@ export class RosterRepository {
 
   private rosterSorted(q: RosterQuery, asOf: AsOf) {
     const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
-    const base = this.roster(q, asOf).select('m.*', 'u.email', 'u.marketing_opt_out', 'p.code as plan_code', 'p.name as plan_name');
+    const base = this.roster(q, asOf).select(
+      'm.*',
+      'u.email',
+      'u.marketing_opt_out',
+      'p.code as plan_code',
+      'p.name as plan_name',
+    );
     return q.sort === 'status'
       ? base.orderByRaw(`${LIVE_STATUS} ${dir}, m.member_number ASC`, liveBindings(asOf))
       : base.orderByRaw(`${SORT_COLUMNS[q.sort]} ${dir} NULLS LAST, m.member_number ASC`);
@@ -80,7 +102,10 @@ export class RosterRepository {
 
   /** Members per status as the dates give it on `asOf.today`. */
   async countsByStatus(asOf: AsOf): Promise<{ status: MembershipStatus; count: string }[]> {
-    const { rows } = await this.db.raw(`SELECT ${LIVE_STATUS} AS status, count(*) AS count FROM memberships m GROUP BY 1`, liveBindings(asOf));
+    const { rows } = await this.db.raw(
+      `SELECT ${LIVE_STATUS} AS status, count(*) AS count FROM memberships m GROUP BY 1`,
+      liveBindings(asOf),
+    );
     return rows;
   }
 }

@@ -77,8 +77,13 @@ export function nextTerm(end: string, policy: TermPolicy): Term {
  * The term a payment made on `today` buys. Before the old term ends, or within grace, it follows on from the old
  * end (never from today); after grace, or with no earlier term, a new term starts today.
  */
-export function termForPayment(today: string, currentEnd: string | null, policy: TermPolicy): Term & { renewal: boolean } {
-  if (currentEnd && today <= addDays(currentEnd, policy.graceDays)) return { ...nextTerm(currentEnd, policy), renewal: true };
+export function termForPayment(
+  today: string,
+  currentEnd: string | null,
+  policy: TermPolicy,
+): Term & { renewal: boolean } {
+  if (currentEnd && today <= addDays(currentEnd, policy.graceDays))
+    return { ...nextTerm(currentEnd, policy), renewal: true };
   return { ...newTerm(today, policy), renewal: false };
 }
 
@@ -91,7 +96,12 @@ export function renewalOpensOn(termEnd: string): string {
 }
 
 /** Status on `today`: active to the term end, lapsing through grace, lapsed after; pending until the first payment. */
-export function statusOn(today: string, termEnd: string | null, policy: Pick<TermPolicy, 'graceDays'>, renewalFailed = false): MembershipStatus {
+export function statusOn(
+  today: string,
+  termEnd: string | null,
+  policy: Pick<TermPolicy, 'graceDays'>,
+  renewalFailed = false,
+): MembershipStatus {
   if (!termEnd) return 'pending';
   if (today <= termEnd) return 'active';
   if (renewalFailed) return 'lapsed';

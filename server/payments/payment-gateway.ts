@@ -34,17 +34,31 @@ export class PaymentGateway {
             currency: 'cad',
             description: req.description,
             metadata: req.metadata,
-            ...(req.customerId ? { customer: req.customerId, ...(req.token ? { source: req.token } : {}) } : { source: req.token }),
+            ...(req.customerId
+              ? { customer: req.customerId, ...(req.token ? { source: req.token } : {}) }
+              : { source: req.token }),
           },
           { idempotencyKey: req.idempotencyKey },
         );
-        if (charge.status === 'failed') return { outcome: 'declined', message: charge.failure_message ?? 'The card was declined.', declineCode: charge.failure_code ?? null };
-        return { outcome: 'paid', chargeId: charge.id, amountCents: charge.amount, feeCents: null, cardCountry: cardCountry(charge) };
+        if (charge.status === 'failed')
+          return {
+            outcome: 'declined',
+            message: charge.failure_message ?? 'The card was declined.',
+            declineCode: charge.failure_code ?? null,
+          };
+        return {
+          outcome: 'paid',
+          chargeId: charge.id,
+          amountCents: charge.amount,
+          feeCents: null,
+          cardCountry: cardCountry(charge),
+        };
       } catch (err) {
         if (err instanceof Stripe.errors.StripeCardError) {
           return { outcome: 'declined', message: err.message, declineCode: err.decline_code ?? err.code ?? null };
         }
-        const retriable = err instanceof Stripe.errors.StripeRateLimitError || err instanceof Stripe.errors.StripeConnectionError;
+        const retriable =
+          err instanceof Stripe.errors.StripeRateLimitError || err instanceof Stripe.errors.StripeConnectionError;
         if (retriable && attempt < this.retryDelaysMs.length) {
           await sleep(this.retryDelaysMs[attempt]);
           continue;
@@ -61,8 +75,11 @@ export class PaymentGateway {
   async findCharge(key: string, value: string, scan = 500): Promise<Stripe.Charge | null> {
     let found: Stripe.Charge | null = null;
     let startingAfter: string | undefined;
-    for (let seen = 0; seen < scan && !found; ) {
-      const page = await this.stripe.charges.list({ limit: 100, ...(startingAfter ? { starting_after: startingAfter } : {}) });
+    for (let seen = 0; seen < scan && !found;) {
+      const page = await this.stripe.charges.list({
+        limit: 100,
+        ...(startingAfter ? { starting_after: startingAfter } : {}),
+      });
       found = page.data.find((c) => c.metadata?.[key] === value && c.status === 'succeeded') ?? null;
       seen += page.data.length;
       if (!page.has_more || page.data.length === 0) break;
@@ -76,7 +93,10 @@ export class PaymentGateway {
    * refund's metadata lets reconciliation match a refund whose answer never came back to its claim.
    */
   async refund(chargeId: string, amountCents: number, idempotencyKey: string): Promise<Stripe.Refund> {
-    return this.stripe.refunds.create({ charge: chargeId, amount: amountCents, metadata: { padsideRefundKey: idempotencyKey } }, { idempotencyKey });
+    return this.stripe.refunds.create(
+      { charge: chargeId, amount: amountCents, metadata: { padsideRefundKey: idempotencyKey } },
+      { idempotencyKey },
+    );
   }
 
   /** Every refund the processor holds for one charge, oldest first. */

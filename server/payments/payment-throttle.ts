@@ -21,7 +21,10 @@ export function payerKeys(p: PayerKeys): string[] {
   if (p.sessionId) keys.push(`session:${p.sessionId}`);
   if (p.email) keys.push(`email:${p.email.trim().toLowerCase()}`);
   // A pickup order has no street address; all pickups must not share one counter.
-  if (p.address?.line1) keys.push(`address:${[p.address.line1, p.address.postalCode ?? '', p.address.country].map((x) => x.toLowerCase().replace(/[^a-z0-9]/g, '')).join('|')}`);
+  if (p.address?.line1)
+    keys.push(
+      `address:${[p.address.line1, p.address.postalCode ?? '', p.address.country].map((x) => x.toLowerCase().replace(/[^a-z0-9]/g, '')).join('|')}`,
+    );
   if (p.accountId !== undefined) keys.push(`account:${p.accountId}`);
   return keys;
 }
@@ -65,7 +68,13 @@ export class PaymentThrottle {
     if (wait > 0) {
       const seconds = Math.ceil(wait / 1000);
       const message = `Too many declined payments. Try again in ${Math.ceil(seconds / 60)} minute(s).`;
-      throw new AppError(429, 'payment_attempts_limited', message, { paymentToken: message }, { 'Retry-After': String(seconds) });
+      throw new AppError(
+        429,
+        'payment_attempts_limited',
+        message,
+        { paymentToken: message },
+        { 'Retry-After': String(seconds) },
+      );
     }
     let result: T;
     try {

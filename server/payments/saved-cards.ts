@@ -8,7 +8,8 @@ export interface CardOnFile {
 }
 
 /** What saving a card came to: a processor customer holding it (and which card), or the processor's refusal. */
-export type SaveCardResult = { outcome: 'saved'; customerId: string; card: CardOnFile | null } | { outcome: 'declined'; message: string };
+export type SaveCardResult =
+  { outcome: 'saved'; customerId: string; card: CardOnFile | null } | { outcome: 'declined'; message: string };
 
 /** What Padside may show of a saved card: never its number. */
 export interface SavedCardSummary {
@@ -26,7 +27,8 @@ export class SavedCards {
   async save(token: string, email: string, name: string, idempotencyKey: string): Promise<SaveCardResult> {
     try {
       const customer = await this.gateway.stripe.customers.create({ source: token, email, name }, { idempotencyKey });
-      const sourceId = typeof customer.default_source === 'string' ? customer.default_source : (customer.default_source?.id ?? null);
+      const sourceId =
+        typeof customer.default_source === 'string' ? customer.default_source : (customer.default_source?.id ?? null);
       const source = sourceId ? await this.gateway.stripe.customers.retrieveSource(customer.id, sourceId) : null;
       return { outcome: 'saved', customerId: customer.id, card: cardOnFile(source) };
     } catch (err) {
@@ -63,13 +65,20 @@ export class SavedCards {
     const customer = await this.gateway.stripe.customers.retrieve(customerId, { expand: ['sources'] });
     if (customer.deleted) return;
     const ids = new Set((customer.sources?.data ?? []).map((s) => s.id));
-    if (customer.default_source) ids.add(typeof customer.default_source === 'string' ? customer.default_source : customer.default_source.id);
+    if (customer.default_source)
+      ids.add(typeof customer.default_source === 'string' ? customer.default_source : customer.default_source.id);
     for (const id of ids) await this.gateway.stripe.customers.deleteSource(customerId, id);
     await this.gateway.stripe.customers.update(customerId, { name: '', email: '', description: '' });
   }
 
   /** Charges the customer's default card once; the idempotency key makes a repeated attempt count once. */
-  charge(customerId: string, amountCents: number, description: string, idempotencyKey: string, metadata: Record<string, string>): Promise<ChargeResult> {
+  charge(
+    customerId: string,
+    amountCents: number,
+    description: string,
+    idempotencyKey: string,
+    metadata: Record<string, string>,
+  ): Promise<ChargeResult> {
     return this.gateway.charge({ customerId, token: '', amountCents, description, idempotencyKey, metadata });
   }
 }
@@ -80,6 +89,7 @@ function cardOnFile(source: Stripe.CustomerSource | null): CardOnFile | null {
 }
 
 function refusal(err: unknown): string {
-  if (err instanceof Stripe.errors.StripeCardError || err instanceof Stripe.errors.StripeInvalidRequestError) return err.message;
+  if (err instanceof Stripe.errors.StripeCardError || err instanceof Stripe.errors.StripeInvalidRequestError)
+    return err.message;
   throw err;
 }

@@ -16,7 +16,8 @@ export function csrfProtection(exempt: string[]): RequestHandler {
     if (SAFE.has(req.method) || exempt.includes(req.path)) return next();
     const sent = req.get('x-csrf-token') ?? '';
     const expected = req.session?.csrfToken ?? '';
-    const ok = sent.length > 0 && sent.length === expected.length && timingSafeEqual(Buffer.from(sent), Buffer.from(expected));
+    const ok =
+      sent.length > 0 && sent.length === expected.length && timingSafeEqual(Buffer.from(sent), Buffer.from(expected));
     next(ok ? undefined : new AppError(403, 'csrf_failed', 'The form expired. Reload the page and try again.'));
   };
 }

@@ -48,7 +48,10 @@ export function inDateOrder<T>(rows: readonly T[], dateOf: (row: T) => Date | st
     if (!d) return Number.POSITIVE_INFINITY;
     return typeof d === 'string' ? Date.parse(d.length === 10 ? `${d}T00:00:00Z` : d) : d.getTime();
   };
-  return rows.map((row, i) => ({ row, i, k: key(row) })).sort((a, b) => a.k - b.k || a.i - b.i).map((x) => x.row);
+  return rows
+    .map((row, i) => ({ row, i, k: key(row) }))
+    .sort((a, b) => a.k - b.k || a.i - b.i)
+    .map((x) => x.row);
 }
 
 /** Cents as a plain decimal for spreadsheets: -1234 -> "-12.34". */

@@ -94,7 +94,8 @@ export class DatabaseNotifications {
       for (const channel of this.watchers.keys()) this.changed(channel);
       return true;
     } catch (err) {
-      if (!this.closed) this.log.warn({ err }, 'could not listen for database notifications; reading the database instead');
+      if (!this.closed)
+        this.log.warn({ err }, 'could not listen for database notifications; reading the database instead');
       this.retryAt = Date.now() + RETRY_AFTER_MS;
       this.listening = null;
       await client.end().catch(() => undefined);

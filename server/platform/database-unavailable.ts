@@ -7,7 +7,13 @@ const SQLSTATES = new Set(['57P01', '57P02', '57P03', '53300']);
 // Only a refused connect: the other socket errors of a dropped database connection arrive as "Connection terminated".
 const SOCKET_CODES = new Set(['ECONNREFUSED']);
 // node-postgres and knex report a dropped or unobtainable connection only in words (knex puts the SQL in front).
-const MESSAGES = [/Connection terminated/i, /Knex: Timeout acquiring a connection/i, /Client has encountered a connection error/i, /timeout exceeded when trying to connect/i, /the database system is (starting up|shutting down|in recovery mode)/i];
+const MESSAGES = [
+  /Connection terminated/i,
+  /Knex: Timeout acquiring a connection/i,
+  /Client has encountered a connection error/i,
+  /timeout exceeded when trying to connect/i,
+  /the database system is (starting up|shutting down|in recovery mode)/i,
+];
 
 interface ErrorLike {
   code?: unknown;

@@ -25,7 +25,9 @@ interface HttpishError {
 export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next) => {
   if (err instanceof AppError) {
     if (err.headers) res.set(err.headers);
-    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    res
+      .status(err.status)
+      .json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
     return;
   }
   const e = (err ?? {}) as HttpishError;
@@ -37,15 +39,27 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
       'encoding.unsupported': 'The request body encoding is not supported.',
       'charset.unsupported': 'The request body charset is not supported.',
     };
-    res.status(status).json({ error: { code: (e.type ?? 'bad_request').replace(/\./g, '_'), message: messages[e.type ?? ''] ?? 'The request could not be read.' } });
+    res.status(status).json({
+      error: {
+        code: (e.type ?? 'bad_request').replace(/\./g, '_'),
+        message: messages[e.type ?? ''] ?? 'The request could not be read.',
+      },
+    });
     return;
   }
   if (isDatabaseUnavailable(err)) {
     req.log?.warn({ err }, 'database unavailable');
     res.set('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS));
-    res.status(503).json({ error: { code: 'database_unavailable', message: 'Padside cannot reach its database just now. Please try again in a few seconds.' } });
+    res.status(503).json({
+      error: {
+        code: 'database_unavailable',
+        message: 'Padside cannot reach its database just now. Please try again in a few seconds.',
+      },
+    });
     return;
   }
   req.log?.error({ err }, 'unhandled error');
-  res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side. It has been logged; please try again.' } });
+  res.status(500).json({
+    error: { code: 'internal', message: 'Something went wrong on our side. It has been logged; please try again.' },
+  });
 };

@@ -48,7 +48,10 @@ export class FailureLimiter {
   async standings(keys: string[]): Promise<{ blockedMs: number; counted: boolean }[]> {
     const now = Date.now();
     const rows: { key: string; points: number; expire: string | null }[] = await this.db('rate_limits')
-      .whereIn('key', keys.map((k) => `${this.keyPrefix}:${k}`))
+      .whereIn(
+        'key',
+        keys.map((k) => `${this.keyPrefix}:${k}`),
+      )
       .where((q) => q.where('expire', '>', now).orWhereNull('expire'))
       .select('key', 'points', 'expire');
     const byKey = new Map(rows.map((r) => [r.key, r]));

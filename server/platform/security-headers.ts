@@ -46,9 +46,23 @@ export function securityHeaders(options: { stripeJs: boolean }) {
 
 /** Browser features Padside never uses; each is denied to every document (and every frame in it). */
 const DENIED_FEATURES = [
-  'accelerometer', 'autoplay', 'bluetooth', 'display-capture', 'encrypted-media', 'geolocation', 'gyroscope', 'hid',
-  'magnetometer', 'microphone', 'midi', 'payment', 'publickey-credentials-get', 'screen-wake-lock',
-  'serial', 'usb', 'xr-spatial-tracking',
+  'accelerometer',
+  'autoplay',
+  'bluetooth',
+  'display-capture',
+  'encrypted-media',
+  'geolocation',
+  'gyroscope',
+  'hid',
+  'magnetometer',
+  'microphone',
+  'midi',
+  'payment',
+  'publickey-credentials-get',
+  'screen-wake-lock',
+  'serial',
+  'usb',
+  'xr-spatial-tracking',
 ];
 
 /**

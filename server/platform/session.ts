@@ -37,7 +37,12 @@ export function createSessionMiddleware(config: Config): { middleware: RequestHa
       this.set(sid, sess, callback as ((err?: unknown) => void) | undefined);
     }
   }
-  const store = new ThriftyPgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: config.env === 'test' ? false : 15 * 60 });
+  const store = new ThriftyPgStore({
+    pool,
+    tableName: 'session',
+    createTableIfMissing: false,
+    pruneSessionInterval: config.env === 'test' ? false : 15 * 60,
+  });
   const middleware = session({
     name: 'padside.sid',
     secret: config.sessionSecret,

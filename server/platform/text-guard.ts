@@ -37,7 +37,8 @@ export function badTextFields(value: unknown, at = '', found: FieldErrors = {}, 
 /** Throws the usual 400 when `value` holds text that cannot be stored (used by parse() and the request guard). */
 export function assertStorableText(value: unknown): void {
   const fields = badTextFields(value);
-  if (Object.keys(fields).length) throw new AppError(400, 'validation_failed', 'Some fields hold characters that cannot be stored.', fields);
+  if (Object.keys(fields).length)
+    throw new AppError(400, 'validation_failed', 'Some fields hold characters that cannot be stored.', fields);
 }
 
 /**

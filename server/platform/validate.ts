@@ -13,7 +13,8 @@ export function parse<T extends z.ZodType>(schema: T, value: unknown): z.infer<T
     const at = issue.path.join('.');
     // A strict object names each key it does not know, so a misspelt filter shows beside itself.
     if (issue.code === 'unrecognized_keys') {
-      for (const k of issue.keys) fields[at ? `${at}.${k}` : k] ??= 'Not a field this request takes; check the spelling.';
+      for (const k of issue.keys)
+        fields[at ? `${at}.${k}` : k] ??= 'Not a field this request takes; check the spelling.';
       continue;
     }
     fields[at || '_'] ??= issue.message;

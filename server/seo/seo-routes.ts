@@ -10,9 +10,20 @@ const SECTIONS = ['/', '/shop', '/build-logs', '/launches', '/sponsors'];
 export function sitemapRoutes(pages: SitemapRepository, origin: string, clock: Clock): Router {
   const r = Router();
   r.get('/', async function sitemap(_req, res) {
-    const [products, posts, launches] = await Promise.all([pages.products(clock.now()), pages.posts(), pages.launches()]);
+    const [products, posts, launches] = await Promise.all([
+      pages.products(clock.now()),
+      pages.posts(),
+      pages.launches(),
+    ]);
     res.type('application/xml').setHeader('Cache-Control', 'public, max-age=3600');
-    res.send(sitemapXml(origin, [...SECTIONS.map((path) => ({ path, lastModified: null })), ...products, ...posts, ...launches]));
+    res.send(
+      sitemapXml(origin, [
+        ...SECTIONS.map((path) => ({ path, lastModified: null })),
+        ...products,
+        ...posts,
+        ...launches,
+      ]),
+    );
   });
   return r;
 }

@@ -27,13 +27,21 @@ export class SitemapRepository {
 
   /** Published build logs (members-only ones too: their page shows the summary to everyone). */
   async posts(): Promise<SitemapEntry[]> {
-    const rows: { slug: string; published_at: Date; updated_at: Date }[] = await this.db('posts').where('status', 'published').orderBy('published_at', 'desc').select('slug', 'published_at', 'updated_at');
-    return rows.map((r) => ({ path: `/build-logs/${r.slug}`, lastModified: new Date(Math.max(r.published_at.getTime(), r.updated_at.getTime())) }));
+    const rows: { slug: string; published_at: Date; updated_at: Date }[] = await this.db('posts')
+      .where('status', 'published')
+      .orderBy('published_at', 'desc')
+      .select('slug', 'published_at', 'updated_at');
+    return rows.map((r) => ({
+      path: `/build-logs/${r.slug}`,
+      lastModified: new Date(Math.max(r.published_at.getTime(), r.updated_at.getTime())),
+    }));
   }
 
   /** Every launch day on the public calendar. */
   async launches(): Promise<SitemapEntry[]> {
-    const rows: { id: string; updated_at: Date }[] = await this.db('launches').orderBy('launch_date', 'desc').select('id', 'updated_at');
+    const rows: { id: string; updated_at: Date }[] = await this.db('launches')
+      .orderBy('launch_date', 'desc')
+      .select('id', 'updated_at');
     return rows.map((r) => ({ path: `/launches/${r.id}`, lastModified: r.updated_at }));
   }
 }

@@ -16,13 +16,35 @@ export function sitemapXml(origin: string, entries: SitemapEntry[]): string {
     const lastmod = e.lastModified ? `<lastmod>${e.lastModified.toISOString()}</lastmod>` : '';
     return `  <url><loc>${escapeXml(new URL(e.path, origin).toString())}</loc>${lastmod}</url>`;
   });
-  return ['<?xml version="1.0" encoding="UTF-8"?>', '<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9">', ...urls, '</urlset>', ''].join('\n');
+  return [
+    '<?xml version="1.0" encoding="UTF-8"?>',
+    '<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9">',
+    ...urls,
+    '</urlset>',
+    '',
+  ].join('\n');
 }
 
 /** Paths crawlers are asked to keep out of: the console, personal pages, checkout and the API. */
-export const PRIVATE_PATHS = ['/api/', '/console', '/account', '/shop/cart', '/shop/checkout', '/shop/orders', '/membership/card', '/sponsors/portal'];
+export const PRIVATE_PATHS = [
+  '/api/',
+  '/console',
+  '/account',
+  '/shop/cart',
+  '/shop/checkout',
+  '/shop/orders',
+  '/membership/card',
+  '/sponsors/portal',
+];
 
 /** robots.txt (RFC 9309): every crawler kept out of the private paths, pointed at the sitemap. */
 export function robotsTxt(origin: string): string {
-  return ['User-agent: *', ...PRIVATE_PATHS.map((p) => `Disallow: ${p}`), 'Allow: /', '', `Sitemap: ${new URL('/sitemap.xml', origin).toString()}`, ''].join('\n');
+  return [
+    'User-agent: *',
+    ...PRIVATE_PATHS.map((p) => `Disallow: ${p}`),
+    'Allow: /',
+    '',
+    `Sitemap: ${new URL('/sitemap.xml', origin).toString()}`,
+    '',
+  ].join('\n');
 }

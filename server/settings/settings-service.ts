@@ -36,7 +36,10 @@ export class SettingsService {
    */
   async get<T>(def: SettingDefinition<T>, trx?: Knex | Knex.Transaction): Promise<T> {
     if (trx || !this.cache) return this.read(def, trx ?? this.db);
-    const value = await this.cache.get(def.key, new Date(), async () => ({ value: await this.read(def, this.db), ...ALWAYS }));
+    const value = await this.cache.get(def.key, new Date(), async () => ({
+      value: await this.read(def, this.db),
+      ...ALWAYS,
+    }));
     // A copy, so a caller that changes what it got cannot change what the next caller gets.
     return structuredClone(value as T);
   }
@@ -44,7 +47,8 @@ export class SettingsService {
   private async read<T>(def: SettingDefinition<T>, db: Knex | Knex.Transaction): Promise<T> {
     const row = await db('settings').where('key', def.key).first();
     if (!row) return def.defaults;
-    const merged = typeof def.defaults === 'object' && def.defaults !== null ? { ...def.defaults, ...row.value } : row.value;
+    const merged =
+      typeof def.defaults === 'object' && def.defaults !== null ? { ...def.defaults, ...row.value } : row.value;
     return def.schema.parse(merged);
   }
 

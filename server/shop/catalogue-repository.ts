@@ -63,15 +63,26 @@ export class CatalogueRepository {
    * Products with their variants, latest run and its variant caps, in one query (the storefront's every answer
    * starts here); `activeOnly` for the storefront, `variantIds` for the products a cart holds.
    */
-  async bundles(where: { activeOnly?: boolean; slug?: string; id?: number; variantIds?: number[] } = {}, db: Knex | Knex.Transaction = this.db): Promise<ProductBundle[]> {
+  async bundles(
+    where: { activeOnly?: boolean; slug?: string; id?: number; variantIds?: number[] } = {},
+    db: Knex | Knex.Transaction = this.db,
+  ): Promise<ProductBundle[]> {
     const q = db('shop_products as p')
       .select(
         'p.*',
-        db.raw(`coalesce((SELECT json_agg(json_build_object('id', v.id, 'product_id', v.product_id, 'label', v.label, 'sku', v.sku, 'weight_grams', v.weight_grams, 'price_cents', v.price_cents, 'stock_on_hand', v.stock_on_hand, 'position', v.position) ORDER BY v.position, v.id) FROM shop_variants v WHERE v.product_id = p.id), '[]') AS variants`),
-        db.raw(`CASE WHEN r.id IS NULL THEN NULL ELSE json_build_object('id', r.id, 'product_id', r.product_id, 'name', r.name, 'cap', r.cap, 'reserved', r.reserved, 'opens_at', r.opens_at, 'closes_at', r.closes_at, 'state', r.state, 'unit_cost_cents', r.unit_cost_cents) END AS run`),
-        db.raw(`coalesce((SELECT json_agg(json_build_object('run_id', c.run_id, 'variant_id', c.variant_id, 'cap', c.cap, 'reserved', c.reserved)) FROM shop_run_variant_caps c WHERE c.run_id = r.id), '[]') AS caps`),
+        db.raw(
+          `coalesce((SELECT json_agg(json_build_object('id', v.id, 'product_id', v.product_id, 'label', v.label, 'sku', v.sku, 'weight_grams', v.weight_grams, 'price_cents', v.price_cents, 'stock_on_hand', v.stock_on_hand, 'position', v.position) ORDER BY v.position, v.id) FROM shop_variants v WHERE v.product_id = p.id), '[]') AS variants`,
+        ),
+        db.raw(
+          `CASE WHEN r.id IS NULL THEN NULL ELSE json_build_object('id', r.id, 'product_id', r.product_id, 'name', r.name, 'cap', r.cap, 'reserved', r.reserved, 'opens_at', r.opens_at, 'closes_at', r.closes_at, 'state', r.state, 'unit_cost_cents', r.unit_cost_cents) END AS run`,
+        ),
+        db.raw(
+          `coalesce((SELECT json_agg(json_build_object('run_id', c.run_id, 'variant_id', c.variant_id, 'cap', c.cap, 'reserved', c.reserved)) FROM shop_run_variant_caps c WHERE c.run_id = r.id), '[]') AS caps`,
+        ),
       )
-      .joinRaw('LEFT JOIN LATERAL (SELECT * FROM shop_runs WHERE product_id = p.id ORDER BY opens_at DESC, id DESC LIMIT 1) r ON true')
+      .joinRaw(
+        'LEFT JOIN LATERAL (SELECT * FROM shop_runs WHERE product_id = p.id ORDER BY opens_at DESC, id DESC LIMIT 1) r ON true',
+      )
       .orderBy([{ column: 'p.position' }, { column: 'p.id' }]);
     if (where.activeOnly) q.where('p.active', true);
     if (where.slug) q.where('p.slug', where.slug);
@@ -92,15 +103,40 @@ export class CatalogueRepository {
   }
 
   /** Adds a product with its variants in the caller's transaction, so a product never appears without its sizes. */
-  async insertProduct(trx: Knex.Transaction, row: Omit<ProductRow, 'id' | 'position' | 'active' | 'max_per_order'> & { max_per_order?: number }, variants: Omit<VariantRow, 'id' | 'product_id' | 'position'>[]): Promise<number> {
-    const [p] = await trx('shop_products').insert({ ...row, size_chart: row.size_chart ? JSON.stringify(row.size_chart) : null, images: JSON.stringify(row.images) }).returning('id');
+  async insertProduct(
+    trx: Knex.Transaction,
+    row: Omit<ProductRow, 'id' | 'position' | 'active' | 'max_per_order'> & { max_per_order?: number },
+    variants: Omit<VariantRow, 'id' | 'product_id' | 'position'>[],
+  ): Promise<number> {
+    const [p] = await trx('shop_products')
+      .insert({
+        ...row,
+        size_chart: row.size_chart ? JSON.stringify(row.size_chart) : null,
+        images: JSON.stringify(row.images),
+      })
+      .returning('id');
     const productId = Number(p.id);
     await trx('shop_variants').insert(variants.map((v, i) => ({ ...v, product_id: productId, position: i })));
     return productId;
   }
 
   /** Writes the given product columns; false when there is no such product. */
-  async updateProduct(id: number, patch: Partial<Pick<ProductRow, 'name' | 'description_md' | 'price_cents' | 'weight_grams' | 'size_chart' | 'images' | 'active' | 'max_per_order'>>): Promise<boolean> {
+  async updateProduct(
+    id: number,
+    patch: Partial<
+      Pick<
+        ProductRow,
+        | 'name'
+        | 'description_md'
+        | 'price_cents'
+        | 'weight_grams'
+        | 'size_chart'
+        | 'images'
+        | 'active'
+        | 'max_per_order'
+      >
+    >,
+  ): Promise<boolean> {
     const row: Record<string, unknown> = { ...patch, updated_at: this.db.fn.now() };
     if (patch.size_chart !== undefined) row.size_chart = patch.size_chart ? JSON.stringify(patch.size_chart) : null;
     if (patch.images) row.images = JSON.stringify(patch.images);
@@ -108,10 +144,19 @@ export class CatalogueRepository {
   }
 
   /** Adds a print run with its per-variant caps in the caller's transaction, so a run never opens without its limits. */
-  async insertRun(trx: Knex.Transaction, row: Omit<RunRow, 'id' | 'reserved' | 'state'>, caps: { variantId: number; cap: number }[]): Promise<number> {
-    const [r] = await trx('shop_runs').insert({ ...row, state: 'scheduled' }).returning('id');
+  async insertRun(
+    trx: Knex.Transaction,
+    row: Omit<RunRow, 'id' | 'reserved' | 'state'>,
+    caps: { variantId: number; cap: number }[],
+  ): Promise<number> {
+    const [r] = await trx('shop_runs')
+      .insert({ ...row, state: 'scheduled' })
+      .returning('id');
     const runId = Number(r.id);
-    if (caps.length) await trx('shop_run_variant_caps').insert(caps.map((c) => ({ run_id: runId, variant_id: c.variantId, cap: c.cap })));
+    if (caps.length)
+      await trx('shop_run_variant_caps').insert(
+        caps.map((c) => ({ run_id: runId, variant_id: c.variantId, cap: c.cap })),
+      );
     return runId;
   }
 
@@ -123,7 +168,10 @@ export class CatalogueRepository {
 
   /** Every print run with its product's name and slug, newest opening first, for the staff list. */
   async runs(): Promise<(RunRow & { product_name: string; product_slug: string })[]> {
-    const rows = await this.db('shop_runs as r').join('shop_products as p', 'p.id', 'r.product_id').select('r.*', 'p.name as product_name', 'p.slug as product_slug').orderBy('r.opens_at', 'desc');
+    const rows = await this.db('shop_runs as r')
+      .join('shop_products as p', 'p.id', 'r.product_id')
+      .select('r.*', 'p.name as product_name', 'p.slug as product_slug')
+      .orderBy('r.opens_at', 'desc');
     return rows.map((r) => ({ ...r, id: Number(r.id), product_id: Number(r.product_id) }));
   }
 
@@ -148,7 +196,9 @@ export class CatalogueRepository {
     const rows = await this.db('shop_products')
       .where((q) => {
         for (const url of urls) {
-          q.orWhereRaw('images @> ?::jsonb', [JSON.stringify([{ url }])]).orWhereRaw('images @> ?::jsonb', [JSON.stringify([{ thumbnailUrl: url }])]);
+          q.orWhereRaw('images @> ?::jsonb', [JSON.stringify([{ url }])]).orWhereRaw('images @> ?::jsonb', [
+            JSON.stringify([{ thumbnailUrl: url }]),
+          ]);
           q.orWhere('description_md', 'like', `%${url}%`);
         }
       })

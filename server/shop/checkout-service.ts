@@ -49,7 +49,8 @@ export class CheckoutService {
     const quote = await this.quotes.quote(req, user?.roles ?? [], now);
     const { id, number } = await this.db.transaction(async (trx) => {
       const created = await this.orders.insert(trx, quote, req, user?.id ?? null, now);
-      if (!(await this.stock.reserve(trx, quote.lines, now))) throw conflict('sold_out', 'Someone got there first: part of the cart just sold out.');
+      if (!(await this.stock.reserve(trx, quote.lines, now)))
+        throw conflict('sold_out', 'Someone got there first: part of the cart just sold out.');
       return created;
     });
     return this.charge({ id, number, totalCents: quote.totalCents }, 1, req.paymentToken);
@@ -62,8 +63,10 @@ export class CheckoutService {
   async pay(orderId: number, token: string): Promise<PaymentOutcome> {
     const before = await this.orders.find(orderId);
     if (!before) throw notFound('No such order.');
-    if (before.order.status === 'paid' || before.order.status === 'packed' || before.order.status === 'shipped') return { status: 'paid', bundle: before };
-    if (before.order.status !== 'pending') throw conflict('order_closed', 'This order was not paid and its units were released. Start a new order.');
+    if (before.order.status === 'paid' || before.order.status === 'packed' || before.order.status === 'shipped')
+      return { status: 'paid', bundle: before };
+    if (before.order.status !== 'pending')
+      throw conflict('order_closed', 'This order was not paid and its units were released. Start a new order.');
     if (before.order.payment_attempts > 0) {
       const earlier = await this.payments.findCharge('orderId', String(orderId));
       if (earlier) return { status: 'paid', bundle: await this.settlePaid(orderId, earlier.id, earlier.amount, null) };
@@ -73,12 +76,24 @@ export class CheckoutService {
       .where({ id: orderId, status: 'pending', payment_attempts: before.order.payment_attempts })
       .update({ payment_attempts: this.db.raw('payment_attempts + 1'), last_attempt_at: this.clock.now() })
       .returning('payment_attempts');
-    if (!claimed) throw conflict('payment_in_progress', 'A payment for this order is already under way; reload the order in a moment.');
-    return this.charge({ id: orderId, number: before.order.number, totalCents: before.order.total_cents }, Number(claimed.payment_attempts), token);
+    if (!claimed)
+      throw conflict(
+        'payment_in_progress',
+        'A payment for this order is already under way; reload the order in a moment.',
+      );
+    return this.charge(
+      { id: orderId, number: before.order.number, totalCents: before.order.total_cents },
+      Number(claimed.payment_attempts),
+      token,
+    );
   }
 
   /** Charges the attempt already claimed and settles what came of it. */
-  private async charge(order: { id: number; number: string; totalCents: number }, attempt: number, token: string): Promise<PaymentOutcome> {
+  private async charge(
+    order: { id: number; number: string; totalCents: number },
+    attempt: number,
+    token: string,
+  ): Promise<PaymentOutcome> {
     const result = await this.payments.charge({
       amountCents: order.totalCents,
       token,
@@ -86,25 +101,43 @@ export class CheckoutService {
       idempotencyKey: `padside-order-${order.id}-attempt-${attempt}`,
       metadata: { orderId: String(order.id), orderNumber: order.number },
     });
-    if (result.outcome === 'paid') return { status: 'paid', bundle: await this.settlePaid(order.id, result.chargeId, result.amountCents, result.cardCountry) };
+    if (result.outcome === 'paid')
+      return {
+        status: 'paid',
+        bundle: await this.settlePaid(order.id, result.chargeId, result.amountCents, result.cardCountry),
+      };
     if (result.outcome === 'declined') {
       await this.settleFailed(order.id, result.message);
       throw new AppError(402, 'payment_declined', result.message, { paymentToken: result.message });
     }
     this.log.warn({ orderId: order.id, message: result.message }, 'payment outcome unknown; order left pending');
     await this.orders.update(this.db, order.id, { payment_message: result.message });
-    return { status: 'pending', bundle: (await this.orders.find(order.id))!, message: 'We could not confirm the payment. Nothing is lost: try again, and you will never be charged twice.' };
+    return {
+      status: 'pending',
+      bundle: (await this.orders.find(order.id))!,
+      message: 'We could not confirm the payment. Nothing is lost: try again, and you will never be charged twice.',
+    };
   }
 
   /**
    * Marks the order paid once, records the money movement and queues the confirmation, in one transaction; returns
    * the order as that transaction left it (read once), or as it stands when another path settled it first.
    */
-  async settlePaid(orderId: number, chargeId: string, amountCents: number, cardCountry: string | null): Promise<OrderBundle> {
+  async settlePaid(
+    orderId: number,
+    chargeId: string,
+    amountCents: number,
+    cardCountry: string | null,
+  ): Promise<OrderBundle> {
     const [fees, seller] = await Promise.all([this.settings.get(PROCESSOR_FEES), this.receipts.seller()]);
     const now = this.clock.now();
     const settled = await this.db.transaction(async (trx) => {
-      const b = await this.orders.transitionFromPending(trx, orderId, { status: 'paid', charge_id: chargeId, paid_at: now, payment_message: null });
+      const b = await this.orders.transitionFromPending(trx, orderId, {
+        status: 'paid',
+        charge_id: chargeId,
+        paid_at: now,
+        payment_message: null,
+      });
       if (!b) return null;
       await recordMovement(trx, {
         occurredAt: now,
@@ -118,9 +151,24 @@ export class CheckoutService {
         processorChargeId: chargeId,
         method: 'card',
         idempotencyKey: `shop-payment-${orderId}`,
-        taxes: b.taxes.map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, ratePercent: t.rate_percent, taxableCents: t.taxable_cents, taxCents: t.amount_cents })),
+        taxes: b.taxes.map((t) => ({
+          code: t.code,
+          jurisdiction: t.jurisdiction,
+          ratePercent: t.rate_percent,
+          taxableCents: t.taxable_cents,
+          taxCents: t.amount_cents,
+        })),
       });
-      await enqueueEmail(trx, confirmationEmail(b, this.links.urlFor(b.order.id, b.order.email), this.teamName, this.receipts.build(b, seller), await this.guide.nextSteps(b, trx)));
+      await enqueueEmail(
+        trx,
+        confirmationEmail(
+          b,
+          this.links.urlFor(b.order.id, b.order.email),
+          this.teamName,
+          this.receipts.build(b, seller),
+          await this.guide.nextSteps(b, trx),
+        ),
+      );
       return b;
     });
     return settled ?? (await this.orders.find(orderId))!;
@@ -129,9 +177,13 @@ export class CheckoutService {
   /** Fails a pending order and gives its units back, once. */
   async settleFailed(orderId: number, message: string): Promise<void> {
     await this.db.transaction(async (trx) => {
-      if (!(await this.orders.transition(trx, orderId, ['pending'], { status: 'failed', payment_message: message }))) return;
+      if (!(await this.orders.transition(trx, orderId, ['pending'], { status: 'failed', payment_message: message })))
+        return;
       const b = (await this.orders.find(orderId, trx))!;
-      await this.stock.release(trx, b.items.map((i) => ({ variantId: i.variant_id, runId: i.run_id, quantity: i.quantity })));
+      await this.stock.release(
+        trx,
+        b.items.map((i) => ({ variantId: i.variant_id, runId: i.run_id, quantity: i.quantity })),
+      );
     });
   }
 

@@ -19,7 +19,8 @@ export class FulfilmentService {
   /** Marks a paid order packed; only paid orders move, so an unpaid one is never shipped by mistake. */
   async pack(id: number): Promise<OrderBundle> {
     await this.mustExist(id);
-    if (!(await this.orders.transition(this.db, id, ['paid'], { status: 'packed', packed_at: this.clock.now() }))) throw conflict('wrong_status', 'Only a paid order can be marked packed.');
+    if (!(await this.orders.transition(this.db, id, ['paid'], { status: 'packed', packed_at: this.clock.now() })))
+      throw conflict('wrong_status', 'Only a paid order can be marked packed.');
     return (await this.orders.find(id))!;
   }
 
@@ -29,12 +30,26 @@ export class FulfilmentService {
     await this.db.transaction(async (trx) => {
       // A pre-order ships once its run is printed (the run marked shipped from the printer), never before.
       const waiting = await this.orders.unprintedRuns(id, trx);
-      if (waiting.length) throw conflict('run_not_printed', `This order waits for its print run (${waiting.join(', ')}); ship it once the run is printed.`);
-      if (!(await this.orders.transition(trx, id, ['paid', 'packed'], { status: 'shipped', shipped_at: this.clock.now(), carrier, tracking_number: trackingNumber }))) {
+      if (waiting.length)
+        throw conflict(
+          'run_not_printed',
+          `This order waits for its print run (${waiting.join(', ')}); ship it once the run is printed.`,
+        );
+      if (
+        !(await this.orders.transition(trx, id, ['paid', 'packed'], {
+          status: 'shipped',
+          shipped_at: this.clock.now(),
+          carrier,
+          tracking_number: trackingNumber,
+        }))
+      ) {
         throw conflict('wrong_status', 'Only a paid or packed order can be shipped.');
       }
       const shipped = (await this.orders.find(id, trx))!;
-      await enqueueEmail(trx, shippedEmail(shipped, this.links.urlFor(shipped.order.id, shipped.order.email), this.teamName));
+      await enqueueEmail(
+        trx,
+        shippedEmail(shipped, this.links.urlFor(shipped.order.id, shipped.order.email), this.teamName),
+      );
     });
     return (await this.orders.find(id))!;
   }

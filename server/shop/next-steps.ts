@@ -18,7 +18,6 @@ export interface NextStepsInput {
   timeZone: string;
 }
 
-
 /**
  * The buyer's next steps in plain words: when each run closes and goes to the printer, that stock items come off
  * the shelf, and how the order reaches them (mailed with tracking, or handed out at the club's launch). Empty for
@@ -29,7 +28,9 @@ export function nextSteps(i: NextStepsInput): string[] {
   const lines: string[] = [];
   for (const run of i.runs) {
     if (run.state === 'scheduled' || run.state === 'open' || run.state === 'sold_out') {
-      lines.push(`${run.name} takes orders until ${formatDateTime(run.closesAt, i.timeZone)} ${clubTimeInWords(i.timeZone)}. The whole run goes to the printer after that, and your order is packed when the prints are back.`);
+      lines.push(
+        `${run.name} takes orders until ${formatDateTime(run.closesAt, i.timeZone)} ${clubTimeInWords(i.timeZone)}. The whole run goes to the printer after that, and your order is packed when the prints are back.`,
+      );
     } else if (run.state === 'closed') {
       lines.push(`${run.name} has closed and goes to the printer next; your order is packed when the prints are back.`);
     } else if (run.state === 'in_production') {
@@ -38,7 +39,12 @@ export function nextSteps(i: NextStepsInput): string[] {
       lines.push(`${run.name} has been printed; your order is packed from it.`);
     }
   }
-  if (i.hasStockItems) lines.push(i.runs.length ? 'In-stock items wait for the printed ones, so everything comes together.' : 'Everything is in stock, so your order is packed in the coming days.');
+  if (i.hasStockItems)
+    lines.push(
+      i.runs.length
+        ? 'In-stock items wait for the printed ones, so everything comes together.'
+        : 'Everything is in stock, so your order is packed in the coming days.',
+    );
   lines.push(
     i.pickup
       ? `It is handed out at the merch table at the next ${i.clubName} launch: bring this receipt or your order number.`

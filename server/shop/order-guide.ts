@@ -20,7 +20,14 @@ export class OrderGuide {
     return nextSteps({
       status: b.order.status,
       pickup: b.order.shipping_code === 'pickup',
-      runs: runs.map((r) => ({ name: r.name, closesAt: r.closes_at, state: effectiveRunState({ state: r.state, cap: r.cap, reserved: r.reserved, opensAt: r.opens_at, closesAt: r.closes_at }, now) })),
+      runs: runs.map((r) => ({
+        name: r.name,
+        closesAt: r.closes_at,
+        state: effectiveRunState(
+          { state: r.state, cap: r.cap, reserved: r.reserved, opensAt: r.opens_at, closesAt: r.closes_at },
+          now,
+        ),
+      })),
       hasStockItems: b.items.some((i) => i.run_id === null),
       clubName: this.clubName,
       timeZone: this.timeZone,

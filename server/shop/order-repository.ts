@@ -85,10 +85,21 @@ export interface OrderBundle {
 export type ZonedOrderFilter = OrderFilter & { timeZone: string };
 
 /** The column behind each sort key the staff table offers. */
-const ORDER_SORTS: Record<OrderSortKey, string> = { created: 'o.created_at', number: 'o.number', email: 'o.email', total: 'o.total_cents', status: 'o.status' };
+const ORDER_SORTS: Record<OrderSortKey, string> = {
+  created: 'o.created_at',
+  number: 'o.number',
+  email: 'o.email',
+  total: 'o.total_cents',
+  status: 'o.status',
+};
 
 type Db = Knex | Knex.Transaction;
-const fix = (r: Record<string, unknown>): OrderRow => ({ ...(r as unknown as OrderRow), id: Number(r.id), user_id: r.user_id === null ? null : Number(r.user_id), priced_on: r.priced_on_text as string });
+const fix = (r: Record<string, unknown>): OrderRow => ({
+  ...(r as unknown as OrderRow),
+  id: Number(r.id),
+  user_id: r.user_id === null ? null : Number(r.user_id),
+  priced_on: r.priced_on_text as string,
+});
 
 const withUnits = (r: Record<string, unknown>) => ({ ...fix(r), units: Number(r.units) });
 
@@ -100,7 +111,13 @@ export class OrderRepository {
    * Inserts a pending order from a quote with its first payment attempt already claimed (the charge follows the
    * commit); returns its id and number.
    */
-  async insert(trx: Knex.Transaction, q: PricedQuote, req: Omit<OrderRequest, 'paymentToken'>, userId: number | null, now: Date): Promise<{ id: number; number: string }> {
+  async insert(
+    trx: Knex.Transaction,
+    q: PricedQuote,
+    req: Omit<OrderRequest, 'paymentToken'>,
+    userId: number | null,
+    now: Date,
+  ): Promise<{ id: number; number: string }> {
     const [row] = await trx('shop_orders')
       .insert({
         payment_attempts: 1,
@@ -132,16 +149,39 @@ export class OrderRepository {
       .returning(['id', 'number']);
     const id = Number(row.id);
     await trx('shop_order_items').insert(
-      q.lines.map((l) => ({ order_id: id, variant_id: l.variantId, run_id: l.runId, product_name: l.productName, variant_label: l.variantLabel, sku: l.sku, unit_price_cents: l.unitPriceCents, quantity: l.quantity })),
+      q.lines.map((l) => ({
+        order_id: id,
+        variant_id: l.variantId,
+        run_id: l.runId,
+        product_name: l.productName,
+        variant_label: l.variantLabel,
+        sku: l.sku,
+        unit_price_cents: l.unitPriceCents,
+        quantity: l.quantity,
+      })),
     );
     if (q.taxLines.length) {
-      await trx('shop_order_taxes').insert(q.taxLines.map((t) => ({ order_id: id, code: t.code, jurisdiction: t.jurisdiction, rate_percent: t.ratePercent, taxable_cents: t.taxableCents, amount_cents: t.amountCents })));
+      await trx('shop_order_taxes').insert(
+        q.taxLines.map((t) => ({
+          order_id: id,
+          code: t.code,
+          jurisdiction: t.jurisdiction,
+          rate_percent: t.ratePercent,
+          taxable_cents: t.taxableCents,
+          amount_cents: t.amountCents,
+        })),
+      );
     }
     return { id, number: row.number };
   }
 
   /** Moves an order between statuses only from the expected one; returns whether it moved. */
-  async transition(trx: Db, id: number, from: OrderStatus[], patch: Partial<OrderRow> & { status?: OrderStatus }): Promise<boolean> {
+  async transition(
+    trx: Db,
+    id: number,
+    from: OrderStatus[],
+    patch: Partial<OrderRow> & { status?: OrderStatus },
+  ): Promise<boolean> {
     return (await trx('shop_orders').where('id', id).whereIn('status', from).update(patch)) === 1;
   }
 
@@ -149,8 +189,15 @@ export class OrderRepository {
    * Like `transition`, returning the order as it now stands with its lines and taxes (two reads fewer than `find`);
    * null when it was not in a `from` state. An order leaving `pending` has no refunds yet.
    */
-  async transitionFromPending(trx: Knex.Transaction, id: number, patch: Partial<OrderRow> & { status: OrderStatus }): Promise<OrderBundle | null> {
-    const [row] = await trx('shop_orders').where({ id, status: 'pending' }).update(patch).returning(['*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")]);
+  async transitionFromPending(
+    trx: Knex.Transaction,
+    id: number,
+    patch: Partial<OrderRow> & { status: OrderStatus },
+  ): Promise<OrderBundle | null> {
+    const [row] = await trx('shop_orders')
+      .where({ id, status: 'pending' })
+      .update(patch)
+      .returning(['*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")]);
     if (!row) return null;
     const [items, taxes] = [await this.items(trx, id), await this.taxes(trx, id)];
     return { order: fix(row), items, taxes, refunds: [] };
@@ -172,7 +219,10 @@ export class OrderRepository {
   }
 
   private orderRow(trx: Db, id: number) {
-    return trx('shop_orders').select('*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('id', id).first();
+    return trx('shop_orders')
+      .select('*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text"))
+      .where('id', id)
+      .first();
   }
 
   private async bundle(trx: Db, row: Record<string, unknown> | undefined): Promise<OrderBundle | null> {
@@ -180,16 +230,29 @@ export class OrderRepository {
     const id = Number(row.id);
     const items = await this.items(trx, id);
     const taxes = await this.taxes(trx, id);
-    const refunds = (await trx<RefundRow>('shop_refunds').where('order_id', id).orderBy('id')).map((r) => ({ ...r, id: Number(r.id), order_id: id }));
+    const refunds = (await trx<RefundRow>('shop_refunds').where('order_id', id).orderBy('id')).map((r) => ({
+      ...r,
+      id: Number(r.id),
+      order_id: id,
+    }));
     return { order: fix(row), items, taxes, refunds };
   }
 
   private async items(trx: Db, orderId: number): Promise<OrderItemRow[]> {
-    return (await trx<OrderItemRow>('shop_order_items').where('order_id', orderId).orderBy('id')).map((i) => ({ ...i, id: Number(i.id), order_id: orderId, variant_id: Number(i.variant_id), run_id: i.run_id === null ? null : Number(i.run_id) }));
+    return (await trx<OrderItemRow>('shop_order_items').where('order_id', orderId).orderBy('id')).map((i) => ({
+      ...i,
+      id: Number(i.id),
+      order_id: orderId,
+      variant_id: Number(i.variant_id),
+      run_id: i.run_id === null ? null : Number(i.run_id),
+    }));
   }
 
   private async taxes(trx: Db, orderId: number): Promise<OrderTaxRow[]> {
-    return (await trx('shop_order_taxes').where('order_id', orderId).orderBy('code')).map((t) => ({ ...t, rate_percent: String(t.rate_percent) }));
+    return (await trx('shop_order_taxes').where('order_id', orderId).orderBy('code')).map((t) => ({
+      ...t,
+      rate_percent: String(t.rate_percent),
+    }));
   }
 
   /** The id of the order a processor charge paid, so webhooks and refunds find their order. */
@@ -200,32 +263,57 @@ export class OrderRepository {
 
   /** The buyer's own orders; attempts whose payment failed were never orders to them, so they are left out. */
   async forUser(userId: number): Promise<OrderRow[]> {
-    const rows = await this.db('shop_orders').select('*', this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('user_id', userId).whereNot('status', 'failed').orderBy('created_at', 'desc').limit(200);
+    const rows = await this.db('shop_orders')
+      .select('*', this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text"))
+      .where('user_id', userId)
+      .whereNot('status', 'failed')
+      .orderBy('created_at', 'desc')
+      .limit(200);
     return rows.map(fix);
   }
 
   /** The runs an order has units in, oldest closing first. */
   async runsOf(orderId: number, trx: Db = this.db): Promise<RunRow[]> {
-    const rows = await trx('shop_runs as r').whereIn('r.id', trx('shop_order_items').where('order_id', orderId).whereNotNull('run_id').select('run_id')).select('r.*').orderBy('r.closes_at').orderBy('r.id');
+    const rows = await trx('shop_runs as r')
+      .whereIn('r.id', trx('shop_order_items').where('order_id', orderId).whereNotNull('run_id').select('run_id'))
+      .select('r.*')
+      .orderBy('r.closes_at')
+      .orderBy('r.id');
     return rows.map((r) => ({ ...r, id: Number(r.id), product_id: Number(r.product_id) }));
   }
 
   /** Where the buyer's latest mailed order went (not a pickup, not a failed attempt), to offer it again. */
   async lastShipTo(userId: number): Promise<OrderRow | null> {
-    const row = await this.db('shop_orders').select('*', this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")).where('user_id', userId).whereNot('status', 'failed').whereNot('shipping_code', 'pickup').whereNotNull('ship_line1').orderBy('created_at', 'desc').orderBy('id', 'desc').first();
+    const row = await this.db('shop_orders')
+      .select('*', this.db.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text"))
+      .where('user_id', userId)
+      .whereNot('status', 'failed')
+      .whereNot('shipping_code', 'pickup')
+      .whereNotNull('ship_line1')
+      .orderBy('created_at', 'desc')
+      .orderBy('id', 'desc')
+      .first();
     return row ? fix(row) : null;
   }
 
   /** Pending orders whose last payment attempt is older than `before`. */
   async stalePending(before: Date): Promise<number[]> {
-    return (await this.db('shop_orders').where('status', 'pending').where((q) => q.where('last_attempt_at', '<', before).orWhereNull('last_attempt_at')).orderBy('id').limit(100).pluck('id')).map(Number);
+    return (
+      await this.db('shop_orders')
+        .where('status', 'pending')
+        .where((q) => q.where('last_attempt_at', '<', before).orWhereNull('last_attempt_at'))
+        .orderBy('id')
+        .limit(100)
+        .pluck('id')
+    ).map(Number);
   }
 
   private filtered(f: ZonedOrderFilter) {
     const q = this.db('shop_orders as o');
     if (f.status === 'placed') q.whereNot('o.status', 'failed');
     else if (f.status) q.where('o.status', f.status);
-    if (f.runId) q.whereExists(this.db('shop_order_items as i').whereRaw('i.order_id = o.id').where('i.run_id', f.runId));
+    if (f.runId)
+      q.whereExists(this.db('shop_order_items as i').whereRaw('i.order_id = o.id').where('i.run_id', f.runId));
     if (f.from) q.whereRaw('(o.created_at AT TIME ZONE ?)::date >= ?', [f.timeZone, f.from]);
     if (f.to) q.whereRaw('(o.created_at AT TIME ZONE ?)::date <= ?', [f.timeZone, f.to]);
     if (f.q) {
@@ -236,9 +324,17 @@ export class OrderRepository {
   }
 
   /** One page of orders, sorted on the server. */
-  async page(f: ZonedOrderFilter, sort: OrderSortKey, dir: 'asc' | 'desc', page: number, pageSize: number): Promise<{ items: (OrderRow & { units: number })[]; total: number }> {
+  async page(
+    f: ZonedOrderFilter,
+    sort: OrderSortKey,
+    dir: 'asc' | 'desc',
+    page: number,
+    pageSize: number,
+  ): Promise<{ items: (OrderRow & { units: number })[]; total: number }> {
     const [{ count }] = await this.filtered(f).count<{ count: string }[]>('* as count');
-    const rows = await this.rowsFor(f, sort, dir).limit(pageSize).offset((page - 1) * pageSize);
+    const rows = await this.rowsFor(f, sort, dir)
+      .limit(pageSize)
+      .offset((page - 1) * pageSize);
     return { items: rows.map(withUnits), total: Number(count) };
   }
 
@@ -249,11 +345,14 @@ export class OrderRepository {
 
   private rowsFor(f: ZonedOrderFilter, sort: OrderSortKey, dir: 'asc' | 'desc') {
     return this.filtered(f)
-      .select('o.*', this.db.raw("to_char(o.priced_on, 'YYYY-MM-DD') as priced_on_text"), this.db.raw('(SELECT coalesce(sum(quantity), 0)::int FROM shop_order_items WHERE order_id = o.id) as units'))
+      .select(
+        'o.*',
+        this.db.raw("to_char(o.priced_on, 'YYYY-MM-DD') as priced_on_text"),
+        this.db.raw('(SELECT coalesce(sum(quantity), 0)::int FROM shop_order_items WHERE order_id = o.id) as units'),
+      )
       .orderBy(ORDER_SORTS[sort], dir)
       .orderBy('o.id', dir);
   }
-
 
   /** Names of the runs this order still waits for: pre-order lines (not given back) whose run has not been printed. */
   async unprintedRuns(orderId: number, db: Db = this.db): Promise<string[]> {

@@ -27,7 +27,10 @@ export function roundUpTo(n: number, m: number): number {
  * Per variant: paid + spares (percent, rounded up), rounded up to the pack multiple. When the design's total is
  * below the printer's minimum, the shortfall goes to the best-selling variant, in whole packs.
  */
-export function printQuantities(variants: { variantId: number; label: string; sku: string; paid: number }[], rules: PrinterRules): { lines: SheetLine[]; totalPaid: number; totalToPrint: number } {
+export function printQuantities(
+  variants: { variantId: number; label: string; sku: string; paid: number }[],
+  rules: PrinterRules,
+): { lines: SheetLine[]; totalPaid: number; totalToPrint: number } {
   const pack = Math.max(1, rules.packMultiple);
   const lines = variants.map((v) => {
     const spares = Math.ceil((v.paid * rules.sparesPercent) / 100);

@@ -15,7 +15,12 @@ export function variantRemaining(b: ProductBundle, variantId: number): number {
 /** Builds the view at `now` (the run's state depends on its window). */
 export function productView(b: ProductBundle, now: Date): Product {
   const { product: p, run } = b;
-  const state = run ? effectiveRunState({ state: run.state, cap: run.cap, reserved: run.reserved, opensAt: run.opens_at, closesAt: run.closes_at }, now) : null;
+  const state = run
+    ? effectiveRunState(
+        { state: run.state, cap: run.cap, reserved: run.reserved, opensAt: run.opens_at, closesAt: run.closes_at },
+        now,
+      )
+    : null;
   return {
     id: p.id,
     slug: p.slug,
@@ -27,8 +32,26 @@ export function productView(b: ProductBundle, now: Date): Product {
     images: p.images,
     sizeChart: p.size_chart,
     orderable: p.active && (run ? state === 'open' : b.variants.some((v) => (v.stock_on_hand ?? 0) > 0)),
-    run: run && state ? { id: run.id, name: run.name, state, cap: run.cap, remaining: Math.max(0, run.cap - run.reserved), opensAt: run.opens_at.toISOString(), closesAt: run.closes_at.toISOString() } : null,
-    variants: b.variants.map((v) => ({ id: v.id, sku: v.sku, label: v.label, priceCents: v.price_cents ?? p.price_cents, weightGrams: v.weight_grams ?? p.weight_grams, remaining: variantRemaining(b, v.id) })),
+    run:
+      run && state
+        ? {
+            id: run.id,
+            name: run.name,
+            state,
+            cap: run.cap,
+            remaining: Math.max(0, run.cap - run.reserved),
+            opensAt: run.opens_at.toISOString(),
+            closesAt: run.closes_at.toISOString(),
+          }
+        : null,
+    variants: b.variants.map((v) => ({
+      id: v.id,
+      sku: v.sku,
+      label: v.label,
+      priceCents: v.price_cents ?? p.price_cents,
+      weightGrams: v.weight_grams ?? p.weight_grams,
+      remaining: variantRemaining(b, v.id),
+    })),
   };
 }
 

@@ -46,7 +46,9 @@ export class QuoteService {
       }
       const view = productView(b, now);
       const v = view.variants.find((x) => x.id === variantId)!;
-      const ofProduct = req.items.filter((i) => b.variants.some((x) => x.id === i.variantId)).reduce((s, i) => s + i.quantity, 0);
+      const ofProduct = req.items
+        .filter((i) => b.variants.some((x) => x.id === i.variantId))
+        .reduce((s, i) => s + i.quantity, 0);
       if (ofProduct > b.product.max_per_order) {
         overLimit[`${field}.quantity`] = `At most ${b.product.max_per_order} of ${b.product.name} per order.`;
         continue;
@@ -59,7 +61,10 @@ export class QuoteService {
       const left = variantRemaining(b, variantId);
       if (quantity > left) {
         soldOut = true;
-        problems[`${field}.quantity`] = left === 0 ? `${b.product.name} (${v.label}) is sold out.` : `Only ${left} of ${b.product.name} (${v.label}) left.`;
+        problems[`${field}.quantity`] =
+          left === 0
+            ? `${b.product.name} (${v.label}) is sold out.`
+            : `Only ${left} of ${b.product.name} (${v.label}) left.`;
         continue;
       }
       weight += v.weightGrams * quantity;
@@ -67,15 +72,23 @@ export class QuoteService {
     }
     if (Object.keys(overLimit).length) throw badRequest('Part of the cart is over the per-order limit.', overLimit);
     if (Object.keys(problems).length) {
-      throw soldOut ? conflict('sold_out', 'Part of the cart is sold out.', problems) : conflict('not_available', 'Part of the cart cannot be ordered now.', problems);
+      throw soldOut
+        ? conflict('sold_out', 'Part of the cart is sold out.', problems)
+        : conflict('not_available', 'Part of the cart cannot be ordered now.', problems);
     }
 
     const shop = await this.settings.get(SHOP_SETTINGS);
     const method = await this.config.shippingMethod(req.shippingMethodId);
-    if (!method || !method.active) throw badRequest('Choose a shipping method.', { shippingMethodId: 'Choose one of the shipping methods offered.' });
+    if (!method || !method.active)
+      throw badRequest('Choose a shipping method.', {
+        shippingMethodId: 'Choose one of the shipping methods offered.',
+      });
     const province = this.placeOfSupply(req.shipTo, method, shop.sellerProvince);
     const shippingCents = shippingFor(weight, method.brackets);
-    if (shippingCents === null) throw badRequest('This order is too heavy for that shipping method.', { shippingMethodId: 'Too heavy for this method; choose another or split the order.' });
+    if (shippingCents === null)
+      throw badRequest('This order is too heavy for that shipping method.', {
+        shippingMethodId: 'Too heavy for this method; choose another or split the order.',
+      });
 
     const subtotalCents = lines.reduce((s, l) => s + l.lineCents, 0);
     const discountPercent = roles.includes('member') ? shop.memberDiscountPercent : 0;
@@ -84,10 +97,27 @@ export class QuoteService {
     const taxLines = computeTaxes(
       { goodsCents: subtotalCents - discountCents, shippingCents, province, date: pricedOn },
       await this.config.taxRates(),
-      { gstHstRegistered: shop.gstHstRegistered, provincialRegistrations: shop.provincialRegistrations, provincialTaxOnShipping: shop.provincialTaxOnShipping },
+      {
+        gstHstRegistered: shop.gstHstRegistered,
+        provincialRegistrations: shop.provincialRegistrations,
+        provincialTaxOnShipping: shop.provincialTaxOnShipping,
+      },
     );
     const taxCents = taxLines.reduce((s, t) => s + t.amountCents, 0);
-    return { lines, weightGrams: weight, shippingMethod: method, province, pricedOn, discountPercent, subtotalCents, discountCents, shippingCents, taxLines, taxCents, totalCents: subtotalCents - discountCents + shippingCents + taxCents };
+    return {
+      lines,
+      weightGrams: weight,
+      shippingMethod: method,
+      province,
+      pricedOn,
+      discountPercent,
+      subtotalCents,
+      discountCents,
+      shippingCents,
+      taxLines,
+      taxCents,
+      totalCents: subtotalCents - discountCents + shippingCents + taxCents,
+    };
   }
 
   /** The province whose tax applies, checking the address against the method on the way. */
@@ -98,13 +128,16 @@ export class QuoteService {
     if (!to.city) f['shipTo.city'] = 'City is required.';
     if (method.code === 'canada' && to.country !== 'CA') f.shippingMethodId = 'This method ships within Canada only.';
     if (method.code === 'usa' && to.country !== 'US') f.shippingMethodId = 'This method ships to the USA only.';
-    if (method.code === 'international' && (to.country === 'CA' || to.country === 'US')) f.shippingMethodId = 'Choose the Canada or USA method for this address.';
+    if (method.code === 'international' && (to.country === 'CA' || to.country === 'US'))
+      f.shippingMethodId = 'Choose the Canada or USA method for this address.';
     const province = to.province.toUpperCase();
     if (to.country === 'CA') {
-      if (!(PROVINCES as readonly string[]).includes(province)) f['shipTo.province'] = 'Choose a province or territory.';
+      if (!(PROVINCES as readonly string[]).includes(province))
+        f['shipTo.province'] = 'Choose a province or territory.';
       if (!CA_POSTAL.test(to.postalCode)) f['shipTo.postalCode'] = 'Enter a Canadian postal code such as R0K 1A0.';
       else if (!f['shipTo.province'] && !postalCodeFitsProvince(to.postalCode, province as Province)) {
-        f['shipTo.postalCode'] = `This postal code is not in ${province}: codes there start with ${postalLettersOf(province as Province).join(', ')}. Check the code and the province.`;
+        f['shipTo.postalCode'] =
+          `This postal code is not in ${province}: codes there start with ${postalLettersOf(province as Province).join(', ')}. Check the code and the province.`;
       }
     }
     if (to.country === 'US' && !US_ZIP.test(to.postalCode)) f['shipTo.postalCode'] = 'Enter a ZIP code such as 58501.';
@@ -115,7 +148,16 @@ export class QuoteService {
 
 function line(b: ProductBundle, variantId: number, quantity: number, unitPriceCents: number): PricedLine {
   const v = b.variants.find((x) => x.id === variantId)!;
-  return { variantId, runId: b.run?.id ?? null, productName: b.product.name, variantLabel: v.label, sku: v.sku, unitPriceCents, quantity, lineCents: unitPriceCents * quantity };
+  return {
+    variantId,
+    runId: b.run?.id ?? null,
+    productName: b.product.name,
+    variantLabel: v.label,
+    sku: v.sku,
+    unitPriceCents,
+    quantity,
+    lineCents: unitPriceCents * quantity,
+  };
 }
 
 function runClosedMessage(state: string | undefined): string {
@@ -127,14 +169,27 @@ function runClosedMessage(state: string | undefined): string {
 /** The quote as the API answers it. */
 export function quoteJson(q: PricedQuote): Quote {
   return {
-    lines: q.lines.map((l) => ({ variantId: l.variantId, productName: l.productName, variantLabel: l.variantLabel, sku: l.sku, unitPriceCents: l.unitPriceCents, quantity: l.quantity, lineCents: l.lineCents })),
+    lines: q.lines.map((l) => ({
+      variantId: l.variantId,
+      productName: l.productName,
+      variantLabel: l.variantLabel,
+      sku: l.sku,
+      unitPriceCents: l.unitPriceCents,
+      quantity: l.quantity,
+      lineCents: l.lineCents,
+    })),
     weightGrams: q.weightGrams,
     shippingMethod: { id: q.shippingMethod.id, code: q.shippingMethod.code, name: q.shippingMethod.name },
     discountPercent: q.discountPercent,
     subtotalCents: q.subtotalCents,
     discountCents: q.discountCents,
     shippingCents: q.shippingCents,
-    taxLines: q.taxLines.map((t) => ({ code: t.code, label: t.label, ratePercent: t.ratePercent, amountCents: t.amountCents })),
+    taxLines: q.taxLines.map((t) => ({
+      code: t.code,
+      label: t.label,
+      ratePercent: t.ratePercent,
+      amountCents: t.amountCents,
+    })),
     taxCents: q.taxCents,
     totalCents: q.totalCents,
     currency: 'CAD',

@@ -16,7 +16,11 @@ export class ReceiptService {
   /** The seller's name (the team's name until a legal or trading name is set) and registration numbers. */
   async seller(): Promise<SellerDetails> {
     const s = await this.settings.get(SHOP_SETTINGS);
-    return { name: s.sellerName.trim() || this.teamName, gstHstNumber: s.gstHstNumber, provincialTaxNumbers: s.provincialTaxNumbers };
+    return {
+      name: s.sellerName.trim() || this.teamName,
+      gstHstNumber: s.gstHstNumber,
+      provincialTaxNumbers: s.provincialTaxNumbers,
+    };
   }
 
   /** The receipt, or null while the order is unpaid. */
@@ -31,9 +35,18 @@ export class ReceiptService {
       {
         date: dateInZone(o.paid_at ?? o.created_at, this.timeZone),
         totalCents: o.total_cents,
-        taxes: b.taxes.map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, ratePercent: t.rate_percent, amountCents: t.amount_cents })),
+        taxes: b.taxes.map((t) => ({
+          code: t.code,
+          jurisdiction: t.jurisdiction,
+          ratePercent: t.rate_percent,
+          amountCents: t.amount_cents,
+        })),
         buyerName: o.ship_name,
-        items: b.items.map((i) => ({ description: `${i.product_name} (${i.variant_label}), SKU ${i.sku}`, quantity: i.quantity, lineCents: i.unit_price_cents * i.quantity })),
+        items: b.items.map((i) => ({
+          description: `${i.product_name} (${i.variant_label}), SKU ${i.sku}`,
+          quantity: i.quantity,
+          lineCents: i.unit_price_cents * i.quantity,
+        })),
         paymentTerms: o.paid_outside_processor ? 'Paid in full' : 'Paid in full by card',
       },
       seller,

@@ -34,7 +34,13 @@ const FEDERAL = ['GST', 'HST'];
 /** The receipt for one paid order. */
 export function receiptFor(input: ReceiptInput, seller: SellerDetails): Receipt {
   const large = input.totalCents >= RECEIPT_THRESHOLDS.buyerFromCents;
-  const taxes = input.taxes.map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, label: `${t.code} ${formatRate(t.ratePercent)}%`, ratePercent: formatRate(t.ratePercent), amountCents: t.amountCents }));
+  const taxes = input.taxes.map((t) => ({
+    code: t.code,
+    jurisdiction: t.jurisdiction,
+    label: `${t.code} ${formatRate(t.ratePercent)}%`,
+    ratePercent: formatRate(t.ratePercent),
+    amountCents: t.amountCents,
+  }));
   const chargedFederal = input.taxes.some((t) => FEDERAL.includes(t.code));
   const provincial = input.taxes.filter((t) => !FEDERAL.includes(t.code));
   const gstHstNumber = chargedFederal && seller.gstHstNumber.trim() ? seller.gstHstNumber.trim() : null;
@@ -44,7 +50,8 @@ export function receiptFor(input: ReceiptInput, seller: SellerDetails): Receipt 
   });
   const missing: string[] = [];
   if (!seller.name.trim()) missing.push('sellerName');
-  if (chargedFederal && !gstHstNumber && input.totalCents >= RECEIPT_THRESHOLDS.registrationFromCents) missing.push('gstHstNumber');
+  if (chargedFederal && !gstHstNumber && input.totalCents >= RECEIPT_THRESHOLDS.registrationFromCents)
+    missing.push('gstHstNumber');
   return {
     sellerName: seller.name.trim(),
     date: input.date,

@@ -73,22 +73,49 @@ export function remainingOf(o: RefundableOrder) {
 }
 
 function taxLines(o: RefundableOrder, amounts: number[], goods: number, shipping: number): RefundTax[] {
-  return o.taxes.map((t, i) => ({ code: t.code, jurisdiction: t.jurisdiction, ratePercent: t.ratePercent, taxableCents: goods + (t.onShipping ? shipping : 0), taxCents: amounts[i] })).filter((t) => t.taxCents !== 0 || t.taxableCents !== 0);
+  return o.taxes
+    .map((t, i) => ({
+      code: t.code,
+      jurisdiction: t.jurisdiction,
+      ratePercent: t.ratePercent,
+      taxableCents: goods + (t.onShipping ? shipping : 0),
+      taxCents: amounts[i],
+    }))
+    .filter((t) => t.taxCents !== 0 || t.taxableCents !== 0);
 }
 
-function breakdown(o: RefundableOrder, lines: RefundBreakdown['lines'], goods: number, shipping: number, taxes: number[]): RefundBreakdown {
+function breakdown(
+  o: RefundableOrder,
+  lines: RefundBreakdown['lines'],
+  goods: number,
+  shipping: number,
+  taxes: number[],
+): RefundBreakdown {
   const left = remainingOf(o);
   const taxCents = sum(taxes);
   const totalCents = goods + shipping + taxCents;
-  return { lines, goodsCents: goods, shippingCents: shipping, taxes: taxLines(o, taxes, goods, shipping), taxCents, totalCents, closesOrder: totalCents === left.total };
+  return {
+    lines,
+    goodsCents: goods,
+    shippingCents: shipping,
+    taxes: taxLines(o, taxes, goods, shipping),
+    taxCents,
+    totalCents,
+    closesOrder: totalCents === left.total,
+  };
 }
 
 /** Everything still refundable: every unit left, the shipping left and each tax's remainder. */
 export function refundEverythingLeft(o: RefundableOrder): RefundBreakdown {
   const left = remainingOf(o);
-  const lines = o.items.filter((i) => i.quantity > i.refundedQuantity).map((i) => ({ orderItemId: i.id, quantity: i.quantity - i.refundedQuantity, goodsCents: 0 }));
+  const lines = o.items
+    .filter((i) => i.quantity > i.refundedQuantity)
+    .map((i) => ({ orderItemId: i.id, quantity: i.quantity - i.refundedQuantity, goodsCents: 0 }));
   // The lines' goods are the remainder of the order's goods, shared by line value so they add up exactly.
-  const shares = shareProportionally(left.goods, lines.map((l) => l.quantity * o.items.find((i) => i.id === l.orderItemId)!.unitPriceCents));
+  const shares = shareProportionally(
+    left.goods,
+    lines.map((l) => l.quantity * o.items.find((i) => i.id === l.orderItemId)!.unitPriceCents),
+  );
   lines.forEach((l, i) => (l.goodsCents = shares[i]));
   return breakdown(o, lines, left.goods, left.shipping, left.taxes);
 }
@@ -106,12 +133,16 @@ function refundLines(o: RefundableOrder, ask: RefundAsk): RefundBreakdown | Refu
   ask.lines.forEach((l, n) => {
     const item = o.items.find((i) => i.id === l.orderItemId);
     if (!item) return void (fields[`lines.${n}.orderItemId`] = 'That line is not on this order.');
-    if (lines.some((x) => x.orderItemId === l.orderItemId)) return void (fields[`lines.${n}.orderItemId`] = 'That line is listed twice.');
+    if (lines.some((x) => x.orderItemId === l.orderItemId))
+      return void (fields[`lines.${n}.orderItemId`] = 'That line is listed twice.');
     const open = item.quantity - item.refundedQuantity;
-    if (l.quantity > item.quantity) return void (fields[`lines.${n}.quantity`] = `This line has ${item.quantity} unit(s).`);
+    if (l.quantity > item.quantity)
+      return void (fields[`lines.${n}.quantity`] = `This line has ${item.quantity} unit(s).`);
     if (l.quantity > open) {
       overClaim = true;
-      return void (fields[`lines.${n}.quantity`] = open ? `Only ${open} unit(s) of this line are left to refund.` : 'This line is already refunded.');
+      return void (fields[`lines.${n}.quantity`] = open
+        ? `Only ${open} unit(s) of this line are left to refund.`
+        : 'This line is already refunded.');
     }
     const gross = item.unitPriceCents * l.quantity;
     lines.push({ orderItemId: item.id, quantity: l.quantity, goodsCents: gross - percentOf(gross, o.discountPercent) });
@@ -123,12 +154,22 @@ function refundLines(o: RefundableOrder, ask: RefundAsk): RefundBreakdown | Refu
       fields.shipping = 'Shipping is already refunded.';
     }
   }
-  if (Object.keys(fields).length) return { code: overClaim ? 'over_refund' : 'invalid_request', message: overClaim ? 'Part of that refund was already refunded.' : 'Check the lines to refund.', fields };
+  if (Object.keys(fields).length)
+    return {
+      code: overClaim ? 'over_refund' : 'invalid_request',
+      message: overClaim ? 'Part of that refund was already refunded.' : 'Check the lines to refund.',
+      fields,
+    };
 
-  const allUnits = o.items.every((i) => i.quantity - i.refundedQuantity === (lines.find((l) => l.orderItemId === i.id)?.quantity ?? 0));
+  const allUnits = o.items.every(
+    (i) => i.quantity - i.refundedQuantity === (lines.find((l) => l.orderItemId === i.id)?.quantity ?? 0),
+  );
   const goods = allUnits ? left.goods : Math.min(left.goods, sum(lines.map((l) => l.goodsCents)));
   if (allUnits) {
-    const shares = shareProportionally(goods, lines.map((l) => l.goodsCents));
+    const shares = shareProportionally(
+      goods,
+      lines.map((l) => l.goodsCents),
+    );
     lines.forEach((l, i) => (l.goodsCents = shares[i]));
   }
   const shipping = ask.shipping ? left.shipping : 0;
@@ -155,7 +196,13 @@ function refundGoodwill(o: RefundableOrder, amountCents: number): RefundBreakdow
   if (goods > left.goods || taxes.some((x, i) => x > left.taxes[i])) {
     // Past earlier refunds it conflicts with what they took; on an untouched order it could never fit.
     const earlier = o.refunded.goodsCents > 0 || Object.values(o.refunded.taxCents).some((x) => x > 0);
-    return { code: earlier ? 'over_refund' : 'invalid_request', message: 'That is more than the goods left to refund.', fields: { amountCents: `A reduction on the goods can be at most ${dollars(left.goods + sum(left.taxes.map((x, i) => Math.min(x, taxOn(left.goods, o.taxes[i].ratePercent)))))}; tick shipping or lines to refund more.` } };
+    return {
+      code: earlier ? 'over_refund' : 'invalid_request',
+      message: 'That is more than the goods left to refund.',
+      fields: {
+        amountCents: `A reduction on the goods can be at most ${dollars(left.goods + sum(left.taxes.map((x, i) => Math.min(x, taxOn(left.goods, o.taxes[i].ratePercent)))))}; tick shipping or lines to refund more.`,
+      },
+    };
   }
   return breakdown(o, [], goods, 0, taxes);
 }
@@ -164,17 +211,41 @@ function refundGoodwill(o: RefundableOrder, amountCents: number): RefundBreakdow
 export function computeRefund(o: RefundableOrder, ask: RefundAsk): RefundBreakdown | RefundRefusal {
   const left = remainingOf(o);
   const byLines = ask.lines.length > 0 || ask.shipping;
-  if (!byLines && ask.amountCents === undefined) return { code: 'invalid_request', message: 'Say what to refund.', fields: { amountCents: 'Tick a line or shipping, or enter an amount.' } };
-  if (left.total === 0) return { code: 'over_refund', message: 'This order is already refunded in full.', fields: { amountCents: 'Nothing is left to refund.' } };
+  if (!byLines && ask.amountCents === undefined)
+    return {
+      code: 'invalid_request',
+      message: 'Say what to refund.',
+      fields: { amountCents: 'Tick a line or shipping, or enter an amount.' },
+    };
+  if (left.total === 0)
+    return {
+      code: 'over_refund',
+      message: 'This order is already refunded in full.',
+      fields: { amountCents: 'Nothing is left to refund.' },
+    };
   let result: RefundBreakdown | RefundRefusal;
   if (byLines) result = refundLines(o, ask);
-  else if (ask.amountCents! > left.total) return { code: 'over_refund', message: 'That refund is larger than what is left to refund.', fields: { amountCents: `At most ${dollars(left.total)} is left to refund.` } };
+  else if (ask.amountCents! > left.total)
+    return {
+      code: 'over_refund',
+      message: 'That refund is larger than what is left to refund.',
+      fields: { amountCents: `At most ${dollars(left.total)} is left to refund.` },
+    };
   else if (ask.amountCents === left.total) result = refundEverythingLeft(o);
   else result = refundGoodwill(o, ask.amountCents!);
   if ('code' in result) return result;
-  if (result.totalCents < 1) return { code: 'invalid_request', message: 'That refund comes to nothing.', fields: { amountCents: 'The refund must be at least $0.01.' } };
+  if (result.totalCents < 1)
+    return {
+      code: 'invalid_request',
+      message: 'That refund comes to nothing.',
+      fields: { amountCents: 'The refund must be at least $0.01.' },
+    };
   if (byLines && ask.amountCents !== undefined && ask.amountCents !== result.totalCents) {
-    return { code: 'refund_changed', message: `Those lines now come to ${dollars(result.totalCents)}; check the refund again.`, fields: { amountCents: `The refund comes to ${dollars(result.totalCents)}.` } };
+    return {
+      code: 'refund_changed',
+      message: `Those lines now come to ${dollars(result.totalCents)}; check the refund again.`,
+      fields: { amountCents: `The refund comes to ${dollars(result.totalCents)}.` },
+    };
   }
   return result;
 }

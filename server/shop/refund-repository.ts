@@ -53,7 +53,12 @@ export interface RefundedSoFar {
   quantities: Map<number, number>;
 }
 
-const fixRefund = (r: Record<string, unknown>): ShopRefundRow => ({ ...(r as unknown as ShopRefundRow), id: Number(r.id), order_id: Number(r.order_id), created_by: r.created_by === null ? null : Number(r.created_by) });
+const fixRefund = (r: Record<string, unknown>): ShopRefundRow => ({
+  ...(r as unknown as ShopRefundRow),
+  id: Number(r.id),
+  order_id: Number(r.order_id),
+  created_by: r.created_by === null ? null : Number(r.created_by),
+});
 
 /** Shop refunds: claims, outcomes, lines and tax lines. The caller holds the order's row lock when it writes. */
 export class RefundRepository {
@@ -65,7 +70,19 @@ export class RefundRepository {
    */
   async insertClaim(
     trx: Knex.Transaction,
-    r: { orderId: number; origin: 'staff' | 'processor'; state: RefundState; idempotencyKey: string; requestKey: string | null; requestHash: string | null; processorRefundId: string | null; restock: boolean; reason: string | null; createdBy: number | null; now: Date },
+    r: {
+      orderId: number;
+      origin: 'staff' | 'processor';
+      state: RefundState;
+      idempotencyKey: string;
+      requestKey: string | null;
+      requestHash: string | null;
+      processorRefundId: string | null;
+      restock: boolean;
+      reason: string | null;
+      createdBy: number | null;
+      now: Date;
+    },
     b: RefundBreakdown,
   ): Promise<number> {
     const [row] = await trx('shop_refunds')
@@ -89,14 +106,36 @@ export class RefundRepository {
       })
       .returning('id');
     const id = Number(row.id);
-    if (b.lines.length) await trx('shop_refund_lines').insert(b.lines.map((l) => ({ refund_id: id, order_item_id: l.orderItemId, quantity: l.quantity, goods_cents: l.goodsCents })));
+    if (b.lines.length)
+      await trx('shop_refund_lines').insert(
+        b.lines.map((l) => ({
+          refund_id: id,
+          order_item_id: l.orderItemId,
+          quantity: l.quantity,
+          goods_cents: l.goodsCents,
+        })),
+      );
     const taxes = b.taxes.filter((t) => t.taxCents !== 0 || t.taxableCents !== 0);
-    if (taxes.length) await trx('shop_refund_taxes').insert(taxes.map((t) => ({ refund_id: id, code: t.code, jurisdiction: t.jurisdiction, rate_percent: t.ratePercent, taxable_cents: t.taxableCents, tax_cents: t.taxCents })));
+    if (taxes.length)
+      await trx('shop_refund_taxes').insert(
+        taxes.map((t) => ({
+          refund_id: id,
+          code: t.code,
+          jurisdiction: t.jurisdiction,
+          rate_percent: t.ratePercent,
+          taxable_cents: t.taxableCents,
+          tax_cents: t.taxCents,
+        })),
+      );
     return id;
   }
 
   /** Moves a claim out of `requested`; returns false when another request already settled it. */
-  async settle(trx: Knex.Transaction, id: number, patch: { state: 'succeeded' | 'failed'; processor_refund_id?: string; failure_message?: string; settled_at: Date }): Promise<boolean> {
+  async settle(
+    trx: Knex.Transaction,
+    id: number,
+    patch: { state: 'succeeded' | 'failed'; processor_refund_id?: string; failure_message?: string; settled_at: Date },
+  ): Promise<boolean> {
     return (await trx('shop_refunds').where({ id, state: 'requested' }).update(patch)) === 1;
   }
 
@@ -120,13 +159,19 @@ export class RefundRepository {
   /** The refunded units of these refunds, by refund and order line. */
   async lines(refundIds: number[], db: Db = this.db): Promise<RefundLineRow[]> {
     if (!refundIds.length) return [];
-    return (await db('shop_refund_lines').whereIn('refund_id', refundIds).orderBy(['refund_id', 'order_item_id'])).map((l) => ({ ...l, refund_id: Number(l.refund_id), order_item_id: Number(l.order_item_id) }));
+    return (await db('shop_refund_lines').whereIn('refund_id', refundIds).orderBy(['refund_id', 'order_item_id'])).map(
+      (l) => ({ ...l, refund_id: Number(l.refund_id), order_item_id: Number(l.order_item_id) }),
+    );
   }
 
   /** The refunded tax of these refunds, by refund and tax code. */
   async taxes(refundIds: number[], db: Db = this.db): Promise<RefundTaxRow[]> {
     if (!refundIds.length) return [];
-    return (await db('shop_refund_taxes').whereIn('refund_id', refundIds).orderBy(['refund_id', 'code'])).map((t) => ({ ...t, refund_id: Number(t.refund_id), rate_percent: String(t.rate_percent) }));
+    return (await db('shop_refund_taxes').whereIn('refund_id', refundIds).orderBy(['refund_id', 'code'])).map((t) => ({
+      ...t,
+      refund_id: Number(t.refund_id),
+      rate_percent: String(t.rate_percent),
+    }));
   }
 
   /** What refunds in the given states gave back (or claim) on one order. */
@@ -136,28 +181,50 @@ export class RefundRepository {
     const taxCents: Record<string, number> = {};
     for (const t of await this.taxes(ids, db)) taxCents[taxKey(t)] = (taxCents[taxKey(t)] ?? 0) + t.tax_cents;
     const quantities = new Map<number, number>();
-    for (const l of await this.lines(ids, db)) quantities.set(l.order_item_id, (quantities.get(l.order_item_id) ?? 0) + l.quantity);
+    for (const l of await this.lines(ids, db))
+      quantities.set(l.order_item_id, (quantities.get(l.order_item_id) ?? 0) + l.quantity);
     const add = (k: 'goods_cents' | 'shipping_cents' | 'amount_cents') => refunds.reduce((s, r) => s + r[k], 0);
-    return { goodsCents: add('goods_cents'), shippingCents: add('shipping_cents'), totalCents: add('amount_cents'), taxCents, quantities };
+    return {
+      goodsCents: add('goods_cents'),
+      shippingCents: add('shipping_cents'),
+      totalCents: add('amount_cents'),
+      taxCents,
+      quantities,
+    };
   }
 
   /** Claims still waiting for the processor's answer since before `before`. */
   async staleClaims(before: Date): Promise<ShopRefundRow[]> {
-    return (await this.db('shop_refunds').where('state', 'requested').where('created_at', '<', before).orderBy('id').limit(100)).map(fixRefund);
+    return (
+      await this.db('shop_refunds')
+        .where('state', 'requested')
+        .where('created_at', '<', before)
+        .orderBy('id')
+        .limit(100)
+    ).map(fixRefund);
   }
 
   /**
    * Marks `quantity` units of each line restocked (never more than the line had left); returns the units to give back
    * to their run or stock.
    */
-  async markLinesRestocked(trx: Knex.Transaction, lines: { orderItemId: number; quantity: number }[]): Promise<{ variantId: number; runId: number | null; quantity: number }[]> {
+  async markLinesRestocked(
+    trx: Knex.Transaction,
+    lines: { orderItemId: number; quantity: number }[],
+  ): Promise<{ variantId: number; runId: number | null; quantity: number }[]> {
     const back: { variantId: number; runId: number | null; quantity: number }[] = [];
     for (const l of [...lines].sort((a, b) => a.orderItemId - b.orderItemId)) {
-      const item = await trx('shop_order_items').where('id', l.orderItemId).first('quantity', 'restocked_quantity', 'variant_id', 'run_id');
+      const item = await trx('shop_order_items')
+        .where('id', l.orderItemId)
+        .first('quantity', 'restocked_quantity', 'variant_id', 'run_id');
       const add = Math.min(l.quantity, item.quantity - item.restocked_quantity);
       if (add <= 0) continue;
       await trx('shop_order_items').where('id', l.orderItemId).increment('restocked_quantity', add);
-      back.push({ variantId: Number(item.variant_id), runId: item.run_id === null ? null : Number(item.run_id), quantity: add });
+      back.push({
+        variantId: Number(item.variant_id),
+        runId: item.run_id === null ? null : Number(item.run_id),
+        quantity: add,
+      });
     }
     return back;
   }

@@ -13,7 +13,14 @@ export function breakdownJson(b: RefundBreakdown): RefundPreview {
     lines: b.lines,
     goodsCents: b.goodsCents,
     shippingCents: b.shippingCents,
-    taxLines: b.taxes.map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, label: taxLabel(t), ratePercent: formatRate(t.ratePercent), taxableCents: t.taxableCents, taxCents: t.taxCents })),
+    taxLines: b.taxes.map((t) => ({
+      code: t.code,
+      jurisdiction: t.jurisdiction,
+      label: taxLabel(t),
+      ratePercent: formatRate(t.ratePercent),
+      taxableCents: t.taxableCents,
+      taxCents: t.taxCents,
+    })),
     taxCents: b.taxCents,
     totalCents: b.totalCents,
     closesOrder: b.closesOrder,
@@ -31,7 +38,16 @@ export function refundJson(r: ShopRefundRow, lines: RefundLineRow[], taxes: Refu
     goodsCents: r.goods_cents,
     shippingCents: r.shipping_cents,
     taxCents: r.tax_cents,
-    taxLines: taxes.filter((t) => t.refund_id === r.id).map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, label: taxLabel({ code: t.code, ratePercent: t.rate_percent }), ratePercent: formatRate(t.rate_percent), taxableCents: t.taxable_cents, taxCents: t.tax_cents })),
+    taxLines: taxes
+      .filter((t) => t.refund_id === r.id)
+      .map((t) => ({
+        code: t.code,
+        jurisdiction: t.jurisdiction,
+        label: taxLabel({ code: t.code, ratePercent: t.rate_percent }),
+        ratePercent: formatRate(t.rate_percent),
+        taxableCents: t.taxable_cents,
+        taxCents: t.tax_cents,
+      })),
     lines: mine.map((l) => ({ orderItemId: l.order_item_id, quantity: l.quantity, goodsCents: l.goods_cents })),
     restocked: r.restocked,
     unitsBackOnSale: r.restocked && r.state === 'succeeded' ? mine.reduce((s, l) => s + l.quantity, 0) : 0,
@@ -42,12 +58,17 @@ export function refundJson(r: ShopRefundRow, lines: RefundLineRow[], taxes: Refu
 }
 
 /** The staff view of an order: lines with their refunded units, the print runs it waits for, every refund with its parts. */
-export async function staffOrderJson(b: OrderBundle, refunds: RefundRepository, orders: OrderRepository): Promise<StaffOrder> {
+export async function staffOrderJson(
+  b: OrderBundle,
+  refunds: RefundRepository,
+  orders: OrderRepository,
+): Promise<StaffOrder> {
   const rows = await refunds.forOrder(b.order.id);
   const ids = rows.map((r) => r.id);
   const [lines, taxes] = [await refunds.lines(ids), await refunds.taxes(ids)];
   const live = new Set(rows.filter((r) => r.state !== 'failed').map((r) => r.id));
-  const refundedUnits = (itemId: number) => lines.filter((l) => l.order_item_id === itemId && live.has(l.refund_id)).reduce((s, l) => s + l.quantity, 0);
+  const refundedUnits = (itemId: number) =>
+    lines.filter((l) => l.order_item_id === itemId && live.has(l.refund_id)).reduce((s, l) => s + l.quantity, 0);
   const base = orderJson(b);
   const o = b.order;
   return {
@@ -59,7 +80,11 @@ export async function staffOrderJson(b: OrderBundle, refunds: RefundRepository, 
     paymentAttempts: o.payment_attempts,
     disputedAt: o.disputed_at?.toISOString() ?? null,
     disputeReason: o.dispute_reason,
-    items: base.items.map((i) => ({ ...i, refundedQuantity: refundedUnits(i.id), unitsToPack: i.quantity - refundedUnits(i.id) })),
+    items: base.items.map((i) => ({
+      ...i,
+      refundedQuantity: refundedUnits(i.id),
+      unitsToPack: i.quantity - refundedUnits(i.id),
+    })),
     awaitingPrint: await orders.unprintedRuns(b.order.id),
     shippingRefundedCents: rows.filter((r) => live.has(r.id)).reduce((s, r) => s + r.shipping_cents, 0),
     refunds: rows.map((r) => refundJson(r, lines, taxes)),

@@ -22,10 +22,20 @@ import { SHOP_SETTINGS, ShopSettingsSchema } from './shop-settings';
 const SHOP_STAFF = ['treasurer', 'admin'] as const;
 
 // The client's key for one refund (the Idempotency-Key header): a retry with the same key gets the first answer.
-const RequestKey = z.string().trim().regex(/^[A-Za-z0-9_.:-]{8,120}$/, 'Use 8-120 letters, digits, dashes, dots, colons or underscores.').optional();
-const RunStateBody = z.object({ state: z.enum(['closed', 'in_production', 'shipped'], { error: 'Choose closed, in production or shipped.' }) });
+const RequestKey = z
+  .string()
+  .trim()
+  .regex(/^[A-Za-z0-9_.:-]{8,120}$/, 'Use 8-120 letters, digits, dashes, dots, colons or underscores.')
+  .optional();
+const RunStateBody = z.object({
+  state: z.enum(['closed', 'in_production', 'shipped'], { error: 'Choose closed, in production or shipped.' }),
+});
 const Bracket = z.object({ maxGrams: z.number().int().min(1).max(100000).nullable(), priceCents: fields.cents });
-const ShippingBody = z.object({ name: z.string().trim().min(2, 'Name is required.').max(80), brackets: z.array(Bracket).min(1, 'Add at least one weight bracket.').max(20), active: z.boolean() });
+const ShippingBody = z.object({
+  name: z.string().trim().min(2, 'Name is required.').max(80),
+  brackets: z.array(Bracket).min(1, 'Add at least one weight bracket.').max(20),
+  active: z.boolean(),
+});
 
 export interface ShopAdminDeps {
   catalogue: CatalogueService;
@@ -38,7 +48,14 @@ export interface ShopAdminDeps {
   timeZone: string;
 }
 
-const filterOf = (q: z.infer<typeof OrderQuery>, timeZone: string): ZonedOrderFilter => ({ status: q.status, runId: q.runId, from: q.from, to: q.to, q: q.q, timeZone });
+const filterOf = (q: z.infer<typeof OrderQuery>, timeZone: string): ZonedOrderFilter => ({
+  status: q.status,
+  runId: q.runId,
+  from: q.from,
+  to: q.to,
+  q: q.q,
+  timeZone,
+});
 
 /** /api/admin/orders: the table, CSV, detail, pack, ship, refund and its preview. */
 export function orderAdminRoutes(d: ShopAdminDeps): Router {
@@ -47,7 +64,24 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
   r.get('/', async function listOrders(req, res) {
     const q = parse(OrderQuery, req.query);
     const { items, total } = await d.orders.page(filterOf(q, d.timeZone), q.sort, q.dir, q.page, q.pageSize);
-    const answer: StaffOrderPage = { items: items.map((o) => ({ id: o.id, number: o.number, status: o.status, email: o.email, shipName: o.ship_name, units: o.units, totalCents: o.total_cents, refundedCents: o.refunded_cents, shippingName: o.shipping_name, createdAt: o.created_at.toISOString(), disputed: o.disputed_at !== null })), total, page: q.page, pageSize: q.pageSize };
+    const answer: StaffOrderPage = {
+      items: items.map((o) => ({
+        id: o.id,
+        number: o.number,
+        status: o.status,
+        email: o.email,
+        shipName: o.ship_name,
+        units: o.units,
+        totalCents: o.total_cents,
+        refundedCents: o.refunded_cents,
+        shippingName: o.shipping_name,
+        createdAt: o.created_at.toISOString(),
+        disputed: o.disputed_at !== null,
+      })),
+      total,
+      page: q.page,
+      pageSize: q.pageSize,
+    };
     res.json(answer);
   });
   r.get('/export', async function exportOrders(req, res) {
@@ -55,8 +89,47 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
     // The filters choose the orders; the file always lists them oldest first, whatever the table was sorted by.
     const rows = await d.orders.all(filterOf(q, d.timeZone), 'created', 'asc');
     res.type('text/csv; charset=utf-8').attachment('padside-orders.csv');
-    const header = ['Order number', zonedHeader('Placed at', d.timeZone), 'Status', 'E-mail', 'Ship to', 'Country', 'Shipping method', 'Units', 'Subtotal (CAD)', 'Discount (CAD)', 'Shipping (CAD)', 'Tax (CAD)', 'Total (CAD)', 'Refunded (CAD)', 'Carrier', 'Tracking number'];
-    res.send(toCsv(header, rows.map((o) => [o.number, csvInstant(o.created_at, d.timeZone), labelOf(ORDER_STATUS_LABELS, o.status), o.email, o.ship_name, o.ship_country, o.shipping_name, o.units, centsToDecimal(o.subtotal_cents), centsToDecimal(o.discount_cents), centsToDecimal(o.shipping_cents), centsToDecimal(o.tax_cents), centsToDecimal(o.total_cents), centsToDecimal(o.refunded_cents), o.carrier, o.tracking_number])));
+    const header = [
+      'Order number',
+      zonedHeader('Placed at', d.timeZone),
+      'Status',
+      'E-mail',
+      'Ship to',
+      'Country',
+      'Shipping method',
+      'Units',
+      'Subtotal (CAD)',
+      'Discount (CAD)',
+      'Shipping (CAD)',
+      'Tax (CAD)',
+      'Total (CAD)',
+      'Refunded (CAD)',
+      'Carrier',
+      'Tracking number',
+    ];
+    res.send(
+      toCsv(
+        header,
+        rows.map((o) => [
+          o.number,
+          csvInstant(o.created_at, d.timeZone),
+          labelOf(ORDER_STATUS_LABELS, o.status),
+          o.email,
+          o.ship_name,
+          o.ship_country,
+          o.shipping_name,
+          o.units,
+          centsToDecimal(o.subtotal_cents),
+          centsToDecimal(o.discount_cents),
+          centsToDecimal(o.shipping_cents),
+          centsToDecimal(o.tax_cents),
+          centsToDecimal(o.total_cents),
+          centsToDecimal(o.refunded_cents),
+          o.carrier,
+          o.tracking_number,
+        ]),
+      ),
+    );
   });
   r.get('/:id', async function showOrderForStaff(req, res) {
     const b = await d.orders.find(parse(fields.id, req.params.id));
@@ -64,12 +137,20 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
     res.json({ order: await staffOrderJson(b, d.refundRepo, d.orders) });
   });
   r.post('/:id/pack', async function packOrder(req, res) {
-    res.json({ order: await staffOrderJson(await d.fulfilment.pack(parse(fields.id, req.params.id)), d.refundRepo, d.orders) });
+    res.json({
+      order: await staffOrderJson(await d.fulfilment.pack(parse(fields.id, req.params.id)), d.refundRepo, d.orders),
+    });
   });
   r.post('/:id/ship', async function shipOrder(req, res) {
     const id = parse(fields.id, req.params.id);
     const body = parse(ShipBody, req.body);
-    res.json({ order: await staffOrderJson(await d.fulfilment.ship(id, body.carrier, body.trackingNumber), d.refundRepo, d.orders) });
+    res.json({
+      order: await staffOrderJson(
+        await d.fulfilment.ship(id, body.carrier, body.trackingNumber),
+        d.refundRepo,
+        d.orders,
+      ),
+    });
   });
   r.post('/:id/refund-preview', async function previewRefund(req, res) {
     const id = parse(fields.id, req.params.id);
@@ -79,7 +160,10 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
   r.post('/:id/refund', async function refundOrder(req, res) {
     const id = parse(fields.id, req.params.id);
     const body = parse(RefundBody, req.body);
-    const key = parse(z.object({ 'idempotency-key': RequestKey }), { 'idempotency-key': req.header('idempotency-key') })['idempotency-key'] ?? null;
+    const key =
+      parse(z.object({ 'idempotency-key': RequestKey }), { 'idempotency-key': req.header('idempotency-key') })[
+        'idempotency-key'
+      ] ?? null;
     const { bundle, refund } = await d.refunds.refund(id, { ...body, reason: body.reason ?? null }, key, req.user!.id);
     const [lines, taxes] = [await d.refundRepo.lines([refund.id]), await d.refundRepo.taxes([refund.id])];
     res.json({ order: await staffOrderJson(bundle, d.refundRepo, d.orders), refund: refundJson(refund, lines, taxes) });
@@ -127,7 +211,15 @@ export function runAdminRoutes(d: ShopAdminDeps): Router {
   r.get('/:id/print-sheet.csv', async function printSheetCsv(req, res) {
     const s = await d.catalogue.printSheet(parse(fields.id, req.params.id));
     res.type('text/csv; charset=utf-8').attachment(`print-run-${s.run.id}.csv`);
-    res.send(toCsv(['SKU', 'Variant', 'Paid', 'Spares', 'To print'], [...s.lines.map((l) => [l.sku, l.label, l.paid, l.spares, l.toPrint]), ['', 'Total', s.totalPaid, '', s.totalToPrint]]));
+    res.send(
+      toCsv(
+        ['SKU', 'Variant', 'Paid', 'Spares', 'To print'],
+        [
+          ...s.lines.map((l) => [l.sku, l.label, l.paid, l.spares, l.toPrint]),
+          ['', 'Total', s.totalPaid, '', s.totalToPrint],
+        ],
+      ),
+    );
   });
   return r;
 }
@@ -147,7 +239,8 @@ export function shopSettingsRoutes(d: ShopAdminDeps): Router {
   });
   r.put('/shipping-methods/:id', async function saveShippingMethod(req, res) {
     const id = parse(fields.id, req.params.id);
-    if (!(await d.config.updateShippingMethod(id, parse(ShippingBody, req.body)))) throw notFound('No such shipping method.');
+    if (!(await d.config.updateShippingMethod(id, parse(ShippingBody, req.body))))
+      throw notFound('No such shipping method.');
     res.json({ method: await d.config.shippingMethod(id) });
   });
   r.get('/tax-rates', async function listTaxRates(_req, res) {

@@ -22,12 +22,17 @@ export class ShopConfigRepository {
 
   /** Every shipping method, switched-off ones too, for the shop settings. */
   async allShippingMethods(): Promise<ShippingMethodRow[]> {
-    return (await this.db<ShippingMethodRow>('shop_shipping_methods').orderBy('position')).map((m) => ({ ...m, id: Number(m.id) }));
+    return (await this.db<ShippingMethodRow>('shop_shipping_methods').orderBy('position')).map((m) => ({
+      ...m,
+      id: Number(m.id),
+    }));
   }
 
   /** The shipping methods a buyer can choose at checkout. */
   async activeShippingMethods(): Promise<ShippingMethodRow[]> {
-    return (await this.db<ShippingMethodRow>('shop_shipping_methods').where('active', true).orderBy('position')).map((m) => ({ ...m, id: Number(m.id) }));
+    return (await this.db<ShippingMethodRow>('shop_shipping_methods').where('active', true).orderBy('position')).map(
+      (m) => ({ ...m, id: Number(m.id) }),
+    );
   }
 
   /** One shipping method by id, switched off or not. */
@@ -37,20 +42,41 @@ export class ShopConfigRepository {
   }
 
   /** Saves a shipping method's name, weight brackets and switch; false when there is no such method. */
-  async updateShippingMethod(id: number, patch: { name: string; brackets: WeightBracket[]; active: boolean }): Promise<boolean> {
-    return (await this.db('shop_shipping_methods').where('id', id).update({ ...patch, brackets: JSON.stringify(patch.brackets) })) > 0;
+  async updateShippingMethod(
+    id: number,
+    patch: { name: string; brackets: WeightBracket[]; active: boolean },
+  ): Promise<boolean> {
+    return (
+      (await this.db('shop_shipping_methods')
+        .where('id', id)
+        .update({ ...patch, brackets: JSON.stringify(patch.brackets) })) > 0
+    );
   }
 
   /** Every tax rate with the day it takes effect, for pricing an order on its day. */
   async taxRates(): Promise<TaxRate[]> {
     const rows = await this.db('shop_tax_rates').select('jurisdiction', 'code', 'rate_percent', this.db.raw(DAY));
-    return rows.map((r) => ({ jurisdiction: r.jurisdiction, code: r.code, ratePercent: String(r.rate_percent), effectiveFrom: r.effective_from }));
+    return rows.map((r) => ({
+      jurisdiction: r.jurisdiction,
+      code: r.code,
+      ratePercent: String(r.rate_percent),
+      effectiveFrom: r.effective_from,
+    }));
   }
 
   /** The tax-rate table with each rate's source, in the order staff read it. */
-  async taxRateTable(): Promise<{ jurisdiction: string; code: string; ratePercent: string; effectiveFrom: string; source: string }[]> {
-    const rows = await this.db('shop_tax_rates').select('jurisdiction', 'code', 'rate_percent', 'source', this.db.raw(DAY)).orderBy(['jurisdiction', 'code', 'effective_from']);
-    return rows.map((r) => ({ jurisdiction: r.jurisdiction, code: r.code, ratePercent: String(r.rate_percent), effectiveFrom: r.effective_from, source: r.source }));
+  async taxRateTable(): Promise<
+    { jurisdiction: string; code: string; ratePercent: string; effectiveFrom: string; source: string }[]
+  > {
+    const rows = await this.db('shop_tax_rates')
+      .select('jurisdiction', 'code', 'rate_percent', 'source', this.db.raw(DAY))
+      .orderBy(['jurisdiction', 'code', 'effective_from']);
+    return rows.map((r) => ({
+      jurisdiction: r.jurisdiction,
+      code: r.code,
+      ratePercent: String(r.rate_percent),
+      effectiveFrom: r.effective_from,
+      source: r.source,
+    }));
   }
 }
-

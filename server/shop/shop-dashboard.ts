@@ -13,7 +13,10 @@ export function shopDashboard(
   clock: Clock,
   settings: SettingsService,
   timeZone: string,
-): Pick<DashboardSources, 'ordersAwaitingShipment' | 'runsClosingWithin' | 'unitsBySize' | 'taxRegistrations' | 'salesByProvince'> {
+): Pick<
+  DashboardSources,
+  'ordersAwaitingShipment' | 'runsClosingWithin' | 'unitsBySize' | 'taxRegistrations' | 'salesByProvince'
+> {
   return {
     /** Paid orders by the province they were delivered to (their place of supply), before refunds, net of tax. */
     async salesByProvince(range) {
@@ -23,12 +26,21 @@ export function shopDashboard(
         .where('paid_at', '>=', db.raw('(?::date)::timestamp AT TIME ZONE ?', [range.from, timeZone]))
         .andWhere('paid_at', '<', db.raw('((?::date + 1))::timestamp AT TIME ZONE ?', [range.to, timeZone]))
         .groupBy('tax_jurisdiction')
-        .select('tax_jurisdiction as province', db.raw('COUNT(*)::int AS orders'), db.raw('COALESCE(SUM(total_cents - tax_cents), 0)::bigint AS sales'));
+        .select(
+          'tax_jurisdiction as province',
+          db.raw('COUNT(*)::int AS orders'),
+          db.raw('COALESCE(SUM(total_cents - tax_cents), 0)::bigint AS sales'),
+        );
       return rows.map((r) => ({ province: String(r.province), orders: Number(r.orders), salesCents: Number(r.sales) }));
     },
     async taxRegistrations() {
       const s = await settings.get(SHOP_SETTINGS);
-      return { sellerProvince: s.sellerProvince, gstHstNumber: s.gstHstNumber, gstHstRegistered: s.gstHstRegistered, provincialRegistrations: s.provincialRegistrations };
+      return {
+        sellerProvince: s.sellerProvince,
+        gstHstNumber: s.gstHstNumber,
+        gstHstRegistered: s.gstHstRegistered,
+        provincialRegistrations: s.provincialRegistrations,
+      };
     },
     async ordersAwaitingShipment() {
       const [{ n }] = await db('shop_orders').whereIn('status', ['paid', 'packed']).count<{ n: string }[]>({ n: '*' });
@@ -38,7 +50,15 @@ export function shopDashboard(
       const now = clock.now();
       const until = new Date(now.getTime() + days * 86_400_000);
       return (await catalogue.runs())
-        .filter((r) => ['open', 'sold_out'].includes(effectiveRunState({ state: r.state, cap: r.cap, reserved: r.reserved, opensAt: r.opens_at, closesAt: r.closes_at }, now)) && r.closes_at <= until)
+        .filter(
+          (r) =>
+            ['open', 'sold_out'].includes(
+              effectiveRunState(
+                { state: r.state, cap: r.cap, reserved: r.reserved, opensAt: r.opens_at, closesAt: r.closes_at },
+                now,
+              ),
+            ) && r.closes_at <= until,
+        )
         .map((r) => ({ id: r.id, name: r.name || r.product_name, closesAt: r.closes_at.toISOString() }));
     },
     async unitsBySize(runId) {

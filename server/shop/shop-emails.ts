@@ -9,7 +9,10 @@ import { receiptText } from './receipt';
 function receipt(b: OrderBundle): string[] {
   const o = b.order;
   return [
-    ...b.items.map((i) => `${i.quantity} x ${i.product_name} (${i.variant_label}, ${i.sku}) @ ${formatCad(i.unit_price_cents)} = ${formatCad(i.unit_price_cents * i.quantity)}`),
+    ...b.items.map(
+      (i) =>
+        `${i.quantity} x ${i.product_name} (${i.variant_label}, ${i.sku}) @ ${formatCad(i.unit_price_cents)} = ${formatCad(i.unit_price_cents * i.quantity)}`,
+    ),
     '',
     `Items: ${formatCad(o.subtotal_cents)}`,
     ...(o.discount_cents ? [`Member discount (${o.discount_percent}%): -${formatCad(o.discount_cents)}`] : []),
@@ -20,16 +23,48 @@ function receipt(b: OrderBundle): string[] {
 }
 
 /** The order confirmation, once per order; it is also the buyer's receipt. `orderUrl` is the signed link that opens the order without an account. */
-export function confirmationEmail(b: OrderBundle, orderUrl: string, teamName: string, r: Receipt, nextSteps: string[]): TransactionalEmail {
+export function confirmationEmail(
+  b: OrderBundle,
+  orderUrl: string,
+  teamName: string,
+  r: Receipt,
+  nextSteps: string[],
+): TransactionalEmail {
   const o = b.order;
-  const dest = o.shipping_code === 'pickup' ? 'Pick up at the next club launch; bring this e-mail.' : [o.ship_name, o.ship_line1, o.ship_line2, `${o.ship_city ?? ''} ${o.ship_province ?? ''} ${o.ship_postal_code ?? ''}`.trim(), o.ship_country].filter(Boolean).join('\n');
+  const dest =
+    o.shipping_code === 'pickup'
+      ? 'Pick up at the next club launch; bring this e-mail.'
+      : [
+          o.ship_name,
+          o.ship_line1,
+          o.ship_line2,
+          `${o.ship_city ?? ''} ${o.ship_province ?? ''} ${o.ship_postal_code ?? ''}`.trim(),
+          o.ship_country,
+        ]
+          .filter(Boolean)
+          .join('\n');
   return {
     to: o.email,
     subject: `${teamName} order ${o.number}: thank you`,
     template: 'shop-order-confirmation',
     reason: { order: o.number, team: teamName },
     dedupeKey: `shop-confirmation-${o.id}`,
-    text: [`Thanks for your order ${o.number}. It is paid and we have it.`, '', 'Receipt', ...receiptText(r), '', ...receipt(b), '', 'Delivery:', dest, '', ...(nextSteps.length ? ['What happens next:', ...nextSteps.map((s) => `- ${s}`), ''] : []), `See your order: ${orderUrl}`, '', teamName].join('\n'),
+    text: [
+      `Thanks for your order ${o.number}. It is paid and we have it.`,
+      '',
+      'Receipt',
+      ...receiptText(r),
+      '',
+      ...receipt(b),
+      '',
+      'Delivery:',
+      dest,
+      '',
+      ...(nextSteps.length ? ['What happens next:', ...nextSteps.map((s) => `- ${s}`), ''] : []),
+      `See your order: ${orderUrl}`,
+      '',
+      teamName,
+    ].join('\n'),
   };
 }
 
@@ -42,12 +77,26 @@ export function shippedEmail(b: OrderBundle, orderUrl: string, teamName: string)
     template: 'shop-order-shipped',
     reason: { order: o.number },
     dedupeKey: `shop-shipped-${o.id}`,
-    text: [`Your order ${o.number} has left the workshop.`, '', `Carrier: ${o.carrier}`, `Tracking number: ${o.tracking_number}`, '', `See your order: ${orderUrl}`, '', teamName].join('\n'),
+    text: [
+      `Your order ${o.number} has left the workshop.`,
+      '',
+      `Carrier: ${o.carrier}`,
+      `Tracking number: ${o.tracking_number}`,
+      '',
+      `See your order: ${orderUrl}`,
+      '',
+      teamName,
+    ].join('\n'),
   };
 }
 
 /** A refund notice, once per refund. */
-export function refundEmail(b: OrderBundle, refundId: number, amountCents: number, teamName: string): TransactionalEmail {
+export function refundEmail(
+  b: OrderBundle,
+  refundId: number,
+  amountCents: number,
+  teamName: string,
+): TransactionalEmail {
   const o = b.order;
   return {
     to: o.email,
@@ -55,7 +104,14 @@ export function refundEmail(b: OrderBundle, refundId: number, amountCents: numbe
     template: 'shop-order-refund',
     reason: { order: o.number },
     dedupeKey: `shop-refund-${refundId}`,
-    text: [`We have refunded ${formatCad(amountCents)} on order ${o.number}.`, `Refunded so far: ${formatCad(o.refunded_cents)} of ${formatCad(o.total_cents)}.`, '', 'Card refunds usually take a few business days to show on your statement.', '', teamName].join('\n'),
+    text: [
+      `We have refunded ${formatCad(amountCents)} on order ${o.number}.`,
+      `Refunded so far: ${formatCad(o.refunded_cents)} of ${formatCad(o.total_cents)}.`,
+      '',
+      'Card refunds usually take a few business days to show on your statement.',
+      '',
+      teamName,
+    ].join('\n'),
   };
 }
 
@@ -67,6 +123,11 @@ export function disputeEmail(b: OrderBundle, to: string, reason: string): Transa
     template: 'shop-order-dispute',
     reason: { order: b.order.number },
     dedupeKey: `shop-dispute-${b.order.id}`,
-    text: [`The card holder disputed the charge on order ${b.order.number} (${formatCad(b.order.total_cents)}).`, `Reason given: ${codeInWords(reason)}`, '', 'Gather the order, shipping and tracking details and answer the dispute in the processor dashboard.'].join('\n'),
+    text: [
+      `The card holder disputed the charge on order ${b.order.number} (${formatCad(b.order.total_cents)}).`,
+      `Reason given: ${codeInWords(reason)}`,
+      '',
+      'Gather the order, shipping and tracking details and answer the dispute in the processor dashboard.',
+    ].join('\n'),
   };
 }

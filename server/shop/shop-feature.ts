@@ -25,24 +25,75 @@ import { WebhookService } from './webhook-service';
  * The merch shop: catalogue, checkout, fulfilment, refunds, the payment webhook and reconciliation. `otherCharges`
  * records processor refunds of charges other features made (dues), for the webhook and the refund reconciliation.
  */
-export function shopFeature(platform: Platform, otherCharges: (chargeId: string) => Promise<boolean> = async () => false): Feature {
+export function shopFeature(
+  platform: Platform,
+  otherCharges: (chargeId: string) => Promise<boolean> = async () => false,
+): Feature {
   const { deps, settings } = platform;
   const catalogueRepo = new CatalogueRepository(deps.db);
   const config = new ShopConfigRepository(deps.db);
   const orders = new OrderRepository(deps.db);
   const stock = new StockRepository();
   const quotes = new QuoteService(catalogueRepo, config, settings, deps.config);
-  const catalogue = new CatalogueService(deps.db, catalogueRepo, settings, deps.clock, new NotifiedCache<ReadyJson>(platform.notifications, 'shop_catalogue'));
+  const catalogue = new CatalogueService(
+    deps.db,
+    catalogueRepo,
+    settings,
+    deps.clock,
+    new NotifiedCache<ReadyJson>(platform.notifications, 'shop_catalogue'),
+  );
   const links = new OrderLinks(deps.config.sessionSecret, deps.config.publicUrl);
   const guide = new OrderGuide(orders, deps.clock, deps.config.site.clubName, deps.config.clubTimeZone);
   const receipts = new ReceiptService(settings, deps.config.site.teamName, deps.config.clubTimeZone);
-  const checkout = new CheckoutService(deps.db, orders, stock, quotes, deps.payments, settings, deps.clock, links, deps.config.site.teamName, deps.log, receipts, guide);
+  const checkout = new CheckoutService(
+    deps.db,
+    orders,
+    stock,
+    quotes,
+    deps.payments,
+    settings,
+    deps.clock,
+    links,
+    deps.config.site.teamName,
+    deps.log,
+    receipts,
+    guide,
+  );
   const fulfilment = new FulfilmentService(deps.db, orders, deps.clock, links, deps.config.site.teamName);
   const refundRepo = new RefundRepository(deps.db);
-  const refunds = new RefundService(deps.db, orders, stock, refundRepo, deps.payments, deps.clock, deps.log, deps.config.site.teamName);
+  const refunds = new RefundService(
+    deps.db,
+    orders,
+    stock,
+    refundRepo,
+    deps.payments,
+    deps.clock,
+    deps.log,
+    deps.config.site.teamName,
+  );
   const webhooks = new WebhookService(deps.db, orders, refunds, settings, deps.clock, otherCharges);
-  const pub = { catalogue, quotes, checkout, orders, config, receipts, links, guide, throttle: new PaymentThrottle(deps.db), now: () => deps.clock.now() };
-  const admin = { catalogue, fulfilment, refunds, refundRepo, orders, config, settings, timeZone: deps.config.clubTimeZone };
+  const pub = {
+    catalogue,
+    quotes,
+    checkout,
+    orders,
+    config,
+    receipts,
+    links,
+    guide,
+    throttle: new PaymentThrottle(deps.db),
+    now: () => deps.clock.now(),
+  };
+  const admin = {
+    catalogue,
+    fulfilment,
+    refunds,
+    refundRepo,
+    orders,
+    config,
+    settings,
+    timeZone: deps.config.clubTimeZone,
+  };
   return {
     name: 'shop',
     mountPublic(api) {

@@ -66,7 +66,12 @@ export function productRoutes(d: ShopDeps): Router {
 export function shippingMethodRoutes(d: ShopDeps): Router {
   const r = Router();
   r.get('/', async function listShippingMethods(_req, res) {
-    const items: ShippingMethod[] = (await d.config.activeShippingMethods()).map((m) => ({ id: m.id, code: m.code, name: m.name, brackets: m.brackets }));
+    const items: ShippingMethod[] = (await d.config.activeShippingMethods()).map((m) => ({
+      id: m.id,
+      code: m.code,
+      name: m.name,
+      brackets: m.brackets,
+    }));
     res.json({ items });
   });
   return r;
@@ -88,7 +93,12 @@ async function buyerView(d: ShopDeps, b: OrderBundle): Promise<Order> {
 }
 
 /** Answers a payment attempt: 202 while the processor has not said, else `paidStatus` (201 for a new order). */
-async function answer(d: ShopDeps, res: import('express').Response, outcome: PaymentOutcome, paidStatus: 200 | 201): Promise<void> {
+async function answer(
+  d: ShopDeps,
+  res: import('express').Response,
+  outcome: PaymentOutcome,
+  paidStatus: 200 | 201,
+): Promise<void> {
   const order = await buyerView(d, outcome.bundle);
   if (outcome.status === 'pending') res.status(202).json({ order, message: outcome.message } satisfies OrderAnswer);
   else res.status(paidStatus).json({ order } satisfies OrderAnswer);
@@ -116,7 +126,11 @@ export function orderRoutes(d: ShopDeps): Router {
   // Anyone else gets the same 404 as an id that does not exist, so order ids are not confirmed to strangers (ASVS 4.0.3 4.2.1).
   const mayView = async (req: import('express').Request, id: number) => {
     const b = await d.orders.find(id);
-    const own = b && ((req.user && b.order.user_id === req.user.id) || req.session.shopOrderIds?.includes(id) || opensWithKey(req, b.order.id, b.order.email));
+    const own =
+      b &&
+      ((req.user && b.order.user_id === req.user.id) ||
+        req.session.shopOrderIds?.includes(id) ||
+        opensWithKey(req, b.order.id, b.order.email));
     if (!b || !(own || req.user?.roles.some((x) => ORDER_ROLES.includes(x)))) throw notFound('No such order.');
     return b;
   };
@@ -124,7 +138,11 @@ export function orderRoutes(d: ShopDeps): Router {
     const body = parse(OrderBody, req.body);
     // The session already holds the CSRF token, so its id is stable between attempts.
     const payer = { sessionId: req.sessionID, email: body.email, address: body.shipTo };
-    const outcome = await d.throttle.attempt(payer, () => d.checkout.placeOrder(body, req.user ?? null), (o) => o.status === 'paid');
+    const outcome = await d.throttle.attempt(
+      payer,
+      () => d.checkout.placeOrder(body, req.user ?? null),
+      (o) => o.status === 'paid',
+    );
     rememberOrder(req, outcome.bundle.order.id);
     await answer(d, res, outcome, 201);
   });
@@ -137,8 +155,21 @@ export function orderRoutes(d: ShopDeps): Router {
     const id = parse(fields.id, req.params.id);
     const { order } = await mayView(req, id);
     const { paymentToken } = parse(PayBody, req.body);
-    const payer = { sessionId: req.sessionID, email: order.email, address: { line1: order.ship_line1, postalCode: order.ship_postal_code, country: order.ship_country } };
-    await answer(d, res, await d.throttle.attempt(payer, () => d.checkout.pay(id, paymentToken), (o) => o.status === 'paid'), 200);
+    const payer = {
+      sessionId: req.sessionID,
+      email: order.email,
+      address: { line1: order.ship_line1, postalCode: order.ship_postal_code, country: order.ship_country },
+    };
+    await answer(
+      d,
+      res,
+      await d.throttle.attempt(
+        payer,
+        () => d.checkout.pay(id, paymentToken),
+        (o) => o.status === 'paid',
+      ),
+      200,
+    );
   });
   return r;
 }
@@ -149,8 +180,29 @@ export function accountOrderRoutes(d: ShopDeps): Router {
   r.get('/', requireSignedIn, async function myOrders(req, res) {
     const rows = await d.orders.forUser(req.user!.id);
     const last = await d.orders.lastShipTo(req.user!.id);
-    const lastShipTo = last && { name: last.ship_name, line1: last.ship_line1 ?? '', line2: last.ship_line2 ?? '', city: last.ship_city ?? '', province: last.ship_province ?? '', postalCode: last.ship_postal_code ?? '', country: last.ship_country };
-    const answer: AccountOrders = { lastShipTo, items: rows.map((o) => ({ id: o.id, number: o.number, status: o.status, createdAt: o.created_at.toISOString(), totalCents: o.total_cents, refundedCents: o.refunded_cents, shippingName: o.shipping_name, trackingNumber: o.tracking_number, carrier: o.carrier })) };
+    const lastShipTo = last && {
+      name: last.ship_name,
+      line1: last.ship_line1 ?? '',
+      line2: last.ship_line2 ?? '',
+      city: last.ship_city ?? '',
+      province: last.ship_province ?? '',
+      postalCode: last.ship_postal_code ?? '',
+      country: last.ship_country,
+    };
+    const answer: AccountOrders = {
+      lastShipTo,
+      items: rows.map((o) => ({
+        id: o.id,
+        number: o.number,
+        status: o.status,
+        createdAt: o.created_at.toISOString(),
+        totalCents: o.total_cents,
+        refundedCents: o.refunded_cents,
+        shippingName: o.shipping_name,
+        trackingNumber: o.tracking_number,
+        carrier: o.carrier,
+      })),
+    };
     res.json(answer);
   });
   return r;

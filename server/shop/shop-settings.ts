@@ -18,12 +18,32 @@ export const ShopSettingsSchema = z.object({
   gstHstRegistered: z.boolean(),
   provincialRegistrations: z.array(Province).max(PROVINCES.length),
   provincialTaxOnShipping: z.partialRecord(Province, z.boolean()),
-  memberDiscountPercent: z.number({ error: 'Enter a percentage.' }).int('Whole percent only.').min(0, 'At least 0.').max(90, 'At most 90.'),
-  sparesPercent: z.number({ error: 'Enter a percentage.' }).int('Whole percent only.').min(0, 'At least 0.').max(100, 'At most 100.'),
-  packMultiple: z.number({ error: 'Enter a number.' }).int('Whole pieces only.').min(1, 'At least 1.').max(500, 'At most 500.'),
-  minimumPerDesign: z.number({ error: 'Enter a number.' }).int('Whole pieces only.').min(0, 'At least 0.').max(5000, 'At most 5000.'),
+  memberDiscountPercent: z
+    .number({ error: 'Enter a percentage.' })
+    .int('Whole percent only.')
+    .min(0, 'At least 0.')
+    .max(90, 'At most 90.'),
+  sparesPercent: z
+    .number({ error: 'Enter a percentage.' })
+    .int('Whole percent only.')
+    .min(0, 'At least 0.')
+    .max(100, 'At most 100.'),
+  packMultiple: z
+    .number({ error: 'Enter a number.' })
+    .int('Whole pieces only.')
+    .min(1, 'At least 1.')
+    .max(500, 'At most 500.'),
+  minimumPerDesign: z
+    .number({ error: 'Enter a number.' })
+    .int('Whole pieces only.')
+    .min(0, 'At least 0.')
+    .max(5000, 'At most 5000.'),
   /** Where staff notices (disputes) go. */
-  staffEmail: z.string().trim().max(254).pipe(z.email({ error: 'Enter a valid e-mail address.' })),
+  staffEmail: z
+    .string()
+    .trim()
+    .max(254)
+    .pipe(z.email({ error: 'Enter a valid e-mail address.' })),
   /** The carrier the ship form starts with; empty = staff type it each time. */
   carrier: z.string().trim().max(60, 'At most 60 characters.').default(''),
 });

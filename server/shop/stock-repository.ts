@@ -8,7 +8,11 @@ export class StockRepository {
    * buyer of a drop waits for that one row: it is then held only from its update to the commit. Returns false when
    * any line no longer fits; the caller rolls back.
    */
-  async reserve(trx: Knex.Transaction, lines: { variantId: number; runId: number | null; quantity: number }[], now: Date): Promise<boolean> {
+  async reserve(
+    trx: Knex.Transaction,
+    lines: { variantId: number; runId: number | null; quantity: number }[],
+    now: Date,
+  ): Promise<boolean> {
     const byVariant = [...lines].sort((a, b) => (a.runId ?? 0) - (b.runId ?? 0) || a.variantId - b.variantId);
     for (const l of byVariant.filter((x) => x.runId)) {
       // One statement: the cap's update, and whether the variant has a cap at all (most have none).
@@ -20,7 +24,11 @@ export class StockRepository {
       if (rows[0].capped && !rows[0].held) return false;
     }
     for (const l of byVariant.filter((x) => !x.runId)) {
-      const n = await trx('shop_variants').where('id', l.variantId).whereNotNull('stock_on_hand').where('stock_on_hand', '>=', l.quantity).decrement('stock_on_hand', l.quantity);
+      const n = await trx('shop_variants')
+        .where('id', l.variantId)
+        .whereNotNull('stock_on_hand')
+        .where('stock_on_hand', '>=', l.quantity)
+        .decrement('stock_on_hand', l.quantity);
       if (n !== 1) return false;
     }
     const perRun = new Map<number, number>();
@@ -39,10 +47,20 @@ export class StockRepository {
   }
 
   /** Gives units back to their variant cap and run, or to stock, in `reserve`'s order. */
-  async release(trx: Knex.Transaction, lines: { variantId: number; runId: number | null; quantity: number }[]): Promise<void> {
-    const sorted = [...lines].filter((l) => l.quantity > 0).sort((a, b) => (a.runId ?? 0) - (b.runId ?? 0) || a.variantId - b.variantId);
-    for (const l of sorted.filter((x) => x.runId)) await trx('shop_run_variant_caps').where({ run_id: l.runId, variant_id: l.variantId }).decrement('reserved', l.quantity);
-    for (const l of sorted.filter((x) => !x.runId)) await trx('shop_variants').where('id', l.variantId).increment('stock_on_hand', l.quantity);
-    for (const l of sorted.filter((x) => x.runId)) await trx('shop_runs').where('id', l.runId!).decrement('reserved', l.quantity);
+  async release(
+    trx: Knex.Transaction,
+    lines: { variantId: number; runId: number | null; quantity: number }[],
+  ): Promise<void> {
+    const sorted = [...lines]
+      .filter((l) => l.quantity > 0)
+      .sort((a, b) => (a.runId ?? 0) - (b.runId ?? 0) || a.variantId - b.variantId);
+    for (const l of sorted.filter((x) => x.runId))
+      await trx('shop_run_variant_caps')
+        .where({ run_id: l.runId, variant_id: l.variantId })
+        .decrement('reserved', l.quantity);
+    for (const l of sorted.filter((x) => !x.runId))
+      await trx('shop_variants').where('id', l.variantId).increment('stock_on_hand', l.quantity);
+    for (const l of sorted.filter((x) => x.runId))
+      await trx('shop_runs').where('id', l.runId!).decrement('reserved', l.quantity);
   }
 }

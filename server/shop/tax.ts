@@ -46,7 +46,9 @@ export function rateUnits(ratePercent: string): number {
 export function formatRate(ratePercent: string): string {
   const units = rateUnits(ratePercent);
   const whole = Math.floor(units / 10000);
-  const frac = String(units % 10000).padStart(4, '0').replace(/0+$/, '');
+  const frac = String(units % 10000)
+    .padStart(4, '0')
+    .replace(/0+$/, '');
   return frac ? `${whole}.${frac}` : String(whole);
 }
 
@@ -92,7 +94,14 @@ export function computeTaxes(input: TaxInput, rates: TaxRate[], rules: TaxRules)
     const withShipping = federal || rules.provincialTaxOnShipping[province] === true;
     const taxableCents = input.goodsCents + (withShipping ? input.shippingCents : 0);
     const shown = formatRate(rate.ratePercent);
-    lines.push({ code: rate.code, jurisdiction: province, label: `${NAMES[rate.code]} ${shown}%`, ratePercent: shown, taxableCents, amountCents: taxOn(taxableCents, rate.ratePercent) });
+    lines.push({
+      code: rate.code,
+      jurisdiction: province,
+      label: `${NAMES[rate.code]} ${shown}%`,
+      ratePercent: shown,
+      taxableCents,
+      amountCents: taxOn(taxableCents, rate.ratePercent),
+    });
   }
   return lines;
 }

@@ -30,7 +30,11 @@ export class WebhookService {
     if (await this.db('payment_events').where('id', event.id).first('id')) return false;
     if (event.type === 'charge.refunded') await this.chargeRefunded(event.data.object);
     return this.db.transaction(async (trx) => {
-      const fresh = await trx('payment_events').insert({ id: event.id, type: event.type, received_at: this.clock.now() }).onConflict('id').ignore().returning('id');
+      const fresh = await trx('payment_events')
+        .insert({ id: event.id, type: event.type, received_at: this.clock.now() })
+        .onConflict('id')
+        .ignore()
+        .returning('id');
       if (!fresh.length) return false;
       if (event.type === 'charge.dispute.created') await this.disputeCreated(trx, event.data.object);
       return true;
@@ -43,7 +47,12 @@ export class WebhookService {
       if (!(await this.refunds.syncCharge(charge.id))) await this.otherCharges(charge.id);
     } catch (err) {
       // Not recorded as seen: the processor sends the event again later.
-      if (err instanceof Stripe.errors.StripeError) throw new AppError(503, 'processor_unreachable', 'The payment processor could not be asked for the refunds; send the event again later.');
+      if (err instanceof Stripe.errors.StripeError)
+        throw new AppError(
+          503,
+          'processor_unreachable',
+          'The payment processor could not be asked for the refunds; send the event again later.',
+        );
       throw err;
     }
   }
@@ -52,8 +61,14 @@ export class WebhookService {
     const chargeId = typeof dispute.charge === 'string' ? dispute.charge : dispute.charge.id;
     const id = await this.orders.byChargeId(chargeId, trx);
     if (!id) return;
-    await this.orders.update(trx, id, { disputed_at: this.clock.now(), dispute_reason: String(dispute.reason ?? 'unknown').slice(0, 80) });
+    await this.orders.update(trx, id, {
+      disputed_at: this.clock.now(),
+      dispute_reason: String(dispute.reason ?? 'unknown').slice(0, 80),
+    });
     const shop = await this.settings.get(SHOP_SETTINGS, trx);
-    await enqueueEmail(trx, disputeEmail((await this.orders.find(id, trx))!, shop.staffEmail, String(dispute.reason ?? 'unknown')));
+    await enqueueEmail(
+      trx,
+      disputeEmail((await this.orders.find(id, trx))!, shop.staffEmail, String(dispute.reason ?? 'unknown')),
+    );
   }
 }

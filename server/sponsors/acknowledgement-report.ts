@@ -26,11 +26,24 @@ export function acknowledgementCsv(r: ReportData): string {
   const rows: (string | number | null)[][] = [];
   for (const a of r.agreements) {
     if (a.cashCents) rows.push(['Support', a.season, 'Cash', centsToDecimal(a.cashCents), a.cashReceivedOn, '', '']);
-    for (const i of a.inKind) rows.push(['Support', a.season, `In-kind: ${i.description}`, centsToDecimal(i.valueCents), i.receivedOn, '', '']);
+    for (const i of a.inKind)
+      rows.push(['Support', a.season, `In-kind: ${i.description}`, centsToDecimal(i.valueCents), i.receivedOn, '', '']);
   }
-  for (const c of r.credits) rows.push(['Credit', '', labelOf(DELIVERABLE_KIND_LABELS, c.kind), '', isoDateInZone(c.at, r.timeZone), c.postTitle ?? c.note ?? '', c.url]);
+  for (const c of r.credits)
+    rows.push([
+      'Credit',
+      '',
+      labelOf(DELIVERABLE_KIND_LABELS, c.kind),
+      '',
+      isoDateInZone(c.at, r.timeZone),
+      c.postTitle ?? c.note ?? '',
+      c.url,
+    ]);
   const note = ['Note', '', notAReceipt(r.teamName), '', r.generatedOn, '', ''];
-  return toCsv(['Line', 'Season', 'Item', 'Declared value (CAD)', zonedHeader('Date', r.timeZone), 'Title or note', 'Link'], [...inDateOrder(rows, (row) => row[4] as string | null), note]);
+  return toCsv(
+    ['Line', 'Season', 'Item', 'Declared value (CAD)', zonedHeader('Date', r.timeZone), 'Title or note', 'Link'],
+    [...inDateOrder(rows, (row) => row[4] as string | null), note],
+  );
 }
 
 /** The cash line the PDF prints; the portal shows the same figures (`cashReceivedCents`, `cashReceivedOn`). */
@@ -51,15 +64,22 @@ export function acknowledgementPdf(r: ReportData): Promise<Buffer> {
     doc.font('bold').fontSize(13).text(`Season ${a.season}`);
     doc.font('body').fontSize(10);
     if (a.cashCents) doc.text(cashLine(a));
-    for (const i of a.inKind) doc.text(`In-kind: ${i.description}, declared value ${formatCad(i.valueCents)}${i.receivedOn ? ` (received ${i.receivedOn})` : ''}`);
+    for (const i of a.inKind)
+      doc.text(
+        `In-kind: ${i.description}, declared value ${formatCad(i.valueCents)}${i.receivedOn ? ` (received ${i.receivedOn})` : ''}`,
+      );
     doc.text(`Declared total: ${formatCad(a.totalCents)}`);
-    for (const k of a.byKind) doc.text(`${labelOf(DELIVERABLE_KIND_LABELS, k.kind)}: ${k.delivered} of ${k.promised} delivered`);
+    for (const k of a.byKind)
+      doc.text(`${labelOf(DELIVERABLE_KIND_LABELS, k.kind)}: ${k.delivered} of ${k.promised} delivered`);
     doc.moveDown(0.5);
   }
   doc.font('bold').fontSize(13).text('Credits delivered');
   doc.font('body').fontSize(10);
   if (!r.credits.length) doc.text('No credits yet.');
-  for (const c of r.credits) doc.text(`${isoDateInZone(c.at, r.timeZone)} · ${labelOf(DELIVERABLE_KIND_LABELS, c.kind)} · ${c.postTitle ?? c.note ?? ''}${c.url ? ` · ${c.url}` : ''}`);
+  for (const c of r.credits)
+    doc.text(
+      `${isoDateInZone(c.at, r.timeZone)} · ${labelOf(DELIVERABLE_KIND_LABELS, c.kind)} · ${c.postTitle ?? c.note ?? ''}${c.url ? ` · ${c.url}` : ''}`,
+    );
   doc.end();
   return done;
 }

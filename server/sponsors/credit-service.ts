@@ -26,19 +26,53 @@ export class CreditService {
    * sponsor id) when that one is still open, else the sponsor's earliest open one; each contact is e-mailed once
    * per post and sponsor, however often the post is unpublished and published again.
    */
-  async syncPostCredits(trx: Knex.Transaction, post: CreditingPost, sponsorIds: readonly number[], at: Date, chosen: ReadonlyMap<number, number> = new Map()): Promise<void> {
+  async syncPostCredits(
+    trx: Knex.Transaction,
+    post: CreditingPost,
+    sponsorIds: readonly number[],
+    at: Date,
+    chosen: ReadonlyMap<number, number> = new Map(),
+  ): Promise<void> {
     const wanted = post.published ? new Set(sponsorIds) : new Set<number>();
     const live = await this.repo.liveCreditSponsors(trx, post.id);
-    await this.repo.withdrawPostCredits(trx, post.id, live.filter((id) => !wanted.has(id)), at);
+    await this.repo.withdrawPostCredits(
+      trx,
+      post.id,
+      live.filter((id) => !wanted.has(id)),
+      at,
+    );
     const link = `${this.publicUrl}/build-logs/${post.slug}`;
     for (const sponsorId of [...wanted].filter((id) => !live.includes(id)).sort((a, b) => a - b)) {
       await this.repo.lock(trx, sponsorId);
-      const deliverableId = await this.openDeliverable(trx, sponsorId, 'build_log_credit', chosen.get(sponsorId) ?? null);
-      await this.repo.insertCredit(trx, { sponsorId, deliverableId, kind: 'build_log_credit', url: link, videoTimestamp: null, note: null, postId: post.id, recordedBy: null, creditedAt: at });
+      const deliverableId = await this.openDeliverable(
+        trx,
+        sponsorId,
+        'build_log_credit',
+        chosen.get(sponsorId) ?? null,
+      );
+      await this.repo.insertCredit(trx, {
+        sponsorId,
+        deliverableId,
+        kind: 'build_log_credit',
+        url: link,
+        videoTimestamp: null,
+        note: null,
+        postId: post.id,
+        recordedBy: null,
+        creditedAt: at,
+      });
       const sponsor = (await this.repo.byId(sponsorId, trx))!;
       for (const c of await this.repo.contacts(sponsorId, trx)) {
         await enqueueEmail(trx, {
-          ...creditPublishedEmail(c.email, c.display_name, sponsor.name, post.title, link, `${this.publicUrl}/sponsors/portal`, this.teamName),
+          ...creditPublishedEmail(
+            c.email,
+            c.display_name,
+            sponsor.name,
+            post.title,
+            link,
+            `${this.publicUrl}/sponsors/portal`,
+            this.teamName,
+          ),
           dedupeKey: `sponsor-credit:${post.id}:${sponsorId}:${c.user_id}`,
         });
       }
@@ -49,19 +83,46 @@ export class CreditService {
   async recordByHand(
     trx: Knex.Transaction,
     sponsorId: number,
-    c: { kind: DeliverableKind; url: string | null; videoTimestamp: string | null; note: string | null; creditedAt: Date },
+    c: {
+      kind: DeliverableKind;
+      url: string | null;
+      videoTimestamp: string | null;
+      note: string | null;
+      creditedAt: Date;
+    },
     userId: number,
   ): Promise<{ id: number; deliverableId: number | null }> {
     await this.repo.lock(trx, sponsorId);
     const deliverableId = await this.openDeliverable(trx, sponsorId, c.kind);
-    const id = await this.repo.insertCredit(trx, { sponsorId, deliverableId, kind: c.kind, url: c.url, videoTimestamp: c.videoTimestamp, note: c.note, postId: null, recordedBy: userId, creditedAt: c.creditedAt });
+    const id = await this.repo.insertCredit(trx, {
+      sponsorId,
+      deliverableId,
+      kind: c.kind,
+      url: c.url,
+      videoTimestamp: c.videoTimestamp,
+      note: c.note,
+      postId: null,
+      recordedBy: userId,
+      creditedAt: c.creditedAt,
+    });
     return { id, deliverableId };
   }
 
-  private async openDeliverable(trx: Knex.Transaction, sponsorId: number, kind: DeliverableKind, preferredId: number | null = null): Promise<number | null> {
+  private async openDeliverable(
+    trx: Knex.Transaction,
+    sponsorId: number,
+    kind: DeliverableKind,
+    preferredId: number | null = null,
+  ): Promise<number | null> {
     const rows = await this.repo.deliverables(sponsorId, trx);
     const open = deliverableToCredit(
-      rows.map((d) => ({ id: Number(d.id), kind: d.kind, quantity: d.quantity, dueOn: d.due_on, delivered: Number(d.delivered) })),
+      rows.map((d) => ({
+        id: Number(d.id),
+        kind: d.kind,
+        quantity: d.quantity,
+        dueOn: d.due_on,
+        delivered: Number(d.delivered),
+      })),
       kind,
       preferredId,
     );

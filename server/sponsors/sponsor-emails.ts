@@ -1,7 +1,15 @@
 import type { TransactionalEmail } from '../mail/outbox';
 
 /** Tells a sponsor contact that a published build log credits their organisation. */
-export function creditPublishedEmail(to: string, contactName: string, sponsorName: string, postTitle: string, link: string, portalLink: string, teamName: string): TransactionalEmail {
+export function creditPublishedEmail(
+  to: string,
+  contactName: string,
+  sponsorName: string,
+  postTitle: string,
+  link: string,
+  portalLink: string,
+  teamName: string,
+): TransactionalEmail {
   return {
     to,
     template: 'sponsor-credit-published',

@@ -16,7 +16,8 @@ export function sponsorInvoicePdf(inv: SponsorInvoice): Promise<Buffer> {
 
   doc.font('bold').fontSize(18).text(`Invoice ${inv.number}`);
   doc.font('body').fontSize(11).text(inv.seller.name);
-  if (inv.seller.gstHstRegistered && inv.seller.gstHstNumber) doc.text(`GST/HST registration number: ${inv.seller.gstHstNumber}`);
+  if (inv.seller.gstHstRegistered && inv.seller.gstHstNumber)
+    doc.text(`GST/HST registration number: ${inv.seller.gstHstNumber}`);
   doc.text(`Date: ${inv.date}`);
   doc.moveDown();
   doc.font('bold').text('Billed to');
@@ -32,9 +33,12 @@ export function sponsorInvoicePdf(inv: SponsorInvoice): Promise<Buffer> {
   doc.font('bold').text(`Total: ${formatCad(inv.totalCents)}`);
   doc.font('body').text(inv.paidOn ? `Paid on ${inv.paidOn}. Thank you.` : 'Payable on receipt.');
   doc.moveDown();
-  doc.font('italic').fontSize(9).text(
-    'Sponsorship that buys promotion is a taxable supply, not a donation; this invoice is not a donation receipt. The treatment follows the setting the team chose; the Canada Revenue Agency’s rules decide.',
-  );
+  doc
+    .font('italic')
+    .fontSize(9)
+    .text(
+      'Sponsorship that buys promotion is a taxable supply, not a donation; this invoice is not a donation receipt. The treatment follows the setting the team chose; the Canada Revenue Agency’s rules decide.',
+    );
   doc.end();
   return done;
 }

@@ -25,7 +25,15 @@ export function ledgerLines(deliverables: readonly DeliverableInput[], today: st
     .map((d) => {
       const listedNow = d.kind === 'sponsors_page' && d.listedNow === true;
       const delivered = listedNow ? Math.max(d.delivered, d.quantity) : d.delivered;
-      return { id: d.id, kind: d.kind, promised: d.quantity, delivered, dueOn: d.dueOn, overdue: delivered < d.quantity && d.dueOn < today, listedNow };
+      return {
+        id: d.id,
+        kind: d.kind,
+        promised: d.quantity,
+        delivered,
+        dueOn: d.dueOn,
+        overdue: delivered < d.quantity && d.dueOn < today,
+        listedNow,
+      };
     });
 }
 
@@ -33,7 +41,9 @@ export function ledgerLines(deliverables: readonly DeliverableInput[], today: st
 export function summaryByKind(lines: readonly DeliverableLine[]): KindSummary[] {
   return DELIVERABLE_KINDS.flatMap((kind) => {
     const of = lines.filter((l) => l.kind === kind);
-    return of.length ? [{ kind, promised: of.reduce((s, l) => s + l.promised, 0), delivered: of.reduce((s, l) => s + l.delivered, 0) }] : [];
+    return of.length
+      ? [{ kind, promised: of.reduce((s, l) => s + l.promised, 0), delivered: of.reduce((s, l) => s + l.delivered, 0) }]
+      : [];
   });
 }
 
@@ -48,11 +58,13 @@ export function nextDue(lines: readonly DeliverableLine[], today: string): Deliv
  * earliest due. A named one that is of another sponsor, another kind or already delivered in full thus falls back
  * rather than failing the publish: the credit still lands on a promise that is owed.
  */
-export function deliverableToCredit<T extends { id: number; kind: string; quantity: number; dueOn: string; delivered: number }>(
-  deliverables: readonly T[],
-  kind: string,
-  preferredId: number | null = null,
-): T | null {
+export function deliverableToCredit<
+  T extends { id: number; kind: string; quantity: number; dueOn: string; delivered: number },
+>(deliverables: readonly T[], kind: string, preferredId: number | null = null): T | null {
   const open = deliverables.filter((d) => d.kind === kind && d.delivered < d.quantity);
-  return open.find((d) => d.id === preferredId) ?? [...open].sort((a, b) => a.dueOn.localeCompare(b.dueOn) || a.id - b.id)[0] ?? null;
+  return (
+    open.find((d) => d.id === preferredId) ??
+    [...open].sort((a, b) => a.dueOn.localeCompare(b.dueOn) || a.id - b.id)[0] ??
+    null
+  );
 }

@@ -1,10 +1,21 @@
 import { Router } from 'express';
-import type { AdminSponsorRow, OverdueItem, PortalView, SponsorDetail, SponsorWall, StaffAgreement } from '../../contracts/sponsors/sponsor-answers';
+import type {
+  AdminSponsorRow,
+  OverdueItem,
+  PortalView,
+  SponsorDetail,
+  SponsorWall,
+  StaffAgreement,
+} from '../../contracts/sponsors/sponsor-answers';
 import type { Clock } from '../platform/clock';
 import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import { acknowledgementCsv, acknowledgementPdf, type ReportData } from './acknowledgement-report';
-import { DELIVERABLE_KIND_LABELS, DELIVERABLE_STATE_LABELS, deliverableState } from '../../contracts/labels/deliverable-kinds';
+import {
+  DELIVERABLE_KIND_LABELS,
+  DELIVERABLE_STATE_LABELS,
+  deliverableState,
+} from '../../contracts/labels/deliverable-kinds';
 import { labelOf } from '../../contracts/labels/label-of';
 import { inDateOrder, toCsv } from '../platform/csv';
 import { AgreementBody, CashReceivedBody, ContactBody, HandCreditBody, SponsorBody } from './sponsor-schemas';
@@ -39,7 +50,9 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
   const r = Router();
   r.get('/', requireRole(...STAFF), async function listSponsorsAdmin(req, res) {
     const items = await sponsors.withTiers(today());
-    res.json({ items: seesSponsorMoney(req.user!.roles) ? items : items.map(withoutTotal) } satisfies { items: AdminSponsorRow[] });
+    res.json({ items: seesSponsorMoney(req.user!.roles) ? items : items.map(withoutTotal) } satisfies {
+      items: AdminSponsorRow[];
+    });
   });
   r.post('/', requireRole(...STAFF), async function createSponsor(req, res) {
     const s = await sponsors.create(parse(SponsorBody, req.body));
@@ -62,7 +75,11 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
     const id = parse(fields.id, req.params.id);
     const sponsor = await sponsors.get(id);
     const [contacts, credits] = await Promise.all([sponsors.contacts(id), sponsors.creditsOf(id)]);
-    res.json({ sponsor, contacts: seesSponsorMoney(req.user!.roles) ? contacts : contacts.map(withoutEmail), credits } satisfies SponsorDetail);
+    res.json({
+      sponsor,
+      contacts: seesSponsorMoney(req.user!.roles) ? contacts : contacts.map(withoutEmail),
+      credits,
+    } satisfies SponsorDetail);
   });
   r.put('/:id', requireRole(...STAFF), async function updateSponsor(req, res) {
     res.json({ sponsor: await sponsors.update(parse(fields.id, req.params.id), parse(SponsorBody, req.body)) });
@@ -75,20 +92,36 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
     await sponsors.get(id);
     const agreements = await sponsors.agreements(id, today());
     // Editors record and publish credits; cash, declared values and the deal's note are the treasurer's and admin's.
-    res.json({ agreements: seesSponsorMoney(req.user!.roles) ? agreements : agreements.map(deliverablesOnly) } satisfies { agreements: StaffAgreement[] });
+    res.json({
+      agreements: seesSponsorMoney(req.user!.roles) ? agreements : agreements.map(deliverablesOnly),
+    } satisfies { agreements: StaffAgreement[] });
   });
   r.get('/:id/ledger.csv', requireRole(...STAFF), async function sponsorLedgerCsv(req, res) {
     const id = parse(fields.id, req.params.id);
     const sponsor = await sponsors.get(id);
-    const lines = (await sponsors.agreements(id, today())).flatMap((a) => a.deliverables.map((l) => ({ season: a.season, ...l })));
-    const rows = inDateOrder(lines, (l) => l.dueOn).map((l) => [l.season, labelOf(DELIVERABLE_KIND_LABELS, l.kind), l.promised, l.delivered, l.dueOn, DELIVERABLE_STATE_LABELS[deliverableState(l)]]);
-    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="ledger-${sponsor.slug}-${today()}.csv"` });
+    const lines = (await sponsors.agreements(id, today())).flatMap((a) =>
+      a.deliverables.map((l) => ({ season: a.season, ...l })),
+    );
+    const rows = inDateOrder(lines, (l) => l.dueOn).map((l) => [
+      l.season,
+      labelOf(DELIVERABLE_KIND_LABELS, l.kind),
+      l.promised,
+      l.delivered,
+      l.dueOn,
+      DELIVERABLE_STATE_LABELS[deliverableState(l)],
+    ]);
+    res.set({
+      'Content-Type': 'text/csv; charset=utf-8',
+      'Content-Disposition': `attachment; filename="ledger-${sponsor.slug}-${today()}.csv"`,
+    });
     res.send(toCsv(['Season', 'Deliverable', 'Promised', 'Delivered', 'Due on', 'State'], rows));
   });
   r.post('/:id/credits', requireRole(...STAFF), async function recordCredit(req, res) {
     const body = parse(HandCreditBody, req.body);
     const creditedAt = body.creditedOn ? new Date(`${body.creditedOn}T12:00:00Z`) : clock.now();
-    res.status(201).json(await sponsors.recordCredit(parse(fields.id, req.params.id), { ...body, creditedAt }, req.user!.id));
+    res
+      .status(201)
+      .json(await sponsors.recordCredit(parse(fields.id, req.params.id), { ...body, creditedAt }, req.user!.id));
   });
   r.post('/:id/contacts', requireRole(...MONEY), async function addContact(req, res) {
     res.status(201).json(await sponsors.addContact(parse(fields.id, req.params.id), parse(ContactBody, req.body)));
@@ -101,26 +134,52 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
 }
 
 /** /api/sponsor-portal (role sponsor): the caller's own sponsor only; there is no sponsor id to choose. */
-export function sponsorPortalRoutes(sponsors: SponsorService, today: Today, teamName: string, timeZone: string): Router {
+export function sponsorPortalRoutes(
+  sponsors: SponsorService,
+  today: Today,
+  teamName: string,
+  timeZone: string,
+): Router {
   const r = Router();
   r.use(requireRole('sponsor'));
   const report = async (userId: number): Promise<ReportData> => {
     const sponsor = await sponsors.sponsorOfUser(userId);
-    const [agreements, credits] = await Promise.all([sponsors.agreements(sponsor.id, today()), sponsors.creditsOf(sponsor.id)]);
+    const [agreements, credits] = await Promise.all([
+      sponsors.agreements(sponsor.id, today()),
+      sponsors.creditsOf(sponsor.id),
+    ]);
     return { sponsor, agreements, credits, generatedOn: today(), teamName, timeZone };
   };
   r.get('/me', async function portalMe(req, res) {
     const { sponsor, agreements, credits } = await report(req.user!.id);
-    res.json({ sponsor, agreements, credits: credits.map((c) => ({ kind: c.kind, url: c.url, at: c.at, postSlug: c.postSlug ?? undefined, postTitle: c.postTitle ?? undefined, note: c.note, videoTimestamp: c.videoTimestamp })) } satisfies PortalView);
+    res.json({
+      sponsor,
+      agreements,
+      credits: credits.map((c) => ({
+        kind: c.kind,
+        url: c.url,
+        at: c.at,
+        postSlug: c.postSlug ?? undefined,
+        postTitle: c.postTitle ?? undefined,
+        note: c.note,
+        videoTimestamp: c.videoTimestamp,
+      })),
+    } satisfies PortalView);
   });
   r.get('/report.csv', async function portalReportCsv(req, res) {
     const data = await report(req.user!.id);
-    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="acknowledgement-${data.sponsor.slug}-${data.generatedOn}.csv"` });
+    res.set({
+      'Content-Type': 'text/csv; charset=utf-8',
+      'Content-Disposition': `attachment; filename="acknowledgement-${data.sponsor.slug}-${data.generatedOn}.csv"`,
+    });
     res.send(acknowledgementCsv(data));
   });
   r.get('/report.pdf', async function portalReportPdf(req, res) {
     const data = await report(req.user!.id);
-    res.set({ 'Content-Type': 'application/pdf', 'Content-Disposition': `attachment; filename="acknowledgement-${data.sponsor.slug}-${data.generatedOn}.pdf"` });
+    res.set({
+      'Content-Type': 'application/pdf',
+      'Content-Disposition': `attachment; filename="acknowledgement-${data.sponsor.slug}-${data.generatedOn}.pdf"`,
+    });
     res.send(await acknowledgementPdf(data));
   });
   return r;

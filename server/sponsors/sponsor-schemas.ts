@@ -18,12 +18,19 @@ export const webAddress = z
   .string()
   .trim()
   .max(300, 'Use at most 300 characters.')
-  .refine((s) => s === '' || /^https?:\/\/[^\s/$.?#][^\s]*$/i.test(s), 'Enter an address starting with http:// or https://.')
+  .refine(
+    (s) => s === '' || /^https?:\/\/[^\s/$.?#][^\s]*$/i.test(s),
+    'Enter an address starting with http:// or https://.',
+  )
   .nullish()
   .transform((s) => s || null);
 
 export const SponsorBody = z.object({
-  name: z.string({ error: 'Name is required.' }).trim().min(1, 'Name is required.').max(120, 'Use at most 120 characters.'),
+  name: z
+    .string({ error: 'Name is required.' })
+    .trim()
+    .min(1, 'Name is required.')
+    .max(120, 'Use at most 120 characters.'),
   website: webAddress,
   blurb: optionalText(1000),
   logoUrl: fields.uploadedImage,
@@ -41,21 +48,48 @@ export const AgreementBody = z.object({
   cashCents: fields.cents.optional(),
   note: optionalText(1000),
   inKind: z
-    .array(z.object({ description: z.string({ error: 'Describe the item.' }).trim().min(1, 'Describe the item.').max(200, 'Use at most 200 characters.'), valueCents: fields.cents, receivedOn: fields.date.nullish() }))
+    .array(
+      z.object({
+        description: z
+          .string({ error: 'Describe the item.' })
+          .trim()
+          .min(1, 'Describe the item.')
+          .max(200, 'Use at most 200 characters.'),
+        valueCents: fields.cents,
+        receivedOn: fields.date.nullish(),
+      }),
+    )
     .max(50)
     .optional(),
   deliverables: z
-    .array(z.object({ kind: z.enum(DELIVERABLE_KINDS, { error: `Choose a kind: ${DELIVERABLE_KINDS.map((k) => DELIVERABLE_KIND_LABELS[k].toLowerCase()).join(', ')}.` }), quantity: z.number({ error: 'Enter a quantity.' }).int('Whole numbers only.').min(1, 'At least 1.').max(1000), dueOn: fields.date }), {
-      error: 'List what was promised.',
-    })
+    .array(
+      z.object({
+        kind: z.enum(DELIVERABLE_KINDS, {
+          error: `Choose a kind: ${DELIVERABLE_KINDS.map((k) => DELIVERABLE_KIND_LABELS[k].toLowerCase()).join(', ')}.`,
+        }),
+        quantity: z.number({ error: 'Enter a quantity.' }).int('Whole numbers only.').min(1, 'At least 1.').max(1000),
+        dueOn: fields.date,
+      }),
+      {
+        error: 'List what was promised.',
+      },
+    )
     .max(50),
 });
 
-export const CashReceivedBody = z.object({ receivedOn: fields.date, method: z.enum(['cash', 'e-transfer', 'cheque', 'card', 'other'], { error: 'Choose e-transfer, cheque, cash, card or other.' }) });
+export const CashReceivedBody = z.object({
+  receivedOn: fields.date,
+  method: z.enum(['cash', 'e-transfer', 'cheque', 'card', 'other'], {
+    error: 'Choose e-transfer, cheque, cash, card or other.',
+  }),
+});
 
 export const HandCreditBody = z
   .object({
-    kind: z.enum(['video_mention', 'logo_on_merch', 'sponsors_page', 'social_post'], { error: 'Build log credits come from publishing a post; pick a video mention, logo on merch, sponsors page listing or social post.' }),
+    kind: z.enum(['video_mention', 'logo_on_merch', 'sponsors_page', 'social_post'], {
+      error:
+        'Build log credits come from publishing a post; pick a video mention, logo on merch, sponsors page listing or social post.',
+    }),
     url: webAddress,
     videoTimestamp: z
       .string()
@@ -65,11 +99,17 @@ export const HandCreditBody = z
     note: optionalText(500),
     creditedOn: fields.date.optional(),
   })
-  .refine((c) => c.kind === 'logo_on_merch' || c.kind === 'sponsors_page' || c.url !== null, { path: ['url'], message: 'Add the link where the credit can be seen.' });
+  .refine((c) => c.kind === 'logo_on_merch' || c.kind === 'sponsors_page' || c.url !== null, {
+    path: ['url'],
+    message: 'Add the link where the credit can be seen.',
+  });
 
 export const ContactBody = z
   .object({ userId: fields.id.optional(), email: fields.email.optional() })
-  .refine((c) => c.userId !== undefined || c.email !== undefined, { path: ['email'], message: 'Enter the contact’s e-mail.' });
+  .refine((c) => c.userId !== undefined || c.email !== undefined, {
+    path: ['email'],
+    message: 'Enter the contact’s e-mail.',
+  });
 
 /** PUT .../agreements/:agreementId/tax-treatment. */
 export const TaxTreatmentBody = z.object({ taxTreatment, province: province.nullish() });

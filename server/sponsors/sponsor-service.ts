@@ -42,7 +42,8 @@ export class SponsorService {
     private readonly settings: SettingsService,
     private readonly taxes: SponsorTaxService,
     /** Sizes of uploaded logos, so the sponsors page can reserve each logo's space before it loads. */
-    private readonly describeImages: (urls: readonly string[]) => Promise<Map<string, StoredImage>> = async () => new Map(),
+    private readonly describeImages: (urls: readonly string[]) => Promise<Map<string, StoredImage>> = async () =>
+      new Map(),
   ) {}
 
   /** Adds a sponsor under a slug made from its name and not yet taken. */
@@ -50,13 +51,26 @@ export class SponsorService {
     return this.db.transaction(async (trx) => {
       const base = slugify(input.name);
       const slug = uniqueSlug(base, await this.repo.slugsLike(base, trx));
-      return toView(await this.repo.insert(trx, { slug, name: input.name, website: input.website ?? null, blurb: input.blurb ?? null, logoUrl: input.logoUrl ?? null }));
+      return toView(
+        await this.repo.insert(trx, {
+          slug,
+          name: input.name,
+          website: input.website ?? null,
+          blurb: input.blurb ?? null,
+          logoUrl: input.logoUrl ?? null,
+        }),
+      );
     });
   }
 
   /** Saves a sponsor's public details; 404 when there is no such sponsor. */
   async update(id: number, input: SponsorInput): Promise<SponsorView> {
-    const row = await this.repo.update(this.db, id, { name: input.name, website: input.website ?? null, blurb: input.blurb ?? null, logoUrl: input.logoUrl ?? null });
+    const row = await this.repo.update(this.db, id, {
+      name: input.name,
+      website: input.website ?? null,
+      blurb: input.blurb ?? null,
+      logoUrl: input.logoUrl ?? null,
+    });
     if (!row) throw notFound('No such sponsor.');
     return toView(row);
   }
@@ -75,25 +89,53 @@ export class SponsorService {
       return await this.db.transaction(async (trx) => {
         const taxTreatment = input.taxTreatment ?? 'gift';
         const taxProvince = taxTreatment === 'promotion' ? (input.taxProvince ?? null) : null;
-        if (taxTreatment === 'promotion' && !taxProvince) throw badRequest('Choose the sponsor’s province.', { taxProvince: 'Promotion is taxed at the rate of the sponsor’s province.' });
-        const id = await this.repo.insertAgreement(trx, { sponsorId, season: input.season, cashCents: input.cashCents ?? 0, cashReceivedOn: null, note: input.note ?? null, taxTreatment, taxProvince });
-        await this.repo.insertInKind(trx, id, (input.inKind ?? []).map((i) => ({ description: i.description, valueCents: i.valueCents, receivedOn: i.receivedOn ?? null })));
+        if (taxTreatment === 'promotion' && !taxProvince)
+          throw badRequest('Choose the sponsor’s province.', {
+            taxProvince: 'Promotion is taxed at the rate of the sponsor’s province.',
+          });
+        const id = await this.repo.insertAgreement(trx, {
+          sponsorId,
+          season: input.season,
+          cashCents: input.cashCents ?? 0,
+          cashReceivedOn: null,
+          note: input.note ?? null,
+          taxTreatment,
+          taxProvince,
+        });
+        await this.repo.insertInKind(
+          trx,
+          id,
+          (input.inKind ?? []).map((i) => ({
+            description: i.description,
+            valueCents: i.valueCents,
+            receivedOn: i.receivedOn ?? null,
+          })),
+        );
         await this.repo.insertDeliverables(trx, id, input.deliverables);
         return { id };
       });
     } catch (err) {
-      if ((err as { code?: string }).code === '23505') throw conflict('season_taken', `This sponsor already has an agreement for ${input.season}.`, { season: 'One agreement per season; edit the existing one.' });
+      if ((err as { code?: string }).code === '23505')
+        throw conflict('season_taken', `This sponsor already has an agreement for ${input.season}.`, {
+          season: 'One agreement per season; edit the existing one.',
+        });
       throw err;
     }
   }
 
   /** Staff record the promised cash as received: one money movement, in the same transaction, once. */
-  async recordCashReceived(agreementId: number, input: { receivedOn: string; method: Movement['method'] }, at: Date): Promise<{ movementId: number | null }> {
+  async recordCashReceived(
+    agreementId: number,
+    input: { receivedOn: string; method: Movement['method'] },
+    at: Date,
+  ): Promise<{ movementId: number | null }> {
     return this.db.transaction(async (trx) => {
       const a = await trx<AgreementRow>('sponsor_agreements').where('id', agreementId).forUpdate().first();
       if (!a) throw notFound('No such agreement.');
-      if (a.cash_movement_id !== null || a.cash_received_on !== null) throw conflict('cash_already_received', 'The cash for this agreement is already recorded as received.');
-      if (Number(a.cash_cents) === 0) throw badRequest('This agreement promises no cash.', { receivedOn: 'Nothing to receive.' });
+      if (a.cash_movement_id !== null || a.cash_received_on !== null)
+        throw conflict('cash_already_received', 'The cash for this agreement is already recorded as received.');
+      if (Number(a.cash_cents) === 0)
+        throw badRequest('This agreement promises no cash.', { receivedOn: 'Nothing to receive.' });
       const sponsor = (await this.repo.byId(Number(a.sponsor_id), trx))!;
       // Promotion bought is taxed on the day the cash comes in; the sponsor pays the amount plus GST/HST.
       const taxes = await this.taxes.movementTaxes(a, input.receivedOn);
@@ -117,10 +159,24 @@ export class SponsorService {
   async agreements(sponsorId: number, today: string): Promise<AgreementView[]> {
     const rows = await this.repo.agreements(sponsorId);
     const ids = rows.map((a) => Number(a.id));
-    const [inKind, deliverables, listed] = await Promise.all([this.repo.inKind(ids), this.repo.deliverables(sponsorId), this.listedNow(today)]);
+    const [inKind, deliverables, listed] = await Promise.all([
+      this.repo.inKind(ids),
+      this.repo.deliverables(sponsorId),
+      this.listedNow(today),
+    ]);
     return rows.map((a) => {
-      const items = inKind.filter((i) => i.agreement_id === a.id).map((i) => ({ id: Number(i.id), description: i.description, valueCents: Number(i.value_cents), receivedOn: i.received_on }));
-      const lines = ledgerLines(deliverables.filter((d) => d.agreement_id === a.id).map((d) => toInput(d, listed, seasonOf(today))), today);
+      const items = inKind
+        .filter((i) => i.agreement_id === a.id)
+        .map((i) => ({
+          id: Number(i.id),
+          description: i.description,
+          valueCents: Number(i.value_cents),
+          receivedOn: i.received_on,
+        }));
+      const lines = ledgerLines(
+        deliverables.filter((d) => d.agreement_id === a.id).map((d) => toInput(d, listed, seasonOf(today))),
+        today,
+      );
       const inKindCents = items.reduce((s, i) => s + i.valueCents, 0);
       return {
         id: Number(a.id),
@@ -148,30 +204,61 @@ export class SponsorService {
   }
 
   /** Records a credit given by hand, counted against an open promise of its kind when there is one. */
-  async recordCredit(sponsorId: number, input: { kind: DeliverableKind; url: string | null; videoTimestamp?: string | null; note?: string | null; creditedAt: Date }, userId: number): Promise<{ id: number; counted: boolean }> {
+  async recordCredit(
+    sponsorId: number,
+    input: {
+      kind: DeliverableKind;
+      url: string | null;
+      videoTimestamp?: string | null;
+      note?: string | null;
+      creditedAt: Date;
+    },
+    userId: number,
+  ): Promise<{ id: number; counted: boolean }> {
     await this.get(sponsorId);
-    const r = await this.db.transaction((trx) => this.credits.recordByHand(trx, sponsorId, { ...input, videoTimestamp: input.videoTimestamp ?? null, note: input.note ?? null }, userId));
+    const r = await this.db.transaction((trx) =>
+      this.credits.recordByHand(
+        trx,
+        sponsorId,
+        { ...input, videoTimestamp: input.videoTimestamp ?? null, note: input.note ?? null },
+        userId,
+      ),
+    );
     return { id: r.id, counted: r.deliverableId !== null };
   }
 
   /** Links an account as a contact; only accounts holding the `sponsor` role can be contacts. */
   async addContact(sponsorId: number, who: { userId?: number; email?: string }): Promise<{ userId: number }> {
     await this.get(sponsorId);
-    const user = who.userId !== undefined ? await this.users.byId(who.userId) : await this.users.byEmail(who.email ?? '');
-    if (!user) throw new AppError(404, 'not_found', 'No account matches.', { [who.userId !== undefined ? 'userId' : 'email']: 'No account matches.' });
-    if (!user.roles.includes('sponsor')) throw conflict('not_a_sponsor_account', 'That account does not hold the sponsor role; an admin can grant it on the accounts page.', { email: 'Needs the sponsor role first.' });
+    const user =
+      who.userId !== undefined ? await this.users.byId(who.userId) : await this.users.byEmail(who.email ?? '');
+    if (!user)
+      throw new AppError(404, 'not_found', 'No account matches.', {
+        [who.userId !== undefined ? 'userId' : 'email']: 'No account matches.',
+      });
+    if (!user.roles.includes('sponsor'))
+      throw conflict(
+        'not_a_sponsor_account',
+        'That account does not hold the sponsor role; an admin can grant it on the accounts page.',
+        { email: 'Needs the sponsor role first.' },
+      );
     await this.repo.addContact(this.db, sponsorId, Number(user.id));
     return { userId: Number(user.id) };
   }
 
   /** Takes portal access away from an account; 404 when it was not a contact. */
   async removeContact(sponsorId: number, userId: number): Promise<void> {
-    if (!(await this.repo.removeContact(sponsorId, userId))) throw notFound('That account is not a contact of this sponsor.');
+    if (!(await this.repo.removeContact(sponsorId, userId)))
+      throw notFound('That account is not a contact of this sponsor.');
   }
 
   /** The accounts that can open the sponsor's portal. */
   async contacts(sponsorId: number): Promise<{ userId: number; email: string; displayName: string }[]> {
-    return (await this.repo.contacts(sponsorId)).map((c) => ({ userId: Number(c.user_id), email: c.email, displayName: c.display_name }));
+    return (await this.repo.contacts(sponsorId)).map((c) => ({
+      userId: Number(c.user_id),
+      email: c.email,
+      displayName: c.display_name,
+    }));
   }
 
   /** The sponsor tiers as configured. */
@@ -192,15 +279,34 @@ export class SponsorService {
   /** Every sponsor with the tier its current-season total reaches (null without an agreement this season). */
   async withTiers(today: string): Promise<(SponsorView & { tier: string | null; seasonTotalCents: number })[]> {
     const season = seasonOf(today);
-    const [rows, totals, { tiers }] = await Promise.all([this.repo.all(), this.repo.seasonTotals(season), this.tiers()]);
+    const [rows, totals, { tiers }] = await Promise.all([
+      this.repo.all(),
+      this.repo.seasonTotals(season),
+      this.tiers(),
+    ]);
     return rows.map((s) => {
       const total = totals.get(Number(s.id));
-      return { ...toView(s), tier: total === undefined ? null : (tierFor(total, tiers)?.name ?? null), seasonTotalCents: total ?? 0 };
+      return {
+        ...toView(s),
+        tier: total === undefined ? null : (tierFor(total, tiers)?.name ?? null),
+        seasonTotalCents: total ?? 0,
+      };
     });
   }
 
   /** The season's sponsorship per sponsor: cash, declared in-kind value, tier, and deliverables promised vs delivered. */
-  async seasonValue(today: string): Promise<{ season: string; items: { sponsor: string; tier: string | null; cashCents: number; inKindCents: number; totalCents: number; promised: number; delivered: number }[] }> {
+  async seasonValue(today: string): Promise<{
+    season: string;
+    items: {
+      sponsor: string;
+      tier: string | null;
+      cashCents: number;
+      inKindCents: number;
+      totalCents: number;
+      promised: number;
+      delivered: number;
+    }[];
+  }> {
     const season = seasonOf(today);
     const sponsors = await this.withTiers(today);
     const items = [];
@@ -222,8 +328,21 @@ export class SponsorService {
   }
 
   /** The public sponsors page: tiers from the highest down, each sponsor with the posts that credit it. */
-  async publicWall(today: string): Promise<{ season: string; tiers: { name: string; sponsors: (SponsorView & { logoSize: { width: number; height: number } | null; posts: { slug: string; title: string }[] })[] }[] }> {
-    const [sponsors, posts, { tiers }] = await Promise.all([this.withTiers(today), this.repo.creditingPosts(), this.tiers()]);
+  async publicWall(today: string): Promise<{
+    season: string;
+    tiers: {
+      name: string;
+      sponsors: (SponsorView & {
+        logoSize: { width: number; height: number } | null;
+        posts: { slug: string; title: string }[];
+      })[];
+    }[];
+  }> {
+    const [sponsors, posts, { tiers }] = await Promise.all([
+      this.withTiers(today),
+      this.repo.creditingPosts(),
+      this.tiers(),
+    ]);
     const logos = await this.describeImages(sponsors.flatMap((s) => (s.logoUrl ? [s.logoUrl] : [])));
     const ordered = [...tiers].sort((a, b) => b.minCents - a.minCents);
     return {
@@ -234,28 +353,63 @@ export class SponsorService {
           sponsors: sponsors
             .filter((s) => s.tier === t.name)
             .sort((a, b) => b.seasonTotalCents - a.seasonTotalCents || a.name.localeCompare(b.name))
-            .map((s) => ({ id: s.id, slug: s.slug, name: s.name, website: s.website, blurb: s.blurb, logoUrl: s.logoUrl, logoSize: logoSizeOf(logos, s.logoUrl), posts: posts.filter((p) => Number(p.sponsor_id) === s.id).map((p) => ({ slug: p.slug, title: p.title })) })),
+            .map((s) => ({
+              id: s.id,
+              slug: s.slug,
+              name: s.name,
+              website: s.website,
+              blurb: s.blurb,
+              logoUrl: s.logoUrl,
+              logoSize: logoSizeOf(logos, s.logoUrl),
+              posts: posts.filter((p) => Number(p.sponsor_id) === s.id).map((p) => ({ slug: p.slug, title: p.title })),
+            })),
         }))
         .filter((t) => t.sponsors.length),
     };
   }
 
   /** Overdue deliverables across every sponsor, for the staff dashboard card. */
-  async overdue(today: string): Promise<{ sponsorId: number; sponsorName: string; agreementId: number; kind: DeliverableKind; promised: number; delivered: number; dueOn: string }[]> {
-    const [rows, sponsors, listed] = await Promise.all([this.repo.deliverables(null), this.repo.all(), this.listedNow(today)]);
+  async overdue(today: string): Promise<
+    {
+      sponsorId: number;
+      sponsorName: string;
+      agreementId: number;
+      kind: DeliverableKind;
+      promised: number;
+      delivered: number;
+      dueOn: string;
+    }[]
+  > {
+    const [rows, sponsors, listed] = await Promise.all([
+      this.repo.deliverables(null),
+      this.repo.all(),
+      this.listedNow(today),
+    ]);
     const names = new Map(sponsors.map((s) => [Number(s.id), s.name]));
-    return ledgerLines(rows.map((d) => toInput(d, listed, seasonOf(today))), today)
+    return ledgerLines(
+      rows.map((d) => toInput(d, listed, seasonOf(today))),
+      today,
+    )
       .filter((l) => l.overdue)
       .map((l) => {
         const d = rows.find((r) => Number(r.id) === l.id)!;
-        return { sponsorId: Number(d.sponsor_id), sponsorName: names.get(Number(d.sponsor_id)) ?? '', agreementId: Number(d.agreement_id), kind: l.kind, promised: l.promised, delivered: l.delivered, dueOn: l.dueOn };
+        return {
+          sponsorId: Number(d.sponsor_id),
+          sponsorName: names.get(Number(d.sponsor_id)) ?? '',
+          agreementId: Number(d.agreement_id),
+          kind: l.kind,
+          promised: l.promised,
+          delivered: l.delivered,
+          dueOn: l.dueOn,
+        };
       });
   }
 
   /** The sponsor an account is a contact of; 404 when it is linked to none. */
   async sponsorOfUser(userId: number): Promise<SponsorView> {
     const row = await this.repo.sponsorOfUser(userId);
-    if (!row) throw notFound('Your account is not linked to a sponsor yet. Ask the club’s treasurer to add you as a contact.');
+    if (!row)
+      throw notFound('Your account is not linked to a sponsor yet. Ask the club’s treasurer to add you as a contact.');
     return toView(row);
   }
 }

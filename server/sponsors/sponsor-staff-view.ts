@@ -9,7 +9,14 @@ export const seesSponsorMoney = (roles: readonly Role[]): boolean => roles.some(
 
 /** What an editor needs of an agreement: the deliverables to credit, not the money or the deal's note. */
 export function deliverablesOnly(a: AgreementView) {
-  return { id: a.id, season: a.season, deliverables: a.deliverables, byKind: a.byKind, overdue: a.overdue, nextDue: a.nextDue };
+  return {
+    id: a.id,
+    season: a.season,
+    deliverables: a.deliverables,
+    byKind: a.byKind,
+    overdue: a.overdue,
+    nextDue: a.nextDue,
+  };
 }
 
 /** A sponsor row without its season total, for callers who do not see money. */

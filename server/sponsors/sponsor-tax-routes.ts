@@ -16,7 +16,10 @@ export function sponsorTaxRoutes(taxes: SponsorTaxService, today: () => string):
   r.get('/agreements/:agreementId/invoice.pdf', requireRole(...MONEY), async function sponsorInvoice(req, res) {
     const invoice = await taxes.invoice(parse(fields.id, req.params.agreementId), today());
     const pdf = await sponsorInvoicePdf(invoice);
-    res.set({ 'Content-Type': 'application/pdf', 'Content-Disposition': `attachment; filename="invoice-${invoice.number}.pdf"` });
+    res.set({
+      'Content-Type': 'application/pdf',
+      'Content-Disposition': `attachment; filename="invoice-${invoice.number}.pdf"`,
+    });
     res.send(pdf);
   });
   return r;

@@ -37,25 +37,53 @@ export class SponsorTaxService {
   ) {}
 
   /** The GST/HST on an agreement's cash on `date` (none for a gift or an unregistered team). */
-  async taxLines(a: Pick<AgreementRow, 'tax_treatment' | 'tax_province' | 'cash_cents'>, date: string): Promise<TaxLine[]> {
+  async taxLines(
+    a: Pick<AgreementRow, 'tax_treatment' | 'tax_province' | 'cash_cents'>,
+    date: string,
+  ): Promise<TaxLine[]> {
     const shop = await this.settings.get(SHOP_SETTINGS);
-    return sponsorshipTaxes({ treatment: a.tax_treatment, province: (a.tax_province as Province | null) ?? null, cashCents: Number(a.cash_cents), date }, await this.rates.taxRates(), shop.gstHstRegistered);
+    return sponsorshipTaxes(
+      {
+        treatment: a.tax_treatment,
+        province: (a.tax_province as Province | null) ?? null,
+        cashCents: Number(a.cash_cents),
+        date,
+      },
+      await this.rates.taxRates(),
+      shop.gstHstRegistered,
+    );
   }
 
   /** The same lines as the ledger records them. */
   async movementTaxes(a: AgreementRow, date: string): Promise<MovementTax[]> {
-    return (await this.taxLines(a, date)).map((t) => ({ code: t.code, jurisdiction: t.jurisdiction, ratePercent: t.ratePercent, taxableCents: t.taxableCents, taxCents: t.amountCents }));
+    return (await this.taxLines(a, date)).map((t) => ({
+      code: t.code,
+      jurisdiction: t.jurisdiction,
+      ratePercent: t.ratePercent,
+      taxableCents: t.taxableCents,
+      taxCents: t.amountCents,
+    }));
   }
 
   /** Sets promotion (with the sponsor's province) or gift; refused once the cash is recorded with its tax. */
-  async setTreatment(agreementId: number, input: { taxTreatment: TaxTreatment; province?: Province | null }): Promise<{ taxTreatment: TaxTreatment; taxProvince: Province | null }> {
+  async setTreatment(
+    agreementId: number,
+    input: { taxTreatment: TaxTreatment; province?: Province | null },
+  ): Promise<{ taxTreatment: TaxTreatment; taxProvince: Province | null }> {
     const province = input.taxTreatment === 'promotion' ? (input.province ?? null) : null;
-    if (input.taxTreatment === 'promotion' && !province) throw badRequest('Choose the sponsor’s province.', { province: 'Promotion is taxed at the rate of the sponsor’s province.' });
+    if (input.taxTreatment === 'promotion' && !province)
+      throw badRequest('Choose the sponsor’s province.', {
+        province: 'Promotion is taxed at the rate of the sponsor’s province.',
+      });
     return this.db.transaction(async (trx) => {
       const a = await trx<AgreementRow>('sponsor_agreements').where('id', agreementId).forUpdate().first();
       if (!a) throw notFound('No such agreement.');
       if (a.cash_movement_id !== null || a.cash_received_on !== null) {
-        throw conflict('cash_already_received', 'The cash is already recorded with its tax; the treatment can no longer change.', { taxTreatment: 'Fixed once the cash is recorded.' });
+        throw conflict(
+          'cash_already_received',
+          'The cash is already recorded with its tax; the treatment can no longer change.',
+          { taxTreatment: 'Fixed once the cash is recorded.' },
+        );
       }
       await this.repo.setTaxTreatment(trx, agreementId, input.taxTreatment, province);
       return { taxTreatment: input.taxTreatment, taxProvince: province };
@@ -66,9 +94,14 @@ export class SponsorTaxService {
   async invoice(agreementId: number, today: string): Promise<SponsorInvoice> {
     const a = await this.repo.agreementById(agreementId);
     if (!a) throw notFound('No such agreement.');
-    if (a.tax_treatment !== 'promotion') throw conflict('not_promotion', 'A gift gets no invoice: set the agreement to promotion first.');
+    if (a.tax_treatment !== 'promotion')
+      throw conflict('not_promotion', 'A gift gets no invoice: set the agreement to promotion first.');
     if (Number(a.cash_cents) === 0) throw conflict('no_cash', 'This agreement promises no cash to invoice.');
-    const [sponsor, shop, deliverables] = await Promise.all([this.repo.byId(Number(a.sponsor_id)), this.settings.get(SHOP_SETTINGS), this.repo.deliverables(Number(a.sponsor_id))]);
+    const [sponsor, shop, deliverables] = await Promise.all([
+      this.repo.byId(Number(a.sponsor_id)),
+      this.settings.get(SHOP_SETTINGS),
+      this.repo.deliverables(Number(a.sponsor_id)),
+    ]);
     const date = a.cash_received_on ?? today;
     const taxes = await this.taxLines(a, date);
     const taxCents = taxes.reduce((s, t) => s + t.amountCents, 0);
@@ -76,10 +109,16 @@ export class SponsorTaxService {
       number: `SP-${a.season}-${a.id}`,
       date,
       paidOn: a.cash_received_on,
-      seller: { name: shop.sellerName.trim() || this.teamName, gstHstNumber: shop.gstHstNumber, gstHstRegistered: shop.gstHstRegistered },
+      seller: {
+        name: shop.sellerName.trim() || this.teamName,
+        gstHstNumber: shop.gstHstNumber,
+        gstHstRegistered: shop.gstHstRegistered,
+      },
       sponsorName: sponsor?.name ?? '',
       season: a.season,
-      promised: deliverables.filter((d) => String(d.agreement_id) === String(a.id)).map((d) => ({ kind: d.kind, quantity: d.quantity, dueOn: d.due_on })),
+      promised: deliverables
+        .filter((d) => String(d.agreement_id) === String(a.id))
+        .map((d) => ({ kind: d.kind, quantity: d.quantity, dueOn: d.due_on })),
       amountCents: Number(a.cash_cents),
       taxes: taxes.map((t) => ({ label: t.label, amountCents: t.amountCents })),
       totalCents: Number(a.cash_cents) + taxCents,

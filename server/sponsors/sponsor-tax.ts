@@ -8,7 +8,15 @@ export { TAX_TREATMENTS, type TaxTreatment };
  * sponsorship, from memory: the treasurer confirms). Only GST/HST: provincial sales taxes are left out, as the
  * promotion is a service Padside does not sort by province rules. A gift, or a team not registered, charges none.
  */
-export function sponsorshipTaxes(input: { treatment: TaxTreatment; province: Province | null; cashCents: number; date: string }, rates: TaxRate[], gstHstRegistered: boolean): TaxLine[] {
+export function sponsorshipTaxes(
+  input: { treatment: TaxTreatment; province: Province | null; cashCents: number; date: string },
+  rates: TaxRate[],
+  gstHstRegistered: boolean,
+): TaxLine[] {
   if (input.treatment !== 'promotion' || !input.province || input.cashCents <= 0) return [];
-  return computeTaxes({ goodsCents: input.cashCents, shippingCents: 0, province: input.province, date: input.date }, rates, { gstHstRegistered, provincialRegistrations: [], provincialTaxOnShipping: {} });
+  return computeTaxes(
+    { goodsCents: input.cashCents, shippingCents: 0, province: input.province, date: input.date },
+    rates,
+    { gstHstRegistered, provincialRegistrations: [], provincialTaxOnShipping: {} },
+  );
 }

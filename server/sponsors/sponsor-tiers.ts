@@ -9,7 +9,12 @@ export interface Tier {
 
 export const TiersSchema = z.object({
   tiers: z
-    .array(z.object({ name: z.string().trim().min(1, 'Name the tier.').max(40, 'Use at most 40 characters.'), minCents: z.number().int('Whole cents.').min(0, 'Cannot be negative.').max(100_000_000) }))
+    .array(
+      z.object({
+        name: z.string().trim().min(1, 'Name the tier.').max(40, 'Use at most 40 characters.'),
+        minCents: z.number().int('Whole cents.').min(0, 'Cannot be negative.').max(100_000_000),
+      }),
+    )
     .min(1, 'Keep at least one tier.')
     .max(8, 'At most 8 tiers.')
     .refine((ts) => new Set(ts.map((t) => t.minCents)).size === ts.length, 'Each tier needs its own threshold.')

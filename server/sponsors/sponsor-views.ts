@@ -11,7 +11,14 @@ export type CreditView = SponsorCredit;
 /** A sponsor as every answer names it. */
 export type SponsorView = Sponsor;
 
-export const toView = (s: SponsorRow): SponsorView => ({ id: Number(s.id), slug: s.slug, name: s.name, website: s.website, blurb: s.blurb, logoUrl: s.logo_url });
+export const toView = (s: SponsorRow): SponsorView => ({
+  id: Number(s.id),
+  slug: s.slug,
+  name: s.name,
+  website: s.website,
+  blurb: s.blurb,
+  logoUrl: s.logo_url,
+});
 
 export const toCredit = (c: CreditRow): CreditView => ({
   id: Number(c.id),

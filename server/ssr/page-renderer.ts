@@ -46,7 +46,10 @@ export class PageRenderer {
     const id = this.nextId++;
     const worker = this.start();
     return new Promise<RenderedPage>((resolve, reject) => {
-      const timer = setTimeout(() => this.settle(id, new Error(`render of ${url} took over ${RENDER_TIMEOUT_MS} ms`)), RENDER_TIMEOUT_MS);
+      const timer = setTimeout(
+        () => this.settle(id, new Error(`render of ${url} took over ${RENDER_TIMEOUT_MS} ms`)),
+        RENDER_TIMEOUT_MS,
+      );
       this.waiting.set(id, {
         resolve: (page) => (clearTimeout(timer), resolve(page)),
         reject: (error) => (clearTimeout(timer), reject(error)),
@@ -65,7 +68,9 @@ export class PageRenderer {
   private start(): Worker {
     if (this.worker) return this.worker;
     const worker = new Worker(this.entry, { workerData: { allowedHosts: this.allowedHosts } });
-    worker.on('message', (answer: Answer) => this.settle(answer.id, 'error' in answer ? new Error(answer.error) : answer));
+    worker.on('message', (answer: Answer) =>
+      this.settle(answer.id, 'error' in answer ? new Error(answer.error) : answer),
+    );
     const fail = (error: Error) => {
       if (this.worker === worker) this.worker = null;
       for (const id of [...this.waiting.keys()]) this.settle(id, error);

@@ -13,7 +13,13 @@ export function loopbackOrigin(socket: Socket): string {
 }
 
 /** Headers of the render that Express writes itself (length, encoding) or that the app sets elsewhere. */
-const SKIPPED_HEADERS = new Set(['content-length', 'content-encoding', 'transfer-encoding', 'connection', 'cache-control']);
+const SKIPPED_HEADERS = new Set([
+  'content-length',
+  'content-encoding',
+  'transfer-encoding',
+  'connection',
+  'cache-control',
+]);
 
 /**
  * Every page address: the server-rendered page (public pages, as a visitor) or the client-rendered shell (personal
@@ -26,9 +32,13 @@ export function pageRoutes(renderer: PageRenderer | null, browserDist: string, p
     res.setHeader('Cache-Control', 'private, no-cache');
     if (renderer) {
       try {
-        const page = await renderer.render(publicUrl + req.originalUrl, { nonce: res.locals.cspNonce as string, apiOrigin: loopbackOrigin(req.socket) });
+        const page = await renderer.render(publicUrl + req.originalUrl, {
+          nonce: res.locals.cspNonce as string,
+          apiOrigin: loopbackOrigin(req.socket),
+        });
         if (page.status) {
-          for (const [name, value] of page.headers) if (!SKIPPED_HEADERS.has(name.toLowerCase())) res.setHeader(name, value);
+          for (const [name, value] of page.headers)
+            if (!SKIPPED_HEADERS.has(name.toLowerCase())) res.setHeader(name, value);
           res.status(page.status).send(page.body);
           return;
         }

@@ -12,7 +12,12 @@ const FileType: { fromFile(path: string): Promise<{ ext: string; mime: string } 
 
 export const MAX_IMAGE_BYTES = 5 * 1024 * 1024;
 type Ext = 'jpg' | 'png' | 'webp' | 'gif';
-const ALLOWED: Record<string, Ext> = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp', 'image/gif': 'gif' };
+const ALLOWED: Record<string, Ext> = {
+  'image/jpeg': 'jpg',
+  'image/png': 'png',
+  'image/webp': 'webp',
+  'image/gif': 'gif',
+};
 const THUMB_WIDTH = 480;
 
 export interface StoredImage {
@@ -39,7 +44,8 @@ interface UploadRow {
   thumbnail_key: string | null;
 }
 
-const damaged = () => new AppError(415, 'unsupported_file', 'The image could not be read; it may be damaged.', { file: 'Damaged image.' });
+const damaged = () =>
+  new AppError(415, 'unsupported_file', 'The image could not be read; it may be damaged.', { file: 'Damaged image.' });
 
 /**
  * Accepts an image only when its bytes say it is one (ASVS 4.0.3 12.2.1), whatever its name or declared type, and
@@ -55,14 +61,22 @@ export class ImageUploads {
 
   /** Checks an uploaded image by its bytes, re-encodes it without metadata with a thumbnail, and stores both under the hash of the bytes. */
   async store(file: ReceivedFile, userId: number | null): Promise<StoredImage> {
-    if (file.size > MAX_IMAGE_BYTES) throw new AppError(413, 'file_too_large', `Images can be at most ${MAX_IMAGE_BYTES / 1024 / 1024} MB.`, { file: 'Too large.' });
+    if (file.size > MAX_IMAGE_BYTES)
+      throw new AppError(413, 'file_too_large', `Images can be at most ${MAX_IMAGE_BYTES / 1024 / 1024} MB.`, {
+        file: 'Too large.',
+      });
     // PostgreSQL refuses NUL in text; other control characters have no place in a name shown to editors.
     // eslint-disable-next-line no-control-regex
-    if (/[\u0000-\u001f\u007f]/.test(file.originalName)) throw badRequest('The file name contains a character that is not allowed.', { file: 'Rename the file: its name holds a control character.' });
+    if (/[\u0000-\u001f\u007f]/.test(file.originalName))
+      throw badRequest('The file name contains a character that is not allowed.', {
+        file: 'Rename the file: its name holds a control character.',
+      });
     const sniffed = await FileType.fromFile(file.path);
     const ext = sniffed ? ALLOWED[sniffed.mime] : undefined;
     if (!sniffed || !ext) {
-      throw new AppError(415, 'unsupported_file', 'Upload a JPEG, PNG, WebP or GIF image.', { file: sniffed ? `This file is ${sniffed.mime}, not an image we accept.` : 'This file is not an image.' });
+      throw new AppError(415, 'unsupported_file', 'Upload a JPEG, PNG, WebP or GIF image.', {
+        file: sniffed ? `This file is ${sniffed.mime}, not an image we accept.` : 'This file is not an image.',
+      });
     }
     let meta: Metadata;
     try {
@@ -82,7 +96,16 @@ export class ImageUploads {
     await this.writeImage(thumbKey, reencoded(file.path, meta, 'thumb'), 'image/webp', [thumbKey]);
     const bytes = await this.writeImage(key, reencoded(file.path, meta, ext), sniffed.mime, [thumbKey, key]);
     await this.db('uploads')
-      .insert({ key, content_type: sniffed.mime, bytes, width: oriented.width ?? null, height: oriented.height ?? null, thumbnail_key: thumbKey, original_name: file.originalName.slice(0, 200), uploaded_by: userId })
+      .insert({
+        key,
+        content_type: sniffed.mime,
+        bytes,
+        width: oriented.width ?? null,
+        height: oriented.height ?? null,
+        thumbnail_key: thumbKey,
+        original_name: file.originalName.slice(0, 200),
+        uploaded_by: userId,
+      })
       .onConflict('key')
       .ignore();
     const row = await this.db<UploadRow>('uploads').where('key', key).first();
@@ -93,7 +116,9 @@ export class ImageUploads {
   /** The stored images behind `/uploads/...` addresses (sizes, WebP thumbnail), by address; others are left out. */
   async describe(urls: readonly string[]): Promise<Map<string, StoredImage>> {
     const keys = urls.map((u) => /^\/uploads\/([A-Za-z0-9._-]{1,200})$/.exec(u)?.[1]).filter((k): k is string => !!k);
-    const rows = keys.length ? await this.db<UploadRow>('uploads').whereIn('key', keys).whereNotNull('thumbnail_key') : [];
+    const rows = keys.length
+      ? await this.db<UploadRow>('uploads').whereIn('key', keys).whereNotNull('thumbnail_key')
+      : [];
     return new Map(rows.map((r) => [`/uploads/${r.key}`, toStored(r)]));
   }
 
@@ -112,8 +137,16 @@ export class ImageUploads {
       const row = await trx<UploadRow>('uploads').where('key', key).forUpdate().first();
       if (!row) throw notFound('No such image.');
       // Names are shared by identical uploads, so the same image may be on several pages.
-      const uses = await this.usesOf([`/uploads/${row.key}`, ...(row.thumbnail_key ? [`/uploads/${row.thumbnail_key}`] : [])]);
-      if (uses.length) throw conflict('image_in_use', `This image is still shown on ${uses.slice(0, 3).join(', ')}${uses.length > 3 ? ` and ${uses.length - 3} more` : ''}. Remove it there first.`, { image: 'Still in use.' });
+      const uses = await this.usesOf([
+        `/uploads/${row.key}`,
+        ...(row.thumbnail_key ? [`/uploads/${row.thumbnail_key}`] : []),
+      ]);
+      if (uses.length)
+        throw conflict(
+          'image_in_use',
+          `This image is still shown on ${uses.slice(0, 3).join(', ')}${uses.length > 3 ? ` and ${uses.length - 3} more` : ''}. Remove it there first.`,
+          { image: 'Still in use.' },
+        );
       await trx('uploads').where('id', row.id).delete();
       // Objects go inside the transaction: if the store refuses, the record stays and the delete can be retried.
       await this.storage.remove([row.key, ...(row.thumbnail_key ? [row.thumbnail_key] : [])]);
@@ -168,7 +201,13 @@ function reencoded(path: string, meta: Metadata, as: Ext | 'thumb'): Sharp {
 }
 
 function toStored(row: UploadRow): StoredImage {
-  return { id: Number(row.id), url: `/uploads/${row.key}`, thumbnailUrl: `/uploads/${row.thumbnail_key}`, width: row.width ?? 0, height: row.height ?? 0 };
+  return {
+    id: Number(row.id),
+    url: `/uploads/${row.key}`,
+    thumbnailUrl: `/uploads/${row.thumbnail_key}`,
+    width: row.width ?? 0,
+    height: row.height ?? 0,
+  };
 }
 
 async function sha256OfFile(path: string): Promise<string> {

@@ -7,7 +7,15 @@ import { checkedKey, type FileStorage, type StoredObject } from './file-storage'
 
 type S3Settings = Extract<StorageConfig, { kind: 's3' }>;
 
-const UNREACHABLE = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'ENOTFOUND', 'EAI_AGAIN', 'EHOSTUNREACH', 'EPIPE']);
+const UNREACHABLE = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'ENOTFOUND',
+  'EAI_AGAIN',
+  'EHOSTUNREACH',
+  'EPIPE',
+]);
 
 /** A store that is down or overloaded is a 503 the client may retry, not a defect; anything else stays an error. */
 function unavailable(err: unknown): never {
@@ -16,7 +24,13 @@ function unavailable(err: unknown): never {
   // The retry layer may rewrap a socket error as a plain Error whose message alone still names the code.
   const code = e.code ?? /\b(E[A-Z_]+)\b/.exec(e.message ?? '')?.[1] ?? '';
   if (UNREACHABLE.has(code) || e.name === 'TimeoutError' || status >= 500) {
-    throw new AppError(503, 'storage_unavailable', 'Image storage is not answering. Try again in a minute.', undefined, { 'Retry-After': '30' });
+    throw new AppError(
+      503,
+      'storage_unavailable',
+      'Image storage is not answering. Try again in a minute.',
+      undefined,
+      { 'Retry-After': '30' },
+    );
   }
   throw err;
 }
@@ -54,10 +68,13 @@ export class S3Storage implements FileStorage {
   /** The stored object as a stream with its length, or null when there is none. */
   async read(key: string): Promise<StoredObject | null> {
     try {
-      const out = await this.client.send(new GetObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key) }));
+      const out = await this.client.send(
+        new GetObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key) }),
+      );
       return { body: out.Body as Readable, length: Number(out.ContentLength) };
     } catch (err) {
-      if (err instanceof NoSuchKey || (err instanceof S3ServiceException && err.$metadata.httpStatusCode === 404)) return null;
+      if (err instanceof NoSuchKey || (err instanceof S3ServiceException && err.$metadata.httpStatusCode === 404))
+        return null;
       return unavailable(err);
     }
   }
@@ -65,7 +82,11 @@ export class S3Storage implements FileStorage {
   /** Deletes the objects; one already gone is not an error. */
   async remove(keys: readonly string[]): Promise<void> {
     // One request per key: DeleteObjects needs a Content-MD5 some compatible servers compute differently.
-    await Promise.all(keys.map((k) => this.client.send(new DeleteObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(k) })))).catch(unavailable);
+    await Promise.all(
+      keys.map((k) =>
+        this.client.send(new DeleteObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(k) })),
+      ),
+    ).catch(unavailable);
   }
 
   /** Releases the client's sockets. */

@@ -16,7 +16,11 @@ export const appConfig: ApplicationConfig = {
     provideZonelessChangeDetection(),
     provideRouter(routes, withComponentInputBinding(), withInMemoryScrolling({ scrollPositionRestoration: 'enabled' })),
     // Our own CSRF header (X-CSRF-Token from /api/auth/csrf) replaces Angular's cookie-based one.
-    provideHttpClient(withFetch(), withXsrfConfiguration({ cookieName: 'unused', headerName: 'unused' }), withInterceptors([csrfInterceptor, errorInterceptor])),
+    provideHttpClient(
+      withFetch(),
+      withXsrfConfiguration({ cookieName: 'unused', headerName: 'unused' }),
+      withInterceptors([csrfInterceptor, errorInterceptor]),
+    ),
     // A tap before the script has arrived is replayed once the page is live.
     provideClientHydration(withEventReplay()),
   ],

@@ -1,15 +1,35 @@
 import { RenderMode, type ServerRoute } from '@angular/ssr';
 
 /** The public pages people share and search engines read: rendered on the server, as a visitor. */
-const PUBLIC = ['', 'shop', 'shop/p/:slug', 'build-logs', 'build-logs/:slug', 'sponsors', 'launches', 'launches/:id', 'privacy'];
+const PUBLIC = [
+  '',
+  'shop',
+  'shop/p/:slug',
+  'build-logs',
+  'build-logs/:slug',
+  'sponsors',
+  'launches',
+  'launches/:id',
+  'privacy',
+];
 
 /**
  * Personal pages (console, account, cart and checkout, orders, dues, the sponsor portal) and the pages a mailed link
  * opens with its token (confirming or stopping a list): browser only.
  */
 const PERSONAL = [
-  'console/**', 'account/**', 'membership/**', 'subscriptions/**', 'shop/cart', 'shop/checkout', 'shop/orders', 'shop/orders/**',
-  'sponsors/portal', 'launches/flights/:id', 'launches/:id/results', 'launches/:id/card',
+  'console/**',
+  'account/**',
+  'membership/**',
+  'subscriptions/**',
+  'shop/cart',
+  'shop/checkout',
+  'shop/orders',
+  'shop/orders/**',
+  'sponsors/portal',
+  'launches/flights/:id',
+  'launches/:id/results',
+  'launches/:id/card',
 ];
 
 /**

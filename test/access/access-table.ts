@@ -9,4 +9,13 @@ import { membershipAccess } from './membership';
 import { shopAccess } from './shop';
 
 /** Every route the app serves, by feature. A route missing here fails the access test. */
-export const ACCESS_TABLE: RouteAccess[] = [...foundationAccess, ...buildLogsAccess, ...sponsorsAccess, ...membershipAccess, ...shopAccess, ...booksAccess, ...launchesAccess, ...announcementsAccess];
+export const ACCESS_TABLE: RouteAccess[] = [
+  ...foundationAccess,
+  ...buildLogsAccess,
+  ...sponsorsAccess,
+  ...membershipAccess,
+  ...shopAccess,
+  ...booksAccess,
+  ...launchesAccess,
+  ...announcementsAccess,
+];

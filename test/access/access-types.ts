@@ -1,5 +1,14 @@
 /** Who calls a route in the access test. */
-export const CALLERS = ['anonymous', 'fan', 'member', 'sponsor', 'editor', 'treasurer', 'admin', 'range_officer'] as const;
+export const CALLERS = [
+  'anonymous',
+  'fan',
+  'member',
+  'sponsor',
+  'editor',
+  'treasurer',
+  'admin',
+  'range_officer',
+] as const;
 export type Caller = (typeof CALLERS)[number];
 
 /**

@@ -18,7 +18,13 @@ afterAll(() => t.close());
 
 async function placeOrder(buyer: Client, email: string) {
   const shirt = await openShirt(treasurer);
-  const res = await buyer.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(buyer, 'canada'), email, paymentToken: 'tok_visa' });
+  const res = await buyer.post('/api/orders', {
+    items: [{ variantId: shirt.variants[0].id, quantity: 1 }],
+    shipTo: MB_ADDRESS,
+    shippingMethodId: await methodId(buyer, 'canada'),
+    email,
+    paymentToken: 'tok_visa',
+  });
   expect(res.status).toBe(201);
   return res.body.order.id as number;
 }
@@ -31,7 +37,12 @@ describe('V4.2.1 orders are only for their buyer, the treasurer and the admin (O
 
     const anonymous = await new Client(t.app).get(`/api/orders/${id}`);
     expect(anonymous.status).toBe(404);
-    const strangers = [editor, (await signedIn(t.app, t.deps.db, ['fan'])).client, (await signedIn(t.app, t.deps.db, ['fan', 'sponsor'])).client, (await signedIn(t.app, t.deps.db, ['fan', 'member'])).client];
+    const strangers = [
+      editor,
+      (await signedIn(t.app, t.deps.db, ['fan'])).client,
+      (await signedIn(t.app, t.deps.db, ['fan', 'sponsor'])).client,
+      (await signedIn(t.app, t.deps.db, ['fan', 'member'])).client,
+    ];
     for (const c of strangers) {
       const res = await c.get(`/api/orders/${id}`);
       expect(res.status).toBe(404);
@@ -62,7 +73,11 @@ describe('V4.2.1 orders are only for their buyer, the treasurer and the admin (O
 
 /** A sponsor with a cash and in-kind agreement and a contact, made by the admin. */
 async function sponsorWithMoney() {
-  const created = await admin.post('/api/admin/sponsors', { name: `Scope Test Parts ${Date.now()}`, website: 'https://example.test', blurb: 'Invented for a test.' });
+  const created = await admin.post('/api/admin/sponsors', {
+    name: `Scope Test Parts ${Date.now()}`,
+    website: 'https://example.test',
+    blurb: 'Invented for a test.',
+  });
   expect(created.status).toBe(201);
   const id = created.body.id as number;
   const agreement = await admin.post(`/api/admin/sponsors/${id}/agreements`, {
@@ -85,7 +100,8 @@ describe('V4.1.3 sponsor money and contact e-mails only for the treasurer and th
     expect(ledger.status).toBe(200);
     const [a] = ledger.body.agreements;
     expect(a.deliverables).toEqual([expect.objectContaining({ kind: 'build_log_credit', promised: 2 })]);
-    for (const key of ['cashCents', 'cashReceivedOn', 'inKind', 'inKindCents', 'totalCents', 'note']) expect(a).not.toHaveProperty(key);
+    for (const key of ['cashCents', 'cashReceivedOn', 'inKind', 'inKindCents', 'totalCents', 'note'])
+      expect(a).not.toHaveProperty(key);
     expect(JSON.stringify(ledger.body)).not.toMatch(/45600|7800|Nose cone|autumn launch/);
 
     const detail = await editor.get(`/api/admin/sponsors/${s.id}`);
@@ -104,8 +120,15 @@ describe('V4.1.3 sponsor money and contact e-mails only for the treasurer and th
     const c = who === 'treasurer' ? treasurer : admin;
     const [a] = (await c.get(`/api/admin/sponsors/${s.id}/ledger`)).body.agreements;
     // 456.00 cash + 78.00 declared in kind = 534.00 (common practice, no source: plain addition).
-    expect(a).toMatchObject({ cashCents: 45_600, inKindCents: 7_800, totalCents: 53_400, note: 'Deal struck at the autumn launch.' });
-    expect((await c.get(`/api/admin/sponsors/${s.id}`)).body.contacts).toEqual([{ userId: s.contact.id, email: s.contact.email, displayName: 'Scope Contact' }]);
+    expect(a).toMatchObject({
+      cashCents: 45_600,
+      inKindCents: 7_800,
+      totalCents: 53_400,
+      note: 'Deal struck at the autumn launch.',
+    });
+    expect((await c.get(`/api/admin/sponsors/${s.id}`)).body.contacts).toEqual([
+      { userId: s.contact.id, email: s.contact.email, displayName: 'Scope Contact' },
+    ]);
     const row = (await c.get('/api/admin/sponsors')).body.items.find((x: { id: number }) => x.id === s.id);
     expect(row.seasonTotalCents).toBe(53_400);
   });

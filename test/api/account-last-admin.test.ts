@@ -34,9 +34,16 @@ describe('POST /api/account/delete', () => {
 
       // With a second admin, one of the two may go; when both ask at once, the other is then the last.
       const second = await adminClient();
-      const answers = await Promise.all([only.client.post('/api/account/delete', { password: only.user.password }), second.client.post('/api/account/delete', { password: second.user.password })]);
+      const answers = await Promise.all([
+        only.client.post('/api/account/delete', { password: only.user.password }),
+        second.client.post('/api/account/delete', { password: second.user.password }),
+      ]);
       expect(answers.map((r) => r.status).sort()).toEqual([200, 409]);
-      const admins = await t.deps.db('users').whereRaw("'admin' = ANY(roles)").whereNull('deleted_at').count({ n: '*' });
+      const admins = await t.deps
+        .db('users')
+        .whereRaw("'admin' = ANY(roles)")
+        .whereNull('deleted_at')
+        .count({ n: '*' });
       expect(admins).toEqual([{ n: '1' }]);
     });
   });

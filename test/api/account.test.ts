@@ -28,10 +28,16 @@ describe('POST /api/account/password', () => {
     const { client, user } = await signedIn(t.app, t.deps.db);
     const other = new Client(t.app);
     await other.signIn(user);
-    const wrong = await client.post('/api/account/password', { currentPassword: 'not it at all', newPassword: 'a much better passphrase' });
+    const wrong = await client.post('/api/account/password', {
+      currentPassword: 'not it at all',
+      newPassword: 'a much better passphrase',
+    });
     expect(wrong.status).toBe(400);
     expect(wrong.body.error.fields.currentPassword).toBeDefined();
-    const ok = await client.post('/api/account/password', { currentPassword: user.password, newPassword: 'a much better passphrase' });
+    const ok = await client.post('/api/account/password', {
+      currentPassword: user.password,
+      newPassword: 'a much better passphrase',
+    });
     expect(ok.status).toBe(204);
     expect((await client.get('/api/auth/me')).status).toBe(200);
     expect((await other.get('/api/auth/me')).body).toEqual({ user: null });

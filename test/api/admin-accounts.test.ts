@@ -18,17 +18,27 @@ describe('POST /api/admin/users/:id/disable', () => {
       expect(res.body.user.disabledAt).toEqual(expect.any(String));
       expect((await target.get('/api/auth/me')).body).toEqual({ user: null });
       expect((await target.get('/api/admin/posts')).status).toBe(401);
-      expect(await t.deps.db('session').whereRaw("(sess -> 'passport' ->> 'user') = ?", [String(user.id)]).count<{ count: string }[]>({ count: '*' })).toEqual([{ count: '0' }]);
+      expect(
+        await t.deps
+          .db('session')
+          .whereRaw("(sess -> 'passport' ->> 'user') = ?", [String(user.id)])
+          .count<{ count: string }[]>({ count: '*' }),
+      ).toEqual([{ count: '0' }]);
 
       const again = await new Client(t.app).post('/api/auth/login', { email: user.email, password: user.password });
       expect(again.status).toBe(403);
       expect(again.body.error.code).toBe('account_disabled');
-      const wrong = await new Client(t.app).post('/api/auth/login', { email: user.email, password: 'not the password at all' });
+      const wrong = await new Client(t.app).post('/api/auth/login', {
+        email: user.email,
+        password: 'not the password at all',
+      });
       expect(wrong.status).toBe(401);
 
       const listed = await admin.get(`/api/admin/users?q=${encodeURIComponent(user.email)}&state=disabled`);
       expect(listed.body.items).toEqual([expect.objectContaining({ id: user.id, disabledAt: expect.any(String) })]);
-      expect((await admin.get(`/api/admin/users?q=${encodeURIComponent(user.email)}&state=active`)).body.items).toEqual([]);
+      expect((await admin.get(`/api/admin/users?q=${encodeURIComponent(user.email)}&state=active`)).body.items).toEqual(
+        [],
+      );
     });
   });
 
@@ -39,7 +49,9 @@ describe('POST /api/admin/users/:id/disable', () => {
     const enabled = await admin.post(`/api/admin/users/${user.id}/enable`);
     expect(enabled.status).toBe(200);
     expect(enabled.body.user.disabledAt).toBeNull();
-    expect((await new Client(t.app).post('/api/auth/login', { email: user.email, password: user.password })).status).toBe(200);
+    expect(
+      (await new Client(t.app).post('/api/auth/login', { email: user.email, password: user.password })).status,
+    ).toBe(200);
   });
 
   it('answers 400 when admins try to disable themselves, and 404 for an unknown account', async () => {

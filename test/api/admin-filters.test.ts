@@ -9,7 +9,15 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const newsCount = async (subject: string) => Number((await t.deps.db('outbound_emails').where({ subject, template: 'membership-roster-news' }).count<{ count: string }[]>({ count: '*' }))[0].count);
+const newsCount = async (subject: string) =>
+  Number(
+    (
+      await t.deps
+        .db('outbound_emails')
+        .where({ subject, template: 'membership-roster-news' })
+        .count<{ count: string }[]>({ count: '*' })
+    )[0].count,
+  );
 
 // OWASP ASVS 4.0.3 5.1.2 (protection against mass parameter assignment) and 5.1.3 (positive validation): filters
 // that choose whom a message reaches or what an export holds refuse keys they do not know, instead of ignoring them
@@ -17,7 +25,11 @@ const newsCount = async (subject: string) => Number((await t.deps.db('outbound_e
 describe('ASVS 5.1.2: admin filters refuse unknown keys', () => {
   it('POST /api/admin/members/email answers 400 naming a misspelt filter and queues nothing', async () => {
     const subject = `Misspelt filter ${Date.now()}`;
-    const res = await treasurer.post('/api/admin/members/email', { filters: { stauts: 'lapsed' }, subject, text: 'Only for lapsed members.' });
+    const res = await treasurer.post('/api/admin/members/email', {
+      filters: { stauts: 'lapsed' },
+      subject,
+      text: 'Only for lapsed members.',
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toEqual({ 'filters.stauts': expect.stringContaining('spelling') });
     expect(await newsCount(subject)).toBe(0);
@@ -25,14 +37,22 @@ describe('ASVS 5.1.2: admin filters refuse unknown keys', () => {
 
   it('POST /api/admin/members/email answers 400 for a misspelt top-level key (filter instead of filters)', async () => {
     const subject = `Misspelt body ${Date.now()}`;
-    const res = await treasurer.post('/api/admin/members/email', { filter: { status: 'lapsed' }, subject, text: 'Only for lapsed members.' });
+    const res = await treasurer.post('/api/admin/members/email', {
+      filter: { status: 'lapsed' },
+      subject,
+      text: 'Only for lapsed members.',
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toHaveProperty('filter');
     expect(await newsCount(subject)).toBe(0);
   });
 
   it('POST /api/admin/members/email still takes the roster filters the console sends', async () => {
-    const res = await treasurer.post('/api/admin/members/email', { filters: { status: 'lapsed', q: `nobody-${Date.now()}`, sort: 'name', dir: 'asc' }, subject: 'Known filters', text: 'Hello.' });
+    const res = await treasurer.post('/api/admin/members/email', {
+      filters: { status: 'lapsed', q: `nobody-${Date.now()}`, sort: 'name', dir: 'asc' },
+      subject: 'Known filters',
+      text: 'Hello.',
+    });
     expect(res.status).toBe(200);
     expect(res.body).toEqual({ queued: 0, skippedOptedOut: 0, skippedLapsedConsent: 0, skippedSuppressed: 0 });
   });

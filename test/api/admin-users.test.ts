@@ -52,8 +52,14 @@ describe('when an admin changes a signed-in user’s roles', () => {
     const { client, user } = await signedIn(t.app, t.deps.db, ['fan']);
     const first = await client.get('/api/auth/me');
     expect(first.status).toBe(200);
-    const cookieOf = (res: { headers: Record<string, unknown> }) => ((res.headers['set-cookie'] as string[] | undefined) ?? [])[0]?.split(';')[0];
-    const before = client.agent.jar.getCookie('padside.sid', { domain: '127.0.0.1', path: '/', secure: false, script: false })?.value;
+    const cookieOf = (res: { headers: Record<string, unknown> }) =>
+      ((res.headers['set-cookie'] as string[] | undefined) ?? [])[0]?.split(';')[0];
+    const before = client.agent.jar.getCookie('padside.sid', {
+      domain: '127.0.0.1',
+      path: '/',
+      secure: false,
+      script: false,
+    })?.value;
     expect(before).toBeDefined();
     await admin.patch(`/api/admin/users/${user.id}`, { roles: ['fan', 'editor'] });
     const next = await client.get('/api/auth/me');

@@ -20,7 +20,13 @@ const log = pino({ level: 'silent' });
 
 beforeAll(async () => {
   await cluster.create();
-  smtp = new FakeSmtp(await freePort(), (rcpt) => (rcpt.startsWith('bounce-') ? '550 5.1.1 No such mailbox here' : rcpt.startsWith('complain-') ? '550 5.7.1 Refused: the recipient reported your mail' : null));
+  smtp = new FakeSmtp(await freePort(), (rcpt) =>
+    rcpt.startsWith('bounce-')
+      ? '550 5.1.1 No such mailbox here'
+      : rcpt.startsWith('complain-')
+        ? '550 5.7.1 Refused: the recipient reported your mail'
+        : null,
+  );
   await smtp.up();
   t = buildTestApp({ env: { DATABASE_URL: cluster.url, SMTP_URL: `smtp://127.0.0.1:${smtp.port}` } });
   await t.deps.db.migrate.latest();
@@ -36,7 +42,11 @@ afterAll(async () => {
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 async function announce(topic: string, subject: string): Promise<number> {
-  const created = await editor.post('/api/admin/announcements', { topic, subject, markdown: 'Motor cases are back in the shop.' });
+  const created = await editor.post('/api/admin/announcements', {
+    topic,
+    subject,
+    markdown: 'Motor cases are back in the shop.',
+  });
   expect(created.status).toBe(201);
   expect((await editor.post(`/api/admin/announcements/${created.body.announcement.id}/send`)).status).toBe(202);
   return created.body.announcement.id;
@@ -54,9 +64,18 @@ async function until(what: string, check: () => Promise<boolean>, ms = 30_000): 
 
 describe('the suppression list across two server processes', () => {
   it('is written by one process (bounce, complaint, one-click) and honoured by the other, at queueing and at sending', async () => {
-    const [bounce, complain, leaver, stays] = [address('bounce'), address('complain'), address('leaver'), address('stays')];
+    const [bounce, complain, leaver, stays] = [
+      address('bounce'),
+      address('complain'),
+      address('leaver'),
+      address('stays'),
+    ];
     await bulkConfirmed(t.deps.db, [bounce, complain, leaver, stays], 'launches');
-    other = await startServerProcess({ DATABASE_URL: cluster.url, SMTP_URL: `smtp://127.0.0.1:${smtp.port}`, MAIL_POLL_MS: '200' });
+    other = await startServerProcess({
+      DATABASE_URL: cluster.url,
+      SMTP_URL: `smtp://127.0.0.1:${smtp.port}`,
+      MAIL_POLL_MS: '200',
+    });
 
     // The other process's worker sends the first announcement; the server refuses two addresses for good.
     const first = await announce('launches', 'Two-process check 1');
@@ -70,24 +89,45 @@ describe('the suppression list across two server processes', () => {
 
     // One click on the other process stops the leaver's list.
     const url = new URL(oneClickUrl((await announcementMail(t.deps.db, leaver, first))[0]));
-    const clicked = await fetch(`${other.url}${url.pathname}${url.search}`, { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: 'List-Unsubscribe=One-Click' });
+    const clicked = await fetch(`${other.url}${url.pathname}${url.search}`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+      body: 'List-Unsubscribe=One-Click',
+    });
     expect(clicked.status).toBe(200);
 
     // This process queues the next one and leaves out all three: two suppressed, one whose consent is withdrawn.
     const second = await announce('launches', 'Two-process check 2');
     expect((await rowsOf(second)).map((r) => r.to_address)).toEqual([stays]);
-    expect((await editor.get(`/api/admin/announcements/${second}`)).body.announcement.counts).toEqual(expect.objectContaining({ recipients: 1, suppressed: 2 }));
-    await until('the other process to deliver the second', async () => (await rowsOf(second)).every((r) => r.status !== 'queued'));
+    expect((await editor.get(`/api/admin/announcements/${second}`)).body.announcement.counts).toEqual(
+      expect.objectContaining({ recipients: 1, suppressed: 2 }),
+    );
+    await until('the other process to deliver the second', async () =>
+      (await rowsOf(second)).every((r) => r.status !== 'queued'),
+    );
     expect(smtp.to(stays).map((m) => m.subject)).toEqual(['Two-process check 1', 'Two-process check 2']);
 
     // Mail queued before a suppression is stopped by the other process's worker at sending time.
     const third = await announce('launches', 'Two-process check 3');
-    await t.deps.db('outbound_emails').where('announcement_id', third).update({ next_attempt_at: t.deps.db.raw("now() + interval '1 hour'") });
+    await t.deps
+      .db('outbound_emails')
+      .where('announcement_id', third)
+      .update({ next_attempt_at: t.deps.db.raw("now() + interval '1 hour'") });
     const [row] = await announcementMail(t.deps.db, stays, third);
     const own = new URL(oneClickUrl(row));
-    expect((await request(t.app).post(own.pathname + own.search).type('form').send('List-Unsubscribe=One-Click')).status).toBe(200);
+    expect(
+      (
+        await request(t.app)
+          .post(own.pathname + own.search)
+          .type('form')
+          .send('List-Unsubscribe=One-Click')
+      ).status,
+    ).toBe(200);
     await t.deps.db('outbound_emails').where('announcement_id', third).update({ next_attempt_at: t.deps.db.fn.now() });
-    await until('the other process to handle the row', async () => (await announcementMail(t.deps.db, stays, third))[0].status !== 'queued');
+    await until(
+      'the other process to handle the row',
+      async () => (await announcementMail(t.deps.db, stays, third))[0].status !== 'queued',
+    );
     expect((await announcementMail(t.deps.db, stays, third))[0].status).toBe('suppressed');
     expect(smtp.to(stays).map((m) => m.subject)).toEqual(['Two-process check 1', 'Two-process check 2']);
     await other.kill();
@@ -103,8 +143,12 @@ describe('an announcement to 2,000 addresses with the SMTP server down halfway',
     expect(await rowsOf(id)).toHaveLength(2000);
 
     const url = `smtp://127.0.0.1:${smtp.port}`;
-    const workers = [new MailWorker(t.deps.db, url, 'Padside <hello@padside.test>', log), new MailWorker(t.deps.db, url, 'Padside <hello@padside.test>', log)];
-    const sent = async () => Number((await t.deps.db('outbound_emails').where({ announcement_id: id, status: 'sent' }).count('* as n'))[0].n);
+    const workers = [
+      new MailWorker(t.deps.db, url, 'Padside <hello@padside.test>', log),
+      new MailWorker(t.deps.db, url, 'Padside <hello@padside.test>', log),
+    ];
+    const sent = async () =>
+      Number((await t.deps.db('outbound_emails').where({ announcement_id: id, status: 'sent' }).count('* as n'))[0].n);
     try {
       // Two workers (two processes) share the queue; the server stops taking connections once half is out.
       const passes = Promise.all(workers.map((w) => w.deliverDue()));
@@ -117,12 +161,21 @@ describe('an announcement to 2,000 addresses with the SMTP server down halfway',
       const waiting = await t.deps.db('outbound_emails').where({ announcement_id: id, status: 'queued' });
       expect(waiting.length).toBe(2000 - midway);
       expect(waiting.some((r) => r.attempts >= 1 && r.last_error)).toBe(true);
-      expect((await editor.get(`/api/admin/announcements/${id}`)).body.announcement).toEqual(expect.objectContaining({ status: 'sending', counts: expect.objectContaining({ recipients: 2000, sent: midway, queued: 2000 - midway }) }));
+      expect((await editor.get(`/api/admin/announcements/${id}`)).body.announcement).toEqual(
+        expect.objectContaining({
+          status: 'sending',
+          counts: expect.objectContaining({ recipients: 2000, sent: midway, queued: 2000 - midway }),
+        }),
+      );
 
       // The server is back; time passes beyond the retry delay.
       await smtp.up();
-      await t.deps.db('outbound_emails').where({ announcement_id: id, status: 'queued' }).update({ next_attempt_at: t.deps.db.fn.now() });
-      for (let pass = 0; pass < 20 && (await sent()) < 2000; pass++) await Promise.all(workers.map((w) => w.deliverDue()));
+      await t.deps
+        .db('outbound_emails')
+        .where({ announcement_id: id, status: 'queued' })
+        .update({ next_attempt_at: t.deps.db.fn.now() });
+      for (let pass = 0; pass < 20 && (await sent()) < 2000; pass++)
+        await Promise.all(workers.map((w) => w.deliverDue()));
     } finally {
       await Promise.all(workers.map((w) => w.stop()));
     }
@@ -131,7 +184,18 @@ describe('an announcement to 2,000 addresses with the SMTP server down halfway',
     for (const m of taken) for (const to of m.to) perAddress.set(to, (perAddress.get(to) ?? 0) + 1);
     expect(perAddress.size).toBe(2000);
     expect([...perAddress.values()].every((n) => n === 1)).toBe(true);
-    expect(taken.every((m) => /^<http.+\/api\/subscriptions\/unsubscribe\?token=.+>$/.test(m.headers['list-unsubscribe']) && m.headers['list-unsubscribe-post'] === 'List-Unsubscribe=One-Click')).toBe(true);
-    expect((await editor.get(`/api/admin/announcements/${id}`)).body.announcement).toEqual(expect.objectContaining({ status: 'sent', counts: expect.objectContaining({ recipients: 2000, sent: 2000, queued: 0, failed: 0 }) }));
+    expect(
+      taken.every(
+        (m) =>
+          /^<http.+\/api\/subscriptions\/unsubscribe\?token=.+>$/.test(m.headers['list-unsubscribe']) &&
+          m.headers['list-unsubscribe-post'] === 'List-Unsubscribe=One-Click',
+      ),
+    ).toBe(true);
+    expect((await editor.get(`/api/admin/announcements/${id}`)).body.announcement).toEqual(
+      expect.objectContaining({
+        status: 'sent',
+        counts: expect.objectContaining({ recipients: 2000, sent: 2000, queued: 0, failed: 0 }),
+      }),
+    );
   }, 300_000);
 });

@@ -23,7 +23,14 @@ async function member(name: string): Promise<{ user: TestUser; id: number }> {
   const s = await signedIn(t.app, t.deps.db);
   const res = await s.client.post('/api/membership', {
     planId: adultPlan,
-    profile: { legalName: `${name} ${tag}`, dateOfBirth: '1981-04-04', address: '9 Gopher Lane, Gopher Flats, MB', phone: '204-555-0190', emergencyContact: 'Kin 204-555-0191', certificationLevel: 'none' },
+    profile: {
+      legalName: `${name} ${tag}`,
+      dateOfBirth: '1981-04-04',
+      address: '9 Gopher Lane, Gopher Flats, MB',
+      phone: '204-555-0190',
+      emergencyContact: 'Kin 204-555-0191',
+      certificationLevel: 'none',
+    },
     waiverVersion: '2026-1',
     paymentToken: 'tok_visa',
   });
@@ -31,7 +38,8 @@ async function member(name: string): Promise<{ user: TestUser; id: number }> {
   return { user: s.user, id: Number((await t.deps.db('memberships').where('user_id', s.user.id).first()).id) };
 }
 
-const mailTo = (email: string, template: string) => t.deps.db('outbound_emails').where({ to_address: email, template }).orderBy('id');
+const mailTo = (email: string, template: string) =>
+  t.deps.db('outbound_emails').where({ to_address: email, template }).orderBy('id');
 const email = (body: object) => treasurer.post('/api/admin/members/email', { filters: { q: tag }, ...body });
 
 describe('POST /api/admin/members/email', () => {
@@ -55,8 +63,20 @@ describe('POST /api/admin/members/email', () => {
 
     // One click stops club news for that address; the next news mail leaves it out.
     const url = new URL(oneClickUrl(sent));
-    expect((await request(t.app).post(url.pathname + url.search).type('form').send('List-Unsubscribe=One-Click')).status).toBe(200);
-    expect((await email({ subject: 'Swap meet, again', text: 'Still on.' })).body).toEqual({ queued: 0, skippedOptedOut: 1, skippedLapsedConsent: 1, skippedSuppressed: 1 });
+    expect(
+      (
+        await request(t.app)
+          .post(url.pathname + url.search)
+          .type('form')
+          .send('List-Unsubscribe=One-Click')
+      ).status,
+    ).toBe(200);
+    expect((await email({ subject: 'Swap meet, again', text: 'Still on.' })).body).toEqual({
+      queued: 0,
+      skippedOptedOut: 1,
+      skippedLapsedConsent: 1,
+      skippedSuppressed: 1,
+    });
 
     // Club business reaches all three, without list headers, and says why it came.
     const business = await email({ subject: 'Dues reminder', text: 'Renewals open.', purpose: 'club-business' });

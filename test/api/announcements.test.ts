@@ -3,7 +3,14 @@ import { withdrawAllConsents } from '../../server/announcements/consent-withdraw
 import { freshDatabase, type FreshDatabase } from '../helpers/fresh-database';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { Client, signedIn } from '../helpers/users';
-import { address, announcementMail, confirmedSubscriber, confirmToken, oneClickUrl, signUp } from './announcement-fixtures';
+import {
+  address,
+  announcementMail,
+  confirmedSubscriber,
+  confirmToken,
+  oneClickUrl,
+  signUp,
+} from './announcement-fixtures';
 import { MB_ADDRESS, methodId, openShirt } from './shop-fixtures';
 
 // Its own database: an announcement goes to every address with consent, and on the shared database that is every
@@ -32,7 +39,11 @@ afterAll(async () => {
 const settled = () => t.app.platform.auth.afterAnswer.settled();
 
 async function draft(topic: string, subject = `News ${Date.now()}`) {
-  const res = await editor.post('/api/admin/announcements', { topic, subject, markdown: 'The **new** altimeter bay is in the shop.\n\n- twelve units\n- no restock' });
+  const res = await editor.post('/api/admin/announcements', {
+    topic,
+    subject,
+    markdown: 'The **new** altimeter bay is in the shop.\n\n- twelve units\n- no restock',
+  });
   expect(res.status).toBe(201);
   return res.body.announcement as { id: number; status: string };
 }
@@ -74,7 +85,14 @@ describe('POST /api/subscriptions', () => {
       await confirmedSubscriber(t.app, visitor, t.deps.db, email, ['drops']);
       const [row] = await t.deps.db('subscriptions').where('email', email);
       expect(row).toEqual(
-        expect.objectContaining({ topic: 'drops', wording_version: '2026-12-v1', source_page: 'home', confirmed_how: 'email-link', withdrawn_at: null, confirm_token_hash: null }),
+        expect.objectContaining({
+          topic: 'drops',
+          wording_version: '2026-12-v1',
+          source_page: 'home',
+          confirmed_how: 'email-link',
+          withdrawn_at: null,
+          confirm_token_hash: null,
+        }),
       );
       expect(row.wording_text).toMatch(/may e-mail me/);
       expect(row.source_ip).toMatch(/^10\.77\./);
@@ -101,7 +119,9 @@ describe('POST /api/subscriptions', () => {
       expect(res.status).toBe(202);
       expect(res.body).toEqual({ queued: true });
       await settled();
-      expect(await t.deps.db('outbound_emails').where({ to_address: email, template: 'subscription-confirm' })).toHaveLength(1);
+      expect(
+        await t.deps.db('outbound_emails').where({ to_address: email, template: 'subscription-confirm' }),
+      ).toHaveLength(1);
     });
   });
 
@@ -131,7 +151,11 @@ describe('POST /api/subscriptions', () => {
       const from = `10.99.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}`;
       const statuses: number[] = [];
       for (let i = 0; i < 31; i++) {
-        const res = await visitor.agent.post('/api/subscriptions').set('X-CSRF-Token', token).set('X-Forwarded-For', from).send({ email: address(`flood${i}`), topics: ['drops'] });
+        const res = await visitor.agent
+          .post('/api/subscriptions')
+          .set('X-CSRF-Token', token)
+          .set('X-Forwarded-For', from)
+          .send({ email: address(`flood${i}`), topics: ['drops'] });
         statuses.push(res.status);
       }
       expect(statuses.slice(0, 30).every((s) => s === 202)).toBe(true);
@@ -150,7 +174,10 @@ describe('the unsubscribe link in List-Unsubscribe', () => {
     expect(row.headers['List-Unsubscribe-Post']).toBe('List-Unsubscribe=One-Click');
 
     const url = new URL(oneClickUrl(row));
-    const res = await request(t.app).post(url.pathname + url.search).type('form').send('List-Unsubscribe=One-Click');
+    const res = await request(t.app)
+      .post(url.pathname + url.search)
+      .type('form')
+      .send('List-Unsubscribe=One-Click');
     expect(res.status).toBe(200);
     expect(res.body.unsubscribed).toEqual({ email, topic: 'build-logs', label: 'new build logs' });
     const [consent] = await t.deps.db('subscriptions').where({ email, topic: 'build-logs' });
@@ -164,7 +191,10 @@ describe('the unsubscribe link in List-Unsubscribe', () => {
   });
 
   it('answers 400 for a token that was not signed here', async () => {
-    const res = await request(t.app).post('/api/subscriptions/unsubscribe?token=bm9ib2R5.forged').type('form').send('List-Unsubscribe=One-Click');
+    const res = await request(t.app)
+      .post('/api/subscriptions/unsubscribe?token=bm9ib2R5.forged')
+      .type('form')
+      .send('List-Unsubscribe=One-Click');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('invalid_token');
   });
@@ -175,7 +205,10 @@ describe('the unsubscribe link in List-Unsubscribe', () => {
     const a = await sendNow((await draft('launches')).id);
     const [row] = await announcementMail(t.deps.db, email, a.id);
     const url = new URL(oneClickUrl(row));
-    await request(t.app).post(url.pathname + url.search).type('form').send('List-Unsubscribe=One-Click');
+    await request(t.app)
+      .post(url.pathname + url.search)
+      .type('form')
+      .send('List-Unsubscribe=One-Click');
     await t.deps.mail.deliverDue();
     const [after] = await announcementMail(t.deps.db, email, a.id);
     expect(after.status).toBe('suppressed');
@@ -186,7 +219,10 @@ describe('the unsubscribe link in List-Unsubscribe', () => {
     await confirmedSubscriber(t.app, visitor, t.deps.db, email, ['launches']);
     const a = await sendNow((await draft('launches')).id);
     const url = new URL(oneClickUrl((await announcementMail(t.deps.db, email, a.id))[0]));
-    await request(t.app).post(url.pathname + url.search).type('form').send('List-Unsubscribe=One-Click');
+    await request(t.app)
+      .post(url.pathname + url.search)
+      .type('form')
+      .send('List-Unsubscribe=One-Click');
     await confirmedSubscriber(t.app, visitor, t.deps.db, email, ['launches']);
     const b = await sendNow((await draft('launches')).id);
     expect(await announcementMail(t.deps.db, email, b.id)).toHaveLength(1);
@@ -199,9 +235,15 @@ describe('the unsubscribe link in List-Unsubscribe', () => {
 
 describe('POST /api/admin/announcements', () => {
   it('answers 201 with a draft in the shape of the issue', async () => {
-    const res = await editor.post('/api/admin/announcements', { topic: 'drops', subject: 'Nose cone run', markdown: 'Soon.' });
+    const res = await editor.post('/api/admin/announcements', {
+      topic: 'drops',
+      subject: 'Nose cone run',
+      markdown: 'Soon.',
+    });
     expect(res.status).toBe(201);
-    expect(res.body.announcement).toEqual(expect.objectContaining({ id: expect.any(Number), status: 'draft', topic: 'drops', subject: 'Nose cone run' }));
+    expect(res.body.announcement).toEqual(
+      expect.objectContaining({ id: expect.any(Number), status: 'draft', topic: 'drops', subject: 'Nose cone run' }),
+    );
   });
 
   it('answers 400 naming each field', async () => {
@@ -218,10 +260,16 @@ describe('GET /api/admin/announcements/:id/preview and POST .../test', () => {
     expect(preview.status).toBe(200);
     expect(preview.body.html).toContain('<strong>new</strong>');
     expect(preview.body.text).toMatch(/Sent by .+, Box 42, 7 Launch Rail Road, Gopher Flats, MB R0A 0A0, Canada/);
-    expect(preview.body.headers).toEqual({ 'List-Unsubscribe': expect.stringMatching(/^<http.+\/api\/subscriptions\/unsubscribe\?token=.+>$/), 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' });
+    expect(preview.body.headers).toEqual({
+      'List-Unsubscribe': expect.stringMatching(/^<http.+\/api\/subscriptions\/unsubscribe\?token=.+>$/),
+      'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click',
+    });
 
     expect((await editor.post(`/api/admin/announcements/${a.id}/test`)).status).toBe(202);
-    const [test] = await t.deps.db('outbound_emails').where({ to_address: editorEmail, template: 'announcement-test' }).orderBy('id', 'desc');
+    const [test] = await t.deps
+      .db('outbound_emails')
+      .where({ to_address: editorEmail, template: 'announcement-test' })
+      .orderBy('id', 'desc');
     expect(test.subject).toBe('[Test] Preview check');
     expect(test.announcement_id).toBeNull();
     expect((await editor.get(`/api/admin/announcements/${a.id}`)).body.announcement.status).toBe('draft');
@@ -250,7 +298,10 @@ describe('POST /api/admin/announcements/:id/send', () => {
     const email = address('twice');
     await confirmedSubscriber(t.app, visitor, t.deps.db, email, ['drops']);
     const a = await draft('drops');
-    const results = await Promise.all([editor.post(`/api/admin/announcements/${a.id}/send`), admin.post(`/api/admin/announcements/${a.id}/send`)]);
+    const results = await Promise.all([
+      editor.post(`/api/admin/announcements/${a.id}/send`),
+      admin.post(`/api/admin/announcements/${a.id}/send`),
+    ]);
     expect(results.map((r) => r.status).sort()).toEqual([202, 409]);
     expect(await announcementMail(t.deps.db, email, a.id)).toHaveLength(1);
   });
@@ -293,7 +344,13 @@ describe('headers on the wire', () => {
     // Drops of this product only: other files' runs open all the time and bring their own drop notices.
     await confirmedSubscriber(t.app, visitor, t.deps.db, email, ['drops'], shirt.id);
     const buyer = new Client(t.app);
-    const order = await buyer.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(buyer, 'canada'), email, paymentToken: 'tok_visa' });
+    const order = await buyer.post('/api/orders', {
+      items: [{ variantId: shirt.variants[0].id, quantity: 1 }],
+      shipTo: MB_ADDRESS,
+      shippingMethodId: await methodId(buyer, 'canada'),
+      email,
+      paymentToken: 'tok_visa',
+    });
     expect(order.status).toBe(201);
     await t.app.jobs.find((j) => j.name === 'drop-notices')!.run();
     const a = await sendNow((await draft('drops')).id);
@@ -302,7 +359,10 @@ describe('headers on the wire', () => {
     const commercial = rows.filter((r) => r.category === 'commercial');
     expect(commercial.map((r) => r.template).sort()).toEqual(['announcement', 'drop-notice']);
     for (const r of commercial) {
-      expect(r.headers).toEqual({ 'List-Unsubscribe': expect.stringMatching(/^<.+>$/), 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' });
+      expect(r.headers).toEqual({
+        'List-Unsubscribe': expect.stringMatching(/^<.+>$/),
+        'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click',
+      });
       expect(r.text_body).toMatch(/Gopher Flats, MB R0A 0A0/);
       expect(r.text_body).toMatch(/Stop e-mails about new runs and drops with one click/);
     }
@@ -311,7 +371,11 @@ describe('headers on the wire', () => {
     expect(transactional.every((r) => r.headers === null)).toBe(true);
 
     await t.deps.mail.deliverDue();
-    const caught = (await (await fetch(`${process.env.MAILDEV_URL ?? 'http://127.0.0.1:1080'}/email`)).json()) as { to: { address: string }[]; subject: string; headers: Record<string, string> }[];
+    const caught = (await (await fetch(`${process.env.MAILDEV_URL ?? 'http://127.0.0.1:1080'}/email`)).json()) as {
+      to: { address: string }[];
+      subject: string;
+      headers: Record<string, string>;
+    }[];
     const mine = caught.filter((m) => m.to.some((x) => x.address === email));
     expect(mine).toHaveLength(4);
     for (const m of mine) {
@@ -326,9 +390,16 @@ describe('withdrawAllConsents (account deletion)', () => {
   it('withdraws every list and implied consent of the address, so no later announcement reaches it', async () => {
     const email = address('deleted');
     await confirmedSubscriber(t.app, visitor, t.deps.db, email, ['drops', 'launches']);
-    await t.deps.db('implied_consents').insert({ email, basis: 'purchase', basis_ref: `test-${email}`, basis_on: new Date().toISOString().slice(0, 10) });
+    await t.deps.db('implied_consents').insert({
+      email,
+      basis: 'purchase',
+      basis_ref: `test-${email}`,
+      basis_on: new Date().toISOString().slice(0, 10),
+    });
     await t.deps.db.transaction((trx) => withdrawAllConsents(trx, email, new Date(), 'account-deleted'));
-    expect((await t.deps.db('subscriptions').where('email', email)).every((r) => r.withdrawn_how === 'account-deleted')).toBe(true);
+    expect(
+      (await t.deps.db('subscriptions').where('email', email)).every((r) => r.withdrawn_how === 'account-deleted'),
+    ).toBe(true);
     expect(await t.deps.db('implied_consents').where('email', email)).toHaveLength(0);
     for (const topic of ['drops', 'launches']) {
       const a = await sendNow((await draft(topic)).id);

@@ -12,7 +12,11 @@ describe('e-mail verification', () => {
   it('sends the verification mail through the outbox and its link verifies the account', async () => {
     const email = `verify-${randomUUID().slice(0, 8)}@example.test`;
     const client = new Client(t.app);
-    const reg = await client.post('/api/auth/register', { email, password: 'four words make a phrase', displayName: 'Vera' });
+    const reg = await client.post('/api/auth/register', {
+      email,
+      password: 'four words make a phrase',
+      displayName: 'Vera',
+    });
     expect(reg.status).toBe(202);
     await t.app.platform.auth.afterAnswer.settled();
     await t.deps.mail.deliverDue();
@@ -24,7 +28,9 @@ describe('e-mail verification', () => {
     expect(res.status).toBe(204);
     // Confirming signs nobody in: whoever registered chose the password, not necessarily the mailbox's owner.
     expect((await client.get('/api/auth/me')).body.user).toBeNull();
-    expect((await client.post('/api/auth/login', { email, password: 'four words make a phrase' })).body.user.emailVerified).toBe(true);
+    expect(
+      (await client.post('/api/auth/login', { email, password: 'four words make a phrase' })).body.user.emailVerified,
+    ).toBe(true);
     const again = await client.post('/api/auth/verify', { token: link.searchParams.get('token') });
     expect(again.status).toBe(400);
   });
@@ -60,13 +66,22 @@ describe('POST /api/auth/password-reset', () => {
     expect(weak.status).toBe(400);
     expect(weak.body.error.fields.password).toBeDefined();
 
-    const ok = await new Client(t.app).post('/api/auth/password-reset/confirm', { token, password: 'a brand new passphrase here' });
+    const ok = await new Client(t.app).post('/api/auth/password-reset/confirm', {
+      token,
+      password: 'a brand new passphrase here',
+    });
     expect(ok.status).toBe(204);
-    const reused = await new Client(t.app).post('/api/auth/password-reset/confirm', { token, password: 'another new passphrase here' });
+    const reused = await new Client(t.app).post('/api/auth/password-reset/confirm', {
+      token,
+      password: 'another new passphrase here',
+    });
     expect(reused.status).toBe(400);
 
     expect((await other.get('/api/auth/me')).body).toEqual({ user: null });
-    const login = await new Client(t.app).post('/api/auth/login', { email: user.email, password: 'a brand new passphrase here' });
+    const login = await new Client(t.app).post('/api/auth/login', {
+      email: user.email,
+      password: 'a brand new passphrase here',
+    });
     expect(login.status).toBe(200);
     await t.deps.mail.deliverDue();
     expect(await waitForEmails(user.email, /password was changed/)).toHaveLength(1);
@@ -76,11 +91,17 @@ describe('POST /api/auth/password-reset', () => {
     const user = await createUser(t.deps.db);
     await new Client(t.app).post('/api/auth/password-reset', { email: user.email });
     await t.app.platform.auth.afterAnswer.settled();
-    await t.deps.db('auth_tokens').where({ user_id: user.id, purpose: 'password_reset' }).update({ expires_at: new Date(Date.now() - 1000) });
+    await t.deps
+      .db('auth_tokens')
+      .where({ user_id: user.id, purpose: 'password_reset' })
+      .update({ expires_at: new Date(Date.now() - 1000) });
     await t.deps.mail.deliverDue();
     const [mail] = await waitForEmails(user.email, /new Padside password/);
     const token = new URL(firstLink(mail)).searchParams.get('token')!;
-    const res = await new Client(t.app).post('/api/auth/password-reset/confirm', { token, password: 'a brand new passphrase here' });
+    const res = await new Client(t.app).post('/api/auth/password-reset/confirm', {
+      token,
+      password: 'a brand new passphrase here',
+    });
     expect(res.status).toBe(400);
   });
 

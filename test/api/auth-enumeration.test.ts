@@ -101,13 +101,15 @@ describe('V11.1.4 verification mail and registrations are rate-limited per addre
 
   it('sends at most 10 verification mails an hour from one network address', async () => {
     const from = ip();
-    for (let i = 0; i < 10; i++) expect((await post('/api/auth/verify/resend', {}, from, (await unverified()).client)).status).toBe(202);
+    for (let i = 0; i < 10; i++)
+      expect((await post('/api/auth/verify/resend', {}, from, (await unverified()).client)).status).toBe(202);
     expect((await post('/api/auth/verify/resend', {}, from, (await unverified()).client)).status).toBe(429);
   });
 
   it('takes at most 3 registrations an hour for one address', async () => {
     const email = uniqueEmail();
-    for (let i = 0; i < 3; i++) expect((await post('/api/auth/register', { email, password, displayName: 'Again' })).status).toBe(202);
+    for (let i = 0; i < 3; i++)
+      expect((await post('/api/auth/register', { email, password, displayName: 'Again' })).status).toBe(202);
     const refused = await post('/api/auth/register', { email, password, displayName: 'Again' });
     expect(refused.status).toBe(429);
     expect(Number(refused.headers['retry-after'])).toBeGreaterThan(0);
@@ -119,7 +121,10 @@ describe('V11.1.4 verification mail and registrations are rate-limited per addre
 
   it('takes at most 20 registrations an hour from one network address', async () => {
     const from = ip();
-    for (let i = 0; i < 20; i++) expect((await post('/api/auth/register', { email: uniqueEmail(), password, displayName: 'Bulk' }, from)).status).toBe(202);
+    for (let i = 0; i < 20; i++)
+      expect(
+        (await post('/api/auth/register', { email: uniqueEmail(), password, displayName: 'Bulk' }, from)).status,
+      ).toBe(202);
     const refused = await post('/api/auth/register', { email: uniqueEmail(), password, displayName: 'Bulk' }, from);
     expect(refused.status).toBe(429);
     await t.app.platform.auth.afterAnswer.settled();

@@ -19,7 +19,11 @@ const later = (seconds: number) => clock.set(new Date(clock.now().getTime() + se
 async function login(email: string, password: string, from: string) {
   const c = new Client(t.app);
   const token = await c.token();
-  return c.agent.post('/api/auth/login').set('X-CSRF-Token', token).set('X-Forwarded-For', from).send({ email, password });
+  return c.agent
+    .post('/api/auth/login')
+    .set('X-CSRF-Token', token)
+    .set('X-Forwarded-For', from)
+    .send({ email, password });
 }
 const wrong = (u: TestUser, from: string) => login(u.email, 'not the password at all, sorry', from);
 
@@ -83,7 +87,8 @@ describe('V2.2.1 sign-in lockouts an attacker cannot aim (OWASP ASVS 4.0.3 2.2.1
 
   it('blocks one address across every account for longer than the per-account block after 100 failures', async () => {
     const from = ip('192.0.2');
-    for (let i = 0; i < 100; i++) expect((await login(`nobody-${i}-${Date.now()}@example.test`, 'not the password at all', from)).status).toBe(401);
+    for (let i = 0; i < 100; i++)
+      expect((await login(`nobody-${i}-${Date.now()}@example.test`, 'not the password at all', from)).status).toBe(401);
     const someone = await createUser(t.deps.db);
     const blocked = await login(someone.email, someone.password, from);
     expect(blocked.status).toBe(429);
@@ -103,7 +108,10 @@ describe('V2.2.1 an admin clears a sign-in lock from the accounts page (OWASP AS
     const listed = await admin.get(`/api/admin/users?q=${encodeURIComponent(owner.email)}`);
     expect(listed.body.items[0].signIn).toEqual({ failures: 100, locked: true });
     expect((await admin.delete(`/api/admin/users/${owner.id}/sign-in-lock`)).status).toBe(204);
-    expect((await admin.get(`/api/admin/users?q=${encodeURIComponent(owner.email)}`)).body.items[0].signIn).toEqual({ failures: 0, locked: false });
+    expect((await admin.get(`/api/admin/users?q=${encodeURIComponent(owner.email)}`)).body.items[0].signIn).toEqual({
+      failures: 0,
+      locked: false,
+    });
     expect((await login(owner.email, owner.password, from)).status).toBe(200);
     expect((await admin.delete('/api/admin/users/999999/sign-in-lock')).status).toBe(404);
   });

@@ -27,7 +27,11 @@ describe('POST /api/auth/register', () => {
     expect(res.status).toBe(202);
     expect(res.body).toEqual({ queued: true, message: expect.stringMatching(/inbox/) });
     await t.app.platform.auth.afterAnswer.settled();
-    expect(await t.deps.db('users').where({ email }).first()).toMatchObject({ display_name: 'Rowan', roles: ['fan'], email_verified_at: null });
+    expect(await t.deps.db('users').where({ email }).first()).toMatchObject({
+      display_name: 'Rowan',
+      roles: ['fan'],
+      email_verified_at: null,
+    });
     expect((await client.get('/api/auth/me')).body.user).toBeNull();
     const signIn = await client.post('/api/auth/login', { email, password: goodPassword });
     expect(signIn.body.user).toMatchObject({ email, displayName: 'Rowan', roles: ['fan'], emailVerified: false });
@@ -37,10 +41,26 @@ describe('POST /api/auth/register', () => {
     it.each([
       ['missing everything', {}, ['email', 'password', 'displayName']],
       ['a malformed e-mail', { email: 'not-an-email', password: goodPassword, displayName: 'A' }, ['email']],
-      ['a short password (ASVS 4.0.3 2.1.1: at least 12)', { email: 'x@example.test', password: 'eleven-char', displayName: 'A' }, ['password']],
-      ['an over-long password (ASVS 4.0.3 2.1.2: over 128 may be refused)', { email: 'x@example.test', password: 'p'.repeat(129) + 'q', displayName: 'A' }, ['password']],
-      ['a common password (ASVS 4.0.3 2.1.7)', { email: 'x@example.test', password: 'password1234', displayName: 'A' }, ['password']],
-      ['a name that is too long', { email: 'x@example.test', password: goodPassword, displayName: 'n'.repeat(81) }, ['displayName']],
+      [
+        'a short password (ASVS 4.0.3 2.1.1: at least 12)',
+        { email: 'x@example.test', password: 'eleven-char', displayName: 'A' },
+        ['password'],
+      ],
+      [
+        'an over-long password (ASVS 4.0.3 2.1.2: over 128 may be refused)',
+        { email: 'x@example.test', password: 'p'.repeat(129) + 'q', displayName: 'A' },
+        ['password'],
+      ],
+      [
+        'a common password (ASVS 4.0.3 2.1.7)',
+        { email: 'x@example.test', password: 'password1234', displayName: 'A' },
+        ['password'],
+      ],
+      [
+        'a name that is too long',
+        { email: 'x@example.test', password: goodPassword, displayName: 'n'.repeat(81) },
+        ['displayName'],
+      ],
     ])('answers 400 with field messages for %s', async (_name, body, fields) => {
       const res = await new Client(t.app).post('/api/auth/register', body);
       expect(res.status).toBe(400);
@@ -49,13 +69,19 @@ describe('POST /api/auth/register', () => {
     });
 
     it('accepts a long passphrase with spaces and no composition rules (ASVS 4.0.3 2.1.9)', async () => {
-      const res = await new Client(t.app).post('/api/auth/register', { email: uniqueEmail(), password: 'all lower case words only here', displayName: 'Plain' });
+      const res = await new Client(t.app).post('/api/auth/register', {
+        email: uniqueEmail(),
+        password: 'all lower case words only here',
+        displayName: 'Plain',
+      });
       expect(res.status).toBe(202);
     });
   });
 
   it('answers 403 without the CSRF header', async () => {
-    const res = await request(t.app).post('/api/auth/register').send({ email: uniqueEmail(), password: goodPassword, displayName: 'A' });
+    const res = await request(t.app)
+      .post('/api/auth/register')
+      .send({ email: uniqueEmail(), password: goodPassword, displayName: 'A' });
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('csrf_failed');
   });
@@ -63,7 +89,11 @@ describe('POST /api/auth/register', () => {
   it('answers 400 for a body that is not JSON', async () => {
     const client = new Client(t.app);
     const token = await client.token();
-    const res = await client.agent.post('/api/auth/register').set('X-CSRF-Token', token).set('Content-Type', 'application/json').send('{"email":');
+    const res = await client.agent
+      .post('/api/auth/register')
+      .set('X-CSRF-Token', token)
+      .set('Content-Type', 'application/json')
+      .send('{"email":');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('entity_parse_failed');
   });
@@ -84,8 +114,14 @@ describe('POST /api/auth/login', () => {
 
   it('answers 401 with the same message for a wrong password and an unknown e-mail', async () => {
     const user = await createUser(t.deps.db);
-    const wrong = await new Client(t.app).post('/api/auth/login', { email: user.email, password: 'not the right one at all' });
-    const unknown = await new Client(t.app).post('/api/auth/login', { email: uniqueEmail(), password: 'not the right one at all' });
+    const wrong = await new Client(t.app).post('/api/auth/login', {
+      email: user.email,
+      password: 'not the right one at all',
+    });
+    const unknown = await new Client(t.app).post('/api/auth/login', {
+      email: uniqueEmail(),
+      password: 'not the right one at all',
+    });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrong.body.error).toEqual(unknown.body.error);

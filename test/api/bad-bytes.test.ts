@@ -9,7 +9,13 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const product = (extra: object = {}) => ({ name: 'Bad bytes tee', priceCents: 2500, weightGrams: 200, variants: [{ label: 'M' }], ...extra });
+const product = (extra: object = {}) => ({
+  name: 'Bad bytes tee',
+  priceCents: 2500,
+  weightGrams: 200,
+  variants: [{ label: 'M' }],
+  ...extra,
+});
 
 /** Sends raw JSON text, so escapes such as \ud800 reach the server as they are. */
 async function sendRaw(client: Client, method: 'post' | 'patch', url: string, json: string) {
@@ -34,13 +40,22 @@ describe('ASVS 5.1.3: U+0000 and lone surrogates in any text', () => {
   });
 
   it('answers 400 for NUL on a route whose schema would accept any string (the registration name)', async () => {
-    const res = await new Client(t.app).post('/api/auth/register', { email: `nul-${Date.now()}@example.test`, password: 'correct horse battery staple', displayName: 'A\u0000B' });
+    const res = await new Client(t.app).post('/api/auth/register', {
+      email: `nul-${Date.now()}@example.test`,
+      password: 'correct horse battery staple',
+      displayName: 'A\u0000B',
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toHaveProperty('displayName');
   });
 
   it('answers 400 for a lone surrogate, which would otherwise be stored as U+FFFD', async () => {
-    const res = await sendRaw(staff, 'post', '/api/admin/products', JSON.stringify(product({ name: 'X' })).replace('"X"', '"Tee \\ud800 shirt"'));
+    const res = await sendRaw(
+      staff,
+      'post',
+      '/api/admin/products',
+      JSON.stringify(product({ name: 'X' })).replace('"X"', '"Tee \\ud800 shirt"'),
+    );
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toEqual({ name: expect.stringContaining('surrogate') });
   });
@@ -92,14 +107,21 @@ describe('ASVS 5.1.4: Markdown nested too deep', () => {
   });
 
   it('still shows the public pages when such a value is already stored', async () => {
-    const made = await staff.post('/api/admin/products', product({ name: 'Stored deep tee', description: 'fine for now' }));
+    const made = await staff.post(
+      '/api/admin/products',
+      product({ name: 'Stored deep tee', description: 'fine for now' }),
+    );
     await t.deps.db('shop_products').where('id', made.body.product.id).update({ description_md: deep });
     const page = await new Client(t.app).get(`/api/products/${made.body.product.slug}`);
     expect(page.status).toBe(200);
     expect(page.body.descriptionHtml).toContain('boom');
     expect(page.body.descriptionHtml).not.toContain('<blockquote>');
 
-    const post = await staff.post('/api/admin/posts', { title: `Stored deep post ${Date.now()}`, markdown: 'fine for now', status: 'published' });
+    const post = await staff.post('/api/admin/posts', {
+      title: `Stored deep post ${Date.now()}`,
+      markdown: 'fine for now',
+      status: 'published',
+    });
     await t.deps.db('posts').where('id', post.body.id).update({ markdown: deep });
     const read = await new Client(t.app).get(`/api/posts/${post.body.slug}`);
     expect(read.status).toBe(200);

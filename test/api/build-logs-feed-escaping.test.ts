@@ -24,30 +24,36 @@ const textOf = (html: string) => DomUtils.textContent(parseDocument(html, { deco
 // OWASP ASVS 4.0.3 5.3.1 (output encoded for the context it lands in): both feeds declare titles and summaries as
 // HTML, so a title holding ]]><script> reached feed readers as markup.
 describe('ASVS 5.3.1: feed titles and summaries are text, not markup', () => {
-  it.each(['/feeds/build-logs.rss', '/feeds/build-logs.atom'])('%s: the feed readers\' parser gives the title back as literal text', async (url) => {
-    const res = await new Client(t.app).get(url);
-    expect(res.status).toBe(200);
-    const feed = await new Parser().parseString(res.text);
-    const item = feed.items.find((i) => i.title?.includes(marker));
-    expect(item).toBeDefined();
-    // Both formats mark the title as HTML (Atom type="html"; RSS readers treat it so): what a reader shows is its text.
-    expect(elementsIn(item!.title!)).toEqual([]);
-    expect(textOf(item!.title!)).toBe(title);
-    const shownSummary = url.endsWith('.rss') ? item!.content! : item!.summary!;
-    expect(elementsIn(shownSummary)).toEqual([]);
-    expect(textOf(shownSummary)).toBe(summary);
-  });
+  it.each(['/feeds/build-logs.rss', '/feeds/build-logs.atom'])(
+    "%s: the feed readers' parser gives the title back as literal text",
+    async (url) => {
+      const res = await new Client(t.app).get(url);
+      expect(res.status).toBe(200);
+      const feed = await new Parser().parseString(res.text);
+      const item = feed.items.find((i) => i.title?.includes(marker));
+      expect(item).toBeDefined();
+      // Both formats mark the title as HTML (Atom type="html"; RSS readers treat it so): what a reader shows is its text.
+      expect(elementsIn(item!.title!)).toEqual([]);
+      expect(textOf(item!.title!)).toBe(title);
+      const shownSummary = url.endsWith('.rss') ? item!.content! : item!.summary!;
+      expect(elementsIn(shownSummary)).toEqual([]);
+      expect(textOf(shownSummary)).toBe(summary);
+    },
+  );
 
-  it.each(['/feeds/build-logs.rss', '/feeds/build-logs.atom'])('%s: no script element anywhere in the feed, at any level', async (url) => {
-    const res = await new Client(t.app).get(url);
-    const xml = parseDocument(res.text, { xmlMode: true });
-    expect(DomUtils.getElementsByTagName('script', xml)).toHaveLength(0);
-    // Each HTML-typed text node (title, summary, content), read as HTML, holds no script or event handler either.
-    for (const node of allElements(xml)) {
-      if (!['title', 'description', 'summary', 'content', 'content:encoded'].includes(node.name)) continue;
-      const html = DomUtils.textContent(node);
-      expect(elementsIn(html)).not.toContain('script');
-      expect(html).not.toMatch(/<img[^>]+onerror/i);
-    }
-  });
+  it.each(['/feeds/build-logs.rss', '/feeds/build-logs.atom'])(
+    '%s: no script element anywhere in the feed, at any level',
+    async (url) => {
+      const res = await new Client(t.app).get(url);
+      const xml = parseDocument(res.text, { xmlMode: true });
+      expect(DomUtils.getElementsByTagName('script', xml)).toHaveLength(0);
+      // Each HTML-typed text node (title, summary, content), read as HTML, holds no script or event handler either.
+      for (const node of allElements(xml)) {
+        if (!['title', 'description', 'summary', 'content', 'content:encoded'].includes(node.name)) continue;
+        const html = DomUtils.textContent(node);
+        expect(elementsIn(html)).not.toContain('script');
+        expect(html).not.toMatch(/<img[^>]+onerror/i);
+      }
+    },
+  );
 });

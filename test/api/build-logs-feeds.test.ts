@@ -9,8 +9,20 @@ let editor: Client;
 beforeAll(async () => {
   t = buildTestApp({ clock: fixedClock('2027-01-05T18:00:00Z') });
   editor = (await signedIn(t.app, t.deps.db, ['fan', 'editor'])).client;
-  await editor.post('/api/admin/posts', { title: 'Feed public flight', summary: 'Public summary', markdown: 'The **public** body before the flight.', status: 'published', tags: ['rocketry'] });
-  await editor.post('/api/admin/posts', { title: 'Feed members corner', summary: 'Members summary', markdown: 'SECRET-MEMBERS-BODY', status: 'published', membersOnly: true });
+  await editor.post('/api/admin/posts', {
+    title: 'Feed public flight',
+    summary: 'Public summary',
+    markdown: 'The **public** body before the flight.',
+    status: 'published',
+    tags: ['rocketry'],
+  });
+  await editor.post('/api/admin/posts', {
+    title: 'Feed members corner',
+    summary: 'Members summary',
+    markdown: 'SECRET-MEMBERS-BODY',
+    status: 'published',
+    membersOnly: true,
+  });
 });
 afterAll(() => t.close());
 

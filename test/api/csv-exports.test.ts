@@ -23,7 +23,13 @@ const rowsOf = (text: string): string[][] => parse(text.replace(/^\uFEFF/, ''), 
 
 async function order(variantId: number) {
   const c = new Client(t.app);
-  const res = await c.post('/api/orders', { items: [{ variantId, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada'), email: `csv-${tag}-${randomUUID().slice(0, 4)}@example.test`, paymentToken: 'tok_visa' });
+  const res = await c.post('/api/orders', {
+    items: [{ variantId, quantity: 1 }],
+    shipTo: MB_ADDRESS,
+    shippingMethodId: await methodId(c, 'canada'),
+    email: `csv-${tag}-${randomUUID().slice(0, 4)}@example.test`,
+    paymentToken: 'tok_visa',
+  });
   if (res.status !== 201) throw new Error(JSON.stringify(res.body));
   return res.body.order as { id: number; number: string };
 }
@@ -35,8 +41,14 @@ describe('GET /api/admin/orders/export', () => {
     const second = await order(shirt.variants[0].id);
     // The night the clocks go back in Winnipeg (IANA tz database, northamerica, Rule Canada: 2026-11-01 07:00 UTC):
     // the order placed second gets the earlier instant, 01:30 daylight time; the other 01:10 standard time, 40 minutes later.
-    await t.deps.db('shop_orders').where('id', second.id).update({ created_at: new Date('2026-11-01T06:30:00Z') });
-    await t.deps.db('shop_orders').where('id', first.id).update({ created_at: new Date('2026-11-01T07:10:00Z') });
+    await t.deps
+      .db('shop_orders')
+      .where('id', second.id)
+      .update({ created_at: new Date('2026-11-01T06:30:00Z') });
+    await t.deps
+      .db('shop_orders')
+      .where('id', first.id)
+      .update({ created_at: new Date('2026-11-01T07:10:00Z') });
     const res = await staff.get(`/api/admin/orders/export?runId=${shirt.run.id}&sort=number&dir=desc`);
     expect(res.status).toBe(200);
     expect(res.text.charCodeAt(0)).toBe(0xfeff);
@@ -55,17 +67,34 @@ describe('GET /api/admin/reports/ledger.csv', () => {
   const range = { from: '2017-05-01', to: '2017-05-31' };
   beforeAll(async () => {
     const db = t.deps.db;
-    await db('money_movements').where('occurred_at', '>=', '2017-01-01').andWhere('occurred_at', '<', '2018-01-01').delete();
+    await db('money_movements')
+      .where('occurred_at', '>=', '2017-01-01')
+      .andWhere('occurred_at', '<', '2018-01-01')
+      .delete();
     const on = (at: string, reference: string) =>
-      db.transaction((trx) => recordMovement(trx, { occurredAt: new Date(at), kind: 'dues_payment', source: 'dues', grossCents: 4500, reference, counterparty: `Ledger ${tag}`, method: 'cash' }));
+      db.transaction((trx) =>
+        recordMovement(trx, {
+          occurredAt: new Date(at),
+          kind: 'dues_payment',
+          source: 'dues',
+          grossCents: 4500,
+          reference,
+          counterparty: `Ledger ${tag}`,
+          method: 'cash',
+        }),
+      );
     await on('2017-05-20T18:00:00Z', 'L-3');
     await on('2017-05-02T18:00:00Z', 'L-1');
     await on('2017-05-02T18:00:00Z', 'L-2');
     // 04:30 UTC on 1 June is 23:30 on 31 May in club time (CDT, UTC-5), so it belongs to May.
     await on('2017-06-01T04:30:00Z', 'L-4');
     // Microseconds that a JavaScript Date cannot hold: the page cursor must keep them.
-    await db('money_movements').where({ reference: 'L-2' }).update({ occurred_at: db.raw("'2017-05-02 18:00:00.000001+00'::timestamptz") });
-    await db('money_movements').where({ reference: 'L-1' }).update({ occurred_at: db.raw("'2017-05-02 18:00:00.000001+00'::timestamptz") });
+    await db('money_movements')
+      .where({ reference: 'L-2' })
+      .update({ occurred_at: db.raw("'2017-05-02 18:00:00.000001+00'::timestamptz") });
+    await db('money_movements')
+      .where({ reference: 'L-1' })
+      .update({ occurred_at: db.raw("'2017-05-02 18:00:00.000001+00'::timestamptz") });
   });
 
   it('lists the movements in the order they happened, dated in club time, with labels', async () => {
@@ -89,7 +118,7 @@ describe('GET /api/admin/reports/ledger.csv', () => {
   it('pages by instant and id without losing or repeating rows that share an instant', async () => {
     const repo = new BooksRepository(t.deps.db, 'America/Winnipeg');
     const seen: string[] = [];
-    for (let after: { occurredAt: string; id: number } | null = null; ; ) {
+    for (let after: { occurredAt: string; id: number } | null = null; ;) {
       const page = await repo.ledgerPage(range, after, 1);
       if (!page.length) break;
       seen.push(page[0].reference);

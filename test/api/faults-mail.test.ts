@@ -25,7 +25,14 @@ describe('when the SMTP server is down for a while', () => {
     const workerB = new MailWorker(t.deps.db, `smtp://127.0.0.1:${proxy.port}`, 'Padside <hello@padside.test>', log);
     try {
       await t.deps.db.transaction(async (trx) => {
-        for (let i = 1; i <= 5; i++) await enqueueEmail(trx, { to, subject: `Outage test ${i}`, text: `message ${i}`, template: 'password-changed', reason: {} });
+        for (let i = 1; i <= 5; i++)
+          await enqueueEmail(trx, {
+            to,
+            subject: `Outage test ${i}`,
+            text: `message ${i}`,
+            template: 'password-changed',
+            reason: {},
+          });
       });
       // SMTP is down: nothing is sent, nothing is lost, each failure is recorded for a retry. A pass stops at its
       // first failure (the outbox is shared with other tests), so keep passing until each of ours has been tried.
@@ -59,7 +66,20 @@ describe('when the SMTP server is down for a while', () => {
   it('queues a mail with a dedupe key only once', async () => {
     const to = `dedupe-${randomUUID().slice(0, 8)}@example.test`;
     const key = `test:${randomUUID()}`;
-    const results = await Promise.all([1, 2, 3].map(() => t.deps.db.transaction((trx) => enqueueEmail(trx, { to, subject: 'Once', text: 'x', template: 'password-changed', reason: {}, dedupeKey: key }))));
+    const results = await Promise.all(
+      [1, 2, 3].map(() =>
+        t.deps.db.transaction((trx) =>
+          enqueueEmail(trx, {
+            to,
+            subject: 'Once',
+            text: 'x',
+            template: 'password-changed',
+            reason: {},
+            dedupeKey: key,
+          }),
+        ),
+      ),
+    );
     expect(results.filter(Boolean)).toHaveLength(1);
     expect(await t.deps.db('outbound_emails').where('dedupe_key', key)).toHaveLength(1);
   });

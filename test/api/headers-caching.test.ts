@@ -12,9 +12,17 @@ afterAll(() => t.close());
 
 /** A sponsor with an agreement and a signed-in contact, for the ledger CSV and the portal's PDF. */
 async function sponsorAndContact() {
-  const created = await admin.post('/api/admin/sponsors', { name: `Header Test Supply ${Date.now()}`, website: 'https://example.test', blurb: 'Invented for a test.' });
+  const created = await admin.post('/api/admin/sponsors', {
+    name: `Header Test Supply ${Date.now()}`,
+    website: 'https://example.test',
+    blurb: 'Invented for a test.',
+  });
   const id = created.body.id as number;
-  await admin.post(`/api/admin/sponsors/${id}/agreements`, { season: '2026', cashCents: 10_000, deliverables: [{ kind: 'build_log_credit', quantity: 1, dueOn: '2026-12-31' }] });
+  await admin.post(`/api/admin/sponsors/${id}/agreements`, {
+    season: '2026',
+    cashCents: 10_000,
+    deliverables: [{ kind: 'build_log_credit', quantity: 1, dueOn: '2026-12-31' }],
+  });
   const contact = await createUser(t.deps.db, ['fan', 'sponsor'], 'Header Contact');
   await admin.post(`/api/admin/sponsors/${id}/contacts`, { userId: contact.id });
   const portal = new Client(t.app);
@@ -46,10 +54,19 @@ describe('V8.2.1 session-dependent API answers are never cached (OWASP ASVS 4.0.
 
 describe('V14.4 a Permissions-Policy denies what Padside never uses (OWASP ASVS 4.0.3 V14.4 HTTP security headers)', () => {
   it('denies the camera everywhere except the check-in pages, and denies microphone, location and payment everywhere', async () => {
-    for (const path of ['/', '/console', '/console/orders', '/console/range/12/x', '/console/ranges', '/api/health', '/uploads/nothing']) {
+    for (const path of [
+      '/',
+      '/console',
+      '/console/orders',
+      '/console/range/12/x',
+      '/console/ranges',
+      '/api/health',
+      '/uploads/nothing',
+    ]) {
       const policy = (await request(t.app).get(path)).headers['permissions-policy'];
       expect(policy).toMatch(/(^|, )camera=\(\)(,|$)/);
-      for (const feature of ['microphone', 'geolocation', 'payment', 'usb']) expect(policy).toMatch(new RegExp(`(^|, )${feature}=\\(\\)(,|$)`));
+      for (const feature of ['microphone', 'geolocation', 'payment', 'usb'])
+        expect(policy).toMatch(new RegExp(`(^|, )${feature}=\\(\\)(,|$)`));
     }
     const checkIn = (await request(t.app).get('/console/check-in')).headers['permissions-policy'];
     expect(checkIn).toMatch(/(^|, )camera=\(self\)(,|$)/);
@@ -72,9 +89,25 @@ describe('V14.4.5 HSTS only on answers to HTTPS requests (OWASP ASVS 4.0.3 14.4.
 
 describe('V13.1 the payment webhook refuses signatures dated more than five minutes ahead (OWASP ASVS 4.0.3 V13.1 web services; no numbered requirement covers message freshness)', () => {
   const send = (secondsAhead: number) => {
-    const payload = JSON.stringify({ id: `evt_future_${Date.now()}_${secondsAhead}`, object: 'event', type: 'padside.test', data: { object: {} }, created: Math.floor(Date.now() / 1000), livemode: false, api_version: '2024-06-20' });
-    const header = t.deps.payments.stripe.webhooks.generateTestHeaderString({ payload, secret: t.config.stripe.webhookSecret, timestamp: Math.floor(Date.now() / 1000) + secondsAhead });
-    return request(t.app).post('/api/payments/webhook').set('Content-Type', 'application/json').set('Stripe-Signature', header).send(payload);
+    const payload = JSON.stringify({
+      id: `evt_future_${Date.now()}_${secondsAhead}`,
+      object: 'event',
+      type: 'padside.test',
+      data: { object: {} },
+      created: Math.floor(Date.now() / 1000),
+      livemode: false,
+      api_version: '2024-06-20',
+    });
+    const header = t.deps.payments.stripe.webhooks.generateTestHeaderString({
+      payload,
+      secret: t.config.stripe.webhookSecret,
+      timestamp: Math.floor(Date.now() / 1000) + secondsAhead,
+    });
+    return request(t.app)
+      .post('/api/payments/webhook')
+      .set('Content-Type', 'application/json')
+      .set('Stripe-Signature', header)
+      .send(payload);
   };
 
   it('answers 400 for a timestamp ten minutes ahead or behind, and takes one a minute ahead', async () => {

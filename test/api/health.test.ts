@@ -14,7 +14,13 @@ describe('GET /api/health', () => {
   });
 
   it('answers 503 with db "down" when the database cannot be reached, and reports mail and payments down', async () => {
-    const t = buildTestApp({ env: { DATABASE_URL: 'postgres://padside@127.0.0.1:1/nothing', SMTP_URL: 'smtp://127.0.0.1:1', STRIPE_API_BASE: 'http://127.0.0.1:1' } });
+    const t = buildTestApp({
+      env: {
+        DATABASE_URL: 'postgres://padside@127.0.0.1:1/nothing',
+        SMTP_URL: 'smtp://127.0.0.1:1',
+        STRIPE_API_BASE: 'http://127.0.0.1:1',
+      },
+    });
     try {
       const res = await request(t.app).get('/api/health');
       expect(res.status).toBe(503);

@@ -1,6 +1,16 @@
 import { DELIVERABLE_KIND_LABELS } from '../../contracts/labels/deliverable-kinds';
-import { FLIGHT_OUTCOME_LABELS, FLIGHT_STATUS_LABELS, LAUNCH_STATUS_LABELS, RECOVERY_LABELS } from '../../contracts/labels/launch-statuses';
-import { DUES_ENTRY_LABELS, DUES_PAYMENT_STATUS_LABELS, MEMBERSHIP_STATUS_LABELS, PLAN_ELIGIBILITY_LABELS } from '../../contracts/labels/membership-statuses';
+import {
+  FLIGHT_OUTCOME_LABELS,
+  FLIGHT_STATUS_LABELS,
+  LAUNCH_STATUS_LABELS,
+  RECOVERY_LABELS,
+} from '../../contracts/labels/launch-statuses';
+import {
+  DUES_ENTRY_LABELS,
+  DUES_PAYMENT_STATUS_LABELS,
+  MEMBERSHIP_STATUS_LABELS,
+  PLAN_ELIGIBILITY_LABELS,
+} from '../../contracts/labels/membership-statuses';
 import { MOVEMENT_KIND_LABELS, MOVEMENT_SOURCE_LABELS } from '../../contracts/labels/money-movements';
 import { ORDER_STATUS_LABELS } from '../../contracts/labels/order-statuses';
 import { PAYMENT_METHOD_LABELS } from '../../contracts/labels/payment-methods';
@@ -42,7 +52,10 @@ const COVERED: [constraint: string, labels: Readonly<Record<string, string>>][] 
 ];
 
 async function allowedCodes(constraint: string): Promise<string[]> {
-  const row = await t.deps.db('pg_constraint').where('conname', constraint).first(t.deps.db.raw('pg_get_constraintdef(oid) AS def'));
+  const row = await t.deps
+    .db('pg_constraint')
+    .where('conname', constraint)
+    .first(t.deps.db.raw('pg_get_constraintdef(oid) AS def'));
   if (!row) throw new Error(`no constraint ${constraint}`);
   return [...String(row.def).matchAll(/'([^']+)'::(?:character varying|text)/g)].map((m) => m[1]);
 }

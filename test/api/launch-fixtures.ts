@@ -3,10 +3,14 @@ import type { TestApp } from '../helpers/test-app';
 import { signedIn, type Client, type TestUser } from '../helpers/users';
 
 /** A signed-in member with a paid membership row (dues current until `termEnd`) and their card's token. */
-export async function memberWithCard(t: TestApp, opts: { certificationLevel?: string; termEnd?: string; name?: string } = {}): Promise<{ client: Client; user: TestUser; token: string; memberNumber: string }> {
+export async function memberWithCard(
+  t: TestApp,
+  opts: { certificationLevel?: string; termEnd?: string; name?: string } = {},
+): Promise<{ client: Client; user: TestUser; token: string; memberNumber: string }> {
   const s = await signedIn(t.app, t.deps.db, ['fan', 'member']);
   const plan = await t.deps.db('membership_plans').where('code', 'adult').first();
-  const [m] = await t.deps.db('memberships')
+  const [m] = await t.deps
+    .db('memberships')
     .insert({
       user_id: s.user.id,
       member_number: t.deps.db.raw("lpad(nextval('membership_number_seq')::text, 5, '0')"),
@@ -35,7 +39,16 @@ let counter = 0;
 /** A launch body for POST /api/admin/launches. */
 export function launchBody(date: string, over: Record<string, unknown> = {}) {
   counter++;
-  return { title: `Test launch ${counter} ${Date.now().toString(36)}`, date, startsAt: '10:00', endsAt: '16:00', site: { name: 'Coulee Field', address: 'Range Road 12, Gopher Flats, MB', lat: 49.61, lon: -98.02 }, ceilingMetres: 1500, notes: 'Bring water.', ...over };
+  return {
+    title: `Test launch ${counter} ${Date.now().toString(36)}`,
+    date,
+    startsAt: '10:00',
+    endsAt: '16:00',
+    site: { name: 'Coulee Field', address: 'Range Road 12, Gopher Flats, MB', lat: 49.61, lon: -98.02 },
+    ceilingMetres: 1500,
+    notes: 'Bring water.',
+    ...over,
+  };
 }
 
 /** Creates a launch as range staff and answers its id. */

@@ -27,8 +27,16 @@ async function feed() {
 
 describe('GET /feeds/launches.ics (RFC 5545)', () => {
   it('has one VEVENT per launch with a stable UID and times in the club time zone', async () => {
-    const summer = await createLaunch(rso, '2031-06-14', { title: 'Summer feed launch', startsAt: '10:00', endsAt: '16:30' });
-    const winter = await createLaunch(rso, '2031-12-13', { title: 'Winter feed launch', startsAt: '11:00', endsAt: '14:00' });
+    const summer = await createLaunch(rso, '2031-06-14', {
+      title: 'Summer feed launch',
+      startsAt: '10:00',
+      endsAt: '16:30',
+    });
+    const winter = await createLaunch(rso, '2031-12-13', {
+      title: 'Winter feed launch',
+      startsAt: '11:00',
+      endsAt: '14:00',
+    });
     const first = await feed();
     const byTitle = (events: ICAL.Event[], title: string) => events.filter((e) => e.summary === title);
     const s = byTitle(first.events, 'Summer feed launch');

@@ -22,7 +22,14 @@ async function checkedIn(opts: { certificationLevel?: string } = {}) {
   return m;
 }
 
-const card = (over: Record<string, unknown> = {}) => ({ rocketName: 'Filament Falcon', liftoffMassGrams: 120, motors: ['C6-5'], expectedAltitudeMetres: 200, recovery: 'parachute', ...over });
+const card = (over: Record<string, unknown> = {}) => ({
+  rocketName: 'Filament Falcon',
+  liftoffMassGrams: 120,
+  motors: ['C6-5'],
+  expectedAltitudeMetres: 200,
+  recovery: 'parachute',
+  ...over,
+});
 
 /** Files a card and answers the flight. */
 async function file(client: Client, over: Record<string, unknown> = {}) {
@@ -36,9 +43,13 @@ describe('POST /api/launches/:id/flights', () => {
     const m = await checkedIn();
     const res = await m.client.post(`/api/launches/${launchId}/flights`, card());
     expect(res.status).toBe(201);
-    expect(res.body.flight).toEqual(expect.objectContaining({ id: expect.any(Number), status: 'filed', warnings: expect.any(Array) }));
+    expect(res.body.flight).toEqual(
+      expect.objectContaining({ id: expect.any(Number), status: 'filed', warnings: expect.any(Array) }),
+    );
     // C6-5: class C, 6 N average thrust, 5 s delay (the designation's own letters and numbers).
-    expect(res.body.flight.motors).toEqual([expect.objectContaining({ designation: 'C6-5', impulseClass: 'C', averageThrustN: 6, delayS: 5 })]);
+    expect(res.body.flight.motors).toEqual([
+      expect.objectContaining({ designation: 'C6-5', impulseClass: 'C', averageThrustN: 6, delayS: 5 }),
+    ]);
     // 6 N / (0.120 kg x 9.80665 m/s^2) = 5.10 (standard gravity, CGPM 1901).
     expect(res.body.flight.thrustToWeight).toBeCloseTo(5.1, 1);
     expect(res.body.flight.warnings).toEqual([]);
@@ -49,7 +60,10 @@ describe('POST /api/launches/:id/flights', () => {
     const flight = await file(m.client, { liftoffMassGrams: 250, expectedAltitudeMetres: 800 });
     // 6 N / (0.250 kg x 9.80665) = 2.45, below 5:1 (common practice, no source); 800 m is above the 600 m ceiling.
     expect(flight.thrustToWeight).toBeCloseTo(2.45, 1);
-    expect(flight.warnings.map((w: { code: string }) => w.code).sort()).toEqual(['above_ceiling', 'low_thrust_to_weight']);
+    expect(flight.warnings.map((w: { code: string }) => w.code).sort()).toEqual([
+      'above_ceiling',
+      'low_thrust_to_weight',
+    ]);
     for (const w of flight.warnings) expect(w.message.length).toBeGreaterThan(20);
     expect(flight.status).toBe('filed');
   });
@@ -65,7 +79,9 @@ describe('POST /api/launches/:id/flights', () => {
     const m = await checkedIn();
     const bad = await m.client.post(`/api/launches/${launchId}/flights`, { motors: [] });
     expect(bad.status).toBe(400);
-    expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['rocketName', 'liftoffMassGrams', 'motors']));
+    expect(Object.keys(bad.body.error.fields)).toEqual(
+      expect.arrayContaining(['rocketName', 'liftoffMassGrams', 'motors']),
+    );
     const stranger = await memberWithCard(t);
     const res = await stranger.client.post(`/api/launches/${launchId}/flights`, card());
     expect(res.status).toBe(409);
@@ -77,7 +93,9 @@ describe('POST /api/admin/flights/:id/decision', () => {
   it('approves a card within the flyer certification, once across ten clicks', async () => {
     const m = await checkedIn();
     const flight = await file(m.client);
-    const answers = await Promise.all(Array.from({ length: 10 }, () => rso.post(`/api/admin/flights/${flight.id}/decision`, { approve: true })));
+    const answers = await Promise.all(
+      Array.from({ length: 10 }, () => rso.post(`/api/admin/flights/${flight.id}/decision`, { approve: true })),
+    );
     expect(answers.map((a) => a.status).sort()).toEqual([200, ...Array(9).fill(409)]);
     expect((await new Client(t.app).get(`/api/flights/${flight.id}`)).body.flight.status).toBe('approved');
   });
@@ -86,9 +104,13 @@ describe('POST /api/admin/flights/:id/decision', () => {
     const none = await checkedIn();
     const hp = await file(none.client, { liftoffMassGrams: 1800, motors: ['H128W-M'], expectedAltitudeMetres: 500 });
     // H128W-M: class H, 128 N average, an adjustable medium delay without a number.
-    expect(hp.motors[0]).toEqual(expect.objectContaining({ impulseClass: 'H', averageThrustN: 128, delayS: null, plugged: false }));
+    expect(hp.motors[0]).toEqual(
+      expect.objectContaining({ impulseClass: 'H', averageThrustN: 128, delayS: null, plugged: false }),
+    );
     expect(hp.needsHighPower).toBe(true);
-    expect(hp.warnings.map((w: { code: string }) => w.code)).toEqual(expect.arrayContaining(['high_power', 'beyond_certification']));
+    expect(hp.warnings.map((w: { code: string }) => w.code)).toEqual(
+      expect.arrayContaining(['high_power', 'beyond_certification']),
+    );
     const refused = await rso.post(`/api/admin/flights/${hp.id}/decision`, { approve: true });
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('not_certified');
@@ -105,9 +127,14 @@ describe('POST /api/admin/flights/:id/decision', () => {
     const bare = await rso.post(`/api/admin/flights/${flight.id}/decision`, { approve: false });
     expect(bare.status).toBe(400);
     expect(bare.body.error.fields.reason).toBeDefined();
-    const res = await rso.post(`/api/admin/flights/${flight.id}/decision`, { approve: false, reason: 'Fins loose; re-glue and file again.' });
+    const res = await rso.post(`/api/admin/flights/${flight.id}/decision`, {
+      approve: false,
+      reason: 'Fins loose; re-glue and file again.',
+    });
     expect(res.status).toBe(200);
-    expect(res.body.flight).toEqual(expect.objectContaining({ status: 'sent_back', decisionReason: 'Fins loose; re-glue and file again.' }));
+    expect(res.body.flight).toEqual(
+      expect.objectContaining({ status: 'sent_back', decisionReason: 'Fins loose; re-glue and file again.' }),
+    );
   });
 
   it('is refused to a member', async () => {
@@ -121,12 +148,24 @@ describe('POST /api/admin/flights/:id/outcome', () => {
   it('records the outcome of a cleared flight and refuses one still waiting', async () => {
     const m = await checkedIn();
     const flight = await file(m.client);
-    expect((await rso.post(`/api/admin/flights/${flight.id}/outcome`, { outcome: 'recovered' })).body.error.code).toBe('not_cleared');
+    expect((await rso.post(`/api/admin/flights/${flight.id}/outcome`, { outcome: 'recovered' })).body.error.code).toBe(
+      'not_cleared',
+    );
     await rso.post(`/api/admin/flights/${flight.id}/decision`, { approve: true });
     expect((await rso.post(`/api/admin/flights/${flight.id}/outcome`, { outcome: 'sideways' })).status).toBe(400);
-    const res = await rso.post(`/api/admin/flights/${flight.id}/outcome`, { outcome: 'tree', notes: 'Second poplar from the gate.' });
+    const res = await rso.post(`/api/admin/flights/${flight.id}/outcome`, {
+      outcome: 'tree',
+      notes: 'Second poplar from the gate.',
+    });
     expect(res.status).toBe(200);
-    expect(res.body.flight).toEqual(expect.objectContaining({ status: 'flown', outcome: 'tree', outcomeLabel: 'Caught in a tree', outcomeNotes: 'Second poplar from the gate.' }));
+    expect(res.body.flight).toEqual(
+      expect.objectContaining({
+        status: 'flown',
+        outcome: 'tree',
+        outcomeLabel: 'Caught in a tree',
+        outcomeNotes: 'Second poplar from the gate.',
+      }),
+    );
   });
 });
 
@@ -158,7 +197,10 @@ const LOG = syntheticAltimeterLog({ boostMps2: 50, burnS: 1.5, descentMps: 5 });
 describe('POST /api/flights/:id/data', () => {
   it('analyses the log, answers 201 with the summary and shows it on the flight page', async () => {
     const { m, flight } = await flown();
-    const res = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', await m.client.token()).attach('log', Buffer.from(LOG), 'flight.csv');
+    const res = await m.client.agent
+      .post(`/api/flights/${flight.id}/data`)
+      .set('X-CSRF-Token', await m.client.token())
+      .attach('log', Buffer.from(LOG), 'flight.csv');
     expect(res.status).toBe(201);
     const s = res.body.summary;
     expect(Math.abs(s.apogeeMetres - 343.05) / 343.05).toBeLessThan(0.01);
@@ -170,7 +212,9 @@ describe('POST /api/flights/:id/data', () => {
     expect(page.body.data.summary).toEqual(res.body.summary);
     expect(page.body.data.series.length).toBeGreaterThan(10);
     expect(page.body.data.series.length).toBeLessThanOrEqual(1000);
-    expect(page.body.data.events.map((e: { kind: string }) => e.kind)).toEqual(expect.arrayContaining(['liftoff', 'apogee', 'landing']));
+    expect(page.body.data.events.map((e: { kind: string }) => e.kind)).toEqual(
+      expect.arrayContaining(['liftoff', 'apogee', 'landing']),
+    );
     expect(page.body.data.mapping.pressure).toEqual({ column: 'pressure_pa', unit: 'Pa' });
     expect(page.body.caution).toMatch(/safety code/);
   });
@@ -178,41 +222,77 @@ describe('POST /api/flights/:id/data', () => {
   it('answers 400 for a file it cannot map and without a file', async () => {
     const { m, flight } = await flown();
     const csrf = await m.client.token();
-    const junk = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', csrf).attach('log', Buffer.from('a,b\n1,2\n'), 'junk.csv');
+    const junk = await m.client.agent
+      .post(`/api/flights/${flight.id}/data`)
+      .set('X-CSRF-Token', csrf)
+      .attach('log', Buffer.from('a,b\n1,2\n'), 'junk.csv');
     expect(junk.status).toBe(400);
     expect(junk.body.error.code).toBe('unmappable_log');
     expect(junk.body.error.message).toBeTruthy();
-    const none = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', csrf).field('columns', '{}');
+    const none = await m.client.agent
+      .post(`/api/flights/${flight.id}/data`)
+      .set('X-CSRF-Token', csrf)
+      .field('columns', '{}');
     expect(none.status).toBe(400);
     expect(none.body.error.fields.log).toBeDefined();
-    const badColumns = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', csrf).field('columns', 'not json').attach('log', Buffer.from(LOG), 'f.csv');
+    const badColumns = await m.client.agent
+      .post(`/api/flights/${flight.id}/data`)
+      .set('X-CSRF-Token', csrf)
+      .field('columns', 'not json')
+      .attach('log', Buffer.from(LOG), 'f.csv');
     expect(badColumns.status).toBe(400);
     expect(badColumns.body.error.fields.columns).toBeDefined();
-    const wrongUnit = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', csrf).field('columns', JSON.stringify({ time: { column: 'time_s', unit: 'min' }, pressure: { column: 'pressure_pa', unit: 'Pa' } })).attach('log', Buffer.from(LOG), 'f.csv');
+    const wrongUnit = await m.client.agent
+      .post(`/api/flights/${flight.id}/data`)
+      .set('X-CSRF-Token', csrf)
+      .field(
+        'columns',
+        JSON.stringify({ time: { column: 'time_s', unit: 'min' }, pressure: { column: 'pressure_pa', unit: 'Pa' } }),
+      )
+      .attach('log', Buffer.from(LOG), 'f.csv');
     expect(wrongUnit.status).toBe(400);
     expect(wrongUnit.body.error.fields['columns.time.unit']).toBeDefined();
     // A mapping that names the columns works where the header names alone would not.
     const renamed = LOG.replace('time_s,pressure_pa', 'col1,col2');
-    const mapped = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', csrf).field('columns', JSON.stringify({ time: { column: 'col1', unit: 's' }, pressure: { column: 'col2', unit: 'Pa' } })).attach('log', Buffer.from(renamed), 'f.csv');
+    const mapped = await m.client.agent
+      .post(`/api/flights/${flight.id}/data`)
+      .set('X-CSRF-Token', csrf)
+      .field(
+        'columns',
+        JSON.stringify({ time: { column: 'col1', unit: 's' }, pressure: { column: 'col2', unit: 'Pa' } }),
+      )
+      .attach('log', Buffer.from(renamed), 'f.csv');
     expect(mapped.status).toBe(201);
   });
 
   it('answers 400 for more than 200,000 rows', async () => {
     const { m, flight } = await flown();
-    const rows = ['time_s,pressure_pa,temp_c', ...Array.from({ length: 200_001 }, (_v, i) => `${i / 100},98000,20`)].join('\n');
-    const res = await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', await m.client.token()).attach('log', Buffer.from(rows), 'long.csv');
+    const rows = [
+      'time_s,pressure_pa,temp_c',
+      ...Array.from({ length: 200_001 }, (_v, i) => `${i / 100},98000,20`),
+    ].join('\n');
+    const res = await m.client.agent
+      .post(`/api/flights/${flight.id}/data`)
+      .set('X-CSRF-Token', await m.client.token())
+      .attach('log', Buffer.from(rows), 'long.csv');
     expect(res.status).toBe(400);
     expect(res.body.error.fields.log).toMatch(/200,000/);
   });
 
-  it("is refused to another member and for a card not yet flown", async () => {
+  it('is refused to another member and for a card not yet flown', async () => {
     const { flight } = await flown();
     const other = await signedIn(t.app, t.deps.db, ['fan', 'member']);
-    const res = await other.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', await other.client.token()).attach('log', Buffer.from(LOG), 'f.csv');
+    const res = await other.client.agent
+      .post(`/api/flights/${flight.id}/data`)
+      .set('X-CSRF-Token', await other.client.token())
+      .attach('log', Buffer.from(LOG), 'f.csv');
     expect(res.status).toBe(403);
     const m = await checkedIn();
     const waiting = await file(m.client);
-    const early = await m.client.agent.post(`/api/flights/${waiting.id}/data`).set('X-CSRF-Token', await m.client.token()).attach('log', Buffer.from(LOG), 'f.csv');
+    const early = await m.client.agent
+      .post(`/api/flights/${waiting.id}/data`)
+      .set('X-CSRF-Token', await m.client.token())
+      .attach('log', Buffer.from(LOG), 'f.csv');
     expect(early.status).toBe(409);
   });
 });
@@ -220,7 +300,10 @@ describe('POST /api/flights/:id/data', () => {
 describe('GET /api/account/flights', () => {
   it('answers the logbook: flights by date, motors by class, total impulse and best altitude', async () => {
     const { m, flight } = await flown();
-    await m.client.agent.post(`/api/flights/${flight.id}/data`).set('X-CSRF-Token', await m.client.token()).attach('log', Buffer.from(LOG), 'flight.csv');
+    await m.client.agent
+      .post(`/api/flights/${flight.id}/data`)
+      .set('X-CSRF-Token', await m.client.token())
+      .attach('log', Buffer.from(LOG), 'flight.csv');
     const second = await file(m.client, { motors: ['B6-4'], liftoffMassGrams: 80 });
     await rso.post(`/api/admin/flights/${second.id}/decision`, { approve: true });
     await rso.post(`/api/admin/flights/${second.id}/outcome`, { outcome: 'lost' });

@@ -21,7 +21,10 @@ describe('the launches demo seed', () => {
     const launches = await t.deps.db('launches').where('created_by', rso.id);
     expect(launches.map((l) => l.status).sort()).toEqual(['called_off', 'done', 'scheduled', 'scheduled']);
     // Dates are relative to today, so a title that names a season names the one of its date.
-    const dated = await t.deps.db('launches').where('created_by', rso.id).select('title', t.deps.db.raw("to_char(launch_date, 'YYYY-MM-DD') AS date"));
+    const dated = await t.deps
+      .db('launches')
+      .where('created_by', rso.id)
+      .select('title', t.deps.db.raw("to_char(launch_date, 'YYYY-MM-DD') AS date"));
     for (const l of dated) {
       const named = /\b(Spring|Summer|Autumn|Fall|Winter)\b/.exec(l.title)?.[1];
       if (named) expect(`${l.title}: ${named}`).toBe(`${l.title}: ${seasonOf(l.date)}`);
@@ -30,7 +33,10 @@ describe('the launches demo seed', () => {
     const flights = await t.deps.db('flights').where('launch_id', done.id);
     expect(flights).toHaveLength(3);
     expect(flights.every((f) => f.status === 'flown' && f.outcome)).toBe(true);
-    const data = await t.deps.db('flight_data').whereIn('flight_id', flights.map((f) => f.id));
+    const data = await t.deps.db('flight_data').whereIn(
+      'flight_id',
+      flights.map((f) => f.id),
+    );
     expect(data).toHaveLength(2);
     // The Coulee Crow's made-up log: 65 m/s^2 for 1.6 s, then coast: 83.2 + 104^2 / (2 x 9.80665) = 634.7 m (analytic).
     const crow = flights.find((f) => f.rocket_name === 'Coulee Crow')!;

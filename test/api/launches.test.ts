@@ -22,8 +22,23 @@ describe('POST /api/admin/launches', () => {
   it('answers 201 with the launch in the shape of the issue', async () => {
     const res = await rso.post('/api/admin/launches', launchBody('2031-06-14', { title: 'June launch' }));
     expect(res.status).toBe(201);
-    expect(res.body.launch).toEqual(expect.objectContaining({ title: 'June launch', date: '2031-06-14', startsAt: '10:00', endsAt: '16:00', status: 'scheduled', ceilingMetres: 1500, rsvpCount: 0 }));
-    expect(res.body.launch.site).toEqual({ name: 'Coulee Field', address: 'Range Road 12, Gopher Flats, MB', lat: 49.61, lon: -98.02 });
+    expect(res.body.launch).toEqual(
+      expect.objectContaining({
+        title: 'June launch',
+        date: '2031-06-14',
+        startsAt: '10:00',
+        endsAt: '16:00',
+        status: 'scheduled',
+        ceilingMetres: 1500,
+        rsvpCount: 0,
+      }),
+    );
+    expect(res.body.launch.site).toEqual({
+      name: 'Coulee Field',
+      address: 'Range Road 12, Gopher Flats, MB',
+      lat: 49.61,
+      lon: -98.02,
+    });
   });
 
   it('lets an admin do it too', async () => {
@@ -32,13 +47,24 @@ describe('POST /api/admin/launches', () => {
 
   describe('when the body is wrong', () => {
     it('answers 400 naming each field', async () => {
-      const res = await rso.post('/api/admin/launches', { title: '', date: '2031-02-30', startsAt: '25:00', endsAt: '9am', site: { name: '', lat: 120 } });
+      const res = await rso.post('/api/admin/launches', {
+        title: '',
+        date: '2031-02-30',
+        startsAt: '25:00',
+        endsAt: '9am',
+        site: { name: '', lat: 120 },
+      });
       expect(res.status).toBe(400);
-      expect(Object.keys(res.body.error.fields)).toEqual(expect.arrayContaining(['title', 'date', 'startsAt', 'endsAt', 'site.name', 'site.lat']));
+      expect(Object.keys(res.body.error.fields)).toEqual(
+        expect.arrayContaining(['title', 'date', 'startsAt', 'endsAt', 'site.name', 'site.lat']),
+      );
     });
 
     it('answers 400 on endsAt when the window ends before it starts', async () => {
-      const res = await rso.post('/api/admin/launches', launchBody('2031-06-14', { startsAt: '15:00', endsAt: '09:00' }));
+      const res = await rso.post(
+        '/api/admin/launches',
+        launchBody('2031-06-14', { startsAt: '15:00', endsAt: '09:00' }),
+      );
       expect(res.status).toBe(400);
       expect(res.body.error.fields.endsAt).toMatch(/after/);
     });
@@ -50,7 +76,9 @@ describe('PATCH /api/admin/launches/:id', () => {
     const id = await createLaunch(rso, '2031-06-21');
     const res = await rso.patch(`/api/admin/launches/${id}`, { endsAt: '17:30', notes: 'Gate opens 09:30.' });
     expect(res.status).toBe(200);
-    expect(res.body.launch).toEqual(expect.objectContaining({ startsAt: '10:00', endsAt: '17:30', notes: 'Gate opens 09:30.' }));
+    expect(res.body.launch).toEqual(
+      expect.objectContaining({ startsAt: '10:00', endsAt: '17:30', notes: 'Gate opens 09:30.' }),
+    );
   });
 
   it('answers 409 when the new end is before the stored start', async () => {
@@ -69,7 +97,16 @@ describe('GET /api/launches', () => {
     const res = await new Client(t.app).get('/api/launches?from=2031-07-05&to=2031-07-05');
     expect(res.status).toBe(200);
     const item = res.body.items.find((i: { id: number }) => i.id === id);
-    expect(item).toEqual(expect.objectContaining({ id, date: '2031-07-05', startsAt: '10:00', endsAt: '16:00', status: 'scheduled', rsvpCount: 1 }));
+    expect(item).toEqual(
+      expect.objectContaining({
+        id,
+        date: '2031-07-05',
+        startsAt: '10:00',
+        endsAt: '16:00',
+        status: 'scheduled',
+        rsvpCount: 1,
+      }),
+    );
     expect(item.site.name).toBe('Coulee Field');
   });
 
@@ -112,7 +149,9 @@ describe('POST /api/admin/launches/:id/call-off', () => {
     await no.client.post(`/api/launches/${id}/rsvp`, { going: false });
     const res = await rso.post(`/api/admin/launches/${id}/call-off`, { reason: 'Gusts over 30 km/h' });
     expect(res.status).toBe(200);
-    expect(res.body.launch).toEqual(expect.objectContaining({ status: 'called_off', callOffReason: 'Gusts over 30 km/h' }));
+    expect(res.body.launch).toEqual(
+      expect.objectContaining({ status: 'called_off', callOffReason: 'Gusts over 30 km/h' }),
+    );
     expect(res.body.notified).toBe(1);
     const sent = await mails(yes.user.email, 'launch-called-off');
     expect(sent).toHaveLength(1);
@@ -128,7 +167,9 @@ describe('POST /api/admin/launches/:id/call-off', () => {
     const id = await createLaunch(rso, '2031-08-02');
     const yes = await signedIn(t.app, t.deps.db, ['fan', 'member']);
     await yes.client.post(`/api/launches/${id}/rsvp`, { going: true });
-    const answers = await Promise.all(Array.from({ length: 10 }, () => rso.post(`/api/admin/launches/${id}/call-off`, { reason: 'Airspace closed' })));
+    const answers = await Promise.all(
+      Array.from({ length: 10 }, () => rso.post(`/api/admin/launches/${id}/call-off`, { reason: 'Airspace closed' })),
+    );
     expect(answers.map((a) => a.status).sort()).toEqual([200, ...Array(9).fill(409)]);
     expect(await mails(yes.user.email, 'launch-called-off')).toHaveLength(1);
     expect((await t.deps.db('launches').where('id', id).first()).sequence).toBe(1);
@@ -189,7 +230,13 @@ describe('POST /api/launches/:id/check-in', () => {
     const m = await memberWithCard(t, { name: 'Odalys Prairie' });
     const first = await rso.post(`/api/launches/${id}/check-in`, { token: m.token });
     expect(first.status).toBe(200);
-    expect(first.body).toEqual(expect.objectContaining({ checkedIn: true, alreadyCheckedIn: false, member: expect.objectContaining({ memberNumber: m.memberNumber, name: 'Odalys Prairie', status: 'active' }) }));
+    expect(first.body).toEqual(
+      expect.objectContaining({
+        checkedIn: true,
+        alreadyCheckedIn: false,
+        member: expect.objectContaining({ memberNumber: m.memberNumber, name: 'Odalys Prairie', status: 'active' }),
+      }),
+    );
     expect((await rso.post(`/api/launches/${id}/check-in`, { token: m.token })).body.alreadyCheckedIn).toBe(true);
     const list = await rso.get(`/api/admin/launches/${id}/attendance`);
     expect(list.body.items.map((a: { memberNumber: string }) => a.memberNumber)).toEqual([m.memberNumber]);
@@ -203,7 +250,9 @@ describe('POST /api/launches/:id/check-in', () => {
     const [v, n, at] = m.token.split('.');
     const tampered = `${v}.${n}.${Number(at) + 1}.${m.token.split('.')[3]}`;
     expect((await rso.post(`/api/launches/${id}/check-in`, { token: tampered })).body.error.code).toBe('unknown_card');
-    expect((await rso.post(`/api/launches/${id}/check-in`, { token: lapsed.token })).body.error.code).toBe('dues_not_current');
+    expect((await rso.post(`/api/launches/${id}/check-in`, { token: lapsed.token })).body.error.code).toBe(
+      'dues_not_current',
+    );
     expect((await rso.post(`/api/launches/${id}/check-in`, {})).status).toBe(400);
     expect(await t.deps.db('launch_attendance').where('launch_id', id)).toHaveLength(0);
   });

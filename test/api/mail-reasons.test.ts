@@ -15,7 +15,10 @@ const COMMERCIAL = new Set(['announcement', 'drop-notice', 'announcement-test', 
 function templatesInCode(): { names: Set<string>; patterns: RegExp[] } {
   const names = new Set<string>();
   const patterns: RegExp[] = [];
-  const walk = (dir: string): string[] => readdirSync(dir, { withFileTypes: true }).flatMap((e) => (e.isDirectory() ? walk(join(dir, e.name)) : e.name.endsWith('.ts') ? [join(dir, e.name)] : []));
+  const walk = (dir: string): string[] =>
+    readdirSync(dir, { withFileTypes: true }).flatMap((e) =>
+      e.isDirectory() ? walk(join(dir, e.name)) : e.name.endsWith('.ts') ? [join(dir, e.name)] : [],
+    );
   for (const file of walk(join(__dirname, '../../server'))) {
     if (file.endsWith(join('mail', 'mail-reasons.ts'))) continue;
     for (const [, value] of readFileSync(file, 'utf8').matchAll(/\btemplate: ([^,;}\n]+)/g)) {
@@ -31,7 +34,15 @@ describe('the reason line of transactional mail (server/mail/mail-reasons.ts)', 
   const code = templatesInCode();
 
   it('finds the templates the code queues (the scan itself works)', () => {
-    expect([...code.names]).toEqual(expect.arrayContaining(['shop-order-confirmation', 'membership-receipt', 'password-reset', 'launch-reminder', 'announcement']));
+    expect([...code.names]).toEqual(
+      expect.arrayContaining([
+        'shop-order-confirmation',
+        'membership-receipt',
+        'password-reset',
+        'launch-reminder',
+        'announcement',
+      ]),
+    );
     expect(code.patterns.map(String)).toContain(String(/^membership-[a-z0-9-]+$/));
   });
 
@@ -51,7 +62,10 @@ describe('the reason line of transactional mail (server/mail/mail-reasons.ts)', 
     for (const template of reasons) {
       const facts = new Proxy({}, { get: (_, key) => `«${String(key)}»` });
       const text = (MAIL_REASONS[template] as (f: unknown) => string)(facts);
-      expect({ template, ok: /^[a-z].{20,}\.$/.test(text) && !text.includes('undefined') }).toEqual({ template, ok: true });
+      expect({ template, ok: /^[a-z].{20,}\.$/.test(text) && !text.includes('undefined') }).toEqual({
+        template,
+        ok: true,
+      });
     }
   });
 });
@@ -69,13 +83,25 @@ describe('the outbox appends the reason', () => {
     const shirt = await openShirt(staff, { cap: 30, priceCents: 3500 });
     const email = `why-receipt-${Date.now()}@example.test`;
     const c = new Client(t.app);
-    const res = await c.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada'), email, paymentToken: 'tok_visa' });
+    const res = await c.post('/api/orders', {
+      items: [{ variantId: shirt.variants[0].id, quantity: 1 }],
+      shipTo: MB_ADDRESS,
+      shippingMethodId: await methodId(c, 'canada'),
+      email,
+      paymentToken: 'tok_visa',
+    });
     expect(res.status).toBe(201);
     const number: string = res.body.order.number;
     expect(number).toMatch(/^PS-/);
     await t.deps.mail.deliverDue();
     const [mail] = (await waitForEmails(email, /order PS-/)) as (CaughtEmail & { headers: Record<string, string> })[];
-    expect(mail.text.trimEnd().endsWith(`\n--\nWhy you got this: you placed order ${number} with ${t.deps.config.site.teamName}, and this e-mail is its receipt.`)).toBe(true);
+    expect(
+      mail.text
+        .trimEnd()
+        .endsWith(
+          `\n--\nWhy you got this: you placed order ${number} with ${t.deps.config.site.teamName}, and this e-mail is its receipt.`,
+        ),
+    ).toBe(true);
     expect(mail.headers['message-id']).toBeDefined();
     expect(mail.headers['list-unsubscribe']).toBeUndefined();
     const [row] = await t.deps.db('outbound_emails').where({ to_address: email, template: 'shop-order-confirmation' });
@@ -84,17 +110,33 @@ describe('the outbox appends the reason', () => {
 
   it('adds the reason to an HTML body too, escaped, after a rule', async () => {
     const to = `why-html-${Date.now()}@example.test`;
-    await enqueueEmail(t.deps.db, { to, subject: 'Order mail', text: 'Thanks.\n', html: '<p>Thanks.</p>', template: 'shop-order-refund', reason: { order: 'PS-<0042>' } });
+    await enqueueEmail(t.deps.db, {
+      to,
+      subject: 'Order mail',
+      text: 'Thanks.\n',
+      html: '<p>Thanks.</p>',
+      template: 'shop-order-refund',
+      reason: { order: 'PS-<0042>' },
+    });
     const [row] = await t.deps.db('outbound_emails').where('to_address', to);
-    expect(row.text_body).toBe('Thanks.\n\n--\nWhy you got this: we refunded money on your order PS-<0042>; each refund gets one e-mail.');
-    expect(row.html_body).toBe('<p>Thanks.</p>\n<hr>\n<p style="font-size:12px;color:#555">Why you got this: we refunded money on your order PS-&lt;0042&gt;; each refund gets one e-mail.</p>');
+    expect(row.text_body).toBe(
+      'Thanks.\n\n--\nWhy you got this: we refunded money on your order PS-<0042>; each refund gets one e-mail.',
+    );
+    expect(row.html_body).toBe(
+      '<p>Thanks.</p>\n<hr>\n<p style="font-size:12px;color:#555">Why you got this: we refunded money on your order PS-&lt;0042&gt;; each refund gets one e-mail.</p>',
+    );
   });
 
   it('leaves commercial mail to its own footer and one-click headers, without a reason line', async () => {
     const to = `why-commercial-${Date.now()}@example.test`;
     const mail = commercialMail(
       { topic: 'launches', subject: 'Next launch', markdown: 'See you at the field.', template: 'announcement' },
-      { email: to, why: 'you asked for launch day e-mails', oneClickUrl: 'http://127.0.0.1/one-click', pageUrl: 'http://127.0.0.1/page' },
+      {
+        email: to,
+        why: 'you asked for launch day e-mails',
+        oneClickUrl: 'http://127.0.0.1/one-click',
+        pageUrl: 'http://127.0.0.1/page',
+      },
       { teamName: 'Thrust & Filament', mailingAddress: 'Box 1, Gopher Flats MB', contactEmail: 'team@example.test' },
     );
     await enqueueEmail(t.deps.db, mail);
@@ -103,6 +145,9 @@ describe('the outbox appends the reason', () => {
     expect(row.text_body).toBe(mail.text);
     expect(row.text_body).toContain('You get this because you asked for launch day e-mails.');
     expect(row.text_body).not.toContain('Why you got this');
-    expect(row.headers).toEqual({ 'List-Unsubscribe': '<http://127.0.0.1/one-click>', 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' });
+    expect(row.headers).toEqual({
+      'List-Unsubscribe': '<http://127.0.0.1/one-click>',
+      'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click',
+    });
   });
 });

@@ -13,7 +13,9 @@ beforeAll(async () => {
   t = buildTestApp({ clock });
   treasurer = (await signedIn(t.app, t.deps.db, ['fan', 'treasurer'])).client;
   rso = (await signedIn(t.app, t.deps.db, ['fan', 'editor'])).client;
-  adultPlan = (await treasurer.get('/api/membership/plans')).body.items.find((p: { code: string }) => p.code === 'adult').id;
+  adultPlan = (await treasurer.get('/api/membership/plans')).body.items.find(
+    (p: { code: string }) => p.code === 'adult',
+  ).id;
 });
 afterAll(() => t.close());
 beforeEach(() => clock.set('2028-04-10T17:00:00Z'));
@@ -22,7 +24,15 @@ async function member(name: string, over: Record<string, unknown> = {}) {
   const s = await signedIn(t.app, t.deps.db);
   const res = await s.client.post('/api/membership', {
     planId: adultPlan,
-    profile: { legalName: `${name} ${tag}`, dateOfBirth: '1981-05-05', address: '12 Coulee Road, Gopher Flats, MB', phone: '204-555-0190', emergencyContact: 'Sibling 204-555-0191', certificationLevel: 'none', ...over },
+    profile: {
+      legalName: `${name} ${tag}`,
+      dateOfBirth: '1981-05-05',
+      address: '12 Coulee Road, Gopher Flats, MB',
+      phone: '204-555-0190',
+      emergencyContact: 'Sibling 204-555-0191',
+      certificationLevel: 'none',
+      ...over,
+    },
     waiverVersion: '2026-1',
     paymentToken: 'tok_visa',
   });
@@ -37,15 +47,29 @@ async function member(name: string, over: Record<string, unknown> = {}) {
   return { ...s, id: Number(row.id), checkIn };
 }
 
-const verifyAssociation = (id: number, number: string, expires: string, against = 'Association card, seen at the field') =>
-  treasurer.post(`/api/admin/members/${id}/verifications`, { what: 'association', against, associationNumber: number, associationExpires: expires });
+const verifyAssociation = (
+  id: number,
+  number: string,
+  expires: string,
+  against = 'Association card, seen at the field',
+) =>
+  treasurer.post(`/api/admin/members/${id}/verifications`, {
+    what: 'association',
+    against,
+    associationNumber: number,
+    associationExpires: expires,
+  });
 
 // OWASP ASVS 4.0.3 4.1.2 (attributes used in access decisions cannot be changed by end users unless authorised):
 // a member could set their own certification level and association expiry, and check-in showed them as facts.
 describe('ASVS 4.1.2: flying status is verified by staff, not claimed', () => {
   it('shows a member\'s own L3 and far-off association expiry as claims, and the verdict is not "may fly"', async () => {
     const m = await member('Claimant');
-    const patch = await m.client.patch('/api/membership/me', { certificationLevel: 'L3', associationNumber: 'NA-31337', associationExpires: '2099-12-31' });
+    const patch = await m.client.patch('/api/membership/me', {
+      certificationLevel: 'L3',
+      associationNumber: 'NA-31337',
+      associationExpires: '2099-12-31',
+    });
     expect(patch.status).toBe(200);
     const r = await m.checkIn();
     expect(r.status).toBe('active');
@@ -56,10 +80,18 @@ describe('ASVS 4.1.2: flying status is verified by staff, not claimed', () => {
   });
 
   it('says "may fly" once staff verify the association, recording who, when and against what', async () => {
-    const m = await member('Verified', { associationNumber: 'NA-4001', associationExpires: '2028-12-31', certificationLevel: 'L1' });
+    const m = await member('Verified', {
+      associationNumber: 'NA-4001',
+      associationExpires: '2028-12-31',
+      certificationLevel: 'L1',
+    });
     const res = await verifyAssociation(m.id, 'NA-4001', '2028-12-31');
     expect(res.status).toBe(200);
-    expect(res.body.verifications.association).toEqual({ at: '2028-04-10T17:00:00.000Z', by: 'Test User', against: 'Association card, seen at the field' });
+    expect(res.body.verifications.association).toEqual({
+      at: '2028-04-10T17:00:00.000Z',
+      by: 'Test User',
+      against: 'Association card, seen at the field',
+    });
     expect(res.body.audit.some((a: { action: string }) => a.action === 'association_verified')).toBe(true);
     const r = await m.checkIn();
     expect(r.mayFly).toBe(true);
@@ -67,17 +99,36 @@ describe('ASVS 4.1.2: flying status is verified by staff, not claimed', () => {
     expect(r.association.verified.against).toBe('Association card, seen at the field');
     // The certification is its own answer: still a claim, and it does not decide the overall verdict.
     expect(r.certification.answer).toBe('claimed');
-    const cert = await treasurer.post(`/api/admin/members/${m.id}/verifications`, { what: 'certification', against: 'Level 1 certificate, scanned copy', certificationLevel: 'L1' });
+    const cert = await treasurer.post(`/api/admin/members/${m.id}/verifications`, {
+      what: 'certification',
+      against: 'Level 1 certificate, scanned copy',
+      certificationLevel: 'L1',
+    });
     expect(cert.status).toBe(200);
-    expect((await m.checkIn()).certification).toEqual(expect.objectContaining({ answer: 'verified', level: 'L1', label: expect.any(String) }));
+    expect((await m.checkIn()).certification).toEqual(
+      expect.objectContaining({ answer: 'verified', level: 'L1', label: expect.any(String) }),
+    );
   });
 
   it('returns a verified value to unverified when the member edits it, and keeps it when the same value is sent again', async () => {
-    const m = await member('Editor', { associationNumber: 'NA-4002', associationExpires: '2028-11-30', certificationLevel: 'L2' });
+    const m = await member('Editor', {
+      associationNumber: 'NA-4002',
+      associationExpires: '2028-11-30',
+      certificationLevel: 'L2',
+    });
     await verifyAssociation(m.id, 'NA-4002', '2028-11-30');
-    await treasurer.post(`/api/admin/members/${m.id}/verifications`, { what: 'certification', against: 'Level 2 certificate', certificationLevel: 'L2' });
+    await treasurer.post(`/api/admin/members/${m.id}/verifications`, {
+      what: 'certification',
+      against: 'Level 2 certificate',
+      certificationLevel: 'L2',
+    });
     // The member's form sends every field; unchanged values void nothing.
-    await m.client.patch('/api/membership/me', { associationNumber: 'NA-4002', associationExpires: '2028-11-30', certificationLevel: 'L2', certificationDate: null });
+    await m.client.patch('/api/membership/me', {
+      associationNumber: 'NA-4002',
+      associationExpires: '2028-11-30',
+      certificationLevel: 'L2',
+      certificationDate: null,
+    });
     expect((await m.checkIn()).mayFly).toBe(true);
     const me = (await m.client.get('/api/membership/me')).body.membership;
     expect(me.associationVerifiedAt).toBe('2028-04-10T17:00:00.000Z');
@@ -106,10 +157,18 @@ describe('ASVS 4.1.2: flying status is verified by staff, not claimed', () => {
     const stale = await verifyAssociation(m.id, 'NA-4005', '2028-08-31');
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('record_changed');
-    const bare = await treasurer.post(`/api/admin/members/${m.id}/verifications`, { what: 'association', associationNumber: 'NA-4005', associationExpires: '2028-09-30' });
+    const bare = await treasurer.post(`/api/admin/members/${m.id}/verifications`, {
+      what: 'association',
+      associationNumber: 'NA-4005',
+      associationExpires: '2028-09-30',
+    });
     expect(bare.status).toBe(400);
     expect(bare.body.error.fields).toHaveProperty('against');
-    const none = await treasurer.post(`/api/admin/members/${m.id}/verifications`, { what: 'certification', against: 'nothing', certificationLevel: 'none' });
+    const none = await treasurer.post(`/api/admin/members/${m.id}/verifications`, {
+      what: 'certification',
+      against: 'nothing',
+      certificationLevel: 'none',
+    });
     expect(none.status).toBe(400);
     expect((await m.checkIn()).mayFly).toBe(false);
   });
@@ -119,16 +178,28 @@ describe('ASVS 4.1.2: flying status is verified by staff, not claimed', () => {
     await verifyAssociation(m.id, 'NA-4006', '2028-06-30');
     expect((await m.checkIn()).mayFly).toBe(true);
     clock.set('2028-07-02T17:00:00Z');
-    expect(await m.checkIn()).toEqual(expect.objectContaining({ mayFly: false, association: expect.objectContaining({ answer: 'expired' }) }));
+    expect(await m.checkIn()).toEqual(
+      expect.objectContaining({ mayFly: false, association: expect.objectContaining({ answer: 'expired' }) }),
+    );
 
     const d = await member('Lapsing', { associationNumber: 'NA-4007', associationExpires: '2030-06-30' });
     await verifyAssociation(d.id, 'NA-4007', '2030-06-30');
     clock.set('2029-03-01T17:00:00Z');
-    expect(await d.checkIn()).toEqual(expect.objectContaining({ status: 'lapsed', mayFly: false, dues: expect.objectContaining({ answer: 'not_current' }) }));
+    expect(await d.checkIn()).toEqual(
+      expect.objectContaining({
+        status: 'lapsed',
+        mayFly: false,
+        dues: expect.objectContaining({ answer: 'not_current' }),
+      }),
+    );
   });
 
   it('marks claims and checks apart in the roster and its CSV', async () => {
-    const m = await member('Rostered', { associationNumber: 'NA-4010', associationExpires: '2028-12-31', certificationLevel: 'L1' });
+    const m = await member('Rostered', {
+      associationNumber: 'NA-4010',
+      associationExpires: '2028-12-31',
+      certificationLevel: 'L1',
+    });
     await verifyAssociation(m.id, 'NA-4010', '2028-12-31');
     const q = encodeURIComponent(`Rostered ${tag}`);
     const [line] = (await treasurer.get(`/api/admin/members?q=${q}`)).body.items;
@@ -148,8 +219,22 @@ describe('ASVS 4.1.2: flying status is verified by staff, not claimed', () => {
 
   it('lets only the treasurer and admin verify', async () => {
     const m = await member('Guarded', { associationNumber: 'NA-4009', associationExpires: '2028-12-31' });
-    const res = await rso.post(`/api/admin/members/${m.id}/verifications`, { what: 'association', against: 'card', associationNumber: 'NA-4009', associationExpires: '2028-12-31' });
+    const res = await rso.post(`/api/admin/members/${m.id}/verifications`, {
+      what: 'association',
+      against: 'card',
+      associationNumber: 'NA-4009',
+      associationExpires: '2028-12-31',
+    });
     expect(res.status).toBe(403);
-    expect((await m.client.post(`/api/admin/members/${m.id}/verifications`, { what: 'association', against: 'card', associationNumber: 'NA-4009', associationExpires: '2028-12-31' })).status).toBe(403);
+    expect(
+      (
+        await m.client.post(`/api/admin/members/${m.id}/verifications`, {
+          what: 'association',
+          against: 'card',
+          associationNumber: 'NA-4009',
+          associationExpires: '2028-12-31',
+        })
+      ).status,
+    ).toBe(403);
   });
 });

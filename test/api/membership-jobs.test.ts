@@ -24,12 +24,23 @@ afterAll(async () => {
   await second.close();
 });
 
-async function member(opts: { autoRenew?: boolean; associationExpires?: string } = {}): Promise<{ client: Client; user: TestUser }> {
+async function member(
+  opts: { autoRenew?: boolean; associationExpires?: string } = {},
+): Promise<{ client: Client; user: TestUser }> {
   at('2024-06-03');
   const s = await signedIn(t.app, t.deps.db);
   const res = await s.client.post('/api/membership', {
     planId: adultPlan,
-    profile: { legalName: 'Lorcan Pettibone', dateOfBirth: '1985-02-01', address: '3 Slough Lane, Gopher Flats, MB', phone: '204-555-0190', emergencyContact: 'Ines Pettibone 204-555-0191', associationNumber: 'NA-7781', associationExpires: opts.associationExpires ?? '2026-05-01', certificationLevel: 'L2' },
+    profile: {
+      legalName: 'Lorcan Pettibone',
+      dateOfBirth: '1985-02-01',
+      address: '3 Slough Lane, Gopher Flats, MB',
+      phone: '204-555-0190',
+      emergencyContact: 'Ines Pettibone 204-555-0191',
+      associationNumber: 'NA-7781',
+      associationExpires: opts.associationExpires ?? '2026-05-01',
+      certificationLevel: 'L2',
+    },
     waiverVersion: '2026-1',
     paymentToken: 'tok_visa',
     autoRenew: opts.autoRenew ?? false,
@@ -39,8 +50,10 @@ async function member(opts: { autoRenew?: boolean; associationExpires?: string }
   return s;
 }
 
-const mails = (user: TestUser, template: string) => t.deps.db('outbound_emails').where({ to_address: user.email, template });
-const rolesOf = async (user: TestUser) => (await t.deps.db('users').where('id', user.id).first('roles')).roles as string[];
+const mails = (user: TestUser, template: string) =>
+  t.deps.db('outbound_emails').where({ to_address: user.email, template });
+const rolesOf = async (user: TestUser) =>
+  (await t.deps.db('users').where('id', user.id).first('roles')).roles as string[];
 const row = (user: TestUser) => t.deps.db('memberships').where('user_id', user.id).first();
 
 describe('the reminder job', () => {
@@ -66,7 +79,12 @@ describe('the reminder job', () => {
   it('still sends once when two workers in two app instances run it at the same moment', async () => {
     const { user } = await member();
     at('2024-12-02');
-    await Promise.all([job(t, 'membership-reminders').run(), job(second, 'membership-reminders').run(), job(t, 'membership-reminders').run(), job(second, 'membership-reminders').run()]);
+    await Promise.all([
+      job(t, 'membership-reminders').run(),
+      job(second, 'membership-reminders').run(),
+      job(t, 'membership-reminders').run(),
+      job(second, 'membership-reminders').run(),
+    ]);
     expect(await mails(user, 'membership-due-30')).toHaveLength(1);
   });
 
@@ -104,8 +122,12 @@ describe('the auto-renew job', () => {
     at('2024-12-31');
     await Promise.all([job(t, 'membership-auto-renew').run(), job(second, 'membership-auto-renew').run()]);
     const me = await client.get('/api/membership/me');
-    expect(me.body.membership).toEqual(expect.objectContaining({ termStart: '2025-01-01', termEnd: '2025-12-31', status: 'active' }));
-    expect(await t.deps.db('membership_payments').where({ membership_id: (await row(user)).id, status: 'paid' })).toHaveLength(2);
+    expect(me.body.membership).toEqual(
+      expect.objectContaining({ termStart: '2025-01-01', termEnd: '2025-12-31', status: 'active' }),
+    );
+    expect(
+      await t.deps.db('membership_payments').where({ membership_id: (await row(user)).id, status: 'paid' }),
+    ).toHaveLength(2);
     await t.deps.mail.deliverDue();
     const receipts = (await waitForEmails(user.email, /Dues receipt/, 2)).map((m) => m.subject);
     expect(receipts).toContain(`Dues receipt: member ${me.body.membership.memberNumber}, paid to Dec 31, 2025`);
@@ -113,7 +135,10 @@ describe('the auto-renew job', () => {
 
   it('retries after a decline and renews when the next try succeeds', async () => {
     const { user, client } = await member({ autoRenew: true });
-    expect((await client.post('/api/membership/auto-renew', { autoRenew: true, paymentToken: 'tok_chargeCustomerFail' })).status).toBe(200);
+    expect(
+      (await client.post('/api/membership/auto-renew', { autoRenew: true, paymentToken: 'tok_chargeCustomerFail' }))
+        .status,
+    ).toBe(200);
     at('2024-12-31');
     await job(t, 'membership-auto-renew').run();
     expect(await mails(user, 'membership-renewal-declined')).toHaveLength(1);
@@ -121,7 +146,9 @@ describe('the auto-renew job', () => {
     at('2025-01-02');
     await job(t, 'membership-auto-renew').run();
     expect((await row(user)).renewal_attempts).toBe(1);
-    expect((await client.post('/api/membership/auto-renew', { autoRenew: true, paymentToken: 'tok_visa' })).status).toBe(200);
+    expect(
+      (await client.post('/api/membership/auto-renew', { autoRenew: true, paymentToken: 'tok_visa' })).status,
+    ).toBe(200);
     at('2025-01-03');
     await job(t, 'membership-auto-renew').run();
     const me = await client.get('/api/membership/me');

@@ -16,9 +16,15 @@ describe('the membership demo seed', () => {
   it('loads once, with the demo member active at L1, terms that follow the club rules, and each paid term in the books', async () => {
     await seed(fresh.db);
     await seed(fresh.db);
-    const rows = await fresh.db('memberships as m').join('users as u', 'u.id', 'm.user_id').where('u.email', 'like', '%@padside.test').select('m.*', 'u.email', 'u.roles');
+    const rows = await fresh
+      .db('memberships as m')
+      .join('users as u', 'u.id', 'm.user_id')
+      .where('u.email', 'like', '%@padside.test')
+      .select('m.*', 'u.email', 'u.roles');
     const demo = rows.find((r) => r.email === 'member@padside.test');
-    expect(demo).toEqual(expect.objectContaining({ status: 'active', certification_level: 'L1', association_number: expect.any(String) }));
+    expect(demo).toEqual(
+      expect.objectContaining({ status: 'active', certification_level: 'L1', association_number: expect.any(String) }),
+    );
     expect(demo.roles).toContain('member');
     // Lapsing needs a term that ended within the 30-day grace; under the calendar rule that is only in January.
     expect(rows.map((r) => r.status)).toEqual(expect.arrayContaining(['pending', 'active', 'lapsed']));
@@ -29,14 +35,23 @@ describe('the membership demo seed', () => {
       if (r.term_end) expect(dateOnly(r.term_end)!.slice(5)).toBe('12-31');
       expect(r.roles.includes('member')).toBe(r.status === 'active' || r.status === 'lapsing');
     }
-    const paid = await fresh.db('membership_payments').whereIn('membership_id', rows.map((r) => r.id)).where('status', 'paid');
+    const paid = await fresh
+      .db('membership_payments')
+      .whereIn(
+        'membership_id',
+        rows.map((r) => r.id),
+      )
+      .where('status', 'paid');
     for (const p of paid) {
       const start = dateOnly(p.term_start)!;
       expect([`${start.slice(0, 4)}-01-01`, dateInZone(p.created_at, 'America/Winnipeg')]).toContain(start);
     }
     expect(paid.length).toBe(rows.filter((r) => r.term_end).length);
     expect(paid.filter((p) => p.method !== 'card').every((p) => p.receipt_number)).toBe(true);
-    const movements = await fresh.db('money_movements').whereIn('idempotency_key', paid.map((p) => `dues:${p.idempotency_key}`));
+    const movements = await fresh.db('money_movements').whereIn(
+      'idempotency_key',
+      paid.map((p) => `dues:${p.idempotency_key}`),
+    );
     expect(movements).toHaveLength(paid.length);
   });
 });

@@ -30,7 +30,11 @@ async function checkout(c: Client, opts: { email?: string; street?: string; toke
   });
 }
 
-function expectLimited(res: { status: number; headers: Record<string, string>; body: { error: { code: string; fields?: Record<string, string> } } }) {
+function expectLimited(res: {
+  status: number;
+  headers: Record<string, string>;
+  body: { error: { code: string; fields?: Record<string, string> } };
+}) {
   expect(res.status).toBe(429);
   expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
   expect(Number(res.headers['retry-after'])).toBeLessThanOrEqual(600);
@@ -50,7 +54,8 @@ describe('V11.1.4 declined payments are throttled against card testing (OWASP AS
 
   it('counts one e-mail across sessions and addresses', async () => {
     const email = uniqueEmail();
-    for (let i = 0; i < 5; i++) expect((await checkout(new Client(t.app), { email: email.toUpperCase() })).status).toBe(402);
+    for (let i = 0; i < 5; i++)
+      expect((await checkout(new Client(t.app), { email: email.toUpperCase() })).status).toBe(402);
     expectLimited(await checkout(new Client(t.app), { email }));
   });
 
@@ -84,11 +89,21 @@ describe('V11.1.4 declined payments are throttled against card testing (OWASP AS
     const plans = (await client.get('/api/membership/plans')).body.items as { code: string; id: number }[];
     const body = (paymentToken: string) => ({
       planId: plans.find((p) => p.code === 'adult')!.id,
-      profile: { legalName: 'Tamsin Throttle', dateOfBirth: '1988-02-03', address: '9 Coulee Road, Gopher Flats, MB', phone: '204-555-0177', emergencyContact: 'Ivo Throttle, 204-555-0178', associationNumber: 'NA-77120', associationExpires: '2027-12-31', certificationLevel: 'L1' },
+      profile: {
+        legalName: 'Tamsin Throttle',
+        dateOfBirth: '1988-02-03',
+        address: '9 Coulee Road, Gopher Flats, MB',
+        phone: '204-555-0177',
+        emergencyContact: 'Ivo Throttle, 204-555-0178',
+        associationNumber: 'NA-77120',
+        associationExpires: '2027-12-31',
+        certificationLevel: 'L1',
+      },
       waiverVersion: '2026-1',
       paymentToken,
     });
-    for (let i = 0; i < 5; i++) expect((await client.post('/api/membership', body('tok_chargeDeclined'))).status).toBe(402);
+    for (let i = 0; i < 5; i++)
+      expect((await client.post('/api/membership', body('tok_chargeDeclined'))).status).toBe(402);
     expectLimited(await client.post('/api/membership', body('tok_visa')));
   });
 });

@@ -48,16 +48,25 @@ afterAll(async () => {
 });
 afterEach(() => proxy.holdReplies(0));
 
-const fakeCharges = async (key: string, value: string) => (await fake.charges.list({ limit: 100 })).data.filter((c) => c.metadata[key] === value);
+const fakeCharges = async (key: string, value: string) =>
+  (await fake.charges.list({ limit: 100 })).data.filter((c) => c.metadata[key] === value);
 const later = (minutes: number) => clock.set(new Date(clock.now().getTime() + minutes * 60_000).toISOString());
 const orderRow = (id: number) => t.deps.db('shop_orders').where('id', id).first();
-const reservedOn = async (runId: number) => (await t.deps.db('shop_runs').where('id', runId).first()).reserved as number;
-const movements = async (reference: string) => Number((await t.deps.db('money_movements').where({ reference }).count('* as n').first())!.n);
+const reservedOn = async (runId: number) =>
+  (await t.deps.db('shop_runs').where('id', runId).first()).reserved as number;
+const movements = async (reference: string) =>
+  Number((await t.deps.db('money_movements').where({ reference }).count('* as n').first())!.n);
 
 async function placeOrder() {
   const shirt = await openShirt(staff, { cap: 3 });
   const c = new Client(t.app);
-  const res = await c.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 2 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'pickup'), email: 'lost-answer@example.test', paymentToken: 'tok_visa' });
+  const res = await c.post('/api/orders', {
+    items: [{ variantId: shirt.variants[0].id, quantity: 2 }],
+    shipTo: MB_ADDRESS,
+    shippingMethodId: await methodId(c, 'pickup'),
+    email: 'lost-answer@example.test',
+    paymentToken: 'tok_visa',
+  });
   return { c, res, shirt, orderId: res.body.order.id as number };
 }
 
@@ -116,7 +125,15 @@ describe('POST /api/orders when the processor charges but its answer is lost', (
       expect(row.charge_id).toBe(charges[0].id);
       expect(await reservedOn(shirt.run.id)).toBe(2);
       expect(await movements(res.body.order.number)).toBe(1);
-      expect(Number((await t.deps.db('outbound_emails').where({ dedupe_key: `shop-confirmation-${orderId}` }).count('* as n').first())!.n)).toBe(1);
+      expect(
+        Number(
+          (await t.deps
+            .db('outbound_emails')
+            .where({ dedupe_key: `shop-confirmation-${orderId}` })
+            .count('* as n')
+            .first())!.n,
+        ),
+      ).toBe(1);
 
       const again = await c.post(`/api/orders/${orderId}/pay`, { paymentToken: 'tok_visa' });
       expect(again.body.order.status).toBe('paid');
@@ -208,7 +225,12 @@ describe('POST /api/admin/orders/:id/refund when the processor refunds but its a
     later(11);
     await t.app.jobs.find((j) => j.name === 'reconcile-refunds')!.run();
     expect((await orderRow(orderId)).refunded_cents).toBe(500);
-    expect(Number((await t.deps.db('money_movements').where({ reference: order.number, kind: 'refund' }).count('* as n').first())!.n)).toBe(1);
+    expect(
+      Number(
+        (await t.deps.db('money_movements').where({ reference: order.number, kind: 'refund' }).count('* as n').first())!
+          .n,
+      ),
+    ).toBe(1);
     const settled = await refund({ amountCents: 500 }, 'lost-refund-answer-1');
     expect(settled.status).toBe(200);
     expect(settled.body.refund).toMatchObject({ state: 'succeeded', amountCents: 500 });

@@ -26,7 +26,10 @@ async function start(env: Record<string, string> = {}): Promise<ServerProcess> {
 }
 
 /** A product with a small run, opened now, created through the API of `url`. */
-async function dropProduct(url: string, cap: number): Promise<{ slug: string; variantIds: number[]; pickupId: number }> {
+async function dropProduct(
+  url: string,
+  cap: number,
+): Promise<{ slug: string; variantIds: number[]; pickupId: number }> {
   const staff = new BenchClient(url);
   await staff.post('/api/auth/login', { email: admin.email, password: admin.password });
   const now = Date.now();
@@ -36,20 +39,36 @@ async function dropProduct(url: string, cap: number): Promise<{ slug: string; va
     description: 'Drop test.',
     priceCents: 2500,
     weightGrams: 180,
-    variants: [{ label: 'M', sku: `SO-${unique}-M` }, { label: 'L', sku: `SO-${unique}-L` }],
+    variants: [
+      { label: 'M', sku: `SO-${unique}-M` },
+      { label: 'L', sku: `SO-${unique}-L` },
+    ],
     run: { cap, opensAt: new Date(now - 60_000).toISOString(), closesAt: new Date(now + 3600_000).toISOString() },
   });
   if (created.status !== 201) throw new Error(`product: ${created.status} ${JSON.stringify(created.body)}`);
-  const slug = (created.body as { slug?: string; product?: { slug: string } }).slug ?? (created.body as { product: { slug: string } }).product.slug;
+  const slug =
+    (created.body as { slug?: string; product?: { slug: string } }).slug ??
+    (created.body as { product: { slug: string } }).product.slug;
   const detail = (await staff.get(`/api/products/${slug}`)).body as { variants: { id: number }[] };
   const methods = (await staff.get('/api/shipping-methods')).body as { items: { id: number; code: string }[] };
-  return { slug, variantIds: detail.variants.map((v) => v.id), pickupId: methods.items.find((m) => m.code === 'pickup')!.id };
+  return {
+    slug,
+    variantIds: detail.variants.map((v) => v.id),
+    pickupId: methods.items.find((m) => m.code === 'pickup')!.id,
+  };
 }
 
 function buy(url: string, p: { variantIds: number[]; pickupId: number }, i: number) {
   return new BenchClient(url).post('/api/orders', {
     items: [{ variantId: p.variantIds[i % p.variantIds.length], quantity: 1 }],
-    shipTo: { name: `Buyer ${i}`, line1: '1 Pad Road', city: 'Gopher Flats', province: 'MB', postalCode: 'R0A 0A0', country: 'CA' },
+    shipTo: {
+      name: `Buyer ${i}`,
+      line1: '1 Pad Road',
+      city: 'Gopher Flats',
+      province: 'MB',
+      postalCode: 'R0A 0A0',
+      country: 'CA',
+    },
     shippingMethodId: p.pickupId,
     email: `scale-${Date.now()}-${i}@example.test`,
     paymentToken: 'tok_visa',
@@ -64,7 +83,9 @@ describe('two server processes on one database', () => {
     const paid = results.filter((r) => r.status === 201).length;
     expect(paid).toBe(12);
     expect(results.filter((r) => r.status === 409).length).toBe(28);
-    const after = (await new BenchClient(b.url).get(`/api/products/${product.slug}`)).body as { run: { remaining: number } };
+    const after = (await new BenchClient(b.url).get(`/api/products/${product.slug}`)).body as {
+      run: { remaining: number };
+    };
     expect(after.run.remaining).toBe(0);
 
     // A session made on one process is honoured by the other: the cookie store is PostgreSQL.
@@ -78,7 +99,9 @@ describe('a server process killed in the middle of checkouts', () => {
   it('leaves, after a restart and reconciliation, every charge with its paid order and every paid order with its charge', async () => {
     const a = await start();
     const product = await dropProduct(a.url, 60);
-    const inflight = Array.from({ length: 60 }, (_, i) => buy(a.url, product, i).catch(() => ({ status: 0, body: null })));
+    const inflight = Array.from({ length: 60 }, (_, i) =>
+      buy(a.url, product, i).catch(() => ({ status: 0, body: null })),
+    );
     // Kill the process as soon as the first checkout answers, so the others are cut off part-way.
     await Promise.race(inflight);
     await a.kill('SIGKILL');
@@ -90,7 +113,8 @@ describe('a server process killed in the middle of checkouts', () => {
     const later = buildTestApp({ clock: fixedClock(new Date(Date.now() + 30 * 60_000).toISOString()) });
     try {
       await later.app.jobs.find((j) => j.name === 'shop-reconcile-payments')!.run();
-      const orders = await later.deps.db('shop_orders as o')
+      const orders = await later.deps
+        .db('shop_orders as o')
         .join('shop_order_items as i', 'i.order_id', 'o.id')
         .select('o.id', 'o.status', 'o.charge_id')
         .whereIn('i.variant_id', product.variantIds);
@@ -98,10 +122,16 @@ describe('a server process killed in the middle of checkouts', () => {
       for (const o of orders.filter((x) => x.status === 'paid')) expect(o.charge_id).toBeTruthy();
       // Every succeeded charge the processor holds for these orders belongs to a paid order.
       const ids = new Set(orders.map((o) => String(o.id)));
-      const charges = (await later.deps.payments.stripe.charges.list({ limit: 100 })).data.filter((c) => ids.has(c.metadata?.orderId ?? '') && c.status === 'succeeded');
+      const charges = (await later.deps.payments.stripe.charges.list({ limit: 100 })).data.filter(
+        (c) => ids.has(c.metadata?.orderId ?? '') && c.status === 'succeeded',
+      );
       for (const c of charges) {
         const order = orders.find((o) => String(o.id) === c.metadata.orderId)!;
-        expect({ order: order.id, status: order.status, charge: order.charge_id }).toEqual({ order: order.id, status: 'paid', charge: c.id });
+        expect({ order: order.id, status: order.status, charge: order.charge_id }).toEqual({
+          order: order.id,
+          status: 'paid',
+          charge: c.id,
+        });
       }
       expect(charges.length).toBe(orders.filter((o) => o.status === 'paid').length);
     } finally {
@@ -113,26 +143,52 @@ describe('a server process killed in the middle of checkouts', () => {
 describe('two server processes on one database and one object store', () => {
   it('serve through one what an editor uploaded and published through the other: the image and the credits', async () => {
     // Each process with a data folder of its own, as on two machines: only the bucket is shared.
-    const machine = (name: string) => ({ STORAGE_URL: String(process.env.TEST_STORAGE_URL), DATA_DIR: path.join(String(process.env.TEST_TMP), `machine-${name}`) });
+    const machine = (name: string) => ({
+      STORAGE_URL: String(process.env.TEST_STORAGE_URL),
+      DATA_DIR: path.join(String(process.env.TEST_TMP), `machine-${name}`),
+    });
     const [a, b] = await Promise.all([start(machine('a')), start(machine('b'))]);
     const editorUser = await createUser(t.deps.db, ['fan', 'editor'], 'Scale Editor');
     const editor = request.agent(a.url);
     const csrf = async () => (await editor.get('/api/auth/csrf')).body.csrfToken as string;
     // The token first: the agent attaches its cookies when the request is created.
     const signInToken = await csrf();
-    expect((await editor.post('/api/auth/login').set('X-CSRF-Token', signInToken).send({ email: editorUser.email, password: editorUser.password })).status).toBe(200);
+    expect(
+      (
+        await editor
+          .post('/api/auth/login')
+          .set('X-CSRF-Token', signInToken)
+          .send({ email: editorUser.email, password: editorUser.password })
+      ).status,
+    ).toBe(200);
     const token = await csrf();
 
     const unique = `${Date.now()}-${Math.random().toString(36).slice(2, 6)}`;
-    const photo = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 200, g: Date.now() % 256, b: 40 } } }).jpeg().toBuffer();
-    const uploaded = await editor.post('/api/admin/uploads').set('X-CSRF-Token', token).attach('file', photo, { filename: 'nose-cone.jpg', contentType: 'image/jpeg' });
+    const photo = await sharp({
+      create: { width: 64, height: 48, channels: 3, background: { r: 200, g: Date.now() % 256, b: 40 } },
+    })
+      .jpeg()
+      .toBuffer();
+    const uploaded = await editor
+      .post('/api/admin/uploads')
+      .set('X-CSRF-Token', token)
+      .attach('file', photo, { filename: 'nose-cone.jpg', contentType: 'image/jpeg' });
     expect(uploaded.status).toBe(201);
-    const sponsor = await editor.post('/api/admin/sponsors').set('X-CSRF-Token', token).send({ name: `Filamoose Supply ${unique}` });
+    const sponsor = await editor
+      .post('/api/admin/sponsors')
+      .set('X-CSRF-Token', token)
+      .send({ name: `Filamoose Supply ${unique}` });
     expect(sponsor.status).toBe(201);
     const post = await editor
       .post('/api/admin/posts')
       .set('X-CSRF-Token', token)
-      .send({ title: `Printing the nose cone ${unique}`, markdown: `The cone, fresh off the printer:\n\n![Nose cone](${uploaded.body.url})`, coverUrl: uploaded.body.url, status: 'published', credits: [sponsor.body.id] });
+      .send({
+        title: `Printing the nose cone ${unique}`,
+        markdown: `The cone, fresh off the printer:\n\n![Nose cone](${uploaded.body.url})`,
+        coverUrl: uploaded.body.url,
+        status: 'published',
+        credits: [sponsor.body.id],
+      });
     expect(post.status).toBe(201);
 
     // A visitor who never touched process a.

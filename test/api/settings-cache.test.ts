@@ -29,13 +29,17 @@ describe('SettingsService.get', () => {
     expect(await b.app.platform.settings.get(OWN)).toEqual({ limit: 1 });
     // Other suites write other settings, each commit dropping the copies: a few tries to see one read served from it.
     let cached = false;
-    for (let i = 0; i < 10 && !cached; i++) cached = (await settingsReads(b.deps.db, () => b.app.platform.settings.get(OWN))) === 0;
+    for (let i = 0; i < 10 && !cached; i++)
+      cached = (await settingsReads(b.deps.db, () => b.app.platform.settings.get(OWN))) === 0;
     expect(cached).toBe(true);
 
     await a.app.platform.settings.put(OWN, { limit: 7 });
     expect(await b.app.platform.settings.get(OWN)).toEqual({ limit: 7 });
     // Written outside the app: the trigger reports it too.
-    await a.deps.db('settings').where('key', OWN.key).update({ value: JSON.stringify({ limit: 9 }) });
+    await a.deps
+      .db('settings')
+      .where('key', OWN.key)
+      .update({ value: JSON.stringify({ limit: 9 }) });
     expect(await b.app.platform.settings.get(OWN)).toEqual({ limit: 9 });
   });
 

@@ -33,16 +33,24 @@ async function cachedList(app: TestApp): Promise<request.Response> {
   for (let i = 0; i < 10; i++) {
     await request(app.app).get('/api/products');
     let res!: request.Response;
-    if ((await catalogueQueries(app.deps.db, async () => (res = await request(app.app).get('/api/products')))) === 0) return res;
+    if ((await catalogueQueries(app.deps.db, async () => (res = await request(app.app).get('/api/products')))) === 0)
+      return res;
   }
   throw new Error('every read of the list queried the database');
 }
 
-const remainingOf = (body: { items: { slug: string; run: { remaining: number } | null }[] }, slug: string) => body.items.find((i) => i.slug === slug)?.run?.remaining;
+const remainingOf = (body: { items: { slug: string; run: { remaining: number } | null }[] }, slug: string) =>
+  body.items.find((i) => i.slug === slug)?.run?.remaining;
 
 async function buy(app: TestApp, variantId: number, i: number) {
   const buyer = new Client(app.app);
-  return buyer.post('/api/orders', { items: [{ variantId, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(buyer, 'pickup'), email: `cache-${i}-${Date.now()}@example.test`, paymentToken: 'tok_visa' });
+  return buyer.post('/api/orders', {
+    items: [{ variantId, quantity: 1 }],
+    shipTo: MB_ADDRESS,
+    shippingMethodId: await methodId(buyer, 'pickup'),
+    email: `cache-${i}-${Date.now()}@example.test`,
+    paymentToken: 'tok_visa',
+  });
 }
 
 describe('GET /api/products', () => {
@@ -68,12 +76,17 @@ describe('GET /api/products', () => {
   describe('when staff change a product', () => {
     it('gives the list and the product page a new ETag and the new price, on this instance and on the other', async () => {
       const shirt = await openShirt(staff, { priceCents: 3000 });
-      const before = { list: await request(b.app).get('/api/products'), page: await request(b.app).get(`/api/products/${shirt.slug}`) };
+      const before = {
+        list: await request(b.app).get('/api/products'),
+        page: await request(b.app).get(`/api/products/${shirt.slug}`),
+      };
       expect(before.page.body.priceCents).toBe(3000);
       expect((await staff.patch(`/api/admin/products/${shirt.id}`, { priceCents: 3300 })).status).toBe(200);
       // No waiting: the read itself catches up with what was committed before it.
       for (const app of [a, b]) {
-        const page = await request(app.app).get(`/api/products/${shirt.slug}`).set('If-None-Match', before.page.headers.etag);
+        const page = await request(app.app)
+          .get(`/api/products/${shirt.slug}`)
+          .set('If-None-Match', before.page.headers.etag);
         expect(page.status).toBe(200);
         expect(page.body.priceCents).toBe(3300);
         const list = await request(app.app).get('/api/products').set('If-None-Match', before.list.headers.etag);
@@ -91,7 +104,9 @@ describe('GET /api/products', () => {
       expect((await buy(a, shirt.variants[0].id, 0)).status).toBe(201);
       let after!: request.Response;
       // b rebuilds because a notification reached it, not because it reads every time (counted above).
-      expect(await catalogueQueries(b.deps.db, async () => (after = await request(b.app).get('/api/products')))).toBe(1);
+      expect(await catalogueQueries(b.deps.db, async () => (after = await request(b.app).get('/api/products')))).toBe(
+        1,
+      );
       expect(after.headers.etag).not.toBe(before.headers.etag);
       expect(remainingOf(after.body, shirt.slug)).toBe(4);
     });
@@ -133,7 +148,8 @@ describe('GET /api/products', () => {
       expect(statuses.filter((s) => s !== 201 && s !== 409)).toEqual([]);
       expect(seen.length).toBeGreaterThan(0);
       expect(seen.filter((s) => s.shown > s.left)).toEqual([]);
-      for (const app of [a, b]) expect((await request(app.app).get(`/api/products/${shirt.slug}`)).body.run.remaining).toBe(0);
+      for (const app of [a, b])
+        expect((await request(app.app).get(`/api/products/${shirt.slug}`)).body.run.remaining).toBe(0);
     });
   });
 });
@@ -145,6 +161,8 @@ describe('GET /api/products/:slug', () => {
     const page = await request(a.app).get(`/api/products/${shirt.slug}`);
     expect(page.status).toBe(200);
     expect(page.body.descriptionHtml).toContain('<strong>test</strong>');
-    expect((await request(a.app).get(`/api/products/${shirt.slug}`).set('If-None-Match', page.headers.etag)).status).toBe(304);
+    expect(
+      (await request(a.app).get(`/api/products/${shirt.slug}`).set('If-None-Match', page.headers.etag)).status,
+    ).toBe(304);
   });
 });

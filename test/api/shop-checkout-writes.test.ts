@@ -14,8 +14,13 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 /** The session row behind a client, found by its CSRF token (each session has its own). */
-async function sessionRow(client: Client): Promise<{ sid: string; sess: Record<string, unknown>; expire: Date } | undefined> {
-  return t.deps.db('session').whereRaw("sess->>'csrfToken' = ?", [await client.token()]).first();
+async function sessionRow(
+  client: Client,
+): Promise<{ sid: string; sess: Record<string, unknown>; expire: Date } | undefined> {
+  return t.deps
+    .db('session')
+    .whereRaw("sess->>'csrfToken' = ?", [await client.token()])
+    .first();
 }
 
 describe('POST /api/orders as a guest', () => {
@@ -26,7 +31,13 @@ describe('POST /api/orders as a guest', () => {
     await guest.token();
     let placed!: request.Response;
     const sql = await recordedQueries(t.deps.db, async () => {
-      placed = await guest.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: pickup, email: `writes-${Date.now()}@example.test`, paymentToken: 'tok_visa' });
+      placed = await guest.post('/api/orders', {
+        items: [{ variantId: shirt.variants[0].id, quantity: 1 }],
+        shipTo: MB_ADDRESS,
+        shippingMethodId: pickup,
+        email: `writes-${Date.now()}@example.test`,
+        paymentToken: 'tok_visa',
+      });
     });
     expect(placed.status).toBe(201);
     expect(placed.body.order.status).toBe('paid');
@@ -65,7 +76,10 @@ describe('a session that did not change', () => {
     const before = (await sessionRow(guest))!;
     // As if it had been written 61 minutes ago.
     const earlier = new Date(before.expire.getTime() - 61 * 60_000);
-    await t.deps.db('session').where('sid', before.sid).update({ expire: earlier, sess: JSON.stringify({ ...before.sess, storedAt: Date.now() - 61 * 60_000 }) });
+    await t.deps
+      .db('session')
+      .where('sid', before.sid)
+      .update({ expire: earlier, sess: JSON.stringify({ ...before.sess, storedAt: Date.now() - 61 * 60_000 }) });
     expect((await guest.get('/api/auth/me')).status).toBe(200);
     const after = (await sessionRow(guest))!;
     expect(after.expire.getTime()).toBeGreaterThanOrEqual(before.expire.getTime());

@@ -15,7 +15,13 @@ afterAll(() => t.close());
 let n = 0;
 async function order(variantId: number, quantity = 1, email = `buyer-${Date.now()}-${n++}@example.test`) {
   const c = new Client(t.app);
-  const res = await c.post('/api/orders', { items: [{ variantId, quantity }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada'), email, paymentToken: 'tok_visa' });
+  const res = await c.post('/api/orders', {
+    items: [{ variantId, quantity }],
+    shipTo: MB_ADDRESS,
+    shippingMethodId: await methodId(c, 'canada'),
+    email,
+    paymentToken: 'tok_visa',
+  });
   if (res.status !== 201) throw new Error(JSON.stringify(res.body));
   return res.body.order as { id: number; number: string; totalCents: number; email: string };
 }
@@ -29,15 +35,29 @@ describe('POST /api/admin/orders/:id/ship', () => {
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['carrier', 'trackingNumber']);
     expect((await staff.post(`/api/admin/orders/${o.id}/pack`)).body.order.status).toBe('packed');
     // A pre-order waits for its run: no shipping before the run is printed.
-    const early = await staff.post(`/api/admin/orders/${o.id}/ship`, { carrier: 'Canada Post', trackingNumber: '7023 1234 5678' });
+    const early = await staff.post(`/api/admin/orders/${o.id}/ship`, {
+      carrier: 'Canada Post',
+      trackingNumber: '7023 1234 5678',
+    });
     expect(early.status).toBe(409);
     expect(early.body.error.code).toBe('run_not_printed');
     expect((await staff.get(`/api/admin/orders/${o.id}`)).body.order.awaitingPrint).toHaveLength(1);
-    for (const state of ['closed', 'in_production', 'shipped']) expect((await staff.post(`/api/admin/runs/${shirt.run.id}/state`, { state })).status).toBe(200);
+    for (const state of ['closed', 'in_production', 'shipped'])
+      expect((await staff.post(`/api/admin/runs/${shirt.run.id}/state`, { state })).status).toBe(200);
     expect((await staff.get(`/api/admin/orders/${o.id}`)).body.order.awaitingPrint).toEqual([]);
-    const res = await staff.post(`/api/admin/orders/${o.id}/ship`, { carrier: 'Canada Post', trackingNumber: '7023 1234 5678' });
-    expect(res.body.order).toMatchObject({ status: 'shipped', carrier: 'Canada Post', trackingNumber: '7023 1234 5678' });
-    expect((await staff.post(`/api/admin/orders/${o.id}/ship`, { carrier: 'Canada Post', trackingNumber: '7023 1234 5678' })).status).toBe(409);
+    const res = await staff.post(`/api/admin/orders/${o.id}/ship`, {
+      carrier: 'Canada Post',
+      trackingNumber: '7023 1234 5678',
+    });
+    expect(res.body.order).toMatchObject({
+      status: 'shipped',
+      carrier: 'Canada Post',
+      trackingNumber: '7023 1234 5678',
+    });
+    expect(
+      (await staff.post(`/api/admin/orders/${o.id}/ship`, { carrier: 'Canada Post', trackingNumber: '7023 1234 5678' }))
+        .status,
+    ).toBe(409);
     await t.deps.mail.deliverDue();
     const mails = await waitForEmails(o.email, /on its way/);
     expect(mails[0].text).toContain('7023 1234 5678');
@@ -57,13 +77,23 @@ describe('POST /api/admin/orders/:id/refund', () => {
     expect(tooMuch.body.error.code).toBe('over_refund');
     expect(tooMuch.body.error.fields).toHaveProperty('amountCents');
     expect((await t.deps.db('shop_runs').where('id', shirt.run.id).first()).reserved).toBe(2);
-    const rest = await staff.post(`/api/admin/orders/${o.id}/refund`, { amountCents: o.totalCents - 1000, restock: true });
+    const rest = await staff.post(`/api/admin/orders/${o.id}/refund`, {
+      amountCents: o.totalCents - 1000,
+      restock: true,
+    });
     expect(rest.body.order.refundedCents).toBe(o.totalCents);
     expect((await t.deps.db('shop_runs').where('id', shirt.run.id).first()).reserved).toBe(0);
     const moves = await t.deps.db('money_movements').where({ reference: o.number, kind: 'refund' }).orderBy('id');
     expect(moves.map((m) => Number(m.gross_cents))).toEqual([-1000, -(o.totalCents - 1000)]);
     // The refunded tax adds up to the tax charged once the whole order is refunded.
-    const refundedTax = await t.deps.db('money_movement_taxes').whereIn('movement_id', moves.map((m) => m.id)).sum('tax_cents as s').first();
+    const refundedTax = await t.deps
+      .db('money_movement_taxes')
+      .whereIn(
+        'movement_id',
+        moves.map((m) => m.id),
+      )
+      .sum('tax_cents as s')
+      .first();
     const charged = await t.deps.db('shop_orders').where('id', o.id).first();
     expect(-Number(refundedTax!.s)).toBe(charged.tax_cents);
     const charge = await t.deps.payments.stripe.charges.retrieve(charged.charge_id);
@@ -102,14 +132,20 @@ describe('GET /api/admin/orders', () => {
     expect(page.body.items.map((o: { id: number }) => o.id)).toEqual([a.id]);
     const second = await staff.get(`/api/admin/orders?runId=${shirt.run.id}&sort=total&dir=asc&pageSize=1&page=2`);
     expect(second.body.items.map((o: { id: number }) => o.id)).toEqual([b.id]);
-    expect((await staff.get(`/api/admin/orders?q=${encodeURIComponent(a.number)}`)).body.items.map((o: { id: number }) => o.id)).toEqual([a.id]);
+    expect(
+      (await staff.get(`/api/admin/orders?q=${encodeURIComponent(a.number)}`)).body.items.map(
+        (o: { id: number }) => o.id,
+      ),
+    ).toEqual([a.id]);
     expect((await staff.get(`/api/admin/orders?runId=${shirt.run.id}&status=shipped`)).body.total).toBe(0);
     expect((await staff.get('/api/admin/orders?sort=nonsense')).status).toBe(400);
     const csv = await staff.get(`/api/admin/orders/export?runId=${shirt.run.id}`);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
     // OWASP "CSV Injection": a cell beginning with = is prefixed with a quote.
     expect(csv.text).toContain(`"'=HYPERLINK(""x"")"`);
-    expect(csv.text.split('\r\n')[0]).toBe('\uFEFFOrder number,Placed at (America/Winnipeg),Status,E-mail,Ship to,Country,Shipping method,Units,Subtotal (CAD),Discount (CAD),Shipping (CAD),Tax (CAD),Total (CAD),Refunded (CAD),Carrier,Tracking number');
+    expect(csv.text.split('\r\n')[0]).toBe(
+      '\uFEFFOrder number,Placed at (America/Winnipeg),Status,E-mail,Ship to,Country,Shipping method,Units,Subtotal (CAD),Discount (CAD),Shipping (CAD),Tax (CAD),Total (CAD),Refunded (CAD),Carrier,Tracking number',
+    );
   });
 });
 
@@ -121,15 +157,31 @@ describe('GET /api/admin/runs/:id/print-sheet', () => {
     const sheet = await staff.get(`/api/admin/runs/${shirt.run.id}/print-sheet`);
     expect(sheet.body.kind).toBe('preview');
     // Defaults: spares 5% up, packs of 6, 12 a design (common practice, no source). M: 15 + 1 = 16 -> 18; L: 1 + 1 = 2 -> 6.
-    expect(sheet.body.lines.map((l: { paid: number; spares: number; toPrint: number }) => [l.paid, l.spares, l.toPrint])).toEqual([[15, 1, 18], [1, 1, 6]]);
-    expect(sheet.body).toMatchObject({ totalPaid: 16, totalToPrint: 24, unitCostCents: 900, estimatedCostCents: 21600 });
+    expect(
+      sheet.body.lines.map((l: { paid: number; spares: number; toPrint: number }) => [l.paid, l.spares, l.toPrint]),
+    ).toEqual([
+      [15, 1, 18],
+      [1, 1, 6],
+    ]);
+    expect(sheet.body).toMatchObject({
+      totalPaid: 16,
+      totalToPrint: 24,
+      unitCostCents: 900,
+      estimatedCostCents: 21600,
+    });
     expect((await staff.post(`/api/admin/runs/${shirt.run.id}/state`, { state: 'shipped' })).status).toBe(409);
-    expect((await staff.post(`/api/admin/runs/${shirt.run.id}/state`, { state: 'closed' })).body.run.state).toBe('closed');
+    expect((await staff.post(`/api/admin/runs/${shirt.run.id}/state`, { state: 'closed' })).body.run.state).toBe(
+      'closed',
+    );
     expect((await staff.get(`/api/admin/runs/${shirt.run.id}/print-sheet`)).body.kind).toBe('final');
     const csv = await staff.get(`/api/admin/runs/${shirt.run.id}/print-sheet.csv`);
     expect(csv.text).toContain(',Total,16,,24');
     const c = new Client(t.app);
-    const closed = await c.post('/api/checkout/quote', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada') });
+    const closed = await c.post('/api/checkout/quote', {
+      items: [{ variantId: shirt.variants[0].id, quantity: 1 }],
+      shipTo: MB_ADDRESS,
+      shippingMethodId: await methodId(c, 'canada'),
+    });
     expect(closed.status).toBe(409);
     expect(closed.body.error.fields['items.0.quantity']).toMatch(/closed/);
   });
@@ -141,7 +193,15 @@ describe('POST /api/admin/runs', () => {
   it('adds a product’s next run once the last one is over; buyers then order from the new run', async () => {
     const shirt = await openShirt(staff, { cap: 20 });
     await order(shirt.variants[0].id, 2);
-    const next = { productId: shirt.id, name: 'Season two', cap: 3, opensAt: inDays(-0.01), closesAt: inDays(5), unitCostCents: 850, variantCaps: [{ variantId: shirt.variants[0].id, cap: 1 }] };
+    const next = {
+      productId: shirt.id,
+      name: 'Season two',
+      cap: 3,
+      opensAt: inDays(-0.01),
+      closesAt: inDays(5),
+      unitCostCents: 850,
+      variantCaps: [{ variantId: shirt.variants[0].id, cap: 1 }],
+    };
 
     const early = await staff.post('/api/admin/runs', next);
     expect(early.status).toBe(409);
@@ -155,7 +215,10 @@ describe('POST /api/admin/runs', () => {
     expect(beforeLast.status).toBe(400);
     expect(beforeLast.body.error.fields.opensAt).toMatch(/after the last run opened/);
     const sticker = await stockSticker(staff, 5);
-    const foreign = await staff.post('/api/admin/runs', { ...next, variantCaps: [{ variantId: sticker.variants[0].id, cap: 1 }] });
+    const foreign = await staff.post('/api/admin/runs', {
+      ...next,
+      variantCaps: [{ variantId: sticker.variants[0].id, cap: 1 }],
+    });
     expect(foreign.status).toBe(400);
     expect(foreign.body.error.fields.variantCaps).toMatch(/not one of/);
     const fromStock = await staff.post('/api/admin/runs', { ...next, productId: sticker.id, variantCaps: [] });
@@ -177,7 +240,13 @@ describe('POST /api/admin/runs', () => {
 
     await order(shirt.variants[0].id, 1);
     const c = new Client(t.app);
-    const over = await c.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada'), email: 'late@example.test', paymentToken: 'tok_visa' });
+    const over = await c.post('/api/orders', {
+      items: [{ variantId: shirt.variants[0].id, quantity: 1 }],
+      shipTo: MB_ADDRESS,
+      shippingMethodId: await methodId(c, 'canada'),
+      email: 'late@example.test',
+      paymentToken: 'tok_visa',
+    });
     expect(over.status).toBe(409);
     expect(over.body.error.code).toBe('sold_out');
     const newSheet = (await staff.get(`/api/admin/runs/${made.body.run.id}/print-sheet`)).body;
@@ -191,7 +260,11 @@ describe('POST /api/admin/runs', () => {
     const body = { productId: shirt.id, cap: 10, opensAt: inDays(1), closesAt: inDays(9) };
     const answers = await Promise.all([staff.post('/api/admin/runs', body), staff.post('/api/admin/runs', body)]);
     expect(answers.map((a) => a.status).sort()).toEqual([201, 409]);
-    expect((await staff.get('/api/admin/runs')).body.items.filter((r: { productSlug: string }) => r.productSlug === shirt.slug)).toHaveLength(2);
+    expect(
+      (await staff.get('/api/admin/runs')).body.items.filter(
+        (r: { productSlug: string }) => r.productSlug === shirt.slug,
+      ),
+    ).toHaveLength(2);
   });
 });
 
@@ -211,13 +284,25 @@ describe('e-mail when SMTP is down', () => {
       const shirt = await openShirt(staff);
       const email = `smtp-${Date.now()}@example.test`;
       const c = new Client(down.app);
-      const res = await c.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada'), email, paymentToken: 'tok_visa' });
+      const res = await c.post('/api/orders', {
+        items: [{ variantId: shirt.variants[0].id, quantity: 1 }],
+        shipTo: MB_ADDRESS,
+        shippingMethodId: await methodId(c, 'canada'),
+        email,
+        paymentToken: 'tok_visa',
+      });
       expect(res.status).toBe(201);
       expect(await down.deps.mail.deliverDue()).toBe(0);
-      const row = await t.deps.db('outbound_emails').where('dedupe_key', `shop-confirmation-${res.body.order.id}`).first();
+      const row = await t.deps
+        .db('outbound_emails')
+        .where('dedupe_key', `shop-confirmation-${res.body.order.id}`)
+        .first();
       expect(row.status).toBe('queued');
       expect(await emailsTo(email)).toHaveLength(0);
-      await t.deps.db('outbound_emails').where('id', row.id).update({ next_attempt_at: new Date(0) });
+      await t.deps
+        .db('outbound_emails')
+        .where('id', row.id)
+        .update({ next_attempt_at: new Date(0) });
       await t.deps.mail.deliverDue();
       await t.deps.mail.deliverDue();
       await waitForEmails(email, /thank you/);

@@ -27,7 +27,13 @@ const buy = async (quantity: number) => {
   const shirt = await openShirt(staff, { cap: 30, priceCents: 3500 });
   const c = new Client(t.app);
   const email = `receipt-${Date.now()}-${quantity}@example.test`;
-  const res = await c.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(c, 'canada'), email, paymentToken: 'tok_visa' });
+  const res = await c.post('/api/orders', {
+    items: [{ variantId: shirt.variants[0].id, quantity }],
+    shipTo: MB_ADDRESS,
+    shippingMethodId: await methodId(c, 'canada'),
+    email,
+    paymentToken: 'tok_visa',
+  });
   expect(res.status).toBe(201);
   await t.deps.mail.deliverDue();
   const [mail] = await waitForEmails(email, /Thrust & Filament order PS-/);
@@ -49,7 +55,10 @@ describe('the receipt on GET /api/orders/:id and in the confirmation e-mail', ()
       buyerName: null,
       paymentTerms: null,
     });
-    expect(shown.taxes.map((x: { label: string; amountCents: number }) => [x.label, x.amountCents])).toEqual([['GST 5%', 220], ['RST 7%', 308]]);
+    expect(shown.taxes.map((x: { label: string; amountCents: number }) => [x.label, x.amountCents])).toEqual([
+      ['GST 5%', 220],
+      ['RST 7%', 308],
+    ]);
     expect(mail.text).toContain(`Seller: ${DEMO.sellerName}`);
     expect(mail.text).toContain('GST/HST registration number: 000000000 RT0001');
     expect(mail.text).toContain('RST number (MB): 000000-0');
@@ -63,7 +72,9 @@ describe('the receipt on GET /api/orders/:id and in the confirmation e-mail', ()
     expect(order.totalCents).toBe(61264);
     const shown = (await c.get(`/api/orders/${order.id}`)).body.order.receipt;
     expect(shown).toMatchObject({ buyerName: 'Priya Test', paymentTerms: 'Paid in full by card', totalCents: 61264 });
-    expect(shown.items).toEqual([{ description: expect.stringMatching(/^Test shirt .* \(M\), SKU T-/), quantity: 15, lineCents: 52500 }]);
+    expect(shown.items).toEqual([
+      { description: expect.stringMatching(/^Test shirt .* \(M\), SKU T-/), quantity: 15, lineCents: 52500 },
+    ]);
     expect(mail.text).toContain('Sold to: Priya Test');
     expect(mail.text).toContain('Terms: Paid in full by card');
   });

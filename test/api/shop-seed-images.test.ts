@@ -18,8 +18,16 @@ afterAll(() => t.close());
 describe('the demo shop photos', () => {
   it('gives every demo product photos of our own with alt text and sizes, served as WebP at 1200 and 480 px', async () => {
     const api = new Client(t.app);
-    const items = (await api.get('/api/products')).body.items as { slug: string; images: { url: string; thumbnailUrl: string; alt: string; width: number; height: number }[] }[];
-    const counts = Object.fromEntries(['season-3-shirt', 'season-2-shirt', 'nose-cone-pin', 'sticker-sheet'].map((slug) => [slug, items.find((p) => p.slug === slug)?.images.length]));
+    const items = (await api.get('/api/products')).body.items as {
+      slug: string;
+      images: { url: string; thumbnailUrl: string; alt: string; width: number; height: number }[];
+    }[];
+    const counts = Object.fromEntries(
+      ['season-3-shirt', 'season-2-shirt', 'nose-cone-pin', 'sticker-sheet'].map((slug) => [
+        slug,
+        items.find((p) => p.slug === slug)?.images.length,
+      ]),
+    );
     expect(counts).toEqual({ 'season-3-shirt': 2, 'season-2-shirt': 1, 'nose-cone-pin': 2, 'sticker-sheet': 1 });
     const shirt = items.find((p) => p.slug === 'season-3-shirt')!;
     for (const img of shirt.images) {

@@ -15,11 +15,23 @@ afterAll(() => t.close());
 
 describe('the demo shop data', () => {
   it('has the open Season 3 run in seven sizes, an earlier shipped run, and stock items', async () => {
-    const items = (await new Client(t.app).get('/api/products')).body.items as { slug: string; run: { state: string; cap: number } | null; variants: { sku: string }[] }[];
+    const items = (await new Client(t.app).get('/api/products')).body.items as {
+      slug: string;
+      run: { state: string; cap: number } | null;
+      variants: { sku: string }[];
+    }[];
     const s3 = items.filter((p) => p.slug === 'season-3-shirt');
     expect(s3).toHaveLength(1);
     expect(s3[0].run).toMatchObject({ state: 'open', cap: 150 });
-    expect(s3[0].variants.map((v) => v.sku)).toEqual(['TF-S3-XS', 'TF-S3-S', 'TF-S3-M', 'TF-S3-L', 'TF-S3-XL', 'TF-S3-2XL', 'TF-S3-3XL']);
+    expect(s3[0].variants.map((v) => v.sku)).toEqual([
+      'TF-S3-XS',
+      'TF-S3-S',
+      'TF-S3-M',
+      'TF-S3-L',
+      'TF-S3-XL',
+      'TF-S3-2XL',
+      'TF-S3-3XL',
+    ]);
     expect(items.find((p) => p.slug === 'season-2-shirt')?.run?.state).toBe('shipped');
     expect(items.find((p) => p.slug === 'sticker-sheet')?.run).toBeNull();
   });

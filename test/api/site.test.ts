@@ -7,7 +7,9 @@ import { MB_ADDRESS, methodId, stockSticker } from './shop-fixtures';
 // Invented names, unlike the demo's, to show they come from the environment and not from the code.
 let t: TestApp;
 beforeAll(() => {
-  t = buildTestApp({ env: { TEAM_NAME: 'Nozzle & Nylon', CLUB_NAME: 'Skywhomp Rocketry Club', CLUB_TIME_ZONE: 'America/Regina' } });
+  t = buildTestApp({
+    env: { TEAM_NAME: 'Nozzle & Nylon', CLUB_NAME: 'Skywhomp Rocketry Club', CLUB_TIME_ZONE: 'America/Regina' },
+  });
 });
 afterAll(() => t.close());
 
@@ -15,7 +17,11 @@ describe('GET /api/site', () => {
   it('gives the team and club names and the club time zone the deployment set', async () => {
     const res = await request(t.app).get('/api/site');
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ teamName: 'Nozzle & Nylon', clubName: 'Skywhomp Rocketry Club', timeZone: 'America/Regina' });
+    expect(res.body).toEqual({
+      teamName: 'Nozzle & Nylon',
+      clubName: 'Skywhomp Rocketry Club',
+      timeZone: 'America/Regina',
+    });
   });
 });
 
@@ -34,12 +40,28 @@ describe('the shop e-mails', () => {
     const sticker = await stockSticker(staff, 5);
     const buyer = new Client(t.app);
     const email = `names-${Date.now()}@example.test`;
-    const res = await buyer.post('/api/orders', { items: [{ variantId: sticker.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(buyer, 'canada'), email, paymentToken: 'tok_visa' });
+    const res = await buyer.post('/api/orders', {
+      items: [{ variantId: sticker.variants[0].id, quantity: 1 }],
+      shipTo: MB_ADDRESS,
+      shippingMethodId: await methodId(buyer, 'canada'),
+      email,
+      paymentToken: 'tok_visa',
+    });
     expect(res.status).toBe(201);
-    expect((await staff.post(`/api/admin/orders/${res.body.order.id}/ship`, { carrier: 'Gopherline Courier', trackingNumber: 'GL 0001' })).status).toBe(200);
+    expect(
+      (
+        await staff.post(`/api/admin/orders/${res.body.order.id}/ship`, {
+          carrier: 'Gopherline Courier',
+          trackingNumber: 'GL 0001',
+        })
+      ).status,
+    ).toBe(200);
     await t.deps.mail.deliverDue();
     const mails = await waitForEmails(email, /order PS-/, 2);
-    expect(mails.map((m) => m.subject).sort()).toEqual([`Nozzle & Nylon order ${res.body.order.number} is on its way`, `Nozzle & Nylon order ${res.body.order.number}: thank you`]);
+    expect(mails.map((m) => m.subject).sort()).toEqual([
+      `Nozzle & Nylon order ${res.body.order.number} is on its way`,
+      `Nozzle & Nylon order ${res.body.order.number}: thank you`,
+    ]);
     // Signed with the team's name; the seller line of the receipt is a shop setting that other suites set.
     for (const m of mails) {
       // The sign-off ends the message itself, above the "why you got this" footer.

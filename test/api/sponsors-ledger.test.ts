@@ -16,7 +16,11 @@ beforeEach(() => clock.set('2026-11-20T18:00:00Z'));
 
 /** A sponsor with one 2026 agreement promising `credits` build-log credits due on `dueOn`, and a contact. */
 async function sponsorWithAgreement(name: string, credits: number, dueOn: string, cashCents = 20_000) {
-  const created = await admin.post('/api/admin/sponsors', { name, website: 'https://example.test', blurb: 'Invented for a test.' });
+  const created = await admin.post('/api/admin/sponsors', {
+    name,
+    website: 'https://example.test',
+    blurb: 'Invented for a test.',
+  });
   expect(created.status).toBe(201);
   const id = created.body.id as number;
   const agreement = await admin.post(`/api/admin/sponsors/${id}/agreements`, {
@@ -34,10 +38,23 @@ async function sponsorWithAgreement(name: string, credits: number, dueOn: string
   return { id, slug: created.body.slug as string, agreementId: agreement.body.id as number, contact };
 }
 
-const post = (title: string, credits: number[], status = 'published') => ({ title, markdown: `About ${title}.`, status, credits });
+const post = (title: string, credits: number[], status = 'published') => ({
+  title,
+  markdown: `About ${title}.`,
+  status,
+  credits,
+});
 
-const ledgerOf = async (id: number) => (await admin.get(`/api/admin/sponsors/${id}/ledger`)).body.agreements[0].deliverables as { kind: string; promised: number; delivered: number; dueOn: string; overdue: boolean }[];
-const outbox = (to: string) => t.deps.db('outbound_emails').where({ to_address: to, template: 'sponsor-credit-published' });
+const ledgerOf = async (id: number) =>
+  (await admin.get(`/api/admin/sponsors/${id}/ledger`)).body.agreements[0].deliverables as {
+    kind: string;
+    promised: number;
+    delivered: number;
+    dueOn: string;
+    overdue: boolean;
+  }[];
+const outbox = (to: string) =>
+  t.deps.db('outbound_emails').where({ to_address: to, template: 'sponsor-credit-published' });
 
 describe('publishing a crediting post', () => {
   describe('when the post is published, unpublished and published again', () => {
@@ -49,11 +66,15 @@ describe('publishing a crediting post', () => {
       expect(line).toMatchObject({ promised: 2, delivered: 1, overdue: false });
       expect(await outbox(s.contact.email)).toHaveLength(1);
 
-      expect((await editor.put(`/api/admin/posts/${created.body.id}`, post('A crediting build', [s.id], 'draft'))).status).toBe(200);
+      expect(
+        (await editor.put(`/api/admin/posts/${created.body.id}`, post('A crediting build', [s.id], 'draft'))).status,
+      ).toBe(200);
       line = (await ledgerOf(s.id)).find((d) => d.kind === 'build_log_credit')!;
       expect(line.delivered).toBe(0);
 
-      expect((await editor.put(`/api/admin/posts/${created.body.id}`, post('A crediting build', [s.id]))).status).toBe(200);
+      expect((await editor.put(`/api/admin/posts/${created.body.id}`, post('A crediting build', [s.id]))).status).toBe(
+        200,
+      );
       line = (await ledgerOf(s.id)).find((d) => d.kind === 'build_log_credit')!;
       expect(line.delivered).toBe(1);
       expect(await outbox(s.contact.email)).toHaveLength(1);
@@ -75,15 +96,25 @@ describe('publishing a crediting post', () => {
   describe('when the body carries a credit marker', () => {
     it('credits the named sponsor without the editor panel', async () => {
       const s = await sponsorWithAgreement('Marker Motors Hobby', 1, '2026-12-31');
-      const res = await editor.post('/api/admin/posts', { title: 'Marker post', markdown: `Thanks!\n\n%thanks ${s.slug} | for the parts\n`, status: 'published' });
+      const res = await editor.post('/api/admin/posts', {
+        title: 'Marker post',
+        markdown: `Thanks!\n\n%thanks ${s.slug} | for the parts\n`,
+        status: 'published',
+      });
       expect(res.status).toBe(201);
       expect((await ledgerOf(s.id)).find((d) => d.kind === 'build_log_credit')!.delivered).toBe(1);
       const page = await t.deps.db('posts').where('id', res.body.id).first();
-      expect((await new Client(t.app).get(`/api/posts/${page.slug}`)).body.credits).toEqual([{ sponsorId: s.id, name: 'Marker Motors Hobby', slug: s.slug }]);
+      expect((await new Client(t.app).get(`/api/posts/${page.slug}`)).body.credits).toEqual([
+        { sponsorId: s.id, name: 'Marker Motors Hobby', slug: s.slug },
+      ]);
     });
 
     it('answers 400 on the markdown field when the marker names no sponsor', async () => {
-      const res = await editor.post('/api/admin/posts', { title: 'Bad marker', markdown: '%thanks nobody-at-all\n', status: 'draft' });
+      const res = await editor.post('/api/admin/posts', {
+        title: 'Bad marker',
+        markdown: '%thanks nobody-at-all\n',
+        status: 'draft',
+      });
       expect(res.status).toBe(400);
       expect(res.body.error.fields.markdown).toMatch(/nobody-at-all/);
     });
@@ -92,23 +123,44 @@ describe('publishing a crediting post', () => {
   describe('when the credit marker names a deliverable', () => {
     /** A sponsor whose 2026 agreement promises two build-log credits lines (due in December and in March) and a video mention. */
     async function sponsorWithTwoPromises(name: string) {
-      const created = await admin.post('/api/admin/sponsors', { name, website: 'https://example.test', blurb: 'Invented for a test.' });
+      const created = await admin.post('/api/admin/sponsors', {
+        name,
+        website: 'https://example.test',
+        blurb: 'Invented for a test.',
+      });
       const id = created.body.id as number;
       const deliverables = [
         { kind: 'build_log_credit', quantity: 1, dueOn: '2026-12-31' },
         { kind: 'build_log_credit', quantity: 2, dueOn: '2027-03-31' },
         { kind: 'video_mention', quantity: 1, dueOn: '2026-12-15' },
       ];
-      expect((await admin.post(`/api/admin/sponsors/${id}/agreements`, { season: '2026', deliverables })).status).toBe(201);
-      const lines = (await admin.get(`/api/admin/sponsors/${id}/ledger`)).body.agreements[0].deliverables as { id: number; kind: string; dueOn: string }[];
+      expect((await admin.post(`/api/admin/sponsors/${id}/agreements`, { season: '2026', deliverables })).status).toBe(
+        201,
+      );
+      const lines = (await admin.get(`/api/admin/sponsors/${id}/ledger`)).body.agreements[0].deliverables as {
+        id: number;
+        kind: string;
+        dueOn: string;
+      }[];
       const byDue = (dueOn: string) => lines.find((l) => l.dueOn === dueOn)!.id;
-      return { id, slug: created.body.slug as string, earliest: byDue('2026-12-31'), later: byDue('2027-03-31'), video: byDue('2026-12-15') };
+      return {
+        id,
+        slug: created.body.slug as string,
+        earliest: byDue('2026-12-31'),
+        later: byDue('2027-03-31'),
+        video: byDue('2026-12-15'),
+      };
     }
-    const delivered = async (sponsorId: number) => Object.fromEntries((await ledgerOf(sponsorId)).map((d) => [d.dueOn, d.delivered]));
+    const delivered = async (sponsorId: number) =>
+      Object.fromEntries((await ledgerOf(sponsorId)).map((d) => [d.dueOn, d.delivered]));
 
     it('credits the named deliverable, not the earliest due, and the page shows the same card', async () => {
       const s = await sponsorWithTwoPromises('Named Promise Nozzles');
-      const res = await editor.post('/api/admin/posts', { title: 'Named promise post', markdown: `%thanks ${s.slug} #${s.later} | nozzles\n`, status: 'published' });
+      const res = await editor.post('/api/admin/posts', {
+        title: 'Named promise post',
+        markdown: `%thanks ${s.slug} #${s.later} | nozzles\n`,
+        status: 'published',
+      });
       expect(res.status).toBe(201);
       expect(await delivered(s.id)).toEqual({ '2026-12-31': 0, '2027-03-31': 1, '2026-12-15': 0 });
       const page = await new Client(t.app).get(`/api/posts/${res.body.slug}`);
@@ -118,10 +170,18 @@ describe('publishing a crediting post', () => {
 
     it('falls back to the earliest due when the named one is of another kind or delivered in full', async () => {
       const s = await sponsorWithTwoPromises('Fallback Fasteners');
-      const video = await editor.post('/api/admin/posts', { title: 'Names the video line', markdown: `%thanks ${s.slug} #${s.video}\n`, status: 'published' });
+      const video = await editor.post('/api/admin/posts', {
+        title: 'Names the video line',
+        markdown: `%thanks ${s.slug} #${s.video}\n`,
+        status: 'published',
+      });
       expect(video.status).toBe(201);
       expect(await delivered(s.id)).toEqual({ '2026-12-31': 1, '2027-03-31': 0, '2026-12-15': 0 });
-      const full = await editor.post('/api/admin/posts', { title: 'Names the full line', markdown: `%thanks ${s.slug} #${s.earliest}\n`, status: 'published' });
+      const full = await editor.post('/api/admin/posts', {
+        title: 'Names the full line',
+        markdown: `%thanks ${s.slug} #${s.earliest}\n`,
+        status: 'published',
+      });
       expect(full.status).toBe(201);
       expect(await delivered(s.id)).toEqual({ '2026-12-31': 1, '2027-03-31': 1, '2026-12-15': 0 });
     });
@@ -129,7 +189,11 @@ describe('publishing a crediting post', () => {
     it('answers 400 on the markdown field when the deliverable is another sponsor’s, and saves nothing', async () => {
       const mine = await sponsorWithTwoPromises('Own Promise Optics');
       const theirs = await sponsorWithTwoPromises('Other Promise Optics');
-      const res = await editor.post('/api/admin/posts', { title: 'Wrong promise', markdown: `%thanks ${mine.slug} #${theirs.later}\n`, status: 'published' });
+      const res = await editor.post('/api/admin/posts', {
+        title: 'Wrong promise',
+        markdown: `%thanks ${mine.slug} #${theirs.later}\n`,
+        status: 'published',
+      });
       expect(res.status).toBe(400);
       expect(res.body.error.fields.markdown).toMatch(new RegExp(`#${theirs.later}`));
       expect(await t.deps.db('posts').where('title', 'Wrong promise')).toHaveLength(0);
@@ -161,7 +225,9 @@ describe('GET /api/admin/sponsors/:id/ledger', () => {
       clock.set('2026-11-21T06:00:00Z');
       expect((await ledgerOf(s.id)).find((d) => d.kind === 'build_log_credit')!.overdue).toBe(true);
       const overdue = await admin.get('/api/admin/sponsors/overdue');
-      expect(overdue.body.items).toContainEqual(expect.objectContaining({ sponsorId: s.id, kind: 'build_log_credit', promised: 1, delivered: 0 }));
+      expect(overdue.body.items).toContainEqual(
+        expect.objectContaining({ sponsorId: s.id, kind: 'build_log_credit', promised: 1, delivered: 0 }),
+      );
     });
   });
 
@@ -185,14 +251,21 @@ describe('GET /api/admin/sponsors/:id/ledger.csv', () => {
     const res = await editor.get(`/api/admin/sponsors/${s.id}/ledger.csv`);
     expect(res.status).toBe(200);
     expect(res.headers['content-disposition']).toContain('ledger-csv-export-co-2026-11-20.csv');
-    expect(res.text).toBe('\uFEFFSeason,Deliverable,Promised,Delivered,Due on,State\r\n2026,Build log credit,2,0,2026-11-01,Overdue\r\n2026,Video mention,1,0,2026-12-31,Open\r\n');
+    expect(res.text).toBe(
+      '\uFEFFSeason,Deliverable,Promised,Delivered,Due on,State\r\n2026,Build log credit,2,0,2026-11-01,Overdue\r\n2026,Video mention,1,0,2026-12-31,Open\r\n',
+    );
   });
 });
 
 describe('POST /api/admin/sponsors/:id/credits', () => {
   it('records a video mention by hand against the open deliverable', async () => {
     const s = await sponsorWithAgreement('Hobblewick Hobbies', 1, '2026-12-31');
-    const res = await editor.post(`/api/admin/sponsors/${s.id}/credits`, { kind: 'video_mention', url: 'https://video.example.test/watch/abc', videoTimestamp: '4:35', note: 'Shout-out at the pad' });
+    const res = await editor.post(`/api/admin/sponsors/${s.id}/credits`, {
+      kind: 'video_mention',
+      url: 'https://video.example.test/watch/abc',
+      videoTimestamp: '4:35',
+      note: 'Shout-out at the pad',
+    });
     expect(res.status).toBe(201);
     expect(res.body.counted).toBe(true);
     expect((await ledgerOf(s.id)).find((d) => d.kind === 'video_mention')!.delivered).toBe(1);
@@ -200,10 +273,17 @@ describe('POST /api/admin/sponsors/:id/credits', () => {
 
   it('answers 400 beside the field for a bad URL, a bad timestamp or a build-log credit', async () => {
     const s = await sponsorWithAgreement('Field Errors Inc', 1, '2026-12-31');
-    const res = await editor.post(`/api/admin/sponsors/${s.id}/credits`, { kind: 'social_post', url: 'javascript:alert(1)', videoTimestamp: 'soon' });
+    const res = await editor.post(`/api/admin/sponsors/${s.id}/credits`, {
+      kind: 'social_post',
+      url: 'javascript:alert(1)',
+      videoTimestamp: 'soon',
+    });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['url', 'videoTimestamp']);
-    const kind = await editor.post(`/api/admin/sponsors/${s.id}/credits`, { kind: 'build_log_credit', url: 'https://x.test' });
+    const kind = await editor.post(`/api/admin/sponsors/${s.id}/credits`, {
+      kind: 'build_log_credit',
+      url: 'https://x.test',
+    });
     expect(kind.status).toBe(400);
     expect(kind.body.error.fields.kind).toMatch(/publishing a post/);
   });
@@ -214,26 +294,53 @@ describe('POST /api/admin/sponsors/:id/agreements', () => {
     const s = await sponsorWithAgreement('Twice Shy Supply', 1, '2026-12-31');
     const again = await admin.post(`/api/admin/sponsors/${s.id}/agreements`, { season: '2026', deliverables: [] });
     expect(again.status).toBe(409);
-    const bad = await admin.post(`/api/admin/sponsors/${s.id}/agreements`, { season: '26', cashCents: -1, deliverables: [{ kind: 'billboard', quantity: 0, dueOn: '2026-13-01' }] });
+    const bad = await admin.post(`/api/admin/sponsors/${s.id}/agreements`, {
+      season: '26',
+      cashCents: -1,
+      deliverables: [{ kind: 'billboard', quantity: 0, dueOn: '2026-13-01' }],
+    });
     expect(bad.status).toBe(400);
-    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['cashCents', 'deliverables.0.dueOn', 'deliverables.0.kind', 'deliverables.0.quantity', 'season']);
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual([
+      'cashCents',
+      'deliverables.0.dueOn',
+      'deliverables.0.kind',
+      'deliverables.0.quantity',
+      'season',
+    ]);
   });
 
   it('records received cash once as a sponsor_cash money movement', async () => {
     const s = await sponsorWithAgreement('Cash Counter Co', 1, '2026-12-31', 12_345);
-    const first = await admin.post(`/api/admin/sponsors/agreements/${s.agreementId}/cash-received`, { receivedOn: '2026-11-19', method: 'e-transfer' });
+    const first = await admin.post(`/api/admin/sponsors/agreements/${s.agreementId}/cash-received`, {
+      receivedOn: '2026-11-19',
+      method: 'e-transfer',
+    });
     expect(first.status).toBe(201);
-    const again = await admin.post(`/api/admin/sponsors/agreements/${s.agreementId}/cash-received`, { receivedOn: '2026-11-19', method: 'e-transfer' });
+    const again = await admin.post(`/api/admin/sponsors/agreements/${s.agreementId}/cash-received`, {
+      receivedOn: '2026-11-19',
+      method: 'e-transfer',
+    });
     expect(again.status).toBe(409);
     const rows = await t.deps.db('money_movements').where({ kind: 'sponsor_cash', reference: String(s.agreementId) });
     expect(rows).toHaveLength(1);
-    expect(rows[0]).toMatchObject({ source: 'sponsor', counterparty: 'Cash Counter Co', gross_cents: '12345', method: 'e-transfer' });
+    expect(rows[0]).toMatchObject({
+      source: 'sponsor',
+      counterparty: 'Cash Counter Co',
+      gross_cents: '12345',
+      method: 'e-transfer',
+    });
   });
 });
 
 describe('tiers', () => {
   it('places sponsors by season total at the staff-set thresholds (a total equal to a threshold reaches it)', async () => {
-    const put = await admin.put('/api/admin/sponsors/tiers', { tiers: [{ name: 'Spark', minCents: 0 }, { name: 'Flame', minCents: 25_000 }, { name: 'Blaze', minCents: 100_000 }] });
+    const put = await admin.put('/api/admin/sponsors/tiers', {
+      tiers: [
+        { name: 'Spark', minCents: 0 },
+        { name: 'Flame', minCents: 25_000 },
+        { name: 'Blaze', minCents: 100_000 },
+      ],
+    });
     expect(put.status).toBe(200);
     // Totals are cash + in-kind (5,000): 19,999 + 5,000 = 24,999 stays Spark; 20,000 + 5,000 = 25,000 reaches Flame.
     const below = await sponsorWithAgreement('Tier Below', 1, '2026-12-31', 19_999);
@@ -242,7 +349,12 @@ describe('tiers', () => {
     const list = (await new Client(t.app).get('/api/sponsors')).body.items as { id: number; tier: string }[];
     const tierOf = (id: number) => list.find((s) => s.id === id)!.tier;
     expect([tierOf(below.id), tierOf(at.id), tierOf(top.id)]).toEqual(['Spark', 'Flame', 'Blaze']);
-    const bad = await admin.put('/api/admin/sponsors/tiers', { tiers: [{ name: 'A', minCents: 0 }, { name: 'B', minCents: 0 }] });
+    const bad = await admin.put('/api/admin/sponsors/tiers', {
+      tiers: [
+        { name: 'A', minCents: 0 },
+        { name: 'B', minCents: 0 },
+      ],
+    });
     expect(bad.status).toBe(400);
   });
 });

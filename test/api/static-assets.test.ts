@@ -12,7 +12,10 @@ let t: TestApp;
 
 beforeAll(() => {
   mkdirSync(path.join(dist, 'media'));
-  writeFileSync(path.join(dist, 'index.csr.html'), `<!doctype html><html><body>${'<p>Padside</p>'.repeat(200)}</body></html>`);
+  writeFileSync(
+    path.join(dist, 'index.csr.html'),
+    `<!doctype html><html><body>${'<p>Padside</p>'.repeat(200)}</body></html>`,
+  );
   writeFileSync(path.join(dist, 'main-K3QZ7A2B.js'), script);
   writeFileSync(path.join(dist, 'padside-mark.svg'), '<svg xmlns="http://www.w3.org/2000/svg"></svg>');
   writeFileSync(path.join(dist, 'media', 'montserrat-latin-400-normal-Q7WX2M4C.woff2'), Buffer.alloc(2048, 7));
@@ -42,17 +45,23 @@ describe('the app files', () => {
   });
 
   // RFC 9111 section 5.2.2.1 (max-age) and RFC 8246 (immutable): a name that changes with the content may be kept for a year.
-  it.each([['/main-K3QZ7A2B.js'], ['/media/montserrat-latin-400-normal-Q7WX2M4C.woff2']])('lets browsers keep %s for a year', async (file) => {
-    const res = await request(t.app).get(file);
-    expect(res.status).toBe(200);
-    expect(res.headers['cache-control']).toBe('public, max-age=31536000, immutable');
-  });
+  it.each([['/main-K3QZ7A2B.js'], ['/media/montserrat-latin-400-normal-Q7WX2M4C.woff2']])(
+    'lets browsers keep %s for a year',
+    async (file) => {
+      const res = await request(t.app).get(file);
+      expect(res.status).toBe(200);
+      expect(res.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+    },
+  );
 
-  it.each([['/padside-mark.svg'], ['/index.csr.html']])('asks browsers to check %s again after an hour, its name being the same in every build', async (file) => {
-    const res = await request(t.app).get(file);
-    expect(res.status).toBe(200);
-    expect(res.headers['cache-control']).toBe('public, max-age=3600');
-  });
+  it.each([['/padside-mark.svg'], ['/index.csr.html']])(
+    'asks browsers to check %s again after an hour, its name being the same in every build',
+    async (file) => {
+      const res = await request(t.app).get(file);
+      expect(res.status).toBe(200);
+      expect(res.headers['cache-control']).toBe('public, max-age=3600');
+    },
+  );
 
   // BREACH (CVE-2013-3587): a compressed answer that holds a secret beside text an attacker chose leaks the secret by its length.
   it('never compresses API answers, which carry the CSRF token', async () => {

@@ -10,7 +10,8 @@ import { signedIn } from '../helpers/users';
 
 // The test stack's s3rver; see scripts/stack/throwaway.mjs.
 const settings = (prefix: string, overrides: Record<string, string> = {}) =>
-  loadConfig({ ...process.env, STORAGE_URL: `${process.env.TEST_STORAGE_URL}-${prefix}`, ...overrides }).storage as Extract<StorageConfig, { kind: 's3' }>;
+  loadConfig({ ...process.env, STORAGE_URL: `${process.env.TEST_STORAGE_URL}-${prefix}`, ...overrides })
+    .storage as Extract<StorageConfig, { kind: 's3' }>;
 
 const run = randomBytes(4).toString('hex');
 const opened: S3Storage[] = [];
@@ -43,9 +44,16 @@ describe('S3Storage against the test object store', () => {
     const there = storage(`c${run}`);
     await here.write('feed01.webp', Readable.from([Buffer.from('webp bytes')]), 'image/webp');
     expect(await there.read('feed01.webp')).toBeNull();
-    const listing = new S3Client({ endpoint: process.env.S3_ENDPOINT, region: 'us-east-1', forcePathStyle: true, credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } });
+    const listing = new S3Client({
+      endpoint: process.env.S3_ENDPOINT,
+      region: 'us-east-1',
+      forcePathStyle: true,
+      credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' },
+    });
     try {
-      const keys = (await listing.send(new ListObjectsV2Command({ Bucket: 'padside-test', Prefix: `uploads-b${run}/` }))).Contents?.map((o) => o.Key);
+      const keys = (
+        await listing.send(new ListObjectsV2Command({ Bucket: 'padside-test', Prefix: `uploads-b${run}/` }))
+      ).Contents?.map((o) => o.Key);
       expect(keys).toEqual([`uploads-b${run}/feed01.webp`]);
     } finally {
       listing.destroy();
@@ -60,7 +68,9 @@ describe('S3Storage against the test object store', () => {
   });
 
   it('refuses a key that is not one ImageUploads makes, before any request', async () => {
-    await expect(storage().write('../escape.png', Readable.from([Buffer.from('x')]), 'image/png')).rejects.toThrow('bad storage key');
+    await expect(storage().write('../escape.png', Readable.from([Buffer.from('x')]), 'image/png')).rejects.toThrow(
+      'bad storage key',
+    );
     await expect(storage().read('a/b.png')).rejects.toThrow('bad storage key');
   });
 
@@ -71,7 +81,12 @@ describe('S3Storage against the test object store', () => {
   });
 
   it('is what the configuration names when STORAGE_URL is set', () => {
-    expect(settings('x')).toMatchObject({ kind: 's3', bucket: 'padside-test', prefix: 'uploads-x/', forcePathStyle: true });
+    expect(settings('x')).toMatchObject({
+      kind: 's3',
+      bucket: 'padside-test',
+      prefix: 'uploads-x/',
+      forcePathStyle: true,
+    });
   });
 });
 
@@ -79,18 +94,35 @@ describe('when the object store does not answer', () => {
   it('S3Storage answers 503 storage_unavailable with Retry-After, for reads, writes and deletes', async () => {
     const port = await freePort();
     const down = storage(`a${run}`, { S3_ENDPOINT: `http://127.0.0.1:${port}` });
-    for (const attempt of [() => down.read('0123abcd.png'), () => down.write('down01.png', Readable.from([Buffer.from('x')]), 'image/png'), () => down.remove(['down01.png'])]) {
-      await expect(attempt()).rejects.toMatchObject({ status: 503, code: 'storage_unavailable', headers: { 'Retry-After': '30' } });
+    for (const attempt of [
+      () => down.read('0123abcd.png'),
+      () => down.write('down01.png', Readable.from([Buffer.from('x')]), 'image/png'),
+      () => down.remove(['down01.png']),
+    ]) {
+      await expect(attempt()).rejects.toMatchObject({
+        status: 503,
+        code: 'storage_unavailable',
+        headers: { 'Retry-After': '30' },
+      });
     }
   });
 
   it('an upload answers 503 with the error shape, not 500', async () => {
     const port = await freePort();
-    const t = buildTestApp({ env: { STORAGE_URL: String(process.env.TEST_STORAGE_URL), S3_ENDPOINT: `http://127.0.0.1:${port}` } });
+    const t = buildTestApp({
+      env: { STORAGE_URL: String(process.env.TEST_STORAGE_URL), S3_ENDPOINT: `http://127.0.0.1:${port}` },
+    });
     try {
       const { client } = await signedIn(t.app, t.deps.db, ['fan', 'editor']);
-      const png = await sharp({ create: { width: 9, height: 9, channels: 3, background: { r: 3, g: Date.now() % 256, b: 7 } } }).png().toBuffer();
-      const res = await client.agent.post('/api/admin/uploads').set('X-CSRF-Token', await client.token()).attach('file', png, { filename: 'down.png', contentType: 'image/png' });
+      const png = await sharp({
+        create: { width: 9, height: 9, channels: 3, background: { r: 3, g: Date.now() % 256, b: 7 } },
+      })
+        .png()
+        .toBuffer();
+      const res = await client.agent
+        .post('/api/admin/uploads')
+        .set('X-CSRF-Token', await client.token())
+        .attach('file', png, { filename: 'down.png', contentType: 'image/png' });
       expect(res.status).toBe(503);
       expect(res.headers['retry-after']).toBe('30');
       expect(res.body.error.code).toBe('storage_unavailable');

@@ -19,7 +19,8 @@ async function phoneJpeg(): Promise<Buffer> {
 }
 
 /** The EXIF tag that points at the GPS directory (Exif 2.3, tag 0x8825 GPSInfo), in either byte order. */
-const hasGpsPointer = (exif: Buffer) => exif.includes(Buffer.from([0x88, 0x25])) || exif.includes(Buffer.from([0x25, 0x88]));
+const hasGpsPointer = (exif: Buffer) =>
+  exif.includes(Buffer.from([0x88, 0x25])) || exif.includes(Buffer.from([0x25, 0x88]));
 
 async function bytesOf(body: NodeJS.ReadableStream): Promise<Buffer> {
   const chunks: Buffer[] = [];
@@ -40,7 +41,11 @@ describe.each([
   });
   afterAll(() => t.close());
 
-  const upload = async (bytes: Buffer) => editor.agent.post('/api/admin/uploads').set('X-CSRF-Token', await editor.token()).attach('file', bytes, { filename: 'launch-rail.jpg', contentType: 'image/jpeg' });
+  const upload = async (bytes: Buffer) =>
+    editor.agent
+      .post('/api/admin/uploads')
+      .set('X-CSRF-Token', await editor.token())
+      .attach('file', bytes, { filename: 'launch-rail.jpg', contentType: 'image/jpeg' });
   const keyOf = (url: string) => url.replace('/uploads/', '');
 
   it('uses the backend the configuration names', () => {
@@ -70,7 +75,9 @@ describe.each([
     expect(stored.includes('Gopher Flats Optics')).toBe(false);
     expect(stored.includes('Sample Person')).toBe(false);
 
-    const thumb = await sharp(await bytesOf((await storageFromConfig(t.config.storage).read(keyOf(res.body.thumbnailUrl)))!.body)).metadata();
+    const thumb = await sharp(
+      await bytesOf((await storageFromConfig(t.config.storage).read(keyOf(res.body.thumbnailUrl)))!.body),
+    ).metadata();
     expect(thumb.exif).toBeUndefined();
   });
 
@@ -96,13 +103,28 @@ describe.each([
     const second = await upload(jpeg);
     expect(second.status).toBe(201);
     expect(second.body.url).toBe(first.body.url);
-    expect(await t.deps.db('uploads').where('key', keyOf(first.body.url)).count<{ count: string }[]>('* as count')).toEqual([{ count: '1' }]);
+    expect(
+      await t.deps.db('uploads').where('key', keyOf(first.body.url)).count<{ count: string }[]>('* as count'),
+    ).toEqual([{ count: '1' }]);
   });
 
   it('answers 415 for an image whose data is cut short, and leaves no object behind', async () => {
-    const whole = await sharp({ create: { width: 300, height: 200, channels: 3, background: { r: 0, g: 0, b: 0 }, noise: { type: 'gaussian', mean: 128, sigma: 60 } } }).png().toBuffer();
+    const whole = await sharp({
+      create: {
+        width: 300,
+        height: 200,
+        channels: 3,
+        background: { r: 0, g: 0, b: 0 },
+        noise: { type: 'gaussian', mean: 128, sigma: 60 },
+      },
+    })
+      .png()
+      .toBuffer();
     const cut = whole.subarray(0, Math.floor(whole.length / 2));
-    const res = await editor.agent.post('/api/admin/uploads').set('X-CSRF-Token', await editor.token()).attach('file', cut, { filename: 'half.png', contentType: 'image/png' });
+    const res = await editor.agent
+      .post('/api/admin/uploads')
+      .set('X-CSRF-Token', await editor.token())
+      .attach('file', cut, { filename: 'half.png', contentType: 'image/png' });
     expect(res.status).toBe(415);
     expect(res.body.error.fields.file).toBe('Damaged image.');
     const name = createHash('sha256').update(cut).digest('hex').slice(0, 32);
@@ -114,13 +136,17 @@ describe.each([
 
   it('deletes an image: its record, the original and the thumbnail objects', async () => {
     const res = await upload(await phoneJpeg());
-    const gone = await editor.agent.delete(res.body.url.replace('/uploads/', '/api/admin/uploads/')).set('X-CSRF-Token', await editor.token());
+    const gone = await editor.agent
+      .delete(res.body.url.replace('/uploads/', '/api/admin/uploads/'))
+      .set('X-CSRF-Token', await editor.token());
     expect(gone.status).toBe(204);
     const storage = storageFromConfig(t.config.storage);
     expect(await storage.read(keyOf(res.body.url))).toBeNull();
     expect(await storage.read(keyOf(res.body.thumbnailUrl))).toBeNull();
     expect((await new Client(t.app).get(res.body.url)).status).toBe(404);
-    const again = await editor.agent.delete(res.body.url.replace('/uploads/', '/api/admin/uploads/')).set('X-CSRF-Token', await editor.token());
+    const again = await editor.agent
+      .delete(res.body.url.replace('/uploads/', '/api/admin/uploads/'))
+      .set('X-CSRF-Token', await editor.token());
     expect(again.status).toBe(404);
   });
 });

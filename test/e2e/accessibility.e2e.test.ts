@@ -4,7 +4,6 @@ import { browserSuite, screenshot, signInThroughForm, type Site } from '../helpe
 import type { TestApp } from '../helpers/test-app';
 import { Client, createUser } from '../helpers/users';
 
-
 let t: TestApp;
 let browser: Browser;
 let site: Site;
@@ -23,10 +22,20 @@ browserSuite({}, async (s) => {
     priceCents: 3000,
     weightGrams: 200,
     variants: [{ label: 'S' }, { label: 'M' }],
-    run: { cap: 20, opensAt: new Date(now - 60_000).toISOString(), closesAt: new Date(now + 7 * 86_400_000).toISOString() },
+    run: {
+      cap: 20,
+      opensAt: new Date(now - 60_000).toISOString(),
+      closesAt: new Date(now + 7 * 86_400_000).toISOString(),
+    },
   });
   productSlug = product.body.slug ?? product.body.product?.slug;
-  const post = await staff.post('/api/admin/posts', { title: `Access check build log ${now}`, summary: 'Fins and a flight.', markdown: `## The fin can\n\nPrinted in three parts, then flown on a small motor.\n\n${'The layers were printed slowly and sanded smooth before the first coat of primer went on. '.repeat(12)}`, tags: ['rocketry'], status: 'published' });
+  const post = await staff.post('/api/admin/posts', {
+    title: `Access check build log ${now}`,
+    summary: 'Fins and a flight.',
+    markdown: `## The fin can\n\nPrinted in three parts, then flown on a small motor.\n\n${'The layers were printed slowly and sanded smooth before the first coat of primer went on. '.repeat(12)}`,
+    tags: ['rocketry'],
+    status: 'published',
+  });
   postSlug = post.body.slug;
   if (!productSlug || !postSlug) throw new Error(`fixtures not created: ${product.status} ${post.status}`);
 });
@@ -85,7 +94,8 @@ describe('pages whose content arrives late do not shift what is already painted'
         const w = window as unknown as { shift: number };
         w.shift = 0;
         new PerformanceObserver((list) => {
-          for (const e of list.getEntries() as unknown as { value: number; hadRecentInput: boolean }[]) if (!e.hadRecentInput) w.shift += e.value;
+          for (const e of list.getEntries() as unknown as { value: number; hadRecentInput: boolean }[])
+            if (!e.hadRecentInput) w.shift += e.value;
         }).observe({ type: 'layout-shift', buffered: true });
       });
       await page.route(api, async (route) => {

@@ -37,13 +37,20 @@ describe('a person’s own data, on a phone', () => {
       expect(await seriousViolations(page)).toEqual([]);
       await screenshot(page, 'account-your-data-phone');
 
-      const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download my data' }).click()]);
+      const [download] = await Promise.all([
+        page.waitForEvent('download'),
+        page.getByRole('link', { name: 'Download my data' }).click(),
+      ]);
       expect(download.suggestedFilename()).toMatch(/^padside-my-data-\d{4}-\d{2}-\d{2}\.zip$/);
       const saved = path.join(ARTIFACTS, 'account-export.zip');
       await download.saveAs(saved);
       const files = unzipSync(new Uint8Array(readFileSync(saved)));
-      expect(Object.keys(files)).toEqual(expect.arrayContaining(['summary.html', 'profile.json', 'shop-orders.json', 'sign-ins.json']));
-      expect(JSON.parse(strFromU8(files['profile.json']))).toEqual([expect.objectContaining({ email: user.email, displayName: 'Maren Tollefson' })]);
+      expect(Object.keys(files)).toEqual(
+        expect.arrayContaining(['summary.html', 'profile.json', 'shop-orders.json', 'sign-ins.json']),
+      );
+      expect(JSON.parse(strFromU8(files['profile.json']))).toEqual([
+        expect.objectContaining({ email: user.email, displayName: 'Maren Tollefson' }),
+      ]);
       // The summary page reads on its own: open it as a file would open, on the same phone.
       const summary = await context.newPage();
       await summary.setContent(strFromU8(files['summary.html']));
@@ -85,7 +92,8 @@ describe('a person’s own data, on a phone', () => {
       await page.getByRole('contentinfo').getByRole('link', { name: 'Privacy' }).click();
       await page.getByRole('heading', { level: 1, name: /Privacy/ }).waitFor();
       await page.waitForLoadState('networkidle');
-      for (const heading of ['What we collect and why', 'Who else handles it', 'What you can ask']) await page.getByRole('heading', { name: heading }).waitFor();
+      for (const heading of ['What we collect and why', 'Who else handles it', 'What you can ask'])
+        await page.getByRole('heading', { name: heading }).waitFor();
       await page.getByText('The card processor', { exact: true }).waitFor();
       await page.getByText('The mail provider', { exact: true }).waitFor();
       expect(await seriousViolations(page)).toEqual([]);

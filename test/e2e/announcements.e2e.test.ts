@@ -1,6 +1,13 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { seriousViolations } from '../helpers/axe';
-import { browserSuite, consoleErrors, recordRequests, screenshot, signInThroughForm, type Site } from '../helpers/browser';
+import {
+  browserSuite,
+  consoleErrors,
+  recordRequests,
+  screenshot,
+  signInThroughForm,
+  type Site,
+} from '../helpers/browser';
 import { firstLink, waitForEmails } from '../helpers/maildev';
 import { freshDatabase, type FreshDatabase } from '../helpers/fresh-database';
 import type { TestApp } from '../helpers/test-app';
@@ -81,7 +88,9 @@ describe('announcements on a phone', () => {
     await staff.page.getByRole('combobox', { name: 'List' }).click();
     await staff.page.getByRole('option', { name: 'Launch days' }).click();
     await staff.page.getByLabel('Subject').fill(subject);
-    await staff.page.getByLabel('Message (Markdown)').fill('The **spring launch** moves one week later.\n\n- same field\n- same times');
+    await staff.page
+      .getByLabel('Message (Markdown)')
+      .fill('The **spring launch** moves one week later.\n\n- same field\n- same times');
     await staff.page.getByRole('button', { name: 'Preview' }).click();
     await staff.page.getByRole('heading', { name: 'Preview: as a recipient sees it' }).waitFor();
     await staff.page.locator('.mail strong', { hasText: 'spring launch' }).waitFor();
@@ -96,7 +105,9 @@ describe('announcements on a phone', () => {
     // The page polls the counts while the mail goes out.
     await staff.page.getByTestId('announcement-status').getByText('Sent', { exact: true }).waitFor({ timeout: 15_000 });
     // Queued, sent, failed, suppressed; other suites' subscribers to the list may be counted too.
-    const [queued, sent] = (await staff.page.getByTestId('announcement-counts').locator('dd').allTextContents()).map(Number);
+    const [queued, sent] = (await staff.page.getByTestId('announcement-counts').locator('dd').allTextContents()).map(
+      Number,
+    );
     expect(queued).toBe(0);
     expect(sent).toBeGreaterThanOrEqual(1);
     await screenshot(staff.page, 'announcements-phone-sent');
@@ -107,7 +118,8 @@ describe('announcements on a phone', () => {
     const raw = received as unknown as { headers: Record<string, string>; text: string };
     expect(raw.headers['list-unsubscribe']).toMatch(/^<http.+\/api\/subscriptions\/unsubscribe\?token=.+>$/);
     expect(raw.headers['list-unsubscribe-post']).toBe('List-Unsubscribe=One-Click');
-    const [, stopLink] = /Stop e-mails about launch days with one click \(no sign-in needed\): (\S+)/.exec(raw.text) ?? [];
+    const [, stopLink] =
+      /Stop e-mails about launch days with one click \(no sign-in needed\): (\S+)/.exec(raw.text) ?? [];
     expect(stopLink).toBeDefined();
     await visitor.page.goto(onSite(stopLink));
     await visitor.page.getByText(`Stop e-mails about launch days to ${email}?`).waitFor();
@@ -120,7 +132,13 @@ describe('announcements on a phone', () => {
     const again = await staff.page.evaluate(async () => {
       const csrf = (await (await fetch('/api/auth/csrf')).json()).csrfToken as string;
       const headers = { 'content-type': 'application/json', 'x-csrf-token': csrf };
-      const created = await (await fetch('/api/admin/announcements', { method: 'POST', headers, body: JSON.stringify({ topic: 'launches', subject: 'After the stop', markdown: 'Later news.' }) })).json();
+      const created = await (
+        await fetch('/api/admin/announcements', {
+          method: 'POST',
+          headers,
+          body: JSON.stringify({ topic: 'launches', subject: 'After the stop', markdown: 'Later news.' }),
+        })
+      ).json();
       await fetch(`/api/admin/announcements/${created.announcement.id}/send`, { method: 'POST', headers });
       return created.announcement.id as number;
     });
@@ -139,7 +157,10 @@ describe('announcements on a phone', () => {
     await staff.signIn(admin);
     const shirt = await openShirt(staff);
     // The run closed yesterday.
-    await t.deps.db('shop_runs').where('id', shirt.run.id).update({ opens_at: new Date(Date.now() - 3 * 86_400_000), closes_at: new Date(Date.now() - 86_400_000) });
+    await t.deps
+      .db('shop_runs')
+      .where('id', shirt.run.id)
+      .update({ opens_at: new Date(Date.now() - 3 * 86_400_000), closes_at: new Date(Date.now() - 86_400_000) });
     const fan = await createUser(t.deps.db, ['fan'], 'Ilse Prairiewind');
 
     const visitor = await phone();
@@ -155,7 +176,14 @@ describe('announcements on a phone', () => {
     await screenshot(visitor.page, 'announcements-phone-product');
     await t.app.platform.auth.afterAnswer.settled();
     const [row] = await t.deps.db('subscriptions').where({ email: fan.email });
-    expect(row).toEqual(expect.objectContaining({ topic: 'drops', product_id: String(shirt.id), source_page: 'product', confirmed_at: null }));
+    expect(row).toEqual(
+      expect.objectContaining({
+        topic: 'drops',
+        product_id: String(shirt.id),
+        source_page: 'product',
+        confirmed_at: null,
+      }),
+    );
 
     // The account page shows the request waiting for its confirmation.
     await visitor.page.goto(`${site.baseUrl}/account`);

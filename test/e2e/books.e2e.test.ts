@@ -11,11 +11,21 @@ let site: Site;
 
 browserSuite({}, async (s) => {
   ({ t, site, browser } = s);
-  await t.deps.db('money_movements').where('occurred_at', '>=', '2034-01-01').andWhere('occurred_at', '<', '2034-02-02').delete();
+  await t.deps
+    .db('money_movements')
+    .where('occurred_at', '>=', '2034-01-01')
+    .andWhere('occurred_at', '<', '2034-02-02')
+    .delete();
   // C$100 to Manitoba + GST 5% 5.00 + RST 7% 7.00 (CRA rate page; Manitoba Finance) = C$112.00.
   await t.deps.db.transaction((trx) =>
     recordMovement(trx, {
-      occurredAt: new Date('2034-01-15T18:00:00Z'), kind: 'order_payment', source: 'merch', reference: 'E2E-BOOKS', counterparty: 'Browser Buyer', grossCents: 11200, method: 'card',
+      occurredAt: new Date('2034-01-15T18:00:00Z'),
+      kind: 'order_payment',
+      source: 'merch',
+      reference: 'E2E-BOOKS',
+      counterparty: 'Browser Buyer',
+      grossCents: 11200,
+      method: 'card',
       taxes: [
         { code: 'GST', jurisdiction: 'MB', ratePercent: '5', taxableCents: 10000, taxCents: 500 },
         { code: 'RST', jurisdiction: 'MB', ratePercent: '7', taxableCents: 10000, taxCents: 700 },
@@ -49,8 +59,16 @@ describe('the treasurer’s books in a browser', () => {
     const treasurer = await createUser(t.deps.db, ['fan', 'treasurer'], 'Tamsin Ledger');
     const api = new Client(t.app);
     await api.signIn(treasurer);
-    const sponsor = await api.post('/api/admin/sponsors', { name: `Browser Promo Supply ${Date.now()}`, website: 'https://example.test', blurb: 'Invented for a test.' });
-    const agreement = await api.post(`/api/admin/sponsors/${sponsor.body.id}/agreements`, { season: '2034', cashCents: 50_000, deliverables: [{ kind: 'video_mention', quantity: 1, dueOn: '2034-09-30' }] });
+    const sponsor = await api.post('/api/admin/sponsors', {
+      name: `Browser Promo Supply ${Date.now()}`,
+      website: 'https://example.test',
+      blurb: 'Invented for a test.',
+    });
+    const agreement = await api.post(`/api/admin/sponsors/${sponsor.body.id}/agreements`, {
+      season: '2034',
+      cashCents: 50_000,
+      deliverables: [{ kind: 'video_mention', quantity: 1, dueOn: '2034-09-30' }],
+    });
     expect(agreement.status).toBe(201);
 
     const page = await browser.newPage();
@@ -66,7 +84,9 @@ describe('the treasurer’s books in a browser', () => {
     await page.getByText('Tax treatment: promotion, GST/HST at the rate for ON').waitFor();
     await page.getByRole('link', { name: 'Download the invoice (PDF)' }).waitFor();
     await screenshot(page, 'sponsor-tax-treatment');
-    expect((await t.deps.db('sponsor_agreements').where('id', agreement.body.id).first()).tax_treatment).toBe('promotion');
+    expect((await t.deps.db('sponsor_agreements').where('id', agreement.body.id).first()).tax_treatment).toBe(
+      'promotion',
+    );
     await page.close();
   });
 });

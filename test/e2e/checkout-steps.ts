@@ -5,7 +5,11 @@ import { screenshot } from '../helpers/browser';
  * From the product page (already open) to the payment step: size L into the cart, contact as signed in, mailed within
  * Canada to a Manitoba address. `shots` names the screenshots taken on the way, if any.
  */
-export async function toPaymentStep(page: Page, slug: string, shots?: { product: string; cart: string }): Promise<void> {
+export async function toPaymentStep(
+  page: Page,
+  slug: string,
+  shots?: { product: string; cart: string },
+): Promise<void> {
   await page.getByRole('heading', { level: 1, name: new RegExp(slug.replace(/-/g, ' '), 'i') }).waitFor();
   // A single-choice toggle group is a radio group to assistive technology.
   await page.getByRole('radio', { name: 'L', exact: true }).click();

@@ -5,7 +5,6 @@ import type { TestApp } from '../helpers/test-app';
 import { Client, createUser, signedIn, type TestUser } from '../helpers/users';
 import { MB_ADDRESS, methodId, stockSticker } from '../api/shop-fixtures';
 
-
 let t: TestApp;
 let browser: Browser;
 let site: Site;
@@ -31,20 +30,36 @@ async function phonePage(user: TestUser): Promise<{ page: Page; context: Browser
 }
 
 /** Lets running animations (a dialog opening, a ripple) finish, so a screenshot shows the settled screen. */
-const settled = (page: Page) => page.evaluate(() => Promise.all(document.getAnimations().map((a) => a.finished.catch(() => undefined))));
+const settled = (page: Page) =>
+  page.evaluate(() => Promise.all(document.getAnimations().map((a) => a.finished.catch(() => undefined))));
 
 /** The elements that stick out past the right edge of the viewport (none when the page does not scroll sideways). */
 const overflowing = (page: Page) =>
   page.evaluate(() => {
     if (document.documentElement.scrollWidth <= window.innerWidth) return [];
-    const inScroller = (el: Element) => { for (let p = el.parentElement; p; p = p.parentElement) if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true; return false; };
-    return [...document.body.querySelectorAll('*')].filter((el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScroller(el)).slice(0, 5).map((el) => `${el.tagName.toLowerCase()}.${[...el.classList].join('.')}`);
+    const inScroller = (el: Element) => {
+      for (let p = el.parentElement; p; p = p.parentElement)
+        if (['auto', 'scroll'].includes(getComputedStyle(p).overflowX)) return true;
+      return false;
+    };
+    return [...document.body.querySelectorAll('*')]
+      .filter((el) => el.getBoundingClientRect().right > window.innerWidth + 1 && !inScroller(el))
+      .slice(0, 5)
+      .map((el) => `${el.tagName.toLowerCase()}.${[...el.classList].join('.')}`);
   });
 
 async function sponsorWithPromises(name: string, deliverables: object[]) {
   const created = await admin.post('/api/admin/sponsors', { name: `${name} ${stamp}` });
   expect(created.status).toBe(201);
-  expect((await admin.post(`/api/admin/sponsors/${created.body.id}/agreements`, { season: String(year), cashCents: 25_000, deliverables })).status).toBe(201);
+  expect(
+    (
+      await admin.post(`/api/admin/sponsors/${created.body.id}/agreements`, {
+        season: String(year),
+        cashCents: 25_000,
+        deliverables,
+      })
+    ).status,
+  ).toBe(201);
   return { id: created.body.id as number, slug: created.body.slug as string, name: `${name} ${stamp}` };
 }
 
@@ -53,10 +68,29 @@ describe('the editor on a phone', () => {
     const editor = await createUser(t.deps.db, ['fan', 'editor'], 'Odile Overview');
     const editorApi = new Client(t.app);
     await editorApi.signIn(editor);
-    expect((await editorApi.post('/api/admin/posts', { title: `Draft nose cone ${stamp}`, markdown: 'Sanding.', status: 'draft' })).status).toBe(201);
+    expect(
+      (
+        await editorApi.post('/api/admin/posts', {
+          title: `Draft nose cone ${stamp}`,
+          markdown: 'Sanding.',
+          status: 'draft',
+        })
+      ).status,
+    ).toBe(201);
     const publishAt = new Date(Date.now() + 5 * 86400_000).toISOString();
-    expect((await editorApi.post('/api/admin/posts', { title: `Scheduled fins ${stamp}`, markdown: 'Gluing.', status: 'scheduled', publishAt })).status).toBe(201);
-    await sponsorWithPromises('Latecredit Gizmos', [{ kind: 'build_log_credit', quantity: 1, dueOn: `${year - 1}-12-31` }]);
+    expect(
+      (
+        await editorApi.post('/api/admin/posts', {
+          title: `Scheduled fins ${stamp}`,
+          markdown: 'Gluing.',
+          status: 'scheduled',
+          publishAt,
+        })
+      ).status,
+    ).toBe(201);
+    await sponsorWithPromises('Latecredit Gizmos', [
+      { kind: 'build_log_credit', quantity: 1, dueOn: `${year - 1}-12-31` },
+    ]);
 
     const { page, context, errors } = await phonePage(editor);
     await page.goto(`${site.baseUrl}/console`);
@@ -64,14 +98,20 @@ describe('the editor on a phone', () => {
     const drafts = page.getByTestId('tile-drafts');
     await drafts.getByText(`Draft nose cone ${stamp}`).waitFor();
     await page.getByTestId('tile-scheduled').getByText(`Scheduled fins ${stamp}`).waitFor();
-    await page.getByTestId('tile-credits').getByText(new RegExp(`Latecredit Gizmos ${stamp}: 1 × Build log credit`)).waitFor();
+    await page
+      .getByTestId('tile-credits')
+      .getByText(new RegExp(`Latecredit Gizmos ${stamp}: 1 × Build log credit`))
+      .waitFor();
     // Each tile's height is its content's plus padding and border, not the tallest tile's in its row.
     const slack = await page.evaluate(() =>
       [...document.querySelectorAll<HTMLElement>('.cards .card')].map((card) => {
         const kids = [...card.children] as HTMLElement[];
         const content = kids[kids.length - 1].getBoundingClientRect().bottom - kids[0].getBoundingClientRect().top;
         const style = getComputedStyle(card);
-        const frame = ['paddingTop', 'paddingBottom', 'borderTopWidth', 'borderBottomWidth'].reduce((n, k) => n + parseFloat(style[k as 'paddingTop']), 0);
+        const frame = ['paddingTop', 'paddingBottom', 'borderTopWidth', 'borderBottomWidth'].reduce(
+          (n, k) => n + parseFloat(style[k as 'paddingTop']),
+          0,
+        );
         return Math.round(card.getBoundingClientRect().height - content - frame);
       }),
     );
@@ -90,7 +130,9 @@ describe('the editor on a phone', () => {
   });
 
   it('thanks a sponsor from a dialog that inserts the credit line, sees the whole hint, and quotes are styled', async () => {
-    const sponsor = await sponsorWithPromises('Dialogue Doodads', [{ kind: 'build_log_credit', quantity: 3, dueOn: `${year + 1}-03-31` }]);
+    const sponsor = await sponsorWithPromises('Dialogue Doodads', [
+      { kind: 'build_log_credit', quantity: 3, dueOn: `${year + 1}-03-31` },
+    ]);
     const editor = await createUser(t.deps.db, ['fan', 'editor'], 'Edda Dialog');
     const { page, context, errors } = await phonePage(editor);
     await page.goto(`${site.baseUrl}/console/posts/new`);
@@ -100,7 +142,9 @@ describe('the editor on a phone', () => {
 
     const hint = page.locator('.markdown-hint');
     await hint.waitFor();
-    expect(await hint.evaluate((el) => el.scrollWidth <= el.clientWidth && el.scrollHeight <= el.clientHeight + 1)).toBe(true);
+    expect(
+      await hint.evaluate((el) => el.scrollWidth <= el.clientWidth && el.scrollHeight <= el.clientHeight + 1),
+    ).toBe(true);
     expect(await hint.textContent()).toContain('publishing the post credits that sponsor');
 
     const preview = page.getByRole('region', { name: 'Preview' });
@@ -115,14 +159,21 @@ describe('the editor on a phone', () => {
     await dialog.getByLabel('Sponsor').click();
     await page.getByRole('option', { name: sponsor.name }).click();
     // The only open promise is offered and preselected, as the server would pick it.
-    await dialog.getByRole('radio', { name: `${year} build log credits: 0 of 3 delivered, due Mar 31, ${year + 1}`, checked: true }).waitFor();
+    await dialog
+      .getByRole('radio', {
+        name: `${year} build log credits: 0 of 3 delivered, due Mar 31, ${year + 1}`,
+        checked: true,
+      })
+      .waitFor();
     await dialog.getByLabel('Note on the card (optional)').fill('Fin jigs and a spare hand');
     await settled(page);
     await screenshot(page, 'post-editor-credit-dialog-phone');
     expect(await seriousViolations(page)).toEqual([]);
     await dialog.getByRole('button', { name: 'Insert thank-you card' }).click();
     await dialog.waitFor({ state: 'detached' });
-    expect(await page.getByRole('textbox', { name: 'Markdown' }).inputValue()).toMatch(new RegExp(`\\n%thanks ${sponsor.slug} #[1-9][0-9]* \\| Fin jigs and a spare hand\\n`));
+    expect(await page.getByRole('textbox', { name: 'Markdown' }).inputValue()).toMatch(
+      new RegExp(`\\n%thanks ${sponsor.slug} #[1-9][0-9]* \\| Fin jigs and a spare hand\\n`),
+    );
     await preview.getByText(sponsor.name).waitFor();
     await settled(page);
     await screenshot(page, 'post-editor-phone');
@@ -180,14 +231,20 @@ describe('the accounts page on a phone', () => {
     await group.getByRole('button', { name: 'treasurer' }).click();
     await confirm.getByRole('button', { name: 'Grant treasurer' }).click();
     await page.getByText(`Roles saved for Tamsin Target ${stamp}.`).waitFor();
-    expect((await t.deps.db('users').where('id', target.id).first()).roles.sort()).toEqual(['editor', 'fan', 'treasurer']);
+    expect((await t.deps.db('users').where('id', target.id).first()).roles.sort()).toEqual([
+      'editor',
+      'fan',
+      'treasurer',
+    ]);
 
     await row.getByRole('button', { name: `Disable the account of Tamsin Target ${stamp}` }).click();
     const disable = page.getByRole('dialog', { name: `Disable Tamsin Target ${stamp}?` });
     await disable.getByRole('button', { name: 'Disable account' }).click();
     await row.getByText('Disabled', { exact: true }).waitFor();
     await row.getByRole('button', { name: `Enable the account of Tamsin Target ${stamp}` }).waitFor();
-    expect((await new Client(t.app).post('/api/auth/login', { email: target.email, password: target.password })).status).toBe(403);
+    expect(
+      (await new Client(t.app).post('/api/auth/login', { email: target.email, password: target.password })).status,
+    ).toBe(403);
 
     await row.getByRole('button', { name: `History of Tamsin Target ${stamp}` }).click();
     const history = page.getByRole('dialog', { name: `History of Tamsin Target ${stamp}` });
@@ -221,14 +278,26 @@ describe('the shop console on a phone', () => {
     const sticker = await stockSticker(staffApi, 5);
     const buyer = new Client(t.app);
     const email = `orders-card-${stamp}@example.test`;
-    expect((await buyer.post('/api/orders', { items: [{ variantId: sticker.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(buyer, 'canada'), email, paymentToken: 'tok_visa' })).status).toBe(201);
+    expect(
+      (
+        await buyer.post('/api/orders', {
+          items: [{ variantId: sticker.variants[0].id, quantity: 1 }],
+          shipTo: MB_ADDRESS,
+          shippingMethodId: await methodId(buyer, 'canada'),
+          email,
+          paymentToken: 'tok_visa',
+        })
+      ).status,
+    ).toBe(201);
 
     const { page, context, errors } = await phonePage(treasurer);
     await page.goto(`${site.baseUrl}/console/orders`);
     await page.getByRole('heading', { name: 'Orders' }).waitFor();
     const card = page.getByTestId('orders-card');
     await card.waitFor();
-    expect(await card.evaluate((el) => el.scrollWidth > el.clientWidth && getComputedStyle(el).overflowX === 'auto')).toBe(true);
+    expect(
+      await card.evaluate((el) => el.scrollWidth > el.clientWidth && getComputedStyle(el).overflowX === 'auto'),
+    ).toBe(true);
     expect(await overflowing(page)).toEqual([]);
     await settled(page);
     await screenshot(page, 'console-orders-phone');
@@ -242,7 +311,8 @@ describe('the shop console on a phone', () => {
     const staffApi = new Client(t.app);
     await staffApi.signIn(treasurer);
     const sticker = await stockSticker(staffApi, 5);
-    const name = (await staffApi.get(`/api/admin/products`)).body.items.find((p: { id: number }) => p.id === sticker.id).name as string;
+    const name = (await staffApi.get(`/api/admin/products`)).body.items.find((p: { id: number }) => p.id === sticker.id)
+      .name as string;
 
     const { page, context, errors } = await phonePage(treasurer);
     await page.goto(`${site.baseUrl}/console/products`);
@@ -258,7 +328,10 @@ describe('the shop console on a phone', () => {
     await field.fill('4');
     await field.press('Enter');
     await page.getByText(`${name}: at most 4 per order.`).waitFor();
-    expect((await staffApi.get('/api/admin/products')).body.items.find((p: { id: number }) => p.id === sticker.id).maxPerOrder).toBe(4);
+    expect(
+      (await staffApi.get('/api/admin/products')).body.items.find((p: { id: number }) => p.id === sticker.id)
+        .maxPerOrder,
+    ).toBe(4);
 
     const form = page.getByRole('spinbutton', { name: 'Most units per order', exact: true });
     expect(await form.inputValue()).toBe('20');
@@ -275,7 +348,9 @@ describe('the shop console on a phone', () => {
 
 describe('the sponsor portal on a phone', () => {
   it('shows a standing listing as delivered and the cash received as the PDF does', async () => {
-    const s = await sponsorWithPromises('Listingly Sprockets', [{ kind: 'sponsors_page', quantity: 1, dueOn: `${year}-01-31` }]);
+    const s = await sponsorWithPromises('Listingly Sprockets', [
+      { kind: 'sponsors_page', quantity: 1, dueOn: `${year}-01-31` },
+    ]);
     const contact = await createUser(t.deps.db, ['fan', 'sponsor'], 'Zoë Ørsted-Nguyễn');
     expect((await admin.post(`/api/admin/sponsors/${s.id}/contacts`, { email: contact.email })).status).toBe(201);
     const { page, context, errors } = await phonePage(contact);

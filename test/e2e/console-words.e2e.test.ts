@@ -28,30 +28,70 @@ browserSuite({}, async (s) => {
   await api.signIn(staff);
 
   // A sponsor owed a build log credit (overdue), a sponsors page listing and a social post, with one credit by hand.
-  const sponsor = await api.post('/api/admin/sponsors', { name: `Words Test Widgets ${Date.now()}`, website: 'https://example.test', blurb: 'Invented for a test.' });
+  const sponsor = await api.post('/api/admin/sponsors', {
+    name: `Words Test Widgets ${Date.now()}`,
+    website: 'https://example.test',
+    blurb: 'Invented for a test.',
+  });
   ids.sponsor = sponsor.body.id;
   const deliverables = [
     { kind: 'build_log_credit', quantity: 2, dueOn: '2026-01-15' },
     { kind: 'sponsors_page', quantity: 1, dueOn: '2099-06-30' },
     { kind: 'social_post', quantity: 1, dueOn: '2099-07-31' },
   ];
-  expect((await api.post(`/api/admin/sponsors/${ids.sponsor}/agreements`, { season: '2099', cashCents: 25_000, deliverables })).status).toBe(201);
-  expect((await api.post(`/api/admin/sponsors/${ids.sponsor}/credits`, { kind: 'social_post', url: 'https://example.test/post/1' })).status).toBe(201);
+  expect(
+    (
+      await api.post(`/api/admin/sponsors/${ids.sponsor}/agreements`, {
+        season: '2099',
+        cashCents: 25_000,
+        deliverables,
+      })
+    ).status,
+  ).toBe(201);
+  expect(
+    (
+      await api.post(`/api/admin/sponsors/${ids.sponsor}/credits`, {
+        kind: 'social_post',
+        url: 'https://example.test/post/1',
+      })
+    ).status,
+  ).toBe(201);
 
   // A run at the printer with one paid order in it.
   const shirt = await openShirt(api);
   const buyer = new Client(t.app);
-  const order = await buyer.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(buyer, 'canada'), email: `words-${Date.now()}@example.test`, paymentToken: 'tok_visa' });
+  const order = await buyer.post('/api/orders', {
+    items: [{ variantId: shirt.variants[0].id, quantity: 1 }],
+    shipTo: MB_ADDRESS,
+    shippingMethodId: await methodId(buyer, 'canada'),
+    email: `words-${Date.now()}@example.test`,
+    paymentToken: 'tok_visa',
+  });
   expect(order.status).toBe(201);
   ids.order = order.body.order.id;
   ids.run = shirt.run.id;
-  for (const state of ['closed', 'in_production']) expect((await api.post(`/api/admin/runs/${shirt.run.id}/state`, { state })).status).toBe(200);
+  for (const state of ['closed', 'in_production'])
+    expect((await api.post(`/api/admin/runs/${shirt.run.id}/state`, { state })).status).toBe(200);
 
   // A members-only post scheduled for later, and a draft.
-  const later = await api.post('/api/admin/posts', { title: 'Members only: nose cone print settings', markdown: 'Layer heights for the nose cone.', membersOnly: true, status: 'scheduled', publishAt: '2099-03-08T08:30:00Z' });
+  const later = await api.post('/api/admin/posts', {
+    title: 'Members only: nose cone print settings',
+    markdown: 'Layer heights for the nose cone.',
+    membersOnly: true,
+    status: 'scheduled',
+    publishAt: '2099-03-08T08:30:00Z',
+  });
   expect(later.status).toBe(201);
   ids.post = later.body.post?.id ?? later.body.id;
-  expect((await api.post('/api/admin/posts', { title: 'Draft: fin can jig', markdown: 'Work in progress.', status: 'draft' })).status).toBe(201);
+  expect(
+    (
+      await api.post('/api/admin/posts', {
+        title: 'Draft: fin can jig',
+        markdown: 'Work in progress.',
+        status: 'draft',
+      })
+    ).status,
+  ).toBe(201);
 
   // A member, and a launch day on the calendar.
   const member = await memberWithCard(t, { name: 'Ottilie Wordsmith' });
@@ -115,9 +155,16 @@ describe.each(Object.entries(SIZES))('the console on a %s', (size, options) => {
     await page.getByText(p.ready).filter({ visible: true }).first().waitFor();
     await page.waitForLoadState('networkidle');
     const text = await readable(page);
-    expect([...new Set([...(text.match(SNAKE_CASE) ?? []), ...(text.match(SECONDS) ?? []), ...(text.match(/America\/\w+|hundredths/g) ?? [])])]).toEqual([]);
+    expect([
+      ...new Set([
+        ...(text.match(SNAKE_CASE) ?? []),
+        ...(text.match(SECONDS) ?? []),
+        ...(text.match(/America\/\w+|hundredths/g) ?? []),
+      ]),
+    ]).toEqual([]);
     expect(await seriousViolations(page)).toEqual([]);
-    if (['overview', 'books', 'sponsor', 'posts', 'runs', 'member'].includes(p.name)) await screenshot(page, `console-words-${p.name}-${size}`);
+    if (['overview', 'books', 'sponsor', 'posts', 'runs', 'member'].includes(p.name))
+      await screenshot(page, `console-words-${p.name}-${size}`);
     expect(errors).toEqual([]);
   });
 });
@@ -130,14 +177,18 @@ describe('the card-fee estimate', () => {
     await page.goto(`${site.baseUrl}/console/books`);
     const percent = page.getByLabel('Percentage of each payment');
     // Stored as 290 basis points (the default): read as 2.9.
-    await page.waitForFunction(() => (document.querySelector('input[formcontrolname="percent"]') as HTMLInputElement | null)?.value === '2.9');
+    await page.waitForFunction(
+      () => (document.querySelector('input[formcontrolname="percent"]') as HTMLInputElement | null)?.value === '2.9',
+    );
     expect(await percent.inputValue()).toBe('2.9');
     await percent.fill('2.955');
     await page.getByRole('button', { name: 'Save estimate' }).click();
     await page.locator('mat-error', { hasText: 'Use at most two decimals' }).waitFor();
     await screenshot(page, 'console-words-fee-refused');
     // Suites share this club-wide setting: nothing was stored.
-    expect((await t.deps.db('settings').where({ key: 'processor_fees' }).first('value'))?.value?.percentBasisPoints ?? 290).toBe(290);
+    expect(
+      (await t.deps.db('settings').where({ key: 'processor_fees' }).first('value'))?.value?.percentBasisPoints ?? 290,
+    ).toBe(290);
     await context.close();
   });
 });

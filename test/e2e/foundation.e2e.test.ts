@@ -21,7 +21,10 @@ describe('the storefront in a browser', () => {
     await page.goto(site.baseUrl + '/');
     await page.getByRole('heading', { name: 'Printed, flown, filmed.' }).waitFor();
     // The names come from the deployment (TEAM_NAME, CLUB_NAME; here the development defaults).
-    await page.getByRole('contentinfo').getByText(`for ${t.config.site.teamName} and the ${t.config.site.clubName}`).waitFor();
+    await page
+      .getByRole('contentinfo')
+      .getByText(`for ${t.config.site.teamName} and the ${t.config.site.clubName}`)
+      .waitFor();
     await screenshot(page, 'storefront');
     await signInThroughForm(page, site.baseUrl, fan.email, fan.password);
     await page.getByTestId('account-menu').getByText('Wren Halvorsen').waitFor();

@@ -27,19 +27,31 @@ browserSuite({}, async (s) => {
     priceCents: 600,
     weightGrams: 20,
     variants: [{ label: 'Pair', sku: `RB-${tag}` }],
-    run: { cap: 30, opensAt: new Date(Date.now() - 86400_000).toISOString(), closesAt: new Date(Date.now() + 5 * 86400_000).toISOString(), unitCostCents: 100 },
+    run: {
+      cap: 30,
+      opensAt: new Date(Date.now() - 86400_000).toISOString(),
+      closesAt: new Date(Date.now() + 5 * 86400_000).toISOString(),
+      unitCostCents: 100,
+    },
   });
   expect(made.status).toBe(201);
   slug = made.body.product.slug;
   const body = `Shock cord mount details ${tag}.`;
-  const hidden = await staff.post('/api/admin/posts', { title: `Shock cord mount ${tag}`, summary: 'Where the cord meets the tube.', markdown: body, status: 'published', membersOnly: true });
+  const hidden = await staff.post('/api/admin/posts', {
+    title: `Shock cord mount ${tag}`,
+    summary: 'Where the cord meets the tube.',
+    markdown: body,
+    status: 'published',
+    membersOnly: true,
+  });
   expect(hidden.status).toBe(201);
   membersPost = { slug: hidden.body.post?.slug ?? hidden.body.slug, body };
 });
 
 // Angular reports hydration mismatches (NG05xx) as console errors, so `consoleErrors` catches them.
 
-const phone = (): Promise<BrowserContext> => browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+const phone = (): Promise<BrowserContext> =>
+  browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
 
 /** Holds the app's main script back until `release()`, so the page is only the server's HTML until then. */
 async function holdScript(page: Page): Promise<() => void> {
@@ -85,7 +97,12 @@ describe('hydration of the public pages on a phone', () => {
     expect(await serverMarks(page)).toBeGreaterThan(0);
     release();
     await hydrated(page);
-    expect(await page.locator('main h1').first().evaluate((el) => (el as HTMLElement & { ssrMark?: boolean }).ssrMark === true)).toBe(true);
+    expect(
+      await page
+        .locator('main h1')
+        .first()
+        .evaluate((el) => (el as HTMLElement & { ssrMark?: boolean }).ssrMark === true),
+    ).toBe(true);
     await screenshot(page, `hydrated-${what.replace(/ /g, '-')}-phone`);
     expect(errors).toEqual([]);
     await ctx.close();
@@ -108,8 +125,14 @@ describe('a tap before the script has arrived', () => {
     await page.getByTestId('cart-count').filter({ hasText: '1' }).waitFor();
     await page.evaluate(axeSource);
     const violations = await page.evaluate(async () => {
-      const axe = (window as unknown as { axe: { run(ctx: Document, opts: object): Promise<{ violations: { id: string; impact: string }[] }> } }).axe;
-      return (await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] } })).violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id);
+      const axe = (
+        window as unknown as {
+          axe: { run(ctx: Document, opts: object): Promise<{ violations: { id: string; impact: string }[] }> };
+        }
+      ).axe;
+      return (await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] } })).violations
+        .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+        .map((v) => v.id);
     });
     expect(violations).toEqual([]);
     await screenshot(page, 'hydrated-replayed-add-to-cart-phone');

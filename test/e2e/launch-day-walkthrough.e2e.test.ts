@@ -18,7 +18,12 @@ import { memberWithCard } from '../api/launch-fixtures';
 // A phone held at the range table (a common 6.1-inch screen, in CSS pixels), and a laptop at home.
 const PHONE = { viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true };
 const DESKTOP = { viewport: { width: 1366, height: 900 } };
-const today = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Winnipeg', year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+const today = new Intl.DateTimeFormat('en-CA', {
+  timeZone: 'America/Winnipeg',
+  year: 'numeric',
+  month: '2-digit',
+  day: '2-digit',
+}).format(new Date());
 const title = `Walk-through fly day ${Date.now().toString(36)}`;
 
 let t: TestApp;
@@ -40,7 +45,11 @@ beforeAll(async () => {
   const video = path.join(videoDir, 'member-card.y4m');
   writeQrVideo(video, member.token);
   browser = await launchBrowser();
-  cameraBrowser = await launchBrowser(['--use-fake-ui-for-media-stream', '--use-fake-device-for-media-stream', `--use-file-for-fake-video-capture=${video}`]);
+  cameraBrowser = await launchBrowser([
+    '--use-fake-ui-for-media-stream',
+    '--use-fake-device-for-media-stream',
+    `--use-file-for-fake-video-capture=${video}`,
+  ]);
 });
 afterAll(async () => {
   await browser?.close();
@@ -123,7 +132,10 @@ describe('a launch day walked through on phones', () => {
     const warnings = f.getByTestId('card-warnings');
     await warnings.getByText(/expected altitude of 650 m is above this launch's ceiling of 600 m/).waitFor();
     await warnings.getByText(/This looks like a high-power flight/).waitFor();
-    await f.getByRole('note', { name: 'Who decides' }).getByText('The range safety officer decides what flies').waitFor();
+    await f
+      .getByRole('note', { name: 'Who decides' })
+      .getByText('The range safety officer decides what flies')
+      .waitFor();
     expect(await seriousViolations(f)).toEqual([]);
     expect(await pageWidth(f)).toBeLessThanOrEqual(390);
     await screenshot(f, 'walkthrough-4-card-filed-phone');
@@ -149,16 +161,31 @@ describe('a launch day walked through on phones', () => {
     const cdp = await flyer.context.newCDPSession(f);
     await cdp.send('Network.enable');
     // About 20 kB a second up: a weak phone signal, so the upload's progress shows.
-    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 100, downloadThroughput: 500_000, uploadThroughput: 20_000 });
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false,
+      latency: 100,
+      downloadThroughput: 500_000,
+      uploadThroughput: 20_000,
+    });
     const log = syntheticAltimeterLog({ boostMps2: 60, burnS: 1.6, descentMps: 6 });
-    await f.locator('#flight-log-file').setInputFiles({ name: 'prairie-lantern.csv', mimeType: 'text/csv', buffer: Buffer.from(log) });
+    await f
+      .locator('#flight-log-file')
+      .setInputFiles({ name: 'prairie-lantern.csv', mimeType: 'text/csv', buffer: Buffer.from(log) });
     await f.getByRole('table', { name: /First rows of prairie-lantern.csv/ }).waitFor();
     await f.getByRole('button', { name: 'Upload and analyse' }).click();
     await f.getByRole('progressbar', { name: /^Uploading: \d+%$/ }).waitFor();
     await screenshot(f, 'walkthrough-6-upload-progress-phone');
-    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false,
+      latency: 0,
+      downloadThroughput: -1,
+      uploadThroughput: -1,
+    });
     // 0.5 x 60 x 1.6^2 + 96^2 / (2 x 9.80665) = 76.8 + 469.9 = 546.7 m (constant-acceleration kinematics, analytic).
-    await f.getByTestId('flight-summary').getByText(/^54[67](\.\d)? m$/).waitFor();
+    await f
+      .getByTestId('flight-summary')
+      .getByText(/^54[67](\.\d)? m$/)
+      .waitFor();
     await f.locator('canvas').first().waitFor();
     await f.getByRole('note', { name: 'Who decides' }).waitFor();
     // The upload component's hidden file input (opened by its labelled button) is left to that component's owner.
@@ -169,7 +196,10 @@ describe('a launch day walked through on phones', () => {
     // The logbook counts the flight and its height.
     await f.goto(`${site.baseUrl}/account/flights`);
     await f.getByRole('link', { name: 'Prairie Lantern', exact: true }).waitFor();
-    await f.getByTestId('logbook-totals').getByText(/^54[67] m$/).waitFor();
+    await f
+      .getByTestId('logbook-totals')
+      .getByText(/^54[67] m$/)
+      .waitFor();
     expect(await seriousViolations(f)).toEqual([]);
     expect(await pageWidth(f)).toBeLessThanOrEqual(390);
     await screenshot(f, 'walkthrough-8-logbook-phone');
@@ -204,7 +234,10 @@ describe('a launch day walked through on phones', () => {
     expect(await seriousViolations(desk.page)).toEqual([]);
     await screenshot(desk.page, 'walkthrough-10-calendar-desktop');
     await desk.page.goto(resultsUrl);
-    await desk.page.getByRole('row', { name: /Prairie Lantern/ }).getByText('Pippa W.').waitFor();
+    await desk.page
+      .getByRole('row', { name: /Prairie Lantern/ })
+      .getByText('Pippa W.')
+      .waitFor();
     expect(await desk.page.getByText('Philippa Windrow').count()).toBe(0);
     expect(await seriousViolations(desk.page)).toEqual([]);
     await screenshot(desk.page, 'walkthrough-11-results-desktop');

@@ -8,7 +8,12 @@ import { createLaunch, memberWithCard } from '../api/launch-fixtures';
 
 // A phone held at the range table (a common 6.1-inch screen, in CSS pixels).
 const PHONE = { viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true };
-const today = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Winnipeg', year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+const today = new Intl.DateTimeFormat('en-CA', {
+  timeZone: 'America/Winnipeg',
+  year: 'numeric',
+  month: '2-digit',
+  day: '2-digit',
+}).format(new Date());
 
 let t: TestApp;
 let browser: Browser;
@@ -20,7 +25,10 @@ let launchId: number;
 browserSuite({ clock: fixedClock(new Date().toISOString()) }, async (s) => {
   ({ t, site, browser } = s);
   rso = (await signedIn(t.app, t.deps.db, ['fan', 'range_officer'])).client;
-  launchId = await createLaunch(rso, today, { title: `Phone test launch ${Date.now().toString(36)}`, ceilingMetres: 600 });
+  launchId = await createLaunch(rso, today, {
+    title: `Phone test launch ${Date.now().toString(36)}`,
+    ceilingMetres: 600,
+  });
 });
 
 async function phone(): Promise<{ context: BrowserContext; page: Page }> {
@@ -61,7 +69,10 @@ describe('launch day on a phone', () => {
     await flyer.page.getByLabel('Motor 1').fill('H128W-M');
     await flyer.page.getByLabel('Pad (if the range table gave you one)').fill('5');
     await flyer.page.getByRole('button', { name: 'File the card' }).click();
-    await flyer.page.getByTestId('card-warnings').getByText(/high-power flight/).waitFor();
+    await flyer.page
+      .getByTestId('card-warnings')
+      .getByText(/high-power flight/)
+      .waitFor();
     expect(await seriousViolations(flyer.page)).toEqual([]);
     await screenshot(flyer.page, 'launches-card-filed-phone');
     await flyer.page.getByRole('button', { name: 'File another card' }).click();
@@ -83,7 +94,10 @@ describe('launch day on a phone', () => {
     await officer.page.getByText('Pad 5').waitFor();
     await officer.page.getByText('range safety officer decides', { exact: false }).first().waitFor();
     await big.getByRole('button', { name: 'Approve' }).click();
-    await big.getByRole('alert').getByText(/beyond the flyer/).waitFor();
+    await big
+      .getByRole('alert')
+      .getByText(/beyond the flyer/)
+      .waitFor();
     await small.getByRole('button', { name: 'Approve' }).click();
     await small.getByText('Cleared to fly').waitFor();
     await small.getByLabel('How it ended').click();
@@ -104,10 +118,17 @@ describe('launch day on a phone', () => {
     const flightUrl = officer.page.url();
     await flyer.page.goto(flightUrl);
     await flyer.page.getByText('range safety officer decides', { exact: false }).first().waitFor();
-    await flyer.page.locator('#flight-log-file').setInputFiles({ name: 'little-gopher.csv', mimeType: 'text/csv', buffer: Buffer.from(syntheticAltimeterLog({ boostMps2: 50, burnS: 1.5, descentMps: 5 })) });
+    await flyer.page.locator('#flight-log-file').setInputFiles({
+      name: 'little-gopher.csv',
+      mimeType: 'text/csv',
+      buffer: Buffer.from(syntheticAltimeterLog({ boostMps2: 50, burnS: 1.5, descentMps: 5 })),
+    });
     await flyer.page.getByRole('button', { name: 'Upload and analyse' }).click();
     // 56.25 + 75^2 / (2 x 9.80665) = 343 m (constant-acceleration kinematics, analytic).
-    await flyer.page.getByTestId('flight-summary').getByText(/^34[23](\.\d)? m$/).waitFor();
+    await flyer.page
+      .getByTestId('flight-summary')
+      .getByText(/^34[23](\.\d)? m$/)
+      .waitFor();
     await flyer.page.locator('canvas').first().waitFor();
     // The upload component's hidden file input (opened by its labelled button) is left to that component's owner.
     expect(await seriousViolations(flyer.page, ['#flight-log-file'])).toEqual([]);
@@ -117,7 +138,10 @@ describe('launch day on a phone', () => {
     await flyer.page.goto(`${site.baseUrl}/account/flights`);
     await flyer.page.getByTestId('logbook-totals').waitFor();
     await flyer.page.getByRole('link', { name: 'Big Bale', exact: true }).waitFor();
-    await flyer.page.getByTestId('logbook-totals').getByText(/^34[23] m$/).waitFor();
+    await flyer.page
+      .getByTestId('logbook-totals')
+      .getByText(/^34[23] m$/)
+      .waitFor();
     expect(requests.every((u) => u.startsWith(site.baseUrl) || u.startsWith('data:'))).toBe(true);
     await flyer.context.close();
     await officer.context.close();

@@ -21,7 +21,9 @@ describe('dues with a publishable key', () => {
     const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
     const page = await context.newPage();
     const errors = consoleErrors(page);
-    await page.route('https://js.stripe.com/**', (route) => route.fulfill({ contentType: 'application/javascript', body: STRIPE_JS_STAND_IN }));
+    await page.route('https://js.stripe.com/**', (route) =>
+      route.fulfill({ contentType: 'application/javascript', body: STRIPE_JS_STAND_IN }),
+    );
     const leaks: string[] = [];
     page.on('request', (req) => {
       if ((req.postData() ?? '').includes('4242')) leaks.push(req.url());
@@ -47,7 +49,10 @@ describe('dues with a publishable key', () => {
     await card.fill('4242 4242 4242 4242');
     await screenshot(page, 'membership-card-frame');
     await page.getByRole('button', { name: 'Pay dues and join' }).click();
-    await page.getByRole('status').getByText(/Welcome aboard/).waitFor();
+    await page
+      .getByRole('status')
+      .getByText(/Welcome aboard/)
+      .waitFor();
     // The stand-in frame hands over tok_visa, the processor's test Visa ending 4242.
     await page.getByTestId('card-on-file').getByText('Visa ending 4242').waitFor();
     // A November join is paid through next year, so renewing waits until January.
@@ -63,7 +68,10 @@ describe('dues with a publishable key', () => {
     expect(await seriousViolations(page)).toEqual([]);
     expect(leaks).toEqual([]);
     expect(errors).toEqual([]);
-    const row = await t.deps.db('memberships').where('user_id', fan.id).first('status', 'card_brand', 'card_last4', 'auto_renew');
+    const row = await t.deps
+      .db('memberships')
+      .where('user_id', fan.id)
+      .first('status', 'card_brand', 'card_last4', 'auto_renew');
     expect(row).toEqual({ status: 'active', card_brand: 'Visa', card_last4: '4242', auto_renew: true });
     await context.close();
   });

@@ -33,7 +33,14 @@ async function member(name: string) {
   await client.signIn(user);
   const res = await client.post('/api/membership', {
     planId: plans.adult,
-    profile: { legalName: `${name} ${tag}`, dateOfBirth: '1985-02-14', address: '3 Gopher Lane, Gopher Flats, MB', phone: '204-555-0170', emergencyContact: 'Wren, 204-555-0171', certificationLevel: 'L1' },
+    profile: {
+      legalName: `${name} ${tag}`,
+      dateOfBirth: '1985-02-14',
+      address: '3 Gopher Lane, Gopher Flats, MB',
+      phone: '204-555-0170',
+      emergencyContact: 'Wren, 204-555-0171',
+      certificationLevel: 'L1',
+    },
     waiverVersion: '2026-1',
     paymentToken: 'tok_ca',
   });
@@ -52,7 +59,10 @@ function focusedField(page: Page) {
     const el = document.activeElement as HTMLElement | null;
     const field = el?.closest('mat-form-field');
     const box = el?.getBoundingClientRect();
-    return { label: field?.querySelector('mat-label')?.textContent?.trim() ?? el?.tagName ?? null, onScreen: !!box && box.top >= 0 && box.bottom <= window.innerHeight };
+    return {
+      label: field?.querySelector('mat-label')?.textContent?.trim() ?? el?.tagName ?? null,
+      onScreen: !!box && box.top >= 0 && box.bottom <= window.innerHeight,
+    };
   });
 }
 
@@ -62,7 +72,11 @@ function focusedField(page: Page) {
  */
 function cutLabels(page: Page) {
   return page.evaluate(() =>
-    [...document.querySelectorAll<HTMLElement>('form[aria-labelledby="join-heading"] mat-form-field .mdc-floating-label')]
+    [
+      ...document.querySelectorAll<HTMLElement>(
+        'form[aria-labelledby="join-heading"] mat-form-field .mdc-floating-label',
+      ),
+    ]
       .filter((l) => {
         const room = l.closest('.mat-mdc-form-field-infix')!.getBoundingClientRect();
         return l.getBoundingClientRect().right > room.right + 1 || l.scrollWidth > l.clientWidth + 1;
@@ -97,7 +111,10 @@ describe('club dues on a phone (390x844)', () => {
     await page.getByLabel('Emergency contact', { exact: true }).fill('Ines Quance 204-555-0181');
     await page.getByLabel('Association member number', { exact: true }).fill('NA-70021');
     // The expiry picked in the calendar: the 15th of the month it opens on.
-    await page.locator('mat-form-field', { hasText: 'Association expiry' }).getByRole('button', { name: 'Open calendar' }).click();
+    await page
+      .locator('mat-form-field', { hasText: 'Association expiry' })
+      .getByRole('button', { name: 'Open calendar' })
+      .click();
     await page.locator('.mat-calendar-body-cell-content', { hasText: /^\s*15\s*$/ }).waitFor();
     await screenshot(page, 'membership-phone-date-picker');
     await page.locator('.mat-calendar-body-cell-content', { hasText: /^\s*15\s*$/ }).click();
@@ -117,8 +134,16 @@ describe('club dues on a phone (390x844)', () => {
 
     await page.getByLabel('Phone', { exact: true }).fill('204-555-0180');
     await page.getByRole('button', { name: 'Pay dues and join' }).click();
-    await page.getByRole('status').getByText(/Welcome aboard/).waitFor();
-    const row = (await t.deps.db.raw(`SELECT to_char(date_of_birth, 'YYYY-MM-DD') AS born, to_char(association_expires, 'YYYY-MM-DD') AS expires, to_char(certification_date, 'YYYY-MM-DD') AS certified FROM memberships WHERE user_id = ?`, [fan.id])).rows[0];
+    await page
+      .getByRole('status')
+      .getByText(/Welcome aboard/)
+      .waitFor();
+    const row = (
+      await t.deps.db.raw(
+        `SELECT to_char(date_of_birth, 'YYYY-MM-DD') AS born, to_char(association_expires, 'YYYY-MM-DD') AS expires, to_char(certification_date, 'YYYY-MM-DD') AS certified FROM memberships WHERE user_id = ?`,
+        [fan.id],
+      )
+    ).rows[0];
     expect(row).toEqual({ born: '1991-05-05', expires, certified: '2019-08-24' });
     expect(await seriousViolations(page)).toEqual([]);
     expect(errors).toEqual([REFUSAL_LOGGED]);
@@ -143,7 +168,12 @@ describe('club dues on a phone (390x844)', () => {
     await expect(toggle.getAttribute('aria-describedby')).resolves.toContain('auto-problem');
     const renewForm = page.getByRole('form', { name: 'Renew', exact: true });
     await expect(renewForm.getByText('Choose a card to keep on file.').count()).resolves.toBe(0);
-    await expect(page.getByRole('form', { name: 'Automatic renewal', exact: true }).getByText('Choose a card to keep on file.').count()).resolves.toBeGreaterThan(0);
+    await expect(
+      page
+        .getByRole('form', { name: 'Automatic renewal', exact: true })
+        .getByText('Choose a card to keep on file.')
+        .count(),
+    ).resolves.toBeGreaterThan(0);
     const [switchBox, problemBox] = [await toggle.boundingBox(), await problem.boundingBox()];
     expect(Math.abs(problemBox!.y - switchBox!.y)).toBeLessThan(80);
     await screenshot(page, 'membership-phone-auto-renew-refused');
@@ -203,7 +233,12 @@ describe('club dues on a phone (390x844)', () => {
       return {
         light: light.getAttribute('fill'),
         dark: dark.getAttribute('stroke'),
-        quiet: Math.min(ink.x - view.x, view.x + view.width - (ink.x + ink.width), ink.y - 0.5 - view.y, view.y + view.height - (ink.y + ink.height + 0.5)),
+        quiet: Math.min(
+          ink.x - view.x,
+          view.x + view.width - (ink.x + ink.width),
+          ink.y - 0.5 - view.y,
+          view.y + view.height - (ink.y + ink.height + 0.5),
+        ),
         behind: getComputedStyle(svg.parentElement!).backgroundColor,
       };
     });

@@ -26,7 +26,15 @@ async function memberSince(name: string, on: string, over: Record<string, unknow
   clock.set(`${on}T18:00:00Z`);
   const res = await client.post('/api/membership', {
     planId: plans.adult,
-    profile: { legalName: `${name} ${tag}`, dateOfBirth: '1988-10-03', address: '5 Slough Road, Gopher Flats, MB', phone: '204-555-0150', emergencyContact: 'Rook, 204-555-0151', certificationLevel: 'L1', ...over },
+    profile: {
+      legalName: `${name} ${tag}`,
+      dateOfBirth: '1988-10-03',
+      address: '5 Slough Road, Gopher Flats, MB',
+      phone: '204-555-0150',
+      emergencyContact: 'Rook, 204-555-0151',
+      certificationLevel: 'L1',
+      ...over,
+    },
     waiverVersion: '2026-1',
     paymentToken: 'tok_ca',
   });
@@ -64,7 +72,10 @@ describe('club dues in a browser', () => {
     await pick(page, 'Plan', 'Adult');
     await page.getByTestId('join-quote').getByText('2027-12-31').waitFor();
     await page.getByRole('button', { name: 'Pay dues and join' }).click();
-    await page.getByRole('status').getByText(/Welcome aboard/).waitFor();
+    await page
+      .getByRole('status')
+      .getByText(/Welcome aboard/)
+      .waitFor();
     await expect(page.getByTestId('term-end').textContent()).resolves.toContain('2026-11-20 to 2027-12-31');
     await screenshot(page, 'membership-joined');
     await page.getByRole('link', { name: 'Show my member card' }).click();
@@ -114,7 +125,10 @@ describe('club dues in a browser', () => {
     // Move focus off the last select so its closing panel does not sit over the screenshot.
     await page.getByRole('heading', { name: 'Members' }).click();
     await screenshot(page, 'membership-roster-filtered');
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Export CSV' }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('link', { name: 'Export CSV' }).click(),
+    ]);
     const csv = readFileSync((await download.path())!, 'utf8');
     const lines = csv.trim().split('\r\n');
     expect(lines[0]).toMatch(/^Member number,Name,E-mail,Plan,Status/);
@@ -131,7 +145,10 @@ describe('club dues in a browser', () => {
     await signInThroughForm(page, site.baseUrl, treasurer.email, treasurer.password);
     await page.goto(`${site.baseUrl}/console/members`);
     await page.getByLabel('Search name, e-mail or number').fill(`Sigrun Oakes ${tag}`);
-    await page.getByRole('row', { name: new RegExp(`Sigrun Oakes ${tag}`) }).getByRole('link').click();
+    await page
+      .getByRole('row', { name: new RegExp(`Sigrun Oakes ${tag}`) })
+      .getByRole('link')
+      .click();
     await page.getByRole('heading', { name: /Sigrun Oakes/ }).waitFor();
     await page.getByLabel('Amount (CAD)').fill('45.00');
     await page.getByLabel('Receipt number').fill('GF-0712');
@@ -148,7 +165,10 @@ describe('club dues in a browser', () => {
   });
 
   it('tells staff at check-in what is claimed and what is checked, and whether the card is unknown', async () => {
-    const user = await memberSince('Rhosyn Tallow', '2026-06-10', { associationNumber: 'NA-808', associationExpires: '2027-04-30' });
+    const user = await memberSince('Rhosyn Tallow', '2026-06-10', {
+      associationNumber: 'NA-808',
+      associationExpires: '2027-04-30',
+    });
     const memberClient = new Client(t.app);
     await memberClient.signIn(user);
     const token: string = (await memberClient.get('/api/membership/card')).body.card.token;
@@ -159,22 +179,42 @@ describe('club dues in a browser', () => {
     await page.getByLabel('Card code').fill(token);
     await page.getByRole('button', { name: 'Check' }).click();
     // The association details are the member's own claim: shown in words, and not cleared to fly.
-    await page.getByTestId('check-in-verdict').getByText(/Not cleared to fly/).waitFor();
-    await page.getByTestId('answer-association').getByText(/NA-808 to Apr 30, 2027: claimed, not yet checked/).waitFor();
+    await page
+      .getByTestId('check-in-verdict')
+      .getByText(/Not cleared to fly/)
+      .waitFor();
+    await page
+      .getByTestId('answer-association')
+      .getByText(/NA-808 to Apr 30, 2027: claimed, not yet checked/)
+      .waitFor();
     await screenshot(page, 'membership-check-in-claimed');
     const treasurer = new Client(t.app);
     await treasurer.signIn(await createUser(t.deps.db, ['fan', 'treasurer'], 'Card Checker'));
     const row = await t.deps.db('memberships').where('user_id', user.id).first('id');
-    const verified = await treasurer.post(`/api/admin/members/${row.id}/verifications`, { what: 'association', against: 'association card, seen at the field', associationNumber: 'NA-808', associationExpires: '2027-04-30' });
+    const verified = await treasurer.post(`/api/admin/members/${row.id}/verifications`, {
+      what: 'association',
+      against: 'association card, seen at the field',
+      associationNumber: 'NA-808',
+      associationExpires: '2027-04-30',
+    });
     expect(verified.status).toBe(200);
     await page.getByLabel('Card code').fill(token);
     await page.getByRole('button', { name: 'Check' }).click();
-    await page.getByTestId('check-in-verdict').getByText(/May fly/).waitFor();
-    await page.getByTestId('answer-association').getByText(/checked .* by Card Checker against association card/).waitFor();
+    await page
+      .getByTestId('check-in-verdict')
+      .getByText(/May fly/)
+      .waitFor();
+    await page
+      .getByTestId('answer-association')
+      .getByText(/checked .* by Card Checker against association card/)
+      .waitFor();
     await screenshot(page, 'membership-check-in-valid');
     await page.getByLabel('Card code').fill(token.slice(0, -2) + 'xx');
     await page.getByRole('button', { name: 'Check' }).click();
-    await page.getByTestId('check-in-verdict').getByText(/Unknown card/).waitFor();
+    await page
+      .getByTestId('check-in-verdict')
+      .getByText(/Unknown card/)
+      .waitFor();
     await page.close();
   });
 
@@ -193,9 +233,14 @@ describe('club dues in a browser', () => {
     await page.getByLabel('Joining fee (CAD)').fill('5.00');
     await page.getByRole('button', { name: 'Add plan' }).click();
     await page.getByRole('status').getByText('Plan Range crew saved.').waitFor();
-    await page.getByRole('row', { name: new RegExp(code) }).getByRole('cell', { name: '$12.50' }).waitFor();
+    await page
+      .getByRole('row', { name: new RegExp(code) })
+      .getByRole('cell', { name: '$12.50' })
+      .waitFor();
     await screenshot(page, 'membership-plan-added');
-    const listed = (await new Client(t.app).get('/api/membership/plans')).body.items.find((p: { code: string }) => p.code === code);
+    const listed = (await new Client(t.app).get('/api/membership/plans')).body.items.find(
+      (p: { code: string }) => p.code === code,
+    );
     expect(listed).toEqual(expect.objectContaining({ name: 'Range crew', duesCents: 1250, joiningFeeCents: 500 }));
     await page.close();
   });

@@ -32,7 +32,8 @@ function watchErrors(page: Page): { uncaught: string[]; console: string[] } {
 }
 
 /** A phone-sized context (390x844). */
-const phone = (): Promise<BrowserContext> => browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+const phone = (): Promise<BrowserContext> =>
+  browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
 
 /** Waits until the router has settled and the page's data has arrived. */
 async function settle(page: Page): Promise<void> {
@@ -55,7 +56,9 @@ describe('addresses that lead nowhere, on a phone', () => {
     await screenshot(page, `not-found-${what.replace(/ /g, '-')}-phone`);
     expect(errors.uncaught).toEqual([]);
     // The API's own 404 is the one console line the browser writes for a missing record; nothing else may appear.
-    expect(errors.console.filter((m) => !/Failed to load resource: the server responded with a status of 404/.test(m))).toEqual([]);
+    expect(
+      errors.console.filter((m) => !/Failed to load resource: the server responded with a status of 404/.test(m)),
+    ).toEqual([]);
     await page.getByRole('main').getByRole('link', { name: back }).click();
     await page.waitForURL((u) => u.pathname === backTo);
     await ctx.close();
@@ -66,10 +69,27 @@ describe('the main pages on a phone', () => {
   it('show no uncaught error and write no console error, for a visitor and for a signed-in fan', async () => {
     const staffApi = (await signedIn(t.app, t.deps.db, ['fan', 'treasurer', 'editor'])).client;
     const shirt = await openShirt(staffApi, { cap: 20 });
-    const post = await staffApi.post('/api/admin/posts', { title: `Fin can jig ${shirt.slug.slice(-6)}`, summary: 'A printed jig.', markdown: 'We printed a jig to glue the fins square.', status: 'published' });
+    const post = await staffApi.post('/api/admin/posts', {
+      title: `Fin can jig ${shirt.slug.slice(-6)}`,
+      summary: 'A printed jig.',
+      markdown: 'We printed a jig to glue the fins square.',
+      status: 'published',
+    });
     expect(post.status).toBe(201);
     const postSlug = post.body.post?.slug ?? post.body.slug;
-    const visitorPages = ['/', '/shop', `/shop/p/${shirt.slug}`, '/shop/cart', '/shop/checkout', '/membership', '/build-logs', `/build-logs/${postSlug}`, '/sponsors', '/account/sign-in', '/account/register'];
+    const visitorPages = [
+      '/',
+      '/shop',
+      `/shop/p/${shirt.slug}`,
+      '/shop/cart',
+      '/shop/checkout',
+      '/membership',
+      '/build-logs',
+      `/build-logs/${postSlug}`,
+      '/sponsors',
+      '/account/sign-in',
+      '/account/register',
+    ];
     const fanPages = ['/', '/shop/orders', '/account', '/membership', `/shop/p/${shirt.slug}`];
 
     const ctx = await phone();

@@ -32,11 +32,22 @@ beforeAll(async () => {
   t = buildTestApp();
   site = await serve(t);
   staff = (await signedIn(t.app, t.deps.db, ['fan', 'editor', 'treasurer', 'range_officer'])).client;
-  const png = await sharp({ create: { width: 900, height: 600, channels: 3, background: '#3b6e8f' } }).png().toBuffer();
-  const uploaded = await staff.agent.post('/api/admin/uploads').set('X-CSRF-Token', await staff.token()).attach('file', png, { filename: 'tee.png', contentType: 'image/png' });
+  const png = await sharp({ create: { width: 900, height: 600, channels: 3, background: '#3b6e8f' } })
+    .png()
+    .toBuffer();
+  const uploaded = await staff.agent
+    .post('/api/admin/uploads')
+    .set('X-CSRF-Token', await staff.token())
+    .attach('file', png, { filename: 'tee.png', contentType: 'image/png' });
   expect(uploaded.status).toBe(201);
   upload = uploaded.body;
-  const image = { url: upload.url, thumbnailUrl: uploaded.body.thumbnailUrl, alt: 'The tee laid flat', width: upload.width, height: upload.height };
+  const image = {
+    url: upload.url,
+    thumbnailUrl: uploaded.body.thumbnailUrl,
+    alt: 'The tee laid flat',
+    width: upload.width,
+    height: upload.height,
+  };
   const made = await staff.post('/api/admin/products', {
     name: `Coulee Tee ${tag}`,
     description: 'Heavy cotton tee with the **pad** mark on the back.',
@@ -44,16 +55,33 @@ beforeAll(async () => {
     weightGrams: 210,
     images: [image],
     variants: [{ label: 'One size', sku: `CT-${tag}` }],
-    run: { cap: 40, opensAt: new Date(Date.now() - 86400_000).toISOString(), closesAt: new Date(Date.now() + 5 * 86400_000).toISOString(), unitCostCents: 900 },
+    run: {
+      cap: 40,
+      opensAt: new Date(Date.now() - 86400_000).toISOString(),
+      closesAt: new Date(Date.now() + 5 * 86400_000).toISOString(),
+      unitCostCents: 900,
+    },
   });
   expect(made.status).toBe(201);
   product = { slug: made.body.product.slug, name: `Coulee Tee ${tag}` };
   coverUrl = image.url;
-  const written = await staff.post('/api/admin/posts', { title: `Nose cone sanding ${tag}`, summary: 'How we smooth printed cones.', coverUrl, markdown: 'Wet sanding at 400 grit takes the layer lines off.\n\nThen a coat of filler primer.', status: 'published' });
+  const written = await staff.post('/api/admin/posts', {
+    title: `Nose cone sanding ${tag}`,
+    summary: 'How we smooth printed cones.',
+    coverUrl,
+    markdown: 'Wet sanding at 400 grit takes the layer lines off.\n\nThen a coat of filler primer.',
+    status: 'published',
+  });
   expect(written.status).toBe(201);
   post = { slug: written.body.post?.slug ?? written.body.slug, title: `Nose cone sanding ${tag}` };
   const secret = `Members-only body ${randomUUID()}`;
-  const hidden = await staff.post('/api/admin/posts', { title: `Altimeter bay wiring ${tag}`, summary: 'The wiring of the bay.', markdown: secret, status: 'published', membersOnly: true });
+  const hidden = await staff.post('/api/admin/posts', {
+    title: `Altimeter bay wiring ${tag}`,
+    summary: 'The wiring of the bay.',
+    markdown: secret,
+    status: 'published',
+    membersOnly: true,
+  });
   expect(hidden.status).toBe(201);
   membersPost = { slug: hidden.body.post?.slug ?? hidden.body.slug, secret };
   launchId = await createLaunch(staff, '2031-06-14', { title: `Summer shoot ${tag}` });
@@ -91,12 +119,18 @@ describe('a product page without JavaScript', () => {
 
     const [data] = jsonLdOf(html);
     expect(schemaOrgProblems(data)).toEqual([]);
-    expect(data).toMatchObject({ '@type': 'Product', name: product.name, offers: { '@type': 'Offer', price: '32.00', priceCurrency: 'CAD', availability: 'https://schema.org/InStock' } });
+    expect(data).toMatchObject({
+      '@type': 'Product',
+      name: product.name,
+      offers: { '@type': 'Offer', price: '32.00', priceCurrency: 'CAD', availability: 'https://schema.org/InStock' },
+    });
   });
 
   it('preloads its largest image and gives every photo its size and a WebP copy in the srcset', async () => {
     const { html } = await page(`/shop/p/${product.slug}`);
-    const preload = [...html.matchAll(/<link\b[^>]*rel="preload"[^>]*>/g)].map((m) => m[0]).find((l) => l.includes('as="image"'));
+    const preload = [...html.matchAll(/<link\b[^>]*rel="preload"[^>]*>/g)]
+      .map((m) => m[0])
+      .find((l) => l.includes('as="image"'));
     expect(preload).toMatch(/href="\/uploads\/[a-z0-9]+\.png"/);
     expect(preload).toMatch(/imagesrcset="\/uploads\/[a-z0-9]+-thumb\.webp 480w, \/uploads\/[a-z0-9]+\.png 900w"/);
     const main = /<img\b[^>]*fetchpriority="high"[^>]*>/.exec(html)?.[0];
@@ -112,7 +146,9 @@ describe('a product page without JavaScript', () => {
   });
 
   it('answers 503 with a way to try again, not the not-found words, when the shop cannot answer', async () => {
-    const failing = jest.spyOn(CatalogueService.prototype, 'storefrontProduct').mockRejectedValueOnce(new Error('database went away'));
+    const failing = jest
+      .spyOn(CatalogueService.prototype, 'storefrontProduct')
+      .mockRejectedValueOnce(new Error('database went away'));
     try {
       const { status, html } = await page(`/shop/p/${product.slug}`);
       expect(failing).toHaveBeenCalledWith(product.slug);
@@ -137,14 +173,20 @@ describe('a build log without JavaScript', () => {
     expect(metaContent(html, 'og:type')).toBe('article');
     expect(metaContent(html, 'og:description')).toBe('How we smooth printed cones.');
     expect(metaContent(html, 'og:image')).toBe(t.config.publicUrl + coverUrl);
-    const preload = [...html.matchAll(/<link\b[^>]*rel="preload"[^>]*>/g)].map((m) => m[0]).find((l) => l.includes('as="image"'));
+    const preload = [...html.matchAll(/<link\b[^>]*rel="preload"[^>]*>/g)]
+      .map((m) => m[0])
+      .find((l) => l.includes('as="image"'));
     expect(preload).toContain(`href="${coverUrl}"`);
     const cover = /<img\b[^>]*class="cover"[^>]*>/.exec(html)?.[0];
     expect(cover).toMatch(/width="900"/);
     expect(cover).toMatch(/srcset="\/uploads\/[a-z0-9]+-thumb\.webp 480w/);
     const [data] = jsonLdOf(html);
     expect(schemaOrgProblems(data)).toEqual([]);
-    expect(data).toMatchObject({ '@type': 'BlogPosting', headline: post.title, image: [t.config.publicUrl + coverUrl] });
+    expect(data).toMatchObject({
+      '@type': 'BlogPosting',
+      headline: post.title,
+      image: [t.config.publicUrl + coverUrl],
+    });
   });
 
   it('without a cover, a members-only post shows its summary and is shared with the site picture, a real image', async () => {
@@ -185,7 +227,7 @@ describe('a detail page address that can never exist', () => {
     '/build-logs/%E2%9C%93-cone',
     '/build-logs/-sanding',
     '/build-logs/' + 'y'.repeat(121),
-  ])('%s answers 404 with the not-found page, not the API\'s refusal', async (path) => {
+  ])("%s answers 404 with the not-found page, not the API's refusal", async (path) => {
     const { status, html } = await page(path);
     expect(status).toBe(404);
     expect(html).toContain('Off the pad');
@@ -214,7 +256,13 @@ describe('a launch day without JavaScript', () => {
     const [data] = jsonLdOf(html);
     expect(schemaOrgProblems(data)).toEqual([]);
     // Gopher Flats keeps Central time: 10:00 on 14 June 2031 is daylight time, UTC-5 (IANA America/Winnipeg, from memory).
-    expect(data).toMatchObject({ '@type': 'Event', name: `Summer shoot ${tag}`, startDate: '2031-06-14T10:00:00-05:00', eventStatus: 'https://schema.org/EventScheduled', location: { '@type': 'Place', name: 'Coulee Field' } });
+    expect(data).toMatchObject({
+      '@type': 'Event',
+      name: `Summer shoot ${tag}`,
+      startDate: '2031-06-14T10:00:00-05:00',
+      eventStatus: 'https://schema.org/EventScheduled',
+      location: { '@type': 'Place', name: 'Coulee Field' },
+    });
   });
 });
 
@@ -226,7 +274,11 @@ describe('the sponsors page without JavaScript', () => {
     const season = new Intl.DateTimeFormat('en-CA', { timeZone: t.config.clubTimeZone }).format(new Date()).slice(0, 4);
     const stored = await staff.post('/api/admin/sponsors', { name: `Prairie Resin Works ${tag}`, logoUrl: upload.url });
     expect(stored.status).toBe(201);
-    const agreed = await staff.post(`/api/admin/sponsors/${stored.body.id}/agreements`, { season, cashCents: 25_000, deliverables: [{ kind: 'sponsors_page', quantity: 1, dueOn: `${season}-12-31` }] });
+    const agreed = await staff.post(`/api/admin/sponsors/${stored.body.id}/agreements`, {
+      season,
+      cashCents: 25_000,
+      deliverables: [{ kind: 'sponsors_page', quantity: 1, dueOn: `${season}-12-31` }],
+    });
     expect(agreed.status).toBe(201);
     const { status, html } = await page('/sponsors');
     expect(status).toBe(200);
@@ -237,7 +289,11 @@ describe('the sponsors page without JavaScript', () => {
       expect([img, /\sheight="[1-9][0-9]*"/.test(img)]).toEqual([img, true]);
     }
     const ours = logos.find((img) => img.includes(`alt="Prairie Resin Works ${tag} logo"`));
-    expect(ours).toMatch(new RegExp(`width="${upload.width}"[^>]*height="${upload.height}"|height="${upload.height}"[^>]*width="${upload.width}"`));
+    expect(ours).toMatch(
+      new RegExp(
+        `width="${upload.width}"[^>]*height="${upload.height}"|height="${upload.height}"[^>]*width="${upload.width}"`,
+      ),
+    );
     expect(upload).toMatchObject({ width: 900, height: 600 });
   });
 });
@@ -247,9 +303,18 @@ describe('GET /sitemap.xml and /robots.txt', () => {
     const res = await fetch(site.baseUrl + '/sitemap.xml');
     expect(res.headers.get('content-type')).toMatch(/^application\/xml/);
     const xml = await res.text();
-    expect(xml).toMatch(/^<\?xml version="1.0" encoding="UTF-8"\?>\n<urlset xmlns="http:\/\/www.sitemaps.org\/schemas\/sitemap\/0.9">/);
-    for (const path of [`/shop/p/${product.slug}`, `/build-logs/${post.slug}`, `/build-logs/${membersPost.slug}`, `/launches/${launchId}`]) {
-      const entry = new RegExp(`<url><loc>${t.config.publicUrl}${path}</loc><lastmod>([^<]+)</lastmod></url>`).exec(xml);
+    expect(xml).toMatch(
+      /^<\?xml version="1.0" encoding="UTF-8"\?>\n<urlset xmlns="http:\/\/www.sitemaps.org\/schemas\/sitemap\/0.9">/,
+    );
+    for (const path of [
+      `/shop/p/${product.slug}`,
+      `/build-logs/${post.slug}`,
+      `/build-logs/${membersPost.slug}`,
+      `/launches/${launchId}`,
+    ]) {
+      const entry = new RegExp(`<url><loc>${t.config.publicUrl}${path}</loc><lastmod>([^<]+)</lastmod></url>`).exec(
+        xml,
+      );
       expect(entry).not.toBeNull();
       // Made in this test run: the last change is within the last hour (sitemaps.org: W3C Datetime).
       expect(Date.now() - Date.parse(entry![1])).toBeLessThan(3600_000);
@@ -269,20 +334,40 @@ describe('server-rendered HTML with a session cookie', () => {
     const name = `Wren Quillfeather ${tag}`;
     const member = await createUser(t.deps.db, ['fan', 'member'], name);
     const login = await fetch(site.baseUrl + '/api/auth/csrf');
-    const csrfCookie = login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    const csrfCookie = login.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .join('; ');
     const { csrfToken } = (await login.json()) as { csrfToken: string };
-    const signIn = await fetch(site.baseUrl + '/api/auth/login', { method: 'POST', headers: { cookie: csrfCookie, 'content-type': 'application/json', 'x-csrf-token': csrfToken }, body: JSON.stringify({ email: member.email, password: member.password }) });
+    const signIn = await fetch(site.baseUrl + '/api/auth/login', {
+      method: 'POST',
+      headers: { cookie: csrfCookie, 'content-type': 'application/json', 'x-csrf-token': csrfToken },
+      body: JSON.stringify({ email: member.email, password: member.password }),
+    });
     expect(signIn.status).toBe(200);
-    const cookie = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    const cookie = signIn.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .join('; ');
     expect(cookie).toContain('padside.sid=');
     // The cookie really is a member's session: the API gives it the members-only body.
     const own = await fetch(`${site.baseUrl}/api/posts/${membersPost.slug}`, { headers: { cookie } });
     expect(((await own.json()) as { html: string }).html).toContain(membersPost.secret);
 
-    for (const path of ['/', '/shop', `/shop/p/${product.slug}`, `/build-logs/${membersPost.slug}`, '/build-logs', `/launches/${launchId}`, '/launches', '/sponsors']) {
+    for (const path of [
+      '/',
+      '/shop',
+      `/shop/p/${product.slug}`,
+      `/build-logs/${membersPost.slug}`,
+      '/build-logs',
+      `/launches/${launchId}`,
+      '/launches',
+      '/sponsors',
+    ]) {
       const { status, html, headers } = await page(path, cookie);
       expect([path, status]).toEqual([path, 200]);
-      for (const secret of [name, member.email, membersPost.secret, csrfToken]) expect([path, html.includes(secret)]).toEqual([path, false]);
+      for (const secret of [name, member.email, membersPost.secret, csrfToken])
+        expect([path, html.includes(secret)]).toEqual([path, false]);
       expect(html).toContain('Sign in');
       expect(headers.get('set-cookie')).toBeNull();
     }
@@ -293,12 +378,15 @@ describe('the Content-Security-Policy of a server-rendered page', () => {
   it('allows inline script only with a nonce that is new for every response and on every script of the page', async () => {
     const first = await page(`/shop/p/${product.slug}`);
     const second = await page(`/shop/p/${product.slug}`);
-    const nonceOf = (headers: Headers) => /script-src ([^;]*)/.exec(headers.get('content-security-policy') ?? '')?.[1] ?? '';
+    const nonceOf = (headers: Headers) =>
+      /script-src ([^;]*)/.exec(headers.get('content-security-policy') ?? '')?.[1] ?? '';
     expect(nonceOf(first.headers)).not.toContain('unsafe-inline');
     const nonce = /'nonce-([A-Za-z0-9+/=]{22,})'/.exec(nonceOf(first.headers))?.[1];
     expect(nonce).toBeDefined();
     expect(nonceOf(second.headers)).not.toContain(nonce!);
-    const scripts = [...first.html.matchAll(/<script\b[^>]*>/g)].map((m) => m[0]).filter((s) => !s.includes('application/ld+json') && !s.includes('application/json'));
+    const scripts = [...first.html.matchAll(/<script\b[^>]*>/g)]
+      .map((m) => m[0])
+      .filter((s) => !s.includes('application/ld+json') && !s.includes('application/json'));
     // The event-replay contract (inline), its start-up call (inline) and the app's module.
     expect(scripts.length).toBeGreaterThanOrEqual(3);
     for (const s of scripts) expect(s).toContain(`nonce="${nonce}"`);

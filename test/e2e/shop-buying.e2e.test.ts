@@ -59,7 +59,12 @@ describe('guest checkout on a phone', () => {
     await page.getByRole('button', { name: 'Place order' }).click();
     await page.getByRole('heading', { name: 'Thank you, your order is in' }).waitFor({ timeout: 15_000 });
     expect(new URL(page.url()).pathname).toMatch(/^\/shop\/orders\/\d+$/);
-    const number = (await page.getByRole('status').filter({ hasText: 'Order' }).locator('strong').first().textContent())!.trim();
+    const number = (await page
+      .getByRole('status')
+      .filter({ hasText: 'Order' })
+      .locator('strong')
+      .first()
+      .textContent())!.trim();
     expect(number).toMatch(/^PS-\d{6}$/);
     await screenshot(page, 'buying-guest-confirmation-phone');
     // Opening it again in the same browser still shows it (the session remembers the guest's order).
@@ -108,7 +113,10 @@ describe('the cart drawer on a phone', () => {
       return [root, ...Array.from(root.querySelectorAll('*'))]
         .map((el) => ({ el, box: el.getBoundingClientRect() }))
         .filter(({ box }) => box.width > 0 && (box.left < -0.5 || box.right > vw + 0.5))
-        .map(({ el, box }) => `${el.tagName.toLowerCase()}.${el.className} ${Math.round(box.left)}..${Math.round(box.right)}`);
+        .map(
+          ({ el, box }) =>
+            `${el.tagName.toLowerCase()}.${el.className} ${Math.round(box.left)}..${Math.round(box.right)}`,
+        );
     });
     expect(outside).toEqual([]);
     await ctx.close();
@@ -133,7 +141,12 @@ describe('a declined card on a phone', () => {
     await refusal.waitFor();
     expect(await refusal.textContent()).toMatch(/declined/i);
     await expect(refusal.isVisible()).resolves.toBe(true);
-    expect(await page.getByRole('complementary', { name: 'Order summary' }).getByText(/declined/i).count()).toBe(0);
+    expect(
+      await page
+        .getByRole('complementary', { name: 'Order summary' })
+        .getByText(/declined/i)
+        .count(),
+    ).toBe(0);
     await screenshot(page, 'buying-declined-card-phone');
 
     await page.getByRole('radio', { name: 'Test Visa (pays)' }).check();
@@ -143,7 +156,12 @@ describe('a declined card on a phone', () => {
     await page.getByRole('button', { name: 'Next: review' }).click();
     await page.getByRole('button', { name: 'Place order' }).click();
     await page.getByRole('heading', { name: 'Thank you, your order is in' }).waitFor({ timeout: 15_000 });
-    const number = (await page.getByRole('status').filter({ hasText: 'Order' }).locator('strong').first().textContent())!.trim();
+    const number = (await page
+      .getByRole('status')
+      .filter({ hasText: 'Order' })
+      .locator('strong')
+      .first()
+      .textContent())!.trim();
 
     await page.goto(`${site.baseUrl}/shop/orders`);
     await page.getByRole('heading', { name: 'My orders' }).waitFor();
@@ -215,7 +233,12 @@ describe('sizes and options on a phone', () => {
     expect(await m.isDisabled()).toBe(true);
     await screenshot(page, 'buying-sold-out-size-phone');
 
-    const single = await staff.post('/api/admin/products', { name: `Single pin ${shirt.slug.slice(-6)}`, priceCents: 900, weightGrams: 15, variants: [{ label: 'Brass', stock: 5 }] });
+    const single = await staff.post('/api/admin/products', {
+      name: `Single pin ${shirt.slug.slice(-6)}`,
+      priceCents: 900,
+      weightGrams: 15,
+      variants: [{ label: 'Brass', stock: 5 }],
+    });
     expect(single.status).toBe(201);
     await page.goto(`${site.baseUrl}/shop/p/${single.body.product.slug}`);
     await page.getByText('5 left in Brass').waitFor();
@@ -240,7 +263,14 @@ describe('product photos', () => {
     const main = gallery.locator('img').first();
     await main.waitFor();
     await page.waitForFunction(() => Array.from(document.images).every((i) => i.complete));
-    const shown = await main.evaluate((img: HTMLImageElement) => ({ alt: img.alt, srcset: img.srcset, w: img.getAttribute('width'), h: img.getAttribute('height'), natural: img.naturalWidth, src: img.currentSrc }));
+    const shown = await main.evaluate((img: HTMLImageElement) => ({
+      alt: img.alt,
+      srcset: img.srcset,
+      w: img.getAttribute('width'),
+      h: img.getAttribute('height'),
+      natural: img.naturalWidth,
+      src: img.currentSrc,
+    }));
     expect(shown.alt).toMatch(/^Navy tee with the round Season 3 patch/);
     expect(shown.srcset).toMatch(/\/uploads\/[a-z0-9-]+-thumb\.webp 480w, \/uploads\/[a-z0-9-]+\.webp 1200w/);
     expect([shown.w, shown.h]).toEqual(['1200', '1200']);
@@ -252,8 +282,18 @@ describe('product photos', () => {
     // A swipe to the left shows the next photo.
     const box = (await gallery.boundingBox())!;
     const y = box.y + box.height / 2;
-    await gallery.dispatchEvent('pointerdown', { clientX: box.x + box.width * 0.8, clientY: y, pointerType: 'touch', isPrimary: true });
-    await gallery.dispatchEvent('pointerup', { clientX: box.x + box.width * 0.2, clientY: y, pointerType: 'touch', isPrimary: true });
+    await gallery.dispatchEvent('pointerdown', {
+      clientX: box.x + box.width * 0.8,
+      clientY: y,
+      pointerType: 'touch',
+      isPrimary: true,
+    });
+    await gallery.dispatchEvent('pointerup', {
+      clientX: box.x + box.width * 0.2,
+      clientY: y,
+      pointerType: 'touch',
+      isPrimary: true,
+    });
     await gallery.getByText('Photo 2 of 2').waitFor();
     expect(await main.getAttribute('alt')).toMatch(/^The Season 3 patch up close/);
     await screenshot(page, 'buying-product-gallery-swiped-phone');
@@ -278,7 +318,10 @@ describe('product photos', () => {
     const dgallery = dpage.getByRole('group', { name: /^Photos of / });
     await dgallery.getByRole('button', { name: 'Next photo' }).click();
     await dgallery.getByText('Photo 2 of 2').waitFor();
-    await dpage.getByRole('list', { name: 'Choose a photo' }).getByRole('button', { name: /^Photo 1: Navy tee/ }).click();
+    await dpage
+      .getByRole('list', { name: 'Choose a photo' })
+      .getByRole('button', { name: /^Photo 1: Navy tee/ })
+      .click();
     await dgallery.getByText('Photo 1 of 2').waitFor();
     await dgallery.focus();
     await dpage.keyboard.press('ArrowRight');
@@ -311,7 +354,10 @@ describe('checkout details on a phone', () => {
     // 220 g (size L) fits the first bracket of mail within Canada, $9.00 (the shop's default brackets); pickup is free.
     await page.getByRole('radio', { name: 'Mail within Canada · $9.00' }).waitFor();
     await page.getByRole('radio', { name: /Pick up .*· free/i }).waitFor();
-    const labels = await page.getByRole('radiogroup', { name: 'Shipping method' }).getByRole('radio').evaluateAll((els) => els.map((e) => e.closest('mat-radio-button')?.textContent?.trim() ?? ''));
+    const labels = await page
+      .getByRole('radiogroup', { name: 'Shipping method' })
+      .getByRole('radio')
+      .evaluateAll((els) => els.map((e) => e.closest('mat-radio-button')?.textContent?.trim() ?? ''));
     expect(labels.length).toBeGreaterThan(1);
     for (const l of labels) expect(l).toMatch(/· (\$\d+\.\d\d|free|from \$\d+\.\d\d)$/);
     await screenshot(page, 'buying-shipping-prices-phone');
@@ -326,7 +372,8 @@ describe('checkout details on a phone', () => {
 
     const review = page.locator('dl.review');
     await review.waitFor();
-    for (const line of ['88 Igniter Crescent', 'Unit 4', 'Gopher Flats MB R0K 1A0', 'Canada']) await review.getByText(line, { exact: true }).waitFor();
+    for (const line of ['88 Igniter Crescent', 'Unit 4', 'Gopher Flats MB R0K 1A0', 'Canada'])
+      await review.getByText(line, { exact: true }).waitFor();
     const email = review.getByText(longEmail);
     const right = await email.evaluate((el) => el.getBoundingClientRect().right);
     expect(right).toBeLessThanOrEqual(390);
@@ -371,14 +418,21 @@ describe('what happens next', () => {
     await page.getByRole('button', { name: 'Next: review' }).click();
     await page.getByRole('button', { name: 'Place order' }).click();
     await page.getByRole('heading', { name: 'Thank you, your order is in' }).waitFor({ timeout: 15_000 });
-    const number = (await page.getByRole('status').filter({ hasText: 'Order' }).locator('strong').first().textContent())!.trim();
+    const number = (await page
+      .getByRole('status')
+      .filter({ hasText: 'Order' })
+      .locator('strong')
+      .first()
+      .textContent())!.trim();
 
     // The club format of every date people read (contracts/dates/club-dates.ts), to the minute, in club time.
     const closes = formatDateTime(new Date(run.closes_at), t.config.clubTimeZone);
     const next = page.getByRole('region', { name: 'What happens next' });
     await next.getByText(new RegExp(`${run.name} takes orders until ${closes}`)).waitFor();
     await next.getByText(/goes to the printer after that/).waitFor();
-    await next.getByText(`handed out at the merch table at the next ${t.config.site.clubName} launch`, { exact: false }).waitFor();
+    await next
+      .getByText(`handed out at the merch table at the next ${t.config.site.clubName} launch`, { exact: false })
+      .waitFor();
     await screenshot(page, 'buying-what-happens-next-phone');
     await ctx.close();
 

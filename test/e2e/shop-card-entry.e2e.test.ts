@@ -20,7 +20,10 @@ describe('card entry with a publishable key', () => {
     const csp = res.headers.get('content-security-policy')!;
     expect(csp).toContain("script-src 'self' https://js.stripe.com");
     expect(csp).toContain('frame-src https://js.stripe.com https://hooks.stripe.com');
-    expect(await (await fetch(`${site.baseUrl}/api/payments/card-entry`)).json()).toEqual({ mode: 'stripe-js', publishableKey: 'pk_test_padsideBrowserTest' });
+    expect(await (await fetch(`${site.baseUrl}/api/payments/card-entry`)).json()).toEqual({
+      mode: 'stripe-js',
+      publishableKey: 'pk_test_padsideBrowserTest',
+    });
   });
 
   it('a fan pays through the processor’s card frame; the card number never reaches Padside', async () => {
@@ -39,7 +42,8 @@ describe('card entry with a publishable key', () => {
     const elsewhere: string[] = [];
     page.on('request', (req) => {
       if ((req.postData() ?? '').includes('4242')) leaks.push(req.url());
-      if (!/^(http:\/\/127\.0\.0\.1[:/]|https:\/\/js\.stripe\.com\/|data:|blob:)/.test(req.url())) elsewhere.push(req.url());
+      if (!/^(http:\/\/127\.0\.0\.1[:/]|https:\/\/js\.stripe\.com\/|data:|blob:)/.test(req.url()))
+        elsewhere.push(req.url());
     });
     await signInThroughForm(page, site.baseUrl, fan.email, fan.password);
     await page.goto(`${site.baseUrl}/shop/p/${shirt.slug}`);

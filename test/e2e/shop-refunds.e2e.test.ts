@@ -19,7 +19,16 @@ describe('a refund by line from the console, on a phone', () => {
     await staffApi.signIn(treasurer);
     const shirt = await openShirt(staffApi, { cap: 20 });
     const buyer = new Client(t.app);
-    const placed = await buyer.post('/api/orders', { items: [{ variantId: shirt.variants[0].id, quantity: 2 }, { variantId: shirt.variants[1].id, quantity: 1 }], shipTo: MB_ADDRESS, shippingMethodId: await methodId(buyer, 'canada'), email: `phone-refund-${Date.now()}@example.test`, paymentToken: 'tok_visa' });
+    const placed = await buyer.post('/api/orders', {
+      items: [
+        { variantId: shirt.variants[0].id, quantity: 2 },
+        { variantId: shirt.variants[1].id, quantity: 1 },
+      ],
+      shipTo: MB_ADDRESS,
+      shippingMethodId: await methodId(buyer, 'canada'),
+      email: `phone-refund-${Date.now()}@example.test`,
+      paymentToken: 'tok_visa',
+    });
     expect(placed.status).toBe(201);
     const { id, number } = placed.body.order as { id: number; number: string };
 
@@ -60,7 +69,9 @@ describe('a refund by line from the console, on a phone', () => {
     expect(errors).toEqual([]);
     const row = await t.deps.db('shop_orders').where('id', id).first();
     expect(row.refunded_cents).toBe(3920);
-    expect((await t.deps.payments.stripe.refunds.list({ charge: row.charge_id })).data.map((r) => r.amount)).toEqual([3920]);
+    expect((await t.deps.payments.stripe.refunds.list({ charge: row.charge_id })).data.map((r) => r.amount)).toEqual([
+      3920,
+    ]);
     expect((await t.deps.db('shop_runs').where('id', shirt.run.id).first()).reserved).toBe(2);
   });
 });

@@ -53,7 +53,8 @@ describe('the merch shop in a browser', () => {
     await page.close();
 
     // Orders of a run ship once the run is printed.
-    for (const state of ['closed', 'in_production', 'shipped']) await staffApi.post(`/api/admin/runs/${shirt.run.id}/state`, { state });
+    for (const state of ['closed', 'in_production', 'shipped'])
+      await staffApi.post(`/api/admin/runs/${shirt.run.id}/state`, { state });
     const staffPage = await browser.newPage();
     await signInThroughForm(staffPage, site.baseUrl, staffUser.email, staffUser.password);
     await staffPage.goto(`${site.baseUrl}/console/orders`);
@@ -111,6 +112,8 @@ describe('the merch shop in a browser', () => {
     expect(run).toMatchObject({ cap: 30, state: 'scheduled' });
     // 09:00 in Winnipeg on 2030-04-01 is daylight time, -05:00 (IANA tz database, from memory).
     expect(new Date(run.opens_at).toISOString()).toBe('2030-04-01T14:00:00.000Z');
-    expect((await t.deps.db('shop_run_variant_caps').where('run_id', run.id)).map((c) => [Number(c.variant_id), c.cap])).toEqual([[shirt.variants[1].id, 10]]);
+    expect(
+      (await t.deps.db('shop_run_variant_caps').where('run_id', run.id)).map((c) => [Number(c.variant_id), c.cap]),
+    ).toEqual([[shirt.variants[1].id, 10]]);
   });
 });

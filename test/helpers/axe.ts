@@ -19,8 +19,23 @@ export async function seriousViolations(page: Page, exclude: string[] = []): Pro
   await page.evaluate(() => Promise.all(document.getAnimations().map((a) => a.finished.catch(() => undefined))));
   await page.evaluate(axeSource);
   const violations = await page.evaluate(async (exclude) => {
-    const axe = (window as unknown as { axe: { run(ctx: object, opts: object): Promise<{ violations: AxeViolation[] }> } }).axe;
-    return (await axe.run({ include: [document], exclude: exclude.map((s) => [s]) }, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } })).violations;
+    const axe = (
+      window as unknown as { axe: { run(ctx: object, opts: object): Promise<{ violations: AxeViolation[] }> } }
+    ).axe;
+    return (
+      await axe.run(
+        { include: [document], exclude: exclude.map((s) => [s]) },
+        { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } },
+      )
+    ).violations;
   }, exclude);
-  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join('; ')})`);
+  return violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map(
+      (v) =>
+        `${v.id}: ${v.help} (${v.nodes
+          .map((n) => n.target.join(' '))
+          .slice(0, 3)
+          .join('; ')})`,
+    );
 }

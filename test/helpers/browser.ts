@@ -20,7 +20,16 @@ export function launchBrowser(extraArgs: string[] = []): Promise<Browser> {
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic', ...extraArgs],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+      '--disable-quic',
+      ...extraArgs,
+    ],
   });
 }
 
@@ -97,7 +106,11 @@ type AppOptions = Parameters<typeof buildTestApp>[0];
  * with `app`, as `buildTestApp` takes it, or with what `app()` returns once an earlier `beforeAll` has run) served on
  * a free loopback port, stopped after the file. `ready` gets them once they are up and does the file's own preparation.
  */
-export function siteSuite(app: AppOptions | (() => AppOptions) = {}, ready: (s: SiteSuite) => void | Promise<void> = () => undefined, timeoutMs?: number): void {
+export function siteSuite(
+  app: AppOptions | (() => AppOptions) = {},
+  ready: (s: SiteSuite) => void | Promise<void> = () => undefined,
+  timeoutMs?: number,
+): void {
   const s: Partial<SiteSuite> = {};
   beforeAll(async () => {
     s.t = buildTestApp(typeof app === 'function' ? app() : app);
@@ -114,7 +127,11 @@ export function siteSuite(app: AppOptions | (() => AppOptions) = {}, ready: (s: 
  * As `siteSuite`, with one Chromium launched before `ready` and closed after the file, before the app stops (jest runs
  * `afterAll` hooks in the order they were registered).
  */
-export function browserSuite(app: AppOptions | (() => AppOptions) = {}, ready: (s: BrowserSuite) => void | Promise<void> = () => undefined, timeoutMs?: number): void {
+export function browserSuite(
+  app: AppOptions | (() => AppOptions) = {},
+  ready: (s: BrowserSuite) => void | Promise<void> = () => undefined,
+  timeoutMs?: number,
+): void {
   let browser: Browser | undefined;
   afterAll(() => browser?.close());
   siteSuite(

@@ -24,7 +24,9 @@ export async function freshDatabase(sharedUrl = loadConfig().databaseUrl): Promi
   // The payment fake is shared by the whole run, and its idempotency keys carry row ids ("padside-order-1-attempt-1"):
   // ids that start again at 1 would replay another suite's charge. Every id sequence starts far from the shared ones.
   const start = 1_000_000_000 + Math.floor(Math.random() * 500_000) * 1_000;
-  const sequences = await db.raw<{ rows: { name: string }[] }>("SELECT sequence_name AS name FROM information_schema.sequences WHERE sequence_schema = 'public' AND sequence_name LIKE '%\\_id\\_seq'");
+  const sequences = await db.raw<{ rows: { name: string }[] }>(
+    "SELECT sequence_name AS name FROM information_schema.sequences WHERE sequence_schema = 'public' AND sequence_name LIKE '%\\_id\\_seq'",
+  );
   for (const { name } of sequences.rows) await db.raw('SELECT setval(?::regclass, ?)', [`"${name}"`, start]);
   return {
     db,

@@ -16,7 +16,12 @@ export async function emailsTo(address: string): Promise<CaughtEmail[]> {
 }
 
 /** Waits until MailDev holds at least `count` messages for the address matching `subject`. */
-export async function waitForEmails(address: string, subject: RegExp, count = 1, timeoutMs = 10_000): Promise<CaughtEmail[]> {
+export async function waitForEmails(
+  address: string,
+  subject: RegExp,
+  count = 1,
+  timeoutMs = 10_000,
+): Promise<CaughtEmail[]> {
   const until = Date.now() + timeoutMs;
   for (;;) {
     const found = (await emailsTo(address)).filter((m) => subject.test(m.subject));

@@ -16,7 +16,14 @@ process.stdout.write(JSON.stringify(pages));
 
 /** The text of each page of a PDF as a PDF reader extracts it (pdfjs-dist, the engine of Firefox's reader). */
 export function pdfPages(pdf: Buffer): string[] {
-  return JSON.parse(execFileSync(process.execPath, ['--input-type=module', '-e', SCRIPT], { input: pdf, cwd: __dirname, encoding: 'utf8', maxBuffer: 16 * 1024 * 1024 })) as string[];
+  return JSON.parse(
+    execFileSync(process.execPath, ['--input-type=module', '-e', SCRIPT], {
+      input: pdf,
+      cwd: __dirname,
+      encoding: 'utf8',
+      maxBuffer: 16 * 1024 * 1024,
+    }),
+  ) as string[];
 }
 
 /** All of a PDF's text, pages joined by a blank line. */

@@ -40,7 +40,16 @@ export class PrivateCluster {
   }
 
   start(): void {
-    this.pg('pg_ctl', ['-D', this.data, '-l', path.join(this.dir, 'log'), '-o', `-p ${this.port} -k ${this.dir} -c listen_addresses=127.0.0.1`, '-w', 'start']);
+    this.pg('pg_ctl', [
+      '-D',
+      this.data,
+      '-l',
+      path.join(this.dir, 'log'),
+      '-o',
+      `-p ${this.port} -k ${this.dir} -c listen_addresses=127.0.0.1`,
+      '-w',
+      'start',
+    ]);
   }
 
   /** Fast shutdown: open connections are ended with admin_shutdown (57P01), new ones are refused. */
@@ -58,7 +67,9 @@ export class PrivateCluster {
   }
 
   private pg(tool: string, args: string[]): void {
-    const [cmd, argv] = this.asRoot ? ['runuser', ['-u', 'postgres', '--', path.join(this.bin, tool), ...args]] : [path.join(this.bin, tool), args];
+    const [cmd, argv] = this.asRoot
+      ? ['runuser', ['-u', 'postgres', '--', path.join(this.bin, tool), ...args]]
+      : [path.join(this.bin, tool), args];
     const r = spawnSync(cmd, argv, { encoding: 'utf8' });
     if (r.status !== 0) throw new Error(`${tool} failed: ${r.stderr}`);
   }

@@ -25,7 +25,10 @@ export async function startServerProcess(env: Record<string, string> = {}): Prom
   const until = Date.now() + 60_000;
   for (;;) {
     if (child.exitCode !== null) throw new Error(`server exited with ${child.exitCode}: ${stderr}`);
-    const ok = await fetch(`${url}/api/health`).then((r) => r.ok, () => false);
+    const ok = await fetch(`${url}/api/health`).then(
+      (r) => r.ok,
+      () => false,
+    );
     if (ok) break;
     if (Date.now() > until) throw new Error(`server did not start: ${stderr}`);
     await new Promise((r) => setTimeout(r, 250));

@@ -20,7 +20,9 @@ let cachedHash: Promise<string> | undefined;
 export async function createUser(db: Knex, roles: Role[] = ['fan'], name = 'Test User'): Promise<TestUser> {
   cachedHash ??= hashPassword(TEST_PASSWORD);
   const email = `${roles.join('-')}-${randomUUID().slice(0, 8)}@example.test`;
-  const [row] = await db('users').insert({ email, password_hash: await cachedHash, display_name: name, roles, email_verified_at: db.fn.now() }).returning('id');
+  const [row] = await db('users')
+    .insert({ email, password_hash: await cachedHash, display_name: name, roles, email_verified_at: db.fn.now() })
+    .returning('id');
   return { id: Number(row.id), email, password: TEST_PASSWORD, roles };
 }
 
@@ -73,7 +75,11 @@ export class Client {
 }
 
 /** A new client signed in as a fresh user with the roles. */
-export async function signedIn(app: Express, db: Knex, roles: Role[] = ['fan']): Promise<{ client: Client; user: TestUser }> {
+export async function signedIn(
+  app: Express,
+  db: Knex,
+  roles: Role[] = ['fan'],
+): Promise<{ client: Client; user: TestUser }> {
   const user = await createUser(db, roles);
   const client = new Client(app);
   await client.signIn(user);

@@ -1,4 +1,8 @@
-import { IMPLIED_CONSENT_YEARS, impliedConsentHolds, impliedConsentLapsesOn } from '../../server/announcements/implied-consent';
+import {
+  IMPLIED_CONSENT_YEARS,
+  impliedConsentHolds,
+  impliedConsentLapsesOn,
+} from '../../server/announcements/implied-consent';
 
 // The two-year period after a purchase (and after a membership ends): from memory, Canada's anti-spam law on
 // existing business and non-business relationships; see the regulator's CASL guidance.

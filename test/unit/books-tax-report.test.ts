@@ -39,7 +39,9 @@ describe('reportLines and byAuthority', () => {
   });
 
   it('keeps a refund in a period with no sale as a negative line', () => {
-    expect(reportLines([], refunded.slice(0, 1))).toEqual([{ code: 'GST', jurisdiction: 'MB', taxableCents: -5000, taxCents: 0, refundedCents: 250, netCents: -250 }]);
+    expect(reportLines([], refunded.slice(0, 1))).toEqual([
+      { code: 'GST', jurisdiction: 'MB', taxableCents: -5000, taxCents: 0, refundedCents: 250, netCents: -250 },
+    ]);
   });
 });
 
@@ -61,8 +63,16 @@ describe('unregisteredProvinceNotes', () => {
 describe('incomeRows', () => {
   it('takes tax out of income and out of refunds (common practice, no source: tax collected is a liability)', () => {
     // C$112.00 received = C$100 + GST 5.00 + RST 7.00; C$56.00 refunded with 2.50 + 3.50 of tax; fee 3.55.
-    const [row] = incomeRows([{ month: '2019-02', source: 'merch', grossCents: 11200, taxCents: 1200, refundsCents: 5600, feesCents: 355 }], [{ month: '2019-02', source: 'merch', taxCents: 600 }]);
-    expect(row).toMatchObject({ incomeCents: 10000, refundedTaxCents: 600, refundsNetCents: 5000, netCents: 10000 - 5000 - 355 });
+    const [row] = incomeRows(
+      [{ month: '2019-02', source: 'merch', grossCents: 11200, taxCents: 1200, refundsCents: 5600, feesCents: 355 }],
+      [{ month: '2019-02', source: 'merch', taxCents: 600 }],
+    );
+    expect(row).toMatchObject({
+      incomeCents: 10000,
+      refundedTaxCents: 600,
+      refundsNetCents: 5000,
+      netCents: 10000 - 5000 - 355,
+    });
     expect(incomeTotals([row, row]).netCents).toBe(2 * 4645);
   });
 });

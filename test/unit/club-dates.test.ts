@@ -1,4 +1,15 @@
-import { clubTimeInWords, formatClock, formatDate, formatDateTime, formatDay, formatMonth, formatTime, isoDateInZone, isoInZone, zonedHeader } from '../../contracts/dates/club-dates';
+import {
+  clubTimeInWords,
+  formatClock,
+  formatDate,
+  formatDateTime,
+  formatDay,
+  formatMonth,
+  formatTime,
+  isoDateInZone,
+  isoInZone,
+  zonedHeader,
+} from '../../contracts/dates/club-dates';
 
 const WPG = 'America/Winnipeg';
 

@@ -12,7 +12,10 @@ const s3 = {
 
 describe('loadConfig: where uploads are stored', () => {
   it('keeps the disk under DATA_DIR when STORAGE_URL is unset, even with stray S3 settings', () => {
-    expect(loadConfig({ ...base, S3_ENDPOINT: 'http://127.0.0.1:9000' }).storage).toEqual({ kind: 'disk', dir: '/tmp/padside-config-storage-test/uploads' });
+    expect(loadConfig({ ...base, S3_ENDPOINT: 'http://127.0.0.1:9000' }).storage).toEqual({
+      kind: 'disk',
+      dir: '/tmp/padside-config-storage-test/uploads',
+    });
   });
 
   it('reads an s3:// address with its bucket, prefix and settings', () => {
@@ -59,7 +62,10 @@ describe('loadConfig: where uploads are stored', () => {
     expect(() => loadConfig({ ...s3, [name]: value })).toThrow(message);
   });
 
-  it.each([['S3_ENDPOINT'], ['S3_REGION'], ['S3_ACCESS_KEY_ID'], ['S3_SECRET_ACCESS_KEY']])('refuses to start with a bucket but no %s', (name) => {
-    expect(() => loadConfig({ ...s3, [name]: undefined })).toThrow(`${name} is required when STORAGE_URL is set`);
-  });
+  it.each([['S3_ENDPOINT'], ['S3_REGION'], ['S3_ACCESS_KEY_ID'], ['S3_SECRET_ACCESS_KEY']])(
+    'refuses to start with a bucket but no %s',
+    (name) => {
+      expect(() => loadConfig({ ...s3, [name]: undefined })).toThrow(`${name} is required when STORAGE_URL is set`);
+    },
+  );
 });

@@ -16,10 +16,14 @@ describe('loadConfig in production', () => {
 
   // A real team never ships under the demo scenario's names.
   it.each([['TEAM_NAME'], ['CLUB_NAME']])('refuses to start without %s', (name) => {
-    expect(() => loadConfig({ ...production, [name]: undefined })).toThrow('TEAM_NAME and CLUB_NAME are required in production');
+    expect(() => loadConfig({ ...production, [name]: undefined })).toThrow(
+      'TEAM_NAME and CLUB_NAME are required in production',
+    );
   });
 
   it('refuses to start without a session secret', () => {
-    expect(() => loadConfig({ ...production, SESSION_SECRET: undefined })).toThrow('SESSION_SECRET is required in production');
+    expect(() => loadConfig({ ...production, SESSION_SECRET: undefined })).toThrow(
+      'SESSION_SECRET is required in production',
+    );
   });
 });

@@ -1,7 +1,18 @@
 import { DELIVERABLE_KIND_LABELS, deliverableState } from '../../contracts/labels/deliverable-kinds';
-import { FLIGHT_OUTCOME_LABELS, FLIGHT_STATUS_LABELS, LAUNCH_STATUS_LABELS, RECOVERY_LABELS } from '../../contracts/labels/launch-statuses';
+import {
+  FLIGHT_OUTCOME_LABELS,
+  FLIGHT_STATUS_LABELS,
+  LAUNCH_STATUS_LABELS,
+  RECOVERY_LABELS,
+} from '../../contracts/labels/launch-statuses';
 import { labelOf, yesNo } from '../../contracts/labels/label-of';
-import { DUES_ENTRY_LABELS, DUES_PAYMENT_STATUS_LABELS, MEMBERSHIP_AUDIT_LABELS, MEMBERSHIP_STATUS_LABELS, PLAN_ELIGIBILITY_LABELS } from '../../contracts/labels/membership-statuses';
+import {
+  DUES_ENTRY_LABELS,
+  DUES_PAYMENT_STATUS_LABELS,
+  MEMBERSHIP_AUDIT_LABELS,
+  MEMBERSHIP_STATUS_LABELS,
+  PLAN_ELIGIBILITY_LABELS,
+} from '../../contracts/labels/membership-statuses';
 import { MOVEMENT_KIND_LABELS, MOVEMENT_SOURCE_LABELS } from '../../contracts/labels/money-movements';
 import { ORDER_STATUS_LABELS } from '../../contracts/labels/order-statuses';
 import { PAYMENT_METHOD_LABELS } from '../../contracts/labels/payment-methods';
@@ -37,13 +48,16 @@ const MAPS: Record<string, Readonly<Record<string, string>>> = {
 };
 
 describe('every label map', () => {
-  it.each(Object.entries(MAPS))('%s reads as words: a capital first, no underscore, not the code itself', (_name, labels) => {
-    for (const [code, label] of Object.entries(labels)) {
-      expect(label).toMatch(/^[A-Z]/);
-      expect(label).not.toMatch(/_/);
-      expect(label).not.toBe(code);
-    }
-  });
+  it.each(Object.entries(MAPS))(
+    '%s reads as words: a capital first, no underscore, not the code itself',
+    (_name, labels) => {
+      for (const [code, label] of Object.entries(labels)) {
+        expect(label).toMatch(/^[A-Z]/);
+        expect(label).not.toMatch(/_/);
+        expect(label).not.toBe(code);
+      }
+    },
+  );
 
   it.each(Object.entries(MAPS))('%s gives each code its own label', (_name, labels) => {
     const values = Object.values(labels);

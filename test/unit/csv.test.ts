@@ -62,7 +62,12 @@ describe('csvCell', () => {
   });
 
   it('should give later chunks of a streamed export without mark or header', () => {
-    expect(csvLines([[1, 2], ['x', null]])).toBe('1,2\r\nx,\r\n');
+    expect(
+      csvLines([
+        [1, 2],
+        ['x', null],
+      ]),
+    ).toBe('1,2\r\nx,\r\n');
     expect(csvLines([])).toBe('');
   });
 });
@@ -79,12 +84,20 @@ describe('csvInstant', () => {
 describe('inDateOrder', () => {
   it('should sort by the instant, not by the text of the wall-clock time', () => {
     // 01:30 at -05:00 comes before 01:10 at -06:00 on the night the clocks go back.
-    const rows = [{ id: 'b', at: new Date('2026-11-01T07:10:00Z') }, { id: 'a', at: new Date('2026-11-01T06:30:00Z') }];
+    const rows = [
+      { id: 'b', at: new Date('2026-11-01T07:10:00Z') },
+      { id: 'a', at: new Date('2026-11-01T06:30:00Z') },
+    ];
     expect(inDateOrder(rows, (r) => r.at).map((r) => r.id)).toEqual(['a', 'b']);
   });
 
   it('should put rows without a date last and keep ties in their order', () => {
-    const rows = [{ id: 1, d: null }, { id: 2, d: '2026-05-02' }, { id: 3, d: '2026-05-01' }, { id: 4, d: '2026-05-02' }];
+    const rows = [
+      { id: 1, d: null },
+      { id: 2, d: '2026-05-02' },
+      { id: 3, d: '2026-05-01' },
+      { id: 4, d: '2026-05-02' },
+    ];
     expect(inDateOrder(rows, (r) => r.d).map((r) => r.id)).toEqual([3, 2, 4, 1]);
   });
 });

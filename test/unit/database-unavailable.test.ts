@@ -9,8 +9,14 @@ describe('V7.4.1 isDatabaseUnavailable tells a lost database from a bad request 
     ['crash_shutdown', withCode('57P02')],
     ['cannot_connect_now', withCode('57P03', 'the database system is starting up')],
     ['connection_failure', withCode('08006')],
-    ['a dropped connection in knex words', new Error('select * from "users" where "id" = $1 limit $2 - Connection terminated unexpectedly')],
-    ['a pool that cannot get a connection', new Error('Knex: Timeout acquiring a connection. The pool is probably full.')],
+    [
+      'a dropped connection in knex words',
+      new Error('select * from "users" where "id" = $1 limit $2 - Connection terminated unexpectedly'),
+    ],
+    [
+      'a pool that cannot get a connection',
+      new Error('Knex: Timeout acquiring a connection. The pool is probably full.'),
+    ],
     ['a refusal wrapped in an AggregateError', new AggregateError([withCode('ECONNREFUSED')], '')],
   ])('says yes for %s', (_what, err) => expect(isDatabaseUnavailable(err)).toBe(true));
   it.each([

@@ -1,4 +1,8 @@
-import { columnMappingSchema, guessColumnMapping, missingColumns } from '../../server/flights/flight-log/column-mapping';
+import {
+  columnMappingSchema,
+  guessColumnMapping,
+  missingColumns,
+} from '../../server/flights/flight-log/column-mapping';
 
 describe('guessColumnMapping', () => {
   it('should map time in seconds and pressure in Pa', () => {
@@ -14,16 +18,28 @@ describe('guessColumnMapping', () => {
       time: { column: 'time_ms', unit: 'ms' },
       pressure: { column: 'pressure_hpa', unit: 'hPa' },
     });
-    expect(guessColumnMapping(['Time (ms)', 'Pressure (hPa)'])).toMatchObject({ time: { unit: 'ms' }, pressure: { unit: 'hPa' } });
-    expect(guessColumnMapping(['t', 'press_pa'])).toMatchObject({ time: { column: 't', unit: 's' }, pressure: { column: 'press_pa', unit: 'Pa' } });
+    expect(guessColumnMapping(['Time (ms)', 'Pressure (hPa)'])).toMatchObject({
+      time: { unit: 'ms' },
+      pressure: { unit: 'hPa' },
+    });
+    expect(guessColumnMapping(['t', 'press_pa'])).toMatchObject({
+      time: { column: 't', unit: 's' },
+      pressure: { column: 'press_pa', unit: 'Pa' },
+    });
   });
 
   it('should read baro as hPa and keep the header as written', () => {
-    expect(guessColumnMapping(['T', 'Baro'])).toEqual({ time: { column: 'T', unit: 's' }, pressure: { column: 'Baro', unit: 'hPa' } });
+    expect(guessColumnMapping(['T', 'Baro'])).toEqual({
+      time: { column: 'T', unit: 's' },
+      pressure: { column: 'Baro', unit: 'hPa' },
+    });
   });
 
   it('should find three acceleration axes before a single one', () => {
-    expect(guessColumnMapping(['time', 'pressure', 'ax', 'ay', 'az'])?.acceleration).toEqual({ columns: ['ax', 'ay', 'az'], unit: 'g' });
+    expect(guessColumnMapping(['time', 'pressure', 'ax', 'ay', 'az'])?.acceleration).toEqual({
+      columns: ['ax', 'ay', 'az'],
+      unit: 'g',
+    });
     expect(guessColumnMapping(['time', 'pressure', 'accel_x', 'accel_y', 'accel_z'])?.acceleration).toEqual({
       columns: ['accel_x', 'accel_y', 'accel_z'],
       unit: 'g',
@@ -32,9 +48,18 @@ describe('guessColumnMapping', () => {
 
   it('should map one acceleration column and see m/s^2 in its name', () => {
     expect(guessColumnMapping(['time', 'pressure', 'accel'])?.acceleration).toEqual({ columns: ['accel'], unit: 'g' });
-    expect(guessColumnMapping(['time', 'pressure', 'accel_z'])?.acceleration).toEqual({ columns: ['accel_z'], unit: 'g' });
-    expect(guessColumnMapping(['time', 'pressure', 'Accel Z (m/s^2)'])?.acceleration).toEqual({ columns: ['Accel Z (m/s^2)'], unit: 'm/s2' });
-    expect(guessColumnMapping(['time', 'pressure', 'accel (m/s²)'])?.acceleration).toEqual({ columns: ['accel (m/s²)'], unit: 'm/s2' });
+    expect(guessColumnMapping(['time', 'pressure', 'accel_z'])?.acceleration).toEqual({
+      columns: ['accel_z'],
+      unit: 'g',
+    });
+    expect(guessColumnMapping(['time', 'pressure', 'Accel Z (m/s^2)'])?.acceleration).toEqual({
+      columns: ['Accel Z (m/s^2)'],
+      unit: 'm/s2',
+    });
+    expect(guessColumnMapping(['time', 'pressure', 'accel (m/s²)'])?.acceleration).toEqual({
+      columns: ['accel (m/s²)'],
+      unit: 'm/s2',
+    });
   });
 
   it('should give null without a time or a pressure column', () => {
@@ -56,10 +81,22 @@ describe('columnMappingSchema', () => {
   });
 
   it.each([
-    ['an unknown time unit', { time: { column: 't', unit: 'min' }, pressure: { column: 'p', unit: 'Pa' } }, 'time.unit'],
+    [
+      'an unknown time unit',
+      { time: { column: 't', unit: 'min' }, pressure: { column: 'p', unit: 'Pa' } },
+      'time.unit',
+    ],
     ['a blank column', { time: { column: ' ', unit: 's' }, pressure: { column: 'p', unit: 'Pa' } }, 'time.column'],
     ['no pressure', { time: { column: 't', unit: 's' } }, 'pressure'],
-    ['two axes', { time: { column: 't', unit: 's' }, pressure: { column: 'p', unit: 'Pa' }, acceleration: { columns: ['x', 'y'], unit: 'g' } }, 'acceleration.columns'],
+    [
+      'two axes',
+      {
+        time: { column: 't', unit: 's' },
+        pressure: { column: 'p', unit: 'Pa' },
+        acceleration: { columns: ['x', 'y'], unit: 'g' },
+      },
+      'acceleration.columns',
+    ],
     ['an extra key', { time: { column: 't', unit: 's' }, pressure: { column: 'p', unit: 'Pa' }, altitude: {} }, ''],
   ])('should refuse %s', (_name, value, path) => {
     const result = columnMappingSchema.safeParse(value);
@@ -70,7 +107,11 @@ describe('columnMappingSchema', () => {
 
 describe('missingColumns', () => {
   it('should name each column the headers lack', () => {
-    const mapping = { time: { column: 't', unit: 's' as const }, pressure: { column: 'p', unit: 'Pa' as const }, acceleration: { columns: ['az'], unit: 'g' as const } };
+    const mapping = {
+      time: { column: 't', unit: 's' as const },
+      pressure: { column: 'p', unit: 'Pa' as const },
+      acceleration: { columns: ['az'], unit: 'g' as const },
+    };
     expect(missingColumns(mapping, ['t', 'p', 'az'])).toEqual({});
     expect(missingColumns(mapping, ['t'])).toEqual({
       'columns.pressure': 'The log has no column named "p".',

@@ -66,10 +66,15 @@ function* synthLines(o: SynthOptions = {}): Generator<string> {
     const time = i / hz;
     const { h, accelG } = truth(time - PAD_WAIT_S);
     const p = pressureAbovePadPa(h, PAD_PA) + (rnd() * 2 - 1) * (o.noisePa ?? 0);
-    const cells = [o.timeMs ? (time * 1000).toFixed(1) : time.toFixed(4), o.hPa ? (p / 100).toFixed(4) : p.toFixed(2), '21.5'];
+    const cells = [
+      o.timeMs ? (time * 1000).toFixed(1) : time.toFixed(4),
+      o.hPa ? (p / 100).toFixed(4) : p.toFixed(2),
+      '21.5',
+    ];
     // Three axes: the push along the body, tilted a little, so only the magnitude is right.
     if (accel === 'one') cells.push(accelG.toFixed(3));
-    if (accel === 'three') cells.push((accelG * 0.1).toFixed(4), (accelG * 0.2).toFixed(4), (accelG * Math.sqrt(1 - 0.05)).toFixed(4));
+    if (accel === 'three')
+      cells.push((accelG * 0.1).toFixed(4), (accelG * 0.2).toFixed(4), (accelG * Math.sqrt(1 - 0.05)).toFixed(4));
     yield cells.join(',') + '\n';
   }
 }
@@ -94,17 +99,20 @@ const within = (actual: number, expected: number, fraction = 0.01) => {
 const eventAt = (events: { kind: string; t: number }[], kind: string) => events.find((e) => e.kind === kind)?.t;
 
 describe('analyseFlightLog on a synthetic flight with an analytic answer', () => {
-  it.each([0, 3])('should find apogee, its time, max speed and descent rate within 1%% (pressure noise ±%d Pa)', async (noisePa) => {
-    const r = await analyseFlightLog(csv({ noisePa }));
-    within(r.summary.apogeeMetres, apogeeM);
-    within(r.summary.apogeeFeet, apogeeM / 0.3048);
-    within(r.summary.apogeeAtSeconds, apogeeT);
-    within(r.summary.maxSpeedMps, vb);
-    within(r.summary.descentRateMps!, DESCENT);
-    within(r.summary.flightTimeSeconds!, landT);
-    expect(r.summary.peakAccelG).toBeNull();
-    expect(r.summary.samples).toBe(Math.ceil((PAD_WAIT_S + landT + 5) * 100));
-  });
+  it.each([0, 3])(
+    'should find apogee, its time, max speed and descent rate within 1%% (pressure noise ±%d Pa)',
+    async (noisePa) => {
+      const r = await analyseFlightLog(csv({ noisePa }));
+      within(r.summary.apogeeMetres, apogeeM);
+      within(r.summary.apogeeFeet, apogeeM / 0.3048);
+      within(r.summary.apogeeAtSeconds, apogeeT);
+      within(r.summary.maxSpeedMps, vb);
+      within(r.summary.descentRateMps!, DESCENT);
+      within(r.summary.flightTimeSeconds!, landT);
+      expect(r.summary.peakAccelG).toBeNull();
+      expect(r.summary.samples).toBe(Math.ceil((PAD_WAIT_S + landT + 5) * 100));
+    },
+  );
 
   it.each([1, 2, 3])('should stay within 1%% at 50 readings a second with ±3 Pa noise (seed %d)', async (seed) => {
     const r = await analyseFlightLog(csv({ hz: 50, noisePa: 3, seed }));
@@ -275,29 +283,38 @@ describe('analyseFlightLog on a long log', () => {
 });
 
 describe('analyseSamples on a dual-deployment descent', () => {
-  it.each([0, 3])('should read the main descent rate and the main opening, not the drogue (noise ±%d Pa)', (noisePa) => {
-    // Apogee as above, a drogue at a constant 20 m/s down to 60 m, then the main at a constant 5 m/s.
-    const drogueRate = 20;
-    const mainAt = 60;
-    const mainT = apogeeT + (apogeeM - mainAt) / drogueRate;
-    const downT = mainT + mainAt / DESCENT;
-    const height = (tau: number) =>
-      tau <= apogeeT ? truth(tau).h : tau <= mainT ? apogeeM - drogueRate * (tau - apogeeT) : tau <= downT ? mainAt - DESCENT * (tau - mainT) : 0;
-    const hz = 100;
-    const n = Math.floor((PAD_WAIT_S + downT + 5) * hz);
-    const rnd = lcg(11);
-    const t = new Float64Array(n);
-    const p = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      t[i] = i / hz;
-      p[i] = pressureAbovePadPa(height(t[i] - PAD_WAIT_S), PAD_PA) + (rnd() * 2 - 1) * noisePa;
-    }
-    const r = analyseSamples({ t, pressurePa: p, accelG: null });
-    within(r.summary.descentRateMps!, DESCENT);
-    within(r.summary.apogeeMetres, apogeeM);
-    expect(Math.abs(eventAt(r.events, 'deployment')! - mainT)).toBeLessThan(0.5);
-    expect(Math.abs(eventAt(r.events, 'landing')! - downT)).toBeLessThan(0.5);
-  });
+  it.each([0, 3])(
+    'should read the main descent rate and the main opening, not the drogue (noise ±%d Pa)',
+    (noisePa) => {
+      // Apogee as above, a drogue at a constant 20 m/s down to 60 m, then the main at a constant 5 m/s.
+      const drogueRate = 20;
+      const mainAt = 60;
+      const mainT = apogeeT + (apogeeM - mainAt) / drogueRate;
+      const downT = mainT + mainAt / DESCENT;
+      const height = (tau: number) =>
+        tau <= apogeeT
+          ? truth(tau).h
+          : tau <= mainT
+            ? apogeeM - drogueRate * (tau - apogeeT)
+            : tau <= downT
+              ? mainAt - DESCENT * (tau - mainT)
+              : 0;
+      const hz = 100;
+      const n = Math.floor((PAD_WAIT_S + downT + 5) * hz);
+      const rnd = lcg(11);
+      const t = new Float64Array(n);
+      const p = new Float64Array(n);
+      for (let i = 0; i < n; i++) {
+        t[i] = i / hz;
+        p[i] = pressureAbovePadPa(height(t[i] - PAD_WAIT_S), PAD_PA) + (rnd() * 2 - 1) * noisePa;
+      }
+      const r = analyseSamples({ t, pressurePa: p, accelG: null });
+      within(r.summary.descentRateMps!, DESCENT);
+      within(r.summary.apogeeMetres, apogeeM);
+      expect(Math.abs(eventAt(r.events, 'deployment')! - mainT)).toBeLessThan(0.5);
+      expect(Math.abs(eventAt(r.events, 'landing')! - downT)).toBeLessThan(0.5);
+    },
+  );
 });
 
 describe('analyseSamples and downsampleIndices', () => {

@@ -23,13 +23,17 @@ describe('the %flight marker', () => {
   });
 
   it('should let through no other attribute or value on a raw placeholder', () => {
-    const html = renderMarkdown('<div class="ps-flight" data-flight="1 onclick=x" onclick="alert(1)" style="x">hi</div>');
+    const html = renderMarkdown(
+      '<div class="ps-flight" data-flight="1 onclick=x" onclick="alert(1)" style="x">hi</div>',
+    );
     expect(html).not.toMatch(/onclick|style=|data-flight/);
     expect(renderMarkdown('<div class="evil ps-flight">x</div>')).toContain('<div class="ps-flight">');
   });
 
   it('should sit beside the credit marker', () => {
-    const html = renderMarkdown('%thanks gopher-flats-hardware\n\n%flight 3', { sponsorNames: new Map([['gopher-flats-hardware', 'Gopher Flats Hardware']]) });
+    const html = renderMarkdown('%thanks gopher-flats-hardware\n\n%flight 3', {
+      sponsorNames: new Map([['gopher-flats-hardware', 'Gopher Flats Hardware']]),
+    });
     expect(html).toContain('class="ps-credit"');
     expect(html).toContain('data-flight="3"');
   });

@@ -15,7 +15,12 @@ describe('parseMotorDesignation', () => {
   });
 
   it('should keep a propellant letter after the delay out of the numbers (F32-6T)', () => {
-    expect(parseMotorDesignation('F32-6T')).toMatchObject({ impulseClass: 'F', averageThrustN: 32, delayS: 6, plugged: false });
+    expect(parseMotorDesignation('F32-6T')).toMatchObject({
+      impulseClass: 'F',
+      averageThrustN: 32,
+      delayS: 6,
+      plugged: false,
+    });
   });
 
   it('should read an adjustable medium delay with no number as a null delay (H128W-M)', () => {
@@ -34,7 +39,12 @@ describe('parseMotorDesignation', () => {
   });
 
   it('should mark a plugged motor (-P) with no delay', () => {
-    expect(parseMotorDesignation('G80-P')).toMatchObject({ impulseClass: 'G', averageThrustN: 80, delayS: null, plugged: true });
+    expect(parseMotorDesignation('G80-P')).toMatchObject({
+      impulseClass: 'G',
+      averageThrustN: 80,
+      delayS: null,
+      plugged: true,
+    });
   });
 
   it('should read a booster delay of zero as zero, not as missing', () => {
@@ -60,21 +70,39 @@ describe('parseMotorDesignation', () => {
 
   it('should read A8-3 as the A class, more than 1.25 up to 2.50 N s', () => {
     // NFPA 1125 motor classification, from memory: A is 1.26-2.50 N s
-    expect(parseMotorDesignation('A8-3')).toMatchObject({ impulseClass: 'A', averageThrustN: 8, delayS: 3, totalImpulseMinNs: 1.26, totalImpulseMaxNs: 2.5 });
+    expect(parseMotorDesignation('A8-3')).toMatchObject({
+      impulseClass: 'A',
+      averageThrustN: 8,
+      delayS: 3,
+      totalImpulseMinNs: 1.26,
+      totalImpulseMaxNs: 2.5,
+    });
   });
 
   it('should accept spaces and lower case around the designation', () => {
-    expect(parseMotorDesignation('  d12-5 ')).toMatchObject({ designation: 'D12-5', impulseClass: 'D', averageThrustN: 12, delayS: 5 });
+    expect(parseMotorDesignation('  d12-5 ')).toMatchObject({
+      designation: 'D12-5',
+      impulseClass: 'D',
+      averageThrustN: 12,
+      delayS: 5,
+    });
   });
 
   it('should read the larger classes up to O', () => {
     expect(parseMotorDesignation('K550W-L')?.impulseClass).toBe('K');
-    expect(parseMotorDesignation('O5800-P')).toMatchObject({ impulseClass: 'O', totalImpulseMaxNs: 40960, plugged: true });
+    expect(parseMotorDesignation('O5800-P')).toMatchObject({
+      impulseClass: 'O',
+      totalImpulseMaxNs: 40960,
+      plugged: true,
+    });
   });
 
-  it.each(['', 'C', '1/4A', 'C0-5', 'P100-5', 'Z6-5', 'C6--5', '6-5', 'C6-5-5', 'C6-X', 'C6-123', '1/3A3-4', 'hello'])('should refuse %j', (text) => {
-    expect(parseMotorDesignation(text)).toBeNull();
-  });
+  it.each(['', 'C', '1/4A', 'C0-5', 'P100-5', 'Z6-5', 'C6--5', '6-5', 'C6-5-5', 'C6-X', 'C6-123', '1/3A3-4', 'hello'])(
+    'should refuse %j',
+    (text) => {
+      expect(parseMotorDesignation(text)).toBeNull();
+    },
+  );
 });
 
 describe('IMPULSE_CLASSES', () => {

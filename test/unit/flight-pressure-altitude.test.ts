@@ -59,7 +59,8 @@ describe('altitudeAbovePadMetres', () => {
   });
 
   it('should round-trip through pressureAbovePadPa', () => {
-    for (const h of [0, 1.5, 250, 1234.5]) expect(altitudeAbovePadMetres(pressureAbovePadPa(h, 97_000), 97_000)).toBeCloseTo(h, 6);
+    for (const h of [0, 1.5, 250, 1234.5])
+      expect(altitudeAbovePadMetres(pressureAbovePadPa(h, 97_000), 97_000)).toBeCloseTo(h, 6);
   });
 
   it('should give about 8.3 m per hPa near sea level', () => {

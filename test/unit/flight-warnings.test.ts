@@ -1,4 +1,9 @@
-import { flightWarnings, motorsLitAtLiftoff, thrustToWeight, totalImpulseMaxNs } from '../../server/flights/flight-warnings';
+import {
+  flightWarnings,
+  motorsLitAtLiftoff,
+  thrustToWeight,
+  totalImpulseMaxNs,
+} from '../../server/flights/flight-warnings';
 import { parseMotorDesignation, type MotorDesignation } from '../../server/flights/motor-designation';
 
 const motor = (text: string): MotorDesignation => {
@@ -50,7 +55,11 @@ describe('totalImpulseMaxNs', () => {
 
 describe('flightWarnings', () => {
   it('should find nothing to say about a light rocket on a C6-5', () => {
-    expect(flightWarnings(card())).toEqual({ thrustToWeight: expect.closeTo(6.1183, 3), warnings: [], needsHighPower: false });
+    expect(flightWarnings(card())).toEqual({
+      thrustToWeight: expect.closeTo(6.1183, 3),
+      warnings: [],
+      needsHighPower: false,
+    });
   });
 
   it('should warn below 5 to 1 at liftoff (common practice, no source)', () => {
@@ -80,11 +89,15 @@ describe('flightWarnings', () => {
     expect(r.needsHighPower).toBe(true);
     expect(codes(r)).toContain('high_power');
     expect(r.warnings.find((w) => w.code === 'high_power')!.message).toContain('1,501 g');
-    expect(flightWarnings(card({ liftoffMassGrams: 1500, motors: [motor('G80-7T'), motor('G80-7T')] })).needsHighPower).toBe(false);
+    expect(
+      flightWarnings(card({ liftoffMassGrams: 1500, motors: [motor('G80-7T'), motor('G80-7T')] })).needsHighPower,
+    ).toBe(false);
   });
 
   it('should need high power above 320 N s of total impulse', () => {
-    const r = flightWarnings(card({ liftoffMassGrams: 1000, motors: [motor('G80-7T'), motor('G80-7T'), motor('D12-0')] }));
+    const r = flightWarnings(
+      card({ liftoffMassGrams: 1000, motors: [motor('G80-7T'), motor('G80-7T'), motor('D12-0')] }),
+    );
     expect(r.needsHighPower).toBe(true);
     expect(r.warnings.find((w) => w.code === 'high_power')!.message).toContain('340 N·s');
   });
@@ -98,9 +111,11 @@ describe('flightWarnings', () => {
   it('should warn that nothing is verified when a high-power flight has no certification on record', () => {
     const r = flightWarnings(card({ liftoffMassGrams: 1200, motors: [motor('H128W-M')], allowedClasses: null }));
     expect(codes(r)).toEqual(['high_power', 'beyond_certification']);
-    expect(flightWarnings(card({ liftoffMassGrams: 1200, motors: [motor('H128W-M')], allowedClasses: [] })).warnings.map((w) => w.code)).toContain(
-      'beyond_certification',
-    );
+    expect(
+      flightWarnings(card({ liftoffMassGrams: 1200, motors: [motor('H128W-M')], allowedClasses: [] })).warnings.map(
+        (w) => w.code,
+      ),
+    ).toContain('beyond_certification');
   });
 
   it('should not ask for a certification on a model-rocket flight', () => {
@@ -115,17 +130,33 @@ describe('flightWarnings', () => {
   });
 
   it('should accept any class up to the largest verified one, including model-rocket classes', () => {
-    expect(codes(flightWarnings(card({ liftoffMassGrams: 1200, motors: [motor('H128W-M')], allowedClasses: ['H'] })))).toEqual(['high_power']);
+    expect(
+      codes(flightWarnings(card({ liftoffMassGrams: 1200, motors: [motor('H128W-M')], allowedClasses: ['H'] }))),
+    ).toEqual(['high_power']);
     expect(codes(flightWarnings(card({ allowedClasses: ['H'] })))).toEqual([]);
   });
 
   it('should still ask for high-power certification when only model classes are verified', () => {
-    const r = flightWarnings(card({ liftoffMassGrams: 2000, motors: [motor('G80-7T'), motor('G80-7T')], allowedClasses: ['A', 'B', 'C', 'D', 'E', 'F', 'G'] }));
+    const r = flightWarnings(
+      card({
+        liftoffMassGrams: 2000,
+        motors: [motor('G80-7T'), motor('G80-7T')],
+        allowedClasses: ['A', 'B', 'C', 'D', 'E', 'F', 'G'],
+      }),
+    );
     expect(codes(r)).toEqual(['high_power', 'beyond_certification']);
   });
 
   it('should word warnings, never a permission', () => {
-    const r = flightWarnings(card({ liftoffMassGrams: 8000, motors: [motor('J350W-L')], expectedAltitudeMetres: 2000, ceilingMetres: 1000, allowedClasses: ['H'] }));
+    const r = flightWarnings(
+      card({
+        liftoffMassGrams: 8000,
+        motors: [motor('J350W-L')],
+        expectedAltitudeMetres: 2000,
+        ceilingMetres: 1000,
+        allowedClasses: ['H'],
+      }),
+    );
     expect(r.warnings.length).toBe(4);
     for (const w of r.warnings) expect(w.message).not.toMatch(/\b(approved|allowed to fly|cleared|safe to fly)\b/i);
   });

@@ -1,6 +1,11 @@
 import { needsHazardNotice } from '../../server/build-logs/hazard-rule';
 
-const post = (markdown: string, title = 'Bench day', summary = '') => ({ title, summary, markdown, tags: ['electronics'] });
+const post = (markdown: string, title = 'Bench day', summary = '') => ({
+  title,
+  summary,
+  markdown,
+  tags: ['electronics'],
+});
 
 describe('needsHazardNotice', () => {
   describe('when the words of an untagged post are about ejection charges', () => {
@@ -18,7 +23,15 @@ describe('needsHazardNotice', () => {
     });
 
     it('is on for the post the issue names, even in the title only', () => {
-      expect(needsHazardNotice(post('Crimp, solder, heat-shrink.', 'Wiring the e-matches', 'Continuity tests and black powder, step by step'))).toBe(true);
+      expect(
+        needsHazardNotice(
+          post(
+            'Crimp, solder, heat-shrink.',
+            'Wiring the e-matches',
+            'Continuity tests and black powder, step by step',
+          ),
+        ),
+      ).toBe(true);
     });
   });
 

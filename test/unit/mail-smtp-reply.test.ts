@@ -11,7 +11,9 @@ describe('what an SMTP refusal means for the address', () => {
     expect(smtpVerdict(421, '421 4.3.2 Service shutting down')).toBe('retry');
   });
   it('calls 550 5.1.1 (no such mailbox) a hard bounce', () => {
-    expect(smtpVerdict(550, '550 5.1.1 <nobody@example.test>: Recipient address rejected: User unknown')).toBe('hard_bounce');
+    expect(smtpVerdict(550, '550 5.1.1 <nobody@example.test>: Recipient address rejected: User unknown')).toBe(
+      'hard_bounce',
+    );
   });
   it('calls 553 5.1.2 (bad domain) a hard bounce', () => {
     expect(smtpVerdict(553, '553 5.1.2 The address does not exist')).toBe('hard_bounce');

@@ -33,6 +33,8 @@ describe('the demo build logs in content/', () => {
   });
 
   it('refuses front matter with a missing title, naming the file', () => {
-    expect(() => parseContentFile('broken.md', '---\nslug: x\npublishedAt: 2026-01-01\nauthor: a@b.test\n---\nbody')).toThrow(/broken\.md: title/);
+    expect(() =>
+      parseContentFile('broken.md', '---\nslug: x\npublishedAt: 2026-01-01\nauthor: a@b.test\n---\nbody'),
+    ).toThrow(/broken\.md: title/);
   });
 });

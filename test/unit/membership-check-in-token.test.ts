@@ -22,7 +22,6 @@ describe('check-in tokens', () => {
   });
 });
 
-
 describe('which reminder is due', () => {
   it('picks the window by days to the term end (common practice, no source)', () => {
     expect(dueReminder('2026-11-30', '2026-12-31')).toBeNull();

@@ -1,5 +1,16 @@
 import { dateInZone } from '../../server/platform/clock';
-import { addDays, ageOn, duesFor, isJuniorOn, isLeapYear, newTerm, renewalOpensOn, statusOn, termForPayment, type TermPolicy } from '../../server/membership/terms';
+import {
+  addDays,
+  ageOn,
+  duesFor,
+  isJuniorOn,
+  isLeapYear,
+  newTerm,
+  renewalOpensOn,
+  statusOn,
+  termForPayment,
+  type TermPolicy,
+} from '../../server/membership/terms';
 
 // The demo club: calendar year, late-season from Sep 1, 30-day grace, no proration.
 const calendar: TermPolicy = { rule: 'calendar', lateSeasonFrom: '09-01', graceDays: 30, prorate: false };
@@ -8,7 +19,11 @@ const anniversary: TermPolicy = { ...calendar, rule: 'anniversary' };
 describe('term arithmetic', () => {
   describe('joins under the calendar rule', () => {
     it('covers the calendar year for a Jan 1 join', () => {
-      expect(termForPayment('2027-01-01', null, calendar)).toEqual({ start: '2027-01-01', end: '2027-12-31', renewal: false });
+      expect(termForPayment('2027-01-01', null, calendar)).toEqual({
+        start: '2027-01-01',
+        end: '2027-12-31',
+        renewal: false,
+      });
     });
 
     // Late-season rule: common practice, no source. Aug 31 is the last day before it applies.
@@ -28,29 +43,58 @@ describe('term arithmetic', () => {
 
     // Gregorian rule: a year divisible by 4 is leap, except centuries not divisible by 400 (so 2028 leap, 2029 not, 1900 not, 2000 leap).
     it('ends a Feb 29 start on Feb 28 of the next year', () => {
-      expect([isLeapYear(2028), isLeapYear(2029), isLeapYear(1900), isLeapYear(2000)]).toEqual([true, false, false, true]);
+      expect([isLeapYear(2028), isLeapYear(2029), isLeapYear(1900), isLeapYear(2000)]).toEqual([
+        true,
+        false,
+        false,
+        true,
+      ]);
       expect(newTerm('2028-02-29', anniversary)).toEqual({ start: '2028-02-29', end: '2029-02-28' });
     });
 
     it('renews a term ending Feb 28 into one ending Feb 28 again', () => {
-      expect(termForPayment('2029-02-20', '2029-02-28', anniversary)).toEqual({ start: '2029-03-01', end: '2030-02-28', renewal: true });
+      expect(termForPayment('2029-02-20', '2029-02-28', anniversary)).toEqual({
+        start: '2029-03-01',
+        end: '2030-02-28',
+        renewal: true,
+      });
     });
   });
 
   describe('renewals', () => {
     it('extends an early renewal from the current term end, not from today', () => {
-      expect(termForPayment('2026-11-10', '2026-12-31', calendar)).toEqual({ start: '2027-01-01', end: '2027-12-31', renewal: true });
-      expect(termForPayment('2026-11-10', '2027-03-14', anniversary)).toEqual({ start: '2027-03-15', end: '2028-03-14', renewal: true });
+      expect(termForPayment('2026-11-10', '2026-12-31', calendar)).toEqual({
+        start: '2027-01-01',
+        end: '2027-12-31',
+        renewal: true,
+      });
+      expect(termForPayment('2026-11-10', '2027-03-14', anniversary)).toEqual({
+        start: '2027-03-15',
+        end: '2028-03-14',
+        renewal: true,
+      });
     });
 
     it('extends a renewal in grace from the old end', () => {
-      expect(termForPayment('2027-01-20', '2026-12-31', calendar)).toEqual({ start: '2027-01-01', end: '2027-12-31', renewal: true });
+      expect(termForPayment('2027-01-20', '2026-12-31', calendar)).toEqual({
+        start: '2027-01-01',
+        end: '2027-12-31',
+        renewal: true,
+      });
       expect(termForPayment('2027-01-30', '2026-12-31', calendar).renewal).toBe(true);
     });
 
     it('starts a new term after grace has run out', () => {
-      expect(termForPayment('2027-01-31', '2026-12-31', calendar)).toEqual({ start: '2027-01-31', end: '2027-12-31', renewal: false });
-      expect(termForPayment('2027-10-02', '2026-12-31', calendar)).toEqual({ start: '2027-10-02', end: '2028-12-31', renewal: false });
+      expect(termForPayment('2027-01-31', '2026-12-31', calendar)).toEqual({
+        start: '2027-01-31',
+        end: '2027-12-31',
+        renewal: false,
+      });
+      expect(termForPayment('2027-10-02', '2026-12-31', calendar)).toEqual({
+        start: '2027-10-02',
+        end: '2028-12-31',
+        renewal: false,
+      });
     });
   });
 
@@ -109,7 +153,10 @@ describe('term arithmetic', () => {
     });
 
     it('starts an anniversary term on the Winnipeg date', () => {
-      expect(newTerm(dateInZone(instant, 'America/Winnipeg'), anniversary)).toEqual({ start: '2026-12-31', end: '2027-12-30' });
+      expect(newTerm(dateInZone(instant, 'America/Winnipeg'), anniversary)).toEqual({
+        start: '2026-12-31',
+        end: '2027-12-30',
+      });
     });
   });
 

@@ -33,13 +33,18 @@ describe('NotifiedCache', () => {
     const n = fakeNotifications();
     const cache = new NotifiedCache<string>(n as unknown as DatabaseNotifications, 'test');
     let release!: () => void;
-    const slow = () => new Promise<{ value: string; validFrom: number; validUntil: number }>((r) => (release = () => r({ value: 'before the change', ...ALWAYS })));
+    const slow = () =>
+      new Promise<{ value: string; validFrom: number; validUntil: number }>(
+        (r) => (release = () => r({ value: 'before the change', ...ALWAYS })),
+      );
     const pending = cache.get('k', at('2026-12-01T00:00:00Z'), slow);
     await Promise.resolve();
     n.notify();
     release();
     expect(await pending).toBe('before the change');
-    expect(await cache.get('k', at('2026-12-01T00:00:00Z'), async () => ({ value: 'after the change', ...ALWAYS }))).toBe('after the change');
+    expect(
+      await cache.get('k', at('2026-12-01T00:00:00Z'), async () => ({ value: 'after the change', ...ALWAYS })),
+    ).toBe('after the change');
   });
 
   it('shares one build among reads that arrive while it runs', async () => {
@@ -70,10 +75,17 @@ describe('NotifiedCache', () => {
   it('builds again once `now` leaves the window the value was true in, and keeps nothing for null', async () => {
     const n = fakeNotifications();
     const cache = new NotifiedCache<string>(n as unknown as DatabaseNotifications, 'test');
-    const window = { validFrom: at('2026-12-01T00:00:00Z').getTime(), validUntil: at('2026-12-02T00:00:00Z').getTime() };
+    const window = {
+      validFrom: at('2026-12-01T00:00:00Z').getTime(),
+      validUntil: at('2026-12-02T00:00:00Z').getTime(),
+    };
     expect(await cache.get('k', at('2026-12-01T12:00:00Z'), async () => ({ value: 'open', ...window }))).toBe('open');
-    expect(await cache.get('k', at('2026-12-01T23:59:59Z'), async () => ({ value: 'not read', ...window }))).toBe('open');
-    expect(await cache.get('k', at('2026-12-02T00:00:00Z'), async () => ({ value: 'closed', ...ALWAYS }))).toBe('closed');
+    expect(await cache.get('k', at('2026-12-01T23:59:59Z'), async () => ({ value: 'not read', ...window }))).toBe(
+      'open',
+    );
+    expect(await cache.get('k', at('2026-12-02T00:00:00Z'), async () => ({ value: 'closed', ...ALWAYS }))).toBe(
+      'closed',
+    );
     let reads = 0;
     await cache.get('none', at('2026-12-01T12:00:00Z'), async () => (reads++, null));
     await cache.get('none', at('2026-12-01T12:00:00Z'), async () => (reads++, null));
@@ -90,16 +102,29 @@ describe('readyJson', () => {
 });
 
 describe('viewValidity', () => {
-  const bundle = (opens: string, closes: string) => ({ run: { opens_at: at(opens), closes_at: at(closes) } }) as unknown as ProductBundle;
+  const bundle = (opens: string, closes: string) =>
+    ({ run: { opens_at: at(opens), closes_at: at(closes) } }) as unknown as ProductBundle;
 
   it('spans from the last opening or closing at or before now to the next one after it', () => {
-    const bundles = [bundle('2026-12-01T00:00:00Z', '2026-12-10T00:00:00Z'), bundle('2026-12-05T00:00:00Z', '2026-12-20T00:00:00Z')];
-    expect(viewValidity(bundles, at('2026-12-03T00:00:00Z'))).toEqual({ validFrom: at('2026-12-01T00:00:00Z').getTime(), validUntil: at('2026-12-05T00:00:00Z').getTime() });
+    const bundles = [
+      bundle('2026-12-01T00:00:00Z', '2026-12-10T00:00:00Z'),
+      bundle('2026-12-05T00:00:00Z', '2026-12-20T00:00:00Z'),
+    ];
+    expect(viewValidity(bundles, at('2026-12-03T00:00:00Z'))).toEqual({
+      validFrom: at('2026-12-01T00:00:00Z').getTime(),
+      validUntil: at('2026-12-05T00:00:00Z').getTime(),
+    });
     // At the very instant a run opens, its state is already open (effectiveRunState: now >= opensAt).
-    expect(viewValidity(bundles, at('2026-12-05T00:00:00Z'))).toEqual({ validFrom: at('2026-12-05T00:00:00Z').getTime(), validUntil: at('2026-12-10T00:00:00Z').getTime() });
+    expect(viewValidity(bundles, at('2026-12-05T00:00:00Z'))).toEqual({
+      validFrom: at('2026-12-05T00:00:00Z').getTime(),
+      validUntil: at('2026-12-10T00:00:00Z').getTime(),
+    });
   });
 
   it('is unbounded for products without runs', () => {
-    expect(viewValidity([{ run: null } as unknown as ProductBundle], at('2026-12-03T00:00:00Z'))).toEqual({ validFrom: -Infinity, validUntil: Infinity });
+    expect(viewValidity([{ run: null } as unknown as ProductBundle], at('2026-12-03T00:00:00Z'))).toEqual({
+      validFrom: -Infinity,
+      validUntil: Infinity,
+    });
   });
 });

@@ -29,12 +29,20 @@ describe('the fee estimate typed as a percentage', () => {
 
   it('stores 1.15 % as 115 basis points despite binary fractions', () => {
     // 1.15 * 100 is 114.99999999999999 in IEEE 754 doubles (seen in Node 20).
-    expect(fromFeePercent(FeePercentBody.parse({ percent: 2.95, fixedCents: 0, internationalExtraPercent: 1.15 }))).toEqual({ percentBasisPoints: 295, fixedCents: 0, internationalExtraBasisPoints: 115 });
+    expect(
+      fromFeePercent(FeePercentBody.parse({ percent: 2.95, fixedCents: 0, internationalExtraPercent: 1.15 })),
+    ).toEqual({ percentBasisPoints: 295, fixedCents: 0, internationalExtraBasisPoints: 115 });
   });
 
   it('refuses more than two decimals, a negative or more than 100 %', () => {
-    expect(FeePercentBody.safeParse({ percent: 2.905, fixedCents: 30, internationalExtraPercent: 0 }).success).toBe(false);
-    expect(FeePercentBody.safeParse({ percent: -0.1, fixedCents: 30, internationalExtraPercent: 0 }).success).toBe(false);
-    expect(FeePercentBody.safeParse({ percent: 100.01, fixedCents: 30, internationalExtraPercent: 0 }).success).toBe(false);
+    expect(FeePercentBody.safeParse({ percent: 2.905, fixedCents: 30, internationalExtraPercent: 0 }).success).toBe(
+      false,
+    );
+    expect(FeePercentBody.safeParse({ percent: -0.1, fixedCents: 30, internationalExtraPercent: 0 }).success).toBe(
+      false,
+    );
+    expect(FeePercentBody.safeParse({ percent: 100.01, fixedCents: 30, internationalExtraPercent: 0 }).success).toBe(
+      false,
+    );
   });
 });

@@ -1,8 +1,16 @@
-import { MAX_MARKDOWN_LENGTH, markdownProblem, renderMarkdown, renderMarkdownChecked, UnrenderableMarkdown } from '../../server/markdown/render-markdown';
+import {
+  MAX_MARKDOWN_LENGTH,
+  markdownProblem,
+  renderMarkdown,
+  renderMarkdownChecked,
+  UnrenderableMarkdown,
+} from '../../server/markdown/render-markdown';
 
 describe('renderMarkdown', () => {
   it('should render GFM tables, task lists and fenced code', () => {
-    const html = renderMarkdown('| a | b |\n|---|---|\n| 1 | 2 |\n\n- [x] done\n- [ ] open\n\n```ts\nconst x = 1;\n```');
+    const html = renderMarkdown(
+      '| a | b |\n|---|---|\n| 1 | 2 |\n\n- [x] done\n- [ ] open\n\n```ts\nconst x = 1;\n```',
+    );
     expect(html).toContain('<table>');
     expect(html).toContain('<input type="checkbox" disabled checked /> done');
     expect(html).toContain('<input type="checkbox" disabled /> open');
@@ -39,7 +47,9 @@ describe('ASVS 5.2.1: links that open another window', () => {
   });
 
   it('should give every link with a target the rel, local ones included', () => {
-    const html = renderMarkdown('<a href="/shop" target="shop" rel="opener">shop</a> <a href="\thttp://x.example\n" rel="opener">y</a>');
+    const html = renderMarkdown(
+      '<a href="/shop" target="shop" rel="opener">shop</a> <a href="\thttp://x.example\n" rel="opener">y</a>',
+    );
     for (const a of anchors(html)) expect(a).toContain('rel="noopener noreferrer"');
     expect(anchors(html)).toHaveLength(2);
   });
@@ -53,7 +63,12 @@ describe('ASVS 5.2.1: links that open another window', () => {
 // OWASP ASVS 4.0.3 5.1.4 (structured data checked against its rules, here nesting depth and length): marked recurses
 // per level, so text nested a few thousand levels deep overflowed the stack on every render.
 describe('ASVS 5.1.4: Markdown nested too deep', () => {
-  const deep = ['>'.repeat(2000) + ' x', '> '.repeat(2000) + 'x', '- '.repeat(2000) + 'x', '*'.repeat(2000) + 'x' + '*'.repeat(2000)];
+  const deep = [
+    '>'.repeat(2000) + ' x',
+    '> '.repeat(2000) + 'x',
+    '- '.repeat(2000) + 'x',
+    '*'.repeat(2000) + 'x' + '*'.repeat(2000),
+  ];
 
   it.each(deep.map((d) => [d.slice(0, 12), d]))('should refuse %j... at the write check', (_label, md) => {
     expect(markdownProblem(md)).toMatch(/nested too deeply/);

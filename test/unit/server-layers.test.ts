@@ -29,7 +29,9 @@ function importsOf(dir: string): Import[] {
     [...readFileSync(path.join(root, file), 'utf8').matchAll(SPECIFIER)].map(([, specifier]) => ({
       file,
       specifier,
-      target: specifier.startsWith('.') ? path.posix.normalize(path.posix.join(path.posix.dirname(file), specifier)) : null,
+      target: specifier.startsWith('.')
+        ? path.posix.normalize(path.posix.join(path.posix.dirname(file), specifier))
+        : null,
     })),
   );
 }
@@ -44,13 +46,16 @@ describe('server layers', () => {
   });
 
   it('keeps server/platform to itself, the contracts, the config and packages', () => {
-    const allowed = (t: string) => t.startsWith('server/platform/') || t.startsWith('contracts/') || t === 'server/config';
+    const allowed = (t: string) =>
+      t.startsWith('server/platform/') || t.startsWith('contracts/') || t === 'server/config';
     const bad = server.filter((i) => i.file.startsWith('server/platform/') && i.target !== null && !allowed(i.target));
     expect(listed(bad)).toEqual([]);
   });
 
   it('lets no repository import a service', () => {
-    const bad = server.filter((i) => i.file.endsWith('-repository.ts') && i.target !== null && i.target.endsWith('-service'));
+    const bad = server.filter(
+      (i) => i.file.endsWith('-repository.ts') && i.target !== null && i.target.endsWith('-service'),
+    );
     expect(listed(bad)).toEqual([]);
   });
 });
@@ -63,7 +68,9 @@ describe('client and contracts', () => {
 
   it('keeps contracts/ free of the server, the app, Angular and Express', () => {
     const forbidden = (i: Import) =>
-      i.target !== null ? !i.target.startsWith('contracts/') : i.specifier.startsWith('@angular/') || i.specifier === 'express' || i.specifier.startsWith('express/');
+      i.target !== null
+        ? !i.target.startsWith('contracts/')
+        : i.specifier.startsWith('@angular/') || i.specifier === 'express' || i.specifier.startsWith('express/');
     expect(listed(importsOf('contracts').filter(forbidden))).toEqual([]);
   });
 });

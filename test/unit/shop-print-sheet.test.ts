@@ -9,18 +9,27 @@ describe('printQuantities', () => {
   it('adds 5% spares rounded up, then rounds up to packs of 6', () => {
     const s = printQuantities([v('M', 40), v('L', 7)], { sparesPercent: 5, packMultiple: 6, minimumPerDesign: 12 });
     // M: 40 + ceil(2.0) = 42 -> 42; L: 7 + ceil(0.35) = 8 -> 12.
-    expect(s.lines.map((l) => [l.spares, l.toPrint])).toEqual([[2, 42], [1, 12]]);
+    expect(s.lines.map((l) => [l.spares, l.toPrint])).toEqual([
+      [2, 42],
+      [1, 12],
+    ]);
     expect(s.totalToPrint).toBe(54);
     expect(s.totalPaid).toBe(47);
   });
   it('raises a small design to the printer minimum on the best seller, in whole packs', () => {
-    const s = printQuantities([v('S', 2), v('M', 3), v('XL', 0)], { sparesPercent: 5, packMultiple: 4, minimumPerDesign: 24 });
+    const s = printQuantities([v('S', 2), v('M', 3), v('XL', 0)], {
+      sparesPercent: 5,
+      packMultiple: 4,
+      minimumPerDesign: 24,
+    });
     // S: 2+1=3 -> 4; M: 3+1=4 -> 4; XL: 0. Total 8 < 24: shortfall 16 -> M gets 20.
     expect(s.lines.map((l) => l.toPrint)).toEqual([4, 20, 0]);
     expect(s.totalToPrint).toBe(24);
   });
   it('prints nothing when nothing is paid', () => {
-    expect(printQuantities([v('M', 0)], { sparesPercent: 5, packMultiple: 6, minimumPerDesign: 12 }).totalToPrint).toBe(0);
+    expect(printQuantities([v('M', 0)], { sparesPercent: 5, packMultiple: 6, minimumPerDesign: 12 }).totalToPrint).toBe(
+      0,
+    );
   });
   it('rounds up to a multiple', () => {
     expect([roundUpTo(1, 12), roundUpTo(12, 12), roundUpTo(13, 12)]).toEqual([12, 12, 24]);
@@ -29,8 +38,16 @@ describe('printQuantities', () => {
 
 describe('pricing helpers', () => {
   it('picks the first weight bracket that holds the parcel', () => {
-    const b = [{ maxGrams: 1500, priceCents: 1400 }, { maxGrams: 500, priceCents: 900 }];
-    expect([shippingFor(200, b), shippingFor(500, b), shippingFor(501, b), shippingFor(1501, b)]).toEqual([900, 900, 1400, null]);
+    const b = [
+      { maxGrams: 1500, priceCents: 1400 },
+      { maxGrams: 500, priceCents: 900 },
+    ];
+    expect([shippingFor(200, b), shippingFor(500, b), shippingFor(501, b), shippingFor(1501, b)]).toEqual([
+      900,
+      900,
+      1400,
+      null,
+    ]);
     expect(shippingFor(99999, [{ maxGrams: null, priceCents: 0 }])).toBe(0);
   });
   it('takes a member discount of 10% half-up', () => {

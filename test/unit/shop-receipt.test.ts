@@ -17,7 +17,10 @@ const input = (totalCents: number): ReceiptInput => ({
 describe('receiptFor', () => {
   it('adds the buyer’s name and terms from C$500.00, not at C$499.99', () => {
     expect(receiptFor(input(49_999), seller)).toMatchObject({ buyerName: null, paymentTerms: null });
-    expect(receiptFor(input(50_000), seller)).toMatchObject({ buyerName: 'A Buyer', paymentTerms: 'Paid in full by card' });
+    expect(receiptFor(input(50_000), seller)).toMatchObject({
+      buyerName: 'A Buyer',
+      paymentTerms: 'Paid in full by card',
+    });
   });
 
   it('prints each tax with its rate and the numbers for the taxes charged', () => {
@@ -34,6 +37,9 @@ describe('receiptFor', () => {
   });
 
   it('prints no GST/HST number on an order without GST/HST (outside Canada)', () => {
-    expect(receiptFor({ ...input(20_000), taxes: [] }, seller)).toMatchObject({ gstHstNumber: null, provincialTaxNumbers: [] });
+    expect(receiptFor({ ...input(20_000), taxes: [] }, seller)).toMatchObject({
+      gstHstNumber: null,
+      provincialTaxNumbers: [],
+    });
   });
 });

@@ -1,4 +1,11 @@
-import { computeRefund, remainingOf, shareProcessorRefund, type RefundableOrder, type RefundBreakdown, type RefundRefusal } from '../../server/shop/refund-arithmetic';
+import {
+  computeRefund,
+  remainingOf,
+  shareProcessorRefund,
+  type RefundableOrder,
+  type RefundBreakdown,
+  type RefundRefusal,
+} from '../../server/shop/refund-arithmetic';
 import { divideHalfUp } from '../../server/shop/tax';
 
 // A Manitoba order: two shirts at 35.00 and a pin at 8.00, mailed for 14.00. GST 5% and RST 7% both on goods and
@@ -35,11 +42,19 @@ const taxes = (r: RefundBreakdown) => r.taxes.map((t) => [t.code, t.taxableCents
 /** What a settled refund leaves behind, to chain refunds as the service does. */
 function after(o: RefundableOrder, r: RefundBreakdown): RefundableOrder {
   const taxCents = { ...o.refunded.taxCents };
-  for (const t of r.taxes) taxCents[`${t.code}:${t.jurisdiction}`] = (taxCents[`${t.code}:${t.jurisdiction}`] ?? 0) + t.taxCents;
+  for (const t of r.taxes)
+    taxCents[`${t.code}:${t.jurisdiction}`] = (taxCents[`${t.code}:${t.jurisdiction}`] ?? 0) + t.taxCents;
   return {
     ...o,
-    items: o.items.map((i) => ({ ...i, refundedQuantity: i.refundedQuantity + (r.lines.find((l) => l.orderItemId === i.id)?.quantity ?? 0) })),
-    refunded: { goodsCents: o.refunded.goodsCents + r.goodsCents, shippingCents: o.refunded.shippingCents + r.shippingCents, taxCents },
+    items: o.items.map((i) => ({
+      ...i,
+      refundedQuantity: i.refundedQuantity + (r.lines.find((l) => l.orderItemId === i.id)?.quantity ?? 0),
+    })),
+    refunded: {
+      goodsCents: o.refunded.goodsCents + r.goodsCents,
+      shippingCents: o.refunded.shippingCents + r.shippingCents,
+      taxCents,
+    },
   };
 }
 
@@ -58,7 +73,10 @@ describe('computeRefund by line', () => {
     // 35.00 x 5% = 1.75; 35.00 x 7% = 2.45; total 39.20. A share of the total would have been 39.20 only by chance.
     const r = ok(computeRefund(mbOrder(), { lines: [{ orderItemId: 1, quantity: 1 }], shipping: false }));
     expect([r.goodsCents, r.shippingCents, r.taxCents, r.totalCents]).toEqual([3500, 0, 420, 3920]);
-    expect(taxes(r)).toEqual([['GST', 3500, 175], ['RST', 3500, 245]]);
+    expect(taxes(r)).toEqual([
+      ['GST', 3500, 175],
+      ['RST', 3500, 245],
+    ]);
     expect(r.lines).toEqual([{ orderItemId: 1, quantity: 1, goodsCents: 3500 }]);
   });
 
@@ -66,17 +84,25 @@ describe('computeRefund by line', () => {
     // 14.00 x 5% = 0.70; 14.00 x 7% = 0.98 (Excise Tax Act s. 232, from memory).
     const r = ok(computeRefund(mbOrder(), { lines: [], shipping: true }));
     expect([r.goodsCents, r.shippingCents, r.totalCents]).toEqual([0, 1400, 1568]);
-    expect(taxes(r)).toEqual([['GST', 1400, 70], ['RST', 1400, 98]]);
+    expect(taxes(r)).toEqual([
+      ['GST', 1400, 70],
+      ['RST', 1400, 98],
+    ]);
   });
 
   it('leaves shipping out of a tax that did not apply to it', () => {
-    const o = mbOrder({ taxes: [
-      { code: 'GST', jurisdiction: 'MB', ratePercent: '5', taxableCents: 9200, amountCents: 460, onShipping: true },
-      { code: 'RST', jurisdiction: 'MB', ratePercent: '7', taxableCents: 7800, amountCents: 546, onShipping: false },
-    ] });
+    const o = mbOrder({
+      taxes: [
+        { code: 'GST', jurisdiction: 'MB', ratePercent: '5', taxableCents: 9200, amountCents: 460, onShipping: true },
+        { code: 'RST', jurisdiction: 'MB', ratePercent: '7', taxableCents: 7800, amountCents: 546, onShipping: false },
+      ],
+    });
     const r = ok(computeRefund(o, { lines: [{ orderItemId: 2, quantity: 1 }], shipping: true }));
     // GST on 8.00 + 14.00 = 22.00 -> 1.10; RST on 8.00 only -> 0.56 (common practice, no source).
-    expect(taxes(r)).toEqual([['GST', 2200, 110], ['RST', 800, 56]]);
+    expect(taxes(r)).toEqual([
+      ['GST', 2200, 110],
+      ['RST', 800, 56],
+    ]);
     expect(r.totalCents).toBe(2200 + 110 + 56);
   });
 
@@ -85,13 +111,24 @@ describe('computeRefund by line', () => {
     const o = mbOrder({ discountPercent: 10, goodsCents: 7020 });
     const r = ok(computeRefund(o, { lines: [{ orderItemId: 1, quantity: 1 }], shipping: false }));
     expect(r.goodsCents).toBe(3150);
-    expect(taxes(r)).toEqual([['GST', 3150, 158], ['RST', 3150, 221]]);
+    expect(taxes(r)).toEqual([
+      ['GST', 3150, 158],
+      ['RST', 3150, 221],
+    ]);
   });
 
   it('reverses exactly the tax charged once every line and the shipping are refunded, across several refunds', () => {
     const o = mbOrder();
     const first = ok(computeRefund(o, { lines: [{ orderItemId: 1, quantity: 1 }], shipping: false }));
-    const second = ok(computeRefund(after(o, first), { lines: [{ orderItemId: 1, quantity: 1 }, { orderItemId: 2, quantity: 1 }], shipping: true }));
+    const second = ok(
+      computeRefund(after(o, first), {
+        lines: [
+          { orderItemId: 1, quantity: 1 },
+          { orderItemId: 2, quantity: 1 },
+        ],
+        shipping: true,
+      }),
+    );
     expect(second.closesOrder).toBe(true);
     expect(first.totalCents + second.totalCents).toBe(10304);
     expect(first.taxes[0].taxCents + second.taxes[0].taxCents).toBe(460);
@@ -100,15 +137,35 @@ describe('computeRefund by line', () => {
   });
 
   it('refuses units already refunded as over_refund and unknown lines as bad input, beside the field', () => {
-    const o = mbOrder({ items: [{ id: 1, unitPriceCents: 3500, quantity: 2, refundedQuantity: 2 }, { id: 2, unitPriceCents: 800, quantity: 1, refundedQuantity: 0 }] });
-    expect(refused(computeRefund(o, { lines: [{ orderItemId: 1, quantity: 1 }], shipping: false }))).toMatchObject({ code: 'over_refund', fields: { 'lines.0.quantity': expect.stringMatching(/already refunded/) } });
-    expect(refused(computeRefund(o, { lines: [{ orderItemId: 99, quantity: 1 }], shipping: false }))).toMatchObject({ code: 'invalid_request', fields: { 'lines.0.orderItemId': expect.any(String) } });
-    expect(refused(computeRefund(mbOrder(), { lines: [{ orderItemId: 1, quantity: 3 }], shipping: false }))).toMatchObject({ code: 'invalid_request', fields: { 'lines.0.quantity': expect.stringMatching(/2 unit/) } });
+    const o = mbOrder({
+      items: [
+        { id: 1, unitPriceCents: 3500, quantity: 2, refundedQuantity: 2 },
+        { id: 2, unitPriceCents: 800, quantity: 1, refundedQuantity: 0 },
+      ],
+    });
+    expect(refused(computeRefund(o, { lines: [{ orderItemId: 1, quantity: 1 }], shipping: false }))).toMatchObject({
+      code: 'over_refund',
+      fields: { 'lines.0.quantity': expect.stringMatching(/already refunded/) },
+    });
+    expect(refused(computeRefund(o, { lines: [{ orderItemId: 99, quantity: 1 }], shipping: false }))).toMatchObject({
+      code: 'invalid_request',
+      fields: { 'lines.0.orderItemId': expect.any(String) },
+    });
+    expect(
+      refused(computeRefund(mbOrder(), { lines: [{ orderItemId: 1, quantity: 3 }], shipping: false })),
+    ).toMatchObject({ code: 'invalid_request', fields: { 'lines.0.quantity': expect.stringMatching(/2 unit/) } });
   });
 
   it('answers refund_changed when the amount sent with lines is not what they come to (a stale preview)', () => {
-    expect(refused(computeRefund(mbOrder(), { lines: [{ orderItemId: 1, quantity: 1 }], shipping: false, amountCents: 3900 })).code).toBe('refund_changed');
-    expect(ok(computeRefund(mbOrder(), { lines: [{ orderItemId: 1, quantity: 1 }], shipping: false, amountCents: 3920 })).totalCents).toBe(3920);
+    expect(
+      refused(
+        computeRefund(mbOrder(), { lines: [{ orderItemId: 1, quantity: 1 }], shipping: false, amountCents: 3900 }),
+      ).code,
+    ).toBe('refund_changed');
+    expect(
+      ok(computeRefund(mbOrder(), { lines: [{ orderItemId: 1, quantity: 1 }], shipping: false, amountCents: 3920 }))
+        .totalCents,
+    ).toBe(3920);
   });
 });
 
@@ -118,7 +175,10 @@ describe('computeRefund by amount alone', () => {
     // 11.20 at 12% combined: 11.20 x 12 / 112 = 1.20 -> GST 0.50, RST 0.70; goods 10.00.
     const r = ok(computeRefund(mbOrder(), { lines: [], shipping: false, amountCents: 1120 }));
     expect([r.goodsCents, r.shippingCents, r.totalCents]).toEqual([1000, 0, 1120]);
-    expect(taxes(r)).toEqual([['GST', 1000, 50], ['RST', 1000, 70]]);
+    expect(taxes(r)).toEqual([
+      ['GST', 1000, 50],
+      ['RST', 1000, 70],
+    ]);
     expect(r.lines).toEqual([]);
   });
 
@@ -129,11 +189,17 @@ describe('computeRefund by amount alone', () => {
     expect(rest.closesOrder).toBe(true);
     expect(first.taxes[0].taxCents + rest.taxes[0].taxCents).toBe(460);
     expect(first.taxes[1].taxCents + rest.taxes[1].taxCents).toBe(644);
-    expect(rest.lines.map((l) => [l.orderItemId, l.quantity])).toEqual([[1, 2], [2, 1]]);
+    expect(rest.lines.map((l) => [l.orderItemId, l.quantity])).toEqual([
+      [1, 2],
+      [2, 1],
+    ]);
   });
 
   it('refuses more than is left as over_refund, and nothing asked as bad input', () => {
-    expect(refused(computeRefund(mbOrder(), { lines: [], shipping: false, amountCents: 10305 }))).toMatchObject({ code: 'over_refund', fields: { amountCents: expect.stringMatching(/103\.04/) } });
+    expect(refused(computeRefund(mbOrder(), { lines: [], shipping: false, amountCents: 10305 }))).toMatchObject({
+      code: 'over_refund',
+      fields: { amountCents: expect.stringMatching(/103\.04/) },
+    });
     expect(refused(computeRefund(mbOrder(), { lines: [], shipping: false })).code).toBe('invalid_request');
   });
 

@@ -1,9 +1,22 @@
-import { computeTaxes, formatRate, rateUnits, taxOn, type Province, type TaxRate, type TaxRules } from '../../server/shop/tax';
+import {
+  computeTaxes,
+  formatRate,
+  rateUnits,
+  taxOn,
+  type Province,
+  type TaxRate,
+  type TaxRules,
+} from '../../server/shop/tax';
 
 // The rate table as the migration seeds it; each value is checked against its source below.
 const CRA = 'CRA rate page';
 const RATES: TaxRate[] = [
-  ...(['AB', 'NT', 'NU', 'YT', 'BC', 'MB', 'QC', 'SK'] as Province[]).map((p) => ({ jurisdiction: p, code: 'GST' as const, ratePercent: '5.0000', effectiveFrom: '2008-01-01' })),
+  ...(['AB', 'NT', 'NU', 'YT', 'BC', 'MB', 'QC', 'SK'] as Province[]).map((p) => ({
+    jurisdiction: p,
+    code: 'GST' as const,
+    ratePercent: '5.0000',
+    effectiveFrom: '2008-01-01',
+  })),
   { jurisdiction: 'ON', code: 'HST', ratePercent: '13.0000', effectiveFrom: '2010-07-01' },
   { jurisdiction: 'NB', code: 'HST', ratePercent: '15.0000', effectiveFrom: '2016-07-01' },
   { jurisdiction: 'NL', code: 'HST', ratePercent: '15.0000', effectiveFrom: '2016-07-01' },
@@ -18,8 +31,13 @@ const RATES: TaxRate[] = [
 ];
 
 /** A seller registered for everything, no provincial tax on shipping: shows each province's published rates. */
-const ALL: TaxRules = { gstHstRegistered: true, provincialRegistrations: ['BC', 'MB', 'QC', 'SK'], provincialTaxOnShipping: {} };
-const on = (province: Province, goodsCents: number, date = '2026-06-01', shippingCents = 0, rules = ALL) => computeTaxes({ goodsCents, shippingCents, province, date }, RATES, rules);
+const ALL: TaxRules = {
+  gstHstRegistered: true,
+  provincialRegistrations: ['BC', 'MB', 'QC', 'SK'],
+  provincialTaxOnShipping: {},
+};
+const on = (province: Province, goodsCents: number, date = '2026-06-01', shippingCents = 0, rules = ALL) =>
+  computeTaxes({ goodsCents, shippingCents, province, date }, RATES, rules);
 const summary = (lines: ReturnType<typeof on>) => lines.map((l) => `${l.code} ${l.ratePercent}% ${l.amountCents}`);
 
 describe('sales tax on C$100.00 of goods, by province and territory (2026)', () => {
@@ -28,7 +46,11 @@ describe('sales tax on C$100.00 of goods, by province and territory (2026)', () 
     ['NT', ['GST 5% 500'], `${CRA}: NT 5% GST`],
     ['NU', ['GST 5% 500'], `${CRA}: NU 5% GST`],
     ['YT', ['GST 5% 500'], `${CRA}: YT 5% GST`],
-    ['BC', ['GST 5% 500', 'PST 7% 700'], 'CRA rate page (GST); Government of British Columbia, "B.C. provincial sales tax (PST)" 7%'],
+    [
+      'BC',
+      ['GST 5% 500', 'PST 7% 700'],
+      'CRA rate page (GST); Government of British Columbia, "B.C. provincial sales tax (PST)" 7%',
+    ],
     ['MB', ['GST 5% 500', 'RST 7% 700'], 'CRA rate page (GST); Manitoba Finance, "Retail Sales Tax" 7%'],
     ['SK', ['GST 5% 500', 'PST 6% 600'], 'CRA rate page (GST); Government of Saskatchewan, "Provincial Sales Tax" 6%'],
     ['QC', ['GST 5% 500', 'QST 9.975% 998'], 'Revenu Québec worked example: C$100 -> GST C$5.00 + QST C$9.98'],
@@ -48,8 +70,10 @@ describe('Nova Scotia on both sides of 2025-04-01 (CRA GST/HST Notice 342 [2nd]:
 });
 
 describe('Manitoba RST on both sides of 2019-07-01 (Manitoba Finance, from memory: 8% until 2019-06-30, 7% from 2019-07-01)', () => {
-  it('charges RST 8% on 2019-06-30', () => expect(summary(on('MB', 10000, '2019-06-30'))).toEqual(['GST 5% 500', 'RST 8% 800']));
-  it('charges RST 7% on 2019-07-01', () => expect(summary(on('MB', 10000, '2019-07-01'))).toEqual(['GST 5% 500', 'RST 7% 700']));
+  it('charges RST 8% on 2019-06-30', () =>
+    expect(summary(on('MB', 10000, '2019-06-30'))).toEqual(['GST 5% 500', 'RST 8% 800']));
+  it('charges RST 7% on 2019-07-01', () =>
+    expect(summary(on('MB', 10000, '2019-07-01'))).toEqual(['GST 5% 500', 'RST 7% 700']));
 });
 
 describe('registrations', () => {
@@ -57,7 +81,9 @@ describe('registrations', () => {
     expect(on('ON', 10000, '2026-06-01', 0, { ...ALL, gstHstRegistered: false })).toEqual([]);
   });
   it('charges only GST in B.C. when the seller is not registered for B.C. PST (the demo seller: MB only)', () => {
-    expect(summary(on('BC', 10000, '2026-06-01', 0, { ...ALL, provincialRegistrations: ['MB'] }))).toEqual(['GST 5% 500']);
+    expect(summary(on('BC', 10000, '2026-06-01', 0, { ...ALL, provincialRegistrations: ['MB'] }))).toEqual([
+      'GST 5% 500',
+    ]);
   });
 });
 
@@ -67,10 +93,15 @@ describe('shipping', () => {
   });
   it('adds shipping to the provincial base only where the province setting says so (each province its own rule)', () => {
     expect(summary(on('MB', 10000, '2026-06-01', 1000))).toEqual(['GST 5% 550', 'RST 7% 700']);
-    expect(summary(on('MB', 10000, '2026-06-01', 1000, { ...ALL, provincialTaxOnShipping: { MB: true } }))).toEqual(['GST 5% 550', 'RST 7% 770']);
+    expect(summary(on('MB', 10000, '2026-06-01', 1000, { ...ALL, provincialTaxOnShipping: { MB: true } }))).toEqual([
+      'GST 5% 550',
+      'RST 7% 770',
+    ]);
   });
   it('charges no Canadian tax outside Canada (the issue’s rule; exports zero-rated: from memory)', () => {
-    expect(computeTaxes({ goodsCents: 10000, shippingCents: 2000, province: null, date: '2026-06-01' }, RATES, ALL)).toEqual([]);
+    expect(
+      computeTaxes({ goodsCents: 10000, shippingCents: 2000, province: null, date: '2026-06-01' }, RATES, ALL),
+    ).toEqual([]);
   });
 });
 

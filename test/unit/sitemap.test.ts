@@ -26,7 +26,8 @@ describe('robotsTxt', () => {
   it('keeps every crawler out of the private paths and names the sitemap (RFC 9309)', () => {
     const text = robotsTxt('https://padside.example');
     expect(text.startsWith('User-agent: *\n')).toBe(true);
-    for (const p of ['/api/', '/console', '/account', '/shop/checkout', '/sponsors/portal']) expect(text).toContain(`Disallow: ${p}\n`);
+    for (const p of ['/api/', '/console', '/account', '/shop/checkout', '/sponsors/portal'])
+      expect(text).toContain(`Disallow: ${p}\n`);
     expect(text).toContain('Sitemap: https://padside.example/sitemap.xml\n');
   });
 });

@@ -8,7 +8,9 @@ const RATES: TaxRate[] = [
   { jurisdiction: 'NS', code: 'HST', ratePercent: '14.0000', effectiveFrom: '2025-04-01' },
 ];
 const taxes = (treatment: 'promotion' | 'gift', province: 'MB' | 'NS', date = '2026-06-01', registered = true) =>
-  sponsorshipTaxes({ treatment, province, cashCents: 100_000, date }, RATES, registered).map((l) => `${l.code} ${l.ratePercent}% ${l.amountCents}`);
+  sponsorshipTaxes({ treatment, province, cashCents: 100_000, date }, RATES, registered).map(
+    (l) => `${l.code} ${l.ratePercent}% ${l.amountCents}`,
+  );
 
 describe('sponsorshipTaxes (CRA guidance on sponsorship, from memory: promotion bought is a taxable supply)', () => {
   it('charges the sponsor province’s GST or HST on promotion, never a provincial tax', () => {

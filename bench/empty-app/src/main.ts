@@ -8,4 +8,6 @@ import { bootstrapApplication } from '@angular/platform-browser';
 @Component({ selector: 'ps-empty', template: '<p>Empty</p>', changeDetection: ChangeDetectionStrategy.OnPush })
 class Empty {}
 
-bootstrapApplication(Empty, { providers: [provideZonelessChangeDetection()] }).catch((err: unknown) => console.error(err));
+bootstrapApplication(Empty, { providers: [provideZonelessChangeDetection()] }).catch((err: unknown) =>
+  console.error(err),
+);

@@ -31,7 +31,8 @@ export interface FlightAnalysis {
   filter: string;
 }
 
-const unmappable = (message: string, field: 'log' | 'columns') => new AppError(400, 'unmappable_log', message, { [field]: message });
+const unmappable = (message: string, field: 'log' | 'columns') =>
+  new AppError(400, 'unmappable_log', message, { [field]: message });
 
 /** Column indexes of a mapping within the header row. */
 interface Indexes {
@@ -107,8 +108,16 @@ function checkPressureScale(first: Float64Array, mapping: ColumnMapping) {
   const pad = [...first].sort((x, y) => x - y)[first.length >> 1];
   if (pad >= 50_000 && pad <= 110_000) return;
   const shown = mapping.pressure.unit === 'hPa' ? `${Math.round(pad) / 100} hPa` : `${Math.round(pad)} Pa`;
-  const hint = pad >= 500 && pad <= 1100 ? ' Is it in hPa?' : pad >= 5_000_000 && pad <= 11_000_000 ? ' Is it in Pa?' : ' Check the pressure column.';
-  throw unmappable(`The pressure column reads about ${shown} before liftoff, which is not air pressure at a launch site.${hint}`, 'columns');
+  const hint =
+    pad >= 500 && pad <= 1100
+      ? ' Is it in hPa?'
+      : pad >= 5_000_000 && pad <= 11_000_000
+        ? ' Is it in Pa?'
+        : ' Check the pressure column.';
+  throw unmappable(
+    `The pressure column reads about ${shown} before liftoff, which is not air pressure at a launch site.${hint}`,
+    'columns',
+  );
 }
 
 /** Takes rows one at a time: the first is the header row, the rest become readings. */
@@ -126,7 +135,10 @@ class LogReader {
       this.headers = row.map((h) => h.trim());
       this.mapping ??= guessColumnMapping(this.headers) ?? undefined;
       if (!this.mapping) {
-        throw unmappable('Padside could not tell which columns hold the time and the pressure. Pick them from the first rows.', 'columns');
+        throw unmappable(
+          'Padside could not tell which columns hold the time and the pressure. Pick them from the first rows.',
+          'columns',
+        );
       }
       this.ix = indexesFor(this.mapping, this.headers);
       this.readings = new Readings(this.ix.accel.length > 0);
@@ -155,7 +167,10 @@ class LogReader {
       throw unmappable(`Only ${readings.length} rows have a number in both the time and the pressure column.`, 'log');
     }
     if (this.unreadable > readings.length) {
-      throw unmappable('Most rows have no number in the time or pressure column, or their times go backwards. Check the columns.', 'columns');
+      throw unmappable(
+        'Most rows have no number in the time or pressure column, or their times go backwards. Check the columns.',
+        'columns',
+      );
     }
     checkPressureScale(readings.p.subarray(0, Math.min(readings.length, 50)), this.mapping);
     return {
@@ -194,7 +209,14 @@ export async function analyseFlightLog(input: Readable, mapping?: ColumnMapping)
       reject(err);
     };
     const fail = (err: unknown) =>
-      stop(err instanceof AppError ? err : unmappable('Padside could not read this file as CSV (comma, semicolon or tab separated, one header row).', 'log'));
+      stop(
+        err instanceof AppError
+          ? err
+          : unmappable(
+              'Padside could not read this file as CSV (comma, semicolon or tab separated, one header row).',
+              'log',
+            ),
+      );
     // A broken upload is the caller's to answer; only what the parser refuses is the file's fault.
     input.on('error', stop);
     parser.on('error', fail);
@@ -214,7 +236,8 @@ export async function analyseFlightLog(input: Readable, mapping?: ColumnMapping)
   try {
     return { ...analyseSamples(samples), mapping: used };
   } catch (err) {
-    if (err instanceof NoFlightFound) throw new AppError(400, 'no_flight_in_log', `No flight found in this log: ${err.message}`, { log: err.message });
+    if (err instanceof NoFlightFound)
+      throw new AppError(400, 'no_flight_in_log', `No flight found in this log: ${err.message}`, { log: err.message });
     throw err;
   }
 }

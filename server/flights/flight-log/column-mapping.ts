@@ -5,7 +5,11 @@ import { z } from 'zod';
  * the flyer confirms (or picks) the columns after seeing the first rows; common header names map themselves.
  */
 
-const column = z.string({ error: 'Pick a column.' }).trim().min(1, 'Pick a column.').max(200, 'Column names are at most 200 characters.');
+const column = z
+  .string({ error: 'Pick a column.' })
+  .trim()
+  .min(1, 'Pick a column.')
+  .max(200, 'Column names are at most 200 characters.');
 
 /** The zod schema of a mapping, as the upload form sends it in its `columns` field (JSON). */
 export const columnMappingSchema = z.strictObject({
@@ -14,7 +18,10 @@ export const columnMappingSchema = z.strictObject({
   temperature: z.strictObject({ column, unit: z.literal('C', { error: 'Temperature is in C.' }) }).optional(),
   acceleration: z
     .strictObject({
-      columns: z.array(column).min(1, 'Pick one acceleration column or three.').max(3, 'Pick one acceleration column or three.')
+      columns: z
+        .array(column)
+        .min(1, 'Pick one acceleration column or three.')
+        .max(3, 'Pick one acceleration column or three.')
         .refine((c) => c.length !== 2, 'Pick one acceleration column or three.'),
       unit: z.enum(['g', 'm/s2'], { error: 'Acceleration is in g or m/s2.' }),
     })
@@ -32,14 +39,33 @@ export interface ColumnMapping {
 // Header names are compared without case, spaces, brackets or punctuation: "Pressure (Pa)" -> "pressurepa",
 // "accel_z (m/s^2)" -> "accelzms2".
 const METRES_PER_S2 = /m\s*\/\s*s\s*(?:\^\s*2|²|\/\s*s|2)|m\s*s\s*\^?\s*-\s*2/gi;
-const squash = (header: string) => header.toLowerCase().replace(METRES_PER_S2, 'ms2').replace(/[^a-z0-9]+/g, '');
+const squash = (header: string) =>
+  header
+    .toLowerCase()
+    .replace(METRES_PER_S2, 'ms2')
+    .replace(/[^a-z0-9]+/g, '');
 
 const TIME_MS = ['timems', 'tms', 'millis', 'milliseconds', 'ms', 'timestampms'];
 const TIME_S = ['time', 't', 'times', 'seconds', 'sec', 'secs', 'timesec', 'timestamp', 'elapsed', 'elapseds'];
 const PRESSURE_HPA = ['pressurehpa', 'presshpa', 'hpa', 'pressurembar', 'pressuremb', 'mbar', 'baro', 'barohpa'];
 const PRESSURE_PA = ['pressure', 'pressurepa', 'presspa', 'press', 'pa', 'baropa', 'barometer', 'p'];
 const TEMPERATURE = ['temp', 'temperature', 'tempc', 'temperaturec', 'degc', 'c'];
-const ACCEL_SINGLE = ['accel', 'acceleration', 'accelz', 'az', 'acc', 'accz', 'accelerationz', 'accelg', 'accelerationg', 'accelzg', 'azg', 'accms2', 'accelms2', 'accelzms2'];
+const ACCEL_SINGLE = [
+  'accel',
+  'acceleration',
+  'accelz',
+  'az',
+  'acc',
+  'accz',
+  'accelerationz',
+  'accelg',
+  'accelerationg',
+  'accelzg',
+  'azg',
+  'accms2',
+  'accelms2',
+  'accelzms2',
+];
 const AXES = [
   ['ax', 'ay', 'az'],
   ['accelx', 'accely', 'accelz'],
@@ -85,12 +111,16 @@ export function guessColumnMapping(headers: string[]): ColumnMapping | null {
   for (const axes of AXES) {
     const found = axes.map((a) => findAxis(headers, a));
     if (found.every((f) => f !== undefined)) {
-      mapping.acceleration = { columns: found as string[], unit: found.some((f) => looksLikeMetresPerSecondSquared(f!)) ? 'm/s2' : 'g' };
+      mapping.acceleration = {
+        columns: found as string[],
+        unit: found.some((f) => looksLikeMetresPerSecondSquared(f!)) ? 'm/s2' : 'g',
+      };
       return mapping;
     }
   }
   const single = find(headers, ACCEL_SINGLE);
-  if (single !== undefined) mapping.acceleration = { columns: [single], unit: looksLikeMetresPerSecondSquared(single) ? 'm/s2' : 'g' };
+  if (single !== undefined)
+    mapping.acceleration = { columns: [single], unit: looksLikeMetresPerSecondSquared(single) ? 'm/s2' : 'g' };
   return mapping;
 }
 

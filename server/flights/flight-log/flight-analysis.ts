@@ -61,7 +61,8 @@ export function describeFilter(windowS: number, hasAccel: boolean, binned: boole
 }
 
 function firstIndexAtOrAfter(t: Float64Array, time: number): number {
-  let lo = 0, hi = t.length;
+  let lo = 0,
+    hi = t.length;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
     if (t[mid] < time) lo = mid + 1;
@@ -71,7 +72,13 @@ function firstIndexAtOrAfter(t: Float64Array, time: number): number {
 }
 
 /** Liftoff time: from the accelerometer where it shows the boost, else extrapolated from the climb. */
-function findLiftoff(t: Float64Array, alt: Float64Array, speed: Float64Array, apogeeIndex: number, accel: Float64Array | null): number {
+function findLiftoff(
+  t: Float64Array,
+  alt: Float64Array,
+  speed: Float64Array,
+  apogeeIndex: number,
+  accel: Float64Array | null,
+): number {
   const threshold = Math.max(1, Math.min(5, alt[apogeeIndex] * 0.1));
   let k = apogeeIndex;
   while (k > 0 && alt[k - 1] >= threshold) k--;
@@ -94,7 +101,8 @@ function findLanding(t: Float64Array, alt: Float64Array, from: number): number |
   for (let i = from; i < n; i++) {
     while (hi + 1 < n && t[hi + 1] <= t[i] + STILL_WINDOW_S) hi++;
     if (t[hi] - t[i] < STILL_WINDOW_S * 0.75) return null;
-    let min = Infinity, max = -Infinity;
+    let min = Infinity,
+      max = -Infinity;
     for (let k = i; k <= hi; k++) {
       if (alt[k] < min) min = alt[k];
       if (alt[k] > max) max = alt[k];
@@ -109,7 +117,12 @@ function findLanding(t: Float64Array, alt: Float64Array, from: number): number |
  * landing, then back from there for as long as the speed stays near it (so a main opened low after a fast drogue
  * descent is read on its own), then the median over that stretch.
  */
-function findDescent(t: Float64Array, speed: Float64Array, apogee: number, end: number): { rate: number; deployment: number } | null {
+function findDescent(
+  t: Float64Array,
+  speed: Float64Array,
+  apogee: number,
+  end: number,
+): { rate: number; deployment: number } | null {
   const span = t[end] - t[apogee];
   if (span < 1) return null;
   const to = firstIndexAtOrAfter(t, t[end] - Math.min(0.5, 0.1 * span));
@@ -147,11 +160,16 @@ export const BIN_S = 0.01;
 export function binSamples(samples: FlightSamples, binS: number): FlightSamples {
   const { t, pressurePa, accelG } = samples;
   const n = t.length;
-  const bt = new Float64Array(n), bp = new Float64Array(n), ba = accelG ? new Float64Array(n) : null;
+  const bt = new Float64Array(n),
+    bp = new Float64Array(n),
+    ba = accelG ? new Float64Array(n) : null;
   let m = 0;
-  for (let i = 0; i < n; ) {
+  for (let i = 0; i < n;) {
     const start = t[i];
-    let k = i, st = 0, sp = 0, sa = 0;
+    let k = i,
+      st = 0,
+      sp = 0,
+      sa = 0;
     while (k < n && t[k] < start + binS) {
       st += t[k];
       sp += pressurePa[k];
@@ -240,7 +258,8 @@ export function analyseSamples(logged: FlightSamples): FlightSampleAnalysis {
   let peakAccelG: number | null = null;
   if (accel) {
     peakAccelG = -Infinity;
-    for (let i = firstIndexAtOrAfter(t, liftoff - 0.5); i <= flightEnd; i++) peakAccelG = Math.max(peakAccelG, accel[i]);
+    for (let i = firstIndexAtOrAfter(t, liftoff - 0.5); i <= flightEnd; i++)
+      peakAccelG = Math.max(peakAccelG, accel[i]);
   }
 
   const events: FlightEvent[] = [

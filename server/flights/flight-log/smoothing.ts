@@ -34,7 +34,14 @@ const NO_FIT: Fit = { a: 0, b: 0, c: 0, score: Infinity };
 /** Least-squares quadratic y = a + b d + c d^2 with d = t - t0 over samples lo..hi (inclusive). */
 function fitQuadratic(t: ArrayLike<number>, y: ArrayLike<number>, lo: number, hi: number, t0: number): Fit {
   const n = hi - lo + 1;
-  let s1 = 0, s2 = 0, s3 = 0, s4 = 0, sy = 0, sdy = 0, sd2y = 0, syy = 0;
+  let s1 = 0,
+    s2 = 0,
+    s3 = 0,
+    s4 = 0,
+    sy = 0,
+    sdy = 0,
+    sd2y = 0,
+    syy = 0;
   // Values relative to the window's first sample keep the sums small, so RSS does not drown in cancellation.
   const y0 = y[lo];
   for (let k = lo; k <= hi; k++) {
@@ -55,7 +62,12 @@ function fitQuadratic(t: ArrayLike<number>, y: ArrayLike<number>, lo: number, hi
   const scale = Math.max(1e-300, Math.abs(n * s2 * s4));
   if (n < 4 || Math.abs(det) <= 1e-12 * scale) {
     const mean = sy / n;
-    return { a: mean + y0, b: n > 1 && s2 - (s1 * s1) / n > 0 ? (sdy - (s1 * sy) / n) / (s2 - (s1 * s1) / n) : 0, c: 0, score: Infinity };
+    return {
+      a: mean + y0,
+      b: n > 1 && s2 - (s1 * s1) / n > 0 ? (sdy - (s1 * sy) / n) / (s2 - (s1 * s1) / n) : 0,
+      c: 0,
+      score: Infinity,
+    };
   }
   const a = (sy * (s2 * s4 - s3 * s3) - s1 * (sdy * s4 - s3 * sd2y) + s2 * (sdy * s3 - s2 * sd2y)) / det;
   const b = (n * (sdy * s4 - s3 * sd2y) - sy * (s1 * s4 - s3 * s2) + s2 * (s1 * sd2y - sdy * s2)) / det;
@@ -73,7 +85,10 @@ export function smoothQuadratic(t: ArrayLike<number>, y: ArrayLike<number>, wind
   const out: Smoothed = { value: new Float64Array(n), slope: new Float64Array(n), curvature: new Float64Array(n) };
   const half = windowS / 2;
   // Three moving edges per window kind, advanced monotonically: O(n x samples per window).
-  let cLo = 0, cHi = 0, lLo = 0, rHi = 0;
+  let cLo = 0,
+    cHi = 0,
+    lLo = 0,
+    rHi = 0;
   for (let i = 0; i < n; i++) {
     const ti = t[i];
     while (t[cLo] < ti - half) cLo++;
@@ -87,7 +102,11 @@ export function smoothQuadratic(t: ArrayLike<number>, y: ArrayLike<number>, wind
     const right = t[rHi] - ti >= 0.9 * windowS ? fitQuadratic(t, y, i, rHi, ti) : NO_FIT;
     const side = left.score <= right.score ? left : right;
     // A one-sided fit has a noisier slope at its end, so it must fit clearly better to be taken.
-    const best = Number.isFinite(side.score) && (side.score * ONE_SIDED_ADVANTAGE < centred.score || !Number.isFinite(centred.score)) ? side : centred;
+    const best =
+      Number.isFinite(side.score) &&
+      (side.score * ONE_SIDED_ADVANTAGE < centred.score || !Number.isFinite(centred.score))
+        ? side
+        : centred;
     out.value[i] = best.a;
     out.slope[i] = best.b;
     out.curvature[i] = 2 * best.c;
@@ -100,7 +119,9 @@ export function movingAverage(t: ArrayLike<number>, y: ArrayLike<number>, window
   const n = t.length;
   const out = new Float64Array(n);
   const half = windowS / 2;
-  let lo = 0, hi = -1, sum = 0;
+  let lo = 0,
+    hi = -1,
+    sum = 0;
   for (let i = 0; i < n; i++) {
     while (hi + 1 < n && t[hi + 1] <= t[i] + half) sum += y[++hi];
     while (t[lo] < t[i] - half) sum -= y[lo++];
@@ -154,16 +175,28 @@ export interface Corner {
  * a + b d + e d^2 after it (d = t - corner) over `windowS` seconds each side, and keeps the trial with the least
  * residual (segmented least-squares regression). Null when no trial fits.
  */
-export function findCorner(t: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, windowS: number): Corner | null {
+export function findCorner(
+  t: ArrayLike<number>,
+  y: ArrayLike<number>,
+  from: number,
+  to: number,
+  windowS: number,
+): Corner | null {
   let best: (Corner & { rss: number }) | null = null;
-  let lo = 0, hi = 0;
+  let lo = 0,
+    hi = 0;
   for (let i = Math.max(1, from); i <= Math.min(to, t.length - 2); i++) {
     const tk = t[i];
     while (t[lo] < tk - windowS) lo++;
     if (hi < i) hi = i;
     while (hi + 1 < t.length && t[hi + 1] <= tk + windowS) hi++;
     if (i - lo < 3 || hi - i < 3) continue;
-    const m = [[0, 0, 0, 0], [0, 0, 0, 0], [0, 0, 0, 0], [0, 0, 0, 0]];
+    const m = [
+      [0, 0, 0, 0],
+      [0, 0, 0, 0],
+      [0, 0, 0, 0],
+      [0, 0, 0, 0],
+    ];
     const r = [0, 0, 0, 0];
     const y0 = y[i];
     let syy = 0;

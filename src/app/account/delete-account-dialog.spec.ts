@@ -9,7 +9,14 @@ describe('DeleteAccountDialog', () => {
   const close = jest.fn();
   beforeEach(() => {
     close.mockReset();
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: MatDialogRef, useValue: { close } }] });
+    TestBed.configureTestingModule({
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        { provide: MatDialogRef, useValue: { close } },
+      ],
+    });
   });
 
   const submit = async (password: string) => {
@@ -26,7 +33,16 @@ describe('DeleteAccountDialog', () => {
     const fixture = await submit('wrong one');
     const req = TestBed.inject(HttpTestingController).expectOne('/api/account/delete');
     expect(req.request.body).toEqual({ password: 'wrong one' });
-    req.flush({ error: { code: 'invalid_request', message: 'That password is not right.', fields: { password: 'Not your password.' } } }, { status: 400, statusText: 'Bad Request' });
+    req.flush(
+      {
+        error: {
+          code: 'invalid_request',
+          message: 'That password is not right.',
+          fields: { password: 'Not your password.' },
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await fixture.whenStable();
     fixture.detectChanges();
     expect(fixture.nativeElement.querySelector('mat-error')?.textContent).toContain('Not your password.');

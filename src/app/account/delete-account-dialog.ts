@@ -13,10 +13,29 @@ import { AccountApi } from './account-api';
 /** Asks once more, says what goes and what stays, and takes the password; closes with `true` once deleted. */
 @Component({
   selector: 'ps-delete-account-dialog',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule, FieldErrorPipe],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatDialogModule,
+    MatFormFieldModule,
+    MatInputModule,
+    FieldErrorPipe,
+  ],
   templateUrl: './delete-account-dialog.html',
   // A destructive action in the theme's error colours (Material 3 button tokens).
-  styles: `.form-problem { color: var(--mat-sys-error); } ul { padding-left: 1.25rem; } .danger { --mat-button-filled-container-color: var(--mat-sys-error); --mat-button-filled-label-text-color: var(--mat-sys-on-error); }`,
+  styles: `
+    .form-problem {
+      color: var(--mat-sys-error);
+    }
+    ul {
+      padding-left: 1.25rem;
+    }
+    .danger {
+      --mat-button-filled-container-color: var(--mat-sys-error);
+      --mat-button-filled-label-text-color: var(--mat-sys-on-error);
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class DeleteAccountDialog {

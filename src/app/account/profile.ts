@@ -18,9 +18,28 @@ import { YourData } from './your-data';
 /** The account page: name, mail preference, password, and the person's own data. */
 @Component({
   selector: 'ps-profile',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MySubscriptions, YourData],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCardModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatInputModule,
+    FieldErrorPipe,
+    MySubscriptions,
+    YourData,
+  ],
   templateUrl: './profile.html',
-  styles: `.cards { display: grid; gap: 16px; grid-template-columns: repeat(auto-fit, minmax(300px, 1fr)); } mat-card { padding: 8px; }`,
+  styles: `
+    .cards {
+      display: grid;
+      gap: 16px;
+      grid-template-columns: repeat(auto-fit, minmax(300px, 1fr));
+    }
+    mat-card {
+      padding: 8px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class Profile implements OnInit {
@@ -31,7 +50,10 @@ export class Profile implements OnInit {
 
   readonly welcome = input<string>();
   protected readonly hint = PASSPHRASE_HINT;
-  protected readonly profileForm = this.fb.group({ displayName: ['', [Validators.required, Validators.maxLength(80)]], marketingOptOut: [false] });
+  protected readonly profileForm = this.fb.group({
+    displayName: ['', [Validators.required, Validators.maxLength(80)]],
+    marketingOptOut: [false],
+  });
   protected readonly passwordForm = this.fb.group({
     currentPassword: ['', Validators.required],
     newPassword: ['', [Validators.required, Validators.minLength(12), Validators.maxLength(128)]],

@@ -21,7 +21,9 @@ import { PASSPHRASE_HINT } from './passphrase-hint';
         <a mat-flat-button routerLink="/account/sign-in">Sign in</a>
       } @else {
         <form [formGroup]="form" (ngSubmit)="save()" novalidate>
-          @if (problem(); as message) { <p class="form-problem" role="alert">{{ message }}</p> }
+          @if (problem(); as message) {
+            <p class="form-problem" role="alert">{{ message }}</p>
+          }
           <mat-form-field class="ps-full-width">
             <mat-label>New password</mat-label>
             <input matInput type="password" formControlName="password" autocomplete="new-password" />
@@ -39,7 +41,9 @@ export class ResetConfirm {
   private readonly api = inject(AccountApi);
   readonly token = input<string>('');
   protected readonly hint = PASSPHRASE_HINT;
-  protected readonly form = inject(NonNullableFormBuilder).group({ password: ['', [Validators.required, Validators.minLength(12), Validators.maxLength(128)]] });
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    password: ['', [Validators.required, Validators.minLength(12), Validators.maxLength(128)]],
+  });
   protected readonly done = signal(false);
   protected readonly busy = signal(false);
   protected readonly problem = signal<string | null>(null);

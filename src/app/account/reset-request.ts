@@ -15,10 +15,14 @@ import { AccountApi } from './account-api';
     <section class="ps-narrow">
       <h1>Forgot your password?</h1>
       @if (sent()) {
-        <p role="status" data-testid="reset-sent">If an account uses that address, a link to choose a new password is on its way. It works for one hour.</p>
+        <p role="status" data-testid="reset-sent">
+          If an account uses that address, a link to choose a new password is on its way. It works for one hour.
+        </p>
       } @else {
         <form [formGroup]="form" (ngSubmit)="send()" novalidate>
-          @if (problem(); as message) { <p class="form-problem" role="alert">{{ message }}</p> }
+          @if (problem(); as message) {
+            <p class="form-problem" role="alert">{{ message }}</p>
+          }
           <mat-form-field class="ps-full-width">
             <mat-label>E-mail</mat-label>
             <input matInput type="email" formControlName="email" autocomplete="email" />
@@ -33,7 +37,9 @@ import { AccountApi } from './account-api';
 })
 export class ResetRequest {
   private readonly api = inject(AccountApi);
-  protected readonly form = inject(NonNullableFormBuilder).group({ email: ['', [Validators.required, Validators.email]] });
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    email: ['', [Validators.required, Validators.email]],
+  });
   protected readonly sent = signal(false);
   protected readonly busy = signal(false);
   protected readonly problem = signal<string | null>(null);

@@ -14,7 +14,9 @@ import { AccountApi } from './account-api';
     <section class="ps-narrow" aria-live="polite">
       <h1>Confirm e-mail</h1>
       @switch (state()) {
-        @case ('working') { <p>Checking your link…</p> }
+        @case ('working') {
+          <p>Checking your link…</p>
+        }
         @case ('done') {
           <p data-testid="verified">Thank you, your e-mail is confirmed.</p>
           @if (session.signedIn()) {

@@ -14,7 +14,19 @@ import { DeleteAccountDialog } from './delete-account-dialog';
   selector: 'ps-your-data',
   imports: [RouterLink, MatButtonModule, MatCardModule, MatIconModule],
   templateUrl: './your-data.html',
-  styles: `mat-card { padding: 8px; } .actions { display: flex; flex-wrap: wrap; gap: 8px; } .danger { --mat-button-text-label-text-color: var(--mat-sys-error); }`,
+  styles: `
+    mat-card {
+      padding: 8px;
+    }
+    .actions {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 8px;
+    }
+    .danger {
+      --mat-button-text-label-text-color: var(--mat-sys-error);
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class YourData {
@@ -26,10 +38,22 @@ export class YourData {
   protected readonly exportUrl = '/api/account/export';
 
   protected async askToDelete(): Promise<void> {
-    const deleted = await firstValueFrom(this.dialog.open<DeleteAccountDialog, void, boolean>(DeleteAccountDialog, { width: '560px', maxWidth: '95vw', autoFocus: 'first-tabbable' }).afterClosed());
+    const deleted = await firstValueFrom(
+      this.dialog
+        .open<DeleteAccountDialog, void, boolean>(DeleteAccountDialog, {
+          width: '560px',
+          maxWidth: '95vw',
+          autoFocus: 'first-tabbable',
+        })
+        .afterClosed(),
+    );
     if (!deleted) return;
     this.session.forgetDeleted();
     await this.router.navigateByUrl('/');
-    this.snackBar.open('Your account was deleted. A last e-mail confirms what was erased and what was kept.', undefined, { duration: 8000 });
+    this.snackBar.open(
+      'Your account was deleted. A last e-mail confirms what was erased and what was kept.',
+      undefined,
+      { duration: 8000 },
+    );
   }
 }

@@ -24,12 +24,22 @@ const roleName = (r: Role) => (r === 'range_officer' ? 'range officer' : r);
       @if (history.value(); as items) {
         @if (items.length) {
           <table>
-            <caption class="ps-visually-hidden">Changes to this account, newest first</caption>
-            <thead><tr><th scope="col">When</th><th scope="col">Who</th><th scope="col">What</th></tr></thead>
+            <caption class="ps-visually-hidden">
+              Changes to this account, newest first
+            </caption>
+            <thead>
+              <tr>
+                <th scope="col">When</th>
+                <th scope="col">Who</th>
+                <th scope="col">What</th>
+              </tr>
+            </thead>
             <tbody>
               @for (c of items; track c.id) {
                 <tr>
-                  <td><time [attr.datetime]="c.at">{{ c.at | date: 'medium' }}</time></td>
+                  <td>
+                    <time [attr.datetime]="c.at">{{ c.at | date: 'medium' }}</time>
+                  </td>
                   <td>{{ c.by?.name ?? 'Padside (automatic)' }}</td>
                   <td>{{ describe(c) }}</td>
                 </tr>
@@ -43,9 +53,23 @@ const roleName = (r: Role) => (r === 'range_officer' ? 'range officer' : r);
         <p class="form-problem" role="alert">The history could not be loaded.</p>
       }
     </mat-dialog-content>
-    <mat-dialog-actions align="end"><button mat-button type="button" mat-dialog-close cdkFocusInitial>Close</button></mat-dialog-actions>
+    <mat-dialog-actions align="end"
+      ><button mat-button type="button" mat-dialog-close cdkFocusInitial>Close</button></mat-dialog-actions
+    >
   `,
-  styles: `table { width: 100%; border-collapse: collapse; } th, td { text-align: left; padding: 4px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant); vertical-align: top; }`,
+  styles: `
+    table {
+      width: 100%;
+      border-collapse: collapse;
+    }
+    th,
+    td {
+      text-align: left;
+      padding: 4px 8px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+      vertical-align: top;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AccountHistoryDialog {
@@ -56,6 +80,11 @@ export class AccountHistoryDialog {
   protected describe(c: { kind: 'roles' | 'disabled' | 'enabled'; added: Role[]; removed: Role[] }): string {
     if (c.kind === 'disabled') return 'Disabled the account';
     if (c.kind === 'enabled') return 'Enabled the account again';
-    return [c.added.length ? `Granted ${c.added.map(roleName).join(', ')}` : '', c.removed.length ? `Removed ${c.removed.map(roleName).join(', ')}` : ''].filter(Boolean).join('; ');
+    return [
+      c.added.length ? `Granted ${c.added.map(roleName).join(', ')}` : '',
+      c.removed.length ? `Removed ${c.removed.map(roleName).join(', ')}` : '',
+    ]
+      .filter(Boolean)
+      .join('; ');
   }
 }

@@ -14,16 +14,32 @@ export interface ConsoleLink {
 }
 
 export const CONSOLE_LINKS: readonly ConsoleLink[] = [
-  { path: '/console', label: 'Overview', icon: 'space_dashboard', roles: ['editor', 'treasurer', 'admin', 'range_officer'] },
+  {
+    path: '/console',
+    label: 'Overview',
+    icon: 'space_dashboard',
+    roles: ['editor', 'treasurer', 'admin', 'range_officer'],
+  },
   { path: '/console/launches', label: 'Launch days', icon: 'rocket_launch', roles: ['range_officer', 'admin'] },
   { path: '/console/range', label: 'Range table', icon: 'flag', roles: ['range_officer', 'admin'], fullLoad: true },
-  { path: '/console/launch-settings', label: 'Certification classes', icon: 'workspace_premium', roles: ['range_officer', 'admin'] },
+  {
+    path: '/console/launch-settings',
+    label: 'Certification classes',
+    icon: 'workspace_premium',
+    roles: ['range_officer', 'admin'],
+  },
   { path: '/console/orders', label: 'Orders', icon: 'local_shipping', roles: ['treasurer', 'admin'] },
   { path: '/console/runs', label: 'Runs', icon: 'checkroom', roles: ['treasurer', 'admin'] },
   { path: '/console/products', label: 'Products', icon: 'sell', roles: ['treasurer', 'admin'] },
   { path: '/console/shop-settings', label: 'Shop settings', icon: 'tune', roles: ['treasurer', 'admin'] },
   { path: '/console/members', label: 'Members', icon: 'badge', roles: ['treasurer', 'admin'] },
-  { path: '/console/check-in', label: 'Check-in', icon: 'qr_code_scanner', roles: ['editor', 'treasurer', 'admin'], fullLoad: true },
+  {
+    path: '/console/check-in',
+    label: 'Check-in',
+    icon: 'qr_code_scanner',
+    roles: ['editor', 'treasurer', 'admin'],
+    fullLoad: true,
+  },
   { path: '/console/posts', label: 'Build logs', icon: 'edit_note', roles: ['editor', 'admin'] },
   { path: '/console/announcements', label: 'Announcements', icon: 'campaign', roles: ['editor', 'admin'] },
   { path: '/console/sponsors', label: 'Sponsors', icon: 'handshake', roles: ['editor', 'treasurer', 'admin'] },

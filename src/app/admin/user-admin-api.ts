@@ -35,7 +35,13 @@ export class UserAdminApi {
   private readonly http = inject(HttpClient);
 
   /** One page of accounts, filtered by words, role and state. */
-  list(query: { q?: string; role?: Role; state?: 'active' | 'disabled'; page: number; pageSize: number }): Observable<UserPage> {
+  list(query: {
+    q?: string;
+    role?: Role;
+    state?: 'active' | 'disabled';
+    page: number;
+    pageSize: number;
+  }): Observable<UserPage> {
     let params = new HttpParams().set('page', query.page).set('pageSize', query.pageSize);
     if (query.q) params = params.set('q', query.q);
     if (query.role) params = params.set('role', query.role);
@@ -50,7 +56,11 @@ export class UserAdminApi {
 
   /** Sets an account's roles; the server ends its other sessions when they change. */
   setRoles(id: number, roles: Role[]): Observable<{ user: AdminUser }> {
-    return this.http.patch<{ user: AdminUser }>(`/api/admin/users/${id}`, { roles }, { context: new HttpContext().set(QUIET_ERRORS, false) });
+    return this.http.patch<{ user: AdminUser }>(
+      `/api/admin/users/${id}`,
+      { roles },
+      { context: new HttpContext().set(QUIET_ERRORS, false) },
+    );
   }
 
   /** Disables or enables an account; disabling ends its sessions. */

@@ -31,7 +31,18 @@ const WEIGHTY: Partial<Record<Role, string>> = {
 /** Accounts with server-side paging, search and filters; roles toggled in place; disabling; history; sign-in locks. */
 @Component({
   selector: 'ps-user-list',
-  imports: [FormsModule, MatButtonModule, MatTableModule, MatPaginatorModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonToggleModule, ClubDatePipe, EmptyState],
+  imports: [
+    FormsModule,
+    MatButtonModule,
+    MatTableModule,
+    MatPaginatorModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonToggleModule,
+    ClubDatePipe,
+    EmptyState,
+  ],
   templateUrl: './user-list.html',
   styleUrl: './user-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -44,7 +55,13 @@ export class UserList {
 
   protected readonly roles = EDITABLE_ROLES;
   protected readonly columns = ['displayName', 'email', 'roles', 'state', 'signIn'];
-  protected readonly query = signal<{ q: string; role?: Role; state?: 'active' | 'disabled'; page: number; pageSize: number }>({ q: '', page: 1, pageSize: 25 });
+  protected readonly query = signal<{
+    q: string;
+    role?: Role;
+    state?: 'active' | 'disabled';
+    page: number;
+    pageSize: number;
+  }>({ q: '', page: 1, pageSize: 25 });
   protected readonly users = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.list(params) });
 
   protected roleName(r: Role): string {
@@ -56,7 +73,12 @@ export class UserList {
   }
 
   protected filter(patch: { role?: Role | ''; state?: 'active' | 'disabled' | '' }): void {
-    this.query.update((v) => ({ ...v, ...('role' in patch ? { role: patch.role || undefined } : {}), ...('state' in patch ? { state: patch.state || undefined } : {}), page: 1 }));
+    this.query.update((v) => ({
+      ...v,
+      ...('role' in patch ? { role: patch.role || undefined } : {}),
+      ...('state' in patch ? { state: patch.state || undefined } : {}),
+      page: 1,
+    }));
   }
 
   protected changePage(e: PageEvent): void {
@@ -78,7 +100,11 @@ export class UserList {
     const granted = roles.filter((r) => !user.roles.includes(r) && WEIGHTY[r]);
     if (granted.length) {
       const names = granted.map((r) => this.roleName(r).toLowerCase()).join(' and ');
-      const ok = await this.confirm({ title: `Make ${user.displayName} ${names}?`, message: granted.map((r) => WEIGHTY[r]).join(' '), confirm: `Grant ${names}` });
+      const ok = await this.confirm({
+        title: `Make ${user.displayName} ${names}?`,
+        message: granted.map((r) => WEIGHTY[r]).join(' '),
+        confirm: `Grant ${names}`,
+      });
       if (!ok) {
         this.users.reload();
         return;
@@ -96,14 +122,19 @@ export class UserList {
     if (disabled) {
       const ok = await this.confirm({
         title: `Disable ${user.displayName}?`,
-        message: 'They are signed out everywhere at once and cannot sign in until an admin enables the account again. Their orders, dues and posts stay as they are.',
+        message:
+          'They are signed out everywhere at once and cannot sign in until an admin enables the account again. Their orders, dues and posts stay as they are.',
         confirm: 'Disable account',
       });
       if (!ok) return;
     }
     try {
       await firstValueFrom(this.api.setDisabled(user.id, disabled));
-      this.snackBar.open(disabled ? `${user.displayName} is disabled and signed out.` : `${user.displayName} can sign in again.`, undefined, { duration: 3000 });
+      this.snackBar.open(
+        disabled ? `${user.displayName} is disabled and signed out.` : `${user.displayName} can sign in again.`,
+        undefined,
+        { duration: 3000 },
+      );
     } catch (err) {
       this.snackBar.open(apiErrorMessage(err), 'Close', { duration: 6000 });
     } finally {
@@ -112,10 +143,17 @@ export class UserList {
   }
 
   protected showHistory(user: AdminUser): void {
-    this.dialog.open<AccountHistoryDialog, AccountHistoryData>(AccountHistoryDialog, { data: { id: user.id, displayName: user.displayName }, width: 'min(640px, 96vw)' });
+    this.dialog.open<AccountHistoryDialog, AccountHistoryData>(AccountHistoryDialog, {
+      data: { id: user.id, displayName: user.displayName },
+      width: 'min(640px, 96vw)',
+    });
   }
 
   private confirm(data: ConfirmData): Promise<boolean | undefined> {
-    return firstValueFrom(this.dialog.open<ConfirmDialog, ConfirmData, boolean>(ConfirmDialog, { data, width: 'min(480px, 96vw)' }).afterClosed());
+    return firstValueFrom(
+      this.dialog
+        .open<ConfirmDialog, ConfirmData, boolean>(ConfirmDialog, { data, width: 'min(480px, 96vw)' })
+        .afterClosed(),
+    );
   }
 }

@@ -39,18 +39,26 @@ export class AnnouncementsApi {
 
   /** Confirms a sign-up with the token from the e-mail. */
   confirm(token: string) {
-    return this.http.get<{ confirmed: { email: string; topics: Topic[] } }>('/api/subscriptions/confirm', { params: { token } });
+    return this.http.get<{ confirmed: { email: string; topics: Topic[] } }>('/api/subscriptions/confirm', {
+      params: { token },
+    });
   }
 
   /** What an unsubscribe link would stop, for the page to ask before it does. */
   describeUnsubscribe(token: string) {
-    return this.http.get<{ email: string; topic: Topic; label: string }>('/api/subscriptions/unsubscribe', { params: { token } });
+    return this.http.get<{ email: string; topic: Topic; label: string }>('/api/subscriptions/unsubscribe', {
+      params: { token },
+    });
   }
 
   /** The same form POST a mail client makes for one-click unsubscribe (RFC 8058). */
   unsubscribe(token: string) {
     const headers = new HttpHeaders({ 'Content-Type': 'application/x-www-form-urlencoded' });
-    return this.http.post<{ unsubscribed: { email: string; topic: Topic; label: string } }>('/api/subscriptions/unsubscribe', 'List-Unsubscribe=One-Click', { params: { token }, headers });
+    return this.http.post<{ unsubscribed: { email: string; topic: Topic; label: string } }>(
+      '/api/subscriptions/unsubscribe',
+      'List-Unsubscribe=One-Click',
+      { params: { token }, headers },
+    );
   }
 
   /** The signed-in person's lists and their consent on each. */

@@ -12,7 +12,9 @@ import { SignUpForm } from './sign-up-form';
   imports: [MatButtonModule, SignUpForm],
   template: `
     <h2>E-mail lists</h2>
-    @if (problem(); as p) { <p class="form-problem" role="alert">{{ p }}</p> }
+    @if (problem(); as p) {
+      <p class="form-problem" role="alert">{{ p }}</p>
+    }
     @if (mine.value()?.items; as items) {
       @if (items.length === 0) {
         <p>You are on no list yet.</p>
@@ -20,8 +22,13 @@ import { SignUpForm } from './sign-up-form';
         <ul class="lists">
           @for (s of items; track s.unsubscribeToken + s.productId) {
             <li>
-              <span>{{ s.productName ? 'The next run of ' + s.productName : s.label }} · {{ s.status === 'confirmed' ? 'since ' + s.since.slice(0, 10) : 'waiting for your confirmation' }}</span>
-              <button mat-button type="button" (click)="stop(s)" [attr.aria-label]="'Stop e-mails about ' + s.label">Stop</button>
+              <span
+                >{{ s.productName ? 'The next run of ' + s.productName : s.label }} ·
+                {{ s.status === 'confirmed' ? 'since ' + s.since.slice(0, 10) : 'waiting for your confirmation' }}</span
+              >
+              <button mat-button type="button" (click)="stop(s)" [attr.aria-label]="'Stop e-mails about ' + s.label">
+                Stop
+              </button>
             </li>
           }
         </ul>
@@ -29,7 +36,19 @@ import { SignUpForm } from './sign-up-form';
     }
     <ps-sign-up-form page="account" [email]="email()" heading="Add a list" />
   `,
-  styles: `.lists { list-style: none; padding: 0; } .lists li { display: flex; justify-content: space-between; align-items: center; gap: 8px; flex-wrap: wrap; }`,
+  styles: `
+    .lists {
+      list-style: none;
+      padding: 0;
+    }
+    .lists li {
+      display: flex;
+      justify-content: space-between;
+      align-items: center;
+      gap: 8px;
+      flex-wrap: wrap;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class MySubscriptions {

@@ -48,7 +48,11 @@ describe('SignUpForm', () => {
   it('should show the consent wording and every list', async () => {
     const el = await open();
     expect(el.textContent).toContain(WORDING.text);
-    expect(Array.from(el.querySelectorAll('mat-checkbox')).map((b) => b.textContent?.trim())).toEqual(['new runs and drops', 'launch days', 'new build logs']);
+    expect(Array.from(el.querySelectorAll('mat-checkbox')).map((b) => b.textContent?.trim())).toEqual([
+      'new runs and drops',
+      'launch days',
+      'new build logs',
+    ]);
   });
 
   it('should ask for a list before sending anything', async () => {
@@ -74,11 +78,18 @@ describe('SignUpForm', () => {
 
   it('should offer only the next run of a product on its page, and send the product', async () => {
     const el = await open({ page: 'product', productId: 12, productName: 'Nose cone tee' });
-    expect(Array.from(el.querySelectorAll('mat-checkbox')).map((b) => b.textContent?.trim())).toEqual(['the next run of Nose cone tee']);
+    expect(Array.from(el.querySelectorAll('mat-checkbox')).map((b) => b.textContent?.trim())).toEqual([
+      'the next run of Nose cone tee',
+    ]);
     typeEmail(el, 'osric@example.test');
     el.querySelector<HTMLButtonElement>('button[type=submit]')!.click();
     const req = http.expectOne('/api/subscriptions');
-    expect(req.request.body).toEqual({ email: 'osric@example.test', topics: ['drops'], page: 'product', productId: 12 });
+    expect(req.request.body).toEqual({
+      email: 'osric@example.test',
+      topics: ['drops'],
+      page: 'product',
+      productId: 12,
+    });
     req.flush({ queued: true }, { status: 202, statusText: 'Accepted' });
     await settle();
   });
@@ -88,7 +99,16 @@ describe('SignUpForm', () => {
     tick(el, 'new build logs');
     typeEmail(el, 'wren@example.test');
     el.querySelector<HTMLButtonElement>('button[type=submit]')!.click();
-    http.expectOne('/api/subscriptions').flush({ error: { code: 'validation_failed', message: 'Some fields need attention.', fields: { email: 'Enter a valid e-mail address.' } } }, { status: 400, statusText: 'Bad Request' });
+    http.expectOne('/api/subscriptions').flush(
+      {
+        error: {
+          code: 'validation_failed',
+          message: 'Some fields need attention.',
+          fields: { email: 'Enter a valid e-mail address.' },
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await settle();
     expect(el.querySelector('mat-form-field')?.textContent).toContain('Enter a valid e-mail address.');
     expect(el.querySelector('[role=alert]')?.textContent).toContain('Some fields need attention.');

@@ -18,14 +18,39 @@ let nextId = 0;
  */
 @Component({
   selector: 'ps-sign-up-form',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatInputModule,
+    FieldErrorPipe,
+  ],
   templateUrl: './sign-up-form.html',
   styles: `
-    .sign-up { max-width: 520px; }
-    fieldset { border: 0; padding: 0; margin: 0 0 8px; display: flex; flex-direction: column; }
-    legend { font-weight: 500; margin-bottom: 4px; }
-    .wording { font-size: 0.875rem; color: var(--mat-sys-on-surface-variant); }
-    .topics-error { color: var(--mat-sys-error); font-size: 0.8125rem; margin: 0; }
+    .sign-up {
+      max-width: 520px;
+    }
+    fieldset {
+      border: 0;
+      padding: 0;
+      margin: 0 0 8px;
+      display: flex;
+      flex-direction: column;
+    }
+    legend {
+      font-weight: 500;
+      margin-bottom: 4px;
+    }
+    .wording {
+      font-size: 0.875rem;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .topics-error {
+      color: var(--mat-sys-error);
+      font-size: 0.8125rem;
+      margin: 0;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -42,7 +67,11 @@ export class SignUpForm {
   /** The lists offered: drops alone for a product, every list elsewhere. */
   protected readonly topics = computed(() => {
     const all = this.wording.value()?.topics ?? [];
-    return this.productId() ? all.filter((t) => t.code === 'drops').map((t) => ({ ...t, label: `the next run of ${this.productName() ?? 'this product'}` })) : all;
+    return this.productId()
+      ? all
+          .filter((t) => t.code === 'drops')
+          .map((t) => ({ ...t, label: `the next run of ${this.productName() ?? 'this product'}` }))
+      : all;
   });
   protected readonly form = inject(NonNullableFormBuilder).group({
     email: ['', [Validators.required, Validators.email]],
@@ -72,12 +101,20 @@ export class SignUpForm {
   protected async send(): Promise<void> {
     this.form.markAllAsTouched();
     this.problem.set(null);
-    if (this.form.controls.topics.value.length === 0) this.form.controls.topics.setErrors({ server: 'Tick at least one list.' });
+    if (this.form.controls.topics.value.length === 0)
+      this.form.controls.topics.setErrors({ server: 'Tick at least one list.' });
     if (this.form.invalid) return;
     this.busy.set(true);
     try {
       const { email, topics } = this.form.getRawValue();
-      await firstValueFrom(this.api.signUp({ email, topics, page: this.page(), ...(this.productId() ? { productId: this.productId()! } : {}) }));
+      await firstValueFrom(
+        this.api.signUp({
+          email,
+          topics,
+          page: this.page(),
+          ...(this.productId() ? { productId: this.productId()! } : {}),
+        }),
+      );
       this.sent.set(true);
     } catch (err) {
       this.problem.set(applyServerErrors(this.form, err, { 'topics.0': 'topics', productId: 'topics' }));

@@ -5,7 +5,11 @@ import { MatButtonModule } from '@angular/material/button';
 import { apiErrorMessage } from '../core/api-error';
 import { AnnouncementsApi } from './announcements-api';
 
-const LABELS: Record<string, string> = { drops: 'new runs and drops', launches: 'launch days', 'build-logs': 'new build logs' };
+const LABELS: Record<string, string> = {
+  drops: 'new runs and drops',
+  launches: 'launch days',
+  'build-logs': 'new build logs',
+};
 
 /** Opened from the confirmation mail: confirms the lists with the single-use token in the URL. */
 @Component({
@@ -15,9 +19,13 @@ const LABELS: Record<string, string> = { drops: 'new runs and drops', launches: 
     <section class="ps-narrow" aria-live="polite">
       <h1>Confirm your e-mails</h1>
       @switch (state()) {
-        @case ('working') { <p>Checking your link…</p> }
+        @case ('working') {
+          <p>Checking your link…</p>
+        }
         @case ('done') {
-          <p data-testid="subscription-confirmed">Confirmed: {{ email() }} will hear about {{ lists() }}. Every message has a link to stop it.</p>
+          <p data-testid="subscription-confirmed">
+            Confirmed: {{ email() }} will hear about {{ lists() }}. Every message has a link to stop it.
+          </p>
           <a mat-flat-button routerLink="/">Back to the home page</a>
         }
         @case ('failed') {

@@ -17,13 +17,20 @@ import { AnnouncementsApi } from './announcements-api';
     <section class="ps-narrow" aria-live="polite">
       <h1>Stop e-mails</h1>
       @if (done(); as d) {
-        <p role="status" data-testid="unsubscribed">Done: {{ d.email }} gets no more e-mails about {{ d.label }}. Receipts and other messages you need still arrive.</p>
+        <p role="status" data-testid="unsubscribed">
+          Done: {{ d.email }} gets no more e-mails about {{ d.label }}. Receipts and other messages you need still
+          arrive.
+        </p>
         <a mat-stroked-button routerLink="/">Back to the home page</a>
       } @else if (about.error()) {
         <p class="form-problem" role="alert">{{ message(about.error()) }}</p>
       } @else if (about.value(); as a) {
-        <p>Stop e-mails about <strong>{{ a.label }}</strong> to <strong>{{ a.email }}</strong>?</p>
-        @if (problem(); as p) { <p class="form-problem" role="alert">{{ p }}</p> }
+        <p>
+          Stop e-mails about <strong>{{ a.label }}</strong> to <strong>{{ a.email }}</strong>?
+        </p>
+        @if (problem(); as p) {
+          <p class="form-problem" role="alert">{{ p }}</p>
+        }
         <button mat-flat-button type="button" (click)="stop()" [disabled]="busy()">Stop these e-mails</button>
       } @else {
         <p>Checking your link…</p>
@@ -35,7 +42,10 @@ import { AnnouncementsApi } from './announcements-api';
 export class UnsubscribePage {
   private readonly api = inject(AnnouncementsApi);
   readonly token = input<string>('');
-  protected readonly about = rxResource({ params: () => this.token(), stream: ({ params }) => this.api.describeUnsubscribe(params) });
+  protected readonly about = rxResource({
+    params: () => this.token(),
+    stream: ({ params }) => this.api.describeUnsubscribe(params),
+  });
   protected readonly done = signal<{ email: string; label: string } | null>(null);
   protected readonly busy = signal(false);
   protected readonly problem = signal<string | null>(null);

@@ -27,6 +27,9 @@ export class BuildLogApi {
    * skips the server render's visitor copy, so a member gets the members-only body.
    */
   get(slug: string, personal = false): Observable<PostDetail> {
-    return this.http.get<PostDetail>(`/api/posts/${encodeURIComponent(slug)}`, { context: new HttpContext().set(QUIET_ERRORS, true), transferCache: !personal });
+    return this.http.get<PostDetail>(`/api/posts/${encodeURIComponent(slug)}`, {
+      context: new HttpContext().set(QUIET_ERRORS, true),
+      transferCache: !personal,
+    });
   }
 }

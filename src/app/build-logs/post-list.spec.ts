@@ -14,14 +14,29 @@ const settle = async () => {
 describe('PostList when the list does not load', () => {
   it('should say the build logs could not load instead of "no build logs", answer 503, and list them after "Try again"', async () => {
     const response: ResponseInit = {};
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: RESPONSE_INIT, useValue: response }] });
+    TestBed.configureTestingModule({
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        { provide: RESPONSE_INIT, useValue: response },
+      ],
+    });
     const fixture = TestBed.createComponent(PostList);
     TestBed.tick();
     const http = TestBed.inject(HttpTestingController);
     const list = () => http.expectOne((r) => r.url === '/api/posts');
-    list().flush({ error: { code: 'internal', message: 'Something went wrong.' } }, { status: 500, statusText: 'Internal Server Error' });
+    list().flush(
+      { error: { code: 'internal', message: 'Something went wrong.' } },
+      { status: 500, statusText: 'Internal Server Error' },
+    );
     // The tag filter failing too leaves the page standing: it only hides the filter.
-    http.expectOne('/api/posts/tags').flush({ error: { code: 'internal', message: 'Something went wrong.' } }, { status: 500, statusText: 'Internal Server Error' });
+    http
+      .expectOne('/api/posts/tags')
+      .flush(
+        { error: { code: 'internal', message: 'Something went wrong.' } },
+        { status: 500, statusText: 'Internal Server Error' },
+      );
     await settle();
     const el = fixture.nativeElement as HTMLElement;
     expect(el.querySelector('[role="alert"]')!.textContent).toBe('The build logs could not be loaded just now.');
@@ -29,10 +44,22 @@ describe('PostList when the list does not load', () => {
     expect(el.querySelector('nav.tag-filter')).toBeNull();
     expect(response.status).toBe(503);
 
-    Array.from(el.querySelectorAll('button')).find((b) => b.textContent!.trim() === 'Try again')!.click();
+    Array.from(el.querySelectorAll('button'))
+      .find((b) => b.textContent!.trim() === 'Try again')!
+      .click();
     TestBed.tick();
     list().flush({
-      items: [{ slug: 'first-flight', title: 'First flight of the Prairie Dart', summary: 'It flew.', coverUrl: null, publishedAt: '2026-06-01T15:00:00Z', tags: [], membersOnly: false }],
+      items: [
+        {
+          slug: 'first-flight',
+          title: 'First flight of the Prairie Dart',
+          summary: 'It flew.',
+          coverUrl: null,
+          publishedAt: '2026-06-01T15:00:00Z',
+          tags: [],
+          membersOnly: false,
+        },
+      ],
       total: 1,
     });
     await settle();

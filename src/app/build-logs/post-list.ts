@@ -23,7 +23,12 @@ const PAGE_SIZE = 10;
 })
 export class PostList {
   constructor() {
-    inject(PageMeta).describe({ title: 'Build logs', description: 'How the rockets, altimeters and videos are made, step by step.', path: '/build-logs', type: 'website' });
+    inject(PageMeta).describe({
+      title: 'Build logs',
+      description: 'How the rockets, altimeters and videos are made, step by step.',
+      path: '/build-logs',
+      type: 'website',
+    });
     const answerLoadError = loadErrorStatus();
     effect(() => answerLoadError(this.posts.error()));
   }
@@ -37,7 +42,10 @@ export class PostList {
 
   protected readonly pageSize = PAGE_SIZE;
   protected readonly pageNumber = computed(() => Math.max(1, Number(this.page()) || 1));
-  protected readonly posts = rxResource({ params: () => ({ tag: this.tag() || undefined, page: this.pageNumber(), pageSize: PAGE_SIZE }), stream: ({ params }) => this.api.list(params) });
+  protected readonly posts = rxResource({
+    params: () => ({ tag: this.tag() || undefined, page: this.pageNumber(), pageSize: PAGE_SIZE }),
+    stream: ({ params }) => this.api.list(params),
+  });
   protected readonly tags = rxResource({ stream: () => this.api.tags() });
 
   protected changePage(e: PageEvent): void {

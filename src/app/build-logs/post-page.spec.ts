@@ -49,14 +49,25 @@ describe('PostPage with flight markers', () => {
 
     http.expectOne('/api/flights/5').flush({
       flight: { id: 5, rocketName: 'Prairie Dart' },
-      summary: { apogeeMetres: 412, apogeeFeet: 1351.7, apogeeAtSeconds: 9.8, maxSpeedMps: 88, descentRateMps: 4.6, peakAccelG: 7.2, flightTimeSeconds: 95, samples: 9000 },
+      summary: {
+        apogeeMetres: 412,
+        apogeeFeet: 1351.7,
+        apogeeAtSeconds: 9.8,
+        maxSpeedMps: 88,
+        descentRateMps: 4.6,
+        peakAccelG: 7.2,
+        flightTimeSeconds: 95,
+        samples: 9000,
+      },
       series: [
         { t: 0, altitudeM: 0, speedMps: 0 },
         { t: 9.8, altitudeM: 412, speedMps: 0 },
       ],
       events: [{ kind: 'apogee', t: 9.8 }],
     });
-    http.expectOne('/api/flights/6').flush({ error: { code: 'not_found', message: 'Not found.' } }, { status: 404, statusText: 'Not Found' });
+    http
+      .expectOne('/api/flights/6')
+      .flush({ error: { code: 'not_found', message: 'Not found.' } }, { status: 404, statusText: 'Not Found' });
     await fixture.whenStable();
 
     const body = (fixture.nativeElement as HTMLElement).querySelector('.body')!;
@@ -78,7 +89,14 @@ describe('PostPage when the post does not load', () => {
   let response: ResponseInit;
   beforeEach(() => {
     response = {};
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: RESPONSE_INIT, useValue: response }] });
+    TestBed.configureTestingModule({
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        { provide: RESPONSE_INIT, useValue: response },
+      ],
+    });
   });
 
   function open(): { element: HTMLElement; http: HttpTestingController } {
@@ -87,11 +105,14 @@ describe('PostPage when the post does not load', () => {
     TestBed.tick();
     return { element: fixture.nativeElement as HTMLElement, http: TestBed.inject(HttpTestingController) };
   }
-  const buttons = (element: HTMLElement) => Array.from(element.querySelectorAll('button')).map((b) => b.textContent!.trim());
+  const buttons = (element: HTMLElement) =>
+    Array.from(element.querySelectorAll('button')).map((b) => b.textContent!.trim());
 
   it('should say the build log is not found, answer 404 and offer no retry when the API answers 404', async () => {
     const { element, http } = open();
-    http.expectOne('/api/posts/first-flight').flush({ error: { code: 'not_found', message: 'No such post.' } }, { status: 404, statusText: 'Not Found' });
+    http
+      .expectOne('/api/posts/first-flight')
+      .flush({ error: { code: 'not_found', message: 'No such post.' } }, { status: 404, statusText: 'Not Found' });
     await settle();
     expect(element.querySelector('h1')!.textContent).toBe('Build log not found');
     expect(response.status).toBe(404);
@@ -100,14 +121,21 @@ describe('PostPage when the post does not load', () => {
 
   it('should say it could not load, answer 503, and show the post after "Try again" when the API fails', async () => {
     const { element, http } = open();
-    http.expectOne('/api/posts/first-flight').flush({ error: { code: 'internal', message: 'Something went wrong.' } }, { status: 500, statusText: 'Internal Server Error' });
+    http
+      .expectOne('/api/posts/first-flight')
+      .flush(
+        { error: { code: 'internal', message: 'Something went wrong.' } },
+        { status: 500, statusText: 'Internal Server Error' },
+      );
     await settle();
     expect(element.querySelector('h1')!.textContent).toBe('This build log could not be loaded');
     expect(element.querySelector('[role="alert"]')!.textContent).toContain('try again in a moment');
     expect(element.textContent).not.toContain('Build log not found');
     expect(response.status).toBe(503);
 
-    Array.from(element.querySelectorAll('button')).find((b) => b.textContent!.trim() === 'Try again')!.click();
+    Array.from(element.querySelectorAll('button'))
+      .find((b) => b.textContent!.trim() === 'Try again')!
+      .click();
     TestBed.tick();
     http.expectOne('/api/posts/first-flight').flush({ ...POST, html: '<p>Up it went.</p>' });
     await settle();
@@ -117,7 +145,9 @@ describe('PostPage when the post does not load', () => {
 
   it('should treat a lost connection like a failure, not like a missing post', async () => {
     const { element, http } = open();
-    http.expectOne('/api/posts/first-flight').error(new ProgressEvent('error'), { status: 0, statusText: 'Unknown Error' });
+    http
+      .expectOne('/api/posts/first-flight')
+      .error(new ProgressEvent('error'), { status: 0, statusText: 'Unknown Error' });
     await settle();
     expect(element.querySelector('h1')!.textContent).toBe('This build log could not be loaded');
     expect(response.status).toBe(503);

@@ -52,7 +52,10 @@ export class PostPage {
   /** How wide the cover shows (the preload says the same). */
   protected readonly coverSizes = '(max-width: 840px) 100vw, 800px';
 
-  protected readonly post = rxResource({ params: () => this.slug(), stream: ({ params }) => this.api.get(params, this.session.signedIn()) });
+  protected readonly post = rxResource({
+    params: () => this.slug(),
+    stream: ({ params }) => this.api.get(params, this.session.signedIn()),
+  });
   /** The API said there is no such post; any other failure is worth a retry. */
   protected readonly missing = computed(() => isNotFound(this.post.error()));
   /**
@@ -87,13 +90,20 @@ export class PostPage {
         path,
         type: 'article',
         image: cover,
-        preload: p.cover ? { href: p.cover.url, srcset: `${p.cover.thumbnailUrl} 480w, ${p.cover.url} ${p.cover.width}w`, sizes: this.coverSizes } : null,
+        preload: p.cover
+          ? {
+              href: p.cover.url,
+              srcset: `${p.cover.thumbnailUrl} 480w, ${p.cover.url} ${p.cover.width}w`,
+              sizes: this.coverSizes,
+            }
+          : null,
         data: postData(p, meta.absolute(path), meta.absolute(cover?.url ?? SHARE_IMAGE.url), publisher),
       });
     });
     // The server renders as a visitor: once the session says a member is here, a withheld body is fetched for them.
     effect(() => {
-      if (this.session.signedIn() && untracked(() => this.post.hasValue() && this.post.value().html === null)) this.post.reload();
+      if (this.session.signedIn() && untracked(() => this.post.hasValue() && this.post.value().html === null))
+        this.post.reload();
     });
     // After each render of a new body: its placeholders are fresh elements, so the old embeds go and new ones come.
     afterRenderEffect(() => {
@@ -107,13 +117,17 @@ export class PostPage {
   private embedType: Promise<Type<FlightEmbed>> | null = null;
 
   private async mountFlights(container: HTMLElement | undefined): Promise<void> {
-    const placeholders = container ? Array.from(container.querySelectorAll<HTMLElement>('.ps-flight[data-flight]')) : [];
+    const placeholders = container
+      ? Array.from(container.querySelectorAll<HTMLElement>('.ps-flight[data-flight]'))
+      : [];
     for (const [element, ref] of this.flightEmbeds) {
       if (placeholders.includes(element)) continue;
       ref.destroy();
       this.flightEmbeds.delete(element);
     }
-    const fresh = placeholders.filter((p) => !this.flightEmbeds.has(p) && /^[1-9][0-9]*$/.test(p.dataset['flight'] ?? ''));
+    const fresh = placeholders.filter(
+      (p) => !this.flightEmbeds.has(p) && /^[1-9][0-9]*$/.test(p.dataset['flight'] ?? ''),
+    );
     if (fresh.length === 0) return;
     const embed = await (this.embedType ??= import('../flights/flight-embed').then((m) => m.FlightEmbed));
     for (const placeholder of fresh) {

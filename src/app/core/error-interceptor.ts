@@ -23,7 +23,9 @@ export const errorInterceptor: HttpInterceptorFn = (req, next) => {
         if (err.error?.error?.code === 'csrf_failed') csrf.forget();
         if (inBrowser && !req.context.get(QUIET_ERRORS)) {
           const message = apiErrorMessage(err);
-          void import('@angular/material/snack-bar').then((m) => injector.get(m.MatSnackBar).open(message, 'Dismiss', { duration: 6000 }));
+          void import('@angular/material/snack-bar').then((m) =>
+            injector.get(m.MatSnackBar).open(message, 'Dismiss', { duration: 6000 }),
+          );
         }
       }
       return throwError(() => err);

@@ -22,7 +22,17 @@ export interface PageDescription {
 
 /** Marks what PageMeta wrote into <head>, so the next page removes it. */
 const OWNED = 'data-ps-page';
-const OG = ['og:title', 'og:description', 'og:type', 'og:url', 'og:image', 'og:image:width', 'og:image:height', 'og:image:alt', 'og:site_name'];
+const OG = [
+  'og:title',
+  'og:description',
+  'og:type',
+  'og:url',
+  'og:image',
+  'og:image:width',
+  'og:image:height',
+  'og:image:alt',
+  'og:site_name',
+];
 const CARD = ['twitter:card', 'twitter:title', 'twitter:description', 'twitter:image', 'twitter:image:alt'];
 
 /**
@@ -63,7 +73,8 @@ export class PageMeta {
       'og:image:alt': image.alt,
       'og:site_name': 'Padside',
     };
-    for (const [property, content] of Object.entries(og)) if (content) this.meta.addTag({ property, content, [OWNED]: '' });
+    for (const [property, content] of Object.entries(og))
+      if (content) this.meta.addTag({ property, content, [OWNED]: '' });
     const card: Record<string, string | undefined> = {
       'twitter:card': 'summary_large_image',
       'twitter:title': page.title,
@@ -74,7 +85,13 @@ export class PageMeta {
     for (const [name, content] of Object.entries(card)) if (content) this.meta.addTag({ name, content, [OWNED]: '' });
     this.addToHead('link', { rel: 'canonical', href: url });
     if (page.preload) {
-      this.addToHead('link', { rel: 'preload', as: 'image', href: page.preload.href, fetchpriority: 'high', ...(page.preload.srcset ? { imagesrcset: page.preload.srcset, imagesizes: page.preload.sizes ?? '100vw' } : {}) });
+      this.addToHead('link', {
+        rel: 'preload',
+        as: 'image',
+        href: page.preload.href,
+        fetchpriority: 'high',
+        ...(page.preload.srcset ? { imagesrcset: page.preload.srcset, imagesizes: page.preload.sizes ?? '100vw' } : {}),
+      });
     }
     if (page.data) {
       // A data block, not a script: the CSP does not apply to it, and `<` is escaped so no text can close it.

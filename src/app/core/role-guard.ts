@@ -11,7 +11,9 @@ export function roleGuard(roles: readonly Role[]): CanMatchFn {
     await session.ready;
     if (session.hasAnyRole(roles)) return true;
     const returnTo = '/' + segments.map((s) => s.path).join('/');
-    return session.signedIn() ? router.parseUrl('/account/no-access') : router.createUrlTree(['/account/sign-in'], { queryParams: { returnTo } });
+    return session.signedIn()
+      ? router.parseUrl('/account/no-access')
+      : router.createUrlTree(['/account/sign-in'], { queryParams: { returnTo } });
   };
 }
 
@@ -21,7 +23,9 @@ export const signedInGuard: CanMatchFn = async (_route, segments) => {
   const router = inject(Router);
   await session.ready;
   if (session.signedIn()) return true;
-  return router.createUrlTree(['/account/sign-in'], { queryParams: { returnTo: '/' + segments.map((s) => s.path).join('/') } });
+  return router.createUrlTree(['/account/sign-in'], {
+    queryParams: { returnTo: '/' + segments.map((s) => s.path).join('/') },
+  });
 };
 
 /** Lets a page that fills its form from the signed-in person (checkout) wait until the session is known. */

@@ -30,7 +30,9 @@ export class SessionStore {
   /** Reads the session (at start-up, and again after a change elsewhere); `user: null` means nobody is signed in. */
   async load(): Promise<void> {
     try {
-      const res = await firstValueFrom(this.http.get<{ user: User | null }>('/api/auth/me', { context: new HttpContext().set(QUIET_ERRORS, true) }));
+      const res = await firstValueFrom(
+        this.http.get<{ user: User | null }>('/api/auth/me', { context: new HttpContext().set(QUIET_ERRORS, true) }),
+      );
       this.current.set(res.user);
     } catch {
       this.current.set(null);
@@ -39,7 +41,13 @@ export class SessionStore {
 
   /** Signs in and keeps the user; a new session means a new CSRF token. */
   async signIn(email: string, password: string): Promise<User> {
-    const res = await firstValueFrom(this.http.post<{ user: User }>('/api/auth/login', { email, password }, { context: new HttpContext().set(QUIET_ERRORS, true) }));
+    const res = await firstValueFrom(
+      this.http.post<{ user: User }>(
+        '/api/auth/login',
+        { email, password },
+        { context: new HttpContext().set(QUIET_ERRORS, true) },
+      ),
+    );
     this.csrf.forget();
     this.current.set(res.user);
     return res.user;
@@ -50,7 +58,13 @@ export class SessionStore {
    * message says to confirm the address from the inbox, then sign in.
    */
   async register(email: string, password: string, displayName: string): Promise<string> {
-    const res = await firstValueFrom(this.http.post<{ queued: true; message: string }>('/api/auth/register', { email, password, displayName }, { context: new HttpContext().set(QUIET_ERRORS, true) }));
+    const res = await firstValueFrom(
+      this.http.post<{ queued: true; message: string }>(
+        '/api/auth/register',
+        { email, password, displayName },
+        { context: new HttpContext().set(QUIET_ERRORS, true) },
+      ),
+    );
     return res.message;
   }
 

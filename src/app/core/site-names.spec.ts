@@ -9,7 +9,9 @@ describe('SiteNames', () => {
   it('asks once when first needed and holds the names the server gives', () => {
     const names = TestBed.inject(SiteNames);
     expect(names.teamName()).toBe('');
-    TestBed.inject(HttpTestingController).expectOne('/api/site').flush({ teamName: 'Nozzle & Nylon', clubName: 'Skywhomp Rocketry Club', timeZone: 'America/Regina' });
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/site')
+      .flush({ teamName: 'Nozzle & Nylon', clubName: 'Skywhomp Rocketry Club', timeZone: 'America/Regina' });
     expect(names.teamName()).toBe('Nozzle & Nylon');
     expect(names.clubName()).toBe('Skywhomp Rocketry Club');
     expect(names.timeZone()).toBe('America/Regina');

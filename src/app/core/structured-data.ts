@@ -118,7 +118,10 @@ export function zonedDateTime(date: string, time: string, timeZone: string): str
 }
 
 function offsetAt(instant: Date, timeZone: string): string {
-  const name = new Intl.DateTimeFormat('en-US', { timeZone, timeZoneName: 'longOffset' }).formatToParts(instant).find((p) => p.type === 'timeZoneName')?.value ?? 'GMT';
+  const name =
+    new Intl.DateTimeFormat('en-US', { timeZone, timeZoneName: 'longOffset' })
+      .formatToParts(instant)
+      .find((p) => p.type === 'timeZoneName')?.value ?? 'GMT';
   return name === 'GMT' ? '+00:00' : name.slice(3);
 }
 
@@ -127,7 +130,13 @@ function minutes(offset: string): number {
   return sign * (Number(offset.slice(1, 3)) * 60 + Number(offset.slice(4, 6)));
 }
 
-export function launchData(l: LaunchFacts, timeZone: string, url: string, image: string, organizer: string): WithContext<Event> {
+export function launchData(
+  l: LaunchFacts,
+  timeZone: string,
+  url: string,
+  image: string,
+  organizer: string,
+): WithContext<Event> {
   return {
     '@context': 'https://schema.org',
     '@type': 'Event',
@@ -143,7 +152,9 @@ export function launchData(l: LaunchFacts, timeZone: string, url: string, image:
       '@type': 'Place',
       name: l.site.name,
       address: l.site.address ?? l.site.name,
-      ...(l.site.lat != null && l.site.lon != null ? { geo: { '@type': 'GeoCoordinates', latitude: l.site.lat, longitude: l.site.lon } } : {}),
+      ...(l.site.lat != null && l.site.lon != null
+        ? { geo: { '@type': 'GeoCoordinates', latitude: l.site.lat, longitude: l.site.lon } }
+        : {}),
     },
     organizer: { '@type': 'Organization', name: organizer },
   };

@@ -43,7 +43,9 @@ describe('FlightChart', () => {
 
   it('should list the events in a table with altitude and speed at each', async () => {
     const el = await render();
-    const rows = Array.from(el.querySelectorAll('tbody tr')).map((r) => Array.from(r.children).map((c) => c.textContent!.trim()));
+    const rows = Array.from(el.querySelectorAll('tbody tr')).map((r) =>
+      Array.from(r.children).map((c) => c.textContent!.trim()),
+    );
     expect(rows).toEqual([
       ['Liftoff', '0.0', '0', '0'],
       ['Motor burnout', '2.0', '80', '80'],

@@ -17,7 +17,10 @@ export function pointAt(series: FlightSeriesPoint[], t: number): { altitudeM: nu
   const a = series[lo];
   const b = series[hi];
   const f = b.t === a.t ? 0 : Math.min(1, Math.max(0, (t - a.t) / (b.t - a.t)));
-  return { altitudeM: a.altitudeM + f * (b.altitudeM - a.altitudeM), speedMps: a.speedMps + f * (b.speedMps - a.speedMps) };
+  return {
+    altitudeM: a.altitudeM + f * (b.altitudeM - a.altitudeM),
+    speedMps: a.speedMps + f * (b.speedMps - a.speedMps),
+  };
 }
 
 /** Altitude and vertical speed against time with the flight's events marked, and the same in a table. */
@@ -35,7 +38,12 @@ export class FlightChart {
 
   /** Each event with its name and where the flight was at that moment. */
   protected readonly eventRows = computed(() =>
-    this.events().map((e) => ({ kind: e.kind, label: EVENT_LABELS[e.kind] ?? e.kind, t: e.t, ...(pointAt(this.series(), e.t) ?? { altitudeM: 0, speedMps: 0 }) })),
+    this.events().map((e) => ({
+      kind: e.kind,
+      label: EVENT_LABELS[e.kind] ?? e.kind,
+      t: e.t,
+      ...(pointAt(this.series(), e.t) ?? { altitudeM: 0, speedMps: 0 }),
+    })),
   );
 
   /** The chart in words, for screen readers (the table below has the numbers). */
@@ -55,8 +63,25 @@ export class FlightChart {
     const s = this.series();
     return {
       datasets: [
-        { label: 'Altitude (m)', data: s.map((p) => ({ x: p.t, y: p.altitudeM })), borderColor: ALTITUDE_COLOUR, backgroundColor: ALTITUDE_COLOUR, yAxisID: 'y', pointRadius: 0, borderWidth: 2 },
-        { label: 'Vertical speed (m/s)', data: s.map((p) => ({ x: p.t, y: p.speedMps })), borderColor: SPEED_COLOUR, backgroundColor: SPEED_COLOUR, yAxisID: 'speed', pointRadius: 0, borderWidth: 1.5, borderDash: [6, 3] },
+        {
+          label: 'Altitude (m)',
+          data: s.map((p) => ({ x: p.t, y: p.altitudeM })),
+          borderColor: ALTITUDE_COLOUR,
+          backgroundColor: ALTITUDE_COLOUR,
+          yAxisID: 'y',
+          pointRadius: 0,
+          borderWidth: 2,
+        },
+        {
+          label: 'Vertical speed (m/s)',
+          data: s.map((p) => ({ x: p.t, y: p.speedMps })),
+          borderColor: SPEED_COLOUR,
+          backgroundColor: SPEED_COLOUR,
+          yAxisID: 'speed',
+          pointRadius: 0,
+          borderWidth: 1.5,
+          borderDash: [6, 3],
+        },
         {
           label: 'Events',
           data: this.eventRows().map((e) => ({ x: e.t, y: e.altitudeM })),
@@ -83,7 +108,12 @@ export class FlightChart {
       scales: {
         x: { type: 'linear', title: { display: true, text: 'Seconds from liftoff' } },
         y: { type: 'linear', position: 'left', title: { display: true, text: 'Altitude above the pad (m)' } },
-        speed: { type: 'linear', position: 'right', title: { display: true, text: 'Vertical speed (m/s)' }, grid: { drawOnChartArea: false } },
+        speed: {
+          type: 'linear',
+          position: 'right',
+          title: { display: true, text: 'Vertical speed (m/s)' },
+          grid: { drawOnChartArea: false },
+        },
       },
       plugins: {
         tooltip: {

@@ -18,6 +18,9 @@ export class FlightDataApi {
     const body = new FormData();
     body.append('log', file);
     if (columns) body.append('columns', JSON.stringify(columns));
-    return this.http.post<{ summary: FlightSummary }>(`/api/flights/${id}/data`, body, { reportProgress: true, observe: 'events' });
+    return this.http.post<{ summary: FlightSummary }>(`/api/flights/${id}/data`, body, {
+      reportProgress: true,
+      observe: 'events',
+    });
   }
 }

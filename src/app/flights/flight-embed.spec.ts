@@ -6,7 +6,16 @@ import { FlightEmbed } from './flight-embed';
 
 const DETAIL: FlightDetail = {
   flight: { id: 5, rocketName: 'Prairie Dart' },
-  summary: { apogeeMetres: 634.86, apogeeFeet: 2082.9, apogeeAtSeconds: 12.697, maxSpeedMps: 100, descentRateMps: 5, peakAccelG: null, flightTimeSeconds: 139.6, samples: 14500 },
+  summary: {
+    apogeeMetres: 634.86,
+    apogeeFeet: 2082.9,
+    apogeeAtSeconds: 12.697,
+    maxSpeedMps: 100,
+    descentRateMps: 5,
+    peakAccelG: null,
+    flightTimeSeconds: 139.6,
+    samples: 14500,
+  },
   series: [
     { t: 0, altitudeM: 0, speedMps: 0 },
     { t: 12.7, altitudeM: 634.86, speedMps: 0 },
@@ -44,7 +53,9 @@ describe('FlightEmbed', () => {
 
   it('should read the analysed log under data as well', async () => {
     const { summary, series, events, flight } = DETAIL;
-    const el = await show((req) => req.flush({ flight, data: { summary, series, events, filter: 'Savitzky–Golay' }, caution: 'Padside records.' }));
+    const el = await show((req) =>
+      req.flush({ flight, data: { summary, series, events, filter: 'Savitzky–Golay' }, caution: 'Padside records.' }),
+    );
     expect(el.textContent).toContain('635 m (2,083 ft) at 12.7 s');
     expect(el.querySelector('ps-flight-chart')).not.toBeNull();
     const none = await show((req) => req.flush({ flight, data: null }));
@@ -58,7 +69,9 @@ describe('FlightEmbed', () => {
   });
 
   it('should say the data is not available on a 404', async () => {
-    const el = await show((req) => req.flush({ error: { code: 'not_found', message: 'Not found.' } }, { status: 404, statusText: 'Not Found' }));
+    const el = await show((req) =>
+      req.flush({ error: { code: 'not_found', message: 'Not found.' } }, { status: 404, statusText: 'Not Found' }),
+    );
     expect(el.textContent).toContain('Flight data not available.');
   });
 });

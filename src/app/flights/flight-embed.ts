@@ -17,13 +17,20 @@ export class FlightEmbed {
 
   readonly flightId = input.required<number>();
 
-  protected readonly flight = rxResource({ params: () => this.flightId(), stream: ({ params }) => this.api.get(params) });
+  protected readonly flight = rxResource({
+    params: () => this.flightId(),
+    stream: ({ params }) => this.api.get(params),
+  });
   /** The analysed log, or null while loading, on an error (404 included) or when no log is in yet. */
   protected readonly data = computed(() => {
     if (this.flight.error()) return null;
     const f = this.flight.value();
     const d = f?.data ?? f;
-    return f && d?.summary && d.series?.length ? { name: f.flight.rocketName ?? null, summary: d.summary, series: d.series, events: d.events ?? [] } : null;
+    return f && d?.summary && d.series?.length
+      ? { name: f.flight.rocketName ?? null, summary: d.summary, series: d.series, events: d.events ?? [] }
+      : null;
   });
-  protected readonly unavailable = computed(() => this.flight.error() !== undefined || (this.flight.hasValue() && this.data() === null));
+  protected readonly unavailable = computed(
+    () => this.flight.error() !== undefined || (this.flight.hasValue() && this.data() === null),
+  );
 }

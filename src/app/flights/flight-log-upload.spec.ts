@@ -5,7 +5,8 @@ import type { FlightSummary } from './flight-data';
 import { FlightLogUpload } from './flight-log-upload';
 import { guessMapping, previewRows } from './flight-log-preview';
 
-const LOG = 'time_ms,pressure_hpa,temp,ax,ay,az\n0,977.00,20.1,0,0,1\n10,977.01,20.1,0,0,1\n20,976.99,20.1,0.1,0,5.1\n30,976.90,20.1,0.1,0,5.1\n';
+const LOG =
+  'time_ms,pressure_hpa,temp,ax,ay,az\n0,977.00,20.1,0,0,1\n10,977.01,20.1,0,0,1\n20,976.99,20.1,0.1,0,5.1\n30,976.90,20.1,0.1,0,5.1\n';
 const SUMMARY: FlightSummary = {
   apogeeMetres: 634.9,
   apogeeFeet: 2083,
@@ -28,7 +29,10 @@ describe('FlightLogUpload', () => {
   };
   const pick = async (fixture: Awaited<ReturnType<typeof setUp>>, text: string, name = 'flight.csv') => {
     const input = fixture.nativeElement.querySelector('input[type=file]') as HTMLInputElement;
-    Object.defineProperty(input, 'files', { value: [new File([text], name, { type: 'text/csv' })], configurable: true });
+    Object.defineProperty(input, 'files', {
+      value: [new File([text], name, { type: 'text/csv' })],
+      configurable: true,
+    });
     input.dispatchEvent(new Event('change'));
     // The preview reads the file asynchronously (FileReader); wait until the form shows what it read.
     const el = fixture.nativeElement as HTMLElement;
@@ -48,10 +52,28 @@ describe('FlightLogUpload', () => {
     const fixture = await setUp();
     await pick(fixture, LOG);
     const el = fixture.nativeElement as HTMLElement;
-    expect(Array.from(el.querySelectorAll('.preview th')).map((h) => h.textContent)).toEqual(['time_ms', 'pressure_hpa', 'temp', 'ax', 'ay', 'az']);
+    expect(Array.from(el.querySelectorAll('.preview th')).map((h) => h.textContent)).toEqual([
+      'time_ms',
+      'pressure_hpa',
+      'temp',
+      'ax',
+      'ay',
+      'az',
+    ]);
     expect(el.querySelectorAll('.preview tbody tr')).toHaveLength(4);
     expect(el.textContent).toContain('recognised the columns');
-    expect(selectText(fixture)).toEqual(['time_ms', 'milliseconds', 'pressure_hpa', 'hPa (mbar)', 'temp', 'Three axes', 'g', 'ax', 'ay', 'az']);
+    expect(selectText(fixture)).toEqual([
+      'time_ms',
+      'milliseconds',
+      'pressure_hpa',
+      'hPa (mbar)',
+      'temp',
+      'Three axes',
+      'g',
+      'ax',
+      'ay',
+      'az',
+    ]);
   });
 
   it('should ask for the columns when it does not recognise them', async () => {
@@ -60,7 +82,9 @@ describe('FlightLogUpload', () => {
     expect((fixture.nativeElement as HTMLElement).textContent).toContain('did not recognise the column names');
     await submit(fixture);
     TestBed.inject(HttpTestingController).expectNone('/api/flights/17/data');
-    expect((fixture.nativeElement as HTMLElement).querySelector('mat-error')!.textContent).toContain('The time column is required.');
+    expect((fixture.nativeElement as HTMLElement).querySelector('mat-error')!.textContent).toContain(
+      'The time column is required.',
+    );
   });
 
   it('should post the log and the mapping with a progress bar, then emit the summary', async () => {
@@ -105,7 +129,10 @@ describe('FlightLogUpload', () => {
           error: {
             code: 'unmappable_log',
             message: 'The pressure column reads about 977 Pa before liftoff.',
-            fields: { columns: 'The pressure column reads about 977 Pa before liftoff. Is it in hPa?', 'columns.time': 'The log has no column named "time_ms".' },
+            fields: {
+              columns: 'The pressure column reads about 977 Pa before liftoff. Is it in hPa?',
+              'columns.time': 'The log has no column named "time_ms".',
+            },
           },
         },
         { status: 400, statusText: 'Bad Request' },
@@ -123,15 +150,29 @@ describe('FlightLogUpload', () => {
     await submit(fixture);
     TestBed.inject(HttpTestingController)
       .expectOne('/api/flights/17/data')
-      .flush({ error: { code: 'invalid_request', message: 'Too long.', fields: { log: 'A log may hold at most 200,000 rows.' } } }, { status: 400, statusText: 'Bad Request' });
+      .flush(
+        {
+          error: {
+            code: 'invalid_request',
+            message: 'Too long.',
+            fields: { log: 'A log may hold at most 200,000 rows.' },
+          },
+        },
+        { status: 400, statusText: 'Bad Request' },
+      );
     await fixture.whenStable();
-    expect((fixture.nativeElement as HTMLElement).querySelector('#flight-log-file-error')!.textContent).toContain('200,000 rows');
+    expect((fixture.nativeElement as HTMLElement).querySelector('#flight-log-file-error')!.textContent).toContain(
+      '200,000 rows',
+    );
   });
 });
 
 describe('the browser-side log preview', () => {
   it('should split on the delimiter the header uses and skip comments', () => {
-    expect(previewRows('# logger v2\ntime\tpressure\n0\t97700\n', 5)).toEqual({ headers: ['time', 'pressure'], rows: [['0', '97700']] });
+    expect(previewRows('# logger v2\ntime\tpressure\n0\t97700\n', 5)).toEqual({
+      headers: ['time', 'pressure'],
+      rows: [['0', '97700']],
+    });
     expect(previewRows('')).toEqual({ headers: [], rows: [] });
   });
 

@@ -40,7 +40,15 @@ for (const prefix of ['', 'columns.']) {
 /** Uploads a flight's altimeter log: shows its first rows, maps the columns, sends it with a progress bar. */
 @Component({
   selector: 'ps-flight-log-upload',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatSelectModule, FieldErrorPipe],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    FieldErrorPipe,
+  ],
   templateUrl: './flight-log-upload.html',
   styleUrl: './flight-log-upload.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -76,7 +84,9 @@ export class FlightLogUpload {
   protected readonly sent = computed(() => this.progress() === 100);
   protected readonly problem = signal<string | null>(null);
   protected readonly result = signal<FlightSummary | null>(null);
-  protected readonly axes = toSignal(this.form.controls.accelAxes.valueChanges, { initialValue: this.form.controls.accelAxes.value });
+  protected readonly axes = toSignal(this.form.controls.accelAxes.valueChanges, {
+    initialValue: this.form.controls.accelAxes.value,
+  });
 
   protected async pick(picker: HTMLInputElement): Promise<void> {
     const file = picker.files?.[0];
@@ -94,7 +104,8 @@ export class FlightLogUpload {
     } catch {
       preview = { headers: [], rows: [] };
     }
-    if (preview.headers.length === 0) this.problem.set('Padside could not read the first rows of this file. Is it a CSV file?');
+    if (preview.headers.length === 0)
+      this.problem.set('Padside could not read the first rows of this file. Is it a CSV file?');
     this.headers.set(preview.headers);
     this.rows.set(preview.rows);
     const guess = guessMapping(preview.headers);
@@ -121,7 +132,10 @@ export class FlightLogUpload {
   /** The mapping the form describes. */
   protected mapping(): ColumnMapping {
     const v = this.form.getRawValue();
-    const mapping: ColumnMapping = { time: { column: v.timeColumn, unit: v.timeUnit }, pressure: { column: v.pressureColumn, unit: v.pressureUnit } };
+    const mapping: ColumnMapping = {
+      time: { column: v.timeColumn, unit: v.timeUnit },
+      pressure: { column: v.pressureColumn, unit: v.pressureUnit },
+    };
     if (v.temperatureColumn) mapping.temperature = { column: v.temperatureColumn, unit: 'C' };
     const accel = v.accelAxes === 'three' ? [v.accelX, v.accelY, v.accelZ] : v.accelAxes === 'one' ? [v.accelZ] : [];
     if (accel.length && accel.every((c) => c)) mapping.acceleration = { columns: accel, unit: v.accelUnit };
@@ -136,7 +150,8 @@ export class FlightLogUpload {
     this.progress.set(0);
     this.api.uploadLog(this.flightId(), file, this.mapping()).subscribe({
       next: (e) => {
-        if (e.type === HttpEventType.UploadProgress) this.progress.set(e.total ? Math.round((100 * e.loaded) / e.total) : 0);
+        if (e.type === HttpEventType.UploadProgress)
+          this.progress.set(e.total ? Math.round((100 * e.loaded) / e.total) : 0);
         if (e.type === HttpEventType.Response && e.body) {
           this.progress.set(null);
           this.result.set(e.body.summary);

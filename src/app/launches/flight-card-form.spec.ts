@@ -6,7 +6,10 @@ import { FlightCardForm } from './flight-card-form';
 
 describe('FlightCardForm', () => {
   beforeEach(() => {
-    TestBed.configureTestingModule({ imports: [FlightCardForm], providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] });
+    TestBed.configureTestingModule({
+      imports: [FlightCardForm],
+      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])],
+    });
   });
 
   async function filled() {
@@ -14,7 +17,11 @@ describe('FlightCardForm', () => {
     fixture.componentRef.setInput('id', '7');
     fixture.detectChanges();
     const http = TestBed.inject(HttpTestingController);
-    http.expectOne('/api/launches/7').flush({ launch: { id: 7, title: 'Summer fly day' }, me: { going: true, checkedIn: true }, timeZone: 'America/Winnipeg' });
+    http.expectOne('/api/launches/7').flush({
+      launch: { id: 7, title: 'Summer fly day' },
+      me: { going: true, checkedIn: true },
+      timeZone: 'America/Winnipeg',
+    });
     await fixture.whenStable();
     const el: HTMLElement = fixture.nativeElement;
     const type = (selector: string, value: string) => {
@@ -34,8 +41,19 @@ describe('FlightCardForm', () => {
     el.querySelector<HTMLButtonElement>('button[type=submit]')!.click();
     fixture.detectChanges();
     const req = http.expectOne('/api/launches/7/flights');
-    expect(req.request.body).toEqual(expect.objectContaining({ rocketName: 'Filament Falcon', liftoffMassGrams: 120, motors: ['C6-5'] }));
-    req.flush({ error: { code: 'invalid_request', message: 'A motor designation could not be read.', fields: { 'motors.0': 'Padside cannot read "C6-5x".' } } }, { status: 400, statusText: 'Bad Request' });
+    expect(req.request.body).toEqual(
+      expect.objectContaining({ rocketName: 'Filament Falcon', liftoffMassGrams: 120, motors: ['C6-5'] }),
+    );
+    req.flush(
+      {
+        error: {
+          code: 'invalid_request',
+          message: 'A motor designation could not be read.',
+          fields: { 'motors.0': 'Padside cannot read "C6-5x".' },
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await fixture.whenStable();
     fixture.detectChanges();
     expect(el.querySelector('[role=alert]')!.textContent).toContain('could not be read');
@@ -46,7 +64,25 @@ describe('FlightCardForm', () => {
     const { fixture, el, http } = await filled();
     el.querySelector<HTMLButtonElement>('button[type=submit]')!.click();
     http.expectOne('/api/launches/7/flights').flush({
-      flight: { id: 31, status: 'filed', statusLabel: 'Waiting at the table', rocketName: 'Filament Falcon', thrustToWeight: 2.4, motors: [{ designation: 'C6-5', impulseClass: 'C', averageThrustN: 6, delayS: 5, plugged: false, totalImpulseMinNs: 5.01, totalImpulseMaxNs: 10 }], warnings: [{ code: 'low_thrust_to_weight', message: 'The motors push about 2.4 times the weight.' }] },
+      flight: {
+        id: 31,
+        status: 'filed',
+        statusLabel: 'Waiting at the table',
+        rocketName: 'Filament Falcon',
+        thrustToWeight: 2.4,
+        motors: [
+          {
+            designation: 'C6-5',
+            impulseClass: 'C',
+            averageThrustN: 6,
+            delayS: 5,
+            plugged: false,
+            totalImpulseMinNs: 5.01,
+            totalImpulseMaxNs: 10,
+          },
+        ],
+        warnings: [{ code: 'low_thrust_to_weight', message: 'The motors push about 2.4 times the weight.' }],
+      },
       caution: '',
     });
     await fixture.whenStable();

@@ -18,7 +18,17 @@ import { LaunchesApi, RECOVERY } from './launches-api';
 /** The flyer's flight card, filed at the field after check-in; Padside's warnings show once it is filed. */
 @Component({
   selector: 'ps-flight-card-form',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, FieldErrorPipe, FlightCaution],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatSelectModule,
+    FieldErrorPipe,
+    FlightCaution,
+  ],
   templateUrl: './flight-card-form.html',
   styleUrl: './launches.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -28,7 +38,10 @@ export class FlightCardForm {
   private readonly fb = inject(NonNullableFormBuilder);
   readonly id = input.required<string>();
 
-  protected readonly launch = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.show(params) });
+  protected readonly launch = rxResource({
+    params: () => Number(this.id()),
+    stream: ({ params }) => this.api.show(params),
+  });
   protected readonly recovery = RECOVERY;
   protected readonly form = this.fb.group({
     rocketName: ['', [Validators.required, Validators.maxLength(120)]],
@@ -60,7 +73,14 @@ export class FlightCardForm {
     const v = this.form.getRawValue();
     try {
       const res = await firstValueFrom(
-        this.api.fileFlight(Number(this.id()), { ...v, liftoffMassGrams: v.liftoffMassGrams ?? 0, expectedAltitudeMetres: v.expectedAltitudeMetres ?? null, pad: v.pad || null, postSlug: v.postSlug || null, notes: v.notes || null }),
+        this.api.fileFlight(Number(this.id()), {
+          ...v,
+          liftoffMassGrams: v.liftoffMassGrams ?? 0,
+          expectedAltitudeMetres: v.expectedAltitudeMetres ?? null,
+          pad: v.pad || null,
+          postSlug: v.postSlug || null,
+          notes: v.notes || null,
+        }),
       );
       this.filed.set(res.flight);
     } catch (err) {

@@ -24,13 +24,21 @@ export class FlightPage {
   private readonly session = inject(SessionStore);
   readonly id = input.required<string>();
 
-  protected readonly page = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.flight(params) });
+  protected readonly page = rxResource({
+    params: () => Number(this.id()),
+    stream: ({ params }) => this.api.flight(params),
+  });
   protected readonly flight = computed(() => this.page.value()?.flight ?? null);
   /** The flyer and range staff may add the altimeter log once the flight has an outcome. */
   protected readonly canUpload = computed(() => {
     const f = this.flight();
     const me = this.session.user();
-    return !!f && !!me && f.status === 'flown' && (f.flyer.userId === me.id || this.session.hasAnyRole(['range_officer', 'admin']));
+    return (
+      !!f &&
+      !!me &&
+      f.status === 'flown' &&
+      (f.flyer.userId === me.id || this.session.hasAnyRole(['range_officer', 'admin']))
+    );
   });
 
   protected reload(): void {

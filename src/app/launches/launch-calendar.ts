@@ -14,7 +14,9 @@ const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', '
 
 /** Today's date in a time zone, as YYYY-MM-DD. */
 export function todayIn(timeZone: string): string {
-  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(
+    new Date(),
+  );
 }
 
 function isOver(l: LaunchView, today: string): boolean {
@@ -31,7 +33,12 @@ function isOver(l: LaunchView, today: string): boolean {
 })
 export class LaunchCalendar {
   constructor() {
-    inject(PageMeta).describe({ title: 'Launch days', description: 'Coming and recent club launch days, with a calendar feed to subscribe to.', path: '/launches', type: 'website' });
+    inject(PageMeta).describe({
+      title: 'Launch days',
+      description: 'Coming and recent club launch days, with a calendar feed to subscribe to.',
+      path: '/launches',
+      type: 'website',
+    });
     const answerLoadError = loadErrorStatus();
     effect(() => answerLoadError(this.launches.error()));
   }
@@ -44,7 +51,9 @@ export class LaunchCalendar {
   private readonly today = computed(() => (this.timeZone() ? todayIn(this.timeZone()) : ''));
   /** A day closed after flying is over even on its own date: it goes with the recent ones, with its results. */
   protected readonly upcoming = computed(() => (this.loaded()?.items ?? []).filter((l) => !isOver(l, this.today())));
-  protected readonly past = computed(() => (this.loaded()?.items ?? []).filter((l) => isOver(l, this.today())).reverse());
+  protected readonly past = computed(() =>
+    (this.loaded()?.items ?? []).filter((l) => isOver(l, this.today())).reverse(),
+  );
   protected readonly feedUrl = `${inject(DOCUMENT).location.origin}/feeds/launches.ics`;
   protected readonly webcalUrl = this.feedUrl.replace(/^https?:/, 'webcal:');
 

@@ -28,17 +28,24 @@ export class LaunchPage {
   protected readonly session = inject(SessionStore);
   readonly id = input.required<string>();
 
-  protected readonly page = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.show(params, this.session.signedIn()) });
+  protected readonly page = rxResource({
+    params: () => Number(this.id()),
+    stream: ({ params }) => this.api.show(params, this.session.signedIn()),
+  });
   protected readonly launch = computed(() => (this.page.hasValue() ? this.page.value().launch : null));
   /** The API said there is no such launch day; any other failure is worth a retry. */
   protected readonly missing = computed(() => isNotFound(this.page.error()));
   protected readonly going = signal<boolean | null | undefined>(undefined);
   /** The reply shown: the one just sent, else the stored one. */
-  protected readonly reply = computed(() => (this.going() !== undefined ? this.going() : this.page.value()?.me?.going ?? null));
+  protected readonly reply = computed(() =>
+    this.going() !== undefined ? this.going() : (this.page.value()?.me?.going ?? null),
+  );
   protected readonly problem = signal<string | null>(null);
   protected readonly mapUrl = computed(() => {
     const s = this.launch()?.site;
-    return s?.lat != null && s?.lon != null ? `https://www.openstreetmap.org/?mlat=${s.lat}&mlon=${s.lon}#map=14/${s.lat}/${s.lon}` : null;
+    return s?.lat != null && s?.lon != null
+      ? `https://www.openstreetmap.org/?mlat=${s.lat}&mlon=${s.lon}#map=14/${s.lat}/${s.lon}`
+      : null;
   });
 
   constructor() {
@@ -53,16 +60,27 @@ export class LaunchPage {
       const path = `/launches/${l.id}`;
       meta.describe({
         title: `${l.title}, ${l.date}`,
-        description: `${l.statusLabel}: ${l.date}, ${l.startsAt} to ${l.endsAt} at ${l.site.name}.${l.notes ? ' ' + l.notes : ''}`.slice(0, 300),
+        description:
+          `${l.statusLabel}: ${l.date}, ${l.startsAt} to ${l.endsAt} at ${l.site.name}.${l.notes ? ' ' + l.notes : ''}`.slice(
+            0,
+            300,
+          ),
         path,
         type: 'website',
-        data: launchData(l, p.timeZone, meta.absolute(path), meta.absolute(SHARE_IMAGE.url), site.clubName() || 'Padside'),
+        data: launchData(
+          l,
+          p.timeZone,
+          meta.absolute(path),
+          meta.absolute(SHARE_IMAGE.url),
+          site.clubName() || 'Padside',
+        ),
       });
     });
     // The page may have come from the server render, made as a visitor: once the session says who this is, their own
     // reply is fetched.
     effect(() => {
-      if (this.session.signedIn() && untracked(() => this.page.hasValue() && this.page.value().me === null)) this.page.reload();
+      if (this.session.signedIn() && untracked(() => this.page.hasValue() && this.page.value().me === null))
+        this.page.reload();
     });
   }
 

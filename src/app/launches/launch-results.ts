@@ -17,6 +17,9 @@ import { LaunchesApi, OUTCOMES } from './launches-api';
 export class LaunchResults {
   private readonly api = inject(LaunchesApi);
   readonly id = input.required<string>();
-  protected readonly results = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.results(params) });
+  protected readonly results = rxResource({
+    params: () => Number(this.id()),
+    stream: ({ params }) => this.api.results(params),
+  });
   protected readonly outcomeLabel = (code: string) => OUTCOMES.find((o) => o.value === code)?.label ?? code;
 }

@@ -2,9 +2,26 @@ import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
-import type { CheckInAnswer, FlightPage, FlightView, LaunchList, LaunchPage, LaunchResults, LaunchView, Logbook, RangeQueue } from '@contracts/launches/launch-answers';
+import type {
+  CheckInAnswer,
+  FlightPage,
+  FlightView,
+  LaunchList,
+  LaunchPage,
+  LaunchResults,
+  LaunchView,
+  Logbook,
+  RangeQueue,
+} from '@contracts/launches/launch-answers';
 import type { FlightInput, LaunchInput, LaunchSettings } from '@contracts/launches/launch-schemas';
-import { FLIGHT_OUTCOME_LABELS, FLIGHT_OUTCOMES, RECOVERY_LABELS, RECOVERY_METHODS, type FlightOutcome, type RecoveryMethod } from '@contracts/labels/launch-statuses';
+import {
+  FLIGHT_OUTCOME_LABELS,
+  FLIGHT_OUTCOMES,
+  RECOVERY_LABELS,
+  RECOVERY_METHODS,
+  type FlightOutcome,
+  type RecoveryMethod,
+} from '@contracts/labels/launch-statuses';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -53,7 +70,11 @@ export class LaunchesApi {
   }
   /** Calls off a launch day and tells those who replied; the answer says how many. */
   callOff(id: number, reason: string): Observable<{ launch: LaunchView; notified: number }> {
-    return this.http.post<{ launch: LaunchView; notified: number }>(`/api/admin/launches/${id}/call-off`, { reason }, quiet());
+    return this.http.post<{ launch: LaunchView; notified: number }>(
+      `/api/admin/launches/${id}/call-off`,
+      { reason },
+      quiet(),
+    );
   }
   /** Marks a launch day over so its results can be published. */
   markDone(id: number): Observable<{ launch: LaunchView }> {
@@ -77,16 +98,30 @@ export class LaunchesApi {
   }
   /** Records the range safety officer's approval or refusal of a flight card. */
   decide(flightId: number, approve: boolean, reason?: string): Observable<{ flight: FlightView }> {
-    return this.http.post<{ flight: FlightView }>(`/api/admin/flights/${flightId}/decision`, { approve, reason }, quiet());
+    return this.http.post<{ flight: FlightView }>(
+      `/api/admin/flights/${flightId}/decision`,
+      { approve, reason },
+      quiet(),
+    );
   }
   /** Records how a flight went, with notes. */
   outcome(flightId: number, outcome: FlightOutcome, notes?: string): Observable<{ flight: FlightView }> {
-    return this.http.post<{ flight: FlightView }>(`/api/admin/flights/${flightId}/outcome`, { outcome, notes }, quiet());
+    return this.http.post<{ flight: FlightView }>(
+      `/api/admin/flights/${flightId}/outcome`,
+      { outcome, notes },
+      quiet(),
+    );
   }
 }
 
 /** Padside's words for outcomes, in the order the range officer picks from. */
-export const OUTCOMES: { value: FlightOutcome; label: string }[] = FLIGHT_OUTCOMES.map((value) => ({ value, label: FLIGHT_OUTCOME_LABELS[value] }));
+export const OUTCOMES: { value: FlightOutcome; label: string }[] = FLIGHT_OUTCOMES.map((value) => ({
+  value,
+  label: FLIGHT_OUTCOME_LABELS[value],
+}));
 
 /** Padside's words for recovery methods, in the order the flight card offers them. */
-export const RECOVERY: { value: RecoveryMethod; label: string }[] = RECOVERY_METHODS.map((value) => ({ value, label: RECOVERY_LABELS[value] }));
+export const RECOVERY: { value: RecoveryMethod; label: string }[] = RECOVERY_METHODS.map((value) => ({
+  value,
+  label: RECOVERY_LABELS[value],
+}));

@@ -22,8 +22,18 @@ class Host {
 /** Just enough of Stripe.js: a card element whose change handler the test fires, and a token call. */
 function fakeStripe() {
   const handlers: Record<string, (e: { complete: boolean }) => void> = {};
-  const element = { on: (name: string, h: (e: { complete: boolean }) => void) => (handlers[name] = h), mount: () => handlers['ready']?.({ complete: false }), destroy: () => undefined };
-  return { stripe: { elements: () => ({ create: () => element }), createToken: jest.fn(async () => ({ token: { id: 'tok_from_frame' } })) }, fire: (complete: boolean) => handlers['change']({ complete }) };
+  const element = {
+    on: (name: string, h: (e: { complete: boolean }) => void) => (handlers[name] = h),
+    mount: () => handlers['ready']?.({ complete: false }),
+    destroy: () => undefined,
+  };
+  return {
+    stripe: {
+      elements: () => ({ create: () => element }),
+      createToken: jest.fn(async () => ({ token: { id: 'tok_from_frame' } })),
+    },
+    fire: (complete: boolean) => handlers['change']({ complete }),
+  };
 }
 
 async function render(entry: CardEntry, fake = fakeStripe()) {

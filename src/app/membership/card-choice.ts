@@ -1,4 +1,14 @@
-import { ChangeDetectionStrategy, ChangeDetectorRef, Component, computed, effect, inject, input, signal, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  ChangeDetectorRef,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -49,7 +59,10 @@ export function savedCardText(card: SavedCard | null): string {
         </mat-form-field>
       }
       @if (e.mode === 'stripe-js' && (!hasSavedCard() || chosen() === newCard)) {
-        <p class="form-note">Type the card below. It goes straight to the card processor in its own secure frame; card numbers never reach Padside.</p>
+        <p class="form-note">
+          Type the card below. It goes straight to the card processor in its own secure frame; card numbers never reach
+          Padside.
+        </p>
         <ps-stripe-card [publishableKey]="e.publishableKey" (completeChange)="frameComplete($event)" />
         @if (!hasSavedCard() && control().touched && control().invalid) {
           <p class="field-problem" role="alert">{{ control() | fieldError: 'Card' }}</p>
@@ -59,7 +72,16 @@ export function savedCardText(card: SavedCard | null): string {
       <p class="form-problem" role="alert">Payment options could not load. Reload the page to try again.</p>
     }
   `,
-  styles: `.field-problem { color: var(--mat-sys-error); margin: 4px 0; } ps-stripe-card { display: block; margin-bottom: 16px; }`,
+  styles: `
+    .field-problem {
+      color: var(--mat-sys-error);
+      margin: 4px 0;
+    }
+    ps-stripe-card {
+      display: block;
+      margin-bottom: 16px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CardChoice {

@@ -1,4 +1,14 @@
-import { ChangeDetectionStrategy, Component, computed, ElementRef, inject, Injector, output, signal, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  ElementRef,
+  inject,
+  Injector,
+  output,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { HttpErrorResponse } from '@angular/common/http';
 import { rxResource, toSignal } from '@angular/core/rxjs-interop';
 import { FormArray, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -20,7 +30,18 @@ import { CardChoice } from './card-choice';
 /** The join form: plan, member profile, family, association and certification, waiver, card and auto-renew. */
 @Component({
   selector: 'ps-join-form',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatDatepickerModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, MoneyPipe, CardChoice],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatDatepickerModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    FieldErrorPipe,
+    MoneyPipe,
+    CardChoice,
+  ],
   providers: [provideClubDates()],
   templateUrl: './join-form.html',
   styleUrl: './membership-forms.scss',
@@ -61,15 +82,25 @@ export class JoinForm {
   protected readonly busy = signal(false);
 
   private readonly planId = toSignal(this.form.controls.planId.valueChanges, { initialValue: null });
-  protected readonly selectedPlan = computed(() => this.plans.value()?.items.find((p) => p.id === this.planId()) ?? null);
-  protected readonly quote = rxResource({ params: () => this.planId() ?? undefined, stream: ({ params }) => this.api.quote(params) });
+  protected readonly selectedPlan = computed(
+    () => this.plans.value()?.items.find((p) => p.id === this.planId()) ?? null,
+  );
+  protected readonly quote = rxResource({
+    params: () => this.planId() ?? undefined,
+    stream: ({ params }) => this.api.quote(params),
+  });
 
   protected get family(): FormArray<FormGroup> {
     return this.form.controls.profile.controls.familyMembers;
   }
 
   protected addFamilyMember(): void {
-    this.family.push(this.fb.group({ name: ['', Validators.required], dateOfBirth: this.fb.control<Date | null>(null, Validators.required) }));
+    this.family.push(
+      this.fb.group({
+        name: ['', Validators.required],
+        dateOfBirth: this.fb.control<Date | null>(null, Validators.required),
+      }),
+    );
   }
 
   protected removeFamilyMember(i: number): void {
@@ -97,7 +128,10 @@ export class JoinForm {
             dateOfBirth: toIsoDate(v.profile.dateOfBirth),
             associationExpires: toIsoDate(v.profile.associationExpires),
             certificationDate: toIsoDate(v.profile.certificationDate),
-            familyMembers: family.map((p) => ({ name: p['name'] as string, dateOfBirth: toIsoDate(p['dateOfBirth'] as Date | null) })),
+            familyMembers: family.map((p) => ({
+              name: p['name'] as string,
+              dateOfBirth: toIsoDate(p['dateOfBirth'] as Date | null),
+            })),
           },
           waiverVersion: policy.waiverVersion,
           safetyCodeVersion: policy.safetyCodeVersion,
@@ -108,7 +142,9 @@ export class JoinForm {
       this.joined.emit(res.membership);
     } catch (err) {
       // The processor's frame shows its own words beside the card; everything else goes on the fields.
-      this.problem.set(err instanceof HttpErrorResponse || !(err instanceof Error) ? applyServerErrors(this.form, err) : err.message);
+      this.problem.set(
+        err instanceof HttpErrorResponse || !(err instanceof Error) ? applyServerErrors(this.form, err) : err.message,
+      );
       focusFirstInvalid(this.formEl().nativeElement, this.injector);
     } finally {
       this.busy.set(false);

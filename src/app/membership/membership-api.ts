@@ -130,18 +130,31 @@ export class MembershipApi {
   }
 
   /** Pays the next term's dues, with the card on file or a new token. */
-  renew(body: { paymentToken?: string; waiverVersion?: string; safetyCodeVersion?: string }): Observable<{ membership: Membership }> {
+  renew(body: {
+    paymentToken?: string;
+    waiverVersion?: string;
+    safetyCodeVersion?: string;
+  }): Observable<{ membership: Membership }> {
     return this.http.post<{ membership: Membership }>('/api/membership/renew', body, quiet());
   }
 
   /** Saves the member's association number and certification. */
-  updateProfile(patch: { associationNumber?: string | null; associationExpires?: string | null; certificationLevel?: string; certificationDate?: string | null }): Observable<{ membership: Membership }> {
+  updateProfile(patch: {
+    associationNumber?: string | null;
+    associationExpires?: string | null;
+    certificationLevel?: string;
+    certificationDate?: string | null;
+  }): Observable<{ membership: Membership }> {
     return this.http.patch<{ membership: Membership }>('/api/membership/me', patch, quiet());
   }
 
   /** Switches automatic renewal on (with a card) or off. */
   setAutoRenew(autoRenew: boolean, paymentToken?: string): Observable<{ membership: Membership }> {
-    return this.http.post<{ membership: Membership }>('/api/membership/auto-renew', { autoRenew, ...(paymentToken ? { paymentToken } : {}) }, quiet());
+    return this.http.post<{ membership: Membership }>(
+      '/api/membership/auto-renew',
+      { autoRenew, ...(paymentToken ? { paymentToken } : {}) },
+      quiet(),
+    );
   }
 
   /** The member card with its check-in QR code. */

@@ -33,7 +33,23 @@ const STATUS_TEXT: Record<Membership['status'], string> = {
 /** Club dues: join when new, otherwise the member's status, renewal and auto-renew. */
 @Component({
   selector: 'ps-membership-home',
-  imports: [ReactiveFormsModule, RouterLink, DatePipe, MatButtonModule, MatCheckboxModule, MatDatepickerModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatSlideToggleModule, FieldErrorPipe, MoneyPipe, FlyingCaution, JoinForm, CardChoice],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    DatePipe,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatDatepickerModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatSlideToggleModule,
+    FieldErrorPipe,
+    MoneyPipe,
+    FlyingCaution,
+    JoinForm,
+    CardChoice,
+  ],
   providers: [provideClubDates()],
   templateUrl: './membership-home.html',
   styleUrl: './membership-forms.scss',
@@ -51,10 +67,20 @@ export class MembershipHome {
   /** null means "no membership yet"; other failures surface as errors. */
   protected readonly mine = rxResource({
     params: () => (this.session.signedIn() ? true : undefined),
-    stream: () => this.api.me().pipe(catchError((err) => (err instanceof HttpErrorResponse && err.status === 404 ? of(null) : throwError(() => err)))),
+    stream: () =>
+      this.api
+        .me()
+        .pipe(
+          catchError((err) =>
+            err instanceof HttpErrorResponse && err.status === 404 ? of(null) : throwError(() => err),
+          ),
+        ),
   });
   protected readonly membership = computed(() => this.mine.value()?.membership ?? null);
-  protected readonly quote = rxResource({ params: () => this.membership()?.planId, stream: ({ params }) => this.api.quote(params) });
+  protected readonly quote = rxResource({
+    params: () => this.membership()?.planId,
+    stream: ({ params }) => this.api.quote(params),
+  });
 
   private readonly renewCard = viewChild('renewCard', { read: CardChoice });
   private readonly autoCard = viewChild('autoCard', { read: CardChoice });
@@ -109,20 +135,34 @@ export class MembershipHome {
     try {
       const paymentToken = await this.renewCard()?.token();
       const res = await firstValueFrom(
-        this.api.renew({ ...(paymentToken ? { paymentToken } : {}), ...(!m.waiverCurrent ? { waiverVersion: policy.waiverVersion, safetyCodeVersion: policy.safetyCodeVersion } : {}) }),
+        this.api.renew({
+          ...(paymentToken ? { paymentToken } : {}),
+          ...(!m.waiverCurrent
+            ? { waiverVersion: policy.waiverVersion, safetyCodeVersion: policy.safetyCodeVersion }
+            : {}),
+        }),
       );
       this.notice.set(`Renewed. Your dues now run to ${res.membership.termEnd}.`);
       this.renewForm.reset();
       this.mine.reload();
     } catch (err) {
-      this.problem.set(err instanceof HttpErrorResponse || !(err instanceof Error) ? applyServerErrors(this.renewForm, err) : err.message);
+      this.problem.set(
+        err instanceof HttpErrorResponse || !(err instanceof Error)
+          ? applyServerErrors(this.renewForm, err)
+          : err.message,
+      );
     } finally {
       this.busy.set(false);
     }
   }
 
   protected editDetails(m: Membership): void {
-    this.detailsForm.reset({ associationNumber: m.associationNumber ?? '', associationExpires: fromIsoDate(m.associationExpires), certificationLevel: m.certificationLevel, certificationDate: fromIsoDate(m.certificationDate) });
+    this.detailsForm.reset({
+      associationNumber: m.associationNumber ?? '',
+      associationExpires: fromIsoDate(m.associationExpires),
+      certificationLevel: m.certificationLevel,
+      certificationDate: fromIsoDate(m.certificationDate),
+    });
     this.editingDetails.set(true);
   }
 
@@ -130,7 +170,14 @@ export class MembershipHome {
     this.problem.set(null);
     const v = this.detailsForm.getRawValue();
     try {
-      await firstValueFrom(this.api.updateProfile({ associationNumber: v.associationNumber || null, associationExpires: toIsoDate(v.associationExpires) || null, certificationLevel: v.certificationLevel, certificationDate: toIsoDate(v.certificationDate) || null }));
+      await firstValueFrom(
+        this.api.updateProfile({
+          associationNumber: v.associationNumber || null,
+          associationExpires: toIsoDate(v.associationExpires) || null,
+          certificationLevel: v.certificationLevel,
+          certificationDate: toIsoDate(v.certificationDate) || null,
+        }),
+      );
       this.notice.set('Association and certification details saved.');
       this.editingDetails.set(false);
       this.mine.reload();
@@ -155,7 +202,11 @@ export class MembershipHome {
       this.mine.reload();
     } catch (err) {
       toggle.setValue(m.autoRenew, { emitEvent: false });
-      this.autoProblem.set(err instanceof HttpErrorResponse || !(err instanceof Error) ? applyServerErrors(this.autoForm, err) : err.message);
+      this.autoProblem.set(
+        err instanceof HttpErrorResponse || !(err instanceof Error)
+          ? applyServerErrors(this.autoForm, err)
+          : err.message,
+      );
     } finally {
       toggle.enable({ emitEvent: false });
     }

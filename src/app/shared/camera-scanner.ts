@@ -1,4 +1,13 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, inject, output, signal, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  ElementRef,
+  inject,
+  output,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { DOCUMENT } from '@angular/common';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -57,7 +66,9 @@ export class CameraScanner {
     }
     const media = this.document.defaultView?.navigator.mediaDevices;
     if (!media?.getUserMedia) {
-      this.problem.set('This browser offers no camera here (it needs a secure connection). Type or paste the code instead.');
+      this.problem.set(
+        'This browser offers no camera here (it needs a secure connection). Type or paste the code instead.',
+      );
       return;
     }
     this.state.set('starting');

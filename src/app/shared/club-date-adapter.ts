@@ -10,7 +10,12 @@ import { enCA } from 'date-fns/locale/en-CA';
  */
 export const CLUB_DATE_FORMATS: MatDateFormats = {
   parse: { dateInput: ['yyyy-MM-dd', 'yyyy/MM/dd', 'yyyyMMdd'] },
-  display: { dateInput: 'yyyy-MM-dd', monthYearLabel: 'LLL yyyy', dateA11yLabel: 'PPPP', monthYearA11yLabel: 'LLLL yyyy' },
+  display: {
+    dateInput: 'yyyy-MM-dd',
+    monthYearLabel: 'LLL yyyy',
+    dateA11yLabel: 'PPPP',
+    monthYearA11yLabel: 'LLLL yyyy',
+  },
 };
 
 /** The Material date adapter in the club's locale, for components with date pickers. */

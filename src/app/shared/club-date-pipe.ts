@@ -1,5 +1,12 @@
 import { Pipe, PipeTransform, inject } from '@angular/core';
-import { formatClock, formatDate, formatDateTime, formatDay, formatMonth, formatTime } from '@contracts/dates/club-dates';
+import {
+  formatClock,
+  formatDate,
+  formatDateTime,
+  formatDay,
+  formatMonth,
+  formatTime,
+} from '@contracts/dates/club-dates';
 import { SiteNames } from '../core/site-names';
 
 /** How much of a moment to show. A stored `YYYY-MM-DD` club date or `HH:MM` club clock time shows as it is. */
@@ -24,6 +31,10 @@ export class ClubDatePipe implements PipeTransform {
     if (typeof value === 'string' && CLOCK.test(value)) return formatClock(value);
     if (typeof value === 'string' && MONTH.test(value)) return formatMonth(value);
     const zone = this.site.timeZone();
-    return style === 'dateTime' ? formatDateTime(value, zone) : style === 'time' ? formatTime(value, zone) : formatDate(value, zone);
+    return style === 'dateTime'
+      ? formatDateTime(value, zone)
+      : style === 'time'
+        ? formatTime(value, zone)
+        : formatDate(value, zone);
   }
 }

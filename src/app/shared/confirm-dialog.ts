@@ -15,7 +15,9 @@ export interface ConfirmData {
   imports: [MatDialogModule, MatButtonModule],
   template: `
     <h2 mat-dialog-title>{{ data.title }}</h2>
-    <mat-dialog-content><p>{{ data.message }}</p></mat-dialog-content>
+    <mat-dialog-content
+      ><p>{{ data.message }}</p></mat-dialog-content
+    >
     <mat-dialog-actions align="end">
       <button mat-button type="button" [mat-dialog-close]="false">Go back</button>
       <button mat-flat-button type="button" [mat-dialog-close]="true" cdkFocusInitial>{{ data.confirm }}</button>

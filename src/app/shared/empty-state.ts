@@ -12,7 +12,18 @@ import { MatIconModule } from '@angular/material/icon';
       <ng-content />
     </div>
   `,
-  styles: `.empty { text-align: center; padding: 40px 16px; color: var(--mat-sys-on-surface-variant); } mat-icon { font-size: 40px; width: 40px; height: 40px; }`,
+  styles: `
+    .empty {
+      text-align: center;
+      padding: 40px 16px;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    mat-icon {
+      font-size: 40px;
+      width: 40px;
+      height: 40px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class EmptyState {

@@ -10,7 +10,9 @@ describe('controlMessage', () => {
 
   it('should word the client checks with the label', () => {
     expect(controlMessage(new FormControl('', Validators.required), 'Name')).toBe('Name is required.');
-    expect(controlMessage(new FormControl('abc', Validators.minLength(12)), 'Password')).toBe('Use at least 12 characters.');
+    expect(controlMessage(new FormControl('abc', Validators.minLength(12)), 'Password')).toBe(
+      'Use at least 12 characters.',
+    );
     expect(controlMessage(new FormControl('ok', Validators.required), 'Name')).toBeNull();
   });
 

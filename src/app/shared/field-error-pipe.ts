@@ -10,7 +10,8 @@ export function controlMessage(control: AbstractControl, label: string): string 
   if (e['matDatepickerParse']) return 'Enter the date as YYYY-MM-DD, or pick it in the calendar.';
   if (e['required']) return `${label} is required.`;
   if (e['email']) return 'Enter a valid e-mail address.';
-  if (e['minlength']) return `Use at least ${(e['minlength'] as { requiredLength: number }).requiredLength} characters.`;
+  if (e['minlength'])
+    return `Use at least ${(e['minlength'] as { requiredLength: number }).requiredLength} characters.`;
   if (e['maxlength']) return `Use at most ${(e['maxlength'] as { requiredLength: number }).requiredLength} characters.`;
   if (e['min']) return `Must be at least ${(e['min'] as { min: number }).min}.`;
   if (e['max']) return `Must be at most ${(e['max'] as { max: number }).max}.`;

@@ -1,7 +1,8 @@
 import { afterNextRender, type Injector } from '@angular/core';
 
 // Controls that take focus themselves, then Material wrappers whose inner input does.
-const FIELD = 'input.ng-invalid, textarea.ng-invalid, mat-select.ng-invalid, mat-checkbox.ng-invalid, mat-radio-group.ng-invalid, mat-slide-toggle.ng-invalid';
+const FIELD =
+  'input.ng-invalid, textarea.ng-invalid, mat-select.ng-invalid, mat-checkbox.ng-invalid, mat-radio-group.ng-invalid, mat-slide-toggle.ng-invalid';
 
 /**
  * After a refused submit, moves focus to the first field in `host` that needs attention, so a person on a phone
@@ -14,7 +15,9 @@ export function focusFirstInvalid(host: HTMLElement, injector: Injector): void {
       write: () => {
         const field = host.querySelector<HTMLElement>(FIELD);
         if (!field) return;
-        const target = field.matches('input, textarea, mat-select') ? field : (field.querySelector<HTMLElement>('input, button') ?? field);
+        const target = field.matches('input, textarea, mat-select')
+          ? field
+          : (field.querySelector<HTMLElement>('input, button') ?? field);
         target.focus();
         target.scrollIntoView({ block: 'center' });
       },

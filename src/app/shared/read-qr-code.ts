@@ -12,7 +12,10 @@ export function readQrCode(rgba: Uint8ClampedArray, width: number, height: numbe
 
 /** What the camera scanner says when getUserMedia fails, by the DOMException name the browser gives. */
 export function cameraProblem(err: unknown): string {
-  const name = err instanceof Error || (typeof err === 'object' && err !== null && 'name' in err) ? String((err as { name: unknown }).name) : '';
+  const name =
+    err instanceof Error || (typeof err === 'object' && err !== null && 'name' in err)
+      ? String((err as { name: unknown }).name)
+      : '';
   switch (name) {
     case 'NotAllowedError':
     case 'SecurityError':

@@ -15,7 +15,10 @@ function fakeStripe(tokenAnswer: object) {
     },
     destroy: jest.fn(),
   };
-  const stripe = { elements: () => ({ create: jest.fn(() => element) }), createToken: jest.fn(async () => tokenAnswer) };
+  const stripe = {
+    elements: () => ({ create: jest.fn(() => element) }),
+    createToken: jest.fn(async () => tokenAnswer),
+  };
   return { stripe, element, fire: (e: Parameters<Handler>[0]) => handlers['change'](e) };
 }
 

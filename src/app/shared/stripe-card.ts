@@ -1,4 +1,16 @@
-import { afterNextRender, ChangeDetectionStrategy, Component, DestroyRef, ElementRef, inject, InjectionToken, input, output, signal, viewChild } from '@angular/core';
+import {
+  afterNextRender,
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  ElementRef,
+  inject,
+  InjectionToken,
+  input,
+  output,
+  signal,
+  viewChild,
+} from '@angular/core';
 import type { Stripe, StripeCardElement } from '@stripe/stripe-js';
 
 /** Loads Stripe.js for a publishable key; the pure entry point so nothing is fetched until the payment step asks. */
@@ -21,7 +33,22 @@ export const STRIPE_JS = new InjectionToken<(publishableKey: string) => Promise<
       <p class="form-note" role="status">Loading secure card entry…</p>
     }
   `,
-  styles: `.field-problem { color: var(--mat-sys-error); margin: 4px 0; } .card-field { padding: 14px 12px; border: 1px solid var(--mat-sys-outline); border-radius: 8px; background: var(--mat-sys-surface); max-width: 460px; } .card-field:focus-within { outline: 2px solid var(--ps-igniter); }`,
+  styles: `
+    .field-problem {
+      color: var(--mat-sys-error);
+      margin: 4px 0;
+    }
+    .card-field {
+      padding: 14px 12px;
+      border: 1px solid var(--mat-sys-outline);
+      border-radius: 8px;
+      background: var(--mat-sys-surface);
+      max-width: 460px;
+    }
+    .card-field:focus-within {
+      outline: 2px solid var(--ps-igniter);
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class StripeCard {
@@ -47,7 +74,9 @@ export class StripeCard {
       this.problem.set('Card entry could not load. Check your connection and reload the page.');
       return;
     }
-    this.card = this.stripe.elements({ locale: 'en' }).create('card', { style: { base: { fontFamily: 'Montserrat, sans-serif', fontSize: '16px' } } });
+    this.card = this.stripe
+      .elements({ locale: 'en' })
+      .create('card', { style: { base: { fontFamily: 'Montserrat, sans-serif', fontSize: '16px' } } });
     this.card.on('ready', () => this.ready.set(true));
     this.card.on('change', (e) => {
       this.problem.set(e.error?.message ?? null);

@@ -13,7 +13,11 @@ describe('wallTimeToIso', () => {
   it('names the same instant as the wall time, either side of a change', () => {
     for (const local of ['2026-03-08T01:30', '2026-03-08T03:30', '2026-11-01T00:30', '2026-11-01T03:00']) {
       const iso = wallTimeToIso(local, 'America/Winnipeg');
-      const shown = new Intl.DateTimeFormat('sv-SE', { timeZone: 'America/Winnipeg', dateStyle: 'short', timeStyle: 'short' }).format(new Date(iso));
+      const shown = new Intl.DateTimeFormat('sv-SE', {
+        timeZone: 'America/Winnipeg',
+        dateStyle: 'short',
+        timeStyle: 'short',
+      }).format(new Date(iso));
       expect(shown.replace(' ', 'T')).toBe(local);
     }
   });

@@ -12,10 +12,20 @@ import { CartStore } from './cart-store';
   template: `
     @if (cart.panelOpen()) {
       <div class="scrim" (click)="close()" aria-hidden="true"></div>
-      <aside class="panel" role="dialog" aria-modal="true" aria-labelledby="cart-panel-title" (keydown.escape)="close()" tabindex="-1" #panel>
+      <aside
+        class="panel"
+        role="dialog"
+        aria-modal="true"
+        aria-labelledby="cart-panel-title"
+        (keydown.escape)="close()"
+        tabindex="-1"
+        #panel
+      >
         <header>
           <h2 id="cart-panel-title">Your cart</h2>
-          <button mat-icon-button type="button" (click)="close()" aria-label="Close the cart"><mat-icon>close</mat-icon></button>
+          <button mat-icon-button type="button" (click)="close()" aria-label="Close the cart">
+            <mat-icon>close</mat-icon>
+          </button>
         </header>
         <ps-cart-lines />
         @if (cart.count()) {
@@ -24,7 +34,36 @@ import { CartStore } from './cart-store';
       </aside>
     }
   `,
-  styles: `.scrim { position: fixed; inset: 0; background: rgb(0 0 0 / 35%); z-index: 20; } .panel { position: fixed; top: 0; right: 0; bottom: 0; box-sizing: border-box; width: min(420px, 100vw); background: var(--mat-sys-surface); z-index: 21; padding: 16px 20px; overflow: auto; box-shadow: -8px 0 24px rgb(0 0 0 / 20%); } header { display: flex; justify-content: space-between; align-items: center; } a[mat-flat-button] { margin-top: 16px; width: 100%; }`,
+  styles: `
+    .scrim {
+      position: fixed;
+      inset: 0;
+      background: rgb(0 0 0 / 35%);
+      z-index: 20;
+    }
+    .panel {
+      position: fixed;
+      top: 0;
+      right: 0;
+      bottom: 0;
+      box-sizing: border-box;
+      width: min(420px, 100vw);
+      background: var(--mat-sys-surface);
+      z-index: 21;
+      padding: 16px 20px;
+      overflow: auto;
+      box-shadow: -8px 0 24px rgb(0 0 0 / 20%);
+    }
+    header {
+      display: flex;
+      justify-content: space-between;
+      align-items: center;
+    }
+    a[mat-flat-button] {
+      margin-top: 16px;
+      width: 100%;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CartPanel {

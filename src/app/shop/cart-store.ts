@@ -20,7 +20,11 @@ const KEY = 'padside.cart.v1';
 function load(): CartLine[] {
   try {
     const raw = JSON.parse(localStorage.getItem(KEY) ?? '[]') as unknown;
-    return Array.isArray(raw) ? raw.filter((l): l is CartLine => typeof l?.variantId === 'number' && typeof l?.quantity === 'number' && l.quantity > 0) : [];
+    return Array.isArray(raw)
+      ? raw.filter(
+          (l): l is CartLine => typeof l?.variantId === 'number' && typeof l?.quantity === 'number' && l.quantity > 0,
+        )
+      : [];
   } catch {
     return [];
   }
@@ -36,7 +40,11 @@ export class CartStore {
   readonly count = computed(() => this.state().reduce((s, l) => s + l.quantity, 0));
   readonly guideTotalCents = computed(() => this.state().reduce((s, l) => s + l.priceCents * l.quantity, 0));
   /** The parcel's weight, or null while a line saved by an older version has no weight. */
-  readonly weightGrams = computed(() => (this.state().every((l) => l.weightGrams !== undefined) ? this.state().reduce((s, l) => s + (l.weightGrams ?? 0) * l.quantity, 0) : null));
+  readonly weightGrams = computed(() =>
+    this.state().every((l) => l.weightGrams !== undefined)
+      ? this.state().reduce((s, l) => s + (l.weightGrams ?? 0) * l.quantity, 0)
+      : null,
+  );
   /** Whether the side panel is showing. */
   readonly panelOpen = signal(false);
 
@@ -49,14 +57,24 @@ export class CartStore {
     const max = line.maxPerOrder ?? 20;
     this.state.update((lines) => {
       const found = lines.find((l) => l.variantId === line.variantId);
-      return found ? lines.map((l) => (l === found ? { ...l, maxPerOrder: max, quantity: Math.min(max, l.quantity + line.quantity) } : l)) : [...lines, { ...line, quantity: Math.min(max, line.quantity) }];
+      return found
+        ? lines.map((l) =>
+            l === found ? { ...l, maxPerOrder: max, quantity: Math.min(max, l.quantity + line.quantity) } : l,
+          )
+        : [...lines, { ...line, quantity: Math.min(max, line.quantity) }];
     });
     return this.state().find((l) => l.variantId === line.variantId)!.quantity;
   }
 
   /** Sets a line's quantity within the per-order limit; zero or less removes it. */
   setQuantity(variantId: number, quantity: number): void {
-    this.state.update((lines) => (quantity <= 0 ? lines.filter((l) => l.variantId !== variantId) : lines.map((l) => (l.variantId === variantId ? { ...l, quantity: Math.min(l.maxPerOrder ?? 20, quantity) } : l))));
+    this.state.update((lines) =>
+      quantity <= 0
+        ? lines.filter((l) => l.variantId !== variantId)
+        : lines.map((l) =>
+            l.variantId === variantId ? { ...l, quantity: Math.min(l.maxPerOrder ?? 20, quantity) } : l,
+          ),
+    );
   }
 
   /** Empties the cart (after an order is paid). */

@@ -26,15 +26,52 @@ import { normalisePostalCode } from '@contracts/shop/postal-code';
 import { shippingFor } from '@contracts/shop/shipping-price';
 import { SiteNames } from '../core/site-names';
 
-const formatCents = (cents: number) => new Intl.NumberFormat('en-CA', { style: 'currency', currency: 'CAD' }).format(cents / 100);
+const formatCents = (cents: number) =>
+  new Intl.NumberFormat('en-CA', { style: 'currency', currency: 'CAD' }).format(cents / 100);
 
-const PROVINCES = [['AB', 'Alberta'], ['BC', 'British Columbia'], ['MB', 'Manitoba'], ['NB', 'New Brunswick'], ['NL', 'Newfoundland and Labrador'], ['NS', 'Nova Scotia'], ['NT', 'Northwest Territories'], ['NU', 'Nunavut'], ['ON', 'Ontario'], ['PE', 'Prince Edward Island'], ['QC', 'Quebec'], ['SK', 'Saskatchewan'], ['YT', 'Yukon']] as const;
-const COUNTRIES = [['CA', 'Canada'], ['US', 'United States'], ['AU', 'Australia'], ['DE', 'Germany'], ['FR', 'France'], ['GB', 'United Kingdom'], ['JP', 'Japan'], ['MX', 'Mexico'], ['NZ', 'New Zealand']] as const;
+const PROVINCES = [
+  ['AB', 'Alberta'],
+  ['BC', 'British Columbia'],
+  ['MB', 'Manitoba'],
+  ['NB', 'New Brunswick'],
+  ['NL', 'Newfoundland and Labrador'],
+  ['NS', 'Nova Scotia'],
+  ['NT', 'Northwest Territories'],
+  ['NU', 'Nunavut'],
+  ['ON', 'Ontario'],
+  ['PE', 'Prince Edward Island'],
+  ['QC', 'Quebec'],
+  ['SK', 'Saskatchewan'],
+  ['YT', 'Yukon'],
+] as const;
+const COUNTRIES = [
+  ['CA', 'Canada'],
+  ['US', 'United States'],
+  ['AU', 'Australia'],
+  ['DE', 'Germany'],
+  ['FR', 'France'],
+  ['GB', 'United Kingdom'],
+  ['JP', 'Japan'],
+  ['MX', 'Mexico'],
+  ['NZ', 'New Zealand'],
+] as const;
 
 /** Checkout in four steps (contact, shipping, payment, review); every figure shown comes from the server's quote. */
 @Component({
   selector: 'ps-checkout',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, MatStepperModule, FieldErrorPipe, MoneyPipe, StripeCard],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatRadioModule,
+    MatSelectModule,
+    MatStepperModule,
+    FieldErrorPipe,
+    MoneyPipe,
+    StripeCard,
+  ],
   templateUrl: './checkout.html',
   styleUrl: './checkout.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -53,7 +90,9 @@ export class Checkout {
   protected readonly cards = TEST_CARDS;
   protected readonly methods = rxResource({ stream: () => this.api.shippingMethods() });
 
-  protected readonly contact = this.fb.group({ email: [this.session.user()?.email ?? '', [Validators.required, Validators.email]] });
+  protected readonly contact = this.fb.group({
+    email: [this.session.user()?.email ?? '', [Validators.required, Validators.email]],
+  });
   protected readonly shipping = this.fb.group({
     shippingMethodId: [0, [Validators.required, Validators.min(1)]],
     shipTo: this.fb.group({
@@ -77,8 +116,12 @@ export class Checkout {
   protected readonly cardProblem = signal<string | null>(null);
 
   private readonly methodId = toSignal(this.shipping.controls.shippingMethodId.valueChanges, { initialValue: 0 });
-  private readonly country = toSignal(this.shipping.controls.shipTo.controls.country.valueChanges, { initialValue: 'CA' });
-  protected readonly isPickup = computed(() => this.methods.value()?.find((m) => m.id === this.methodId())?.code === 'pickup');
+  private readonly country = toSignal(this.shipping.controls.shipTo.controls.country.valueChanges, {
+    initialValue: 'CA',
+  });
+  protected readonly isPickup = computed(
+    () => this.methods.value()?.find((m) => m.id === this.methodId())?.code === 'pickup',
+  );
   protected readonly inCanada = computed(() => this.country() === 'CA');
 
   /** Each method with its price for this cart (a guide; the quote is what is charged). */
@@ -87,18 +130,35 @@ export class Checkout {
     return (this.methods.value() ?? []).map((m) => {
       const prices = m.brackets.map((b) => b.priceCents);
       const cents = grams === null ? null : shippingFor(grams, m.brackets);
-      return { ...m, priceText: cents === 0 ? 'free' : cents !== null ? formatCents(cents) : grams === null && prices.length ? `from ${formatCents(Math.min(...prices))}` : 'too heavy for this method' };
+      return {
+        ...m,
+        priceText:
+          cents === 0
+            ? 'free'
+            : cents !== null
+              ? formatCents(cents)
+              : grams === null && prices.length
+                ? `from ${formatCents(Math.min(...prices))}`
+                : 'too heavy for this method',
+      };
     });
   });
   /** The address of the signed-in buyer's latest mailed order, offered again. */
-  protected readonly lastShipTo = rxResource({ params: () => (this.session.signedIn() ? true : undefined), stream: () => this.api.lastShipTo() });
+  protected readonly lastShipTo = rxResource({
+    params: () => (this.session.signedIn() ? true : undefined),
+    stream: () => this.api.lastShipTo(),
+  });
   protected readonly lastAddress = computed(() => (this.lastShipTo.hasValue() ? this.lastShipTo.value() : null));
-  private readonly shipToValue = toSignal(this.shipping.controls.shipTo.valueChanges, { initialValue: this.shipping.controls.shipTo.getRawValue() });
+  private readonly shipToValue = toSignal(this.shipping.controls.shipTo.valueChanges, {
+    initialValue: this.shipping.controls.shipTo.getRawValue(),
+  });
   /** The address as the review step shows it, line by line. */
   protected readonly addressLines = computed(() => {
     const s = this.shipToValue();
     const country = COUNTRIES.find((c) => c[0] === s.country)?.[1] ?? s.country;
-    return [s.name, s.line1, s.line2, [s.city, s.province, s.postalCode].filter(Boolean).join(' '), country].filter((x) => !!x && x.trim());
+    return [s.name, s.line1, s.line2, [s.city, s.province, s.postalCode].filter(Boolean).join(' '), country].filter(
+      (x) => !!x && x.trim(),
+    );
   });
   protected readonly quote = signal<Quote | null>(null);
   protected readonly problem = signal<string | null>(null);
@@ -106,7 +166,9 @@ export class Checkout {
   protected readonly busy = signal(false);
 
   constructor() {
-    this.payment.controls.paymentToken.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.cardProblem.set(null));
+    this.payment.controls.paymentToken.valueChanges
+      .pipe(takeUntilDestroyed())
+      .subscribe(() => this.cardProblem.set(null));
     // The summary follows the shipping form as the buyer types; field messages wait until they move on.
     this.shipping.valueChanges.pipe(debounceTime(400), takeUntilDestroyed()).subscribe(() => {
       if (this.shipping.controls.shippingMethodId.value > 0) void this.refreshQuote();
@@ -128,7 +190,11 @@ export class Checkout {
 
   private request(): QuoteInput {
     const s = this.shipping.getRawValue();
-    return { items: this.cart.lines().map((l) => ({ variantId: l.variantId, quantity: l.quantity })), shipTo: s.shipTo, shippingMethodId: s.shippingMethodId };
+    return {
+      items: this.cart.lines().map((l) => ({ variantId: l.variantId, quantity: l.quantity })),
+      shipTo: s.shipTo,
+      shippingMethodId: s.shippingMethodId,
+    };
   }
 
   /** Re-quotes when the buyer leaves the shipping step, so payment and review show the server's totals. */
@@ -171,7 +237,11 @@ export class Checkout {
       const card = this.stripeCard();
       const token = card ? await card.token() : this.payment.getRawValue().paymentToken;
       const pending = this.pending();
-      const res = await firstValueFrom(pending ? this.api.payAgain(pending.id, token) : this.api.placeOrder({ ...this.request(), email: this.contact.getRawValue().email, paymentToken: token }));
+      const res = await firstValueFrom(
+        pending
+          ? this.api.payAgain(pending.id, token)
+          : this.api.placeOrder({ ...this.request(), email: this.contact.getRawValue().email, paymentToken: token }),
+      );
       if (res.order.status === 'pending') {
         this.pending.set({ id: res.order.id, message: res.message ?? 'We could not confirm the payment.' });
         return;

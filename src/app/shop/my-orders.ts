@@ -18,26 +18,60 @@ import { ORDER_STATUS_LABELS as STATUS_LABELS } from '@contracts/labels/order-st
       @if (orders.value(); as items) {
         @if (items.length) {
           <table>
-            <caption class="ps-visually-hidden">Your orders</caption>
-            <thead><tr><th scope="col">Order</th><th scope="col">Placed</th><th scope="col">Status</th><th scope="col">Total</th></tr></thead>
+            <caption class="ps-visually-hidden">
+              Your orders
+            </caption>
+            <thead>
+              <tr>
+                <th scope="col">Order</th>
+                <th scope="col">Placed</th>
+                <th scope="col">Status</th>
+                <th scope="col">Total</th>
+              </tr>
+            </thead>
             <tbody>
               @for (o of items; track o.id) {
                 <tr>
-                  <td><a [routerLink]="['/shop/orders', o.id]">{{ o.number }}</a></td>
+                  <td>
+                    <a [routerLink]="['/shop/orders', o.id]">{{ o.number }}</a>
+                  </td>
                   <td>{{ o.createdAt | date: 'mediumDate' }}</td>
-                  <td>{{ labels[o.status] }}@if (o.trackingNumber) { · {{ o.carrier }} {{ o.trackingNumber }} }</td>
-                  <td>{{ o.totalCents | money }}@if (o.refundedCents) { (refunded {{ o.refundedCents | money }}) }</td>
+                  <td>
+                    {{ labels[o.status] }}
+                    @if (o.trackingNumber) {
+                      · {{ o.carrier }} {{ o.trackingNumber }}
+                    }
+                  </td>
+                  <td>
+                    {{ o.totalCents | money }}
+                    @if (o.refundedCents) {
+                      (refunded {{ o.refundedCents | money }})
+                    }
+                  </td>
                 </tr>
               }
             </tbody>
           </table>
         } @else {
-          <ps-empty-state icon="receipt_long" message="No orders yet."><a mat-stroked-button routerLink="/shop">See the merch</a></ps-empty-state>
+          <ps-empty-state icon="receipt_long" message="No orders yet."
+            ><a mat-stroked-button routerLink="/shop">See the merch</a></ps-empty-state
+          >
         }
       }
     </section>
   `,
-  styles: `table { width: 100%; border-collapse: collapse; } th, td { text-align: left; padding: 8px 4px; border-bottom: 1px solid var(--mat-sys-outline-variant); }`,
+  styles: `
+    table {
+      width: 100%;
+      border-collapse: collapse;
+    }
+    th,
+    td {
+      text-align: left;
+      padding: 8px 4px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class MyOrders {

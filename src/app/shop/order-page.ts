@@ -22,7 +22,10 @@ export class OrderPage {
   readonly placed = input<string>();
   /** From the e-mailed link: opens the order in a browser that has no account or session for it. */
   readonly key = input<string>();
-  protected readonly order = rxResource({ params: () => ({ id: this.id(), key: this.key() }), stream: ({ params }) => this.api.order(params.id, params.key) });
+  protected readonly order = rxResource({
+    params: () => ({ id: this.id(), key: this.key() }),
+    stream: ({ params }) => this.api.order(params.id, params.key),
+  });
   protected readonly labels = STATUS_LABELS;
 
   protected print(): void {

@@ -20,7 +20,12 @@ import { PageMeta } from '../core/page-meta';
 })
 export class ProductGrid {
   constructor() {
-    inject(PageMeta).describe({ title: 'Merch', description: 'Limited-run merch: each run is printed once its order window closes.', path: '/shop', type: 'website' });
+    inject(PageMeta).describe({
+      title: 'Merch',
+      description: 'Limited-run merch: each run is printed once its order window closes.',
+      path: '/shop',
+      type: 'website',
+    });
   }
 
   private readonly api = inject(ShopApi);

@@ -33,7 +33,14 @@ describe('ProductPage when the product does not load', () => {
   let response: ResponseInit;
   beforeEach(() => {
     response = {};
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: RESPONSE_INIT, useValue: response }] });
+    TestBed.configureTestingModule({
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        { provide: RESPONSE_INIT, useValue: response },
+      ],
+    });
   });
 
   async function open(): Promise<{ element: HTMLElement; http: HttpTestingController }> {
@@ -45,7 +52,9 @@ describe('ProductPage when the product does not load', () => {
 
   it('should say the item is not found, answer 404 and offer no retry when the API answers 404', async () => {
     const { element, http } = await open();
-    http.expectOne('/api/products/coulee-tee').flush({ error: { code: 'not_found', message: 'No such product.' } }, { status: 404, statusText: 'Not Found' });
+    http
+      .expectOne('/api/products/coulee-tee')
+      .flush({ error: { code: 'not_found', message: 'No such product.' } }, { status: 404, statusText: 'Not Found' });
     await settle();
     expect(element.querySelector('h1')!.textContent).toBe('Item not found');
     expect(response.status).toBe(404);
@@ -54,7 +63,12 @@ describe('ProductPage when the product does not load', () => {
 
   it('should say it could not load, answer 503, and show the product after "Try again" when the API fails', async () => {
     const { element, http } = await open();
-    http.expectOne('/api/products/coulee-tee').flush({ error: { code: 'internal', message: 'Something went wrong.' } }, { status: 500, statusText: 'Internal Server Error' });
+    http
+      .expectOne('/api/products/coulee-tee')
+      .flush(
+        { error: { code: 'internal', message: 'Something went wrong.' } },
+        { status: 500, statusText: 'Internal Server Error' },
+      );
     await settle();
     expect(element.querySelector('h1')!.textContent).toBe('This item could not be loaded');
     expect(element.textContent).not.toContain('Item not found');
@@ -72,7 +86,9 @@ describe('ProductPage when the product does not load', () => {
 
   it('should treat a lost connection like a failure, not like a missing item', async () => {
     const { element, http } = await open();
-    http.expectOne('/api/products/coulee-tee').error(new ProgressEvent('error'), { status: 0, statusText: 'Unknown Error' });
+    http
+      .expectOne('/api/products/coulee-tee')
+      .error(new ProgressEvent('error'), { status: 0, statusText: 'Unknown Error' });
     await settle();
     expect(element.querySelector('h1')!.textContent).toBe('This item could not be loaded');
     expect(response.status).toBe(503);

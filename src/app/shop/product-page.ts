@@ -22,7 +22,18 @@ import type { Variant } from '@contracts/shop/shop-answers';
 /** One product: pick a size, see units left and the time to close, add to the cart. */
 @Component({
   selector: 'ps-product-page',
-  imports: [RouterLink, MatButtonModule, MatButtonToggleModule, MatExpansionModule, MatFormFieldModule, MatInputModule, MoneyPipe, CartPanel, ProductGallery, SignUpForm],
+  imports: [
+    RouterLink,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatExpansionModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MoneyPipe,
+    CartPanel,
+    ProductGallery,
+    SignUpForm,
+  ],
   templateUrl: './product-page.html',
   styleUrl: './product-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -32,7 +43,10 @@ export class ProductPage {
   private readonly cart = inject(CartStore);
   readonly slug = input.required<string>();
 
-  protected readonly product = rxResource({ params: () => this.slug(), stream: ({ params }) => this.api.product(params) });
+  protected readonly product = rxResource({
+    params: () => this.slug(),
+    stream: ({ params }) => this.api.product(params),
+  });
   /** The product once loaded; value() itself throws while the resource holds an error (an unknown address). */
   private readonly loaded = computed(() => (this.product.hasValue() ? this.product.value() : undefined));
   /** The API said there is no such product; any other failure is worth a retry. */
@@ -75,18 +89,32 @@ export class ProductPage {
         type: 'product',
         image: photo ? { url: photo.url, width: photo.width, height: photo.height, alt: photo.alt } : null,
         preload: photo ? { href: photo.url, srcset: ProductGallery.srcset(photo), sizes: ProductGallery.SIZES } : null,
-        data: productData(p, meta.absolute(path), (p.images.length ? p.images.map((i) => i.url) : [SHARE_IMAGE.url]).map((u) => meta.absolute(u)), site.teamName()),
+        data: productData(
+          p,
+          meta.absolute(path),
+          (p.images.length ? p.images.map((i) => i.url) : [SHARE_IMAGE.url]).map((u) => meta.absolute(u)),
+          site.teamName(),
+        ),
       });
     });
     const timer = setInterval(() => this.now.set(Date.now()), 30_000);
     inject(DestroyRef).onDestroy(() => clearInterval(timer));
   }
 
-  protected readonly chosen = computed<Variant | null>(() => this.loaded()?.variants.find((v) => v.id === this.chosenId()) ?? null);
+  protected readonly chosen = computed<Variant | null>(
+    () => this.loaded()?.variants.find((v) => v.id === this.chosenId()) ?? null,
+  );
   protected readonly canAdd = computed(() => {
     const p = this.loaded();
     const v = this.chosen();
-    return !!p && p.orderable && !!v && v.remaining >= this.quantity() && this.quantity() >= 1 && this.quantityNote()?.kind !== 'refused';
+    return (
+      !!p &&
+      p.orderable &&
+      !!v &&
+      v.remaining >= this.quantity() &&
+      this.quantity() >= 1 &&
+      this.quantityNote()?.kind !== 'refused'
+    );
   });
 
   protected pick(id: number): void {
@@ -118,9 +146,22 @@ export class ProductPage {
     const v = this.chosen();
     if (!p || !v || !this.canAdd()) return;
     const before = this.cart.lines().find((l) => l.variantId === v.id)?.quantity ?? 0;
-    const now = this.cart.add({ variantId: v.id, quantity: this.quantity(), productName: p.name, variantLabel: v.label, slug: p.slug, priceCents: v.priceCents, weightGrams: v.weightGrams, maxPerOrder: p.maxPerOrder });
+    const now = this.cart.add({
+      variantId: v.id,
+      quantity: this.quantity(),
+      productName: p.name,
+      variantLabel: v.label,
+      slug: p.slug,
+      priceCents: v.priceCents,
+      weightGrams: v.weightGrams,
+      maxPerOrder: p.maxPerOrder,
+    });
     const took = now - before;
-    this.added.set(took < this.quantity() ? `Added ${took}: the cart now holds ${now}, the most one order may have.` : `Added ${took} to the cart.`);
+    this.added.set(
+      took < this.quantity()
+        ? `Added ${took}: the cart now holds ${now}, the most one order may have.`
+        : `Added ${took} to the cart.`,
+    );
     this.cart.panelOpen.set(true);
   }
 }

@@ -2,7 +2,17 @@ import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
-import type { AccountOrders, Order, OrderAnswer, OrderSummary, Product, ProductDetail, Quote, ShippingMethod, ShipTo } from '@contracts/shop/shop-answers';
+import type {
+  AccountOrders,
+  Order,
+  OrderAnswer,
+  OrderSummary,
+  Product,
+  ProductDetail,
+  Quote,
+  ShippingMethod,
+  ShipTo,
+} from '@contracts/shop/shop-answers';
 import type { OrderInput, QuoteInput } from '@contracts/shop/shop-schemas';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
@@ -39,7 +49,9 @@ export class ShopApi {
   /** `key` is the one from the e-mailed link, which opens the order without an account. */
   order(id: number, key?: string): Observable<Order> {
     // The page says "not found" itself; no snack bar on top of it.
-    return this.http.get<OrderAnswer>(`/api/orders/${id}`, { ...quiet(), ...(key ? { params: { key } } : {}) }).pipe(map((r) => r.order));
+    return this.http
+      .get<OrderAnswer>(`/api/orders/${id}`, { ...quiet(), ...(key ? { params: { key } } : {}) })
+      .pipe(map((r) => r.order));
   }
   /** The signed-in buyer's orders, newest first. */
   myOrders(): Observable<OrderSummary[]> {

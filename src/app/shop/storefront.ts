@@ -23,11 +23,22 @@ import { PageMeta } from '../core/page-meta';
     @if (openRun(); as p) {
       <section class="ps-page now">
         @if (p.images[0]; as img) {
-          <img class="photo" [src]="img.thumbnailUrl" [attr.srcset]="img.thumbnailUrl + ' 480w, ' + img.url + ' ' + (img.width ?? 1200) + 'w'" sizes="(max-width: 600px) 100vw, 320px" [alt]="img.alt" [attr.width]="img.width ?? 1200" [attr.height]="img.height ?? 1200" />
+          <img
+            class="photo"
+            [src]="img.thumbnailUrl"
+            [attr.srcset]="img.thumbnailUrl + ' 480w, ' + img.url + ' ' + (img.width ?? 1200) + 'w'"
+            sizes="(max-width: 600px) 100vw, 320px"
+            [alt]="img.alt"
+            [attr.width]="img.width ?? 1200"
+            [attr.height]="img.height ?? 1200"
+          />
         }
         <div>
           <h2>On the rail now: {{ p.name }}</h2>
-          <p>{{ p.run!.remaining }} of {{ p.run!.cap }} left · {{ left(p.run!.closesAt) }}. Printed once the window closes.</p>
+          <p>
+            {{ p.run!.remaining }} of {{ p.run!.cap }} left · {{ left(p.run!.closesAt) }}. Printed once the window
+            closes.
+          </p>
           <a mat-flat-button [routerLink]="['/shop/p', p.slug]">Order yours</a>
         </div>
       </section>
@@ -36,12 +47,50 @@ import { PageMeta } from '../core/page-meta';
       <ps-sign-up-form page="home" heading="Tell me about new runs, launch days and build logs" />
     </section>
   `,
-  styles: `.hero { background: linear-gradient(160deg, var(--ps-night), #0e2536); color: #fff; } .hero h1 { font-size: clamp(2rem, 6vw, 3.5rem); margin: 0 0 8px; } .hero a { margin: 8px 8px 0 0; } .hero .ps-page { padding-top: 56px; padding-bottom: 56px; } .hero a[mat-stroked-button] { color: #fff; } .now { display: flex; gap: 24px; align-items: center; flex-wrap: wrap; } .now h2 { margin-bottom: 4px; } .photo { width: min(320px, 100%); height: auto; border-radius: 14px; }`,
+  styles: `
+    .hero {
+      background: linear-gradient(160deg, var(--ps-night), #0e2536);
+      color: #fff;
+    }
+    .hero h1 {
+      font-size: clamp(2rem, 6vw, 3.5rem);
+      margin: 0 0 8px;
+    }
+    .hero a {
+      margin: 8px 8px 0 0;
+    }
+    .hero .ps-page {
+      padding-top: 56px;
+      padding-bottom: 56px;
+    }
+    .hero a[mat-stroked-button] {
+      color: #fff;
+    }
+    .now {
+      display: flex;
+      gap: 24px;
+      align-items: center;
+      flex-wrap: wrap;
+    }
+    .now h2 {
+      margin-bottom: 4px;
+    }
+    .photo {
+      width: min(320px, 100%);
+      height: auto;
+      border-radius: 14px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class Storefront {
   constructor() {
-    inject(PageMeta).describe({ title: 'Merch, club dues and build logs', description: 'Season merch in limited runs, club dues, and the build logs our sponsors make possible.', path: '/', type: 'website' });
+    inject(PageMeta).describe({
+      title: 'Merch, club dues and build logs',
+      description: 'Season merch in limited runs, club dues, and the build logs our sponsors make possible.',
+      path: '/',
+      type: 'website',
+    });
   }
 
   private readonly api = inject(ShopApi);

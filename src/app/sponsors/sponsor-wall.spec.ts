@@ -18,17 +18,31 @@ const card = (id: number, name: string, logoSize: SponsorCard['logoSize']): Spon
 });
 
 describe('SponsorWall logos', () => {
-  beforeEach(() => TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] }));
+  beforeEach(() =>
+    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] }),
+  );
 
   it('should give each logo its stored size, and the logo box (160 x 80) when no size is stored', async () => {
     const fixture = TestBed.createComponent(SponsorWall);
     TestBed.tick();
     TestBed.inject(HttpTestingController)
       .expectOne('/api/sponsors/wall')
-      .flush({ season: '2026', tiers: [{ name: 'Launch Pad', sponsors: [card(1, 'Prairie Resin Works', { width: 900, height: 600 }), card(2, 'Coulee Machining', null)] }] });
+      .flush({
+        season: '2026',
+        tiers: [
+          {
+            name: 'Launch Pad',
+            sponsors: [card(1, 'Prairie Resin Works', { width: 900, height: 600 }), card(2, 'Coulee Machining', null)],
+          },
+        ],
+      });
     await new Promise((resolve) => setTimeout(resolve, 0));
     TestBed.tick();
-    const sizes = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('img.logo')).map((img) => [img.getAttribute('alt'), img.getAttribute('width'), img.getAttribute('height')]);
+    const sizes = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('img.logo')).map((img) => [
+      img.getAttribute('alt'),
+      img.getAttribute('width'),
+      img.getAttribute('height'),
+    ]);
     expect(sizes).toEqual([
       ['Prairie Resin Works logo', '900', '600'],
       ['Coulee Machining logo', '160', '80'],
@@ -49,9 +63,13 @@ describe('SponsorWall logos', () => {
     expect(el.querySelector('ps-empty-state')).toBeNull();
     expect(response.status).toBe(503);
 
-    Array.from(el.querySelectorAll('button')).find((b) => b.textContent!.trim() === 'Try again')!.click();
+    Array.from(el.querySelectorAll('button'))
+      .find((b) => b.textContent!.trim() === 'Try again')!
+      .click();
     TestBed.tick();
-    http.expectOne('/api/sponsors/wall').flush({ season: '2026', tiers: [{ name: 'Launch Pad', sponsors: [card(1, 'Prairie Resin Works', null)] }] });
+    http
+      .expectOne('/api/sponsors/wall')
+      .flush({ season: '2026', tiers: [{ name: 'Launch Pad', sponsors: [card(1, 'Prairie Resin Works', null)] }] });
     await new Promise((resolve) => setTimeout(resolve, 0));
     TestBed.tick();
     expect(el.querySelector('[role="alert"]')).toBeNull();

@@ -22,26 +22,38 @@ import { loadErrorStatus } from '../core/rendering/load-error-status';
       } @else if (wall.value(); as w) {
         @for (tier of w.tiers; track tier.name) {
           <section class="tier" [attr.aria-labelledby]="'tier-' + $index">
-            <h2 [id]="'tier-' + $index">{{ tier.name }} <span class="season">· {{ w.season }} season</span></h2>
+            <h2 [id]="'tier-' + $index">
+              {{ tier.name }} <span class="season">· {{ w.season }} season</span>
+            </h2>
             <ul class="cards" role="list">
               @for (s of tier.sponsors; track s.id) {
                 <li class="card" [id]="s.slug">
                   @if (s.logoUrl) {
                     <!-- The stored size keeps the logo's box before it loads (no layout shift); without one, the largest box .logo allows. -->
-                    <img [src]="s.logoUrl" [alt]="s.name + ' logo'" class="logo" [width]="s.logoSize?.width ?? 160" [height]="s.logoSize?.height ?? 80" />
+                    <img
+                      [src]="s.logoUrl"
+                      [alt]="s.name + ' logo'"
+                      class="logo"
+                      [width]="s.logoSize?.width ?? 160"
+                      [height]="s.logoSize?.height ?? 80"
+                    />
                   }
                   <h3>{{ s.name }}</h3>
                   @if (s.blurb) {
                     <p>{{ s.blurb }}</p>
                   }
                   @if (s.website) {
-                    <p><a [href]="s.website" rel="noopener noreferrer" target="_blank">Visit {{ s.name }}</a></p>
+                    <p>
+                      <a [href]="s.website" rel="noopener noreferrer" target="_blank">Visit {{ s.name }}</a>
+                    </p>
                   }
                   @if (s.posts.length) {
                     <p class="credited">Credited in:</p>
                     <ul>
                       @for (p of s.posts; track p.slug) {
-                        <li><a [routerLink]="['/build-logs', p.slug]">{{ p.title }}</a></li>
+                        <li>
+                          <a [routerLink]="['/build-logs', p.slug]">{{ p.title }}</a>
+                        </li>
                       }
                     </ul>
                   }
@@ -56,19 +68,50 @@ import { loadErrorStatus } from '../core/rendering/load-error-status';
     </section>
   `,
   styles: `
-    .tier { margin-top: 24px; }
-    .season { font-weight: 400; font-size: 0.9rem; color: var(--mat-sys-on-surface-variant); }
-    .cards { list-style: none; padding: 0; display: grid; grid-template-columns: repeat(auto-fill, minmax(260px, 1fr)); gap: 16px; }
-    .card { background: #fff; border-radius: 12px; padding: 16px; border-top: 4px solid var(--ps-igniter); }
-    .logo { max-width: 160px; max-height: 80px; object-fit: contain; }
-    h3 { margin: 4px 0; }
-    .credited { font-weight: 600; margin-bottom: 0; }
+    .tier {
+      margin-top: 24px;
+    }
+    .season {
+      font-weight: 400;
+      font-size: 0.9rem;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .cards {
+      list-style: none;
+      padding: 0;
+      display: grid;
+      grid-template-columns: repeat(auto-fill, minmax(260px, 1fr));
+      gap: 16px;
+    }
+    .card {
+      background: #fff;
+      border-radius: 12px;
+      padding: 16px;
+      border-top: 4px solid var(--ps-igniter);
+    }
+    .logo {
+      max-width: 160px;
+      max-height: 80px;
+      object-fit: contain;
+    }
+    h3 {
+      margin: 4px 0;
+    }
+    .credited {
+      font-weight: 600;
+      margin-bottom: 0;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SponsorWall {
   constructor() {
-    inject(PageMeta).describe({ title: 'Sponsors', description: 'The businesses that back the team with cash, parts and know-how this season.', path: '/sponsors', type: 'website' });
+    inject(PageMeta).describe({
+      title: 'Sponsors',
+      description: 'The businesses that back the team with cash, parts and know-how this season.',
+      path: '/sponsors',
+      type: 'website',
+    });
     const answerLoadError = loadErrorStatus();
     effect(() => answerLoadError(this.wall.error()));
   }

@@ -53,7 +53,9 @@ export class AnnouncementAdminApi {
 
   /** One page of announcements for the console list. */
   list(q: AnnouncementQuery) {
-    return this.http.get<{ items: Announcement[]; total: number; page: number; pageSize: number }>(this.base, { params: { ...q } });
+    return this.http.get<{ items: Announcement[]; total: number; page: number; pageSize: number }>(this.base, {
+      params: { ...q },
+    });
   }
 
   /** One announcement, for the compose screen. */

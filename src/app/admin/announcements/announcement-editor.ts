@@ -17,7 +17,16 @@ const POLL_MS = 2000;
 /** Compose an announcement in Markdown, preview it as a recipient sees it, test it on yourself, send it, watch it go. */
 @Component({
   selector: 'ps-announcement-editor',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, MatSelectModule, FieldErrorPipe],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    FieldErrorPipe,
+  ],
   templateUrl: './announcement-editor.html',
   styleUrl: './announcement-editor.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -71,7 +80,9 @@ export class AnnouncementEditor implements OnInit {
     try {
       const current = this.announcement();
       const body = this.form.getRawValue();
-      const { announcement } = await firstValueFrom(current ? this.api.update(current.id, body) : this.api.create(body));
+      const { announcement } = await firstValueFrom(
+        current ? this.api.update(current.id, body) : this.api.create(body),
+      );
       this.show(announcement);
       this.form.markAsPristine();
       if (!current) await this.router.navigate(['/console/announcements', announcement.id], { replaceUrl: true });
@@ -91,7 +102,10 @@ export class AnnouncementEditor implements OnInit {
 
   protected async sendTest(): Promise<void> {
     const a = await this.saved();
-    if (a) await this.run(async () => this.note.set(`A test is on its way to ${(await firstValueFrom(this.api.test(a.id))).to}.`));
+    if (a)
+      await this.run(async () =>
+        this.note.set(`A test is on its way to ${(await firstValueFrom(this.api.test(a.id))).to}.`),
+      );
   }
 
   protected async send(): Promise<void> {

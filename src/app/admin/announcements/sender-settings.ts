@@ -13,12 +13,23 @@ import { AnnouncementAdminApi } from './announcement-admin-api';
 /** The sender's mailing address and contact in every commercial mail's footer, and the automatic drop notices (admins change them). */
 @Component({
   selector: 'ps-sender-settings',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatInputModule,
+    FieldErrorPipe,
+  ],
   template: `
     <section class="sender" aria-labelledby="sender-title">
       <h2 id="sender-title">Sender and drop notices</h2>
-      @if (problem(); as p) { <p class="form-problem" role="alert">{{ p }}</p> }
-      @if (saved()) { <p role="status">Saved.</p> }
+      @if (problem(); as p) {
+        <p class="form-problem" role="alert">{{ p }}</p>
+      }
+      @if (saved()) {
+        <p role="status">Saved.</p>
+      }
       <form [formGroup]="form" (ngSubmit)="save()" novalidate>
         <mat-form-field class="ps-full-width">
           <mat-label>Mailing address in every footer</mat-label>
@@ -30,7 +41,9 @@ import { AnnouncementAdminApi } from './announcement-admin-api';
           <input matInput type="email" formControlName="contactEmail" />
           <mat-error>{{ form.controls.contactEmail | fieldError: 'Contact e-mail' }}</mat-error>
         </mat-form-field>
-        <mat-checkbox formControlName="automaticDropNotices">Send the drop notice when a run opens, to those who asked</mat-checkbox>
+        <mat-checkbox formControlName="automaticDropNotices"
+          >Send the drop notice when a run opens, to those who asked</mat-checkbox
+        >
         @if (isAdmin) {
           <p><button mat-stroked-button type="submit">Save sender settings</button></p>
         } @else {
@@ -39,7 +52,15 @@ import { AnnouncementAdminApi } from './announcement-admin-api';
       </form>
     </section>
   `,
-  styles: `.sender { max-width: 640px; margin-top: 32px; } .note { color: var(--mat-sys-on-surface-variant); }`,
+  styles: `
+    .sender {
+      max-width: 640px;
+      margin-top: 32px;
+    }
+    .note {
+      color: var(--mat-sys-on-surface-variant);
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SenderSettings implements OnInit {

@@ -5,7 +5,6 @@ import { QUIET_ERRORS } from '../../core/error-interceptor';
 import type { Dashboard, RevenueReport, SponsorValue, TaxReport } from '@contracts/books/books-answers';
 import type { DateRange, FeePercent } from '@contracts/books/books-schemas';
 
-
 /** The treasurer's reports. */
 @Injectable({ providedIn: 'root' })
 export class BooksApi {
@@ -17,7 +16,9 @@ export class BooksApi {
   }
   /** Income by month for a period, with its totals (tax kept apart). */
   revenue(p: DateRange): Observable<RevenueReport> {
-    return this.http.get<RevenueReport>('/api/admin/reports/revenue', { params: new HttpParams({ fromObject: { ...p } }) });
+    return this.http.get<RevenueReport>('/api/admin/reports/revenue', {
+      params: new HttpParams({ fromObject: { ...p } }),
+    });
   }
   /** The cash and parts sponsors have given, against what they were promised. */
   sponsorValue(): Observable<SponsorValue> {
@@ -29,11 +30,15 @@ export class BooksApi {
   }
   /** Every print run, to pick one for the units-by-size report. */
   runs(): Observable<{ items: { id: number; name: string; productName: string; state: string }[] }> {
-    return this.http.get<{ items: { id: number; name: string; productName: string; state: string }[] }>('/api/admin/runs');
+    return this.http.get<{ items: { id: number; name: string; productName: string; state: string }[] }>(
+      '/api/admin/runs',
+    );
   }
   /** How many units of a run sold in each size. */
   unitsBySize(runId: number): Observable<{ items: { label: string; units: number }[] }> {
-    return this.http.get<{ items: { label: string; units: number }[] }>('/api/admin/reports/units-by-size', { params: { runId } });
+    return this.http.get<{ items: { label: string; units: number }[] }>('/api/admin/reports/units-by-size', {
+      params: { runId },
+    });
   }
   /** The processor fee rates the books use. */
   fees(): Observable<FeePercent> {
@@ -41,7 +46,9 @@ export class BooksApi {
   }
   /** Saves the processor fee rates; refusals come back for the fields. */
   saveFees(s: FeePercent): Observable<FeePercent> {
-    return this.http.put<FeePercent>('/api/admin/settings/processor-fees', s, { context: new HttpContext().set(QUIET_ERRORS, true) });
+    return this.http.put<FeePercent>('/api/admin/settings/processor-fees', s, {
+      context: new HttpContext().set(QUIET_ERRORS, true),
+    });
   }
   /** A link the browser downloads directly (the session cookie authorises it). */
   csvUrl(report: 'tax.csv' | 'ledger.csv', p: DateRange): string {

@@ -26,7 +26,19 @@ const SOURCE_COLOURS: Record<RevenueRow['source'], string> = { merch: '#376286',
 /** Tax collected per authority, income net of tax and fees by month, and the ledger export for one period. */
 @Component({
   selector: 'ps-books-page',
-  imports: [FormsModule, MatButtonModule, MatCardModule, MatFormFieldModule, MatInputModule, MatTableModule, BaseChartDirective, MoneyPipe, ClubDatePipe, EmptyState, FeeSettingsCard],
+  imports: [
+    FormsModule,
+    MatButtonModule,
+    MatCardModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatTableModule,
+    BaseChartDirective,
+    MoneyPipe,
+    ClubDatePipe,
+    EmptyState,
+    FeeSettingsCard,
+  ],
   providers: [provideCharts(withDefaultRegisterables())],
   templateUrl: './books-page.html',
   styleUrl: './books-page.scss',
@@ -39,7 +51,10 @@ export class BooksPage {
 
   protected readonly period = signal<DateRange>(currentQuarter());
   protected readonly tax = rxResource({ params: () => this.period(), stream: ({ params }) => this.api.tax(params) });
-  protected readonly revenue = rxResource({ params: () => this.period(), stream: ({ params }) => this.api.revenue(params) });
+  protected readonly revenue = rxResource({
+    params: () => this.period(),
+    stream: ({ params }) => this.api.revenue(params),
+  });
   protected readonly sponsorValue = rxResource({ stream: () => this.api.sponsorValue() });
   protected readonly sponsorColumns = ['sponsor', 'tier', 'cash', 'inKind', 'total', 'credits'];
   protected readonly taxColumns = ['tax', 'taxable', 'charged', 'refunded', 'net'];

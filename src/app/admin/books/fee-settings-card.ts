@@ -22,7 +22,9 @@ import { BooksApi } from './books-api';
       </mat-card-header>
       <mat-card-content>
         <form [formGroup]="form" (ngSubmit)="save()" class="fees" novalidate>
-          @if (problem(); as message) { <p class="form-problem" role="alert">{{ message }}</p> }
+          @if (problem(); as message) {
+            <p class="form-problem" role="alert">{{ message }}</p>
+          }
           <mat-form-field>
             <mat-label>Percentage of each payment</mat-label>
             <input matInput type="number" inputmode="decimal" step="0.01" formControlName="percent" />
@@ -47,7 +49,14 @@ import { BooksApi } from './books-api';
       </mat-card-content>
     </mat-card>
   `,
-  styles: `.fees { display: flex; flex-wrap: wrap; gap: 12px; align-items: baseline; }`,
+  styles: `
+    .fees {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 12px;
+      align-items: baseline;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class FeeSettingsCard implements OnInit {

@@ -14,10 +14,18 @@ const claimed: CheckInResult = {
   certification: { answer: 'claimed', level: 'L3', label: 'Level 3', verified: null },
 };
 
-const checked = { at: '2028-04-10T17:00:00.000Z', by: 'Tess Treasurer', against: 'association card, seen at the field' };
+const checked = {
+  at: '2028-04-10T17:00:00.000Z',
+  by: 'Tess Treasurer',
+  against: 'association card, seen at the field',
+};
 
 describe('CheckInVerdict', () => {
-  beforeEach(() => TestBed.configureTestingModule({ providers: [{ provide: SiteNames, useValue: { timeZone: () => 'America/Winnipeg' } }] }));
+  beforeEach(() =>
+    TestBed.configureTestingModule({
+      providers: [{ provide: SiteNames, useValue: { timeZone: () => 'America/Winnipeg' } }],
+    }),
+  );
   function render(result: CheckInResult): HTMLElement {
     const fixture = TestBed.createComponent(CheckInVerdict);
     fixture.componentRef.setInput('result', result);
@@ -44,18 +52,29 @@ describe('CheckInVerdict', () => {
   });
 
   it('should clear the member to fly only when the server says so, naming who checked what', () => {
-    const el = render({ ...claimed, mayFly: true, association: { ...claimed.association!, answer: 'verified', expires: '2028-12-31', verified: checked } });
+    const el = render({
+      ...claimed,
+      mayFly: true,
+      association: { ...claimed.association!, answer: 'verified', expires: '2028-12-31', verified: checked },
+    });
     const verdict = el.querySelector('[data-testid=check-in-verdict]')!;
     expect(verdict.querySelector('h2')!.textContent).toContain('May fly');
     expect(verdict.classList).toContain('ok');
-    expect(answer(el, 'association').textContent).toContain('NA-31337, current to Dec 31, 2028; checked Apr 10, 2028 by Tess Treasurer against association card, seen at the field');
+    expect(answer(el, 'association').textContent).toContain(
+      'NA-31337, current to Dec 31, 2028; checked Apr 10, 2028 by Tess Treasurer against association card, seen at the field',
+    );
     expect(answer(el, 'association').querySelector('.mark')!.textContent).toBe('✓');
     // The certification stays a separate answer: still a claim.
     expect(answer(el, 'certification').textContent).toContain('claimed, not yet checked');
   });
 
   it('should say why not: lapsed dues and an expired association, each in words', () => {
-    const el = render({ ...claimed, status: 'lapsed', dues: { answer: 'not_current', termEnd: '2027-12-31' }, association: { ...claimed.association!, answer: 'expired', expires: '2028-01-31' } });
+    const el = render({
+      ...claimed,
+      status: 'lapsed',
+      dues: { answer: 'not_current', termEnd: '2027-12-31' },
+      association: { ...claimed.association!, answer: 'expired', expires: '2028-01-31' },
+    });
     expect(answer(el, 'dues').textContent).toContain('not current: the term ended Dec 31, 2027');
     expect(answer(el, 'dues').classList).toContain('stop');
     expect(answer(el, 'association').textContent).toContain('expired Jan 31, 2028');
@@ -66,7 +85,16 @@ describe('CheckInVerdict', () => {
   });
 
   it('should show an unknown card without member details', () => {
-    const el = render({ status: 'unknown', memberNumber: null, name: null, mayFly: false, termEnd: null, dues: null, association: null, certification: null });
+    const el = render({
+      status: 'unknown',
+      memberNumber: null,
+      name: null,
+      mayFly: false,
+      termEnd: null,
+      dues: null,
+      association: null,
+      certification: null,
+    });
     expect(el.querySelector('h2')!.textContent).toContain('Unknown card');
     expect(el.querySelector('ul')).toBeNull();
   });

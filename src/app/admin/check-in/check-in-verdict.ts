@@ -18,8 +18,18 @@ export interface CheckInResult {
   termEnd: string | null;
   associationName?: string;
   dues: { answer: 'current' | 'grace' | 'not_current'; termEnd: string | null } | null;
-  association: { answer: 'verified' | 'claimed' | 'expired' | 'not_on_file'; number: string | null; expires: string | null; verified: CheckedBy | null } | null;
-  certification: { answer: 'verified' | 'claimed' | 'none'; level: string; label: string; verified: CheckedBy | null } | null;
+  association: {
+    answer: 'verified' | 'claimed' | 'expired' | 'not_on_file';
+    number: string | null;
+    expires: string | null;
+    verified: CheckedBy | null;
+  } | null;
+  certification: {
+    answer: 'verified' | 'claimed' | 'none';
+    level: string;
+    label: string;
+    verified: CheckedBy | null;
+  } | null;
 }
 
 /** ok: a fact on record; claim: the member's word, not yet checked; stop: missing, expired or not current. */
@@ -37,7 +47,8 @@ const MARK: Record<Tone, string> = { ok: '✓', claim: '?', stop: '✗' };
 
 /** The three answers in words, for a member the card matched; dates in the club format, checks dated in club time. */
 export function checkInAnswers(r: CheckInResult, timeZone: string): Answer[] {
-  const checked = (v: CheckedBy) => `checked ${formatDate(v.at, timeZone)}${v.by ? ` by ${v.by}` : ''} against ${v.against}`;
+  const checked = (v: CheckedBy) =>
+    `checked ${formatDate(v.at, timeZone)}${v.by ? ` by ${v.by}` : ''} against ${v.against}`;
   const d = r.dues!;
   const a = r.association!;
   const c = r.certification!;
@@ -48,7 +59,10 @@ export function checkInAnswers(r: CheckInResult, timeZone: string): Answer[] {
       ? { words: `current to ${formatDay(d.termEnd ?? '')}`, tone: 'ok' as const }
       : d.answer === 'grace'
         ? { words: `in grace: the term ended ${formatDay(d.termEnd ?? '')}`, tone: 'ok' as const }
-        : { words: `not current: the term ended ${d.termEnd ? formatDay(d.termEnd) : 'without a payment'}`, tone: 'stop' as const }),
+        : {
+            words: `not current: the term ended ${d.termEnd ? formatDay(d.termEnd) : 'without a payment'}`,
+            tone: 'stop' as const,
+          }),
   };
   const association: Answer = {
     key: 'association',
@@ -85,9 +99,13 @@ export class CheckInVerdict {
   private readonly site = inject(SiteNames);
   protected readonly mark = MARK;
   protected readonly known = computed(() => this.result().status !== 'unknown' && this.result().dues !== null);
-  protected readonly answers = computed(() => (this.known() ? checkInAnswers(this.result(), this.site.timeZone()) : []));
+  protected readonly answers = computed(() =>
+    this.known() ? checkInAnswers(this.result(), this.site.timeZone()) : [],
+  );
   protected readonly headline = computed(() => {
     if (!this.known()) return 'Unknown card: the code does not match any member';
-    return this.result().mayFly ? 'May fly: dues current, association membership current and checked' : 'Not cleared to fly: see the answers below';
+    return this.result().mayFly
+      ? 'May fly: dues current, association membership current and checked'
+      : 'Not cleared to fly: see the answers below';
   });
 }

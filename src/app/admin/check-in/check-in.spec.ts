@@ -7,7 +7,10 @@ import { CheckIn } from './check-in';
 
 describe('CheckIn', () => {
   beforeEach(() => {
-    TestBed.configureTestingModule({ imports: [CheckIn], providers: [provideHttpClient(), provideHttpClientTesting()] });
+    TestBed.configureTestingModule({
+      imports: [CheckIn],
+      providers: [provideHttpClient(), provideHttpClientTesting()],
+    });
   });
 
   async function scan(token: string, answer: object) {
@@ -26,7 +29,11 @@ describe('CheckIn', () => {
 
   it('should send the code and show the three answers from the server', async () => {
     const el = await scan('v1.01042.1.abc', {
-      status: 'lapsing', memberNumber: '01042', name: 'Wren Okonkwo', mayFly: false, termEnd: '2025-12-31',
+      status: 'lapsing',
+      memberNumber: '01042',
+      name: 'Wren Okonkwo',
+      mayFly: false,
+      termEnd: '2025-12-31',
       dues: { answer: 'grace', termEnd: '2025-12-31' },
       association: { answer: 'expired', number: 'NA-7', expires: '2026-01-01', verified: null },
       certification: { answer: 'none', level: 'none', label: 'No high-power certification', verified: null },
@@ -38,7 +45,16 @@ describe('CheckIn', () => {
   });
 
   it('should show an unknown card without member details', async () => {
-    const el = await scan('junk', { status: 'unknown', memberNumber: null, name: null, mayFly: false, termEnd: null, dues: null, association: null, certification: null });
+    const el = await scan('junk', {
+      status: 'unknown',
+      memberNumber: null,
+      name: null,
+      mayFly: false,
+      termEnd: null,
+      dues: null,
+      association: null,
+      certification: null,
+    });
     const verdict = el.querySelector('[data-testid=check-in-verdict]')!;
     expect(verdict.textContent).toContain('Unknown card');
     expect(verdict.querySelector('dl')).toBeNull();
@@ -50,8 +66,19 @@ describe('CheckIn', () => {
     fixture.debugElement.query(By.directive(CameraScanner)).componentInstance.scanned.emit('v1.01042.1.abc');
     const req = TestBed.inject(HttpTestingController).expectOne('/api/admin/checkin');
     expect(req.request.body).toEqual({ token: 'v1.01042.1.abc' });
-    req.flush({ status: 'unknown', memberNumber: null, name: null, mayFly: false, termEnd: null, dues: null, association: null, certification: null });
+    req.flush({
+      status: 'unknown',
+      memberNumber: null,
+      name: null,
+      mayFly: false,
+      termEnd: null,
+      dues: null,
+      association: null,
+      certification: null,
+    });
     await fixture.whenStable();
-    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid=check-in-verdict]')!.textContent).toContain('Unknown card');
+    expect(
+      (fixture.nativeElement as HTMLElement).querySelector('[data-testid=check-in-verdict]')!.textContent,
+    ).toContain('Unknown card');
   });
 });

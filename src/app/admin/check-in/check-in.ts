@@ -18,7 +18,16 @@ import { CheckInVerdict, type CheckInResult } from './check-in-verdict';
  */
 @Component({
   selector: 'ps-check-in',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, FlyingCaution, CheckInVerdict, CameraScanner],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    FieldErrorPipe,
+    FlyingCaution,
+    CheckInVerdict,
+    CameraScanner,
+  ],
   templateUrl: './check-in.html',
   styleUrl: './check-in.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -41,7 +50,13 @@ export class CheckIn {
     if (this.form.invalid) return;
     this.problem.set(null);
     try {
-      this.result.set(await firstValueFrom(this.http.post<CheckInResult>('/api/admin/checkin', this.form.getRawValue(), { context: new HttpContext().set(QUIET_ERRORS, true) })));
+      this.result.set(
+        await firstValueFrom(
+          this.http.post<CheckInResult>('/api/admin/checkin', this.form.getRawValue(), {
+            context: new HttpContext().set(QUIET_ERRORS, true),
+          }),
+        ),
+      );
       formDir.resetForm();
     } catch (err) {
       this.problem.set(applyServerErrors(this.form, err));

@@ -22,7 +22,11 @@ export class EditorOverview {
   private readonly sponsors = inject(SponsorAdminApi);
   protected readonly shown = SHOWN;
   protected readonly kinds = KIND_LABELS;
-  protected readonly drafts = rxResource({ stream: () => this.posts.list({ status: 'draft', sort: 'updated', dir: 'desc', page: 1, pageSize: SHOWN }) });
-  protected readonly scheduled = rxResource({ stream: () => this.posts.list({ status: 'scheduled', sort: 'updated', dir: 'desc', page: 1, pageSize: SHOWN }) });
+  protected readonly drafts = rxResource({
+    stream: () => this.posts.list({ status: 'draft', sort: 'updated', dir: 'desc', page: 1, pageSize: SHOWN }),
+  });
+  protected readonly scheduled = rxResource({
+    stream: () => this.posts.list({ status: 'scheduled', sort: 'updated', dir: 'desc', page: 1, pageSize: SHOWN }),
+  });
   protected readonly overdue = rxResource({ stream: () => this.sponsors.overdue() });
 }

@@ -37,12 +37,16 @@ describe('ClubRulesForm certification levels', () => {
   afterEach(() => http.verify());
 
   const rows = () => Array.from(el.querySelectorAll<HTMLElement>('[data-testid=level-row]'));
-  const field = (row: HTMLElement, name: 'code' | 'label') => row.querySelector<HTMLInputElement>(`[formcontrolname=${name}]`)!;
+  const field = (row: HTMLElement, name: 'code' | 'label') =>
+    row.querySelector<HTMLInputElement>(`[formcontrolname=${name}]`)!;
   const type = (input: HTMLInputElement, value: string) => {
     input.value = value;
     input.dispatchEvent(new Event('input'));
   };
-  const button = (name: string) => Array.from(el.querySelectorAll<HTMLButtonElement>('button')).find((b) => (b.getAttribute('aria-label') ?? b.textContent!.trim()) === name)!;
+  const button = (name: string) =>
+    Array.from(el.querySelectorAll<HTMLButtonElement>('button')).find(
+      (b) => (b.getAttribute('aria-label') ?? b.textContent!.trim()) === name,
+    )!;
   const save = async () => {
     button('Save club rules').click();
     await fixture.whenStable();
@@ -76,7 +80,12 @@ describe('ClubRulesForm certification levels', () => {
     const req = await save();
     expect(req.request.body).toEqual({
       ...rules,
-      certificationLevels: [rules.certificationLevels[0], rules.certificationLevels[2], rules.certificationLevels[1], { code: 'L3', label: 'Level 3' }],
+      certificationLevels: [
+        rules.certificationLevels[0],
+        rules.certificationLevels[2],
+        rules.certificationLevels[1],
+        { code: 'L3', label: 'Level 3' },
+      ],
     });
     req.flush({ settings: req.request.body });
     await new Promise((resolve) => setTimeout(resolve));
@@ -84,7 +93,12 @@ describe('ClubRulesForm certification levels', () => {
     http.expectOne('/api/admin/members/settings').flush({ settings: req.request.body });
     await fixture.whenStable();
     expect(el.querySelector('.notice')!.textContent).toContain('Club rules saved.');
-    expect(rows().map((r) => [field(r, 'code').value, field(r, 'code').disabled])).toEqual([['none', true], ['L2', true], ['L1', true], ['L3', true]]);
+    expect(rows().map((r) => [field(r, 'code').value, field(r, 'code').disabled])).toEqual([
+      ['none', true],
+      ['L2', true],
+      ['L1', true],
+      ['L3', true],
+    ]);
   });
 
   it('should put the server’s word on a level still held beside the list, and on a bad code in its row', async () => {
@@ -95,14 +109,29 @@ describe('ClubRulesForm certification levels', () => {
     button('Remove Level 2').click();
     await fixture.whenStable();
     const req = await save();
-    expect(req.request.body.certificationLevels).toEqual([rules.certificationLevels[0], rules.certificationLevels[1], { code: 'l1', label: 'Level one' }]);
+    expect(req.request.body.certificationLevels).toEqual([
+      rules.certificationLevels[0],
+      rules.certificationLevels[1],
+      { code: 'l1', label: 'Level one' },
+    ]);
     req.flush(
-      { error: { code: 'validation_failed', message: 'Some fields need attention.', fields: { certificationLevels: 'Still held: L2 (3 members).', 'certificationLevels.2.code': 'This code is already in the list.' } } },
+      {
+        error: {
+          code: 'validation_failed',
+          message: 'Some fields need attention.',
+          fields: {
+            certificationLevels: 'Still held: L2 (3 members).',
+            'certificationLevels.2.code': 'This code is already in the list.',
+          },
+        },
+      },
       { status: 400, statusText: 'Bad Request' },
     );
     await settle();
     const fieldset = el.querySelector('fieldset')!;
     expect(fieldset.querySelector('.field-problem[role=alert]')!.textContent).toContain('Still held: L2 (3 members).');
-    expect(field(rows()[2], 'code').closest('mat-form-field')!.querySelector('mat-error')!.textContent).toContain('This code is already in the list.');
+    expect(field(rows()[2], 'code').closest('mat-form-field')!.querySelector('mat-error')!.textContent).toContain(
+      'This code is already in the list.',
+    );
   });
 });

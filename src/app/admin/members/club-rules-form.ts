@@ -1,4 +1,13 @@
-import { afterNextRender, ChangeDetectionStrategy, Component, effect, ElementRef, inject, Injector, signal } from '@angular/core';
+import {
+  afterNextRender,
+  ChangeDetectionStrategy,
+  Component,
+  effect,
+  ElementRef,
+  inject,
+  Injector,
+  signal,
+} from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { firstValueFrom } from 'rxjs';
@@ -23,7 +32,16 @@ const MAX_LEVELS = 12;
  */
 @Component({
   selector: 'ps-club-rules-form',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, FieldErrorPipe],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatSelectModule,
+    FieldErrorPipe,
+  ],
   templateUrl: './club-rules-form.html',
   styleUrl: './members.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -116,7 +134,10 @@ export class ClubRulesForm {
     afterNextRender(
       () => {
         const root = this.host.nativeElement;
-        selectors.map((s) => root.querySelector<HTMLElement>(s)).find((el) => el)?.focus();
+        selectors
+          .map((s) => root.querySelector<HTMLElement>(s))
+          .find((el) => el)
+          ?.focus();
       },
       { injector: this.injector },
     );
@@ -129,7 +150,13 @@ export class ClubRulesForm {
     this.problem.set(null);
     this.notice.set(null);
     try {
-      await firstValueFrom(this.api.saveSettings({ ...s, ...this.form.getRawValue(), graceDays: Number(this.form.controls.graceDays.value) }));
+      await firstValueFrom(
+        this.api.saveSettings({
+          ...s,
+          ...this.form.getRawValue(),
+          graceDays: Number(this.form.controls.graceDays.value),
+        }),
+      );
       this.notice.set('Club rules saved.');
       this.current.reload();
     } catch (err) {

@@ -22,7 +22,9 @@ export class DuesSummary {
   protected readonly summary = rxResource({ stream: () => this.api.summary() });
   protected readonly statuses = ['active', 'lapsing', 'lapsed', 'pending'] as const;
   protected readonly statusLabels = MEMBERSHIP_STATUS_LABELS;
-  protected readonly total = computed(() => (this.summary.value()?.collected ?? []).reduce((sum, r) => sum + r.cents, 0));
+  protected readonly total = computed(() =>
+    (this.summary.value()?.collected ?? []).reduce((sum, r) => sum + r.cents, 0),
+  );
 
   protected print(): void {
     window.print();

@@ -36,7 +36,11 @@ const detail: MemberDetailView = {
 
 /** Dates on the page follow club time, which SiteNames asks `/api/site` for. */
 const flushSiteNames = (http: HttpTestingController) =>
-  http.match('/api/site').forEach((r) => r.flush({ teamName: 'Nozzle & Nylon', clubName: 'Skywhomp Rocketry Club', timeZone: 'America/Winnipeg' }));
+  http
+    .match('/api/site')
+    .forEach((r) =>
+      r.flush({ teamName: 'Nozzle & Nylon', clubName: 'Skywhomp Rocketry Club', timeZone: 'America/Winnipeg' }),
+    );
 
 describe('MemberDetail', () => {
   let fixture: ComponentFixture<MemberDetail>;
@@ -74,7 +78,16 @@ describe('MemberDetail', () => {
     el.querySelector<HTMLButtonElement>('form button[type=submit]')!.click();
     const req = http.expectOne('/api/admin/members/7/payments');
     expect(req.request.body).toEqual({ amountCents: 4500, method: 'cash', receiptNumber: 'GF-512' });
-    req.flush({ error: { code: 'bad_request', message: 'Check the amount.', fields: { amountCents: 'Enter the dues for one term.' } } }, { status: 400, statusText: 'Bad Request' });
+    req.flush(
+      {
+        error: {
+          code: 'bad_request',
+          message: 'Check the amount.',
+          fields: { amountCents: 'Enter the dues for one term.' },
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await settle();
     const field = el.querySelector('[formcontrolname=amount]')!.closest('mat-form-field')!;
     expect(field.querySelector('mat-error')?.textContent?.trim()).toBe('Enter the dues for one term.');
@@ -87,8 +100,16 @@ describe('MemberDetail flying claims', () => {
   let el: HTMLElement;
   const claimed: MemberDetailView = {
     ...detail,
-    member: { ...detail.member, associationNumber: 'NA-2044', associationExpires: '2027-03-31', certificationLevel: 'L2' },
-    verifications: { association: null, certification: { at: '2026-05-02T15:00:00Z', by: 'Tess Treasurer', against: 'Level 2 certificate' } },
+    member: {
+      ...detail.member,
+      associationNumber: 'NA-2044',
+      associationExpires: '2027-03-31',
+      certificationLevel: 'L2',
+    },
+    verifications: {
+      association: null,
+      certification: { at: '2026-05-02T15:00:00Z', by: 'Tess Treasurer', against: 'Level 2 certificate' },
+    },
   };
 
   const settle = async () => {
@@ -111,21 +132,43 @@ describe('MemberDetail flying claims', () => {
   afterEach(() => http.verify());
 
   it('should show a claim in words and a check with who, when and against what', () => {
-    expect(el.querySelector('[data-testid=association-record]')!.textContent).toContain('claimed by the member, not yet checked');
-    expect(el.querySelector('[data-testid=certification-record]')!.textContent).toContain('checked May 2, 2026 by Tess Treasurer against Level 2 certificate');
+    expect(el.querySelector('[data-testid=association-record]')!.textContent).toContain(
+      'claimed by the member, not yet checked',
+    );
+    expect(el.querySelector('[data-testid=certification-record]')!.textContent).toContain(
+      'checked May 2, 2026 by Tess Treasurer against Level 2 certificate',
+    );
   });
 
   it('should send the document and the values on screen when staff mark the association checked', async () => {
-    const button = Array.from(el.querySelectorAll<HTMLButtonElement>('[data-testid=association-record] button')).find((b) => b.textContent?.includes('Mark checked'))!;
+    const button = Array.from(el.querySelectorAll<HTMLButtonElement>('[data-testid=association-record] button')).find(
+      (b) => b.textContent?.includes('Mark checked'),
+    )!;
     button.click();
     await settle();
     const input = el.querySelector<HTMLInputElement>('[formcontrolname=against]')!;
     input.value = 'association card, seen at the field';
     input.dispatchEvent(new Event('input'));
-    el.querySelector<HTMLFormElement>('form[aria-label="Mark the association checked"]')!.querySelector<HTMLButtonElement>('button[type=submit]')!.click();
+    el.querySelector<HTMLFormElement>('form[aria-label="Mark the association checked"]')!
+      .querySelector<HTMLButtonElement>('button[type=submit]')!
+      .click();
     const req = http.expectOne('/api/admin/members/7/verifications');
-    expect(req.request.body).toEqual({ what: 'association', against: 'association card, seen at the field', associationNumber: 'NA-2044', associationExpires: '2027-03-31' });
-    req.flush({ error: { code: 'record_changed', message: 'The record changed since you loaded it; reload the page and check again.', fields: { what: 'The record changed since you loaded it.' } } }, { status: 409, statusText: 'Conflict' });
+    expect(req.request.body).toEqual({
+      what: 'association',
+      against: 'association card, seen at the field',
+      associationNumber: 'NA-2044',
+      associationExpires: '2027-03-31',
+    });
+    req.flush(
+      {
+        error: {
+          code: 'record_changed',
+          message: 'The record changed since you loaded it; reload the page and check again.',
+          fields: { what: 'The record changed since you loaded it.' },
+        },
+      },
+      { status: 409, statusText: 'Conflict' },
+    );
     await settle();
     expect(el.querySelector('[role=alert]')?.textContent).toContain('record changed');
   });

@@ -9,7 +9,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { applyServerErrors } from '../../core/api-error';
-import { DUES_ENTRY_LABELS, DUES_PAYMENT_STATUS_LABELS, MEMBERSHIP_AUDIT_LABELS, MEMBERSHIP_STATUS_LABELS } from '@contracts/labels/membership-statuses';
+import {
+  DUES_ENTRY_LABELS,
+  DUES_PAYMENT_STATUS_LABELS,
+  MEMBERSHIP_AUDIT_LABELS,
+  MEMBERSHIP_STATUS_LABELS,
+} from '@contracts/labels/membership-statuses';
 import { PAYMENT_METHOD_LABELS } from '@contracts/labels/payment-methods';
 import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
@@ -26,7 +31,21 @@ const AMOUNT_FIELD = { amountCents: 'amount' };
 /** One member: record (with staff checks of the flying claims), family, payments with refunds, manual payment entry and the audit of changes. */
 @Component({
   selector: 'ps-member-detail',
-  imports: [ReactiveFormsModule, RouterLink, ClubDatePipe, LabelPipe, JsonPipe, NgTemplateOutlet, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, EmptyState, FieldErrorPipe, MoneyPipe],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    ClubDatePipe,
+    LabelPipe,
+    JsonPipe,
+    NgTemplateOutlet,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    EmptyState,
+    FieldErrorPipe,
+    MoneyPipe,
+  ],
   templateUrl: './member-detail.html',
   styleUrl: './members.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -34,7 +53,13 @@ const AMOUNT_FIELD = { amountCents: 'amount' };
 export class MemberDetail {
   private readonly api = inject(MembersApi);
   private readonly fb = inject(NonNullableFormBuilder);
-  protected readonly labels = { status: MEMBERSHIP_STATUS_LABELS, payment: DUES_PAYMENT_STATUS_LABELS, entry: DUES_ENTRY_LABELS, method: PAYMENT_METHOD_LABELS, audit: MEMBERSHIP_AUDIT_LABELS };
+  protected readonly labels = {
+    status: MEMBERSHIP_STATUS_LABELS,
+    payment: DUES_PAYMENT_STATUS_LABELS,
+    entry: DUES_ENTRY_LABELS,
+    method: PAYMENT_METHOD_LABELS,
+    audit: MEMBERSHIP_AUDIT_LABELS,
+  };
 
   /** Route parameter. */
   readonly id = input.required({ transform: numberAttribute });
@@ -46,8 +71,13 @@ export class MemberDetail {
     receiptNumber: ['', [Validators.required, Validators.maxLength(40)]],
     note: [''],
   });
-  protected readonly refundForm = this.fb.group({ amount: ['', [Validators.required, Validators.pattern(/^\d+(\.\d{1,2})?$/)]], reason: ['', Validators.required] });
-  protected readonly verifyForm = this.fb.group({ against: ['', [Validators.required, Validators.minLength(3), Validators.maxLength(200)]] });
+  protected readonly refundForm = this.fb.group({
+    amount: ['', [Validators.required, Validators.pattern(/^\d+(\.\d{1,2})?$/)]],
+    reason: ['', Validators.required],
+  });
+  protected readonly verifyForm = this.fb.group({
+    against: ['', [Validators.required, Validators.minLength(3), Validators.maxLength(200)]],
+  });
   protected readonly verifying = signal<VerifiedPart | null>(null);
   protected readonly refunding = signal<PaymentLine | null>(null);
   // One key per refund form opened: submitting it twice (or retrying) refunds once.
@@ -55,14 +85,20 @@ export class MemberDetail {
   protected readonly problem = signal<string | null>(null);
   protected readonly notice = signal<string | null>(null);
 
-
   protected async recordPayment(formDir: FormGroupDirective): Promise<void> {
     this.paymentForm.markAllAsTouched();
     if (this.paymentForm.invalid) return;
     this.problem.set(null);
     const v = this.paymentForm.getRawValue();
     try {
-      await firstValueFrom(this.api.recordPayment(this.id(), { amountCents: dollarsToCents(v.amount), method: v.method, receiptNumber: v.receiptNumber, ...(v.note ? { note: v.note } : {}) }));
+      await firstValueFrom(
+        this.api.recordPayment(this.id(), {
+          amountCents: dollarsToCents(v.amount),
+          method: v.method,
+          receiptNumber: v.receiptNumber,
+          ...(v.note ? { note: v.note } : {}),
+        }),
+      );
       this.notice.set(`Payment ${v.receiptNumber} recorded; a receipt is on its way to the member.`);
       formDir.resetForm({ amount: '', method: 'cash', receiptNumber: '', note: '' });
       this.detail.reload();
@@ -83,10 +119,17 @@ export class MemberDetail {
     if (!what || this.verifyForm.invalid) return;
     this.problem.set(null);
     const m = d.member;
-    const seen = what === 'association' ? { associationNumber: m.associationNumber, associationExpires: m.associationExpires } : { certificationLevel: m.certificationLevel };
+    const seen =
+      what === 'association'
+        ? { associationNumber: m.associationNumber, associationExpires: m.associationExpires }
+        : { certificationLevel: m.certificationLevel };
     try {
-      await firstValueFrom(this.api.verify(this.id(), { what, against: this.verifyForm.getRawValue().against, ...seen }));
-      this.notice.set(what === 'association' ? 'Association membership marked checked.' : 'Certification marked checked.');
+      await firstValueFrom(
+        this.api.verify(this.id(), { what, against: this.verifyForm.getRawValue().against, ...seen }),
+      );
+      this.notice.set(
+        what === 'association' ? 'Association membership marked checked.' : 'Certification marked checked.',
+      );
       this.verifying.set(null);
       this.detail.reload();
     } catch (err) {
@@ -118,7 +161,13 @@ export class MemberDetail {
     this.problem.set(null);
     try {
       const v = this.refundForm.getRawValue();
-      await firstValueFrom(this.api.refund(this.id(), { paymentId: p.id, amountCents: dollarsToCents(v.amount), reason: v.reason }, this.refundKey));
+      await firstValueFrom(
+        this.api.refund(
+          this.id(),
+          { paymentId: p.id, amountCents: dollarsToCents(v.amount), reason: v.reason },
+          this.refundKey,
+        ),
+      );
       this.notice.set('Refund recorded.');
       this.refunding.set(null);
       this.detail.reload();

@@ -95,7 +95,10 @@ export interface DuesSummary {
 export type AdminPlan = Plan & { active: boolean; sortOrder: number };
 
 /** What staff may change on a plan; the code and who may hold it are fixed once members can hold it. */
-export type PlanChanges = Pick<AdminPlan, 'name' | 'description' | 'duesCents' | 'joiningFeeCents' | 'active' | 'sortOrder'>;
+export type PlanChanges = Pick<
+  AdminPlan,
+  'name' | 'description' | 'duesCents' | 'joiningFeeCents' | 'active' | 'sortOrder'
+>;
 
 /** Who may hold a plan, as staff read it (the server checks junior ages and family members). */
 export { PLAN_ELIGIBILITY_LABELS as ELIGIBILITY_LABELS } from '@contracts/labels/membership-statuses';
@@ -106,7 +109,8 @@ export type NewPlan = PlanChanges & Pick<AdminPlan, 'code' | 'eligibility'>;
 /** Only the filters that are set, so URLs and the CSV link stay short. */
 export function filterParams(q: Partial<RosterFormQuery>): HttpParams {
   let params = new HttpParams();
-  for (const [k, v] of Object.entries(q)) if (v !== '' && v !== undefined && v !== null) params = params.set(k, String(v));
+  for (const [k, v] of Object.entries(q))
+    if (v !== '' && v !== undefined && v !== null) params = params.set(k, String(v));
   return params;
 }
 
@@ -136,13 +140,23 @@ export class MembersApi {
   }
 
   /** Records dues paid in person (cash or cheque) with its receipt number. */
-  recordPayment(id: number, body: { amountCents: number; method: string; receiptNumber: string; note?: string }): Observable<MemberDetail> {
+  recordPayment(
+    id: number,
+    body: { amountCents: number; method: string; receiptNumber: string; note?: string },
+  ): Observable<MemberDetail> {
     return this.http.post<MemberDetail>(`/api/admin/members/${id}/payments`, body, quiet());
   }
 
   /** `key` (the Idempotency-Key) belongs to one refund: a double click or retry refunds once. */
-  refund(id: number, body: { paymentId: number; amountCents: number; reason: string }, key: string): Observable<MemberDetail> {
-    return this.http.post<MemberDetail>(`/api/admin/members/${id}/refunds`, body, { ...quiet(), headers: { 'Idempotency-Key': key } });
+  refund(
+    id: number,
+    body: { paymentId: number; amountCents: number; reason: string },
+    key: string,
+  ): Observable<MemberDetail> {
+    return this.http.post<MemberDetail>(`/api/admin/members/${id}/refunds`, body, {
+      ...quiet(),
+      headers: { 'Idempotency-Key': key },
+    });
   }
 
   /** Records that staff checked a member's association number or certification. */
@@ -161,7 +175,12 @@ export class MembersApi {
   }
 
   /** Mails the members the filters pick, as club news (follows consent) or club business. */
-  emailRoster(filters: Partial<RosterFormQuery>, subject: string, text: string, purpose: RosterMailPurpose): Observable<RosterMailResult> {
+  emailRoster(
+    filters: Partial<RosterFormQuery>,
+    subject: string,
+    text: string,
+    purpose: RosterMailPurpose,
+  ): Observable<RosterMailResult> {
     return this.http.post<RosterMailResult>('/api/admin/members/email', { filters, subject, text, purpose }, quiet());
   }
 

@@ -4,7 +4,17 @@ import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import type { AdminPlan } from './members-api';
 import { PlanForm } from './plan-form';
 
-const junior: AdminPlan = { id: 2, code: 'junior', name: 'Junior', description: 'Under 18.', eligibility: 'junior', duesCents: 2000, joiningFeeCents: 0, active: true, sortOrder: 2 };
+const junior: AdminPlan = {
+  id: 2,
+  code: 'junior',
+  name: 'Junior',
+  description: 'Under 18.',
+  eligibility: 'junior',
+  duesCents: 2000,
+  joiningFeeCents: 0,
+  active: true,
+  sortOrder: 2,
+};
 
 describe('PlanForm', () => {
   let fixture: ComponentFixture<PlanForm>;
@@ -38,7 +48,12 @@ describe('PlanForm', () => {
   };
 
   /** The error text shown inside the same form field as the control. */
-  const errorBeside = (el: HTMLElement, control: string) => el.querySelector(`[formcontrolname=${control}]`)!.closest('mat-form-field')!.querySelector('mat-error')?.textContent?.trim();
+  const errorBeside = (el: HTMLElement, control: string) =>
+    el
+      .querySelector(`[formcontrolname=${control}]`)!
+      .closest('mat-form-field')!
+      .querySelector('mat-error')
+      ?.textContent?.trim();
 
   afterEach(() => http.verify());
 
@@ -51,7 +66,16 @@ describe('PlanForm', () => {
     await submit(el);
     const req = http.expectOne('/api/admin/members/plans');
     expect(req.request.method).toBe('POST');
-    expect(req.request.body).toEqual({ code: 'senior', name: 'Senior flyer', description: '', eligibility: 'any', duesCents: 1250, joiningFeeCents: 505, active: true, sortOrder: 4 });
+    expect(req.request.body).toEqual({
+      code: 'senior',
+      name: 'Senior flyer',
+      description: '',
+      eligibility: 'any',
+      duesCents: 1250,
+      joiningFeeCents: 505,
+      active: true,
+      sortOrder: 4,
+    });
     const saved: AdminPlan[] = [];
     fixture.componentInstance.saved.subscribe((p) => saved.push(p));
     req.flush({ plan: { ...req.request.body, id: 9 } });
@@ -68,7 +92,14 @@ describe('PlanForm', () => {
     await submit(el);
     const req = http.expectOne('/api/admin/members/plans/2');
     expect(req.request.method).toBe('PATCH');
-    expect(req.request.body).toEqual({ name: 'Junior', description: 'Under 18.', duesCents: 1250, joiningFeeCents: 0, active: false, sortOrder: 2 });
+    expect(req.request.body).toEqual({
+      name: 'Junior',
+      description: 'Under 18.',
+      duesCents: 1250,
+      joiningFeeCents: 0,
+      active: false,
+      sortOrder: 2,
+    });
     req.flush({ plan: { ...junior, duesCents: 1250, active: false } });
   });
 
@@ -89,7 +120,13 @@ describe('PlanForm', () => {
     type(el, 'dues', '45.00');
     await submit(el);
     http.expectOne('/api/admin/members/plans').flush(
-      { error: { code: 'duplicate_code', message: 'A plan with that code exists.', fields: { code: 'A plan with that code exists.', duesCents: 'Cannot be negative.' } } },
+      {
+        error: {
+          code: 'duplicate_code',
+          message: 'A plan with that code exists.',
+          fields: { code: 'A plan with that code exists.', duesCents: 'Cannot be negative.' },
+        },
+      },
       { status: 409, statusText: 'Conflict' },
     );
     await settle();

@@ -1,4 +1,16 @@
-import { afterNextRender, ChangeDetectionStrategy, Component, effect, ElementRef, inject, Injector, input, output, signal, untracked } from '@angular/core';
+import {
+  afterNextRender,
+  ChangeDetectionStrategy,
+  Component,
+  effect,
+  ElementRef,
+  inject,
+  Injector,
+  input,
+  output,
+  signal,
+  untracked,
+} from '@angular/core';
 import { HttpErrorResponse } from '@angular/common/http';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { firstValueFrom } from 'rxjs';
@@ -24,7 +36,15 @@ let nextId = 0;
 /** Adds a plan or edits one: name, dues and joining fee (typed in dollars, sent in cents), on or off. */
 @Component({
   selector: 'ps-plan-form',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    FieldErrorPipe,
+  ],
   templateUrl: './plan-form.html',
   styleUrl: './members.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -63,15 +83,35 @@ export class PlanForm {
       const p = this.plan();
       untracked(() => this.load(p));
       // Keyboard users land in the form they opened, also when they switch to another plan.
-      afterNextRender(() => host.nativeElement.querySelector<HTMLElement>('input:not([disabled])')?.focus(), { injector });
+      afterNextRender(() => host.nativeElement.querySelector<HTMLElement>('input:not([disabled])')?.focus(), {
+        injector,
+      });
     });
   }
 
   private load(p: AdminPlan | null): void {
     this.form.reset(
       p
-        ? { code: p.code, name: p.name, description: p.description, eligibility: p.eligibility, dues: centsToDollars(p.duesCents), joiningFee: centsToDollars(p.joiningFeeCents), active: p.active, sortOrder: p.sortOrder }
-        : { code: '', name: '', description: '', eligibility: 'any', dues: '', joiningFee: '0.00', active: true, sortOrder: this.nextSortOrder() },
+        ? {
+            code: p.code,
+            name: p.name,
+            description: p.description,
+            eligibility: p.eligibility,
+            dues: centsToDollars(p.duesCents),
+            joiningFee: centsToDollars(p.joiningFeeCents),
+            active: p.active,
+            sortOrder: p.sortOrder,
+          }
+        : {
+            code: '',
+            name: '',
+            description: '',
+            eligibility: 'any',
+            dues: '',
+            joiningFee: '0.00',
+            active: true,
+            sortOrder: this.nextSortOrder(),
+          },
     );
     // Members and payments refer to the code, and the join rules to who may hold it.
     for (const c of [this.form.controls.code, this.form.controls.eligibility]) {
@@ -86,11 +126,22 @@ export class PlanForm {
     if (this.form.invalid || this.saving()) return;
     this.problem.set(null);
     const v = this.form.getRawValue();
-    const changes: PlanChanges = { name: v.name, description: v.description, duesCents: dollarsToCents(v.dues), joiningFeeCents: dollarsToCents(v.joiningFee), active: v.active, sortOrder: Number(v.sortOrder) };
+    const changes: PlanChanges = {
+      name: v.name,
+      description: v.description,
+      duesCents: dollarsToCents(v.dues),
+      joiningFeeCents: dollarsToCents(v.joiningFee),
+      active: v.active,
+      sortOrder: Number(v.sortOrder),
+    };
     const p = this.plan();
     this.saving.set(true);
     try {
-      const res = await firstValueFrom(p ? this.api.updatePlan(p.id, changes) : this.api.createPlan({ ...changes, code: v.code, eligibility: v.eligibility }));
+      const res = await firstValueFrom(
+        p
+          ? this.api.updatePlan(p.id, changes)
+          : this.api.createPlan({ ...changes, code: v.code, eligibility: v.eligibility }),
+      );
       this.saved.emit(res.plan);
     } catch (err) {
       this.problem.set(this.showErrors(err));

@@ -4,7 +4,17 @@ import { TestBed } from '@angular/core/testing';
 import type { AdminPlan } from './members-api';
 import { PlanList } from './plan-list';
 
-const family: AdminPlan = { id: 3, code: 'family', name: 'Family', description: 'One household.', eligibility: 'family', duesCents: 7000, joiningFeeCents: 1500, active: false, sortOrder: 3 };
+const family: AdminPlan = {
+  id: 3,
+  code: 'family',
+  name: 'Family',
+  description: 'One household.',
+  eligibility: 'family',
+  duesCents: 7000,
+  joiningFeeCents: 1500,
+  active: false,
+  sortOrder: 3,
+};
 
 describe('PlanList', () => {
   beforeEach(() => TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] }));
@@ -26,7 +36,14 @@ describe('PlanList', () => {
   it('should list each plan with its dues, joining fee, who may hold it and whether it is offered', async () => {
     const el = await show([family]);
     const cells = Array.from(el.querySelectorAll('tbody td')).map((td) => td.textContent!.trim());
-    expect(cells.slice(0, 6)).toEqual(['family', 'Family', 'A household at one address', '$70.00', '$15.00', 'No, switched off']);
+    expect(cells.slice(0, 6)).toEqual([
+      'family',
+      'Family',
+      'A household at one address',
+      '$70.00',
+      '$15.00',
+      'No, switched off',
+    ]);
     expect(el.querySelector('tbody button')!.getAttribute('aria-label')).toBe('Edit the Family plan');
   });
 });

@@ -21,7 +21,9 @@ export class PlanList {
   /** The plan in the form, `new` while adding one, null with the form closed. */
   protected readonly editing = signal<AdminPlan | 'new' | null>(null);
   protected readonly notice = signal<string | null>(null);
-  protected readonly nextSortOrder = computed(() => Math.max(0, ...(this.plans.value()?.items ?? []).map((p) => p.sortOrder)) + 1);
+  protected readonly nextSortOrder = computed(
+    () => Math.max(0, ...(this.plans.value()?.items ?? []).map((p) => p.sortOrder)) + 1,
+  );
   private opener: HTMLElement | null = null;
 
   protected open(target: AdminPlan | 'new', event: Event): void {

@@ -1,6 +1,12 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { FormGroupDirective, FormsModule, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import {
+  FormGroupDirective,
+  FormsModule,
+  NonNullableFormBuilder,
+  ReactiveFormsModule,
+  Validators,
+} from '@angular/forms';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import { MatButtonModule } from '@angular/material/button';
@@ -21,12 +27,38 @@ import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import type { RosterFormQuery, RosterMailPurpose, RosterSortKey } from '@contracts/membership/roster-schemas';
 import { MembersApi, filterParams } from './members-api';
 
-const FIRST: RosterFormQuery = { status: '', planId: '', certificationLevel: '', associationExpiresBefore: '', q: '', sort: 'memberNumber', dir: 'asc', page: 1, pageSize: 25 };
+const FIRST: RosterFormQuery = {
+  status: '',
+  planId: '',
+  certificationLevel: '',
+  associationExpiresBefore: '',
+  q: '',
+  sort: 'memberNumber',
+  dir: 'asc',
+  page: 1,
+  pageSize: 25,
+};
 
 /** The roster: filters, search, server-side sort and paging, CSV export and an e-mail to the filtered list. */
 @Component({
   selector: 'ps-roster',
-  imports: [FormsModule, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatRadioModule, MatSelectModule, MatSortModule, MatTableModule, ClubDatePipe, LabelPipe, EmptyState, FieldErrorPipe],
+  imports: [
+    FormsModule,
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatPaginatorModule,
+    MatRadioModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+    ClubDatePipe,
+    LabelPipe,
+    EmptyState,
+    FieldErrorPipe,
+  ],
   templateUrl: './roster.html',
   styleUrl: './members.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -36,11 +68,22 @@ export class Roster {
   private readonly fb = inject(NonNullableFormBuilder);
   private readonly membership = inject(MembershipApi);
 
-  protected readonly columns = ['memberNumber', 'name', 'plan', 'status', 'termEnd', 'certificationLevel', 'associationExpires'];
+  protected readonly columns = [
+    'memberNumber',
+    'name',
+    'plan',
+    'status',
+    'termEnd',
+    'certificationLevel',
+    'associationExpires',
+  ];
   protected readonly statuses = ['active', 'lapsing', 'lapsed', 'pending'] as const;
   protected readonly statusLabels = MEMBERSHIP_STATUS_LABELS;
   protected readonly query = signal<RosterFormQuery>(FIRST);
-  protected readonly roster = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.roster(params) });
+  protected readonly roster = rxResource({
+    params: () => this.query(),
+    stream: ({ params }) => this.api.roster(params),
+  });
   protected readonly plans = rxResource({ stream: () => this.membership.plans() });
   protected readonly policy = rxResource({ stream: () => this.membership.policy() });
   protected readonly csvUrl = computed(() => {
@@ -66,7 +109,12 @@ export class Roster {
   }
 
   protected sortBy(s: Sort): void {
-    this.query.update((q) => ({ ...q, sort: (s.direction ? s.active : 'memberNumber') as RosterSortKey, dir: s.direction || 'asc', page: 1 }));
+    this.query.update((q) => ({
+      ...q,
+      sort: (s.direction ? s.active : 'memberNumber') as RosterSortKey,
+      dir: s.direction || 'asc',
+      page: 1,
+    }));
   }
 
   protected changePage(e: PageEvent): void {

@@ -18,11 +18,20 @@ import { RefundPanel } from './refund-panel';
 import type { StaffRefund } from '@contracts/shop/staff-order-answers';
 import { ShopAdminApi } from './shop-admin-api';
 
-
 /** One order for staff: items, money, packing list to print, pack, ship with tracking, refunds and their history. */
 @Component({
   selector: 'ps-order-detail',
-  imports: [ClubDatePipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe, RefundPanel],
+  imports: [
+    ClubDatePipe,
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    FieldErrorPipe,
+    MoneyPipe,
+    RefundPanel,
+  ],
   templateUrl: './order-detail.html',
   styleUrl: './order-detail.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -39,7 +48,10 @@ export class OrderDetail {
   protected readonly refundOrigins = REFUND_ORIGIN_LABELS;
   /** The card processor's dispute reason code, as words. */
   protected readonly inWords = codeInWords;
-  protected readonly shipForm = this.fb.group({ carrier: ['', Validators.required], trackingNumber: ['', Validators.required] });
+  protected readonly shipForm = this.fb.group({
+    carrier: ['', Validators.required],
+    trackingNumber: ['', Validators.required],
+  });
   protected readonly shipProblem = signal<string | null>(null);
   protected readonly busy = signal(false);
 
@@ -59,14 +71,21 @@ export class OrderDetail {
     if (this.shipForm.invalid) return;
     this.shipProblem.set(null);
     try {
-      await this.run(() => firstValueFrom(this.api.ship(this.id(), this.shipForm.getRawValue())), 'Marked shipped; the buyer is told.');
+      await this.run(
+        () => firstValueFrom(this.api.ship(this.id(), this.shipForm.getRawValue())),
+        'Marked shipped; the buyer is told.',
+      );
     } catch (err) {
       this.shipProblem.set(applyServerErrors(this.shipForm, err));
     }
   }
 
   protected refunded(r: StaffRefund): void {
-    this.snackBar.open(r.unitsBackOnSale ? `Refund sent; ${r.unitsBackOnSale} back on sale.` : 'Refund sent.', undefined, { duration: 3000 });
+    this.snackBar.open(
+      r.unitsBackOnSale ? `Refund sent; ${r.unitsBackOnSale} back on sale.` : 'Refund sent.',
+      undefined,
+      { duration: 3000 },
+    );
     this.order.reload();
   }
 

@@ -19,9 +19,52 @@ import { ShopAdminApi } from './shop-admin-api';
 /** The orders table: server paging and sorting, filters by status, run and dates, search, CSV of the same filter. */
 @Component({
   selector: 'ps-order-list',
-  imports: [ClubDatePipe, FormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatPaginatorModule, MatSelectModule, MatSortModule, MatTableModule, MoneyPipe, EmptyState],
+  imports: [
+    ClubDatePipe,
+    FormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatPaginatorModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+    MoneyPipe,
+    EmptyState,
+  ],
   templateUrl: './order-list.html',
-  styles: `.ps-page { max-width: none; } .filters .search { min-width: min(300px, 100%); } .table-card { overflow-x: auto; max-width: 100%; background: var(--mat-sys-surface); border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; } .table-card table { min-width: 720px; } .filters { display: flex; gap: 12px; flex-wrap: wrap; align-items: center; } table { width: 100%; } .disputed { color: var(--mat-sys-error); font-weight: 600; }`,
+  styles: `
+    .ps-page {
+      max-width: none;
+    }
+    .filters .search {
+      min-width: min(300px, 100%);
+    }
+    .table-card {
+      overflow-x: auto;
+      max-width: 100%;
+      background: var(--mat-sys-surface);
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 12px;
+    }
+    .table-card table {
+      min-width: 720px;
+    }
+    .filters {
+      display: flex;
+      gap: 12px;
+      flex-wrap: wrap;
+      align-items: center;
+    }
+    table {
+      width: 100%;
+    }
+    .disputed {
+      color: var(--mat-sys-error);
+      font-weight: 600;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class OrderList {
@@ -29,8 +72,17 @@ export class OrderList {
   protected readonly columns = ['number', 'created', 'email', 'status', 'units', 'total'];
   protected readonly statuses = Object.entries(STATUS_LABELS);
   // Never-paid attempts (declined cards) are hidden by default; "Any status" or "Not paid" shows them.
-  protected readonly query = signal<OrderListQuery>({ page: 1, pageSize: 25, sort: 'created', dir: 'desc', status: 'placed' });
-  protected readonly orders = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.orders(params) });
+  protected readonly query = signal<OrderListQuery>({
+    page: 1,
+    pageSize: 25,
+    sort: 'created',
+    dir: 'desc',
+    status: 'placed',
+  });
+  protected readonly orders = rxResource({
+    params: () => this.query(),
+    stream: ({ params }) => this.api.orders(params),
+  });
   protected readonly runs = rxResource({ stream: () => this.api.runs() });
   protected readonly csvHref = computed(() => {
     const { page: _p, pageSize: _s, ...filter } = this.query();
@@ -45,7 +97,12 @@ export class OrderList {
     this.query.update((q) => ({ ...q, ...patch, page: 1 }));
   }
   protected sortBy(s: Sort): void {
-    this.query.update((q) => ({ ...q, sort: s.direction ? (s.active as OrderSortKey) : 'created', dir: s.direction || 'desc', page: 1 }));
+    this.query.update((q) => ({
+      ...q,
+      sort: s.direction ? (s.active as OrderSortKey) : 'created',
+      dir: s.direction || 'desc',
+      page: 1,
+    }));
   }
   protected changePage(e: PageEvent): void {
     this.query.update((q) => ({ ...q, page: e.pageIndex + 1, pageSize: e.pageSize }));

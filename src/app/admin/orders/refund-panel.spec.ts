@@ -13,13 +13,47 @@ const order = (over: Partial<StaffOrder> = {}): StaffOrder => ({
   paidAt: '2026-11-02T17:00:00Z',
   packedAt: null,
   shippedAt: null,
-  shipTo: { name: 'Odalys Test', line1: '3 Sod House Lane', line2: '', city: 'Gopher Flats', province: 'MB', postalCode: 'R0K 1A0', country: 'CA' },
+  shipTo: {
+    name: 'Odalys Test',
+    line1: '3 Sod House Lane',
+    line2: '',
+    city: 'Gopher Flats',
+    province: 'MB',
+    postalCode: 'R0K 1A0',
+    country: 'CA',
+  },
   shippingMethod: { code: 'canada', name: 'Mail within Canada' },
   carrier: null,
   trackingNumber: null,
   items: [
-    { id: 501, variantId: 71, runId: null, productName: 'Season shirt', variantLabel: 'M', sku: 'T-M', unitPriceCents: 3500, quantity: 2, lineCents: 7000, restockedQuantity: 0, refundedQuantity: 0, unitsToPack: 2 },
-    { id: 502, variantId: 72, runId: null, productName: 'Season shirt', variantLabel: 'L', sku: 'T-L', unitPriceCents: 3500, quantity: 1, lineCents: 3500, restockedQuantity: 0, refundedQuantity: 0, unitsToPack: 1 },
+    {
+      id: 501,
+      variantId: 71,
+      runId: null,
+      productName: 'Season shirt',
+      variantLabel: 'M',
+      sku: 'T-M',
+      unitPriceCents: 3500,
+      quantity: 2,
+      lineCents: 7000,
+      restockedQuantity: 0,
+      refundedQuantity: 0,
+      unitsToPack: 2,
+    },
+    {
+      id: 502,
+      variantId: 72,
+      runId: null,
+      productName: 'Season shirt',
+      variantLabel: 'L',
+      sku: 'T-L',
+      unitPriceCents: 3500,
+      quantity: 1,
+      lineCents: 3500,
+      restockedQuantity: 0,
+      refundedQuantity: 0,
+      unitsToPack: 1,
+    },
   ],
   discountPercent: 0,
   subtotalCents: 10500,
@@ -73,7 +107,10 @@ describe('RefundPanel', () => {
     el.querySelectorAll<HTMLInputElement>('fieldset mat-checkbox input[type=checkbox]')[n].click();
     await settle();
   };
-  const checkbox = (text: RegExp) => Array.from(el.querySelectorAll('mat-checkbox')).find((c) => text.test(c.textContent ?? ''))!.querySelector('input')!;
+  const checkbox = (text: RegExp) =>
+    Array.from(el.querySelectorAll('mat-checkbox'))
+      .find((c) => text.test(c.textContent ?? ''))!
+      .querySelector('input')!;
   const submit = async () => {
     el.querySelector<HTMLButtonElement>('button[type=submit]')!.click();
     await settle();
@@ -86,7 +123,10 @@ describe('RefundPanel', () => {
     }
     await settle();
   };
-  const dialogButton = (text: RegExp) => Array.from(document.querySelectorAll<HTMLButtonElement>('mat-dialog-actions button')).find((b) => text.test(b.textContent ?? ''))!;
+  const dialogButton = (text: RegExp) =>
+    Array.from(document.querySelectorAll<HTMLButtonElement>('mat-dialog-actions button')).find((b) =>
+      text.test(b.textContent ?? ''),
+    )!;
 
   beforeEach(async () => {
     TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
@@ -122,9 +162,17 @@ describe('RefundPanel', () => {
     dialogButton(/Refund \$39\.20/).click();
     await afterDialog();
     const sent = http.expectOne('/api/admin/orders/41/refund');
-    expect(sent.request.body).toEqual({ lines: [{ orderItemId: 501, quantity: 1 }], shipping: false, restock: true, amountCents: 3920 });
+    expect(sent.request.body).toEqual({
+      lines: [{ orderItemId: 501, quantity: 1 }],
+      shipping: false,
+      restock: true,
+      amountCents: 3920,
+    });
     expect(sent.request.headers.get('Idempotency-Key')).toMatch(/^console-/);
-    sent.flush({ order: order({ refundedCents: 3920 }), refund: { id: 9, state: 'succeeded', origin: 'staff', amountCents: 3920, unitsBackOnSale: 1 } });
+    sent.flush({
+      order: order({ refundedCents: 3920 }),
+      refund: { id: 9, state: 'succeeded', origin: 'staff', amountCents: 3920, unitsBackOnSale: 1 },
+    });
     await settle();
     expect(emitted.map((r) => r.id)).toEqual([9]);
   });
@@ -132,7 +180,9 @@ describe('RefundPanel', () => {
   it('should send nothing when the treasurer goes back from the confirmation', async () => {
     await tick(1);
     await submit();
-    http.expectOne('/api/admin/orders/41/refund-preview').flush({ refund: { ...preview, lines: [{ orderItemId: 502, quantity: 1, goodsCents: 3500 }] } });
+    http
+      .expectOne('/api/admin/orders/41/refund-preview')
+      .flush({ refund: { ...preview, lines: [{ orderItemId: 502, quantity: 1, goodsCents: 3500 }] } });
     await settle();
     dialogButton(/Go back/).click();
     await afterDialog();
@@ -145,18 +195,37 @@ describe('RefundPanel', () => {
     expect(el.querySelector('[role=alert]')?.textContent).toMatch(/Tick a line or the shipping, or enter an amount/);
     await tick(0);
     expect(el.querySelector('[role=alert]')?.textContent).toMatch(/Tick a line or the shipping, or enter an amount/);
-    fixture.componentRef.setInput('order', order({ refundedCents: 3920, items: order().items.map((i) => (i.id === 501 ? { ...i, refundedQuantity: 1, unitsToPack: 1 } : i)) }));
+    fixture.componentRef.setInput(
+      'order',
+      order({
+        refundedCents: 3920,
+        items: order().items.map((i) => (i.id === 501 ? { ...i, refundedQuantity: 1, unitsToPack: 1 } : i)),
+      }),
+    );
     await settle();
     expect(el.querySelector('[role=alert]')).toBeNull();
     expect(el.querySelectorAll('mat-error')).toHaveLength(0);
     expect(el.textContent).toContain('1 of 2 left');
-    expect(Array.from(el.querySelectorAll<HTMLInputElement>('fieldset mat-checkbox input[type=checkbox]')).map((c) => c.checked)).toEqual([false, false]);
+    expect(
+      Array.from(el.querySelectorAll<HTMLInputElement>('fieldset mat-checkbox input[type=checkbox]')).map(
+        (c) => c.checked,
+      ),
+    ).toEqual([false, false]);
   });
 
   it('should show the server’s message beside the units of the line it is about', async () => {
     await tick(1);
     await submit();
-    http.expectOne('/api/admin/orders/41/refund-preview').flush({ error: { code: 'over_refund', message: 'Part of that refund was already refunded.', fields: { 'lines.0.quantity': 'This line is already refunded.' } } }, { status: 409, statusText: 'Conflict' });
+    http.expectOne('/api/admin/orders/41/refund-preview').flush(
+      {
+        error: {
+          code: 'over_refund',
+          message: 'Part of that refund was already refunded.',
+          fields: { 'lines.0.quantity': 'This line is already refunded.' },
+        },
+      },
+      { status: 409, statusText: 'Conflict' },
+    );
     await settle();
     expect(el.querySelector('[role=alert]')!.textContent).toContain('Part of that refund was already refunded.');
     expect(el.querySelector('mat-error')!.textContent!.trim()).toBe('This line is already refunded.');

@@ -1,4 +1,14 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  output,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { FormArray, FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { firstValueFrom } from 'rxjs';
 import { MatButtonModule } from '@angular/material/button';
@@ -22,7 +32,15 @@ import { ShopAdminApi } from './shop-admin-api';
  */
 @Component({
   selector: 'ps-refund-panel',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatInputModule,
+    FieldErrorPipe,
+    MoneyPipe,
+  ],
   templateUrl: './refund-panel.html',
   styleUrl: './refund-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -59,7 +77,10 @@ export class RefundPanel {
   }
 
   private lineGroup(open: number) {
-    return this.fb.group({ ticked: [{ value: false, disabled: open === 0 }], quantity: [Math.max(1, open), this.unitRules(open)] });
+    return this.fb.group({
+      ticked: [{ value: false, disabled: open === 0 }],
+      quantity: [Math.max(1, open), this.unitRules(open)],
+    });
   }
 
   private unitRules(open: number) {
@@ -93,19 +114,35 @@ export class RefundPanel {
   private ask(): { ask: RefundInput; formIndex: number[] } | null {
     const v = this.form.getRawValue();
     const ticked = v.lines.map((l, formIndex) => ({ ...l, formIndex })).filter((l) => l.ticked);
-    const lines = ticked.map((l) => ({ orderItemId: this.order().items[l.formIndex].id, quantity: Number(l.quantity) }));
+    const lines = ticked.map((l) => ({
+      orderItemId: this.order().items[l.formIndex].id,
+      quantity: Number(l.quantity),
+    }));
     const byLines = lines.length > 0 || v.shipping;
     if (!byLines && !v.amount) {
       this.problem.set('Tick a line or the shipping, or enter an amount.');
       return null;
     }
-    const ask: RefundInput = { lines, shipping: v.shipping, restock: byLines && v.restock, ...(v.reason.trim() ? { reason: v.reason.trim() } : {}), ...(!byLines ? { amountCents: dollarsToCents(v.amount) } : {}) };
+    const ask: RefundInput = {
+      lines,
+      shipping: v.shipping,
+      restock: byLines && v.restock,
+      ...(v.reason.trim() ? { reason: v.reason.trim() } : {}),
+      ...(!byLines ? { amountCents: dollarsToCents(v.amount) } : {}),
+    };
     return { ask, formIndex: ticked.map((l) => l.formIndex) };
   }
 
   /** Server field names for the sent lines map back to the form's rows (only ticked rows are sent). */
   private renames(formIndex: number[]): Record<string, string> {
-    return Object.fromEntries(formIndex.flatMap((f, sent) => [[`lines.${sent}.quantity`, `lines.${f}.quantity`], [`lines.${sent}.orderItemId`, `lines.${f}.quantity`]]).concat([['amountCents', 'amount']]));
+    return Object.fromEntries(
+      formIndex
+        .flatMap((f, sent) => [
+          [`lines.${sent}.quantity`, `lines.${f}.quantity`],
+          [`lines.${sent}.orderItemId`, `lines.${f}.quantity`],
+        ])
+        .concat([['amountCents', 'amount']]),
+    );
   }
 
   protected async review(): Promise<void> {
@@ -113,7 +150,12 @@ export class RefundPanel {
     this.form.markAllAsTouched();
     // Only ticked lines count: units typed on a line left unticked do not hold the refund up.
     const c = this.form.controls;
-    if (c.amount.invalid || c.reason.invalid || this.lines.controls.some((l) => l.controls.ticked.value && l.controls.quantity.invalid)) return;
+    if (
+      c.amount.invalid ||
+      c.reason.invalid ||
+      this.lines.controls.some((l) => l.controls.ticked.value && l.controls.quantity.invalid)
+    )
+      return;
     const built = this.ask();
     if (!built) return;
     this.busy.set(true);
@@ -125,15 +167,23 @@ export class RefundPanel {
         preview,
         lines: preview.lines.map((l) => {
           const item = items.find((i) => i.id === l.orderItemId)!;
-          return { label: `${item.productName} (${item.variantLabel})`, quantity: l.quantity, goodsCents: l.goodsCents };
+          return {
+            label: `${item.productName} (${item.variantLabel})`,
+            quantity: l.quantity,
+            goodsCents: l.goodsCents,
+          };
         }),
         unitsBackOnSale: built.ask.restock ? preview.lines.reduce((s, l) => s + l.quantity, 0) : 0,
       };
       // One key per confirmed refund: a second click or a retry of this request refunds once.
       const key = newRequestKey();
-      const confirmed = await firstValueFrom(this.dialog.open(RefundConfirmDialog, { data, width: 'min(520px, 96vw)', autoFocus: 'dialog' }).afterClosed());
+      const confirmed = await firstValueFrom(
+        this.dialog.open(RefundConfirmDialog, { data, width: 'min(520px, 96vw)', autoFocus: 'dialog' }).afterClosed(),
+      );
       if (!confirmed) return;
-      const done = await firstValueFrom(this.api.refund(this.order().id, { ...built.ask, amountCents: preview.totalCents }, key));
+      const done = await firstValueFrom(
+        this.api.refund(this.order().id, { ...built.ask, amountCents: preview.totalCents }, key),
+      );
       this.refunded.emit(done.refund);
     } catch (err) {
       this.problem.set(applyServerErrors(this.form, err, this.renames(built.formIndex)));

@@ -91,15 +91,22 @@ export class ShopAdminApi {
   }
   /** Marks a packed order shipped with its carrier and tracking number; the buyer is e-mailed. */
   ship(id: number, body: ShipInput): Observable<StaffOrder> {
-    return this.http.post<{ order: StaffOrder }>(`/api/admin/orders/${id}/ship`, body, quiet()).pipe(map((r) => r.order));
+    return this.http
+      .post<{ order: StaffOrder }>(`/api/admin/orders/${id}/ship`, body, quiet())
+      .pipe(map((r) => r.order));
   }
   /** What the refund would come to; nothing moves. */
   refundPreview(id: number, body: RefundInput): Observable<RefundPreview> {
-    return this.http.post<{ refund: RefundPreview }>(`/api/admin/orders/${id}/refund-preview`, body, quiet()).pipe(map((r) => r.refund));
+    return this.http
+      .post<{ refund: RefundPreview }>(`/api/admin/orders/${id}/refund-preview`, body, quiet())
+      .pipe(map((r) => r.refund));
   }
   /** Refunds; `key` is the Idempotency-Key of this one refund, so a retried click never refunds twice. */
   refund(id: number, body: RefundInput, key: string): Observable<{ order: StaffOrder; refund: StaffRefund }> {
-    return this.http.post<{ order: StaffOrder; refund: StaffRefund }>(`/api/admin/orders/${id}/refund`, body, { ...quiet(), headers: { 'Idempotency-Key': key } });
+    return this.http.post<{ order: StaffOrder; refund: StaffRefund }>(`/api/admin/orders/${id}/refund`, body, {
+      ...quiet(),
+      headers: { 'Idempotency-Key': key },
+    });
   }
   /** Every product, inactive ones included, and the club time zone its windows are typed in. */
   products(): Observable<{ items: (Product & { active: boolean })[]; timeZone: string }> {
@@ -141,14 +148,22 @@ export class ShopAdminApi {
   }
   /** Saves the shop settings; refusals come back for the fields. */
   saveSettings(s: ShopSettings): Observable<ShopSettings> {
-    return this.http.put<{ settings: ShopSettings }>('/api/admin/shop/settings', s, quiet()).pipe(map((r) => r.settings));
+    return this.http
+      .put<{ settings: ShopSettings }>('/api/admin/shop/settings', s, quiet())
+      .pipe(map((r) => r.settings));
   }
   /** Every shipping method with its weight brackets. */
   shippingMethods(): Observable<StaffShippingMethod[]> {
-    return this.http.get<{ items: StaffShippingMethod[] }>('/api/admin/shop/shipping-methods').pipe(map((r) => r.items));
+    return this.http
+      .get<{ items: StaffShippingMethod[] }>('/api/admin/shop/shipping-methods')
+      .pipe(map((r) => r.items));
   }
   /** Saves a shipping method's name, brackets and on/off switch. */
   saveShippingMethod(m: StaffShippingMethod): Observable<unknown> {
-    return this.http.put(`/api/admin/shop/shipping-methods/${m.id}`, { name: m.name, brackets: m.brackets, active: m.active }, quiet());
+    return this.http.put(
+      `/api/admin/shop/shipping-methods/${m.id}`,
+      { name: m.name, brackets: m.brackets, active: m.active },
+      quiet(),
+    );
   }
 }

@@ -12,11 +12,37 @@ import type { AdminSponsorRow } from '@contracts/sponsors/sponsor-answers';
 import { CreditDialog, type CreditDialogData } from './credit-dialog';
 
 const sponsor = { id: 7, slug: 'voltwhistle-electronics', name: 'Voltwhistle Electronics' } as AdminSponsorRow;
-const line = (id: number, kind: string, promised: number, delivered: number, dueOn: string) => ({ id, kind, promised, delivered, dueOn, overdue: false, listedNow: false });
+const line = (id: number, kind: string, promised: number, delivered: number, dueOn: string) => ({
+  id,
+  kind,
+  promised,
+  delivered,
+  dueOn,
+  overdue: false,
+  listedNow: false,
+});
 const ledger = {
   agreements: [
-    { id: 2, season: '2027', deliverables: [line(31, 'build_log_credit', 2, 0, '2027-06-30')], byKind: [], overdue: [], nextDue: null },
-    { id: 1, season: '2026', deliverables: [line(11, 'build_log_credit', 1, 1, '2026-05-31'), line(12, 'build_log_credit', 3, 1, '2026-12-31'), line(13, 'video_mention', 1, 0, '2026-10-31')], byKind: [], overdue: [], nextDue: null },
+    {
+      id: 2,
+      season: '2027',
+      deliverables: [line(31, 'build_log_credit', 2, 0, '2027-06-30')],
+      byKind: [],
+      overdue: [],
+      nextDue: null,
+    },
+    {
+      id: 1,
+      season: '2026',
+      deliverables: [
+        line(11, 'build_log_credit', 1, 1, '2026-05-31'),
+        line(12, 'build_log_credit', 3, 1, '2026-12-31'),
+        line(13, 'video_mention', 1, 0, '2026-10-31'),
+      ],
+      byKind: [],
+      overdue: [],
+      nextDue: null,
+    },
   ],
 };
 
@@ -25,7 +51,12 @@ describe('CreditDialog', () => {
   beforeEach(() => {
     close.mockReset();
     TestBed.configureTestingModule({
-      providers: [provideHttpClient(), provideHttpClientTesting(), { provide: MatDialogRef, useValue: { close } }, { provide: MAT_DIALOG_DATA, useValue: { sponsors: [sponsor] } satisfies CreditDialogData }],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MatDialogRef, useValue: { close } },
+        { provide: MAT_DIALOG_DATA, useValue: { sponsors: [sponsor] } satisfies CreditDialogData },
+      ],
     });
   });
 
@@ -48,7 +79,10 @@ describe('CreditDialog', () => {
   it('should offer the open build-log promises, earliest due first and preselected', async () => {
     const { choice } = await pickSponsor();
     const labels = await Promise.all((await choice.getRadioButtons()).map((r) => r.getLabelText()));
-    expect(labels).toEqual(['2026 build log credits: 1 of 3 delivered, due Dec 31, 2026', '2027 build log credits: 0 of 2 delivered, due Jun 30, 2027']);
+    expect(labels).toEqual([
+      '2026 build log credits: 1 of 3 delivered, due Dec 31, 2026',
+      '2027 build log credits: 0 of 2 delivered, due Jun 30, 2027',
+    ]);
     expect(await choice.getCheckedValue()).toBe('12');
   });
 

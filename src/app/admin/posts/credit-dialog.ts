@@ -26,9 +26,35 @@ export interface CreditDialogData {
  */
 @Component({
   selector: 'ps-credit-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, ClubDatePipe, FieldErrorPipe],
+  imports: [
+    ReactiveFormsModule,
+    MatDialogModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatRadioModule,
+    MatSelectModule,
+    ClubDatePipe,
+    FieldErrorPipe,
+  ],
   templateUrl: './credit-dialog.html',
-  styles: `.counted, .promise-choice { margin: 0 0 16px; } .promises { display: flex; flex-direction: column; } .promises-label { margin: 0 0 4px; font-weight: 500; } mat-form-field { width: 100%; }`,
+  styles: `
+    .counted,
+    .promise-choice {
+      margin: 0 0 16px;
+    }
+    .promises {
+      display: flex;
+      flex-direction: column;
+    }
+    .promises-label {
+      margin: 0 0 4px;
+      font-weight: 500;
+    }
+    mat-form-field {
+      width: 100%;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CreditDialog {
@@ -46,7 +72,8 @@ export class CreditDialog {
   /** The chosen sponsor's open build-log promises, earliest due first. */
   protected readonly promises = rxResource<OpenPromise[] | undefined, number>({
     params: () => this.sponsorId(),
-    stream: ({ params }) => (params ? this.api.ledger(params).pipe(map((l) => openPromises(l.agreements))) : of(undefined)),
+    stream: ({ params }) =>
+      params ? this.api.ledger(params).pipe(map((l) => openPromises(l.agreements))) : of(undefined),
   });
   protected readonly chosen = computed(() => this.data.sponsors.find((s) => s.id === this.sponsorId()) ?? null);
 

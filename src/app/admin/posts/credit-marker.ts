@@ -19,7 +19,14 @@ export function openPromises(agreements: readonly StaffAgreement[]): OpenPromise
     .flatMap((a) => a.deliverables.map((d) => ({ ...d, season: a.season })))
     .filter((d) => d.kind === 'build_log_credit' && d.delivered < d.promised)
     .sort((a, b) => a.dueOn.localeCompare(b.dueOn) || a.id - b.id)
-    .map((d) => ({ deliverableId: d.id, season: d.season, promised: d.promised, delivered: d.delivered, dueOn: d.dueOn, overdue: d.overdue }));
+    .map((d) => ({
+      deliverableId: d.id,
+      season: d.season,
+      promised: d.promised,
+      delivered: d.delivered,
+      dueOn: d.dueOn,
+      overdue: d.overdue,
+    }));
 }
 
 /**

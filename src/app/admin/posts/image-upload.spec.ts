@@ -8,7 +8,9 @@ describe('ImageUpload', () => {
 
   const pick = (fixture: ReturnType<typeof TestBed.createComponent<ImageUpload>>) => {
     const input = fixture.nativeElement.querySelector('input[type=file]') as HTMLInputElement;
-    Object.defineProperty(input, 'files', { value: [new File([new Uint8Array(10)], 'fin.png', { type: 'image/png' })] });
+    Object.defineProperty(input, 'files', {
+      value: [new File([new Uint8Array(10)], 'fin.png', { type: 'image/png' })],
+    });
     input.dispatchEvent(new Event('change'));
   };
 
@@ -36,8 +38,13 @@ describe('ImageUpload', () => {
     pick(fixture);
     TestBed.inject(HttpTestingController)
       .expectOne('/api/admin/uploads')
-      .flush({ error: { code: 'unsupported_file', message: 'Upload a JPEG, PNG, WebP or GIF image.' } }, { status: 415, statusText: 'Unsupported Media Type' });
+      .flush(
+        { error: { code: 'unsupported_file', message: 'Upload a JPEG, PNG, WebP or GIF image.' } },
+        { status: 415, statusText: 'Unsupported Media Type' },
+      );
     await fixture.whenStable();
-    expect(fixture.nativeElement.querySelector('[role=alert]').textContent).toContain('Upload a JPEG, PNG, WebP or GIF image.');
+    expect(fixture.nativeElement.querySelector('[role=alert]').textContent).toContain(
+      'Upload a JPEG, PNG, WebP or GIF image.',
+    );
   });
 });

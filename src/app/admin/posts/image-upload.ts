@@ -12,10 +12,24 @@ import { PostAdminApi } from './post-admin-api';
   imports: [MatButtonModule, MatIconModule, MatProgressBarModule],
   template: `
     <div class="upload">
-      <input #picker type="file" accept="image/jpeg,image/png,image/webp,image/gif" (change)="send(picker)" class="ps-visually-hidden" [attr.aria-label]="label()" [id]="inputId()" />
-      <button mat-stroked-button type="button" (click)="picker.click()" [disabled]="progress() !== null"><mat-icon>upload</mat-icon> {{ label() }}</button>
+      <input
+        #picker
+        type="file"
+        accept="image/jpeg,image/png,image/webp,image/gif"
+        (change)="send(picker)"
+        class="ps-visually-hidden"
+        [attr.aria-label]="label()"
+        [id]="inputId()"
+      />
+      <button mat-stroked-button type="button" (click)="picker.click()" [disabled]="progress() !== null">
+        <mat-icon>upload</mat-icon> {{ label() }}
+      </button>
       @if (progress() !== null) {
-        <mat-progress-bar mode="determinate" [value]="progress()" [attr.aria-label]="'Uploading: ' + progress() + '%'" />
+        <mat-progress-bar
+          mode="determinate"
+          [value]="progress()"
+          [attr.aria-label]="'Uploading: ' + progress() + '%'"
+        />
         <span class="pct" aria-live="polite">{{ progress() }}%</span>
       }
       @if (problem(); as message) {
@@ -23,7 +37,20 @@ import { PostAdminApi } from './post-admin-api';
       }
     </div>
   `,
-  styles: `.upload { display: flex; align-items: center; gap: 12px; flex-wrap: wrap; } mat-progress-bar { width: 180px; } .pct { font-variant-numeric: tabular-nums; }`,
+  styles: `
+    .upload {
+      display: flex;
+      align-items: center;
+      gap: 12px;
+      flex-wrap: wrap;
+    }
+    mat-progress-bar {
+      width: 180px;
+    }
+    .pct {
+      font-variant-numeric: tabular-nums;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ImageUpload {
@@ -44,7 +71,8 @@ export class ImageUpload {
     this.progress.set(0);
     this.api.upload(file).subscribe({
       next: (e) => {
-        if (e.type === HttpEventType.UploadProgress) this.progress.set(e.total ? Math.round((100 * e.loaded) / e.total) : 0);
+        if (e.type === HttpEventType.UploadProgress)
+          this.progress.set(e.total ? Math.round((100 * e.loaded) / e.total) : 0);
         if (e.type === HttpEventType.Response && e.body) {
           this.progress.set(null);
           this.uploaded.emit(e.body.url);

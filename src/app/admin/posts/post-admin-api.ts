@@ -5,7 +5,6 @@ import { QUIET_ERRORS } from '../../core/error-interceptor';
 import type { AdminPost, AdminPostRow, PostPage, PostPreview } from '@contracts/build-logs/post-answers';
 import type { AdminPostListParams, PostBodyInput, PostPreviewInput } from '@contracts/build-logs/post-schemas';
 
-
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
 /** The editors' post endpoints and the shared image upload. */
@@ -45,6 +44,10 @@ export class PostAdminApi {
   upload(file: File): Observable<HttpEvent<{ url: string; thumbnailUrl: string }>> {
     const form = new FormData();
     form.append('file', file, file.name);
-    return this.http.post<{ url: string; thumbnailUrl: string }>('/api/admin/uploads', form, { reportProgress: true, observe: 'events', ...quiet() });
+    return this.http.post<{ url: string; thumbnailUrl: string }>('/api/admin/uploads', form, {
+      reportProgress: true,
+      observe: 'events',
+      ...quiet(),
+    });
   }
 }

@@ -1,4 +1,13 @@
-import { ChangeDetectionStrategy, Component, ElementRef, computed, inject, input, signal, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  computed,
+  inject,
+  input,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { rxResource, takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { DomSanitizer } from '@angular/platform-browser';
@@ -28,7 +37,20 @@ import { PostAdminApi } from './post-admin-api';
 /** Writes a build log: Markdown with the live preview from the server's pipeline, images, credits, schedule, publish. */
 @Component({
   selector: 'ps-post-editor',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, FieldErrorPipe, LabelPipe, ImageUpload, HazardNotice],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatSelectModule,
+    FieldErrorPipe,
+    LabelPipe,
+    ImageUpload,
+    HazardNotice,
+  ],
   templateUrl: './post-editor.html',
   styleUrl: './post-editor.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -64,12 +86,25 @@ export class PostEditor {
   protected readonly sponsors = rxResource({ stream: () => this.sponsorsApi.list() });
   protected readonly status = computed(() => this.loaded()?.status ?? 'draft');
 
-  private readonly formValue = toSignal(this.form.valueChanges.pipe(startWith(this.form.getRawValue())), { initialValue: this.form.getRawValue() });
+  private readonly formValue = toSignal(this.form.valueChanges.pipe(startWith(this.form.getRawValue())), {
+    initialValue: this.form.getRawValue(),
+  });
   /** The preview follows the text after a short pause, through the same server pipeline as the public page. */
   protected readonly preview = toSignal(
-    toObservable(computed(() => ({ markdown: this.formValue().markdown ?? '', title: this.formValue().title ?? '', summary: this.formValue().summary ?? '', tags: this.tagList(this.formValue().tags ?? '') }))).pipe(
+    toObservable(
+      computed(() => ({
+        markdown: this.formValue().markdown ?? '',
+        title: this.formValue().title ?? '',
+        summary: this.formValue().summary ?? '',
+        tags: this.tagList(this.formValue().tags ?? ''),
+      })),
+    ).pipe(
       debounceTime(300),
-      switchMap((v) => (v.markdown.trim() ? this.api.preview(v).pipe(catchError(() => of(null))) : of({ html: '', hazardNotice: false, unknownSponsors: [] }))),
+      switchMap((v) =>
+        v.markdown.trim()
+          ? this.api.preview(v).pipe(catchError(() => of(null)))
+          : of({ html: '', hazardNotice: false, unknownSponsors: [] }),
+      ),
     ),
     { initialValue: null },
   );
@@ -78,7 +113,9 @@ export class PostEditor {
     // Sanitized on the server by the one pipeline; Angular's sanitizer would drop task-list checkboxes.
     return this.dom.bypassSecurityTrustHtml(html);
   });
-  protected readonly hazardRequired = computed(() => this.preview()?.hazardNotice ?? this.loaded()?.hazardRequired ?? false);
+  protected readonly hazardRequired = computed(
+    () => this.preview()?.hazardNotice ?? this.loaded()?.hazardRequired ?? false,
+  );
 
   constructor() {
     toObservable(this.id)
@@ -108,7 +145,11 @@ export class PostEditor {
   /** Asks which sponsor to thank (and the note), then puts the credit line on a line of its own at the cursor. */
   protected async thankSponsor(): Promise<void> {
     const data: CreditDialogData = { sponsors: this.sponsors.value()?.items ?? [] };
-    const line = await firstValueFrom(this.dialog.open<CreditDialog, CreditDialogData, string>(CreditDialog, { data, width: 'min(520px, 96vw)' }).afterClosed());
+    const line = await firstValueFrom(
+      this.dialog
+        .open<CreditDialog, CreditDialogData, string>(CreditDialog, { data, width: 'min(520px, 96vw)' })
+        .afterClosed(),
+    );
     if (line) this.insertAtCursor(`\n${line}\n`);
   }
 
@@ -138,12 +179,17 @@ export class PostEditor {
     try {
       const current = this.loaded();
       const res = await firstValueFrom(current ? this.api.update(current.id, body) : this.api.create(body));
-      const words = { draft: current?.status === 'published' ? 'Unpublished; credits withdrawn.' : 'Draft saved.', scheduled: 'Scheduled.', published: 'Published.' }[status];
+      const words = {
+        draft: current?.status === 'published' ? 'Unpublished; credits withdrawn.' : 'Draft saved.',
+        scheduled: 'Scheduled.',
+        published: 'Published.',
+      }[status];
       this.snackBar.open(words, undefined, { duration: 4000 });
       this.loaded.set(await firstValueFrom(this.api.get(res.id)));
       if (!current) await this.router.navigate(['/console/posts', res.id], { replaceUrl: true });
     } catch (err) {
-      if (status === 'scheduled' && !v.publishAt) this.form.controls.publishAt.setErrors({ server: 'Pick a date and time.' });
+      if (status === 'scheduled' && !v.publishAt)
+        this.form.controls.publishAt.setErrors({ server: 'Pick a date and time.' });
       this.problem.set(applyServerErrors(this.form, err));
     } finally {
       this.busy.set(false);

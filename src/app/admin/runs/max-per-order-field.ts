@@ -8,7 +8,12 @@ import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { ShopAdminApi } from '../orders/shop-admin-api';
 
 /** The most units of a product one order may hold; the server's bounds, checked here first. */
-export const MAX_PER_ORDER_VALIDATORS = [Validators.required, Validators.min(1), Validators.max(100), Validators.pattern(/^\d+$/)];
+export const MAX_PER_ORDER_VALIDATORS = [
+  Validators.required,
+  Validators.min(1),
+  Validators.max(100),
+  Validators.pattern(/^\d+$/),
+];
 
 /** One product's per-order limit in the products table: saved when the field is left or Enter is pressed. */
 @Component({
@@ -18,12 +23,25 @@ export const MAX_PER_ORDER_VALIDATORS = [Validators.required, Validators.min(1),
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-form-field subscriptSizing="dynamic" class="limit">
         <mat-label>Per order</mat-label>
-        <input matInput type="number" min="1" max="100" step="1" formControlName="maxPerOrder" (blur)="save()" [attr.aria-label]="'Most units per order: ' + productName()" />
+        <input
+          matInput
+          type="number"
+          min="1"
+          max="100"
+          step="1"
+          formControlName="maxPerOrder"
+          (blur)="save()"
+          [attr.aria-label]="'Most units per order: ' + productName()"
+        />
         <mat-error>{{ form.controls.maxPerOrder | fieldError: 'Per-order limit' }}</mat-error>
       </mat-form-field>
     </form>
   `,
-  styles: `.limit { width: 120px; }`,
+  styles: `
+    .limit {
+      width: 120px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class MaxPerOrderField {

@@ -22,9 +22,62 @@ import { MAX_PER_ORDER_VALIDATORS, MaxPerOrderField } from './max-per-order-fiel
 /** Products for staff: the list, on/off sale, and a form for a new product with its sizes and optional limited run. */
 @Component({
   selector: 'ps-product-admin',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, FieldErrorPipe, MoneyPipe, MaxPerOrderField],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatInputModule,
+    FieldErrorPipe,
+    MoneyPipe,
+    MaxPerOrderField,
+  ],
   templateUrl: './product-admin.html',
-  styles: `.ps-page { max-width: none; } .table-scroll { overflow-x: auto; max-width: 100%; } table { width: 100%; border-collapse: collapse; } th, td { text-align: left; padding: 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); } .grid { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 0 16px; } label.upload { margin-left: 8px; cursor: pointer; text-decoration: underline; } label.upload input { position: absolute; width: 1px; height: 1px; opacity: 0; } label.upload:focus-within { outline: 2px solid var(--ps-igniter); } fieldset { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; padding: 12px 16px; margin: 0 0 16px; }`,
+  styles: `
+    .ps-page {
+      max-width: none;
+    }
+    .table-scroll {
+      overflow-x: auto;
+      max-width: 100%;
+    }
+    table {
+      width: 100%;
+      border-collapse: collapse;
+    }
+    th,
+    td {
+      text-align: left;
+      padding: 6px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+    .grid {
+      display: grid;
+      grid-template-columns: repeat(auto-fill, minmax(200px, 1fr));
+      gap: 0 16px;
+    }
+    label.upload {
+      margin-left: 8px;
+      cursor: pointer;
+      text-decoration: underline;
+    }
+    label.upload input {
+      position: absolute;
+      width: 1px;
+      height: 1px;
+      opacity: 0;
+    }
+    label.upload:focus-within {
+      outline: 2px solid var(--ps-igniter);
+    }
+    fieldset {
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 12px;
+      padding: 12px 16px;
+      margin: 0 0 16px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ProductAdmin {
@@ -65,7 +118,11 @@ export class ProductAdmin {
     if (!file) return;
     try {
       const stored = await firstValueFrom(this.api.uploadImage(file));
-      await firstValueFrom(this.api.editProduct(p.id, { images: [...p.images, { url: stored.url, thumbnailUrl: stored.thumbnailUrl, alt: p.name }] }));
+      await firstValueFrom(
+        this.api.editProduct(p.id, {
+          images: [...p.images, { url: stored.url, thumbnailUrl: stored.thumbnailUrl, alt: p.name }],
+        }),
+      );
       this.snackBar.open(`Image added to ${p.name}.`, undefined, { duration: 3000 });
       this.products.reload();
     } finally {
@@ -85,8 +142,20 @@ export class ProductAdmin {
       priceCents: dollarsToCents(v.price),
       weightGrams: Number(v.weightGrams),
       maxPerOrder: Number(v.maxPerOrder),
-      variants: v.sizes.split(',').map((s) => s.trim()).filter(Boolean).map((label) => ({ label, ...(v.limited ? {} : { stock: 0 }) })),
-      ...(v.limited ? { run: { cap: Number(v.cap), opensAt: wallTimeToIso(v.opensAt, zone), closesAt: wallTimeToIso(v.closesAt, zone) } } : {}),
+      variants: v.sizes
+        .split(',')
+        .map((s) => s.trim())
+        .filter(Boolean)
+        .map((label) => ({ label, ...(v.limited ? {} : { stock: 0 }) })),
+      ...(v.limited
+        ? {
+            run: {
+              cap: Number(v.cap),
+              opensAt: wallTimeToIso(v.opensAt, zone),
+              closesAt: wallTimeToIso(v.closesAt, zone),
+            },
+          }
+        : {}),
     };
     try {
       await firstValueFrom(this.api.createProduct(body));
@@ -94,7 +163,15 @@ export class ProductAdmin {
       this.form.reset();
       this.products.reload();
     } catch (err) {
-      this.problem.set(applyServerErrors(this.form, err, { priceCents: 'price', variants: 'sizes', 'run.cap': 'cap', 'run.opensAt': 'opensAt', 'run.closesAt': 'closesAt' }));
+      this.problem.set(
+        applyServerErrors(this.form, err, {
+          priceCents: 'price',
+          variants: 'sizes',
+          'run.cap': 'cap',
+          'run.opensAt': 'opensAt',
+          'run.closesAt': 'closesAt',
+        }),
+      );
     }
   }
 }

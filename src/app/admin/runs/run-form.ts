@@ -22,7 +22,19 @@ const CAP = [Validators.pattern(/^\d{0,6}$/)];
   selector: 'ps-run-form',
   imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe],
   templateUrl: './run-form.html',
-  styles: `.grid { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 0 16px; } fieldset { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; padding: 12px 16px; margin: 0 0 16px; }`,
+  styles: `
+    .grid {
+      display: grid;
+      grid-template-columns: repeat(auto-fill, minmax(200px, 1fr));
+      gap: 0 16px;
+    }
+    fieldset {
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 12px;
+      padding: 12px 16px;
+      margin: 0 0 16px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class RunForm {
@@ -78,7 +90,9 @@ export class RunForm {
           opensAt: wallTimeToIso(v.opensAt, this.timeZone()),
           closesAt: wallTimeToIso(v.closesAt, this.timeZone()),
           ...(v.unitCost ? { unitCostCents: dollarsToCents(v.unitCost) } : {}),
-          variantCaps: v.variantCaps.filter((c) => c.cap !== '').map((c) => ({ variantId: c.variantId, cap: Number(c.cap) })),
+          variantCaps: v.variantCaps
+            .filter((c) => c.cap !== '')
+            .map((c) => ({ variantId: c.variantId, cap: Number(c.cap) })),
         }),
       );
       this.snackBar.open(`${run.name} added.`, undefined, { duration: 3000 });

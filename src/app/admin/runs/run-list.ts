@@ -21,16 +21,32 @@ import { RunForm } from './run-form';
       @if (runs.value(); as items) {
         @if (items.length) {
           <table>
-            <caption class="ps-visually-hidden">Limited runs</caption>
-            <thead><tr><th scope="col">Run</th><th scope="col">State</th><th scope="col">Sold</th><th scope="col">Window</th><th scope="col">Actions</th></tr></thead>
+            <caption class="ps-visually-hidden">
+              Limited runs
+            </caption>
+            <thead>
+              <tr>
+                <th scope="col">Run</th>
+                <th scope="col">State</th>
+                <th scope="col">Sold</th>
+                <th scope="col">Window</th>
+                <th scope="col">Actions</th>
+              </tr>
+            </thead>
             <tbody>
               @for (r of items; track r.id) {
                 <tr>
-                  <td><strong>{{ r.name }}</strong><br /><small>{{ r.productName }}</small></td>
+                  <td>
+                    <strong>{{ r.name }}</strong><br /><small>{{ r.productName }}</small>
+                  </td>
                   <td>{{ r.state | label: stateLabels }}</td>
                   <td>
                     {{ r.reserved }} of {{ r.cap }}
-                    <mat-progress-bar mode="determinate" [value]="(100 * r.reserved) / r.cap" [attr.aria-label]="r.reserved + ' of ' + r.cap + ' sold'" />
+                    <mat-progress-bar
+                      mode="determinate"
+                      [value]="(100 * r.reserved) / r.cap"
+                      [attr.aria-label]="r.reserved + ' of ' + r.cap + ' sold'"
+                    />
                   </td>
                   <td>{{ r.opensAt | clubDate }} – {{ r.closesAt | clubDate }}</td>
                   <td>
@@ -52,7 +68,26 @@ import { RunForm } from './run-form';
       }
     </section>
   `,
-  styles: `.ps-page { max-width: none; } table { width: 100%; border-collapse: collapse; } th, td { text-align: left; padding: 8px 6px; border-bottom: 1px solid var(--mat-sys-outline-variant); vertical-align: top; } mat-progress-bar { max-width: 160px; margin-top: 4px; }`,
+  styles: `
+    .ps-page {
+      max-width: none;
+    }
+    table {
+      width: 100%;
+      border-collapse: collapse;
+    }
+    th,
+    td {
+      text-align: left;
+      padding: 8px 6px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+      vertical-align: top;
+    }
+    mat-progress-bar {
+      max-width: 160px;
+      margin-top: 4px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class RunList {

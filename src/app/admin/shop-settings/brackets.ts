@@ -8,12 +8,17 @@ export interface Bracket {
 
 /** Brackets to the text form staff edit. */
 export function formatBrackets(brackets: Bracket[]): string {
-  return brackets.map((b) => `${b.maxGrams === null ? 'any' : `${b.maxGrams} g`}: ${centsToDollars(b.priceCents)}`).join(', ');
+  return brackets
+    .map((b) => `${b.maxGrams === null ? 'any' : `${b.maxGrams} g`}: ${centsToDollars(b.priceCents)}`)
+    .join(', ');
 }
 
 /** The text form back to brackets; null when any part does not read. */
 export function parseBrackets(text: string): Bracket[] | null {
-  const parts = text.split(',').map((p) => p.trim()).filter(Boolean);
+  const parts = text
+    .split(',')
+    .map((p) => p.trim())
+    .filter(Boolean);
   const out: Bracket[] = [];
   for (const p of parts) {
     const m = /^(any|(\d{1,6})\s*g?)\s*:\s*\$?(\d{1,5}(?:\.\d{1,2})?)$/i.exec(p);

@@ -20,9 +20,45 @@ const PROVINCES = ['AB', 'BC', 'MB', 'NB', 'NL', 'NS', 'NT', 'NU', 'ON', 'PE', '
 /** Shop settings: tax position, member discount, printer rules, shipping methods and their weight brackets. */
 @Component({
   selector: 'ps-shop-settings',
-  imports: [ReactiveFormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, LabelPipe],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    FieldErrorPipe,
+    LabelPipe,
+  ],
   templateUrl: './shop-settings.html',
-  styles: `.grid { display: grid; grid-template-columns: repeat(auto-fill, minmax(220px, 1fr)); gap: 0 16px; } fieldset { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; margin: 0 0 20px; padding: 12px 16px; } legend { font-weight: 600; padding: 0 6px; } .method { display: grid; grid-template-columns: 1fr 2fr auto auto; gap: 12px; align-items: center; } @media (max-width: 800px) { .method { grid-template-columns: 1fr; } }`,
+  styles: `
+    .grid {
+      display: grid;
+      grid-template-columns: repeat(auto-fill, minmax(220px, 1fr));
+      gap: 0 16px;
+    }
+    fieldset {
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 12px;
+      margin: 0 0 20px;
+      padding: 12px 16px;
+    }
+    legend {
+      font-weight: 600;
+      padding: 0 6px;
+    }
+    .method {
+      display: grid;
+      grid-template-columns: 1fr 2fr auto auto;
+      gap: 12px;
+      align-items: center;
+    }
+    @media (max-width: 800px) {
+      .method {
+        grid-template-columns: 1fr;
+      }
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ShopSettingsPage {
@@ -64,8 +100,24 @@ export class ShopSettingsPage {
   private async load(): Promise<void> {
     const s = await firstValueFrom(this.api.settings());
     const n = s.provincialTaxNumbers ?? {};
-    this.form.patchValue({ ...s, taxNumberBC: n['BC'] ?? '', taxNumberMB: n['MB'] ?? '', taxNumberQC: n['QC'] ?? '', taxNumberSK: n['SK'] ?? '', shippingBC: !!s.provincialTaxOnShipping['BC'], shippingMB: !!s.provincialTaxOnShipping['MB'], shippingQC: !!s.provincialTaxOnShipping['QC'], shippingSK: !!s.provincialTaxOnShipping['SK'] });
-    this.methods.set((await firstValueFrom(this.api.shippingMethods())).map((m) => ({ ...m, text: formatBrackets(m.brackets), problem: null })));
+    this.form.patchValue({
+      ...s,
+      taxNumberBC: n['BC'] ?? '',
+      taxNumberMB: n['MB'] ?? '',
+      taxNumberQC: n['QC'] ?? '',
+      taxNumberSK: n['SK'] ?? '',
+      shippingBC: !!s.provincialTaxOnShipping['BC'],
+      shippingMB: !!s.provincialTaxOnShipping['MB'],
+      shippingQC: !!s.provincialTaxOnShipping['QC'],
+      shippingSK: !!s.provincialTaxOnShipping['SK'],
+    });
+    this.methods.set(
+      (await firstValueFrom(this.api.shippingMethods())).map((m) => ({
+        ...m,
+        text: formatBrackets(m.brackets),
+        problem: null,
+      })),
+    );
   }
 
   protected async save(): Promise<void> {
@@ -76,10 +128,24 @@ export class ShopSettingsPage {
     try {
       await firstValueFrom(
         this.api.saveSettings({
-          sellerProvince: v.sellerProvince, sellerName: v.sellerName, gstHstRegistered: v.gstHstRegistered, gstHstNumber: v.gstHstNumber, provincialRegistrations: v.provincialRegistrations,
-          provincialTaxNumbers: taxNumbersFromForm({ BC: v.taxNumberBC, MB: v.taxNumberMB, QC: v.taxNumberQC, SK: v.taxNumberSK }),
+          sellerProvince: v.sellerProvince,
+          sellerName: v.sellerName,
+          gstHstRegistered: v.gstHstRegistered,
+          gstHstNumber: v.gstHstNumber,
+          provincialRegistrations: v.provincialRegistrations,
+          provincialTaxNumbers: taxNumbersFromForm({
+            BC: v.taxNumberBC,
+            MB: v.taxNumberMB,
+            QC: v.taxNumberQC,
+            SK: v.taxNumberSK,
+          }),
           provincialTaxOnShipping: { BC: v.shippingBC, MB: v.shippingMB, QC: v.shippingQC, SK: v.shippingSK },
-          memberDiscountPercent: Number(v.memberDiscountPercent), sparesPercent: Number(v.sparesPercent), packMultiple: Number(v.packMultiple), minimumPerDesign: Number(v.minimumPerDesign), staffEmail: v.staffEmail, carrier: v.carrier,
+          memberDiscountPercent: Number(v.memberDiscountPercent),
+          sparesPercent: Number(v.sparesPercent),
+          packMultiple: Number(v.packMultiple),
+          minimumPerDesign: Number(v.minimumPerDesign),
+          staffEmail: v.staffEmail,
+          carrier: v.carrier,
         }),
       );
       this.snackBar.open('Shop settings saved.', undefined, { duration: 3000 });
@@ -96,7 +162,11 @@ export class ShopSettingsPage {
     const m = this.methods().find((x) => x.id === id)!;
     const brackets = parseBrackets(m.text);
     if (!brackets) {
-      this.methods.update((l) => l.map((x) => (x.id === id ? { ...x, problem: 'Write brackets like "500 g: 9.00, 1500 g: 14.00, any: 22.00".' } : x)));
+      this.methods.update((l) =>
+        l.map((x) =>
+          x.id === id ? { ...x, problem: 'Write brackets like "500 g: 9.00, 1500 g: 14.00, any: 22.00".' } : x,
+        ),
+      );
       return;
     }
     try {
@@ -104,7 +174,9 @@ export class ShopSettingsPage {
       this.methods.update((l) => l.map((x) => (x.id === id ? { ...x, brackets, problem: null } : x)));
       this.snackBar.open(`${m.name} saved.`, undefined, { duration: 3000 });
     } catch {
-      this.methods.update((l) => l.map((x) => (x.id === id ? { ...x, problem: 'Not saved: check the name and brackets.' } : x)));
+      this.methods.update((l) =>
+        l.map((x) => (x.id === id ? { ...x, problem: 'Not saved: check the name and brackets.' } : x)),
+      );
     }
   }
 }

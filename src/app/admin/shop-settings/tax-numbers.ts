@@ -8,4 +8,6 @@ export function taxNumbersFromForm(fields: Record<OwnTaxProvince, string>): Reco
 }
 
 /** The API's field names (`provincialTaxNumbers.MB`) onto the controls that edit them (`taxNumberMB`). */
-export const TAX_NUMBER_FIELDS: Record<string, string> = Object.fromEntries(OWN_TAX.map((p) => [`provincialTaxNumbers.${p}`, `taxNumber${p}`]));
+export const TAX_NUMBER_FIELDS: Record<string, string> = Object.fromEntries(
+  OWN_TAX.map((p) => [`provincialTaxNumbers.${p}`, `taxNumber${p}`]),
+);

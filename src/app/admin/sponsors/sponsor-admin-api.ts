@@ -29,7 +29,10 @@ export class SponsorAdminApi {
     return this.http.get<SponsorDetail>(`/api/admin/sponsors/${id}`);
   }
   /** Saves a sponsor's name, website, blurb and logo. */
-  update(id: number, body: { name: string; website: string; blurb: string; logoUrl: string | null }): Observable<unknown> {
+  update(
+    id: number,
+    body: { name: string; website: string; blurb: string; logoUrl: string | null },
+  ): Observable<unknown> {
     return this.http.put(`/api/admin/sponsors/${id}`, body, quiet());
   }
   /** A sponsor's agreements with what each promised and what was delivered. */
@@ -41,8 +44,15 @@ export class SponsorAdminApi {
     return this.http.post<{ id: number }>(`/api/admin/sponsors/${id}/agreements`, body, quiet());
   }
   /** Records whether an agreement is paid promotion or a gift, which decides the tax on it. */
-  setTaxTreatment(agreementId: number, body: { taxTreatment: TaxTreatment; province: string | null }): Observable<{ taxTreatment: string; taxProvince: string | null }> {
-    return this.http.put<{ taxTreatment: string; taxProvince: string | null }>(`/api/admin/sponsors/agreements/${agreementId}/tax-treatment`, body, quiet());
+  setTaxTreatment(
+    agreementId: number,
+    body: { taxTreatment: TaxTreatment; province: string | null },
+  ): Observable<{ taxTreatment: string; taxProvince: string | null }> {
+    return this.http.put<{ taxTreatment: string; taxProvince: string | null }>(
+      `/api/admin/sponsors/agreements/${agreementId}/tax-treatment`,
+      body,
+      quiet(),
+    );
   }
   /** A link the browser downloads directly (the session cookie authorises it). */
   invoiceUrl(agreementId: number): string {

@@ -28,9 +28,53 @@ type TreatmentForm = FormGroup<{ taxTreatment: FormControl<Treatment>; province:
 /** One sponsor: details and logo, contacts, agreements with their ledger, cash received and hand-recorded credits. */
 @Component({
   selector: 'ps-sponsor-detail',
-  imports: [ClubDatePipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, FieldErrorPipe, MoneyPipe, ImageUpload],
+  imports: [
+    ClubDatePipe,
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    FieldErrorPipe,
+    MoneyPipe,
+    ImageUpload,
+  ],
   templateUrl: './sponsor-detail.html',
-  styles: `.wide { max-width: none; } .card { background: #fff; border-radius: 12px; padding: 8px 16px 16px; margin: 16px 0; } .inline { display: flex; gap: 12px; flex-wrap: wrap; align-items: baseline; } table { border-collapse: collapse; width: 100%; } th, td { text-align: left; padding: 4px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant); } .late { color: var(--mat-sys-error); font-weight: 600; } .logo { max-height: 64px; }`,
+  styles: `
+    .wide {
+      max-width: none;
+    }
+    .card {
+      background: #fff;
+      border-radius: 12px;
+      padding: 8px 16px 16px;
+      margin: 16px 0;
+    }
+    .inline {
+      display: flex;
+      gap: 12px;
+      flex-wrap: wrap;
+      align-items: baseline;
+    }
+    table {
+      border-collapse: collapse;
+      width: 100%;
+    }
+    th,
+    td {
+      text-align: left;
+      padding: 4px 8px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+    .late {
+      color: var(--mat-sys-error);
+      font-weight: 600;
+    }
+    .logo {
+      max-height: 64px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SponsorDetail {
@@ -47,10 +91,21 @@ export class SponsorDetail {
   protected readonly provinces = PROVINCES;
   protected readonly methodLabels = PAYMENT_METHOD_LABELS;
   protected readonly methods = ['e-transfer', 'cheque', 'cash', 'card', 'other'] as const;
-  protected readonly detail = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.detail(params) });
-  protected readonly ledger = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.ledger(params) });
+  protected readonly detail = rxResource({
+    params: () => Number(this.id()),
+    stream: ({ params }) => this.api.detail(params),
+  });
+  protected readonly ledger = rxResource({
+    params: () => Number(this.id()),
+    stream: ({ params }) => this.api.ledger(params),
+  });
 
-  protected readonly info = this.fb.group({ name: ['', Validators.required], website: [''], blurb: [''], logoUrl: [''] });
+  protected readonly info = this.fb.group({
+    name: ['', Validators.required],
+    website: [''],
+    blurb: [''],
+    logoUrl: [''],
+  });
   protected readonly contact = this.fb.group({ email: ['', [Validators.required, Validators.email]] });
   protected readonly agreement = this.fb.group({
     season: [String(new Date().getFullYear()), Validators.required],
@@ -64,14 +119,26 @@ export class SponsorDetail {
     quantity: [1],
     dueOn: ['', Validators.required],
   });
-  protected readonly credit = this.fb.group({ kind: ['video_mention' as DeliverableKind], url: [''], videoTimestamp: [''], note: [''], creditedOn: [''] });
+  protected readonly credit = this.fb.group({
+    kind: ['video_mention' as DeliverableKind],
+    url: [''],
+    videoTimestamp: [''],
+    note: [''],
+    creditedOn: [''],
+  });
   protected readonly cash = this.fb.group({ receivedOn: ['', Validators.required], method: ['e-transfer'] });
   protected readonly problems = signal<Record<string, string | null>>({});
 
   constructor() {
     effect(() => {
       const d = this.detail.value();
-      if (d) this.info.reset({ name: d.sponsor.name, website: d.sponsor.website ?? '', blurb: d.sponsor.blurb ?? '', logoUrl: d.sponsor.logoUrl ?? '' });
+      if (d)
+        this.info.reset({
+          name: d.sponsor.name,
+          website: d.sponsor.website ?? '',
+          blurb: d.sponsor.blurb ?? '',
+          logoUrl: d.sponsor.logoUrl ?? '',
+        });
     });
   }
 
@@ -102,7 +169,15 @@ export class SponsorDetail {
           cashCents: dollarsToCents(v.cashDollars),
           taxTreatment: v.taxTreatment,
           taxProvince: v.taxTreatment === 'promotion' ? v.taxProvince || null : null,
-          inKind: v.inKindDescription ? [{ description: v.inKindDescription, valueCents: dollarsToCents(v.inKindDollars), receivedOn: v.inKindReceivedOn || null }] : [],
+          inKind: v.inKindDescription
+            ? [
+                {
+                  description: v.inKindDescription,
+                  valueCents: dollarsToCents(v.inKindDollars),
+                  receivedOn: v.inKindReceivedOn || null,
+                },
+              ]
+            : [],
           deliverables: [{ kind: v.kind, quantity: Number(v.quantity), dueOn: v.dueOn }],
         }),
       );
@@ -117,7 +192,10 @@ export class SponsorDetail {
   protected treatmentForm(a: StaffAgreement): TreatmentForm {
     let form = this.treatmentForms.get(a.id);
     if (!form) {
-      form = this.fb.group({ taxTreatment: [(a.taxTreatment ?? 'gift') as Treatment], province: [a.taxProvince ?? ''] });
+      form = this.fb.group({
+        taxTreatment: [(a.taxTreatment ?? 'gift') as Treatment],
+        province: [a.taxProvince ?? ''],
+      });
       this.treatmentForms.set(a.id, form);
     }
     return form;
@@ -131,10 +209,17 @@ export class SponsorDetail {
     const form = this.treatmentForm(a);
     await this.run(`treatment-${a.id}`, form, async () => {
       const v = form.getRawValue();
-      await firstValueFrom(this.api.setTaxTreatment(a.id, { taxTreatment: v.taxTreatment, province: v.taxTreatment === 'promotion' ? v.province || null : null }));
+      await firstValueFrom(
+        this.api.setTaxTreatment(a.id, {
+          taxTreatment: v.taxTreatment,
+          province: v.taxTreatment === 'promotion' ? v.province || null : null,
+        }),
+      );
       this.treatmentForms.delete(a.id);
       this.ledger.reload();
-      return v.taxTreatment === 'promotion' ? 'Set to promotion: GST/HST is charged when the cash is recorded.' : 'Set to gift: no tax.';
+      return v.taxTreatment === 'promotion'
+        ? 'Set to promotion: GST/HST is charged when the cash is recorded.'
+        : 'Set to gift: no tax.';
     });
   }
 
@@ -149,16 +234,30 @@ export class SponsorDetail {
   protected async addCredit(): Promise<void> {
     await this.run('credit', this.credit, async () => {
       const v = this.credit.getRawValue();
-      const res = await firstValueFrom(this.api.addCredit(Number(this.id()), { kind: v.kind, url: v.url || null, videoTimestamp: v.videoTimestamp || null, note: v.note || null, ...(v.creditedOn ? { creditedOn: v.creditedOn } : {}) }));
+      const res = await firstValueFrom(
+        this.api.addCredit(Number(this.id()), {
+          kind: v.kind,
+          url: v.url || null,
+          videoTimestamp: v.videoTimestamp || null,
+          note: v.note || null,
+          ...(v.creditedOn ? { creditedOn: v.creditedOn } : {}),
+        }),
+      );
       this.credit.reset({ kind: v.kind });
       this.ledger.reload();
       this.detail.reload();
-      return res.counted ? 'Credit recorded against the agreement.' : 'Credit recorded (nothing open of that kind, so it is an extra).';
+      return res.counted
+        ? 'Credit recorded against the agreement.'
+        : 'Credit recorded (nothing open of that kind, so it is an extra).';
     });
   }
 
   /** Submits one of the page's forms; server field errors land beside the fields, the message above the form. */
-  private async run(key: string, form: { markAllAsTouched(): void; invalid: boolean } & Parameters<typeof applyServerErrors>[0], work: () => Promise<string>): Promise<void> {
+  private async run(
+    key: string,
+    form: { markAllAsTouched(): void; invalid: boolean } & Parameters<typeof applyServerErrors>[0],
+    work: () => Promise<string>,
+  ): Promise<void> {
     form.markAllAsTouched();
     if (form.invalid) return;
     this.problems.update((p) => ({ ...p, [key]: null }));

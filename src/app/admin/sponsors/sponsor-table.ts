@@ -23,9 +23,43 @@ import { dollarsToCents } from '../../shared/dollars';
 /** Sponsors at a glance: overdue promises first, the sortable list, a quick add form and the tier thresholds. */
 @Component({
   selector: 'ps-sponsor-table',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSortModule, MatTableModule, ClubDatePipe, EmptyState, FieldErrorPipe, MoneyPipe],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSortModule,
+    MatTableModule,
+    ClubDatePipe,
+    EmptyState,
+    FieldErrorPipe,
+    MoneyPipe,
+  ],
   templateUrl: './sponsor-table.html',
-  styles: `.wide { max-width: none; } table { width: 100%; } .card { background: #fff; border-radius: 12px; padding: 8px 16px; margin: 16px 0; } .overdue { border-left: 6px solid var(--mat-sys-error); } .inline { display: flex; gap: 12px; flex-wrap: wrap; align-items: baseline; }`,
+  styles: `
+    .wide {
+      max-width: none;
+    }
+    table {
+      width: 100%;
+    }
+    .card {
+      background: #fff;
+      border-radius: 12px;
+      padding: 8px 16px;
+      margin: 16px 0;
+    }
+    .overdue {
+      border-left: 6px solid var(--mat-sys-error);
+    }
+    .inline {
+      display: flex;
+      gap: 12px;
+      flex-wrap: wrap;
+      align-items: baseline;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SponsorTable {
@@ -37,7 +71,9 @@ export class SponsorTable {
 
   protected readonly labels: Record<string, string> = KIND_LABELS;
   // Editors are not sent season totals, so they get no money column.
-  protected readonly columns = computed(() => (this.session.hasAnyRole(['treasurer', 'admin']) ? ['name', 'tier', 'seasonTotalCents'] : ['name', 'tier']));
+  protected readonly columns = computed(() =>
+    this.session.hasAnyRole(['treasurer', 'admin']) ? ['name', 'tier', 'seasonTotalCents'] : ['name', 'tier'],
+  );
   protected readonly sponsors = rxResource({ stream: () => this.api.list() });
   protected readonly overdue = rxResource({ stream: () => this.api.overdue() });
   protected readonly tiers = rxResource({ stream: () => this.api.tiers() });
@@ -47,7 +83,9 @@ export class SponsorTable {
     const { active, direction } = this.sortState();
     const key = active as keyof AdminSponsorRow;
     const sign = direction === 'desc' ? -1 : 1;
-    return items.sort((a, b) => sign * String(a[key] ?? '').localeCompare(String(b[key] ?? ''), 'en', { numeric: true }));
+    return items.sort(
+      (a, b) => sign * String(a[key] ?? '').localeCompare(String(b[key] ?? ''), 'en', { numeric: true }),
+    );
   });
 
   protected readonly form = this.fb.group({ name: ['', Validators.required], website: [''], blurb: [''] });
@@ -71,7 +109,13 @@ export class SponsorTable {
   protected async saveTiers(): Promise<void> {
     this.tierProblem.set(null);
     try {
-      await firstValueFrom(this.api.setTiers(this.tierRows.getRawValue().map((t: { name: string; dollars: number }) => ({ name: t.name, minCents: dollarsToCents(t.dollars) }))));
+      await firstValueFrom(
+        this.api.setTiers(
+          this.tierRows
+            .getRawValue()
+            .map((t: { name: string; dollars: number }) => ({ name: t.name, minCents: dollarsToCents(t.dollars) })),
+        ),
+      );
       this.tierRows.clear();
       this.tiers.reload();
       this.sponsors.reload();
@@ -94,6 +138,9 @@ export class SponsorTable {
   }
 
   private tierRow(name: string, dollars: number) {
-    return this.fb.group({ name: [name, Validators.required], dollars: [dollars, [Validators.required, Validators.min(0)]] });
+    return this.fb.group({
+      name: [name, Validators.required],
+      dollars: [dollars, [Validators.required, Validators.min(0)]],
+    });
   }
 }

@@ -1,4 +1,11 @@
-import { HttpBackend, HttpErrorResponse, HttpHeaders, type HttpEvent, type HttpRequest, HttpResponse } from '@angular/common/http';
+import {
+  HttpBackend,
+  HttpErrorResponse,
+  HttpHeaders,
+  type HttpEvent,
+  type HttpRequest,
+  HttpResponse,
+} from '@angular/common/http';
 import { Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 import { renderContext } from './render-context';
@@ -22,19 +29,36 @@ export class LoopbackBackend implements HttpBackend {
         return undefined;
       }
       const abort = new AbortController();
-      fetch(this.context.apiOrigin + target.pathname + target.search, { headers: { accept: 'application/json' }, signal: abort.signal })
+      fetch(this.context.apiOrigin + target.pathname + target.search, {
+        headers: { accept: 'application/json' },
+        signal: abort.signal,
+      })
         .then(async (res) => {
           const text = await res.text();
-          const headers = new HttpHeaders(res.headers.has('content-type') ? { 'content-type': res.headers.get('content-type')! } : {});
+          const headers = new HttpHeaders(
+            res.headers.has('content-type') ? { 'content-type': res.headers.get('content-type')! } : {},
+          );
           const body = req.responseType === 'json' && text ? (JSON.parse(text) as unknown) : text;
           if (res.ok) {
-            observer.next(new HttpResponse({ body, headers, status: res.status, statusText: res.statusText, url: req.url }));
+            observer.next(
+              new HttpResponse({ body, headers, status: res.status, statusText: res.statusText, url: req.url }),
+            );
             observer.complete();
           } else {
-            observer.error(new HttpErrorResponse({ error: body, headers, status: res.status, statusText: res.statusText, url: req.url }));
+            observer.error(
+              new HttpErrorResponse({
+                error: body,
+                headers,
+                status: res.status,
+                statusText: res.statusText,
+                url: req.url,
+              }),
+            );
           }
         })
-        .catch((error: unknown) => observer.error(new HttpErrorResponse({ error, status: 0, statusText: 'Unknown Error', url: req.url })));
+        .catch((error: unknown) =>
+          observer.error(new HttpErrorResponse({ error, status: 0, statusText: 'Unknown Error', url: req.url })),
+        );
       return () => abort.abort();
     });
   }

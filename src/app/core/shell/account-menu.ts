@@ -14,7 +14,14 @@ import type { User } from '../user';
   selector: 'ps-account-menu',
   imports: [RouterLink, MatButtonModule, MatIconModule, MatMenuModule],
   template: `
-    <button mat-button type="button" [matMenuTriggerFor]="accountMenu" class="account" data-testid="account-menu" [attr.aria-label]="'Account menu, ' + user().displayName">
+    <button
+      mat-button
+      type="button"
+      [matMenuTriggerFor]="accountMenu"
+      class="account"
+      data-testid="account-menu"
+      [attr.aria-label]="'Account menu, ' + user().displayName"
+    >
       <mat-icon>account_circle</mat-icon>
       <span class="account-name">{{ user().displayName }}</span>
     </button>
@@ -27,9 +34,13 @@ import type { User } from '../user';
     </mat-menu>
   `,
   styles: `
-    .account { color: #fff; }
+    .account {
+      color: #fff;
+    }
     @media (max-width: 800px) {
-      .account-name { display: none; }
+      .account-name {
+        display: none;
+      }
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

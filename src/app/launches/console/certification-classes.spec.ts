@@ -4,19 +4,31 @@ import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { CertificationClasses } from './certification-classes';
 
-const letters = (last: string) => Array.from({ length: last.charCodeAt(0) - 64 }, (_v, i) => String.fromCharCode(65 + i));
+const letters = (last: string) =>
+  Array.from({ length: last.charCodeAt(0) - 64 }, (_v, i) => String.fromCharCode(65 + i));
 
 describe('CertificationClasses', () => {
   beforeEach(() => {
-    TestBed.configureTestingModule({ imports: [CertificationClasses], providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] });
+    TestBed.configureTestingModule({
+      imports: [CertificationClasses],
+      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])],
+    });
   });
 
   async function open() {
     const fixture = TestBed.createComponent(CertificationClasses);
     fixture.detectChanges();
     const http = TestBed.inject(HttpTestingController);
-    http.expectOne('/api/membership/policy').flush({ certificationLevels: [{ code: 'none', label: 'No high-power certification' }, { code: 'L1', label: 'Level 1' }, { code: 'L2', label: 'Level 2' }] });
-    http.expectOne('/api/admin/launches/settings').flush({ classesByLevel: { none: letters('G'), L1: letters('I'), L2: letters('L'), OLD: ['A'] } });
+    http.expectOne('/api/membership/policy').flush({
+      certificationLevels: [
+        { code: 'none', label: 'No high-power certification' },
+        { code: 'L1', label: 'Level 1' },
+        { code: 'L2', label: 'Level 2' },
+      ],
+    });
+    http
+      .expectOne('/api/admin/launches/settings')
+      .flush({ classesByLevel: { none: letters('G'), L1: letters('I'), L2: letters('L'), OLD: ['A'] } });
     await fixture.whenStable();
     const el = fixture.nativeElement as HTMLElement;
     const input = (code: string) => el.querySelector<HTMLInputElement>(`[data-testid=classes-${code}] input`)!;
@@ -36,7 +48,9 @@ describe('CertificationClasses', () => {
     const { el, input } = await open();
     expect(input('none').value).toBe('A-G');
     expect(input('L2').value).toBe('A-L');
-    expect(el.querySelector('[data-testid=classes-L1] mat-label, [data-testid=classes-L1] label')!.textContent).toContain('Level 1');
+    expect(
+      el.querySelector('[data-testid=classes-L1] mat-label, [data-testid=classes-L1] label')!.textContent,
+    ).toContain('Level 1');
     expect(el.querySelector('[data-testid=classes-OLD]')!.textContent).toContain('no longer a membership level');
   });
 
@@ -46,7 +60,12 @@ describe('CertificationClasses', () => {
     await submit();
     const req = http.expectOne('/api/admin/launches/settings');
     expect(req.request.method).toBe('PUT');
-    expect(req.request.body.classesByLevel).toEqual({ none: letters('G'), L1: letters('I'), L2: letters('L'), OLD: ['A'] });
+    expect(req.request.body.classesByLevel).toEqual({
+      none: letters('G'),
+      L1: letters('I'),
+      L2: letters('L'),
+      OLD: ['A'],
+    });
     req.flush(req.request.body);
     await new Promise((r) => setTimeout(r));
     await fixture.whenStable();
@@ -76,7 +95,13 @@ describe('CertificationClasses', () => {
     const { fixture, http, el, submit } = await open();
     await submit();
     http.expectOne('/api/admin/launches/settings').flush(
-      { error: { code: 'validation_failed', message: 'Some fields need attention.', fields: { 'classesByLevel.L1.3': 'Use one letter per class.' } } },
+      {
+        error: {
+          code: 'validation_failed',
+          message: 'Some fields need attention.',
+          fields: { 'classesByLevel.L1.3': 'Use one letter per class.' },
+        },
+      },
       { status: 400, statusText: 'Bad Request' },
     );
     await new Promise((r) => setTimeout(r));

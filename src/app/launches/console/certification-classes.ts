@@ -38,7 +38,9 @@ const MAX_CLASSES = 26;
 export class CertificationClasses {
   private readonly api = inject(LaunchesApi);
   private readonly membership = inject(MembershipApi);
-  private readonly current = rxResource({ stream: () => forkJoin({ policy: this.membership.policy(), settings: this.api.settings() }) });
+  private readonly current = rxResource({
+    stream: () => forkJoin({ policy: this.membership.policy(), settings: this.api.settings() }),
+  });
   protected readonly form = new FormRecord<FormControl<string>>({});
   protected readonly rows = signal<LevelRow[]>([]);
   protected readonly problem = signal<string | null>(null);
@@ -59,9 +61,21 @@ export class CertificationClasses {
   /** The membership levels in their order, then any level the settings still name that the list no longer has. */
   private show(levels: LevelRow[], settings: LaunchSettings): void {
     const known = new Set(levels.map((l) => l.code));
-    const rows = [...levels, ...Object.keys(settings.classesByLevel).filter((c) => !known.has(c)).map((code) => ({ code, label: `${code} (no longer a membership level)` }))];
+    const rows = [
+      ...levels,
+      ...Object.keys(settings.classesByLevel)
+        .filter((c) => !known.has(c))
+        .map((code) => ({ code, label: `${code} (no longer a membership level)` })),
+    ];
     for (const code of Object.keys(this.form.controls)) this.form.removeControl(code);
-    for (const r of rows) this.form.addControl(r.code, new FormControl(formatClassList(settings.classesByLevel[r.code] ?? []), { nonNullable: true, validators: [Validators.required, classListValidator] }));
+    for (const r of rows)
+      this.form.addControl(
+        r.code,
+        new FormControl(formatClassList(settings.classesByLevel[r.code] ?? []), {
+          nonNullable: true,
+          validators: [Validators.required, classListValidator],
+        }),
+      );
     this.rows.set(rows);
   }
 
@@ -93,7 +107,8 @@ export class CertificationClasses {
     this.saving.set(true);
     try {
       const saved = await firstValueFrom(this.api.saveSettings({ classesByLevel }));
-      for (const r of this.rows()) this.form.controls[r.code].setValue(formatClassList(saved.classesByLevel[r.code] ?? []));
+      for (const r of this.rows())
+        this.form.controls[r.code].setValue(formatClassList(saved.classesByLevel[r.code] ?? []));
       this.notice.set('Saved. Flight cards filed from now on are checked against these classes.');
     } catch (err) {
       this.problem.set(applyServerErrors(this.form, err, rename));

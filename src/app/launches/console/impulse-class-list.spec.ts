@@ -31,6 +31,8 @@ describe('formatClassList', () => {
 describe('classListValidator', () => {
   it('should put its message on the field', () => {
     expect(classListValidator(new FormControl('A-G', { nonNullable: true }))).toBeNull();
-    expect(classListValidator(new FormControl('A-G, 7', { nonNullable: true }))).toEqual({ classes: expect.stringContaining('"A-G"') });
+    expect(classListValidator(new FormControl('A-G, 7', { nonNullable: true }))).toEqual({
+      classes: expect.stringContaining('"A-G"'),
+    });
   });
 });

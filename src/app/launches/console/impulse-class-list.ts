@@ -7,7 +7,11 @@ const LETTER = /^[A-Z]$/;
  * ("A-G", "H, I", "a b c"). Sorted, each once; null when the text cannot be read (a digit, "G-A", "AB").
  */
 export function parseClassList(text: string): string[] | null {
-  const parts = text.toUpperCase().replace(/\s*[-–]\s*/g, '-').split(/[\s,]+/).filter(Boolean);
+  const parts = text
+    .toUpperCase()
+    .replace(/\s*[-–]\s*/g, '-')
+    .split(/[\s,]+/)
+    .filter(Boolean);
   const classes = new Set<string>();
   for (const part of parts) {
     const [from, to, ...rest] = part.split('-');
@@ -23,11 +27,17 @@ export function parseClassList(text: string): string[] | null {
 export function formatClassList(classes: readonly string[]): string {
   const codes = [...new Set(classes.map((c) => c.toUpperCase().charCodeAt(0)))].sort((a, b) => a - b);
   const runs: string[] = [];
-  for (let i = 0; i < codes.length; ) {
+  for (let i = 0; i < codes.length;) {
     let j = i;
     while (j + 1 < codes.length && codes[j + 1] === codes[j] + 1) j++;
     const from = String.fromCharCode(codes[i]);
-    runs.push(j === i ? from : j === i + 1 ? `${from}, ${String.fromCharCode(codes[j])}` : `${from}-${String.fromCharCode(codes[j])}`);
+    runs.push(
+      j === i
+        ? from
+        : j === i + 1
+          ? `${from}, ${String.fromCharCode(codes[j])}`
+          : `${from}-${String.fromCharCode(codes[j])}`,
+    );
     i = j + 1;
   }
   return runs.join(', ');
@@ -35,5 +45,7 @@ export function formatClassList(classes: readonly string[]): string {
 
 /** The form check for a class list; its value is the message to show beside the field. */
 export function classListValidator(control: AbstractControl<string>): ValidationErrors | null {
-  return parseClassList(control.value ?? '') === null ? { classes: 'Use letters and ranges such as "A-G" or "H, I".' } : null;
+  return parseClassList(control.value ?? '') === null
+    ? { classes: 'Use letters and ranges such as "A-G" or "H, I".' }
+    : null;
 }

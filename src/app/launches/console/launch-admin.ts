@@ -16,12 +16,27 @@ import type { LaunchView } from '@contracts/launches/launch-answers';
 import { LaunchesApi } from '../launches-api';
 
 /** Reasons a launch director offers first when calling a day off; any other reason can be typed. */
-const CALL_OFF_REASONS = ['Wind above the safe limit', 'Fire risk (burn ban or dry field)', 'Airspace not available', 'Field closed (mud, snow or crops)'];
+const CALL_OFF_REASONS = [
+  'Wind above the safe limit',
+  'Fire risk (burn ban or dry field)',
+  'Airspace not available',
+  'Field closed (mud, snow or crops)',
+];
 
 /** The launch director's page: put launch days on the calendar, call one off with a reason, close a day. */
 @Component({
   selector: 'ps-launch-admin',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ClubDatePipe, EmptyState, FieldErrorPipe],
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    ClubDatePipe,
+    EmptyState,
+    FieldErrorPipe,
+  ],
   templateUrl: './launch-admin.html',
   styleUrl: '../launches.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -59,7 +74,9 @@ export class LaunchAdmin {
     this.problem.set(null);
     const v = this.form.getRawValue();
     try {
-      await firstValueFrom(this.api.create({ ...v, site: { ...v.site, address: v.site.address || null }, notes: v.notes || null }));
+      await firstValueFrom(
+        this.api.create({ ...v, site: { ...v.site, address: v.site.address || null }, notes: v.notes || null }),
+      );
       this.form.reset();
       this.launches.reload();
       this.snackBar.open('Launch day added to the calendar.', undefined, { duration: 3000 });
@@ -79,7 +96,11 @@ export class LaunchAdmin {
       const res = await firstValueFrom(this.api.callOff(l.id, this.reason()));
       this.callingOff.set(null);
       this.launches.reload();
-      this.snackBar.open(`Called off; ${res.notified} ${res.notified === 1 ? 'person' : 'people'} told by e-mail.`, undefined, { duration: 4000 });
+      this.snackBar.open(
+        `Called off; ${res.notified} ${res.notified === 1 ? 'person' : 'people'} told by e-mail.`,
+        undefined,
+        { duration: 4000 },
+      );
     } catch (err) {
       this.callOffProblem.set(apiErrorMessage(err));
     }

@@ -30,7 +30,17 @@ interface Draft {
  */
 @Component({
   selector: 'ps-range-table',
-  imports: [RouterLink, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ClubDatePipe, EmptyState, FlightCaution, CameraScanner],
+  imports: [
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    ClubDatePipe,
+    EmptyState,
+    FlightCaution,
+    CameraScanner,
+  ],
   templateUrl: './range-table.html',
   styleUrl: './range-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -39,7 +49,10 @@ export class RangeTable {
   private readonly api = inject(LaunchesApi);
   readonly id = input<string>();
 
-  private readonly all = rxResource({ params: () => (this.id() ? undefined : true), stream: () => this.api.adminList() });
+  private readonly all = rxResource({
+    params: () => (this.id() ? undefined : true),
+    stream: () => this.api.adminList(),
+  });
   /** The launch shown: the one in the address, else today's or the next one on the calendar. */
   protected readonly launchId = computed<number | null>(() => {
     if (this.id()) return Number(this.id());
@@ -48,7 +61,10 @@ export class RangeTable {
     const today = todayIn(list.timeZone);
     return list.items.find((l) => l.status === 'scheduled' && l.date >= today)?.id ?? null;
   });
-  protected readonly queue = rxResource({ params: () => this.launchId() ?? undefined, stream: ({ params }) => this.api.queue(params) });
+  protected readonly queue = rxResource({
+    params: () => this.launchId() ?? undefined,
+    stream: ({ params }) => this.api.queue(params),
+  });
   protected readonly noLaunch = computed(() => !this.id() && this.all.hasValue() && this.launchId() === null);
   protected readonly outcomes = OUTCOMES;
 
