@@ -98,6 +98,11 @@ function wall(instant: Date, timeZone: string): { date: string; time: string; of
   return { date, time, offsetMinutes: Math.round((asUtc - Math.floor(instant.getTime() / 1000) * 1000) / 60000) };
 }
 
+/** Minutes east of UTC that `timeZone` observes at `instant` (Winnipeg in winter: -360), from the platform's zone data. */
+export function offsetMinutes(instant: Date, timeZone: string): number {
+  return wall(instant, timeZone).offsetMinutes;
+}
+
 /** The club-time calendar date of an instant as ISO 8601: "2026-03-08". */
 export function isoDateInZone(instant: Instant, timeZone: string): string {
   return wall(toDate(instant), timeZone).date;

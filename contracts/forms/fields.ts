@@ -39,4 +39,12 @@ export const fields = {
     .min(3, 'Choose a card.')
     .max(200, 'Not a card token.')
     .regex(/^[A-Za-z0-9_|-]+$/, 'Not a card token.'),
+  /** Optional free text: blank becomes null, and a field left out stays undefined (a partial update keeps it). */
+  optionalText: (max: number) =>
+    z
+      .string()
+      .trim()
+      .max(max, 'Too long.')
+      .transform((v) => v || null)
+      .nullish(),
 };

@@ -6,17 +6,10 @@ import { FLIGHT_OUTCOMES, RECOVERY_METHODS } from '../labels/launch-statuses';
 const hhmm = z
   .string({ error: 'Enter a time as HH:MM.' })
   .regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use the form HH:MM (24-hour).');
-const optionalText = (max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, 'Too long.')
-    .transform((v) => v || null)
-    .nullish();
 
 const SiteSchema = z.object({
   name: z.string({ error: 'Name the site.' }).trim().min(1, 'Name the site.').max(120, 'Too long.'),
-  address: optionalText(400),
+  address: fields.optionalText(400),
   lat: z
     .number({ error: 'Latitude is a number.' })
     .min(-90, 'Between -90 and 90.')
@@ -45,7 +38,7 @@ const LaunchFields = z.object({
     .positive('Must be positive.')
     .max(30000, 'At most 30,000 m.')
     .nullish(),
-  waiverVersion: optionalText(32),
+  waiverVersion: fields.optionalText(32),
   notes: z.string().trim().max(4000, 'Too long.').nullish(),
 });
 
@@ -110,20 +103,20 @@ export const FlightSchema = z.object({
     .regex(/^[a-z0-9-]*$/, 'Use the build log address (letters, digits, dashes).')
     .transform((v) => v || null)
     .nullish(),
-  pad: optionalText(16),
+  pad: fields.optionalText(16),
   notes: z.string().trim().max(2000, 'Too long.').nullish(),
 });
 
 /** POST /api/admin/flights/:id/decision. */
 export const DecisionSchema = z.object({
   approve: z.boolean({ error: 'Approve or send back.' }),
-  reason: optionalText(400),
+  reason: fields.optionalText(400),
 });
 
 /** POST /api/admin/flights/:id/outcome. */
 export const OutcomeSchema = z.object({
   outcome: z.enum(FLIGHT_OUTCOMES, { error: 'Choose how the flight ended.' }),
-  notes: optionalText(2000),
+  notes: fields.optionalText(2000),
 });
 
 const impulseClass = z

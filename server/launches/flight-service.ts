@@ -1,7 +1,7 @@
 import { Readable } from 'node:stream';
 import type { Knex } from 'knex';
 import { analyseFlightLog } from '../flights/flight-log/analyse-flight-log';
-import type { ColumnMapping } from '../flights/flight-log/column-mapping';
+import type { ColumnMapping } from '../../contracts/flights/column-mapping';
 import { flightWarnings } from '../flights/flight-warnings';
 import { parseMotorDesignation, type MotorDesignation } from '../flights/motor-designation';
 import { badRequest, conflict, forbidden, notFound } from '../platform/app-error';

@@ -1,27 +1,4 @@
-const formats = new Map<string, Intl.DateTimeFormat>();
-
-/** UTC offset in minutes of a time zone at an instant, from the platform's time zone data. */
-export function offsetMinutes(timeZone: string, at: Date): number {
-  let format = formats.get(timeZone);
-  if (!format)
-    formats.set(
-      timeZone,
-      (format = new Intl.DateTimeFormat('en-US', {
-        timeZone,
-        hourCycle: 'h23',
-        year: 'numeric',
-        month: '2-digit',
-        day: '2-digit',
-        hour: '2-digit',
-        minute: '2-digit',
-        second: '2-digit',
-      })),
-    );
-  const parts = format.formatToParts(at);
-  const n = (type: string) => Number(parts.find((p) => p.type === type)!.value);
-  const asUtc = Date.UTC(n('year'), n('month') - 1, n('day'), n('hour'), n('minute'), n('second'));
-  return Math.round((asUtc - Math.floor(at.getTime() / 1000) * 1000) / 60000);
-}
+import { offsetMinutes } from '../../contracts/dates/club-dates';
 
 const pad = (n: number, w = 2) => String(Math.abs(n)).padStart(w, '0');
 const utcOffset = (min: number) =>
@@ -38,15 +15,15 @@ function transitions(timeZone: string, year: number): { at: number; from: number
   // Steps of six hours: a zone's offset changes at most a few times a year, never twice within six hours.
   const STEP = 6 * 3600000;
   for (let t = Date.UTC(year, 0, 1); t < end; t += STEP) {
-    const before = offsetMinutes(timeZone, new Date(t));
-    const after = offsetMinutes(timeZone, new Date(t + STEP));
+    const before = offsetMinutes(new Date(t), timeZone);
+    const after = offsetMinutes(new Date(t + STEP), timeZone);
     if (before === after) continue;
     // Narrow the change down to the minute.
     let lo = t;
     let hi = t + STEP;
     while (hi - lo > 60000) {
       const mid = lo + Math.floor((hi - lo) / 120000) * 60000;
-      if (offsetMinutes(timeZone, new Date(mid)) === before) lo = mid;
+      if (offsetMinutes(new Date(mid), timeZone) === before) lo = mid;
       else hi = mid;
     }
     out.push({ at: hi, from: before, to: after });
@@ -62,7 +39,7 @@ export function vtimezone(timeZone: string, years: number[]): string {
   const lines = ['BEGIN:VTIMEZONE', `TZID:${timeZone}`];
   const changes = [...new Set(years)].sort().flatMap((y) => transitions(timeZone, y));
   if (changes.length === 0) {
-    const off = offsetMinutes(timeZone, new Date(Date.UTC(Math.min(...years, 1970), 0, 1)));
+    const off = offsetMinutes(new Date(Date.UTC(Math.min(...years, 1970), 0, 1)), timeZone);
     lines.push(
       'BEGIN:STANDARD',
       'DTSTART:19700101T000000',

@@ -21,13 +21,6 @@ const text = (label: string, max: number) =>
     .trim()
     .min(1, `${label} is required.`)
     .max(max, `${label} is too long.`);
-const optionalText = (max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, 'Too long.')
-    .transform((v) => v || null)
-    .nullish();
 const optionalDate = fields.date.nullish().or(z.literal('').transform(() => null));
 
 const ProfileSchema = z.object({
@@ -36,7 +29,7 @@ const ProfileSchema = z.object({
   address: text('Address', 400),
   phone: text('Phone', 40).regex(/^[0-9+() .-]{7,40}$/, 'Enter a phone number (digits, spaces, + ( ) - .).'),
   emergencyContact: text('Emergency contact', 200),
-  associationNumber: optionalText(40),
+  associationNumber: fields.optionalText(40),
   associationExpires: optionalDate,
   certificationLevel: z.string().trim().max(16).optional(),
   certificationDate: optionalDate,

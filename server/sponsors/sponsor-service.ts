@@ -1,4 +1,6 @@
 import type { Knex } from 'knex';
+import type { SponsorValue } from '../../contracts/books/books-answers';
+import type { OverdueItem } from '../../contracts/sponsors/sponsor-answers';
 import type { UserRepository } from '../auth/user-repository';
 import { recordMovement, type Movement } from '../books/ledger-writer';
 import { slugify, uniqueSlug } from '../platform/slug';
@@ -295,18 +297,7 @@ export class SponsorService {
   }
 
   /** The season's sponsorship per sponsor: cash, declared in-kind value, tier, and deliverables promised vs delivered. */
-  async seasonValue(today: string): Promise<{
-    season: string;
-    items: {
-      sponsor: string;
-      tier: string | null;
-      cashCents: number;
-      inKindCents: number;
-      totalCents: number;
-      promised: number;
-      delivered: number;
-    }[];
-  }> {
+  async seasonValue(today: string): Promise<SponsorValue> {
     const season = seasonOf(today);
     const sponsors = await this.withTiers(today);
     const items = [];
@@ -369,17 +360,7 @@ export class SponsorService {
   }
 
   /** Overdue deliverables across every sponsor, for the staff dashboard card. */
-  async overdue(today: string): Promise<
-    {
-      sponsorId: number;
-      sponsorName: string;
-      agreementId: number;
-      kind: DeliverableKind;
-      promised: number;
-      delivered: number;
-      dueOn: string;
-    }[]
-  > {
+  async overdue(today: string): Promise<OverdueItem[]> {
     const [rows, sponsors, listed] = await Promise.all([
       this.repo.deliverables(null),
       this.repo.all(),

@@ -1,8 +1,5 @@
-import {
-  columnMappingSchema,
-  guessColumnMapping,
-  missingColumns,
-} from '../../server/flights/flight-log/column-mapping';
+import { guessColumnMapping, missingColumns } from '../../contracts/flights/column-mapping';
+import { columnMappingSchema } from '../../contracts/flights/column-mapping-schema';
 
 describe('guessColumnMapping', () => {
   it('should map time in seconds and pressure in Pa', () => {

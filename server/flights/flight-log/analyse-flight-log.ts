@@ -1,7 +1,7 @@
 import type { Readable } from 'node:stream';
 import { parse as parseCsv } from 'csv-parse';
 import { AppError, badRequest } from '../../platform/app-error';
-import { guessColumnMapping, missingColumns, type ColumnMapping } from './column-mapping';
+import { guessColumnMapping, missingColumns, type ColumnMapping } from '../../../contracts/flights/column-mapping';
 import {
   analyseSamples,
   NoFlightFound,

@@ -1,14 +1,7 @@
 import type { FlightEvent, FlightSeriesPoint, FlightSummary } from '@contracts/flights/flight-data';
 
 export type { FlightEvent, FlightSeriesPoint, FlightSummary };
-
-/** Which columns of a log hold what (the `columns` field of an upload). */
-export interface ColumnMapping {
-  time: { column: string; unit: 's' | 'ms' };
-  pressure: { column: string; unit: 'Pa' | 'hPa' };
-  temperature?: { column: string; unit: 'C' };
-  acceleration?: { columns: string[]; unit: 'g' | 'm/s2' };
-}
+export type { ColumnMapping } from '@contracts/flights/column-mapping';
 
 /** A flight's analysed log. */
 export interface FlightData {

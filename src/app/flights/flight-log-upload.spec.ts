@@ -3,7 +3,8 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import type { FlightSummary } from './flight-data';
 import { FlightLogUpload } from './flight-log-upload';
-import { guessMapping, previewRows } from './flight-log-preview';
+import { guessColumnMapping } from '@contracts/flights/column-mapping';
+import { previewRows } from './flight-log-preview';
 
 const LOG =
   'time_ms,pressure_hpa,temp,ax,ay,az\n0,977.00,20.1,0,0,1\n10,977.01,20.1,0,0,1\n20,976.99,20.1,0.1,0,5.1\n30,976.90,20.1,0.1,0,5.1\n';
@@ -177,11 +178,11 @@ describe('the browser-side log preview', () => {
   });
 
   it('should guess like the server for the common names', () => {
-    expect(guessMapping(['t', 'baro', 'accel_z (m/s^2)'])).toEqual({
+    expect(guessColumnMapping(['t', 'baro', 'accel_z (m/s^2)'])).toEqual({
       time: { column: 't', unit: 's' },
       pressure: { column: 'baro', unit: 'hPa' },
       acceleration: { columns: ['accel_z (m/s^2)'], unit: 'm/s2' },
     });
-    expect(guessMapping(['a', 'b'])).toBeNull();
+    expect(guessColumnMapping(['a', 'b'])).toBeNull();
   });
 });

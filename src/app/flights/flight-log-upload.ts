@@ -11,7 +11,8 @@ import { applyServerErrors } from '../core/api-error';
 import { FieldErrorPipe } from '../shared/field-error-pipe';
 import type { ColumnMapping, FlightSummary } from './flight-data';
 import { FlightDataApi } from './flight-data-api';
-import { guessMapping, previewRows, readText } from './flight-log-preview';
+import { guessColumnMapping } from '@contracts/flights/column-mapping';
+import { previewRows, readText } from './flight-log-preview';
 
 /** How much of the file the browser reads to show the first rows. */
 const PREVIEW_BYTES = 64 * 1024;
@@ -108,7 +109,7 @@ export class FlightLogUpload {
       this.problem.set('Padside could not read the first rows of this file. Is it a CSV file?');
     this.headers.set(preview.headers);
     this.rows.set(preview.rows);
-    const guess = guessMapping(preview.headers);
+    const guess = guessColumnMapping(preview.headers);
     this.guessed.set(guess !== null);
     this.applyMapping(guess);
   }

@@ -1,29 +1,4 @@
-/** Minutes east of UTC that `timeZone` observes at `instant` (Winnipeg in winter: -360). */
-function offsetMinutes(instant: Date, timeZone: string): number {
-  const parts = Object.fromEntries(
-    new Intl.DateTimeFormat('en-CA', {
-      timeZone,
-      hourCycle: 'h23',
-      year: 'numeric',
-      month: '2-digit',
-      day: '2-digit',
-      hour: '2-digit',
-      minute: '2-digit',
-      second: '2-digit',
-    })
-      .formatToParts(instant)
-      .map((p) => [p.type, p.value]),
-  );
-  const asUtc = Date.UTC(
-    +parts['year'],
-    +parts['month'] - 1,
-    +parts['day'],
-    +parts['hour'],
-    +parts['minute'],
-    +parts['second'],
-  );
-  return Math.round((asUtc - Math.floor(instant.getTime() / 1000) * 1000) / 60000);
-}
+import { offsetMinutes } from '@contracts/dates/club-dates';
 
 /**
  * The instant, as ISO 8601 with its offset, at which the wall clock in `timeZone` reads `local`
