@@ -4,6 +4,7 @@ import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
 const root = path.resolve(__dirname, '../..');
+// Not in .gitignore: Prettier skips git-ignored files, so an ignored probe would never fail the format check.
 const probeDir = path.join('test', `style-probe-${process.pid}`);
 
 function checkStyle(name: string, text: string): { status: number | null; output: string } {
