@@ -56,8 +56,8 @@ export const RefundBody = z.object({
   reason: z.string({ error: 'Reason must be text.' }).trim().max(400, 'At most 400 characters.').optional(),
 });
 
-/** The staff order table's query as the console sends it. */
-export type OrderListQuery = z.input<typeof OrderQuery>;
+/** The staff order table's query as the console holds it: every paging and sort field set. */
+export type OrderListQuery = z.infer<typeof OrderQuery>;
 /** Which orders a staff query chooses: the query without its paging and sort. */
 export type OrderFilter = Omit<z.infer<typeof OrderQuery>, 'page' | 'pageSize' | 'sort' | 'dir'>;
 /** A shipment as the console records it. */

@@ -72,7 +72,7 @@ export class ShopAdminApi {
   private readonly http = inject(HttpClient);
 
   /** Query parameters from the set filters only, so a blank filter is left out rather than sent empty. */
-  static params(q: OrderListQuery): HttpParams {
+  static params(q: Partial<OrderListQuery>): HttpParams {
     let p = new HttpParams();
     for (const [k, v] of Object.entries(q)) if (v !== undefined && v !== '' && v !== null) p = p.set(k, String(v));
     return p;
