@@ -53,8 +53,13 @@ async function pick(page: Page, label: string, option: string): Promise<void> {
   await page.getByRole('option', { name: option }).click();
 }
 
-/** The label of the field that holds focus, and whether that field is on screen. */
-function focusedField(page: Page) {
+/**
+ * The label of the field that holds focus, and whether that field is on screen. Focus moves after Angular's next
+ * render, which can come after the click returns, so this first waits (up to Playwright's timeout) for focus to reach
+ * a form field; if it never does, the wait fails the test.
+ */
+async function focusedField(page: Page) {
+  await page.waitForFunction(() => !!document.activeElement?.closest('mat-form-field'));
   return page.evaluate(() => {
     const el = document.activeElement as HTMLElement | null;
     const field = el?.closest('mat-form-field');

@@ -226,6 +226,8 @@ describe('club dues in a browser', () => {
     await page.goto(`${site.baseUrl}/console/members/summary`);
     await page.getByTestId('plan-table').waitFor();
     await page.getByRole('button', { name: 'Add a plan' }).click();
+    // The dialog moves focus after it renders, which can come after the click returns.
+    await page.waitForFunction(() => document.activeElement?.hasAttribute('formcontrolname'));
     await expect(page.evaluate(() => document.activeElement?.getAttribute('formcontrolname'))).resolves.toBe('code');
     await page.keyboard.type(code);
     await page.getByLabel('Name', { exact: true }).fill('Range crew');
