@@ -1,4 +1,5 @@
 import Stripe from 'stripe';
+import { signedInTheFuture, SIGNATURE_TOLERANCE_SECONDS } from './webhook-signature';
 
 /** What a charge attempt came to. `unknown` means the processor may or may not have taken the money. */
 export type ChargeResult =
@@ -15,12 +16,30 @@ export interface ChargeRequest {
   customerId?: string;
 }
 
+/** A card the processor holds for a customer, as Padside may show it: never its number. */
+export interface ProcessorCard {
+  brand: string;
+  last4: string;
+  expMonth: number;
+  expYear: number;
+}
+
+/** What asking the processor to keep a card came to: the customer holding it, or the processor's refusal. */
+export type KeepCardResult =
+  { outcome: 'saved'; customerId: string; card: ProcessorCard | null } | { outcome: 'declined'; message: string };
+
+/** A verified processor event, or why its signature was refused. */
+export type SignedEvent = { event: Stripe.Event } | { refused: 'unsigned' | 'future' | 'mismatch' };
+
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-/** Card charges and refunds through the Stripe SDK, with the retry rules of Stripe's idempotency guide. */
+/**
+ * Every call to the processor: charges and refunds (with the retry rules of Stripe's idempotency guide), the customers
+ * that keep a card on file, and the signature check on its events. Nothing else holds the SDK client.
+ */
 export class PaymentGateway {
   constructor(
-    readonly stripe: Stripe,
+    private readonly stripe: Stripe,
     private readonly retryDelaysMs: number[] = [200, 600, 1500],
   ) {}
 
@@ -136,6 +155,65 @@ export class PaymentGateway {
     }
   }
 
+  /** Creates a processor customer holding the card behind `token`; the idempotency key makes a retry create one. */
+  async createCustomer(token: string, email: string, name: string, idempotencyKey: string): Promise<KeepCardResult> {
+    try {
+      const customer = await this.stripe.customers.create({ source: token, email, name }, { idempotencyKey });
+      const sourceId = sourceIdOf(customer.default_source);
+      const source = sourceId ? await this.stripe.customers.retrieveSource(customer.id, sourceId) : null;
+      return { outcome: 'saved', customerId: customer.id, card: processorCard(source) };
+    } catch (err) {
+      return { outcome: 'declined', message: refusal(err) };
+    }
+  }
+
+  /** Adds the card behind `token` to the customer and makes it the default one. */
+  async replaceDefaultCard(customerId: string, token: string): Promise<KeepCardResult> {
+    try {
+      const card = await this.stripe.customers.createSource(customerId, { source: token });
+      await this.stripe.customers.update(customerId, { default_source: card.id });
+      return { outcome: 'saved', customerId, card: processorCard(card) };
+    } catch (err) {
+      return { outcome: 'declined', message: refusal(err) };
+    }
+  }
+
+  /** The customer's default card; null when the customer is gone or holds no card. */
+  async defaultCard(customerId: string): Promise<ProcessorCard | null> {
+    const customer = await this.stripe.customers.retrieve(customerId);
+    if (customer.deleted) return null;
+    const sourceId = sourceIdOf(customer.default_source);
+    return sourceId ? processorCard(await this.stripe.customers.retrieveSource(customerId, sourceId)) : null;
+  }
+
+  /**
+   * Removes every card the customer holds and blanks its name and e-mail. The customer itself stays, because the
+   * processor's own records of past charges point at it.
+   */
+  async forgetCustomer(customerId: string): Promise<void> {
+    const customer = await this.stripe.customers.retrieve(customerId, { expand: ['sources'] });
+    if (customer.deleted) return;
+    const ids = new Set((customer.sources?.data ?? []).map((s) => s.id));
+    const defaultId = sourceIdOf(customer.default_source);
+    if (defaultId) ids.add(defaultId);
+    for (const id of ids) await this.stripe.customers.deleteSource(customerId, id);
+    await this.stripe.customers.update(customerId, { name: '', email: '', description: '' });
+  }
+
+  /**
+   * The processor event in `payload` when `signature` proves it came from the processor with `secret`, signed within
+   * the tolerance of `nowSeconds` either way (the SDK itself refuses only old timestamps).
+   */
+  signedEvent(payload: Buffer, signature: string | undefined, secret: string, nowSeconds: number): SignedEvent {
+    if (!signature) return { refused: 'unsigned' };
+    if (signedInTheFuture(signature, nowSeconds)) return { refused: 'future' };
+    try {
+      return { event: this.stripe.webhooks.constructEvent(payload, signature, secret, SIGNATURE_TOLERANCE_SECONDS) };
+    } catch {
+      return { refused: 'mismatch' };
+    }
+  }
+
   /** Whether the processor answers at all. */
   async reachable(): Promise<boolean> {
     try {
@@ -145,6 +223,24 @@ export class PaymentGateway {
       return false;
     }
   }
+}
+
+function sourceIdOf(source: string | Stripe.CustomerSource | null): string | null {
+  return typeof source === 'string' ? source : (source?.id ?? null);
+}
+
+/** Brand, last four and expiry of a card source; null for anything else a customer might hold (a bank account). */
+function processorCard(source: Stripe.CustomerSource | null): ProcessorCard | null {
+  return source && source.object === 'card'
+    ? { brand: source.brand, last4: source.last4, expMonth: source.exp_month, expYear: source.exp_year }
+    : null;
+}
+
+/** The processor's message when it refused the card or the request; anything else is not a refusal and goes on up. */
+function refusal(err: unknown): string {
+  if (err instanceof Stripe.errors.StripeCardError || err instanceof Stripe.errors.StripeInvalidRequestError)
+    return err.message;
+  throw err;
 }
 
 export function cardCountry(charge: Stripe.Charge): string | null {

@@ -71,7 +71,15 @@ export function shopFeature(
     deps.log,
     deps.config.site.teamName,
   );
-  const webhooks = new WebhookService(deps.db, orders, refunds, settings, deps.clock, otherCharges);
+  const webhooks = new WebhookService(
+    deps.db,
+    { gateway: deps.payments, secret: deps.config.stripe.webhookSecret },
+    orders,
+    refunds,
+    settings,
+    deps.clock,
+    otherCharges,
+  );
   const pub = {
     catalogue,
     quotes,
@@ -108,7 +116,7 @@ export function shopFeature(
       api('/admin/products', productAdminRoutes(admin));
       api('/admin/runs', runAdminRoutes(admin));
       api('/admin/shop', shopSettingsRoutes(admin));
-      api('/payments', paymentRoutes(deps.payments.stripe, deps.config.stripe, webhooks));
+      api('/payments', paymentRoutes(deps.config.stripe, webhooks));
     },
     personalData: shopPersonalData,
     imageUses: async (urls) => (await catalogueRepo.namesUsingImage(urls)).map((n) => `the product “${n}”`),

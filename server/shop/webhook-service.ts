@@ -1,18 +1,27 @@
 import type { Knex } from 'knex';
 import Stripe from 'stripe';
 import { enqueueEmail } from '../mail/outbox';
+import type { PaymentGateway } from '../payments/payment-gateway';
 import type { Clock } from '../platform/clock';
 import type { SettingsService } from '../settings/settings-service';
-import { AppError } from '../platform/app-error';
+import { AppError, badRequest } from '../platform/app-error';
 import type { OrderRepository } from './order-repository';
 import type { RefundService } from './refund-service';
 import { disputeEmail } from './shop-emails';
 import { SHOP_SETTINGS } from './shop-settings';
 
+const REFUSALS = {
+  unsigned: 'Missing or unsigned event.',
+  future: 'The event signature timestamp is in the future.',
+  mismatch: 'The event signature does not match.',
+} as const;
+
 /** The processor's events: each handled once, in the same transaction that records it as seen. */
 export class WebhookService {
   constructor(
     private readonly db: Knex,
+    /** Who checks an event's signature, and the secret it was signed with. */
+    private readonly processor: { gateway: PaymentGateway; secret: string },
     private readonly orders: OrderRepository,
     private readonly refunds: RefundService,
     private readonly settings: SettingsService,
@@ -22,11 +31,27 @@ export class WebhookService {
   ) {}
 
   /**
+   * Takes an event as the processor sent it: refuses it unless its signature holds, and returns false for a replay.
+   * The system clock judges the timestamp, as the SDK's own check of old timestamps does: both bounds then agree.
+   */
+  async receive(payload: unknown, signature: string | undefined): Promise<boolean> {
+    if (!Buffer.isBuffer(payload)) throw badRequest(REFUSALS.unsigned);
+    const verified = this.processor.gateway.signedEvent(
+      payload,
+      signature,
+      this.processor.secret,
+      Math.floor(Date.now() / 1000),
+    );
+    if ('refused' in verified) throw badRequest(REFUSALS[verified.refused]);
+    return this.handle(verified.event);
+  }
+
+  /**
    * Returns false for a replay (already handled). A refund event is answered from the processor's own list of the
    * charge's refunds (read before the transaction, never inside it), so a refund is recorded once whichever of the
    * staff request, this event or reconciliation sees it first.
    */
-  async handle(event: Stripe.Event): Promise<boolean> {
+  private async handle(event: Stripe.Event): Promise<boolean> {
     if (await this.db('payment_events').where('id', event.id).first('id')) return false;
     if (event.type === 'charge.refunded') await this.chargeRefunded(event.data.object);
     return this.db.transaction(async (trx) => {

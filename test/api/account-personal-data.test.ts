@@ -458,7 +458,7 @@ describe('POST /api/account/delete', () => {
       expect(await db('launch_rsvps').where('user_id', p.user.id)).toEqual([]);
       expect((await db('flights').where('user_id', p.user.id).first('notes')).notes).toBe('');
       // The card processor keeps the customer (its charges point at it) but no card, name or e-mail.
-      const customer = await t.deps.payments.stripe.customers.retrieve(customerId);
+      const customer = await t.processor.customers.retrieve(customerId);
       // A blanked field reads null from the processor and '' from the payment fake.
       expect(customer).toMatchObject({ default_source: null });
       expect([

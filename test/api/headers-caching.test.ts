@@ -98,7 +98,7 @@ describe('V13.1 the payment webhook refuses signatures dated more than five minu
       livemode: false,
       api_version: '2024-06-20',
     });
-    const header = t.deps.payments.stripe.webhooks.generateTestHeaderString({
+    const header = t.processor.webhooks.generateTestHeaderString({
       payload,
       secret: t.config.stripe.webhookSecret,
       timestamp: Math.floor(Date.now() / 1000) + secondsAhead,

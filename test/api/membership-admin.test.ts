@@ -195,7 +195,7 @@ describe('POST /api/admin/members/:id/refunds', () => {
       .db('membership_payments')
       .where({ membership_id: m.id, entry: 'payment', status: 'paid' })
       .first();
-    await t.deps.payments.stripe.refunds.create({ charge: pay.processor_charge_id, amount: 1200 });
+    await t.processor.refunds.create({ charge: pay.processor_charge_id, amount: 1200 });
     const send = () => {
       const payload = JSON.stringify({
         id: `evt_dues_${Date.now()}_${Math.random()}`,
@@ -206,7 +206,7 @@ describe('POST /api/admin/members/:id/refunds', () => {
         livemode: false,
         api_version: '2024-06-20',
       });
-      const header = t.deps.payments.stripe.webhooks.generateTestHeaderString({
+      const header = t.processor.webhooks.generateTestHeaderString({
         payload,
         secret: t.config.stripe.webhookSecret,
       });

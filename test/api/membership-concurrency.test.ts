@@ -95,7 +95,7 @@ async function member(autoRenew: boolean) {
 /** Every charge the payment fake holds for a member, read from the processor rather than from our own rows. */
 async function chargesAtProcessor(memberNumber: string): Promise<Stripe.Charge[]> {
   const found: Stripe.Charge[] = [];
-  for await (const c of a.deps.payments.stripe.charges.list({ limit: 100 })) {
+  for await (const c of a.processor.charges.list({ limit: 100 })) {
     if (c.metadata?.memberNumber === memberNumber) found.push(c);
   }
   return found;

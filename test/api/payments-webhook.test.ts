@@ -23,7 +23,7 @@ function signed(type: string, object: object, secret = t.config.stripe.webhookSe
     livemode: false,
     api_version: '2024-06-20',
   });
-  return { payload, header: t.deps.payments.stripe.webhooks.generateTestHeaderString({ payload, secret }) };
+  return { payload, header: t.processor.webhooks.generateTestHeaderString({ payload, secret }) };
 }
 const post = (e: { payload: string; header: string }) =>
   request(t.app)
@@ -72,7 +72,7 @@ describe('POST /api/payments/webhook', () => {
     it('records one refund, one negative movement and one notice', async () => {
       const o = await paidOrder();
       // The refund exists at the processor (made in its dashboard): the event only says to look.
-      await t.deps.payments.stripe.refunds.create({ charge: o.charge_id, amount: 1000 });
+      await t.processor.refunds.create({ charge: o.charge_id, amount: 1000 });
       const e = signed('charge.refunded', {
         id: o.charge_id,
         object: 'charge',

@@ -133,7 +133,7 @@ async function paidOrder(
 /** What the processor refunded on a charge, by its own list. */
 async function processorRefunded(chargeId: string): Promise<number> {
   let total = 0;
-  for await (const r of t.deps.payments.stripe.refunds.list({ charge: chargeId, limit: 100 }))
+  for await (const r of t.processor.refunds.list({ charge: chargeId, limit: 100 }))
     if (r.status === 'succeeded' || r.status === 'pending') total += r.amount;
   return total;
 }

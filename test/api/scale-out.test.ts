@@ -122,7 +122,7 @@ describe('a server process killed in the middle of checkouts', () => {
       for (const o of orders.filter((x) => x.status === 'paid')) expect(o.charge_id).toBeTruthy();
       // Every succeeded charge the processor holds for these orders belongs to a paid order.
       const ids = new Set(orders.map((o) => String(o.id)));
-      const charges = (await later.deps.payments.stripe.charges.list({ limit: 100 })).data.filter(
+      const charges = (await later.processor.charges.list({ limit: 100 })).data.filter(
         (c) => ids.has(c.metadata?.orderId ?? '') && c.status === 'succeeded',
       );
       for (const c of charges) {

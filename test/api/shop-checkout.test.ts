@@ -197,7 +197,7 @@ describe('POST /api/orders', () => {
       });
       expect(res.status).toBe(201);
       expect(res.body.order.status).toBe('paid');
-      const charges = await t.deps.payments.stripe.charges.list({ limit: 100 });
+      const charges = await t.processor.charges.list({ limit: 100 });
       expect(charges.data.filter((ch) => ch.metadata.orderId === String(res.body.order.id))).toHaveLength(1);
       expect(
         await t.deps.db('money_movements').where({ reference: res.body.order.number }).count('* as n').first(),

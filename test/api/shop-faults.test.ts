@@ -13,9 +13,7 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 const chargesFor = async (orderId: number) =>
-  (await t.deps.payments.stripe.charges.list({ limit: 100 })).data.filter(
-    (c) => c.metadata.orderId === String(orderId),
-  );
+  (await t.processor.charges.list({ limit: 100 })).data.filter((c) => c.metadata.orderId === String(orderId));
 const later = (minutes: number) => clock.set(new Date(clock.now().getTime() + minutes * 60_000).toISOString());
 
 async function placeWith(token: string) {
@@ -72,7 +70,7 @@ describe('the reconciliation job', () => {
   it('marks the order paid when the processor did take the money', async () => {
     const { res } = await placeWith(chain('tok_500'));
     // The processor took the charge even though our request saw a 500.
-    await t.deps.payments.stripe.charges.create({
+    await t.processor.charges.create({
       amount: res.body.order.totalCents,
       currency: 'cad',
       source: 'tok_visa',

@@ -96,7 +96,7 @@ describe('POST /api/admin/orders/:id/refund', () => {
       .first();
     const charged = await t.deps.db('shop_orders').where('id', o.id).first();
     expect(-Number(refundedTax!.s)).toBe(charged.tax_cents);
-    const charge = await t.deps.payments.stripe.charges.retrieve(charged.charge_id);
+    const charge = await t.processor.charges.retrieve(charged.charge_id);
     expect(charge.amount_refunded).toBe(o.totalCents);
   });
 

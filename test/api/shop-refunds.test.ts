@@ -46,7 +46,7 @@ const refund = (id: number, body: object, key?: string) => {
     .then((token) => (key ? req.set('Idempotency-Key', key) : req).set('X-CSRF-Token', token).send(body));
 };
 const processorRefunds = async (chargeId: string) =>
-  (await t.deps.payments.stripe.refunds.list({ charge: chargeId, limit: 100 })).data;
+  (await t.processor.refunds.list({ charge: chargeId, limit: 100 })).data;
 const reserved = async (runId: number) => (await t.deps.db('shop_runs').where('id', runId).first()).reserved as number;
 
 describe('POST /api/admin/orders/:id/refund-preview', () => {
@@ -210,7 +210,7 @@ describe('refunds the processor reports', () => {
       livemode: false,
       api_version: '2024-06-20',
     });
-    const header = t.deps.payments.stripe.webhooks.generateTestHeaderString({
+    const header = t.processor.webhooks.generateTestHeaderString({
       payload,
       secret: t.config.stripe.webhookSecret,
     });
@@ -234,7 +234,7 @@ describe('refunds the processor reports', () => {
 
   it('records a refund made at the processor once, as processor-origin, from the job or the event', async () => {
     const o = await twoLineOrder();
-    await t.deps.payments.stripe.refunds.create({ charge: o.chargeId, amount: 1001 });
+    await t.processor.refunds.create({ charge: o.chargeId, amount: 1001 });
     await job();
     await job();
     expect((await webhook(o.chargeId)).status).toBe(200);

@@ -1,12 +1,16 @@
 import { createApp, type PadsideApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config';
 import { closeDeps, createDeps, type AppDeps } from '../../server/deps';
+import type Stripe from 'stripe';
+import { createStripe } from '../../server/payments/stripe-client';
 import type { Clock } from '../../server/platform/clock';
 
 export interface TestApp {
   app: PadsideApp;
   deps: AppDeps;
   config: Config;
+  /** The processor as the tests see it (its own client, not the app's gateway): to check or act on what it holds. */
+  processor: Stripe;
   close(): Promise<void>;
 }
 
@@ -20,6 +24,7 @@ export function buildTestApp(overrides: Partial<AppDeps> & { env?: Record<string
     app,
     deps,
     config,
+    processor: createStripe(config),
     close: async () => {
       await app.close();
       await closeDeps(deps);

@@ -52,6 +52,13 @@ describe('server layers', () => {
     expect(listed(bad)).toEqual([]);
   });
 
+  it('builds the processor client in one place, and the gateway keeps it to itself', () => {
+    const bad = server.filter((i) => i.target === 'server/payments/stripe-client' && i.file !== 'server/deps.ts');
+    expect(listed(bad)).toEqual([]);
+    const gateway = readFileSync(path.join(root, 'server/payments/payment-gateway.ts'), 'utf8');
+    expect(gateway).toMatch(/constructor\(\s*private readonly stripe: Stripe\b/);
+  });
+
   it('lets no repository import a service', () => {
     const bad = server.filter(
       (i) => i.file.endsWith('-repository.ts') && i.target !== null && i.target.endsWith('-service'),
