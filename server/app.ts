@@ -134,9 +134,7 @@ export function createApp(deps: AppDeps): PadsideApp {
   apiMount(
     '/admin/users',
     userAdminRoutes(
-      auth.users,
-      auth.signInGuard,
-      new AccountAdminService(deps.db, auth.users, new AccountChangeRepository(deps.db)),
+      new AccountAdminService(deps.db, auth.users, new AccountChangeRepository(deps.db), auth.signInGuard),
     ),
   );
   apiMount('/admin/uploads', uploadAdminRoutes(platform.images));

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { LockState, SignInGuard } from '../auth/sign-in-guard';
 import { toSessionUser, type UserRepository } from '../auth/user-repository';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { Role, SessionUser } from '../platform/roles';
@@ -17,6 +18,18 @@ export interface AccountChangeView {
   by: { id: number; name: string } | null;
 }
 
+/** An account in the admins' list: its admin view, when it was made and where its sign-in failures stand. */
+export type ListedAccount = AdminAccount & { createdAt: Date; signIn: LockState };
+
+/** The accounts list's filters and page. */
+export interface AccountListQuery {
+  q?: string;
+  role?: Role;
+  state?: 'active' | 'disabled';
+  page: number;
+  pageSize: number;
+}
+
 const HISTORY_LIMIT = 100;
 
 /** Roles, disabling and their history; each change and its history entry are written in one transaction. */
@@ -25,7 +38,34 @@ export class AccountAdminService {
     private readonly db: Knex,
     private readonly users: UserRepository,
     private readonly changes: AccountChangeRepository,
+    private readonly signIn: SignInGuard,
   ) {}
+
+  /** One page of accounts with their sign-in locks, so admins see who is locked out beside their roles. */
+  async list(q: AccountListQuery): Promise<{ items: ListedAccount[]; total: number; page: number; pageSize: number }> {
+    const { items, total } = await this.users.page({
+      ...q,
+      disabled: q.state === undefined ? undefined : q.state === 'disabled',
+    });
+    const locks = await this.signIn.states(items.map((u) => u.email));
+    return {
+      items: items.map((u) => ({
+        ...adminView(u),
+        createdAt: u.created_at,
+        signIn: locks.get(u.email) ?? { failures: 0, locked: false },
+      })),
+      total,
+      page: q.page,
+      pageSize: q.pageSize,
+    };
+  }
+
+  /** Lifts every sign-in lock on the account, once staff know its owner is the one signing in; 404 when none. */
+  async clearSignInLock(id: number): Promise<void> {
+    const row = await this.users.byId(id);
+    if (!row) throw notFound('No such user.');
+    await this.signIn.clear(row.email);
+  }
 
   /**
    * Replaces an account's roles and records the change in its history; an admin cannot take admin away from

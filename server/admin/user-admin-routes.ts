@@ -1,12 +1,9 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import type { SignInGuard } from '../auth/sign-in-guard';
-import type { UserRepository } from '../auth/user-repository';
-import { notFound } from '../platform/app-error';
 import { requireRole } from '../platform/require-role';
 import { ROLES } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
-import { adminView, type AccountAdminService } from './account-admin-service';
+import type { AccountAdminService } from './account-admin-service';
 
 const ListQuery = z.object({
   q: z.string().trim().max(100).optional(),
@@ -22,27 +19,12 @@ const RolesBody = z.object({
 });
 
 /** Accounts, their roles, disabling, their history and their sign-in locks under /api/admin/users (admin only). */
-export function userAdminRoutes(users: UserRepository, signIn: SignInGuard, accounts: AccountAdminService): Router {
+export function userAdminRoutes(accounts: AccountAdminService): Router {
   const r = Router();
   r.use(requireRole('admin'));
 
   r.get('/', async function listUsers(req, res) {
-    const q = parse(ListQuery, req.query);
-    const { items, total } = await users.page({
-      ...q,
-      disabled: q.state === undefined ? undefined : q.state === 'disabled',
-    });
-    const locks = await signIn.states(items.map((u) => u.email));
-    res.json({
-      items: items.map((u) => ({
-        ...adminView(u),
-        createdAt: u.created_at,
-        signIn: locks.get(u.email) ?? { failures: 0, locked: false },
-      })),
-      total,
-      page: q.page,
-      pageSize: q.pageSize,
-    });
+    res.json(await accounts.list(parse(ListQuery, req.query)));
   });
 
   r.patch('/:id', async function setRoles(req, res) {
@@ -64,9 +46,7 @@ export function userAdminRoutes(users: UserRepository, signIn: SignInGuard, acco
 
   // Staff lift a lock once they know the owner is the one signing in (or the owner resets the password themselves).
   r.delete('/:id/sign-in-lock', async function clearSignInLock(req, res) {
-    const row = await users.byId(parse(fields.id, req.params.id));
-    if (!row) throw notFound('No such user.');
-    await signIn.clear(row.email);
+    await accounts.clearSignInLock(parse(fields.id, req.params.id));
     res.status(204).end();
   });
 

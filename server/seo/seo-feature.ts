@@ -1,6 +1,7 @@
 import type { Feature, Platform } from '../feature';
 import { robotsRoutes, sitemapRoutes } from './seo-routes';
 import { SitemapRepository } from './sitemap-repository';
+import { SitemapService } from './sitemap-service';
 
 /** Findability: the sitemap and robots.txt at the site's root (the pages' own tags come from the server render). */
 export function seoFeature(platform: Platform): Feature {
@@ -9,7 +10,7 @@ export function seoFeature(platform: Platform): Feature {
     name: 'seo',
     mount() {},
     mountSite(site) {
-      site('/sitemap.xml', sitemapRoutes(new SitemapRepository(db), config.publicUrl, clock));
+      site('/sitemap.xml', sitemapRoutes(new SitemapService(new SitemapRepository(db), config.publicUrl, clock)));
       site('/robots.txt', robotsRoutes(config.publicUrl));
     },
   };

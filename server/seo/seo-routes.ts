@@ -1,29 +1,14 @@
 import { Router } from 'express';
-import type { Clock } from '../platform/clock';
-import { robotsTxt, sitemapXml } from './sitemap';
-import type { SitemapRepository } from './sitemap-repository';
-
-/** The section pages, listed without a date (what they show changes with everything else). */
-const SECTIONS = ['/', '/shop', '/build-logs', '/launches', '/sponsors'];
+import { robotsTxt } from './sitemap';
+import type { SitemapService } from './sitemap-service';
 
 /** GET /sitemap.xml: the section pages and every public product, build log and launch day. */
-export function sitemapRoutes(pages: SitemapRepository, origin: string, clock: Clock): Router {
+export function sitemapRoutes(pages: SitemapService): Router {
   const r = Router();
   r.get('/', async function sitemap(_req, res) {
-    const [products, posts, launches] = await Promise.all([
-      pages.products(clock.now()),
-      pages.posts(),
-      pages.launches(),
-    ]);
+    const xml = await pages.xml();
     res.type('application/xml').setHeader('Cache-Control', 'public, max-age=3600');
-    res.send(
-      sitemapXml(origin, [
-        ...SECTIONS.map((path) => ({ path, lastModified: null })),
-        ...products,
-        ...posts,
-        ...launches,
-      ]),
-    );
+    res.send(xml);
   });
   return r;
 }

@@ -176,8 +176,8 @@ export class CatalogueRepository {
   }
 
   /** Moves a print run to a new state; the service decides which moves are allowed. */
-  async setRunState(id: number, state: RunRow['state']): Promise<void> {
-    await this.db('shop_runs').where('id', id).update({ state });
+  async setRunState(trx: Knex.Transaction, id: number, state: RunRow['state']): Promise<void> {
+    await trx('shop_runs').where('id', id).update({ state });
   }
 
   /** Paid units per variant of a run (paid, packed or shipped orders, less units returned to stock). */

@@ -331,7 +331,7 @@ export class CatalogueService {
         `A run that is ${now.replace('_', ' ')} cannot move to ${state.replace('_', ' ')}.`,
         { state: 'Not allowed from the current state.' },
       );
-    await this.repo.setRunState(id, state);
+    await this.db.transaction((trx) => this.repo.setRunState(trx, id, state));
     return (await this.runs()).find((r) => r.id === id)!;
   }
 

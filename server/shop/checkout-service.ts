@@ -72,18 +72,17 @@ export class CheckoutService {
       if (earlier) return { status: 'paid', bundle: await this.settlePaid(orderId, earlier.id, earlier.amount, null) };
     }
     // Claiming the attempt number only from the value just read means two clicks at once cannot both charge.
-    const [claimed] = await this.db('shop_orders')
-      .where({ id: orderId, status: 'pending', payment_attempts: before.order.payment_attempts })
-      .update({ payment_attempts: this.db.raw('payment_attempts + 1'), last_attempt_at: this.clock.now() })
-      .returning('payment_attempts');
-    if (!claimed)
+    const claimed = await this.db.transaction((trx) =>
+      this.orders.claimPaymentAttempt(trx, orderId, before.order.payment_attempts, this.clock.now()),
+    );
+    if (claimed === null)
       throw conflict(
         'payment_in_progress',
         'A payment for this order is already under way; reload the order in a moment.',
       );
     return this.charge(
       { id: orderId, number: before.order.number, totalCents: before.order.total_cents },
-      Number(claimed.payment_attempts),
+      claimed,
       token,
     );
   }

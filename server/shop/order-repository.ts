@@ -203,6 +203,18 @@ export class OrderRepository {
     return { order: fix(row), items, taxes, refunds: [] };
   }
 
+  /**
+   * Claims the next payment attempt of a pending order, only if its attempt count is still `seen` (so two clicks at
+   * once cannot both charge); returns the new attempt number, or null when the order moved on or another claim won.
+   */
+  async claimPaymentAttempt(trx: Knex.Transaction, id: number, seen: number, now: Date): Promise<number | null> {
+    const [claimed] = await trx('shop_orders')
+      .where({ id, status: 'pending', payment_attempts: seen })
+      .update({ payment_attempts: trx.raw('payment_attempts + 1'), last_attempt_at: now })
+      .returning('payment_attempts');
+    return claimed ? Number(claimed.payment_attempts) : null;
+  }
+
   /** Writes the given order columns in the caller's transaction or connection. */
   async update(trx: Db, id: number, patch: Record<string, unknown>): Promise<void> {
     await trx('shop_orders').where('id', id).update(patch);

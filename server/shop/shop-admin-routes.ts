@@ -1,23 +1,18 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { OrderQuery, RefundBody, ShipBody } from '../../contracts/shop/staff-order-schemas';
-import type { StaffOrderPage } from '../../contracts/shop/staff-order-answers';
-import { notFound } from '../platform/app-error';
 import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueService } from './catalogue-service';
 import { ProductBody, ProductPatch, RunBody } from './catalogue-service';
-import { ORDER_STATUS_LABELS } from '../../contracts/labels/order-statuses';
-import { labelOf } from '../../contracts/labels/label-of';
-import { centsToDecimal, csvInstant, toCsv, zonedHeader } from '../platform/csv';
+import { toCsv } from '../platform/csv';
 import type { FulfilmentService } from './fulfilment-service';
-import type { RefundRepository } from './refund-repository';
 import type { RefundService } from './refund-service';
-import { breakdownJson, refundJson, staffOrderJson } from './refund-view';
-import type { OrderRepository, ZonedOrderFilter } from './order-repository';
-import type { ShopConfigRepository } from './shop-config-repository';
+import { breakdownJson } from './refund-view';
+import type { ShopConfigService } from './shop-config-service';
 import { SHOP_SETTINGS, ShopSettingsSchema } from './shop-settings';
+import type { StaffOrderService } from './staff-order-service';
 
 const SHOP_STAFF = ['treasurer', 'admin'] as const;
 
@@ -41,116 +36,34 @@ export interface ShopAdminDeps {
   catalogue: CatalogueService;
   fulfilment: FulfilmentService;
   refunds: RefundService;
-  refundRepo: RefundRepository;
-  orders: OrderRepository;
-  config: ShopConfigRepository;
+  orders: StaffOrderService;
+  config: ShopConfigService;
   settings: SettingsService;
   timeZone: string;
 }
-
-const filterOf = (q: z.infer<typeof OrderQuery>, timeZone: string): ZonedOrderFilter => ({
-  status: q.status,
-  runId: q.runId,
-  from: q.from,
-  to: q.to,
-  q: q.q,
-  timeZone,
-});
 
 /** /api/admin/orders: the table, CSV, detail, pack, ship, refund and its preview. */
 export function orderAdminRoutes(d: ShopAdminDeps): Router {
   const r = Router();
   r.use(requireRole(...SHOP_STAFF));
   r.get('/', async function listOrders(req, res) {
-    const q = parse(OrderQuery, req.query);
-    const { items, total } = await d.orders.page(filterOf(q, d.timeZone), q.sort, q.dir, q.page, q.pageSize);
-    const answer: StaffOrderPage = {
-      items: items.map((o) => ({
-        id: o.id,
-        number: o.number,
-        status: o.status,
-        email: o.email,
-        shipName: o.ship_name,
-        units: o.units,
-        totalCents: o.total_cents,
-        refundedCents: o.refunded_cents,
-        shippingName: o.shipping_name,
-        createdAt: o.created_at.toISOString(),
-        disputed: o.disputed_at !== null,
-      })),
-      total,
-      page: q.page,
-      pageSize: q.pageSize,
-    };
-    res.json(answer);
+    res.json(await d.orders.page(parse(OrderQuery, req.query)));
   });
   r.get('/export', async function exportOrders(req, res) {
-    const q = parse(OrderQuery, req.query);
-    // The filters choose the orders; the file always lists them oldest first, whatever the table was sorted by.
-    const rows = await d.orders.all(filterOf(q, d.timeZone), 'created', 'asc');
+    const csv = await d.orders.exportCsv(parse(OrderQuery, req.query));
     res.type('text/csv; charset=utf-8').attachment('padside-orders.csv');
-    const header = [
-      'Order number',
-      zonedHeader('Placed at', d.timeZone),
-      'Status',
-      'E-mail',
-      'Ship to',
-      'Country',
-      'Shipping method',
-      'Units',
-      'Subtotal (CAD)',
-      'Discount (CAD)',
-      'Shipping (CAD)',
-      'Tax (CAD)',
-      'Total (CAD)',
-      'Refunded (CAD)',
-      'Carrier',
-      'Tracking number',
-    ];
-    res.send(
-      toCsv(
-        header,
-        rows.map((o) => [
-          o.number,
-          csvInstant(o.created_at, d.timeZone),
-          labelOf(ORDER_STATUS_LABELS, o.status),
-          o.email,
-          o.ship_name,
-          o.ship_country,
-          o.shipping_name,
-          o.units,
-          centsToDecimal(o.subtotal_cents),
-          centsToDecimal(o.discount_cents),
-          centsToDecimal(o.shipping_cents),
-          centsToDecimal(o.tax_cents),
-          centsToDecimal(o.total_cents),
-          centsToDecimal(o.refunded_cents),
-          o.carrier,
-          o.tracking_number,
-        ]),
-      ),
-    );
+    res.send(csv);
   });
   r.get('/:id', async function showOrderForStaff(req, res) {
-    const b = await d.orders.find(parse(fields.id, req.params.id));
-    if (!b) throw notFound('No such order.');
-    res.json({ order: await staffOrderJson(b, d.refundRepo, d.orders) });
+    res.json({ order: await d.orders.detail(parse(fields.id, req.params.id)) });
   });
   r.post('/:id/pack', async function packOrder(req, res) {
-    res.json({
-      order: await staffOrderJson(await d.fulfilment.pack(parse(fields.id, req.params.id)), d.refundRepo, d.orders),
-    });
+    res.json({ order: await d.orders.view(await d.fulfilment.pack(parse(fields.id, req.params.id))) });
   });
   r.post('/:id/ship', async function shipOrder(req, res) {
     const id = parse(fields.id, req.params.id);
     const body = parse(ShipBody, req.body);
-    res.json({
-      order: await staffOrderJson(
-        await d.fulfilment.ship(id, body.carrier, body.trackingNumber),
-        d.refundRepo,
-        d.orders,
-      ),
-    });
+    res.json({ order: await d.orders.view(await d.fulfilment.ship(id, body.carrier, body.trackingNumber)) });
   });
   r.post('/:id/refund-preview', async function previewRefund(req, res) {
     const id = parse(fields.id, req.params.id);
@@ -165,8 +78,7 @@ export function orderAdminRoutes(d: ShopAdminDeps): Router {
         'idempotency-key'
       ] ?? null;
     const { bundle, refund } = await d.refunds.refund(id, { ...body, reason: body.reason ?? null }, key, req.user!.id);
-    const [lines, taxes] = [await d.refundRepo.lines([refund.id]), await d.refundRepo.taxes([refund.id])];
-    res.json({ order: await staffOrderJson(bundle, d.refundRepo, d.orders), refund: refundJson(refund, lines, taxes) });
+    res.json(await d.orders.refunded(bundle, refund));
   });
   return r;
 }
@@ -239,9 +151,7 @@ export function shopSettingsRoutes(d: ShopAdminDeps): Router {
   });
   r.put('/shipping-methods/:id', async function saveShippingMethod(req, res) {
     const id = parse(fields.id, req.params.id);
-    if (!(await d.config.updateShippingMethod(id, parse(ShippingBody, req.body))))
-      throw notFound('No such shipping method.');
-    res.json({ method: await d.config.shippingMethod(id) });
+    res.json({ method: await d.config.saveShippingMethod(id, parse(ShippingBody, req.body)) });
   });
   r.get('/tax-rates', async function listTaxRates(_req, res) {
     res.json({ items: await d.config.taxRateTable() });

@@ -43,11 +43,12 @@ export class ShopConfigRepository {
 
   /** Saves a shipping method's name, weight brackets and switch; false when there is no such method. */
   async updateShippingMethod(
+    trx: Knex.Transaction,
     id: number,
     patch: { name: string; brackets: WeightBracket[]; active: boolean },
   ): Promise<boolean> {
     return (
-      (await this.db('shop_shipping_methods')
+      (await trx('shop_shipping_methods')
         .where('id', id)
         .update({ ...patch, brackets: JSON.stringify(patch.brackets) })) > 0
     );

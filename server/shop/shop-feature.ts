@@ -1,6 +1,7 @@
 import { PaymentThrottle } from '../payments/payment-throttle';
 import type { Feature, Platform } from '../feature';
 import { NotifiedCache, type ReadyJson } from '../platform/notified-cache';
+import { BuyerOrderService } from './buyer-order-service';
 import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';
 import { shopPersonalData } from './shop-personal-data';
@@ -18,7 +19,9 @@ import { RefundService } from './refund-service';
 import { shopDashboard } from './shop-dashboard';
 import { orderAdminRoutes, productAdminRoutes, runAdminRoutes, shopSettingsRoutes } from './shop-admin-routes';
 import { ShopConfigRepository } from './shop-config-repository';
+import { ShopConfigService } from './shop-config-service';
 import { accountOrderRoutes, checkoutRoutes, orderRoutes, productRoutes, shippingMethodRoutes } from './shop-routes';
+import { StaffOrderService } from './staff-order-service';
 import { WebhookService } from './webhook-service';
 
 /**
@@ -80,15 +83,13 @@ export function shopFeature(
     deps.clock,
     otherCharges,
   );
+  const shopConfig = new ShopConfigService(deps.db, config);
   const pub = {
     catalogue,
     quotes,
     checkout,
-    orders,
-    config,
-    receipts,
-    links,
-    guide,
+    orders: new BuyerOrderService(orders, receipts, links, guide),
+    config: shopConfig,
     throttle: new PaymentThrottle(deps.db),
     now: () => deps.clock.now(),
   };
@@ -96,9 +97,8 @@ export function shopFeature(
     catalogue,
     fulfilment,
     refunds,
-    refundRepo,
-    orders,
-    config,
+    orders: new StaffOrderService(orders, refundRepo, deps.config.clubTimeZone),
+    config: shopConfig,
     settings,
     timeZone: deps.config.clubTimeZone,
   };

@@ -1,22 +1,16 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import type { AccountOrders, Order, OrderAnswer, ShippingMethod } from '../../contracts/shop/shop-answers';
+import type { OrderAnswer } from '../../contracts/shop/shop-answers';
 import { OrderBody, PayBody, QuoteBody } from '../../contracts/shop/shop-schemas';
-import { notFound } from '../platform/app-error';
 import type { ReadyJson } from '../platform/notified-cache';
 import { requireSignedIn } from '../platform/require-role';
-import type { Role } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
 import type { PaymentThrottle } from '../payments/payment-throttle';
+import type { BuyerOrderService, OrderViewer } from './buyer-order-service';
 import type { CatalogueService } from './catalogue-service';
 import type { CheckoutService, PaymentOutcome } from './checkout-service';
-import type { OrderGuide } from './order-guide';
-import type { OrderLinks } from './order-links';
-import type { OrderBundle, OrderRepository } from './order-repository';
-import { orderJson } from './order-view';
 import { quoteJson, type QuoteService } from './quote-service';
-import type { ReceiptService } from './receipt-service';
-import type { ShopConfigRepository } from './shop-config-repository';
+import type { ShopConfigService } from './shop-config-service';
 
 declare module 'express-session' {
   interface SessionData {
@@ -29,12 +23,9 @@ export interface ShopDeps {
   catalogue: CatalogueService;
   quotes: QuoteService;
   checkout: CheckoutService;
-  orders: OrderRepository;
-  config: ShopConfigRepository;
-  receipts: ReceiptService;
-  links: OrderLinks;
+  orders: BuyerOrderService;
+  config: ShopConfigService;
   throttle: PaymentThrottle;
-  guide: OrderGuide;
   now(): Date;
 }
 
@@ -66,13 +57,7 @@ export function productRoutes(d: ShopDeps): Router {
 export function shippingMethodRoutes(d: ShopDeps): Router {
   const r = Router();
   r.get('/', async function listShippingMethods(_req, res) {
-    const items: ShippingMethod[] = (await d.config.activeShippingMethods()).map((m) => ({
-      id: m.id,
-      code: m.code,
-      name: m.name,
-      brackets: m.brackets,
-    }));
-    res.json({ items });
+    res.json({ items: await d.config.activeShippingMethods() });
   });
   return r;
 }
@@ -87,11 +72,6 @@ export function checkoutRoutes(d: ShopDeps): Router {
   return r;
 }
 
-/** The buyer's view of an order: the order and, once paid, its receipt. */
-async function buyerView(d: ShopDeps, b: OrderBundle): Promise<Order> {
-  return { ...orderJson(b), receipt: await d.receipts.forOrder(b) };
-}
-
 /** Answers a payment attempt: 202 while the processor has not said, else `paidStatus` (201 for a new order). */
 async function answer(
   d: ShopDeps,
@@ -99,13 +79,10 @@ async function answer(
   outcome: PaymentOutcome,
   paidStatus: 200 | 201,
 ): Promise<void> {
-  const order = await buyerView(d, outcome.bundle);
+  const order = await d.orders.view(outcome.bundle);
   if (outcome.status === 'pending') res.status(202).json({ order, message: outcome.message } satisfies OrderAnswer);
   else res.status(paidStatus).json({ order } satisfies OrderAnswer);
 }
-
-/** Besides the buyer, only these roles handle shop orders (an editor has no business with addresses or payments). */
-export const ORDER_ROLES: readonly Role[] = ['treasurer', 'admin'];
 
 /** Keeps the last 20 orders placed or opened in this browser session, so their buyer sees them without an account. */
 function rememberOrder(req: import('express').Request, orderId: number): void {
@@ -117,22 +94,16 @@ function rememberOrder(req: import('express').Request, orderId: number): void {
 export function orderRoutes(d: ShopDeps): Router {
   const r = Router();
   // The e-mailed link's key opens the order in any browser; the session then remembers it like a guest's own order.
-  const opensWithKey = (req: import('express').Request, orderId: number, email: string) => {
-    const key = typeof req.query.key === 'string' ? req.query.key : '';
-    if (!key || !d.links.verify(orderId, email, key)) return false;
-    rememberOrder(req, orderId);
-    return true;
-  };
-  // Anyone else gets the same 404 as an id that does not exist, so order ids are not confirmed to strangers (ASVS 4.0.3 4.2.1).
   const mayView = async (req: import('express').Request, id: number) => {
-    const b = await d.orders.find(id);
-    const own =
-      b &&
-      ((req.user && b.order.user_id === req.user.id) ||
-        req.session.shopOrderIds?.includes(id) ||
-        opensWithKey(req, b.order.id, b.order.email));
-    if (!b || !(own || req.user?.roles.some((x) => ORDER_ROLES.includes(x)))) throw notFound('No such order.');
-    return b;
+    const viewer: OrderViewer = {
+      userId: req.user?.id ?? null,
+      roles: req.user?.roles ?? [],
+      sessionOrderIds: req.session.shopOrderIds ?? [],
+      key: typeof req.query.key === 'string' ? req.query.key : '',
+    };
+    const { bundle, byKey } = await d.orders.open(id, viewer);
+    if (byKey) rememberOrder(req, id);
+    return bundle;
   };
   r.post('/', async function placeOrder(req, res) {
     const body = parse(OrderBody, req.body);
@@ -149,7 +120,7 @@ export function orderRoutes(d: ShopDeps): Router {
   r.get('/:id', async function showOrder(req, res) {
     const id = parse(fields.id, req.params.id);
     const b = await mayView(req, id);
-    res.json({ order: { ...(await buyerView(d, b)), nextSteps: await d.guide.nextSteps(b) } } satisfies OrderAnswer);
+    res.json({ order: await d.orders.detail(b) } satisfies OrderAnswer);
   });
   r.post('/:id/pay', async function payAgain(req, res) {
     const id = parse(fields.id, req.params.id);
@@ -178,32 +149,7 @@ export function orderRoutes(d: ShopDeps): Router {
 export function accountOrderRoutes(d: ShopDeps): Router {
   const r = Router();
   r.get('/', requireSignedIn, async function myOrders(req, res) {
-    const rows = await d.orders.forUser(req.user!.id);
-    const last = await d.orders.lastShipTo(req.user!.id);
-    const lastShipTo = last && {
-      name: last.ship_name,
-      line1: last.ship_line1 ?? '',
-      line2: last.ship_line2 ?? '',
-      city: last.ship_city ?? '',
-      province: last.ship_province ?? '',
-      postalCode: last.ship_postal_code ?? '',
-      country: last.ship_country,
-    };
-    const answer: AccountOrders = {
-      lastShipTo,
-      items: rows.map((o) => ({
-        id: o.id,
-        number: o.number,
-        status: o.status,
-        createdAt: o.created_at.toISOString(),
-        totalCents: o.total_cents,
-        refundedCents: o.refunded_cents,
-        shippingName: o.shipping_name,
-        trackingNumber: o.tracking_number,
-        carrier: o.carrier,
-      })),
-    };
-    res.json(answer);
+    res.json(await d.orders.accountOrders(req.user!.id));
   });
   return r;
 }

@@ -140,8 +140,8 @@ export class SponsorRepository {
   }
 
   /** Removes an account from the sponsor's contacts, answering how many rows went (0 when it was not one). */
-  async removeContact(sponsorId: number, userId: number): Promise<number> {
-    return this.db('sponsor_contacts').where({ sponsor_id: sponsorId, user_id: userId }).delete();
+  async removeContact(trx: Knex.Transaction, sponsorId: number, userId: number): Promise<number> {
+    return trx('sponsor_contacts').where({ sponsor_id: sponsorId, user_id: userId }).delete();
   }
 
   /** The accounts that can open the sponsor's portal, by display name. */

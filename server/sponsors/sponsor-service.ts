@@ -250,7 +250,7 @@ export class SponsorService {
 
   /** Takes portal access away from an account; 404 when it was not a contact. */
   async removeContact(sponsorId: number, userId: number): Promise<void> {
-    if (!(await this.repo.removeContact(sponsorId, userId)))
+    if (!(await this.db.transaction((trx) => this.repo.removeContact(trx, sponsorId, userId))))
       throw notFound('That account is not a contact of this sponsor.');
   }
 

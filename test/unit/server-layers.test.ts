@@ -1,6 +1,7 @@
 /**
- * Layers point down: the platform knows no feature, repositories no services, the app no server, and contracts
- * (read by both sides) nothing but zod and each other. Each check lists the offending file and import.
+ * Layers point down: the platform knows no feature, routers no repositories (nor Knex), repositories no services,
+ * the app no server, and contracts (read by both sides) nothing but zod and each other. Each check lists the
+ * offending file and import.
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -57,6 +58,17 @@ describe('server layers', () => {
     expect(listed(bad)).toEqual([]);
     const gateway = readFileSync(path.join(root, 'server/payments/payment-gateway.ts'), 'utf8');
     expect(gateway).toMatch(/constructor\(\s*private readonly stripe: Stripe\b/);
+  });
+
+  it('lets no router import a repository or Knex: routes call services only', () => {
+    const bad = server.filter(
+      (i) =>
+        i.file.endsWith('-routes.ts') &&
+        (i.target !== null
+          ? i.target.endsWith('-repository')
+          : i.specifier === 'knex' || i.specifier.startsWith('knex/')),
+    );
+    expect(listed(bad)).toEqual([]);
   });
 
   it('lets no repository import a service', () => {
