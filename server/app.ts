@@ -3,13 +3,7 @@ import { existsSync } from 'node:fs';
 import compression from 'compression';
 import express, { type Express, type Router } from 'express';
 import pinoHttp from 'pino-http';
-import { accountRoutes } from './account/account-routes';
-import { PersonalDataService } from './account/personal-data-service';
-import { AccountAdminService } from './admin/account-admin-service';
-import { AccountChangeRepository } from './admin/account-change-repository';
 import { ONE_CLICK_PATH } from './announcements/announcement-routes';
-import { userAdminRoutes } from './admin/user-admin-routes';
-import { authRoutes } from './auth/auth-routes';
 import { AuthService } from './auth/auth-service';
 import { configurePassport } from './auth/passport-setup';
 import type { AppDeps } from './deps';
@@ -30,7 +24,6 @@ import { pageRoutes } from './ssr/page-routes';
 import { SettingsService } from './settings/settings-service';
 import { ImageUploads } from './uploads/image-uploads';
 import { storageFromConfig } from './uploads/storage-from-config';
-import { uploadAdminRoutes, uploadServeRoutes } from './uploads/upload-routes';
 
 /**
  * Paths under /api that verify their own signature instead of a CSRF token: the payment webhook, and the one-click
@@ -118,26 +111,6 @@ export function createApp(deps: AppDeps): PadsideApp {
   api.use(rotateSessionOnRoleChange);
   api.use(csrfProtection(CSRF_EXEMPT));
   api.use(refuseUnstorableText);
-  apiMount('/auth', authRoutes(auth));
-  const personalData = new PersonalDataService(
-    deps.db,
-    auth.users,
-    features.flatMap((f) => f.personalData ?? []),
-    deps.clock,
-    deps.config.site.teamName,
-    deps.log,
-  );
-  apiMount(
-    '/account',
-    accountRoutes(auth, personalData, { siteName: deps.config.site.teamName, timeZone: deps.config.clubTimeZone }),
-  );
-  apiMount(
-    '/admin/users',
-    userAdminRoutes(
-      new AccountAdminService(deps.db, auth.users, new AccountChangeRepository(deps.db), auth.signInGuard),
-    ),
-  );
-  apiMount('/admin/uploads', uploadAdminRoutes(platform.images));
   for (const feature of features) feature.mount(apiMount);
   api.use(apiNotFound);
   app.use('/api', api);
@@ -145,7 +118,6 @@ export function createApp(deps: AppDeps): PadsideApp {
     mounts.push({ prefix: at, router });
     app.use(at, router);
   };
-  siteMount('/uploads', uploadServeRoutes(platform.images));
   for (const feature of features) feature.mountSite?.(siteMount);
 
   const browserDist = deps.config.browserDist;
