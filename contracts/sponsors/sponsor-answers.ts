@@ -1,5 +1,6 @@
 /** What the sponsor routes answer (public wall, portal, staff): the server types its views with these; the app reads them. */
 import type { DeliverableKind } from '../labels/deliverable-kinds';
+import type { Province } from '../shop/provinces';
 import type { SponsorCredit } from './sponsor-credit';
 import type { TaxTreatment } from './tax-treatments';
 
@@ -121,4 +122,11 @@ export interface OverdueItem {
   promised: number;
   delivered: number;
   dueOn: string;
+}
+
+/** PUT /api/admin/sponsors/agreements/:agreementId/tax-treatment: the treatment as stored. */
+export interface TaxTreatmentAnswer {
+  taxTreatment: TaxTreatment;
+  /** Only a promotion is taxed at a province's rate; a gift has none. */
+  taxProvince: Province | null;
 }

@@ -1,6 +1,8 @@
 import { pipeline } from 'node:stream/promises';
 import { Router } from 'express';
 import { z } from 'zod';
+import type { Profile } from '../../contracts/account/account-answers';
+import { ProfileBody } from '../../contracts/account/account-schemas';
 import type { AuthService } from '../auth/auth-service';
 import { PASSWORD_MAX } from '../auth/password-policy';
 import { requireSignedIn } from '../platform/require-role';
@@ -9,12 +11,6 @@ import { zipStream } from './data-export-zip';
 import { exportSummaryHtml } from './export-summary';
 import type { PersonalDataService } from './personal-data-service';
 
-const ProfileBody = z
-  .object({
-    displayName: z.string().trim().min(1, 'Name is required.').max(80, 'Use at most 80 characters.').optional(),
-    marketingOptOut: z.boolean().optional(),
-  })
-  .strict();
 const PasswordBody = z.object({
   currentPassword: z
     .string({ error: 'Enter your current password.' })
@@ -46,7 +42,7 @@ export function accountRoutes(auth: AuthService, data: PersonalDataService, sett
 
   r.get('/profile', async function profile(req, res) {
     const row = await auth.users.byId(req.user!.id);
-    res.json({ user: req.user, marketingOptOut: row?.marketing_opt_out ?? false });
+    res.json({ user: req.user!, marketingOptOut: row?.marketing_opt_out ?? false } satisfies Profile);
   });
 
   r.patch('/profile', async function updateProfile(req, res) {

@@ -1,13 +1,9 @@
 import express, { Router } from 'express';
 import { requireRole, requireSignedIn } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
-import {
-  AnnouncementListQuery,
-  AnnouncementPatchSchema,
-  NewAnnouncementSchema,
-  SignUpSchema,
-  TokenQuery,
-} from './announcement-schemas';
+import type { SignUpAnswer } from '../../contracts/announcements/subscription-answers';
+import { SignUpSchema, TokenQuery } from '../../contracts/announcements/subscription-schemas';
+import { AnnouncementListQuery, AnnouncementPatchSchema, NewAnnouncementSchema } from './announcement-schemas';
 import type { AnnouncementService } from './announcement-service';
 import { AnnouncementSettingsSchema } from './announcement-settings';
 import type { SubscriptionService } from './subscription-service';
@@ -23,7 +19,7 @@ export function subscriptionRoutes(subscriptions: SubscriptionService): Router {
   });
   r.post('/', async function signUp(req, res) {
     await subscriptions.subscribe(parse(SignUpSchema, req.body), req.ip ?? 'unknown', req.user?.id ?? null);
-    res.status(202).json({ queued: true });
+    res.status(202).json({ queued: true } satisfies SignUpAnswer);
   });
   r.get('/confirm', async function confirmSignUp(req, res) {
     res.json({ confirmed: await subscriptions.confirm(parse(TokenQuery, req.query).token, req.ip ?? 'unknown') });

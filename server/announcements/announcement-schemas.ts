@@ -1,29 +1,7 @@
 import { z } from 'zod';
 import { refuseUnrenderable } from '../markdown/markdown-field';
 import { fields } from '../platform/validate';
-import { TOPICS } from './topics';
-
-const topic = z.enum(TOPICS, { error: 'Choose a list: drops, launches or build-logs.' });
-const token = z.strictObject({
-  token: z
-    .string({ error: 'The link is missing its token.' })
-    .min(1, 'The link is missing its token.')
-    .max(600, 'Not a valid link.'),
-});
-
-/** POST /api/subscriptions. */
-export const SignUpSchema = z.strictObject({
-  email: fields.email,
-  topics: z
-    .array(topic, { error: 'Tick at least one list.' })
-    .min(1, 'Tick at least one list.')
-    .max(TOPICS.length, 'Each list once.'),
-  productId: fields.id.optional(),
-  page: z.enum(['home', 'product', 'account'], { error: 'Unknown page.' }).default('home'),
-});
-
-/** `?token=` of the confirmation and unsubscribe links. */
-export const TokenQuery = token;
+import { TopicField as topic } from '../../contracts/announcements/subscription-schemas';
 
 const subject = z
   .string({ error: 'Write a subject.' })

@@ -1,4 +1,11 @@
 import type { Knex } from 'knex';
+import type {
+  ConfirmedSignUp,
+  ConsentWording,
+  MySubscription,
+  UnsubscribeTarget,
+} from '../../contracts/announcements/subscription-answers';
+import type { SignUp } from '../../contracts/announcements/subscription-schemas';
 import { hashToken, newToken } from '../auth/single-use-token';
 import { enqueueEmail } from '../mail/outbox';
 import { SuppressionList } from '../mail/suppression-list';
@@ -13,14 +20,6 @@ import { TOPIC_LABELS, TOPICS, type MailList, type Topic } from './topics';
 import type { UnsubscribeTokens } from './unsubscribe-token';
 
 const CONFIRM_TTL_DAYS = 7;
-
-/** A sign-up from one of the public forms. */
-export interface SignUp {
-  email: string;
-  topics: Topic[];
-  productId?: number;
-  page: 'home' | 'product' | 'account';
-}
 
 /** Sign-ups with double opt-in, confirmation, one-click withdrawal, and the signed-in person's own lists. */
 export class SubscriptionService {
@@ -43,7 +42,7 @@ export class SubscriptionService {
   }
 
   /** The lists and the consent wording the forms show. */
-  wording() {
+  wording(): ConsentWording {
     return {
       version: CONSENT_WORDING.version,
       text: CONSENT_WORDING.text(this.site.teamName),
@@ -113,7 +112,7 @@ export class SubscriptionService {
   }
 
   /** Confirms the lists of one confirmation mail; the link works once. */
-  async confirm(token: string, ip: string): Promise<{ email: string; topics: Topic[] }> {
+  async confirm(token: string, ip: string): Promise<ConfirmedSignUp> {
     return this.db.transaction(async (trx) => {
       const rows = await this.repo.pendingByToken(trx, hashToken(token));
       const now = this.clock.now();
@@ -135,23 +134,20 @@ export class SubscriptionService {
   }
 
   /** What an unsubscribe link stands for, for the page that shows it before the click. */
-  describeUnsubscribe(token: string) {
+  describeUnsubscribe(token: string): UnsubscribeTarget {
     const who = this.readToken(token);
     return { email: who.email, topic: who.topic, label: TOPIC_LABELS[who.topic] };
   }
 
   /** Stops a list for an address at once: consents withdrawn, and the address suppressed for that list. */
-  async unsubscribe(
-    token: string,
-    how: 'one-click' | 'page' | 'account',
-  ): Promise<{ email: string; topic: MailList; label: string }> {
+  async unsubscribe(token: string, how: 'one-click' | 'page' | 'account'): Promise<UnsubscribeTarget> {
     const who = this.readToken(token);
     await this.withdraw(who.email, who.topic, how);
     return { ...who, label: TOPIC_LABELS[who.topic] };
   }
 
   /** The signed-in person's lists by their account address; each with a withdrawal token for the account page. */
-  async mine(email: string) {
+  async mine(email: string): Promise<{ items: MySubscription[] }> {
     const address = email.trim().toLowerCase();
     const rows = await this.repo.byEmail(address);
     return {

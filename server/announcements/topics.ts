@@ -1,13 +1,7 @@
-/** The announcement lists people can ask for. */
-export const TOPICS = ['drops', 'launches', 'build-logs'] as const;
-export type Topic = (typeof TOPICS)[number];
+import { MAIL_LISTS, TOPICS, type MailList, type Topic } from '../../contracts/announcements/topics';
 
-/**
- * Every list a commercial mail can belong to: the sign-up topics, and the promotional roster mail members get under
- * their membership's implied consent. Each has its own unsubscribe link and suppression.
- */
-export const MAIL_LISTS = [...TOPICS, 'club-news'] as const;
-export type MailList = (typeof MAIL_LISTS)[number];
+// The list codes are the contract's; the words for them are the server's (forms get them in the answers).
+export { MAIL_LISTS, TOPICS, type MailList, type Topic };
 
 /** How each list is named in forms and in the mail footer. */
 export const TOPIC_LABELS: Record<MailList, string> = {

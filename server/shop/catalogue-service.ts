@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { z } from 'zod';
 import type { ProductDetail } from '../../contracts/shop/shop-answers';
+import type { PrintSheet, StaffRun } from '../../contracts/shop/staff-shop-answers';
 import { refuseUnrenderable } from '../markdown/markdown-field';
 import { renderMarkdown } from '../markdown/render-markdown';
 import { badRequest, conflict, notFound } from '../platform/app-error';
@@ -293,7 +294,7 @@ export class CatalogueService {
   }
 
   /** Every print run with the state its dates and cap give now, so staff see a run close on time without a job. */
-  async runs() {
+  async runs(): Promise<StaffRun[]> {
     const now = this.clock.now();
     return (await this.repo.runs()).map((r) => {
       const state = effectiveRunState(
@@ -310,8 +311,8 @@ export class CatalogueService {
         cap: r.cap,
         reserved: r.reserved,
         remaining: r.cap - r.reserved,
-        opensAt: r.opens_at,
-        closesAt: r.closes_at,
+        opensAt: r.opens_at.toISOString(),
+        closesAt: r.closes_at.toISOString(),
         unitCostCents: r.unit_cost_cents,
       };
     });
@@ -336,7 +337,7 @@ export class CatalogueService {
   }
 
   /** Per variant: paid units, spares and pieces to print; a preview while orders can still arrive. */
-  async printSheet(id: number) {
+  async printSheet(id: number): Promise<PrintSheet> {
     const run = await this.repo.run(id);
     if (!run) throw notFound('No such run.');
     const [b] = await this.repo.bundles({ id: run.product_id });
@@ -357,8 +358,8 @@ export class CatalogueService {
         productName: b.product.name,
         state,
         cap: run.cap,
-        opensAt: run.opens_at,
-        closesAt: run.closes_at,
+        opensAt: run.opens_at.toISOString(),
+        closesAt: run.closes_at.toISOString(),
       },
       kind:
         state === 'scheduled' || state === 'open' || state === 'sold_out' ? ('preview' as const) : ('final' as const),

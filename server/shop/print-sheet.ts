@@ -1,22 +1,5 @@
 /** How many pieces of each variant to print for a run: pure arithmetic on paid units and the printer's rules. */
-
-export interface PrinterRules {
-  /** Extra pieces as a percentage of paid units, rounded up. */
-  sparesPercent: number;
-  /** The printer sells in packs of this many pieces per variant. */
-  packMultiple: number;
-  /** The printer's minimum pieces per design (the whole run). */
-  minimumPerDesign: number;
-}
-
-export interface SheetLine {
-  variantId: number;
-  label: string;
-  sku: string;
-  paid: number;
-  spares: number;
-  toPrint: number;
-}
+import type { PrinterRules, PrintSheetLine } from '../../contracts/shop/staff-shop-answers';
 
 /** Rounds `n` up to a multiple of `m` (m >= 1). */
 export function roundUpTo(n: number, m: number): number {
@@ -30,7 +13,7 @@ export function roundUpTo(n: number, m: number): number {
 export function printQuantities(
   variants: { variantId: number; label: string; sku: string; paid: number }[],
   rules: PrinterRules,
-): { lines: SheetLine[]; totalPaid: number; totalToPrint: number } {
+): { lines: PrintSheetLine[]; totalPaid: number; totalToPrint: number } {
   const pack = Math.max(1, rules.packMultiple);
   const lines = variants.map((v) => {
     const spares = Math.ceil((v.paid * rules.sparesPercent) / 100);

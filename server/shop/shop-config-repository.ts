@@ -1,20 +1,13 @@
 import type { Knex } from 'knex';
 import type { WeightBracket } from '../../contracts/shop/shipping-price';
+import type { StaffShippingMethod } from '../../contracts/shop/staff-shop-answers';
 import type { TaxRate } from './tax';
 
 // DATE columns as text, so no time zone shifts the day.
 const DAY = "to_char(effective_from, 'YYYY-MM-DD') as effective_from";
 
-export type ShippingCode = 'pickup' | 'canada' | 'usa' | 'international';
-
-export interface ShippingMethodRow {
-  id: number;
-  code: ShippingCode;
-  name: string;
-  brackets: WeightBracket[];
-  active: boolean;
-  position: number;
-}
+/** A row of shop_shipping_methods, which the staff settings answer as it is. */
+export type ShippingMethodRow = StaffShippingMethod;
 
 /** Shipping methods and the tax-rate table as plain rows. */
 export class ShopConfigRepository {

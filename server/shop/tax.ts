@@ -1,7 +1,8 @@
 /** Canadian sales tax on one order: pure arithmetic, every rate and rule passed in. */
 
-export const PROVINCES = ['AB', 'BC', 'MB', 'NB', 'NL', 'NS', 'NT', 'NU', 'ON', 'PE', 'QC', 'SK', 'YT'] as const;
-export type Province = (typeof PROVINCES)[number];
+import { PROVINCES, type Province } from '../../contracts/shop/provinces';
+
+export { PROVINCES, type Province };
 export type TaxCode = 'GST' | 'HST' | 'PST' | 'QST' | 'RST';
 
 /** One row of the rate table: `ratePercent` is an exact decimal string such as "9.975". */

@@ -18,10 +18,16 @@ import {
 } from '../../contracts/labels/deliverable-kinds';
 import { labelOf } from '../../contracts/labels/label-of';
 import { inDateOrder, toCsv } from '../platform/csv';
-import { AgreementBody, CashReceivedBody, ContactBody, HandCreditBody, SponsorBody } from './sponsor-schemas';
+import {
+  AgreementBody,
+  CashReceivedBody,
+  ContactBody,
+  HandCreditBody,
+  SponsorBody,
+  TiersSchema,
+} from '../../contracts/sponsors/sponsor-schemas';
 import type { SponsorService } from './sponsor-service';
 import { deliverablesOnly, seesSponsorMoney, withoutEmail, withoutTotal } from './sponsor-staff-view';
-import { TiersSchema } from './sponsor-tiers';
 
 /** Today's club date (the app's ClubCalendar), for routes that judge "overdue" and "this season". */
 type Today = () => string;

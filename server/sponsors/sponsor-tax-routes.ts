@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
-import { TaxTreatmentBody } from './sponsor-schemas';
+import { TaxTreatmentBody } from '../../contracts/sponsors/sponsor-schemas';
 import { sponsorInvoicePdf } from './sponsor-invoice';
 import type { SponsorTaxService } from './sponsor-tax-service';
 

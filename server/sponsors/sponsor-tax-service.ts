@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { TaxTreatmentAnswer } from '../../contracts/sponsors/sponsor-answers';
 import type { MovementTax } from '../books/ledger-writer';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { SettingsService } from '../settings/settings-service';
@@ -69,7 +70,7 @@ export class SponsorTaxService {
   async setTreatment(
     agreementId: number,
     input: { taxTreatment: TaxTreatment; province?: Province | null },
-  ): Promise<{ taxTreatment: TaxTreatment; taxProvince: Province | null }> {
+  ): Promise<TaxTreatmentAnswer> {
     const province = input.taxTreatment === 'promotion' ? (input.province ?? null) : null;
     if (input.taxTreatment === 'promotion' && !province)
       throw badRequest('Choose the sponsor’s province.', {

@@ -1,25 +1,7 @@
-import { z } from 'zod';
+import { TiersSchema, type Tier } from '../../contracts/sponsors/sponsor-schemas';
 import { defineSetting } from '../settings/settings-service';
 
-/** One tier: a sponsor whose season total (cash + declared in-kind value) reaches `minCents` holds it. */
-export interface Tier {
-  name: string;
-  minCents: number;
-}
-
-export const TiersSchema = z.object({
-  tiers: z
-    .array(
-      z.object({
-        name: z.string().trim().min(1, 'Name the tier.').max(40, 'Use at most 40 characters.'),
-        minCents: z.number().int('Whole cents.').min(0, 'Cannot be negative.').max(100_000_000),
-      }),
-    )
-    .min(1, 'Keep at least one tier.')
-    .max(8, 'At most 8 tiers.')
-    .refine((ts) => new Set(ts.map((t) => t.minCents)).size === ts.length, 'Each tier needs its own threshold.')
-    .refine((ts) => new Set(ts.map((t) => t.name.toLowerCase())).size === ts.length, 'Each tier needs its own name.'),
-});
+export { TiersSchema, type Tier };
 
 /** Staff-set thresholds; the defaults are Padside's starting point, not a rule from anywhere. */
 export const SPONSOR_TIERS = defineSetting('sponsor_tiers', TiersSchema, {

@@ -2,7 +2,8 @@ import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
-import type { User } from '../core/user';
+import type { Profile, User } from '@contracts/account/account-answers';
+import type { ProfileInput } from '@contracts/account/account-schemas';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -28,11 +29,11 @@ export class AccountApi {
     return this.http.post<void>('/api/auth/password-reset/confirm', { token, password }, quiet());
   }
   /** The signed-in person's profile and their choice about marketing mail. */
-  profile(): Observable<{ user: User; marketingOptOut: boolean }> {
-    return this.http.get<{ user: User; marketingOptOut: boolean }>('/api/account/profile');
+  profile(): Observable<Profile> {
+    return this.http.get<Profile>('/api/account/profile');
   }
   /** Saves the display name or marketing choice; refusals come back for the fields. */
-  updateProfile(patch: { displayName?: string; marketingOptOut?: boolean }): Observable<{ user: User }> {
+  updateProfile(patch: ProfileInput): Observable<{ user: User }> {
     return this.http.patch<{ user: User }>('/api/account/profile', patch, quiet());
   }
   /** Changes the password after checking the current one; other sessions end on the server. */

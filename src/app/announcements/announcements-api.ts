@@ -1,26 +1,13 @@
 import { HttpClient, HttpHeaders } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-
-export type Topic = 'drops' | 'launches' | 'build-logs';
-export type SignUpPage = 'home' | 'product' | 'account';
-
-/** The lists and the consent wording the sign-up form shows. */
-export interface ConsentWording {
-  version: string;
-  text: string;
-  topics: { code: Topic; label: string }[];
-}
-
-/** One of the signed-in person's lists. */
-export interface MySubscription {
-  topic: Topic;
-  label: string;
-  productId: number | null;
-  productName: string | null;
-  status: 'pending' | 'confirmed';
-  since: string;
-  unsubscribeToken: string;
-}
+import type {
+  ConfirmedSignUp,
+  ConsentWording,
+  MySubscription,
+  SignUpAnswer,
+  UnsubscribeTarget,
+} from '@contracts/announcements/subscription-answers';
+import type { SignUpInput } from '@contracts/announcements/subscription-schemas';
 
 /** The public side of announcements: sign-up, confirmation, unsubscribe, and the person's own lists. */
 @Injectable({ providedIn: 'root' })
@@ -33,20 +20,20 @@ export class AnnouncementsApi {
   }
 
   /** Asks for news by e-mail; nothing is sent until the address confirms. */
-  signUp(body: { email: string; topics: Topic[]; productId?: number; page: SignUpPage }) {
-    return this.http.post<{ queued: true }>('/api/subscriptions', body);
+  signUp(body: SignUpInput) {
+    return this.http.post<SignUpAnswer>('/api/subscriptions', body);
   }
 
   /** Confirms a sign-up with the token from the e-mail. */
   confirm(token: string) {
-    return this.http.get<{ confirmed: { email: string; topics: Topic[] } }>('/api/subscriptions/confirm', {
+    return this.http.get<{ confirmed: ConfirmedSignUp }>('/api/subscriptions/confirm', {
       params: { token },
     });
   }
 
   /** What an unsubscribe link would stop, for the page to ask before it does. */
   describeUnsubscribe(token: string) {
-    return this.http.get<{ email: string; topic: Topic; label: string }>('/api/subscriptions/unsubscribe', {
+    return this.http.get<UnsubscribeTarget>('/api/subscriptions/unsubscribe', {
       params: { token },
     });
   }
@@ -54,7 +41,7 @@ export class AnnouncementsApi {
   /** The same form POST a mail client makes for one-click unsubscribe (RFC 8058). */
   unsubscribe(token: string) {
     const headers = new HttpHeaders({ 'Content-Type': 'application/x-www-form-urlencoded' });
-    return this.http.post<{ unsubscribed: { email: string; topic: Topic; label: string } }>(
+    return this.http.post<{ unsubscribed: UnsubscribeTarget }>(
       '/api/subscriptions/unsubscribe',
       'List-Unsubscribe=One-Click',
       { params: { token }, headers },

@@ -3,7 +3,8 @@ import { rxResource } from '@angular/core/rxjs-interop';
 import { firstValueFrom } from 'rxjs';
 import { MatButtonModule } from '@angular/material/button';
 import { apiErrorMessage } from '../core/api-error';
-import { AnnouncementsApi, type MySubscription } from './announcements-api';
+import type { MySubscription } from '@contracts/announcements/subscription-answers';
+import { AnnouncementsApi } from './announcements-api';
 import { SignUpForm } from './sign-up-form';
 
 /** The account page's e-mail lists: what the account address gets, a stop button for each, and the sign-up form. */

@@ -8,7 +8,9 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { applyServerErrors } from '../core/api-error';
 import { FieldErrorPipe } from '../shared/field-error-pipe';
-import { AnnouncementsApi, type SignUpPage, type Topic } from './announcements-api';
+import type { SignUpPage } from '@contracts/announcements/subscription-schemas';
+import type { Topic } from '@contracts/announcements/topics';
+import { AnnouncementsApi } from './announcements-api';
 
 let nextId = 0;
 

@@ -7,13 +7,7 @@ export type { Role };
 export const STAFF_ROLES: readonly Role[] = ['editor', 'treasurer', 'admin', 'range_officer'];
 
 /** The signed-in user, as `/api/auth/me` returns it. */
-export interface User {
-  id: number;
-  email: string;
-  displayName: string;
-  roles: Role[];
-  emailVerified: boolean;
-}
+export type { User } from '@contracts/account/account-answers';
 
 /** The error body every API failure carries. */
 export interface ApiErrorBody {

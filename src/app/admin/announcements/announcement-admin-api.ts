@@ -1,6 +1,6 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { Topic } from '../../announcements/announcements-api';
+import type { Topic } from '@contracts/announcements/topics';
 
 export type AnnouncementStatus = 'draft' | 'sending' | 'sent';
 

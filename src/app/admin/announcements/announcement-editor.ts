@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import type { Topic } from '../../announcements/announcements-api';
+import type { Topic } from '@contracts/announcements/topics';
 import { apiErrorMessage, applyServerErrors } from '../../core/api-error';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { AnnouncementAdminApi, type Announcement, type AnnouncementPreview } from './announcement-admin-api';

@@ -5,21 +5,10 @@ import { QUIET_ERRORS } from '../../core/error-interceptor';
 import type { Product } from '@contracts/shop/shop-answers';
 import type { RefundPreview, StaffOrder, StaffOrderPage, StaffRefund } from '@contracts/shop/staff-order-answers';
 import type { OrderListQuery, RefundInput, ShipInput } from '@contracts/shop/staff-order-schemas';
+import type { ShopSettings, ShopSettingsInput } from '@contracts/shop/shop-settings-schemas';
+import type { PrintSheet, RunMove, StaffRun, StaffShippingMethod } from '@contracts/shop/staff-shop-answers';
 
-export interface StaffRun {
-  id: number;
-  name: string;
-  productName: string;
-  productSlug: string;
-  state: string;
-  nextStates: string[];
-  cap: number;
-  reserved: number;
-  remaining: number;
-  opensAt: string;
-  closesAt: string;
-  unitCostCents: number | null;
-}
+/** POST /api/admin/runs: still a copy of the server's RunBody (server/shop/catalogue-service.ts). */
 export interface NewRun {
   productId: number;
   name?: string;
@@ -28,40 +17,6 @@ export interface NewRun {
   closesAt: string;
   unitCostCents?: number;
   variantCaps: { variantId: number; cap: number }[];
-}
-export interface PrintSheet {
-  run: { id: number; name: string; productName: string; state: string; cap: number; opensAt: string; closesAt: string };
-  kind: 'preview' | 'final';
-  rules: { sparesPercent: number; packMultiple: number; minimumPerDesign: number };
-  lines: { variantId: number; label: string; sku: string; paid: number; spares: number; toPrint: number }[];
-  totalPaid: number;
-  totalToPrint: number;
-  unitCostCents: number | null;
-  estimatedCostCents: number | null;
-}
-export interface ShopSettings {
-  sellerProvince: string;
-  /** The legal or trading name on receipts; empty = the team's name. */
-  sellerName: string;
-  gstHstNumber: string;
-  provincialTaxNumbers: Record<string, string>;
-  gstHstRegistered: boolean;
-  provincialRegistrations: string[];
-  provincialTaxOnShipping: Record<string, boolean>;
-  memberDiscountPercent: number;
-  sparesPercent: number;
-  packMultiple: number;
-  minimumPerDesign: number;
-  staffEmail: string;
-  /** The carrier the ship form starts with; empty = none. */
-  carrier: string;
-}
-export interface StaffShippingMethod {
-  id: number;
-  code: string;
-  name: string;
-  brackets: { maxGrams: number | null; priceCents: number }[];
-  active: boolean;
 }
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
@@ -135,7 +90,7 @@ export class ShopAdminApi {
     return this.http.post<{ run: StaffRun }>('/api/admin/runs', body, quiet()).pipe(map((r) => r.run));
   }
   /** Moves a run to its next state (closed, in production, shipped). */
-  moveRun(id: number, state: string): Observable<StaffRun> {
+  moveRun(id: number, state: RunMove): Observable<StaffRun> {
     return this.http.post<{ run: StaffRun }>(`/api/admin/runs/${id}/state`, { state }).pipe(map((r) => r.run));
   }
   /** The print-run sheet: units per size and the orders behind them. */
@@ -147,7 +102,7 @@ export class ShopAdminApi {
     return this.http.get<{ settings: ShopSettings }>('/api/admin/shop/settings').pipe(map((r) => r.settings));
   }
   /** Saves the shop settings; refusals come back for the fields. */
-  saveSettings(s: ShopSettings): Observable<ShopSettings> {
+  saveSettings(s: ShopSettingsInput): Observable<ShopSettings> {
     return this.http
       .put<{ settings: ShopSettings }>('/api/admin/shop/settings', s, quiet())
       .pipe(map((r) => r.settings));
@@ -159,7 +114,7 @@ export class ShopAdminApi {
       .pipe(map((r) => r.items));
   }
   /** Saves a shipping method's name, brackets and on/off switch. */
-  saveShippingMethod(m: StaffShippingMethod): Observable<unknown> {
+  saveShippingMethod(m: Pick<StaffShippingMethod, 'id' | 'name' | 'brackets' | 'active'>): Observable<unknown> {
     return this.http.put(
       `/api/admin/shop/shipping-methods/${m.id}`,
       { name: m.name, brackets: m.brackets, active: m.active },

@@ -5,6 +5,7 @@ import { firstValueFrom } from 'rxjs';
 import { MatButtonModule } from '@angular/material/button';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RUN_MOVE_LABELS, RUN_STATE_LABELS } from '@contracts/labels/run-states';
+import type { RunMove } from '@contracts/shop/staff-shop-answers';
 import { ClubDatePipe } from '../../shared/club-date-pipe';
 import { EmptyState } from '../../shared/empty-state';
 import { LabelPipe } from '../../shared/label-pipe';
@@ -98,7 +99,7 @@ export class RunList {
   protected readonly stateLabels = RUN_STATE_LABELS;
   protected readonly moveLabels = RUN_MOVE_LABELS;
 
-  protected async move(id: number, state: string): Promise<void> {
+  protected async move(id: number, state: RunMove): Promise<void> {
     await firstValueFrom(this.api.moveRun(id, state));
     this.runs.reload();
   }

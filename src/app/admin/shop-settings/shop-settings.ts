@@ -11,11 +11,11 @@ import { applyServerErrors } from '../../core/api-error';
 import { SHIPPING_METHOD_LABELS } from '@contracts/labels/shipping-methods';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { LabelPipe } from '../../shared/label-pipe';
-import { ShopAdminApi, type StaffShippingMethod } from '../orders/shop-admin-api';
+import { PROVINCES, type Province } from '@contracts/shop/provinces';
+import type { StaffShippingMethod } from '@contracts/shop/staff-shop-answers';
+import { ShopAdminApi } from '../orders/shop-admin-api';
 import { formatBrackets, parseBrackets } from './brackets';
 import { OWN_TAX, TAX_NUMBER_FIELDS, taxNumbersFromForm } from './tax-numbers';
-
-const PROVINCES = ['AB', 'BC', 'MB', 'NB', 'NL', 'NS', 'NT', 'NU', 'ON', 'PE', 'QC', 'SK', 'YT'];
 
 /** Shop settings: tax position, member discount, printer rules, shipping methods and their weight brackets. */
 @Component({
@@ -70,7 +70,7 @@ export class ShopSettingsPage {
   protected readonly ownTax = OWN_TAX;
 
   protected readonly form = this.fb.group({
-    sellerProvince: ['MB', Validators.required],
+    sellerProvince: ['MB' as Province, Validators.required],
     gstHstRegistered: [true],
     sellerName: [''],
     gstHstNumber: [''],
@@ -78,7 +78,7 @@ export class ShopSettingsPage {
     taxNumberMB: [''],
     taxNumberQC: [''],
     taxNumberSK: [''],
-    provincialRegistrations: [[] as string[]],
+    provincialRegistrations: [[] as Province[]],
     shippingBC: [false],
     shippingMB: [false],
     shippingQC: [false],

@@ -2,8 +2,22 @@ import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
-import type { AdminSponsorRow, OverdueItem, SponsorDetail, StaffAgreement } from '@contracts/sponsors/sponsor-answers';
-import type { TaxTreatment } from '@contracts/sponsors/tax-treatments';
+import type {
+  AdminSponsorRow,
+  OverdueItem,
+  SponsorDetail,
+  StaffAgreement,
+  TaxTreatmentAnswer,
+} from '@contracts/sponsors/sponsor-answers';
+import type {
+  AgreementBodyInput,
+  CashReceivedInput,
+  ContactInput,
+  HandCreditInput,
+  SponsorBodyInput,
+  TaxTreatmentInput,
+  Tiers,
+} from '@contracts/sponsors/sponsor-schemas';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -21,7 +35,7 @@ export class SponsorAdminApi {
     return this.http.get<{ items: OverdueItem[] }>('/api/admin/sponsors/overdue');
   }
   /** Adds a sponsor. */
-  create(body: { name: string; website: string; blurb: string }): Observable<{ id: number; slug: string }> {
+  create(body: SponsorBodyInput): Observable<{ id: number; slug: string }> {
     return this.http.post<{ id: number; slug: string }>('/api/admin/sponsors', body, quiet());
   }
   /** One sponsor's record for the console. */
@@ -29,10 +43,7 @@ export class SponsorAdminApi {
     return this.http.get<SponsorDetail>(`/api/admin/sponsors/${id}`);
   }
   /** Saves a sponsor's name, website, blurb and logo. */
-  update(
-    id: number,
-    body: { name: string; website: string; blurb: string; logoUrl: string | null },
-  ): Observable<unknown> {
+  update(id: number, body: SponsorBodyInput): Observable<unknown> {
     return this.http.put(`/api/admin/sponsors/${id}`, body, quiet());
   }
   /** A sponsor's agreements with what each promised and what was delivered. */
@@ -40,15 +51,12 @@ export class SponsorAdminApi {
     return this.http.get<{ agreements: StaffAgreement[] }>(`/api/admin/sponsors/${id}/ledger`);
   }
   /** Records a new agreement (cash or parts, and the credits promised in return). */
-  addAgreement(id: number, body: object): Observable<{ id: number }> {
+  addAgreement(id: number, body: AgreementBodyInput): Observable<{ id: number }> {
     return this.http.post<{ id: number }>(`/api/admin/sponsors/${id}/agreements`, body, quiet());
   }
   /** Records whether an agreement is paid promotion or a gift, which decides the tax on it. */
-  setTaxTreatment(
-    agreementId: number,
-    body: { taxTreatment: TaxTreatment; province: string | null },
-  ): Observable<{ taxTreatment: string; taxProvince: string | null }> {
-    return this.http.put<{ taxTreatment: string; taxProvince: string | null }>(
+  setTaxTreatment(agreementId: number, body: TaxTreatmentInput): Observable<TaxTreatmentAnswer> {
+    return this.http.put<TaxTreatmentAnswer>(
       `/api/admin/sponsors/agreements/${agreementId}/tax-treatment`,
       body,
       quiet(),
@@ -59,23 +67,25 @@ export class SponsorAdminApi {
     return `/api/admin/sponsors/agreements/${agreementId}/invoice.pdf`;
   }
   /** Records the day and way an agreement's cash arrived. */
-  cashReceived(agreementId: number, body: { receivedOn: string; method: string }): Observable<unknown> {
+  cashReceived(agreementId: number, body: CashReceivedInput): Observable<unknown> {
     return this.http.post(`/api/admin/sponsors/agreements/${agreementId}/cash-received`, body, quiet());
   }
   /** Records a credit given (a post, a video, a listing) and whether it counts towards a promise. */
-  addCredit(id: number, body: object): Observable<{ id: number; counted: boolean }> {
+  addCredit(id: number, body: HandCreditInput): Observable<{ id: number; counted: boolean }> {
     return this.http.post<{ id: number; counted: boolean }>(`/api/admin/sponsors/${id}/credits`, body, quiet());
   }
   /** Invites an address to the sponsor's portal. */
   addContact(id: number, email: string): Observable<unknown> {
-    return this.http.post(`/api/admin/sponsors/${id}/contacts`, { email }, quiet());
+    const body: ContactInput = { email };
+    return this.http.post(`/api/admin/sponsors/${id}/contacts`, body, quiet());
   }
   /** The sponsor tiers and the amount each starts at. */
-  tiers(): Observable<{ tiers: { name: string; minCents: number }[] }> {
-    return this.http.get<{ tiers: { name: string; minCents: number }[] }>('/api/admin/sponsors/tiers');
+  tiers(): Observable<Tiers> {
+    return this.http.get<Tiers>('/api/admin/sponsors/tiers');
   }
   /** Saves the sponsor tiers. */
-  setTiers(tiers: { name: string; minCents: number }[]): Observable<unknown> {
-    return this.http.put('/api/admin/sponsors/tiers', { tiers }, quiet());
+  setTiers(tiers: Tiers['tiers']): Observable<unknown> {
+    const body: Tiers = { tiers };
+    return this.http.put('/api/admin/sponsors/tiers', body, quiet());
   }
 }

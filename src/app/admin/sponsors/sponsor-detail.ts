@@ -16,14 +16,18 @@ import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { DELIVERABLE_KIND_LABELS as KIND_LABELS, type DeliverableKind } from '@contracts/labels/deliverable-kinds';
 import { ImageUpload } from '../posts/image-upload';
+import { PROVINCES, type Province } from '@contracts/shop/provinces';
 import type { StaffAgreement } from '@contracts/sponsors/sponsor-answers';
+import type { CashMethod, HandCreditKind } from '@contracts/sponsors/sponsor-schemas';
+import type { TaxTreatment } from '@contracts/sponsors/tax-treatments';
 import { SponsorAdminApi } from './sponsor-admin-api';
 import { dollarsToCents } from '../../shared/dollars';
 
-const HAND_KINDS: DeliverableKind[] = ['video_mention', 'social_post', 'logo_on_merch', 'sponsors_page'];
-const PROVINCES = ['AB', 'BC', 'MB', 'NB', 'NL', 'NS', 'NT', 'NU', 'ON', 'PE', 'QC', 'SK', 'YT'];
-type Treatment = 'promotion' | 'gift';
-type TreatmentForm = FormGroup<{ taxTreatment: FormControl<Treatment>; province: FormControl<string> }>;
+const HAND_KINDS: HandCreditKind[] = ['video_mention', 'social_post', 'logo_on_merch', 'sponsors_page'];
+const METHODS: CashMethod[] = ['e-transfer', 'cheque', 'cash', 'card', 'other'];
+/** A province select: a province, or none chosen yet. */
+type ProvinceChoice = Province | '';
+type TreatmentForm = FormGroup<{ taxTreatment: FormControl<TaxTreatment>; province: FormControl<ProvinceChoice> }>;
 
 /** One sponsor: details and logo, contacts, agreements with their ledger, cash received and hand-recorded credits. */
 @Component({
@@ -90,7 +94,7 @@ export class SponsorDetail {
   protected readonly allKinds = Object.keys(KIND_LABELS) as DeliverableKind[];
   protected readonly provinces = PROVINCES;
   protected readonly methodLabels = PAYMENT_METHOD_LABELS;
-  protected readonly methods = ['e-transfer', 'cheque', 'cash', 'card', 'other'] as const;
+  protected readonly methods = METHODS;
   protected readonly detail = rxResource({
     params: () => Number(this.id()),
     stream: ({ params }) => this.api.detail(params),
@@ -110,8 +114,8 @@ export class SponsorDetail {
   protected readonly agreement = this.fb.group({
     season: [String(new Date().getFullYear()), Validators.required],
     cashDollars: [0],
-    taxTreatment: ['gift' as Treatment],
-    taxProvince: [''],
+    taxTreatment: ['gift' as TaxTreatment],
+    taxProvince: ['' as ProvinceChoice],
     inKindDescription: [''],
     inKindDollars: [0],
     inKindReceivedOn: [''],
@@ -120,13 +124,16 @@ export class SponsorDetail {
     dueOn: ['', Validators.required],
   });
   protected readonly credit = this.fb.group({
-    kind: ['video_mention' as DeliverableKind],
+    kind: ['video_mention' as HandCreditKind],
     url: [''],
     videoTimestamp: [''],
     note: [''],
     creditedOn: [''],
   });
-  protected readonly cash = this.fb.group({ receivedOn: ['', Validators.required], method: ['e-transfer'] });
+  protected readonly cash = this.fb.group({
+    receivedOn: ['', Validators.required],
+    method: ['e-transfer' as CashMethod],
+  });
   protected readonly problems = signal<Record<string, string | null>>({});
 
   constructor() {
@@ -193,8 +200,8 @@ export class SponsorDetail {
     let form = this.treatmentForms.get(a.id);
     if (!form) {
       form = this.fb.group({
-        taxTreatment: [(a.taxTreatment ?? 'gift') as Treatment],
-        province: [a.taxProvince ?? ''],
+        taxTreatment: [a.taxTreatment ?? 'gift'],
+        province: [(a.taxProvince ?? '') as ProvinceChoice],
       });
       this.treatmentForms.set(a.id, form);
     }

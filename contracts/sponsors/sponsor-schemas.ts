@@ -1,9 +1,9 @@
+/** Bodies of the sponsor routes (/api/admin/sponsors): the server parses with them; the console takes their types. */
 import { z } from 'zod';
-import { fields } from '../platform/validate';
-import { PROVINCES } from '../shop/tax';
-import { DELIVERABLE_KIND_LABELS } from '../../contracts/labels/deliverable-kinds';
-import { DELIVERABLE_KINDS } from './sponsor-ledger';
-import { TAX_TREATMENTS } from './sponsor-tax';
+import { fields } from '../forms/fields';
+import { DELIVERABLE_KIND_LABELS, DELIVERABLE_KINDS } from '../labels/deliverable-kinds';
+import { PROVINCES } from '../shop/provinces';
+import { TAX_TREATMENTS } from './tax-treatments';
 
 const optionalText = (max: number) =>
   z
@@ -25,6 +25,7 @@ export const webAddress = z
   .nullish()
   .transform((s) => s || null);
 
+/** POST /api/admin/sponsors and PUT /api/admin/sponsors/:id. */
 export const SponsorBody = z.object({
   name: z
     .string({ error: 'Name is required.' })
@@ -41,6 +42,7 @@ const season = z.string({ error: 'Season is required.' }).regex(/^\d{4}$/, 'A se
 const taxTreatment = z.enum(TAX_TREATMENTS, { error: 'Tax treatment is promotion or gift.' });
 const province = z.enum(PROVINCES, { error: 'Choose a province or territory.' });
 
+/** POST /api/admin/sponsors/:id/agreements. */
 export const AgreementBody = z.object({
   season,
   taxTreatment: taxTreatment.optional(),
@@ -77,6 +79,7 @@ export const AgreementBody = z.object({
     .max(50),
 });
 
+/** POST /api/admin/sponsors/agreements/:agreementId/cash-received. */
 export const CashReceivedBody = z.object({
   receivedOn: fields.date,
   method: z.enum(['cash', 'e-transfer', 'cheque', 'card', 'other'], {
@@ -84,6 +87,7 @@ export const CashReceivedBody = z.object({
   }),
 });
 
+/** POST /api/admin/sponsors/:id/credits: a credit given by hand (build-log credits come from publishing). */
 export const HandCreditBody = z
   .object({
     kind: z.enum(['video_mention', 'logo_on_merch', 'sponsors_page', 'social_post'], {
@@ -104,6 +108,7 @@ export const HandCreditBody = z
     message: 'Add the link where the credit can be seen.',
   });
 
+/** POST /api/admin/sponsors/:id/contacts: an account by id or by e-mail. */
 export const ContactBody = z
   .object({ userId: fields.id.optional(), email: fields.email.optional() })
   .refine((c) => c.userId !== undefined || c.email !== undefined, {
@@ -111,5 +116,44 @@ export const ContactBody = z
     message: 'Enter the contact’s e-mail.',
   });
 
-/** PUT .../agreements/:agreementId/tax-treatment. */
+/** PUT /api/admin/sponsors/agreements/:agreementId/tax-treatment. */
 export const TaxTreatmentBody = z.object({ taxTreatment, province: province.nullish() });
+
+/** One tier: a sponsor whose season total (cash + declared in-kind value) reaches `minCents` holds it. */
+export interface Tier {
+  name: string;
+  minCents: number;
+}
+
+/** PUT /api/admin/sponsors/tiers (and what GET answers). */
+export const TiersSchema = z.object({
+  tiers: z
+    .array(
+      z.object({
+        name: z.string().trim().min(1, 'Name the tier.').max(40, 'Use at most 40 characters.'),
+        minCents: z.number().int('Whole cents.').min(0, 'Cannot be negative.').max(100_000_000),
+      }),
+    )
+    .min(1, 'Keep at least one tier.')
+    .max(8, 'At most 8 tiers.')
+    .refine((ts) => new Set(ts.map((t) => t.minCents)).size === ts.length, 'Each tier needs its own threshold.')
+    .refine((ts) => new Set(ts.map((t) => t.name.toLowerCase())).size === ts.length, 'Each tier needs its own name.'),
+});
+
+/** A sponsor as the console sends it. */
+export type SponsorBodyInput = z.input<typeof SponsorBody>;
+/** An agreement as the console sends it. */
+export type AgreementBodyInput = z.input<typeof AgreementBody>;
+/** The day and way an agreement's cash arrived. */
+export type CashReceivedInput = z.input<typeof CashReceivedBody>;
+export type CashMethod = CashReceivedInput['method'];
+/** A credit recorded by hand, as the console sends it. */
+export type HandCreditInput = z.input<typeof HandCreditBody>;
+/** The kinds of credit staff record by hand. */
+export type HandCreditKind = HandCreditInput['kind'];
+/** A contact to link, as the console sends it. */
+export type ContactInput = z.input<typeof ContactBody>;
+/** An agreement's tax treatment, as the console sends it. */
+export type TaxTreatmentInput = z.input<typeof TaxTreatmentBody>;
+/** The sponsor tiers, as the console sends and gets them. */
+export type Tiers = z.infer<typeof TiersSchema>;
