@@ -9,6 +9,7 @@ import { associationVerification, certificationVerification, flyingVerdict, type
 import { dateOnly, type MembershipRepository, type MembershipRow } from './membership-repository';
 import { MEMBERSHIP_SETTINGS } from './membership-settings';
 import { liveStatus } from './membership-views';
+import { UNKNOWN_CARD, type CheckedBy, type CheckInResult } from '../../contracts/membership/check-in-answers';
 
 /** Which self-entered part of a record staff verify. */
 export type VerifiedPart = 'association' | 'certification';
@@ -23,21 +24,15 @@ export interface VerifyInput {
 }
 
 /** A verification as staff see it: when, by whom (name) and against what. */
-export interface VerificationView {
-  at: Date;
-  by: string | null;
-  against: string;
-}
-
 /** The verifications on a record, with the staff names. */
 export async function verificationsView(
   repo: MembershipRepository,
   m: MembershipRow,
-): Promise<Record<VerifiedPart, VerificationView | null>> {
+): Promise<Record<VerifiedPart, CheckedBy | null>> {
   const [a, c] = [associationVerification(m), certificationVerification(m)];
   const names = await repo.userNames([a?.byUserId ?? null, c?.byUserId ?? null]);
   const view = (v: Verification | null) =>
-    v ? { at: v.at, by: v.byUserId ? (names.get(v.byUserId) ?? null) : null, against: v.against } : null;
+    v ? { at: v.at.toISOString(), by: v.byUserId ? (names.get(v.byUserId) ?? null) : null, against: v.against } : null;
   return { association: view(a), certification: view(c) };
 }
 
@@ -119,23 +114,15 @@ export class FlyingStatusService {
   }
 
   /** Launch-day check-in: three separate answers and "may fly" only when dues and a verified association are current. */
-  async checkIn(token: string) {
+  async checkIn(token: string): Promise<CheckInResult> {
     const verified = this.tokens.verify(token);
     const m = verified ? await this.repo.byNumber(verified.memberNumber) : undefined;
-    if (!m || m.status === 'pending')
-      return {
-        status: 'unknown' as const,
-        memberNumber: null,
-        name: null,
-        mayFly: false,
-        termEnd: null,
-        dues: null,
-        association: null,
-        certification: null,
-      };
+    if (!m || m.status === 'pending') return UNKNOWN_CARD;
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const today = this.today();
     const status = liveStatus(m, today, termPolicy(s));
+    // A record with no term yet has never been paid for: the card says as little as one Padside does not know.
+    if (status === 'pending') return UNKNOWN_CARD;
     const verdict = flyingVerdict(m, status, today);
     const checks = await verificationsView(this.repo, m);
     const label = s.certificationLevels.find((l) => l.code === m.certification_level)?.label ?? m.certification_level;

@@ -1,3 +1,4 @@
+import { DEFAULT_CERTIFICATION_LEVELS } from '../../contracts/membership/certification-levels';
 import { MembershipSettingsSchema, type MembershipSettings } from '../../contracts/membership/club-rules-schemas';
 import { defineSetting } from '../settings/settings-service';
 
@@ -15,10 +16,5 @@ export const MEMBERSHIP_SETTINGS = defineSetting<MembershipSettings>('membership
     'I will fly only motors my certification allows and will keep my association membership current while I fly.',
   safetyCodeVersion: '2026-1',
   associationName: 'your national rocketry association',
-  certificationLevels: [
-    { code: 'none', label: 'No high-power certification' },
-    { code: 'L1', label: 'Level 1' },
-    { code: 'L2', label: 'Level 2' },
-    { code: 'L3', label: 'Level 3' },
-  ],
+  certificationLevels: [...DEFAULT_CERTIFICATION_LEVELS],
 });

@@ -1,6 +1,7 @@
 import { TestBed } from '@angular/core/testing';
 import { SiteNames } from '../../core/site-names';
-import { CheckInVerdict, type CheckInResult } from './check-in-verdict';
+import { UNKNOWN_CARD, type CheckInResult } from '@contracts/membership/check-in-answers';
+import { CheckInVerdict } from './check-in-verdict';
 
 const claimed: CheckInResult = {
   status: 'active',
@@ -85,16 +86,7 @@ describe('CheckInVerdict', () => {
   });
 
   it('should show an unknown card without member details', () => {
-    const el = render({
-      status: 'unknown',
-      memberNumber: null,
-      name: null,
-      mayFly: false,
-      termEnd: null,
-      dues: null,
-      association: null,
-      certification: null,
-    });
+    const el = render(UNKNOWN_CARD);
     expect(el.querySelector('h2')!.textContent).toContain('Unknown card');
     expect(el.querySelector('ul')).toBeNull();
   });

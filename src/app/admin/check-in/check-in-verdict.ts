@@ -1,36 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { formatDate, formatDay } from '@contracts/dates/club-dates';
+import type { CheckedBy, CheckInResult } from '@contracts/membership/check-in-answers';
 import { SiteNames } from '../../core/site-names';
-
-/** Who checked a claim, when and against what. */
-export interface CheckedBy {
-  at: string;
-  by: string | null;
-  against: string;
-}
-
-/** What the server says about a scanned card: three separate answers and the overall verdict. */
-export interface CheckInResult {
-  status: 'active' | 'lapsing' | 'lapsed' | 'unknown';
-  memberNumber: string | null;
-  name: string | null;
-  mayFly: boolean;
-  termEnd: string | null;
-  associationName?: string;
-  dues: { answer: 'current' | 'grace' | 'not_current'; termEnd: string | null } | null;
-  association: {
-    answer: 'verified' | 'claimed' | 'expired' | 'not_on_file';
-    number: string | null;
-    expires: string | null;
-    verified: CheckedBy | null;
-  } | null;
-  certification: {
-    answer: 'verified' | 'claimed' | 'none';
-    level: string;
-    label: string;
-    verified: CheckedBy | null;
-  } | null;
-}
 
 /** ok: a fact on record; claim: the member's word, not yet checked; stop: missing, expired or not current. */
 type Tone = 'ok' | 'claim' | 'stop';

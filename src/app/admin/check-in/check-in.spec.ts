@@ -1,3 +1,4 @@
+import { UNKNOWN_CARD } from '@contracts/membership/check-in-answers';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
@@ -45,16 +46,7 @@ describe('CheckIn', () => {
   });
 
   it('should show an unknown card without member details', async () => {
-    const el = await scan('junk', {
-      status: 'unknown',
-      memberNumber: null,
-      name: null,
-      mayFly: false,
-      termEnd: null,
-      dues: null,
-      association: null,
-      certification: null,
-    });
+    const el = await scan('junk', UNKNOWN_CARD);
     const verdict = el.querySelector('[data-testid=check-in-verdict]')!;
     expect(verdict.textContent).toContain('Unknown card');
     expect(verdict.querySelector('dl')).toBeNull();
@@ -66,16 +58,7 @@ describe('CheckIn', () => {
     fixture.debugElement.query(By.directive(CameraScanner)).componentInstance.scanned.emit('v1.01042.1.abc');
     const req = TestBed.inject(HttpTestingController).expectOne('/api/admin/checkin');
     expect(req.request.body).toEqual({ token: 'v1.01042.1.abc' });
-    req.flush({
-      status: 'unknown',
-      memberNumber: null,
-      name: null,
-      mayFly: false,
-      termEnd: null,
-      dues: null,
-      association: null,
-      certification: null,
-    });
+    req.flush(UNKNOWN_CARD);
     await fixture.whenStable();
     expect(
       (fixture.nativeElement as HTMLElement).querySelector('[data-testid=check-in-verdict]')!.textContent,

@@ -10,7 +10,8 @@ import { QUIET_ERRORS } from '../../core/error-interceptor';
 import { FlyingCaution } from '../../membership/flying-caution';
 import { CameraScanner } from '../../shared/camera-scanner';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
-import { CheckInVerdict, type CheckInResult } from './check-in-verdict';
+import type { CheckInResult } from '@contracts/membership/check-in-answers';
+import { CheckInVerdict } from './check-in-verdict';
 
 /**
  * Launch-day check-in: the phone's camera reads the card's code, or a handheld scanner types it into the field (or staff

@@ -3,6 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { ClubRulesForm } from './club-rules-form';
 import type { MembershipSettings } from '@contracts/membership/club-rules-schemas';
+import { DEFAULT_CERTIFICATION_LEVELS } from '@contracts/membership/certification-levels';
 
 const rules: MembershipSettings = {
   termRule: 'calendar',
@@ -13,11 +14,7 @@ const rules: MembershipSettings = {
   waiverText: 'I fly at my own risk.',
   safetyCodeVersion: '2026-1',
   associationName: 'the national association',
-  certificationLevels: [
-    { code: 'none', label: 'No high-power certification' },
-    { code: 'L1', label: 'Level 1' },
-    { code: 'L2', label: 'Level 2' },
-  ],
+  certificationLevels: DEFAULT_CERTIFICATION_LEVELS.slice(0, 3),
 };
 
 describe('ClubRulesForm certification levels', () => {
