@@ -1,6 +1,12 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import { fields, parse } from '../platform/validate';
+import {
+  AutoRenewBody,
+  JoinBody,
+  ProfileEditBody,
+  DuesQuoteQuery,
+  RenewBody,
+} from '../../contracts/membership/membership-schemas';
+import { parse } from '../platform/validate';
 import { requireSignedIn } from '../platform/require-role';
 import type { PayerKeys, PaymentThrottle } from '../payments/payment-throttle';
 import type { SessionUser } from '../platform/roles';
@@ -14,72 +20,6 @@ const payer = (sessionId: string, user: SessionUser): PayerKeys => ({
 });
 /** Every dues answer that returns a membership means the card went through (declines are thrown as 402). */
 const answered = () => true;
-
-const text = (label: string, max: number) =>
-  z
-    .string({ error: `${label} is required.` })
-    .trim()
-    .min(1, `${label} is required.`)
-    .max(max, `${label} is too long.`);
-const optionalDate = fields.date.nullish().or(z.literal('').transform(() => null));
-
-const ProfileSchema = z.object({
-  legalName: text('Legal name', 120),
-  dateOfBirth: fields.date,
-  address: text('Address', 400),
-  phone: text('Phone', 40).regex(/^[0-9+() .-]{7,40}$/, 'Enter a phone number (digits, spaces, + ( ) - .).'),
-  emergencyContact: text('Emergency contact', 200),
-  associationNumber: fields.optionalText(40),
-  associationExpires: optionalDate,
-  certificationLevel: z.string().trim().max(16).optional(),
-  certificationDate: optionalDate,
-  familyMembers: z
-    .array(z.object({ name: text('Name', 120), dateOfBirth: fields.date }))
-    .max(10, 'At most 10 family members.')
-    .optional(),
-});
-
-const JoinSchema = z.object({
-  planId: fields.id,
-  profile: ProfileSchema,
-  waiverVersion: z.string({ error: 'Accept the waiver.' }).min(1, 'Accept the waiver.').max(32),
-  safetyCodeVersion: z.string().max(32).optional(),
-  paymentToken: fields.cardToken,
-  autoRenew: z.boolean().optional(),
-});
-
-const RenewSchema = z.object({
-  paymentToken: fields.cardToken.optional(),
-  planId: fields.id.optional(),
-  waiverVersion: z.string().max(32).optional(),
-  safetyCodeVersion: z.string().max(32).optional(),
-  profile: ProfileSchema.pick({
-    associationNumber: true,
-    associationExpires: true,
-    certificationLevel: true,
-    certificationDate: true,
-  })
-    .partial()
-    .optional(),
-});
-
-const QuoteSchema = z.object({ planId: fields.id, on: fields.date.optional() });
-
-// The member's own corrections between renewals: never the name or date of birth, which staff change.
-const ProfileEditSchema = ProfileSchema.pick({
-  address: true,
-  phone: true,
-  emergencyContact: true,
-  associationNumber: true,
-  associationExpires: true,
-  certificationLevel: true,
-  certificationDate: true,
-}).partial();
-
-const AutoRenewSchema = z.object({
-  autoRenew: z.boolean({ error: 'Choose on or off.' }),
-  paymentToken: fields.cardToken.optional(),
-});
 
 /** The member's side: plans, quote, join, renew, own membership, auto-renew, card. */
 export function membershipRoutes(
@@ -95,11 +35,11 @@ export function membershipRoutes(
     res.json(await service.policy());
   });
   r.post('/quote', async function quoteDues(req, res) {
-    const body = parse(QuoteSchema, req.body);
+    const body = parse(DuesQuoteQuery, req.body);
     res.json(await service.quote(req.user?.id ?? null, body.planId, body.on));
   });
   r.post('/', requireSignedIn, async function join(req, res) {
-    const body = parse(JoinSchema, req.body);
+    const body = parse(JoinBody, req.body);
     res
       .status(201)
       .json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.join(req.user!, body), answered));
@@ -108,14 +48,14 @@ export function membershipRoutes(
     res.json(await record.meOrNone(req.user!.id));
   });
   r.patch('/me', requireSignedIn, async function updateMyProfile(req, res) {
-    res.json(await record.updateProfile(req.user!, parse(ProfileEditSchema, req.body)));
+    res.json(await record.updateProfile(req.user!, parse(ProfileEditBody, req.body)));
   });
   r.post('/renew', requireSignedIn, async function renew(req, res) {
-    const body = parse(RenewSchema, req.body);
+    const body = parse(RenewBody, req.body);
     res.json(await throttle.attempt(payer(req.sessionID, req.user!), () => service.renew(req.user!, body), answered));
   });
   r.post('/auto-renew', requireSignedIn, async function setAutoRenew(req, res) {
-    const body = parse(AutoRenewSchema, req.body);
+    const body = parse(AutoRenewBody, req.body);
     // Putting a card on file is checked by the processor too, so a card tester could use it: same throttle.
     res.json(
       await throttle.attempt(payer(req.sessionID, req.user!), () => record.setAutoRenew(req.user!, body), answered),

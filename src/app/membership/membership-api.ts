@@ -1,6 +1,7 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
+import type { AutoRenewInput, JoinInput, ProfileEditInput, RenewInput } from '@contracts/membership/membership-schemas';
 import { QUIET_ERRORS } from '../core/error-interceptor';
 
 export type MembershipStatus = 'pending' | 'active' | 'lapsing' | 'lapsed';
@@ -86,16 +87,6 @@ export interface MemberCard {
   qrSvg: string;
 }
 
-/** What the join form sends. */
-export interface JoinRequest {
-  planId: number;
-  profile: Record<string, unknown>;
-  waiverVersion: string;
-  safetyCodeVersion: string;
-  paymentToken: string;
-  autoRenew: boolean;
-}
-
 // Form errors are shown beside the fields, so these calls skip the global snack bar.
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -125,36 +116,24 @@ export class MembershipApi {
   }
 
   /** Joins the club and pays the dues; refusals come back for the fields. */
-  join(body: JoinRequest): Observable<{ membership: Membership }> {
+  join(body: JoinInput): Observable<{ membership: Membership }> {
     return this.http.post<{ membership: Membership }>('/api/membership', body, quiet());
   }
 
   /** Pays the next term's dues, with the card on file or a new token. */
-  renew(body: {
-    paymentToken?: string;
-    waiverVersion?: string;
-    safetyCodeVersion?: string;
-  }): Observable<{ membership: Membership }> {
+  renew(body: RenewInput): Observable<{ membership: Membership }> {
     return this.http.post<{ membership: Membership }>('/api/membership/renew', body, quiet());
   }
 
   /** Saves the member's association number and certification. */
-  updateProfile(patch: {
-    associationNumber?: string | null;
-    associationExpires?: string | null;
-    certificationLevel?: string;
-    certificationDate?: string | null;
-  }): Observable<{ membership: Membership }> {
+  updateProfile(patch: ProfileEditInput): Observable<{ membership: Membership }> {
     return this.http.patch<{ membership: Membership }>('/api/membership/me', patch, quiet());
   }
 
   /** Switches automatic renewal on (with a card) or off. */
   setAutoRenew(autoRenew: boolean, paymentToken?: string): Observable<{ membership: Membership }> {
-    return this.http.post<{ membership: Membership }>(
-      '/api/membership/auto-renew',
-      { autoRenew, ...(paymentToken ? { paymentToken } : {}) },
-      quiet(),
-    );
+    const body: AutoRenewInput = { autoRenew, ...(paymentToken ? { paymentToken } : {}) };
+    return this.http.post<{ membership: Membership }>('/api/membership/auto-renew', body, quiet());
   }
 
   /** The member card with its check-in QR code. */
