@@ -158,6 +158,11 @@ export class SubscriptionRepository {
     return Boolean(await this.db('shop_products').where('id', id).first('id'));
   }
 
+  /** A product's name, for the confirmation mail of a drop request; null when there is no such product. */
+  async productName(trx: Knex.Transaction, id: number): Promise<string | null> {
+    return (await trx('shop_products').where('id', id).first('name'))?.name ?? null;
+  }
+
   /**
    * Addresses with a confirmed express consent for the list. `productId` narrows drop requests to those for that
    * product or for every product; without it, product requests count too (they asked about drops).

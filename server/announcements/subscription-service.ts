@@ -100,13 +100,11 @@ export class SubscriptionService {
         if (fresh) asked.push(topic);
       }
       if (asked.length === 0) return;
-      const product = input.productId
-        ? await trx('shop_products').where('id', input.productId).first('name')
-        : undefined;
+      const productName = input.productId ? await this.repo.productName(trx, input.productId) : null;
       const link = `${this.site.publicUrl}/subscriptions/confirm?token=${token}`;
       await enqueueEmail(
         trx,
-        confirmSubscriptionMail(input.email, asked, product?.name ?? null, input.page, link, this.site.teamName),
+        confirmSubscriptionMail(input.email, asked, productName, input.page, link, this.site.teamName),
       );
     });
   }

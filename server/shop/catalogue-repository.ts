@@ -191,6 +191,28 @@ export class CatalogueRepository {
     return new Map(rows.map((r: { variant_id: string; units: number }) => [Number(r.variant_id), r.units]));
   }
 
+  /** Product addresses starting with `base`, so a new one can be made unique. */
+  async slugsStartingWith(base: string): Promise<Set<string>> {
+    return new Set(await this.db('shop_products').where('slug', 'like', `${base}%`).pluck('slug'));
+  }
+
+  /** The first of these SKUs some variant already uses; null when all are free. */
+  async takenSku(skus: readonly string[]): Promise<string | null> {
+    return (await this.db('shop_variants').whereIn('sku', skus).first('sku'))?.sku ?? null;
+  }
+
+  /** A product's variants in their order, id and label, to attach run caps named by label. */
+  async variantLabels(trx: Knex.Transaction, productId: number): Promise<{ id: number; label: string }[]> {
+    const rows = await trx('shop_variants').where('product_id', productId).orderBy('position').select('id', 'label');
+    return rows.map((v) => ({ id: Number(v.id), label: v.label }));
+  }
+
+  /** Locks a product row for the transaction (so two staff cannot both add a run); null when there is none. */
+  async lockProduct(trx: Knex.Transaction, id: number): Promise<{ id: number; name: string } | null> {
+    const row = await trx('shop_products').where('id', id).forUpdate().first('id', 'name');
+    return row ? { id: Number(row.id), name: row.name } : null;
+  }
+
   /** Names of products whose pictures or description show one of `urls`. */
   async namesUsingImage(urls: readonly string[]): Promise<string[]> {
     const rows = await this.db('shop_products')

@@ -164,18 +164,14 @@ export class CatalogueService {
     if (input.run && new Date(input.run.closesAt) <= new Date(input.run.opensAt))
       throw badRequest('The run must close after it opens.', { 'run.closesAt': 'Must be after the opening.' });
     const base = slugify(input.name, 70);
-    const slug = uniqueSlug(
-      base,
-      new Set(await this.db('shop_products').where('slug', 'like', `${base}%`).pluck('slug')),
-    );
+    const slug = uniqueSlug(base, await this.repo.slugsStartingWith(base));
     const skus = input.variants.map((v, i) =>
       (v.sku ?? `${base.slice(0, 20)}-${slugify(v.label)}-${i + 1}`).toUpperCase(),
     );
     if (new Set(skus).size !== skus.length)
       throw badRequest('Each variant needs its own SKU.', { variants: 'Two variants share a SKU.' });
-    const clash = await this.db('shop_variants').whereIn('sku', skus).first('sku');
-    if (clash)
-      throw conflict('sku_taken', 'A SKU is already in use.', { variants: `SKU ${clash.sku} is already in use.` });
+    const clash = await this.repo.takenSku(skus);
+    if (clash) throw conflict('sku_taken', 'A SKU is already in use.', { variants: `SKU ${clash} is already in use.` });
     const id = await this.db.transaction(async (trx) => {
       const productId = await this.repo.insertProduct(
         trx,
@@ -198,12 +194,9 @@ export class CatalogueService {
         })),
       );
       if (input.run) {
-        const variants = await trx('shop_variants')
-          .where('product_id', productId)
-          .orderBy('position')
-          .select('id', 'label');
+        const variants = await this.repo.variantLabels(trx, productId);
         const caps = Object.entries(input.run.variantCaps ?? {})
-          .map(([label, cap]) => ({ variantId: Number(variants.find((v) => v.label === label)?.id), cap }))
+          .map(([label, cap]) => ({ variantId: variants.find((v) => v.label === label)?.id ?? 0, cap }))
           .filter((c) => c.variantId);
         await this.repo.insertRun(
           trx,
@@ -231,7 +224,7 @@ export class CatalogueService {
     if (new Date(input.closesAt) <= new Date(input.opensAt))
       throw badRequest('The run must close after it opens.', { closesAt: 'Must be after the opening.' });
     const runId = await this.db.transaction(async (trx) => {
-      const product = await trx('shop_products').where('id', input.productId).forUpdate().first('id', 'name');
+      const product = await this.repo.lockProduct(trx, input.productId);
       if (!product) throw badRequest('Choose a product.', { productId: 'No such product.' });
       const [b] = await this.repo.bundles({ id: input.productId }, trx);
       if (!b.run)

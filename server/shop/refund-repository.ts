@@ -139,6 +139,19 @@ export class RefundRepository {
     return (await trx('shop_refunds').where({ id, state: 'requested' }).update(patch)) === 1;
   }
 
+  /** A refund recorded as failed that the processor in fact made (its answer was lost): true when it moved. */
+  async settleFailedAsSucceeded(
+    trx: Knex.Transaction,
+    id: number,
+    patch: { processor_refund_id: string; settled_at: Date },
+  ): Promise<boolean> {
+    return (
+      (await trx('shop_refunds')
+        .where({ id, state: 'failed' })
+        .update({ ...patch, state: 'succeeded', failure_message: null })) === 1
+    );
+  }
+
   /** One refund by id. */
   async byId(id: number, db: Db = this.db): Promise<ShopRefundRow | null> {
     const row = await db('shop_refunds').where('id', id).first();

@@ -287,12 +287,10 @@ export class RefundService {
         processor_refund_id: processorRefundId,
         settled_at: now,
       })) ||
-      (await trx('shop_refunds').where({ id: refundId, state: 'failed' }).update({
-        state: 'succeeded',
+      (await this.refunds.settleFailedAsSucceeded(trx, refundId, {
         processor_refund_id: processorRefundId,
-        failure_message: null,
         settled_at: now,
-      })) === 1;
+      }));
     if (moved) await this.applySucceeded(trx, refundId);
   }
 

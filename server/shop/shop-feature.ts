@@ -22,6 +22,7 @@ import { ShopConfigRepository } from './shop-config-repository';
 import { ShopConfigService } from './shop-config-service';
 import { accountOrderRoutes, checkoutRoutes, orderRoutes, productRoutes, shippingMethodRoutes } from './shop-routes';
 import { StaffOrderService } from './staff-order-service';
+import { PaymentEventRepository } from './payment-event-repository';
 import { WebhookService } from './webhook-service';
 
 /**
@@ -77,6 +78,7 @@ export function shopFeature(
   const webhooks = new WebhookService(
     deps.db,
     { gateway: deps.payments, secret: deps.config.stripe.webhookSecret },
+    new PaymentEventRepository(deps.db),
     orders,
     refunds,
     settings,

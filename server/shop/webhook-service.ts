@@ -6,6 +6,7 @@ import type { Clock } from '../platform/clock';
 import type { SettingsService } from '../settings/settings-service';
 import { AppError, badRequest } from '../platform/app-error';
 import type { OrderRepository } from './order-repository';
+import type { PaymentEventRepository } from './payment-event-repository';
 import type { RefundService } from './refund-service';
 import { disputeEmail } from './shop-emails';
 import { SHOP_SETTINGS } from './shop-settings';
@@ -22,6 +23,7 @@ export class WebhookService {
     private readonly db: Knex,
     /** Who checks an event's signature, and the secret it was signed with. */
     private readonly processor: { gateway: PaymentGateway; secret: string },
+    private readonly events: PaymentEventRepository,
     private readonly orders: OrderRepository,
     private readonly refunds: RefundService,
     private readonly settings: SettingsService,
@@ -52,15 +54,10 @@ export class WebhookService {
    * staff request, this event or reconciliation sees it first.
    */
   private async handle(event: Stripe.Event): Promise<boolean> {
-    if (await this.db('payment_events').where('id', event.id).first('id')) return false;
+    if (await this.events.seen(event.id)) return false;
     if (event.type === 'charge.refunded') await this.chargeRefunded(event.data.object);
     return this.db.transaction(async (trx) => {
-      const fresh = await trx('payment_events')
-        .insert({ id: event.id, type: event.type, received_at: this.clock.now() })
-        .onConflict('id')
-        .ignore()
-        .returning('id');
-      if (!fresh.length) return false;
+      if (!(await this.events.record(trx, event, this.clock.now()))) return false;
       if (event.type === 'charge.dispute.created') await this.disputeCreated(trx, event.data.object);
       return true;
     });
