@@ -194,6 +194,23 @@ describe('ASVS 4.1.2: flying status is verified by staff, not claimed', () => {
     );
   });
 
+  it('answers a card whose record has no term as an unknown card: nothing about anyone, and no flying', async () => {
+    const m = await member('Termless', { associationNumber: 'NA-4010', associationExpires: '2030-06-30' });
+    await verifyAssociation(m.id, 'NA-4010', '2030-06-30');
+    expect((await m.checkIn()).mayFly).toBe(true);
+    await t.deps.db('memberships').where('id', m.id).update({ term_start: null, term_end: null });
+    expect(await m.checkIn()).toEqual({
+      status: 'unknown',
+      memberNumber: null,
+      name: null,
+      mayFly: false,
+      termEnd: null,
+      dues: null,
+      association: null,
+      certification: null,
+    });
+  });
+
   it('marks claims and checks apart in the roster and its CSV', async () => {
     const m = await member('Rostered', {
       associationNumber: 'NA-4010',
