@@ -294,7 +294,7 @@ describe('GET /api/account/export', () => {
       ship_name: `Deleted account #${s.user.id}`,
       ship_line1: null,
       total_cents: 448,
-      user_id: String(s.user.id),
+      user_id: s.user.id,
     });
   });
 
