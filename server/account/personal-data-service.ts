@@ -105,13 +105,13 @@ export class PersonalDataService {
    * first gone: the club always keeps one admin.
    */
   private async refuseLastAdmin(trx: Knex.Transaction, userId: number): Promise<void> {
-    const admins: { id: string }[] = await trx('users')
+    const admins: { id: number }[] = await trx('users')
       .whereRaw("'admin' = ANY(roles)")
       .whereNull('deleted_at')
       .orderBy('id')
       .forUpdate()
       .select('id');
-    if (admins.some((a) => Number(a.id) === userId) && admins.length === 1) {
+    if (admins.some((a) => a.id === userId) && admins.length === 1) {
       throw conflict('last_admin', 'You are the only admin. Make someone else an admin before deleting your account.');
     }
   }

@@ -109,12 +109,12 @@ export class AccountAdminService {
   async history(id: number): Promise<AccountChangeView[]> {
     if (!(await this.users.byId(id))) throw notFound('No such user.');
     return (await this.changes.history(id, HISTORY_LIMIT)).map((c) => ({
-      id: Number(c.id),
+      id: c.id,
       kind: c.kind,
       added: c.roles_after.filter((r) => !c.roles_before.includes(r)),
       removed: c.roles_before.filter((r) => !c.roles_after.includes(r)),
       at: c.changed_at.toISOString(),
-      by: c.changed_by === null ? null : { id: Number(c.changed_by), name: c.changed_by_name ?? '' },
+      by: c.changed_by === null ? null : { id: c.changed_by, name: c.changed_by_name ?? '' },
     }));
   }
 

@@ -4,12 +4,12 @@ import type { Role } from '../platform/roles';
 export type AccountChangeKind = 'roles' | 'disabled' | 'enabled';
 
 export interface AccountChangeRow {
-  id: string;
+  id: number;
   kind: AccountChangeKind;
   roles_before: Role[];
   roles_after: Role[];
   changed_at: Date;
-  changed_by: string | null;
+  changed_by: number | null;
   changed_by_name: string | null;
 }
 
@@ -63,7 +63,7 @@ export class AccountChangeRepository {
   lockUser(
     trx: Knex.Transaction,
     id: number,
-  ): Promise<{ id: string; roles: Role[]; disabled_at: Date | null; deleted_at: Date | null } | undefined> {
+  ): Promise<{ id: number; roles: Role[]; disabled_at: Date | null; deleted_at: Date | null } | undefined> {
     return trx('users').where('id', id).forUpdate().first('id', 'roles', 'disabled_at', 'deleted_at');
   }
 }

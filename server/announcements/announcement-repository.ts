@@ -73,7 +73,7 @@ export class AnnouncementRepository {
     sort: 'created' | 'subject' | 'topic';
     dir: 'asc' | 'desc';
   }): Promise<{ rows: AnnouncementRow[]; total: number }> {
-    const [{ count }] = await this.db('announcements').count<{ count: string }[]>('* as count');
+    const [{ count }] = await this.db('announcements').count<{ count: number }[]>('* as count');
     const column = { created: 'id', subject: 'subject', topic: 'topic' }[q.sort];
     const rows = await this.db('announcements')
       .orderBy([
@@ -82,7 +82,7 @@ export class AnnouncementRepository {
       ])
       .limit(q.pageSize)
       .offset((q.page - 1) * q.pageSize);
-    return { rows, total: Number(count) };
+    return { rows, total: count };
   }
 
   /** Outbox counts per announcement. */
@@ -96,8 +96,8 @@ export class AnnouncementRepository {
       .groupBy('announcement_id', 'status')
       .select('announcement_id', 'status')
       .count('* as n');
-    for (const r of rows as { announcement_id: string; status: keyof DeliveryCounts; n: string }[])
-      out.get(Number(r.announcement_id))![r.status] = Number(r.n);
+    for (const r of rows as { announcement_id: number; status: keyof DeliveryCounts; n: number }[])
+      out.get(r.announcement_id)![r.status] = r.n;
     return out;
   }
 

@@ -56,9 +56,9 @@ export class AnnouncementService {
   /** One page of announcements for the staff table, each with its outbox counts. */
   async list(q: { page: number; pageSize: number; sort: 'created' | 'subject' | 'topic'; dir: 'asc' | 'desc' }) {
     const { rows, total } = await this.repo.page(q);
-    const counts = await this.repo.counts(rows.map((r) => Number(r.id)));
+    const counts = await this.repo.counts(rows.map((r) => r.id));
     return {
-      items: rows.map((r) => this.toView(r, counts.get(Number(r.id))!)),
+      items: rows.map((r) => this.toView(r, counts.get(r.id)!)),
       total,
       page: q.page,
       pageSize: q.pageSize,
@@ -155,7 +155,7 @@ export class AnnouncementService {
         const { queued, suppressed } = await this.queue(
           trx,
           notice,
-          await this.audience.of(trx, 'drops', this.today(), { productId: Number(run.product_id), expressOnly: true }),
+          await this.audience.of(trx, 'drops', this.today(), { productId: run.product_id, expressOnly: true }),
         );
         await this.repo.update(trx, notice.id, { recipients: queued, skipped_suppressed: suppressed });
         sent++;
@@ -189,7 +189,7 @@ export class AnnouncementService {
       subject: row.subject,
       markdown: row.markdown,
       template: row.kind === 'drop_notice' ? 'drop-notice' : 'announcement',
-      announcementId: Number(row.id),
+      announcementId: row.id,
     };
   }
 
@@ -204,19 +204,19 @@ export class AnnouncementService {
   }
 
   private async view(row: AnnouncementRow) {
-    return this.toView(row, (await this.repo.counts([Number(row.id)])).get(Number(row.id))!);
+    return this.toView(row, (await this.repo.counts([row.id])).get(row.id)!);
   }
 
   private toView(r: AnnouncementRow, counts: DeliveryCounts) {
     const status = r.status === 'draft' ? 'draft' : counts.queued > 0 ? 'sending' : 'sent';
     return {
-      id: Number(r.id),
+      id: r.id,
       kind: r.kind,
       topic: r.topic,
       subject: r.subject,
       markdown: r.markdown,
       status,
-      productId: r.product_id === null ? null : Number(r.product_id),
+      productId: r.product_id,
       createdAt: new Date(r.created_at).toISOString(),
       sentAt: r.sent_at ? new Date(r.sent_at).toISOString() : null,
       counts: { recipients: r.recipients, ...counts, suppressed: counts.suppressed + r.skipped_suppressed },

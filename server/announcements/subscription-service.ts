@@ -152,7 +152,7 @@ export class SubscriptionService {
       items: rows.map((r) => ({
         topic: r.topic,
         label: TOPIC_LABELS[r.topic],
-        productId: r.product_id === null ? null : Number(r.product_id),
+        productId: r.product_id,
         productName: r.product_name,
         status: r.confirmed_at ? ('confirmed' as const) : ('pending' as const),
         since: (r.confirmed_at ?? r.requested_at).toISOString(),

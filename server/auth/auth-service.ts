@@ -88,7 +88,7 @@ export class AuthService {
   async authenticate(email: string, password: string, ip: string): Promise<SessionUser> {
     const accountKey = email.toLowerCase();
     const row = await this.users.byEmail(accountKey);
-    const { familiar } = await this.signInGuard.check(accountKey, ip, row ? Number(row.id) : null);
+    const { familiar } = await this.signInGuard.check(accountKey, ip, row ? row.id : null);
     const ok = row ? await verifyPassword(row.password_hash, password) : (await burnVerifyTime(password), false);
     if (!row || !ok) {
       await this.signInGuard.fail(accountKey, ip, familiar);
@@ -101,7 +101,7 @@ export class AuthService {
         'account_disabled',
         'This account is disabled. Ask the club’s admin if you think that is a mistake.',
       );
-    await this.signInGuard.succeed(accountKey, ip, Number(row.id));
+    await this.signInGuard.succeed(accountKey, ip, row.id);
     return toSessionUser(row);
   }
 
@@ -250,7 +250,7 @@ export class AuthService {
       });
     }
     await trx('auth_tokens').where('id', row.id).update({ used_at: this.clock.now() });
-    return Number(row.user_id);
+    return row.user_id;
   }
 
   private hoursFromNow(hours: number): Date {

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import type { Role, SessionUser } from '../platform/roles';
 
 export interface UserRow {
-  id: string;
+  id: number;
   email: string;
   password_hash: string;
   display_name: string;
@@ -20,7 +20,7 @@ export interface UserRow {
 /** The session's copy of a user: just what requests check (id, roles, verified), never the password hash. */
 export function toSessionUser(row: UserRow): SessionUser {
   return {
-    id: Number(row.id),
+    id: row.id,
     email: row.email,
     displayName: row.display_name,
     roles: row.roles,
@@ -108,12 +108,12 @@ export class UserRepository {
       if (opts.disabled !== undefined)
         qb.where((w) => (opts.disabled ? w.whereNotNull('disabled_at') : w.whereNull('disabled_at')));
     });
-    const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
+    const [{ count }] = await base.clone().count<{ count: number }[]>({ count: '*' });
     const items = await base
       .clone()
       .orderBy('id')
       .limit(opts.pageSize)
       .offset((opts.page - 1) * opts.pageSize);
-    return { items, total: Number(count) };
+    return { items, total: count };
   }
 }

@@ -47,8 +47,8 @@ export interface LedgerRow {
   taxes: Record<string, number>;
 }
 
-/** A row as PostgreSQL returns it: bigint sums arrive as strings. */
-type RawRow = Record<string, string | number | boolean | null | Record<string, string | number>>;
+/** A row as PostgreSQL returns it: bigint columns and sums (cast back to bigint) arrive as numbers. */
+type RawRow = Record<string, string | number | boolean | null | Record<string, number>>;
 
 /** Aggregates over money_movements, all in SQL; instants are bucketed by day and month in the club's time zone. */
 export class BooksRepository {
@@ -79,11 +79,11 @@ export class BooksRepository {
         this.db.raw('COALESCE(SUM(t.taxable_cents), 0)::bigint AS taxable'),
         this.db.raw('COALESCE(SUM(t.tax_cents), 0)::bigint AS tax'),
       );
-    return (rows as RawRow[]).map((r) => ({
+    return (rows as (RawRow & { taxable: number; tax: number })[]).map((r) => ({
       code: String(r.code),
       jurisdiction: String(r.jurisdiction),
-      taxableCents: Number(r.taxable),
-      taxCents: Number(r.tax),
+      taxableCents: r.taxable,
+      taxCents: r.tax,
     }));
   }
 
@@ -110,13 +110,13 @@ export class BooksRepository {
         this.db.raw('COALESCE(-SUM(t.taxable_cents), 0)::bigint AS taxable'),
         this.db.raw('COALESCE(-SUM(t.tax_cents), 0)::bigint AS tax'),
       );
-    return (rows as RawRow[]).map((r) => ({
+    return (rows as (RawRow & { taxable: number; tax: number })[]).map((r) => ({
       month: String(r.month),
       source: String(r.source) as MovementSource,
       code: String(r.code),
       jurisdiction: String(r.jurisdiction),
-      taxableCents: Number(r.taxable),
-      taxCents: Number(r.tax),
+      taxableCents: r.taxable,
+      taxCents: r.tax,
     }));
   }
 
@@ -134,13 +134,13 @@ export class BooksRepository {
         this.db.raw('COALESCE(-SUM(m.gross_cents) FILTER (WHERE m.gross_cents < 0), 0)::bigint AS refunds'),
         this.db.raw('COALESCE(SUM(m.fee_cents), 0)::bigint AS fees'),
       );
-    return (rows as RawRow[]).map((r) => ({
+    return (rows as (RawRow & { gross: number; tax: number; refunds: number; fees: number })[]).map((r) => ({
       month: String(r.month),
       source: String(r.source) as MovementSource,
-      grossCents: Number(r.gross),
-      taxCents: Number(r.tax),
-      refundsCents: Number(r.refunds),
-      feesCents: Number(r.fees),
+      grossCents: r.gross,
+      taxCents: r.tax,
+      refundsCents: r.refunds,
+      feesCents: r.fees,
     }));
   }
 
@@ -181,8 +181,8 @@ export class BooksRepository {
           "COALESCE((SELECT jsonb_object_agg(t.code, t.tax_cents) FROM money_movement_taxes t WHERE t.movement_id = m.id), '{}'::jsonb) AS taxes",
         ),
       );
-    return (rows as RawRow[]).map((r) => ({
-      id: Number(r.id),
+    return (rows as (RawRow & { id: number; gross_cents: number; fee_cents: number })[]).map((r) => ({
+      id: r.id,
       occurredAt: String(r.occurred_key),
       date: String(r.date),
       kind: String(r.kind),
@@ -190,12 +190,11 @@ export class BooksRepository {
       reference: String(r.reference),
       counterparty: String(r.counterparty),
       method: String(r.method),
-      grossCents: Number(r.gross_cents),
-      feeCents: Number(r.fee_cents),
+      grossCents: r.gross_cents,
+      feeCents: r.fee_cents,
       feeEstimated: r.fee_estimated === true,
-      taxes: Object.fromEntries(
-        Object.entries(r.taxes as Record<string, string | number>).map(([k, v]) => [k, Number(v)]),
-      ),
+      // jsonb: the bigint cents arrive as JSON numbers.
+      taxes: r.taxes as Record<string, number>,
     }));
   }
 
@@ -238,9 +237,9 @@ export class BooksRepository {
       ),
     );
     return {
-      salesToday: Number(row.sales_today),
-      salesMonth: Number(row.sales_month),
-      duesMonth: Number(row.dues_month),
+      salesToday: row.sales_today,
+      salesMonth: row.sales_month,
+      duesMonth: row.dues_month,
     };
   }
 }

@@ -51,7 +51,7 @@ export async function recordMovement(trx: Knex.Transaction, m: Movement): Promis
     .ignore()
     .returning('id');
   if (!rows.length) return null;
-  const id = Number(rows[0].id);
+  const id = rows[0].id;
   if (m.taxes?.length) {
     await trx('money_movement_taxes').insert(
       m.taxes.map((t) => ({

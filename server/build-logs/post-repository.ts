@@ -5,14 +5,14 @@ import type { PostStatus } from '../../contracts/labels/post-states';
 type Db = Knex | Knex.Transaction;
 
 export interface PostRow {
-  id: string;
+  id: number;
   slug: string;
   title: string;
   summary: string;
   cover_url: string | null;
   markdown: string;
   tags: string[];
-  author_id: string | null;
+  author_id: number | null;
   author_name?: string | null;
   status: PostStatus;
   publish_at: Date | null;
@@ -92,7 +92,7 @@ export class PostRepository {
     const [row] = await trx('posts')
       .insert({ ...columns(p), author_id: authorId })
       .returning('id');
-    return Number(row.id);
+    return row.id;
   }
 
   /** Overwrites a post's editable fields and stamps the change time. */
@@ -121,10 +121,10 @@ export class PostRepository {
       .whereIn('pc.post_id', postIds)
       .select('pc.post_id', 's.id', 's.name', 's.slug')
       .orderBy('s.name');
-    for (const r of rows as { post_id: string; id: string; name: string; slug: string }[]) {
-      const list = out.get(Number(r.post_id)) ?? [];
-      list.push({ sponsorId: Number(r.id), name: r.name, slug: r.slug });
-      out.set(Number(r.post_id), list);
+    for (const r of rows as { post_id: number; id: number; name: string; slug: string }[]) {
+      const list = out.get(r.post_id) ?? [];
+      list.push({ sponsorId: r.id, name: r.name, slug: r.slug });
+      out.set(r.post_id, list);
     }
     return out;
   }
@@ -138,7 +138,7 @@ export class PostRepository {
     const base = this.db<PostRow>('posts')
       .where('status', 'published')
       .modify((q) => opts.tag && q.whereRaw('? = ANY(tags)', [opts.tag]));
-    const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
+    const [{ count }] = await base.clone().count<{ count: number }[]>({ count: '*' });
     const items = await base
       .clone()
       .orderBy([
@@ -147,7 +147,7 @@ export class PostRepository {
       ])
       .limit(opts.pageSize)
       .offset((opts.page - 1) * opts.pageSize);
-    return { items, total: Number(count) };
+    return { items, total: count };
   }
 
   /** Each tag used by a published post with its count, counted in SQL over the tags array. */
@@ -155,7 +155,7 @@ export class PostRepository {
     const rows = await this.db.raw(
       "SELECT t AS tag, count(*) AS count FROM posts, unnest(tags) t WHERE status = 'published' GROUP BY t ORDER BY count(*) DESC, t",
     );
-    return rows.rows.map((r: { tag: string; count: string }) => ({ tag: r.tag, count: Number(r.count) }));
+    return rows.rows.map((r: { tag: string; count: string }) => ({ tag: r.tag, count: r.count }));
   }
 
   /** Every post for the editors' table, with sorting and paging done in SQL. */
@@ -171,14 +171,14 @@ export class PostRepository {
       if (opts.status) q.where('status', opts.status);
       if (opts.q) q.whereILike('title', `%${opts.q}%`);
     });
-    const [{ count }] = await base.clone().count<{ count: string }[]>({ count: '*' });
+    const [{ count }] = await base.clone().count<{ count: number }[]>({ count: '*' });
     const column = { updated: 'updated_at', title: 'title', published: 'published_at' }[opts.sort];
     const items = await base
       .clone()
       .orderByRaw(`${column} ${opts.dir} NULLS LAST, id desc`)
       .limit(opts.pageSize)
       .offset((opts.page - 1) * opts.pageSize);
-    return { items, total: Number(count) };
+    return { items, total: count };
   }
 
   /** Scheduled posts whose time has come, locked so two processes do not publish the same one. */

@@ -109,10 +109,8 @@ export class PostService {
           publishAt: p.publish_at,
           hazardNotice: p.hazard_requested,
         };
-        const sponsorIds = [...((await this.posts.creditsOf([Number(p.id)], trx)).get(Number(p.id)) ?? [])].map(
-          (c) => c.sponsorId,
-        );
-        await this.posts.update(trx, Number(p.id), {
+        const sponsorIds = [...((await this.posts.creditsOf([p.id], trx)).get(p.id) ?? [])].map((c) => c.sponsorId);
+        await this.posts.update(trx, p.id, {
           ...this.toWrite(input, p.slug, p, now),
           publishedAt: p.publish_at ?? now,
         });
@@ -126,7 +124,7 @@ export class PostService {
         );
         await this.credits.syncPostCredits(
           trx,
-          { id: Number(p.id), slug: p.slug, title: p.title, published: true },
+          { id: p.id, slug: p.slug, title: p.title, published: true },
           sponsorIds,
           now,
           chosen,
@@ -182,7 +180,7 @@ export class PostService {
   async publicPost(slug: string, roles: readonly Role[]): Promise<PostDetail> {
     const p = await this.posts.publishedBySlug(slug);
     if (!p) throw notFound('No build log at this address.');
-    const credits = (await this.posts.creditsOf([Number(p.id)])).get(Number(p.id)) ?? [];
+    const credits = (await this.posts.creditsOf([p.id])).get(p.id) ?? [];
     const mayRead = !p.members_only || roles.some((r) => BODY_READERS.includes(r));
     return {
       slug: p.slug,
@@ -207,7 +205,7 @@ export class PostService {
     const { items, total } = await this.posts.adminPage(opts);
     return {
       items: items.map((p) => ({
-        id: Number(p.id),
+        id: p.id,
         slug: p.slug,
         title: p.title,
         status: p.status,
@@ -250,7 +248,7 @@ export class PostService {
   /** Latest published posts for the feeds; members-only bodies never go into a feed. */
   async feedItems(limit: number) {
     const rows = await this.posts.latestPublished(limit);
-    const credits = await this.posts.creditsOf(rows.map((p) => Number(p.id)));
+    const credits = await this.posts.creditsOf(rows.map((p) => p.id));
     return rows.map((p) => ({
       slug: p.slug,
       title: p.title,
@@ -260,7 +258,7 @@ export class PostService {
       tags: p.tags,
       membersOnly: p.members_only,
       hazardNotice: this.hazardOf(p),
-      html: p.members_only ? null : this.render(p, credits.get(Number(p.id)) ?? []),
+      html: p.members_only ? null : this.render(p, credits.get(p.id) ?? []),
     }));
   }
 
@@ -297,24 +295,24 @@ export class PostService {
       });
     const chosen = this.chosenDeliverables(markers, bySlug);
     for (const [sponsorId, deliverableId] of chosen) {
-      if ((await this.sponsors.deliverables(sponsorId, trx)).some((d) => Number(d.id) === deliverableId)) continue;
-      const slug = bySlug.find((b) => Number(b.id) === sponsorId)!.slug;
+      if ((await this.sponsors.deliverables(sponsorId, trx)).some((d) => d.id === deliverableId)) continue;
+      const slug = bySlug.find((b) => b.id === sponsorId)!.slug;
       throw badRequest('A credit marker names a promise of another sponsor.', {
         markdown: `The marker for “${slug}” names promise #${deliverableId}, which is not one of that sponsor’s. Use the credit picker to insert a marker.`,
       });
     }
-    return { sponsorIds: [...new Set([...ids, ...bySlug.map((s) => Number(s.id))])].sort((a, b) => a - b), chosen };
+    return { sponsorIds: [...new Set([...ids, ...bySlug.map((s) => s.id)])].sort((a, b) => a - b), chosen };
   }
 
   /** The deliverable each credit marker names, by sponsor id (markers without `#id` leave the choice to the ledger). */
   private chosenDeliverables(
     markers: readonly { slug: string; deliverableId: number | null }[],
-    sponsors: readonly { id: number | string; slug: string }[],
+    sponsors: readonly { id: number; slug: string }[],
   ): Map<number, number> {
     const chosen = new Map<number, number>();
     for (const m of markers) {
       const sponsor = sponsors.find((s) => s.slug === m.slug);
-      if (sponsor && m.deliverableId !== null) chosen.set(Number(sponsor.id), m.deliverableId);
+      if (sponsor && m.deliverableId !== null) chosen.set(sponsor.id, m.deliverableId);
     }
     return chosen;
   }

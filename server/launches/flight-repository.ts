@@ -10,9 +10,9 @@ export type StoredMotor = MotorView;
 
 /** A flight card as stored, with its flyer's and launch's names. */
 export interface FlightRow {
-  id: string;
-  launch_id: string;
-  user_id: string;
+  id: number;
+  launch_id: number;
+  user_id: number;
   rocket_name: string;
   post_slug: string | null;
   liftoff_mass_grams: number;
@@ -40,7 +40,7 @@ export interface FlightRow {
 
 /** The stored analysis of a flight's altimeter log. */
 export interface FlightDataRow {
-  flight_id: string;
+  flight_id: number;
   summary: FlightSummary;
   series: FlightSeriesPoint[];
   events: FlightEvent[];
@@ -93,7 +93,7 @@ export class FlightRepository {
     const [created] = await db('flights')
       .insert({ ...row, motors: JSON.stringify(row.motors), warnings: JSON.stringify(row.warnings) })
       .returning('id');
-    return Number(created.id);
+    return created.id;
   }
 
   /** A flight card with its launch and flyer fields. */
@@ -178,7 +178,7 @@ export class FlightRepository {
     to: string,
     db: Db = this.db,
   ): Promise<{ flights: number; flown: number; bestApogeeMetres: number | null }> {
-    const row = await db('flights as f')
+    const row: { flights: number; flown: number; best: number | null } | undefined = await db('flights as f')
       .join('launches as l', 'l.id', 'f.launch_id')
       .leftJoin('flight_data as d', 'd.flight_id', 'f.id')
       .whereBetween('l.launch_date', [from, to])
@@ -188,9 +188,9 @@ export class FlightRepository {
         db.raw("max((d.summary->>'apogeeMetres')::float) AS best"),
       );
     return {
-      flights: Number(row?.flights ?? 0),
-      flown: Number(row?.flown ?? 0),
-      bestApogeeMetres: row?.best == null ? null : Number(row.best),
+      flights: row?.flights ?? 0,
+      flown: row?.flown ?? 0,
+      bestApogeeMetres: row?.best ?? null,
     };
   }
 }

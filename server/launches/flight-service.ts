@@ -132,8 +132,8 @@ export class FlightService {
       throw conflict('already_decided', `This card is already ${f.status === 'sent_back' ? 'sent back' : f.status}.`);
     if (approve) {
       // The same checks as at filing, against the flyer's verified level as it stands now.
-      const { allowed } = await this.certification(Number(f.user_id));
-      const launch = await this.launches.find(Number(f.launch_id));
+      const { allowed } = await this.certification(f.user_id);
+      const launch = await this.launches.find(f.launch_id);
       const now = flightWarnings({
         liftoffMassGrams: f.liftoff_mass_grams,
         motors: f.motors,
@@ -169,12 +169,12 @@ export class FlightService {
   /** Analyses and stores an altimeter log of a flown card (up to 200,000 rows, which the analysis enforces), by its flyer or range staff. */
   async uploadLog(id: number, user: { id: number; roles: Role[] }, upload: LogUpload) {
     const f = await this.find(id);
-    if (Number(f.user_id) !== user.id && !user.roles.some((r) => RANGE_STAFF.includes(r)))
+    if (f.user_id !== user.id && !user.roles.some((r) => RANGE_STAFF.includes(r)))
       throw forbidden('Only the flyer or a range officer adds data to this flight.');
     if (f.status !== 'flown') throw conflict('not_flown', 'Add data once the flight has an outcome.');
     const analysis = await analyseFlightLog(Readable.from(upload.bytes), upload.columns);
     await this.repo.putData(this.db, {
-      flight_id: String(id),
+      flight_id: id,
       summary: analysis.summary,
       series: analysis.series,
       events: analysis.events,

@@ -10,11 +10,11 @@ export const FLIGHT_CAUTION =
 /** A flight card as its flyer, the range officer and the public flight page see it. */
 export function flightView(f: FlightRow): FlightView {
   return {
-    id: Number(f.id),
-    launchId: Number(f.launch_id),
+    id: f.id,
+    launchId: f.launch_id,
     launchTitle: f.launch_title,
     launchDate: f.launch_date,
-    flyer: { userId: Number(f.user_id), name: f.flyer_name, certificationLevel: f.certification_level },
+    flyer: { userId: f.user_id, name: f.flyer_name, certificationLevel: f.certification_level },
     rocketName: f.rocket_name,
     postSlug: f.post_slug,
     liftoffMassGrams: f.liftoff_mass_grams,

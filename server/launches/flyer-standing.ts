@@ -49,7 +49,7 @@ export class FlyerStanding {
       termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS)),
     );
     return {
-      userId: Number(m.user_id),
+      userId: m.user_id,
       memberNumber: m.member_number,
       name: m.legal_name,
       status,

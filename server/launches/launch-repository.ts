@@ -4,7 +4,7 @@ type Db = Knex | Knex.Transaction;
 
 /** A launch as stored. */
 export interface LaunchRow {
-  id: string;
+  id: number;
   uid: string;
   title: string;
   launch_date: string;
@@ -22,7 +22,7 @@ export interface LaunchRow {
   called_off_at: Date | null;
   sequence: number;
   updated_at: Date;
-  rsvp_count?: string;
+  rsvp_count?: number;
 }
 
 /** The writable columns of a launch. */
@@ -43,7 +43,7 @@ export type LaunchFields = Pick<
 
 /** Someone to write to about a launch. */
 export interface Recipient {
-  user_id: string;
+  user_id: number;
   email: string;
   display_name: string;
 }
@@ -79,7 +79,7 @@ export class LaunchRepository {
   /** Inserts a launch and returns its new id. */
   async insert(db: Db, row: LaunchFields & { created_by: number }): Promise<number> {
     const [created] = await db('launches').insert(row).returning('id');
-    return Number(created.id);
+    return created.id;
   }
 
   /** Writes the changed fields of a launch; false when no row has that id. */
@@ -166,7 +166,7 @@ export class LaunchRepository {
   attendance(
     launchId: number,
     db: Db = this.db,
-  ): Promise<{ user_id: string; display_name: string; member_number: string; checked_in_at: Date }[]> {
+  ): Promise<{ user_id: number; display_name: string; member_number: string; checked_in_at: Date }[]> {
     return db('launch_attendance as a')
       .join('users as u', 'u.id', 'a.user_id')
       .where('a.launch_id', launchId)
@@ -175,12 +175,12 @@ export class LaunchRepository {
   }
 
   /** Launches per status with a date in [from, to], for the dashboard. */
-  countsByStatus(from: string, to: string, db: Db = this.db): Promise<{ status: string; count: string }[]> {
+  countsByStatus(from: string, to: string, db: Db = this.db): Promise<{ status: string; count: number }[]> {
     return db('launches')
       .whereBetween('launch_date', [from, to])
       .groupBy('status')
       .select('status')
-      .count<{ status: string; count: string }[]>({ count: '*' });
+      .count<{ status: string; count: number }[]>({ count: '*' });
   }
 
   /** Check-ins at launches dated in [from, to], for the dashboard's season card. */
@@ -188,8 +188,8 @@ export class LaunchRepository {
     const row = await db('launch_attendance as a')
       .join('launches as l', 'l.id', 'a.launch_id')
       .whereBetween('l.launch_date', [from, to])
-      .count<{ count: string }[]>({ count: '*' })
+      .count<{ count: number }[]>({ count: '*' })
       .first();
-    return Number(row?.count ?? 0);
+    return row?.count ?? 0;
   }
 }

@@ -173,7 +173,7 @@ export class LaunchService {
     await this.find(id);
     return {
       items: (await this.repo.attendance(id)).map((a) => ({
-        userId: Number(a.user_id),
+        userId: a.user_id,
         name: a.display_name,
         memberNumber: a.member_number,
         checkedInAt: a.checked_in_at,
@@ -194,7 +194,7 @@ export class LaunchService {
     const today = this.today();
     let queued = 0;
     for (const l of await this.repo.scheduledBetween(addDays(today, 1), addDays(today, REMINDER_DAYS_BEFORE))) {
-      for (const to of await this.repo.goingTo(Number(l.id))) {
+      for (const to of await this.repo.goingTo(l.id)) {
         if (await enqueueEmail(this.db, launchReminderMail(to, l, this.ctx.timeZone, this.ctx.publicUrl))) queued++;
       }
     }
@@ -227,9 +227,7 @@ export class LaunchService {
   async season() {
     const year = this.today().slice(0, 4);
     const [from, to] = [`${year}-01-01`, `${year}-12-31`];
-    const counts = Object.fromEntries(
-      (await this.repo.countsByStatus(from, to)).map((r) => [r.status, Number(r.count)]),
-    );
+    const counts = Object.fromEntries((await this.repo.countsByStatus(from, to)).map((r) => [r.status, r.count]));
     return {
       season: year,
       scheduled: counts.scheduled ?? 0,

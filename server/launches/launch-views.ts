@@ -7,7 +7,7 @@ const num = (v: string | null) => (v === null ? null : Number(v));
 /** A launch as every answer shows it. */
 export function launchView(l: LaunchRow): LaunchView {
   return {
-    id: Number(l.id),
+    id: l.id,
     title: l.title,
     date: l.launch_date,
     startsAt: l.starts_at,
@@ -19,6 +19,6 @@ export function launchView(l: LaunchRow): LaunchView {
     ceilingMetres: l.ceiling_metres,
     waiverVersion: l.waiver_version,
     notes: l.notes,
-    rsvpCount: Number(l.rsvp_count ?? 0),
+    rsvpCount: l.rsvp_count ?? 0,
   };
 }

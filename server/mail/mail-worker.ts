@@ -82,7 +82,7 @@ export class MailWorker {
         let ok = 0;
         const blocked = await this.suppressions.blocked(rows, trx);
         for (const row of rows) {
-          if (blocked.has(String(row.id))) {
+          if (blocked.has(row.id)) {
             await trx('outbound_emails')
               .where('id', row.id)
               .update({ status: 'suppressed', last_error: 'suppressed before sending' });

@@ -4,7 +4,7 @@ export type SuppressionReason = 'unsubscribed' | 'hard_bounce' | 'complaint' | '
 
 /** A queued row as far as the suppression check needs it. */
 export interface SuppressionCandidate {
-  id: number | string;
+  id: number;
   to_address: string;
   category: 'transactional' | 'commercial';
   list: string | null;
@@ -36,12 +36,12 @@ export class SuppressionList {
   }
 
   /** Of these rows, the ids the list says must not be sent. */
-  async blocked(rows: SuppressionCandidate[], trx: Knex | Knex.Transaction = this.db): Promise<Set<string>> {
+  async blocked(rows: SuppressionCandidate[], trx: Knex | Knex.Transaction = this.db): Promise<Set<number>> {
     if (rows.length === 0) return new Set();
     const found: { email: string; list: string | null; reason: SuppressionReason }[] = await trx('email_suppressions')
       .whereIn('email', [...new Set(rows.map((r) => r.to_address.toLowerCase()))])
       .select('email', 'list', 'reason');
-    const out = new Set<string>();
+    const out = new Set<number>();
     for (const r of rows) {
       const email = r.to_address.toLowerCase();
       const hit = found.some(
@@ -49,7 +49,7 @@ export class SuppressionList {
           s.email === email &&
           (r.category === 'commercial' ? s.list === null || s.list === r.list : s.reason === 'hard_bounce'),
       );
-      if (hit) out.add(String(r.id));
+      if (hit) out.add(r.id);
     }
     return out;
   }

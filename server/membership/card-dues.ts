@@ -64,7 +64,7 @@ export class CardDues {
    * refunded (the next try after one is a new charge, never the processor's replay of the old answer).
    */
   async savedCardTail(m: MembershipRow, term: Term, amountCents: number, purpose: 'member' | 'join'): Promise<string> {
-    const ended = (await this.paymentRepo.cardPaymentsForTerm(Number(m.id), term.end)).filter(
+    const ended = (await this.paymentRepo.cardPaymentsForTerm(m.id, term.end)).filter(
       (p) => p.status === 'declined' || p.status === 'refunded',
     );
     return `${purpose}-${amountCents}-${ended.length}`;
@@ -126,7 +126,7 @@ export class CardDues {
     ctx: SettleContext,
   ): Promise<CardDuesResult | null> {
     const heldSince = ctx.at.getTime() - ATTEMPT_HOLD_MS;
-    const unanswered = (await this.paymentRepo.cardPaymentsForTerm(Number(m.id), term.end)).filter(
+    const unanswered = (await this.paymentRepo.cardPaymentsForTerm(m.id, term.end)).filter(
       (p) =>
         p.idempotency_key !== key &&
         (p.status === 'unknown' ||
@@ -154,9 +154,9 @@ export class CardDues {
       }
       await this.db.transaction(async (trx) => {
         // Only if no other request took the attempt up again (same key) while the processor was asked.
-        const current = await this.paymentRepo.lockPayment(trx, Number(p.id));
+        const current = await this.paymentRepo.lockPayment(trx, p.id);
         if (current?.status !== p.status || current.attempted_at?.getTime() !== p.attempted_at?.getTime()) return;
-        await this.paymentRepo.updatePayment(trx, Number(p.id), {
+        await this.paymentRepo.updatePayment(trx, p.id, {
           status: 'declined',
           failure_message: 'Not charged: the processor holds no charge for this attempt.',
         });
@@ -180,8 +180,8 @@ export class CardDues {
       fees,
     );
     return this.db.transaction(async (trx) => {
-      const locked = (await this.repo.lockById(trx, Number(m.id)))!;
-      if ((await this.paymentRepo.lockPayment(trx, Number(payment.id)))?.status === 'paid') return locked;
+      const locked = (await this.repo.lockById(trx, m.id))!;
+      if ((await this.paymentRepo.lockPayment(trx, payment.id))?.status === 'paid') return locked;
       return this.settlement.settle(trx, locked, payment, term, { ...ctx, feeCents, chargeId: charge.chargeId });
     });
   }
@@ -199,8 +199,8 @@ export class CardDues {
     at: Date,
   ): Promise<Claim> {
     return this.db.transaction(async (trx): Promise<Claim> => {
-      const locked = (await this.repo.lockById(trx, Number(m.id)))!;
-      const earlier = await this.paymentRepo.cardPaymentsForTerm(Number(m.id), term.end, trx);
+      const locked = (await this.repo.lockById(trx, m.id))!;
+      const earlier = await this.paymentRepo.cardPaymentsForTerm(m.id, term.end, trx);
       if (earlier.some((p) => p.status === 'paid')) return { kind: 'paid', membership: locked };
       const heldSince = at.getTime() - ATTEMPT_HOLD_MS;
       if (
@@ -217,7 +217,7 @@ export class CardDues {
       if (same)
         return {
           kind: 'claimed',
-          payment: await this.paymentRepo.updatePayment(trx, Number(same.id), {
+          payment: await this.paymentRepo.updatePayment(trx, same.id, {
             status: 'attempted',
             attempted_at: at,
           }),
@@ -242,7 +242,7 @@ export class CardDues {
     payment: PaymentRow,
     result: { outcome: 'declined' | 'unknown'; message: string },
   ): Promise<CardDuesResult> {
-    await this.paymentRepo.updatePayment(this.db, Number(payment.id), {
+    await this.paymentRepo.updatePayment(this.db, payment.id, {
       status: result.outcome,
       failure_message: result.message.slice(0, 400),
     });

@@ -41,7 +41,7 @@ export class DuesPaymentRepository {
   /** The card payments (not refunds) of one membership for the term ending `termEnd`, oldest first. */
   cardPaymentsForTerm(membershipId: number, termEnd: string, db: Db = this.db): Promise<PaymentRow[]> {
     return db<PaymentRow>('membership_payments')
-      .where({ membership_id: String(membershipId), term_end: termEnd, entry: 'payment', method: 'card' })
+      .where({ membership_id: membershipId, term_end: termEnd, entry: 'payment', method: 'card' })
       .orderBy('id');
   }
 
@@ -64,22 +64,20 @@ export class DuesPaymentRepository {
     const [{ sum }] = await db('membership_payments')
       .where({ refund_of: paymentId, entry: 'refund' })
       .whereIn('status', statuses)
-      .sum<{ sum: string | null }[]>({ sum: 'amount_cents' });
-    return -Number(sum ?? 0);
+      .sum<{ sum: number | null }[]>({ sum: 'amount_cents' });
+    return -(sum ?? 0);
   }
 
   /** The refund a client key (Idempotency-Key) already asked for on this membership. */
   refundByRequestKey(membershipId: number, key: string, db: Db = this.db): Promise<PaymentRow | undefined> {
     return db<PaymentRow>('membership_payments')
-      .where({ membership_id: String(membershipId), request_key: key, entry: 'refund' })
+      .where({ membership_id: membershipId, request_key: key, entry: 'refund' })
       .first();
   }
 
   /** Refunds recorded against one payment, oldest first. */
   refundsOf(paymentId: number, db: Db = this.db): Promise<PaymentRow[]> {
-    return db<PaymentRow>('membership_payments')
-      .where({ refund_of: String(paymentId), entry: 'refund' })
-      .orderBy('id');
+    return db<PaymentRow>('membership_payments').where({ refund_of: paymentId, entry: 'refund' }).orderBy('id');
   }
 
   /** The paid card payment behind a processor charge. */
@@ -103,7 +101,7 @@ export class DuesPaymentRepository {
   collectedByMonth(
     timeZone: string,
     db: Db = this.db,
-  ): Promise<{ month: string; plan_code: string; plan_name: string; cents: string; payments: string }[]> {
+  ): Promise<{ month: string; plan_code: string; plan_name: string; cents: number; payments: number }[]> {
     return db('membership_payments as pay')
       .join('membership_plans as p', 'p.id', 'pay.plan_id')
       .whereIn('pay.status', ['paid', 'refunded'])

@@ -11,7 +11,7 @@ import type { ClubCalendar } from '../platform/club-calendar';
 import type { SettingsService } from '../settings/settings-service';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { refundMail } from './membership-mail';
-import { dateOnly, type MembershipRepository, type MembershipRow, type PaymentRow } from './membership-repository';
+import { type MembershipRepository, type MembershipRow, type PaymentRow } from './membership-repository';
 import type { DuesPaymentRepository } from './dues-payment-repository';
 import { MEMBERSHIP_SETTINGS } from './membership-settings';
 
@@ -56,7 +56,7 @@ export class DuesRefunds {
         if (earlier) return { replay: earlier };
       }
       const payment = await this.paymentRepo.lockPayment(trx, input.paymentId);
-      if (!payment || Number(payment.membership_id) !== memberId || payment.entry !== 'payment')
+      if (!payment || payment.membership_id !== memberId || payment.entry !== 'payment')
         throw badRequest('Choose a payment of this member.', { paymentId: 'Choose a payment of this member.' });
       if (payment.status !== 'paid' && payment.status !== 'refunded')
         throw badRequest('Only a paid payment can be refunded.', { paymentId: 'This payment was not paid.' });
@@ -64,7 +64,7 @@ export class DuesRefunds {
         throw badRequest('The refund is more than the payment.', {
           amountCents: `At most ${payment.amount_cents} cents can be refunded.`,
         });
-      const left = payment.amount_cents - (await this.paymentRepo.refundedCents(Number(payment.id), trx));
+      const left = payment.amount_cents - (await this.paymentRepo.refundedCents(payment.id, trx));
       if (input.amountCents > left)
         throw conflict('over_refund', 'The refund is more than what is left of the payment.', {
           amountCents: left ? `At most ${left} cents are left to refund.` : 'This payment is already refunded.',
@@ -85,7 +85,7 @@ export class DuesRefunds {
         refund_of: payment.id,
         note: input.reason,
         processor_charge_id: payment.processor_charge_id,
-        recorded_by: String(actorId),
+        recorded_by: actorId,
         created_at: this.clock.now(),
       });
       if (payment.method !== 'card') await this.book(trx, m, payment, refund, actorId, input.reason);
@@ -99,7 +99,7 @@ export class DuesRefunds {
       processorRefund = await this.gateway.refund(claim.chargeId!, -r.amount_cents, r.idempotency_key);
     } catch (err) {
       if (err instanceof Stripe.errors.StripeInvalidRequestError) {
-        await this.settle(Number(r.id), null, err.message);
+        await this.settle(r.id, null, err.message);
         throw conflict('processor_refused', `The card processor refused the refund: ${err.message}`);
       }
       this.log.warn(
@@ -112,7 +112,7 @@ export class DuesRefunds {
         'The card processor did not answer. The refund is held and will be settled from the processor shortly; do not refund it again.',
       );
     }
-    await this.settle(Number(r.id), processorRefund.id, null);
+    await this.settle(r.id, processorRefund.id, null);
   }
 
   /** Records every refund the processor holds for a dues charge that Padside does not know yet; true if it is a dues charge. */
@@ -123,9 +123,9 @@ export class DuesRefunds {
       (r) => r.status === 'succeeded' || r.status === 'pending',
     );
     await this.db.transaction(async (trx) => {
-      const m = (await this.repo.lockById(trx, Number(found.membership_id)))!;
-      const payment = (await this.paymentRepo.lockPayment(trx, Number(found.id)))!;
-      const known = await this.paymentRepo.refundsOf(Number(payment.id), trx);
+      const m = (await this.repo.lockById(trx, found.membership_id))!;
+      const payment = (await this.paymentRepo.lockPayment(trx, found.id))!;
+      const known = await this.paymentRepo.refundsOf(payment.id, trx);
       for (const pr of held) {
         if (known.some((k) => k.processor_refund_id === pr.id)) continue;
         const claim = known.find((k) => k.idempotency_key === pr.metadata?.padsideRefundKey);
@@ -133,8 +133,7 @@ export class DuesRefunds {
           if (claim.status !== 'refunded') await this.recordSucceeded(trx, m, payment, claim, pr.id);
           continue;
         }
-        const left =
-          payment.amount_cents - (await this.paymentRepo.refundedCents(Number(payment.id), trx, ['refunded']));
+        const left = payment.amount_cents - (await this.paymentRepo.refundedCents(payment.id, trx, ['refunded']));
         const amount = Math.min(pr.amount, left);
         if (amount < 1) continue;
         const refund = await this.paymentRepo.insertPayment(trx, {
@@ -165,7 +164,7 @@ export class DuesRefunds {
         (pr) => pr.metadata?.padsideRefundKey === claim.idempotency_key,
       );
       await this.settle(
-        Number(claim.id),
+        claim.id,
         found?.id ?? null,
         found ? null : 'No refund reached the processor; the claim was released.',
       );
@@ -174,7 +173,7 @@ export class DuesRefunds {
   }
 
   private answerReplay(earlier: PaymentRow, input: DuesRefundRequest): void {
-    if (Number(earlier.refund_of) !== input.paymentId || -earlier.amount_cents !== input.amountCents)
+    if (earlier.refund_of !== input.paymentId || -earlier.amount_cents !== input.amountCents)
       throw conflict('request_key_reused', 'That Idempotency-Key was used for a different refund.');
     if (earlier.status === 'requested')
       throw conflict('refund_in_progress', 'This refund is already under way; reload the member in a moment.');
@@ -189,7 +188,7 @@ export class DuesRefunds {
   private async settle(refundId: number, processorRefundId: string | null, failure: string | null): Promise<void> {
     await this.db.transaction(async (trx) => {
       const claim = (await this.paymentRepo.payment(refundId, trx))!;
-      const m = (await this.repo.lockById(trx, Number(claim.membership_id)))!;
+      const m = (await this.repo.lockById(trx, claim.membership_id))!;
       const fresh = (await this.paymentRepo.lockPayment(trx, refundId))!;
       if (fresh.status !== 'requested') return;
       if (!processorRefundId) {
@@ -199,7 +198,7 @@ export class DuesRefunds {
         });
         return;
       }
-      const payment = (await this.paymentRepo.lockPayment(trx, Number(fresh.refund_of)))!;
+      const payment = (await this.paymentRepo.lockPayment(trx, fresh.refund_of!))!;
       await this.recordSucceeded(trx, m, payment, fresh, processorRefundId);
     });
   }
@@ -211,12 +210,12 @@ export class DuesRefunds {
     claim: PaymentRow,
     processorRefundId: string,
   ): Promise<void> {
-    const refund = await this.paymentRepo.updatePayment(trx, Number(claim.id), {
+    const refund = await this.paymentRepo.updatePayment(trx, claim.id, {
       status: 'refunded',
       processor_refund_id: processorRefundId,
       failure_message: null,
     });
-    await this.book(trx, m, payment, refund, claim.recorded_by ? Number(claim.recorded_by) : null, claim.note ?? '');
+    await this.book(trx, m, payment, refund, claim.recorded_by, claim.note ?? '');
   }
 
   /**
@@ -235,12 +234,12 @@ export class DuesRefunds {
     const policy = termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS, trx));
     const today = this.calendar.today();
     const amountCents = -refund.amount_cents;
-    const full = (await this.paymentRepo.refundedCents(Number(payment.id), trx, ['refunded'])) >= payment.amount_cents;
-    if (full) await this.paymentRepo.updatePayment(trx, Number(payment.id), { status: 'refunded' });
-    let termEnd = dateOnly(m.term_end);
-    if (full && dateOnly(payment.term_end) === termEnd) {
-      termEnd = dateOnly(payment.previous_term_end);
-      const reverted = await this.repo.update(trx, Number(m.id), {
+    const full = (await this.paymentRepo.refundedCents(payment.id, trx, ['refunded'])) >= payment.amount_cents;
+    if (full) await this.paymentRepo.updatePayment(trx, payment.id, { status: 'refunded' });
+    let termEnd = m.term_end;
+    if (full && payment.term_end === termEnd) {
+      termEnd = payment.previous_term_end;
+      const reverted = await this.repo.update(trx, m.id, {
         term_end: termEnd,
         term_start: termEnd ? m.term_start : null,
       });
@@ -260,14 +259,14 @@ export class DuesRefunds {
     await enqueueEmail(
       trx,
       refundMail(await this.settlement.mailContext(trx, m), {
-        refundId: Number(refund.id),
+        refundId: refund.id,
         amountCents,
         method: payment.method,
         termEnd,
       }),
     );
-    await this.repo.addAudit(trx, Number(m.id), actorId, 'refunded', {
-      paymentId: Number(payment.id),
+    await this.repo.addAudit(trx, m.id, actorId, 'refunded', {
+      paymentId: payment.id,
       amountCents,
       reason,
       termEnd,

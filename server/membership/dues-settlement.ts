@@ -3,7 +3,7 @@ import type { UserRepository } from '../auth/user-repository';
 import { recordMovement } from '../books/ledger-writer';
 import { enqueueEmail } from '../mail/outbox';
 import { lapsedMail, receiptMail, type MemberMailContext } from './membership-mail';
-import { dateOnly, type MembershipRepository, type MembershipRow, type PaymentRow } from './membership-repository';
+import { type MembershipRepository, type MembershipRow, type PaymentRow } from './membership-repository';
 import type { PlanRepository } from './plan-repository';
 import type { DuesPaymentRepository } from './dues-payment-repository';
 import type { MembershipSettings } from './membership-settings';
@@ -29,8 +29,8 @@ export class DuesSettlement {
 
   /** Mail context for a membership. */
   async mailContext(db: Knex | Knex.Transaction, m: MembershipRow): Promise<MemberMailContext> {
-    const user = await this.users.byId(Number(m.user_id), db);
-    const plan = await this.planRepo.plan(Number(m.plan_id), db);
+    const user = await this.users.byId(m.user_id, db);
+    const plan = await this.planRepo.plan(m.plan_id, db);
     return {
       to: user!.email,
       name: m.legal_name,
@@ -55,7 +55,7 @@ export class DuesSettlement {
       at: Date;
     },
   ): Promise<MembershipRow> {
-    const paid = await this.paymentRepo.updatePayment(trx, Number(payment.id), {
+    const paid = await this.paymentRepo.updatePayment(trx, payment.id, {
       status: 'paid',
       processor_charge_id: opts.chargeId ?? null,
       term_start: term.start,
@@ -63,7 +63,7 @@ export class DuesSettlement {
       previous_term_end: m.term_end,
     });
     const status = statusOn(opts.today, term.end, opts.policy);
-    const updated = await this.repo.update(trx, Number(m.id), {
+    const updated = await this.repo.update(trx, m.id, {
       term_start: term.start,
       term_end: term.end,
       status,
@@ -71,7 +71,7 @@ export class DuesSettlement {
       next_renewal_attempt_on: null,
       renewal_failed_at: null,
     });
-    await this.users.setRole(trx, Number(m.user_id), 'member', isInGoodStanding(status));
+    await this.users.setRole(trx, m.user_id, 'member', isInGoodStanding(status));
     const ctx = await this.mailContext(trx, updated);
     await recordMovement(trx, {
       occurredAt: opts.at,
@@ -88,7 +88,7 @@ export class DuesSettlement {
     await enqueueEmail(
       trx,
       receiptMail(ctx, {
-        paymentId: Number(paid.id),
+        paymentId: paid.id,
         amountCents: paid.amount_cents,
         method: paid.method,
         receiptNumber: paid.receipt_number,
@@ -96,11 +96,11 @@ export class DuesSettlement {
         termEnd: term.end,
       }),
     );
-    await this.repo.addAudit(trx, Number(m.id), opts.actorUserId, 'term_paid', {
-      paymentId: Number(paid.id),
+    await this.repo.addAudit(trx, m.id, opts.actorUserId, 'term_paid', {
+      paymentId: paid.id,
       method: paid.method,
       amountCents: paid.amount_cents,
-      from: dateOnly(m.term_end),
+      from: m.term_end,
       to: term.end,
       status: { from: m.status, to: status },
     });
@@ -118,16 +118,13 @@ export class DuesSettlement {
     policy: TermPolicy,
     actorUserId: number | null = null,
   ): Promise<MembershipStatus> {
-    const next = statusOn(today, dateOnly(m.term_end), policy, m.renewal_failed_at !== null);
+    const next = statusOn(today, m.term_end, policy, m.renewal_failed_at !== null);
     if (next === m.status) return next;
-    if (!(await this.repo.moveStatus(trx, Number(m.id), m.status, next))) return next;
-    await this.users.setRole(trx, Number(m.user_id), 'member', isInGoodStanding(next));
-    await this.repo.addAudit(trx, Number(m.id), actorUserId, 'status_changed', { from: m.status, to: next, on: today });
+    if (!(await this.repo.moveStatus(trx, m.id, m.status, next))) return next;
+    await this.users.setRole(trx, m.user_id, 'member', isInGoodStanding(next));
+    await this.repo.addAudit(trx, m.id, actorUserId, 'status_changed', { from: m.status, to: next, on: today });
     if (next === 'lapsed' && m.renewal_failed_at === null && m.term_end) {
-      await enqueueEmail(
-        trx,
-        lapsedMail({ ...(await this.mailContext(trx, m)), membershipId: Number(m.id) }, dateOnly(m.term_end)!),
-      );
+      await enqueueEmail(trx, lapsedMail({ ...(await this.mailContext(trx, m)), membershipId: m.id }, m.term_end!));
     }
     return next;
   }

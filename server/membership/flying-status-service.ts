@@ -6,7 +6,7 @@ import type { SettingsService } from '../settings/settings-service';
 import type { CheckInTokens } from './check-in-token';
 import { termPolicy } from './dues-settlement';
 import { associationVerification, certificationVerification, flyingVerdict, type Verification } from './flying-status';
-import { dateOnly, type MembershipRepository, type MembershipRow } from './membership-repository';
+import { type MembershipRepository, type MembershipRow } from './membership-repository';
 import { MEMBERSHIP_SETTINGS } from './membership-settings';
 import { liveStatus } from './membership-views';
 import { UNKNOWN_CARD, type CheckedBy, type CheckInResult } from '../../contracts/membership/check-in-answers';
@@ -32,7 +32,9 @@ export async function verificationsView(
   const [a, c] = [associationVerification(m), certificationVerification(m)];
   const names = await repo.userNames([a?.byUserId ?? null, c?.byUserId ?? null]);
   const view = (v: Verification | null) =>
-    v ? { at: v.at.toISOString(), by: v.byUserId ? (names.get(v.byUserId) ?? null) : null, against: v.against } : null;
+    v
+      ? { at: v.at.toISOString(), by: v.byUserId !== null ? (names.get(v.byUserId) ?? null) : null, against: v.against }
+      : null;
   return { association: view(a), certification: view(c) };
 }
 
@@ -62,7 +64,7 @@ export class FlyingStatusService {
           what: 'The record changed since you loaded it.',
         });
       if (input.what === 'association') {
-        const expires = dateOnly(m.association_expires);
+        const expires = m.association_expires;
         if (!m.association_number || !expires)
           throw badRequest('There is no association membership on file to verify.', {
             what: 'No association number and expiry on file.',
@@ -74,7 +76,7 @@ export class FlyingStatusService {
         if (input.associationNumber !== m.association_number || input.associationExpires !== expires) throw changed();
         await this.repo.update(trx, id, {
           association_verified_at: this.clock.now(),
-          association_verified_by: String(actorId),
+          association_verified_by: actorId,
           association_verified_against: input.against,
         });
         await this.repo.addAudit(trx, id, actorId, 'association_verified', {
@@ -88,7 +90,7 @@ export class FlyingStatusService {
         if (input.certificationLevel !== m.certification_level) throw changed();
         await this.repo.update(trx, id, {
           certification_verified_at: this.clock.now(),
-          certification_verified_by: String(actorId),
+          certification_verified_by: actorId,
           certification_verified_against: input.against,
         });
         await this.repo.addAudit(trx, id, actorId, 'certification_verified', {

@@ -1,4 +1,4 @@
-import { dateOnly, type MembershipRow } from './membership-repository';
+import { type MembershipRow } from './membership-repository';
 import { isInGoodStanding, type MembershipStatus } from './terms';
 
 /**
@@ -10,7 +10,7 @@ import { isInGoodStanding, type MembershipStatus } from './terms';
 /** What staff checked a value against, and when and by whom. */
 export interface Verification {
   at: Date;
-  byUserId: string | null;
+  byUserId: number | null;
   against: string;
 }
 
@@ -28,8 +28,8 @@ export interface FlyingVerdict {
   mayFly: boolean;
 }
 
-const verificationOf = (at: Date | null, by: string | null, against: string | null): Verification | null =>
-  at && against ? { at, byUserId: by === null ? null : String(by), against } : null;
+const verificationOf = (at: Date | null, by: number | null, against: string | null): Verification | null =>
+  at && against ? { at, byUserId: by, against } : null;
 
 /** The association verification on a record, or null while it is a claim. */
 export const associationVerification = (m: MembershipRow) =>
@@ -41,13 +41,13 @@ export const certificationVerification = (m: MembershipRow) =>
 
 /** The check-in answers for a record whose dues status (from the dates) is `status`. */
 export function flyingVerdict(m: MembershipRow, status: MembershipStatus, today: string): FlyingVerdict {
-  const termEnd = dateOnly(m.term_end);
+  const termEnd = m.term_end;
   const dues = {
     answer:
       status === 'active' ? ('current' as const) : status === 'lapsing' ? ('grace' as const) : ('not_current' as const),
     termEnd,
   };
-  const expires = dateOnly(m.association_expires);
+  const expires = m.association_expires;
   const aVerified = associationVerification(m);
   const onFile = m.association_number !== null && m.association_number !== '' && expires !== null;
   const associationAnswer = !onFile ? 'not_on_file' : expires! < today ? 'expired' : aVerified ? 'verified' : 'claimed';
@@ -64,9 +64,7 @@ export function flyingVerdict(m: MembershipRow, status: MembershipStatus, today:
 const ASSOCIATION_COLUMNS = ['association_number', 'association_expires'] as const;
 const CERTIFICATION_COLUMNS = ['certification_level', 'certification_date'] as const;
 
-// Date columns read back as Date objects and are written as YYYY-MM-DD text; compare them as text.
-const asText = (v: unknown) => (v instanceof Date ? dateOnly(v) : v === null || v === undefined ? null : String(v));
-const sameValue = (a: unknown, b: unknown) => asText(a) === asText(b);
+const sameValue = (a: unknown, b: unknown) => (a ?? null) === (b ?? null);
 
 /**
  * The patch with any verification it voids: a changed association number or expiry voids the association

@@ -9,7 +9,7 @@ import type { ClubCalendar } from '../platform/club-calendar';
 import type { SettingsService } from '../settings/settings-service';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import type { RosterQuery } from '../../contracts/membership/roster-schemas';
-import { dateOnly, type MembershipRepository, type AsOf, type PlanRow } from './membership-repository';
+import { type MembershipRepository, type AsOf, type PlanRow } from './membership-repository';
 import type { PlanRepository } from './plan-repository';
 import type { DuesPaymentRepository } from './dues-payment-repository';
 import type { RosterRepository } from './roster-repository';
@@ -110,7 +110,7 @@ export class MemberAdminService {
     const m = await this.repo.byId(id);
     if (!m) throw notFound('No such member.');
     const [plan, family, payments, audit] = [
-      await this.planRepo.plan(Number(m.plan_id)),
+      await this.planRepo.plan(m.plan_id),
       await this.repo.family(id),
       await this.paymentRepo.payments(id),
       await this.repo.audit(id),
@@ -123,10 +123,10 @@ export class MemberAdminService {
         mailOptOut: user?.marketing_opt_out ?? false,
       },
       verifications: await verificationsView(this.repo, m),
-      familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: dateOnly(f.date_of_birth) })),
+      familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: f.date_of_birth })),
       payments: payments.map(paymentView),
       audit: audit.map((a) => ({
-        id: Number(a.id),
+        id: a.id,
         action: a.action,
         detail: a.detail,
         actor: a.actor_name,
@@ -162,8 +162,7 @@ export class MemberAdminService {
       const changes: Record<string, { from: unknown; to: unknown }> = {};
       for (const [key, column] of Object.entries(map) as [keyof MemberPatch, (typeof map)[keyof MemberPatch]][]) {
         if (patch[key] === undefined) continue;
-        const before =
-          column.endsWith('expires') || column.endsWith('date') ? dateOnly(m[column] as Date | null) : m[column];
+        const before = m[column];
         if (before === patch[key]) continue;
         row[column] = patch[key];
         changes[key] = { from: before, to: patch[key] };
@@ -197,7 +196,7 @@ export class MemberAdminService {
         throw conflict('duplicate_receipt', 'That receipt number is already recorded for this member.', {
           receiptNumber: 'Already recorded for this member.',
         });
-      const term = termForPayment(today, dateOnly(m.term_end), policy);
+      const term = termForPayment(today, m.term_end, policy);
       const payment = await this.paymentRepo.insertPayment(trx, {
         membership_id: m.id,
         plan_id: m.plan_id,
@@ -207,7 +206,7 @@ export class MemberAdminService {
         receipt_number: input.receiptNumber,
         idempotency_key: key,
         note: input.note ?? null,
-        recorded_by: String(actorId),
+        recorded_by: actorId,
         created_at: this.clock.now(),
       });
       await this.settlement.settle(trx, m, payment, term, {
@@ -225,14 +224,14 @@ export class MemberAdminService {
     const collected = await this.paymentRepo.collectedByMonth(this.calendar.timeZone);
     const byStatus = await this.rosterRepo.countsByStatus(await this.asOf());
     const counts = { pending: 0, active: 0, lapsing: 0, lapsed: 0 };
-    for (const r of byStatus) counts[r.status] = Number(r.count);
+    for (const r of byStatus) counts[r.status] = r.count;
     return {
       collected: collected.map((r) => ({
         month: r.month,
         planCode: r.plan_code,
         planName: r.plan_name,
-        cents: Number(r.cents),
-        payments: Number(r.payments),
+        cents: r.cents,
+        payments: r.payments,
       })),
       byStatus: counts,
     };
@@ -278,7 +277,7 @@ export class MemberAdminService {
     const today = this.today();
     const optedOut = rows.filter((r) => r.marketing_opt_out);
     const consentHolds = (termEnd: string | null) => termEnd !== null && impliedConsentHolds(termEnd, today);
-    const lapsed = rows.filter((r) => !r.marketing_opt_out && !consentHolds(dateOnly(r.term_end)));
+    const lapsed = rows.filter((r) => !r.marketing_opt_out && !consentHolds(r.term_end));
     const to = rows
       .filter((r) => !optedOut.includes(r) && !lapsed.includes(r))
       .map((r) => ({
@@ -378,7 +377,7 @@ export class MemberAdminService {
     const held = await this.repo.levelsHeldOutside(value.certificationLevels.map((l) => l.code));
     if (held.length) {
       const list = held
-        .map((h) => `${h.certification_level} (${h.count} ${h.count === '1' ? 'member' : 'members'})`)
+        .map((h) => `${h.certification_level} (${h.count} ${h.count === 1 ? 'member' : 'members'})`)
         .join(', ');
       throw conflict('level_in_use', `Members still hold ${list}. Change their records first, or keep the level.`, {
         certificationLevels: `Still held: ${list}.`,

@@ -9,7 +9,7 @@ import { declined, type CardOnFile } from './card-on-file';
 import type { CheckInTokens } from './check-in-token';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { withVoidedVerifications } from './flying-status';
-import { dateOnly, type MembershipRepository } from './membership-repository';
+import { type MembershipRepository } from './membership-repository';
 import { profilePatch, voidedNote } from './membership-rules';
 import type { RenewInput } from './membership-service';
 import { MEMBERSHIP_SETTINGS } from './membership-settings';
@@ -51,14 +51,14 @@ export class MemberRecordService {
     let m = await this.repo.byUser(userId);
     if (!m) throw notFound('You have no membership yet.');
     await this.db.transaction(async (trx) =>
-      this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, Number(m!.id)))!, today, policy, userId),
+      this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, m!.id))!, today, policy, userId),
     );
-    m = (await this.repo.byId(Number(m.id)))!;
-    const family = await this.repo.family(Number(m.id));
+    m = (await this.repo.byId(m.id))!;
+    const family = await this.repo.family(m.id);
     return {
       membership: {
-        ...membershipView(m, await this.planRepo.plan(Number(m.plan_id)), today, policy, s),
-        familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: dateOnly(f.date_of_birth) })),
+        ...membershipView(m, await this.planRepo.plan(m.plan_id), today, policy, s),
+        familyMembers: family.map((f) => ({ name: f.name, dateOfBirth: f.date_of_birth })),
       },
     };
   }
@@ -73,8 +73,8 @@ export class MemberRecordService {
       if (!Object.keys(patch).length) return;
       // A member's own edit of a verified value makes it a claim again until staff check it anew.
       const full = withVoidedVerifications(m, patch);
-      await this.repo.update(trx, Number(m.id), full);
-      await this.repo.addAudit(trx, Number(m.id), user.id, 'profile_updated', {
+      await this.repo.update(trx, m.id, full);
+      await this.repo.addAudit(trx, m.id, user.id, 'profile_updated', {
         changed: Object.keys(patch),
         ...voidedNote(full),
       });
@@ -93,11 +93,11 @@ export class MemberRecordService {
       if (saved.outcome === 'declined') throw declined(saved.message);
     }
     await this.db.transaction(async (trx) => {
-      await this.repo.update(trx, Number(m.id), {
+      await this.repo.update(trx, m.id, {
         auto_renew: input.autoRenew,
         renewal_failed_at: input.paymentToken ? null : m.renewal_failed_at,
       });
-      await this.repo.addAudit(trx, Number(m.id), user.id, 'auto_renew_changed', {
+      await this.repo.addAudit(trx, m.id, user.id, 'auto_renew_changed', {
         autoRenew: input.autoRenew,
         newCard: Boolean(input.paymentToken),
       });

@@ -6,7 +6,7 @@ import type { SettingsService } from '../settings/settings-service';
 import type { CardDues } from './card-dues';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import { reminderMail, renewalDeclinedMail, type ReminderKind } from './membership-mail';
-import { dateOnly, type MembershipRepository, type RosterRow } from './membership-repository';
+import { type MembershipRepository, type RosterRow } from './membership-repository';
 import type { PlanRepository } from './plan-repository';
 import type { RosterRepository } from './roster-repository';
 import { MEMBERSHIP_SETTINGS } from './membership-settings';
@@ -52,7 +52,7 @@ export class MembershipJobs {
     const rows = await this.rosterRepo.standing();
     for (const r of rows) {
       await this.db.transaction(async (trx) =>
-        this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, Number(r.id)))!, today, policy),
+        this.settlement.refreshStatus(trx, (await this.repo.lockById(trx, r.id))!, today, policy),
       );
     }
     return { checked: rows.length };
@@ -68,8 +68,8 @@ export class MembershipJobs {
     const today = this.today();
     let queued = 0;
     for (const r of await this.rosterRepo.standing()) {
-      const ctx = { ...(await this.settlement.mailContext(this.db, r)), membershipId: Number(r.id) };
-      const termEnd = dateOnly(r.term_end);
+      const ctx = { ...(await this.settlement.mailContext(this.db, r)), membershipId: r.id };
+      const termEnd = r.term_end;
       const kind = termEnd && r.renewal_failed_at === null ? dueReminder(today, termEnd) : null;
       // Someone with auto-renew on gets no "ended" notice while the card is still being tried.
       if (
@@ -90,7 +90,7 @@ export class MembershipJobs {
         )
           queued++;
       }
-      const assoc = dateOnly(r.association_expires);
+      const assoc = r.association_expires;
       if (assoc && r.status !== 'lapsed' && today >= addDays(assoc, -30) && today <= assoc) {
         if (await enqueueEmail(this.db, reminderMail(ctx, 'association-30', assoc, false))) queued++;
       }
@@ -104,13 +104,11 @@ export class MembershipJobs {
     const today = this.today();
     const out = { paid: 0, declined: 0, lapsed: 0 };
     for (const r of await this.rosterRepo.standing()) {
-      const termEnd = dateOnly(r.term_end);
+      const termEnd = r.term_end;
       if (!r.auto_renew || !r.processor_customer_id || !termEnd || r.renewal_failed_at !== null) continue;
       const attempt = r.renewal_attempts;
       if (attempt >= RENEWAL_TRY_OFFSETS.length || today < addDays(termEnd, RENEWAL_TRY_OFFSETS[attempt])) continue;
-      const claimed = await this.db.transaction((trx) =>
-        this.repo.claimRenewalAttempt(trx, Number(r.id), attempt, termEnd),
-      );
+      const claimed = await this.db.transaction((trx) => this.repo.claimRenewalAttempt(trx, r.id, attempt, termEnd));
       if (!claimed) continue;
       await this.tryOnce(r, termEnd, attempt, today, policy, out);
     }
@@ -126,7 +124,7 @@ export class MembershipJobs {
     policy: TermPolicy,
     out: { paid: number; declined: number; lapsed: number },
   ): Promise<void> {
-    const plan = (await this.planRepo.plan(Number(r.plan_id)))!;
+    const plan = (await this.planRepo.plan(r.plan_id))!;
     const term = termForPayment(today, termEnd, policy);
     const amount = duesFor(plan.dues_cents, term, policy);
     const result = await this.cardDues.pay(
@@ -143,28 +141,28 @@ export class MembershipJobs {
     }
     // The member's own renewal holds the term right now: this try never reached the card, so the next run may use it.
     if (result.outcome === 'in_progress') {
-      await this.repo.releaseRenewalAttempt(this.db, Number(r.id), attempt);
+      await this.repo.releaseRenewalAttempt(this.db, r.id, attempt);
       return;
     }
     const last = attempt + 1 >= RENEWAL_TRY_OFFSETS.length;
     const nextTry = last ? null : addDays(termEnd, RENEWAL_TRY_OFFSETS[attempt + 1]);
     await this.db.transaction(async (trx) => {
-      const m = (await this.repo.lockById(trx, Number(r.id)))!;
-      const ctx = { ...(await this.settlement.mailContext(trx, m)), membershipId: Number(m.id) };
+      const m = (await this.repo.lockById(trx, r.id))!;
+      const ctx = { ...(await this.settlement.mailContext(trx, m)), membershipId: m.id };
       if (last) {
-        const failed = await this.repo.update(trx, Number(m.id), {
+        const failed = await this.repo.update(trx, m.id, {
           renewal_failed_at: this.clock.now(),
           next_renewal_attempt_on: null,
         });
-        await this.repo.addAudit(trx, Number(m.id), null, 'auto_renew_failed', {
+        await this.repo.addAudit(trx, m.id, null, 'auto_renew_failed', {
           attempts: attempt + 1,
           message: result.message,
         });
         await this.settlement.refreshStatus(trx, failed, today, policy);
         out.lapsed++;
       } else {
-        await this.repo.update(trx, Number(m.id), { next_renewal_attempt_on: nextTry });
-        await this.repo.addAudit(trx, Number(m.id), null, 'auto_renew_declined', {
+        await this.repo.update(trx, m.id, { next_renewal_attempt_on: nextTry });
+        await this.repo.addAudit(trx, m.id, null, 'auto_renew_declined', {
           attempt: attempt + 1,
           nextTry,
           message: result.message,

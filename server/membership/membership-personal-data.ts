@@ -1,7 +1,6 @@
 import type { Logger } from 'pino';
 import type { SavedCards } from '../payments/saved-cards';
 import { plainRecord, type PersonalDataPart } from '../platform/personal-data';
-import { dateOnly } from './membership-repository';
 
 /** Audit entries whose detail holds only amounts, dates and states: they keep it; the others may quote what was typed. */
 const AMOUNT_ONLY_AUDIT = ['term_paid', 'refunded', 'status_changed'];
@@ -73,13 +72,6 @@ export function membershipPersonalData(savedCards: SavedCards, log: Pick<Logger,
           .orderBy('id')
           .select('action', 'detail', 'created_at'),
       ];
-      const dates = (r: Record<string, unknown>) =>
-        Object.fromEntries(
-          Object.entries(plainRecord(r)).map(([k, v]) => [
-            k,
-            /(Start|End|Expires|Date|OfBirth)$/.test(k) ? dateOnly(v as string | Date | null) : v,
-          ]),
-        );
       const { processor_customer_id: customerId, ...record } = m;
       return [
         {
@@ -87,13 +79,13 @@ export function membershipPersonalData(savedCards: SavedCards, log: Pick<Logger,
           title: 'Membership',
           purpose:
             'Your club membership record: the details the club needs to run launches safely and reach you or your emergency contact.',
-          records: [{ ...dates(record), familyMembers: family.map(dates) }],
+          records: [{ ...plainRecord(record), familyMembers: family.map(plainRecord) }],
         },
         {
           name: 'membership-payments',
           title: 'Dues payments and refunds',
           purpose: 'Each dues payment and refund. Kept for the books.',
-          records: payments.map(dates),
+          records: payments.map(plainRecord),
         },
         {
           name: 'membership-history',

@@ -3,19 +3,8 @@ import type { MembershipStatus } from './terms';
 
 type Db = Knex | Knex.Transaction;
 
-/** PostgreSQL `date` values arrive as local-midnight Date objects; read them back as `YYYY-MM-DD`. */
-export function dateOnly(value: Date | string | null | undefined): string | null {
-  if (value === null || value === undefined) return null;
-  if (typeof value === 'string') return value.slice(0, 10);
-  const p = (n: number) => String(n).padStart(2, '0');
-  return `${value.getFullYear()}-${p(value.getMonth() + 1)}-${p(value.getDate())}`;
-}
-
-/** A `date` column: read as a Date, written as a `YYYY-MM-DD` string. */
-export type DateCol = Date | string;
-
 export interface PlanRow {
-  id: string;
+  id: number;
   code: string;
   name: string;
   description: string;
@@ -27,27 +16,27 @@ export interface PlanRow {
 }
 
 export interface MembershipRow {
-  id: string;
-  user_id: string;
+  id: number;
+  user_id: number;
   member_number: string;
-  plan_id: string;
+  plan_id: number;
   status: MembershipStatus;
-  term_start: DateCol | null;
-  term_end: DateCol | null;
+  term_start: string | null;
+  term_end: string | null;
   legal_name: string;
-  date_of_birth: DateCol | null;
+  date_of_birth: string | null;
   address: string;
   phone: string;
   emergency_contact: string;
   association_number: string | null;
-  association_expires: DateCol | null;
+  association_expires: string | null;
   certification_level: string;
-  certification_date: DateCol | null;
+  certification_date: string | null;
   association_verified_at: Date | null;
-  association_verified_by: string | null;
+  association_verified_by: number | null;
   association_verified_against: string | null;
   certification_verified_at: Date | null;
-  certification_verified_by: string | null;
+  certification_verified_by: number | null;
   certification_verified_against: string | null;
   waiver_version: string;
   waiver_accepted_at: Date;
@@ -58,7 +47,7 @@ export interface MembershipRow {
   card_brand: string | null;
   card_last4: string | null;
   renewal_attempts: number;
-  next_renewal_attempt_on: DateCol | null;
+  next_renewal_attempt_on: string | null;
   renewal_failed_at: Date | null;
   created_at: Date;
   updated_at: Date;
@@ -68,9 +57,9 @@ export interface MembershipRow {
 export type VerificationColumn = `${'association' | 'certification'}_verified_${'at' | 'by' | 'against'}`;
 
 export interface PaymentRow {
-  id: string;
-  membership_id: string;
-  plan_id: string;
+  id: number;
+  membership_id: number;
+  plan_id: number;
   entry: 'payment' | 'refund';
   status: 'attempted' | 'paid' | 'declined' | 'unknown' | 'refunded' | 'requested' | 'failed';
   method: 'card' | 'cash' | 'e-transfer' | 'cheque';
@@ -78,23 +67,23 @@ export interface PaymentRow {
   receipt_number: string | null;
   processor_charge_id: string | null;
   idempotency_key: string;
-  term_start: DateCol | null;
-  term_end: DateCol | null;
-  previous_term_end: DateCol | null;
-  refund_of: string | null;
+  term_start: string | null;
+  term_end: string | null;
+  previous_term_end: string | null;
+  refund_of: number | null;
   request_key: string | null;
   processor_refund_id: string | null;
   note: string | null;
   failure_message: string | null;
-  recorded_by: string | null;
+  recorded_by: number | null;
   attempted_at: Date | null;
   created_at: Date;
 }
 
 export interface AuditRow {
-  id: string;
-  membership_id: string;
-  actor_user_id: string | null;
+  id: number;
+  membership_id: number;
+  actor_user_id: number | null;
   actor_name: string | null;
   action: string;
   detail: Record<string, unknown>;
@@ -120,13 +109,13 @@ export class MembershipRepository {
   constructor(private readonly db: Knex) {}
 
   /** Members per certification level for the levels not in `codes` (records a new level list would orphan). */
-  levelsHeldOutside(codes: string[], db: Db = this.db): Promise<{ certification_level: string; count: string }[]> {
+  levelsHeldOutside(codes: string[], db: Db = this.db): Promise<{ certification_level: string; count: number }[]> {
     return db('memberships')
       .whereNotIn('certification_level', codes)
       .groupBy('certification_level')
       .orderBy('certification_level')
       .select('certification_level')
-      .count<{ certification_level: string; count: string }[]>({ count: '*' });
+      .count<{ certification_level: string; count: number }[]>({ count: '*' });
   }
 
   /** The account's membership, unlocked; use `lockByUser` before changing it. */
@@ -150,13 +139,13 @@ export class MembershipRepository {
   }
 
   /** Display names of staff by id (who verified a record). */
-  async userNames(ids: (string | null)[], db: Db = this.db): Promise<Map<string, string>> {
-    const wanted = [...new Set(ids.filter((i): i is string => i !== null))];
+  async userNames(ids: (number | null)[], db: Db = this.db): Promise<Map<number, string>> {
+    const wanted = [...new Set(ids.filter((i): i is number => i !== null))];
     if (!wanted.length) return new Map();
-    const rows: { id: string; display_name: string }[] = await db('users')
+    const rows: { id: number; display_name: string }[] = await db('users')
       .whereIn('id', wanted)
       .select('id', 'display_name');
-    return new Map(rows.map((r) => [String(r.id), r.display_name]));
+    return new Map(rows.map((r) => [r.id, r.display_name]));
   }
 
   /** The membership a member number names, as printed on the card and read at check-in. */
@@ -228,7 +217,7 @@ export class MembershipRepository {
   }
 
   /** The family members a family plan covers, in the order they were added. */
-  family(membershipId: number, db: Db = this.db): Promise<{ id: string; name: string; date_of_birth: DateCol }[]> {
+  family(membershipId: number, db: Db = this.db): Promise<{ id: number; name: string; date_of_birth: string }[]> {
     return db('membership_family_members').where('membership_id', membershipId).orderBy('id');
   }
 

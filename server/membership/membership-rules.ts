@@ -1,6 +1,6 @@
 import { badRequest } from '../platform/app-error';
 import { termPolicy } from './dues-settlement';
-import { dateOnly, type MembershipRow, type PlanRow } from './membership-repository';
+import { type MembershipRow, type PlanRow } from './membership-repository';
 import type { ProfileInput, RenewInput } from './membership-service';
 import type { MembershipSettings } from './membership-settings';
 import { duesFor, isJuniorOn, termForPayment, type Term } from './terms';
@@ -8,7 +8,7 @@ import { duesFor, isJuniorOn, termForPayment, type Term } from './terms';
 /** The price and term of paying for `plan` on `today`: a renewal when `m` already has a term, so no joining fee. */
 export function priceFor(plan: PlanRow, m: MembershipRow | undefined, today: string, s: MembershipSettings) {
   const policy = termPolicy(s);
-  const currentEnd = dateOnly(m?.term_end);
+  const currentEnd = m?.term_end ?? null;
   const term = termForPayment(today, currentEnd, policy);
   const duesCents = duesFor(plan.dues_cents, term, policy);
   const joiningFeeCents = currentEnd ? 0 : plan.joining_fee_cents;

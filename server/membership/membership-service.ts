@@ -8,7 +8,7 @@ import type { CardDues, CardDuesResult, CardSource } from './card-dues';
 import { declined, type CardOnFile } from './card-on-file';
 import { termPolicy } from './dues-settlement';
 import { withVoidedVerifications } from './flying-status';
-import { dateOnly, type MembershipRepository, type MembershipRow, type PlanRow } from './membership-repository';
+import { type MembershipRepository, type MembershipRow, type PlanRow } from './membership-repository';
 import { checkAcceptance, checkProfile, priceFor, profilePatch, voidedNote } from './membership-rules';
 import { MEMBERSHIP_SETTINGS } from './membership-settings';
 import { membershipView, planView } from './membership-views';
@@ -159,13 +159,13 @@ export class MembershipService {
     const m = await this.db
       .transaction(async (trx) => {
         // A second submit that arrives after the first one paid finds the membership no longer pending.
-        if (existing && (await this.repo.lockById(trx, Number(existing.id)))!.status !== 'pending')
+        if (existing && (await this.repo.lockById(trx, existing.id))!.status !== 'pending')
           throw conflict('already_member', 'You already have a membership; renew it instead.');
         const created = existing
-          ? await this.repo.update(trx, Number(existing.id), withVoidedVerifications(existing, row))
+          ? await this.repo.update(trx, existing.id, withVoidedVerifications(existing, row))
           : await this.repo.insert(trx, {
               ...row,
-              user_id: String(user.id),
+              user_id: user.id,
               status: 'pending',
               term_start: null,
               term_end: null,
@@ -173,10 +173,10 @@ export class MembershipService {
             });
         await this.repo.replaceFamily(
           trx,
-          Number(created.id),
+          created.id,
           plan.eligibility === 'family' ? (input.profile.familyMembers ?? []) : [],
         );
-        await this.repo.addAudit(trx, Number(created.id), user.id, existing ? 'profile_resubmitted' : 'joined', {
+        await this.repo.addAudit(trx, created.id, user.id, existing ? 'profile_resubmitted' : 'joined', {
           plan: plan.code,
           waiverVersion: s.waiverVersion,
           safetyCodeVersion: s.safetyCodeVersion,
@@ -218,7 +218,7 @@ export class MembershipService {
     if (!m) throw notFound('You have no membership yet; join first.');
     if (m.status === 'pending')
       throw conflict('membership_pending', 'Your first payment has not gone through yet; finish joining first.');
-    const plan = await this.activePlan(input.planId ?? Number(m.plan_id));
+    const plan = await this.activePlan(input.planId ?? m.plan_id);
     if (m.waiver_version !== s.waiverVersion || m.safety_code_version !== s.safetyCodeVersion)
       checkAcceptance(s, input.waiverVersion, input.safetyCodeVersion);
     const today = this.today();
@@ -227,8 +227,8 @@ export class MembershipService {
     const at = this.clock.now();
     const { updated, priced } = await this.db.transaction(async (trx) => {
       // Priced from the locked row: a click that waited behind a finished renewal must not buy the term after it.
-      const locked = (await this.repo.lockById(trx, Number(m.id)))!;
-      const paidThrough = dateOnly(locked.term_end);
+      const locked = (await this.repo.lockById(trx, m.id))!;
+      const paidThrough = locked.term_end;
       if (paidThrough && today < renewalOpensOn(paidThrough)) {
         throw conflict(
           'already_renewed',
@@ -236,7 +236,7 @@ export class MembershipService {
         );
       }
       const priced = priceFor(plan, locked, today, s);
-      if (plan.eligibility === 'junior' && !isJuniorOn(dateOnly(locked.date_of_birth)!, priced.term.start)) {
+      if (plan.eligibility === 'junior' && !isJuniorOn(locked.date_of_birth!, priced.term.start)) {
         throw badRequest('The junior plan is for members under 18 on the first day of the term; choose another plan.', {
           planId: 'You are 18 or over on the first day of the new term.',
         });
@@ -252,8 +252,8 @@ export class MembershipService {
       }
       Object.assign(patch, profilePatch(s, input.profile ?? {}));
       const full = withVoidedVerifications(locked, patch);
-      const row = await this.repo.update(trx, Number(m.id), full);
-      await this.repo.addAudit(trx, Number(m.id), user.id, 'renewal_started', {
+      const row = await this.repo.update(trx, m.id, full);
+      await this.repo.addAudit(trx, m.id, user.id, 'renewal_started', {
         plan: plan.code,
         changed: Object.keys(patch),
         ...voidedNote(full),

@@ -1,4 +1,4 @@
-import { dateOnly, type MembershipRow, type PaymentRow, type PlanRow, type RosterRow } from './membership-repository';
+import { type MembershipRow, type PaymentRow, type PlanRow, type RosterRow } from './membership-repository';
 import type { MembershipSettings } from './membership-settings';
 import { associationVerification, certificationVerification } from './flying-status';
 import { addDays, renewalOpensOn, statusOn, type MembershipStatus, type TermPolicy } from './terms';
@@ -6,7 +6,7 @@ import { addDays, renewalOpensOn, statusOn, type MembershipStatus, type TermPoli
 /** A plan as the API shows it. */
 export function planView(p: PlanRow) {
   return {
-    id: Number(p.id),
+    id: p.id,
     code: p.code,
     name: p.name,
     description: p.description,
@@ -20,7 +20,7 @@ export function planView(p: PlanRow) {
 
 /** The status the dates give today (the stored one may be up to a day old). */
 export function liveStatus(m: MembershipRow, today: string, policy: TermPolicy): MembershipStatus {
-  return statusOn(today, dateOnly(m.term_end), policy, m.renewal_failed_at !== null);
+  return statusOn(today, m.term_end, policy, m.renewal_failed_at !== null);
 }
 
 /** A membership as its member (and staff) see it. */
@@ -31,28 +31,28 @@ export function membershipView(
   policy: TermPolicy,
   s: MembershipSettings,
 ) {
-  const termEnd = dateOnly(m.term_end);
+  const termEnd = m.term_end;
   return {
-    id: Number(m.id),
+    id: m.id,
     memberNumber: m.member_number,
     status: liveStatus(m, today, policy),
-    termStart: dateOnly(m.term_start),
+    termStart: m.term_start,
     termEnd,
     graceEnds: termEnd ? addDays(termEnd, policy.graceDays) : null,
     renewalOpensOn: termEnd ? renewalOpensOn(termEnd) : null,
     renewalOpen: termEnd === null || today >= renewalOpensOn(termEnd),
-    planId: Number(m.plan_id),
+    planId: m.plan_id,
     planCode: plan?.code ?? null,
     planName: plan?.name ?? null,
     legalName: m.legal_name,
-    dateOfBirth: dateOnly(m.date_of_birth),
+    dateOfBirth: m.date_of_birth,
     address: m.address,
     phone: m.phone,
     emergencyContact: m.emergency_contact,
     associationNumber: m.association_number,
-    associationExpires: dateOnly(m.association_expires),
+    associationExpires: m.association_expires,
     certificationLevel: m.certification_level,
-    certificationDate: dateOnly(m.certification_date),
+    certificationDate: m.certification_date,
     // Claims until staff have seen the card or certificate; a changed value is a claim again.
     associationVerifiedAt: associationVerification(m)?.at ?? null,
     certificationVerifiedAt: certificationVerification(m)?.at ?? null,
@@ -75,17 +75,17 @@ export function membershipView(
 /** A roster line for the staff table and the CSV. */
 export function rosterView(r: RosterRow, today: string, policy: TermPolicy) {
   return {
-    id: Number(r.id),
+    id: r.id,
     memberNumber: r.member_number,
     name: r.legal_name,
     email: r.email,
-    planId: Number(r.plan_id),
+    planId: r.plan_id,
     planName: r.plan_name,
     status: liveStatus(r, today, policy),
-    termEnd: dateOnly(r.term_end),
+    termEnd: r.term_end,
     certificationLevel: r.certification_level,
     associationNumber: r.association_number,
-    associationExpires: dateOnly(r.association_expires),
+    associationExpires: r.association_expires,
     associationVerified: associationVerification(r) !== null,
     certificationVerified: certificationVerification(r) !== null,
     autoRenew: r.auto_renew,
@@ -96,15 +96,15 @@ export function rosterView(r: RosterRow, today: string, policy: TermPolicy) {
 /** A payment or refund line. */
 export function paymentView(p: PaymentRow) {
   return {
-    id: Number(p.id),
+    id: p.id,
     entry: p.entry,
     status: p.status,
     method: p.method,
     amountCents: p.amount_cents,
     receiptNumber: p.receipt_number,
-    termStart: dateOnly(p.term_start),
-    termEnd: dateOnly(p.term_end),
-    refundOf: p.refund_of ? Number(p.refund_of) : null,
+    termStart: p.term_start,
+    termEnd: p.term_end,
+    refundOf: p.refund_of,
     note: p.note,
     failureMessage: p.failure_message,
     createdAt: p.created_at,

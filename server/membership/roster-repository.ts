@@ -55,11 +55,11 @@ export class RosterRepository {
     pageSize: number,
     asOf: AsOf,
   ): Promise<{ items: RosterRow[]; total: number }> {
-    const [{ count }] = await this.roster(q, asOf).count<{ count: string }[]>({ count: '*' });
+    const [{ count }] = await this.roster(q, asOf).count<{ count: number }[]>({ count: '*' });
     const items = await this.rosterSorted(q, asOf)
       .limit(pageSize)
       .offset((page - 1) * pageSize);
-    return { items, total: Number(count) };
+    return { items, total: count };
   }
 
   /** Every roster line matching the filters, in the table's order (for the export and roster e-mail). */
@@ -97,11 +97,11 @@ export class RosterRepository {
       `SELECT count(*) AS n FROM memberships m WHERE ${LIVE_STATUS} IN ('active', 'lapsing') AND m.term_end < ?::date + ?::int`,
       [...liveBindings(asOf), asOf.today, days],
     );
-    return Number(rows[0].n);
+    return rows[0].n;
   }
 
   /** Members per status as the dates give it on `asOf.today`. */
-  async countsByStatus(asOf: AsOf): Promise<{ status: MembershipStatus; count: string }[]> {
+  async countsByStatus(asOf: AsOf): Promise<{ status: MembershipStatus; count: number }[]> {
     const { rows } = await this.db.raw(
       `SELECT ${LIVE_STATUS} AS status, count(*) AS count FROM memberships m GROUP BY 1`,
       liveBindings(asOf),

@@ -47,7 +47,7 @@ export class FailureLimiter {
    */
   async standings(keys: string[]): Promise<{ blockedMs: number; counted: boolean }[]> {
     const now = Date.now();
-    const rows: { key: string; points: number; expire: string | null }[] = await this.db('rate_limits')
+    const rows: { key: string; points: number; expire: number | null }[] = await this.db('rate_limits')
       .whereIn(
         'key',
         keys.map((k) => `${this.keyPrefix}:${k}`),
@@ -58,7 +58,7 @@ export class FailureLimiter {
     return keys.map((k) => {
       const r = byKey.get(`${this.keyPrefix}:${k}`);
       if (!r) return { blockedMs: 0, counted: false };
-      const msBeforeNext = r.expire === null ? -1 : Math.max(Number(r.expire) - now, 0);
+      const msBeforeNext = r.expire === null ? -1 : Math.max(r.expire - now, 0);
       return { blockedMs: r.points >= this.points ? Math.max(1, msBeforeNext) : 0, counted: r.points > 0 };
     });
   }

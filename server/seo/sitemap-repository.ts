@@ -39,7 +39,7 @@ export class SitemapRepository {
 
   /** Every launch day on the public calendar. */
   async launches(): Promise<SitemapEntry[]> {
-    const rows: { id: string; updated_at: Date }[] = await this.db('launches')
+    const rows: { id: number; updated_at: Date }[] = await this.db('launches')
       .orderBy('launch_date', 'desc')
       .select('id', 'updated_at');
     return rows.map((r) => ({ path: `/launches/${r.id}`, lastModified: r.updated_at }));

@@ -51,8 +51,6 @@ export interface ProductBundle {
   caps: VariantCapRow[];
 }
 
-const num = <T extends { id: number }>(r: T): T => ({ ...r, id: Number(r.id) });
-
 type JsonRun = Omit<RunRow, 'opens_at' | 'closes_at'> & { opens_at: string; closes_at: string };
 
 /** Products, variants and runs as plain rows. */
@@ -90,7 +88,7 @@ export class CatalogueRepository {
     if (where.variantIds) q.whereIn('p.id', db('shop_variants').whereIn('id', where.variantIds).select('product_id'));
     const rows: (ProductRow & { variants: VariantRow[]; run: JsonRun | null; caps: VariantCapRow[] })[] = await q;
     return rows.map(({ variants, run, caps, ...product }) => ({
-      product: num(product),
+      product,
       variants,
       run: run && { ...run, opens_at: new Date(run.opens_at), closes_at: new Date(run.closes_at) },
       caps,
@@ -115,7 +113,7 @@ export class CatalogueRepository {
         images: JSON.stringify(row.images),
       })
       .returning('id');
-    const productId = Number(p.id);
+    const productId = p.id;
     await trx('shop_variants').insert(variants.map((v, i) => ({ ...v, product_id: productId, position: i })));
     return productId;
   }
@@ -152,7 +150,7 @@ export class CatalogueRepository {
     const [r] = await trx('shop_runs')
       .insert({ ...row, state: 'scheduled' })
       .returning('id');
-    const runId = Number(r.id);
+    const runId = r.id;
     if (caps.length)
       await trx('shop_run_variant_caps').insert(
         caps.map((c) => ({ run_id: runId, variant_id: c.variantId, cap: c.cap })),
@@ -163,7 +161,7 @@ export class CatalogueRepository {
   /** One print run by id. */
   async run(id: number): Promise<RunRow | null> {
     const r = await this.db<RunRow>('shop_runs').where('id', id).first();
-    return r ? { ...num(r), product_id: Number(r.product_id) } : null;
+    return r ?? null;
   }
 
   /** Every print run with its product's name and slug, newest opening first, for the staff list. */
@@ -172,7 +170,7 @@ export class CatalogueRepository {
       .join('shop_products as p', 'p.id', 'r.product_id')
       .select('r.*', 'p.name as product_name', 'p.slug as product_slug')
       .orderBy('r.opens_at', 'desc');
-    return rows.map((r) => ({ ...r, id: Number(r.id), product_id: Number(r.product_id) }));
+    return rows;
   }
 
   /** Moves a print run to a new state; the service decides which moves are allowed. */
@@ -188,7 +186,7 @@ export class CatalogueRepository {
       .whereIn('o.status', ['paid', 'packed', 'shipped'])
       .groupBy('i.variant_id')
       .select('i.variant_id', this.db.raw('sum(i.quantity - i.restocked_quantity)::int as units'));
-    return new Map(rows.map((r: { variant_id: string; units: number }) => [Number(r.variant_id), r.units]));
+    return new Map(rows.map((r: { variant_id: number; units: number }) => [r.variant_id, r.units]));
   }
 
   /** Product addresses starting with `base`, so a new one can be made unique. */
@@ -203,14 +201,12 @@ export class CatalogueRepository {
 
   /** A product's variants in their order, id and label, to attach run caps named by label. */
   async variantLabels(trx: Knex.Transaction, productId: number): Promise<{ id: number; label: string }[]> {
-    const rows = await trx('shop_variants').where('product_id', productId).orderBy('position').select('id', 'label');
-    return rows.map((v) => ({ id: Number(v.id), label: v.label }));
+    return trx('shop_variants').where('product_id', productId).orderBy('position').select('id', 'label');
   }
 
   /** Locks a product row for the transaction (so two staff cannot both add a run); null when there is none. */
   async lockProduct(trx: Knex.Transaction, id: number): Promise<{ id: number; name: string } | null> {
-    const row = await trx('shop_products').where('id', id).forUpdate().first('id', 'name');
-    return row ? { id: Number(row.id), name: row.name } : null;
+    return (await trx('shop_products').where('id', id).forUpdate().first('id', 'name')) ?? null;
   }
 
   /** Names of products whose pictures or description show one of `urls`. */

@@ -96,12 +96,10 @@ const ORDER_SORTS: Record<OrderSortKey, string> = {
 type Db = Knex | Knex.Transaction;
 const fix = (r: Record<string, unknown>): OrderRow => ({
   ...(r as unknown as OrderRow),
-  id: Number(r.id),
-  user_id: r.user_id === null ? null : Number(r.user_id),
   priced_on: r.priced_on_text as string,
 });
 
-const withUnits = (r: Record<string, unknown>) => ({ ...fix(r), units: Number(r.units) });
+const withUnits = (r: Record<string, unknown>) => ({ ...fix(r), units: r.units as number });
 
 /** Orders as plain rows; stock and run counts move only through the conditional updates here. */
 export class OrderRepository {
@@ -147,7 +145,7 @@ export class OrderRepository {
         created_at: now,
       })
       .returning(['id', 'number']);
-    const id = Number(row.id);
+    const id = row.id;
     await trx('shop_order_items').insert(
       q.lines.map((l) => ({
         order_id: id,
@@ -239,25 +237,15 @@ export class OrderRepository {
 
   private async bundle(trx: Db, row: Record<string, unknown> | undefined): Promise<OrderBundle | null> {
     if (!row) return null;
-    const id = Number(row.id);
+    const id = row.id as number;
     const items = await this.items(trx, id);
     const taxes = await this.taxes(trx, id);
-    const refunds = (await trx<RefundRow>('shop_refunds').where('order_id', id).orderBy('id')).map((r) => ({
-      ...r,
-      id: Number(r.id),
-      order_id: id,
-    }));
+    const refunds = await trx<RefundRow>('shop_refunds').where('order_id', id).orderBy('id');
     return { order: fix(row), items, taxes, refunds };
   }
 
   private async items(trx: Db, orderId: number): Promise<OrderItemRow[]> {
-    return (await trx<OrderItemRow>('shop_order_items').where('order_id', orderId).orderBy('id')).map((i) => ({
-      ...i,
-      id: Number(i.id),
-      order_id: orderId,
-      variant_id: Number(i.variant_id),
-      run_id: i.run_id === null ? null : Number(i.run_id),
-    }));
+    return trx<OrderItemRow>('shop_order_items').where('order_id', orderId).orderBy('id');
   }
 
   private async taxes(trx: Db, orderId: number): Promise<OrderTaxRow[]> {
@@ -270,7 +258,7 @@ export class OrderRepository {
   /** The id of the order a processor charge paid, so webhooks and refunds find their order. */
   async byChargeId(chargeId: string, trx: Db = this.db): Promise<number | null> {
     const row = await trx('shop_orders').where('charge_id', chargeId).first('id');
-    return row ? Number(row.id) : null;
+    return row ? (row.id as number) : null;
   }
 
   /** The buyer's own orders; attempts whose payment failed were never orders to them, so they are left out. */
@@ -291,7 +279,7 @@ export class OrderRepository {
       .select('r.*')
       .orderBy('r.closes_at')
       .orderBy('r.id');
-    return rows.map((r) => ({ ...r, id: Number(r.id), product_id: Number(r.product_id) }));
+    return rows;
   }
 
   /** Where the buyer's latest mailed order went (not a pickup, not a failed attempt), to offer it again. */
@@ -343,11 +331,11 @@ export class OrderRepository {
     page: number,
     pageSize: number,
   ): Promise<{ items: (OrderRow & { units: number })[]; total: number }> {
-    const [{ count }] = await this.filtered(f).count<{ count: string }[]>('* as count');
+    const [{ count }] = await this.filtered(f).count<{ count: number }[]>('* as count');
     const rows = await this.rowsFor(f, sort, dir)
       .limit(pageSize)
       .offset((page - 1) * pageSize);
-    return { items: rows.map(withUnits), total: Number(count) };
+    return { items: rows.map(withUnits), total: count };
   }
 
   /** Every matching order (CSV export), at most 10,000. */

@@ -55,9 +55,6 @@ export interface RefundedSoFar {
 
 const fixRefund = (r: Record<string, unknown>): ShopRefundRow => ({
   ...(r as unknown as ShopRefundRow),
-  id: Number(r.id),
-  order_id: Number(r.order_id),
-  created_by: r.created_by === null ? null : Number(r.created_by),
 });
 
 /** Shop refunds: claims, outcomes, lines and tax lines. The caller holds the order's row lock when it writes. */
@@ -105,7 +102,7 @@ export class RefundRepository {
         settled_at: r.state === 'requested' ? null : r.now,
       })
       .returning('id');
-    const id = Number(row.id);
+    const id = row.id;
     if (b.lines.length)
       await trx('shop_refund_lines').insert(
         b.lines.map((l) => ({
@@ -172,9 +169,7 @@ export class RefundRepository {
   /** The refunded units of these refunds, by refund and order line. */
   async lines(refundIds: number[], db: Db = this.db): Promise<RefundLineRow[]> {
     if (!refundIds.length) return [];
-    return (await db('shop_refund_lines').whereIn('refund_id', refundIds).orderBy(['refund_id', 'order_item_id'])).map(
-      (l) => ({ ...l, refund_id: Number(l.refund_id), order_item_id: Number(l.order_item_id) }),
-    );
+    return await db('shop_refund_lines').whereIn('refund_id', refundIds).orderBy(['refund_id', 'order_item_id']);
   }
 
   /** The refunded tax of these refunds, by refund and tax code. */
@@ -182,7 +177,6 @@ export class RefundRepository {
     if (!refundIds.length) return [];
     return (await db('shop_refund_taxes').whereIn('refund_id', refundIds).orderBy(['refund_id', 'code'])).map((t) => ({
       ...t,
-      refund_id: Number(t.refund_id),
       rate_percent: String(t.rate_percent),
     }));
   }
@@ -234,8 +228,8 @@ export class RefundRepository {
       if (add <= 0) continue;
       await trx('shop_order_items').where('id', l.orderItemId).increment('restocked_quantity', add);
       back.push({
-        variantId: Number(item.variant_id),
-        runId: item.run_id === null ? null : Number(item.run_id),
+        variantId: item.variant_id,
+        runId: item.run_id,
         quantity: add,
       });
     }

@@ -15,23 +15,18 @@ export class ShopConfigRepository {
 
   /** Every shipping method, switched-off ones too, for the shop settings. */
   async allShippingMethods(): Promise<ShippingMethodRow[]> {
-    return (await this.db<ShippingMethodRow>('shop_shipping_methods').orderBy('position')).map((m) => ({
-      ...m,
-      id: Number(m.id),
-    }));
+    return this.db<ShippingMethodRow>('shop_shipping_methods').orderBy('position');
   }
 
   /** The shipping methods a buyer can choose at checkout. */
   async activeShippingMethods(): Promise<ShippingMethodRow[]> {
-    return (await this.db<ShippingMethodRow>('shop_shipping_methods').where('active', true).orderBy('position')).map(
-      (m) => ({ ...m, id: Number(m.id) }),
-    );
+    return this.db<ShippingMethodRow>('shop_shipping_methods').where('active', true).orderBy('position');
   }
 
   /** One shipping method by id, switched off or not. */
   async shippingMethod(id: number): Promise<ShippingMethodRow | null> {
     const m = await this.db<ShippingMethodRow>('shop_shipping_methods').where('id', id).first();
-    return m ? { ...m, id: Number(m.id) } : null;
+    return m ?? null;
   }
 
   /** Saves a shipping method's name, weight brackets and switch; false when there is no such method. */

@@ -31,7 +31,11 @@ export function shopDashboard(
           db.raw('COUNT(*)::int AS orders'),
           db.raw('COALESCE(SUM(total_cents - tax_cents), 0)::bigint AS sales'),
         );
-      return rows.map((r) => ({ province: String(r.province), orders: Number(r.orders), salesCents: Number(r.sales) }));
+      return rows.map((r) => ({
+        province: String(r.province),
+        orders: r.orders as number,
+        salesCents: r.sales as number,
+      }));
     },
     async taxRegistrations() {
       const s = await settings.get(SHOP_SETTINGS);
@@ -43,8 +47,8 @@ export function shopDashboard(
       };
     },
     async ordersAwaitingShipment() {
-      const [{ n }] = await db('shop_orders').whereIn('status', ['paid', 'packed']).count<{ n: string }[]>({ n: '*' });
-      return Number(n);
+      const [{ n }] = await db('shop_orders').whereIn('status', ['paid', 'packed']).count<{ n: number }[]>({ n: '*' });
+      return n;
     },
     async runsClosingWithin(days) {
       const now = clock.now();
@@ -66,7 +70,7 @@ export function shopDashboard(
       if (!run) return [];
       const [bundle] = await catalogue.bundles({ id: run.product_id });
       const paid = await catalogue.paidUnits(runId);
-      return (bundle?.variants ?? []).map((v) => ({ label: v.label, units: paid.get(Number(v.id)) ?? 0 }));
+      return (bundle?.variants ?? []).map((v) => ({ label: v.label, units: paid.get(v.id) ?? 0 }));
     },
   };
 }

@@ -117,11 +117,11 @@ export class CreditService {
     const rows = await this.repo.deliverables(sponsorId, trx);
     const open = deliverableToCredit(
       rows.map((d) => ({
-        id: Number(d.id),
+        id: d.id,
         kind: d.kind,
         quantity: d.quantity,
         dueOn: d.due_on,
-        delivered: Number(d.delivered),
+        delivered: d.delivered,
       })),
       kind,
       preferredId,

@@ -4,7 +4,7 @@ import type { DeliverableKind } from './sponsor-ledger';
 type Db = Knex | Knex.Transaction;
 
 export interface SponsorRow {
-  id: string;
+  id: number;
   slug: string;
   name: string;
   website: string | null;
@@ -14,12 +14,12 @@ export interface SponsorRow {
 }
 
 export interface AgreementRow {
-  id: string;
-  sponsor_id: string;
+  id: number;
+  sponsor_id: number;
   season: string;
-  cash_cents: string;
+  cash_cents: number;
   cash_received_on: string | null;
-  cash_movement_id: string | null;
+  cash_movement_id: number | null;
   note: string | null;
   tax_treatment: 'promotion' | 'gift';
   tax_province: string | null;
@@ -27,33 +27,33 @@ export interface AgreementRow {
 }
 
 export interface InKindRow {
-  id: string;
-  agreement_id: string;
+  id: number;
+  agreement_id: number;
   description: string;
-  value_cents: string;
+  value_cents: number;
   received_on: string | null;
 }
 
 export interface DeliverableRow {
-  id: string;
-  agreement_id: string;
-  sponsor_id: string;
+  id: number;
+  agreement_id: number;
+  sponsor_id: number;
   kind: DeliverableKind;
   quantity: number;
   due_on: string;
-  delivered: string;
+  delivered: number;
   season: string;
 }
 
 export interface CreditRow {
-  id: string;
-  sponsor_id: string;
-  deliverable_id: string | null;
+  id: number;
+  sponsor_id: number;
+  deliverable_id: number | null;
   kind: DeliverableKind;
   url: string | null;
   video_timestamp: string | null;
   note: string | null;
-  post_id: string | null;
+  post_id: number | null;
   post_slug: string | null;
   post_title: string | null;
   credited_at: Date;
@@ -61,7 +61,7 @@ export interface CreditRow {
 }
 
 export interface ContactRow {
-  user_id: string;
+  user_id: number;
   email: string;
   display_name: string;
 }
@@ -187,7 +187,7 @@ export class SponsorRepository {
         tax_province: a.taxProvince,
       })
       .returning('id');
-    return Number(row.id);
+    return row.id;
   }
 
   /** Sets how an agreement is taxed. */
@@ -316,13 +316,13 @@ export class SponsorRepository {
         credited_at: c.creditedAt,
       })
       .returning('id');
-    return Number(row.id);
+    return row.id;
   }
 
   /** Sponsor ids with a live credit from the post. */
   async liveCreditSponsors(trx: Db, postId: number): Promise<number[]> {
     const rows = await trx('sponsor_credits').where('post_id', postId).whereNull('withdrawn_at').select('sponsor_id');
-    return rows.map((r: { sponsor_id: string }) => Number(r.sponsor_id));
+    return rows.map((r: { sponsor_id: number }) => r.sponsor_id);
   }
 
   /** Withdraws a post's live credits for these sponsors (the post no longer thanks them), keeping the rows for the ledger's history. */
@@ -360,15 +360,15 @@ export class SponsorRepository {
       .select(
         'a.sponsor_id',
         trx.raw(
-          'sum(a.cash_cents + coalesce((SELECT sum(value_cents) FROM agreement_in_kind i WHERE i.agreement_id = a.id), 0)) as total',
+          'sum(a.cash_cents + coalesce((SELECT sum(value_cents) FROM agreement_in_kind i WHERE i.agreement_id = a.id), 0))::bigint as total',
         ),
       )
       .groupBy('a.sponsor_id');
-    return new Map(rows.map((r: { sponsor_id: string; total: string }) => [Number(r.sponsor_id), Number(r.total)]));
+    return new Map(rows.map((r: { sponsor_id: number; total: number }) => [r.sponsor_id, r.total]));
   }
 
   /** Published posts that credit each sponsor, newest first. */
-  creditingPosts(trx: Db = this.db): Promise<{ sponsor_id: string; slug: string; title: string }[]> {
+  creditingPosts(trx: Db = this.db): Promise<{ sponsor_id: number; slug: string; title: string }[]> {
     return trx('post_credits as pc')
       .join('posts as p', 'p.id', 'pc.post_id')
       .where('p.status', 'published')

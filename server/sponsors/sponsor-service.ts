@@ -136,9 +136,9 @@ export class SponsorService {
       if (!a) throw notFound('No such agreement.');
       if (a.cash_movement_id !== null || a.cash_received_on !== null)
         throw conflict('cash_already_received', 'The cash for this agreement is already recorded as received.');
-      if (Number(a.cash_cents) === 0)
+      if (a.cash_cents === 0)
         throw badRequest('This agreement promises no cash.', { receivedOn: 'Nothing to receive.' });
-      const sponsor = (await this.repo.byId(Number(a.sponsor_id), trx))!;
+      const sponsor = (await this.repo.byId(a.sponsor_id, trx))!;
       // Promotion bought is taxed on the day the cash comes in; the sponsor pays the amount plus GST/HST.
       const taxes = await this.taxes.movementTaxes(a, input.receivedOn);
       const movementId = await recordMovement(trx, {
@@ -147,7 +147,7 @@ export class SponsorService {
         source: 'sponsor',
         reference: String(a.id),
         counterparty: sponsor.name,
-        grossCents: Number(a.cash_cents) + taxes.reduce((n, t) => n + t.taxCents, 0),
+        grossCents: a.cash_cents + taxes.reduce((n, t) => n + t.taxCents, 0),
         method: input.method,
         idempotencyKey: `sponsor-cash:${a.id}`,
         taxes,
@@ -160,7 +160,7 @@ export class SponsorService {
   /** Every agreement of the sponsor with its ledger as of `today`. */
   async agreements(sponsorId: number, today: string): Promise<AgreementView[]> {
     const rows = await this.repo.agreements(sponsorId);
-    const ids = rows.map((a) => Number(a.id));
+    const ids = rows.map((a) => a.id);
     const [inKind, deliverables, listed] = await Promise.all([
       this.repo.inKind(ids),
       this.repo.deliverables(sponsorId),
@@ -170,9 +170,9 @@ export class SponsorService {
       const items = inKind
         .filter((i) => i.agreement_id === a.id)
         .map((i) => ({
-          id: Number(i.id),
+          id: i.id,
           description: i.description,
-          valueCents: Number(i.value_cents),
+          valueCents: i.value_cents,
           receivedOn: i.received_on,
         }));
       const lines = ledgerLines(
@@ -181,16 +181,16 @@ export class SponsorService {
       );
       const inKindCents = items.reduce((s, i) => s + i.valueCents, 0);
       return {
-        id: Number(a.id),
+        id: a.id,
         season: a.season,
-        cashCents: Number(a.cash_cents),
+        cashCents: a.cash_cents,
         cashReceivedOn: a.cash_received_on,
-        cashReceivedCents: a.cash_received_on !== null ? Number(a.cash_cents) : 0,
+        cashReceivedCents: a.cash_received_on !== null ? a.cash_cents : 0,
         taxTreatment: a.tax_treatment,
         taxProvince: a.tax_province,
         inKind: items,
         inKindCents,
-        totalCents: Number(a.cash_cents) + inKindCents,
+        totalCents: a.cash_cents + inKindCents,
         note: a.note,
         deliverables: lines,
         byKind: summaryByKind(lines),
@@ -244,8 +244,8 @@ export class SponsorService {
         'That account does not hold the sponsor role; an admin can grant it on the accounts page.',
         { email: 'Needs the sponsor role first.' },
       );
-    await this.repo.addContact(this.db, sponsorId, Number(user.id));
-    return { userId: Number(user.id) };
+    await this.repo.addContact(this.db, sponsorId, user.id);
+    return { userId: user.id };
   }
 
   /** Takes portal access away from an account; 404 when it was not a contact. */
@@ -257,7 +257,7 @@ export class SponsorService {
   /** The accounts that can open the sponsor's portal. */
   async contacts(sponsorId: number): Promise<{ userId: number; email: string; displayName: string }[]> {
     return (await this.repo.contacts(sponsorId)).map((c) => ({
-      userId: Number(c.user_id),
+      userId: c.user_id,
       email: c.email,
       displayName: c.display_name,
     }));
@@ -287,7 +287,7 @@ export class SponsorService {
       this.tiers(),
     ]);
     return rows.map((s) => {
-      const total = totals.get(Number(s.id));
+      const total = totals.get(s.id);
       return {
         ...toView(s),
         tier: total === undefined ? null : (tierFor(total, tiers)?.name ?? null),
@@ -352,7 +352,7 @@ export class SponsorService {
               blurb: s.blurb,
               logoUrl: s.logoUrl,
               logoSize: logoSizeOf(logos, s.logoUrl),
-              posts: posts.filter((p) => Number(p.sponsor_id) === s.id).map((p) => ({ slug: p.slug, title: p.title })),
+              posts: posts.filter((p) => p.sponsor_id === s.id).map((p) => ({ slug: p.slug, title: p.title })),
             })),
         }))
         .filter((t) => t.sponsors.length),
@@ -366,18 +366,18 @@ export class SponsorService {
       this.repo.all(),
       this.listedNow(today),
     ]);
-    const names = new Map(sponsors.map((s) => [Number(s.id), s.name]));
+    const names = new Map(sponsors.map((s) => [s.id, s.name]));
     return ledgerLines(
       rows.map((d) => toInput(d, listed, seasonOf(today))),
       today,
     )
       .filter((l) => l.overdue)
       .map((l) => {
-        const d = rows.find((r) => Number(r.id) === l.id)!;
+        const d = rows.find((r) => r.id === l.id)!;
         return {
-          sponsorId: Number(d.sponsor_id),
-          sponsorName: names.get(Number(d.sponsor_id)) ?? '',
-          agreementId: Number(d.agreement_id),
+          sponsorId: d.sponsor_id,
+          sponsorName: names.get(d.sponsor_id) ?? '',
+          agreementId: d.agreement_id,
           kind: l.kind,
           promised: l.promised,
           delivered: l.delivered,

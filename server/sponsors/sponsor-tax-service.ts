@@ -47,7 +47,7 @@ export class SponsorTaxService {
       {
         treatment: a.tax_treatment,
         province: (a.tax_province as Province | null) ?? null,
-        cashCents: Number(a.cash_cents),
+        cashCents: a.cash_cents,
         date,
       },
       await this.rates.taxRates(),
@@ -97,11 +97,11 @@ export class SponsorTaxService {
     if (!a) throw notFound('No such agreement.');
     if (a.tax_treatment !== 'promotion')
       throw conflict('not_promotion', 'A gift gets no invoice: set the agreement to promotion first.');
-    if (Number(a.cash_cents) === 0) throw conflict('no_cash', 'This agreement promises no cash to invoice.');
+    if (a.cash_cents === 0) throw conflict('no_cash', 'This agreement promises no cash to invoice.');
     const [sponsor, shop, deliverables] = await Promise.all([
-      this.repo.byId(Number(a.sponsor_id)),
+      this.repo.byId(a.sponsor_id),
       this.settings.get(SHOP_SETTINGS),
-      this.repo.deliverables(Number(a.sponsor_id)),
+      this.repo.deliverables(a.sponsor_id),
     ]);
     const date = a.cash_received_on ?? today;
     const taxes = await this.taxLines(a, date);
@@ -118,11 +118,11 @@ export class SponsorTaxService {
       sponsorName: sponsor?.name ?? '',
       season: a.season,
       promised: deliverables
-        .filter((d) => String(d.agreement_id) === String(a.id))
+        .filter((d) => d.agreement_id === a.id)
         .map((d) => ({ kind: d.kind, quantity: d.quantity, dueOn: d.due_on })),
-      amountCents: Number(a.cash_cents),
+      amountCents: a.cash_cents,
       taxes: taxes.map((t) => ({ label: t.label, amountCents: t.amountCents })),
-      totalCents: Number(a.cash_cents) + taxCents,
+      totalCents: a.cash_cents + taxCents,
     };
   }
 }

@@ -12,7 +12,7 @@ export type CreditView = SponsorCredit;
 export type SponsorView = Sponsor;
 
 export const toView = (s: SponsorRow): SponsorView => ({
-  id: Number(s.id),
+  id: s.id,
   slug: s.slug,
   name: s.name,
   website: s.website,
@@ -21,7 +21,7 @@ export const toView = (s: SponsorRow): SponsorView => ({
 });
 
 export const toCredit = (c: CreditRow): CreditView => ({
-  id: Number(c.id),
+  id: c.id,
   kind: c.kind,
   url: c.url,
   at: c.credited_at.toISOString(),
@@ -34,10 +34,10 @@ export const toCredit = (c: CreditRow): CreditView => ({
 
 /** A deliverable row for the ledger; `listed` holds the sponsors standing on the public page in `season`. */
 export const toInput = (d: DeliverableRow, listed: ReadonlySet<number>, season: string): DeliverableInput => ({
-  id: Number(d.id),
+  id: d.id,
   kind: d.kind,
   quantity: d.quantity,
   dueOn: d.due_on,
-  delivered: Number(d.delivered),
-  listedNow: d.season === season && listed.has(Number(d.sponsor_id)),
+  delivered: d.delivered,
+  listedNow: d.season === season && listed.has(d.sponsor_id),
 });

@@ -36,7 +36,7 @@ export interface ReceivedFile {
 }
 
 interface UploadRow {
-  id: string;
+  id: number;
   key: string;
   content_type: string;
   width: number | null;
@@ -202,7 +202,7 @@ function reencoded(path: string, meta: Metadata, as: Ext | 'thumb'): Sharp {
 
 function toStored(row: UploadRow): StoredImage {
   return {
-    id: Number(row.id),
+    id: row.id,
     url: `/uploads/${row.key}`,
     thumbnailUrl: `/uploads/${row.thumbnail_key}`,
     width: row.width ?? 0,

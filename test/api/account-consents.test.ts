@@ -46,7 +46,7 @@ describe('a person’s consents in the download and the deletion', () => {
     expect(row.user_id).toBeNull();
     expect(
       await t.deps.db('email_suppressions').where('email', user.email).whereNull('list').count({ n: '*' }),
-    ).toEqual([{ n: '1' }]);
+    ).toEqual([{ n: 1 }]);
 
     const draft = await editor.post('/api/admin/announcements', {
       topic: 'launches',

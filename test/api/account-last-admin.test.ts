@@ -44,7 +44,7 @@ describe('POST /api/account/delete', () => {
         .whereRaw("'admin' = ANY(roles)")
         .whereNull('deleted_at')
         .count({ n: '*' });
-      expect(admins).toEqual([{ n: '1' }]);
+      expect(admins).toEqual([{ n: 1 }]);
     });
   });
 });

@@ -294,7 +294,7 @@ describe('GET /api/account/export', () => {
       ship_name: `Deleted account #${s.user.id}`,
       ship_line1: null,
       total_cents: 448,
-      user_id: String(s.user.id),
+      user_id: s.user.id,
     });
   });
 
@@ -395,7 +395,7 @@ describe('POST /api/account/delete', () => {
           .db('session')
           .whereRaw(`(sess->'passport'->>'user') = ?`, [String(p.user.id)])
           .count({ n: '*' }),
-      ).toEqual([{ n: '0' }]);
+      ).toEqual([{ n: 0 }]);
       const signIn = await new Client(t.app).post('/api/auth/login', {
         email: p.user.email,
         password: p.user.password,

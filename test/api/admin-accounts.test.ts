@@ -23,7 +23,7 @@ describe('POST /api/admin/users/:id/disable', () => {
           .db('session')
           .whereRaw("(sess -> 'passport' ->> 'user') = ?", [String(user.id)])
           .count<{ count: string }[]>({ count: '*' }),
-      ).toEqual([{ count: '0' }]);
+      ).toEqual([{ count: 0 }]);
 
       const again = await new Client(t.app).post('/api/auth/login', { email: user.email, password: user.password });
       expect(again.status).toBe(403);

@@ -356,7 +356,7 @@ describe('actual processor fees', () => {
       .db('money_movements')
       .where({ processor_charge_id: `ch_${tag}` })
       .first('fee_cents', 'fee_estimated');
-    expect(row).toEqual({ fee_cents: '348', fee_estimated: false });
+    expect(row).toEqual({ fee_cents: 348, fee_estimated: false });
     await t.deps
       .db('money_movements')
       .where({ processor_charge_id: `ch_${tag}` })
@@ -399,7 +399,7 @@ describe('the actual-fee job', () => {
         .db('money_movements')
         .where({ processor_charge_id: `ch_${tag}` })
         .first('fee_cents', 'fee_estimated');
-      expect(row).toEqual({ fee_cents: '341', fee_estimated: false });
+      expect(row).toEqual({ fee_cents: 341, fee_estimated: false });
     } finally {
       gateway.actualFeeCents = original;
       await t.deps

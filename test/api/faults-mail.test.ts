@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import knex, { type Knex } from 'knex';
 import pino from 'pino';
+import { pgConnection } from '../../server/db';
 import { MailWorker } from '../../server/mail/mail-worker';
 import { enqueueEmail } from '../../server/mail/outbox';
 import { emailsTo } from '../helpers/maildev';
@@ -20,7 +21,7 @@ beforeAll(async () => {
   await t.deps.db.raw('CREATE TABLE ??.outbound_emails (LIKE public.outbound_emails INCLUDING ALL)', [outageSchema]);
   outageDb = knex({
     client: 'pg',
-    connection: t.config.databaseUrl,
+    connection: pgConnection(t.config.databaseUrl),
     searchPath: [outageSchema, 'public'],
     pool: { min: 0, max: 4 },
   });

@@ -118,7 +118,7 @@ describe('POST /api/admin/members/:id/payments', () => {
     expect(res.body.audit.map((a: { action: string }) => a.action)).toContain('term_paid');
     const movement = await t.deps.db('money_movements').where({ reference: m.number, kind: 'manual_payment' }).first();
     expect(movement).toEqual(
-      expect.objectContaining({ method: 'cash', gross_cents: '4500', fee_cents: '0', source: 'dues' }),
+      expect.objectContaining({ method: 'cash', gross_cents: 4500, fee_cents: 0, source: 'dues' }),
     );
     expect(
       await t.deps.db('outbound_emails').where({ to_address: m.user.email, template: 'membership-receipt' }),
@@ -159,7 +159,7 @@ describe('POST /api/admin/members/:id/refunds', () => {
     expect(res.status).toBe(201);
     expect(res.body.member).toEqual(expect.objectContaining({ termEnd: null, status: 'pending' }));
     const refund = await t.deps.db('money_movements').where({ reference: m.number, kind: 'refund' }).first();
-    expect(refund.gross_cents).toBe('-4500');
+    expect(refund.gross_cents).toBe(-4500);
     expect((await t.deps.db('users').where('id', m.user.id).first()).roles).not.toContain('member');
   });
 

@@ -122,7 +122,7 @@ describe('POST /api/membership/renew', () => {
       expect(await succeededFor(m.memberNumber, '2027-12-31')).toHaveLength(1);
       expect(await succeededFor(m.memberNumber, '2028-12-31')).toEqual([]);
       const after = await a.deps.db('memberships').where('id', m.row.id).first();
-      expect(after.term_end).toEqual(new Date(2027, 11, 31));
+      expect(after.term_end).toBe('2027-12-31');
       expect(await a.deps.db('membership_payments').where({ membership_id: m.row.id, status: 'paid' })).toHaveLength(2);
     });
   });
@@ -150,7 +150,7 @@ describe('POST /api/membership/renew', () => {
       expect(answers.map((r) => r.status).filter((s) => s !== 200 && s !== 409)).toEqual([]);
       expect(answers.some((r) => r.status === 200)).toBe(true);
       expect(await succeededFor(m.memberNumber, '2027-12-31')).toHaveLength(1);
-      expect((await a.deps.db('memberships').where('id', m.row.id).first()).term_end).toEqual(new Date(2027, 11, 31));
+      expect((await a.deps.db('memberships').where('id', m.row.id).first()).term_end).toBe('2027-12-31');
     });
   });
 

@@ -110,8 +110,8 @@ describe('POST /api/membership', () => {
         expect.objectContaining({
           kind: 'dues_payment',
           method: 'card',
-          gross_cents: '4500',
-          fee_cents: '161',
+          gross_cents: 4500,
+          fee_cents: 161,
           fee_estimated: true,
         }),
       );
@@ -125,7 +125,7 @@ describe('POST /api/membership', () => {
         .where({ reference: res.body.membership.memberNumber, source: 'dues' })
         .first();
       // The fake issues tok_visa in the US: 3.7% of 4500 = 166.5 -> 167 + 30 = 197.
-      expect(movement.fee_cents).toBe('197');
+      expect(movement.fee_cents).toBe(197);
     });
 
     it('gives every member a different number', async () => {

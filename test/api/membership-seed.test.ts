@@ -1,5 +1,4 @@
 import { seed } from '../../seeds/03_membership';
-import { dateOnly } from '../../server/membership/membership-repository';
 import { statusOn } from '../../server/membership/terms';
 import { dateInZone } from '../../server/platform/clock';
 import { freshDatabase, type FreshDatabase } from '../helpers/fresh-database';
@@ -30,9 +29,9 @@ describe('the membership demo seed', () => {
     expect(rows.map((r) => r.status)).toEqual(expect.arrayContaining(['pending', 'active', 'lapsed']));
     const today = dateInZone(new Date(), 'America/Winnipeg');
     for (const r of rows) {
-      expect(statusOn(today, dateOnly(r.term_end), { graceDays: 30 })).toBe(r.status);
+      expect(statusOn(today, r.term_end, { graceDays: 30 })).toBe(r.status);
       // The demo club's calendar rule: every term ends on Dec 31 and starts on Jan 1 or on the day it was paid.
-      if (r.term_end) expect(dateOnly(r.term_end)!.slice(5)).toBe('12-31');
+      if (r.term_end) expect(r.term_end!.slice(5)).toBe('12-31');
       expect(r.roles.includes('member')).toBe(r.status === 'active' || r.status === 'lapsing');
     }
     const paid = await fresh
@@ -43,7 +42,7 @@ describe('the membership demo seed', () => {
       )
       .where('status', 'paid');
     for (const p of paid) {
-      const start = dateOnly(p.term_start)!;
+      const start = p.term_start!;
       expect([`${start.slice(0, 4)}-01-01`, dateInZone(p.created_at, 'America/Winnipeg')]).toContain(start);
     }
     expect(paid.length).toBe(rows.filter((r) => r.term_end).length);

@@ -85,7 +85,7 @@ describe('POST /api/payments/webhook', () => {
       const replay = await post(e);
       expect(replay.body).toEqual({ received: true, replay: true });
       expect((await t.deps.db('shop_orders').where('id', o.id).first()).refunded_cents).toBe(1000);
-      expect(await t.deps.db('shop_refunds').where('order_id', o.id).count('* as n').first()).toEqual({ n: '1' });
+      expect(await t.deps.db('shop_refunds').where('order_id', o.id).count('* as n').first()).toEqual({ n: 1 });
       const moves = await t.deps.db('money_movements').where({ reference: o.number, kind: 'refund' });
       expect(moves.map((m) => Number(m.gross_cents))).toEqual([-1000]);
       expect(
@@ -96,7 +96,7 @@ describe('POST /api/payments/webhook', () => {
           .whereRaw('subject like ?', [`%${o.number}%`])
           .count('* as n')
           .first(),
-      ).toEqual({ n: '1' });
+      ).toEqual({ n: 1 });
     });
   });
 
@@ -117,7 +117,7 @@ describe('POST /api/payments/webhook', () => {
       expect(row.dispute_reason).toBe('product_not_received');
       expect(
         await t.deps.db('outbound_emails').where('dedupe_key', `shop-dispute-${o.id}`).count('* as n').first(),
-      ).toEqual({ n: '1' });
+      ).toEqual({ n: 1 });
     });
   });
 });

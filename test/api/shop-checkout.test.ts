@@ -201,7 +201,7 @@ describe('POST /api/orders', () => {
       expect(charges.data.filter((ch) => ch.metadata.orderId === String(res.body.order.id))).toHaveLength(1);
       expect(
         await t.deps.db('money_movements').where({ reference: res.body.order.number }).count('* as n').first(),
-      ).toEqual({ n: '1' });
+      ).toEqual({ n: 1 });
     });
   });
 

@@ -50,7 +50,7 @@ describe('POST /api/orders when the processor answers 500 (tok_500|tok_visa|…)
     expect(await chargesFor(res.body.order.id)).toHaveLength(1);
     expect(
       (await t.deps.db('money_movements').where({ reference: res.body.order.number }).count('* as n').first())!.n,
-    ).toBe('1');
+    ).toBe(1);
   });
 });
 
@@ -87,7 +87,7 @@ describe('the reconciliation job', () => {
         .where({ dedupe_key: `shop-confirmation-${res.body.order.id}` })
         .count('* as n')
         .first())!.n,
-    ).toBe('1');
+    ).toBe(1);
   });
 });
 

@@ -326,7 +326,7 @@ describe('POST /api/admin/sponsors/:id/agreements', () => {
     expect(rows[0]).toMatchObject({
       source: 'sponsor',
       counterparty: 'Cash Counter Co',
-      gross_cents: '12345',
+      gross_cents: 12345,
       method: 'e-transfer',
     });
   });

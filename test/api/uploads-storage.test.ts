@@ -105,7 +105,7 @@ describe.each([
     expect(second.body.url).toBe(first.body.url);
     expect(
       await t.deps.db('uploads').where('key', keyOf(first.body.url)).count<{ count: string }[]>('* as count'),
-    ).toEqual([{ count: '1' }]);
+    ).toEqual([{ count: 1 }]);
   });
 
   it('answers 415 for an image whose data is cut short, and leaves no object behind', async () => {

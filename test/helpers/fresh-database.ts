@@ -1,6 +1,6 @@
 import knex, { type Knex } from 'knex';
 import { loadConfig } from '../../server/config';
-import { migrationConfig } from '../../server/db';
+import { migrationConfig, pgConnection } from '../../server/db';
 
 export interface FreshDatabase {
   db: Knex;
@@ -19,7 +19,7 @@ export async function freshDatabase(sharedUrl = loadConfig().databaseUrl): Promi
   await admin.raw('CREATE DATABASE ??', [name]);
   const url = new URL(sharedUrl);
   url.pathname = `/${name}`;
-  const db = knex({ client: 'pg', connection: url.toString(), pool: { min: 0, max: 4 } });
+  const db = knex({ client: 'pg', connection: pgConnection(url.toString()), pool: { min: 0, max: 4 } });
   await db.migrate.latest(migrationConfig);
   // The payment fake is shared by the whole run, and its idempotency keys carry row ids ("padside-order-1-attempt-1"):
   // ids that start again at 1 would replay another suite's charge. Every id sequence starts far from the shared ones.

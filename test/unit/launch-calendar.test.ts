@@ -3,7 +3,7 @@ import { launchCalendar } from '../../server/launches/launch-calendar';
 import type { LaunchRow } from '../../server/launches/launch-repository';
 
 const launch = (id: number, date: string, startsAt: string, endsAt: string): LaunchRow => ({
-  id: String(id),
+  id,
   uid: `00000000-0000-4000-8000-00000000000${id}`,
   title: `Launch ${id}`,
   launch_date: date,

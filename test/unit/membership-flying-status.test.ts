@@ -10,7 +10,7 @@ const row = (over: Partial<MembershipRow> = {}): MembershipRow =>
     association_number: 'NA-1',
     association_expires: '2028-06-30',
     association_verified_at: at,
-    association_verified_by: '7',
+    association_verified_by: 7,
     association_verified_against: 'card',
     certification_level: 'L1',
     certification_date: null,
@@ -28,7 +28,7 @@ describe('flyingVerdict', () => {
       answer: 'verified',
       number: 'NA-1',
       expires: '2028-06-30',
-      verified: { at, byUserId: '7', against: 'card' },
+      verified: { at, byUserId: 7, against: 'card' },
     });
     expect(v.certification.answer).toBe('claimed');
   });
@@ -82,9 +82,9 @@ describe('flyingVerdict', () => {
 
 describe('withVoidedVerifications', () => {
   const verified = row({
-    association_expires: new Date(2028, 5, 30),
+    association_expires: '2028-06-30',
     certification_verified_at: at,
-    certification_verified_by: '7',
+    certification_verified_by: 7,
     certification_verified_against: 'certificate',
   });
 
