@@ -88,16 +88,12 @@ export class PersonalDataService {
 
   /** Whose data an export holds; a deleted account has nothing left to export. */
   private async subject(trx: Knex.Transaction, userId: number): Promise<DataSubject> {
-    return subjectOf(userId, await this.liveAccount(trx, userId).first('id', 'email', 'email_verified_at'));
+    return subjectOf(userId, await this.users.live(trx, userId));
   }
 
   /** The same, with the account row locked for its deletion, so nothing else writes it meanwhile. */
   private async lockSubject(trx: Knex.Transaction, userId: number): Promise<DataSubject> {
-    return subjectOf(userId, await this.liveAccount(trx, userId).forUpdate().first('id', 'email', 'email_verified_at'));
-  }
-
-  private liveAccount(trx: Knex.Transaction, userId: number) {
-    return trx('users').where('id', userId).whereNull('deleted_at');
+    return subjectOf(userId, await this.users.lockLive(trx, userId));
   }
 
   /**
@@ -105,13 +101,8 @@ export class PersonalDataService {
    * first gone: the club always keeps one admin.
    */
   private async refuseLastAdmin(trx: Knex.Transaction, userId: number): Promise<void> {
-    const admins: { id: number }[] = await trx('users')
-      .whereRaw("'admin' = ANY(roles)")
-      .whereNull('deleted_at')
-      .orderBy('id')
-      .forUpdate()
-      .select('id');
-    if (admins.some((a) => a.id === userId) && admins.length === 1) {
+    const admins = await this.users.lockAdmins(trx);
+    if (admins.includes(userId) && admins.length === 1) {
       throw conflict('last_admin', 'You are the only admin. Make someone else an admin before deleting your account.');
     }
   }

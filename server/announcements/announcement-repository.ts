@@ -47,6 +47,12 @@ export class AnnouncementRepository {
     return created;
   }
 
+  /** Records a run's drop notice; null when the run already has one (another process got there first). */
+  async insertDropNotice(trx: Knex.Transaction, row: Partial<AnnouncementRow>): Promise<AnnouncementRow | null> {
+    const inserted = await trx('announcements').insert(row).onConflict('run_id').ignore().returning('*');
+    return (inserted[0] as AnnouncementRow | undefined) ?? null;
+  }
+
   /** An announcement by id. */
   byId(id: number, trx: Knex | Knex.Transaction = this.db): Promise<AnnouncementRow | undefined> {
     return trx('announcements').where('id', id).first();

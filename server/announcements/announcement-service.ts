@@ -136,22 +136,17 @@ export class AnnouncementService {
     for (const run of await this.repo.openedRunsWithoutNotice(this.clock.now())) {
       await this.db.transaction(async (trx) => {
         const closes = dateInZone(new Date(run.closes_at), this.site.timeZone);
-        const inserted = await trx('announcements')
-          .insert({
-            kind: 'drop_notice',
-            topic: 'drops',
-            subject: `${run.product_name}: ${run.run_name} is open`,
-            markdown: `**${run.product_name}** has a new run, **${run.run_name}**, open until ${closes} or until it sells out.\n\n[See it in the shop](${this.site.publicUrl}/shop/p/${run.slug})`,
-            status: 'sending',
-            product_id: run.product_id,
-            run_id: run.run_id,
-            sent_at: this.clock.now(),
-          })
-          .onConflict('run_id')
-          .ignore()
-          .returning('*');
-        if (inserted.length === 0) return;
-        const notice = inserted[0] as AnnouncementRow;
+        const notice = await this.repo.insertDropNotice(trx, {
+          kind: 'drop_notice',
+          topic: 'drops',
+          subject: `${run.product_name}: ${run.run_name} is open`,
+          markdown: `**${run.product_name}** has a new run, **${run.run_name}**, open until ${closes} or until it sells out.\n\n[See it in the shop](${this.site.publicUrl}/shop/p/${run.slug})`,
+          status: 'sending',
+          product_id: run.product_id,
+          run_id: run.run_id,
+          sent_at: this.clock.now(),
+        });
+        if (!notice) return;
         const { queued, suppressed } = await this.queue(
           trx,
           notice,

@@ -11,6 +11,7 @@ import { burnVerifyTime, hashPassword, verifyPassword } from './password-hash';
 import { passwordProblem } from './password-policy';
 import { SignInGuard } from './sign-in-guard';
 import { hashToken, newToken } from './single-use-token';
+import { AuthTokenRepository, type TokenPurpose } from './auth-token-repository';
 import { toSessionUser, UserRepository } from './user-repository';
 
 const VERIFY_TTL_HOURS = 48;
@@ -19,6 +20,7 @@ const RESET_TTL_HOURS = 1;
 /** Registration, sign-in checks, e-mail verification and password resets. No HTTP here. */
 export class AuthService {
   readonly users: UserRepository;
+  private readonly tokens: AuthTokenRepository;
   /** Sign-in failures per account and address, per address, and per account (see lockout-policy.ts). */
   readonly signInGuard: SignInGuard;
   /** Registration and reset work runs after the answer, so an existing account answers like a new one, as fast. */
@@ -37,6 +39,7 @@ export class AuthService {
     log: Pick<Logger, 'error'>,
   ) {
     this.users = new UserRepository(db);
+    this.tokens = new AuthTokenRepository();
     this.signInGuard = new SignInGuard(db, clock);
     this.afterAnswer = new AfterAnswer(log);
     this.registerPerAddress = new FailureLimiter(db, 'register-address', 3, 3600);
@@ -152,15 +155,12 @@ export class AuthService {
     await this.resetRequests.fail(key);
     const { token, hash } = newToken();
     await this.db.transaction(async (trx) => {
-      await trx('auth_tokens')
-        .where({ user_id: row.id, purpose: 'password_reset' })
-        .whereNull('used_at')
-        .update({ used_at: this.clock.now() });
-      await trx('auth_tokens').insert({
-        user_id: row.id,
+      await this.tokens.retire(trx, row.id, 'password_reset', this.clock.now());
+      await this.tokens.insert(trx, {
+        userId: row.id,
         purpose: 'password_reset',
-        token_hash: hash,
-        expires_at: this.hoursFromNow(RESET_TTL_HOURS),
+        hash,
+        expiresAt: this.hoursFromNow(RESET_TTL_HOURS),
       });
       await enqueueEmail(
         trx,
@@ -180,7 +180,7 @@ export class AuthService {
         password_hash: await hashPassword(password),
         email_verified_at: row.email_verified_at ?? this.clock.now(),
       });
-      await this.endSessions(trx, userId);
+      await this.tokens.endSessions(trx, userId);
       await enqueueEmail(trx, passwordChangedEmail(row.email, row.display_name));
       return row.email;
     });
@@ -198,7 +198,7 @@ export class AuthService {
     if (problem) throw badRequest('Choose a different password.', { newPassword: problem });
     await this.db.transaction(async (trx) => {
       await this.users.update(trx, userId, { password_hash: await hashPassword(next) });
-      await this.endSessions(trx, userId, keepSessionId);
+      await this.tokens.endSessions(trx, userId, keepSessionId);
       await enqueueEmail(trx, passwordChangedEmail(row.email, row.display_name));
     });
   }
@@ -215,41 +215,25 @@ export class AuthService {
     return toSessionUser(row!);
   }
 
-  /** Signs the user out everywhere except `keepSessionId` (sessions are stored as JSON with passport.user). */
-  private async endSessions(trx: Knex.Transaction, userId: number, keepSessionId?: string): Promise<void> {
-    await trx('session')
-      .whereRaw(`(sess->'passport'->>'user') = ?`, [String(userId)])
-      .modify((q) => keepSessionId && q.whereNot('sid', keepSessionId))
-      .delete();
-  }
-
-  private async queueVerification(
-    trx: Knex.Transaction,
-    userId: string | number,
-    email: string,
-    name: string,
-  ): Promise<void> {
+  private async queueVerification(trx: Knex.Transaction, userId: number, email: string, name: string): Promise<void> {
     const { token, hash } = newToken();
-    await trx('auth_tokens').insert({
-      user_id: userId,
+    await this.tokens.insert(trx, {
+      userId,
       purpose: 'verify_email',
-      token_hash: hash,
-      expires_at: this.hoursFromNow(VERIFY_TTL_HOURS),
+      hash,
+      expiresAt: this.hoursFromNow(VERIFY_TTL_HOURS),
     });
     await enqueueEmail(trx, verificationEmail(email, name, `${this.publicUrl}/account/verify?token=${token}`));
   }
 
-  private async consumeToken(trx: Knex.Transaction, token: string, purpose: string): Promise<number> {
-    const row = await trx('auth_tokens')
-      .where({ token_hash: hashToken(token), purpose })
-      .forUpdate()
-      .first();
+  private async consumeToken(trx: Knex.Transaction, token: string, purpose: TokenPurpose): Promise<number> {
+    const row = await this.tokens.lockByHash(trx, hashToken(token), purpose);
     if (!row || row.used_at || new Date(row.expires_at) <= this.clock.now()) {
       throw badRequest('This link has expired or was already used. Ask for a new one.', {
         token: 'Expired or already used.',
       });
     }
-    await trx('auth_tokens').where('id', row.id).update({ used_at: this.clock.now() });
+    await this.tokens.markUsed(trx, row.id, this.clock.now());
     return row.user_id;
   }
 

@@ -28,6 +28,9 @@ export function toSessionUser(row: UserRow): SessionUser {
   };
 }
 
+/** What a person's download and deletion need of their account. */
+type LiveAccount = Pick<UserRow, 'id' | 'email' | 'email_verified_at'>;
+
 /** Plain reads and writes of `users`. */
 export class UserRepository {
   constructor(private readonly db: Knex) {}
@@ -74,6 +77,21 @@ export class UserRepository {
       .update({ ...patch, updated_at: trx.fn.now() as unknown as Date })
       .returning('*');
     return row;
+  }
+
+  /** The account's address and verification, if it is not deleted. */
+  async live(trx: Knex.Transaction, id: number): Promise<LiveAccount | undefined> {
+    return trx('users').where('id', id).whereNull('deleted_at').first('id', 'email', 'email_verified_at');
+  }
+
+  /** The same, with the row locked for the transaction (an account's deletion), so nothing else writes it. */
+  async lockLive(trx: Knex.Transaction, id: number): Promise<LiveAccount | undefined> {
+    return trx('users').where('id', id).whereNull('deleted_at').forUpdate().first('id', 'email', 'email_verified_at');
+  }
+
+  /** The ids of every live admin, locked in id order so two admins deleting themselves at once take turns. */
+  async lockAdmins(trx: Knex.Transaction): Promise<number[]> {
+    return trx('users').whereRaw("'admin' = ANY(roles)").whereNull('deleted_at').orderBy('id').forUpdate().pluck('id');
   }
 
   /**

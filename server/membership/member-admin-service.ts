@@ -115,7 +115,7 @@ export class MemberAdminService {
       await this.paymentRepo.payments(id),
       await this.repo.audit(id),
     ];
-    const user = await this.db('users').where('id', m.user_id).first('email', 'marketing_opt_out');
+    const user = await this.repo.accountOf(m.user_id);
     return {
       member: {
         ...membershipView(m, plan, this.today(), termPolicy(s), s),

@@ -138,6 +138,11 @@ export class MembershipRepository {
     return trx<MembershipRow>('memberships').where('id', id).forUpdate().first();
   }
 
+  /** The member's account address and marketing choice, for the staff's member page. */
+  async accountOf(userId: number): Promise<{ email: string; marketing_opt_out: boolean } | undefined> {
+    return this.db('users').where('id', userId).first('email', 'marketing_opt_out');
+  }
+
   /** Display names of staff by id (who verified a record). */
   async userNames(ids: (number | null)[], db: Db = this.db): Promise<Map<number, string>> {
     const wanted = [...new Set(ids.filter((i): i is number => i !== null))];

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { z } from 'zod';
 import type { DatabaseNotifications } from '../platform/database-notifications';
 import { ALWAYS, NotifiedCache } from '../platform/notified-cache';
+import { SettingsRepository } from './settings-repository';
 
 /**
  * Typed settings kept as JSON rows. Each feature declares its key, schema and default beside its own code,
@@ -22,12 +23,14 @@ export function defineSetting<T>(key: string, schema: z.ZodType<T>, defaults: T)
 export class SettingsService {
   /** Parsed settings by key, dropped by any commit to the table (the `settings` trigger); a checkout reads four. */
   private readonly cache: NotifiedCache<unknown> | null;
+  private readonly repo: SettingsRepository;
 
   constructor(
     private readonly db: Knex,
     notifications?: DatabaseNotifications,
   ) {
     this.cache = notifications ? new NotifiedCache(notifications, 'settings') : null;
+    this.repo = new SettingsRepository(db);
   }
 
   /**
@@ -45,20 +48,17 @@ export class SettingsService {
   }
 
   private async read<T>(def: SettingDefinition<T>, db: Knex | Knex.Transaction): Promise<T> {
-    const row = await db('settings').where('key', def.key).first();
-    if (!row) return def.defaults;
+    const stored = await this.repo.value(def.key, db);
+    if (stored === undefined) return def.defaults;
     const merged =
-      typeof def.defaults === 'object' && def.defaults !== null ? { ...def.defaults, ...row.value } : row.value;
+      typeof def.defaults === 'object' && def.defaults !== null ? { ...def.defaults, ...(stored as object) } : stored;
     return def.schema.parse(merged);
   }
 
   /** Validates a value against its schema and stores it as the whole setting; the trigger then drops every process's cached copy. */
   async put<T>(def: SettingDefinition<T>, value: T, trx: Knex | Knex.Transaction = this.db): Promise<T> {
     const parsed = def.schema.parse(value);
-    await trx('settings')
-      .insert({ key: def.key, value: JSON.stringify(parsed), updated_at: trx.fn.now() })
-      .onConflict('key')
-      .merge();
+    await this.repo.save(trx, def.key, parsed);
     return parsed;
   }
 }

@@ -190,6 +190,11 @@ export class SponsorRepository {
     return row.id;
   }
 
+  /** An agreement, locked for the transaction, so two staff changing it take turns. */
+  async lockAgreement(trx: Knex.Transaction, id: number): Promise<AgreementRow | undefined> {
+    return trx<AgreementRow>('sponsor_agreements').where('id', id).forUpdate().first();
+  }
+
   /** Sets how an agreement is taxed. */
   async setTaxTreatment(
     trx: Knex.Transaction,

@@ -9,7 +9,7 @@ import type { SettingsService } from '../settings/settings-service';
 import type { Province } from '../shop/tax';
 import type { CreditService } from './credit-service';
 import { ledgerLines, nextDue, summaryByKind, type DeliverableKind } from './sponsor-ledger';
-import type { AgreementRow, SponsorRepository } from './sponsor-repository';
+import type { SponsorRepository } from './sponsor-repository';
 import type { TaxTreatment } from './sponsor-tax';
 import type { SponsorTaxService } from './sponsor-tax-service';
 import type { StoredImage } from '../uploads/image-uploads';
@@ -132,7 +132,7 @@ export class SponsorService {
     at: Date,
   ): Promise<{ movementId: number | null }> {
     return this.db.transaction(async (trx) => {
-      const a = await trx<AgreementRow>('sponsor_agreements').where('id', agreementId).forUpdate().first();
+      const a = await this.repo.lockAgreement(trx, agreementId);
       if (!a) throw notFound('No such agreement.');
       if (a.cash_movement_id !== null || a.cash_received_on !== null)
         throw conflict('cash_already_received', 'The cash for this agreement is already recorded as received.');

@@ -77,7 +77,7 @@ export class SponsorTaxService {
         province: 'Promotion is taxed at the rate of the sponsor’s province.',
       });
     return this.db.transaction(async (trx) => {
-      const a = await trx<AgreementRow>('sponsor_agreements').where('id', agreementId).forUpdate().first();
+      const a = await this.repo.lockAgreement(trx, agreementId);
       if (!a) throw notFound('No such agreement.');
       if (a.cash_movement_id !== null || a.cash_received_on !== null) {
         throw conflict(

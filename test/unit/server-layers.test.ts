@@ -71,6 +71,18 @@ describe('server layers', () => {
     expect(listed(bad)).toEqual([]);
   });
 
+  it('keeps SQL in repositories: no service names a table or runs raw SQL', () => {
+    const sql = /\b(?:trx|db)(?:<[^>]*>)?\(\s*['"`]|\.(?:raw|whereRaw|fromRaw|joinRaw)\(/;
+    const bad = tsFiles('server')
+      .filter((f) => f.endsWith('-service.ts'))
+      .flatMap((file) =>
+        readFileSync(path.join(root, file), 'utf8')
+          .split('\n')
+          .flatMap((line, i) => (sql.test(line) ? [`${file}:${i + 1}: ${line.trim()}`] : [])),
+      );
+    expect(bad).toEqual([]);
+  });
+
   it('lets no repository import a service', () => {
     const bad = server.filter(
       (i) => i.file.endsWith('-repository.ts') && i.target !== null && i.target.endsWith('-service'),
