@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import QRCode from 'qrcode';
+import type { MemberCard, Membership } from '../../contracts/membership/membership-answers';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
 import type { ClubCalendar } from '../platform/club-calendar';
@@ -44,7 +45,7 @@ export class MemberRecordService {
   }
 
   /** The caller's membership; the stored status and role catch up with the dates on the way. */
-  async me(userId: number) {
+  async me(userId: number): Promise<{ membership: Membership }> {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const policy = termPolicy(s);
     const today = this.today();
@@ -106,7 +107,7 @@ export class MemberRecordService {
   }
 
   /** The printable card: who, number, plan, term end, certification and the signed check-in token as a QR code. */
-  async card(userId: number) {
+  async card(userId: number): Promise<{ card: MemberCard }> {
     const { membership } = await this.me(userId);
     if (membership.status === 'pending')
       throw conflict('membership_pending', 'Your card is ready once your first payment has gone through.');

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { DuesQuote, Membership, MembershipPolicy, Plan } from '../../contracts/membership/membership-answers';
 import { AppError, badRequest, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
 import type { ClubCalendar } from '../platform/club-calendar';
@@ -90,12 +91,12 @@ export class MembershipService {
   }
 
   /** The plans a visitor can join or renew on now. */
-  async plans() {
+  async plans(): Promise<{ items: Plan[] }> {
     return { items: (await this.planRepo.offeredPlans()).map(planView) };
   }
 
   /** What the join form shows: the waiver, versions, certification levels and the term rule. */
-  async policy() {
+  async policy(): Promise<MembershipPolicy> {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     return {
       termRule: s.termRule,
@@ -111,7 +112,7 @@ export class MembershipService {
   }
 
   /** Price and term of paying for a plan on `on` (default today), as a renewal if the caller already has a term. */
-  async quote(userId: number | null, planId: number, on?: string) {
+  async quote(userId: number | null, planId: number, on?: string): Promise<DuesQuote> {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const plan = await this.activePlan(planId);
     const m = userId ? await this.repo.byUser(userId) : undefined;
@@ -127,7 +128,7 @@ export class MembershipService {
   }
 
   /** Records the new member's profile and charges the first dues; the membership stays pending until the card goes through. */
-  async join(user: SessionUser, input: JoinInput) {
+  async join(user: SessionUser, input: JoinInput): Promise<{ membership: Membership }> {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const policy = termPolicy(s);
     const plan = await this.activePlan(input.planId);
@@ -211,7 +212,7 @@ export class MembershipService {
   }
 
   /** Charges the next term's dues, priced from the locked membership so a second click cannot buy the year after. */
-  async renew(user: SessionUser, input: RenewInput) {
+  async renew(user: SessionUser, input: RenewInput): Promise<{ membership: Membership }> {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const policy = termPolicy(s);
     const m = await this.repo.byUser(user.id);

@@ -1,10 +1,11 @@
+import type { Membership, Plan } from '../../contracts/membership/membership-answers';
 import { type MembershipRow, type PaymentRow, type PlanRow, type RosterRow } from './membership-repository';
 import type { MembershipSettings } from './membership-settings';
 import { associationVerification, certificationVerification } from './flying-status';
 import { addDays, renewalOpensOn, statusOn, type MembershipStatus, type TermPolicy } from './terms';
 
 /** A plan as the API shows it. */
-export function planView(p: PlanRow) {
+export function planView(p: PlanRow): Plan {
   return {
     id: p.id,
     code: p.code,
@@ -30,7 +31,7 @@ export function membershipView(
   today: string,
   policy: TermPolicy,
   s: MembershipSettings,
-) {
+): Membership {
   const termEnd = m.term_end;
   return {
     id: m.id,
@@ -54,12 +55,12 @@ export function membershipView(
     certificationLevel: m.certification_level,
     certificationDate: m.certification_date,
     // Claims until staff have seen the card or certificate; a changed value is a claim again.
-    associationVerifiedAt: associationVerification(m)?.at ?? null,
-    certificationVerifiedAt: certificationVerification(m)?.at ?? null,
+    associationVerifiedAt: associationVerification(m)?.at.toISOString() ?? null,
+    certificationVerifiedAt: certificationVerification(m)?.at.toISOString() ?? null,
     waiverVersion: m.waiver_version,
-    waiverAcceptedAt: m.waiver_accepted_at,
+    waiverAcceptedAt: m.waiver_accepted_at.toISOString(),
     safetyCodeVersion: m.safety_code_version,
-    safetyCodeAcceptedAt: m.safety_code_accepted_at,
+    safetyCodeAcceptedAt: m.safety_code_accepted_at.toISOString(),
     waiverCurrent: m.waiver_version === s.waiverVersion && m.safety_code_version === s.safetyCodeVersion,
     autoRenew: m.auto_renew,
     hasSavedCard: m.processor_customer_id !== null,

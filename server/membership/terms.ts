@@ -3,8 +3,10 @@
  * and "today" is always passed in.
  */
 
+import type { MembershipStatus } from '../../contracts/membership/membership-answers';
+
+export type { MembershipStatus };
 export type TermRule = 'calendar' | 'anniversary';
-export type MembershipStatus = 'pending' | 'active' | 'lapsing' | 'lapsed';
 
 /** The club's term settings that the arithmetic needs. */
 export interface TermPolicy {

@@ -6,7 +6,7 @@ import { CardEntryApi, type CardEntry } from '../shared/card-entry';
 import { STRIPE_JS } from '../shared/stripe-card';
 import { TEST_CARDS } from '../shared/test-cards';
 import { CardChoice, NEW_CARD, savedCardText } from './card-choice';
-import type { SavedCard } from './membership-api';
+import type { SavedCard } from '@contracts/membership/membership-answers';
 
 @Component({
   imports: [CardChoice],

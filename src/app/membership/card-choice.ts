@@ -17,7 +17,7 @@ import { CardEntryApi } from '../shared/card-entry';
 import { FieldErrorPipe } from '../shared/field-error-pipe';
 import { StripeCard } from '../shared/stripe-card';
 import { TEST_CARDS } from '../shared/test-cards';
-import type { SavedCard } from './membership-api';
+import type { SavedCard } from '@contracts/membership/membership-answers';
 
 /** The control value for "the card typed into the processor's frame"; swapped for a token when paying. */
 export const NEW_CARD = 'new-card';

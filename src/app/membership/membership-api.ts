@@ -1,91 +1,15 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
+import type {
+  DuesQuote,
+  MemberCard,
+  Membership,
+  MembershipPolicy,
+  Plan,
+} from '@contracts/membership/membership-answers';
 import type { AutoRenewInput, JoinInput, ProfileEditInput, RenewInput } from '@contracts/membership/membership-schemas';
 import { QUIET_ERRORS } from '../core/error-interceptor';
-
-export type MembershipStatus = 'pending' | 'active' | 'lapsing' | 'lapsed';
-
-export interface Plan {
-  id: number;
-  code: string;
-  name: string;
-  description: string;
-  eligibility: 'any' | 'junior' | 'family';
-  duesCents: number;
-  joiningFeeCents: number;
-}
-
-export interface MembershipPolicy {
-  termRule: 'calendar' | 'anniversary';
-  lateSeasonFrom: string;
-  graceDays: number;
-  waiverVersion: string;
-  waiverText: string;
-  safetyCodeVersion: string;
-  associationName: string;
-  certificationLevels: { code: string; label: string }[];
-}
-
-export interface Quote {
-  amountCents: number;
-  duesCents: number;
-  joiningFeeCents: number;
-  termStart: string;
-  termEnd: string;
-  renewal: boolean;
-}
-
-export interface Membership {
-  memberNumber: string;
-  status: MembershipStatus;
-  termStart: string | null;
-  termEnd: string | null;
-  graceEnds: string | null;
-  /** The first day the next term can be paid; before it the member is already paid a term ahead. */
-  renewalOpensOn: string | null;
-  /** Whether the next term can be paid today (the club's today, so the server says). */
-  renewalOpen: boolean;
-  planId: number;
-  planName: string | null;
-  legalName: string;
-  associationNumber: string | null;
-  associationExpires: string | null;
-  certificationLevel: string;
-  certificationDate: string | null;
-  /** When club staff checked the association card or the certificate; null while the value is the member's own word. */
-  associationVerifiedAt: string | null;
-  certificationVerifiedAt: string | null;
-  waiverCurrent: boolean;
-  autoRenew: boolean;
-  hasSavedCard: boolean;
-  /** The card on file as the processor named it; null when none is, or it was saved before brands were kept. */
-  savedCard: SavedCard | null;
-  renewalFailed: boolean;
-}
-
-/** Brand and last four digits of the card kept with the processor. */
-export interface SavedCard {
-  brand: string;
-  last4: string;
-}
-
-export interface MemberCard {
-  name: string;
-  memberNumber: string;
-  planName: string | null;
-  status: MembershipStatus;
-  termEnd: string | null;
-  certificationLevel: string;
-  certificationLabel: string;
-  associationName: string;
-  associationNumber: string | null;
-  associationExpires: string | null;
-  associationVerified: boolean;
-  certificationVerified: boolean;
-  token: string;
-  qrSvg: string;
-}
 
 // Form errors are shown beside the fields, so these calls skip the global snack bar.
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
@@ -106,8 +30,8 @@ export class MembershipApi {
   }
 
   /** What joining on a plan costs today (dues, joining fee, insurance). */
-  quote(planId: number): Observable<Quote> {
-    return this.http.post<Quote>('/api/membership/quote', { planId }, quiet());
+  quote(planId: number): Observable<DuesQuote> {
+    return this.http.post<DuesQuote>('/api/membership/quote', { planId }, quiet());
   }
 
   /** The caller's membership; null before they join. */

@@ -4,7 +4,7 @@ import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
 import type { MembershipSettings } from '@contracts/membership/club-rules-schemas';
 import type { RosterFormQuery, RosterMailPurpose } from '@contracts/membership/roster-schemas';
-import type { MembershipStatus, Plan } from '../../membership/membership-api';
+import type { MembershipStatus, Plan } from '@contracts/membership/membership-answers';
 
 export interface RosterLine {
   id: number;
