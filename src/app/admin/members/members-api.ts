@@ -4,7 +4,8 @@ import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
 import type { MembershipSettings } from '@contracts/membership/club-rules-schemas';
 import type { RosterFormQuery, RosterMailPurpose } from '@contracts/membership/roster-schemas';
-import type { MembershipStatus, Plan } from '@contracts/membership/membership-answers';
+import type { CheckedBy } from '@contracts/membership/check-in-answers';
+import type { Membership, MembershipStatus, Plan } from '@contracts/membership/membership-answers';
 
 export interface RosterLine {
   id: number;
@@ -41,11 +42,7 @@ export interface PaymentLine {
 export type VerifiedPart = 'association' | 'certification';
 
 /** A staff check of a member's claim: when, by whom and against what. */
-export interface Verification {
-  at: string;
-  by: string | null;
-  against: string;
-}
+export type Verification = CheckedBy;
 
 /** What staff send to mark a claim checked: the document, and the values they saw. */
 export interface VerifyRequest {
@@ -57,28 +54,8 @@ export interface VerifyRequest {
 }
 
 export interface MemberDetail {
-  member: {
-    id: number;
-    memberNumber: string;
-    status: MembershipStatus;
-    legalName: string;
-    email: string | null;
-    planName: string | null;
-    termStart: string | null;
-    termEnd: string | null;
-    dateOfBirth: string;
-    address: string;
-    phone: string;
-    emergencyContact: string;
-    associationNumber: string | null;
-    associationExpires: string | null;
-    certificationLevel: string;
-    certificationDate: string | null;
-    waiverVersion: string;
-    waiverAcceptedAt: string;
-    autoRenew: boolean;
-    mailOptOut: boolean;
-  };
+  /** The membership as its member sees it, with the account's address and marketing choice for staff. */
+  member: Omit<Membership, 'familyMembers'> & { email: string | null; mailOptOut: boolean };
   /** Staff checks of the association and certification claims; null while a value is the member's own word. */
   verifications: Record<VerifiedPart, Verification | null>;
   familyMembers: { name: string; dateOfBirth: string }[];
@@ -91,8 +68,8 @@ export interface DuesSummary {
   byStatus: Record<MembershipStatus, number>;
 }
 
-/** A plan as staff see it, switched-off ones included. */
-export type AdminPlan = Plan & { active: boolean; sortOrder: number };
+/** A plan as staff see it, switched-off ones included (the same shape the members' list sends). */
+export type AdminPlan = Plan;
 
 /** What staff may change on a plan; the code and who may hold it are fixed once members can hold it. */
 export type PlanChanges = Pick<
