@@ -4,6 +4,8 @@ import { fields, parse } from '../platform/validate';
 import { requireRole } from '../platform/require-role';
 import type { DuesRefunds } from './dues-refunds';
 import type { MemberAdminService } from './member-admin-service';
+import type { PlanAdminService } from './plan-admin-service';
+import type { RosterMailService } from './roster-mail-service';
 import type { FlyingStatusService } from './flying-status-service';
 import { RosterEmailBody, RosterQuerySchema, type RosterQuery } from '../../contracts/membership/roster-schemas';
 import { MembershipSettingsInputSchema } from '../../contracts/membership/club-rules-schemas';
@@ -100,6 +102,8 @@ const VerifySchema = z.strictObject({
 /** The treasurer's console: roster, member records, payments, refunds, summary, roster e-mail, plans, settings. */
 export function memberAdminRoutes(
   service: MemberAdminService,
+  plans: PlanAdminService,
+  rosterMail: RosterMailService,
   refunds: DuesRefunds,
   flying: FlyingStatusService,
 ): Router {
@@ -123,23 +127,23 @@ export function memberAdminRoutes(
   r.post('/email', async function emailRoster(req, res) {
     const body = parse(RosterEmailBody, req.body);
     const { page: _page, pageSize: _pageSize, ...filters } = body.filters;
-    res.json(await service.emailRoster(filters, { subject: body.subject, text: body.text }, body.purpose));
+    res.json(await rosterMail.emailRoster(filters, { subject: body.subject, text: body.text }, body.purpose));
   });
   r.get('/plans', async function listPlans(_req, res) {
-    res.json(await service.plans());
+    res.json(await plans.plans());
   });
   r.post('/plans', async function createPlan(req, res) {
-    res.status(201).json(await service.createPlan(parse(NewPlanSchema, req.body)));
+    res.status(201).json(await plans.createPlan(parse(NewPlanSchema, req.body)));
   });
   r.patch('/plans/:id', async function updatePlan(req, res) {
     const { id } = parse(IdParams, req.params);
-    res.json(await service.updatePlan(id, parse(PlanFields.partial(), req.body)));
+    res.json(await plans.updatePlan(id, parse(PlanFields.partial(), req.body)));
   });
   r.get('/settings', async function showSettings(_req, res) {
-    res.json(await service.getSettings());
+    res.json(await plans.getSettings());
   });
   r.put('/settings', async function saveSettings(req, res) {
-    res.json(await service.putSettings(parse(MembershipSettingsInputSchema, req.body)));
+    res.json(await plans.putSettings(parse(MembershipSettingsInputSchema, req.body)));
   });
   r.get('/:id', async function showMember(req, res) {
     const { id } = parse(IdParams, req.params);

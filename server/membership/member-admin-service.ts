@@ -1,20 +1,16 @@
-import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
-import type { CommercialMailer } from '../announcements/commercial-mailer';
-import { impliedConsentHolds } from '../announcements/implied-consent';
-import { enqueueEmail } from '../mail/outbox';
 import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
 import type { ClubCalendar } from '../platform/club-calendar';
 import type { SettingsService } from '../settings/settings-service';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import type { RosterQuery } from '../../contracts/membership/roster-schemas';
-import { type MembershipRepository, type AsOf, type PlanRow } from './membership-repository';
+import type { MembershipRepository, AsOf } from './membership-repository';
 import type { PlanRepository } from './plan-repository';
 import type { DuesPaymentRepository } from './dues-payment-repository';
 import type { RosterRepository } from './roster-repository';
-import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
-import { membershipView, paymentView, planView, rosterView } from './membership-views';
+import { MEMBERSHIP_SETTINGS } from './membership-settings';
+import { membershipView, paymentView, rosterView } from './membership-views';
 import { labelOf, yesNo } from '../../contracts/labels/label-of';
 import { MEMBERSHIP_STATUS_LABELS } from '../../contracts/labels/membership-statuses';
 import { toCsv } from '../platform/csv';
@@ -33,7 +29,8 @@ export interface MemberPatch {
   emergencyContact?: string;
 }
 
-/** The treasurer's side: roster, member detail, manual payments, refunds, summary, roster e-mail, plans. */
+/** The treasurer's side: roster, member detail, manual payments and summary (roster e-mail: roster-mail-service; plans and club rules:
+ * plan-admin-service). */
 export class MemberAdminService {
   constructor(
     private readonly db: Knex,
@@ -45,8 +42,6 @@ export class MemberAdminService {
     private readonly settlement: DuesSettlement,
     private readonly clock: Clock,
     private readonly calendar: ClubCalendar,
-    private readonly mailer: CommercialMailer,
-    private readonly clubName: string,
   ) {}
 
   private today(): string {
@@ -240,149 +235,5 @@ export class MemberAdminService {
   /** Members whose dues run out within `days`: active with the term ending by then, or already in grace. */
   async lapsingWithin(days: number): Promise<number> {
     return this.rosterRepo.countLapsingWithin(await this.asOf(), days);
-  }
-
-  /**
-   * An e-mail to the filtered roster. `news` is promotional, so it follows the consent rules: members who turned off
-   * news mail, whose membership ended more than two years ago (implied consent lapsed), or who are on the suppression
-   * list for club news are skipped, and each message carries the sender's address and the one-click stop link.
-   * `club-business` (dues, launches they replied to) is transactional: it goes to everyone matched and says why.
-   */
-  async emailRoster(
-    q: RosterQuery,
-    mail: { subject: string; text: string },
-    purpose: 'news' | 'club-business' = 'news',
-  ) {
-    const rows = await this.rosterRepo.rosterAll(q, await this.asOf());
-    const batch = randomUUID();
-    if (purpose === 'club-business') {
-      let queued = 0;
-      await this.db.transaction(async (trx) => {
-        for (const r of rows) {
-          if (
-            await enqueueEmail(trx, {
-              to: r.email,
-              subject: mail.subject,
-              text: `Hello ${r.legal_name},\n\n${mail.text}`,
-              template: 'membership-roster-business',
-              reason: { club: this.clubName },
-              dedupeKey: `membership-business:${batch}:${r.id}`,
-            })
-          )
-            queued++;
-        }
-      });
-      return { queued, skippedOptedOut: 0, skippedLapsedConsent: 0, skippedSuppressed: 0 };
-    }
-    const today = this.today();
-    const optedOut = rows.filter((r) => r.marketing_opt_out);
-    const consentHolds = (termEnd: string | null) => termEnd !== null && impliedConsentHolds(termEnd, today);
-    const lapsed = rows.filter((r) => !r.marketing_opt_out && !consentHolds(r.term_end));
-    const to = rows
-      .filter((r) => !optedOut.includes(r) && !lapsed.includes(r))
-      .map((r) => ({
-        email: r.email,
-        why: `you are or were a member of ${this.clubName}`,
-        id: r.id,
-        name: r.legal_name,
-      }));
-    const { queued, suppressed } = await this.db.transaction((trx) =>
-      this.mailer.queue(trx, 'club-news', to, (a) => ({
-        content: {
-          topic: 'club-news',
-          subject: mail.subject,
-          markdown: `Hello ${a.name},\n\n${mail.text}`,
-          template: 'membership-roster-news',
-        },
-        dedupeKey: `membership-news:${batch}:${a.id}`,
-      })),
-    );
-    return {
-      queued,
-      skippedOptedOut: optedOut.length,
-      skippedLapsedConsent: lapsed.length,
-      skippedSuppressed: suppressed,
-    };
-  }
-
-  /** Every plan, retired ones too, as the treasurer edits them. */
-  async plans() {
-    return { items: (await this.planRepo.allPlans()).map(planView) };
-  }
-
-  /** Plans are never deleted: payments and members point at them, so staff switch one off instead. */
-  async createPlan(input: {
-    code: string;
-    name: string;
-    description: string;
-    eligibility: PlanRow['eligibility'];
-    duesCents: number;
-    joiningFeeCents: number;
-    active: boolean;
-    sortOrder: number;
-  }) {
-    const taken = () =>
-      conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
-    if ((await this.planRepo.allPlans()).some((p) => p.code === input.code)) throw taken();
-    try {
-      const row = await this.planRepo.insertPlan(this.db, {
-        code: input.code,
-        name: input.name,
-        description: input.description,
-        eligibility: input.eligibility,
-        dues_cents: input.duesCents,
-        joining_fee_cents: input.joiningFeeCents,
-        active: input.active,
-        sort_order: input.sortOrder,
-      });
-      return { plan: planView(row) };
-    } catch (err) {
-      // Two staff adding the same code at once: the unique index decides.
-      if ((err as { code?: string }).code === '23505') throw taken();
-      throw err;
-    }
-  }
-
-  /** Changes the given fields of a plan; prices apply to payments from now on, never to terms already paid. */
-  async updatePlan(
-    id: number,
-    input: Partial<{
-      name: string;
-      description: string;
-      duesCents: number;
-      joiningFeeCents: number;
-      active: boolean;
-      sortOrder: number;
-    }>,
-  ) {
-    const row = await this.planRepo.updatePlan(this.db, id, {
-      ...(input.name !== undefined ? { name: input.name } : {}),
-      ...(input.description !== undefined ? { description: input.description } : {}),
-      ...(input.duesCents !== undefined ? { dues_cents: input.duesCents } : {}),
-      ...(input.joiningFeeCents !== undefined ? { joining_fee_cents: input.joiningFeeCents } : {}),
-      ...(input.active !== undefined ? { active: input.active } : {}),
-      ...(input.sortOrder !== undefined ? { sort_order: input.sortOrder } : {}),
-    });
-    if (!row) throw notFound('No such plan.');
-    return { plan: planView(row) };
-  }
-
-  /** The membership settings as stored, for the treasurer's settings form. */
-  async getSettings(): Promise<{ settings: MembershipSettings }> {
-    return { settings: await this.settings.get(MEMBERSHIP_SETTINGS) };
-  }
-
-  /** Saves the club rules; a certification level still on a member's record cannot leave the list. */
-  async putSettings(value: MembershipSettings): Promise<{ settings: MembershipSettings }> {
-    const held = await this.repo.levelsHeldOutside(value.certificationLevels.map((l) => l.code));
-    if (held.length) {
-      const list = held
-        .map((h) => `${h.certification_level} (${h.count} ${h.count === 1 ? 'member' : 'members'})`)
-        .join(', ');
-      throw conflict('level_in_use', `Members still hold ${list}. Change their records first, or keep the level.`, {
-        certificationLevels: `Still held: ${list}.`,
-      });
-    }
-    return { settings: await this.settings.put(MEMBERSHIP_SETTINGS, value) };
   }
 }

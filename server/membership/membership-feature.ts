@@ -8,6 +8,8 @@ import { DuesRefunds } from './dues-refunds';
 import { DuesSettlement } from './dues-settlement';
 import { memberAdminRoutes, checkInRoutes } from './member-admin-routes';
 import { MemberAdminService } from './member-admin-service';
+import { PlanAdminService } from './plan-admin-service';
+import { RosterMailService } from './roster-mail-service';
 import { MemberRecordService } from './member-record-service';
 import { FlyingStatusService } from './flying-status-service';
 import { MembershipJobs } from './membership-jobs';
@@ -53,6 +55,12 @@ export function membershipFeature(platform: Platform): Feature {
     settlement,
     clock,
     calendar,
+  );
+  const rosterMail = new RosterMailService(
+    db,
+    rosterRepo,
+    platform.settings,
+    calendar,
     commercialMailer(platform),
     config.site.clubName,
   );
@@ -83,7 +91,16 @@ export function membershipFeature(platform: Platform): Feature {
     name: 'membership',
     mount(api) {
       api('/membership', membershipRoutes(members, record, new PaymentThrottle(db)));
-      api('/admin/members', memberAdminRoutes(admin, refunds, flying));
+      api(
+        '/admin/members',
+        memberAdminRoutes(
+          admin,
+          new PlanAdminService(db, repo, planRepo, platform.settings),
+          rosterMail,
+          refunds,
+          flying,
+        ),
+      );
       api('/admin/checkin', checkInRoutes(flying));
     },
     dashboard: {
