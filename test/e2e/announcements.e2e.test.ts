@@ -179,7 +179,7 @@ describe('announcements on a phone', () => {
     expect(row).toEqual(
       expect.objectContaining({
         topic: 'drops',
-        product_id: String(shirt.id),
+        product_id: shirt.id,
         source_page: 'product',
         confirmed_at: null,
       }),
