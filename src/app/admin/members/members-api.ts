@@ -41,9 +41,6 @@ export interface PaymentLine {
 /** Which self-entered part of a record staff check. */
 export type VerifiedPart = 'association' | 'certification';
 
-/** A staff check of a member's claim: when, by whom and against what. */
-export type Verification = CheckedBy;
-
 /** What staff send to mark a claim checked: the document, and the values they saw. */
 export interface VerifyRequest {
   what: VerifiedPart;
@@ -57,7 +54,7 @@ export interface MemberDetail {
   /** The membership as its member sees it, with the account's address and marketing choice for staff. */
   member: Omit<Membership, 'familyMembers'> & { email: string | null; mailOptOut: boolean };
   /** Staff checks of the association and certification claims; null while a value is the member's own word. */
-  verifications: Record<VerifiedPart, Verification | null>;
+  verifications: Record<VerifiedPart, CheckedBy | null>;
   familyMembers: { name: string; dateOfBirth: string }[];
   payments: PaymentLine[];
   audit: { id: number; action: string; detail: Record<string, unknown>; actor: string | null; at: string }[];
@@ -68,20 +65,14 @@ export interface DuesSummary {
   byStatus: Record<MembershipStatus, number>;
 }
 
-/** A plan as staff see it, switched-off ones included (the same shape the members' list sends). */
-export type AdminPlan = Plan;
-
 /** What staff may change on a plan; the code and who may hold it are fixed once members can hold it. */
-export type PlanChanges = Pick<
-  AdminPlan,
-  'name' | 'description' | 'duesCents' | 'joiningFeeCents' | 'active' | 'sortOrder'
->;
+export type PlanChanges = Pick<Plan, 'name' | 'description' | 'duesCents' | 'joiningFeeCents' | 'active' | 'sortOrder'>;
 
 /** Who may hold a plan, as staff read it (the server checks junior ages and family members). */
 export { PLAN_ELIGIBILITY_LABELS as ELIGIBILITY_LABELS } from '@contracts/labels/membership-statuses';
 
 /** A new plan. */
-export type NewPlan = PlanChanges & Pick<AdminPlan, 'code' | 'eligibility'>;
+export type NewPlan = PlanChanges & Pick<Plan, 'code' | 'eligibility'>;
 
 /** Only the filters that are set, so URLs and the CSV link stay short. */
 export function filterParams(q: Partial<RosterFormQuery>): HttpParams {
@@ -172,17 +163,17 @@ export class MembersApi {
   }
 
   /** Every dues plan, switched off ones included. */
-  plans(): Observable<{ items: AdminPlan[] }> {
-    return this.http.get<{ items: AdminPlan[] }>('/api/admin/members/plans');
+  plans(): Observable<{ items: Plan[] }> {
+    return this.http.get<{ items: Plan[] }>('/api/admin/members/plans');
   }
 
   /** Adds a dues plan. */
-  createPlan(plan: NewPlan): Observable<{ plan: AdminPlan }> {
-    return this.http.post<{ plan: AdminPlan }>('/api/admin/members/plans', plan, quiet());
+  createPlan(plan: NewPlan): Observable<{ plan: Plan }> {
+    return this.http.post<{ plan: Plan }>('/api/admin/members/plans', plan, quiet());
   }
 
   /** Changes only the plan fields sent, so the rest stay as they were. */
-  updatePlan(id: number, patch: Partial<PlanChanges>): Observable<{ plan: AdminPlan }> {
-    return this.http.patch<{ plan: AdminPlan }>(`/api/admin/members/plans/${id}`, patch, quiet());
+  updatePlan(id: number, patch: Partial<PlanChanges>): Observable<{ plan: Plan }> {
+    return this.http.patch<{ plan: Plan }>(`/api/admin/members/plans/${id}`, patch, quiet());
   }
 }

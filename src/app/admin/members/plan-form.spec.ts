@@ -1,10 +1,10 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import type { AdminPlan } from './members-api';
+import type { Plan } from '@contracts/membership/membership-answers';
 import { PlanForm } from './plan-form';
 
-const junior: AdminPlan = {
+const junior: Plan = {
   id: 2,
   code: 'junior',
   name: 'Junior',
@@ -20,7 +20,7 @@ describe('PlanForm', () => {
   let fixture: ComponentFixture<PlanForm>;
   let http: HttpTestingController;
 
-  async function open(plan: AdminPlan | null): Promise<HTMLElement> {
+  async function open(plan: Plan | null): Promise<HTMLElement> {
     TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(PlanForm);
@@ -76,7 +76,7 @@ describe('PlanForm', () => {
       active: true,
       sortOrder: 4,
     });
-    const saved: AdminPlan[] = [];
+    const saved: Plan[] = [];
     fixture.componentInstance.saved.subscribe((p) => saved.push(p));
     req.flush({ plan: { ...req.request.body, id: 9 } });
     await settle();

@@ -22,7 +22,8 @@ import { MatSelectModule } from '@angular/material/select';
 import { applyServerErrors } from '../../core/api-error';
 import type { ApiErrorBody } from '../../core/user';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
-import { ELIGIBILITY_LABELS, MembersApi, type AdminPlan, type PlanChanges } from './members-api';
+import type { Plan } from '@contracts/membership/membership-answers';
+import { ELIGIBILITY_LABELS, MembersApi, type PlanChanges } from './members-api';
 import { centsToDollars, dollarsToCents } from '../../shared/dollars';
 
 // Six dollar digits stay under the server's cap on amounts.
@@ -54,20 +55,20 @@ export class PlanForm {
   private readonly fb = inject(NonNullableFormBuilder);
 
   /** The plan to edit; without one the form adds a plan. */
-  readonly plan = input<AdminPlan | null>(null);
+  readonly plan = input<Plan | null>(null);
   /** Where a new plan goes in the lists. */
   readonly nextSortOrder = input(0);
-  readonly saved = output<AdminPlan>();
+  readonly saved = output<Plan>();
   readonly cancelled = output<void>();
 
   protected readonly headingId = `plan-form-${++nextId}`;
-  protected readonly eligibilities = Object.keys(ELIGIBILITY_LABELS) as AdminPlan['eligibility'][];
+  protected readonly eligibilities = Object.keys(ELIGIBILITY_LABELS) as Plan['eligibility'][];
   protected readonly labels = ELIGIBILITY_LABELS;
   protected readonly form = this.fb.group({
     code: ['', [Validators.required, Validators.pattern(/^[a-z0-9-]{2,32}$/i)]],
     name: ['', [Validators.required, Validators.maxLength(80)]],
     description: ['', Validators.maxLength(400)],
-    eligibility: this.fb.control<AdminPlan['eligibility']>('any'),
+    eligibility: this.fb.control<Plan['eligibility']>('any'),
     dues: ['', [Validators.required, Validators.pattern(DOLLARS)]],
     joiningFee: ['0.00', [Validators.required, Validators.pattern(DOLLARS)]],
     active: [true],
@@ -89,7 +90,7 @@ export class PlanForm {
     });
   }
 
-  private load(p: AdminPlan | null): void {
+  private load(p: Plan | null): void {
     this.form.reset(
       p
         ? {

@@ -1,10 +1,10 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import type { AdminPlan } from './members-api';
+import type { Plan } from '@contracts/membership/membership-answers';
 import { PlanList } from './plan-list';
 
-const family: AdminPlan = {
+const family: Plan = {
   id: 3,
   code: 'family',
   name: 'Family',
@@ -19,7 +19,7 @@ const family: AdminPlan = {
 describe('PlanList', () => {
   beforeEach(() => TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] }));
 
-  async function show(items: AdminPlan[]): Promise<HTMLElement> {
+  async function show(items: Plan[]): Promise<HTMLElement> {
     const fixture = TestBed.createComponent(PlanList);
     TestBed.tick();
     TestBed.inject(HttpTestingController).expectOne('/api/admin/members/plans').flush({ items });
