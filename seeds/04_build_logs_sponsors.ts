@@ -7,10 +7,15 @@ import { PostRepository } from '../server/build-logs/post-repository';
 import { PostService } from '../server/build-logs/post-service';
 import { loadConfig, projectRoot } from '../server/config';
 import { SettingsService } from '../server/settings/settings-service';
+import { AgreementRepository } from '../server/sponsors/agreement-repository';
+import { AgreementService } from '../server/sponsors/agreement-service';
+import { CreditRepository } from '../server/sponsors/credit-repository';
 import { CreditService } from '../server/sponsors/credit-service';
 import { SponsorRepository } from '../server/sponsors/sponsor-repository';
 import { SponsorService } from '../server/sponsors/sponsor-service';
 import { SponsorTaxService } from '../server/sponsors/sponsor-tax-service';
+import { SponsorTierService } from '../server/sponsors/sponsor-tier-service';
+import { postTitles } from '../server/build-logs/build-logs-feature';
 import { ShopConfigRepository } from '../server/shop/shop-config-repository';
 
 /** The invented sponsors of Thrust & Filament, with their 2026 agreements. */
@@ -79,22 +84,28 @@ export async function seed(knex: Knex): Promise<void> {
   const config = loadConfig();
   const users = new UserRepository(knex);
   const sponsorRepo = new SponsorRepository(knex);
-  const credits = new CreditService(sponsorRepo, config.publicUrl, config.site.teamName);
+  const agreementRepo = new AgreementRepository(knex);
+  const creditRepo = new CreditRepository(knex);
+  const credits = new CreditService(creditRepo, sponsorRepo, agreementRepo, config.publicUrl, config.site.teamName);
   const settings = new SettingsService(knex);
   const sponsorTax = new SponsorTaxService(
     knex,
     sponsorRepo,
+    agreementRepo,
     settings,
     new ShopConfigRepository(knex),
     config.site.teamName,
   );
-  const sponsors = new SponsorService(knex, sponsorRepo, credits, users, settings, sponsorTax);
+  const titles = postTitles(knex);
+  const sponsors = new SponsorService(knex, sponsorRepo, creditRepo, credits, users, titles);
+  const tiers = new SponsorTierService(sponsorRepo, agreementRepo, settings, titles);
+  const agreements = new AgreementService(knex, sponsorRepo, agreementRepo, sponsorTax, tiers);
   const posts = new PostService(knex, new PostRepository(knex), sponsorRepo, credits);
 
   for (const s of SPONSORS) {
     if ((await sponsorRepo.all()).some((row) => row.name === s.name)) continue;
     const created = await sponsors.create({ name: s.name, website: s.website, blurb: s.blurb });
-    await sponsors.addAgreement(created.id, s.agreement);
+    await agreements.addAgreement(created.id, s.agreement);
     if (s.contact) await sponsors.addContact(created.id, { email: s.contact });
   }
 

@@ -1,7 +1,7 @@
 import { accountsFeature } from './account/accounts-feature';
 import { announcementsFeature } from './announcements/announcements-feature';
 import { membershipFeature } from './membership/membership-feature';
-import { buildLogsFeature } from './build-logs/build-logs-feature';
+import { buildLogsFeature, postTitles } from './build-logs/build-logs-feature';
 import { booksFeature } from './books/books-feature';
 import { launchesFeature } from './launches/launches-feature';
 import type { Feature, Platform } from './feature';
@@ -12,7 +12,8 @@ import { uploadsFeature } from './uploads/uploads-feature';
 
 /** Every feature of Padside, in mounting order. Add one line per feature. */
 export function buildFeatures(platform: Platform): Feature[] {
-  const sponsors = sponsorsFeature(platform);
+  // Each lends the other a narrow reader: the build logs their posts' titles, the sponsors their credits.
+  const sponsors = sponsorsFeature(platform, postTitles(platform.deps.db));
   const membership = membershipFeature(platform);
   // The shop receives the processor's events; refunds of other features' charges go to the feature that made them.
   const otherCharges = async (chargeId: string) => (await membership.chargeRefunds?.(chargeId)) ?? false;

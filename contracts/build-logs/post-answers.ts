@@ -77,3 +77,15 @@ export interface PostPreview {
   hazardNotice: boolean;
   unknownSponsors: string[];
 }
+
+/** POST /api/admin/posts and PUT /api/admin/posts/:id: the post's id and the address it is saved under. */
+export interface PostSaved {
+  id: number;
+  slug: string;
+}
+
+/** GET /api/posts/tags: a tag on published posts with how many carry it. */
+export interface TagCount {
+  tag: string;
+  count: number;
+}

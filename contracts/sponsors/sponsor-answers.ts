@@ -130,3 +130,43 @@ export interface TaxTreatmentAnswer {
   /** Only a promotion is taxed at a province's rate; a gift has none. */
   taxProvince: Province | null;
 }
+
+/** GET /api/sponsors (public): one sponsor with the tier it holds this season. */
+export interface SponsorListing {
+  id: number;
+  slug: string;
+  name: string;
+  tier: string | null;
+}
+
+/** POST /api/admin/sponsors: the new sponsor's id and the address made from its name. */
+export interface SponsorCreated {
+  id: number;
+  slug: string;
+}
+
+/** PUT /api/admin/sponsors/:id: the sponsor as saved. */
+export interface SponsorSaved {
+  sponsor: Sponsor;
+}
+
+/** POST /api/admin/sponsors/:id/agreements: the new agreement's id. */
+export interface AgreementCreated {
+  id: number;
+}
+
+/** POST /api/admin/sponsors/agreements/:agreementId/cash-received: the money movement booked for it (null if none). */
+export interface CashReceived {
+  movementId: number | null;
+}
+
+/** POST /api/admin/sponsors/:id/credits: the credit's id and whether it counted against one of the sponsor's promises. */
+export interface CreditRecorded {
+  id: number;
+  counted: boolean;
+}
+
+/** POST /api/admin/sponsors/:id/contacts: the account made a contact. */
+export interface ContactAdded {
+  userId: number;
+}

@@ -1,13 +1,13 @@
 import { Router } from 'express';
 import type { Feed } from 'feed';
 import { HAZARD_NOTICE } from './hazard-rule';
-import type { PostService } from './post-service';
+import type { PostReadService } from './post-read-service';
 
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** Builds the feed of the latest build logs; members-only posts carry their summary and a prompt only. */
-async function buildFeed(posts: PostService, publicUrl: string, teamName: string): Promise<Feed> {
+async function buildFeed(posts: PostReadService, publicUrl: string, teamName: string): Promise<Feed> {
   const items = await posts.feedItems(30);
   // feed 6 ships only ES modules; loading it on first use keeps every other route independent of it.
   const { Feed: FeedClass } = await import('feed');
@@ -44,7 +44,7 @@ async function buildFeed(posts: PostService, publicUrl: string, teamName: string
 }
 
 /** /feeds/build-logs.rss and /feeds/build-logs.atom, outside /api so feed readers get plain URLs. */
-export function feedRoutes(posts: PostService, publicUrl: string, teamName: string): Router {
+export function feedRoutes(posts: PostReadService, publicUrl: string, teamName: string): Router {
   const r = Router();
   r.get('/build-logs.rss', async function rssFeed(_req, res) {
     res.type('application/rss+xml; charset=utf-8').send((await buildFeed(posts, publicUrl, teamName)).rss2());

@@ -47,7 +47,7 @@ const columns = (p: PostWrite) => ({
   hazard_requested: p.hazardRequested,
 });
 
-/** Plain reads and writes of posts and the sponsors each credits. */
+/** Plain reads and writes of posts and the sponsors each thanks (`posts`, `post_credits`); sponsor names are the sponsors feature's. */
 export class PostRepository {
   constructor(private readonly db: Knex) {}
 
@@ -109,24 +109,34 @@ export class PostRepository {
       await trx('post_credits').insert(sponsorIds.map((sponsor_id) => ({ post_id: postId, sponsor_id })));
   }
 
-  /** Credited sponsors per post id. */
-  async creditsOf(
-    postIds: readonly number[],
-    trx: Db = this.db,
-  ): Promise<Map<number, { sponsorId: number; name: string; slug: string }[]>> {
-    const out = new Map<number, { sponsorId: number; name: string; slug: string }[]>();
+  /** The ids of the sponsors each of these posts credits, by post id (posts crediting none are left out). */
+  async creditedSponsorIds(postIds: readonly number[], trx: Db = this.db): Promise<Map<number, number[]>> {
+    const out = new Map<number, number[]>();
     if (!postIds.length) return out;
-    const rows = await trx('post_credits as pc')
-      .join('sponsors as s', 's.id', 'pc.sponsor_id')
-      .whereIn('pc.post_id', postIds)
-      .select('pc.post_id', 's.id', 's.name', 's.slug')
-      .orderBy('s.name');
-    for (const r of rows as { post_id: number; id: number; name: string; slug: string }[]) {
-      const list = out.get(r.post_id) ?? [];
-      list.push({ sponsorId: r.id, name: r.name, slug: r.slug });
-      out.set(r.post_id, list);
-    }
+    const rows: { post_id: number; sponsor_id: number }[] = await trx('post_credits')
+      .whereIn('post_id', postIds)
+      .select('post_id', 'sponsor_id');
+    for (const r of rows) out.set(Number(r.post_id), [...(out.get(Number(r.post_id)) ?? []), Number(r.sponsor_id)]);
     return out;
+  }
+
+  /** Published posts with the sponsor each credits, newest first, for the sponsors page. */
+  async publishedCredits(): Promise<{ sponsorId: number; slug: string; title: string }[]> {
+    const rows: { sponsor_id: number; slug: string; title: string }[] = await this.db('post_credits as pc')
+      .join('posts as p', 'p.id', 'pc.post_id')
+      .where('p.status', 'published')
+      .select('pc.sponsor_id', 'p.slug', 'p.title')
+      .orderBy('p.published_at', 'desc');
+    return rows.map((r) => ({ sponsorId: Number(r.sponsor_id), slug: r.slug, title: r.title }));
+  }
+
+  /** The address and title of each of these posts, whatever its state, by post id. */
+  async titlesByIds(ids: readonly number[]): Promise<Map<number, { slug: string; title: string }>> {
+    if (!ids.length) return new Map();
+    const rows: { id: number; slug: string; title: string }[] = await this.db('posts')
+      .whereIn('id', ids)
+      .select('id', 'slug', 'title');
+    return new Map(rows.map((r) => [Number(r.id), { slug: r.slug, title: r.title }]));
   }
 
   /** One page of published posts, newest first (id breaks ties so pages never overlap), with the total count. */

@@ -1,22 +1,13 @@
 import type { Knex } from 'knex';
-import type {
-  AdminPost,
-  AdminPostRow,
-  PostDetail,
-  PostPage,
-  PostPreview,
-  PostSummary,
-} from '../../contracts/build-logs/post-answers';
+import type { PostPreview, PostSaved } from '../../contracts/build-logs/post-answers';
 import { creditMarkers, creditMarkerSlugs, renderMarkdown } from '../markdown/render-markdown';
 import { badRequest, conflict, notFound } from '../platform/app-error';
-import type { Role } from '../platform/roles';
 import type { CreditService } from '../sponsors/credit-service';
 import type { SponsorRepository } from '../sponsors/sponsor-repository';
 import { needsHazardNotice } from './hazard-rule';
 import type { PostStatus } from '../../contracts/labels/post-states';
 import type { PostRepository, PostRow, PostWrite } from './post-repository';
 import { slugify, uniqueSlug } from '../platform/slug';
-import type { StoredImage } from '../uploads/image-uploads';
 
 /** What an editor sends to create or replace a post. */
 export interface PostInput {
@@ -33,23 +24,17 @@ export interface PostInput {
   hazardNotice?: boolean;
 }
 
-/** Roles that may read members-only bodies. */
-const BODY_READERS: readonly Role[] = ['member', 'editor', 'admin'];
-
-/** Posts: writing, publishing (with sponsor credits), scheduling and reading; no HTTP here. */
+/** Posts: writing, publishing (with sponsor credits), scheduling and the editor's preview; no HTTP here. */
 export class PostService {
   constructor(
     private readonly db: Knex,
     private readonly posts: PostRepository,
     private readonly sponsors: SponsorRepository,
     private readonly credits: CreditService,
-    /** Sizes and thumbnail of an uploaded cover, so the page can give it a srcset and reserve its space. */
-    private readonly describeImages: (urls: readonly string[]) => Promise<Map<string, StoredImage>> = async () =>
-      new Map(),
   ) {}
 
   /** Creates a post in one transaction with its address made unique from the title (or the one asked for, if free) and its sponsor credits recorded. */
-  async create(input: PostInput, authorId: number | null, now: Date): Promise<{ id: number; slug: string }> {
+  async create(input: PostInput, authorId: number | null, now: Date): Promise<PostSaved> {
     return this.db.transaction(async (trx) => {
       const slug =
         input.slug ?? uniqueSlug(slugify(input.title), await this.posts.slugsLike(slugify(input.title), trx));
@@ -71,7 +56,7 @@ export class PostService {
   }
 
   /** Replaces a post; setting the status back to draft unpublishes it and withdraws its credits. */
-  async update(id: number, input: PostInput, now: Date): Promise<{ id: number; slug: string }> {
+  async update(id: number, input: PostInput, now: Date): Promise<PostSaved> {
     return this.db.transaction(async (trx) => {
       const current = await this.posts.lockById(trx, id);
       if (!current) throw notFound('No such post.');
@@ -109,7 +94,7 @@ export class PostService {
           publishAt: p.publish_at,
           hazardNotice: p.hazard_requested,
         };
-        const sponsorIds = [...((await this.posts.creditsOf([p.id], trx)).get(p.id) ?? [])].map((c) => c.sponsorId);
+        const sponsorIds = (await this.posts.creditedSponsorIds([p.id], trx)).get(p.id) ?? [];
         await this.posts.update(trx, p.id, {
           ...this.toWrite(input, p.slug, p, now),
           publishedAt: p.publish_at ?? now,
@@ -150,126 +135,6 @@ export class PostService {
     };
   }
 
-  /** One page of published posts, newest first, optionally for one tag, with each cover's stored description for its alt text. */
-  async publicPage(opts: { tag?: string; page: number; pageSize: number }): Promise<PostPage<PostSummary>> {
-    const { items, total } = await this.posts.publishedPage(opts);
-    const covers = await this.describeImages(items.flatMap((p) => (p.cover_url ? [p.cover_url] : [])));
-    return {
-      items: items.map((p) => ({
-        slug: p.slug,
-        title: p.title,
-        summary: p.summary,
-        coverUrl: p.cover_url,
-        cover: coverOf(covers, p.cover_url),
-        publishedAt: p.published_at!.toISOString(),
-        tags: p.tags,
-        membersOnly: p.members_only,
-      })),
-      total,
-      page: opts.page,
-      pageSize: opts.pageSize,
-    };
-  }
-
-  /** Tags of published posts with how many posts carry each, most used first, for the tag filter on the list. */
-  tags() {
-    return this.posts.tagCounts();
-  }
-
-  /** A published post; members-only bodies are withheld (html null) from callers without a reading role. */
-  async publicPost(slug: string, roles: readonly Role[]): Promise<PostDetail> {
-    const p = await this.posts.publishedBySlug(slug);
-    if (!p) throw notFound('No build log at this address.');
-    const credits = (await this.posts.creditsOf([p.id])).get(p.id) ?? [];
-    const mayRead = !p.members_only || roles.some((r) => BODY_READERS.includes(r));
-    return {
-      slug: p.slug,
-      title: p.title,
-      summary: p.summary,
-      coverUrl: p.cover_url,
-      cover: coverOf(p.cover_url ? await this.describeImages([p.cover_url]) : new Map(), p.cover_url),
-      author: p.author_name ?? null,
-      html: mayRead ? this.render(p, credits) : null,
-      publishedAt: p.published_at!.toISOString(),
-      // The last edit, for the page's structured data and the sitemap; never before publishing.
-      updatedAt: new Date(Math.max(p.updated_at.getTime(), p.published_at!.getTime())).toISOString(),
-      tags: p.tags,
-      membersOnly: p.members_only,
-      credits,
-      hazardNotice: this.hazardOf(p),
-    };
-  }
-
-  /** One page of every post whatever its state, for the editors' table. */
-  async adminPage(opts: Parameters<PostRepository['adminPage']>[0]): Promise<PostPage<AdminPostRow>> {
-    const { items, total } = await this.posts.adminPage(opts);
-    return {
-      items: items.map((p) => ({
-        id: p.id,
-        slug: p.slug,
-        title: p.title,
-        status: p.status,
-        publishAt: p.publish_at?.toISOString() ?? null,
-        publishedAt: p.published_at?.toISOString() ?? null,
-        updatedAt: p.updated_at.toISOString(),
-        membersOnly: p.members_only,
-        tags: p.tags,
-      })),
-      total,
-      page: opts.page,
-      pageSize: opts.pageSize,
-    };
-  }
-
-  /** One post of any state with its credited sponsors, in the shape the editor form loads; a 404 for an unknown id. */
-  async adminGet(id: number): Promise<AdminPost> {
-    const p = await this.posts.byId(id);
-    if (!p) throw notFound('No such post.');
-    const credits = (await this.posts.creditsOf([id])).get(id) ?? [];
-    return {
-      id,
-      slug: p.slug,
-      title: p.title,
-      summary: p.summary,
-      coverUrl: p.cover_url,
-      markdown: p.markdown,
-      tags: p.tags,
-      status: p.status,
-      publishAt: p.publish_at?.toISOString() ?? null,
-      publishedAt: p.published_at?.toISOString() ?? null,
-      membersOnly: p.members_only,
-      hazardNotice: this.hazardOf(p),
-      hazardRequired: needsHazardNotice(p),
-      credits,
-      author: p.author_name ?? null,
-    };
-  }
-
-  /** Latest published posts for the feeds; members-only bodies never go into a feed. */
-  async feedItems(limit: number) {
-    const rows = await this.posts.latestPublished(limit);
-    const credits = await this.posts.creditsOf(rows.map((p) => p.id));
-    return rows.map((p) => ({
-      slug: p.slug,
-      title: p.title,
-      summary: p.summary,
-      author: p.author_name ?? null,
-      publishedAt: p.published_at!,
-      tags: p.tags,
-      membersOnly: p.members_only,
-      hazardNotice: this.hazardOf(p),
-      html: p.members_only ? null : this.render(p, credits.get(p.id) ?? []),
-    }));
-  }
-
-  private render(p: PostRow, credits: { name: string; slug: string }[]): string {
-    return renderMarkdown(p.markdown, { sponsorNames: new Map(credits.map((c) => [c.slug, c.name])) });
-  }
-
-  private hazardOf(p: Pick<PostRow, 'hazard_requested' | 'title' | 'summary' | 'markdown' | 'tags'>): boolean {
-    return p.hazard_requested || needsHazardNotice(p);
-  }
-
   /**
    * Sponsors from the editor's panel and from the credit markers in the body, with the deliverable each marker names
    * (by sponsor id). An unknown sponsor, or a marker naming a deliverable that is not one of that sponsor's, is a
@@ -294,8 +159,9 @@ export class PostService {
         markdown: `No sponsor with the address “${unknown[0].slug}”. Use the credit picker to insert a marker.`,
       });
     const chosen = this.chosenDeliverables(markers, bySlug);
+    const owners = await this.credits.deliverableSponsors(trx, [...chosen.values()]);
     for (const [sponsorId, deliverableId] of chosen) {
-      if ((await this.sponsors.deliverables(sponsorId, trx)).some((d) => d.id === deliverableId)) continue;
+      if (owners.get(deliverableId) === sponsorId) continue;
       const slug = bySlug.find((b) => b.id === sponsorId)!.slug;
       throw badRequest('A credit marker names a promise of another sponsor.', {
         markdown: `The marker for “${slug}” names promise #${deliverableId}, which is not one of that sponsor’s. Use the credit picker to insert a marker.`,
@@ -340,13 +206,4 @@ export class PostService {
       hazardRequested: input.hazardNotice ?? current?.hazard_requested ?? false,
     };
   }
-}
-
-/** An uploaded cover's sizes and thumbnail, for the page's srcset and reserved space; null for none or another host. */
-function coverOf(
-  covers: Map<string, StoredImage>,
-  url: string | null,
-): { url: string; thumbnailUrl: string; width: number; height: number } | null {
-  const c = url ? covers.get(url) : undefined;
-  return c ? { url: c.url, thumbnailUrl: c.thumbnailUrl, width: c.width, height: c.height } : null;
 }

@@ -2,6 +2,8 @@ import type { Knex } from 'knex';
 import { enqueueEmail } from '../mail/outbox';
 import { creditPublishedEmail } from './sponsor-emails';
 import { deliverableToCredit, type DeliverableKind } from './sponsor-ledger';
+import type { AgreementRepository } from './agreement-repository';
+import type { CreditRepository } from './credit-repository';
 import type { SponsorRepository } from './sponsor-repository';
 
 /** The post as the ledger needs it. */
@@ -15,7 +17,9 @@ export interface CreditingPost {
 /** Records credits against open deliverables: from published posts automatically, and off-site ones by hand. */
 export class CreditService {
   constructor(
-    private readonly repo: SponsorRepository,
+    private readonly repo: CreditRepository,
+    private readonly sponsors: SponsorRepository,
+    private readonly agreements: AgreementRepository,
     private readonly publicUrl: string,
     private readonly teamName: string,
   ) {}
@@ -34,7 +38,7 @@ export class CreditService {
     chosen: ReadonlyMap<number, number> = new Map(),
   ): Promise<void> {
     const wanted = post.published ? new Set(sponsorIds) : new Set<number>();
-    const live = await this.repo.liveCreditSponsors(trx, post.id);
+    const live = await this.repo.liveCreditSponsors(post.id, trx);
     await this.repo.withdrawPostCredits(
       trx,
       post.id,
@@ -43,7 +47,7 @@ export class CreditService {
     );
     const link = `${this.publicUrl}/build-logs/${post.slug}`;
     for (const sponsorId of [...wanted].filter((id) => !live.includes(id)).sort((a, b) => a - b)) {
-      await this.repo.lock(trx, sponsorId);
+      await this.sponsors.lock(trx, sponsorId);
       const deliverableId = await this.openDeliverable(
         trx,
         sponsorId,
@@ -61,8 +65,8 @@ export class CreditService {
         recordedBy: null,
         creditedAt: at,
       });
-      const sponsor = (await this.repo.byId(sponsorId, trx))!;
-      for (const c of await this.repo.contacts(sponsorId, trx)) {
+      const sponsor = (await this.sponsors.byId(sponsorId, trx))!;
+      for (const c of await this.sponsors.contacts(sponsorId, trx)) {
         await enqueueEmail(trx, {
           ...creditPublishedEmail(
             c.email,
@@ -92,7 +96,7 @@ export class CreditService {
     },
     userId: number,
   ): Promise<{ id: number; deliverableId: number | null }> {
-    await this.repo.lock(trx, sponsorId);
+    await this.sponsors.lock(trx, sponsorId);
     const deliverableId = await this.openDeliverable(trx, sponsorId, c.kind);
     const id = await this.repo.insertCredit(trx, {
       sponsorId,
@@ -108,13 +112,18 @@ export class CreditService {
     return { id, deliverableId };
   }
 
+  /** The sponsor each of these deliverables was promised to, by deliverable id, so a post's marker can be checked against its sponsor. */
+  deliverableSponsors(trx: Knex.Transaction, deliverableIds: readonly number[]): Promise<Map<number, number>> {
+    return this.agreements.deliverableSponsors(deliverableIds, trx);
+  }
+
   private async openDeliverable(
     trx: Knex.Transaction,
     sponsorId: number,
     kind: DeliverableKind,
     preferredId: number | null = null,
   ): Promise<number | null> {
-    const rows = await this.repo.deliverables(sponsorId, trx);
+    const rows = await this.agreements.deliverables(sponsorId, trx);
     const open = deliverableToCredit(
       rows.map((d) => ({
         id: d.id,

@@ -3,7 +3,10 @@ import type {
   AdminSponsorRow,
   OverdueItem,
   PortalView,
+  SponsorCreated,
   SponsorDetail,
+  SponsorListing,
+  SponsorSaved,
   SponsorWall,
   StaffAgreement,
 } from '../../contracts/sponsors/sponsor-answers';
@@ -26,21 +29,32 @@ import {
   SponsorBody,
   TiersSchema,
 } from '../../contracts/sponsors/sponsor-schemas';
+import type { AgreementService } from './agreement-service';
 import type { SponsorService } from './sponsor-service';
+import type { SponsorTierService } from './sponsor-tier-service';
 import { deliverablesOnly, seesSponsorMoney, withoutEmail, withoutTotal } from './sponsor-staff-view';
+
+/** The sponsors feature's services the staff and portal routes call. */
+interface SponsorServices {
+  sponsors: SponsorService;
+  agreements: AgreementService;
+  tiers: SponsorTierService;
+}
 
 /** Today's club date (the app's ClubCalendar), for routes that judge "overdue" and "this season". */
 type Today = () => string;
 
 /** GET /api/sponsors (public): every sponsor with its current tier, and the sponsors page grouped by tier. */
-export function sponsorPublicRoutes(sponsors: SponsorService, today: Today): Router {
+export function sponsorPublicRoutes(tiers: SponsorTierService, today: Today): Router {
   const r = Router();
   r.get('/', async function listSponsors(_req, res) {
-    const items = await sponsors.withTiers(today());
-    res.json({ items: items.map((s) => ({ id: s.id, slug: s.slug, name: s.name, tier: s.tier })) });
+    const items = await tiers.withTiers(today());
+    res.json({ items: items.map((s) => ({ id: s.id, slug: s.slug, name: s.name, tier: s.tier })) } satisfies {
+      items: SponsorListing[];
+    });
   });
   r.get('/wall', async function sponsorWall(_req, res) {
-    res.json((await sponsors.publicWall(today())) satisfies SponsorWall);
+    res.json((await tiers.publicWall(today())) satisfies SponsorWall);
   });
   return r;
 }
@@ -52,30 +66,34 @@ const MONEY = ['treasurer', 'admin'] as const;
  * /api/admin/sponsors: staff manage sponsors; agreements, cash, declared values, contacts and tiers are the treasurer's
  * and admin's (editors see the deliverables).
  */
-export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today: Today): Router {
+export function sponsorAdminRoutes(
+  { sponsors, agreements, tiers }: SponsorServices,
+  clock: Clock,
+  today: Today,
+): Router {
   const r = Router();
   r.get('/', requireRole(...STAFF), async function listSponsorsAdmin(req, res) {
-    const items = await sponsors.withTiers(today());
+    const items = await tiers.withTiers(today());
     res.json({ items: seesSponsorMoney(req.user!.roles) ? items : items.map(withoutTotal) } satisfies {
       items: AdminSponsorRow[];
     });
   });
   r.post('/', requireRole(...STAFF), async function createSponsor(req, res) {
     const s = await sponsors.create(parse(SponsorBody, req.body));
-    res.status(201).json({ id: s.id, slug: s.slug });
+    res.status(201).json({ id: s.id, slug: s.slug } satisfies SponsorCreated);
   });
   r.get('/tiers', requireRole(...STAFF), async function getTiers(_req, res) {
-    res.json(await sponsors.tiers());
+    res.json(await tiers.tiers());
   });
   r.put('/tiers', requireRole(...MONEY), async function putTiers(req, res) {
-    res.json(await sponsors.setTiers(parse(TiersSchema, req.body)));
+    res.json(await tiers.setTiers(parse(TiersSchema, req.body)));
   });
   r.get('/overdue', requireRole(...STAFF), async function overdueDeliverables(_req, res) {
-    res.json({ items: await sponsors.overdue(today()) } satisfies { items: OverdueItem[] });
+    res.json({ items: await agreements.overdue(today()) } satisfies { items: OverdueItem[] });
   });
   r.post('/agreements/:agreementId/cash-received', requireRole(...MONEY), async function cashReceived(req, res) {
     const id = parse(fields.id, req.params.agreementId);
-    res.status(201).json(await sponsors.recordCashReceived(id, parse(CashReceivedBody, req.body), clock.now()));
+    res.status(201).json(await agreements.recordCashReceived(id, parse(CashReceivedBody, req.body), clock.now()));
   });
   r.get('/:id', requireRole(...STAFF), async function sponsorDetail(req, res) {
     const id = parse(fields.id, req.params.id);
@@ -88,24 +106,28 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
     } satisfies SponsorDetail);
   });
   r.put('/:id', requireRole(...STAFF), async function updateSponsor(req, res) {
-    res.json({ sponsor: await sponsors.update(parse(fields.id, req.params.id), parse(SponsorBody, req.body)) });
+    res.json({
+      sponsor: await sponsors.update(parse(fields.id, req.params.id), parse(SponsorBody, req.body)),
+    } satisfies SponsorSaved);
   });
   r.post('/:id/agreements', requireRole(...MONEY), async function addAgreement(req, res) {
-    res.status(201).json(await sponsors.addAgreement(parse(fields.id, req.params.id), parse(AgreementBody, req.body)));
+    res
+      .status(201)
+      .json(await agreements.addAgreement(parse(fields.id, req.params.id), parse(AgreementBody, req.body)));
   });
   r.get('/:id/ledger', requireRole(...STAFF), async function sponsorLedger(req, res) {
     const id = parse(fields.id, req.params.id);
     await sponsors.get(id);
-    const agreements = await sponsors.agreements(id, today());
+    const ledger = await agreements.agreements(id, today());
     // Editors record and publish credits; cash, declared values and the deal's note are the treasurer's and admin's.
     res.json({
-      agreements: seesSponsorMoney(req.user!.roles) ? agreements : agreements.map(deliverablesOnly),
+      agreements: seesSponsorMoney(req.user!.roles) ? ledger : ledger.map(deliverablesOnly),
     } satisfies { agreements: StaffAgreement[] });
   });
   r.get('/:id/ledger.csv', requireRole(...STAFF), async function sponsorLedgerCsv(req, res) {
     const id = parse(fields.id, req.params.id);
     const sponsor = await sponsors.get(id);
-    const lines = (await sponsors.agreements(id, today())).flatMap((a) =>
+    const lines = (await agreements.agreements(id, today())).flatMap((a) =>
       a.deliverables.map((l) => ({ season: a.season, ...l })),
     );
     const rows = inDateOrder(lines, (l) => l.dueOn).map((l) => [
@@ -141,7 +163,7 @@ export function sponsorAdminRoutes(sponsors: SponsorService, clock: Clock, today
 
 /** /api/sponsor-portal (role sponsor): the caller's own sponsor only; there is no sponsor id to choose. */
 export function sponsorPortalRoutes(
-  sponsors: SponsorService,
+  { sponsors, agreements: ledgers }: SponsorServices,
   today: Today,
   teamName: string,
   timeZone: string,
@@ -151,7 +173,7 @@ export function sponsorPortalRoutes(
   const report = async (userId: number): Promise<ReportData> => {
     const sponsor = await sponsors.sponsorOfUser(userId);
     const [agreements, credits] = await Promise.all([
-      sponsors.agreements(sponsor.id, today()),
+      ledgers.agreements(sponsor.id, today()),
       sponsors.creditsOf(sponsor.id),
     ]);
     return { sponsor, agreements, credits, generatedOn: today(), teamName, timeZone };

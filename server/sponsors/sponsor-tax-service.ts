@@ -5,7 +5,8 @@ import { badRequest, conflict, notFound } from '../platform/app-error';
 import type { SettingsService } from '../settings/settings-service';
 import { SHOP_SETTINGS } from '../shop/shop-settings';
 import type { Province, TaxLine, TaxRate } from '../shop/tax';
-import type { AgreementRow, SponsorRepository } from './sponsor-repository';
+import type { AgreementRepository, AgreementRow } from './agreement-repository';
+import type { SponsorRepository } from './sponsor-repository';
 import { sponsorshipTaxes, type TaxTreatment } from './sponsor-tax';
 
 /** The sales-tax rate table, read where the shop keeps it. */
@@ -31,7 +32,8 @@ export interface SponsorInvoice {
 export class SponsorTaxService {
   constructor(
     private readonly db: Knex,
-    private readonly repo: SponsorRepository,
+    private readonly sponsors: SponsorRepository,
+    private readonly repo: AgreementRepository,
     private readonly settings: SettingsService,
     private readonly rates: TaxRateSource,
     private readonly teamName: string,
@@ -99,7 +101,7 @@ export class SponsorTaxService {
       throw conflict('not_promotion', 'A gift gets no invoice: set the agreement to promotion first.');
     if (a.cash_cents === 0) throw conflict('no_cash', 'This agreement promises no cash to invoice.');
     const [sponsor, shop, deliverables] = await Promise.all([
-      this.repo.byId(a.sponsor_id),
+      this.sponsors.byId(a.sponsor_id),
       this.settings.get(SHOP_SETTINGS),
       this.repo.deliverables(a.sponsor_id),
     ]);

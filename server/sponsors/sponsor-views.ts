@@ -1,7 +1,9 @@
 import type { Agreement, Sponsor } from '../../contracts/sponsors/sponsor-answers';
 import type { SponsorCredit } from '../../contracts/sponsors/sponsor-credit';
 import type { DeliverableInput } from './sponsor-ledger';
-import type { CreditRow, DeliverableRow, SponsorRow } from './sponsor-repository';
+import type { DeliverableRow } from './agreement-repository';
+import type { CreditRow } from './credit-repository';
+import type { SponsorRow } from './sponsor-repository';
 
 // The views are written once, in contracts/sponsors/; these names keep the server's own vocabulary.
 /** An agreement with its money and ledger. */
@@ -20,13 +22,14 @@ export const toView = (s: SponsorRow): SponsorView => ({
   logoUrl: s.logo_url,
 });
 
-export const toCredit = (c: CreditRow): CreditView => ({
+/** A credit as staff and the portal read it; `post` is the crediting post's address and title, when there is one. */
+export const toCredit = (c: CreditRow, post?: { slug: string; title: string }): CreditView => ({
   id: c.id,
   kind: c.kind,
   url: c.url,
   at: c.credited_at.toISOString(),
-  postSlug: c.post_slug,
-  postTitle: c.post_title,
+  postSlug: post?.slug ?? null,
+  postTitle: post?.title ?? null,
   videoTimestamp: c.video_timestamp,
   note: c.note,
   counted: c.deliverable_id !== null,

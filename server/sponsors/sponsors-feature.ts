@@ -1,5 +1,9 @@
+import type { PostTitles } from '../build-logs/build-logs-feature';
 import type { Feature, Platform } from '../feature';
 import { ShopConfigRepository } from '../shop/shop-config-repository';
+import { AgreementRepository } from './agreement-repository';
+import { AgreementService } from './agreement-service';
+import { CreditRepository } from './credit-repository';
 import { CreditService } from './credit-service';
 import { sponsorPersonalData } from './sponsor-personal-data';
 import { SponsorRepository } from './sponsor-repository';
@@ -7,6 +11,7 @@ import { sponsorAdminRoutes, sponsorPortalRoutes, sponsorPublicRoutes } from './
 import { SponsorService } from './sponsor-service';
 import { sponsorTaxRoutes } from './sponsor-tax-routes';
 import { SponsorTaxService } from './sponsor-tax-service';
+import { SponsorTierService } from './sponsor-tier-service';
 
 /** What the sponsors feature lends the build logs: publishing a post delivers the credits it names. */
 export interface SponsorCredits {
@@ -14,42 +19,45 @@ export interface SponsorCredits {
   credits: CreditService;
 }
 
-/** The sponsor ledger, its portal and the sponsorship tax; the build logs credit sponsors through `credits`. */
-export function sponsorsFeature(platform: Platform): Feature & { credits: SponsorCredits } {
+/**
+ * The sponsor ledger, its portal and the sponsorship tax; the build logs credit sponsors through `credits`, and lend
+ * the crediting posts' titles through `posts`.
+ */
+export function sponsorsFeature(platform: Platform, posts: PostTitles): Feature & { credits: SponsorCredits } {
   const { db, clock, calendar, config } = platform.deps;
   const sponsorRepo = new SponsorRepository(db);
-  const credits = new CreditService(sponsorRepo, config.publicUrl, config.site.teamName);
+  const agreementRepo = new AgreementRepository(db);
+  const creditRepo = new CreditRepository(db);
+  const credits = new CreditService(creditRepo, sponsorRepo, agreementRepo, config.publicUrl, config.site.teamName);
   // The sponsorship tax reads the rate table where the shop keeps it.
   const sponsorTax = new SponsorTaxService(
     db,
     sponsorRepo,
+    agreementRepo,
     platform.settings,
     new ShopConfigRepository(db),
     config.site.teamName,
   );
-  const sponsors = new SponsorService(
-    db,
-    sponsorRepo,
-    credits,
-    platform.auth.users,
-    platform.settings,
-    sponsorTax,
-    (urls) => platform.images.describe(urls),
+  const tiers = new SponsorTierService(sponsorRepo, agreementRepo, platform.settings, posts, (urls) =>
+    platform.images.describe(urls),
   );
+  const agreements = new AgreementService(db, sponsorRepo, agreementRepo, sponsorTax, tiers);
+  const sponsors = new SponsorService(db, sponsorRepo, creditRepo, credits, platform.auth.users, posts);
+  const services = { sponsors, agreements, tiers };
   const today = () => calendar.today();
   return {
     name: 'sponsors',
     credits: { sponsors: sponsorRepo, credits },
     mount(api) {
-      api('/sponsors', sponsorPublicRoutes(sponsors, today));
+      api('/sponsors', sponsorPublicRoutes(tiers, today));
       api('/admin/sponsors', sponsorTaxRoutes(sponsorTax, today));
-      api('/admin/sponsors', sponsorAdminRoutes(sponsors, clock, today));
-      api('/sponsor-portal', sponsorPortalRoutes(sponsors, today, config.site.teamName, config.clubTimeZone));
+      api('/admin/sponsors', sponsorAdminRoutes(services, clock, today));
+      api('/sponsor-portal', sponsorPortalRoutes(services, today, config.site.teamName, config.clubTimeZone));
     },
     dashboard: {
-      sponsorValue: () => sponsors.seasonValue(today()),
+      sponsorValue: () => agreements.seasonValue(today()),
       overdueDeliverables: async () =>
-        (await sponsors.overdue(today())).map((o) => ({
+        (await agreements.overdue(today())).map((o) => ({
           sponsor: o.sponsorName,
           kind: o.kind,
           dueOn: o.dueOn,

@@ -105,3 +105,40 @@ describe('client and contracts', () => {
     expect(listed(importsOf('contracts').filter(forbidden))).toEqual([]);
   });
 });
+
+describe('sponsors and build logs keep to their own tables', () => {
+  /**
+   * Who owns which table. A post's thanks (`post_credits`, written with the post from its credit markers) are the
+   * build logs'; the credits given (`sponsor_credits`, whose `post_id` only names the crediting post) are the sponsors'.
+   * Across the two, the services compose through what each feature lends the other (`SponsorCredits`, `PostTitles`).
+   */
+  const OWNED: Record<string, readonly string[]> = {
+    'server/sponsors': [
+      'sponsors',
+      'sponsor_contacts',
+      'sponsor_agreements',
+      'agreement_in_kind',
+      'agreement_deliverables',
+      'sponsor_credits',
+    ],
+    'server/build-logs': ['posts', 'post_credits'],
+  };
+
+  /** Each line of the file's code, comments blanked (line numbers kept), so only what runs is checked. */
+  const codeLines = (file: string) =>
+    readFileSync(path.join(root, file), 'utf8')
+      .replace(/\/\*[\s\S]*?\*\//g, (c) => c.replace(/[^\n]/g, ' '))
+      .replace(/\/\/.*$/gm, '')
+      .split('\n');
+
+  it.each(Object.keys(OWNED))('lets no repository in %s name another feature’s table', (dir) => {
+    const foreign = Object.entries(OWNED).flatMap(([other, tables]) => (other === dir ? [] : tables));
+    const names = new RegExp(`\\b(?:${foreign.join('|')})\\b`);
+    const repositories = tsFiles(dir).filter((f) => f.endsWith('-repository.ts'));
+    expect(repositories.length).toBeGreaterThan(0);
+    const bad = repositories.flatMap((file) =>
+      codeLines(file).flatMap((line, i) => (names.test(line) ? [`${file}:${i + 1}: ${line.trim()}`] : [])),
+    );
+    expect(bad).toEqual([]);
+  });
+});

@@ -2,7 +2,7 @@ import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
-import type { PostDetail, PostPage, PostSummary } from '@contracts/build-logs/post-answers';
+import type { PostDetail, PostPage, PostSummary, TagCount } from '@contracts/build-logs/post-answers';
 import type { PostListParams } from '@contracts/build-logs/post-schemas';
 
 /** The public build-log endpoints. */
@@ -18,8 +18,8 @@ export class BuildLogApi {
   }
 
   /** Every tag on published posts, with how many posts carry it. */
-  tags(): Observable<{ items: { tag: string; count: number }[] }> {
-    return this.http.get<{ items: { tag: string; count: number }[] }>('/api/posts/tags');
+  tags(): Observable<{ items: TagCount[] }> {
+    return this.http.get<{ items: TagCount[] }>('/api/posts/tags');
   }
 
   /**

@@ -2,7 +2,7 @@ import { HttpClient, HttpContext, HttpEvent, HttpParams } from '@angular/common/
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
-import type { AdminPost, AdminPostRow, PostPage, PostPreview } from '@contracts/build-logs/post-answers';
+import type { AdminPost, AdminPostRow, PostPage, PostPreview, PostSaved } from '@contracts/build-logs/post-answers';
 import type { AdminPostListParams, PostBodyInput, PostPreviewInput } from '@contracts/build-logs/post-schemas';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
@@ -26,13 +26,13 @@ export class PostAdminApi {
   }
 
   /** Saves a new post; refusals come back for the fields. */
-  create(body: PostBodyInput): Observable<{ id: number; slug: string }> {
-    return this.http.post<{ id: number; slug: string }>('/api/admin/posts', body, quiet());
+  create(body: PostBodyInput): Observable<PostSaved> {
+    return this.http.post<PostSaved>('/api/admin/posts', body, quiet());
   }
 
   /** Saves an edited post. */
-  update(id: number, body: PostBodyInput): Observable<{ id: number; slug: string }> {
-    return this.http.put<{ id: number; slug: string }>(`/api/admin/posts/${id}`, body, quiet());
+  update(id: number, body: PostBodyInput): Observable<PostSaved> {
+    return this.http.put<PostSaved>(`/api/admin/posts/${id}`, body, quiet());
   }
 
   /** The post rendered as readers will see it, whether it needs the hazard notice, and any unknown sponsor in its credits. */

@@ -4,8 +4,14 @@ import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../../core/error-interceptor';
 import type {
   AdminSponsorRow,
+  AgreementCreated,
+  CashReceived,
+  ContactAdded,
+  CreditRecorded,
   OverdueItem,
+  SponsorCreated,
   SponsorDetail,
+  SponsorSaved,
   StaffAgreement,
   TaxTreatmentAnswer,
 } from '@contracts/sponsors/sponsor-answers';
@@ -35,24 +41,24 @@ export class SponsorAdminApi {
     return this.http.get<{ items: OverdueItem[] }>('/api/admin/sponsors/overdue');
   }
   /** Adds a sponsor. */
-  create(body: SponsorBodyInput): Observable<{ id: number; slug: string }> {
-    return this.http.post<{ id: number; slug: string }>('/api/admin/sponsors', body, quiet());
+  create(body: SponsorBodyInput): Observable<SponsorCreated> {
+    return this.http.post<SponsorCreated>('/api/admin/sponsors', body, quiet());
   }
   /** One sponsor's record for the console. */
   detail(id: number): Observable<SponsorDetail> {
     return this.http.get<SponsorDetail>(`/api/admin/sponsors/${id}`);
   }
   /** Saves a sponsor's name, website, blurb and logo. */
-  update(id: number, body: SponsorBodyInput): Observable<unknown> {
-    return this.http.put(`/api/admin/sponsors/${id}`, body, quiet());
+  update(id: number, body: SponsorBodyInput): Observable<SponsorSaved> {
+    return this.http.put<SponsorSaved>(`/api/admin/sponsors/${id}`, body, quiet());
   }
   /** A sponsor's agreements with what each promised and what was delivered. */
   ledger(id: number): Observable<{ agreements: StaffAgreement[] }> {
     return this.http.get<{ agreements: StaffAgreement[] }>(`/api/admin/sponsors/${id}/ledger`);
   }
   /** Records a new agreement (cash or parts, and the credits promised in return). */
-  addAgreement(id: number, body: AgreementBodyInput): Observable<{ id: number }> {
-    return this.http.post<{ id: number }>(`/api/admin/sponsors/${id}/agreements`, body, quiet());
+  addAgreement(id: number, body: AgreementBodyInput): Observable<AgreementCreated> {
+    return this.http.post<AgreementCreated>(`/api/admin/sponsors/${id}/agreements`, body, quiet());
   }
   /** Records whether an agreement is paid promotion or a gift, which decides the tax on it. */
   setTaxTreatment(agreementId: number, body: TaxTreatmentInput): Observable<TaxTreatmentAnswer> {
@@ -67,17 +73,17 @@ export class SponsorAdminApi {
     return `/api/admin/sponsors/agreements/${agreementId}/invoice.pdf`;
   }
   /** Records the day and way an agreement's cash arrived. */
-  cashReceived(agreementId: number, body: CashReceivedInput): Observable<unknown> {
-    return this.http.post(`/api/admin/sponsors/agreements/${agreementId}/cash-received`, body, quiet());
+  cashReceived(agreementId: number, body: CashReceivedInput): Observable<CashReceived> {
+    return this.http.post<CashReceived>(`/api/admin/sponsors/agreements/${agreementId}/cash-received`, body, quiet());
   }
   /** Records a credit given (a post, a video, a listing) and whether it counts towards a promise. */
-  addCredit(id: number, body: HandCreditInput): Observable<{ id: number; counted: boolean }> {
-    return this.http.post<{ id: number; counted: boolean }>(`/api/admin/sponsors/${id}/credits`, body, quiet());
+  addCredit(id: number, body: HandCreditInput): Observable<CreditRecorded> {
+    return this.http.post<CreditRecorded>(`/api/admin/sponsors/${id}/credits`, body, quiet());
   }
   /** Invites an address to the sponsor's portal. */
-  addContact(id: number, email: string): Observable<unknown> {
+  addContact(id: number, email: string): Observable<ContactAdded> {
     const body: ContactInput = { email };
-    return this.http.post(`/api/admin/sponsors/${id}/contacts`, body, quiet());
+    return this.http.post<ContactAdded>(`/api/admin/sponsors/${id}/contacts`, body, quiet());
   }
   /** The sponsor tiers and the amount each starts at. */
   tiers(): Observable<Tiers> {
