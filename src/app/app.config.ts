@@ -1,6 +1,6 @@
 import { ApplicationConfig, provideBrowserGlobalErrorListeners, provideZonelessChangeDetection } from '@angular/core';
 import { provideHttpClient, withFetch, withInterceptors, withXsrfConfiguration } from '@angular/common/http';
-import { provideClientHydration, withEventReplay } from '@angular/platform-browser';
+import { provideClientHydration, withIncrementalHydration } from '@angular/platform-browser';
 import { provideRouter, withComponentInputBinding, withInMemoryScrolling } from '@angular/router';
 import { routes } from './app.routes';
 import { csrfInterceptor } from './core/csrf-interceptor';
@@ -21,7 +21,8 @@ export const appConfig: ApplicationConfig = {
       withXsrfConfiguration({ cookieName: 'unused', headerName: 'unused' }),
       withInterceptors([csrfInterceptor, errorInterceptor]),
     ),
-    // A tap before the script has arrived is replayed once the page is live.
-    provideClientHydration(withEventReplay()),
+    // A tap before the script has arrived is replayed once the page is live (incremental hydration replays events
+    // too); `@defer (hydrate on ...)` blocks stay server-rendered and load their code only when their trigger fires.
+    provideClientHydration(withIncrementalHydration()),
   ],
 };

@@ -56,7 +56,7 @@ describe('dues with a publishable key', () => {
     // The stand-in frame hands over tok_visa, the processor's test Visa ending 4242.
     await page.getByTestId('card-on-file').getByText('Visa ending 4242').waitFor();
     // A November join is paid through next year, so renewing waits until January.
-    await page.getByTestId('renewal-later').getByText('opens on 2027-01-01').waitFor();
+    await page.getByTestId('renewal-later').getByText('opens on Jan 1, 2027').waitFor();
     clock.set('2027-01-05T18:00:00Z');
     await page.reload();
     // Renewing offers the card on file or a new card in the frame, never a test-card list.

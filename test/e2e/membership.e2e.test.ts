@@ -70,13 +70,13 @@ describe('club dues in a browser', () => {
     await page.getByText('You are 18 or over on the first day of the term').waitFor();
     await screenshot(page, 'membership-join-refused');
     await pick(page, 'Plan', 'Adult');
-    await page.getByTestId('join-quote').getByText('2027-12-31').waitFor();
+    await page.getByTestId('join-quote').getByText('Dec 31, 2027').waitFor();
     await page.getByRole('button', { name: 'Pay dues and join' }).click();
     await page
       .getByRole('status')
       .getByText(/Welcome aboard/)
       .waitFor();
-    await expect(page.getByTestId('term-end').textContent()).resolves.toContain('2026-11-20 to 2027-12-31');
+    await expect(page.getByTestId('term-end').textContent()).resolves.toContain('Nov 20, 2026 to Dec 31, 2027');
     await screenshot(page, 'membership-joined');
     await page.getByRole('link', { name: 'Show my member card' }).click();
     await page.getByRole('img', { name: /Check-in code for member/ }).waitFor();
@@ -91,15 +91,15 @@ describe('club dues in a browser', () => {
     const page = await browser.newPage();
     await signInThroughForm(page, site.baseUrl, user.email, user.password);
     await page.goto(`${site.baseUrl}/membership`);
-    await expect(page.getByTestId('term-end').textContent()).resolves.toContain('2026-12-31');
-    await page.getByTestId('renew-quote').getByText('2027-01-01 to 2027-12-31').waitFor();
+    await expect(page.getByTestId('term-end').textContent()).resolves.toContain('Dec 31, 2026');
+    await page.getByTestId('renew-quote').getByText('Jan 1, 2027 to Dec 31, 2027').waitFor();
     await pick(page, 'Card', 'Test Visa issued in Canada (pays)');
     await page.getByRole('button', { name: 'Pay and renew' }).click();
-    await page.getByText('Renewed. Your dues now run to 2027-12-31.').waitFor();
-    await page.getByTestId('term-end').getByText('2027-01-01 to 2027-12-31').waitFor();
+    await page.getByText('Renewed. Your dues now run to Dec 31, 2027.').waitFor();
+    await page.getByTestId('term-end').getByText('Jan 1, 2027 to Dec 31, 2027').waitFor();
     // Paid a term ahead: the form gives way to the date the next renewal opens, so a second click cannot buy 2028.
     await page.reload();
-    await page.getByTestId('renewal-later').getByText('Renewing for the term after opens on 2027-01-01.').waitFor();
+    await page.getByTestId('renewal-later').getByText('Renewing for the term after opens on Jan 1, 2027.').waitFor();
     await expect(page.getByRole('button', { name: 'Pay and renew' }).count()).resolves.toBe(0);
     await screenshot(page, 'membership-renewed');
     await page.close();

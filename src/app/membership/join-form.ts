@@ -1,3 +1,4 @@
+import { ClubDatePipe } from '../shared/club-date-pipe';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -41,6 +42,7 @@ import { CardChoice } from './card-choice';
     MatSelectModule,
     FieldErrorPipe,
     MoneyPipe,
+    ClubDatePipe,
     CardChoice,
   ],
   providers: [provideClubDates()],

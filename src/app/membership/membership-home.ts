@@ -1,4 +1,5 @@
-import { DatePipe } from '@angular/common';
+import { formatDay } from '@contracts/dates/club-dates';
+import { ClubDatePipe } from '../shared/club-date-pipe';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
@@ -37,7 +38,7 @@ const STATUS_TEXT: Record<Membership['status'], string> = {
   imports: [
     ReactiveFormsModule,
     RouterLink,
-    DatePipe,
+    ClubDatePipe,
     MatButtonModule,
     MatCheckboxModule,
     MatDatepickerModule,
@@ -143,7 +144,9 @@ export class MembershipHome {
             : {}),
         }),
       );
-      this.notice.set(`Renewed. Your dues now run to ${res.membership.termEnd}.`);
+      this.notice.set(
+        res.membership.termEnd ? `Renewed. Your dues now run to ${formatDay(res.membership.termEnd)}.` : 'Renewed.',
+      );
       this.renewForm.reset();
       this.mine.reload();
     } catch (err) {

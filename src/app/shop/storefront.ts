@@ -44,7 +44,12 @@ import { PageMeta } from '../core/page-meta';
       </section>
     }
     <section class="ps-page">
-      <ps-sign-up-form page="home" heading="Tell me about new runs, launch days and build logs" />
+      <!-- Server-rendered; the form's code loads and takes over once the page is idle, after the rest. -->
+      @defer (on viewport; hydrate on idle) {
+        <ps-sign-up-form page="home" heading="Tell me about new runs, launch days and build logs" />
+      } @placeholder {
+        <div class="sign-up-slot"></div>
+      }
     </section>
   `,
   styles: `
@@ -74,6 +79,9 @@ import { PageMeta } from '../core/page-meta';
     }
     .now h2 {
       margin-bottom: 4px;
+    }
+    .sign-up-slot {
+      min-height: 220px;
     }
     .photo {
       width: min(320px, 100%);
