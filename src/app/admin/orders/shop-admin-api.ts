@@ -7,7 +7,7 @@ import type { RefundPreview, StaffOrder, StaffOrderPage, StaffRefund } from '@co
 import type { OrderListQuery, RefundInput, ShipInput } from '@contracts/shop/staff-order-schemas';
 import type { ShopSettings, ShopSettingsInput } from '@contracts/shop/shop-settings-schemas';
 import type { PrintSheet, RunMove, StaffRun, StaffShippingMethod } from '@contracts/shop/staff-shop-answers';
-import type { NewRun, ShippingMethodInput } from '@contracts/shop/staff-shop-schemas';
+import type { NewProduct, NewRun, ProductChanges, ShippingMethodInput } from '@contracts/shop/staff-shop-schemas';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -58,11 +58,11 @@ export class ShopAdminApi {
     return this.http.get<{ items: (Product & { active: boolean })[]; timeZone: string }>('/api/admin/products');
   }
   /** Adds a product with its first run; refusals come back for the fields. */
-  createProduct(body: object): Observable<unknown> {
+  createProduct(body: NewProduct): Observable<unknown> {
     return this.http.post('/api/admin/products', body, quiet());
   }
   /** Changes the product fields sent. */
-  editProduct(id: number, patch: object): Observable<unknown> {
+  editProduct(id: number, patch: ProductChanges): Observable<unknown> {
     return this.http.patch(`/api/admin/products/${id}`, patch);
   }
   /** The staff upload endpoint: the server sniffs the bytes and makes the thumbnail. */
