@@ -63,12 +63,10 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
     return;
   }
   req.log?.error({ err }, 'unhandled error');
-  res
-    .status(500)
-    .json(
-      errorBody({
-        code: 'internal',
-        message: 'Something went wrong on our side. It has been logged; please try again.',
-      }),
-    );
+  res.status(500).json(
+    errorBody({
+      code: 'internal',
+      message: 'Something went wrong on our side. It has been logged; please try again.',
+    }),
+  );
 };
