@@ -193,3 +193,6 @@ export interface AccountOrders {
   items: OrderSummary[];
   lastShipTo: ShipTo | null;
 }
+
+/** GET /api/payments/card-entry: labelled test tokens against the local fake, or Stripe.js with a publishable key. */
+export type CardEntry = { mode: 'test-cards'; publishableKey: null } | { mode: 'stripe-js'; publishableKey: string };

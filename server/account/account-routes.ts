@@ -1,33 +1,13 @@
 import { pipeline } from 'node:stream/promises';
 import { Router } from 'express';
-import { z } from 'zod';
 import type { Profile } from '../../contracts/account/account-answers';
-import { ProfileBody } from '../../contracts/account/account-schemas';
+import { DeleteAccountBody, PasswordChangeBody, ProfileBody } from '../../contracts/account/account-schemas';
 import type { AuthService } from '../auth/auth-service';
-import { PASSWORD_MAX } from '../auth/password-policy';
 import { requireSignedIn } from '../platform/require-role';
 import { parse } from '../platform/validate';
 import { zipStream } from './data-export-zip';
 import { exportSummaryHtml } from './export-summary';
 import type { PersonalDataService } from './personal-data-service';
-
-const PasswordBody = z.object({
-  currentPassword: z
-    .string({ error: 'Enter your current password.' })
-    .min(1, 'Enter your current password.')
-    .max(PASSWORD_MAX * 4),
-  newPassword: z
-    .string({ error: 'Enter a new password.' })
-    .min(1, 'Enter a new password.')
-    .max(PASSWORD_MAX * 4, 'Password is too long.'),
-});
-
-const DeleteBody = z.object({
-  password: z
-    .string({ error: 'Enter your password.' })
-    .min(1, 'Enter your password.')
-    .max(PASSWORD_MAX * 4, 'Password is too long.'),
-});
 
 /** How the download names itself and its times. */
 export interface ExportSettings {
@@ -52,7 +32,7 @@ export function accountRoutes(auth: AuthService, data: PersonalDataService, sett
   });
 
   r.post('/password', async function changePassword(req, res) {
-    const body = parse(PasswordBody, req.body);
+    const body = parse(PasswordChangeBody, req.body);
     await auth.changePassword(req.user!.id, body.currentPassword, body.newPassword, req.sessionID);
     res.status(204).end();
   });
@@ -78,7 +58,7 @@ export function accountRoutes(auth: AuthService, data: PersonalDataService, sett
   });
 
   r.post('/delete', async function deleteAccount(req, res, next) {
-    const { password } = parse(DeleteBody, req.body);
+    const { password } = parse(DeleteAccountBody, req.body);
     await data.deleteAccount(req.user!.id, password);
     // The deletion already removed every stored session; this one must not be saved again on the way out.
     req.logout({ keepSessionInfo: false }, (err) => {

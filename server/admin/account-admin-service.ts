@@ -1,34 +1,11 @@
 import type { Knex } from 'knex';
-import type { LockState, SignInGuard } from '../auth/sign-in-guard';
+import type { SignInGuard } from '../auth/sign-in-guard';
 import { toSessionUser, type UserRepository } from '../auth/user-repository';
 import { badRequest, conflict, notFound } from '../platform/app-error';
-import type { Role, SessionUser } from '../platform/roles';
-import type { AccountChangeKind, AccountChangeRepository } from './account-change-repository';
-
-/** An account as admins see it: the session view plus whether it is disabled or was deleted by its owner. */
-export type AdminAccount = SessionUser & { disabledAt: string | null; deletedAt: string | null };
-
-/** One entry of an account's history. */
-export interface AccountChangeView {
-  id: number;
-  kind: AccountChangeKind;
-  added: Role[];
-  removed: Role[];
-  at: string;
-  by: { id: number; name: string } | null;
-}
-
-/** An account in the admins' list: its admin view, when it was made and where its sign-in failures stand. */
-export type ListedAccount = AdminAccount & { createdAt: Date; signIn: LockState };
-
-/** The accounts list's filters and page. */
-export interface AccountListQuery {
-  q?: string;
-  role?: Role;
-  state?: 'active' | 'disabled';
-  page: number;
-  pageSize: number;
-}
+import type { Role } from '../platform/roles';
+import type { AccountChangeRepository } from './account-change-repository';
+import type { AccountChange, AccountPage, AdminAccount } from '../../contracts/account/account-admin-answers';
+import type { AccountListQuery } from '../../contracts/account/account-admin-schemas';
 
 const HISTORY_LIMIT = 100;
 
@@ -42,7 +19,7 @@ export class AccountAdminService {
   ) {}
 
   /** One page of accounts with their sign-in locks, so admins see who is locked out beside their roles. */
-  async list(q: AccountListQuery): Promise<{ items: ListedAccount[]; total: number; page: number; pageSize: number }> {
+  async list(q: AccountListQuery): Promise<AccountPage> {
     const { items, total } = await this.users.page({
       ...q,
       disabled: q.state === undefined ? undefined : q.state === 'disabled',
@@ -51,7 +28,7 @@ export class AccountAdminService {
     return {
       items: items.map((u) => ({
         ...adminView(u),
-        createdAt: u.created_at,
+        createdAt: u.created_at.toISOString(),
         signIn: locks.get(u.email) ?? { failures: 0, locked: false },
       })),
       total,
@@ -106,7 +83,7 @@ export class AccountAdminService {
   }
 
   /** The account's role and access changes, newest first, so admins can see who changed what and when. */
-  async history(id: number): Promise<AccountChangeView[]> {
+  async history(id: number): Promise<AccountChange[]> {
     if (!(await this.users.byId(id))) throw notFound('No such user.');
     return (await this.changes.history(id, HISTORY_LIMIT)).map((c) => ({
       id: c.id,

@@ -1,22 +1,8 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { requireRole } from '../platform/require-role';
-import { ROLES } from '../platform/roles';
 import { fields, parse } from '../platform/validate';
 import type { AccountAdminService } from './account-admin-service';
-
-const ListQuery = z.object({
-  q: z.string().trim().max(100).optional(),
-  role: z.enum(ROLES).optional(),
-  state: z.enum(['active', 'disabled'], { error: 'State is active or disabled.' }).optional(),
-  page: fields.page,
-  pageSize: fields.pageSize,
-});
-const RolesBody = z.object({
-  roles: z
-    .array(z.enum(ROLES, { error: `Roles are ${ROLES.join(', ')}.` }), { error: 'Send a list of roles.' })
-    .max(ROLES.length),
-});
+import { AccountListQuerySchema, RolesBody } from '../../contracts/account/account-admin-schemas';
 
 /** Accounts, their roles, disabling, their history and their sign-in locks under /api/admin/users (admin only). */
 export function userAdminRoutes(accounts: AccountAdminService): Router {
@@ -24,7 +10,7 @@ export function userAdminRoutes(accounts: AccountAdminService): Router {
   r.use(requireRole('admin'));
 
   r.get('/', async function listUsers(req, res) {
-    res.json(await accounts.list(parse(ListQuery, req.query)));
+    res.json(await accounts.list(parse(AccountListQuerySchema, req.query)));
   });
 
   r.patch('/:id', async function setRoles(req, res) {

@@ -1,30 +1,12 @@
-import { z } from 'zod';
 import { refuseUnrenderable } from '../markdown/markdown-field';
-import { fields } from '../platform/validate';
-import { TopicField as topic } from '../../contracts/announcements/subscription-schemas';
+import { AnnouncementBody } from '../../contracts/announcements/announcement-schemas';
 
-const subject = z
-  .string({ error: 'Write a subject.' })
-  .trim()
-  .min(1, 'Write a subject.')
-  .max(200, 'At most 200 characters.');
-const markdown = z
-  .string({ error: 'Write the message.' })
-  .trim()
-  .min(1, 'Write the message.')
-  .max(50_000, 'At most 50,000 characters.')
-  .superRefine(refuseUnrenderable);
+export { AnnouncementListQuery } from '../../contracts/announcements/announcement-schemas';
 
-/** POST /api/admin/announcements. */
-export const NewAnnouncementSchema = z.strictObject({ topic, subject, markdown });
+/** POST /api/admin/announcements: the contract's body with the Markdown render check only the server makes. */
+export const NewAnnouncementSchema = AnnouncementBody.extend({
+  markdown: AnnouncementBody.shape.markdown.superRefine(refuseUnrenderable),
+});
 
 /** PATCH /api/admin/announcements/:id (drafts only). */
 export const AnnouncementPatchSchema = NewAnnouncementSchema.partial();
-
-/** GET /api/admin/announcements. */
-export const AnnouncementListQuery = z.strictObject({
-  page: fields.page,
-  pageSize: fields.pageSize,
-  sort: z.enum(['created', 'subject', 'topic'], { error: 'Sort by created, subject or topic.' }).default('created'),
-  dir: z.enum(['asc', 'desc'], { error: 'asc or desc.' }).default('desc'),
-});

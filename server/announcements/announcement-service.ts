@@ -9,7 +9,14 @@ import { ANNOUNCEMENT_SETTINGS, type AnnouncementSettings } from './announcement
 import type { CommercialContent } from './commercial-mail';
 import type { CommercialMailer } from './commercial-mailer';
 import type { SubscriptionRepository } from './subscription-repository';
-import type { Topic } from './topics';
+import type { AnnouncementDraft, AnnouncementQuery } from '../../contracts/announcements/announcement-schemas';
+import type {
+  Announcement,
+  AnnouncementAnswer,
+  AnnouncementPage,
+  AnnouncementPreview,
+  AnnouncementTestAnswer,
+} from '../../contracts/announcements/announcement-answers';
 
 export interface AnnouncementSite {
   teamName: string;
@@ -31,7 +38,7 @@ export class AnnouncementService {
   ) {}
 
   /** Saves a new announcement as a draft; nothing is sent until it is sent explicitly. */
-  async create(input: { topic: Topic; subject: string; markdown: string }, userId: number) {
+  async create(input: AnnouncementDraft, userId: number): Promise<AnnouncementAnswer> {
     const row = await this.repo.insert(this.db, {
       kind: 'announcement',
       topic: input.topic,
@@ -43,7 +50,7 @@ export class AnnouncementService {
   }
 
   /** Changes a draft; once sending started the text is what people received, so it stays. */
-  async update(id: number, patch: Partial<{ topic: Topic; subject: string; markdown: string }>) {
+  async update(id: number, patch: Partial<AnnouncementDraft>): Promise<AnnouncementAnswer> {
     return this.db.transaction(async (trx) => {
       const row = await this.repo.lockById(trx, id);
       if (!row) throw notFound('No such announcement.');
@@ -54,7 +61,7 @@ export class AnnouncementService {
   }
 
   /** One page of announcements for the staff table, each with its outbox counts. */
-  async list(q: { page: number; pageSize: number; sort: 'created' | 'subject' | 'topic'; dir: 'asc' | 'desc' }) {
+  async list(q: AnnouncementQuery): Promise<AnnouncementPage> {
     const { rows, total } = await this.repo.page(q);
     const counts = await this.repo.counts(rows.map((r) => r.id));
     return {
@@ -66,12 +73,12 @@ export class AnnouncementService {
   }
 
   /** One announcement with its delivery counts; a 404 for an unknown id. */
-  async show(id: number) {
+  async show(id: number): Promise<AnnouncementAnswer> {
     return { announcement: await this.view(await this.found(id)) };
   }
 
   /** The mail exactly as a recipient gets it, addressed to the staff member looking at it. */
-  async preview(id: number, viewerEmail: string) {
+  async preview(id: number, viewerEmail: string): Promise<AnnouncementPreview> {
     const row = await this.found(id);
     const mail = this.mailer.mailFor(
       this.content(row),
@@ -82,7 +89,7 @@ export class AnnouncementService {
   }
 
   /** Sends the mail to the staff member alone, marked as a test; it counts nowhere. */
-  async testSend(id: number, email: string) {
+  async testSend(id: number, email: string): Promise<AnnouncementTestAnswer> {
     const row = await this.found(id);
     const content = {
       ...this.content(row),
@@ -107,7 +114,7 @@ export class AnnouncementService {
    * Queues the announcement once per address that may receive its list today, in one transaction with the status
    * change, so a second click or a second process finds it sending and queues nothing (409).
    */
-  async send(id: number) {
+  async send(id: number): Promise<AnnouncementAnswer> {
     await this.subscriptions.recordImpliedConsents(this.site.timeZone);
     const row = await this.db.transaction(async (trx) => {
       const locked = await this.repo.lockById(trx, id);
@@ -198,11 +205,11 @@ export class AnnouncementService {
     return row;
   }
 
-  private async view(row: AnnouncementRow) {
+  private async view(row: AnnouncementRow): Promise<Announcement> {
     return this.toView(row, (await this.repo.counts([row.id])).get(row.id)!);
   }
 
-  private toView(r: AnnouncementRow, counts: DeliveryCounts) {
+  private toView(r: AnnouncementRow, counts: DeliveryCounts): Announcement {
     const status = r.status === 'draft' ? 'draft' : counts.queued > 0 ? 'sending' : 'sent';
     return {
       id: r.id,

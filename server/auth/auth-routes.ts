@@ -1,31 +1,16 @@
 import { Router, type Request } from 'express';
-import { z } from 'zod';
 import { csrfTokenFor } from '../platform/csrf';
 import { requireSignedIn } from '../platform/require-role';
-import { fields, parse } from '../platform/validate';
+import { parse } from '../platform/validate';
 import type { SessionUser } from '../platform/roles';
-import { PASSWORD_MAX } from './password-policy';
 import type { AuthService } from './auth-service';
-
-const password = z
-  .string({ error: 'Password is required.' })
-  .min(1, 'Password is required.')
-  .max(PASSWORD_MAX * 4, 'Password is too long.');
-const RegisterBody = z.object({
-  email: fields.email,
-  password,
-  displayName: z
-    .string({ error: 'Name is required.' })
-    .trim()
-    .min(1, 'Name is required.')
-    .max(80, 'Use at most 80 characters.'),
-});
-const LoginBody = z.object({ email: fields.email, password });
-const ResetRequestBody = z.object({ email: fields.email });
-const TokenBody = z.object({
-  token: z.string({ error: 'The link is incomplete.' }).min(10, 'The link is incomplete.').max(200),
-});
-const ResetConfirmBody = TokenBody.extend({ password });
+import {
+  LoginBody,
+  PasswordResetConfirmBody,
+  PasswordResetRequestBody,
+  RegisterBody,
+  TokenBody,
+} from '../../contracts/account/account-schemas';
 
 /** What every accepted registration answers, whether the address is new or not. */
 export const REGISTERED =
@@ -88,13 +73,13 @@ export function authRoutes(auth: AuthService): Router {
   });
 
   r.post('/password-reset', async function requestReset(req, res) {
-    const { email } = parse(ResetRequestBody, req.body);
+    const { email } = parse(PasswordResetRequestBody, req.body);
     auth.requestPasswordReset(email);
     res.status(202).json({ queued: true });
   });
 
   r.post('/password-reset/confirm', async function confirmReset(req, res) {
-    const body = parse(ResetConfirmBody, req.body);
+    const body = parse(PasswordResetConfirmBody, req.body);
     await auth.confirmPasswordReset(body.token, body.password);
     res.status(204).end();
   });

@@ -2,8 +2,9 @@
 // eslint-disable-next-line @typescript-eslint/no-require-imports
 const commonPasswords: { test(password: string): boolean } = require('fxa-common-password-list');
 
-export const PASSWORD_MIN = 12;
-export const PASSWORD_MAX = 128;
+import { PASSWORD_MAX, PASSWORD_MIN } from '../../contracts/account/account-schemas';
+
+export { PASSWORD_MAX, PASSWORD_MIN };
 
 /**
  * Length and blocklist only, no composition rules (OWASP ASVS 4.0.3 2.1.1, 2.1.2, 2.1.7, 2.1.9;

@@ -14,13 +14,7 @@ import { refundMail } from './membership-mail';
 import { type MembershipRepository, type MembershipRow, type PaymentRow } from './membership-repository';
 import type { DuesPaymentRepository } from './dues-payment-repository';
 import { MEMBERSHIP_SETTINGS } from './membership-settings';
-
-/** What the treasurer asks to refund. */
-export interface DuesRefundRequest {
-  paymentId: number;
-  amountCents: number;
-  reason: string;
-}
+import type { RefundRequest } from '../../contracts/membership/staff-member-schemas';
 
 // A claim older than this has outlived any processor call that could still answer (common practice, no source).
 const STALE_CLAIM_MS = 10 * 60_000;
@@ -47,7 +41,7 @@ export class DuesRefunds {
    * Refunds part or all of a payment. `requestKey` (the client's Idempotency-Key) makes a repeated request answer
    * with the first one's result instead of refunding again.
    */
-  async refund(actorId: number, memberId: number, input: DuesRefundRequest, requestKey: string | null): Promise<void> {
+  async refund(actorId: number, memberId: number, input: RefundRequest, requestKey: string | null): Promise<void> {
     const claim = await this.db.transaction(async (trx) => {
       const m = await this.repo.lockById(trx, memberId);
       if (!m) throw notFound('No such member.');
@@ -172,7 +166,7 @@ export class DuesRefunds {
     return stale.length;
   }
 
-  private answerReplay(earlier: PaymentRow, input: DuesRefundRequest): void {
+  private answerReplay(earlier: PaymentRow, input: RefundRequest): void {
     if (earlier.refund_of !== input.paymentId || -earlier.amount_cents !== input.amountCents)
       throw conflict('request_key_reused', 'That Idempotency-Key was used for a different refund.');
     if (earlier.status === 'requested')

@@ -9,26 +9,12 @@ import { associationVerification, certificationVerification, flyingVerdict, type
 import { type MembershipRepository, type MembershipRow } from './membership-repository';
 import { MEMBERSHIP_SETTINGS } from './membership-settings';
 import { liveStatus } from './membership-views';
-import { UNKNOWN_CARD, type CheckedBy, type CheckInResult } from '../../contracts/membership/check-in-answers';
+import { UNKNOWN_CARD, type CheckInResult } from '../../contracts/membership/check-in-answers';
+import type { VerifiedPart, VerifyInput } from '../../contracts/membership/staff-member-schemas';
+import type { Verifications } from '../../contracts/membership/staff-member-answers';
 
-/** Which self-entered part of a record staff verify. */
-export type VerifiedPart = 'association' | 'certification';
-
-/** Staff's verification: what they checked it against, and the values they saw (so a value changed since is not verified). */
-export interface VerifyInput {
-  what: VerifiedPart;
-  against: string;
-  associationNumber?: string | null;
-  associationExpires?: string | null;
-  certificationLevel?: string;
-}
-
-/** A verification as staff see it: when, by whom (name) and against what. */
 /** The verifications on a record, with the staff names. */
-export async function verificationsView(
-  repo: MembershipRepository,
-  m: MembershipRow,
-): Promise<Record<VerifiedPart, CheckedBy | null>> {
+export async function verificationsView(repo: MembershipRepository, m: MembershipRow): Promise<Verifications> {
   const [a, c] = [associationVerification(m), certificationVerification(m)];
   const names = await repo.userNames([a?.byUserId ?? null, c?.byUserId ?? null]);
   const view = (v: Verification | null) =>

@@ -9,63 +9,21 @@ import type { RosterMailService } from './roster-mail-service';
 import type { FlyingStatusService } from './flying-status-service';
 import { RosterEmailBody, RosterQuerySchema, type RosterQuery } from '../../contracts/membership/roster-schemas';
 import { MembershipSettingsInputSchema } from '../../contracts/membership/club-rules-schemas';
+import {
+  CheckInSchema,
+  ManualPaymentSchema,
+  MemberEditSchema,
+  NewPlanSchema,
+  PlanChangesSchema,
+  RefundSchema,
+  VerifiedPartSchema,
+  VerifySchema,
+} from '../../contracts/membership/staff-member-schemas';
 
 const rosterQuery = (value: unknown): { query: RosterQuery; page: number; pageSize: number } => {
   const { page, pageSize, ...query } = parse(RosterQuerySchema, value);
   return { query, page, pageSize };
 };
-
-const nullableDate = fields.date.nullable().or(z.literal('').transform(() => null));
-
-// Without defaults, so a PATCH of one field leaves the others as they are.
-const PlanFields = z.object({
-  name: z.string().trim().min(1, 'Name is required.').max(80),
-  description: z.string().trim().max(400),
-  duesCents: fields.cents,
-  joiningFeeCents: fields.cents,
-  active: z.boolean(),
-  sortOrder: z.number().int().min(0).max(1000),
-});
-
-const NewPlanSchema = PlanFields.extend({
-  code: z
-    .string()
-    .trim()
-    .toLowerCase()
-    .regex(/^[a-z0-9-]{2,32}$/, 'Use 2-32 lower-case letters, digits or dashes.'),
-  eligibility: z.enum(['any', 'junior', 'family']).default('any'),
-  description: PlanFields.shape.description.default(''),
-  joiningFeeCents: fields.cents.default(0),
-  active: z.boolean().default(true),
-  sortOrder: PlanFields.shape.sortOrder.default(0),
-});
-
-const MemberEditSchema = z.object({
-  associationNumber: z.string().trim().max(40).nullable().optional(),
-  associationExpires: nullableDate.optional(),
-  certificationLevel: z.string().trim().max(16).optional(),
-  certificationDate: nullableDate.optional(),
-  address: z.string().trim().min(1).max(400).optional(),
-  phone: z.string().trim().min(7).max(40).optional(),
-  emergencyContact: z.string().trim().min(1).max(200).optional(),
-});
-
-const ManualPaymentSchema = z.object({
-  amountCents: fields.cents.refine((v) => v > 0, 'Enter the amount received.'),
-  method: z.enum(['cash', 'e-transfer', 'cheque'], { error: 'Choose cash, e-transfer or cheque.' }),
-  receiptNumber: z
-    .string({ error: 'Receipt number is required.' })
-    .trim()
-    .min(1, 'Receipt number is required.')
-    .max(40),
-  note: z.string().trim().max(400).optional(),
-});
-
-const RefundSchema = z.object({
-  paymentId: fields.id,
-  amountCents: fields.cents,
-  reason: z.string({ error: 'Give a reason.' }).trim().min(1, 'Give a reason.').max(400),
-});
 
 // The client's key for one refund: a retry with the same Idempotency-Key gets the first answer, never a second refund.
 const IdempotencyKeySchema = z.object({
@@ -76,28 +34,7 @@ const IdempotencyKeySchema = z.object({
     .optional(),
 });
 
-const CheckInSchema = z.object({
-  token: z.string({ error: 'Paste or scan a card code.' }).trim().min(1, 'Paste or scan a card code.').max(500),
-});
-
 const IdParams = z.object({ id: fields.id });
-
-const Part = z.enum(['association', 'certification'], {
-  error: 'Choose the association membership or the certification.',
-});
-
-// The values staff saw come along, so a value the member changed meanwhile is not marked verified unseen.
-const VerifySchema = z.strictObject({
-  what: Part,
-  against: z
-    .string({ error: 'Say what you checked it against.' })
-    .trim()
-    .min(3, 'Say what you checked it against (for example: association card, seen at the field).')
-    .max(200, 'Use at most 200 characters.'),
-  associationNumber: z.string().trim().max(40).nullish(),
-  associationExpires: fields.date.nullish(),
-  certificationLevel: z.string().trim().max(16).optional(),
-});
 
 /** The treasurer's console: roster, member records, payments, refunds, summary, roster e-mail, plans, settings. */
 export function memberAdminRoutes(
@@ -137,7 +74,7 @@ export function memberAdminRoutes(
   });
   r.patch('/plans/:id', async function updatePlan(req, res) {
     const { id } = parse(IdParams, req.params);
-    res.json(await plans.updatePlan(id, parse(PlanFields.partial(), req.body)));
+    res.json(await plans.updatePlan(id, parse(PlanChangesSchema.partial(), req.body)));
   });
   r.get('/settings', async function showSettings(_req, res) {
     res.json(await plans.getSettings());
@@ -159,7 +96,7 @@ export function memberAdminRoutes(
     res.json(await service.detail(id));
   });
   r.delete('/:id/verifications/:what', async function withdrawVerification(req, res) {
-    const { id, what } = parse(z.object({ id: fields.id, what: Part }), req.params);
+    const { id, what } = parse(z.object({ id: fields.id, what: VerifiedPartSchema }), req.params);
     await flying.withdraw(req.user!.id, id, what);
     res.json(await service.detail(id));
   });

@@ -5,6 +5,8 @@ import type { ClubCalendar } from '../platform/club-calendar';
 import type { SettingsService } from '../settings/settings-service';
 import { termPolicy, type DuesSettlement } from './dues-settlement';
 import type { RosterQuery } from '../../contracts/membership/roster-schemas';
+import type { ManualPaymentRequest, MemberPatch } from '../../contracts/membership/staff-member-schemas';
+import type { DuesSummary, MemberDetail, RosterPage } from '../../contracts/membership/staff-member-answers';
 import type { MembershipRepository, AsOf } from './membership-repository';
 import type { PlanRepository } from './plan-repository';
 import type { DuesPaymentRepository } from './dues-payment-repository';
@@ -17,17 +19,6 @@ import { toCsv } from '../platform/csv';
 import { withVoidedVerifications } from './flying-status';
 import { verificationsView } from './flying-status-service';
 import { termForPayment } from './terms';
-
-/** Staff edits of a member's record. */
-export interface MemberPatch {
-  associationNumber?: string | null;
-  associationExpires?: string | null;
-  certificationLevel?: string;
-  certificationDate?: string | null;
-  address?: string;
-  phone?: string;
-  emergencyContact?: string;
-}
 
 /** The treasurer's side: roster, member detail, manual payments and summary (roster e-mail: roster-mail-service; plans and club rules:
  * plan-admin-service). */
@@ -57,7 +48,7 @@ export class MemberAdminService {
   }
 
   /** One page of the roster with each member's status as the dates give it today, so the table never shows a stale status. */
-  async roster(q: RosterQuery, page: number, pageSize: number) {
+  async roster(q: RosterQuery, page: number, pageSize: number): Promise<RosterPage> {
     const [policy, today] = [await this.policy(), this.today()];
     const result = await this.rosterRepo.rosterPage(q, page, pageSize, await this.asOf());
     return { items: result.items.map((r) => rosterView(r, today, policy)), total: result.total, page, pageSize };
@@ -100,7 +91,7 @@ export class MemberAdminService {
   }
 
   /** One member's full record for staff: profile, family, payments, verifications and audit trail. */
-  async detail(id: number) {
+  async detail(id: number): Promise<MemberDetail> {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     const m = await this.repo.byId(id);
     if (!m) throw notFound('No such member.');
@@ -125,13 +116,13 @@ export class MemberAdminService {
         action: a.action,
         detail: a.detail,
         actor: a.actor_name,
-        at: a.created_at,
+        at: a.created_at.toISOString(),
       })),
     };
   }
 
   /** Staff correction of the record; every change lands in the audit with before and after. */
-  async update(actorId: number, id: number, patch: MemberPatch) {
+  async update(actorId: number, id: number, patch: MemberPatch): Promise<MemberDetail> {
     const s = await this.settings.get(MEMBERSHIP_SETTINGS);
     if (
       patch.certificationLevel !== undefined &&
@@ -176,11 +167,7 @@ export class MemberAdminService {
   }
 
   /** Cash at the field, e-transfer or cheque: renews one term like a card payment, with the receipt number given. */
-  async manualPayment(
-    actorId: number,
-    id: number,
-    input: { amountCents: number; method: 'cash' | 'e-transfer' | 'cheque'; receiptNumber: string; note?: string },
-  ) {
+  async manualPayment(actorId: number, id: number, input: ManualPaymentRequest): Promise<MemberDetail> {
     const policy = await this.policy();
     const today = this.today();
     await this.db.transaction(async (trx) => {
@@ -215,7 +202,7 @@ export class MemberAdminService {
   }
 
   /** Dues collected per month and plan (net of refunds, club time zone) and members by status. */
-  async summary() {
+  async summary(): Promise<DuesSummary> {
     const collected = await this.paymentRepo.collectedByMonth(this.calendar.timeZone);
     const byStatus = await this.rosterRepo.countsByStatus(await this.asOf());
     const counts = { pending: 0, active: 0, lapsing: 0, lapsed: 0 };

@@ -1,4 +1,5 @@
 import type { Membership, Plan } from '../../contracts/membership/membership-answers';
+import type { PaymentLine, RosterLine } from '../../contracts/membership/staff-member-answers';
 import { type MembershipRow, type PaymentRow, type PlanRow, type RosterRow } from './membership-repository';
 import type { MembershipSettings } from './membership-settings';
 import { associationVerification, certificationVerification } from './flying-status';
@@ -74,7 +75,7 @@ export function membershipView(
 }
 
 /** A roster line for the staff table and the CSV. */
-export function rosterView(r: RosterRow, today: string, policy: TermPolicy) {
+export function rosterView(r: RosterRow, today: string, policy: TermPolicy): RosterLine {
   return {
     id: r.id,
     memberNumber: r.member_number,
@@ -95,7 +96,7 @@ export function rosterView(r: RosterRow, today: string, policy: TermPolicy) {
 }
 
 /** A payment or refund line. */
-export function paymentView(p: PaymentRow) {
+export function paymentView(p: PaymentRow): PaymentLine {
   return {
     id: p.id,
     entry: p.entry,
@@ -108,6 +109,6 @@ export function paymentView(p: PaymentRow) {
     refundOf: p.refund_of,
     note: p.note,
     failureMessage: p.failure_message,
-    createdAt: p.created_at,
+    createdAt: p.created_at.toISOString(),
   };
 }

@@ -1,10 +1,12 @@
 import type { Knex } from 'knex';
 import { conflict, notFound } from '../platform/app-error';
 import type { SettingsService } from '../settings/settings-service';
-import type { MembershipRepository, PlanRow } from './membership-repository';
+import type { MembershipRepository } from './membership-repository';
 import { MEMBERSHIP_SETTINGS, type MembershipSettings } from './membership-settings';
 import { planView } from './membership-views';
 import type { PlanRepository } from './plan-repository';
+import type { NewPlanInput, PlanChanges } from '../../contracts/membership/staff-member-schemas';
+import type { StaffPlanAnswer, StaffPlanList } from '../../contracts/membership/staff-member-answers';
 
 /** The treasurer's plans and the club's membership rules. */
 export class PlanAdminService {
@@ -16,21 +18,12 @@ export class PlanAdminService {
   ) {}
 
   /** Every plan, retired ones too, as the treasurer edits them. */
-  async plans() {
+  async plans(): Promise<StaffPlanList> {
     return { items: (await this.planRepo.allPlans()).map(planView) };
   }
 
   /** Plans are never deleted: payments and members point at them, so staff switch one off instead. */
-  async createPlan(input: {
-    code: string;
-    name: string;
-    description: string;
-    eligibility: PlanRow['eligibility'];
-    duesCents: number;
-    joiningFeeCents: number;
-    active: boolean;
-    sortOrder: number;
-  }) {
+  async createPlan(input: NewPlanInput): Promise<StaffPlanAnswer> {
     const taken = () =>
       conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
     if ((await this.planRepo.allPlans()).some((p) => p.code === input.code)) throw taken();
@@ -54,17 +47,7 @@ export class PlanAdminService {
   }
 
   /** Changes the given fields of a plan; prices apply to payments from now on, never to terms already paid. */
-  async updatePlan(
-    id: number,
-    input: Partial<{
-      name: string;
-      description: string;
-      duesCents: number;
-      joiningFeeCents: number;
-      active: boolean;
-      sortOrder: number;
-    }>,
-  ) {
+  async updatePlan(id: number, input: Partial<PlanChanges>): Promise<StaffPlanAnswer> {
     const row = await this.planRepo.updatePlan(this.db, id, {
       ...(input.name !== undefined ? { name: input.name } : {}),
       ...(input.description !== undefined ? { description: input.description } : {}),

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
-import type { RosterQuery } from '../../contracts/membership/roster-schemas';
+import type { RosterMailPurpose, RosterQuery } from '../../contracts/membership/roster-schemas';
+import type { RosterMailResult } from '../../contracts/membership/staff-member-answers';
 import type { CommercialMailer } from '../announcements/commercial-mailer';
 import { impliedConsentHolds } from '../announcements/implied-consent';
 import { enqueueEmail } from '../mail/outbox';
@@ -30,8 +31,8 @@ export class RosterMailService {
   async emailRoster(
     q: RosterQuery,
     mail: { subject: string; text: string },
-    purpose: 'news' | 'club-business' = 'news',
-  ) {
+    purpose: RosterMailPurpose = 'news',
+  ): Promise<RosterMailResult> {
     const rows = await this.rosterRepo.rosterAll(q, {
       today: this.calendar.today(),
       graceDays: termPolicy(await this.settings.get(MEMBERSHIP_SETTINGS)).graceDays,

@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ApiErrorBody } from '../../contracts/forms/error-answer';
 import { AppError } from './app-error';
 import { isDatabaseUnavailable } from './database-unavailable';
 
@@ -9,6 +10,9 @@ export const DATABASE_RETRY_AFTER_SECONDS = 5;
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new AppError(404, 'not_found', `No API route for ${req.method} ${req.path}.`));
 };
+
+/** The error answer, typed by the contract the app reads. */
+const errorBody = (error: ApiErrorBody['error']): ApiErrorBody => ({ error });
 
 interface HttpishError {
   status?: number;
@@ -27,7 +31,7 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
     if (err.headers) res.set(err.headers);
     res
       .status(err.status)
-      .json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+      .json(errorBody({ code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) }));
     return;
   }
   const e = (err ?? {}) as HttpishError;
@@ -39,27 +43,30 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
       'encoding.unsupported': 'The request body encoding is not supported.',
       'charset.unsupported': 'The request body charset is not supported.',
     };
-    res.status(status).json({
-      error: {
+    res.status(status).json(
+      errorBody({
         code: (e.type ?? 'bad_request').replace(/\./g, '_'),
         message: messages[e.type ?? ''] ?? 'The request could not be read.',
-      },
-    });
+      }),
+    );
     return;
   }
   if (isDatabaseUnavailable(err)) {
     req.log?.warn({ err }, 'database unavailable');
     res.set('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS));
-    res.status(503).json({
-      error: {
+    res.status(503).json(
+      errorBody({
         code: 'database_unavailable',
         message: 'Padside cannot reach its database just now. Please try again in a few seconds.',
-      },
-    });
+      }),
+    );
     return;
   }
   req.log?.error({ err }, 'unhandled error');
-  res.status(500).json({
-    error: { code: 'internal', message: 'Something went wrong on our side. It has been logged; please try again.' },
-  });
+  res.status(500).json(
+    errorBody({
+      code: 'internal',
+      message: 'Something went wrong on our side. It has been logged; please try again.',
+    }),
+  );
 };

@@ -1,4 +1,5 @@
 import express, { Router } from 'express';
+import type { CardEntry } from '../../contracts/shop/shop-answers';
 import type { Config } from '../config';
 import type { WebhookService } from './webhook-service';
 
@@ -10,11 +11,10 @@ export function paymentRoutes(config: Pick<Config['stripe'], 'publishableKey'>, 
   const r = Router();
   // With a publishable key the browser tokenises the card with Stripe.js; without one it offers the labelled test tokens.
   r.get('/card-entry', function cardEntry(_req, res) {
-    res.json(
-      config.publishableKey
-        ? { mode: 'stripe-js', publishableKey: config.publishableKey }
-        : { mode: 'test-cards', publishableKey: null },
-    );
+    const entry: CardEntry = config.publishableKey
+      ? { mode: 'stripe-js', publishableKey: config.publishableKey }
+      : { mode: 'test-cards', publishableKey: null };
+    res.json(entry);
   });
   r.post('/webhook', express.raw({ type: 'application/json', limit: '256kb' }), async function receiveEvent(req, res) {
     const handled = await webhooks.receive(req.body, req.header('stripe-signature'));

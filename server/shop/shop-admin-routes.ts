@@ -5,7 +5,9 @@ import { requireRole } from '../platform/require-role';
 import { fields, parse } from '../platform/validate';
 import type { SettingsService } from '../settings/settings-service';
 import type { CatalogueService } from './catalogue-service';
-import { ProductBody, ProductPatch, RunBody } from './catalogue-service';
+import { ProductBody, ProductPatch } from './product-bodies';
+import type { RunAdminService } from './run-admin-service';
+import { NewRunBody, RunStateBody, ShippingMethodBody } from '../../contracts/shop/staff-shop-schemas';
 import { toCsv } from '../platform/csv';
 import type { FulfilmentService } from './fulfilment-service';
 import type { RefundService } from './refund-service';
@@ -22,18 +24,10 @@ const RequestKey = z
   .trim()
   .regex(/^[A-Za-z0-9_.:-]{8,120}$/, 'Use 8-120 letters, digits, dashes, dots, colons or underscores.')
   .optional();
-const RunStateBody = z.object({
-  state: z.enum(['closed', 'in_production', 'shipped'], { error: 'Choose closed, in production or shipped.' }),
-});
-const Bracket = z.object({ maxGrams: z.number().int().min(1).max(100000).nullable(), priceCents: fields.cents });
-const ShippingBody = z.object({
-  name: z.string().trim().min(2, 'Name is required.').max(80),
-  brackets: z.array(Bracket).min(1, 'Add at least one weight bracket.').max(20),
-  active: z.boolean(),
-});
 
 export interface ShopAdminDeps {
   catalogue: CatalogueService;
+  runs: RunAdminService;
   fulfilment: FulfilmentService;
   refunds: RefundService;
   orders: StaffOrderService;
@@ -108,20 +102,20 @@ export function runAdminRoutes(d: ShopAdminDeps): Router {
   const r = Router();
   r.use(requireRole(...SHOP_STAFF));
   r.get('/', async function listRuns(_req, res) {
-    res.json({ items: await d.catalogue.runs() });
+    res.json({ items: await d.runs.runs() });
   });
   r.post('/', async function addRun(req, res) {
-    res.status(201).json({ run: await d.catalogue.createRun(parse(RunBody, req.body)) });
+    res.status(201).json({ run: await d.runs.createRun(parse(NewRunBody, req.body)) });
   });
   r.post('/:id/state', async function moveRun(req, res) {
     const id = parse(fields.id, req.params.id);
-    res.json({ run: await d.catalogue.setRunState(id, parse(RunStateBody, req.body).state) });
+    res.json({ run: await d.runs.setRunState(id, parse(RunStateBody, req.body).state) });
   });
   r.get('/:id/print-sheet', async function printSheet(req, res) {
-    res.json(await d.catalogue.printSheet(parse(fields.id, req.params.id)));
+    res.json(await d.runs.printSheet(parse(fields.id, req.params.id)));
   });
   r.get('/:id/print-sheet.csv', async function printSheetCsv(req, res) {
-    const s = await d.catalogue.printSheet(parse(fields.id, req.params.id));
+    const s = await d.runs.printSheet(parse(fields.id, req.params.id));
     res.type('text/csv; charset=utf-8').attachment(`print-run-${s.run.id}.csv`);
     res.send(
       toCsv(
@@ -151,7 +145,7 @@ export function shopSettingsRoutes(d: ShopAdminDeps): Router {
   });
   r.put('/shipping-methods/:id', async function saveShippingMethod(req, res) {
     const id = parse(fields.id, req.params.id);
-    res.json({ method: await d.config.saveShippingMethod(id, parse(ShippingBody, req.body)) });
+    res.json({ method: await d.config.saveShippingMethod(id, parse(ShippingMethodBody, req.body)) });
   });
   r.get('/tax-rates', async function listTaxRates(_req, res) {
     res.json({ items: await d.config.taxRateTable() });

@@ -4,6 +4,7 @@ import { NotifiedCache, type ReadyJson } from '../platform/notified-cache';
 import { BuyerOrderService } from './buyer-order-service';
 import { CatalogueRepository } from './catalogue-repository';
 import { CatalogueService } from './catalogue-service';
+import { RunAdminService } from './run-admin-service';
 import { shopPersonalData } from './shop-personal-data';
 import { CheckoutService } from './checkout-service';
 import { FulfilmentService } from './fulfilment-service';
@@ -42,7 +43,6 @@ export function shopFeature(
   const catalogue = new CatalogueService(
     deps.db,
     catalogueRepo,
-    settings,
     deps.clock,
     new NotifiedCache<ReadyJson>(platform.notifications, 'shop_catalogue'),
   );
@@ -97,6 +97,7 @@ export function shopFeature(
   };
   const admin = {
     catalogue,
+    runs: new RunAdminService(deps.db, catalogueRepo, settings, deps.clock),
     fulfilment,
     refunds,
     orders: new StaffOrderService(orders, refundRepo, deps.config.clubTimeZone),

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import type { Config } from '../config';
+import type { SiteNamesView } from '../../contracts/site/site-answers';
 
 /**
  * GET /api/site: the team and club names every page shows and the club's time zone its dates are shown in; public,
@@ -8,7 +9,8 @@ import type { Config } from '../config';
 export function siteRoutes(site: Config['site'], timeZone: string): Router {
   const r = Router();
   r.get('/', function siteNames(_req, res) {
-    res.json({ ...site, timeZone });
+    const names: SiteNamesView = { ...site, timeZone };
+    res.json(names);
   });
   return r;
 }

@@ -3,7 +3,14 @@ import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
 import { QUIET_ERRORS } from '../core/error-interceptor';
 import type { Profile, User } from '@contracts/account/account-answers';
-import type { ProfileInput } from '@contracts/account/account-schemas';
+import type {
+  DeleteAccountInput,
+  PasswordChangeInput,
+  PasswordResetConfirmInput,
+  PasswordResetRequestInput,
+  ProfileInput,
+  TokenInput,
+} from '@contracts/account/account-schemas';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -14,7 +21,7 @@ export class AccountApi {
 
   /** Confirms the e-mail address with the token from the link; errors are the page's to show. */
   verifyEmail(token: string): Observable<void> {
-    return this.http.post<void>('/api/auth/verify', { token }, quiet());
+    return this.http.post<void>('/api/auth/verify', { token } satisfies TokenInput, quiet());
   }
   /** Sends the verification e-mail again to the signed-in address. */
   resendVerification(): Observable<unknown> {
@@ -22,11 +29,15 @@ export class AccountApi {
   }
   /** Asks for a password-reset e-mail; the answer is the same whether or not the address has an account. */
   requestReset(email: string): Observable<unknown> {
-    return this.http.post('/api/auth/password-reset', { email }, quiet());
+    return this.http.post('/api/auth/password-reset', { email } satisfies PasswordResetRequestInput, quiet());
   }
   /** Sets a new password with the token from the reset e-mail. */
   confirmReset(token: string, password: string): Observable<void> {
-    return this.http.post<void>('/api/auth/password-reset/confirm', { token, password }, quiet());
+    return this.http.post<void>(
+      '/api/auth/password-reset/confirm',
+      { token, password } satisfies PasswordResetConfirmInput,
+      quiet(),
+    );
   }
   /** The signed-in person's profile and their choice about marketing mail. */
   profile(): Observable<Profile> {
@@ -38,10 +49,14 @@ export class AccountApi {
   }
   /** Changes the password after checking the current one; other sessions end on the server. */
   changePassword(currentPassword: string, newPassword: string): Observable<void> {
-    return this.http.post<void>('/api/account/password', { currentPassword, newPassword }, quiet());
+    return this.http.post<void>(
+      '/api/account/password',
+      { currentPassword, newPassword } satisfies PasswordChangeInput,
+      quiet(),
+    );
   }
   /** Deletes the signed-in account; the server ends every session of it. */
   deleteAccount(password: string): Observable<{ deleted: true }> {
-    return this.http.post<{ deleted: true }>('/api/account/delete', { password }, quiet());
+    return this.http.post<{ deleted: true }>('/api/account/delete', { password } satisfies DeleteAccountInput, quiet());
   }
 }

@@ -18,7 +18,8 @@ import { ClubDatePipe } from '../shared/club-date-pipe';
 import { ConfirmDialog, type ConfirmData } from '../shared/confirm-dialog';
 import { EmptyState } from '../shared/empty-state';
 import { AccountHistoryDialog, type AccountHistoryData } from './account-history-dialog';
-import { UserAdminApi, type AdminUser } from './user-admin-api';
+import { UserAdminApi } from './user-admin-api';
+import type { AdminAccount } from '@contracts/account/account-admin-answers';
 import { ROLE_LABELS } from '@contracts/labels/roles';
 
 const EDITABLE_ROLES: Role[] = ['fan', 'member', 'sponsor', 'editor', 'treasurer', 'range_officer', 'admin'];
@@ -86,7 +87,7 @@ export class UserList {
   }
 
   /** Lifts the account's sign-in lock and address blocks, once staff know the owner is the one signing in. */
-  protected async clearLock(user: AdminUser): Promise<void> {
+  protected async clearLock(user: AdminAccount): Promise<void> {
     try {
       await firstValueFrom(this.api.clearSignInLock(user.id));
       this.snackBar.open(`Sign-in lock cleared for ${user.displayName}.`, undefined, { duration: 3000 });
@@ -96,7 +97,7 @@ export class UserList {
   }
 
   /** Saves the roles; granting treasurer or admin asks first, and going back leaves the roles as they were. */
-  protected async saveRoles(user: AdminUser, roles: Role[]): Promise<void> {
+  protected async saveRoles(user: AdminAccount, roles: Role[]): Promise<void> {
     const granted = roles.filter((r) => !user.roles.includes(r) && WEIGHTY[r]);
     if (granted.length) {
       const names = granted.map((r) => this.roleName(r).toLowerCase()).join(' and ');
@@ -118,7 +119,7 @@ export class UserList {
     }
   }
 
-  protected async setDisabled(user: AdminUser, disabled: boolean): Promise<void> {
+  protected async setDisabled(user: AdminAccount, disabled: boolean): Promise<void> {
     if (disabled) {
       const ok = await this.confirm({
         title: `Disable ${user.displayName}?`,
@@ -142,7 +143,7 @@ export class UserList {
     }
   }
 
-  protected showHistory(user: AdminUser): void {
+  protected showHistory(user: AdminAccount): void {
     this.dialog.open<AccountHistoryDialog, AccountHistoryData>(AccountHistoryDialog, {
       data: { id: user.id, displayName: user.displayName },
       width: 'min(640px, 96vw)',

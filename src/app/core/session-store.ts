@@ -5,6 +5,7 @@ import { firstValueFrom } from 'rxjs';
 import { QUIET_ERRORS } from './error-interceptor';
 import { CsrfToken } from './csrf-token';
 import { STAFF_ROLES, type Role, type User } from './user';
+import type { LoginInput, RegisterInput } from '@contracts/account/account-schemas';
 
 /** The signed-in user as signals; every sign-in and sign-out goes through here. */
 @Injectable({ providedIn: 'root' })
@@ -42,11 +43,9 @@ export class SessionStore {
   /** Signs in and keeps the user; a new session means a new CSRF token. */
   async signIn(email: string, password: string): Promise<User> {
     const res = await firstValueFrom(
-      this.http.post<{ user: User }>(
-        '/api/auth/login',
-        { email, password },
-        { context: new HttpContext().set(QUIET_ERRORS, true) },
-      ),
+      this.http.post<{ user: User }>('/api/auth/login', { email, password } satisfies LoginInput, {
+        context: new HttpContext().set(QUIET_ERRORS, true),
+      }),
     );
     this.csrf.forget();
     this.current.set(res.user);
@@ -61,7 +60,7 @@ export class SessionStore {
     const res = await firstValueFrom(
       this.http.post<{ queued: true; message: string }>(
         '/api/auth/register',
-        { email, password, displayName },
+        { email, password, displayName } satisfies RegisterInput,
         { context: new HttpContext().set(QUIET_ERRORS, true) },
       ),
     );

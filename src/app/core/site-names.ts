@@ -1,14 +1,10 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { clubTimeInWords } from '@contracts/dates/club-dates';
+import type { SiteNamesView } from '@contracts/site/site-answers';
 
 /** The team and club this Padside serves and the club's time zone, as `/api/site` returns them. */
-export interface SiteNamesView {
-  teamName: string;
-  clubName: string;
-  /** A tz database name such as `America/Winnipeg`: every date and time is shown in club time. */
-  timeZone: string;
-}
+export type { SiteNamesView };
 
 // Until the answer arrives (or if it never does), dates follow this browser's own zone.
 const BROWSER_ZONE = new Intl.DateTimeFormat().resolvedOptions().timeZone;

@@ -10,6 +10,4 @@ export const STAFF_ROLES: readonly Role[] = ['editor', 'treasurer', 'admin', 'ra
 export type { User } from '@contracts/account/account-answers';
 
 /** The error body every API failure carries. */
-export interface ApiErrorBody {
-  error: { code: string; message: string; fields?: Record<string, string> };
-}
+export type { ApiErrorBody } from '@contracts/forms/error-answer';

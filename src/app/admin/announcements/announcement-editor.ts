@@ -10,7 +10,8 @@ import { MatSelectModule } from '@angular/material/select';
 import type { Topic } from '@contracts/announcements/topics';
 import { apiErrorMessage, applyServerErrors } from '../../core/api-error';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
-import { AnnouncementAdminApi, type Announcement, type AnnouncementPreview } from './announcement-admin-api';
+import { AnnouncementAdminApi } from './announcement-admin-api';
+import type { Announcement, AnnouncementPreview } from '@contracts/announcements/announcement-answers';
 
 const POLL_MS = 2000;
 

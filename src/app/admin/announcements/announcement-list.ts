@@ -7,7 +7,8 @@ import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { EmptyState } from '../../shared/empty-state';
-import { AnnouncementAdminApi, type AnnouncementQuery } from './announcement-admin-api';
+import { AnnouncementAdminApi } from './announcement-admin-api';
+import type { AnnouncementQuery } from '@contracts/announcements/announcement-schemas';
 import { SenderSettings } from './sender-settings';
 
 /** Every announcement and drop notice with its status and delivery counts, sorted and paged by the server. */

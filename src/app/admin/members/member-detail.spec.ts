@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { MemberDetail } from './member-detail';
-import type { MemberDetail as MemberDetailView } from './members-api';
+import type { MemberDetail as MemberDetailView } from '@contracts/membership/staff-member-answers';
 
 const detail: MemberDetailView = {
   member: {

@@ -22,7 +22,9 @@ import { LabelPipe } from '../../shared/label-pipe';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import { MoneyPipe } from '../../shared/money-pipe';
 import { newRequestKey } from '../../shared/request-key';
-import { MembersApi, type MemberDetail as MemberDetailView, type PaymentLine, type VerifiedPart } from './members-api';
+import { MembersApi } from './members-api';
+import type { MemberDetail as MemberDetailView, PaymentLine } from '@contracts/membership/staff-member-answers';
+import type { ManualPaymentRequest, VerifiedPart } from '@contracts/membership/staff-member-schemas';
 import { centsToDollars, dollarsToCents } from '../../shared/dollars';
 
 /** Server errors on `amountCents` belong beside the dollars field. */
@@ -67,7 +69,7 @@ export class MemberDetail {
   protected readonly detail = rxResource({ params: () => this.id(), stream: ({ params }) => this.api.detail(params) });
   protected readonly paymentForm = this.fb.group({
     amount: ['', [Validators.required, Validators.pattern(/^\d+(\.\d{1,2})?$/)]],
-    method: ['cash', Validators.required],
+    method: ['cash' as ManualPaymentRequest['method'], Validators.required],
     receiptNumber: ['', [Validators.required, Validators.maxLength(40)]],
     note: [''],
   });

@@ -23,7 +23,8 @@ import { applyServerErrors } from '../../core/api-error';
 import type { ApiErrorBody } from '../../core/user';
 import { FieldErrorPipe } from '../../shared/field-error-pipe';
 import type { Plan } from '@contracts/membership/membership-answers';
-import { ELIGIBILITY_LABELS, MembersApi, type PlanChanges } from './members-api';
+import { ELIGIBILITY_LABELS, MembersApi } from './members-api';
+import type { PlanChanges } from '@contracts/membership/staff-member-schemas';
 import { centsToDollars, dollarsToCents } from '../../shared/dollars';
 
 // Six dollar digits stay under the server's cap on amounts.

@@ -7,17 +7,7 @@ import type { RefundPreview, StaffOrder, StaffOrderPage, StaffRefund } from '@co
 import type { OrderListQuery, RefundInput, ShipInput } from '@contracts/shop/staff-order-schemas';
 import type { ShopSettings, ShopSettingsInput } from '@contracts/shop/shop-settings-schemas';
 import type { PrintSheet, RunMove, StaffRun, StaffShippingMethod } from '@contracts/shop/staff-shop-answers';
-
-/** POST /api/admin/runs: still a copy of the server's RunBody (server/shop/catalogue-service.ts). */
-export interface NewRun {
-  productId: number;
-  name?: string;
-  cap: number;
-  opensAt: string;
-  closesAt: string;
-  unitCostCents?: number;
-  variantCaps: { variantId: number; cap: number }[];
-}
+import type { NewProduct, NewRun, ProductChanges, ShippingMethodInput } from '@contracts/shop/staff-shop-schemas';
 
 const quiet = () => ({ context: new HttpContext().set(QUIET_ERRORS, true) });
 
@@ -68,11 +58,11 @@ export class ShopAdminApi {
     return this.http.get<{ items: (Product & { active: boolean })[]; timeZone: string }>('/api/admin/products');
   }
   /** Adds a product with its first run; refusals come back for the fields. */
-  createProduct(body: object): Observable<unknown> {
+  createProduct(body: NewProduct): Observable<unknown> {
     return this.http.post('/api/admin/products', body, quiet());
   }
   /** Changes the product fields sent. */
-  editProduct(id: number, patch: object): Observable<unknown> {
+  editProduct(id: number, patch: ProductChanges): Observable<unknown> {
     return this.http.patch(`/api/admin/products/${id}`, patch);
   }
   /** The staff upload endpoint: the server sniffs the bytes and makes the thumbnail. */
@@ -114,11 +104,8 @@ export class ShopAdminApi {
       .pipe(map((r) => r.items));
   }
   /** Saves a shipping method's name, brackets and on/off switch. */
-  saveShippingMethod(m: Pick<StaffShippingMethod, 'id' | 'name' | 'brackets' | 'active'>): Observable<unknown> {
-    return this.http.put(
-      `/api/admin/shop/shipping-methods/${m.id}`,
-      { name: m.name, brackets: m.brackets, active: m.active },
-      quiet(),
-    );
+  saveShippingMethod(m: ShippingMethodInput & Pick<StaffShippingMethod, 'id'>): Observable<unknown> {
+    const body: ShippingMethodInput = { name: m.name, brackets: m.brackets, active: m.active };
+    return this.http.put(`/api/admin/shop/shipping-methods/${m.id}`, body, quiet());
   }
 }
