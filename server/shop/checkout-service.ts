@@ -110,7 +110,7 @@ export class CheckoutService {
       throw new AppError(402, 'payment_declined', result.message, { paymentToken: result.message });
     }
     this.log.warn({ orderId: order.id, message: result.message }, 'payment outcome unknown; order left pending');
-    await this.orders.update(this.db, order.id, { payment_message: result.message });
+    await this.db.transaction((trx) => this.orders.update(trx, order.id, { payment_message: result.message }));
     return {
       status: 'pending',
       bundle: (await this.orders.find(order.id))!,

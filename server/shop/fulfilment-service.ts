@@ -19,8 +19,10 @@ export class FulfilmentService {
   /** Marks a paid order packed; only paid orders move, so an unpaid one is never shipped by mistake. */
   async pack(id: number): Promise<OrderBundle> {
     await this.mustExist(id);
-    if (!(await this.orders.transition(this.db, id, ['paid'], { status: 'packed', packed_at: this.clock.now() })))
-      throw conflict('wrong_status', 'Only a paid order can be marked packed.');
+    const packed = await this.db.transaction((trx) =>
+      this.orders.transition(trx, id, ['paid'], { status: 'packed', packed_at: this.clock.now() }),
+    );
+    if (!packed) throw conflict('wrong_status', 'Only a paid order can be marked packed.');
     return (await this.orders.find(id))!;
   }
 

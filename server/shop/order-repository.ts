@@ -93,7 +93,6 @@ const ORDER_SORTS: Record<OrderSortKey, string> = {
   status: 'o.status',
 };
 
-type Db = Knex | Knex.Transaction;
 const fix = (r: Record<string, unknown>): OrderRow => ({
   ...(r as unknown as OrderRow),
   priced_on: r.priced_on_text as string,
@@ -175,7 +174,7 @@ export class OrderRepository {
 
   /** Moves an order between statuses only from the expected one; returns whether it moved. */
   async transition(
-    trx: Db,
+    trx: Knex.Transaction,
     id: number,
     from: OrderStatus[],
     patch: Partial<OrderRow> & { status?: OrderStatus },
@@ -213,13 +212,13 @@ export class OrderRepository {
     return claimed ? Number(claimed.payment_attempts) : null;
   }
 
-  /** Writes the given order columns in the caller's transaction or connection. */
-  async update(trx: Db, id: number, patch: Record<string, unknown>): Promise<void> {
+  /** Writes the given order columns in the caller's transaction. */
+  async update(trx: Knex.Transaction, id: number, patch: Record<string, unknown>): Promise<void> {
     await trx('shop_orders').where('id', id).update(patch);
   }
 
   /** The order with its lines, taxes and refunds, unlocked; use `findLocked` before changing money on it. */
-  async find(id: number, trx: Db = this.db): Promise<OrderBundle | null> {
+  async find(id: number, trx: Knex = this.db): Promise<OrderBundle | null> {
     return this.bundle(trx, await this.orderRow(trx, id));
   }
 
@@ -228,14 +227,14 @@ export class OrderRepository {
     return this.bundle(trx, await this.orderRow(trx, id).forUpdate());
   }
 
-  private orderRow(trx: Db, id: number) {
+  private orderRow(trx: Knex, id: number) {
     return trx('shop_orders')
       .select('*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text"))
       .where('id', id)
       .first();
   }
 
-  private async bundle(trx: Db, row: Record<string, unknown> | undefined): Promise<OrderBundle | null> {
+  private async bundle(trx: Knex, row: Record<string, unknown> | undefined): Promise<OrderBundle | null> {
     if (!row) return null;
     const id = row.id as number;
     const items = await this.items(trx, id);
@@ -244,11 +243,11 @@ export class OrderRepository {
     return { order: fix(row), items, taxes, refunds };
   }
 
-  private async items(trx: Db, orderId: number): Promise<OrderItemRow[]> {
+  private async items(trx: Knex, orderId: number): Promise<OrderItemRow[]> {
     return trx<OrderItemRow>('shop_order_items').where('order_id', orderId).orderBy('id');
   }
 
-  private async taxes(trx: Db, orderId: number): Promise<OrderTaxRow[]> {
+  private async taxes(trx: Knex, orderId: number): Promise<OrderTaxRow[]> {
     return (await trx('shop_order_taxes').where('order_id', orderId).orderBy('code')).map((t) => ({
       ...t,
       rate_percent: String(t.rate_percent),
@@ -256,7 +255,7 @@ export class OrderRepository {
   }
 
   /** The id of the order a processor charge paid, so webhooks and refunds find their order. */
-  async byChargeId(chargeId: string, trx: Db = this.db): Promise<number | null> {
+  async byChargeId(chargeId: string, trx: Knex = this.db): Promise<number | null> {
     const row = await trx('shop_orders').where('charge_id', chargeId).first('id');
     return row ? (row.id as number) : null;
   }
@@ -273,7 +272,7 @@ export class OrderRepository {
   }
 
   /** The runs an order has units in, oldest closing first. */
-  async runsOf(orderId: number, trx: Db = this.db): Promise<RunRow[]> {
+  async runsOf(orderId: number, trx: Knex = this.db): Promise<RunRow[]> {
     const rows = await trx('shop_runs as r')
       .whereIn('r.id', trx('shop_order_items').where('order_id', orderId).whereNotNull('run_id').select('run_id'))
       .select('r.*')
@@ -355,7 +354,7 @@ export class OrderRepository {
   }
 
   /** Names of the runs this order still waits for: pre-order lines (not given back) whose run has not been printed. */
-  async unprintedRuns(orderId: number, db: Db = this.db): Promise<string[]> {
+  async unprintedRuns(orderId: number, db: Knex = this.db): Promise<string[]> {
     return db('shop_order_items as i')
       .join('shop_runs as r', 'r.id', 'i.run_id')
       .where('i.order_id', orderId)
