@@ -3,7 +3,8 @@ import { enqueueEmail } from '../mail/outbox';
 import { conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
 import type { OrderLinks } from './order-links';
-import type { OrderBundle, OrderRepository } from './order-repository';
+import type { OrderRepository } from './order-repository';
+import type { OrderBundle } from './order-rows';
 import { shippedEmail } from './shop-emails';
 
 /** Packing and shipping: staff work on paid orders (refunds: RefundService). */
