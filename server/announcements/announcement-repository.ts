@@ -42,7 +42,7 @@ export class AnnouncementRepository {
   constructor(private readonly db: Knex) {}
 
   /** Inserts an announcement and returns the stored row. */
-  async insert(trx: Knex | Knex.Transaction, row: Partial<AnnouncementRow>): Promise<AnnouncementRow> {
+  async insert(trx: Knex.Transaction, row: Partial<AnnouncementRow>): Promise<AnnouncementRow> {
     const [created] = await trx('announcements').insert(row).returning('*');
     return created;
   }
@@ -54,8 +54,8 @@ export class AnnouncementRepository {
   }
 
   /** An announcement by id. */
-  byId(id: number, trx: Knex | Knex.Transaction = this.db): Promise<AnnouncementRow | undefined> {
-    return trx('announcements').where('id', id).first();
+  byId(id: number, db: Knex = this.db): Promise<AnnouncementRow | undefined> {
+    return db('announcements').where('id', id).first();
   }
 
   /** An announcement locked for update, so a change and a send cannot interleave. */
@@ -64,7 +64,7 @@ export class AnnouncementRepository {
   }
 
   /** Writes the changed fields, stamps the change time and returns the stored row. */
-  async update(trx: Knex | Knex.Transaction, id: number, patch: Partial<AnnouncementRow>): Promise<AnnouncementRow> {
+  async update(trx: Knex.Transaction, id: number, patch: Partial<AnnouncementRow>): Promise<AnnouncementRow> {
     const [row] = await trx('announcements')
       .where('id', id)
       .update({ ...patch, updated_at: trx.fn.now() })

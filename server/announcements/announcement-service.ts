@@ -39,13 +39,15 @@ export class AnnouncementService {
 
   /** Saves a new announcement as a draft; nothing is sent until it is sent explicitly. */
   async create(input: AnnouncementDraft, userId: number): Promise<AnnouncementAnswer> {
-    const row = await this.repo.insert(this.db, {
-      kind: 'announcement',
-      topic: input.topic,
-      subject: input.subject,
-      markdown: input.markdown,
-      created_by: userId,
-    });
+    const row = await this.db.transaction((trx) =>
+      this.repo.insert(trx, {
+        kind: 'announcement',
+        topic: input.topic,
+        subject: input.subject,
+        markdown: input.markdown,
+        created_by: userId,
+      }),
+    );
     return { announcement: await this.view(row) };
   }
 
@@ -110,12 +112,17 @@ export class AnnouncementService {
     return { to: email };
   }
 
+  /** Records the implied consents that paid orders and memberships give (the nightly job, and before each send). */
+  async recordImpliedConsents(): Promise<void> {
+    await this.db.transaction((trx) => this.subscriptions.recordImpliedConsents(trx, this.site.timeZone));
+  }
+
   /**
    * Queues the announcement once per address that may receive its list today, in one transaction with the status
    * change, so a second click or a second process finds it sending and queues nothing (409).
    */
   async send(id: number): Promise<AnnouncementAnswer> {
-    await this.subscriptions.recordImpliedConsents(this.site.timeZone);
+    await this.recordImpliedConsents();
     const row = await this.db.transaction(async (trx) => {
       const locked = await this.repo.lockById(trx, id);
       if (!locked) throw notFound('No such announcement.');

@@ -47,11 +47,7 @@ export function announcementsFeature(platform: Platform): Feature {
     },
     jobs: [
       { name: 'drop-notices', cron: '*/5 * * * *', run: () => announcements.sendDropNotices() },
-      {
-        name: 'implied-consents',
-        cron: '30 3 * * *',
-        run: () => subscriptionRepo.recordImpliedConsents(config.clubTimeZone),
-      },
+      { name: 'implied-consents', cron: '30 3 * * *', run: () => announcements.recordImpliedConsents() },
     ],
     personalData: announcementsPersonalData,
   };

@@ -1,4 +1,5 @@
-import { escapeHtml, renderMarkdown } from '../markdown/render-markdown';
+import { escapeHtml } from '../markdown/escape-html';
+import { renderMarkdown } from '../markdown/render-markdown';
 import type { CommercialEmail } from '../mail/outbox';
 import { TOPIC_LABELS, type MailList } from './topics';
 

@@ -32,7 +32,7 @@ export class CommercialMailer {
   }
 
   /** Who the mail is from, as the footer must say: the team's name, its postal address and a contact address from the settings. */
-  async sender(trx?: Knex | Knex.Transaction): Promise<SenderIdentity> {
+  async sender(trx?: Knex.Transaction): Promise<SenderIdentity> {
     const s = await this.settings.get(ANNOUNCEMENT_SETTINGS, trx);
     return { teamName: this.teamName, mailingAddress: s.mailingAddress, contactEmail: s.contactEmail };
   }

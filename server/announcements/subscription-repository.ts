@@ -129,13 +129,7 @@ export class SubscriptionRepository {
   }
 
   /** Withdraws every live consent of an address for a list (or for all lists); returns how many there were. */
-  async withdraw(
-    trx: Knex | Knex.Transaction,
-    email: string,
-    topic: MailList | null,
-    at: Date,
-    how: string,
-  ): Promise<number> {
+  async withdraw(trx: Knex.Transaction, email: string, topic: MailList | null, at: Date, how: string): Promise<number> {
     return trx('subscriptions')
       .where('email', email)
       .modify((q) => topic && q.where('topic', topic))
@@ -167,12 +161,8 @@ export class SubscriptionRepository {
    * Addresses with a confirmed express consent for the list. `productId` narrows drop requests to those for that
    * product or for every product; without it, product requests count too (they asked about drops).
    */
-  expressAudience(
-    trx: Knex | Knex.Transaction,
-    topic: Topic,
-    productId?: number,
-  ): Promise<{ email: string; since: Date }[]> {
-    return trx('subscriptions')
+  expressAudience(db: Knex, topic: Topic, productId?: number): Promise<{ email: string; since: Date }[]> {
+    return db('subscriptions')
       .where('topic', topic)
       .whereNotNull('confirmed_at')
       .modify(LIVE)
@@ -180,36 +170,36 @@ export class SubscriptionRepository {
         (q) => productId !== undefined && q.where((w) => w.whereNull('product_id').orWhere('product_id', productId)),
       )
       .groupBy('email')
-      .select('email', trx.raw('MIN(confirmed_at) AS since'));
+      .select('email', db.raw('MIN(confirmed_at) AS since'));
   }
 
   /** The latest implied consent date of each address, per basis; an account that turned off news mail has none. */
   impliedConsents(
-    trx: Knex | Knex.Transaction,
+    db: Knex,
     bases: ImpliedBasis[],
   ): Promise<{ email: string; basis: ImpliedBasis; basis_on: string }[]> {
-    return trx('implied_consents as ic')
+    return db('implied_consents as ic')
       .whereIn('ic.basis', bases)
       .whereNotExists((q) =>
         q.select(1).from('users as u').whereRaw('lower(u.email) = ic.email').andWhere('u.marketing_opt_out', true),
       )
       .groupBy('ic.email', 'ic.basis')
-      .select('ic.email', 'ic.basis', trx.raw("to_char(MAX(ic.basis_on), 'YYYY-MM-DD') AS basis_on"));
+      .select('ic.email', 'ic.basis', db.raw("to_char(MAX(ic.basis_on), 'YYYY-MM-DD') AS basis_on"));
   }
 
   /**
    * Records the implied consents that purchases and memberships give, with their dates: a paid order's day (in the
    * club's time zone) and the last day of a membership's term. Re-running only moves a membership's date forward.
    */
-  async recordImpliedConsents(timeZone: string): Promise<void> {
-    await this.db.raw(
+  async recordImpliedConsents(trx: Knex.Transaction, timeZone: string): Promise<void> {
+    await trx.raw(
       `INSERT INTO implied_consents (email, basis, basis_ref, basis_on)
        SELECT lower(o.email), 'purchase', o.id::text, (o.paid_at AT TIME ZONE ?)::date FROM shop_orders o
        WHERE o.paid_at IS NOT NULL
        ON CONFLICT (basis, basis_ref) DO NOTHING`,
       [timeZone],
     );
-    await this.db.raw(
+    await trx.raw(
       `INSERT INTO implied_consents (email, basis, basis_ref, basis_on)
        SELECT lower(u.email), 'membership', m.id::text, m.term_end FROM memberships m JOIN users u ON u.id = m.user_id
        WHERE m.term_end IS NOT NULL

@@ -208,10 +208,12 @@ export class AuthService {
     userId: number,
     patch: { displayName?: string; marketingOptOut?: boolean },
   ): Promise<SessionUser> {
-    const row = await this.users.update(this.db, userId, {
-      ...(patch.displayName !== undefined ? { display_name: patch.displayName } : {}),
-      ...(patch.marketingOptOut !== undefined ? { marketing_opt_out: patch.marketingOptOut } : {}),
-    });
+    const row = await this.db.transaction((trx) =>
+      this.users.update(trx, userId, {
+        ...(patch.displayName !== undefined ? { display_name: patch.displayName } : {}),
+        ...(patch.marketingOptOut !== undefined ? { marketing_opt_out: patch.marketingOptOut } : {}),
+      }),
+    );
     return toSessionUser(row!);
   }
 

@@ -25,7 +25,7 @@ export class SignInGuard {
   private readonly repo: SignInLockRepository;
 
   constructor(
-    db: Knex,
+    private readonly db: Knex,
     private readonly clock: Clock,
   ) {
     this.pair = new FailureLimiter(db, PAIR_PREFIX, LOCKOUT.pairFailures, LOCKOUT.pairWindowSeconds);
@@ -62,22 +62,27 @@ export class SignInGuard {
     await Promise.all([
       this.pair.fail(`${accountKey}|${ip}`),
       this.ip.fail(ip),
-      this.repo.countFailure(accountKey, familiar, this.clock.now()),
+      this.db.transaction((trx) => this.repo.countFailure(trx, accountKey, familiar, this.clock.now())),
     ]);
   }
 
   /** A right password: the account's counters start again and the address becomes familiar. */
   async succeed(accountKey: string, ip: string, userId: number): Promise<void> {
     await Promise.all([
-      this.repo.clear(accountKey),
+      this.db.transaction((trx) => this.repo.clear(trx, accountKey)),
       this.pair.reset(`${accountKey}|${ip}`),
-      this.repo.rememberAddress(userId, ip, this.clock.now(), this.daysAgo(LOCKOUT.familiarDays)),
+      this.db.transaction((trx) =>
+        this.repo.rememberAddress(trx, userId, ip, this.clock.now(), this.daysAgo(LOCKOUT.familiarDays)),
+      ),
     ]);
   }
 
   /** Lifts every lock and block on the account (staff, or a new password). */
   async clear(accountKey: string): Promise<void> {
-    await Promise.all([this.repo.clear(accountKey), this.repo.clearPairBlocks(PAIR_PREFIX, accountKey)]);
+    await this.db.transaction(async (trx) => {
+      await this.repo.clear(trx, accountKey);
+      await this.repo.clearPairBlocks(trx, PAIR_PREFIX, accountKey);
+    });
   }
 
   /** Lock state per account key, for the accounts page. */

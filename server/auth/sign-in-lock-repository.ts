@@ -19,12 +19,12 @@ export class SignInLockRepository {
   }
 
   /** Adds one failure to the familiar or the elsewhere counter, atomically. */
-  async countFailure(accountKey: string, familiar: boolean, at: Date): Promise<void> {
+  async countFailure(trx: Knex.Transaction, accountKey: string, familiar: boolean, at: Date): Promise<void> {
     // Fixed column names, never input: the two counters keep their own latest failure.
     const [count, last] = familiar
       ? ['failures_familiar', 'last_familiar_at']
       : ['failures_elsewhere', 'last_elsewhere_at'];
-    await this.db.raw(
+    await trx.raw(
       `INSERT INTO sign_in_lockouts (account_key, ${count}, ${last}, updated_at) VALUES (?, 1, ?, now())
        ON CONFLICT (account_key) DO UPDATE SET ${count} = sign_in_lockouts.${count} + 1, ${last} = EXCLUDED.${last}, updated_at = now()`,
       [accountKey, at],
@@ -32,13 +32,13 @@ export class SignInLockRepository {
   }
 
   /** Forgets an account's failure counts, after a good sign-in, a password reset or an admin's unlock. */
-  async clear(accountKey: string): Promise<void> {
-    await this.db('sign_in_lockouts').where('account_key', accountKey).delete();
+  async clear(trx: Knex.Transaction, accountKey: string): Promise<void> {
+    await trx('sign_in_lockouts').where('account_key', accountKey).delete();
   }
 
   /** Forgets the per-address blocks of one account (the shared limiter stores them as `prefix:account|ip`). */
-  async clearPairBlocks(prefix: string, accountKey: string): Promise<void> {
-    await this.db('rate_limits')
+  async clearPairBlocks(trx: Knex.Transaction, prefix: string, accountKey: string): Promise<void> {
+    await trx('rate_limits')
       .whereRaw("key LIKE ? ESCAPE '\\'", [`${prefix}:${accountKey.replace(/[\\%_]/g, (c) => '\\' + c)}|%`])
       .delete();
   }
@@ -57,12 +57,18 @@ export class SignInLockRepository {
   }
 
   /** Remembers a successful sign-in's address; addresses not used since `forgetBefore` are dropped. */
-  async rememberAddress(userId: number, ip: string, at: Date, forgetBefore: Date): Promise<void> {
-    await this.db('sign_in_addresses')
+  async rememberAddress(
+    trx: Knex.Transaction,
+    userId: number,
+    ip: string,
+    at: Date,
+    forgetBefore: Date,
+  ): Promise<void> {
+    await trx('sign_in_addresses')
       .insert({ user_id: userId, ip, last_success_at: at })
       .onConflict(['user_id', 'ip'])
       .merge({ last_success_at: at });
-    await this.db('sign_in_addresses').where('user_id', userId).where('last_success_at', '<', forgetBefore).delete();
+    await trx('sign_in_addresses').where('user_id', userId).where('last_success_at', '<', forgetBefore).delete();
   }
 
   /** The lock state of several accounts, for the accounts page. */

@@ -36,13 +36,13 @@ export class UserRepository {
   constructor(private readonly db: Knex) {}
 
   /** The account with this e-mail, compared in lower case as it is stored. */
-  byEmail(email: string, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
-    return trx<UserRow>('users').where('email', email.toLowerCase()).first();
+  byEmail(email: string, db: Knex = this.db): Promise<UserRow | undefined> {
+    return db<UserRow>('users').where('email', email.toLowerCase()).first();
   }
 
   /** The account row with this id, deleted and disabled ones included; callers decide what those may do. */
-  byId(id: number, trx: Knex | Knex.Transaction = this.db): Promise<UserRow | undefined> {
-    return trx<UserRow>('users').where('id', id).first();
+  byId(id: number, db: Knex = this.db): Promise<UserRow | undefined> {
+    return db<UserRow>('users').where('id', id).first();
   }
 
   /** Creates an account with its e-mail in lower case and the fan role unless told otherwise. */
@@ -61,9 +61,9 @@ export class UserRepository {
     return row;
   }
 
-  /** Writes the given account columns and the update time in the caller's transaction or connection. */
+  /** Writes the given account columns and the update time in the caller's transaction. */
   async update(
-    trx: Knex | Knex.Transaction,
+    trx: Knex.Transaction,
     id: number,
     patch: Partial<
       Pick<
@@ -98,7 +98,7 @@ export class UserRepository {
    * Adds or removes one role that a rule drives (dues in good standing give `member`); a change that happens goes
    * into the account's history as made by no person, so admins see why the role came or went.
    */
-  async setRole(trx: Knex | Knex.Transaction, id: number, role: Role, present: boolean): Promise<void> {
+  async setRole(trx: Knex.Transaction, id: number, role: Role, present: boolean): Promise<void> {
     const next = present
       ? '(SELECT array_agg(DISTINCT r) FROM unnest(array_append(u.roles, ?::text)) r)'
       : 'array_remove(u.roles, ?::text)';

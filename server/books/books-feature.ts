@@ -11,6 +11,7 @@ export function booksFeature(
 ): Feature & { books: BooksService } {
   const { deps } = platform;
   const books = new BooksService(
+    deps.db,
     new BooksRepository(deps.db, deps.config.clubTimeZone),
     platform.settings,
     deps.calendar,

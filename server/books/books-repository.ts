@@ -211,8 +211,8 @@ export class BooksRepository {
   }
 
   /** Replaces the estimated fee of the movement for a charge with the processor's actual fee. */
-  async setActualFee(chargeId: string, feeCents: number): Promise<number> {
-    return this.db('money_movements')
+  async setActualFee(trx: Knex.Transaction, chargeId: string, feeCents: number): Promise<number> {
+    return trx('money_movements')
       .where({ processor_charge_id: chargeId, fee_estimated: true })
       .whereIn('kind', ['order_payment', 'dues_payment'])
       .update({ fee_cents: feeCents, fee_estimated: false });

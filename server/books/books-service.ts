@@ -1,3 +1,4 @@
+import type { Knex } from 'knex';
 import type { PaymentGateway } from '../payments/payment-gateway';
 import type { ClubCalendar } from '../platform/club-calendar';
 import { labelOf, yesNo } from '../../contracts/labels/label-of';
@@ -22,6 +23,7 @@ export class BooksService {
   readonly repo: BooksRepository;
 
   constructor(
+    private readonly db: Knex,
     repo: BooksRepository,
     private readonly settings: SettingsService,
     private readonly calendar: ClubCalendar,
@@ -136,7 +138,8 @@ export class BooksService {
     let updated = 0;
     for (const chargeId of await this.repo.chargesWithEstimatedFees(batch)) {
       const fee = await payments.actualFeeCents(chargeId);
-      if (fee !== null) updated += await this.repo.setActualFee(chargeId, fee);
+      // The processor is asked outside any transaction; only the write opens one.
+      if (fee !== null) updated += await this.db.transaction((trx) => this.repo.setActualFee(trx, chargeId, fee));
     }
     return updated;
   }

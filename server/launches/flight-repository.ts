@@ -3,8 +3,6 @@ import type { FlightEvent, FlightSeriesPoint, FlightSummary } from '../../contra
 import type { FlightOutcome } from '../../contracts/labels/launch-statuses';
 import type { MotorView } from '../../contracts/launches/launch-answers';
 
-type Db = Knex | Knex.Transaction;
-
 /** A motor as stored on a card: what Padside read from its designation. */
 export type StoredMotor = MotorView;
 
@@ -74,7 +72,7 @@ export type NewFlight = Pick<
 export class FlightRepository {
   constructor(private readonly db: Knex) {}
 
-  private select(db: Db) {
+  private select(db: Knex) {
     return db('flights as f')
       .join('users as u', 'u.id', 'f.user_id')
       .join('launches as l', 'l.id', 'f.launch_id')
@@ -89,27 +87,27 @@ export class FlightRepository {
   }
 
   /** Inserts a flight card (motors and warnings stored as JSON) and returns its new id. */
-  async insert(db: Db, row: NewFlight): Promise<number> {
-    const [created] = await db('flights')
+  async insert(trx: Knex.Transaction, row: NewFlight): Promise<number> {
+    const [created] = await trx('flights')
       .insert({ ...row, motors: JSON.stringify(row.motors), warnings: JSON.stringify(row.warnings) })
       .returning('id');
     return created.id;
   }
 
   /** A flight card with its launch and flyer fields. */
-  byId(id: number, db: Db = this.db): Promise<FlightRow | undefined> {
+  byId(id: number, db: Knex = this.db): Promise<FlightRow | undefined> {
     return this.select(db).where('f.id', id).first();
   }
 
   /** The cards of a launch in pad order, cards without a pad last, for the range staff's board. */
-  forLaunch(launchId: number, db: Db = this.db): Promise<FlightRow[]> {
+  forLaunch(launchId: number, db: Knex = this.db): Promise<FlightRow[]> {
     return this.select(db)
       .where('f.launch_id', launchId)
       .orderBy([{ column: 'f.pad', order: 'asc', nulls: 'last' }, { column: 'f.id' }]);
   }
 
   /** A flyer's own cards, latest launch first, for their logbook. */
-  forUser(userId: number, db: Db = this.db): Promise<FlightRow[]> {
+  forUser(userId: number, db: Knex = this.db): Promise<FlightRow[]> {
     return this.select(db)
       .where('f.user_id', userId)
       .orderBy([
@@ -120,40 +118,48 @@ export class FlightRepository {
 
   /** Moves a card on from `from`; true only for the one caller whose update won. */
   async decide(
-    db: Db,
+    trx: Knex.Transaction,
     id: number,
     from: FlightRow['status'],
     to: 'approved' | 'sent_back',
     reason: string | null,
     by: number,
   ): Promise<boolean> {
-    const n = await db('flights').where({ id, status: from }).update({
+    const n = await trx('flights').where({ id, status: from }).update({
       status: to,
       decision_reason: reason,
       decided_by: by,
-      decided_at: db.fn.now(),
-      updated_at: db.fn.now(),
+      decided_at: trx.fn.now(),
+      updated_at: trx.fn.now(),
     });
     return n === 1;
   }
 
   /** Records how an approved (or already flown) card's flight went. */
-  async recordOutcome(db: Db, id: number, outcome: FlightOutcome, notes: string | null): Promise<boolean> {
-    const n = await db('flights')
+  async recordOutcome(
+    trx: Knex.Transaction,
+    id: number,
+    outcome: FlightOutcome,
+    notes: string | null,
+  ): Promise<boolean> {
+    const n = await trx('flights')
       .where('id', id)
       .whereIn('status', ['approved', 'flown'])
       .update({
         status: 'flown',
         outcome,
         outcome_notes: notes,
-        flown_at: db.raw('coalesce(flown_at, now())'),
-        updated_at: db.fn.now(),
+        flown_at: trx.raw('coalesce(flown_at, now())'),
+        updated_at: trx.fn.now(),
       });
     return n === 1;
   }
 
   /** Stores (or replaces) a flight's analysed log. */
-  async putData(db: Db, row: Omit<FlightDataRow, 'uploaded_at'> & { uploaded_by: number }): Promise<void> {
+  async putData(
+    trx: Knex.Transaction,
+    row: Omit<FlightDataRow, 'uploaded_at'> & { uploaded_by: number },
+  ): Promise<void> {
     const value = {
       ...row,
       summary: JSON.stringify(row.summary),
@@ -161,14 +167,14 @@ export class FlightRepository {
       events: JSON.stringify(row.events),
       mapping: JSON.stringify(row.mapping),
     };
-    await db('flight_data')
+    await trx('flight_data')
       .insert(value)
       .onConflict('flight_id')
-      .merge({ ...value, uploaded_at: db.fn.now() });
+      .merge({ ...value, uploaded_at: trx.fn.now() });
   }
 
   /** The altimeter log attached to a flight card, if one was uploaded. */
-  data(flightId: number, db: Db = this.db): Promise<FlightDataRow | undefined> {
+  data(flightId: number, db: Knex = this.db): Promise<FlightDataRow | undefined> {
     return db('flight_data').where('flight_id', flightId).first();
   }
 
@@ -176,7 +182,7 @@ export class FlightRepository {
   async seasonTotals(
     from: string,
     to: string,
-    db: Db = this.db,
+    db: Knex = this.db,
   ): Promise<{ flights: number; flown: number; bestApogeeMetres: number | null }> {
     const row: { flights: number; flown: number; best: number | null } | undefined = await db('flights as f')
       .join('launches as l', 'l.id', 'f.launch_id')

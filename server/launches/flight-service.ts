@@ -93,22 +93,24 @@ export class FlightService {
       ceilingMetres: launch.ceiling_metres,
       allowedClasses: allowed,
     });
-    const id = await this.repo.insert(this.db, {
-      launch_id: launchId,
-      user_id: userId,
-      rocket_name: input.rocketName,
-      post_slug: input.postSlug ?? null,
-      liftoff_mass_grams: input.liftoffMassGrams,
-      motors: motors.map(stored),
-      expected_altitude_metres: input.expectedAltitudeMetres ?? null,
-      recovery: input.recovery ?? null,
-      pad: input.pad ?? null,
-      notes: input.notes ?? '',
-      thrust_to_weight: Math.round(checked.thrustToWeight * 100) / 100,
-      warnings: checked.warnings,
-      needs_high_power: checked.needsHighPower,
-      certification_level: level ?? 'none',
-    });
+    const id = await this.db.transaction((trx) =>
+      this.repo.insert(trx, {
+        launch_id: launchId,
+        user_id: userId,
+        rocket_name: input.rocketName,
+        post_slug: input.postSlug ?? null,
+        liftoff_mass_grams: input.liftoffMassGrams,
+        motors: motors.map(stored),
+        expected_altitude_metres: input.expectedAltitudeMetres ?? null,
+        recovery: input.recovery ?? null,
+        pad: input.pad ?? null,
+        notes: input.notes ?? '',
+        thrust_to_weight: Math.round(checked.thrustToWeight * 100) / 100,
+        warnings: checked.warnings,
+        needs_high_power: checked.needsHighPower,
+        certification_level: level ?? 'none',
+      }),
+    );
     return { flight: flightView((await this.repo.byId(id))!), caution: FLIGHT_CAUTION };
   }
 
@@ -150,7 +152,11 @@ export class FlightService {
     } else if (!reason) {
       throw badRequest('Say why the card goes back.', { reason: 'Give a reason.' });
     }
-    if (!(await this.repo.decide(this.db, id, 'filed', approve ? 'approved' : 'sent_back', reason, staffId)))
+    if (
+      !(await this.db.transaction((trx) =>
+        this.repo.decide(trx, id, 'filed', approve ? 'approved' : 'sent_back', reason, staffId),
+      ))
+    )
       throw conflict('already_decided', 'Someone decided on this card a moment ago.');
     return { flight: flightView((await this.repo.byId(id))!) };
   }
@@ -158,7 +164,7 @@ export class FlightService {
   /** How a cleared flight went; can be corrected afterwards. */
   async outcome(id: number, outcome: FlightOutcome, notes: string | null): Promise<{ flight: FlightView }> {
     const f = await this.find(id);
-    if (!(await this.repo.recordOutcome(this.db, id, outcome, notes)))
+    if (!(await this.db.transaction((trx) => this.repo.recordOutcome(trx, id, outcome, notes))))
       throw conflict(
         'not_cleared',
         `Only a card cleared to fly gets an outcome; this one is ${f.status === 'sent_back' ? 'sent back' : 'still waiting'}.`,
@@ -173,16 +179,18 @@ export class FlightService {
       throw forbidden('Only the flyer or a range officer adds data to this flight.');
     if (f.status !== 'flown') throw conflict('not_flown', 'Add data once the flight has an outcome.');
     const analysis = await analyseFlightLog(Readable.from(upload.bytes), upload.columns);
-    await this.repo.putData(this.db, {
-      flight_id: id,
-      summary: analysis.summary,
-      series: analysis.series,
-      events: analysis.events,
-      mapping: analysis.mapping,
-      filter: analysis.filter,
-      file_name: upload.fileName.slice(0, 200),
-      uploaded_by: user.id,
-    });
+    await this.db.transaction((trx) =>
+      this.repo.putData(trx, {
+        flight_id: id,
+        summary: analysis.summary,
+        series: analysis.series,
+        events: analysis.events,
+        mapping: analysis.mapping,
+        filter: analysis.filter,
+        file_name: upload.fileName.slice(0, 200),
+        uploaded_by: user.id,
+      }),
+    );
     return { summary: analysis.summary, events: analysis.events, filter: analysis.filter };
   }
 

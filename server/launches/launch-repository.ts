@@ -1,7 +1,5 @@
 import type { Knex } from 'knex';
 
-type Db = Knex | Knex.Transaction;
-
 /** A launch as stored. */
 export interface LaunchRow {
   id: number;
@@ -55,7 +53,7 @@ export class LaunchRepository {
   constructor(private readonly db: Knex) {}
 
   // The date comes back as text, so it never shifts with the server's time zone.
-  private select(db: Db) {
+  private select(db: Knex) {
     return db<LaunchRow>('launches').select(
       'launches.*',
       db.raw("to_char(launch_date, 'YYYY-MM-DD') AS launch_date"),
@@ -64,7 +62,7 @@ export class LaunchRepository {
   }
 
   /** Launches with a date inside the optional range, in calendar order. */
-  list(range: { from?: string; to?: string }, db: Db = this.db): Promise<LaunchRow[]> {
+  list(range: { from?: string; to?: string }, db: Knex = this.db): Promise<LaunchRow[]> {
     return this.select(db)
       .modify((qb) => (range.from ? qb.where('launch_date', '>=', range.from) : qb))
       .modify((qb) => (range.to ? qb.where('launch_date', '<=', range.to) : qb))
@@ -72,22 +70,22 @@ export class LaunchRepository {
   }
 
   /** A launch by id. */
-  byId(id: number, db: Db = this.db): Promise<LaunchRow | undefined> {
+  byId(id: number, db: Knex = this.db): Promise<LaunchRow | undefined> {
     return this.select(db).where('launches.id', id).first();
   }
 
   /** Inserts a launch and returns its new id. */
-  async insert(db: Db, row: LaunchFields & { created_by: number }): Promise<number> {
-    const [created] = await db('launches').insert(row).returning('id');
+  async insert(trx: Knex.Transaction, row: LaunchFields & { created_by: number }): Promise<number> {
+    const [created] = await trx('launches').insert(row).returning('id');
     return created.id;
   }
 
   /** Writes the changed fields of a launch; false when no row has that id. */
-  async update(db: Db, id: number, patch: Partial<LaunchFields>): Promise<boolean> {
+  async update(trx: Knex.Transaction, id: number, patch: Partial<LaunchFields>): Promise<boolean> {
     return (
-      (await db('launches')
+      (await trx('launches')
         .where('id', id)
-        .update({ ...patch, updated_at: db.fn.now() })) === 1
+        .update({ ...patch, updated_at: trx.fn.now() })) === 1
     );
   }
 
@@ -106,30 +104,30 @@ export class LaunchRepository {
   }
 
   /** Marks a scheduled launch done; true only if it was scheduled. */
-  async markDone(db: Db, id: number): Promise<boolean> {
+  async markDone(trx: Knex.Transaction, id: number): Promise<boolean> {
     return (
-      (await db('launches')
+      (await trx('launches')
         .where({ id, status: 'scheduled' })
-        .update({ status: 'done', sequence: db.raw('sequence + 1'), updated_at: db.fn.now() })) === 1
+        .update({ status: 'done', sequence: trx.raw('sequence + 1'), updated_at: trx.fn.now() })) === 1
     );
   }
 
   /** Records or changes a person's reply to a launch, one row per person and launch. */
-  async setRsvp(db: Db, launchId: number, userId: number, going: boolean): Promise<void> {
-    await db('launch_rsvps')
+  async setRsvp(trx: Knex.Transaction, launchId: number, userId: number, going: boolean): Promise<void> {
+    await trx('launch_rsvps')
       .insert({ launch_id: launchId, user_id: userId, going })
       .onConflict(['launch_id', 'user_id'])
-      .merge({ going, updated_at: db.fn.now() });
+      .merge({ going, updated_at: trx.fn.now() });
   }
 
   /** The person's reply to a launch: true, false, or null if they have not answered. */
-  async rsvpOf(launchId: number, userId: number, db: Db = this.db): Promise<boolean | null> {
+  async rsvpOf(launchId: number, userId: number, db: Knex = this.db): Promise<boolean | null> {
     const row = await db('launch_rsvps').where({ launch_id: launchId, user_id: userId }).first('going');
     return row ? Boolean(row.going) : null;
   }
 
   /** Everyone who said they would come, with their e-mail. */
-  goingTo(launchId: number, db: Db = this.db): Promise<Recipient[]> {
+  goingTo(launchId: number, db: Knex = this.db): Promise<Recipient[]> {
     return db('launch_rsvps as r')
       .join('users as u', 'u.id', 'r.user_id')
       .where({ 'r.launch_id': launchId, 'r.going': true })
@@ -138,16 +136,16 @@ export class LaunchRepository {
   }
 
   /** Scheduled launches with a date in [from, to]. */
-  scheduledBetween(from: string, to: string, db: Db = this.db): Promise<LaunchRow[]> {
+  scheduledBetween(from: string, to: string, db: Knex = this.db): Promise<LaunchRow[]> {
     return this.select(db).where('status', 'scheduled').whereBetween('launch_date', [from, to]).orderBy('launches.id');
   }
 
   /** Records a check-in; false when the member was already checked in for this launch. */
   async addAttendance(
-    db: Db,
+    trx: Knex.Transaction,
     row: { launch_id: number; user_id: number; member_number: string; checked_in_by: number },
   ): Promise<boolean> {
-    const rows = await db('launch_attendance')
+    const rows = await trx('launch_attendance')
       .insert(row)
       .onConflict(['launch_id', 'user_id'])
       .ignore()
@@ -156,7 +154,7 @@ export class LaunchRepository {
   }
 
   /** Whether the person was checked in at the range table for that launch. */
-  async isCheckedIn(launchId: number, userId: number, db: Db = this.db): Promise<boolean> {
+  async isCheckedIn(launchId: number, userId: number, db: Knex = this.db): Promise<boolean> {
     return (
       (await db('launch_attendance').where({ launch_id: launchId, user_id: userId }).first('user_id')) !== undefined
     );
@@ -165,7 +163,7 @@ export class LaunchRepository {
   /** Who checked in at a launch, in check-in order, with the member number shown at the table. */
   attendance(
     launchId: number,
-    db: Db = this.db,
+    db: Knex = this.db,
   ): Promise<{ user_id: number; display_name: string; member_number: string; checked_in_at: Date }[]> {
     return db('launch_attendance as a')
       .join('users as u', 'u.id', 'a.user_id')
@@ -175,7 +173,7 @@ export class LaunchRepository {
   }
 
   /** Launches per status with a date in [from, to], for the dashboard. */
-  countsByStatus(from: string, to: string, db: Db = this.db): Promise<{ status: string; count: number }[]> {
+  countsByStatus(from: string, to: string, db: Knex = this.db): Promise<{ status: string; count: number }[]> {
     return db('launches')
       .whereBetween('launch_date', [from, to])
       .groupBy('status')
@@ -184,7 +182,7 @@ export class LaunchRepository {
   }
 
   /** Check-ins at launches dated in [from, to], for the dashboard's season card. */
-  async attendanceBetween(from: string, to: string, db: Db = this.db): Promise<number> {
+  async attendanceBetween(from: string, to: string, db: Knex = this.db): Promise<number> {
     const row = await db('launch_attendance as a')
       .join('launches as l', 'l.id', 'a.launch_id')
       .whereBetween('l.launch_date', [from, to])

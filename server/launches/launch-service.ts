@@ -87,7 +87,9 @@ export class LaunchService {
 
   /** Puts a new launch on the calendar, remembering who created it. */
   async create(input: LaunchInput, userId: number): Promise<{ launch: LaunchView }> {
-    const id = await this.repo.insert(this.db, { ...(toFields(input) as LaunchFields), created_by: userId });
+    const id = await this.db.transaction((trx) =>
+      this.repo.insert(trx, { ...(toFields(input) as LaunchFields), created_by: userId }),
+    );
     return { launch: launchView((await this.repo.byId(id))!) };
   }
 
@@ -99,7 +101,7 @@ export class LaunchService {
     const merged = { ...l, ...toFields(input) };
     if (merged.starts_at >= merged.ends_at)
       throw conflict('invalid_window', 'The window must end after it starts.', { endsAt: 'Must be after the start.' });
-    await this.repo.update(this.db, id, toFields(input));
+    await this.db.transaction((trx) => this.repo.update(trx, id, toFields(input)));
     return { launch: launchView((await this.repo.byId(id))!) };
   }
 
@@ -123,7 +125,7 @@ export class LaunchService {
   /** Closes a launch on the calendar as flown; one already called off or done cannot be closed again. */
   async markDone(id: number): Promise<{ launch: LaunchView }> {
     await this.find(id);
-    if (!(await this.repo.markDone(this.db, id)))
+    if (!(await this.db.transaction((trx) => this.repo.markDone(trx, id))))
       throw conflict('launch_closed', 'Only a launch on the calendar can be closed.');
     return { launch: launchView((await this.repo.byId(id))!) };
   }
@@ -133,7 +135,7 @@ export class LaunchService {
     const l = await this.find(id);
     if (l.status !== 'scheduled' || l.launch_date < this.today())
       throw conflict('launch_closed', 'Replies close when a launch is called off or over.');
-    await this.repo.setRsvp(this.db, id, userId, going);
+    await this.db.transaction((trx) => this.repo.setRsvp(trx, id, userId, going));
     return { going, launch: launchView((await this.repo.byId(id))!) };
   }
 
@@ -150,12 +152,14 @@ export class LaunchService {
       throw conflict('dues_not_current', `Member ${flyer.memberNumber}'s dues are not current (${flyer.status}).`, {
         token: 'Dues not current.',
       });
-    const added = await this.repo.addAttendance(this.db, {
-      launch_id: id,
-      user_id: flyer.userId,
-      member_number: flyer.memberNumber,
-      checked_in_by: staffId,
-    });
+    const added = await this.db.transaction((trx) =>
+      this.repo.addAttendance(trx, {
+        launch_id: id,
+        user_id: flyer.userId,
+        member_number: flyer.memberNumber,
+        checked_in_by: staffId,
+      }),
+    );
     return {
       checkedIn: true,
       alreadyCheckedIn: !added,
@@ -195,7 +199,8 @@ export class LaunchService {
     let queued = 0;
     for (const l of await this.repo.scheduledBetween(addDays(today, 1), addDays(today, REMINDER_DAYS_BEFORE))) {
       for (const to of await this.repo.goingTo(l.id)) {
-        if (await enqueueEmail(this.db, launchReminderMail(to, l, this.ctx.timeZone, this.ctx.publicUrl))) queued++;
+        const mail = launchReminderMail(to, l, this.ctx.timeZone, this.ctx.publicUrl);
+        if (await this.db.transaction((trx) => enqueueEmail(trx, mail))) queued++;
       }
     }
     return { queued };

@@ -1,4 +1,4 @@
-import { escapeHtml } from '../markdown/render-markdown';
+import { escapeHtml } from '../markdown/escape-html';
 import type { TransactionalEmail } from './outbox';
 
 /**

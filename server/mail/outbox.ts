@@ -67,18 +67,18 @@ const toRow = (mail: OutgoingEmail) => {
  * Queues an e-mail in the caller's transaction, so the mail exists exactly when the change that caused it does.
  * Returns false when a mail with the same dedupe key was already queued, or when it is addressed to a deleted account.
  */
-export async function enqueueEmail(db: Knex | Knex.Transaction, mail: OutgoingEmail): Promise<boolean> {
-  return (await enqueueEmails(db, [mail])) === 1;
+export async function enqueueEmail(trx: Knex.Transaction, mail: OutgoingEmail): Promise<boolean> {
+  return (await enqueueEmails(trx, [mail])) === 1;
 }
 
 /** Queues many e-mails at once (an announcement's audience); returns how many were new by their dedupe keys. */
-export async function enqueueEmails(db: Knex | Knex.Transaction, mails: OutgoingEmail[]): Promise<number> {
+export async function enqueueEmails(trx: Knex.Transaction, mails: OutgoingEmail[]): Promise<number> {
   // A deleted account's tombstone address never receives anything, whoever queues it.
   mails = mails.filter((m) => !m.to.endsWith('@' + DELETED_MAIL_DOMAIN));
   let queued = 0;
   // Chunks keep each statement well under PostgreSQL's 65,535 bind parameters.
   for (let i = 0; i < mails.length; i += 500) {
-    const rows = await db('outbound_emails')
+    const rows = await trx('outbound_emails')
       .insert(mails.slice(i, i + 500).map(toRow))
       .onConflict('dedupe_key')
       .ignore()

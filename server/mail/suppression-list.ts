@@ -19,7 +19,7 @@ export class SuppressionList {
 
   /** Records a suppression; a second one for the same address and list keeps the first. */
   async add(
-    trx: Knex | Knex.Transaction,
+    trx: Knex.Transaction,
     email: string,
     reason: SuppressionReason,
     opts: { list?: string | null; detail?: string } = {},
@@ -31,14 +31,14 @@ export class SuppressionList {
   }
 
   /** Lifts an unsubscribe from one list (the person confirmed a new sign-up); bounces and complaints stay. */
-  async liftUnsubscribe(trx: Knex | Knex.Transaction, email: string, list: string): Promise<void> {
+  async liftUnsubscribe(trx: Knex.Transaction, email: string, list: string): Promise<void> {
     await trx('email_suppressions').where({ email: email.trim().toLowerCase(), list, reason: 'unsubscribed' }).delete();
   }
 
   /** Of these rows, the ids the list says must not be sent. */
-  async blocked(rows: SuppressionCandidate[], trx: Knex | Knex.Transaction = this.db): Promise<Set<number>> {
+  async blocked(rows: SuppressionCandidate[], db: Knex = this.db): Promise<Set<number>> {
     if (rows.length === 0) return new Set();
-    const found: { email: string; list: string | null; reason: SuppressionReason }[] = await trx('email_suppressions')
+    const found: { email: string; list: string | null; reason: SuppressionReason }[] = await db('email_suppressions')
       .whereIn('email', [...new Set(rows.map((r) => r.to_address.toLowerCase()))])
       .select('email', 'list', 'reason');
     const out = new Set<number>();
@@ -55,8 +55,8 @@ export class SuppressionList {
   }
 
   /** Addresses suppressed for a list (or every list), for leaving them out before anything is queued. */
-  async emailsFor(list: string, trx: Knex | Knex.Transaction = this.db): Promise<Set<string>> {
-    const rows = await trx('email_suppressions')
+  async emailsFor(list: string, db: Knex = this.db): Promise<Set<string>> {
+    const rows = await db('email_suppressions')
       .where((q) => q.whereNull('list').orWhere('list', list))
       .select('email');
     return new Set(rows.map((r: { email: string }) => r.email));

@@ -1,179 +1,14 @@
-import { Marked, type Token, type TokenizerAndRendererExtension, type Tokens } from 'marked';
-import sanitizeHtml from 'sanitize-html';
+import { Marked, type Token } from 'marked';
+import { sanitize } from './markdown-allow-list';
+import { creditMarker, flightMarker, type CreditToken, type FlightToken } from './markdown-markers';
+import { escapeHtml } from './escape-html';
 
 /**
  * The one Markdown pipeline (editor preview, public pages, feeds, product descriptions): marked with GFM, then
  * sanitize-html with an allow-list. Raw HTML in the source is sanitized like everything else.
- *
- * Padside's own credit marker is a line of its own: `%thanks <sponsor-slug>` or `%thanks <sponsor-slug> | a note`, with
- * an optional `#<deliverable id>` after the slug (`%thanks <sponsor-slug> #12 | a note`) naming the promise the credit
- * counts against; without it the credit counts against the sponsor's earliest-due open one. It renders an
- * acknowledgement card (the same with or without the id, which readers never see) and tells the ledger which
- * sponsors a post credits.
- *
- * The flight marker is a line of its own too: `%flight <id>`. It renders an empty placeholder that the post page
- * fills with that flight's chart and summary; elsewhere (feeds, previews) a short line of text stands in.
+ * The markers are in markdown-markers.ts, the allow-list in markdown-allow-list.ts.
  */
-const CREDIT_LINE = /^%thanks +([a-z0-9][a-z0-9-]{0,79})(?: +#([1-9][0-9]{0,9}))?(?: *\| *([^\n]*))?[ \t]*(?:\n+|$)/;
-
-interface CreditToken extends Tokens.Generic {
-  type: 'psCredit';
-  slug: string;
-  /** The deliverable the marker names, or null when it leaves the choice to the ledger. */
-  deliverableId: number | null;
-  note: string;
-  sponsorName?: string;
-}
-
-/** Text made safe to put inside HTML. */
-export const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-
-const creditMarker: TokenizerAndRendererExtension = {
-  name: 'psCredit',
-  level: 'block',
-  start: (src) => /^%thanks /m.exec(src)?.index,
-  tokenizer(src) {
-    const m = CREDIT_LINE.exec(src);
-    if (!m) return undefined;
-    return {
-      type: 'psCredit',
-      raw: m[0],
-      slug: m[1],
-      deliverableId: m[2] ? Number(m[2]) : null,
-      note: (m[3] ?? '').trim(),
-    } satisfies CreditToken;
-  },
-  renderer(token) {
-    const t = token as CreditToken;
-    const name = t.sponsorName ?? t.slug;
-    return (
-      `<aside class="ps-credit" data-sponsor="${escapeHtml(t.slug)}"><span class="ps-credit-label">With thanks to</span>` +
-      `<div class="ps-credit-body"><strong>${escapeHtml(name)}</strong>${t.note ? ` — ${escapeHtml(t.note)}` : ''}</div></aside>\n`
-    );
-  },
-};
-
-const FLIGHT_LINE = /^%flight +([1-9][0-9]{0,9})[ \t]*(?:\n+|$)/;
-
-interface FlightToken extends Tokens.Generic {
-  type: 'psFlight';
-  flightId: number;
-}
-
-const flightMarker: TokenizerAndRendererExtension = {
-  name: 'psFlight',
-  level: 'block',
-  start: (src) => /^%flight /m.exec(src)?.index,
-  tokenizer(src) {
-    const m = FLIGHT_LINE.exec(src);
-    if (!m) return undefined;
-    return { type: 'psFlight', raw: m[0], flightId: Number(m[1]) } satisfies FlightToken;
-  },
-  renderer(token) {
-    const id = (token as FlightToken).flightId;
-    return `<div class="ps-flight" data-flight="${id}"><p class="ps-flight-note">Flight data: altitude and speed chart for flight ${id}.</p></div>\n`;
-  },
-};
-
 const marked = new Marked({ gfm: true, breaks: false, async: false, extensions: [creditMarker, flightMarker] });
-
-const ALLOWED_TAGS = [
-  'h1',
-  'h2',
-  'h3',
-  'h4',
-  'h5',
-  'h6',
-  'p',
-  'br',
-  'hr',
-  'blockquote',
-  'pre',
-  'code',
-  'em',
-  'strong',
-  'del',
-  's',
-  'sup',
-  'sub',
-  'ul',
-  'ol',
-  'li',
-  'a',
-  'img',
-  'table',
-  'thead',
-  'tbody',
-  'tr',
-  'th',
-  'td',
-  'input',
-  'figure',
-  'figcaption',
-  'aside',
-  'span',
-  'div',
-];
-
-const SANITIZE: sanitizeHtml.IOptions = {
-  allowedTags: ALLOWED_TAGS,
-  allowedAttributes: {
-    a: ['href', 'title', 'rel', 'target'],
-    img: ['src', 'alt', 'title', 'width', 'height', 'loading'],
-    code: ['class'],
-    th: ['align'],
-    td: ['align'],
-    ol: ['start'],
-    input: ['type', 'checked', 'disabled'],
-    aside: ['class', 'data-sponsor'],
-    div: ['class', 'data-flight'],
-    p: ['class'],
-    span: ['class'],
-  },
-  allowedClasses: {
-    code: [/^language-[a-z0-9+-]+$/],
-    aside: ['ps-credit'],
-    div: ['ps-credit-body', 'ps-flight'],
-    span: ['ps-credit-label'],
-    p: ['ps-flight-note'],
-  },
-  allowedSchemes: ['http', 'https', 'mailto'],
-  allowedSchemesByTag: { img: ['http', 'https'] },
-  allowProtocolRelative: false,
-  disallowedTagsMode: 'discard',
-  transformTags: {
-    // Task-list checkboxes only, and never editable.
-    input: (tagName, attribs) =>
-      attribs.type === 'checkbox'
-        ? {
-            tagName,
-            attribs: { type: 'checkbox', disabled: '', ...(attribs.checked !== undefined ? { checked: '' } : {}) },
-          }
-        : { tagName: 'span', attribs: {} },
-    // Browsers ignore spaces around an href, so the check must too (" https://x" is external); any link that opens
-    // another browsing context cannot hand it window.opener, whatever rel the author wrote.
-    a: (tagName, attribs) => {
-      const { rel, ...rest } = attribs;
-      const href = (attribs.href ?? '').trim();
-      const external = /^https?:\/\//i.test(href);
-      const target = external ? '_blank' : rest.target;
-      const withHref = attribs.href === undefined ? rest : { ...rest, href };
-      if (target !== undefined) return { tagName, attribs: { ...withHref, rel: 'noopener noreferrer', target } };
-      return { tagName, attribs: { ...withHref, ...(rel !== undefined ? { rel } : {}) } };
-    },
-    img: (tagName, attribs) => ({ tagName, attribs: { ...attribs, loading: 'lazy' } }),
-    // data-flight names a flight by its number and nothing else; any other value goes with the attribute.
-    div: (tagName, attribs) => {
-      const { 'data-flight': flight, ...rest } = attribs;
-      return {
-        tagName,
-        attribs: flight !== undefined && /^[1-9][0-9]{0,9}$/.test(flight) ? { ...rest, 'data-flight': flight } : rest,
-      };
-    },
-  },
-  exclusiveFilter: (frame) => frame.tag === 'img' && !frame.attribs.src,
-};
 
 /** Options of one rendering: the display names of sponsors that credit markers may name, by slug. */
 export interface RenderOptions {
@@ -247,7 +82,7 @@ export function renderMarkdownChecked(markdown: string, options: RenderOptions =
       (token as CreditToken).sponsorName = options.sponsorNames?.get((token as CreditToken).slug);
   });
   try {
-    return sanitizeHtml(marked.parser(tokens), SANITIZE);
+    return sanitize(marked.parser(tokens));
   } catch (err) {
     if (err instanceof RangeError) throw new UnrenderableMarkdown('The text is nested too deeply to show.');
     throw err;
@@ -319,9 +154,4 @@ export function flightMarkerIds(markdown: string): number[] {
       ids.push((token as FlightToken).flightId);
   });
   return ids;
-}
-
-/** Sanitizes HTML produced elsewhere (for example, an extension's card markup) with the same allow-list. */
-export function sanitize(html: string): string {
-  return sanitizeHtml(html, SANITIZE);
 }

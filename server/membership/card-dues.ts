@@ -242,10 +242,12 @@ export class CardDues {
     payment: PaymentRow,
     result: { outcome: 'declined' | 'unknown'; message: string },
   ): Promise<CardDuesResult> {
-    await this.paymentRepo.updatePayment(this.db, payment.id, {
-      status: result.outcome,
-      failure_message: result.message.slice(0, 400),
-    });
+    await this.db.transaction((trx) =>
+      this.paymentRepo.updatePayment(trx, payment.id, {
+        status: result.outcome,
+        failure_message: result.message.slice(0, 400),
+      }),
+    );
     return { outcome: result.outcome, message: result.message };
   }
 }

@@ -22,11 +22,13 @@ export class CardOnFile {
       ? await this.cardDues.savedCards.replace(m.processor_customer_id, token)
       : await this.cardDues.savedCards.save(token, user.email, m.legal_name, `customer:${m.id}:${token}`);
     if (saved.outcome === 'saved') {
-      await this.repo.update(this.db, m.id, {
-        processor_customer_id: saved.customerId,
-        card_brand: saved.card?.brand ?? null,
-        card_last4: saved.card?.last4 ?? null,
-      });
+      await this.db.transaction((trx) =>
+        this.repo.update(trx, m.id, {
+          processor_customer_id: saved.customerId,
+          card_brand: saved.card?.brand ?? null,
+          card_last4: saved.card?.last4 ?? null,
+        }),
+      );
     }
     return saved;
   }

@@ -28,7 +28,7 @@ export class DuesSettlement {
   ) {}
 
   /** Mail context for a membership. */
-  async mailContext(db: Knex | Knex.Transaction, m: MembershipRow): Promise<MemberMailContext> {
+  async mailContext(db: Knex, m: MembershipRow): Promise<MemberMailContext> {
     const user = await this.users.byId(m.user_id, db);
     const plan = await this.planRepo.plan(m.plan_id, db);
     return {

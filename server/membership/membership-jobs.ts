@@ -82,17 +82,13 @@ export class MembershipJobs {
           r.renewal_attempts < RENEWAL_TRY_OFFSETS.length
         )
       ) {
-        if (
-          await enqueueEmail(
-            this.db,
-            reminderMail(ctx, kind, termEnd, r.auto_renew && r.processor_customer_id !== null),
-          )
-        )
-          queued++;
+        const mail = reminderMail(ctx, kind, termEnd, r.auto_renew && r.processor_customer_id !== null);
+        if (await this.db.transaction((trx) => enqueueEmail(trx, mail))) queued++;
       }
       const assoc = r.association_expires;
       if (assoc && r.status !== 'lapsed' && today >= addDays(assoc, -30) && today <= assoc) {
-        if (await enqueueEmail(this.db, reminderMail(ctx, 'association-30', assoc, false))) queued++;
+        const mail = reminderMail(ctx, 'association-30', assoc, false);
+        if (await this.db.transaction((trx) => enqueueEmail(trx, mail))) queued++;
       }
     }
     return { queued };
@@ -141,7 +137,7 @@ export class MembershipJobs {
     }
     // The member's own renewal holds the term right now: this try never reached the card, so the next run may use it.
     if (result.outcome === 'in_progress') {
-      await this.repo.releaseRenewalAttempt(this.db, r.id, attempt);
+      await this.db.transaction((trx) => this.repo.releaseRenewalAttempt(trx, r.id, attempt));
       return;
     }
     const last = attempt + 1 >= RENEWAL_TRY_OFFSETS.length;

@@ -1,8 +1,6 @@
 import type { Knex } from 'knex';
 import type { MembershipStatus } from './terms';
 
-type Db = Knex | Knex.Transaction;
-
 export interface PlanRow {
   id: number;
   code: string;
@@ -109,7 +107,7 @@ export class MembershipRepository {
   constructor(private readonly db: Knex) {}
 
   /** Members per certification level for the levels not in `codes` (records a new level list would orphan). */
-  levelsHeldOutside(codes: string[], db: Db = this.db): Promise<{ certification_level: string; count: number }[]> {
+  levelsHeldOutside(codes: string[], db: Knex = this.db): Promise<{ certification_level: string; count: number }[]> {
     return db('memberships')
       .whereNotIn('certification_level', codes)
       .groupBy('certification_level')
@@ -119,7 +117,7 @@ export class MembershipRepository {
   }
 
   /** The account's membership, unlocked; use `lockByUser` before changing it. */
-  byUser(userId: number, db: Db = this.db): Promise<MembershipRow | undefined> {
+  byUser(userId: number, db: Knex = this.db): Promise<MembershipRow | undefined> {
     return db<MembershipRow>('memberships').where('user_id', userId).first();
   }
 
@@ -129,7 +127,7 @@ export class MembershipRepository {
   }
 
   /** The membership with this id, unlocked; use `lockById` before changing it. */
-  byId(id: number, db: Db = this.db): Promise<MembershipRow | undefined> {
+  byId(id: number, db: Knex = this.db): Promise<MembershipRow | undefined> {
     return db<MembershipRow>('memberships').where('id', id).first();
   }
 
@@ -144,7 +142,7 @@ export class MembershipRepository {
   }
 
   /** Display names of staff by id (who verified a record). */
-  async userNames(ids: (number | null)[], db: Db = this.db): Promise<Map<number, string>> {
+  async userNames(ids: (number | null)[], db: Knex = this.db): Promise<Map<number, string>> {
     const wanted = [...new Set(ids.filter((i): i is number => i !== null))];
     if (!wanted.length) return new Map();
     const rows: { id: number; display_name: string }[] = await db('users')
@@ -154,7 +152,7 @@ export class MembershipRepository {
   }
 
   /** The membership a member number names, as printed on the card and read at check-in. */
-  byNumber(memberNumber: string, db: Db = this.db): Promise<MembershipRow | undefined> {
+  byNumber(memberNumber: string, db: Knex = this.db): Promise<MembershipRow | undefined> {
     return db<MembershipRow>('memberships').where('member_number', memberNumber).first();
   }
 
@@ -186,7 +184,7 @@ export class MembershipRepository {
 
   /** Writes the given membership columns and the update time; member number and account never change. */
   async update(
-    trx: Db,
+    trx: Knex.Transaction,
     id: number,
     patch: Partial<Omit<MembershipRow, 'id' | 'member_number' | 'user_id'>>,
   ): Promise<MembershipRow> {
@@ -215,14 +213,14 @@ export class MembershipRepository {
   }
 
   /** Gives back an auto-renew attempt claimed with `attempts` that never reached the processor. */
-  async releaseRenewalAttempt(db: Db, id: number, attempts: number): Promise<void> {
-    await db('memberships')
+  async releaseRenewalAttempt(trx: Knex.Transaction, id: number, attempts: number): Promise<void> {
+    await trx('memberships')
       .where({ id, renewal_attempts: attempts + 1 })
-      .update({ renewal_attempts: attempts, updated_at: db.fn.now() });
+      .update({ renewal_attempts: attempts, updated_at: trx.fn.now() });
   }
 
   /** The family members a family plan covers, in the order they were added. */
-  family(membershipId: number, db: Db = this.db): Promise<{ id: number; name: string; date_of_birth: string }[]> {
+  family(membershipId: number, db: Knex = this.db): Promise<{ id: number; name: string; date_of_birth: string }[]> {
     return db('membership_family_members').where('membership_id', membershipId).orderBy('id');
   }
 
@@ -241,13 +239,13 @@ export class MembershipRepository {
 
   /** Appends one entry to the membership's audit trail in the caller's transaction, so the change and its record commit together. */
   async addAudit(
-    db: Db,
+    trx: Knex.Transaction,
     membershipId: number,
     actorUserId: number | null,
     action: string,
     detail: Record<string, unknown> = {},
   ): Promise<void> {
-    await db('membership_audit').insert({
+    await trx('membership_audit').insert({
       membership_id: membershipId,
       actor_user_id: actorUserId,
       action,
@@ -256,7 +254,7 @@ export class MembershipRepository {
   }
 
   /** The membership's audit trail with each actor's name, newest first. */
-  audit(membershipId: number, db: Db = this.db): Promise<AuditRow[]> {
+  audit(membershipId: number, db: Knex = this.db): Promise<AuditRow[]> {
     return db('membership_audit as a')
       .leftJoin('users as u', 'u.id', 'a.actor_user_id')
       .where('a.membership_id', membershipId)

@@ -28,16 +28,18 @@ export class PlanAdminService {
       conflict('duplicate_code', 'A plan with that code exists.', { code: 'A plan with that code exists.' });
     if ((await this.planRepo.allPlans()).some((p) => p.code === input.code)) throw taken();
     try {
-      const row = await this.planRepo.insertPlan(this.db, {
-        code: input.code,
-        name: input.name,
-        description: input.description,
-        eligibility: input.eligibility,
-        dues_cents: input.duesCents,
-        joining_fee_cents: input.joiningFeeCents,
-        active: input.active,
-        sort_order: input.sortOrder,
-      });
+      const row = await this.db.transaction((trx) =>
+        this.planRepo.insertPlan(trx, {
+          code: input.code,
+          name: input.name,
+          description: input.description,
+          eligibility: input.eligibility,
+          dues_cents: input.duesCents,
+          joining_fee_cents: input.joiningFeeCents,
+          active: input.active,
+          sort_order: input.sortOrder,
+        }),
+      );
       return { plan: planView(row) };
     } catch (err) {
       // Two staff adding the same code at once: the unique index decides.
@@ -48,14 +50,16 @@ export class PlanAdminService {
 
   /** Changes the given fields of a plan; prices apply to payments from now on, never to terms already paid. */
   async updatePlan(id: number, input: Partial<PlanChanges>): Promise<StaffPlanAnswer> {
-    const row = await this.planRepo.updatePlan(this.db, id, {
-      ...(input.name !== undefined ? { name: input.name } : {}),
-      ...(input.description !== undefined ? { description: input.description } : {}),
-      ...(input.duesCents !== undefined ? { dues_cents: input.duesCents } : {}),
-      ...(input.joiningFeeCents !== undefined ? { joining_fee_cents: input.joiningFeeCents } : {}),
-      ...(input.active !== undefined ? { active: input.active } : {}),
-      ...(input.sortOrder !== undefined ? { sort_order: input.sortOrder } : {}),
-    });
+    const row = await this.db.transaction((trx) =>
+      this.planRepo.updatePlan(trx, id, {
+        ...(input.name !== undefined ? { name: input.name } : {}),
+        ...(input.description !== undefined ? { description: input.description } : {}),
+        ...(input.duesCents !== undefined ? { dues_cents: input.duesCents } : {}),
+        ...(input.joiningFeeCents !== undefined ? { joining_fee_cents: input.joiningFeeCents } : {}),
+        ...(input.active !== undefined ? { active: input.active } : {}),
+        ...(input.sortOrder !== undefined ? { sort_order: input.sortOrder } : {}),
+      }),
+    );
     if (!row) throw notFound('No such plan.');
     return { plan: planView(row) };
   }

@@ -1,8 +1,6 @@
 import type { Knex } from 'knex';
 import type { PlanRow } from './membership-repository';
 
-type Db = Knex | Knex.Transaction;
-
 /** Reads and writes of the membership plans the club offers. */
 export class PlanRepository {
   constructor(private readonly db: Knex) {}
@@ -20,21 +18,25 @@ export class PlanRepository {
   }
 
   /** One plan by id, active or not, since old payments and members still point at retired ones. */
-  plan(id: number, db: Db = this.db): Promise<PlanRow | undefined> {
+  plan(id: number, db: Knex = this.db): Promise<PlanRow | undefined> {
     return db<PlanRow>('membership_plans').where('id', id).first();
   }
 
   /** Adds a plan; the unique code index refuses a second plan with the same code. */
-  async insertPlan(db: Db, row: Omit<PlanRow, 'id'>): Promise<PlanRow> {
-    const [created] = await db<PlanRow>('membership_plans').insert(row).returning('*');
+  async insertPlan(trx: Knex.Transaction, row: Omit<PlanRow, 'id'>): Promise<PlanRow> {
+    const [created] = await trx<PlanRow>('membership_plans').insert(row).returning('*');
     return created;
   }
 
   /** Writes the given plan columns and the update time. */
-  async updatePlan(db: Db, id: number, patch: Partial<Omit<PlanRow, 'id'>>): Promise<PlanRow | undefined> {
-    const [row] = await db<PlanRow>('membership_plans')
+  async updatePlan(
+    trx: Knex.Transaction,
+    id: number,
+    patch: Partial<Omit<PlanRow, 'id'>>,
+  ): Promise<PlanRow | undefined> {
+    const [row] = await trx<PlanRow>('membership_plans')
       .where('id', id)
-      .update({ ...patch, updated_at: db.fn.now() } as Partial<PlanRow>)
+      .update({ ...patch, updated_at: trx.fn.now() } as Partial<PlanRow>)
       .returning('*');
     return row;
   }

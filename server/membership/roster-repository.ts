@@ -3,8 +3,6 @@ import type { RosterQuery, RosterSortKey } from '../../contracts/membership/rost
 import type { AsOf, RosterRow } from './membership-repository';
 import type { MembershipStatus } from './terms';
 
-type Db = Knex | Knex.Transaction;
-
 /** The status the dates give (the same rule as `statusOn`), so a stale stored status never hides a member. */
 const LIVE_STATUS =
   "(CASE WHEN m.term_end IS NULL THEN 'pending' WHEN m.term_end >= ?::date THEN 'active' " +
@@ -82,7 +80,7 @@ export class RosterRepository {
   }
 
   /** Memberships that have paid at least once, with what the reminder and renewal jobs need. */
-  standing(db: Db = this.db): Promise<RosterRow[]> {
+  standing(db: Knex = this.db): Promise<RosterRow[]> {
     return db('memberships as m')
       .join('users as u', 'u.id', 'm.user_id')
       .join('membership_plans as p', 'p.id', 'm.plan_id')

@@ -37,7 +37,7 @@ export class SettingsService {
    * The stored value merged over the defaults, so a new field has a value before anyone saves it. Inside a
    * transaction it is read there; otherwise from this process's copy, as fresh as a read (see NotifiedCache).
    */
-  async get<T>(def: SettingDefinition<T>, trx?: Knex | Knex.Transaction): Promise<T> {
+  async get<T>(def: SettingDefinition<T>, trx?: Knex.Transaction): Promise<T> {
     if (trx || !this.cache) return this.read(def, trx ?? this.db);
     const value = await this.cache.get(def.key, new Date(), async () => ({
       value: await this.read(def, this.db),
@@ -47,7 +47,7 @@ export class SettingsService {
     return structuredClone(value as T);
   }
 
-  private async read<T>(def: SettingDefinition<T>, db: Knex | Knex.Transaction): Promise<T> {
+  private async read<T>(def: SettingDefinition<T>, db: Knex): Promise<T> {
     const stored = await this.repo.value(def.key, db);
     if (stored === undefined) return def.defaults;
     const merged =
@@ -55,10 +55,14 @@ export class SettingsService {
     return def.schema.parse(merged);
   }
 
-  /** Validates a value against its schema and stores it as the whole setting; the trigger then drops every process's cached copy. */
-  async put<T>(def: SettingDefinition<T>, value: T, trx: Knex | Knex.Transaction = this.db): Promise<T> {
+  /**
+   * Validates a value against its schema and stores it as the whole setting, in `trx` or a transaction of its own;
+   * the trigger then drops every process's cached copy.
+   */
+  async put<T>(def: SettingDefinition<T>, value: T, trx?: Knex.Transaction): Promise<T> {
     const parsed = def.schema.parse(value);
-    await this.repo.save(trx, def.key, parsed);
+    if (trx) await this.repo.save(trx, def.key, parsed);
+    else await this.db.transaction((t) => this.repo.save(t, def.key, parsed));
     return parsed;
   }
 }

@@ -3,7 +3,8 @@ import { notFound } from '../platform/app-error';
 import type { Role } from '../platform/roles';
 import type { OrderGuide } from './order-guide';
 import type { OrderLinks } from './order-links';
-import type { OrderBundle, OrderRepository } from './order-repository';
+import type { OrderRepository } from './order-repository';
+import type { OrderBundle } from './order-rows';
 import { orderJson } from './order-view';
 import type { ReceiptService } from './receipt-service';
 

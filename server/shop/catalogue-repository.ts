@@ -63,7 +63,7 @@ export class CatalogueRepository {
    */
   async bundles(
     where: { activeOnly?: boolean; slug?: string; id?: number; variantIds?: number[] } = {},
-    db: Knex | Knex.Transaction = this.db,
+    db: Knex = this.db,
   ): Promise<ProductBundle[]> {
     const q = db('shop_products as p')
       .select(

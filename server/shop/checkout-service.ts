@@ -10,7 +10,8 @@ import type { SessionUser } from '../platform/roles';
 import type { SettingsService } from '../settings/settings-service';
 import type { OrderGuide } from './order-guide';
 import type { OrderLinks } from './order-links';
-import type { OrderBundle, OrderRepository } from './order-repository';
+import type { OrderRepository } from './order-repository';
+import type { OrderBundle } from './order-rows';
 import type { OrderRequest } from '../../contracts/shop/shop-schemas';
 import type { StockRepository } from './stock-repository';
 import type { QuoteService } from './quote-service';
@@ -110,7 +111,7 @@ export class CheckoutService {
       throw new AppError(402, 'payment_declined', result.message, { paymentToken: result.message });
     }
     this.log.warn({ orderId: order.id, message: result.message }, 'payment outcome unknown; order left pending');
-    await this.orders.update(this.db, order.id, { payment_message: result.message });
+    await this.db.transaction((trx) => this.orders.update(trx, order.id, { payment_message: result.message }));
     return {
       status: 'pending',
       bundle: (await this.orders.find(order.id))!,

@@ -3,7 +3,8 @@ import { enqueueEmail } from '../mail/outbox';
 import { conflict, notFound } from '../platform/app-error';
 import type { Clock } from '../platform/clock';
 import type { OrderLinks } from './order-links';
-import type { OrderBundle, OrderRepository } from './order-repository';
+import type { OrderRepository } from './order-repository';
+import type { OrderBundle } from './order-rows';
 import { shippedEmail } from './shop-emails';
 
 /** Packing and shipping: staff work on paid orders (refunds: RefundService). */
@@ -19,8 +20,10 @@ export class FulfilmentService {
   /** Marks a paid order packed; only paid orders move, so an unpaid one is never shipped by mistake. */
   async pack(id: number): Promise<OrderBundle> {
     await this.mustExist(id);
-    if (!(await this.orders.transition(this.db, id, ['paid'], { status: 'packed', packed_at: this.clock.now() })))
-      throw conflict('wrong_status', 'Only a paid order can be marked packed.');
+    const packed = await this.db.transaction((trx) =>
+      this.orders.transition(trx, id, ['paid'], { status: 'packed', packed_at: this.clock.now() }),
+    );
+    if (!packed) throw conflict('wrong_status', 'Only a paid order can be marked packed.');
     return (await this.orders.find(id))!;
   }
 

@@ -1,7 +1,8 @@
 import type { Knex } from 'knex';
 import type { Clock } from '../platform/clock';
 import { nextSteps } from './next-steps';
-import type { OrderBundle, OrderRepository } from './order-repository';
+import type { OrderRepository } from './order-repository';
+import type { OrderBundle } from './order-rows';
 import { effectiveRunState } from './run-state';
 
 /** Works out an order's next steps for the confirmation page and the receipt, from its runs as they stand now. */

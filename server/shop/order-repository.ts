@@ -1,105 +1,16 @@
 import type { Knex } from 'knex';
 import type { OrderStatus } from '../../contracts/labels/order-statuses';
 import type { OrderRequest } from '../../contracts/shop/shop-schemas';
-import type { OrderFilter, OrderSortKey } from '../../contracts/shop/staff-order-schemas';
 import type { RunRow } from './catalogue-repository';
+import {
+  orderOf,
+  type OrderBundle,
+  type OrderItemRow,
+  type OrderRow,
+  type OrderTaxRow,
+  type RefundRow,
+} from './order-rows';
 import type { PricedQuote } from './priced-quote';
-
-export interface OrderRow {
-  id: number;
-  number: string;
-  user_id: number | null;
-  email: string;
-  status: OrderStatus;
-  ship_name: string;
-  ship_line1: string | null;
-  ship_line2: string | null;
-  ship_city: string | null;
-  ship_province: string | null;
-  ship_postal_code: string | null;
-  ship_country: string;
-  shipping_code: string;
-  shipping_name: string;
-  tax_jurisdiction: string | null;
-  priced_on: string;
-  weight_grams: number;
-  discount_percent: number;
-  subtotal_cents: number;
-  discount_cents: number;
-  shipping_cents: number;
-  tax_cents: number;
-  total_cents: number;
-  refunded_cents: number;
-  payment_attempts: number;
-  charge_id: string | null;
-  paid_outside_processor: boolean;
-  payment_message: string | null;
-  carrier: string | null;
-  tracking_number: string | null;
-  paid_at: Date | null;
-  packed_at: Date | null;
-  shipped_at: Date | null;
-  disputed_at: Date | null;
-  dispute_reason: string | null;
-  last_attempt_at: Date | null;
-  created_at: Date;
-}
-export interface OrderItemRow {
-  id: number;
-  order_id: number;
-  variant_id: number;
-  run_id: number | null;
-  product_name: string;
-  variant_label: string;
-  sku: string;
-  unit_price_cents: number;
-  quantity: number;
-  restocked_quantity: number;
-}
-export interface OrderTaxRow {
-  code: 'GST' | 'HST' | 'PST' | 'QST' | 'RST';
-  jurisdiction: string;
-  rate_percent: string;
-  taxable_cents: number;
-  amount_cents: number;
-}
-export interface RefundRow {
-  id: number;
-  order_id: number;
-  amount_cents: number;
-  restocked: boolean;
-  processor_refund_id: string | null;
-  origin: 'staff' | 'processor';
-  created_at: Date;
-}
-
-/** An order with its lines, taxes and refunds. */
-export interface OrderBundle {
-  order: OrderRow;
-  items: OrderItemRow[];
-  taxes: OrderTaxRow[];
-  refunds: RefundRow[];
-}
-
-/** The staff table's filters, and the club's time zone their days are in. */
-export type ZonedOrderFilter = OrderFilter & { timeZone: string };
-
-/** The column behind each sort key the staff table offers. */
-const ORDER_SORTS: Record<OrderSortKey, string> = {
-  created: 'o.created_at',
-  number: 'o.number',
-  email: 'o.email',
-  total: 'o.total_cents',
-  status: 'o.status',
-};
-
-type Db = Knex | Knex.Transaction;
-const fix = (r: Record<string, unknown>): OrderRow => ({
-  ...(r as unknown as OrderRow),
-  priced_on: r.priced_on_text as string,
-});
-
-const withUnits = (r: Record<string, unknown>) => ({ ...fix(r), units: r.units as number });
 
 /** Orders as plain rows; stock and run counts move only through the conditional updates here. */
 export class OrderRepository {
@@ -175,7 +86,7 @@ export class OrderRepository {
 
   /** Moves an order between statuses only from the expected one; returns whether it moved. */
   async transition(
-    trx: Db,
+    trx: Knex.Transaction,
     id: number,
     from: OrderStatus[],
     patch: Partial<OrderRow> & { status?: OrderStatus },
@@ -198,7 +109,7 @@ export class OrderRepository {
       .returning(['*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text")]);
     if (!row) return null;
     const [items, taxes] = [await this.items(trx, id), await this.taxes(trx, id)];
-    return { order: fix(row), items, taxes, refunds: [] };
+    return { order: orderOf(row), items, taxes, refunds: [] };
   }
 
   /**
@@ -213,13 +124,13 @@ export class OrderRepository {
     return claimed ? Number(claimed.payment_attempts) : null;
   }
 
-  /** Writes the given order columns in the caller's transaction or connection. */
-  async update(trx: Db, id: number, patch: Record<string, unknown>): Promise<void> {
+  /** Writes the given order columns in the caller's transaction. */
+  async update(trx: Knex.Transaction, id: number, patch: Record<string, unknown>): Promise<void> {
     await trx('shop_orders').where('id', id).update(patch);
   }
 
   /** The order with its lines, taxes and refunds, unlocked; use `findLocked` before changing money on it. */
-  async find(id: number, trx: Db = this.db): Promise<OrderBundle | null> {
+  async find(id: number, trx: Knex = this.db): Promise<OrderBundle | null> {
     return this.bundle(trx, await this.orderRow(trx, id));
   }
 
@@ -228,27 +139,27 @@ export class OrderRepository {
     return this.bundle(trx, await this.orderRow(trx, id).forUpdate());
   }
 
-  private orderRow(trx: Db, id: number) {
+  private orderRow(trx: Knex, id: number) {
     return trx('shop_orders')
       .select('*', trx.raw("to_char(priced_on, 'YYYY-MM-DD') as priced_on_text"))
       .where('id', id)
       .first();
   }
 
-  private async bundle(trx: Db, row: Record<string, unknown> | undefined): Promise<OrderBundle | null> {
+  private async bundle(trx: Knex, row: Record<string, unknown> | undefined): Promise<OrderBundle | null> {
     if (!row) return null;
     const id = row.id as number;
     const items = await this.items(trx, id);
     const taxes = await this.taxes(trx, id);
     const refunds = await trx<RefundRow>('shop_refunds').where('order_id', id).orderBy('id');
-    return { order: fix(row), items, taxes, refunds };
+    return { order: orderOf(row), items, taxes, refunds };
   }
 
-  private async items(trx: Db, orderId: number): Promise<OrderItemRow[]> {
+  private async items(trx: Knex, orderId: number): Promise<OrderItemRow[]> {
     return trx<OrderItemRow>('shop_order_items').where('order_id', orderId).orderBy('id');
   }
 
-  private async taxes(trx: Db, orderId: number): Promise<OrderTaxRow[]> {
+  private async taxes(trx: Knex, orderId: number): Promise<OrderTaxRow[]> {
     return (await trx('shop_order_taxes').where('order_id', orderId).orderBy('code')).map((t) => ({
       ...t,
       rate_percent: String(t.rate_percent),
@@ -256,7 +167,7 @@ export class OrderRepository {
   }
 
   /** The id of the order a processor charge paid, so webhooks and refunds find their order. */
-  async byChargeId(chargeId: string, trx: Db = this.db): Promise<number | null> {
+  async byChargeId(chargeId: string, trx: Knex = this.db): Promise<number | null> {
     const row = await trx('shop_orders').where('charge_id', chargeId).first('id');
     return row ? (row.id as number) : null;
   }
@@ -269,11 +180,11 @@ export class OrderRepository {
       .whereNot('status', 'failed')
       .orderBy('created_at', 'desc')
       .limit(200);
-    return rows.map(fix);
+    return rows.map(orderOf);
   }
 
   /** The runs an order has units in, oldest closing first. */
-  async runsOf(orderId: number, trx: Db = this.db): Promise<RunRow[]> {
+  async runsOf(orderId: number, trx: Knex = this.db): Promise<RunRow[]> {
     const rows = await trx('shop_runs as r')
       .whereIn('r.id', trx('shop_order_items').where('order_id', orderId).whereNotNull('run_id').select('run_id'))
       .select('r.*')
@@ -293,7 +204,7 @@ export class OrderRepository {
       .orderBy('created_at', 'desc')
       .orderBy('id', 'desc')
       .first();
-    return row ? fix(row) : null;
+    return row ? orderOf(row) : null;
   }
 
   /** Pending orders whose last payment attempt is older than `before`. */
@@ -308,54 +219,8 @@ export class OrderRepository {
     ).map(Number);
   }
 
-  private filtered(f: ZonedOrderFilter) {
-    const q = this.db('shop_orders as o');
-    if (f.status === 'placed') q.whereNot('o.status', 'failed');
-    else if (f.status) q.where('o.status', f.status);
-    if (f.runId)
-      q.whereExists(this.db('shop_order_items as i').whereRaw('i.order_id = o.id').where('i.run_id', f.runId));
-    if (f.from) q.whereRaw('(o.created_at AT TIME ZONE ?)::date >= ?', [f.timeZone, f.from]);
-    if (f.to) q.whereRaw('(o.created_at AT TIME ZONE ?)::date <= ?', [f.timeZone, f.to]);
-    if (f.q) {
-      const like = `%${f.q.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
-      q.where((w) => w.whereILike('o.email', like).orWhereILike('o.number', like));
-    }
-    return q;
-  }
-
-  /** One page of orders, sorted on the server. */
-  async page(
-    f: ZonedOrderFilter,
-    sort: OrderSortKey,
-    dir: 'asc' | 'desc',
-    page: number,
-    pageSize: number,
-  ): Promise<{ items: (OrderRow & { units: number })[]; total: number }> {
-    const [{ count }] = await this.filtered(f).count<{ count: number }[]>('* as count');
-    const rows = await this.rowsFor(f, sort, dir)
-      .limit(pageSize)
-      .offset((page - 1) * pageSize);
-    return { items: rows.map(withUnits), total: count };
-  }
-
-  /** Every matching order (CSV export), at most 10,000. */
-  async all(f: ZonedOrderFilter, sort: OrderSortKey, dir: 'asc' | 'desc'): Promise<(OrderRow & { units: number })[]> {
-    return (await this.rowsFor(f, sort, dir).limit(10000)).map(withUnits);
-  }
-
-  private rowsFor(f: ZonedOrderFilter, sort: OrderSortKey, dir: 'asc' | 'desc') {
-    return this.filtered(f)
-      .select(
-        'o.*',
-        this.db.raw("to_char(o.priced_on, 'YYYY-MM-DD') as priced_on_text"),
-        this.db.raw('(SELECT coalesce(sum(quantity), 0)::int FROM shop_order_items WHERE order_id = o.id) as units'),
-      )
-      .orderBy(ORDER_SORTS[sort], dir)
-      .orderBy('o.id', dir);
-  }
-
   /** Names of the runs this order still waits for: pre-order lines (not given back) whose run has not been printed. */
-  async unprintedRuns(orderId: number, db: Db = this.db): Promise<string[]> {
+  async unprintedRuns(orderId: number, db: Knex = this.db): Promise<string[]> {
     return db('shop_order_items as i')
       .join('shop_runs as r', 'r.id', 'i.run_id')
       .where('i.order_id', orderId)

@@ -1,6 +1,6 @@
 import type { Order } from '../../contracts/shop/shop-answers';
 import { formatRate } from './tax';
-import type { OrderBundle } from './order-repository';
+import type { OrderBundle } from './order-rows';
 
 /** An order as its buyer sees it; staff views add `staffOrderFields`. */
 export function orderJson(b: OrderBundle): Order {

@@ -1,6 +1,6 @@
 import { dateInZone } from '../platform/clock';
 import type { SettingsService } from '../settings/settings-service';
-import type { OrderBundle } from './order-repository';
+import type { OrderBundle } from './order-rows';
 import type { Receipt } from '../../contracts/shop/shop-answers';
 import { receiptFor, type SellerDetails } from './receipt';
 import { SHOP_SETTINGS } from './shop-settings';

@@ -2,8 +2,6 @@ import type { Knex } from 'knex';
 import type { RefundBreakdown } from './refund-arithmetic';
 import { taxKey } from './refund-arithmetic';
 
-type Db = Knex | Knex.Transaction;
-
 export type RefundState = 'requested' | 'succeeded' | 'failed';
 
 /** One shop refund with its parts. */
@@ -150,30 +148,30 @@ export class RefundRepository {
   }
 
   /** One refund by id. */
-  async byId(id: number, db: Db = this.db): Promise<ShopRefundRow | null> {
+  async byId(id: number, db: Knex = this.db): Promise<ShopRefundRow | null> {
     const row = await db('shop_refunds').where('id', id).first();
     return row ? fixRefund(row) : null;
   }
 
   /** The refund a client's Idempotency-Key already asked for on this order, so a retry answers the first refund. */
-  async byRequestKey(orderId: number, requestKey: string, db: Db = this.db): Promise<ShopRefundRow | null> {
+  async byRequestKey(orderId: number, requestKey: string, db: Knex = this.db): Promise<ShopRefundRow | null> {
     const row = await db('shop_refunds').where({ order_id: orderId, request_key: requestKey }).first();
     return row ? fixRefund(row) : null;
   }
 
   /** Every refund of one order, oldest first. */
-  async forOrder(orderId: number, db: Db = this.db): Promise<ShopRefundRow[]> {
+  async forOrder(orderId: number, db: Knex = this.db): Promise<ShopRefundRow[]> {
     return (await db('shop_refunds').where('order_id', orderId).orderBy('id')).map(fixRefund);
   }
 
   /** The refunded units of these refunds, by refund and order line. */
-  async lines(refundIds: number[], db: Db = this.db): Promise<RefundLineRow[]> {
+  async lines(refundIds: number[], db: Knex = this.db): Promise<RefundLineRow[]> {
     if (!refundIds.length) return [];
     return await db('shop_refund_lines').whereIn('refund_id', refundIds).orderBy(['refund_id', 'order_item_id']);
   }
 
   /** The refunded tax of these refunds, by refund and tax code. */
-  async taxes(refundIds: number[], db: Db = this.db): Promise<RefundTaxRow[]> {
+  async taxes(refundIds: number[], db: Knex = this.db): Promise<RefundTaxRow[]> {
     if (!refundIds.length) return [];
     return (await db('shop_refund_taxes').whereIn('refund_id', refundIds).orderBy(['refund_id', 'code'])).map((t) => ({
       ...t,
@@ -182,7 +180,7 @@ export class RefundRepository {
   }
 
   /** What refunds in the given states gave back (or claim) on one order. */
-  async soFar(orderId: number, states: RefundState[], db: Db = this.db): Promise<RefundedSoFar> {
+  async soFar(orderId: number, states: RefundState[], db: Knex = this.db): Promise<RefundedSoFar> {
     const refunds = (await this.forOrder(orderId, db)).filter((r) => states.includes(r.state));
     const ids = refunds.map((r) => r.id);
     const taxCents: Record<string, number> = {};

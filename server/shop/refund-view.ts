@@ -1,5 +1,6 @@
 import type { RefundPreview, StaffOrder, StaffRefund } from '../../contracts/shop/staff-order-answers';
-import type { OrderBundle, OrderRepository } from './order-repository';
+import type { OrderRepository } from './order-repository';
+import type { OrderBundle } from './order-rows';
 import { orderJson } from './order-view';
 import type { RefundBreakdown } from './refund-arithmetic';
 import type { RefundLineRow, RefundRepository, RefundTaxRow, ShopRefundRow } from './refund-repository';

@@ -2,7 +2,7 @@ import { codeInWords } from '../../contracts/labels/label-of';
 import type { TransactionalEmail } from '../mail/outbox';
 import { formatCad } from '../platform/money';
 import { formatRate } from './tax';
-import type { OrderBundle } from './order-repository';
+import type { OrderBundle } from './order-rows';
 import type { Receipt } from '../../contracts/shop/shop-answers';
 import { receiptText } from './receipt';
 

@@ -11,6 +11,7 @@ import { FulfilmentService } from './fulfilment-service';
 import { OrderGuide } from './order-guide';
 import { OrderLinks } from './order-links';
 import { OrderRepository } from './order-repository';
+import { OrderTableRepository } from './order-table-repository';
 import { StockRepository } from './stock-repository';
 import { paymentRoutes } from './payment-routes';
 import { QuoteService } from './quote-service';
@@ -100,7 +101,7 @@ export function shopFeature(
     runs: new RunAdminService(deps.db, catalogueRepo, settings, deps.clock),
     fulfilment,
     refunds,
-    orders: new StaffOrderService(orders, refundRepo, deps.config.clubTimeZone),
+    orders: new StaffOrderService(orders, new OrderTableRepository(deps.db), refundRepo, deps.config.clubTimeZone),
     config: shopConfig,
     settings,
     timeZone: deps.config.clubTimeZone,

@@ -4,7 +4,9 @@ import type { StaffOrder, StaffOrderPage, StaffRefund } from '../../contracts/sh
 import type { OrderListQuery } from '../../contracts/shop/staff-order-schemas';
 import { centsToDecimal, csvInstant, toCsv, zonedHeader } from '../platform/csv';
 import { notFound } from '../platform/app-error';
-import type { OrderBundle, OrderRepository, ZonedOrderFilter } from './order-repository';
+import type { OrderRepository } from './order-repository';
+import type { OrderTableRepository, ZonedOrderFilter } from './order-table-repository';
+import type { OrderBundle } from './order-rows';
 import type { RefundRepository, ShopRefundRow } from './refund-repository';
 import { refundJson, staffOrderJson } from './refund-view';
 
@@ -31,6 +33,7 @@ const CSV_HEADER = (timeZone: string) => [
 export class StaffOrderService {
   constructor(
     private readonly orders: OrderRepository,
+    private readonly table: OrderTableRepository,
     private readonly refunds: RefundRepository,
     private readonly timeZone: string,
   ) {}
@@ -41,7 +44,7 @@ export class StaffOrderService {
 
   /** One page of the staff order table, filtered and sorted on the server, its days in the club's time zone. */
   async page(q: OrderListQuery): Promise<StaffOrderPage> {
-    const { items, total } = await this.orders.page(this.filterOf(q), q.sort, q.dir, q.page, q.pageSize);
+    const { items, total } = await this.table.page(this.filterOf(q), q.sort, q.dir, q.page, q.pageSize);
     return {
       items: items.map((o) => ({
         id: o.id,
@@ -64,7 +67,7 @@ export class StaffOrderService {
 
   /** The CSV of every order the filters choose, always oldest first whatever the table was sorted by, for the books. */
   async exportCsv(q: OrderListQuery): Promise<string> {
-    const rows = await this.orders.all(this.filterOf(q), 'created', 'asc');
+    const rows = await this.table.all(this.filterOf(q), 'created', 'asc');
     return toCsv(
       CSV_HEADER(this.timeZone),
       rows.map((o) => [

@@ -98,9 +98,9 @@ describe('GET /api/admin/users/:id/history', () => {
     const { client: admin } = await signedIn(t.app, t.deps.db, ['fan', 'admin']);
     const user = await createUser(t.deps.db, ['fan']);
     const users = new UserRepository(t.deps.db);
-    await users.setRole(t.deps.db, user.id, 'member', true); // dues paid
-    await users.setRole(t.deps.db, user.id, 'member', true); // a second payment: no change
-    await users.setRole(t.deps.db, user.id, 'member', false); // lapsed
+    await t.deps.db.transaction((trx) => users.setRole(trx, user.id, 'member', true)); // dues paid
+    await t.deps.db.transaction((trx) => users.setRole(trx, user.id, 'member', true)); // a second payment: no change
+    await t.deps.db.transaction((trx) => users.setRole(trx, user.id, 'member', false)); // lapsed
     const res = await admin.get(`/api/admin/users/${user.id}/history`);
     expect(res.body.items).toEqual([
       { id: expect.any(Number), kind: 'roles', added: [], removed: ['member'], at: expect.any(String), by: null },

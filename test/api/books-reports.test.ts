@@ -350,7 +350,8 @@ describe('actual processor fees', () => {
         .first('fee_estimated'),
     ).toEqual({ fee_estimated: true });
     const books = (await import('../../server/books/books-repository')).BooksRepository;
-    const updated = await new books(t.deps.db, 'America/Winnipeg').setActualFee(`ch_${tag}`, 348);
+    const repo = new books(t.deps.db, 'America/Winnipeg');
+    const updated = await t.deps.db.transaction((trx) => repo.setActualFee(trx, `ch_${tag}`, 348));
     expect(updated).toBe(1);
     const row = await t.deps
       .db('money_movements')

@@ -110,14 +110,16 @@ describe('the outbox appends the reason', () => {
 
   it('adds the reason to an HTML body too, escaped, after a rule', async () => {
     const to = `why-html-${Date.now()}@example.test`;
-    await enqueueEmail(t.deps.db, {
-      to,
-      subject: 'Order mail',
-      text: 'Thanks.\n',
-      html: '<p>Thanks.</p>',
-      template: 'shop-order-refund',
-      reason: { order: 'PS-<0042>' },
-    });
+    await t.deps.db.transaction((trx) =>
+      enqueueEmail(trx, {
+        to,
+        subject: 'Order mail',
+        text: 'Thanks.\n',
+        html: '<p>Thanks.</p>',
+        template: 'shop-order-refund',
+        reason: { order: 'PS-<0042>' },
+      }),
+    );
     const [row] = await t.deps.db('outbound_emails').where('to_address', to);
     expect(row.text_body).toBe(
       'Thanks.\n\n--\nWhy you got this: we refunded money on your order PS-<0042>; each refund gets one e-mail.',
@@ -139,7 +141,7 @@ describe('the outbox appends the reason', () => {
       },
       { teamName: 'Thrust & Filament', mailingAddress: 'Box 1, Gopher Flats MB', contactEmail: 'team@example.test' },
     );
-    await enqueueEmail(t.deps.db, mail);
+    await t.deps.db.transaction((trx) => enqueueEmail(trx, mail));
     const [row] = await t.deps.db('outbound_emails').where('to_address', to);
     expect(row.category).toBe('commercial');
     expect(row.text_body).toBe(mail.text);
