@@ -2,8 +2,6 @@ import type { Knex } from 'knex';
 import type { AdminPost } from '../../contracts/build-logs/post-answers';
 import type { PostStatus } from '../../contracts/labels/post-states';
 
-type Db = Knex | Knex.Transaction;
-
 export interface PostRow {
   id: number;
   slug: string;
@@ -51,14 +49,14 @@ const columns = (p: PostWrite) => ({
 export class PostRepository {
   constructor(private readonly db: Knex) {}
 
-  private withAuthor(trx: Db) {
+  private withAuthor(trx: Knex) {
     return trx<PostRow>('posts as p')
       .leftJoin('users as u', 'u.id', 'p.author_id')
       .select('p.*', 'u.display_name as author_name');
   }
 
   /** A post of any state with its author's display name. */
-  byId(id: number, trx: Db = this.db): Promise<PostRow | undefined> {
+  byId(id: number, trx: Knex = this.db): Promise<PostRow | undefined> {
     return this.withAuthor(trx).where('p.id', id).first();
   }
 
@@ -73,13 +71,13 @@ export class PostRepository {
   }
 
   /** The addresses already taken by `base` and its numbered variants (`base-2`, ...), so a new one can pick the next free one. */
-  async slugsLike(base: string, trx: Db = this.db): Promise<Set<string>> {
+  async slugsLike(base: string, trx: Knex = this.db): Promise<Set<string>> {
     const rows = await trx('posts').where('slug', base).orWhereLike('slug', `${base}-%`).select('slug');
     return new Set(rows.map((r: { slug: string }) => r.slug));
   }
 
   /** Whether another post (other than `exceptId`) already uses this address. */
-  async slugTaken(slug: string, exceptId: number | null, trx: Db = this.db): Promise<boolean> {
+  async slugTaken(slug: string, exceptId: number | null, trx: Knex = this.db): Promise<boolean> {
     const row = await trx('posts')
       .where('slug', slug)
       .modify((q) => exceptId !== null && q.whereNot('id', exceptId))
@@ -110,7 +108,7 @@ export class PostRepository {
   }
 
   /** The ids of the sponsors each of these posts credits, by post id (posts crediting none are left out). */
-  async creditedSponsorIds(postIds: readonly number[], trx: Db = this.db): Promise<Map<number, number[]>> {
+  async creditedSponsorIds(postIds: readonly number[], trx: Knex = this.db): Promise<Map<number, number[]>> {
     const out = new Map<number, number[]>();
     if (!postIds.length) return out;
     const rows: { post_id: number; sponsor_id: number }[] = await trx('post_credits')

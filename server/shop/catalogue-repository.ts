@@ -118,8 +118,9 @@ export class CatalogueRepository {
     return productId;
   }
 
-  /** Writes the given product columns; false when there is no such product. */
+  /** Writes the given product columns in the caller's transaction; false when there is no such product. */
   async updateProduct(
+    trx: Knex.Transaction,
     id: number,
     patch: Partial<
       Pick<
@@ -135,10 +136,10 @@ export class CatalogueRepository {
       >
     >,
   ): Promise<boolean> {
-    const row: Record<string, unknown> = { ...patch, updated_at: this.db.fn.now() };
+    const row: Record<string, unknown> = { ...patch, updated_at: trx.fn.now() };
     if (patch.size_chart !== undefined) row.size_chart = patch.size_chart ? JSON.stringify(patch.size_chart) : null;
     if (patch.images) row.images = JSON.stringify(patch.images);
-    return (await this.db('shop_products').where('id', id).update(row)) > 0;
+    return (await trx('shop_products').where('id', id).update(row)) > 0;
   }
 
   /** Adds a print run with its per-variant caps in the caller's transaction, so a run never opens without its limits. */

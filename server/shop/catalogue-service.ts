@@ -117,15 +117,17 @@ export class CatalogueService {
 
   /** Saves staff edits to a product and answers with the product as it now is. */
   async update(id: number, patch: ProductEdit) {
-    const ok = await this.repo.updateProduct(id, {
-      name: patch.name,
-      description_md: patch.description,
-      price_cents: patch.priceCents,
-      active: patch.active,
-      size_chart: patch.sizeChart,
-      images: patch.images,
-      max_per_order: patch.maxPerOrder,
-    });
+    const ok = await this.db.transaction((trx) =>
+      this.repo.updateProduct(trx, id, {
+        name: patch.name,
+        description_md: patch.description,
+        price_cents: patch.priceCents,
+        active: patch.active,
+        size_chart: patch.sizeChart,
+        images: patch.images,
+        max_per_order: patch.maxPerOrder,
+      }),
+    );
     if (!ok) throw notFound('No such product.');
     return this.byId(id);
   }

@@ -1,8 +1,6 @@
 import type { Knex } from 'knex';
 import type { DeliverableKind } from './sponsor-ledger';
 
-type Db = Knex | Knex.Transaction;
-
 export interface AgreementRow {
   id: number;
   sponsor_id: number;
@@ -111,7 +109,7 @@ export class AgreementRepository {
   }
 
   /** One agreement with its cash-received day as `YYYY-MM-DD`. */
-  agreementById(id: number, trx: Db = this.db): Promise<AgreementRow | undefined> {
+  agreementById(id: number, trx: Knex = this.db): Promise<AgreementRow | undefined> {
     return trx<AgreementRow>('sponsor_agreements')
       .where('id', id)
       .first('*', trx.raw("to_char(cash_received_on, 'YYYY-MM-DD') as cash_received_on"));
@@ -130,7 +128,7 @@ export class AgreementRepository {
   }
 
   /** Agreements of one sponsor, or of everyone when `sponsorId` is null. */
-  agreements(sponsorId: number | null, trx: Db = this.db): Promise<AgreementRow[]> {
+  agreements(sponsorId: number | null, trx: Knex = this.db): Promise<AgreementRow[]> {
     return trx<AgreementRow>('sponsor_agreements')
       .modify((q) => sponsorId !== null && q.where('sponsor_id', sponsorId))
       .select('*', trx.raw("to_char(cash_received_on, 'YYYY-MM-DD') as cash_received_on"))
@@ -141,7 +139,7 @@ export class AgreementRepository {
   }
 
   /** The in-kind items of these agreements, with received days as `YYYY-MM-DD`. */
-  inKind(agreementIds: readonly number[], trx: Db = this.db): Promise<InKindRow[]> {
+  inKind(agreementIds: readonly number[], trx: Knex = this.db): Promise<InKindRow[]> {
     if (!agreementIds.length) return Promise.resolve([]);
     return trx<InKindRow>('agreement_in_kind')
       .whereIn('agreement_id', agreementIds)
@@ -150,7 +148,7 @@ export class AgreementRepository {
   }
 
   /** Deliverables with their live credit counts, of one sponsor or (null) of every sponsor. */
-  deliverables(sponsorId: number | null, trx: Db = this.db): Promise<DeliverableRow[]> {
+  deliverables(sponsorId: number | null, trx: Knex = this.db): Promise<DeliverableRow[]> {
     return trx('agreement_deliverables as d')
       .join('sponsor_agreements as a', 'a.id', 'd.agreement_id')
       .modify((q) => sponsorId !== null && q.where('a.sponsor_id', sponsorId))
@@ -170,7 +168,7 @@ export class AgreementRepository {
   }
 
   /** The sponsor each of these deliverables was promised to, by deliverable id (unknown ids are left out). */
-  async deliverableSponsors(deliverableIds: readonly number[], trx: Db = this.db): Promise<Map<number, number>> {
+  async deliverableSponsors(deliverableIds: readonly number[], trx: Knex = this.db): Promise<Map<number, number>> {
     if (!deliverableIds.length) return new Map();
     const rows: { id: number; sponsor_id: number }[] = await trx('agreement_deliverables as d')
       .join('sponsor_agreements as a', 'a.id', 'd.agreement_id')
@@ -180,7 +178,7 @@ export class AgreementRepository {
   }
 
   /** Season totals per sponsor id: cash plus declared in-kind value. */
-  async seasonTotals(season: string, trx: Db = this.db): Promise<Map<number, number>> {
+  async seasonTotals(season: string, trx: Knex = this.db): Promise<Map<number, number>> {
     const rows = await trx('sponsor_agreements as a')
       .where('a.season', season)
       .select(

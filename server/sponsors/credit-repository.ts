@@ -1,8 +1,6 @@
 import type { Knex } from 'knex';
 import type { DeliverableKind } from './sponsor-ledger';
 
-type Db = Knex | Knex.Transaction;
-
 /** A credit as `sponsor_credits` holds it; `post_id` names the crediting build log, whose title the build logs lend. */
 export interface CreditRow {
   id: number;
@@ -53,7 +51,7 @@ export class CreditRepository {
   }
 
   /** Sponsor ids with a live credit from the post. */
-  async liveCreditSponsors(postId: number, trx: Db = this.db): Promise<number[]> {
+  async liveCreditSponsors(postId: number, trx: Knex = this.db): Promise<number[]> {
     const rows = await trx('sponsor_credits').where('post_id', postId).whereNull('withdrawn_at').select('sponsor_id');
     return rows.map((r: { sponsor_id: number }) => r.sponsor_id);
   }
@@ -74,7 +72,7 @@ export class CreditRepository {
   }
 
   /** Live credits of a sponsor, newest first; `post_id` names the crediting post, if any. */
-  credits(sponsorId: number, trx: Db = this.db): Promise<CreditRow[]> {
+  credits(sponsorId: number, trx: Knex = this.db): Promise<CreditRow[]> {
     return trx<CreditRow>('sponsor_credits')
       .where('sponsor_id', sponsorId)
       .whereNull('withdrawn_at')

@@ -1,7 +1,5 @@
 import type { Knex } from 'knex';
 
-type Db = Knex | Knex.Transaction;
-
 export interface SponsorRow {
   id: number;
   slug: string;
@@ -23,22 +21,22 @@ export class SponsorRepository {
   constructor(private readonly db: Knex) {}
 
   /** Every sponsor, by name. */
-  all(trx: Db = this.db): Promise<SponsorRow[]> {
+  all(trx: Knex = this.db): Promise<SponsorRow[]> {
     return trx<SponsorRow>('sponsors').orderBy('name');
   }
 
   /** One sponsor by id. */
-  byId(id: number, trx: Db = this.db): Promise<SponsorRow | undefined> {
+  byId(id: number, trx: Knex = this.db): Promise<SponsorRow | undefined> {
     return trx<SponsorRow>('sponsors').where('id', id).first();
   }
 
   /** The sponsors with these ids, by name. */
-  byIds(ids: readonly number[], trx: Db = this.db): Promise<SponsorRow[]> {
+  byIds(ids: readonly number[], trx: Knex = this.db): Promise<SponsorRow[]> {
     return ids.length ? trx<SponsorRow>('sponsors').whereIn('id', ids).orderBy('name') : Promise.resolve([]);
   }
 
   /** The sponsors with these slugs, as `%thanks` markers in posts name them. */
-  bySlugs(slugs: readonly string[], trx: Db = this.db): Promise<SponsorRow[]> {
+  bySlugs(slugs: readonly string[], trx: Knex = this.db): Promise<SponsorRow[]> {
     return slugs.length ? trx<SponsorRow>('sponsors').whereIn('slug', slugs) : Promise.resolve([]);
   }
 
@@ -48,7 +46,7 @@ export class SponsorRepository {
   }
 
   /** The slugs already taken by `base` and its numbered variants, so a new sponsor gets a free one. */
-  async slugsLike(base: string, trx: Db = this.db): Promise<Set<string>> {
+  async slugsLike(base: string, trx: Knex = this.db): Promise<Set<string>> {
     const rows = await trx('sponsors').where('slug', base).orWhereLike('slug', `${base}-%`).select('slug');
     return new Set(rows.map((r: { slug: string }) => r.slug));
   }
@@ -97,7 +95,7 @@ export class SponsorRepository {
   }
 
   /** The accounts that can open the sponsor's portal, by display name. */
-  contacts(sponsorId: number, trx: Db = this.db): Promise<ContactRow[]> {
+  contacts(sponsorId: number, trx: Knex = this.db): Promise<ContactRow[]> {
     return trx('sponsor_contacts as c')
       .join('users as u', 'u.id', 'c.user_id')
       .where('c.sponsor_id', sponsorId)
