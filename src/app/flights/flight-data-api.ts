@@ -1,7 +1,8 @@
 import { HttpClient, type HttpEvent } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { ColumnMapping, FlightDetail, FlightSummary } from './flight-data';
+import type { FlightPage } from '@contracts/launches/launch-answers';
+import type { ColumnMapping, FlightSummary } from './flight-data';
 
 /** The flight-data endpoints: a flight with its analysed log, and the log upload. */
 @Injectable({ providedIn: 'root' })
@@ -9,8 +10,8 @@ export class FlightDataApi {
   private readonly http = inject(HttpClient);
 
   /** A flight with its summary, events and chart points. */
-  get(id: number): Observable<FlightDetail> {
-    return this.http.get<FlightDetail>(`/api/flights/${id}`);
+  get(id: number): Observable<FlightPage> {
+    return this.http.get<FlightPage>(`/api/flights/${id}`);
   }
 
   /** Sends the log (multipart `log`) with its column mapping (`columns`, JSON), reporting upload progress. */

@@ -1,11 +1,12 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import type { FlightDetail } from './flight-data';
+import type { FlightPage, FlightView } from '@contracts/launches/launch-answers';
 import { FlightEmbed } from './flight-embed';
 
-const DETAIL: FlightDetail = {
-  flight: { id: 5, rocketName: 'Prairie Dart' },
+// Only the card's fields the embed reads; the rest of a FlightView does not matter here.
+const FLIGHT = { id: 5, rocketName: 'Prairie Dart' } as FlightView;
+const DATA: NonNullable<FlightPage['data']> = {
   summary: {
     apogeeMetres: 634.86,
     apogeeFeet: 2082.9,
@@ -21,7 +22,12 @@ const DETAIL: FlightDetail = {
     { t: 12.7, altitudeM: 634.86, speedMps: 0 },
   ],
   events: [{ kind: 'apogee', t: 12.697 }],
+  mapping: {},
+  filter: 'Savitzky–Golay',
+  fileName: 'flight.csv',
+  uploadedAt: '2026-06-13T18:00:00.000Z',
 };
+const DETAIL: FlightPage = { flight: FLIGHT, data: DATA, caution: 'Padside records.' };
 
 describe('FlightEmbed', () => {
   beforeAll(() => jest.spyOn(HTMLCanvasElement.prototype, 'getContext').mockReturnValue(null));
@@ -51,19 +57,14 @@ describe('FlightEmbed', () => {
     expect(el.querySelector('ps-flight-chart canvas')).not.toBeNull();
   });
 
-  it('should read the analysed log under data as well', async () => {
-    const { summary, series, events, flight } = DETAIL;
-    const el = await show((req) =>
-      req.flush({ flight, data: { summary, series, events, filter: 'Savitzky–Golay' }, caution: 'Padside records.' }),
-    );
-    expect(el.textContent).toContain('635 m (2,083 ft) at 12.7 s');
-    expect(el.querySelector('ps-flight-chart')).not.toBeNull();
-    const none = await show((req) => req.flush({ flight, data: null }));
-    expect(none.textContent).toContain('Flight data not available.');
+  it('should say the data is not available for a flight with no log yet', async () => {
+    const el = await show((req) => req.flush({ ...DETAIL, data: null }));
+    expect(el.textContent).toContain('Flight data not available.');
+    expect(el.querySelector('ps-flight-chart')).toBeNull();
   });
 
-  it('should say the data is not available for a flight with no log yet', async () => {
-    const el = await show((req) => req.flush({ ...DETAIL, summary: null, series: null, events: null }));
+  it('should say the data is not available for a log with no points to chart', async () => {
+    const el = await show((req) => req.flush({ ...DETAIL, data: { ...DATA, series: [] } }));
     expect(el.textContent).toContain('Flight data not available.');
     expect(el.querySelector('ps-flight-chart')).toBeNull();
   });

@@ -25,9 +25,9 @@ export class FlightEmbed {
   protected readonly data = computed(() => {
     if (this.flight.error()) return null;
     const f = this.flight.value();
-    const d = f?.data ?? f;
-    return f && d?.summary && d.series?.length
-      ? { name: f.flight.rocketName ?? null, summary: d.summary, series: d.series, events: d.events ?? [] }
+    const d = f?.data;
+    return f && d?.series.length
+      ? { name: f.flight.rocketName, summary: d.summary, series: d.series, events: d.events }
       : null;
   });
   protected readonly unavailable = computed(
