@@ -47,23 +47,31 @@ describe('PostPage with flight markers', () => {
     await settle();
     await settle();
 
+    // As GET /api/flights/:id answers (FlightPage): the card, and the analysed log under `data`.
     http.expectOne('/api/flights/5').flush({
       flight: { id: 5, rocketName: 'Prairie Dart' },
-      summary: {
-        apogeeMetres: 412,
-        apogeeFeet: 1351.7,
-        apogeeAtSeconds: 9.8,
-        maxSpeedMps: 88,
-        descentRateMps: 4.6,
-        peakAccelG: 7.2,
-        flightTimeSeconds: 95,
-        samples: 9000,
+      data: {
+        summary: {
+          apogeeMetres: 412,
+          apogeeFeet: 1351.7,
+          apogeeAtSeconds: 9.8,
+          maxSpeedMps: 88,
+          descentRateMps: 4.6,
+          peakAccelG: 7.2,
+          flightTimeSeconds: 95,
+          samples: 9000,
+        },
+        series: [
+          { t: 0, altitudeM: 0, speedMps: 0 },
+          { t: 9.8, altitudeM: 412, speedMps: 0 },
+        ],
+        events: [{ kind: 'apogee', t: 9.8 }],
+        mapping: {},
+        filter: 'Savitzky–Golay',
+        fileName: 'flight.csv',
+        uploadedAt: '2026-06-13T18:00:00.000Z',
       },
-      series: [
-        { t: 0, altitudeM: 0, speedMps: 0 },
-        { t: 9.8, altitudeM: 412, speedMps: 0 },
-      ],
-      events: [{ kind: 'apogee', t: 9.8 }],
+      caution: 'Padside records.',
     });
     http
       .expectOne('/api/flights/6')
