@@ -198,16 +198,17 @@ export class BooksRepository {
     }));
   }
 
-  /** Card payments whose fee is still an estimate, oldest first. */
-  async chargesWithEstimatedFees(limit: number): Promise<string[]> {
+  /** Card payments whose fee is still an estimate, oldest first, one page after the movement id `afterId`. */
+  async chargesWithEstimatedFees(afterId: number, limit: number): Promise<{ id: number; chargeId: string }[]> {
     const rows = await this.db('money_movements')
       .where('fee_estimated', true)
+      .where('id', '>', afterId)
       .whereNotNull('processor_charge_id')
       .whereIn('kind', ['order_payment', 'dues_payment'])
       .orderBy('id')
       .limit(limit)
-      .pluck('processor_charge_id');
-    return rows as string[];
+      .select('id', 'processor_charge_id');
+    return rows.map((r) => ({ id: Number(r.id), chargeId: r.processor_charge_id as string }));
   }
 
   /** Replaces the estimated fee of the movement for a charge with the processor's actual fee. */

@@ -134,12 +134,18 @@ export class BooksService {
   }
 
   /** Replaces estimated fees with the processor's actual ones where it reports them; returns how many changed. */
-  async syncActualFees(payments: PaymentGateway, batch = 200): Promise<number> {
+  async syncActualFees(payments: Pick<PaymentGateway, 'actualFeeCents'>, batch = 200): Promise<number> {
     let updated = 0;
-    for (const chargeId of await this.repo.chargesWithEstimatedFees(batch)) {
-      const fee = await payments.actualFeeCents(chargeId);
-      // The processor is asked outside any transaction; only the write opens one.
-      if (fee !== null) updated += await this.db.transaction((trx) => this.repo.setActualFee(trx, chargeId, fee));
+    // Pages by movement id through every estimate: charges the processor has no fee for yet stay estimated, and
+    // must not hold back the ones after them.
+    let page = await this.repo.chargesWithEstimatedFees(0, batch);
+    while (page.length > 0) {
+      for (const { chargeId } of page) {
+        const fee = await payments.actualFeeCents(chargeId);
+        // The processor is asked outside any transaction; only the write opens one.
+        if (fee !== null) updated += await this.db.transaction((trx) => this.repo.setActualFee(trx, chargeId, fee));
+      }
+      page = await this.repo.chargesWithEstimatedFees(page[page.length - 1].id, batch);
     }
     return updated;
   }

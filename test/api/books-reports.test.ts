@@ -1,5 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
+import { BooksRepository } from '../../server/books/books-repository';
+import { BooksService } from '../../server/books/books-service';
 import { recordMovement, type Movement } from '../../server/books/ledger-writer';
 import { buildTestApp, type TestApp } from '../helpers/test-app';
 import { signedIn, type Client } from '../helpers/users';
@@ -349,8 +351,7 @@ describe('actual processor fees', () => {
         .where({ processor_charge_id: `ch_${tag}` })
         .first('fee_estimated'),
     ).toEqual({ fee_estimated: true });
-    const books = (await import('../../server/books/books-repository')).BooksRepository;
-    const repo = new books(t.deps.db, 'America/Winnipeg');
+    const repo = new BooksRepository(t.deps.db, 'America/Winnipeg');
     const updated = await t.deps.db.transaction((trx) => repo.setActualFee(trx, `ch_${tag}`, 348));
     expect(updated).toBe(1);
     const row = await t.deps
@@ -392,8 +393,9 @@ describe('the actual-fee job', () => {
     const job = t.app.jobs.find((j) => j.name === 'books-actual-fees')!;
     const gateway = t.deps.payments;
     const original = gateway.actualFeeCents.bind(gateway);
-    // The local fake has no balance transactions, so this test plays the processor's answer for one charge.
-    gateway.actualFeeCents = async (chargeId: string) => (chargeId === `ch_${tag}` ? 341 : original(chargeId));
+    // The local fake has no balance transactions, so this test plays the processor: a fee for this file's charge and
+    // none yet for the other files' charges, which stay estimated and come before it.
+    gateway.actualFeeCents = async (chargeId: string) => (chargeId === `ch_${tag}` ? 341 : null);
     try {
       await job.run();
       const row = await t.deps
@@ -408,5 +410,43 @@ describe('the actual-fee job', () => {
         .where({ processor_charge_id: `ch_${tag}` })
         .update({ fee_cents: 358, fee_estimated: true });
     }
+  });
+
+  it('pages past charges the processor has no fee for yet', async () => {
+    const later = `ch_${tag}_later`;
+    await on(t, {
+      occurredAt: new Date('2019-02-11T18:00:00Z'),
+      kind: 'order_payment',
+      source: 'merch',
+      grossCents: 2260,
+      feeCents: 96,
+      feeEstimated: true,
+      taxes: mb(2000),
+      processorChargeId: later,
+    });
+    const books = new BooksService(
+      t.deps.db,
+      new BooksRepository(t.deps.db, 'America/Winnipeg'),
+      t.app.platform.settings,
+      t.deps.calendar,
+      () => ({}),
+    );
+    const fees: Record<string, number> = { [`ch_${tag}`]: 341, [later]: 95 };
+    // One charge a page: before paging, a run stopped after the oldest estimate, whatever the processor said.
+    const updated = await books.syncActualFees({ actualFeeCents: async (id) => fees[id] ?? null }, 1);
+    expect(updated).toBe(2);
+    const rows = await t.deps
+      .db('money_movements')
+      .whereIn('processor_charge_id', Object.keys(fees))
+      .orderBy('id')
+      .select('fee_cents', 'fee_estimated');
+    expect(rows).toEqual([
+      { fee_cents: 341, fee_estimated: false },
+      { fee_cents: 95, fee_estimated: false },
+    ]);
+    await t.deps
+      .db('money_movements')
+      .where({ processor_charge_id: `ch_${tag}` })
+      .update({ fee_cents: 358, fee_estimated: true });
   });
 });
