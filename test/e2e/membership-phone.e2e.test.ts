@@ -150,6 +150,12 @@ describe('club dues on a phone (390x844)', () => {
       )
     ).rows[0];
     expect(row).toEqual({ born: '1991-05-05', expires, certified: '2019-08-24' });
+    // The new member's page reads the number and its expiry as one phrase, the date in the club's format.
+    const association = page.getByTestId('association-state');
+    await association.waitFor();
+    expect((await association.textContent())!.replace(/\s+/g, ' ').trim()).toMatch(
+      /^NA-70021, expires [A-Z][a-z]{2} 15, \d{4} · not yet checked by the club/,
+    );
     expect(await seriousViolations(page)).toEqual([]);
     expect(errors).toEqual([REFUSAL_LOGGED]);
     await context.close();
