@@ -92,6 +92,60 @@ describe('PostPage with flight markers', () => {
   });
 });
 
+describe('PostPage with a flight below the fold', () => {
+  /** Stands in for the browser's observer: the test says when a placeholder nears the screen. */
+  class NearScreen {
+    static last: NearScreen;
+    readonly watched = new Set<Element>();
+    constructor(private readonly report: (entries: { target: Element; isIntersecting: boolean }[]) => void) {
+      NearScreen.last = this;
+    }
+    observe(target: Element): void {
+      this.watched.add(target);
+    }
+    unobserve(target: Element): void {
+      this.watched.delete(target);
+    }
+    disconnect(): void {
+      this.watched.clear();
+    }
+    near(target: Element): void {
+      this.report([{ target, isIntersecting: true }]);
+    }
+  }
+  beforeAll(() => jest.spyOn(HTMLCanvasElement.prototype, 'getContext').mockReturnValue(null));
+  beforeEach(() => {
+    (globalThis as { IntersectionObserver?: unknown }).IntersectionObserver = NearScreen;
+    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] });
+  });
+  afterEach(() => delete (globalThis as { IntersectionObserver?: unknown }).IntersectionObserver);
+
+  it('should ask for a flight only once its placeholder nears the screen', async () => {
+    const fixture = TestBed.createComponent(PostPage);
+    fixture.componentRef.setInput('slug', 'first-flight');
+    TestBed.tick();
+    const http = TestBed.inject(HttpTestingController);
+    http.expectOne('/api/posts/first-flight').flush(POST);
+    await settle();
+    await settle();
+    // Rendered, watched, and not fetched: the chart's code and data wait.
+    expect(http.match((r) => r.url.startsWith('/api/flights/'))).toEqual([]);
+    const [first, second] = Array.from(
+      (fixture.nativeElement as HTMLElement).querySelectorAll<HTMLElement>('.ps-flight'),
+    );
+    expect([...NearScreen.last.watched]).toEqual([first, second]);
+
+    NearScreen.last.near(first);
+    await settle();
+    await settle();
+    http
+      .expectOne('/api/flights/5')
+      .flush({ error: { code: 'not_found', message: 'Not found.' } }, { status: 404, statusText: 'Not Found' });
+    expect(http.match('/api/flights/6')).toEqual([]);
+    expect([...NearScreen.last.watched]).toEqual([second]);
+  });
+});
+
 describe('PostPage when the post does not load', () => {
   // Stands in for the server render's response (RESPONSE_INIT), whose status the page sets.
   let response: ResponseInit;

@@ -113,8 +113,14 @@ export class PostPage {
     inject(DestroyRef).onDestroy(() => void this.mountFlights(undefined));
   }
 
-  /** The embed's code (and Chart.js) loads only for a post that has a flight in it. */
+  /** The embed's code (and Chart.js) loads only for a post that has a flight in it, once a chart nears the screen. */
   private embedType: Promise<Type<FlightEmbed>> | null = null;
+  /**
+   * Placeholders waiting to near the screen. A chart below the fold then costs nothing while the page starts on a
+   * phone; the margin gives its code time to arrive before it scrolls in. Without the observer (a test's DOM) every
+   * placeholder counts as near.
+   */
+  private nearScreen: IntersectionObserver | null = null;
 
   private async mountFlights(container: HTMLElement | undefined): Promise<void> {
     const placeholders = container
@@ -128,9 +134,24 @@ export class PostPage {
     const fresh = placeholders.filter(
       (p) => !this.flightEmbeds.has(p) && /^[1-9][0-9]*$/.test(p.dataset['flight'] ?? ''),
     );
+    if (!container) this.nearScreen?.disconnect();
     if (fresh.length === 0) return;
+    if (typeof IntersectionObserver === 'undefined') return this.mountNear(fresh);
+    this.nearScreen ??= new IntersectionObserver(
+      (entries) => {
+        const near = entries.filter((e) => e.isIntersecting).map((e) => e.target as HTMLElement);
+        for (const element of near) this.nearScreen?.unobserve(element);
+        void this.mountNear(near);
+      },
+      { rootMargin: '600px 0px' },
+    );
+    for (const placeholder of fresh) this.nearScreen.observe(placeholder);
+  }
+
+  private async mountNear(placeholders: HTMLElement[]): Promise<void> {
+    if (placeholders.length === 0) return;
     const embed = await (this.embedType ??= import('../flights/flight-embed').then((m) => m.FlightEmbed));
-    for (const placeholder of fresh) {
+    for (const placeholder of placeholders) {
       // The body may have changed while the code loaded.
       if (!placeholder.isConnected || this.flightEmbeds.has(placeholder)) continue;
       const ref = createComponent(embed, { environmentInjector: this.environmentInjector, hostElement: placeholder });
