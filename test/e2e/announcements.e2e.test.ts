@@ -43,6 +43,10 @@ async function phone(): Promise<{ context: BrowserContext; page: Page; errors: s
 }
 
 /** The mail's link opened on the served app (the mail names PUBLIC_URL, the test server listens elsewhere). */
+/** Scrolls to the sign-up form's place: the form is made in the browser once its place nears the screen. */
+const toSignUp = (page: Page) =>
+  page.evaluate(() => document.querySelector('[data-testid="sign-up-slot"]')?.scrollIntoView());
+
 const onSite = (link: string) => {
   const u = new URL(link);
   return `${site.baseUrl}${u.pathname}${u.search}`;
@@ -57,6 +61,7 @@ describe('announcements on a phone', () => {
     const visitor = await phone();
     const requests = recordRequests(visitor.page);
     await visitor.page.goto(`${site.baseUrl}/`);
+    await toSignUp(visitor.page);
     await visitor.page.getByRole('heading', { name: 'Tell me about new runs, launch days and build logs' }).waitFor();
     await visitor.page.getByText('may e-mail me about the lists I ticked').waitFor();
     expect(await seriousViolations(visitor.page)).toEqual([]);
@@ -166,6 +171,7 @@ describe('announcements on a phone', () => {
     const visitor = await phone();
     await signInThroughForm(visitor.page, site.baseUrl, fan.email, fan.password);
     await visitor.page.goto(`${site.baseUrl}/shop/p/${shirt.slug}`);
+    await toSignUp(visitor.page);
     await visitor.page.getByRole('heading', { name: 'Tell me when the next run opens' }).waitFor();
     const box = visitor.page.getByRole('checkbox', { name: /the next run of Test shirt/ });
     expect(await box.isChecked()).toBe(true);

@@ -55,6 +55,7 @@ beforeAll(async () => {
     weightGrams: 210,
     images: [image],
     variants: [{ label: 'One size', sku: `CT-${tag}` }],
+    sizeChart: { columns: ['Size', 'Chest (cm)'], rows: [['One size', '104']] },
     run: {
       cap: 40,
       opensAt: new Date(Date.now() - 86400_000).toISOString(),
@@ -91,6 +92,17 @@ afterAll(async () => {
   await t?.close();
 });
 
+describe('the home page without JavaScript', () => {
+  it('holds a place for the sign-up form, which the browser makes, and none of the form fields’ styles', async () => {
+    const { status, html } = await page('/');
+    expect(status).toBe(200);
+    expect(html).toContain('data-testid="sign-up-slot"');
+    // Inlined for the server's form, the text field's and checkbox's styles were most of the page's bytes.
+    expect(html).not.toContain('.mdc-text-field');
+    expect(html).not.toContain('.mdc-checkbox');
+  });
+});
+
 describe('a product page without JavaScript', () => {
   it('holds the name, price and availability, its preview tags and its Product JSON-LD', async () => {
     const { status, html, headers } = await page(`/shop/p/${product.slug}`);
@@ -116,6 +128,10 @@ describe('a product page without JavaScript', () => {
     expect(picture.headers.get('content-type')).toBe('image/png');
     expect((await sharp(Buffer.from(await picture.arrayBuffer())).metadata()).width).toBe(900);
     expect(metaContent(html, 'og:image:width')).toBe('900');
+
+    // The size chart is the browser's own disclosure, readable without script.
+    expect(html).toMatch(/<details[^>]*class="size-chart"[^>]*><summary[^>]*>Size chart<\/summary>/);
+    expect(html).toMatch(/<td[^>]*>One size<\/td>(<!--[^>]*-->)*<td[^>]*>104<\/td>/);
 
     const [data] = jsonLdOf(html);
     expect(schemaOrgProblems(data)).toEqual([]);

@@ -3,7 +3,6 @@ import { rxResource } from '@angular/core/rxjs-interop';
 import { RouterLink } from '@angular/router';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
-import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { SignUpForm } from '../announcements/sign-up-form';
@@ -26,7 +25,6 @@ import type { Variant } from '@contracts/shop/shop-answers';
     RouterLink,
     MatButtonModule,
     MatButtonToggleModule,
-    MatExpansionModule,
     MatFormFieldModule,
     MatInputModule,
     MoneyPipe,

@@ -44,11 +44,11 @@ import { PageMeta } from '../core/page-meta';
       </section>
     }
     <section class="ps-page">
-      <!-- Server-rendered; the form's code loads and takes over once the page is idle, after the rest. -->
-      @defer (on viewport; hydrate on idle) {
+      <!-- Made in the browser once its place nears the screen: the server's page carries no form fields' styles. -->
+      @defer (on viewport) {
         <ps-sign-up-form page="home" heading="Tell me about new runs, launch days and build logs" />
       } @placeholder {
-        <div class="sign-up-slot"></div>
+        <div class="sign-up-slot" data-testid="sign-up-slot"></div>
       }
     </section>
   `,
