@@ -11,7 +11,8 @@ export const CLUB_LOCALE = 'en-CA';
 type Instant = Date | string;
 
 const formats = new Map<string, Intl.DateTimeFormat>();
-function format(timeZone: string, style: 'date' | 'dateTime' | 'time' | 'parts'): Intl.DateTimeFormat {
+// Made on first use: a page's first formatter costs the engine's locale data, which a page without dates never needs.
+function format(timeZone: string, style: 'date' | 'dateTime' | 'time' | 'month' | 'parts'): Intl.DateTimeFormat {
   const key = `${style} ${timeZone}`;
   let f = formats.get(key);
   if (!f) {
@@ -22,15 +23,17 @@ function format(timeZone: string, style: 'date' | 'dateTime' | 'time' | 'parts')
           ? { dateStyle: 'medium', timeStyle: 'short' }
           : style === 'time'
             ? { timeStyle: 'short' }
-            : {
-                hourCycle: 'h23',
-                year: 'numeric',
-                month: '2-digit',
-                day: '2-digit',
-                hour: '2-digit',
-                minute: '2-digit',
-                second: '2-digit',
-              };
+            : style === 'month'
+              ? { month: 'short', year: 'numeric' }
+              : {
+                  hourCycle: 'h23',
+                  year: 'numeric',
+                  month: '2-digit',
+                  day: '2-digit',
+                  hour: '2-digit',
+                  minute: '2-digit',
+                  second: '2-digit',
+                };
     f = new Intl.DateTimeFormat(style === 'parts' ? 'en-US' : CLUB_LOCALE, { ...options, timeZone });
     formats.set(key, f);
   }
@@ -48,13 +51,12 @@ export function formatDay(ymd: string): string {
 }
 
 const YM = /^(\d{4})-(\d{2})$/;
-const monthFormat = new Intl.DateTimeFormat(CLUB_LOCALE, { timeZone: 'UTC', month: 'short', year: 'numeric' });
 
 /** A calendar month (`YYYY-MM`, already a club month, as the books group by) as people read it: "Dec 2026". */
 export function formatMonth(ym: string): string {
   const m = YM.exec(ym);
   if (!m) return ym;
-  return monthFormat.format(new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, 15, 12)));
+  return format('UTC', 'month').format(new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, 15, 12)));
 }
 
 /** The club-time calendar date of an instant: "Mar 8, 2026". */

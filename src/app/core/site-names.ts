@@ -6,8 +6,10 @@ import type { SiteNamesView } from '@contracts/site/site-answers';
 /** The team and club this Padside serves and the club's time zone, as `/api/site` returns them. */
 export type { SiteNamesView };
 
-// Until the answer arrives (or if it never does), dates follow this browser's own zone.
-const BROWSER_ZONE = new Intl.DateTimeFormat().resolvedOptions().timeZone;
+// Until the answer arrives (or if it never does), dates follow this browser's own zone: asked when first needed,
+// since the engine's first formatter is costly at start-up on a phone.
+let browserZone: string | undefined;
+const ownZone = () => (browserZone ??= new Intl.DateTimeFormat().resolvedOptions().timeZone);
 
 /**
  * The team and club names, asked for when first needed; the deployment sets them, so they never change while the app
@@ -15,10 +17,10 @@ const BROWSER_ZONE = new Intl.DateTimeFormat().resolvedOptions().timeZone;
  */
 @Injectable({ providedIn: 'root' })
 export class SiteNames {
-  private readonly names = signal<SiteNamesView>({ teamName: '', clubName: '', timeZone: BROWSER_ZONE });
+  private readonly names = signal<SiteNamesView>({ teamName: '', clubName: '', timeZone: '' });
   readonly teamName = computed(() => this.names().teamName);
   readonly clubName = computed(() => this.names().clubName);
-  readonly timeZone = computed(() => this.names().timeZone || BROWSER_ZONE);
+  readonly timeZone = computed(() => this.names().timeZone || ownZone());
   /** Which clock the console's times follow, in words: "club time (Winnipeg)". */
   readonly clubTime = computed(() => clubTimeInWords(this.timeZone()));
 

@@ -31,6 +31,7 @@ import { PageMeta } from '../core/page-meta';
             [alt]="img.alt"
             [attr.width]="img.width ?? 1200"
             [attr.height]="img.height ?? 1200"
+            fetchpriority="high"
           />
         }
         <div>
