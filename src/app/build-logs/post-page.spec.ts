@@ -29,6 +29,18 @@ const settle = async () => {
   TestBed.tick();
 };
 
+/** The post with its two markers, answered and rendered; the embeds are made after that render. */
+async function openWithMarkers() {
+  const fixture = TestBed.createComponent(PostPage);
+  fixture.componentRef.setInput('slug', 'first-flight');
+  TestBed.tick();
+  const http = TestBed.inject(HttpTestingController);
+  http.expectOne('/api/posts/first-flight').flush(POST);
+  await settle();
+  await settle();
+  return { fixture, http };
+}
+
 describe('PostPage with flight markers', () => {
   beforeAll(() => jest.spyOn(HTMLCanvasElement.prototype, 'getContext').mockReturnValue(null));
   beforeEach(() => {
@@ -38,14 +50,7 @@ describe('PostPage with flight markers', () => {
   afterEach(() => (console.error as jest.Mock).mockRestore());
 
   it('should put each flight chart where its marker was, and a note where there is no data', async () => {
-    const fixture = TestBed.createComponent(PostPage);
-    fixture.componentRef.setInput('slug', 'first-flight');
-    TestBed.tick();
-    const http = TestBed.inject(HttpTestingController);
-    http.expectOne('/api/posts/first-flight').flush(POST);
-    // The body renders, then the embeds are made after that render and ask for their flights.
-    await settle();
-    await settle();
+    const { fixture, http } = await openWithMarkers();
 
     // As GET /api/flights/:id answers (FlightPage): the card, and the analysed log under `data`.
     http.expectOne('/api/flights/5').flush({
@@ -121,13 +126,7 @@ describe('PostPage with a flight below the fold', () => {
   afterEach(() => delete (globalThis as { IntersectionObserver?: unknown }).IntersectionObserver);
 
   it('should ask for a flight only once its placeholder nears the screen', async () => {
-    const fixture = TestBed.createComponent(PostPage);
-    fixture.componentRef.setInput('slug', 'first-flight');
-    TestBed.tick();
-    const http = TestBed.inject(HttpTestingController);
-    http.expectOne('/api/posts/first-flight').flush(POST);
-    await settle();
-    await settle();
+    const { fixture, http } = await openWithMarkers();
     // Rendered, watched, and not fetched: the chart's code and data wait.
     expect(http.match((r) => r.url.startsWith('/api/flights/'))).toEqual([]);
     const [first, second] = Array.from(
