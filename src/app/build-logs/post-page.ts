@@ -134,7 +134,8 @@ export class PostPage {
     const fresh = placeholders.filter(
       (p) => !this.flightEmbeds.has(p) && /^[1-9][0-9]*$/.test(p.dataset['flight'] ?? ''),
     );
-    if (!container) this.nearScreen?.disconnect();
+    // Watches exactly the current body's placeholders still to be made; ones a new body replaced are let go.
+    this.nearScreen?.disconnect();
     if (fresh.length === 0) return;
     if (typeof IntersectionObserver === 'undefined') return this.mountNear(fresh);
     this.nearScreen ??= new IntersectionObserver(
